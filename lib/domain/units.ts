@@ -1,0 +1,116 @@
+// Unit conversions for the measurement core. Every factor is an exact definition
+// (NIST SP 811, Appendix B: 1 in = 25.4 mm, 1 ft = 0.3048 m, 1 lb = 0.45359237 kg,
+// standard gravity g = 9.80665 m/s²), so nothing here is a rounded "shop" factor.
+
+/** Millimetres in one inch (exact, international inch of 1959). */
+export const MM_PER_IN = 25.4;
+/** Metres in one foot (exact). */
+export const M_PER_FT = 0.3048;
+/** Kilograms in one avoirdupois pound (exact). */
+export const KG_PER_LB = 0.45359237;
+/** Standard acceleration of gravity, m/s² (exact, CGPM 1901). */
+export const STANDARD_GRAVITY = 9.80665;
+/** Newtons in one pound-force: lb × g (exact product 4.4482216152605). */
+export const N_PER_LBF = KG_PER_LB * STANDARD_GRAVITY;
+/** Cubic centimetres in one cubic inch: 2.54³ = 16.387064 (exact). */
+export const CC_PER_CUBIC_IN = 16.387064;
+/** Newton-metres in one pound-force foot. */
+export const NM_PER_LBF_FT = N_PER_LBF * M_PER_FT;
+/** Kilopascals in one psi: lbf / in² = 4.4482216152605 N / 0.00064516 m². */
+export const KPA_PER_PSI = N_PER_LBF / (0.0254 * 0.0254) / 1000;
+
+export type LengthUnit = "in" | "mm";
+export type TorqueUnit = "lbf_ft" | "nm";
+
+function requireFinite(value: number, name: string): void {
+  if (typeof value !== "number" || !Number.isFinite(value)) {
+    throw new Error(`${name} must be a finite number; got ${String(value)}`);
+  }
+}
+
+/**
+ * Rounds away binary floating-point noise (4.0312 − 4.0302 = 0.0010000000000003)
+ * by keeping 12 significant digits: far finer than any gauge (0.0001 in, 0.001 mm),
+ * far coarser than float error, so a difference that is exactly on a limit stays on it.
+ */
+export function cleanDecimal(x: number): number {
+  if (!Number.isFinite(x)) return x;
+  const rounded = Number(x.toPrecision(12));
+  return rounded === 0 ? 0 : rounded; // never hand back -0
+}
+
+export function inToMm(inches: number): number {
+  requireFinite(inches, "inches");
+  return inches * MM_PER_IN;
+}
+
+export function mmToIn(mm: number): number {
+  requireFinite(mm, "millimetres");
+  return mm / MM_PER_IN;
+}
+
+export function cubicInToCc(cubicIn: number): number {
+  requireFinite(cubicIn, "cubic inches");
+  return cubicIn * CC_PER_CUBIC_IN;
+}
+
+export function ccToCubicIn(cc: number): number {
+  requireFinite(cc, "cubic centimetres");
+  return cc / CC_PER_CUBIC_IN;
+}
+
+export function lbfFtToNm(lbfFt: number): number {
+  requireFinite(lbfFt, "torque in lbf·ft");
+  return lbfFt * NM_PER_LBF_FT;
+}
+
+export function nmToLbfFt(nm: number): number {
+  requireFinite(nm, "torque in N·m");
+  return nm / NM_PER_LBF_FT;
+}
+
+export function psiToKpa(psi: number): number {
+  requireFinite(psi, "pressure in psi");
+  return psi * KPA_PER_PSI;
+}
+
+export function kpaToPsi(kpa: number): number {
+  requireFinite(kpa, "pressure in kPa");
+  return kpa / KPA_PER_PSI;
+}
+
+export function fToC(fahrenheit: number): number {
+  requireFinite(fahrenheit, "temperature in °F");
+  return ((fahrenheit - 32) * 5) / 9;
+}
+
+export function cToF(celsius: number): number {
+  requireFinite(celsius, "temperature in °C");
+  return (celsius * 9) / 5 + 32;
+}
+
+export function convertLength(value: number, from: LengthUnit, to: LengthUnit): number {
+  requireUnit(from, ["in", "mm"], "length unit");
+  requireUnit(to, ["in", "mm"], "length unit");
+  if (from === to) {
+    requireFinite(value, "length");
+    return value;
+  }
+  return from === "in" ? inToMm(value) : mmToIn(value);
+}
+
+export function convertTorque(value: number, from: TorqueUnit, to: TorqueUnit): number {
+  requireUnit(from, ["lbf_ft", "nm"], "torque unit");
+  requireUnit(to, ["lbf_ft", "nm"], "torque unit");
+  if (from === to) {
+    requireFinite(value, "torque");
+    return value;
+  }
+  return from === "lbf_ft" ? lbfFtToNm(value) : nmToLbfFt(value);
+}
+
+function requireUnit(unit: string, allowed: readonly string[], name: string): void {
+  if (!allowed.includes(unit)) {
+    throw new Error(`Unknown ${name} '${String(unit)}'; use one of ${allowed.join(", ")}`);
+  }
+}
