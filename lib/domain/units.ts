@@ -1,6 +1,7 @@
 // Unit conversions for the measurement core. Every factor is an exact definition
 // (NIST SP 811, Appendix B: 1 in = 25.4 mm, 1 ft = 0.3048 m, 1 lb = 0.45359237 kg,
 // standard gravity g = 9.80665 m/s²), so nothing here is a rounded "shop" factor.
+import Decimal from "decimal.js";
 
 /** Millimetres in one inch (exact, international inch of 1959). */
 export const MM_PER_IN = 25.4;
@@ -29,14 +30,38 @@ function requireFinite(value: number, name: string): void {
 }
 
 /**
- * Rounds away binary floating-point noise (4.0312 − 4.0302 = 0.0010000000000003)
- * by keeping 12 significant digits: far finer than any gauge (0.0001 in, 0.001 mm),
- * far coarser than float error, so a difference that is exactly on a limit stays on it.
+ * Rounds a result to 12 significant digits: far finer than any gauge (0.0001 in, 0.001 mm),
+ * far coarser than float error. It cleans results whose size is like their operands' (a
+ * product such as 0.3353 × 1.73, a unit conversion). It cannot clean a small difference of
+ * large readings (4.0302 − 4.0301 = 0.0000999999999998 keeps its noise at 12 digits), so
+ * differences of readings go through decimalDifference / decimalSum instead.
  */
 export function cleanDecimal(x: number): number {
   if (!Number.isFinite(x)) return x;
   const rounded = Number(x.toPrecision(12));
   return rounded === 0 ? 0 : rounded; // never hand back -0
+}
+
+function toDecimal(x: number, name: string): Decimal {
+  requireFinite(x, name);
+  // Operands are first cleaned to 12 significant digits so a reading that went through a unit
+  // conversion (4.0302 × 25.4 = 102.36708000000001) is taken as the decimal figure it stands for.
+  return new Decimal(cleanDecimal(x));
+}
+
+/**
+ * a − b done on the decimal figures as written, so 4.0312 − 4.0302 is exactly 0.001 and a value
+ * that sits on a limit stays on it (the issue's "numbers must be right at the limit").
+ */
+export function decimalDifference(a: number, b: number): number {
+  return toDecimal(a, "first value").minus(toDecimal(b, "second value")).toNumber();
+}
+
+/** Exact sum of signed decimal figures (stack-ups such as deck − stroke/2 − rod − clearance). */
+export function decimalSum(terms: readonly number[]): number {
+  return terms
+    .reduce((sum: Decimal, t, i) => sum.plus(toDecimal(t, `term ${i + 1}`)), new Decimal(0))
+    .toNumber();
 }
 
 export function inToMm(inches: number): number {
