@@ -1,0 +1,8 @@
+import { ROLE_HOME } from "@/lib/server/access";
+import { authed } from "@/lib/server/route";
+import { findShop } from "@/lib/server/shops-repo";
+
+export const GET = authed("any", async ({ actor }) => {
+  const shop = await findShop(actor.shopId);
+  return { user: { id: actor.userId, name: actor.name, email: actor.email, role: actor.role }, shop, home: ROLE_HOME[actor.role] };
+});

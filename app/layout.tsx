@@ -1,0 +1,36 @@
+import type { Metadata, Viewport } from "next";
+import localFont from "next/font/local";
+import { Providers } from "./providers";
+import "./globals.css";
+
+const sans = localFont({ src: "./fonts/inter-latin-wght.woff2", weight: "100 900", variable: "--font-sans", display: "swap" });
+const mono = localFont({ src: "./fonts/jetbrains-mono-latin-wght.woff2", weight: "100 800", variable: "--font-mono", display: "swap" });
+
+export const metadata: Metadata = {
+  title: { default: "Tenthwise", template: "%s · Tenthwise" },
+  description: "Bench measurement records for engine builds: readings, limits, reviews and release.",
+  applicationName: "Tenthwise",
+  icons: { icon: "/icons/icon.svg", apple: "/icons/icon-192.png" },
+};
+
+export const viewport: Viewport = {
+  themeColor: "#1c4070",
+  width: "device-width",
+  initialScale: 1,
+};
+
+// Applies the saved theme before first paint so the dim bench theme does not flash.
+const themeScript = `try{if(localStorage.getItem("tw-theme")==="dim")document.documentElement.classList.add("dim")}catch(e){}`;
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${sans.variable} ${mono.variable}`} suppressHydrationWarning>
+      <head>
+        <script dangerouslySetInnerHTML={{ __html: themeScript }} />
+      </head>
+      <body className="min-h-dvh antialiased">
+        <Providers>{children}</Providers>
+      </body>
+    </html>
+  );
+}

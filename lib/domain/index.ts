@@ -1,0 +1,16 @@
+// The public face of the measurement core. Tablet (offline verdicts) and server (authoritative
+// verdicts) both import from here; nothing outside lib/domain re-implements a formula.
+export * from "./units";
+export * from "./geometry";
+export * from "./clearances";
+export * from "./fasteners";
+export * from "./build-math";
+export * from "./thermal";
+export * from "./uncertainty";
+export * from "./iso286";
+export * from "./types";
+export * from "./verdict";
+export * from "./limits";
+export * from "./stations";
+export * from "./bench-route";
+export * from "./derive";

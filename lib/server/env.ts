@@ -1,0 +1,81 @@
+import "server-only";
+import { z } from "zod";
+
+// The one place that reads process.env (STYLE habit 1). Everything else imports `env`.
+const optionalNumber = z.coerce.number().int().positive().optional();
+
+const schema = z
+  .object({
+    NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
+    APP_URL: z.string().url().default("http://localhost:3000"),
+    DATABASE_URL: z.string().regex(/^mariadb:\/\//, "DATABASE_URL must start with mariadb://").optional(),
+    DB_HOST: z.string().optional(),
+    DB_PORT: optionalNumber,
+    DB_NAME: z.string().optional(),
+    DB_USER: z.string().optional(),
+    DB_PASSWORD: z.string().optional(),
+    DB_POOL_MAX: z.coerce.number().int().positive().default(10),
+    SESSION_SECRET: z.string().min(32, "SESSION_SECRET must be at least 32 characters"),
+    SESSION_TTL_HOURS: z.coerce.number().positive().default(12),
+    LINK_SECRET: z.string().min(32, "LINK_SECRET must be at least 32 characters").optional(),
+    SMTP_HOST: z.string().default("127.0.0.1"),
+    SMTP_PORT: z.coerce.number().int().positive().default(2525),
+    SMTP_SECURE: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+    SMTP_USER: z.string().optional(),
+    SMTP_PASSWORD: z.string().optional(),
+    MAIL_FROM: z.string().default("Tenthwise <records@tenthwise.local>"),
+    MAIL_DIR: z.string().optional(),
+    S3_ENDPOINT: z.string().url().optional(),
+    S3_REGION: z.string().default("us-east-1"),
+    S3_BUCKET: z.string().default("tenthwise"),
+    S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
+    S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
+    S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default("true").transform((v) => v === "true"),
+    UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(15 * 1024 * 1024),
+  })
+  .refine((e) => e.DATABASE_URL || (e.DB_HOST && e.DB_NAME && e.DB_USER), {
+    message: "Set DATABASE_URL, or DB_HOST, DB_NAME and DB_USER (npm start sets these for you)",
+    path: ["DATABASE_URL"],
+  });
+
+export type Env = z.infer<typeof schema>;
+
+function load(): Env {
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Tenthwise configuration is invalid:\n${lines.join("\n")}`);
+  }
+  return parsed.data;
+}
+
+let cached: Env | undefined;
+
+/** Validated environment, read once on first use (so a build without a database still works). */
+export function env(): Env {
+  cached ??= load();
+  return cached;
+}
+
+export function databaseConfig() {
+  const e = env();
+  if (e.DATABASE_URL) {
+    const u = new URL(e.DATABASE_URL);
+    return {
+      host: u.hostname,
+      port: u.port ? Number(u.port) : 3306,
+      database: decodeURIComponent(u.pathname.replace(/^\//, "")),
+      username: decodeURIComponent(u.username),
+      password: decodeURIComponent(u.password),
+    };
+  }
+  return {
+    host: e.DB_HOST!,
+    port: e.DB_PORT ?? 3306,
+    database: e.DB_NAME!,
+    username: e.DB_USER!,
+    password: e.DB_PASSWORD ?? "",
+  };
+}
+
+export const linkSecret = () => env().LINK_SECRET ?? `${env().SESSION_SECRET}:customer-links`;

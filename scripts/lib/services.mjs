@@ -1,0 +1,42 @@
+// Brings up everything the app needs locally (MariaDB and the fakes) unless the environment
+// points at real services. Returns the env for the app and one stop() for all of it.
+import { startMariaDb } from "./mariadb.mjs";
+import { startFakeS3, startFakeSmtp } from "./fakes.mjs";
+
+export async function startServices({ mode, dataRoot, dbPort, smtpPort, s3Port, secrets }) {
+  const stops = [];
+  const env = {};
+  const throwaway = mode === "test";
+  try {
+    if (!process.env.DATABASE_URL && !process.env.DB_HOST) {
+      const db = await startMariaDb({
+        dataDir: `${dataRoot}/mariadb`, port: dbPort, database: throwaway ? "tenthwise_test" : "tenthwise",
+        user: "tenthwise", password: secrets.DB_APP_PASSWORD, throwaway,
+      });
+      stops.push(db.stop);
+      env.DATABASE_URL = db.url;
+      env.TW_DB_SOCKET = db.socket;
+      console.log(`[tenthwise] MariaDB ready on 127.0.0.1:${dbPort}${throwaway ? " (throwaway)" : ""}`);
+    }
+    if (!process.env.SMTP_HOST) {
+      const smtp = await startFakeSmtp({ port: smtpPort, mailDir: `${dataRoot}/mail` });
+      stops.push(smtp.stop);
+      Object.assign(env, { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(smtpPort), MAIL_DIR: smtp.mailDir });
+    }
+    if (!process.env.S3_ENDPOINT) {
+      const s3 = await startFakeS3({ port: s3Port, dir: `${dataRoot}/s3`, bucket: "tenthwise" });
+      stops.push(s3.stop);
+      Object.assign(env, { S3_ENDPOINT: s3.endpoint, S3_BUCKET: "tenthwise", S3_ACCESS_KEY_ID: "S3RVER", S3_SECRET_ACCESS_KEY: "S3RVER" });
+    }
+  } catch (err) {
+    for (const stop of stops.reverse()) await stop().catch(() => {});
+    throw err;
+  }
+  let stopped = false;
+  async function stopAll() {
+    if (stopped) return;
+    stopped = true;
+    for (const stop of stops.reverse()) await stop().catch((e) => console.error("[tenthwise] stop failed:", e.message));
+  }
+  return { env, stop: stopAll };
+}

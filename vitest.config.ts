@@ -1,0 +1,47 @@
+import { defineConfig } from "vitest/config";
+import { fileURLToPath } from "node:url";
+
+const root = fileURLToPath(new URL(".", import.meta.url));
+
+export default defineConfig({
+  resolve: {
+    alias: [
+      { find: /^@\//, replacement: `${root}` },
+      { find: /^server-only$/, replacement: `${root}tests/support/server-only.ts` },
+    ],
+  },
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: "unit",
+          include: ["tests/lib/**/*.test.{ts,tsx}", "tests/components/**/*.test.tsx", "tests/hooks/**/*.test.{ts,tsx}"],
+          environment: "node",
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts", "tests/api/**/*.test.ts"],
+          globalSetup: ["tests/support/require-services.ts"],
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: "browser",
+          include: ["tests/browser/**/*.test.ts"],
+          globalSetup: ["tests/support/require-services.ts"],
+          fileParallelism: false,
+          testTimeout: 180_000,
+          hookTimeout: 120_000,
+        },
+      },
+    ],
+  },
+});
