@@ -2,6 +2,7 @@
 // store and send these shapes, so every one is plain JSON data: strings, numbers, booleans,
 // arrays and plain objects only (no Date, no class instances, no functions, no Map).
 // Optional fields are simply left out when unknown; nothing relies on `undefined` surviving JSON.
+import type { ExpansionMaterial } from "./thermal";
 
 export type LengthUnit = "in" | "mm";
 export type TorqueUnit = "lbf_ft" | "nm";
@@ -60,6 +61,43 @@ export type SectionId =
   | "bolt"
   | "torque"
   | "lash";
+
+export type BoreDepth = "top" | "mid" | "bottom";
+/** Bores: A = thrust axis, B = pin axis. Journals: two axes 90° apart. Bearing bores: A square to the cap joint. */
+export type Axis = "A" | "B";
+export type JournalPosition = "front" | "rear";
+/** Inline engines have one deck ("block"); V and flat engines a left and a right bank. */
+export type DeckBank = "block" | "left" | "right";
+export type DeckCorner = "front" | "rear";
+export type BoltState = "free" | "loaded";
+
+/** A station id taken apart (parseStationId); only the fields its section uses are present. */
+export interface ParsedStation {
+  id: string;
+  section: SectionId;
+  /** The raw characteristic read there; absent for part ids such as "bore/3" that only name derived values. */
+  characteristic?: RawCharacteristic;
+  cylinder?: number;
+  /** Main journal (and main bearing) number. */
+  main?: number;
+  /** Crankpin (rod journal) number. */
+  journal?: number;
+  /** Connecting rod number (rod bearing bore, side clearance, rod bolts). */
+  rod?: number;
+  depth?: BoreDepth;
+  axis?: Axis;
+  position?: JournalPosition;
+  /** "top", "second", "third" or "oil". */
+  ring?: string;
+  bolt?: number;
+  boltState?: BoltState;
+  bank?: DeckBank;
+  corner?: DeckCorner;
+  /** "int", "exh", or numbered "int1", "exh2" when a cylinder has more than one. */
+  valve?: string;
+  /** Torque group id, e.g. "main-caps". */
+  group?: string;
+}
 
 /** Kinds of instrument a characteristic is usually measured with (our own names). */
 export type GaugeKind =
@@ -130,8 +168,8 @@ export interface NominalSizes {
   rodJournal?: number;
 }
 
-/** Materials by part; ids are keys of EXPANSION_COEFFICIENTS (thermal.ts). */
-export type PartMaterials = Partial<Record<EnginePart, string>>;
+/** Materials by part; ids are keys of EXPANSION_COEFFICIENTS (thermal.ts), e.g. "greyCastIron". */
+export type PartMaterials = Partial<Record<EnginePart, ExpansionMaterial>>;
 
 export interface EngineShape {
   cylinders: number;
@@ -169,7 +207,7 @@ export interface RawReading {
   /** Torque entries: the lubricant used on the threads and under the head. */
   lubricant?: Lubricant;
   /** Material of the part, overriding the engine's materials (key of EXPANSION_COEFFICIENTS). */
-  material?: string;
+  material?: ExpansionMaterial;
 }
 
 /** One place on the engine where a figure is taken (see the station id grammar in stations.ts). */
@@ -198,13 +236,14 @@ export interface BenchRoute {
   total: number;
 }
 
-/** How a length was brought to 20 °C before use. */
+/** How a length was brought to 20 °C before use (values in the reading's unit). */
 export interface ThermalCorrection {
+  stationId: string;
   measured: number;
   corrected: number;
   partTempC: number;
   alphaPart: number;
-  material: string;
+  material: ExpansionMaterial;
   gaugeTempC?: number;
 }
 
@@ -226,7 +265,7 @@ export interface Evaluation {
 }
 
 /** A value computed from raw readings, with what it was computed from. */
-export interface DerivedValue extends Partial<Evaluation> {
+export interface DerivedValue extends Partial<Omit<Evaluation, "correction" | "unit">> {
   /** `${characteristic}@${stationId}`; unique within one job. */
   key: string;
   characteristic: DerivedCharacteristic;
@@ -235,6 +274,8 @@ export interface DerivedValue extends Partial<Evaluation> {
   unit: LengthUnit;
   /** Station ids the value is computed from. */
   inputs: string[];
-  /** Inputs without a reading yet; when non-empty there is no value. */
+  /** Inputs without a usable reading yet; when non-empty there is no value (limits are still given when known). */
   missing: string[];
+  /** Inputs that were brought to 20 °C before the value was computed. */
+  corrections?: ThermalCorrection[];
 }

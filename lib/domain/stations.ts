@@ -1,0 +1,219 @@
+// The station catalogue: what can be measured, where, and how a station id is written.
+//
+// Station id grammar (segments joined by "/"; numbers 1-based, no leading zeros; cylinders and
+// rods use the engine maker's cylinder numbering, rod n sits in cylinder n):
+//   bore/<cyl>/<depth>/<axis>        bore diameter; depth top|mid|bottom; axis A (thrust) | B (pin)
+//   main/<main>/<pos>/<axis>         main journal diameter; pos front|rear; axis A | B (90° apart)
+//   rod/<pin>/<pos>/<axis>           rod journal (crankpin) diameter
+//   main-brg/<main>/<pos>/<axis>     main bearing bore, shells in, caps torqued; A square to the cap joint
+//   rod-brg/<rod>/<pos>/<axis>       rod bearing bore, shells in, cap torqued
+//   skirt/<cyl>                      piston skirt diameter at the piston maker's gauge point
+//   ring-gap/<cyl>/<ring>            ring end gap; ring top|second|third|oil
+//   side/<rod>                       rod side clearance
+//   end-play                         crankshaft end play
+//   bolt/<rod>/<bolt>/<state>        rod-bolt length; state free|loaded
+//   deck/<bank>/<corner>             deck height; bank block (inline) | left | right; corner front|rear
+//   lash/<cyl>/<valve>               valve lash; valve int|exh, numbered int1, int2, exh1… when several
+//   torque/<group>                   fastener torque of a group (kebab-case, e.g. main-caps)
+// Part ids that only name derived values (no reading is taken there):
+//   bore/<cyl>   taper, out-of-round, piston-to-wall     main/<main>, rod/<pin>   taper, out-of-round
+//   bolt/<rod>/<bolt>   stretch        (oil clearance uses the bearing bore's own id)
+import type {
+  Axis,
+  BoreDepth,
+  CharacteristicId,
+  CharacteristicInfo,
+  DeckBank,
+  EngineShape,
+  JournalPosition,
+  Lubricant,
+  ParsedStation,
+  RawCharacteristic,
+  SectionId,
+} from "./types";
+
+type Entry = Omit<CharacteristicInfo, "id">;
+const len = (section: SectionId, label: string, extra: Partial<Entry> = {}): Entry => ({
+  label, section, kind: "length", derived: false, ...extra,
+});
+const derived = (section: SectionId, label: string): Entry => ({ label, section, kind: "length", derived: true });
+
+const ENTRIES: Record<CharacteristicId, Entry> = {
+  bore_diameter: len("bore", "Cylinder bore diameter", { part: "block", gaugeKind: "dial-bore-gauge" }),
+  main_journal_diameter: len("main", "Main journal diameter", { part: "crank", gaugeKind: "micrometer" }),
+  rod_journal_diameter: len("rod", "Rod journal diameter", { part: "crank", gaugeKind: "micrometer" }),
+  main_bearing_bore: len("main-brg", "Main bearing bore, shells in and caps torqued", { part: "block", gaugeKind: "dial-bore-gauge" }),
+  rod_bearing_bore: len("rod-brg", "Rod bearing bore, shells in and cap torqued", { part: "rods", gaugeKind: "dial-bore-gauge" }),
+  piston_skirt_diameter: len("skirt", "Piston skirt diameter", { part: "pistons", gaugeKind: "micrometer" }),
+  ring_end_gap: len("ring-gap", "Ring end gap, ring square in its bore", { gaugeKind: "feeler" }),
+  rod_side_clearance: len("side", "Rod side clearance", { gaugeKind: "feeler" }),
+  crank_end_play: len("end-play", "Crankshaft end play", { gaugeKind: "dial-indicator" }),
+  rod_bolt_free_length: len("bolt", "Rod bolt length before torquing", { part: "rodBolts", gaugeKind: "stretch-gauge" }),
+  rod_bolt_loaded_length: len("bolt", "Rod bolt length torqued", { part: "rodBolts", gaugeKind: "stretch-gauge" }),
+  deck_height: len("deck", "Deck height", { part: "block", gaugeKind: "deck-gauge" }),
+  valve_lash: len("lash", "Valve lash", { gaugeKind: "feeler" }),
+  fastener_torque: { label: "Fastener torque", section: "torque", kind: "torque", derived: false, gaugeKind: "torque-wrench" },
+  main_oil_clearance: derived("main-brg", "Main bearing oil clearance"),
+  rod_oil_clearance: derived("rod-brg", "Rod bearing oil clearance"),
+  piston_to_wall: derived("skirt", "Piston-to-wall clearance"),
+  bore_taper: derived("bore", "Bore taper"),
+  bore_out_of_round: derived("bore", "Bore out-of-round"),
+  main_journal_taper: derived("main", "Main journal taper"),
+  main_journal_out_of_round: derived("main", "Main journal out-of-round"),
+  rod_journal_taper: derived("rod", "Rod journal taper"),
+  rod_journal_out_of_round: derived("rod", "Rod journal out-of-round"),
+  rod_bolt_stretch: derived("bolt", "Rod bolt stretch"),
+};
+
+/** Every characteristic, keyed by id. */
+export const CHARACTERISTICS: Readonly<Record<CharacteristicId, CharacteristicInfo>> = Object.fromEntries(
+  Object.entries(ENTRIES).map(([id, e]) => [id, { id, ...e }]),
+) as Record<CharacteristicId, CharacteristicInfo>;
+
+export const SECTION_LABELS: Readonly<Record<SectionId, string>> = {
+  bore: "Cylinder bores",
+  deck: "Deck height",
+  "main-brg": "Main bearing bores (installed)",
+  main: "Main journals",
+  rod: "Rod journals",
+  "rod-brg": "Rod bearing bores (installed)",
+  skirt: "Piston skirts",
+  "ring-gap": "Ring end gaps",
+  "end-play": "Crankshaft end play",
+  side: "Rod side clearance",
+  bolt: "Rod bolt stretch",
+  torque: "Fastener torque",
+  lash: "Valve lash",
+};
+
+export const BORE_DEPTHS: readonly BoreDepth[] = ["top", "mid", "bottom"];
+export const AXES: readonly Axis[] = ["A", "B"];
+export const JOURNAL_POSITIONS: readonly JournalPosition[] = ["front", "rear"];
+
+export const TORQUE_GROUP_LABELS: Readonly<Record<string, string>> = {
+  "main-caps": "main caps",
+  "rod-bolts": "rod bolts",
+  "head-bolts": "cylinder head bolts",
+  flywheel: "flywheel bolts",
+  damper: "crank damper bolt",
+};
+
+export const LUBRICANT_LABELS: Readonly<Record<Lubricant, string>> = {
+  "engine-oil": "Engine oil",
+  "moly-paste": "Moly assembly paste",
+  "fastener-lube": "Fastener maker's lube",
+  "thread-sealant": "Thread sealant",
+  dry: "Dry (clean, no lubricant)",
+};
+
+/** Ring names for a piston with `count` rings: the top ring first, the oil ring last. */
+export function ringNames(count: number): string[] {
+  const byCount: Record<number, string[]> = {
+    1: ["top"], 2: ["top", "oil"], 3: ["top", "second", "oil"], 4: ["top", "second", "third", "oil"],
+  };
+  const names = byCount[count];
+  if (!names) throw new Error(`Rings per piston must be 1 to 4; got ${String(count)}`);
+  return names;
+}
+
+/** Valve names for a cylinder: intakes first (the larger half when odd), then exhausts. */
+export function valveNames(count: number): string[] {
+  if (!Number.isInteger(count) || count < 2 || count > 5) {
+    throw new Error(`Valves per cylinder must be 2 to 5; got ${String(count)}`);
+  }
+  const intakes = Math.ceil(count / 2);
+  const name = (kind: string, n: number, of: number) => (of === 1 ? kind : `${kind}${n}`);
+  return [
+    ...Array.from({ length: intakes }, (_, i) => name("int", i + 1, intakes)),
+    ...Array.from({ length: count - intakes }, (_, i) => name("exh", i + 1, count - intakes)),
+  ];
+}
+
+export function deckBanks(layout: EngineShape["layout"]): DeckBank[] {
+  return layout === "inline" ? ["block"] : ["left", "right"];
+}
+
+// Each section's segments after the first: a field name and what it may hold.
+type FieldRule = readonly [keyof ParsedStation, readonly string[] | "number" | RegExp];
+const NUMBER = /^[1-9]\d{0,2}$/;
+const POS_AXIS = [["position", JOURNAL_POSITIONS], ["axis", AXES]] as const;
+const GRAMMAR: Record<SectionId, { fields: readonly FieldRule[]; partLength?: number; characteristic: RawCharacteristic }> = {
+  bore: { fields: [["cylinder", "number"], ["depth", BORE_DEPTHS], ["axis", AXES]], partLength: 1, characteristic: "bore_diameter" },
+  main: { fields: [["main", "number"], ...POS_AXIS], partLength: 1, characteristic: "main_journal_diameter" },
+  rod: { fields: [["journal", "number"], ...POS_AXIS], partLength: 1, characteristic: "rod_journal_diameter" },
+  "main-brg": { fields: [["main", "number"], ...POS_AXIS], characteristic: "main_bearing_bore" },
+  "rod-brg": { fields: [["rod", "number"], ...POS_AXIS], characteristic: "rod_bearing_bore" },
+  skirt: { fields: [["cylinder", "number"]], characteristic: "piston_skirt_diameter" },
+  "ring-gap": { fields: [["cylinder", "number"], ["ring", ["top", "second", "third", "oil"]]], characteristic: "ring_end_gap" },
+  side: { fields: [["rod", "number"]], characteristic: "rod_side_clearance" },
+  "end-play": { fields: [], characteristic: "crank_end_play" },
+  bolt: { fields: [["rod", "number"], ["bolt", "number"], ["boltState", ["free", "loaded"]]], partLength: 2, characteristic: "rod_bolt_free_length" },
+  deck: { fields: [["bank", ["block", "left", "right"]], ["corner", ["front", "rear"]]], characteristic: "deck_height" },
+  lash: { fields: [["cylinder", "number"], ["valve", /^(int|exh)([1-9])?$/]], characteristic: "valve_lash" },
+  torque: { fields: [["group", /^[a-z0-9]+(-[a-z0-9]+)*$/]], characteristic: "fastener_torque" },
+};
+
+function fieldValue(id: string, [name, rule]: FieldRule, raw: string | undefined): string | number {
+  const ok = raw !== undefined && (rule === "number" ? NUMBER.test(raw) : rule instanceof RegExp ? rule.test(raw) : rule.includes(raw));
+  if (!ok) {
+    const want = rule === "number" ? "a number from 1" : rule instanceof RegExp ? "a lower-case name" : rule.join(" | ");
+    throw new Error(`Unknown station '${id}': the ${String(name)} must be ${want}, got '${raw ?? ""}'`);
+  }
+  return rule === "number" ? Number(raw) : raw;
+}
+
+/** Takes a station id apart (grammar at the top of this file); throws naming the wrong segment. */
+export function parseStationId(id: string): ParsedStation {
+  if (typeof id !== "string" || id === "") throw new Error("A station id is needed, e.g. 'bore/1/top/A'");
+  const [head, ...rest] = id.split("/");
+  const grammar = (GRAMMAR as Record<string, (typeof GRAMMAR)[SectionId]>)[head];
+  if (!grammar) throw new Error(`Unknown station '${id}': '${head}' is not a section (${Object.keys(GRAMMAR).join(", ")})`);
+  const isPart = grammar.partLength !== undefined && rest.length === grammar.partLength;
+  if (!isPart && rest.length !== grammar.fields.length) {
+    throw new Error(`Unknown station '${id}': a ${head} station has ${grammar.fields.length + 1} segments`);
+  }
+  const out: Record<string, string | number> = { id, section: head };
+  rest.forEach((raw, i) => (out[grammar.fields[i][0]] = fieldValue(id, grammar.fields[i], raw)));
+  if (!isPart) {
+    out.characteristic = out.boltState === "loaded" ? "rod_bolt_loaded_length" : grammar.characteristic;
+  }
+  return out as unknown as ParsedStation;
+}
+
+const DEPTH_WORDS: Record<BoreDepth, string> = { top: "top of bore", mid: "middle of bore", bottom: "bottom of bore" };
+const BORE_AXIS: Record<Axis, string> = { A: "axis A (thrust)", B: "axis B (pin)" };
+const BEARING_AXIS: Record<Axis, string> = { A: "axis A (square to cap joint)", B: "axis B (90° from A)" };
+const JOURNAL_AXIS: Record<Axis, string> = { A: "axis A", B: "axis B (90° from A)" };
+
+function valveWords(valve: string): string {
+  const kind = valve.startsWith("int") ? "intake valve" : "exhaust valve";
+  const n = valve.slice(3);
+  return n ? `${kind} ${n}` : kind;
+}
+
+function spanWords(p: ParsedStation, axisWords: Record<Axis, string>): string[] {
+  return [p.position ? `${p.position} end` : "", p.axis ? axisWords[p.axis] : ""];
+}
+
+function words(p: ParsedStation): string[] {
+  switch (p.section) {
+    case "bore": return [`Cylinder ${p.cylinder}`, p.depth ? DEPTH_WORDS[p.depth] : "", p.axis ? BORE_AXIS[p.axis] : ""];
+    case "main": return [`Main journal ${p.main}`, ...spanWords(p, JOURNAL_AXIS)];
+    case "rod": return [`Rod journal ${p.journal}`, ...spanWords(p, JOURNAL_AXIS)];
+    case "main-brg": return [`Main bearing ${p.main} (installed)`, ...spanWords(p, BEARING_AXIS)];
+    case "rod-brg": return [`Rod ${p.rod} bearing (installed)`, ...spanWords(p, BEARING_AXIS)];
+    case "skirt": return [`Piston ${p.cylinder}`, "skirt at the maker's gauge point"];
+    case "ring-gap": return [`Cylinder ${p.cylinder}`, `${p.ring} ring end gap`];
+    case "side": return [`Rod ${p.rod}`, "side clearance"];
+    case "end-play": return ["Crankshaft", "end play"];
+    case "bolt": return [`Rod ${p.rod}`, `bolt ${p.bolt}`, p.boltState ? (p.boltState === "free" ? "free length" : "torqued length") : ""];
+    case "deck": return [p.bank === "block" ? "Deck" : `${p.bank === "left" ? "Left" : "Right"} bank deck`, `${p.corner} corner`];
+    case "lash": return [`Cylinder ${p.cylinder}`, `${valveWords(p.valve ?? "")} lash`];
+    case "torque": return ["Torque", TORQUE_GROUP_LABELS[p.group ?? ""] ?? (p.group ?? "").replace(/-/g, " ")];
+  }
+}
+
+/** Words for the machinist, e.g. "Cylinder 3 · top of bore · axis A (thrust)". */
+export function describeStation(id: string): string {
+  return words(parseStationId(id)).filter(Boolean).join(" · ");
+}
