@@ -1,7 +1,8 @@
 // Engine build arithmetic: displacement, compression ratio, rod ratio, deck stack-up, valve lift
 // and spring rate. Volumes follow Heywood, Internal Combustion Engine Fundamentals (1988), §2.2:
 // swept volume π/4·B²·L per cylinder, compression ratio (Vd + Vc)/Vc.
-import { cleanDecimal, decimalSum, decimalDifference, type LengthUnit } from "./units";
+import type { LengthUnit } from "./types";
+import { cleanDecimal, decimalDifference, decimalSum } from "./units";
 
 function requireFinite(value: number, name: string): void {
   if (typeof value !== "number" || !Number.isFinite(value)) {

@@ -2,6 +2,9 @@
 // (NIST SP 811, Appendix B: 1 in = 25.4 mm, 1 ft = 0.3048 m, 1 lb = 0.45359237 kg,
 // standard gravity g = 9.80665 m/s²), so nothing here is a rounded "shop" factor.
 import Decimal from "decimal.js";
+// The unit names live with the shared types (types.ts); re-declaring them here would make
+// index.ts export the same name twice.
+import type { LengthUnit, TorqueUnit } from "./types";
 
 /** Millimetres in one inch (exact, international inch of 1959). */
 export const MM_PER_IN = 25.4;
@@ -19,9 +22,6 @@ export const CC_PER_CUBIC_IN = 16.387064;
 export const NM_PER_LBF_FT = N_PER_LBF * M_PER_FT;
 /** Kilopascals in one psi: lbf / in² = 4.4482216152605 N / 0.00064516 m². */
 export const KPA_PER_PSI = N_PER_LBF / (0.0254 * 0.0254) / 1000;
-
-export type LengthUnit = "in" | "mm";
-export type TorqueUnit = "lbf_ft" | "nm";
 
 function requireFinite(value: number, name: string): void {
   if (typeof value !== "number" || !Number.isFinite(value)) {
