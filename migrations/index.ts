@@ -1,0 +1,44 @@
+// Every migration, in order, as a static import map: a bundler cannot lose a file, and the order
+// is the array's, not the file system's. Add a new migration at the end; never edit a shipped one.
+import type { QueryInterface } from "sequelize";
+import * as createShopsAndUsers from "./20261201000100-create-shops-and-users";
+import * as createCustomersAndEngines from "./20261201000200-create-customers-and-engines";
+import * as createAttachments from "./20261201000300-create-attachments";
+import * as createSpecTemplatesAndLimits from "./20261201000400-create-spec-templates-and-limits";
+import * as createJobsAndJobLimits from "./20261201000500-create-jobs-and-job-limits";
+import * as createInstruments from "./20261201000600-create-instruments";
+import * as createReadings from "./20261201000700-create-readings";
+import * as createFlagsAndDispositions from "./20261201000800-create-flags-and-dispositions";
+import * as createReleases from "./20261201000900-create-releases";
+import * as createAuditEvents from "./20261201001000-create-audit-events";
+import * as createSyncChanges from "./20261201001100-create-sync-changes";
+import * as createMailOutbox from "./20261201001200-create-mail-outbox";
+
+type Step = (p: { context: QueryInterface }) => Promise<void>;
+export type Migration = { name: string; up: Step; down: Step };
+
+function step(name: string, m: { up: Step; down: Step }): Migration {
+  return { name, up: m.up, down: m.down };
+}
+
+export const migrations: Migration[] = [
+  step("20261201000100-create-shops-and-users", createShopsAndUsers),
+  step("20261201000200-create-customers-and-engines", createCustomersAndEngines),
+  step("20261201000300-create-attachments", createAttachments),
+  step("20261201000400-create-spec-templates-and-limits", createSpecTemplatesAndLimits),
+  step("20261201000500-create-jobs-and-job-limits", createJobsAndJobLimits),
+  step("20261201000600-create-instruments", createInstruments),
+  step("20261201000700-create-readings", createReadings),
+  step("20261201000800-create-flags-and-dispositions", createFlagsAndDispositions),
+  step("20261201000900-create-releases", createReleases),
+  step("20261201001000-create-audit-events", createAuditEvents),
+  step("20261201001100-create-sync-changes", createSyncChanges),
+  step("20261201001200-create-mail-outbox", createMailOutbox),
+];
+
+/** Every table the migrations create, for tests and tooling that check the schema. */
+export const MIGRATED_TABLES = [
+  "shops", "users", "auth_throttle", "customers", "engines", "attachments", "spec_templates",
+  "spec_limits", "jobs", "job_limits", "instruments", "readings", "flags", "flag_dispositions",
+  "releases", "audit_events", "sync_changes", "mail_outbox",
+] as const;

@@ -1,0 +1,63 @@
+// The Sequelize models of Tenthwise. lib/server/db.ts calls initModels(sequelize) once on its
+// instance; only lib/server/*-repo.ts imports from here, and repos return plain objects.
+//
+// Conventions every model follows:
+// - camelCase attributes over snake_case columns (`underscored: true`); tables are snake_case plural.
+// - The schema comes only from migrations/ (umzug). Never call sync().
+// - DECIMAL columns: depending on driver options the mariadb connector returns them as strings
+//   (exact digits) or numbers; with Sequelize's own defaults (supportBigNumbers) mariadb 3.5 gives
+//   numbers. Each DECIMAL attribute has a getter returning `number` (or `null` for a nullable
+//   column) whatever the options, so instance.get(), get({ plain: true }) and toJSON() all give
+//   numbers. Queries with `raw: true` and sequelize.query() skip getters and return what the
+//   driver returns; pass such values through decimalToNumber().
+// - BIGINT ids (AuditEvent.id, SyncChange.id) have a getter returning `number` for the same
+//   reason (the driver may return BigInt, which JSON.stringify refuses).
+// - DATEONLY attributes are 'YYYY-MM-DD' strings; DATETIME(3) attributes are Dates.
+import type { Sequelize } from "sequelize";
+import { associate } from "./associations";
+import { Attachment, initAttachment } from "./attachment";
+import { AuditEvent, initAuditEvent } from "./audit-event";
+import { AuthThrottle, initAuthThrottle } from "./auth-throttle";
+import { Customer, initCustomer } from "./customer";
+import { Engine, initEngine } from "./engine";
+import { Flag, initFlag } from "./flag";
+import { FlagDisposition, initFlagDisposition } from "./flag-disposition";
+import { Instrument, initInstrument } from "./instrument";
+import { Job, initJob } from "./job";
+import { JobLimit, initJobLimit } from "./job-limit";
+import { MailOutbox, initMailOutbox } from "./mail-outbox";
+import { Reading, initReading } from "./reading";
+import { Release, initRelease } from "./release";
+import { Shop, initShop } from "./shop";
+import { SpecLimit, initSpecLimit } from "./spec-limit";
+import { SpecTemplate, initSpecTemplate } from "./spec-template";
+import { SyncChange, initSyncChange } from "./sync-change";
+import { User, initUser } from "./user";
+
+export {
+  Attachment, AuditEvent, AuthThrottle, Customer, Engine, Flag, FlagDisposition, Instrument, Job,
+  JobLimit, MailOutbox, Reading, Release, Shop, SpecLimit, SpecTemplate, SyncChange, User,
+};
+export { decimalToNumber } from "./columns";
+export * from "./enums";
+
+const INITIALISERS = [
+  initShop, initUser, initAuthThrottle, initCustomer, initEngine, initAttachment, initSpecTemplate,
+  initSpecLimit, initJob, initJobLimit, initInstrument, initReading, initFlag, initFlagDisposition,
+  initRelease, initAuditEvent, initSyncChange, initMailOutbox,
+];
+
+let boundTo: Sequelize | null = null;
+
+/**
+ * Binds every model to `sequelize` and defines the associations. Calling it again with the same
+ * instance does nothing; with another instance it rebinds (Model.init clears the associations,
+ * so they are defined afresh).
+ */
+export function initModels(sequelize: Sequelize): void {
+  if (boundTo === sequelize) return;
+  boundTo = null;
+  for (const init of INITIALISERS) init(sequelize);
+  associate();
+  boundTo = sequelize;
+}

@@ -1,0 +1,54 @@
+import {
+  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes,
+  type NonAttribute, type Sequelize,
+} from "sequelize";
+import { datetime, int, intId, json, modelOptions, ref, stamps, str, text } from "./columns";
+import type { JsonValue } from "./enums";
+import type { Job } from "./job";
+import type { User } from "./user";
+
+/**
+ * An inspector's signed release. `hash` is the hex SHA-256 of the canonical serialisation
+ * (version canonicalVersion) of what was released. Reopening voids the row; it is never deleted.
+ */
+export class Release extends Model<InferAttributes<Release>, InferCreationAttributes<Release>> {
+  declare id: CreationOptional<number>;
+  declare shopId: number;
+  declare jobId: number;
+  declare inspectorId: number;
+  declare signedName: string;
+  declare signedAt: Date;
+  declare checklist: JsonValue;
+  declare hash: string;
+  declare canonicalVersion: number;
+  declare voidedAt: CreationOptional<Date | null>;
+  declare voidedBy: CreationOptional<number | null>;
+  declare voidReason: CreationOptional<string | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare job?: NonAttribute<Job>;
+  declare inspector?: NonAttribute<User>;
+  declare voider?: NonAttribute<User | null>;
+}
+
+export function initRelease(sequelize: Sequelize): void {
+  Release.init(
+    {
+      id: intId(),
+      shopId: ref(),
+      jobId: ref(),
+      inspectorId: ref(),
+      signedName: str(160),
+      signedAt: datetime(false),
+      checklist: json(false),
+      hash: { type: DataTypes.CHAR(64), allowNull: false },
+      canonicalVersion: int(),
+      voidedAt: datetime(true),
+      voidedBy: ref(true),
+      voidReason: text(),
+      ...stamps(),
+    },
+    modelOptions(sequelize, "releases", "both"),
+  );
+}

@@ -1,0 +1,40 @@
+import {
+  Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute,
+  type Sequelize,
+} from "sequelize";
+import { enumOf, intId, modelOptions, stamps, str, text } from "./columns";
+import type { User } from "./user";
+import { GUARD_BAND_POLICIES, UNIT_SYSTEMS, type GuardBandPolicy, type UnitSystem } from "./enums";
+
+/** A tenant: one machine shop. Every other row belongs to exactly one shop. */
+export class Shop extends Model<InferAttributes<Shop>, InferCreationAttributes<Shop>> {
+  declare id: CreationOptional<number>;
+  declare name: string;
+  declare slug: string;
+  declare unitSystem: CreationOptional<UnitSystem>;
+  declare guardBandPolicy: CreationOptional<GuardBandPolicy>;
+  declare email: CreationOptional<string | null>;
+  declare phone: CreationOptional<string | null>;
+  declare address: CreationOptional<string | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare users?: NonAttribute<User[]>;
+}
+
+export function initShop(sequelize: Sequelize): void {
+  Shop.init(
+    {
+      id: intId(),
+      name: str(120),
+      slug: str(64),
+      unitSystem: enumOf(UNIT_SYSTEMS, false, "in"),
+      guardBandPolicy: enumOf(GUARD_BAND_POLICIES, false, "shrink_by_u"),
+      email: str(255, true),
+      phone: str(40, true),
+      address: text(),
+      ...stamps(),
+    },
+    modelOptions(sequelize, "shops", "both"),
+  );
+}
