@@ -15,7 +15,7 @@ export function getSequelize(): Sequelize {
       dialect: "mariadb",
       logging: false,
       pool: { max: env().DB_POOL_MAX, min: 0, idle: 10_000 },
-      dialectOptions: { timezone: "Etc/GMT0", connectTimeout: 10_000 },
+      dialectOptions: { connectTimeout: 10_000 },
       timezone: "+00:00",
       define: { underscored: true },
     });

@@ -1,0 +1,84 @@
+// DEMO DATA ONLY. Invented spec sheets for the invented demo shop. The figures are plausible
+// shop values chosen for the demo, not published limits; real limits come from the engine,
+// piston, bearing and fastener makers' instructions.
+type Limit = {
+  characteristic: string; stationPattern: string; limitType: "min_max" | "nominal_tol" | "max_only" | "min_only" | "per_inch" | "iso286";
+  unit: string; min?: number; max?: number; nominal?: number; tolPlus?: number; tolMinus?: number;
+  perInchMin?: number; perInchMax?: number; isoClass?: string; required: boolean; gaugeKind?: string; label?: string;
+};
+
+const L = (characteristic: string, limitType: Limit["limitType"], unit: string, v: Partial<Limit>, stationPattern = "*"): Limit => ({
+  characteristic, stationPattern, limitType, unit, required: true, ...v,
+});
+
+export const STREET_V8_INCH: Limit[] = [
+  L("bore_diameter", "nominal_tol", "in", { nominal: 4.03, tolPlus: 0.0004, tolMinus: 0.0001, gaugeKind: "dial-bore-gauge" }),
+  L("bore_taper", "max_only", "in", { max: 0.0005 }),
+  L("bore_out_of_round", "max_only", "in", { max: 0.0005 }),
+  L("piston_skirt_diameter", "nominal_tol", "in", { nominal: 4.0285, tolPlus: 0.0003, tolMinus: 0.0003, gaugeKind: "micrometer" }),
+  L("piston_to_wall", "min_max", "in", { min: 0.0012, max: 0.0022 }),
+  L("main_journal_diameter", "nominal_tol", "in", { nominal: 2.449, tolPlus: 0.0005, tolMinus: 0.0005, gaugeKind: "micrometer" }),
+  L("rod_journal_diameter", "nominal_tol", "in", { nominal: 2.099, tolPlus: 0.0005, tolMinus: 0.0005, gaugeKind: "micrometer" }),
+  L("main_journal_taper", "max_only", "in", { max: 0.0003 }),
+  L("main_journal_out_of_round", "max_only", "in", { max: 0.0003 }),
+  L("rod_journal_taper", "max_only", "in", { max: 0.0003 }),
+  L("rod_journal_out_of_round", "max_only", "in", { max: 0.0003 }),
+  L("main_oil_clearance", "per_inch", "in", { perInchMin: 0.00075, perInchMax: 0.001 }),
+  L("rod_oil_clearance", "min_max", "in", { min: 0.0018, max: 0.0026 }),
+  L("ring_end_gap", "min_max", "in", { min: 0.016, max: 0.022, gaugeKind: "feeler" }, "ring-gap/*/top"),
+  L("ring_end_gap", "min_max", "in", { min: 0.018, max: 0.025, gaugeKind: "feeler" }, "ring-gap/*/second"),
+  L("ring_end_gap", "min_max", "in", { min: 0.015, max: 0.055, gaugeKind: "feeler", required: false }, "ring-gap/*/oil"),
+  L("rod_side_clearance", "min_max", "in", { min: 0.01, max: 0.02, gaugeKind: "feeler" }),
+  L("crank_end_play", "min_max", "in", { min: 0.002, max: 0.006, gaugeKind: "dial-indicator" }),
+  L("rod_bolt_stretch", "min_max", "in", { min: 0.0055, max: 0.0062 }),
+  L("deck_height", "nominal_tol", "in", { nominal: 9.025, tolPlus: 0.003, tolMinus: 0.003, gaugeKind: "deck-gauge" }),
+  L("valve_lash", "min_max", "in", { min: 0.016, max: 0.02, gaugeKind: "feeler" }, "lash/*/int"),
+  L("valve_lash", "min_max", "in", { min: 0.018, max: 0.022, gaugeKind: "feeler" }, "lash/*/exh"),
+  L("fastener_torque", "min_max", "lbf_ft", { min: 70, max: 75, gaugeKind: "torque-wrench" }, "torque/main-caps"),
+  L("fastener_torque", "min_max", "lbf_ft", { min: 65, max: 70, gaugeKind: "torque-wrench" }, "torque/head-bolts"),
+  L("fastener_torque", "min_max", "lbf_ft", { min: 45, max: 50, gaugeKind: "torque-wrench" }, "torque/rod-bolts"),
+  L("fastener_torque", "min_max", "lbf_ft", { min: 60, max: 65, gaugeKind: "torque-wrench" }, "torque/flywheel"),
+  L("fastener_torque", "min_max", "lbf_ft", { min: 60, max: 65, gaugeKind: "torque-wrench" }, "torque/damper"),
+];
+
+export const TRACTOR_DIESEL_MM: Limit[] = [
+  L("bore_diameter", "iso286", "mm", { nominal: 104, isoClass: "H7", gaugeKind: "dial-bore-gauge" }),
+  L("bore_taper", "max_only", "mm", { max: 0.015 }),
+  L("bore_out_of_round", "max_only", "mm", { max: 0.012 }),
+  L("piston_skirt_diameter", "nominal_tol", "mm", { nominal: 103.88, tolPlus: 0.01, tolMinus: 0.01, gaugeKind: "micrometer" }),
+  L("piston_to_wall", "min_max", "mm", { min: 0.1, max: 0.16 }),
+  L("main_journal_diameter", "min_max", "mm", { min: 84.98, max: 85.0, gaugeKind: "micrometer" }),
+  L("rod_journal_diameter", "min_max", "mm", { min: 69.98, max: 70.0, gaugeKind: "micrometer" }),
+  L("main_journal_taper", "max_only", "mm", { max: 0.008 }),
+  L("main_journal_out_of_round", "max_only", "mm", { max: 0.008 }),
+  L("rod_journal_taper", "max_only", "mm", { max: 0.008 }),
+  L("rod_journal_out_of_round", "max_only", "mm", { max: 0.008 }),
+  L("main_oil_clearance", "min_max", "mm", { min: 0.04, max: 0.09 }),
+  L("rod_oil_clearance", "min_max", "mm", { min: 0.035, max: 0.08 }),
+  L("ring_end_gap", "min_max", "mm", { min: 0.3, max: 0.5, gaugeKind: "feeler" }, "ring-gap/*/top"),
+  L("ring_end_gap", "min_max", "mm", { min: 0.5, max: 0.75, gaugeKind: "feeler" }, "ring-gap/*/second"),
+  L("ring_end_gap", "min_max", "mm", { min: 0.25, max: 0.55, gaugeKind: "feeler", required: false }, "ring-gap/*/oil"),
+  L("rod_side_clearance", "min_max", "mm", { min: 0.15, max: 0.35, gaugeKind: "feeler" }),
+  L("crank_end_play", "min_max", "mm", { min: 0.1, max: 0.3, gaugeKind: "dial-indicator" }),
+  L("rod_bolt_stretch", "min_max", "mm", { min: 0.14, max: 0.18 }),
+  L("deck_height", "nominal_tol", "mm", { nominal: 330.0, tolPlus: 0.05, tolMinus: 0.05, gaugeKind: "deck-gauge" }),
+  L("valve_lash", "min_max", "mm", { min: 0.28, max: 0.32, gaugeKind: "feeler" }, "lash/*/int"),
+  L("valve_lash", "min_max", "mm", { min: 0.43, max: 0.47, gaugeKind: "feeler" }, "lash/*/exh"),
+  L("fastener_torque", "min_max", "nm", { min: 150, max: 160, gaugeKind: "torque-wrench" }, "torque/main-caps"),
+  L("fastener_torque", "min_max", "nm", { min: 120, max: 130, gaugeKind: "torque-wrench" }, "torque/head-bolts"),
+  L("fastener_torque", "min_max", "nm", { min: 95, max: 105, gaugeKind: "torque-wrench" }, "torque/rod-bolts"),
+  L("fastener_torque", "min_max", "nm", { min: 130, max: 140, gaugeKind: "torque-wrench" }, "torque/flywheel"),
+  L("fastener_torque", "min_max", "nm", { min: 200, max: 220, gaugeKind: "torque-wrench" }, "torque/damper"),
+];
+
+export const VINTAGE_SIX_INCH: Limit[] = STREET_V8_INCH.map((l) => {
+  const over: Record<string, Partial<Limit>> = {
+    bore_diameter: { nominal: 3.5925, tolPlus: 0.0005, tolMinus: 0.0001 },
+    piston_skirt_diameter: { nominal: 3.5905, tolPlus: 0.0003, tolMinus: 0.0003 },
+    main_journal_diameter: { nominal: 2.4985, tolPlus: 0.0005, tolMinus: 0.0005 },
+    rod_journal_diameter: { nominal: 2.1235, tolPlus: 0.0005, tolMinus: 0.0005 },
+    deck_height: { nominal: 9.38, tolPlus: 0.004, tolMinus: 0.004 },
+    piston_to_wall: { min: 0.0015, max: 0.0025 },
+  };
+  return { ...l, ...(over[l.characteristic] ?? {}) };
+});

@@ -1,0 +1,40 @@
+// Headless Debian Chromium through playwright-core, with the flags this machine needs.
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { mkdtempSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+
+export const BASE_URL = process.env.TW_BASE_URL ?? "http://127.0.0.1:3000";
+export const CHROMIUM_ARGS = [
+  "--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
+  "--disable-background-networking", "--disable-component-update", "--disable-sync",
+];
+
+export async function launchBrowser(): Promise<Browser> {
+  return chromium.launch({ executablePath: "/usr/bin/chromium", args: CHROMIUM_ARGS, headless: true });
+}
+
+/** A persistent profile (for offline/restart tests): same dir → same IndexedDB and service worker. */
+export async function launchProfile(userDataDir = mkdtempSync(join(tmpdir(), "tw-profile-")), viewport = { width: 1024, height: 768 }) {
+  const context = await chromium.launchPersistentContext(userDataDir, {
+    executablePath: "/usr/bin/chromium", args: CHROMIUM_ARGS, headless: true, viewport, baseURL: BASE_URL,
+  });
+  return { context, userDataDir };
+}
+
+export async function newTabletPage(browser: Browser, viewport = { width: 1024, height: 768 }): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ viewport, baseURL: BASE_URL });
+  return { context, page: await context.newPage() };
+}
+
+export async function signIn(page: Page, email: string, password: string) {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
+}
+
+export async function screenshot(page: Page, name: string) {
+  await page.screenshot({ path: `tests/artifacts/${name}.png`, fullPage: true });
+}

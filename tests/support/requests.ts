@@ -1,0 +1,34 @@
+// Build Requests the way a signed-in browser sends them, and call exported route handlers.
+import { sealSession, SESSION_COOKIE } from "@/lib/server/session";
+import type { TestUser } from "./factories";
+
+export async function cookieFor(user: TestUser): Promise<string> {
+  const sealed = await sealSession({ userId: user.id, shopId: user.shopId, role: user.role, name: user.name, issuedAt: Date.now() });
+  return `${SESSION_COOKIE}=${sealed}`;
+}
+
+export async function asUser(user: TestUser | null, method: string, url: string, body?: unknown, headers: Record<string, string> = {}): Promise<Request> {
+  const h: Record<string, string> = { ...headers };
+  if (user) h.cookie = await cookieFor(user);
+  let payload: BodyInit | undefined;
+  if (typeof body === "string") payload = body;
+  else if (body !== undefined) {
+    payload = JSON.stringify(body);
+    h["content-type"] = "application/json";
+  }
+  return new Request(new URL(url, "http://localhost"), { method, headers: h, body: payload });
+}
+
+type RouteHandler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+
+export async function call(handler: RouteHandler, req: Request, params: Record<string, string> = {}) {
+  const res = await handler(req, { params: Promise.resolve(params) });
+  const text = await res.text();
+  let body: unknown = null;
+  try {
+    body = text ? JSON.parse(text) : null;
+  } catch {
+    body = text;
+  }
+  return { status: res.status, headers: res.headers, body: body as any };
+}
