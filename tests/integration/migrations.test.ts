@@ -1,11 +1,13 @@
 // Every migration is reversible: all down leaves no table behind, all up builds every table, and
 // each down restores exactly the schema that existed before its up. Also checks that the audit
-// trail refuses UPDATE and DELETE. Runs against the harness's DATABASE_URL (already migrated up)
-// and leaves it migrated up again. It drops every table on the way, so it needs a database that
-// no other test file uses at the same time.
+// trail refuses UPDATE and DELETE.
+//
+// Runs on the harness's DATABASE_URL, which is already migrated and seeded and which later test
+// files use. So the rows are parked in copy tables first (CREATE TABLE ... SELECT, inside the
+// server, so no value changes on the way) and put back once the schema is up again.
 import { QueryTypes, Sequelize } from "sequelize";
-import { SequelizeStorage, Umzug } from "umzug";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { migrator } from "../../lib/server/migrate";
 import { APPEND_ONLY_MESSAGE } from "../../migrations/20261201001000-create-audit-events";
 import { MIGRATED_TABLES, migrations } from "../../migrations/index";
 
@@ -13,12 +15,12 @@ const url = process.env.DATABASE_URL;
 if (!url) throw new Error("DATABASE_URL must point at the test database (the test harness sets it)");
 
 const sequelize = new Sequelize(url, { dialect: "mariadb", logging: false });
-const umzug = new Umzug({
-  migrations,
-  context: sequelize.getQueryInterface(),
-  storage: new SequelizeStorage({ sequelize }),
-  logger: undefined,
-});
+// The app's own migrator, so this test shares the record of applied migrations with `npm start`.
+const umzug = migrator(sequelize);
+// Tables this test does not count as schema: umzug's record (the app's name and umzug's
+// default) and the copies parked by this test.
+const PARKED = "zz_migrations_test_";
+const IGNORED = `table_name NOT IN ('schema_migrations', 'SequelizeMeta') AND table_name NOT LIKE '${PARKED}%'`;
 
 async function select<T extends object>(sql: string, replacements: unknown[] = []): Promise<T[]> {
   return sequelize.query<T>(sql, { type: QueryTypes.SELECT, replacements });
@@ -26,10 +28,9 @@ async function select<T extends object>(sql: string, replacements: unknown[] = [
 
 async function tableNames(): Promise<string[]> {
   const rows = await select<{ name: string }>(
-    "SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name <> 'SequelizeMeta'",
+    `SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND ${IGNORED}`,
   );
-  return rows.map((r) => r.name).sort(); // in JS: the collation orders '_' differently
-
+  return rows.map((r) => r.name).sort(); // sorted here: the collation orders '_' differently
 }
 
 async function triggerNames(): Promise<string[]> {
@@ -52,18 +53,61 @@ async function schemaSnapshot(): Promise<string> {
   return [...parts, JSON.stringify(triggers)].join("\n");
 }
 
+/** Copies every migrated table's rows aside; returns the tables it copied. */
+async function parkRows(): Promise<string[]> {
+  const present = new Set(await tableNames());
+  const parked: string[] = [];
+  for (const table of MIGRATED_TABLES) {
+    if (!present.has(table)) continue;
+    await sequelize.query(`DROP TABLE IF EXISTS \`${PARKED}${table}\``);
+    await sequelize.query(`CREATE TABLE \`${PARKED}${table}\` AS SELECT * FROM \`${table}\``);
+    parked.push(table);
+  }
+  return parked;
+}
+
+/** Puts the parked rows back into the re-created tables (same columns, same order: see the test). */
+async function restoreRows(parked: string[]): Promise<void> {
+  await sequelize.transaction(async (transaction) => {
+    // Session setting, so the whole restore runs on the transaction's one connection.
+    await sequelize.query("SET FOREIGN_KEY_CHECKS = 0", { transaction });
+    for (const table of parked) {
+      await sequelize.query(`INSERT INTO \`${table}\` SELECT * FROM \`${PARKED}${table}\``, { transaction });
+    }
+    await sequelize.query("SET FOREIGN_KEY_CHECKS = 1", { transaction });
+  });
+  for (const table of parked) await sequelize.query(`DROP TABLE \`${PARKED}${table}\``);
+}
+
+/** A checksum of every row of `table`; equal schemas with equal rows give equal sums. */
+async function checksum(table: string): Promise<string> {
+  const [row] = await select<{ Checksum: unknown }>(`CHECKSUM TABLE \`${table}\``);
+  return String(row.Checksum);
+}
+
 async function expectAppendOnlyRefusal(sql: string): Promise<void> {
   await expect(sequelize.query(sql)).rejects.toThrow(APPEND_ONLY_MESSAGE);
 }
 
 describe("migrations", () => {
+  let parked: string[] = [];
+  const checksums = new Map<string, string>();
+
   beforeAll(async () => {
     await sequelize.authenticate();
+    await umzug.up(); // normally a no-op: the harness has migrated already
+    for (const table of MIGRATED_TABLES) checksums.set(table, await checksum(table));
+    parked = await parkRows();
   });
 
   afterAll(async () => {
-    await umzug.up(); // leave the database as the harness made it, whatever happened above
-    await sequelize.close();
+    try {
+      await umzug.down({ to: 0 }); // drop the rows this test wrote, whatever happened above
+      await umzug.up();
+      await restoreRows(parked);
+    } finally {
+      await sequelize.close();
+    }
   });
 
   it("are named YYYYMMDDHHmmss-verb-noun, unique and in order", () => {
@@ -78,18 +122,18 @@ describe("migrations", () => {
     expect(await umzug.executed()).toEqual([]);
     expect(await tableNames()).toEqual([]);
     expect(await triggerNames()).toEqual([]);
-  }, 60_000);
+  });
 
   it("all up creates every table, in utf8mb4, with the audit triggers", async () => {
     await umzug.up();
     expect(await umzug.pending()).toEqual([]);
     expect(await tableNames()).toEqual([...MIGRATED_TABLES].sort());
     const collations = await select<{ name: string; collation: string }>(
-      "SELECT table_name AS name, table_collation AS collation FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name <> 'SequelizeMeta'",
+      `SELECT table_name AS name, table_collation AS collation FROM information_schema.tables WHERE table_schema = DATABASE() AND ${IGNORED}`,
     );
     for (const c of collations) expect(c.collation, c.name).toMatch(/^utf8mb4_/);
     expect(await triggerNames()).toEqual(["audit_events_no_delete", "audit_events_no_update"]);
-  }, 60_000);
+  });
 
   it("audit_events refuses UPDATE and DELETE, and keeps the row", async () => {
     await sequelize.query("INSERT INTO shops (name, slug, unit_system) VALUES ('Audit Test Shop', 'audit-test', 'in')");
@@ -102,7 +146,7 @@ describe("migrations", () => {
     await expectAppendOnlyRefusal("DELETE FROM audit_events");
     const rows = await select<{ action: string }>("SELECT action FROM audit_events WHERE shop_id = ?", [shop.id]);
     expect(rows).toEqual([{ action: "job.create" }]);
-  }, 60_000);
+  });
 
   it("each down restores exactly the schema from before its up", async () => {
     await umzug.down({ to: 0 });
@@ -118,4 +162,12 @@ describe("migrations", () => {
     }
     expect(await umzug.pending()).toEqual([]);
   }, 120_000);
+
+  it("parked rows go back unchanged (the harness's seed survives this file)", async () => {
+    await umzug.down({ to: 0 });
+    await umzug.up();
+    await restoreRows(parked);
+    for (const table of MIGRATED_TABLES) expect(await checksum(table), table).toBe(checksums.get(table));
+    parked = await parkRows(); // afterAll restores once more, from this same copy
+  });
 });
