@@ -86,12 +86,15 @@ function prepare(reading: RawReading, engine: EngineShape): Prepared {
   };
 }
 
-const routeCache = new WeakMap<EngineShape, Set<string>>();
+// Keyed by the shape's JSON, not the object, so an edited engine never meets a stale route.
+const routeCache = new Map<string, Set<string>>();
 function routeIds(engine: EngineShape): Set<string> {
-  let ids = routeCache.get(engine);
+  const key = JSON.stringify(engine);
+  let ids = routeCache.get(key);
   if (!ids) {
+    if (routeCache.size > 50) routeCache.clear();
     ids = new Set(benchRoute(engine).sections.flatMap((s) => s.stations.map((st) => st.id)));
-    routeCache.set(engine, ids);
+    routeCache.set(key, ids);
   }
   return ids;
 }
@@ -161,10 +164,10 @@ function prepareAll(readings: RawReading[], engine: EngineShape): { ok: Map<stri
  */
 export function evaluateReading(reading: RawReading, engine: EngineShape, spec: SpecLimit[], readings: RawReading[] = []): Evaluation {
   checkEngineShape(engine);
-  if (!routeIds(engine).has(reading?.stationId)) {
-    throw new Error(`Station '${String(reading?.stationId)}' is not on this engine's route (${engine.cylinders} cylinders, ${engine.mains} mains)`);
-  }
   const p = prepare(reading, engine);
+  if (!routeIds(engine).has(reading.stationId)) {
+    throw new Error(`Station '${reading.stationId}' is not on this engine's route (${engine.cylinders} cylinders, ${engine.mains} mains)`);
+  }
   const station = parseStationId(reading.stationId);
   const boreReadings = readings.filter((r) => r?.stationId?.startsWith(`bore/${station.cylinder}/`));
   const bore = p.characteristic === "ring_end_gap" ? boreMean(station.cylinder, prepareAll(boreReadings, engine).ok, engine) : undefined;

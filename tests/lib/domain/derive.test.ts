@@ -222,7 +222,8 @@ describe("evaluateReading", () => {
   });
   it.each([
     [at("bore/9/top/A", 4.03), /not on this engine's route/],
-    [at("bore/1", 4.03), /not on this engine's route/],
+    [at("bore/1", 4.03), /names a part/],
+    [at("bore/1/top/C", 4.03), /axis must be A \| B/],
     [at("torque/main-caps", 65), /takes a torque in lbf_ft or nm/],
     [{ stationId: "bore/1/top/A", value: 4.03, unit: "lbf_ft" as const }, /takes a length in in or mm/],
     [at("bore/1/top/A", 0), /above zero/],
