@@ -32,6 +32,12 @@ const schema = z
     S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
     S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default("true").transform((v) => v === "true"),
     UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(15 * 1024 * 1024),
+    // Background mail: how often the notifier looks for new flags, ready jobs and releases
+    // (0 turns the background worker off; runNotifierOnce() still works), and the retry backoff.
+    NOTIFY_INTERVAL_SECONDS: z.coerce.number().int().min(0).default(180),
+    MAIL_RETRY_BASE_SECONDS: z.coerce.number().positive().default(60),
+    MAIL_MAX_ATTEMPTS: z.coerce.number().int().positive().default(8),
+    LINK_TTL_DAYS: z.coerce.number().positive().default(30),
   })
   .refine((e) => e.DATABASE_URL || (e.DB_HOST && e.DB_NAME && e.DB_USER), {
     message: "Set DATABASE_URL, or DB_HOST, DB_NAME and DB_USER (npm start sets these for you)",
@@ -77,5 +83,8 @@ export function databaseConfig() {
     password: e.DB_PASSWORD ?? "",
   };
 }
+
+/** True while `next build` runs (Next sets NEXT_PHASE); background work must not start then. */
+export const isBuildPhase = () => process.env.NEXT_PHASE === "phase-production-build";
 
 export const linkSecret = () => env().LINK_SECRET ?? `${env().SESSION_SECRET}:customer-links`;
