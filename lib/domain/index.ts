@@ -15,3 +15,4 @@ export * from "./stations";
 export * from "./bench-route";
 export * from "./derive";
 export * from "./dial-bore";
+export * from "./dial-gauge";
