@@ -14,5 +14,4 @@ export * from "./limits";
 export * from "./stations";
 export * from "./bench-route";
 export * from "./derive";
-export * from "./dial-bore";
 export * from "./dial-gauge";
