@@ -15,3 +15,4 @@ export * from "./stations";
 export * from "./bench-route";
 export * from "./derive";
 export * from "./dial-gauge";
+export * from "./plausible-range";

@@ -1,0 +1,67 @@
+// Physical plausibility of a bench figure: catches a slipped decimal point or a wrong unit (a bore
+// of 40 in, a 102 "in" bore that was 102 mm) before it becomes a verdict. These are not limits:
+// a value inside the range can still be out of spec. The ranges span shop engines from small
+// single-cylinder engines to large truck, tractor and industrial diesels. Common practice, from
+// memory; they are deliberately wide.
+import { CHARACTERISTICS, parseStationId } from "./stations";
+import type { EngineShape, MeasureUnit, RawCharacteristic } from "./types";
+import { cleanDecimal, convertLength, convertTorque, decimalDifference } from "./units";
+
+type Range = { min: number; max: number };
+/** Lengths in mm, torque in N·m. Gaps and clearances may be zero. */
+export const PLAUSIBLE_RANGES: Readonly<Record<RawCharacteristic, Range>> = {
+  bore_diameter: { min: 20, max: 400 },
+  piston_skirt_diameter: { min: 20, max: 400 },
+  main_journal_diameter: { min: 10, max: 300 },
+  rod_journal_diameter: { min: 10, max: 300 },
+  main_bearing_bore: { min: 10, max: 320 },
+  rod_bearing_bore: { min: 10, max: 320 },
+  ring_end_gap: { min: 0, max: 3 },
+  rod_side_clearance: { min: 0, max: 2 },
+  crank_end_play: { min: 0, max: 2 },
+  rod_bolt_free_length: { min: 10, max: 300 },
+  rod_bolt_loaded_length: { min: 10, max: 300 },
+  deck_height: { min: 50, max: 1200 },
+  valve_lash: { min: 0, max: 2 },
+  fastener_torque: { min: 0, max: 3000 },
+};
+
+/** A bore or skirt this far from the engine's nominal bore is a slip, not a worn part. */
+export const NOMINAL_BORE_SLACK = 0.1;
+
+const round = (x: number) => cleanDecimal(Number(x.toPrecision(4)));
+
+function canonical(value: number, unit: MeasureUnit): number {
+  return cleanDecimal(unit === "in" || unit === "mm" ? convertLength(value, unit, "mm") : convertTorque(value, unit, "nm"));
+}
+
+function rangeWords(r: Range, kind: "length" | "torque"): string {
+  if (kind === "torque") return `${r.min}–${r.max} N·m (${round(convertTorque(r.max, "nm", "lbf_ft"))} lbf·ft at most)`;
+  return `${r.min}–${r.max} mm (${round(convertLength(r.min, "mm", "in"))}–${round(convertLength(r.max, "mm", "in"))} in)`;
+}
+
+/**
+ * Why a value cannot be a real reading at this station, or undefined when it can. The unit must
+ * already suit the characteristic (a length in in or mm, a torque in lbf_ft or nm).
+ */
+export function implausibleReason(stationId: string, value: number, unit: MeasureUnit, engine?: EngineShape): string | undefined {
+  const { characteristic } = parseStationId(stationId);
+  if (!characteristic) return undefined;
+  const info = CHARACTERISTICS[characteristic];
+  const range = PLAUSIBLE_RANGES[characteristic];
+  const name = info.label.split(",")[0].toLowerCase();
+  const v = canonical(value, unit);
+  if (v < range.min || v > range.max) {
+    return `${value} ${unit} cannot be a ${name}: a real one is ${rangeWords(range, info.kind)}. Check the decimal point and the unit`;
+  }
+  const nominal = engine?.nominalSizes?.bore;
+  if (nominal && (characteristic === "bore_diameter" || characteristic === "piston_skirt_diameter")) {
+    const nominalMm = cleanDecimal(convertLength(nominal, engine.unitSystem === "metric" ? "mm" : "in", "mm"));
+    // Exact decimal difference, so a value exactly on the 10% edge is still accepted.
+    if (Math.abs(decimalDifference(v, nominalMm)) > cleanDecimal(NOMINAL_BORE_SLACK * nominalMm)) {
+      const unitWord = engine.unitSystem === "metric" ? "mm" : "in";
+      return `${value} ${unit} is more than ${NOMINAL_BORE_SLACK * 100}% away from this engine's ${nominal} ${unitWord} bore. Check the decimal point and the unit`;
+    }
+  }
+  return undefined;
+}
