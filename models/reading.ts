@@ -28,6 +28,7 @@ export class Reading extends Model<InferAttributes<Reading>, InferCreationAttrib
   declare dialDeviation: CreationOptional<number | null>;
   declare instrumentId: CreationOptional<number | null>;
   declare partTempC: CreationOptional<number | null>;
+  declare gaugeTempC: CreationOptional<number | null>;
   declare lubricant: CreationOptional<string | null>;
   declare skipped: CreationOptional<boolean>;
   declare skipReason: CreationOptional<string | null>;
@@ -74,6 +75,7 @@ export function initReading(sequelize: Sequelize): void {
       dialDeviation: decimal("dialDeviation", 14, 6),
       instrumentId: ref(true),
       partTempC: { ...decimal("partTempC", 6, 2), field: "part_temp_c" },
+      gaugeTempC: { ...decimal("gaugeTempC", 6, 2), field: "gauge_temp_c" },
       lubricant: str(64, true),
       skipped: bool(false),
       skipReason: str(255, true),
