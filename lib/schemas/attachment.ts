@@ -1,0 +1,17 @@
+import { z } from "zod";
+import { ATTACHMENT_OWNER_TYPES } from "@/models/enums";
+
+// The text fields of an upload (multipart/form-data, next to the `file` part). The clientId is
+// the device's own UUID for this file, so a photo taken offline can be sent again safely.
+export const uploadFieldsSchema = z.object({
+  ownerType: z.enum(ATTACHMENT_OWNER_TYPES, { error: "ownerType must be job, reading or instrument" }),
+  ownerId: z.string().trim().min(1, "Say which job, reading or gauge the file belongs to (ownerId)").max(36, "ownerId is too long"),
+  clientId: z.uuid({ error: "clientId must be a UUID made by the device for this file" }),
+});
+
+export type UploadFields = z.infer<typeof uploadFieldsSchema>;
+
+export const attachmentListSchema = z.object({
+  ownerType: z.enum(ATTACHMENT_OWNER_TYPES, { error: "ownerType must be job, reading or instrument" }),
+  ownerId: z.string().trim().min(1, "Give the ownerId").max(36),
+});
