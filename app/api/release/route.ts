@@ -1,0 +1,5 @@
+import { releaseJobs } from "@/lib/server/release-repo-view";
+import { authed } from "@/lib/server/route";
+
+/** Jobs with their release readiness (contract: lib/schemas/release.ts). */
+export const GET = authed(["inspector", "lead"], async ({ actor }) => ({ jobs: await releaseJobs(actor.shopId) }));
