@@ -1,0 +1,106 @@
+import { z } from "zod";
+import type { GaugeKind } from "@/lib/domain";
+
+// One schema for the gauge form and the instruments routes (STYLE habit 5), plus the
+// calibration status words every screen uses.
+
+/** Instrument kinds (our own names), the unit family each reads, and the gauge kind of the spec sheets. */
+export const INSTRUMENT_KINDS = {
+  outside_mic: { label: "Outside micrometer", family: "length", gaugeKind: "micrometer" },
+  inside_mic: { label: "Inside micrometer", family: "length", gaugeKind: "bore-gauge" },
+  depth_mic: { label: "Depth micrometer", family: "length", gaugeKind: "deck-gauge" },
+  bore_gauge_dial: { label: "Dial bore gauge", family: "length", gaugeKind: "dial-bore-gauge" },
+  bore_gauge_digital: { label: "Digital bore gauge", family: "length", gaugeKind: "bore-gauge" },
+  dial_indicator: { label: "Dial indicator", family: "length", gaugeKind: "dial-indicator" },
+  feeler_set: { label: "Feeler gauge set", family: "length", gaugeKind: "feeler" },
+  stretch_gauge: { label: "Rod-bolt stretch gauge", family: "length", gaugeKind: "stretch-gauge" },
+  deck_gauge: { label: "Deck height gauge", family: "length", gaugeKind: "deck-gauge" },
+  torque_wrench: { label: "Torque wrench", family: "torque", gaugeKind: "torque-wrench" },
+} as const satisfies Record<string, { label: string; family: "length" | "torque"; gaugeKind: GaugeKind }>;
+export type InstrumentKind = keyof typeof INSTRUMENT_KINDS;
+export const INSTRUMENT_KIND_IDS = Object.keys(INSTRUMENT_KINDS) as [InstrumentKind, ...InstrumentKind[]];
+
+export const INSTRUMENT_UNITS = { in: "in", mm: "mm", lbf_ft: "lbf·ft", nm: "N·m" } as const;
+export type InstrumentUnit = keyof typeof INSTRUMENT_UNITS;
+const UNIT_IDS = Object.keys(INSTRUMENT_UNITS) as [InstrumentUnit, ...InstrumentUnit[]];
+
+const date = (what: string) =>
+  z.string({ error: `Enter the ${what} date` })
+    .regex(/^\d{4}-\d{2}-\d{2}$/, `Enter the ${what} date as YYYY-MM-DD`)
+    .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), `That ${what} date does not exist`);
+
+const positive = (what: string) => z.number({ error: `${what} must be a number` }).finite(`${what} must be a number`).positive(`${what} must be above zero`);
+
+/** The fields of a gauge as the admin enters them; U is the expanded uncertainty at k = 2. */
+export const instrumentFields = z.object({
+  kind: z.enum(INSTRUMENT_KIND_IDS, { error: "Choose what kind of gauge this is" }),
+  label: z.string({ error: "Give the gauge a name people recognise" }).trim().min(1, "Give the gauge a name people recognise").max(120, "Keep the name under 120 characters"),
+  serial: z.string({ error: "Enter the serial number engraved on the gauge" }).trim().min(1, "Enter the serial number engraved on the gauge").max(64, "Keep the serial under 64 characters"),
+  unit: z.enum(UNIT_IDS, { error: "Choose the unit the gauge reads: in, mm, lbf·ft or N·m" }),
+  resolution: positive("Resolution"),
+  expandedU: z.number({ error: "Expanded uncertainty U must be a number" }).finite("Expanded uncertainty U must be a number").min(0, "Expanded uncertainty U cannot be negative"),
+  calibratedOn: date("calibration"),
+  calibrationDue: date("calibration due"),
+  dialPlusMeansSmaller: z.boolean({ error: "Say whether plus on the dial means a smaller bore" }),
+});
+
+type Fields = z.output<typeof instrumentFields>;
+type Ctx = z.RefinementCtx;
+
+/** Rules across fields, shared by create (whole object) and edit (after merging with what is stored). */
+export function checkInstrument(v: Fields, ctx: Ctx): void {
+  const family = INSTRUMENT_KINDS[v.kind].family;
+  const unitOk = family === "torque" ? v.unit === "lbf_ft" || v.unit === "nm" : v.unit === "in" || v.unit === "mm";
+  if (!unitOk) ctx.addIssue({ code: "custom", path: ["unit"], message: family === "torque" ? "A torque wrench reads lbf·ft or N·m" : "This gauge reads a length: in or mm" });
+  if (v.calibrationDue <= v.calibratedOn) ctx.addIssue({ code: "custom", path: ["calibrationDue"], message: "The due date must come after the calibration date" });
+  if (v.expandedU > 0 && v.resolution > 0 && v.expandedU > 100 * v.resolution) {
+    ctx.addIssue({ code: "custom", path: ["expandedU"], message: "U is more than 100 times the resolution; check both figures and their unit" });
+  }
+}
+
+/** Registering: most dial bore gauges read plus for a smaller bore, so that is the default. */
+export const instrumentSchema = instrumentFields
+  .extend({ dialPlusMeansSmaller: instrumentFields.shape.dialPlusMeansSmaller.default(true) })
+  .superRefine(checkInstrument);
+
+/**
+ * An edit: any of the fields, plus switching the gauge off or on. (A certificate is attached by
+ * uploading it: POST /api/attachments with ownerType 'instrument' links it to the gauge.)
+ */
+export const instrumentPatchSchema = instrumentFields.partial().extend({
+  active: z.boolean({ error: "active must be true or false" }).optional(),
+}).strict().refine((v) => Object.keys(v).length > 0, { message: "Say what to change", path: ["_"] });
+
+export type InstrumentValues = z.input<typeof instrumentSchema>;
+export type InstrumentInput = z.output<typeof instrumentSchema>;
+export type InstrumentPatch = z.output<typeof instrumentPatchSchema>;
+
+export type CalibrationStatus = "in_calibration" | "due_soon" | "past_due";
+export const DUE_SOON_DAYS = 30;
+export const CALIBRATION_WORDS: Record<CalibrationStatus, string> = {
+  in_calibration: "In calibration",
+  due_soon: `Due within ${DUE_SOON_DAYS} days`,
+  past_due: "Past due",
+};
+
+const dayNumber = (isoDate: string) => Math.floor(Date.parse(`${isoDate}T00:00:00Z`) / 86_400_000);
+
+/**
+ * Calibration status on `today` (YYYY-MM-DD): usable through its due date; past due from the
+ * day after. Shop practice (from memory): a gauge is good through the due date on its sticker.
+ */
+export function calibrationStatus(due: string, today: string): { status: CalibrationStatus; daysLeft: number } {
+  const daysLeft = dayNumber(due) - dayNumber(today);
+  if (daysLeft < 0) return { status: "past_due", daysLeft };
+  return { status: daysLeft <= DUE_SOON_DAYS ? "due_soon" : "in_calibration", daysLeft };
+}
+
+/** A gauge as the screens get it. */
+export type InstrumentRecord = Fields & {
+  id: number;
+  coverageK: number;
+  active: boolean;
+  certificate: { id: string; name: string; url: string } | null;
+  status: CalibrationStatus;
+  daysLeft: number;
+};
