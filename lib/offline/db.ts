@@ -1,0 +1,115 @@
+// The tablet's one database (STYLE habit 10): a typed Dexie singleton. Everything the bench
+// needs to work with no network lives here: the job packs opened on this device, every reading
+// with its sync state, the outbox of readings the server has not acknowledged, photos taken
+// offline, and small facts (device id, sync cursor, sync status, who is signed in).
+// Rule: nothing is deleted before the server acknowledged it; readings are never deleted at all.
+import Dexie, { type EntityTable } from "dexie";
+import type { Lubricant, MeasureUnit, Verdict } from "@/lib/domain";
+import type { FieldErrors, JobPack, RejectCode } from "@/lib/schemas/sync";
+
+export type SyncState = "pending" | "synced" | "rejected";
+
+/** One reading on the tablet. Field names follow the push contract (lib/schemas/sync.ts). */
+export interface LocalReading {
+  id: string;
+  jobId: number;
+  stationId: string;
+  /** In `unit`, as entered (dial mode: the computed diameter); null when skipped. */
+  value: number | null;
+  unit: MeasureUnit;
+  entryMode: "direct" | "dial";
+  dialSetting?: number;
+  dialDeviation?: number;
+  instrumentId?: number;
+  partTempC?: number;
+  gaugeTempC?: number;
+  lubricant?: Lubricant;
+  skipped: boolean;
+  skipReason?: string;
+  /** The reading this one corrects (measure again, confirm, lead sent it back). */
+  supersedes?: string;
+  note?: string;
+  takenAt: string;
+  deviceId: string;
+  /** Who was signed in on the tablet; only their session may send it. */
+  takenBy: number;
+  state: SyncState;
+  /** The server's verdict once synced; before that the tablet's preview is computed on screen. */
+  verdict?: Verdict | null;
+  verdictNote?: string | null;
+  deviation?: number | null;
+  limitMin?: number | null;
+  limitMax?: number | null;
+  rejection?: { code: RejectCode | string; reason: string; errors?: FieldErrors };
+  /** Set from the server's copy: the reading that corrects this one. */
+  supersededBy?: string | null;
+  updatedAt: string;
+}
+
+/** A reading waiting for the server. Keyed by the reading id, so one reading is queued once. */
+export interface OutboxRow {
+  readingId: string;
+  jobId: number;
+  takenBy: number;
+  queuedAt: string;
+  attempts: number;
+}
+
+export interface JobRow {
+  jobId: number;
+  pack: JobPack;
+  openedAt: string;
+  refreshedAt: string;
+  /** The server no longer offers this job to this user (feed `missing`). */
+  gone?: boolean;
+}
+
+export type PhotoState = "pending" | "uploaded" | "rejected";
+
+export interface PhotoRow {
+  id: string;
+  jobId: number;
+  ownerType: "job" | "reading";
+  ownerId: string;
+  /** Cleared once the server holds the file, to give the tablet its space back. */
+  blob: Blob | null;
+  contentType: string;
+  name: string;
+  size: number;
+  createdAt: string;
+  takenBy: number;
+  state: PhotoState;
+  error?: string;
+}
+
+export interface MetaRow {
+  key: string;
+  value: unknown;
+}
+
+export class BenchDb extends Dexie {
+  jobs!: EntityTable<JobRow, "jobId">;
+  readings!: EntityTable<LocalReading, "id">;
+  outbox!: EntityTable<OutboxRow, "readingId">;
+  photos!: EntityTable<PhotoRow, "id">;
+  meta!: EntityTable<MetaRow, "key">;
+
+  constructor(name = "tenthwise-bench") {
+    super(name);
+    this.version(1).stores({
+      jobs: "jobId, openedAt",
+      readings: "id, jobId, [jobId+stationId], state, takenAt",
+      outbox: "readingId, jobId, takenBy, queuedAt",
+      photos: "id, jobId, ownerId, state",
+      meta: "key",
+    });
+  }
+}
+
+let instance: BenchDb | undefined;
+
+/** The browser's one database. Tests make their own `new BenchDb(name)`. */
+export function getBenchDb(): BenchDb {
+  instance ??= new BenchDb();
+  return instance;
+}

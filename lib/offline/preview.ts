@@ -1,0 +1,95 @@
+// The tablet's view of a job's readings: which reading is current at each station, and the
+// instant verdicts and derived values, all from lib/domain (the same core the server uses; the
+// server's stored verdict replaces the preview once a reading is synced).
+import {
+  convertLength, deriveReadings, evaluateReading, readingUncertainty,
+  type DerivedValue, type Evaluation, type MeasureUnit, type RawReading, type Verdict,
+} from "@/lib/domain";
+import type { BenchInstrument, JobPack } from "@/lib/schemas/sync";
+import type { LocalReading } from "./db";
+
+/** Ids of readings another (non-rejected) reading corrects, or the server says are corrected. */
+export function supersededIds(readings: LocalReading[]): Set<string> {
+  const out = new Set<string>();
+  for (const r of readings) {
+    if (r.supersedes && r.state !== "rejected") out.add(r.supersedes);
+    if (r.supersededBy) out.add(r.id);
+  }
+  return out;
+}
+
+/** The latest reading per station that nothing supersedes (rejected ones included, to show them). */
+export function currentByStation(readings: LocalReading[]): Map<string, LocalReading> {
+  const gone = supersededIds(readings);
+  const out = new Map<string, LocalReading>();
+  for (const r of readings) {
+    if (gone.has(r.id)) continue;
+    const prev = out.get(r.stationId);
+    if (!prev || prev.takenAt <= r.takenAt) out.set(r.stationId, r);
+  }
+  return out;
+}
+
+/** The gauge's expanded uncertainty U (k = 2) in the reading's unit, after the GUM (uncertainty.ts). */
+export function gaugeU(instrument: BenchInstrument | undefined, unit: MeasureUnit): number | undefined {
+  if (!instrument) return undefined;
+  const same = instrument.unit === unit;
+  const lengths = (instrument.unit === "in" || instrument.unit === "mm") && (unit === "in" || unit === "mm");
+  if (!same && !lengths) return undefined;
+  // The certificate's U is at its own k; the verdict's guard band wants k = 2, i.e. 2·uc.
+  const { uc } = readingUncertainty({ calibrationU: instrument.expandedU, k: instrument.coverageK || 2, resolution: instrument.resolution });
+  const U2 = 2 * uc;
+  return same ? U2 : convertLength(U2, instrument.unit as "in" | "mm", unit as "in" | "mm");
+}
+
+export function toRaw(r: LocalReading, instruments: BenchInstrument[]): RawReading | undefined {
+  if (r.skipped || r.value === null) return undefined;
+  const inst = instruments.find((i) => i.id === r.instrumentId);
+  const U = gaugeU(inst, r.unit);
+  return {
+    stationId: r.stationId, value: r.value, unit: r.unit, takenAt: r.takenAt,
+    ...(r.partTempC !== undefined ? { temperatureC: r.partTempC } : {}),
+    ...(r.gaugeTempC !== undefined ? { gaugeTemperatureC: r.gaugeTempC } : {}),
+    ...(U !== undefined ? { uncertainty: U } : {}),
+    ...(r.lubricant ? { lubricant: r.lubricant } : {}),
+  };
+}
+
+/** Raw readings that count for verdicts and derived values: current, not skipped, not refused. */
+export function usableRaw(readings: LocalReading[], instruments: BenchInstrument[]): RawReading[] {
+  const out: RawReading[] = [];
+  for (const r of currentByStation(readings).values()) {
+    if (r.state === "rejected") continue;
+    const raw = toRaw(r, instruments);
+    if (raw) out.push(raw);
+  }
+  return out;
+}
+
+export interface Preview {
+  verdict?: Verdict;
+  evaluation?: Evaluation;
+  /** Why there is no verdict (no limit, or the core refused the figure), in words. */
+  note?: string;
+}
+
+/** The verdict to show for a reading: the server's once synced, else the core's preview. */
+export function previewReading(r: LocalReading, pack: JobPack, raw: RawReading[]): Preview {
+  const mine = toRaw(r, pack.instruments);
+  if (!mine) return {};
+  try {
+    const evaluation = evaluateReading(mine, pack.shape, pack.spec, raw);
+    const verdict = r.state === "synced" && r.verdict ? r.verdict : evaluation.verdict;
+    return { verdict, evaluation, ...(evaluation.note ? { note: evaluation.note } : {}) };
+  } catch (err) {
+    return { note: err instanceof Error ? err.message : String(err) };
+  }
+}
+
+export function derivedFor(pack: JobPack, readings: LocalReading[]): DerivedValue[] {
+  try {
+    return deriveReadings(usableRaw(readings, pack.instruments), pack.shape, pack.spec);
+  } catch {
+    return [];
+  }
+}

@@ -1,0 +1,80 @@
+// Writing readings on the tablet. Each write puts the reading and its outbox row in ONE
+// transaction, so a reading is never saved without being queued, nor queued without being saved.
+import type { Lubricant, MeasureUnit } from "@/lib/domain";
+import type { BenchDb, LocalReading } from "./db";
+import { uuidv4 } from "./ids";
+
+export interface NewReading {
+  jobId: number;
+  stationId: string;
+  value: number | null;
+  unit: MeasureUnit;
+  entryMode?: "direct" | "dial";
+  dialSetting?: number;
+  dialDeviation?: number;
+  instrumentId?: number;
+  lubricant?: Lubricant;
+  partTempC?: number;
+  skipped?: boolean;
+  skipReason?: string;
+  supersedes?: string;
+  note?: string;
+}
+
+export interface WriteContext {
+  deviceId: string;
+  takenBy: number;
+  now?: () => Date;
+}
+
+function checkNew(input: NewReading): void {
+  if (input.skipped) {
+    if (!input.skipReason?.trim()) throw new Error("Say why the station is skipped");
+    return;
+  }
+  if (typeof input.value !== "number" || !Number.isFinite(input.value)) throw new Error("Enter the value as a number, e.g. 4.0302");
+}
+
+/** Saves one reading (pending) and queues it; resolves once both are committed. */
+export async function recordReading(db: BenchDb, input: NewReading, ctx: WriteContext): Promise<LocalReading> {
+  checkNew(input);
+  const at = (ctx.now?.() ?? new Date()).toISOString();
+  const row: LocalReading = {
+    ...input,
+    id: uuidv4(),
+    value: input.skipped ? null : input.value,
+    entryMode: input.entryMode ?? "direct",
+    skipped: input.skipped ?? false,
+    skipReason: input.skipReason?.trim() || undefined,
+    takenAt: at,
+    deviceId: ctx.deviceId,
+    takenBy: ctx.takenBy,
+    state: "pending",
+    updatedAt: at,
+  };
+  await db.transaction("rw", db.readings, db.outbox, async () => {
+    await db.readings.add(row);
+    await db.outbox.add({ readingId: row.id, jobId: row.jobId, takenBy: row.takenBy, queuedAt: at, attempts: 0 });
+  });
+  return row;
+}
+
+/**
+ * A rejected reading, fixed by the machinist and queued again. It keeps its id: the server
+ * wrote nothing for it (a refused batch is rolled back), so the same id is still free there.
+ */
+export async function resendReading(db: BenchDb, id: string, fix: Partial<Pick<NewReading, "value" | "lubricant" | "instrumentId" | "skipReason" | "note">>, now = new Date()): Promise<void> {
+  await db.transaction("rw", db.readings, db.outbox, async () => {
+    const r = await db.readings.get(id);
+    if (!r) throw new Error("That reading is not on this tablet");
+    if (r.state !== "rejected") throw new Error("Only a reading the server refused can be sent again");
+    const next: LocalReading = { ...r, ...fix, state: "pending", rejection: undefined, updatedAt: now.toISOString() };
+    if (next.value !== null && !next.skipped && !Number.isFinite(next.value)) throw new Error("Enter the value as a number");
+    await db.readings.put(next);
+    await db.outbox.put({ readingId: id, jobId: r.jobId, takenBy: r.takenBy, queuedAt: now.toISOString(), attempts: 0 });
+  });
+}
+
+export function readingsOfJob(db: BenchDb, jobId: number): Promise<LocalReading[]> {
+  return db.readings.where("jobId").equals(jobId).sortBy("takenAt");
+}

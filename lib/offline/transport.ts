@@ -1,0 +1,80 @@
+// HTTP for the sync engine: every call has a timeout (a hung request on bad Wi-Fi must not block
+// the one sync run forever) and every answer is sorted into what the engine does next.
+import type { PushErrorReply, PushReply, PushResult, SyncFeed } from "@/lib/schemas/sync";
+
+export type Fetch = typeof fetch;
+
+/** Worth retrying later, with backoff: no network, a timeout, or a 5xx. */
+export class TransientError extends Error {}
+/** Needs a person: signed out, wrong role, or a request the server cannot take as sent. */
+export class ActionError extends Error {
+  constructor(readonly status: number, message: string) {
+    super(message);
+  }
+}
+
+export const REQUEST_TIMEOUT_MS = 20_000;
+
+async function send(fetchFn: Fetch, url: string, init: RequestInit): Promise<Response> {
+  const ctl = new AbortController();
+  const timer = setTimeout(() => ctl.abort(), REQUEST_TIMEOUT_MS);
+  try {
+    return await fetchFn(url, { ...init, signal: ctl.signal, credentials: "same-origin", cache: "no-store" });
+  } catch {
+    throw new TransientError("No connection to the server");
+  } finally {
+    clearTimeout(timer);
+  }
+}
+
+async function body(res: Response): Promise<Record<string, unknown> | null> {
+  return (await res.json().catch(() => null)) as Record<string, unknown> | null;
+}
+
+function refuse(res: Response, json: Record<string, unknown> | null, what: string): never {
+  if (res.status >= 500) throw new TransientError(`The server had a problem (${res.status}); trying again shortly`);
+  if (res.status === 401) throw new ActionError(401, "Signed out: sign in again so the tablet can send its readings");
+  if (res.status === 403) throw new ActionError(403, "This account cannot send bench readings; sign in as a machinist or lead");
+  const err = json?.error as { message?: string } | undefined;
+  throw new ActionError(res.status, `${what}: ${err?.message ?? `the server answered ${res.status}`}`);
+}
+
+export type PushAnswer = { kind: "results"; results: PushResult[] } | { kind: "too_large" };
+
+export async function pushBatch(fetchFn: Fetch, base: string, deviceId: string, readings: unknown[]): Promise<PushAnswer> {
+  const res = await send(fetchFn, `${base}/api/sync`, {
+    method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify({ deviceId, readings }),
+  });
+  const json = await body(res);
+  if (res.ok) return { kind: "results", results: (json as PushReply | null)?.results ?? [] };
+  if (res.status === 413) return { kind: "too_large" };
+  const results = (json as PushErrorReply | null)?.results;
+  if ((res.status === 422 || res.status === 409) && Array.isArray(results)) return { kind: "results", results };
+  refuse(res, json, "Sending readings failed");
+}
+
+export async function pullFeed(fetchFn: Fetch, base: string, since: string, jobs: number[]): Promise<SyncFeed> {
+  const q = new URLSearchParams({ since, jobs: jobs.join(",") });
+  const res = await send(fetchFn, `${base}/api/sync?${q}`, { method: "GET" });
+  const json = await body(res);
+  if (!res.ok) refuse(res, json, "Fetching changes failed");
+  return json as unknown as SyncFeed;
+}
+
+export async function getJson<T>(fetchFn: Fetch, url: string): Promise<T> {
+  const res = await send(fetchFn, url, { method: "GET" });
+  const json = await body(res);
+  if (!res.ok) refuse(res, json, "Loading failed");
+  return json as T;
+}
+
+/** Photo upload; `unavailable` means the server has no upload route yet (404/501): keep waiting. */
+export async function uploadFile(fetchFn: Fetch, base: string, form: FormData): Promise<"ok" | "unavailable" | { refused: string }> {
+  const res = await send(fetchFn, `${base}/api/attachments`, { method: "POST", body: form });
+  if (res.ok) return "ok";
+  if (res.status === 404 || res.status === 501) return "unavailable";
+  const json = await body(res);
+  if (res.status >= 500 || res.status === 401 || res.status === 403) refuse(res, json, "Uploading a photo failed");
+  const err = json?.error as { message?: string } | undefined;
+  return { refused: err?.message ?? `The server refused the photo (${res.status})` };
+}
