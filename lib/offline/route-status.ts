@@ -1,0 +1,83 @@
+// Where the machinist stands on a job's route: the state of every station, progress per
+// section, and which station comes next. Pure: job pack and readings in, views out.
+import type { Station, Verdict } from "@/lib/domain";
+import type { BenchFlag, JobPack } from "@/lib/schemas/sync";
+import type { LocalReading } from "./db";
+import { currentByStation, previewReading, usableRaw } from "./preview";
+
+export type StationState =
+  | "todo" | "in_spec" | "marginal" | "out_of_spec" | "no_limit" | "skipped" | "rejected"
+  /** Out of spec on its only reading: a confirming second reading is asked for. */
+  | "confirm"
+  /** The lead sent it back (measure again / machine again) and nothing newer was taken. */
+  | "revisit";
+
+export interface StationView {
+  station: Station;
+  index: number;
+  state: StationState;
+  current?: LocalReading;
+  verdict?: Verdict;
+  deviation?: number;
+  /** Readings taken at this station that the server has not refused (history included). */
+  count: number;
+  revisit?: BenchFlag;
+}
+
+/** States still waiting for the machinist. */
+export const OPEN_STATES: readonly StationState[] = ["todo", "confirm", "revisit", "rejected"];
+
+function revisitFlag(flags: BenchFlag[], stationId: string, current?: LocalReading): BenchFlag | undefined {
+  return flags.find((f) => f.revisit && f.stations.includes(stationId) && !(current && f.disposedAt && current.takenAt > f.disposedAt));
+}
+
+function stateOf(current: LocalReading | undefined, verdict: Verdict | undefined, count: number): StationState {
+  if (!current) return "todo";
+  if (current.state === "rejected") return "rejected";
+  if (current.skipped) return "skipped";
+  if (!verdict) return "no_limit";
+  if (verdict === "out_of_spec" && count < 2) return "confirm";
+  return verdict;
+}
+
+export function stationViews(pack: JobPack, readings: LocalReading[]): StationView[] {
+  const current = currentByStation(readings);
+  const raw = usableRaw(readings, pack.instruments);
+  const counts = new Map<string, number>();
+  for (const r of readings) if (r.state !== "rejected") counts.set(r.stationId, (counts.get(r.stationId) ?? 0) + 1);
+  const stations = pack.route.sections.flatMap((s) => s.stations);
+  return stations.map((station, index) => {
+    const cur = current.get(station.id);
+    const preview = cur ? previewReading(cur, pack, raw) : {};
+    const count = counts.get(station.id) ?? 0;
+    const revisit = revisitFlag(pack.flags, station.id, cur);
+    const state = revisit ? "revisit" : stateOf(cur, preview.verdict, count);
+    return { station, index, state, current: cur, verdict: preview.verdict, deviation: preview.evaluation?.deviation, count, ...(revisit ? { revisit } : {}) };
+  });
+}
+
+export interface SectionProgress {
+  id: string;
+  label: string;
+  done: number;
+  total: number;
+  open: number;
+}
+
+export function sectionProgress(pack: JobPack, views: StationView[]): SectionProgress[] {
+  return pack.route.sections.map((s) => {
+    const mine = views.filter((v) => v.station.section === s.id);
+    const open = mine.filter((v) => OPEN_STATES.includes(v.state)).length;
+    return { id: s.id, label: s.label, done: mine.length - open, total: mine.length, open };
+  });
+}
+
+/** The next station after `fromId` that still needs the machinist, in route order (wrapping). */
+export function nextOpenStation(views: StationView[], fromId?: string): string | undefined {
+  const start = fromId ? views.findIndex((v) => v.station.id === fromId) : -1;
+  for (let k = 1; k <= views.length; k++) {
+    const v = views[(start + k + views.length) % views.length];
+    if (OPEN_STATES.includes(v.state) && v.station.id !== fromId) return v.station.id;
+  }
+  return undefined;
+}
