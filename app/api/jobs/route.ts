@@ -1,0 +1,13 @@
+import { jobSchema } from "@/lib/schemas/job";
+import { listJobBoard } from "@/lib/server/jobs-admin-board-repo";
+import { createJob } from "@/lib/server/jobs-admin-repo";
+import { authed, readJson } from "@/lib/server/route";
+
+/** The jobs board: every job of the shop with progress and open flags. */
+export const GET = authed(["lead", "admin"], async ({ actor }) => ({ jobs: await listJobBoard(actor.shopId) }));
+
+/** A new job: customer (picked or new), engine, template snapshot. */
+export const POST = authed(["lead"], async ({ req, actor }) => {
+  const values = await readJson(req, jobSchema);
+  return Response.json(await createJob(actor, values), { status: 201 });
+});

@@ -1,0 +1,41 @@
+import "server-only";
+
+// CSV as a spreadsheet opens it without surprises. The choices, on purpose:
+// - UTF-8 with a byte order mark (EF BB BF), so spreadsheet programs detect UTF-8 and show
+//   "lbf·ft", "µm" and people's names correctly instead of guessing a legacy code page.
+// - RFC 4180: comma-separated fields, CRLF line ends, a header row; a field holding a comma,
+//   a double quote, CR or LF is wrapped in double quotes and its quotes doubled.
+// - Numbers in plain decimal notation with a point (0.0000001, never 1e-7), no thousands
+//   separators, no locale: a spreadsheet set to decimal commas imports it with its
+//   "from text/CSV" dialog, choosing comma as the delimiter.
+// - Dates and times in ISO 8601 UTC (2026-12-01T09:30:00.000Z).
+// - Text cells that begin with = + - @ (or a tab or CR) get a leading apostrophe, so a
+//   spreadsheet never runs a cell as a formula (OWASP "CSV injection"); numbers are untouched.
+export const BOM = "\uFEFF";
+
+export type Cell = string | number | null | undefined;
+
+/** A number in plain decimal notation with a point; empty for null/undefined/non-finite. */
+export function plainNumber(x: number | null | undefined): string {
+  if (x === null || x === undefined || !Number.isFinite(x)) return "";
+  const s = String(x);
+  if (!/e/i.test(s)) return s;
+  // Twelve significant digits is finer than any gauge (see lib/domain cleanDecimal).
+  const fixed = Math.abs(x) < 1 ? x.toFixed(Math.min(20, 12 - Math.floor(Math.log10(Math.abs(x))))) : x.toFixed(0);
+  return fixed.includes(".") ? fixed.replace(/0+$/, "").replace(/\.$/, "") : fixed;
+}
+
+function textCell(s: string): string {
+  return /^[=+\-@\t\r]/.test(s) ? `'${s}` : s;
+}
+
+export function csvField(cell: Cell): string {
+  const s = typeof cell === "number" ? plainNumber(cell) : cell === null || cell === undefined ? "" : textCell(cell);
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** The whole file: BOM, header, rows, CRLF after every record. */
+export function toCsv(header: string[], rows: Cell[][]): string {
+  const lines = [header, ...rows].map((r) => r.map(csvField).join(","));
+  return `${BOM}${lines.join("\r\n")}\r\n`;
+}

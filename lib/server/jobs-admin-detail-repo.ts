@@ -1,0 +1,89 @@
+import "server-only";
+import { fn, col } from "sequelize";
+import { benchRoute, deriveReadings, type RawReading, type Verdict } from "@/lib/domain";
+import { Customer, Flag, SpecTemplate } from "@/models";
+import { loadJobContext } from "./job-context";
+import { isJobLocked } from "./jobs-admin-repo";
+import { requiredStations } from "./jobs-admin-board-repo";
+import { listJobReadings, toRawReading } from "./jobs-admin-readings-repo";
+import type { JobStatus } from "./jobs-repo";
+
+// One job for its desk page: header fields, the engine as entered, and a readings summary per
+// bench section (required done, verdicts of current readings) plus the derived values' verdicts.
+type Counts = Record<Verdict, number>;
+const zero = (): Counts => ({ in_spec: 0, marginal: 0, out_of_spec: 0 });
+
+export type SectionSummary = { id: string; label: string; stations: number; measured: number; required: number; requiredDone: number; verdicts: Counts };
+
+function summarise(ctx: Awaited<ReturnType<typeof loadJobContext>>, readings: Awaited<ReturnType<typeof listJobReadings>>) {
+  const current = readings.filter((r) => r.current);
+  const byStation = new Map(current.map((r) => [r.stationId, r]));
+  let sections: SectionSummary[] = [];
+  let routeError: string | null = null;
+  try {
+    sections = benchRoute(ctx.shape).sections.map((s) => {
+      const required = new Set(requiredStations(s.stations, ctx.spec));
+      const verdicts = zero();
+      let measured = 0;
+      let requiredDone = 0;
+      for (const st of s.stations) {
+        const r = byStation.get(st.id);
+        if (!r || r.value === null) continue;
+        measured += 1;
+        if (required.has(st.id)) requiredDone += 1;
+        if (r.verdict) verdicts[r.verdict] += 1;
+      }
+      return { id: s.id, label: s.label, stations: s.count, measured, required: required.size, requiredDone, verdicts };
+    });
+  } catch (err) {
+    routeError = (err as Error).message;
+  }
+  const derived = { ...zero(), pending: 0 };
+  if (!routeError) {
+    const raw = current.map(toRawReading).filter((r): r is RawReading => r !== null);
+    for (const d of deriveReadings(raw, ctx.shape, ctx.spec)) {
+      if (d.verdict) derived[d.verdict] += 1;
+      else if (d.missing.length && d.limits) derived.pending += 1;
+    }
+  }
+  return { sections, derived, routeError, readingCount: readings.length, currentCount: current.length };
+}
+
+async function flagCounts(shopId: number, jobId: number) {
+  const rows = (await Flag.findAll({ where: { shopId, jobId }, attributes: ["state", [fn("COUNT", col("id")), "n"]], group: ["state"], raw: true })) as unknown as { state: string; n: number | string }[];
+  const out = { open: 0, disposed: 0, closed: 0 };
+  for (const r of rows) out[r.state as keyof typeof out] = Number(r.n);
+  return out;
+}
+
+export async function getJobDetail(shopId: number, jobId: number) {
+  const ctx = await loadJobContext(shopId, jobId);
+  const { job, engine } = ctx;
+  const [customer, template, readings, flags] = await Promise.all([
+    Customer.findByPk(job.customerId),
+    job.templateId ? SpecTemplate.findByPk(job.templateId, { attributes: ["id", "name"] }) : null,
+    listJobReadings(shopId, jobId),
+    flagCounts(shopId, jobId),
+  ]);
+  return {
+    job: {
+      id: job.id, code: job.code, title: job.title, status: job.status as JobStatus, unitSystem: job.unitSystem,
+      dueDate: job.dueDate ?? null, notes: job.notes ?? null, specRevision: job.specRevision,
+      locked: isJobLocked(job),
+      templateId: job.templateId ?? null, templateName: template?.name ?? null, limitCount: ctx.spec.length,
+      hasBuildPlan: !!job.buildPlan, createdAt: job.createdAt.toISOString(), updatedAt: job.updatedAt.toISOString(),
+    },
+    customer: { id: job.customerId, name: customer?.name ?? "", email: customer?.email ?? null, phone: customer?.phone ?? null },
+    engine: {
+      description: engine.description, cylinders: engine.cylinders, layout: engine.layout, mains: engine.mains,
+      valvesPerCylinder: engine.valvesPerCylinder, ringsPerPiston: engine.ringsPerPiston, boltsPerRod: engine.boltsPerRod,
+      nominalBore: engine.nominalBore, nominalStroke: engine.nominalStroke, blockMaterial: engine.blockMaterial,
+      headMaterial: engine.headMaterial ?? null, pistonMaterial: engine.pistonMaterial ?? null, blockSerial: engine.blockSerial ?? null,
+      crankSerial: engine.crankSerial ?? null, headSerials: engine.headSerials ?? null, fuel: engine.fuel ?? null,
+    },
+    flags,
+    summary: summarise(ctx, readings),
+  };
+}
+
+export type JobDetail = Awaited<ReturnType<typeof getJobDetail>>;
