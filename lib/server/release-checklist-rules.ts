@@ -65,7 +65,8 @@ export function derivedInputs(record: JobRecord): Map<string, { characteristic: 
   }
 }
 
-type Required = { station: Station; neededFor: Set<string> };
+/** `own`: the station's own characteristic is required; else `neededFor` names the derived values that need it. */
+type Required = { station: Station; own: boolean; neededFor: Set<string> };
 
 /**
  * Required stations: those whose own characteristic has a `required` limit there, and the inputs
@@ -78,8 +79,9 @@ export function requiredStations(record: JobRecord, stations: Station[]): Requir
   const add = (id: string, why?: string) => {
     const station = byId.get(id);
     if (!station) return;
-    const entry = need.get(id) ?? { station, neededFor: new Set<string>() };
+    const entry = need.get(id) ?? { station, own: false, neededFor: new Set<string>() };
     if (why) entry.neededFor.add(why);
+    else entry.own = true;
     need.set(id, entry);
   };
   for (const s of stations) if (findLimit(record.spec, s.characteristic, s.id)?.required) add(s.id);
@@ -104,9 +106,9 @@ export function readingsCheck(record: JobRecord, current: Map<string, ReadingRow
   if (route.error) return { id: "readings", title, ok: false, summary: "No bench route", items: [shapeProblem(record, "readings", route.error)] };
   const required = requiredStations(record, route.stations);
   const items: ChecklistItem[] = [];
-  for (const { station, neededFor } of required) {
+  for (const { station, own, neededFor } of required) {
     const r = current.get(station.id);
-    const why = neededFor.size ? ` (needed for ${[...neededFor].join(", ")})` : "";
+    const why = !own && neededFor.size ? ` (needed for ${[...neededFor].join(", ")})` : "";
     const base = { check: "readings" as const, key: `readings:${station.id}`, links: [benchLink(record.job.id, station.id)] };
     if (!r) items.push({ ...base, text: `${station.label}: no reading yet${why}` });
     else if (r.skipped) {

@@ -4,7 +4,7 @@ import type { DispositionRow, FlagRow, InstrumentRow, JobRecord, LimitRow, Readi
 
 // From database rows to the records of the canonical release document (rules in release-hash.ts).
 // Each function lists every field of its record; DECIMALs carry their column's scale from the
-// migrations (readings/flags/limits DECIMAL(14,6), part_temp_c (6,2), instruments (12,6), k (4,2)).
+// migrations (readings/flags/limits DECIMAL(14,6), part_temp_c and gauge_temp_c (6,2), instruments (12,6), k (4,2)).
 // Left out on purpose: created_at/updated_at/received_at (bookkeeping, not what was measured)
 // and a job's title and notes (wording the office may tidy after release).
 
@@ -15,7 +15,7 @@ export function readingRecord(r: ReadingRow): Rec & { id: string } {
     id: r.id, stationId: r.stationId, characteristic: r.characteristic,
     valueCanonical: dec(r.valueCanonical, 6), valueEntered: dec(r.valueEntered, 6), unitEntered: r.unitEntered,
     entryMode: r.entryMode, dialSetting: dec(r.dialSetting, 6), dialDeviation: dec(r.dialDeviation, 6),
-    instrumentId: r.instrumentId ?? null, partTempC: dec(r.partTempC, 2), lubricant: r.lubricant ?? null,
+    instrumentId: r.instrumentId ?? null, partTempC: dec(r.partTempC, 2), gaugeTempC: dec(r.gaugeTempC, 2), lubricant: r.lubricant ?? null,
     skipped: Boolean(r.skipped), skipReason: r.skipReason ?? null, note: r.note ?? null,
     takenBy: r.takenBy, takenAt: isoUtc(r.takenAt), deviceId: r.deviceId, supersedes: r.supersedes ?? null,
     verdict: r.verdict ?? null, verdictNote: r.verdictNote ?? null,

@@ -1,6 +1,6 @@
 import "server-only";
 import type { Difference, PublicVerification, Verification } from "@/lib/schemas/release";
-import { notFound } from "./errors";
+import { AppError, notFound } from "./errors";
 import { characteristicWords, stationWords } from "./release-checklist-rules";
 import { itemDigests, releaseHash, SECTIONS, type ItemDigests, type ReleaseSnapshot } from "./release-hash";
 import { buildSnapshot } from "./release-hash-snapshot";
@@ -58,7 +58,7 @@ export async function verifyRelease(shopId: number, jobId: number, releaseId?: n
   await loadJobRecord(shopId, jobId); // 404 for another shop's job
   const releases = await listReleases(jobId);
   const release = releaseId ? releases.find((r) => r.id === releaseId) : releases[0];
-  if (!release) throw notFound(releaseId ? "Release" : "A release of this job");
+  if (!release) throw releaseId ? notFound("Release") : new AppError("not_found", "This job has not been released yet, so there is nothing to verify");
   const names = await userNames(shopId, [release.inspectorId, release.voidedBy]);
   const record = toReleaseRecord(release, names);
   if (release.voidedAt) {

@@ -1,0 +1,5 @@
+import { auditFacets } from "@/lib/server/audit-query-repo";
+import { authed } from "@/lib/server/route";
+
+/** The actions, entities, people and jobs the audit filters can pick from. */
+export const GET = authed(["lead", "inspector"], async ({ actor }) => auditFacets(actor.shopId));

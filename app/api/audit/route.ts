@@ -1,0 +1,11 @@
+import { auditQuerySchema } from "@/lib/schemas/audit";
+import { queryAudit } from "@/lib/server/audit-query-repo";
+import { invalid } from "@/lib/server/errors";
+import { authed } from "@/lib/server/route";
+
+/** The shop's audit trail, filtered and paged (contract: lib/schemas/audit.ts). */
+export const GET = authed(["lead", "inspector"], async ({ req, actor }) => {
+  const parsed = auditQuerySchema.safeParse(Object.fromEntries(new URL(req.url).searchParams));
+  if (!parsed.success) throw invalid(parsed.error, "Some filters need fixing");
+  return queryAudit(actor.shopId, parsed.data);
+});
