@@ -1,0 +1,149 @@
+import "server-only";
+import type { Transaction } from "sequelize";
+import { benchRoute } from "@/lib/domain";
+import {
+  pushReadingSchema, type FieldErrors, type PushErrorReply, type PushReading, type PushReply, type PushResult,
+  type ReadingEvaluation,
+} from "@/lib/schemas/sync";
+import type { Actor } from "./access";
+import { recordAudits, recordChanges } from "./bulk-log-repo";
+import { getSequelize } from "./db";
+import { fieldErrors } from "./errors";
+import { reconcileJob } from "./flag-reconcile";
+import { checkItem, lockReasonOf, type BatchContext, type BatchJob, type Checked } from "./ingest-check";
+import { withDeadlockRetry } from "./ingest-retry";
+import { loadJobContext } from "./job-context";
+import { findInstruments, findReadings, insertReadings, lockJobs, type NewReading } from "./readings-repo";
+import { lastChangeId } from "./sync-feed";
+
+// POST /api/sync: one batch, one transaction, all or nothing (the rule is documented in
+// lib/schemas/sync.ts). Steps: parse each item; lock the batch's jobs; check every item against
+// its job, the gauges and what is stored; if any is refused, write nothing and say why per item;
+// else insert the new readings in one statement, reconcile each job's verdicts and flags once,
+// and log every reading (audit + change feed) with its final verdict.
+
+type Parsed = { index: number; item?: PushReading; id: string | null; errors?: FieldErrors };
+/** null: the item failed the schema. duplicate: the same id earlier in the batch with the same figures. */
+type Outcome = Checked | { kind: "duplicate"; of: number } | null;
+export type IngestReply = { status: 200; body: PushReply } | { status: 409 | 422; body: PushErrorReply };
+
+function parseItems(raw: unknown[]): Parsed[] {
+  return raw.map((r, index) => {
+    const parsed = pushReadingSchema.safeParse(r);
+    const id = r && typeof r === "object" && typeof (r as { id?: unknown }).id === "string" ? (r as { id: string }).id : null;
+    return parsed.success ? { index, item: parsed.data, id: parsed.data.id } : { index, id, errors: fieldErrors(parsed.error) };
+  });
+}
+
+async function batchContext(t: Transaction, actor: Actor, deviceId: string, items: PushReading[]): Promise<BatchContext> {
+  const owned = await lockJobs(t, actor.shopId, items.map((i) => i.jobId));
+  const jobs = new Map<number, BatchJob>();
+  for (const id of owned) {
+    const ctx = await loadJobContext(actor.shopId, id, t);
+    const routeIds = new Set(benchRoute(ctx.shape).sections.flatMap((s) => s.stations.map((st) => st.id)));
+    jobs.set(id, { ...ctx, routeIds, lockReason: lockReasonOf(ctx.job) });
+  }
+  const supersedes = items.flatMap((i) => (i.supersedes ? [i.supersedes] : []));
+  const [instruments, existing, stored] = [
+    await findInstruments(t, actor.shopId, items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : []))),
+    await findReadings(t, items.map((i) => i.id)),
+    await findReadings(t, supersedes),
+  ];
+  const targets = new Map<string, { shopId: number; jobId: number; stationId: string }>(stored);
+  for (const i of items) if (!targets.has(i.id) && supersedes.includes(i.id)) targets.set(i.id, { shopId: actor.shopId, jobId: i.jobId, stationId: i.stationId });
+  return { shopId: actor.shopId, userId: actor.userId, deviceId, now: new Date(), jobs, instruments, existing, targets };
+}
+
+/** Checks every parsed item; a second copy of an id in the batch is the first one's replay or a conflict. */
+function checkAll(parsed: Parsed[], bc: BatchContext): Outcome[] {
+  const seen = new Map<string, number>();
+  return parsed.map((p) => {
+    if (!p.item) return null;
+    const first = seen.get(p.item.id);
+    if (first === undefined) {
+      seen.set(p.item.id, p.index);
+      return checkItem(p.item, bc);
+    }
+    const same = JSON.stringify(parsed[first].item) === JSON.stringify(p.item);
+    const reason = `Reading ${p.item.id} appears twice in this batch with different figures; give the correction a new id`;
+    return same ? { kind: "duplicate", of: first } : { kind: "rejected", code: "conflict", reason, errors: { id: [reason] } };
+  });
+}
+
+/** New rows ordered so a correction follows the reading it corrects (the foreign key is checked row by row). */
+function insertOrder(rows: NewReading[]): NewReading[] {
+  const pending = new Map(rows.map((r) => [r.id, r]));
+  const out: NewReading[] = [];
+  const visit = (r: NewReading) => {
+    if (!pending.delete(r.id)) return;
+    const target = r.supersedes ? pending.get(r.supersedes) : undefined;
+    if (target) visit(target);
+    out.push(r);
+  };
+  for (const r of rows) visit(r);
+  return out;
+}
+
+function evaluationOf(c: { row: NewReading }, final: ReadingEvaluation | undefined): ReadingEvaluation {
+  const r = c.row;
+  return final ?? { verdict: r.verdict, verdictNote: r.verdictNote, unit: r.unit, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation };
+}
+
+async function write(t: Transaction, actor: Actor, deviceId: string, fresh: NewReading[]) {
+  await insertReadings(t, insertOrder(fresh));
+  const finals = new Map<string, ReadingEvaluation>();
+  const ids = new Set(fresh.map((r) => r.id));
+  for (const jobId of [...new Set(fresh.map((r) => r.jobId))].sort((a, b) => a - b)) {
+    const res = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, deviceId, cause: "sync", fresh: ids });
+    for (const [id, e] of res.evaluations) if (ids.has(id)) finals.set(id, e);
+  }
+  const after = (r: NewReading) => {
+    const e = finals.get(r.id);
+    return { jobId: r.jobId, stationId: r.stationId, value: r.value, unit: r.unit, skipped: r.skipped, supersedes: r.supersedes, verdict: e?.verdict ?? r.verdict, deviceId };
+  };
+  await recordAudits(t, fresh.map((r) => ({ shopId: actor.shopId, userId: actor.userId, action: r.supersedes ? "reading.correct" : "reading.create", entityType: "reading", entityId: r.id, after: after(r) })));
+  await recordChanges(t, fresh.map((r) => ({ shopId: actor.shopId, jobId: r.jobId, entity: "reading" as const, entityId: r.id, deviceId })));
+  return finals;
+}
+
+function results(parsed: Parsed[], checked: Outcome[], finals: Map<string, ReadingEvaluation>, refused: boolean): PushResult[] {
+  const one = (p: Parsed, c: Outcome): PushResult => {
+    if (!c) return { index: p.index, id: p.id, status: "rejected", code: "invalid", reason: Object.entries(p.errors ?? {}).map(([f, m]) => `${f}: ${m.join("; ")}`).join(". "), errors: p.errors };
+    if (c.kind === "duplicate") return { ...one(parsed[c.of], checked[c.of]), index: p.index };
+    if (c.kind === "rejected") return { index: p.index, id: p.id, status: "rejected", code: c.code, reason: c.reason, ...(c.errors ? { errors: c.errors } : {}) };
+    if (c.kind === "replay") {
+      const s = c.stored;
+      return { index: p.index, id: s.id, status: "accepted", replay: true, verdict: s.verdict, evaluation: { verdict: s.verdict, verdictNote: s.verdictNote, unit: s.unit, limitMin: s.limitMin, limitMax: s.limitMax, deviation: s.deviation } };
+    }
+    if (refused) return { index: p.index, id: c.row.id, status: "held" };
+    const e = evaluationOf(c, finals.get(c.row.id));
+    return { index: p.index, id: c.row.id, status: "accepted", replay: false, verdict: e.verdict, evaluation: e };
+  };
+  return parsed.map((p, i) => one(p, checked[i]));
+}
+
+function refusal(res: PushResult[], cursor: string): IngestReply {
+  const rejected = res.filter((r): r is Extract<PushResult, { status: "rejected" }> => r.status === "rejected");
+  const fields: FieldErrors = {};
+  for (const r of rejected) for (const [f, m] of Object.entries(r.errors ?? { _: [r.reason] })) fields[`readings.${r.index}.${f}`] = m;
+  const locked = rejected.every((r) => r.code === "job_locked");
+  const message = locked
+    ? `${rejected[0].reason} Nothing in this batch was saved; the readings stay on the tablet.`
+    : `${rejected.length} of ${res.length} readings need fixing; nothing in this batch was saved. Fix those (see each reading's errors) or send the others without them.`;
+  return { status: locked ? 409 : 422, body: { error: { code: locked ? "job_locked" : "invalid", message, fields }, results: res, cursor } };
+}
+
+export async function ingestBatch(actor: Actor, batch: { deviceId: string; readings: unknown[] }): Promise<IngestReply> {
+  const parsed = parseItems(batch.readings);
+  const items = parsed.flatMap((p) => (p.item ? [p.item] : []));
+  return withDeadlockRetry(() => getSequelize().transaction(async (t) => {
+    const bc = await batchContext(t, actor, batch.deviceId, items);
+    const checked = checkAll(parsed, bc);
+    const bad = checked.some((c) => !c || c.kind === "rejected");
+    const fresh = bad ? [] : checked.flatMap((c) => (c?.kind === "new" ? [c.row] : []));
+    const finals = fresh.length ? await write(t, actor, batch.deviceId, fresh) : new Map<string, ReadingEvaluation>();
+    const cursor = await lastChangeId(t, [...bc.jobs.keys()]);
+    const res = results(parsed, checked, finals, bad);
+    return bad ? refusal(res, cursor) : { status: 200 as const, body: { results: res, cursor } };
+  }));
+}
