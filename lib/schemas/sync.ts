@@ -4,9 +4,9 @@
 //   200 { results: PushResult[], cursor }      every reading was stored (or already was: replay)
 //   400 bad_json                               the body is not JSON
 //   401 unauthorized / 403 forbidden           signed out / another role (inspector, admin)
-//   413 payload_too_large                      more than MAX_BATCH readings: split the batch
 //   422 invalid, no `results`                  the batch itself is malformed (not an object, no deviceId,
-//                                              readings not an array): `error.fields` says where
+//                                              readings not an array, more than MAX_BATCH readings):
+//                                              `error.fields` says where (keys "_", "deviceId", "readings")
 //   422 invalid + `results`                    one or more readings were refused. NOTHING was written.
 //   409 job_locked + `results`                 same, and every refused reading is for a released/closed job
 //     Error replies carry `{ error: { code, message, fields }, results, cursor }`; fields are keyed
@@ -22,13 +22,18 @@
 //   Verdicts are recomputed on the server with lib/domain; the tablet's preview is never trusted.
 //   Same id + same payload = no-op (accepted, replay). Same id + different payload = rejected `conflict`
 //   (a correction is a NEW reading with `supersedes: <old id>`; nothing is ever overwritten).
+//   `cursor` in push replies is informational (the newest change-feed id of the batch's jobs after the
+//   write); never replace your pull cursor with it, or you may skip other devices' changes.
+//   Each result also carries `index` (its position in the batch); `id` is null only when the item had no
+//   usable id string. A repeated id in one batch with the same figures is stored once (both accepted).
 //   Dial mode: `value` is the diameter the tablet computed (dialDiameter in lib/domain) from dialSetting
 //   and dialDeviation with the gauge's dialPlusMeansSmaller; the server recomputes it and refuses a mismatch.
 //
 // GET /api/sync?since=CURSOR&jobs=1,2,3  (roles: machinist, lead)  → SyncFeed
 //   What changed for those jobs since CURSOR (omit `since` or use "0" for everything): readings from any
 //   device (incl. your own echo; upsert by id), flags with their latest disposition, new limits when the
-//   job's specRevision moved, and the job header (status, locked). Every entry is the entity's CURRENT
+//   job's specRevision moved, and (on every call) the header of each job asked for (status, locked,
+//   lockReason, specRevision), so a release reaches the tablet even without a change. Every entry is the entity's CURRENT
 //   state, so applying one twice is harmless. Unknown ids and other shops' ids come back in `missing`.
 //   Cursor: the id of the last change-feed row that is settled. A row is settled once it is older than
 //   SETTLE_MS; changes newer than that are sent too but the cursor stops before them, so the next call
