@@ -1,0 +1,83 @@
+// Gauges in the verdicts: a reading taken with a gauge past its calibration due date is flagged
+// gauge_past_due, and the gauge's U (k = 2) feeds the marginal band (ISO 14253-1:2017 guard band,
+// see lib/domain/verdict.ts). The readings travel the real way: POST /api/sync as the machinist.
+import { randomUUID } from "node:crypto";
+import { beforeAll, describe, expect, it } from "vitest";
+import { POST as REGISTER } from "@/app/api/instruments/route";
+import { POST as SYNC } from "@/app/api/sync/route";
+import { Flag, Reading } from "@/models";
+import { createShop, type TestShop } from "../support/factories";
+import { asUser, call } from "../support/requests";
+
+let s: TestShop;
+const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
+
+async function register(over: Record<string, unknown>): Promise<number> {
+  const body = {
+    kind: "bore_gauge_digital", label: "Bore gauge", serial: `BG-${randomUUID().slice(0, 8)}`, unit: "in", resolution: 0.0001,
+    expandedU: 0.0001, calibratedOn: day(-200), calibrationDue: day(165), ...over,
+  };
+  const res = await call(REGISTER as never, await asUser(s.users.admin, "POST", "/api/instruments", body));
+  expect(res.status, JSON.stringify(res.body)).toBe(201);
+  return res.body.instrument.id;
+}
+
+async function read(stationId: string, value: number, instrumentId: number) {
+  const id = randomUUID();
+  const res = await call(SYNC as never, await asUser(s.users.machinist, "POST", "/api/sync", {
+    deviceId: "bench-2", readings: [{ id, jobId: s.job.id, stationId, value, unit: "in", instrumentId, takenAt: new Date().toISOString() }],
+  }));
+  expect(res.status, JSON.stringify(res.body)).toBe(200);
+  return { reading: (await Reading.findByPk(id))!, flag: await Flag.findOne({ where: { readingId: id } }) };
+}
+
+beforeAll(async () => {
+  s = await createShop();
+});
+
+describe("gauge past its calibration due date", () => {
+  it("a gauge the admin registers as past due flags a new in-spec reading taken with it", async () => {
+    const old = await register({ calibratedOn: day(-400), calibrationDue: day(-1) });
+    const { reading, flag } = await read("bore/1/mid/A", 4.03, old);
+    expect(reading).toMatchObject({ verdict: "in_spec", verdictNote: "gauge_past_due" });
+    expect(flag).toMatchObject({ reason: "gauge_past_due", verdict: "in_spec", state: "open" });
+  });
+
+  it("a gauge due today is still in calibration: no flag", async () => {
+    const dueToday = await register({ calibrationDue: day(0) });
+    const { reading, flag } = await read("bore/2/mid/A", 4.03, dueToday);
+    expect(reading.verdictNote).toBeNull();
+    expect(flag).toBeNull();
+  });
+
+  it("out of spec wins over past due as the reason", async () => {
+    const old = await register({ calibratedOn: day(-400), calibrationDue: day(-30) });
+    const { flag } = await read("bore/3/mid/A", 4.04, old);
+    expect(flag?.reason).toBe("out_of_spec");
+  });
+});
+
+describe("the gauge's U feeds the marginal band", () => {
+  // Limits 4.0295–4.0305 in. 4.03045 in is inside; with U = 0.0001 in it is within U of the
+  // maximum (4.0305 − 0.0001 = 4.0304 < 4.03045), so marginal; with U = 0 it is in spec.
+  it("U = 0.0001 in → marginal, flagged", async () => {
+    const g = await register({ expandedU: 0.0001 });
+    const { reading, flag } = await read("bore/4/top/A", 4.03045, g);
+    expect(reading.verdict).toBe("marginal");
+    expect(flag?.reason).toBe("marginal");
+  });
+
+  it("U = 0 → in spec, no flag", async () => {
+    const g = await register({ expandedU: 0 });
+    const { reading, flag } = await read("bore/5/top/A", 4.03045, g);
+    expect(reading.verdict).toBe("in_spec");
+    expect(flag).toBeNull();
+  });
+
+  it("a metric gauge's U is converted: 0.0025 mm = 0.0000984 in (25.4 mm per in, NIST SP 811 B.8)", async () => {
+    // 4.0305 − 0.0000984 = 4.0304016 < 4.03045 → marginal; 4.0304 is below it → in spec.
+    const g = await register({ unit: "mm", resolution: 0.001, expandedU: 0.0025 });
+    expect((await read("bore/6/top/A", 4.03045, g)).reading.verdict).toBe("marginal");
+    expect((await read("bore/7/top/A", 4.0304, g)).reading.verdict).toBe("in_spec");
+  });
+});
