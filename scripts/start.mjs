@@ -22,16 +22,20 @@ async function main() {
     s3Port: Number(process.env.TW_S3_PORT ?? 4569), secrets,
   });
   let server;
-  const shutdown = async (code = 0) => {
-    process.removeAllListeners("SIGINT");
-    process.removeAllListeners("SIGTERM");
-    console.log("\n[tenthwise] stopping …");
-    if (server && server.exitCode === null) {
-      server.kill("SIGTERM");
-      await new Promise((r) => { server.once("exit", r); setTimeout(r, 8000); });
-    }
-    await services.stop();
-    process.exit(code);
+  let stopping = null;
+  // One shutdown, however many signals or exits ask for it (a second Ctrl-C must not cut the
+  // MariaDB shutdown short and leave mariadbd behind).
+  const shutdown = (code = 0) => {
+    stopping ??= (async () => {
+      console.log("\n[tenthwise] stopping …");
+      if (server && server.exitCode === null && server.signalCode === null) {
+        server.kill("SIGTERM");
+        await new Promise((r) => { server.once("exit", r); setTimeout(r, 8000); });
+      }
+      await services.stop();
+      process.exit(code);
+    })();
+    return stopping;
   };
   process.on("SIGINT", () => shutdown(0));
   process.on("SIGTERM", () => shutdown(0));
@@ -46,7 +50,7 @@ async function main() {
     execFileSync("node", ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts", "--seed"], { stdio: "inherit", env: appEnv });
     ensureBuild();
     server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(PORT), "-H", "0.0.0.0"], { stdio: "inherit", env: appEnv });
-    server.on("exit", (code) => { if (code !== null && code !== 0) shutdown(code); });
+    server.on("exit", (code) => { if (!stopping) shutdown(code ?? 1); });
     const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8"));
     console.log(`\n  Tenthwise is at http://localhost:${PORT}\n\n  Demo sign-ins (demo only), password "${demo.password}":`);
     for (const a of demo.accounts) console.log(`    ${a.role.padEnd(10)} ${a.email}`);

@@ -1,6 +1,6 @@
 // `npm test`: every test, browser tests included, against a throwaway MariaDB and throwaway fakes
 // on free loopback ports. Nothing of the demo datadir is touched; everything is removed at the end.
-import { spawn, execFileSync } from "node:child_process";
+import { spawn, spawnSync, execFileSync } from "node:child_process";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -31,7 +31,8 @@ async function main() {
   const services = await startServices({ mode: "test", dataRoot, dbPort, smtpPort, s3Port, secrets });
   let server;
   let vitest;
-  const cleanup = async () => {
+  let cleaning = null;
+  const cleanup = () => (cleaning ??= (async () => {
     if (vitest && vitest.exitCode === null) vitest.kill("SIGTERM");
     if (server && server.exitCode === null) {
       server.kill("SIGTERM");
@@ -39,7 +40,7 @@ async function main() {
     }
     await services.stop();
     rmSync(dataRoot, { recursive: true, force: true });
-  };
+  })());
   const onSignal = async () => { await cleanup(); process.exit(130); };
   process.on("SIGINT", onSignal);
   process.on("SIGTERM", onSignal);
@@ -53,13 +54,24 @@ async function main() {
       TW_BASE_URL: baseUrl, TW_TEST_DATA_ROOT: dataRoot, TW_DB_PORT: String(dbPort),
     };
     execFileSync("node", ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts", "--seed"], { stdio: "inherit", env });
-    ensureBuild();
-    server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(appPort), "-H", "127.0.0.1"], {
-      stdio: ["ignore", "ignore", "inherit"], env: { ...env, NODE_ENV: "production" },
-    });
-    await waitForHttp(`${baseUrl}/sign-in`);
+    // Only browser tests need the built app; a run of named unit/integration files skips it.
+    const args = process.argv.slice(2);
+    const needsApp = args.length === 0 || args.some((a) => a.includes("browser"));
+    if (needsApp) {
+      const distDir = ensureBuild({ perVersion: true });
+      server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(appPort), "-H", "127.0.0.1"], {
+        stdio: ["ignore", "ignore", "inherit"], env: { ...env, NODE_ENV: "production", TW_DIST_DIR: distDir },
+      });
+      await waitForHttp(`${baseUrl}/sign-in`);
+    }
     vitest = spawn("node", ["node_modules/vitest/vitest.mjs", "run", ...process.argv.slice(2)], { stdio: "inherit", env: { ...env, NODE_ENV: "test" } });
     code = await new Promise((r) => vitest.on("exit", (c) => r(c ?? 1)));
+    if (process.argv.length <= 2) {
+      // A full run also type-checks the whole tree (the build skips it; see next.config.mjs).
+      console.log("[tenthwise] type-checking (tsc --noEmit) …");
+      const tsc = spawnSync("node", ["node_modules/typescript/bin/tsc", "--noEmit", "-p", "."], { stdio: "inherit" });
+      if (tsc.status !== 0) code = code || 1;
+    }
   } catch (err) {
     console.error(`[tenthwise] ${err.message}`);
   } finally {

@@ -19,9 +19,11 @@ export function getSequelize(): Sequelize {
       timezone: "+00:00",
       define: { underscored: true },
     });
-    initModels(sequelize);
     holder.__tenthwiseSequelize = sequelize;
   }
+  // Next bundles server code per route, so one process can hold several copies of the model
+  // classes; each copy must be bound to the shared instance. initModels is a no-op when done.
+  initModels(holder.__tenthwiseSequelize);
   return holder.__tenthwiseSequelize;
 }
 

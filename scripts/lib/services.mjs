@@ -12,10 +12,14 @@ export async function startServices({ mode, dataRoot, dbPort, smtpPort, s3Port, 
       const db = await startMariaDb({
         dataDir: `${dataRoot}/mariadb`, port: dbPort, database: throwaway ? "tenthwise_test" : "tenthwise",
         user: "tenthwise", password: secrets.DB_APP_PASSWORD, throwaway,
+        // Tests get a second, empty database so the migrations test can run every down and up
+        // without touching the seeded one the app and other tests use.
+        extraDatabases: throwaway ? ["tenthwise_scratch"] : [],
       });
       stops.push(db.stop);
       env.DATABASE_URL = db.url;
       env.TW_DB_SOCKET = db.socket;
+      if (throwaway) env.TW_SCRATCH_DATABASE_URL = db.urlFor("tenthwise_scratch");
       console.log(`[tenthwise] MariaDB ready on 127.0.0.1:${dbPort}${throwaway ? " (throwaway)" : ""}`);
     }
     if (!process.env.SMTP_HOST) {

@@ -11,8 +11,10 @@ import { migrator } from "../../lib/server/migrate";
 import { APPEND_ONLY_MESSAGE } from "../../migrations/20261201001000-create-audit-events";
 import { MIGRATED_TABLES, migrations } from "../../migrations/index";
 
-const url = process.env.DATABASE_URL;
-if (!url) throw new Error("DATABASE_URL must point at the test database (the test harness sets it)");
+// npm test provides an empty scratch database for this file, so dropping every table never
+// disturbs the seeded database the running app and the other tests use.
+const url = process.env.TW_SCRATCH_DATABASE_URL ?? process.env.DATABASE_URL;
+if (!url) throw new Error("TW_SCRATCH_DATABASE_URL must point at an empty test database (npm test sets it)");
 
 const sequelize = new Sequelize(url, { dialect: "mariadb", logging: false });
 // The app's own migrator, so this test shares the record of applied migrations with `npm start`.

@@ -28,7 +28,7 @@ export async function newTabletPage(browser: Browser, viewport = { width: 1024, 
 }
 
 export async function signIn(page: Page, email: string, password: string) {
-  await page.goto("/sign-in");
+  await page.goto("/sign-in", { waitUntil: "networkidle" }); // hydrated, so the form posts as JSON
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Sign in" }).click();

@@ -19,7 +19,8 @@ export async function asUser(user: TestUser | null, method: string, url: string,
   return new Request(new URL(url, "http://localhost"), { method, headers: h, body: payload });
 }
 
-type RouteHandler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type RouteHandler = (req: Request, ctx: { params: Promise<any> }) => Promise<Response>;
 
 export async function call(handler: RouteHandler, req: Request, params: Record<string, string> = {}) {
   const res = await handler(req, { params: Promise.resolve(params) });

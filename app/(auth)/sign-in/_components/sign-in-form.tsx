@@ -27,7 +27,8 @@ export function SignInForm({ next }: { next?: string }) {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5 rounded-tool border-2 border-rule bg-panel p-6">
+    // method="post": a tap before hydration must never put the password into the URL.
+    <form method="post" onSubmit={onSubmit} noValidate className="flex flex-col gap-5 rounded-tool border-2 border-rule bg-panel p-6">
       <h1 className="text-2xl font-semibold">Sign in</h1>
       {serverError && <Notice tone="error">{serverError}</Notice>}
       <TextField label="E-mail" type="email" autoComplete="username" error={form.formState.errors.email?.message} {...form.register("email")} />

@@ -1,0 +1,91 @@
+import { describe, expect, it } from "vitest";
+import { DELETE, POST } from "@/app/api/session/route";
+import { GET as me } from "@/app/api/me/route";
+import { SIGN_IN_REFUSED } from "@/lib/server/sign-in";
+import { createShop, TEST_PASSWORD } from "../support/factories";
+import { asUser, call } from "../support/requests";
+
+const signIn = (body: unknown, ip = "10.0.0.1") => asUser(null, "POST", "/api/session", body, { "x-forwarded-for": ip });
+
+describe("POST /api/session", () => {
+  it("signs in, sets an httpOnly SameSite=Lax cookie and names the role's home", async () => {
+    const { users } = await createShop();
+    const res = await call(POST, await signIn({ email: users.inspector.email, password: TEST_PASSWORD }));
+    expect(res.status).toBe(200);
+    expect(res.body.home).toBe("/release");
+    const cookie = res.headers.get("set-cookie") ?? "";
+    expect(cookie).toMatch(/^tw_session=/);
+    expect(cookie).toContain("HttpOnly");
+    expect(cookie).toContain("SameSite=Lax");
+  });
+
+  it("gives the same words for a wrong password and an unknown user", async () => {
+    const { users } = await createShop();
+    const wrong = await call(POST, await signIn({ email: users.lead.email, password: "not-it" }, "10.0.0.2"));
+    const unknown = await call(POST, await signIn({ email: "nobody@nowhere.example", password: "x" }, "10.0.0.3"));
+    expect(wrong.status).toBe(401);
+    expect(unknown.status).toBe(401);
+    expect(wrong.body).toEqual(unknown.body);
+    expect(wrong.body.error).toEqual({ code: "unauthorized", message: SIGN_IN_REFUSED });
+  });
+
+  it("locks an account after repeated failures, even with the right password", async () => {
+    const { users } = await createShop();
+    for (let i = 0; i < 8; i++) await call(POST, await signIn({ email: users.admin.email, password: "guess" + i }, `10.1.0.${i}`));
+    const res = await call(POST, await signIn({ email: users.admin.email, password: TEST_PASSWORD }, "10.1.1.1"));
+    expect(res.status).toBe(429);
+    expect(res.body.error.code).toBe("too_many_attempts");
+    expect(res.headers.get("retry-after")).toBeTruthy();
+  }, 60_000);
+
+  it("refuses a deactivated account with the same words", async () => {
+    const { users } = await createShop();
+    const { User } = await import("@/models");
+    await User.update({ active: false }, { where: { id: users.machinist.id } });
+    const res = await call(POST, await signIn({ email: users.machinist.email, password: TEST_PASSWORD }, "10.0.0.9"));
+    expect(res.status).toBe(401);
+    expect(res.body.error.message).toBe(SIGN_IN_REFUSED);
+  });
+
+  it.each([
+    ["malformed JSON", "{ not json", 400, "bad_json"],
+    ["a missing password", { email: "a@b.example" }, 422, "invalid"],
+    ["an e-mail that is not one", { email: "rosa", password: "x" }, 422, "invalid"],
+  ])("answers %s with the error envelope", async (_what, body, status, code) => {
+    const res = await call(POST, await signIn(body));
+    expect(res.status).toBe(status);
+    expect(res.body.error.code).toBe(code);
+    expect(typeof res.body.error.message).toBe("string");
+    if (status === 422) expect(Object.keys(res.body.error.fields).length).toBeGreaterThan(0);
+  });
+
+  it("signs out by clearing the cookie", async () => {
+    const res = await call(DELETE, await asUser(null, "DELETE", "/api/session"));
+    expect(res.status).toBe(204);
+    expect(res.headers.get("set-cookie")).toContain("Max-Age=0");
+  });
+});
+
+describe("GET /api/me", () => {
+  it("is 401 with the envelope when signed out", async () => {
+    const res = await call(me, await asUser(null, "GET", "/api/me"));
+    expect(res.status).toBe(401);
+    expect(res.body).toEqual({ error: { code: "unauthorized", message: "Sign in first" } });
+  });
+
+  it("tells who is signed in and their shop", async () => {
+    const { users, shop } = await createShop();
+    const res = await call(me, await asUser(users.lead, "GET", "/api/me"));
+    expect(res.status).toBe(200);
+    expect(res.body.user).toMatchObject({ id: users.lead.id, role: "lead" });
+    expect(res.body.shop).toMatchObject({ id: shop.id });
+  });
+
+  it("refuses a sealed cookie of a user who was deactivated since", async () => {
+    const { users } = await createShop();
+    const req = await asUser(users.lead, "GET", "/api/me");
+    const { User } = await import("@/models");
+    await User.update({ active: false }, { where: { id: users.lead.id } });
+    expect((await call(me, req)).status).toBe(401);
+  });
+});
