@@ -18,6 +18,7 @@ export const NAV: Record<Role, { href: string; label: string }[]> = {
     { href: "/admin", label: "Shop" },
     { href: "/admin/users", label: "Users" },
     { href: "/admin/gauges", label: "Gauges" },
+    { href: "/desk", label: "Jobs" },
     { href: "/desk/specs", label: "Spec sheets" },
     { href: "/admin/mail", label: "Mail" },
   ],
