@@ -1,0 +1,61 @@
+"use client";
+
+import Link from "next/link";
+import { useState } from "react";
+import { StatusTag } from "@/components/admin/status-tag";
+import type { ChecklistCheck, ReleaseChecklist } from "@/lib/schemas/release";
+
+// The release checklist: each of the five checks with what is complete, and every unmet item in
+// words with the link that fixes it. Long lists (a fresh V8 has ~90 stations to read) fold.
+const FOLD = 6;
+
+function Check({ check, n }: { check: ChecklistCheck; n: number }) {
+  const [open, setOpen] = useState(false);
+  const shown = open ? check.items : check.items.slice(0, FOLD);
+  return (
+    <li className="flex flex-col gap-2 border-t-2 border-rule py-3 first:border-t-0" data-check={check.id} data-ok={check.ok}>
+      <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
+        <span className="font-mono text-sm text-muted">{n}</span>
+        <StatusTag tone={check.ok ? "good" : "bad"}>{check.ok ? "Complete" : "Blocking"}</StatusTag>
+        <span className="font-semibold">{check.title}</span>
+      </div>
+      <p className="pl-6 text-sm text-muted">{check.summary}</p>
+      {check.items.length > 0 && (
+        <ul className="ml-6 flex flex-col gap-1.5 border-l-4 border-fail pl-3">
+          {shown.map((item) => (
+            <li key={item.key} className="flex flex-wrap items-baseline gap-x-3 text-sm" data-item={item.key}>
+              <span>{item.text}</span>
+              {item.links.map((l) => (
+                <Link key={l.href} href={l.href} className="whitespace-nowrap font-medium text-steel underline">{l.label}</Link>
+              ))}
+            </li>
+          ))}
+          {check.items.length > FOLD && (
+            <li>
+              <button type="button" className="min-h-11 text-sm font-semibold text-steel underline" onClick={() => setOpen(!open)} aria-expanded={open}>
+                {open ? "Show fewer" : `Show all ${check.items.length}`}
+              </button>
+            </li>
+          )}
+        </ul>
+      )}
+    </li>
+  );
+}
+
+export function ChecklistPanel({ checklist }: { checklist: ReleaseChecklist }) {
+  const blocking = checklist.unmet.length;
+  return (
+    <section aria-labelledby="checklist-h" className="rounded-tool border-2 border-rule bg-panel p-4">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id="checklist-h" className="text-xl font-semibold">Release checklist</h2>
+        <p className="font-semibold" data-testid="checklist-state">
+          {blocking === 0 ? "Nothing blocks release" : `${blocking} ${blocking === 1 ? "item blocks" : "items block"} release`}
+        </p>
+      </div>
+      <ol className="mt-2">
+        {checklist.checks.map((c, i) => <Check key={c.id} check={c} n={i + 1} />)}
+      </ol>
+    </section>
+  );
+}
