@@ -1,12 +1,8 @@
-import { AppHeader } from "@/components/app-header";
-import { requirePageActor } from "@/lib/server/access";
+import { BenchShell } from "@/components/bench/bench-shell";
 
-export default async function BenchLayout({ children }: { children: React.ReactNode }) {
-  const actor = await requirePageActor(["machinist", "lead"], "/bench");
-  return (
-    <>
-      <AppHeader actor={actor} current="/bench" />
-      {children}
-    </>
-  );
+// Static on purpose: the bench pages are prerendered shells the service worker precaches, so
+// they open with no network. Who is signed in is settled on the client (see BenchShell), and
+// every piece of data comes from signed-in API routes.
+export default function BenchLayout({ children }: { children: React.ReactNode }) {
+  return <BenchShell>{children}</BenchShell>;
 }

@@ -59,17 +59,21 @@ export async function recordReading(db: BenchDb, input: NewReading, ctx: WriteCo
   return row;
 }
 
+/** What the machinist may change on a refused reading before it is sent again. */
+export type ReadingFix = Partial<Omit<NewReading, "jobId" | "stationId" | "unit">>;
+
 /**
  * A rejected reading, fixed by the machinist and queued again. It keeps its id: the server
  * wrote nothing for it (a refused batch is rolled back), so the same id is still free there.
  */
-export async function resendReading(db: BenchDb, id: string, fix: Partial<Pick<NewReading, "value" | "lubricant" | "instrumentId" | "skipReason" | "note">>, now = new Date()): Promise<void> {
+export async function resendReading(db: BenchDb, id: string, fix: ReadingFix, now = new Date()): Promise<void> {
   await db.transaction("rw", db.readings, db.outbox, async () => {
     const r = await db.readings.get(id);
     if (!r) throw new Error("That reading is not on this tablet");
     if (r.state !== "rejected") throw new Error("Only a reading the server refused can be sent again");
-    const next: LocalReading = { ...r, ...fix, state: "pending", rejection: undefined, updatedAt: now.toISOString() };
-    if (next.value !== null && !next.skipped && !Number.isFinite(next.value)) throw new Error("Enter the value as a number");
+    const { jobId: _j, stationId: _s, unit: _u, ...changes } = fix as NewReading;
+    const next: LocalReading = { ...r, ...changes, state: "pending", rejection: undefined, updatedAt: now.toISOString() };
+    if (!next.skipped && (typeof next.value !== "number" || !Number.isFinite(next.value))) throw new Error("Enter the value as a number");
     await db.readings.put(next);
     await db.outbox.put({ readingId: id, jobId: r.jobId, takenBy: r.takenBy, queuedAt: now.toISOString(), attempts: 0 });
   });

@@ -38,6 +38,9 @@ const schema = z
     MAIL_RETRY_BASE_SECONDS: z.coerce.number().positive().default(60),
     MAIL_MAX_ATTEMPTS: z.coerce.number().int().positive().default(8),
     LINK_TTL_DAYS: z.coerce.number().positive().default(30),
+    // The build folder this server runs from (next.config.mjs distDir); /sw.js serves the
+    // service worker built with that very build, so its precache list matches what is served.
+    TW_DIST_DIR: z.string().min(1).default(".next"),
   })
   .refine((e) => e.DATABASE_URL || (e.DB_HOST && e.DB_NAME && e.DB_USER), {
     message: "Set DATABASE_URL, or DB_HOST, DB_NAME and DB_USER (npm start sets these for you)",

@@ -1,0 +1,18 @@
+"use client";
+
+import { StorageNotice } from "./storage-notice";
+import { SyncBadge } from "./sync-badge";
+import { UpdateBanner } from "./update-banner";
+
+// The strip under the header on every bench screen: sync state, storage promise, app update.
+export function BenchBar() {
+  return (
+    <div className="no-print border-b-2 border-rule bg-paper">
+      <div className="mx-auto flex max-w-7xl flex-col gap-2 px-4 py-2">
+        <SyncBadge />
+        <StorageNotice />
+        <UpdateBanner />
+      </div>
+    </div>
+  );
+}

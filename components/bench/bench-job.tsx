@@ -1,0 +1,59 @@
+"use client";
+
+import { useLiveQuery } from "dexie-react-hooks";
+import { useSearchParams } from "next/navigation";
+import { useEffect, useState } from "react";
+import { Notice } from "@/components/ui/notice";
+import type { JobPack } from "@/lib/schemas/sync";
+import { getJobPrefs } from "@/lib/offline/meta";
+import { savePack } from "@/lib/offline/packs";
+import { readingsOfJob } from "@/lib/offline/readings";
+import { ActionError, getJson } from "@/lib/offline/transport";
+import { useBench } from "./bench-context";
+import { JobScreen } from "./job-screen";
+
+// Opens a job from the tablet's own store at once; when the server answers, the pack is
+// refreshed in the background (spec edits, other tablets' readings, the lead's dispositions).
+export function BenchJob() {
+  const id = Number(useSearchParams().get("id"));
+  const { db } = useBench();
+  const [fetchError, setFetchError] = useState<string>();
+  const row = useLiveQuery(() => db.jobs.get(id).then((r) => r ?? null), [id]);
+  const readings = useLiveQuery(() => readingsOfJob(db, id), [id]);
+  const prefs = useLiveQuery(() => getJobPrefs(db, id), [id]);
+
+  useEffect(() => {
+    if (!Number.isInteger(id) || id <= 0) return;
+    let stop = false;
+    getJson<JobPack>(fetch, `/api/bench/jobs/${id}`)
+      .then((pack) => savePack(db, pack))
+      .then(() => !stop && setFetchError(undefined))
+      .catch((err: unknown) => {
+        if (stop) return;
+        const gone = err instanceof ActionError && err.status === 404;
+        setFetchError(gone ? "This job is not on the server for your shop any more" : err instanceof ActionError ? err.message : "offline");
+      });
+    return () => void (stop = true);
+  }, [db, id]);
+
+  if (!Number.isInteger(id) || id <= 0) {
+    return <main className="mx-auto max-w-3xl px-4 py-8"><Notice tone="error">No job was picked. Go back to the <a className="underline" href="/bench">job list</a> and open one.</Notice></main>;
+  }
+  if (row === undefined || readings === undefined || prefs === undefined) return <main className="px-4 py-8 text-lg text-muted">Opening the job…</main>;
+  if (row === null) {
+    return (
+      <main className="mx-auto max-w-3xl px-4 py-8">
+        <Notice tone="error" title="This job is not on the tablet yet">
+          {fetchError && fetchError !== "offline" ? `${fetchError}. ` : "Connect to the network once to download it. "}
+          <a className="font-semibold underline" href="/bench">Back to the job list</a>
+        </Notice>
+      </main>
+    );
+  }
+  return (
+    <>
+      {fetchError && fetchError !== "offline" && <div className="mx-auto max-w-7xl px-4 pt-3"><Notice tone="error">{fetchError}</Notice></div>}
+      <JobScreen key={row.jobId} pack={row.pack} readings={readings} prefs={prefs} />
+    </>
+  );
+}

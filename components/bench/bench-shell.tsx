@@ -1,0 +1,90 @@
+"use client";
+
+import { useEffect, useState, type ReactNode } from "react";
+import { AppHeader } from "@/components/app-header";
+import { Notice } from "@/components/ui/notice";
+import { getBenchDb } from "@/lib/offline/db";
+import { ensureDeviceId, getMeta, setMeta, type DeviceActor } from "@/lib/offline/meta";
+import { SyncEngine } from "@/lib/offline/sync-engine";
+import { BenchProvider, type Bench } from "./bench-context";
+import { BenchBar } from "./bench-bar";
+
+// The bench is a client shell (precached by the service worker), so it opens with no network.
+// Who is measuring comes from /api/me when the server answers, else from the last answer kept
+// on the tablet: offline, the machinist is never bounced to the sign-in page. Data is still
+// only ever served by signed-in API routes.
+type Boot = { kind: "loading" } | { kind: "ready"; bench: Bench } | { kind: "unknown" } | { kind: "failed"; message: string };
+
+const BENCH_ROLES = ["machinist", "lead"];
+
+async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> {
+  const ctl = new AbortController();
+  const timer = setTimeout(() => ctl.abort(), 6000);
+  try {
+    const res = await fetch("/api/me", { cache: "no-store", credentials: "same-origin", signal: ctl.signal });
+    if (res.status === 401) return "signed-out";
+    if (!res.ok) return "offline";
+    const me = (await res.json()) as { user: { id: number; name: string; email: string; role: DeviceActor["role"] }; shop: { id: number } | null };
+    return { userId: me.user.id, shopId: me.shop?.id ?? 0, name: me.user.name, email: me.user.email, role: me.user.role };
+  } catch {
+    return "offline";
+  } finally {
+    clearTimeout(timer);
+  }
+}
+
+let engine: SyncEngine | undefined;
+
+async function boot(): Promise<Boot> {
+  const db = getBenchDb();
+  const deviceId = await ensureDeviceId(db);
+  const answer = await whoIsSignedIn();
+  if (answer === "signed-out") {
+    window.location.assign(`/sign-in?next=${encodeURIComponent(window.location.pathname + window.location.search)}`);
+    return { kind: "loading" };
+  }
+  const actor = answer === "offline" ? await getMeta<DeviceActor>(db, "actor") : answer;
+  if (!actor) return { kind: "unknown" };
+  if (answer !== "offline") await setMeta(db, "actor", actor);
+  if (!BENCH_ROLES.includes(actor.role)) {
+    window.location.assign("/");
+    return { kind: "loading" };
+  }
+  if (!engine) {
+    engine = new SyncEngine({ db });
+    engine.start();
+  }
+  return { kind: "ready", bench: { db, engine, actor, deviceId } };
+}
+
+export function BenchShell({ children }: { children: ReactNode }) {
+  const [state, setState] = useState<Boot>({ kind: "loading" });
+  useEffect(() => {
+    boot().then(setState, (err: unknown) => setState({ kind: "failed", message: err instanceof Error ? err.message : String(err) }));
+  }, []);
+
+  if (state.kind === "ready") {
+    return (
+      <BenchProvider value={state.bench}>
+        <AppHeader actor={state.bench.actor} current="/bench" />
+        <BenchBar />
+        {children}
+      </BenchProvider>
+    );
+  }
+  return (
+    <main className="mx-auto flex max-w-3xl flex-col gap-4 px-4 py-10" aria-busy={state.kind === "loading"}>
+      {state.kind === "loading" && <p className="text-lg text-muted">Opening the bench…</p>}
+      {state.kind === "unknown" && (
+        <Notice tone="error" title="This tablet does not know who is measuring yet">
+          Connect to the shop network and sign in once; after that the bench opens with or without a network.
+        </Notice>
+      )}
+      {state.kind === "failed" && (
+        <Notice tone="error" title="The bench could not open its storage">
+          {state.message}. Check that this browser allows site data (private mode blocks it), then reload.
+        </Notice>
+      )}
+    </main>
+  );
+}

@@ -1,0 +1,44 @@
+"use client";
+
+import { VerdictBadge } from "@/components/ui/verdict-badge";
+import { formatDeviation, type DerivedValue } from "@/lib/domain";
+import { figure, UNIT_WORDS } from "./units";
+
+// Derived values for the part being measured (taper and out-of-round of this bore, its
+// piston-to-wall, the oil clearance at this bearing point, this bolt's stretch), live from the
+// core as soon as their inputs exist, with verdicts.
+function partOf(stationId: string): string {
+  const seg = stationId.split("/");
+  if (seg[0] === "bolt") return seg.slice(0, 3).join("/");
+  return seg.slice(0, 2).join("/");
+}
+
+export function relevantDerived(all: DerivedValue[], stationId: string): DerivedValue[] {
+  const part = partOf(stationId);
+  return all.filter((d) => d.inputs.some((i) => partOf(i) === part));
+}
+
+export function DerivedPanel({ values }: { values: DerivedValue[] }) {
+  if (values.length === 0) return null;
+  return (
+    <section className="flex flex-col gap-2" aria-label="Derived values" data-testid="derived">
+      <h3 className="text-sm font-semibold uppercase tracking-wide text-muted">Worked out from the readings</h3>
+      <ul className="flex flex-col gap-2">
+        {values.map((d) => (
+          <li key={d.key} className="flex flex-wrap items-center gap-x-3 gap-y-1 rounded-tool border-2 border-rule bg-panel px-3 py-2" data-key={d.key}>
+            <span className="font-medium">{d.label.split(" · ")[0]}</span>
+            {d.missing.length > 0 || d.value === undefined ? (
+              <span className="text-sm text-muted">waiting for {d.missing.length} more reading{d.missing.length === 1 ? "" : "s"}</span>
+            ) : (
+              <>
+                <span className="font-mono text-lg tabular">{figure(d.value, d.unit)} {UNIT_WORDS[d.unit]}</span>
+                {d.verdict ? <VerdictBadge verdict={d.verdict} size="sm" /> : <span className="text-sm text-muted">no limit on the spec</span>}
+                {d.deviation !== undefined && <span className="text-sm text-muted">{formatDeviation(d.deviation, d.unit)}</span>}
+              </>
+            )}
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}

@@ -1,0 +1,97 @@
+"use client";
+
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { Notice } from "@/components/ui/notice";
+import { Button } from "@/components/ui/button";
+import { chosenGauge, useBenchEntry } from "@/hooks/use-bench-entry";
+import type { JobPack } from "@/lib/schemas/sync";
+import type { LocalReading } from "@/lib/offline/db";
+import { dialGroup, gaugesFor, isDialGauge } from "@/lib/offline/entry";
+import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
+import { derivedFor } from "@/lib/offline/preview";
+import { nextOpenStation, sectionProgress, stationViews } from "@/lib/offline/route-status";
+import { useBench } from "./bench-context";
+import { DerivedPanel, relevantDerived } from "./derived-panel";
+import { EntryPanel } from "./entry-panel";
+import { LastEntryCard } from "./last-entry";
+import { PhotoButton } from "./photo-button";
+import { RouteSheet } from "./route-sheet";
+import { SectionStrip } from "./section-strip";
+import { SkipSheet } from "./skip-sheet";
+import { StationHeader } from "./station-header";
+
+// One job at the bench: section progress on top, where-am-I and the last verdict on the left,
+// entry on the right (stacked in portrait and on a phone).
+export function JobScreen({ pack, readings, prefs }: { pack: JobPack; readings: LocalReading[]; prefs: JobPrefs }) {
+  const { db } = useBench();
+  const views = useMemo(() => stationViews(pack, readings), [pack, readings]);
+  const sections = useMemo(() => sectionProgress(pack, views), [pack, views]);
+  const derived = useMemo(() => derivedFor(pack, readings), [pack, readings]);
+  const [stationId, setStationId] = useState(() => nextOpenStation(views) ?? views[0]?.station.id ?? "");
+  const [sheet, setSheet] = useState<"route" | "skip" | null>(null);
+  const inputRef = useRef<HTMLInputElement>(null);
+  const moveTo = useCallback((id: string) => setStationId(id), []);
+  const entry = useBenchEntry({ pack, views, readings, prefs, stationId, moveTo });
+  const view = views.find((v) => v.station.id === stationId) ?? views[0];
+
+  useEffect(() => {
+    if (!sheet) inputRef.current?.focus();
+  }, [stationId, sheet]);
+
+  if (!view) return <Notice tone="error">This job has no stations on its route; ask the lead to check the engine&apos;s shape.</Notice>;
+  const station = view.station;
+  const inSection = views.filter((v) => v.station.section === station.section);
+  const section = sections.find((s) => s.id === station.section);
+  const gauges = gaugesFor(station, pack.instruments);
+  const dialCapable = !!dialGroup(station) && isDialGauge(chosenGauge(station, pack, prefs));
+  const refused = views.filter((v) => v.state === "rejected");
+  const onPrefs = (patch: Partial<JobPrefs>) => void patchJobPrefs(db, pack.job.id, patch);
+  const jump = (id: string) => {
+    setStationId(id);
+    setSheet(null);
+  };
+  const pickSection = (sid: string) => {
+    const mine = views.filter((v) => v.station.section === sid);
+    jump((mine.find((v) => ["todo", "confirm", "revisit", "rejected"].includes(v.state)) ?? mine[0]).station.id);
+  };
+
+  return (
+    <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-4" data-testid="job-screen" data-job={pack.job.id}>
+      <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
+        <h1 className="text-2xl font-bold">{pack.job.title}</h1>
+        <span className="font-mono text-muted">{pack.job.code}</span>
+        <span className="text-muted">{pack.job.customer} · {pack.job.engine}</span>
+      </header>
+      {pack.job.locked && <Notice tone="error" title="This job is released">{pack.job.lockReason ?? "Readings are locked."} New readings cannot be taken.</Notice>}
+      {refused.length > 0 && (
+        <Notice tone="error" title={`${refused.length} reading${refused.length === 1 ? " was" : "s were"} refused by the server`}>
+          <ul className="mt-1 flex flex-col gap-2">
+            {refused.map((v) => (
+              <li key={v.station.id} className="flex flex-wrap items-center gap-3">
+                <span>{v.station.label}: {v.current?.rejection?.reason}</span>
+                <Button tone="quiet" onClick={() => jump(v.station.id)}>Fix it</Button>
+              </li>
+            ))}
+          </ul>
+        </Notice>
+      )}
+      <SectionStrip sections={sections} current={station.section} onPick={pickSection} onAll={() => setSheet("route")} />
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] landscape:md:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
+        <div className="flex flex-col gap-4">
+          <StationHeader view={view} sectionLabel={section?.label ?? station.section} position={[inSection.indexOf(view) + 1, inSection.length]} shape={pack.shape} />
+          <LastEntryCard last={entry.last} onAgain={jump} />
+          <DerivedPanel values={relevantDerived(derived, station.id)} />
+        </div>
+        <div className="flex flex-col gap-3">
+          <EntryPanel station={station} entry={entry} gauges={gauges} prefs={prefs} onPrefs={onPrefs} inputRef={inputRef} locked={pack.job.locked} dialCapable={dialCapable} />
+          <div className="grid grid-cols-2 gap-3">
+            <Button big tone="quiet" onClick={() => setSheet("skip")} disabled={pack.job.locked}>Skip…</Button>
+            <PhotoButton jobId={pack.job.id} owner={view.current && view.current.state !== "rejected" ? { jobId: pack.job.id, ownerType: "reading", ownerId: view.current.id } : { jobId: pack.job.id, ownerType: "job", ownerId: String(pack.job.id) }} />
+          </div>
+        </div>
+      </div>
+      {sheet === "route" && <RouteSheet sections={sections} views={views} current={station.id} onPick={jump} onClose={() => setSheet(null)} />}
+      {sheet === "skip" && <SkipSheet station={station.label} onSkip={(r) => { entry.skip(r); setSheet(null); }} onClose={() => setSheet(null)} />}
+    </main>
+  );
+}
