@@ -4,7 +4,7 @@ import { startTransition, useCallback, useMemo, useRef, useState } from "react";
 import { evaluateReading, type Lubricant, type MeasureUnit, type Station, type Verdict } from "@/lib/domain";
 import type { JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "@/lib/offline/db";
-import { buildReading, dialGroup, gaugesFor, isDialGauge, parseEntry } from "@/lib/offline/entry";
+import { buildReading, dialGroup, isDialGauge, parseEntry, pickGauge } from "@/lib/offline/entry";
 import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { gaugeU, usableRaw } from "@/lib/offline/preview";
 import { recordReading, resendReading, type NewReading } from "@/lib/offline/readings";
@@ -40,8 +40,7 @@ interface Args {
 export const gaugeKey = (s: Station) => s.gaugeKind ?? s.characteristic;
 
 export function chosenGauge(station: Station, pack: JobPack, prefs: JobPrefs) {
-  const options = gaugesFor(station, pack.instruments);
-  return options.find((g) => g.id === prefs.gauges[gaugeKey(station)]) ?? options[0];
+  return pickGauge(station, pack.instruments, prefs.gauges[gaugeKey(station)]);
 }
 
 export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo }: Args) {

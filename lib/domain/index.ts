@@ -16,3 +16,4 @@ export * from "./bench-route";
 export * from "./derive";
 export * from "./dial-gauge";
 export * from "./plausible-range";
+export * from "./gauge-uncertainty";

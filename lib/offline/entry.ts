@@ -70,15 +70,23 @@ export function buildReading(text: string, ctx: EntryContext): Built {
   };
 }
 
+function kindScore(station: Station, i: BenchInstrument): number {
+  const want = (station.gaugeKind ?? "").replace(/-/g, "_");
+  if (!want) return 1;
+  if (want === "dial_bore_gauge") return /bore/.test(i.kind) ? 0 : 1;
+  if (want === "micrometer") return /mic/.test(i.kind) ? 0 : 1;
+  return i.kind === want || i.kind.startsWith(want) ? 0 : 1;
+}
+
 /** Gauges that suit a station: same kind of quantity, the usual kind first, then the rest. */
 export function gaugesFor(station: Station, instruments: BenchInstrument[]): BenchInstrument[] {
   const torque = (u: string) => u === "lbf_ft" || u === "nm";
   const fits = instruments.filter((i) => i.active && torque(i.unit) === station.torque);
-  const want = (station.gaugeKind ?? "").replace(/-/g, "_");
-  const score = (i: BenchInstrument) => {
-    if (want === "dial_bore_gauge") return /bore/.test(i.kind) ? 0 : 1;
-    if (want === "micrometer") return /mic/.test(i.kind) ? 0 : 1;
-    return i.kind === want || i.kind.startsWith(want) ? 0 : 1;
-  };
-  return [...fits].sort((a, b) => score(a) - score(b) || a.label.localeCompare(b.label));
+  return [...fits].sort((a, b) => kindScore(station, a) - kindScore(station, b) || a.label.localeCompare(b.label));
+}
+
+/** The gauge picked for this kind of station, else the shop's usual kind for it; never a guess across kinds. */
+export function pickGauge(station: Station, instruments: BenchInstrument[], pickedId?: number): BenchInstrument | undefined {
+  const options = gaugesFor(station, instruments);
+  return options.find((g) => g.id === pickedId) ?? options.find((g) => kindScore(station, g) === 0);
 }

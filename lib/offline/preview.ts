@@ -2,7 +2,7 @@
 // instant verdicts and derived values, all from lib/domain (the same core the server uses; the
 // server's stored verdict replaces the preview once a reading is synced).
 import {
-  convertLength, deriveReadings, evaluateReading, readingUncertainty,
+  convertLength, deriveReadings, evaluateReading, uncertaintyAtK2,
   type DerivedValue, type Evaluation, type MeasureUnit, type RawReading, type Verdict,
 } from "@/lib/domain";
 import type { BenchInstrument, JobPack } from "@/lib/schemas/sync";
@@ -30,16 +30,13 @@ export function currentByStation(readings: LocalReading[]): Map<string, LocalRea
   return out;
 }
 
-/** The gauge's expanded uncertainty U (k = 2) in the reading's unit, after the GUM (uncertainty.ts). */
+/** The gauge's expanded uncertainty U at k = 2 in the reading's unit, as the server takes it (the certificate's U). */
 export function gaugeU(instrument: BenchInstrument | undefined, unit: MeasureUnit): number | undefined {
-  if (!instrument) return undefined;
-  const same = instrument.unit === unit;
+  if (!instrument || !(instrument.expandedU >= 0)) return undefined;
+  const U = uncertaintyAtK2(instrument.expandedU, instrument.coverageK || 2);
+  if (instrument.unit === unit) return U;
   const lengths = (instrument.unit === "in" || instrument.unit === "mm") && (unit === "in" || unit === "mm");
-  if (!same && !lengths) return undefined;
-  // The certificate's U is at its own k; the verdict's guard band wants k = 2, i.e. 2·uc.
-  const { uc } = readingUncertainty({ calibrationU: instrument.expandedU, k: instrument.coverageK || 2, resolution: instrument.resolution });
-  const U2 = 2 * uc;
-  return same ? U2 : convertLength(U2, instrument.unit as "in" | "mm", unit as "in" | "mm");
+  return lengths ? convertLength(U, instrument.unit as "in" | "mm", unit as "in" | "mm") : undefined;
 }
 
 export function toRaw(r: LocalReading, instruments: BenchInstrument[]): RawReading | undefined {
