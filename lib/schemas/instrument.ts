@@ -12,7 +12,7 @@ export const INSTRUMENT_KINDS = {
   bore_gauge_dial: { label: "Dial bore gauge", family: "length", gaugeKind: "dial-bore-gauge" },
   bore_gauge_digital: { label: "Digital bore gauge", family: "length", gaugeKind: "bore-gauge" },
   dial_indicator: { label: "Dial indicator", family: "length", gaugeKind: "dial-indicator" },
-  feeler_set: { label: "Feeler gauge set", family: "length", gaugeKind: "feeler" },
+  feeler: { label: "Feeler gauge set", family: "length", gaugeKind: "feeler" },
   stretch_gauge: { label: "Rod-bolt stretch gauge", family: "length", gaugeKind: "stretch-gauge" },
   deck_gauge: { label: "Deck height gauge", family: "length", gaugeKind: "deck-gauge" },
   torque_wrench: { label: "Torque wrench", family: "torque", gaugeKind: "torque-wrench" },

@@ -1,0 +1,85 @@
+// The shop admin manages people in Chromium: invite with a temporary password shown once, the new
+// person signs in with it, a reset issues another, deactivate and reactivate; the admin's own role
+// cannot be changed here. Invented names.
+import { randomUUID } from "node:crypto";
+import { readFileSync } from "node:fs";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { BASE_URL, launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
+
+const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
+const adminEmail = demo.accounts.find((a) => a.role === "admin")!.email;
+const NEW_EMAIL = `wendell-${randomUUID().slice(0, 6)}@kestrelflats.example`;
+
+let browser: Browser;
+let page: Page;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  page = (await newTabletPage(browser, { width: 1440, height: 900 })).page;
+  await signIn(page, adminEmail, demo.password);
+  await page.goto("/admin/users");
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const row = (email: string) => page.getByTestId(`user-${email}`);
+
+async function canSignIn(email: string, password: string): Promise<boolean> {
+  const ctx = await browser.newContext({ baseURL: BASE_URL });
+  const res = await ctx.request.post("/api/session", { data: { email, password } });
+  await ctx.close();
+  return res.status() === 200;
+}
+
+describe("users", () => {
+  it("lists the demo people; the admin's own role is locked", async () => {
+    await row(adminEmail).waitFor();
+    expect(await row(adminEmail).getByRole("combobox").isDisabled()).toBe(true);
+    expect(await row(adminEmail).getByRole("button", { name: "Deactivate" }).count()).toBe(0);
+  });
+
+  it("invites a machinist: the temporary password is shown once and signs in", async () => {
+    const form = page.getByRole("form", { name: "Invite a person" });
+    await form.getByLabel("Name").fill("Wendell Quarry");
+    await form.getByLabel("E-mail").fill("not-an-address");
+    await form.getByRole("button", { name: "Create account" }).click();
+    await expect.poll(() => form.textContent()).toMatch(/Enter an e-mail like/);
+    await form.getByLabel("E-mail").fill(NEW_EMAIL);
+    await form.getByRole("button", { name: "Create account" }).click();
+    const shown = page.getByTestId("temporary-password");
+    await shown.waitFor();
+    const password = (await shown.textContent())!.trim();
+    expect(password).toMatch(/^[a-z2-9]{5}-[a-z2-9]{5}-[a-z2-9]{5}$/);
+    await row(NEW_EMAIL).waitFor();
+    await screenshot(page, "admin-users-invited");
+    expect(await canSignIn(NEW_EMAIL, password)).toBe(true);
+    await page.getByRole("button", { name: "Done, I have passed it on" }).click();
+    expect(await page.getByTestId("temporary-password").count()).toBe(0);
+  });
+
+  it("resets the password: the old one stops working", async () => {
+    const r = row(NEW_EMAIL);
+    await r.getByRole("button", { name: "Reset password" }).click();
+    await r.getByRole("button", { name: "Yes, issue a new password" }).click();
+    const shown = page.getByTestId("temporary-password");
+    await shown.waitFor();
+    const fresh = (await shown.textContent())!.trim();
+    expect(await canSignIn(NEW_EMAIL, fresh)).toBe(true);
+    await page.getByRole("button", { name: "Done, I have passed it on" }).click();
+  });
+
+  it("changes the role, deactivates and reactivates", async () => {
+    const r = row(NEW_EMAIL);
+    await r.getByRole("combobox").selectOption("inspector");
+    await expect.poll(async () => r.getByRole("combobox").inputValue()).toBe("inspector");
+    await r.getByRole("button", { name: "Deactivate" }).click();
+    await r.getByRole("button", { name: /Yes, deactivate/ }).click();
+    await expect.poll(() => r.textContent()).toMatch(/Deactivated/);
+    expect(await canSignIn(NEW_EMAIL, "any")).toBe(false);
+    await screenshot(page, "admin-users");
+    await r.getByRole("button", { name: "Reactivate" }).click();
+    await expect.poll(() => r.textContent()).toMatch(/Active/);
+  });
+});
