@@ -39,10 +39,10 @@ function Table({ data }: { data: AuditPage }) {
           {data.events.map((e) => (
             <tr key={e.id} className="border-b border-rule align-top" data-event={e.id} data-action={e.action}>
               <td className="tabular whitespace-nowrap p-2 font-mono text-xs">{stamp(e.at)}</td>
-              <td className="p-2">{e.userName ?? <span className="text-muted">System</span>}</td>
+              <td className="whitespace-nowrap p-2">{e.userName ?? <span className="text-muted">System</span>}</td>
               <td className="p-2 font-mono text-xs font-semibold">{e.action}</td>
               <td className="whitespace-nowrap p-2">{e.entityType} <span className="font-mono text-xs text-muted">{e.entityId.length > 12 ? `${e.entityId.slice(0, 8)}…` : `#${e.entityId}`}</span></td>
-              <td className="p-2">{e.jobId ? <Link className="font-mono text-steel underline" href={`/release/${e.jobId}`}>{e.jobCode}</Link> : <span className="text-muted">—</span>}</td>
+              <td className="whitespace-nowrap p-2">{e.jobId ? <Link className="font-mono text-steel underline" href={`/release/${e.jobId}`}>{e.jobCode}</Link> : <span className="text-muted">—</span>}</td>
               <td className="min-w-72 p-2"><AuditChanges changes={e.changes} truncated={e.truncated} /></td>
             </tr>
           ))}

@@ -3,11 +3,51 @@
 import Link from "next/link";
 import { useState } from "react";
 import { StatusTag } from "@/components/admin/status-tag";
-import type { ChecklistCheck, ReleaseChecklist } from "@/lib/schemas/release";
+import { SECTION_LABELS, type SectionId } from "@/lib/domain";
+import type { ChecklistCheck, ChecklistItem, ReleaseChecklist } from "@/lib/schemas/release";
 
 // The release checklist: each of the five checks with what is complete, and every unmet item in
-// words with the link that fixes it. Long lists (a fresh V8 has ~90 stations to read) fold.
+// words with the link that fixes it. Long lists fold: stations to read are grouped by bench
+// section (a fresh V8 has over 200), other checks show the first few.
 const FOLD = 6;
+
+function Item({ item }: { item: ChecklistItem }) {
+  return (
+    <li className="flex flex-wrap items-baseline gap-x-3 text-sm" data-item={item.key}>
+      <span>{item.text}</span>
+      {item.links.map((l) => (
+        <Link key={l.href} href={l.href} className="whitespace-nowrap font-medium text-steel underline">{l.label}</Link>
+      ))}
+    </li>
+  );
+}
+
+/** Items keyed "readings:<station id>" grouped by the station's section, in route order. */
+function bySection(items: ChecklistItem[]): [string, ChecklistItem[]][] {
+  const groups = new Map<string, ChecklistItem[]>();
+  for (const item of items) {
+    const section = item.key.split(":")[1]?.split("/")[0] ?? "";
+    groups.set(section, [...(groups.get(section) ?? []), item]);
+  }
+  return [...groups.entries()];
+}
+
+function Sections({ items }: { items: ChecklistItem[] }) {
+  return (
+    <ul className="ml-6 flex flex-col gap-1.5 border-l-4 border-fail pl-3">
+      {bySection(items).map(([section, group]) => (
+        <li key={section}>
+          <details>
+            <summary className="min-h-8 cursor-pointer text-sm font-medium">
+              {SECTION_LABELS[section as SectionId] ?? section}: {group.length} {group.length === 1 ? "station" : "stations"}
+            </summary>
+            <ul className="mt-1 flex flex-col gap-1.5 pl-4">{group.map((item) => <Item key={item.key} item={item} />)}</ul>
+          </details>
+        </li>
+      ))}
+    </ul>
+  );
+}
 
 function Check({ check, n }: { check: ChecklistCheck; n: number }) {
   const [open, setOpen] = useState(false);
@@ -20,16 +60,10 @@ function Check({ check, n }: { check: ChecklistCheck; n: number }) {
         <span className="font-semibold">{check.title}</span>
       </div>
       <p className="pl-6 text-sm text-muted">{check.summary}</p>
-      {check.items.length > 0 && (
+      {check.id === "readings" && check.items.length > FOLD && <Sections items={check.items} />}
+      {check.items.length > 0 && !(check.id === "readings" && check.items.length > FOLD) && (
         <ul className="ml-6 flex flex-col gap-1.5 border-l-4 border-fail pl-3">
-          {shown.map((item) => (
-            <li key={item.key} className="flex flex-wrap items-baseline gap-x-3 text-sm" data-item={item.key}>
-              <span>{item.text}</span>
-              {item.links.map((l) => (
-                <Link key={l.href} href={l.href} className="whitespace-nowrap font-medium text-steel underline">{l.label}</Link>
-              ))}
-            </li>
-          ))}
+          {shown.map((item) => <Item key={item.key} item={item} />)}
           {check.items.length > FOLD && (
             <li>
               <button type="button" className="min-h-11 text-sm font-semibold text-steel underline" onClick={() => setOpen(!open)} aria-expanded={open}>

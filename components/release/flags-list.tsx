@@ -36,7 +36,7 @@ export function FlagsList({ flags }: { flags: FlagSummary[] }) {
                     <td className="py-2 pr-3"><Link className="font-mono font-medium text-steel underline" href={`/desk/flags/${f.id}`}>#{f.id}</Link></td>
                     <td className="py-2 pr-3"><span className="font-medium">{f.what}</span><span className="block text-muted">{f.station}</span></td>
                     <td className="tabular py-2 pr-3 font-mono">{f.value}</td>
-                    <td className="py-2 pr-3"><VerdictBadge verdict={f.verdict} size="sm" /><span className="block text-xs text-muted">{REASON[f.reason]}</span></td>
+                    <td className="whitespace-nowrap py-2 pr-3"><VerdictBadge verdict={f.verdict} size="sm" />{f.reason !== f.verdict && <span className="block text-xs text-muted">{REASON[f.reason]}</span>}</td>
                     <td className="py-2"><StatusTag tone={d.tone}>{d.words}</StatusTag>{d.detail && <span className="mt-1 block text-muted">{d.detail}</span>}</td>
                   </tr>
                 );

@@ -35,7 +35,7 @@ export function ReleasePage({ jobId, role, accountName }: { jobId: number; role:
       </header>
       {v.job.lockedAt && (
         <Notice title={`Released and locked since ${v.job.lockedAt.slice(0, 10)}`}>
-          New readings for this job are refused on every tablet, with this reason. Only the lead can reopen it, with a reason; that voids the release.
+          Readings sent for this job are refused at sync; the tablet keeps them, marked with the reason. Only the lead can reopen the job, with a reason, which voids this release.
         </Notice>
       )}
       <div className="grid gap-4 lg:grid-cols-3">

@@ -8,7 +8,7 @@ import { useVerification } from "./release-queries";
 // Every release of the job, newest first. A voided one stays on the record, marked VOID with who
 // voided it and why. The fingerprint is the SHA-256 of the canonical record (release-hash.ts).
 const stamp = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
-const groups = (hash: string) => hash.match(/.{1,8}/g)!.join(" ");
+const groups = (hash: string) => hash.match(/.{1,8}/g)!;
 
 const VERIFY_TONE = { match: "good", changed: "bad", void: "off" } as const;
 const VERIFY_WORDS = { match: "Matches", changed: "Changed since release", void: "Void" } as const;
@@ -50,7 +50,9 @@ function Entry({ r, verifyHref }: { r: ReleaseRecord; verifyHref: string }) {
       </div>
       <div className="flex flex-col">
         <span className="text-sm text-muted">Fingerprint (SHA-256, canonical record version {r.canonicalVersion})</span>
-        <code className="break-all font-mono text-sm" data-testid="release-hash">{groups(r.hash)}</code>
+        <code className="flex flex-wrap gap-x-2 font-mono text-sm" data-testid="release-hash" data-hash={r.hash}>
+          {groups(r.hash).map((g, i) => <span key={i}>{g}</span>)}
+        </code>
       </div>
       {isVoid && (
         <p className="text-sm" data-testid="void-reason">

@@ -43,7 +43,7 @@ export function flagsCheck(record: JobRecord): ChecklistCheck {
   const closed = record.flags.filter((f) => f.state === "closed").length;
   const accepted = record.flags.filter((f) => f.state === "disposed" && f.disposition === "accept").length;
   const summary = record.flags.length === 0 ? "No flags on this job"
-    : items.length === 0 ? `${plural(closed, "flag")} closed by an in-spec reading, ${accepted} accepted with a reason; none open`
+    : items.length === 0 ? `${[closed ? `${plural(closed, "flag")} closed by an in-spec reading` : "", accepted ? `${accepted} accepted with a reason` : ""].filter(Boolean).join(", ")}; none open`
     : `${plural(items.length, "flag")} still blocking; ${closed} closed, ${accepted} accepted`;
   return { id: "flags", title, ok: items.length === 0, summary, items };
 }
