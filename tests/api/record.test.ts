@@ -1,0 +1,107 @@
+// The build record PDF: rendered by the route handler, read back with pdf-parse, and one page
+// rendered to PNG (pdftoppm, when installed) for a person to look at in tests/artifacts/.
+import { execFileSync } from "node:child_process";
+import { existsSync, mkdirSync, writeFileSync } from "node:fs";
+import { QueryTypes } from "sequelize";
+import { describe, expect, it } from "vitest";
+import { GET } from "@/app/api/record/[jobId]/pdf/route";
+import { getSequelize } from "@/lib/server/db";
+import { Release } from "@/models";
+import { createShop, type TestUser } from "../support/factories";
+import { ACCEPT_REASON, createRecordJob } from "../support/record-fixtures";
+import { pdfText } from "../support/pdf-text";
+import { asUser } from "../support/requests";
+
+async function getPdf(user: TestUser | null, jobId: number, query = "") {
+  const res = await GET(await asUser(user, "GET", `/api/record/${jobId}/pdf${query}`), { params: Promise.resolve({ jobId: String(jobId) }) });
+  return { status: res.status, type: res.headers.get("content-type"), disposition: res.headers.get("content-disposition"), bytes: Buffer.from(await res.arrayBuffer()) };
+}
+
+function hasPdftoppm(): boolean {
+  try {
+    execFileSync("pdftoppm", ["-v"], { stdio: "ignore" });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+describe("GET /api/record/[jobId]/pdf", () => {
+  it("prints readings with limits and verdicts, derived values, torque with lubricant, decisions, the plan, the signature and the hash", async () => {
+    const job = await createRecordJob();
+    const res = await getPdf(job.users.inspector, job.job.id);
+    expect(res.status).toBe(200);
+    expect(res.type).toBe("application/pdf");
+    expect(res.disposition).toBe(`inline; filename="build-record-${job.job.code}.pdf"`);
+    expect(res.bytes.subarray(0, 5).toString()).toBe("%PDF-");
+    const { text, pages } = await pdfText(res.bytes);
+    expect(pages).toBeGreaterThanOrEqual(2);
+    // Readings as entered, with their limits and the verdict in words.
+    expect(text).toContain("4.0301 in");
+    expect(text).toContain("4.0295 to 4.0305 in");
+    expect(text).toContain("4.0309 in");
+    expect(text).toMatch(/OUT OF SPEC/);
+    expect(text).toMatch(/IN SPEC/);
+    // Derived: main oil clearance 2.4523 − 2.4502 = 0.0021 in (test fixture arithmetic).
+    expect(text).toContain("Main bearing oil clearance");
+    expect(text).toContain("0.0021 in");
+    expect(text).toContain("Bore taper");
+    // Torque with its lubricant, and the decision on the out-of-spec bore with its reason.
+    expect(text).toContain("68 lbf·ft");
+    expect(text).toContain("Engine oil");
+    expect(text).toContain("Moly assembly paste");
+    expect(text).toContain(`Accepted as is. Reason: ${ACCEPT_REASON}`);
+    expect(text).toContain(job.users.lead.name);
+    // The plan and a figure the core computes from it: deck clearance 9.025 − 3.48/2 − 5.7 − 1.56 = 0.025 in.
+    expect(text).toContain("Deck clearance");
+    expect(text).toContain("0.0250 in (piston below the deck");
+    expect(text).toContain("Static compression ratio");
+    // The gauge, the photo, the signature, the hash and its check, and the safety notice.
+    expect(text).toContain("Test micrometer");
+    expect(text).toContain("Photo 1: the job");
+    expect(text).toContain("RELEASED FOR ASSEMBLY");
+    expect(text).toContain(`Signed by ${job.release!.signedName}`);
+    expect(text).toContain(job.release!.hash);
+    expect(text).toContain("Matches: the record in the database now gives the same fingerprint");
+    expect(text).toContain("do not replace the fastener or engine maker's instructions");
+    expect(text).toContain("Follow local codes and licensed practice");
+
+    mkdirSync("tests/artifacts", { recursive: true });
+    writeFileSync("tests/artifacts/record.pdf", res.bytes);
+    if (hasPdftoppm()) {
+      execFileSync("pdftoppm", ["-png", "-r", "80", "-f", "1", "-l", "2", "tests/artifacts/record.pdf", "tests/artifacts/record-page"]);
+      expect(existsSync("tests/artifacts/record-page-1.png")).toBe(true);
+    } else {
+      console.warn("pdftoppm is not installed (poppler-utils): the PDF was written to tests/artifacts/record.pdf but no page was rendered to PNG");
+    }
+  });
+
+  it("marks a voided release VOID, a job never released DRAFT, and a record changed after release", async () => {
+    const job = await createRecordJob();
+    await getSequelize().query("UPDATE readings SET value_entered = 4.0304 WHERE id = ?", { replacements: [job.readings["bore/1/mid/A"]], type: QueryTypes.UPDATE });
+    const changed = await pdfText((await getPdf(job.users.lead, job.job.id)).bytes);
+    expect(changed.text).toContain("Changed since release");
+
+    await Release.update({ voidedAt: new Date(), voidedBy: job.users.lead.id, voidReason: "Bore 2 to be honed again after all" }, { where: { id: job.release!.id } });
+    const voided = await getPdf(job.users.lead, job.job.id);
+    expect(voided.disposition).toContain("-void.pdf");
+    const v = await pdfText(voided.bytes);
+    expect(v.text).toContain("VOID: this release was withdrawn");
+    expect(v.text).toContain("Bore 2 to be honed again after all");
+    expect(v.text).toContain("THIS RELEASE IS VOID");
+
+    const draftJob = await createRecordJob({ release: false, photo: false });
+    const draft = await pdfText((await getPdf(draftJob.users.inspector, draftJob.job.id, "?download=1")).bytes);
+    expect(draft.text).toContain("DRAFT: NOT RELEASED");
+  });
+
+  it("lets the lead, inspector and admin of the shop print it; refuses others", async () => {
+    const job = await createRecordJob({ photo: false });
+    const other = await createShop();
+    for (const role of ["lead", "inspector", "admin"] as const) expect((await getPdf(job.users[role], job.job.id)).status).toBe(200);
+    expect((await getPdf(job.users.machinist, job.job.id)).status).toBe(403);
+    expect((await getPdf(null, job.job.id)).status).toBe(401);
+    expect((await getPdf(other.users.lead, job.job.id)).status).toBe(404);
+    expect((await getPdf(job.users.lead, job.job.id, "?release=99999999")).status).toBe(404);
+  });
+});
