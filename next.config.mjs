@@ -10,7 +10,8 @@ const nextConfig = {
   typedRoutes: false,
   // Types are checked once per test run by `tsc --noEmit` (scripts/test.mjs), over the whole
   // tree including tests, so the build itself does not repeat it.
-  typescript: { ignoreBuildErrors: true },
+  // Next rewrites the tsconfig it is given (adding its distDir types); it gets its own file.
+  typescript: { ignoreBuildErrors: true, tsconfigPath: "tsconfig.next.json" },
 };
 
 export default nextConfig;

@@ -79,6 +79,9 @@ function build(distDir, force) {
   if (!force && current(distDir, hash)) return;
   console.log(`[tenthwise] building the app (next build → ${distDir}) …`);
   const env = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", NODE_ENV: "production", TW_DIST_DIR: distDir };
+  // Next edits the tsconfig it builds with (adding its distDir's types), so it gets a generated,
+  // git-ignored one and the committed tsconfig.json stays as written.
+  writeFileSync("tsconfig.next.json", JSON.stringify({ extends: "./tsconfig.json" }, null, 2));
   execSync("node node_modules/next/dist/bin/next build", { stdio: "inherit", env });
   if (existsSync("serwist.config.js")) execSync("node node_modules/@serwist/cli/cli.js build", { stdio: "inherit", env });
   writeFileSync(stampOf(distDir), hash);
