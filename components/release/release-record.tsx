@@ -38,15 +38,17 @@ function VerifyNow({ jobId }: { jobId: number }) {
 function Entry({ r, verifyHref }: { r: ReleaseRecord; verifyHref: string }) {
   const isVoid = r.status === "void";
   return (
-    <li className={`relative flex flex-col gap-2 overflow-hidden rounded-tool border-2 p-4 ${isVoid ? "border-rule bg-paper" : "border-pass bg-panel"}`} data-release={r.id} data-status={r.status}>
-      {isVoid && (
-        <span aria-hidden="true" className="pointer-events-none absolute right-4 top-2 rotate-[-8deg] rounded-tool border-4 border-fail px-3 text-4xl font-black tracking-widest text-fail opacity-80">VOID</span>
-      )}
-      <div className="flex flex-wrap items-center gap-2">
-        <StatusTag tone={isVoid ? "off" : "good"}>{isVoid ? "VOID" : "Released"}</StatusTag>
-        <span className="font-semibold">Signed by {r.signedName}</span>
-        {r.signedName.toLowerCase() !== r.inspectorName.toLowerCase() && <span className="text-sm text-muted">(account: {r.inspectorName})</span>}
-        <span className="text-sm text-muted">{stamp(r.signedAt)}</span>
+    <li className={`flex flex-col gap-2 rounded-tool border-2 p-4 ${isVoid ? "border-rule bg-paper" : "border-pass bg-panel"}`} data-release={r.id} data-status={r.status}>
+      <div className="flex items-start justify-between gap-3">
+        <div className="flex flex-wrap items-center gap-2">
+          <StatusTag tone={isVoid ? "off" : "good"}>{isVoid ? "VOID" : "Released"}</StatusTag>
+          <span className="font-semibold">Signed by {r.signedName}</span>
+          {r.signedName.toLowerCase() !== r.inspectorName.toLowerCase() && <span className="text-sm text-muted">(account: {r.inspectorName})</span>}
+          <span className="text-sm text-muted">{stamp(r.signedAt)}</span>
+        </div>
+        {isVoid && (
+          <span aria-hidden="true" className="shrink-0 rotate-[-6deg] rounded-tool border-4 border-fail px-2 text-3xl font-black tracking-widest text-fail">VOID</span>
+        )}
       </div>
       <div className="flex flex-col">
         <span className="text-sm text-muted">Fingerprint (SHA-256, canonical record version {r.canonicalVersion})</span>

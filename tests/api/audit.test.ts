@@ -121,4 +121,18 @@ describe("append-only for the app's database user", () => {
     expect(again!.action).toBe("release.sign");
     expect(await AuditEvent.count({ where: { shopId: s.shop.id } })).toBe(4);
   });
+
+  // The limit, stated honestly: this same user runs the migrations, so it holds ALL PRIVILEGES on
+  // its schema (TRIGGER and DROP included) but no GRANT OPTION. It cannot REVOKE from itself, so
+  // no migration can take those rights away; someone with that user's password could drop the
+  // triggers first. Closing that needs a separate owner account for migrations (see the report).
+  it("cannot change its own grants, which is why append-only rests on the triggers", async () => {
+    const dbName = decodeURIComponent(new URL(process.env.DATABASE_URL!).pathname.slice(1));
+    await expect(db.query(`REVOKE TRIGGER ON \`${dbName}\`.* FROM CURRENT_USER()`)).rejects.toThrow(/Access denied/);
+    const triggers = await db.query<{ name: string }>(
+      "SELECT trigger_name AS name FROM information_schema.triggers WHERE trigger_schema = DATABASE() AND event_object_table = 'audit_events' ORDER BY name",
+      { type: QueryTypes.SELECT },
+    );
+    expect(triggers.map((t) => t.name)).toEqual(["audit_events_no_delete", "audit_events_no_update"]);
+  });
 });
