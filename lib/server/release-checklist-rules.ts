@@ -47,22 +47,38 @@ function later(a: ReadingRow, b: ReadingRow): boolean {
   return e !== 0 ? e > 0 : a.id > b.id;
 }
 
+// Route and derived-value recipes depend only on the record's shape and spec; several checks
+// ask for them, so each is worked out once per record.
+const routes = new WeakMap<object, { stations: Station[]; error?: string }>();
+type Recipes = Map<string, { characteristic: string; stationId: string; inputs: string[] }>;
+const recipes = new WeakMap<object, { shape: object; value: Recipes }>();
+
 /** The engine's bench route as a flat list, or the reason it cannot be built. */
-export function routeOf(record: JobRecord): { stations: Station[]; error?: string } {
-  try {
-    return { stations: benchRoute(record.shape).sections.flatMap((s) => s.stations) };
-  } catch (err) {
-    return { stations: [], error: err instanceof Error ? err.message : String(err) };
+export function routeOf(record: Pick<JobRecord, "shape">): { stations: Station[]; error?: string } {
+  let out = routes.get(record.shape);
+  if (!out) {
+    try {
+      out = { stations: benchRoute(record.shape).sections.flatMap((s) => s.stations) };
+    } catch (err) {
+      out = { stations: [], error: err instanceof Error ? err.message : String(err) };
+    }
+    routes.set(record.shape, out);
   }
+  return out;
 }
 
 /** Derived values (by key) with the stations they are computed from; empty if the shape is bad. */
-export function derivedInputs(record: JobRecord): Map<string, { characteristic: string; stationId: string; inputs: string[] }> {
+export function derivedInputs(record: Pick<JobRecord, "shape" | "spec">): Recipes {
+  const had = recipes.get(record.spec);
+  if (had && had.shape === record.shape) return had.value;
+  let value: Recipes;
   try {
-    return new Map(deriveReadings([], record.shape, record.spec).map((d) => [d.key, d]));
+    value = new Map(deriveReadings([], record.shape, record.spec).map((d) => [d.key, d]));
   } catch {
-    return new Map();
+    value = new Map();
   }
+  recipes.set(record.spec, { shape: record.shape, value });
+  return value;
 }
 
 /** `own`: the station's own characteristic is required; else `neededFor` names the derived values that need it. */
@@ -73,7 +89,7 @@ type Required = { station: Station; own: boolean; neededFor: Set<string> };
  * of every derived value with a required limit (oil clearance needs both the bearing bore and
  * the journal, stretch needs both bolt lengths) — else a required clearance could go unmeasured.
  */
-export function requiredStations(record: JobRecord, stations: Station[]): Required[] {
+export function requiredStations(record: Pick<JobRecord, "shape" | "spec">, stations: Station[]): Required[] {
   const byId = new Map(stations.map((s) => [s.id, s]));
   const need = new Map<string, Required>();
   const add = (id: string, why?: string) => {
