@@ -44,7 +44,7 @@ export function SignForm({ jobId, jobCode, accountName, ready }: { jobId: number
         </Notice>
       )}
       <form onSubmit={onSubmit} noValidate className="grid gap-4 md:grid-cols-2">
-        <TextField label="Your full name" autoComplete="name" hint={`As on your account: ${accountName}`} disabled={!ready} error={form.formState.errors.fullName?.message} {...form.register("fullName")} />
+        <TextField label="Your full name" autoComplete="name" hint={`As on your account: ${accountName} (capital letters do not matter)`} disabled={!ready} error={form.formState.errors.fullName?.message} {...form.register("fullName")} />
         <TextField label="Your password" type="password" autoComplete="current-password" hint="The one you sign in with" disabled={!ready} error={form.formState.errors.password?.message} {...form.register("password")} />
         <div className="md:col-span-2">
           <Button type="submit" big disabled={!ready || form.formState.isSubmitting}>{form.formState.isSubmitting ? "Signing…" : "Sign and release"}</Button>
