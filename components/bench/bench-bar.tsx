@@ -8,7 +8,7 @@ import { UpdateBanner } from "./update-banner";
 export function BenchBar() {
   return (
     <div className="no-print border-b-2 border-rule bg-paper">
-      <div className="mx-auto flex max-w-7xl flex-col gap-2 px-4 py-2">
+      <div className="mx-auto flex max-w-7xl flex-col gap-1 px-4 py-1.5">
         <SyncBadge />
         <StorageNotice />
         <UpdateBanner />

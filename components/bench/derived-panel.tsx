@@ -18,6 +18,12 @@ export function relevantDerived(all: DerivedValue[], stationId: string): Derived
   return all.filter((d) => d.inputs.some((i) => partOf(i) === part));
 }
 
+/** Where on the part a value applies ("front end · axis A"), without the part's name again. */
+function where(d: DerivedValue): string {
+  const parts = d.label.split(" · ").slice(1);
+  return parts.length > 1 ? parts.slice(1).join(" · ") : parts.join(" · ");
+}
+
 export function DerivedPanel({ values }: { values: DerivedValue[] }) {
   if (values.length === 0) return null;
   return (
@@ -26,7 +32,10 @@ export function DerivedPanel({ values }: { values: DerivedValue[] }) {
       <ul className="flex flex-col gap-2">
         {values.map((d) => (
           <li key={d.key} className="flex flex-wrap items-center gap-x-3 gap-y-1 rounded-tool border-2 border-rule bg-panel px-3 py-2" data-key={d.key}>
-            <span className="font-medium">{d.label.split(" · ")[0]}</span>
+            <span className="flex flex-col">
+              <span className="font-medium">{d.label.split(" · ")[0]}</span>
+              <span className="text-sm text-muted">{where(d)}</span>
+            </span>
             {d.missing.length > 0 || d.value === undefined ? (
               <span className="text-sm text-muted">waiting for {d.missing.length} more reading{d.missing.length === 1 ? "" : "s"}</span>
             ) : (

@@ -1,7 +1,7 @@
 "use client";
 
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
-import { Notice } from "@/components/ui/notice";
+import { FastenerCaution, Notice } from "@/components/ui/notice";
 import { Button } from "@/components/ui/button";
 import { chosenGauge, useBenchEntry } from "@/hooks/use-bench-entry";
 import type { JobPack } from "@/lib/schemas/sync";
@@ -9,19 +9,41 @@ import type { LocalReading } from "@/lib/offline/db";
 import { dialGroup, gaugesFor, isDialGauge } from "@/lib/offline/entry";
 import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { derivedFor } from "@/lib/offline/preview";
-import { nextOpenStation, sectionProgress, stationViews } from "@/lib/offline/route-status";
+import { nextOpenStation, sectionProgress, stationViews, type StationView } from "@/lib/offline/route-status";
 import { useBench } from "./bench-context";
 import { DerivedPanel, relevantDerived } from "./derived-panel";
 import { EntryPanel } from "./entry-panel";
 import { LastEntryCard } from "./last-entry";
+import { LubricantPicker } from "./lubricant-picker";
 import { PhotoButton } from "./photo-button";
 import { RouteSheet } from "./route-sheet";
 import { SectionStrip } from "./section-strip";
 import { SkipSheet } from "./skip-sheet";
 import { StationHeader } from "./station-header";
 
-// One job at the bench: section progress on top, where-am-I and the last verdict on the left,
-// entry on the right (stacked in portrait and on a phone).
+// One job at the bench: section progress on top; in landscape, where-am-I and the last verdict
+// on the left and entry on the right; in portrait and on a phone one column with the entry and
+// keypad right under the station and its verdict, so nothing needed for an entry is scrolled to.
+const GRID = [
+  "grid items-start gap-4 [grid-template-areas:'where'_'last'_'entry'_'more']",
+  "lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] lg:grid-rows-[auto_auto_1fr] lg:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
+  "landscape:md:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] landscape:md:grid-rows-[auto_auto_1fr] landscape:md:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
+].join(" ");
+
+function RefusedNotice({ views, onFix }: { views: StationView[]; onFix: (id: string) => void }) {
+  return (
+    <Notice tone="error" title={`${views.length} reading${views.length === 1 ? " was" : "s were"} refused by the server`}>
+      <ul className="mt-1 flex flex-col gap-2">
+        {views.map((v) => (
+          <li key={v.station.id} className="flex flex-wrap items-center gap-3">
+            <span>{v.station.label}: {v.current?.rejection?.reason}</span>
+            <Button tone="quiet" onClick={() => onFix(v.station.id)}>Fix it</Button>
+          </li>
+        ))}
+      </ul>
+    </Notice>
+  );
+}
 export function JobScreen({ pack, readings, prefs }: { pack: JobPack; readings: LocalReading[]; prefs: JobPrefs }) {
   const { db } = useBench();
   const views = useMemo(() => stationViews(pack, readings), [pack, readings]);
@@ -46,6 +68,9 @@ export function JobScreen({ pack, readings, prefs }: { pack: JobPack; readings: 
   const dialCapable = !!dialGroup(station) && isDialGauge(chosenGauge(station, pack, prefs));
   const refused = views.filter((v) => v.state === "rejected");
   const onPrefs = (patch: Partial<JobPrefs>) => void patchJobPrefs(db, pack.job.id, patch);
+  const photoOwner = view.current && view.current.state !== "rejected"
+    ? { jobId: pack.job.id, ownerType: "reading" as const, ownerId: view.current.id }
+    : { jobId: pack.job.id, ownerType: "job" as const, ownerId: String(pack.job.id) };
   const jump = (id: string) => {
     setStationId(id);
     setSheet(null);
@@ -56,38 +81,29 @@ export function JobScreen({ pack, readings, prefs }: { pack: JobPack; readings: 
   };
 
   return (
-    <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-4" data-testid="job-screen" data-job={pack.job.id}>
-      <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
-        <h1 className="text-2xl font-bold">{pack.job.title}</h1>
-        <span className="font-mono text-muted">{pack.job.code}</span>
-        <span className="text-muted">{pack.job.customer} · {pack.job.engine}</span>
-      </header>
-      {pack.job.locked && <Notice tone="error" title="This job is released">{pack.job.lockReason ?? "Readings are locked."} New readings cannot be taken.</Notice>}
-      {refused.length > 0 && (
-        <Notice tone="error" title={`${refused.length} reading${refused.length === 1 ? " was" : "s were"} refused by the server`}>
-          <ul className="mt-1 flex flex-col gap-2">
-            {refused.map((v) => (
-              <li key={v.station.id} className="flex flex-wrap items-center gap-3">
-                <span>{v.station.label}: {v.current?.rejection?.reason}</span>
-                <Button tone="quiet" onClick={() => jump(v.station.id)}>Fix it</Button>
-              </li>
-            ))}
-          </ul>
-        </Notice>
-      )}
+    <main className="mx-auto flex max-w-7xl flex-col gap-3 px-4 py-3" data-testid="job-screen" data-job={pack.job.id}>
       <SectionStrip sections={sections} current={station.section} onPick={pickSection} onAll={() => setSheet("route")} />
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] landscape:md:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
-        <div className="flex flex-col gap-4">
+      {pack.job.locked && <Notice tone="error" title="This job is released">{pack.job.lockReason ?? "Readings are locked."} New readings cannot be taken.</Notice>}
+      {refused.length > 0 && <RefusedNotice views={refused} onFix={jump} />}
+      <div className={GRID}>
+        <div className="flex flex-col gap-3 [grid-area:where]">
+          <p className="truncate text-sm text-muted"><span className="font-semibold text-ink">{pack.job.title}</span> · <span className="font-mono">{pack.job.code}</span> · {pack.job.engine}</p>
           <StationHeader view={view} sectionLabel={section?.label ?? station.section} position={[inSection.indexOf(view) + 1, inSection.length]} shape={pack.shape} />
-          <LastEntryCard last={entry.last} onAgain={jump} />
-          <DerivedPanel values={relevantDerived(derived, station.id)} />
+          {station.torque && <LubricantPicker value={prefs.lubricant} onPick={(l) => onPrefs({ lubricant: l })} />}
+          {station.section === "bolt" && <FastenerCaution />}
         </div>
-        <div className="flex flex-col gap-3">
+        <div className="[grid-area:last]">
+          <LastEntryCard last={entry.last} onAgain={jump} />
+        </div>
+        <div className="[grid-area:entry]">
           <EntryPanel station={station} entry={entry} gauges={gauges} prefs={prefs} onPrefs={onPrefs} inputRef={inputRef} locked={pack.job.locked} dialCapable={dialCapable} />
+        </div>
+        <div className="flex flex-col gap-3 [grid-area:more]">
           <div className="grid grid-cols-2 gap-3">
             <Button big tone="quiet" onClick={() => setSheet("skip")} disabled={pack.job.locked}>Skip…</Button>
-            <PhotoButton jobId={pack.job.id} owner={view.current && view.current.state !== "rejected" ? { jobId: pack.job.id, ownerType: "reading", ownerId: view.current.id } : { jobId: pack.job.id, ownerType: "job", ownerId: String(pack.job.id) }} />
+            <PhotoButton jobId={pack.job.id} owner={photoOwner} />
           </div>
+          <DerivedPanel values={relevantDerived(derived, station.id)} />
         </div>
       </div>
       {sheet === "route" && <RouteSheet sections={sections} views={views} current={station.id} onPick={jump} onClose={() => setSheet(null)} />}

@@ -2,7 +2,8 @@
 
 import type { PointerEvent } from "react";
 
-// The glove keypad: every key at least 72 × 72 CSS px with 12 px between keys, no hover, no drag,
+// The glove keypad: every key at least 64 CSS px tall (and wider than tall) with 10 px between
+// keys, no hover, no drag,
 // no long-press. Keys never take the focus away from the entry field, so a gauge's keystrokes
 // still land there after a tap.
 export type PadKey = "0" | "1" | "2" | "3" | "4" | "5" | "6" | "7" | "8" | "9" | "." | "sign" | "back" | "clear";
@@ -16,7 +17,7 @@ function Key({ label, name, onPress, className = "" }: { label: string; name: st
       aria-label={name}
       onPointerDown={keepFocus}
       onClick={onPress}
-      className={`min-h-tap select-none rounded-tool border-2 border-rule bg-panel text-3xl font-semibold text-ink active:bg-rule ${className}`}
+      className={`min-h-16 select-none rounded-tool border-2 border-rule bg-panel text-3xl font-semibold text-ink active:bg-rule ${className}`}
     >
       {label}
     </button>
@@ -35,7 +36,7 @@ export function applyKey(draft: string, key: PadKey): string {
 export function Keypad({ onKey, onEnter, enterLabel = "Save", disabled = false }: { onKey: (k: PadKey) => void; onEnter: () => void; enterLabel?: string; disabled?: boolean }) {
   const digit = (d: PadKey) => <Key key={d} label={d} name={d} onPress={() => onKey(d)} />;
   return (
-    <div className="grid grid-cols-4 gap-3" role="group" aria-label="Keypad" data-testid="keypad">
+    <div className="grid grid-cols-4 gap-2.5" role="group" aria-label="Keypad" data-testid="keypad">
       {(["7", "8", "9"] as const).map(digit)}
       <Key label="⌫" name="Delete last" onPress={() => onKey("back")} className="text-2xl" />
       {(["4", "5", "6"] as const).map(digit)}
@@ -46,7 +47,7 @@ export function Keypad({ onKey, onEnter, enterLabel = "Save", disabled = false }
         onPointerDown={keepFocus}
         onClick={onEnter}
         disabled={disabled}
-        className="row-span-2 min-h-tap select-none rounded-tool bg-steel text-2xl font-bold text-steel-ink active:brightness-90 disabled:opacity-50"
+        className="row-span-2 min-h-16 select-none rounded-tool bg-steel text-2xl font-bold text-steel-ink active:brightness-90 disabled:opacity-50"
       >
         {enterLabel}
       </button>

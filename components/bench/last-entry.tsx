@@ -13,9 +13,9 @@ export function LastEntryCard({ last, onAgain }: { last?: LastEntry; onAgain: (s
     return <p className="rounded-tool border-2 border-dashed border-rule p-4 text-muted" data-testid="last-entry">The verdict of each reading shows here as soon as it is saved.</p>;
   }
   return (
-    <section className="flex flex-col gap-2 rounded-tool border-2 border-rule bg-panel p-4" data-testid="last-entry" data-seq={last.seq} data-verdict={last.verdict ?? "none"} aria-live="polite">
-      <p className="text-sm text-muted">Last saved · {last.label}</p>
-      <div className="flex flex-wrap items-center gap-3">
+    <section className="flex flex-col gap-2 rounded-tool border-2 border-rule bg-panel p-3" data-testid="last-entry" data-seq={last.seq} data-verdict={last.verdict ?? "none"} aria-live="polite">
+      <p className="truncate text-sm text-muted">Last saved · {last.label}</p>
+      <div className="flex flex-wrap items-center gap-x-3 gap-y-2">
         {last.verdict && <VerdictBadge verdict={last.verdict} size="lg" />}
         {last.value !== null && (
           <span className="font-mono text-3xl font-semibold tabular">
@@ -25,17 +25,17 @@ export function LastEntryCard({ last, onAgain }: { last?: LastEntry; onAgain: (s
         {last.deviation !== undefined && last.deviationUnit && (
           <span className="text-xl font-semibold" data-testid="deviation">{formatDeviation(last.deviation, last.deviationUnit)}</span>
         )}
+        {!last.stayed && (
+          <button type="button" onClick={() => onAgain(last.stationId)} className="ml-auto min-h-16 rounded-tool border-2 border-rule px-4 text-lg font-semibold">
+            Measure again
+          </button>
+        )}
       </div>
       {last.note && <p className="text-sm text-muted">{last.note}</p>}
       {last.stayed && (
         <p className="rounded-tool border-l-4 border-fail bg-fail-soft p-3 font-semibold text-fail" role="alert">
           Out of spec. Measure this station again to confirm before moving on.
         </p>
-      )}
-      {!last.stayed && (
-        <button type="button" onClick={() => onAgain(last.stationId)} className="min-h-16 self-start rounded-tool border-2 border-rule px-5 text-lg font-semibold">
-          Measure again
-        </button>
       )}
     </section>
   );

@@ -26,7 +26,7 @@ function AxisCircle({ axis, cx, cy, r, joint }: { axis?: "A" | "B"; cx: number; 
 function Bore({ p }: { p: ParsedStation }) {
   const ys = { top: 34, mid: 70, bottom: 106 } as const;
   return (
-    <svg viewBox="0 0 300 140" className="h-32 w-full" role="img" aria-label={`Bore, ${p.depth ?? ""} depth, axis ${p.axis ?? ""}`}>
+    <svg viewBox="0 0 300 140" className="h-28 w-full max-w-md" role="img" aria-label={`Bore, ${p.depth ?? ""} depth, axis ${p.axis ?? ""}`}>
       <rect x="20" y="16" width="90" height="108" rx="4" fill="none" stroke={INK} strokeWidth="3" />
       {(["top", "mid", "bottom"] as const).map((d) => (
         <g key={d}>
@@ -43,7 +43,7 @@ function Bore({ p }: { p: ParsedStation }) {
 function Journal({ p, bearing }: { p: ParsedStation; bearing: boolean }) {
   const x = p.position === "rear" ? 118 : 42;
   return (
-    <svg viewBox="0 0 300 140" className="h-32 w-full" role="img" aria-label={`${bearing ? "Bearing bore" : "Journal"}, ${p.position ?? ""} end, axis ${p.axis ?? ""}`}>
+    <svg viewBox="0 0 300 140" className="h-28 w-full max-w-md" role="img" aria-label={`${bearing ? "Bearing bore" : "Journal"}, ${p.position ?? ""} end, axis ${p.axis ?? ""}`}>
       {bearing ? (
         <rect x="20" y="40" width="130" height="60" rx="6" fill="none" stroke={INK} strokeWidth="3" strokeDasharray="0" />
       ) : (
@@ -65,7 +65,7 @@ function Cylinders({ n, pick, shape }: { n?: number; pick?: string; shape: Engin
   const count = shape.cylinders;
   const w = Math.min(34, 260 / count);
   return (
-    <svg viewBox="0 0 300 80" className="h-20 w-full" role="img" aria-label={n ? `Cylinder ${n} of ${count}` : `Engine, ${count} cylinders`}>
+    <svg viewBox="0 0 300 80" className="h-16 w-full max-w-md" role="img" aria-label={n ? `Cylinder ${n} of ${count}` : `Engine, ${count} cylinders`}>
       {Array.from({ length: count }, (_, i) => (
         <g key={i}>
           <circle cx={20 + w / 2 + i * w} cy="34" r={w / 2 - 3} fill={n === i + 1 ? BRASS : "none"} stroke={INK} strokeWidth="2.5" />

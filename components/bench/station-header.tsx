@@ -9,13 +9,13 @@ import { StateTag } from "./station-state";
 export function StationHeader({ view, sectionLabel, position, shape }: { view: StationView; sectionLabel: string; position: [number, number]; shape: EngineShape }) {
   const p = parseStationId(view.station.id);
   return (
-    <section className="flex flex-col gap-2" aria-label="Where you are" data-testid="where" data-station={view.station.id}>
+    <section className="flex flex-col gap-1.5" aria-label="Where you are" data-testid="where" data-station={view.station.id}>
       <p className="flex flex-wrap items-center gap-x-3 text-base font-semibold text-muted">
         <span>{sectionLabel}</span>
         <span>station {position[0]} of {position[1]}</span>
         <StateTag state={view.state} />
       </p>
-      <h2 className="text-2xl font-bold leading-tight sm:text-3xl">{view.station.label}</h2>
+      <h2 className="text-2xl font-bold leading-tight">{view.station.label}</h2>
       {view.revisit && (
         <p className="rounded-tool border-l-4 border-brass bg-watch-soft p-2 text-base font-semibold">
           Sent back by the lead: {view.revisit.disposition === "machine_again" ? `machine again${view.revisit.operation ? ` (${view.revisit.operation})` : ""}, then measure` : "measure again"}

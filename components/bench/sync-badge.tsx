@@ -35,14 +35,14 @@ export function SyncBadge() {
   }
 
   return (
-    <div className="flex flex-wrap items-center gap-x-4 gap-y-2" data-testid="sync-badge" data-pending={pending} data-refused={refused} role="status" aria-live="polite">
+    <div className="flex flex-wrap items-center gap-x-4 gap-y-1" data-testid="sync-badge" data-pending={pending} data-refused={refused} role="status" aria-live="polite">
       <span className={`inline-flex min-h-11 items-center gap-2 rounded-full border-2 px-4 font-semibold ${toneClass}`}>
         <Mark tone={tone} />
         {head}
       </span>
       <span className="text-sm text-muted">
-        {online ? "Online" : "Offline: readings are kept on this tablet"}
-        {status.lastSuccessAt ? ` · last sent ${time(status.lastSuccessAt)}` : " · not sent yet"}
+        {online ? "Online" : "Offline · kept on this tablet"}
+        {status.lastSuccessAt ? ` · last sent ${time(status.lastSuccessAt)}` : " · nothing sent yet"}
       </span>
       {status.lastError && <span className="text-sm font-medium text-fail">{status.lastError}{status.nextAttemptAt && !status.needsAction ? ` (next try ${time(status.nextAttemptAt)})` : ""}</span>}
       {status.needsAction && status.lastError?.startsWith("Signed out") && (
@@ -50,7 +50,7 @@ export function SyncBadge() {
       )}
       {refused > 0 && <span className="text-sm font-semibold text-fail">{refused} refused by the server: open the job to fix</span>}
       {others > 0 && <span className="text-sm text-muted">{others} by another person wait for their sign-in</span>}
-      <Button tone="quiet" onClick={sendNow} disabled={tapped || !online} className="min-h-12">Send now</Button>
+      <Button tone="quiet" big onClick={sendNow} disabled={tapped || !online} className="ml-auto">Send now</Button>
     </div>
   );
 }

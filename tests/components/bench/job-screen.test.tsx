@@ -3,6 +3,7 @@ import "fake-indexeddb/auto";
 import { act, cleanup, fireEvent, render, screen, waitFor } from "@testing-library/react";
 import { useLiveQuery } from "dexie-react-hooks";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
+import { configure } from "@testing-library/react";
 import { BenchProvider, type Bench } from "@/components/bench/bench-context";
 import { JobScreen } from "@/components/bench/job-screen";
 import { BenchDb } from "@/lib/offline/db";
@@ -11,6 +12,8 @@ import { savePack } from "@/lib/offline/packs";
 import { readingsOfJob } from "@/lib/offline/readings";
 import type { SyncEngine } from "@/lib/offline/sync-engine";
 import { makePack } from "../../lib/offline/fake-server";
+
+configure({ asyncUtilTimeout: 5000 }); // Dexie commits under a loaded test run can take a while
 
 // The test spec: bore 4.0300 +0.0005/-0.0005 in (fake-server.ts), no gauge on file (no guard band).
 const pack = makePack(1);
@@ -30,7 +33,8 @@ beforeEach(async () => {
   const engine = { afterEntry: vi.fn(), sync: vi.fn() } as unknown as SyncEngine;
   bench = { db, engine, deviceId: "tab-test", actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" } };
   render(<BenchProvider value={bench}><Live /></BenchProvider>);
-  await screen.findByTestId("entry");
+  const input = await screen.findByTestId("entry");
+  await waitFor(() => expect(document.activeElement).toBe(input));
 });
 afterEach(cleanup);
 

@@ -43,7 +43,7 @@ describe("glove keypad", () => {
     const keys = screen.getAllByRole("button");
     expect(keys).toHaveLength(15);
     for (const k of keys) {
-      expect(k.className).toMatch(/min-h-tap/); // 4.5rem = 72 CSS px (tailwind.config.ts spacing.tap)
+      expect(k.className).toMatch(/min-h-16/); // 4rem = 64 CSS px, the glove target
       expect(fireEvent.pointerDown(k)).toBe(false); // default prevented: the entry field keeps the focus
     }
   });
