@@ -45,23 +45,27 @@ export const instrumentFields = z.object({
 });
 
 type Fields = z.output<typeof instrumentFields>;
-type Ctx = z.RefinementCtx;
+type Payload = { issues: { path?: PropertyKey[] }[] };
+/** Run a cross-field rule only when its own fields are valid, so all errors show at once. */
+const when = (...fields: (keyof Fields)[]) => (p: Payload) => p.issues.every((i) => !fields.includes(i.path?.[0] as keyof Fields));
+
+const unitFits = (v: Fields) => {
+  const family = INSTRUMENT_KINDS[v.kind].family;
+  return family === "torque" ? v.unit === "lbf_ft" || v.unit === "nm" : v.unit === "in" || v.unit === "mm";
+};
 
 /** Rules across fields, shared by create (whole object) and edit (after merging with what is stored). */
-export function checkInstrument(v: Fields, ctx: Ctx): void {
-  const family = INSTRUMENT_KINDS[v.kind].family;
-  const unitOk = family === "torque" ? v.unit === "lbf_ft" || v.unit === "nm" : v.unit === "in" || v.unit === "mm";
-  if (!unitOk) ctx.addIssue({ code: "custom", path: ["unit"], message: family === "torque" ? "A torque wrench reads lbf·ft or N·m" : "This gauge reads a length: in or mm" });
-  if (v.calibrationDue <= v.calibratedOn) ctx.addIssue({ code: "custom", path: ["calibrationDue"], message: "The due date must come after the calibration date" });
-  if (v.expandedU > 0 && v.resolution > 0 && v.expandedU > 100 * v.resolution) {
-    ctx.addIssue({ code: "custom", path: ["expandedU"], message: "U is more than 100 times the resolution; check both figures and their unit" });
-  }
+export function withInstrumentRules<S extends z.ZodType<Fields>>(schema: S): S {
+  return schema
+    .refine(unitFits, { path: ["unit"], message: "The unit must fit the kind: a torque wrench reads lbf·ft or N·m, every other gauge in or mm", when: when("kind", "unit") })
+    .refine((v) => v.calibrationDue > v.calibratedOn, { path: ["calibrationDue"], message: "The due date must come after the calibration date", when: when("calibratedOn", "calibrationDue") })
+    .refine((v) => !(v.expandedU > 100 * v.resolution), { path: ["expandedU"], message: "U is more than 100 times the resolution; check both figures and their unit", when: when("expandedU", "resolution") }) as S;
 }
 
 /** Registering: most dial bore gauges read plus for a smaller bore, so that is the default. */
-export const instrumentSchema = instrumentFields
-  .extend({ dialPlusMeansSmaller: instrumentFields.shape.dialPlusMeansSmaller.default(true) })
-  .superRefine(checkInstrument);
+export const instrumentSchema = withInstrumentRules(
+  instrumentFields.extend({ dialPlusMeansSmaller: instrumentFields.shape.dialPlusMeansSmaller.default(true) }),
+);
 
 /**
  * An edit: any of the fields, plus switching the gauge off or on. (A certificate is attached by

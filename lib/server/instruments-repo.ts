@@ -3,7 +3,7 @@ import { UniqueConstraintError, type Transaction } from "sequelize";
 import { z } from "zod";
 import { Attachment, Instrument } from "@/models";
 import {
-  calibrationStatus, checkInstrument, instrumentFields,
+  calibrationStatus, instrumentFields, withInstrumentRules,
   type InstrumentInput, type InstrumentPatch, type InstrumentRecord, type InstrumentUnit,
 } from "@/lib/schemas/instrument";
 import type { Actor } from "./access";
@@ -89,7 +89,7 @@ export async function createInstrument(actor: Actor, input: InstrumentInput): Pr
 function merged(g: Instrument, patch: InstrumentPatch): InstrumentInput {
   const { active: _a, ...fields } = patch;
   const whole = { ...auditView(g), ...fields };
-  const parsed = instrumentFields.superRefine(checkInstrument).safeParse(whole);
+  const parsed = withInstrumentRules(instrumentFields).safeParse(whole);
   if (!parsed.success) throw invalid(parsed.error);
   return parsed.data;
 }
