@@ -16,9 +16,11 @@ const whole = (what: string, lo: number, hi: number) =>
 const size = (what: string) => z.number({ error: `Enter the ${what} as a number` }).positive(`The ${what} is above zero`).max(10000, `Check the ${what}: it is too large`);
 const material = (what: string) => z.enum(MATERIALS, { error: `Pick the ${what} material from the list` });
 
+// Plain (not strict) objects: the form keeps what was typed for the other choice, and the
+// schema drops it, so switching between "known" and "new" loses nothing on screen.
 export const customerPickSchema = z.discriminatedUnion("mode", [
-  z.strictObject({ mode: z.literal("existing"), id: z.number({ error: "Pick a customer" }).int().positive("Pick a customer") }),
-  z.strictObject({
+  z.object({ mode: z.literal("existing"), id: z.number({ error: "Pick a customer" }).int().positive("Pick a customer") }),
+  z.object({
     mode: z.literal("new"),
     name: z.string().trim().min(1, "Enter the customer's name").max(160, "Keep the name to 160 characters"),
     email: z.union([z.literal(""), z.string().trim().email("Enter an e-mail like name@example.com").max(255)]).nullish(),
@@ -79,5 +81,5 @@ export type JobInput = z.input<typeof jobSchema>;
 export type JobValues = z.output<typeof jobSchema>;
 export type JobEditValues = z.output<typeof jobEditSchema>;
 
-export const customerSchema = customerPickSchema.options[1].omit({ mode: true });
+export const customerSchema = z.strictObject(customerPickSchema.options[1].omit({ mode: true }).shape);
 export type CustomerValues = z.output<typeof customerSchema>;

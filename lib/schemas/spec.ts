@@ -53,6 +53,17 @@ export const LIMIT_TYPE_WORDS: Record<(typeof LIMIT_TYPES)[number], string> = {
   iso286: "ISO 286 tolerance class",
 };
 
+/** The value fields each limit type uses; the others are cleared when a limit is stored. */
+export const LIMIT_FIELDS = {
+  min_max: ["min", "max"],
+  nominal_tol: ["nominal", "tolPlus", "tolMinus"],
+  max_only: ["max"],
+  min_only: ["min"],
+  per_inch: ["perInchMin", "perInchMax"],
+  iso286: ["isoClass", "nominal"],
+} as const satisfies Record<(typeof LIMIT_TYPES)[number], readonly string[]>;
+export type LimitValueField = (typeof LIMIT_FIELDS)[keyof typeof LIMIT_FIELDS][number];
+
 const num = (what: string) => z.number({ error: `Enter the ${what} as a number` });
 const optNum = (what: string) => num(what).nullish();
 
@@ -135,6 +146,14 @@ export const limitListSchema = z.array(limitSchema).min(1, "Add at least one lim
       else ctx.addIssue({ code: "custom", path: [i, "stationPattern"], message: `Limit ${first + 1} already covers ${CHARACTERISTICS[l.characteristic].label.toLowerCase()} at '${l.stationPattern}'; change the pattern or remove one` });
     });
   });
+
+/** PUT /api/jobs/[jobId]/limits: the job's whole limit set, and the revision it was edited from. */
+export const jobLimitsSchema = z.strictObject({
+  specRevision: z.number({ error: "Send the revision you edited (specRevision)" }).int().positive(),
+  limits: limitListSchema,
+});
+export type JobLimitsInput = z.input<typeof jobLimitsSchema>;
+export type JobLimitsValues = z.output<typeof jobLimitsSchema>;
 
 export const templateSchema = z.strictObject({
   name: z.string().trim().min(1, "Give the sheet a name").max(160, "Keep the name to 160 characters"),

@@ -1,16 +1,17 @@
 import "server-only";
 import { fn, col, Op } from "sequelize";
-import { benchRoute, findLimit, type SpecLimit } from "@/lib/domain";
+import { benchRoute, type SpecLimit } from "@/lib/domain";
 import { Customer, Engine, Flag, Job, JobLimit } from "@/models";
 import { getSequelize } from "./db";
 import { toEngineShape, toSpecLimit } from "./job-context";
-import { measuredStations } from "./jobs-admin-readings-repo";
+import { measuredStations, requiredStationIds } from "./jobs-admin-readings-repo";
 import type { JobStatus } from "./jobs-repo";
 
 // The jobs board: every job of the shop with what the lead scans for at a glance. Progress
-// counts the REQUIRED stations only: a station of the engine's bench route whose
-// characteristic has a required limit on the job's own spec; it is done when its current
-// reading has a value.
+// counts the REQUIRED stations of the engine's bench route, as the release checklist does (a
+// required limit on the station's own characteristic, or the station feeds a derived value
+// with a required limit); a station is done when its current reading is a value, not a skip.
+// Closed jobs show no progress: their record is final and reading them all would slow the board.
 export type BoardJob = {
   id: number;
   code: string;
@@ -20,20 +21,15 @@ export type BoardJob = {
   dueDate: string | null;
   customer: string;
   engine: string;
-  progress: { done: number; required: number };
+  progress: { done: number; required: number } | null;
   flags: { open: number; disposed: number };
   updatedAt: string;
 };
 
-/** The required stations of a route for a spec, in bench order. */
-export function requiredStations(stationIds: { id: string; characteristic: SpecLimit["characteristic"] }[], spec: SpecLimit[]): string[] {
-  return stationIds.filter((s) => findLimit(spec, s.characteristic, s.id)?.required).map((s) => s.id);
-}
-
 function progressOf(engine: Engine, unitSystem: "in" | "mm", spec: SpecLimit[], measured: Set<string>) {
   try {
-    const stations = benchRoute(toEngineShape(engine, unitSystem)).sections.flatMap((s) => s.stations);
-    const required = requiredStations(stations, spec);
+    const shape = toEngineShape(engine, unitSystem);
+    const required = requiredStationIds({ spec, shape }, benchRoute(shape).sections.flatMap((s) => s.stations));
     return { done: required.filter((id) => measured.has(id)).length, required: required.length };
   } catch {
     // An engine the core cannot lay out has no route; the job page says why.
@@ -62,17 +58,18 @@ export async function listJobBoard(shopId: number): Promise<BoardJob[]> {
     order: [["dueDate", "ASC"], ["id", "ASC"]],
   });
   const ids = jobs.map((j) => j.id);
+  const open = jobs.filter((j) => j.status !== "closed").map((j) => j.id);
   const [limits, measured, flags] = await Promise.all([
-    ids.length ? JobLimit.findAll({ where: { jobId: { [Op.in]: ids } }, order: [["sortOrder", "ASC"], ["id", "ASC"]] }) : [],
-    measuredStations(shopId, ids),
+    open.length ? JobLimit.findAll({ where: { jobId: { [Op.in]: open } }, order: [["sortOrder", "ASC"], ["id", "ASC"]] }) : [],
+    measuredStations(shopId, open),
     flagCounts(shopId, ids),
   ]);
-  const specs = new Map<number, SpecLimit[]>(ids.map((id) => [id, []]));
+  const specs = new Map<number, SpecLimit[]>(open.map((id) => [id, []]));
   for (const l of limits) specs.get(l.jobId)!.push(toSpecLimit(l));
   return jobs.map((j) => ({
     id: j.id, code: j.code, title: j.title, status: j.status as JobStatus, unitSystem: j.unitSystem,
     dueDate: j.dueDate ?? null, customer: j.customer?.name ?? "", engine: j.engine?.description ?? "",
-    progress: j.engine ? progressOf(j.engine, j.unitSystem, specs.get(j.id)!, measured.get(j.id)!) : { done: 0, required: 0 },
+    progress: j.engine && specs.has(j.id) ? progressOf(j.engine, j.unitSystem, specs.get(j.id)!, measured.get(j.id)!) : null,
     flags: flags.get(j.id)!,
     updatedAt: j.updatedAt.toISOString(),
   }));

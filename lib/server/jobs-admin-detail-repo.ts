@@ -1,52 +1,49 @@
 import "server-only";
 import { fn, col } from "sequelize";
-import { benchRoute, deriveReadings, type RawReading, type Verdict } from "@/lib/domain";
+import { benchRoute, deriveReadings, type Verdict } from "@/lib/domain";
 import { Customer, Flag, SpecTemplate } from "@/models";
-import { loadJobContext } from "./job-context";
+import { loadJobContext, type JobContext } from "./job-context";
 import { isJobLocked } from "./jobs-admin-repo";
-import { requiredStations } from "./jobs-admin-board-repo";
-import { listJobReadings, toRawReading } from "./jobs-admin-readings-repo";
+import { loadJobReadings, measuredStations, requiredStationIds, type JobReadings } from "./jobs-admin-readings-repo";
 import type { JobStatus } from "./jobs-repo";
 
 // One job for its desk page: header fields, the engine as entered, and a readings summary per
-// bench section (required done, verdicts of current readings) plus the derived values' verdicts.
+// bench section (required stations done, as the release checklist counts them; verdicts of the
+// current values) plus the verdicts of the derived values.
 type Counts = Record<Verdict, number>;
 const zero = (): Counts => ({ in_spec: 0, marginal: 0, out_of_spec: 0 });
 
 export type SectionSummary = { id: string; label: string; stations: number; measured: number; required: number; requiredDone: number; verdicts: Counts };
 
-function summarise(ctx: Awaited<ReturnType<typeof loadJobContext>>, readings: Awaited<ReturnType<typeof listJobReadings>>) {
-  const current = readings.filter((r) => r.current);
-  const byStation = new Map(current.map((r) => [r.stationId, r]));
-  let sections: SectionSummary[] = [];
-  let routeError: string | null = null;
-  try {
-    sections = benchRoute(ctx.shape).sections.map((s) => {
-      const required = new Set(requiredStations(s.stations, ctx.spec));
-      const verdicts = zero();
-      let measured = 0;
-      let requiredDone = 0;
-      for (const st of s.stations) {
-        const r = byStation.get(st.id);
-        if (!r || r.value === null) continue;
-        measured += 1;
-        if (required.has(st.id)) requiredDone += 1;
-        if (r.verdict) verdicts[r.verdict] += 1;
-      }
-      return { id: s.id, label: s.label, stations: s.count, measured, required: required.size, requiredDone, verdicts };
-    });
-  } catch (err) {
-    routeError = (err as Error).message;
-  }
+function sectionsOf(ctx: JobContext, readings: JobReadings, done: Set<string>): SectionSummary[] {
+  const byStation = new Map(readings.current.map((r) => [r.stationId, r]));
+  return benchRoute(ctx.shape).sections.map((s) => {
+    const required = requiredStationIds(ctx, s.stations);
+    const verdicts = zero();
+    let measured = 0;
+    for (const st of s.stations) {
+      const r = byStation.get(st.id);
+      if (!r) continue;
+      measured += 1;
+      if (r.verdict) verdicts[r.verdict] += 1;
+    }
+    return { id: s.id, label: s.label, stations: s.count, measured, required: required.length, requiredDone: required.filter((id) => done.has(id)).length, verdicts };
+  });
+}
+
+function summarise(ctx: JobContext, readings: JobReadings, done: Set<string>) {
+  const base = { readingCount: readings.all.length, currentCount: readings.current.length };
   const derived = { ...zero(), pending: 0 };
-  if (!routeError) {
-    const raw = current.map(toRawReading).filter((r): r is RawReading => r !== null);
-    for (const d of deriveReadings(raw, ctx.shape, ctx.spec)) {
+  try {
+    const sections = sectionsOf(ctx, readings, done);
+    for (const d of deriveReadings(readings.raws, ctx.shape, ctx.spec)) {
       if (d.verdict) derived[d.verdict] += 1;
       else if (d.missing.length && d.limits) derived.pending += 1;
     }
+    return { ...base, sections, derived, routeError: null };
+  } catch (err) {
+    return { ...base, sections: [] as SectionSummary[], derived, routeError: (err as Error).message };
   }
-  return { sections, derived, routeError, readingCount: readings.length, currentCount: current.length };
 }
 
 async function flagCounts(shopId: number, jobId: number) {
@@ -59,10 +56,11 @@ async function flagCounts(shopId: number, jobId: number) {
 export async function getJobDetail(shopId: number, jobId: number) {
   const ctx = await loadJobContext(shopId, jobId);
   const { job, engine } = ctx;
-  const [customer, template, readings, flags] = await Promise.all([
+  const [customer, template, readings, measured, flags] = await Promise.all([
     Customer.findByPk(job.customerId),
     job.templateId ? SpecTemplate.findByPk(job.templateId, { attributes: ["id", "name"] }) : null,
-    listJobReadings(shopId, jobId),
+    loadJobReadings(shopId, jobId),
+    measuredStations(shopId, [jobId]),
     flagCounts(shopId, jobId),
   ]);
   return {
@@ -82,7 +80,7 @@ export async function getJobDetail(shopId: number, jobId: number) {
       crankSerial: engine.crankSerial ?? null, headSerials: engine.headSerials ?? null, fuel: engine.fuel ?? null,
     },
     flags,
-    summary: summarise(ctx, readings),
+    summary: summarise(ctx, readings, measured.get(jobId) ?? new Set()),
   };
 }
 

@@ -1,101 +1,61 @@
 import "server-only";
-import { Op, type Transaction } from "sequelize";
-import { convertLength, convertTorque, type LengthUnit, type MeasureUnit, type RawReading, type TorqueUnit } from "@/lib/domain";
-import { Instrument, Reading, User } from "@/models";
+import { Op } from "sequelize";
+import type { RawReading, Station } from "@/lib/domain";
+import { Reading } from "@/models";
 import { getSequelize } from "./db";
+import { toRaw, type InstrumentInfo } from "./ingest-evaluate";
+import type { JobContext } from "./job-context";
+import { currentReadings as releaseCurrent, requiredStations as releaseRequired } from "./release-checklist-rules";
+import type { JobRecord, ReadingRow as ReleaseReadingRow } from "./release-repo";
+import { currentReadings, findInstruments, jobReadings, type StoredReading } from "./readings-repo";
+import { listUsers } from "./users-repo";
 
-// A job's readings as the desk reads them. "Current" follows the sync contract: per station,
-// the latest (by takenAt) reading that no other reading supersedes. Skipped stations have a
-// current reading with no value; they do not count as measured.
-export type ReadingRow = {
-  id: string;
-  stationId: string;
-  characteristic: string;
-  value: number | null;
-  unit: MeasureUnit;
-  skipped: boolean;
-  verdict: "in_spec" | "marginal" | "out_of_spec" | null;
-  verdictNote: string | null;
-  limitMin: number | null;
-  limitMax: number | null;
-  deviation: number | null;
-  partTempC: number | null;
-  gaugeTempC: number | null;
-  lubricant: string | null;
-  gaugeSerial: string | null;
-  gaugeU: { value: number; unit: string } | null;
-  takenBy: string;
-  takenAt: string;
-  superseded: boolean;
-  current: boolean;
-};
+// A job's readings as the desk reads them, through the rules the rest of the server uses:
+// - progress toward release follows the release checklist (release-checklist-rules.ts): the
+//   required stations (own required limit, or an input of a required derived value) and the
+//   current reading of each (a skip counts as not measured);
+// - values, verdicts and derived values follow flag reconciliation (readings-repo currentReadings,
+//   ingest-evaluate toRaw), so the desk, the CSV and the flags never disagree.
 
-const isLength = (u: string): u is LengthUnit => u === "in" || u === "mm";
-const isTorque = (u: string): u is TorqueUnit => u === "lbf_ft" || u === "nm";
-
-function reshape(r: Reading & { instrument?: Instrument | null; taker?: User }, superseded: boolean, current: boolean): ReadingRow {
-  // The figure as entered is the one the machinist saw; the canonical one (mm, N·m) stands in
-  // only when nothing was entered.
-  const entered = r.valueEntered !== null && r.valueEntered !== undefined;
-  const unit = (entered ? r.unitEntered : isTorque(r.unitEntered) ? "nm" : "mm") as MeasureUnit;
-  return {
-    id: r.id, stationId: r.stationId, characteristic: r.characteristic,
-    value: r.skipped ? null : entered ? r.valueEntered : r.valueCanonical, unit,
-    skipped: r.skipped, verdict: r.verdict ?? null, verdictNote: r.verdictNote ?? null,
-    limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation,
-    partTempC: r.partTempC, gaugeTempC: r.gaugeTempC ?? null, lubricant: r.lubricant ?? null,
-    gaugeSerial: r.instrument?.serial ?? null,
-    // U at k = 2 (a gauge certified at another k is rescaled), as the verdicts use it.
-    gaugeU: r.instrument ? { value: (r.instrument.expandedU * 2) / (Number(r.instrument.coverageK) || 2), unit: r.instrument.unit } : null,
-    takenBy: r.taker?.name ?? "", takenAt: r.takenAt.toISOString(), superseded, current,
-  };
+/** The release checklist's required stations of a route (it reads only the spec and the shape). */
+export function requiredStationIds(ctx: Pick<JobContext, "spec" | "shape">, stations: Station[]): string[] {
+  return releaseRequired({ spec: ctx.spec, shape: ctx.shape } as JobRecord, stations).map((r) => r.station.id);
 }
 
-/** Every reading of a job, oldest first, each marked superseded and/or current. */
-export async function listJobReadings(shopId: number, jobId: number, t?: Transaction): Promise<ReadingRow[]> {
-  getSequelize();
-  const rows = await Reading.findAll({
-    where: { shopId, jobId },
-    include: [
-      { model: Instrument, as: "instrument", attributes: ["serial", "expandedU", "coverageK", "unit"] },
-      { model: User, as: "taker", attributes: ["name"] },
-    ],
-    order: [["takenAt", "ASC"], ["receivedAt", "ASC"]],
-    transaction: t,
-  });
-  const supersededIds = new Set(rows.map((r) => r.supersedes).filter((x): x is string => !!x));
-  const latest = new Map<string, Reading>();
-  for (const r of rows) if (!supersededIds.has(r.id)) latest.set(r.stationId, r); // ascending: the last one wins
-  const currentIds = new Set([...latest.values()].map((r) => r.id));
-  return rows.map((r) => reshape(r, supersededIds.has(r.id), currentIds.has(r.id)));
-}
-
-/** Per job, the stations whose current reading has a value (skips excluded). */
+/** Per job, the stations whose current reading (release rule) is a measured value, not a skip. */
 export async function measuredStations(shopId: number, jobIds: number[]): Promise<Map<number, Set<string>>> {
   getSequelize();
   const out = new Map<number, Set<string>>(jobIds.map((id) => [id, new Set()]));
   if (!jobIds.length) return out;
   const rows = await Reading.findAll({
     where: { shopId, jobId: { [Op.in]: jobIds } },
-    attributes: ["id", "jobId", "stationId", "supersedes", "skipped", "takenAt"],
-    order: [["takenAt", "ASC"], ["receivedAt", "ASC"]],
+    attributes: ["id", "jobId", "stationId", "supersedes", "skipped", "takenAt", "receivedAt"],
   });
-  const supersededIds = new Set(rows.map((r) => r.supersedes).filter((x): x is string => !!x));
-  const latest = new Map<string, Reading>();
-  for (const r of rows) if (!supersededIds.has(r.id)) latest.set(`${r.jobId}|${r.stationId}`, r);
-  for (const r of latest.values()) if (!r.skipped) out.get(r.jobId)?.add(r.stationId);
+  const byJob = new Map<number, ReleaseReadingRow[]>();
+  for (const r of rows) (byJob.get(r.jobId) ?? byJob.set(r.jobId, []).get(r.jobId)!).push(r.get({ plain: true }) as ReleaseReadingRow);
+  for (const [jobId, list] of byJob) {
+    for (const r of releaseCurrent(list).values()) if (!r.skipped) out.get(jobId)?.add(r.stationId);
+  }
   return out;
 }
 
-/** A current reading in the core's shape, for deriveReadings (U converted to the reading's unit). */
-export function toRawReading(r: ReadingRow): RawReading | null {
-  if (r.value === null) return null;
-  const out: RawReading = { stationId: r.stationId, value: r.value, unit: r.unit, takenAt: r.takenAt };
-  if (r.partTempC !== null) out.temperatureC = r.partTempC;
-  if (r.gaugeTempC !== null) out.gaugeTemperatureC = r.gaugeTempC;
-  if (r.lubricant) out.lubricant = r.lubricant as RawReading["lubricant"];
-  const u = r.gaugeU;
-  if (u && isLength(u.unit) && isLength(r.unit)) out.uncertainty = convertLength(u.value, u.unit, r.unit);
-  else if (u && isTorque(u.unit) && isTorque(r.unit)) out.uncertainty = convertTorque(u.value, u.unit, r.unit);
-  return out;
+export type JobReadings = {
+  all: StoredReading[];
+  /** The current value of each station (reconciliation's rule). */
+  current: StoredReading[];
+  /** `current` in the core's shape, with gauge U and temperatures, for deriveReadings. */
+  raws: RawReading[];
+  instruments: Map<number, InstrumentInfo>;
+  takers: Map<number, string>;
+};
+
+export async function loadJobReadings(shopId: number, jobId: number): Promise<JobReadings> {
+  const all = await jobReadings(undefined, jobId);
+  const current = currentReadings(all);
+  const [instruments, users] = await Promise.all([
+    findInstruments(undefined, shopId, all.flatMap((r) => (r.instrumentId ? [r.instrumentId] : []))),
+    listUsers(shopId),
+  ]);
+  const raws = current.map((r) => toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined));
+  return { all, current, raws, instruments, takers: new Map(users.map((u) => [u.id, u.name])) };
 }

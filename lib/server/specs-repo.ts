@@ -1,6 +1,6 @@
 import "server-only";
 import { fn, col, Op, type Transaction } from "sequelize";
-import { compactLimit, type LimitValues, type TemplateValues } from "@/lib/schemas/spec";
+import { LIMIT_FIELDS, compactLimit, type LimitValueField, type LimitValues, type TemplateValues } from "@/lib/schemas/spec";
 import { Job, SpecLimit, SpecTemplate, type JobLimit } from "@/models";
 import type { Actor } from "./access";
 import { recordAudit } from "./audit";
@@ -21,12 +21,18 @@ export function limitValuesOf(row: SpecLimit | JobLimit): LimitValues {
   return compactLimit(toSpecLimit(row) as LimitValues);
 }
 
-/** The columns of one limit row from schema values (absent numbers stored as NULL). */
+/**
+ * The columns of one limit row from schema values. Only the fields of the limit's own type are
+ * kept (a figure left over from another type would read as part of the limit); the rest are NULL.
+ */
 export function limitRow(l: LimitValues, sortOrder: number) {
+  const used = new Set<string>(LIMIT_FIELDS[l.limitType]);
+  const pick = <K extends LimitValueField>(k: K) => (used.has(k) ? (l[k] ?? null) : null);
+  const iso = pick("isoClass");
   return {
     characteristic: l.characteristic, stationPattern: l.stationPattern.trim(), limitType: l.limitType, unit: l.unit,
-    min: l.min ?? null, max: l.max ?? null, nominal: l.nominal ?? null, tolPlus: l.tolPlus ?? null, tolMinus: l.tolMinus ?? null,
-    perInchMin: l.perInchMin ?? null, perInchMax: l.perInchMax ?? null, isoClass: l.isoClass?.trim() || null,
+    min: pick("min"), max: pick("max"), nominal: pick("nominal"), tolPlus: pick("tolPlus"), tolMinus: pick("tolMinus"),
+    perInchMin: pick("perInchMin"), perInchMax: pick("perInchMax"), isoClass: typeof iso === "string" ? iso.trim() || null : null,
     required: l.required, gaugeKind: l.gaugeKind ?? null, label: l.label?.trim() || null, sortOrder,
   };
 }

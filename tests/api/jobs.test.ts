@@ -53,9 +53,11 @@ describe("GET /api/jobs (the board)", () => {
   });
 
   it("counts required stations done from current readings, and open flags", async () => {
-    // The factory's V8 and limits: bore_diameter is required on every station (8 cylinders ×
-    // 3 depths × 2 axes = 48 bore stations) and fastener_torque on every torque group (the
-    // core's 5 default groups), so 53 required stations; the other limits are derived values.
+    // The factory's V8 and limits, counted by hand: bore_diameter is required on every bore
+    // station (8 cylinders × 3 depths × 2 axes = 48) and fastener_torque on every torque group
+    // (the core's 5 default groups); the required main oil clearance needs both of its inputs,
+    // main bearing bores and main journals (5 mains × 2 ends × 2 axes = 20 each): 93 in all.
+    // Bore taper and out-of-round need the bore stations already counted.
     const s = await createShop();
     const at = (min: number) => new Date(Date.UTC(2026, 11, 1, 9, min));
     const add = (stationId: string, value: number | null, min: number, extra: Record<string, unknown> = {}) =>
@@ -72,7 +74,7 @@ describe("GET /api/jobs (the board)", () => {
     await add("skirt/1", 4.0285, 6); // no limit on the job: not required, not counted
     const res = await call(BOARD as never, await asUser(s.users.lead, "GET", "/api/jobs"));
     const row = res.body.jobs.find((j: { id: number }) => j.id === s.job.id);
-    expect(row.progress).toEqual({ done: 2, required: 53 });
+    expect(row.progress).toEqual({ done: 2, required: 93 });
     expect(row.flags).toEqual({ open: 0, disposed: 0 });
   });
 });

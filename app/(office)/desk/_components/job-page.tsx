@@ -1,0 +1,123 @@
+"use client";
+
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import Link from "next/link";
+import type { ReactNode } from "react";
+import { JobStatusTag, STATUS_WORDS } from "@/components/job-status";
+import { Button } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import { EXPANSION_COEFFICIENTS } from "@/lib/domain";
+import { api } from "@/lib/client/api";
+import { Loading, LoadFailed, ServerError } from "./fields";
+import { editValuesOf } from "./job-form";
+import { JobSummary } from "./job-summary";
+import { keys, useJob, type JobDetail } from "./queries";
+
+// The job's desk page: who and what, where it stands, and the way to everything else about it.
+const NEXT_STATUS: Record<string, "measuring" | "review" | undefined> = { intake: "measuring", measuring: "review" };
+const materialWords = (m: string | null) => (m ? (EXPANSION_COEFFICIENTS as Record<string, { label: string }>)[m]?.label ?? m : "not recorded");
+const btn = "inline-flex min-h-11 items-center rounded-tool border-2 border-rule bg-panel px-4 font-semibold hover:border-steel";
+
+function Fact({ label, children }: { label: string; children: ReactNode }) {
+  return <div className="flex flex-col"><dt className="text-sm text-muted">{label}</dt><dd className="font-medium">{children}</dd></div>;
+}
+
+function Facts({ d }: { d: JobDetail }) {
+  const e = d.engine;
+  const u = d.job.unitSystem;
+  return (
+    <dl className="grid gap-4 rounded-tool border-2 border-rule bg-panel p-4 sm:grid-cols-2 lg:grid-cols-4">
+      <Fact label="Customer">{d.customer.name}{d.customer.email && <span className="block text-sm text-muted">{d.customer.email}</span>}{d.customer.phone && <span className="block text-sm text-muted">{d.customer.phone}</span>}</Fact>
+      <Fact label="Engine">{e.description}<span className="block text-sm text-muted">{e.cylinders} cylinders, {e.layout === "v" ? "V" : e.layout}, {e.mains} mains, {e.valvesPerCylinder} valves a cylinder</span></Fact>
+      <Fact label="Nominal bore × stroke"><span className="tabular">{e.nominalBore} × {e.nominalStroke} {u}</span></Fact>
+      <Fact label="Units">{u === "mm" ? "Metric (mm, N·m)" : "Inch (in, lbf·ft)"}</Fact>
+      <Fact label="Materials">Block {materialWords(e.blockMaterial)}<span className="block text-sm text-muted">Head {materialWords(e.headMaterial)} · pistons {materialWords(e.pistonMaterial)}</span></Fact>
+      <Fact label="Serials"><span className="font-mono text-sm">Block {e.blockSerial ?? "—"} · crank {e.crankSerial ?? "—"} · heads {e.headSerials ?? "—"}</span></Fact>
+      <Fact label="Spec sheet">{d.job.templateName ?? "Template since deleted"}<span className="block text-sm text-muted">{d.job.limitCount} limits on the job · revision {d.job.specRevision}</span></Fact>
+      <Fact label="Due">{d.job.dueDate ?? "No date"}</Fact>
+      {d.job.notes && <div className="sm:col-span-2 lg:col-span-4"><Fact label="Notes"><span className="whitespace-pre-line">{d.job.notes}</span></Fact></div>}
+    </dl>
+  );
+}
+
+function StatusMove({ d }: { d: JobDetail }) {
+  const qc = useQueryClient();
+  const next = NEXT_STATUS[d.job.status];
+  const move = useMutation({
+    mutationFn: (status: "measuring" | "review") => api<JobDetail>(`/api/jobs/${d.job.id}`, { method: "PATCH", json: { ...editValuesOf(d), status } }),
+    onSuccess: (res) => {
+      qc.setQueryData(keys.job(d.job.id), res);
+      return qc.invalidateQueries({ queryKey: keys.jobs });
+    },
+  });
+  if (!next) return null;
+  return (
+    <>
+      <Button onClick={() => move.mutate(next)} disabled={move.isPending}>{move.isPending ? "Moving…" : `Move to ${STATUS_WORDS[next].toLowerCase()}`}</Button>
+      {move.error && <div className="w-full"><ServerError error={move.error} /></div>}
+    </>
+  );
+}
+
+function Links({ d, canEdit }: { d: JobDetail; canEdit: boolean }) {
+  const id = d.job.id;
+  const f = d.flags;
+  return (
+    <nav aria-label="About this job" className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+      <Link className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel" href={`/desk/flags?job=${id}`}>
+        <span className="text-lg font-semibold">Flags</span>
+        <span className="text-sm text-muted">{f.open} open · {f.disposed} awaiting re-check · {f.closed} closed</span>
+      </Link>
+      <Link className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel" href={`/desk/jobs/${id}/maps`}>
+        <span className="text-lg font-semibold">Bore and journal maps</span>
+        <span className="text-sm text-muted">Diameter by depth and axis, taper and out-of-round, deck corners</span>
+      </Link>
+      {canEdit && (
+        <Link className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel" href={`/desk/jobs/${id}/plan`}>
+          <span className="text-lg font-semibold">Build plan</span>
+          <span className="text-sm text-muted">{d.job.hasBuildPlan ? "Displacement, compression, deck and valve lift" : "Not entered yet"}</span>
+        </Link>
+      )}
+      {canEdit && (
+        <Link className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel" href={`/desk/jobs/${id}/limits`}>
+          <span className="text-lg font-semibold">Limits</span>
+          <span className="text-sm text-muted">{d.job.limitCount} limits · revision {d.job.specRevision}{d.job.locked ? " · locked" : ""}</span>
+        </Link>
+      )}
+      <div className="flex flex-col gap-1 rounded-tool border-2 border-rule bg-panel p-4">
+        <span className="text-lg font-semibold">Export</span>
+        <a className="font-medium text-steel underline" href={`/api/jobs/${id}/readings.csv`} download>Current readings and computed values (CSV)</a>
+        <a className="text-sm text-steel underline" href={`/api/jobs/${id}/readings.csv?history=1`} download>With earlier readings (CSV)</a>
+      </div>
+    </nav>
+  );
+}
+
+export function JobPage({ jobId, canEdit }: { jobId: number; canEdit: boolean }) {
+  const job = useJob(jobId);
+  if (job.isPending) return <Loading what="the job" />;
+  if (job.isError) return <LoadFailed what="the job" error={job.error} retry={() => job.refetch()} />;
+  const d = job.data;
+  const editable = canEdit && !d.job.locked;
+  return (
+    <div className="flex flex-col gap-6">
+      <div className="flex flex-wrap items-start justify-between gap-4">
+        <div className="flex flex-col gap-1">
+          <span className="font-mono text-sm text-muted">{d.job.code}</span>
+          <h1 className="text-3xl font-semibold">{d.job.title}</h1>
+          <span><JobStatusTag status={d.job.status} /></span>
+        </div>
+        {editable && (
+          <div className="flex flex-wrap gap-2">
+            <StatusMove d={d} />
+            <Link className={btn} href={`/desk/jobs/${jobId}/edit`}>Edit job</Link>
+          </div>
+        )}
+      </div>
+      {d.job.locked && <Notice title="Locked">This job is {d.job.status === "closed" ? "closed" : "released"}: its limits, plan and details cannot change until the inspector voids the release.</Notice>}
+      <Facts d={d} />
+      <Links d={d} canEdit={canEdit} />
+      <JobSummary summary={d.summary} />
+    </div>
+  );
+}

@@ -1,0 +1,32 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import { api } from "@/lib/client/api";
+import type { BuildPlanView } from "@/lib/server/build-plan-repo";
+import type { JobDetail } from "@/lib/server/jobs-admin-detail-repo";
+import type { BoardJob } from "@/lib/server/jobs-admin-board-repo";
+import type { CustomerRecord } from "@/lib/server/jobs-admin-repo";
+import type { TemplateRecord, TemplateSummary } from "@/lib/server/specs-repo";
+import type { JobLimitsView } from "@/lib/server/reevaluate-repo";
+
+// Query keys and fetchers of the desk screens, in one place so every mutation knows what to
+// update or invalidate.
+export const keys = {
+  jobs: ["jobs"] as const,
+  job: (id: number) => ["job", id] as const,
+  customers: ["customers"] as const,
+  specs: ["specs"] as const,
+  spec: (id: number) => ["spec", id] as const,
+  limits: (id: number) => ["job-limits", id] as const,
+  plan: (id: number) => ["build-plan", id] as const,
+};
+
+export type { BoardJob, BuildPlanView, CustomerRecord, JobDetail, JobLimitsView, TemplateRecord, TemplateSummary };
+
+export const useJobBoard = () => useQuery({ queryKey: keys.jobs, queryFn: () => api<{ jobs: BoardJob[] }>("/api/jobs").then((r) => r.jobs) });
+export const useJob = (id: number) => useQuery({ queryKey: keys.job(id), queryFn: () => api<JobDetail>(`/api/jobs/${id}`) });
+export const useCustomers = () => useQuery({ queryKey: keys.customers, queryFn: () => api<{ customers: CustomerRecord[] }>("/api/customers").then((r) => r.customers) });
+export const useTemplates = () => useQuery({ queryKey: keys.specs, queryFn: () => api<{ templates: TemplateSummary[] }>("/api/specs").then((r) => r.templates) });
+export const useTemplate = (id: number) => useQuery({ queryKey: keys.spec(id), queryFn: () => api<{ template: TemplateRecord; jobCount: number }>(`/api/specs/${id}`) });
+export const useJobLimits = (id: number) => useQuery({ queryKey: keys.limits(id), queryFn: () => api<JobLimitsView>(`/api/jobs/${id}/limits`) });
+export const useBuildPlan = (id: number) => useQuery({ queryKey: keys.plan(id), queryFn: () => api<BuildPlanView>(`/api/jobs/${id}/build-plan`) });

@@ -1,0 +1,35 @@
+"use client";
+
+import { resolveLimit, type SpecLimit } from "@/lib/domain";
+import { compactLimit, type LimitInput, type LimitValues } from "@/lib/schemas/spec";
+
+// What the limit comes to, worked out by the core (resolveLimit) as the lead types, so a
+// slip such as a swapped tolerance shows before it is saved.
+const unitWords = (u: string) => (u === "lbf_ft" ? "lbf·ft" : u === "nm" ? "N·m" : u);
+
+function words(l: LimitInput): string | null {
+  if (l.limitType === "per_inch") {
+    const parts = [l.perInchMin, l.perInchMax].map((x) => (typeof x === "number" && Number.isFinite(x) ? x : null));
+    if (parts.every((x) => x === null)) return null;
+    return `Scales with the diameter: ${parts[0] ?? "no minimum"} to ${parts[1] ?? "no maximum"} ${unitWords(l.unit)} per inch (or mm per mm) of it`;
+  }
+  if (l.limitType === "iso286" && (l.nominal === null || l.nominal === undefined)) {
+    return l.isoClass ? `ISO 286 ${l.isoClass} at the engine's nominal size` : null;
+  }
+  const clean = compactLimit(l as LimitValues) as unknown as SpecLimit;
+  const r = resolveLimit(clean);
+  const lo = r.min === undefined ? "no minimum" : String(r.min);
+  const hi = r.max === undefined ? "no maximum" : String(r.max);
+  return `Accepts ${lo} to ${hi} ${unitWords(r.unit)}${r.nominal !== undefined ? ` (nominal ${r.nominal})` : ""}`;
+}
+
+export function SpecLimitPreview({ limit }: { limit: LimitInput }) {
+  let text: string | null = null;
+  try {
+    text = limit.characteristic && limit.limitType ? words(limit) : null;
+  } catch {
+    text = null; // not complete yet; the fields say what is missing when saved
+  }
+  if (!text) return null;
+  return <p className="text-sm text-muted" aria-live="polite">{text}</p>;
+}

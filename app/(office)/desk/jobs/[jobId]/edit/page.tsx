@@ -1,0 +1,19 @@
+import { AppHeader } from "@/components/app-header";
+import { requirePageActor } from "@/lib/server/access";
+import { JobEdit } from "../../../_components/job-edit";
+
+export const metadata = { title: "Edit job" };
+
+export default async function EditJobPage({ params }: { params: Promise<{ jobId: string }> }) {
+  const { jobId } = await params;
+  const actor = await requirePageActor(["lead"], `/desk/jobs/${jobId}/edit`);
+  return (
+    <>
+      <AppHeader actor={actor} current="/desk" />
+      <main className="mx-auto flex max-w-5xl flex-col gap-6 px-4 py-6">
+        <h1 className="text-3xl font-semibold">Edit job</h1>
+        <JobEdit jobId={Number(jobId)} />
+      </main>
+    </>
+  );
+}
