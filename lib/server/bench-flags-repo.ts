@@ -1,6 +1,6 @@
 import "server-only";
-import { Op, type Transaction } from "sequelize";
-import { Flag } from "@/models";
+import { Op, QueryTypes, type Transaction } from "sequelize";
+import { Flag, decimalToNumber } from "@/models";
 import type { BenchFlag } from "@/lib/schemas/sync";
 import { getSequelize } from "./db";
 
@@ -19,20 +19,40 @@ export type FlagPatch = Partial<Pick<FlagRow, "value" | "unit" | "limitMin" | "l
 
 const plain = (f: Flag): FlagRow => f.get({ plain: true }) as unknown as FlagRow;
 
-/** Flags of the job that are open or disposed, locked for update by the caller's transaction. */
-export async function unclosedFlags(t: Transaction, jobId: number): Promise<FlagRow[]> {
-  getSequelize();
-  const rows = await Flag.findAll({ where: { jobId, state: { [Op.ne]: "closed" } }, order: [["id", "ASC"]], transaction: t, lock: t.LOCK.UPDATE });
-  return rows.map(plain);
+const UNCLOSED = `SELECT id, shop_id AS shopId, job_id AS jobId, reading_id AS readingId, derived_key AS derivedKey,
+  station_id AS stationId, characteristic, value, unit, limit_min AS limitMin, limit_max AS limitMax, deviation,
+  verdict, reason, state, disposition FROM flags WHERE job_id = ? AND state <> 'closed' ORDER BY id`;
+export type UnclosedFlag = Pick<FlagRow, "id" | "shopId" | "jobId" | "readingId" | "derivedKey" | "stationId" | "characteristic" | "value" | "unit" | "limitMin" | "limitMax" | "deviation" | "verdict" | "reason" | "state" | "disposition">;
+
+/**
+ * Flags of the job that are open or disposed. Every writer of a job's flags holds the job row's lock,
+ * so the rows cannot change under us; `locking` only makes the read see the latest commit when the
+ * caller's snapshot may predate that lock. (A locking range read would also take gap locks in the
+ * flags index, which collide with inserts for neighbouring jobs: bench:sync saw deadlocks.)
+ */
+export async function unclosedFlags(t: Transaction, jobId: number, locking = true): Promise<UnclosedFlag[]> {
+  const sql = locking ? `${UNCLOSED} LOCK IN SHARE MODE` : UNCLOSED;
+  const rows = await getSequelize().query<UnclosedFlag>(sql, { replacements: [jobId], type: QueryTypes.SELECT, transaction: t });
+  for (const r of rows) for (const k of ["value", "limitMin", "limitMax", "deviation"] as const) (r as Record<string, unknown>)[k] = decimalToNumber(r[k]);
+  return rows;
 }
 
-export async function createFlags(t: Transaction, rows: NewFlag[]): Promise<FlagRow[]> {
+const NEW_COLUMNS: [string, keyof NewFlag][] = [
+  ["shop_id", "shopId"], ["job_id", "jobId"], ["reading_id", "readingId"], ["derived_key", "derivedKey"], ["station_id", "stationId"],
+  ["characteristic", "characteristic"], ["value", "value"], ["unit", "unit"], ["limit_min", "limitMin"], ["limit_max", "limitMax"],
+  ["deviation", "deviation"], ["verdict", "verdict"], ["reason", "reason"],
+];
+
+/** One INSERT; returns the new ids in row order. */
+export async function createFlags(t: Transaction, rows: NewFlag[]): Promise<number[]> {
   if (rows.length === 0) return [];
-  getSequelize();
-  // One INSERT; MariaDB hands back consecutive auto-increment ids for a multi-row insert
-  // (innodb_autoinc_lock_mode ≤ 1 or a simple insert), which Sequelize maps onto the rows.
-  const created = await Flag.bulkCreate(rows.map((r) => ({ ...r, state: "open" as const })), { transaction: t, hooks: false, validate: false });
-  return created.map(plain);
+  const now = new Date();
+  const [firstId] = await getSequelize().query(
+    `INSERT INTO flags (${NEW_COLUMNS.map(([c]) => c).join(",")},state,created_at,updated_at) VALUES ${rows.map(() => `(${NEW_COLUMNS.map(() => "?").join(",")},'open',?,?)`).join(",")}`,
+    { replacements: rows.flatMap((r) => [...NEW_COLUMNS.map(([, k]) => r[k]), now, now]), type: QueryTypes.INSERT, transaction: t },
+  );
+  // A multi-row INSERT takes consecutive auto-increment ids (InnoDB "simple insert").
+  return rows.map((_, i) => Number(firstId) + i);
 }
 
 export async function updateFlag(t: Transaction, id: number, patch: FlagPatch): Promise<void> {

@@ -9,7 +9,7 @@ import type { Actor } from "./access";
 import { recordAudits, recordChanges } from "./bulk-log-repo";
 import { getSequelize } from "./db";
 import { fieldErrors } from "./errors";
-import { reconcileJob } from "./flag-reconcile";
+import { reconcileJob, type ReconcileLog } from "./flag-reconcile";
 import { checkItem, lockReasonOf, type BatchContext, type BatchJob, type Checked } from "./ingest-check";
 import { withDeadlockRetry } from "./ingest-retry";
 import { loadJobContext } from "./job-context";
@@ -44,12 +44,11 @@ async function batchContext(t: Transaction, actor: Actor, deviceId: string, item
     jobs.set(id, { ...ctx, routeIds, lockReason: lockReasonOf(ctx.job) });
   }
   const supersedes = items.flatMap((i) => (i.supersedes ? [i.supersedes] : []));
-  const [instruments, existing, stored] = [
-    await findInstruments(t, actor.shopId, items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : []))),
-    await findReadings(t, items.map((i) => i.id)),
-    await findReadings(t, supersedes),
-  ];
-  const targets = new Map<string, { shopId: number; jobId: number; stationId: string }>(stored);
+  const instruments = await findInstruments(t, actor.shopId, items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : [])));
+  // One lookup for both: ids already stored (replays, conflicts) and the readings corrected.
+  const known = await findReadings(t, [...new Set([...items.map((i) => i.id), ...supersedes])]);
+  const existing = new Map(items.flatMap((i) => (known.has(i.id) ? [[i.id, known.get(i.id)!] as const] : [])));
+  const targets = new Map<string, { shopId: number; jobId: number; stationId: string }>(supersedes.flatMap((id) => (known.has(id) ? [[id, known.get(id)!] as const] : [])));
   for (const i of items) if (!targets.has(i.id) && supersedes.includes(i.id)) targets.set(i.id, { shopId: actor.shopId, jobId: i.jobId, stationId: i.stationId });
   return { shopId: actor.shopId, userId: actor.userId, deviceId, now: new Date(), jobs, instruments, existing, targets };
 }
@@ -89,21 +88,27 @@ function evaluationOf(c: { row: NewReading }, final: ReadingEvaluation | undefin
   return final ?? { verdict: r.verdict, verdictNote: r.verdictNote, unit: r.unit, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation };
 }
 
-async function write(t: Transaction, actor: Actor, deviceId: string, fresh: NewReading[]) {
+/** Inserts, reconciles each job once, and logs it all with two INSERTs; returns final evaluations and the cursor. */
+async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: NewReading[]) {
   await insertReadings(t, insertOrder(fresh));
   const finals = new Map<string, ReadingEvaluation>();
   const ids = new Set(fresh.map((r) => r.id));
+  const log: ReconcileLog = {
+    audits: [],
+    changes: fresh.map((r) => ({ shopId: actor.shopId, jobId: r.jobId, entity: "reading" as const, entityId: r.id, deviceId: bc.deviceId })),
+  };
   for (const jobId of [...new Set(fresh.map((r) => r.jobId))].sort((a, b) => a - b)) {
-    const res = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, deviceId, cause: "sync", fresh: ids });
+    const context = bc.jobs.get(jobId)!;
+    const res = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, deviceId: bc.deviceId, cause: "sync", fresh: ids, context, log });
     for (const [id, e] of res.evaluations) if (ids.has(id)) finals.set(id, e);
   }
-  const after = (r: NewReading) => {
-    const e = finals.get(r.id);
-    return { jobId: r.jobId, stationId: r.stationId, value: r.value, unit: r.unit, skipped: r.skipped, supersedes: r.supersedes, verdict: e?.verdict ?? r.verdict, deviceId };
-  };
-  await recordAudits(t, fresh.map((r) => ({ shopId: actor.shopId, userId: actor.userId, action: r.supersedes ? "reading.correct" : "reading.create", entityType: "reading", entityId: r.id, after: after(r) })));
-  await recordChanges(t, fresh.map((r) => ({ shopId: actor.shopId, jobId: r.jobId, entity: "reading" as const, entityId: r.id, deviceId })));
-  return finals;
+  const after = (r: NewReading) => ({
+    jobId: r.jobId, stationId: r.stationId, value: r.value, unit: r.unit, skipped: r.skipped, supersedes: r.supersedes,
+    verdict: finals.get(r.id)?.verdict ?? r.verdict, deviceId: bc.deviceId,
+  });
+  log.audits.unshift(...fresh.map((r) => ({ shopId: actor.shopId, userId: actor.userId, action: r.supersedes ? "reading.correct" : "reading.create", entityType: "reading", entityId: r.id, after: after(r) })));
+  await recordAudits(t, log.audits);
+  return { finals, cursor: await recordChanges(t, log.changes) };
 }
 
 function results(parsed: Parsed[], checked: Outcome[], finals: Map<string, ReadingEvaluation>, refused: boolean): PushResult[] {
@@ -141,8 +146,9 @@ export async function ingestBatch(actor: Actor, batch: { deviceId: string; readi
     const checked = checkAll(parsed, bc);
     const bad = checked.some((c) => !c || c.kind === "rejected");
     const fresh = bad ? [] : checked.flatMap((c) => (c?.kind === "new" ? [c.row] : []));
-    const finals = fresh.length ? await write(t, actor, batch.deviceId, fresh) : new Map<string, ReadingEvaluation>();
-    const cursor = await lastChangeId(t, [...bc.jobs.keys()]);
+    const { finals, cursor } = fresh.length
+      ? await write(t, actor, bc, fresh)
+      : { finals: new Map<string, ReadingEvaluation>(), cursor: await lastChangeId(t, [...bc.jobs.keys()]) };
     const res = results(parsed, checked, finals, bad);
     return bad ? refusal(res, cursor) : { status: 200 as const, body: { results: res, cursor } };
   }));

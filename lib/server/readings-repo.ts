@@ -1,6 +1,6 @@
 import "server-only";
 import { Op, QueryTypes, type Transaction } from "sequelize";
-import { Instrument, Reading } from "@/models";
+import { Instrument, decimalToNumber } from "@/models";
 import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize } from "./db";
 import type { InstrumentInfo, ReadingFacts } from "./ingest-evaluate";
@@ -31,9 +31,35 @@ export type StoredReading = ReadingFacts & {
 };
 export type NewReading = Omit<StoredReading, "receivedAt"> & { receivedAt: Date };
 
-function plain(r: Reading): StoredReading {
-  const { valueEntered, unitEntered, createdAt: _c, updatedAt: _u, ...rest } = r.get({ plain: true });
-  return { ...rest, value: valueEntered ?? null, unit: unitEntered } as StoredReading;
+// Raw SQL for the hot paths of ingest and reconciliation: model instances cost more than the
+// queries here (bench:sync), and these rows only ever travel as plain objects.
+const COLUMNS = `id, shop_id AS shopId, job_id AS jobId, station_id AS stationId, characteristic,
+  value_canonical AS valueCanonical, value_entered AS value, unit_entered AS unit, entry_mode AS entryMode,
+  dial_setting AS dialSetting, dial_deviation AS dialDeviation, instrument_id AS instrumentId,
+  part_temp_c AS partTempC, gauge_temp_c AS gaugeTempC, lubricant, skipped, skip_reason AS skipReason, note,
+  taken_by AS takenBy, taken_at AS takenAt, received_at AS receivedAt, device_id AS deviceId, supersedes,
+  verdict, verdict_note AS verdictNote, limit_min AS limitMin, limit_max AS limitMax, deviation`;
+const DECIMALS = ["valueCanonical", "value", "dialSetting", "dialDeviation", "partTempC", "gaugeTempC", "limitMin", "limitMax", "deviation"] as const;
+const ORDER = "ORDER BY taken_at, received_at, id";
+
+function fromRow(row: Record<string, unknown>): StoredReading {
+  const r = row as unknown as StoredReading & Record<string, unknown>;
+  for (const k of DECIMALS) r[k] = decimalToNumber(row[k]);
+  r.jobId = Number(row.jobId);
+  r.shopId = Number(row.shopId);
+  r.instrumentId = row.instrumentId === null ? null : Number(row.instrumentId);
+  r.skipped = !!row.skipped;
+  r.takenAt = new Date(row.takenAt as Date);
+  r.receivedAt = new Date(row.receivedAt as Date);
+  return r;
+}
+
+async function selectReadings(where: string, replacements: unknown[], t?: Transaction, lock = ""): Promise<StoredReading[]> {
+  const rows = await getSequelize().query<Record<string, unknown>>(
+    `SELECT ${COLUMNS} FROM readings WHERE ${where} ${ORDER}${lock}`,
+    { replacements, type: QueryTypes.SELECT, transaction: t },
+  );
+  return rows.map(fromRow);
 }
 
 /**
@@ -53,21 +79,18 @@ export async function lockJobs(t: Transaction, shopId: number, jobIds: number[])
 /** Readings with these ids in ANY shop: a client id is global, so a clash must be seen to be refused. */
 export async function findReadings(t: Transaction | undefined, ids: string[]): Promise<Map<string, StoredReading>> {
   if (ids.length === 0) return new Map();
-  getSequelize();
-  const rows = await Reading.findAll({ where: { id: { [Op.in]: ids } }, transaction: t });
-  return new Map(rows.map((r) => [r.id, plain(r)]));
+  const rows = await selectReadings("id IN (?)", [ids], t);
+  return new Map(rows.map((r) => [r.id, r]));
 }
 
-/** Every reading of a job, oldest first (takenAt, then arrival, then id: the core's "latest wins" order). */
-export async function jobReadings(t: Transaction | undefined, jobId: number): Promise<StoredReading[]> {
-  getSequelize();
-  const rows = await Reading.findAll({
-    where: { jobId },
-    order: [["takenAt", "ASC"], ["receivedAt", "ASC"], ["id", "ASC"]],
-    transaction: t,
-    lock: t ? t.LOCK.SHARE : undefined,
-  });
-  return rows.map(plain);
+/**
+ * Every reading of a job, oldest first (takenAt, then arrival, then id: the core's "latest wins"
+ * order). `locking`: read the latest committed rows whatever snapshot the caller's transaction
+ * already holds (a limits edit may have read before it locked the job). A transaction whose first
+ * statement locked the job row needs no locking read: its snapshot starts after the lock.
+ */
+export async function jobReadings(t: Transaction | undefined, jobId: number, locking = true): Promise<StoredReading[]> {
+  return selectReadings("job_id = ?", [jobId], t, t && locking ? " LOCK IN SHARE MODE" : "");
 }
 
 /** The station's current figure: the latest reading with a value that no other reading corrects. */
@@ -78,12 +101,24 @@ export function currentReadings(all: StoredReading[]): StoredReading[] {
   return [...latest.values()];
 }
 
+const INSERT_COLUMNS: [string, keyof NewReading][] = [
+  ["id", "id"], ["shop_id", "shopId"], ["job_id", "jobId"], ["station_id", "stationId"], ["characteristic", "characteristic"],
+  ["value_canonical", "valueCanonical"], ["value_entered", "value"], ["unit_entered", "unit"], ["entry_mode", "entryMode"],
+  ["dial_setting", "dialSetting"], ["dial_deviation", "dialDeviation"], ["instrument_id", "instrumentId"],
+  ["part_temp_c", "partTempC"], ["gauge_temp_c", "gaugeTempC"], ["lubricant", "lubricant"], ["skipped", "skipped"],
+  ["skip_reason", "skipReason"], ["note", "note"], ["taken_by", "takenBy"], ["taken_at", "takenAt"],
+  ["received_at", "receivedAt"], ["device_id", "deviceId"], ["supersedes", "supersedes"], ["verdict", "verdict"],
+  ["verdict_note", "verdictNote"], ["limit_min", "limitMin"], ["limit_max", "limitMax"], ["deviation", "deviation"],
+];
+
+/** One multi-row INSERT; rows must already be in foreign-key order (a correction after its target). */
 export async function insertReadings(t: Transaction, rows: NewReading[]): Promise<void> {
   if (rows.length === 0) return;
-  getSequelize();
-  await Reading.bulkCreate(
-    rows.map(({ value, unit, ...r }) => ({ ...r, valueEntered: value, unitEntered: unit })) as never[],
-    { transaction: t, returning: false, hooks: false, validate: false },
+  const tuple = `(${INSERT_COLUMNS.map(() => "?").join(",")},?,?)`;
+  const now = new Date();
+  await getSequelize().query(
+    `INSERT INTO readings (${INSERT_COLUMNS.map(([c]) => c).join(",")},created_at,updated_at) VALUES ${rows.map(() => tuple).join(",")}`,
+    { replacements: rows.flatMap((r) => [...INSERT_COLUMNS.map(([, k]) => r[k]), now, now]), type: QueryTypes.INSERT, transaction: t },
   );
 }
 
@@ -92,8 +127,10 @@ export async function updateEvaluation(
   id: string,
   e: Pick<StoredReading, "verdict" | "verdictNote" | "limitMin" | "limitMax" | "deviation">,
 ): Promise<void> {
-  getSequelize();
-  await Reading.update(e, { where: { id }, transaction: t, hooks: false });
+  await getSequelize().query(
+    "UPDATE readings SET verdict = ?, verdict_note = ?, limit_min = ?, limit_max = ?, deviation = ?, updated_at = ? WHERE id = ?",
+    { replacements: [e.verdict, e.verdictNote, e.limitMin, e.limitMax, e.deviation, new Date(), id], type: QueryTypes.UPDATE, transaction: t },
+  );
 }
 
 function toInstrument(i: Instrument): InstrumentInfo {
@@ -121,12 +158,7 @@ export async function shopInstruments(shopId: number): Promise<InstrumentInfo[]>
 /** Readings with these ids within the given jobs (the feed's and the pack's view). */
 export async function readingsOfJobs(jobIds: number[], ids?: string[]): Promise<StoredReading[]> {
   if (jobIds.length === 0 || ids?.length === 0) return [];
-  getSequelize();
-  const rows = await Reading.findAll({
-    where: { jobId: { [Op.in]: jobIds }, ...(ids ? { id: { [Op.in]: ids } } : {}) },
-    order: [["takenAt", "ASC"], ["receivedAt", "ASC"], ["id", "ASC"]],
-  });
-  return rows.map(plain);
+  return ids ? selectReadings("job_id IN (?) AND id IN (?)", [jobIds, ids]) : selectReadings("job_id IN (?)", [jobIds]);
 }
 
 /** For each id, the reading that corrects it (the latest one, when corrected more than once). */

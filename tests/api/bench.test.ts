@@ -50,7 +50,7 @@ describe("GET /api/bench/jobs/:jobId", () => {
     expect(p.route.total).toBe(benchRoute(p.shape).total);
     expect(p.instruments).toEqual([expect.objectContaining({ id: s.instrument.id, kind: "outside_mic", unit: "in", resolution: 0.0001, expandedU: 0.0001, calibrationDue: "2027-06-01", dialPlusMeansSmaller: true })]);
     expect(p.readings).toHaveLength(2);
-    expect(p.readings[0]).toMatchObject({ stationId: "bore/1/top/A", value: 4.0312, unit: "in", verdict: "out_of_spec", supersededBy: null });
+    expect(p.readings.find((r: { stationId: string }) => r.stationId === "bore/1/top/A")).toMatchObject({ stationId: "bore/1/top/A", value: 4.0312, unit: "in", verdict: "out_of_spec", supersededBy: null });
     expect(p.flags).toEqual([expect.objectContaining({ stationId: "bore/1/top/A", state: "open", stations: ["bore/1/top/A"], revisit: false })]);
     expect(p.cursor).toMatch(/^\d+$/);
   });
