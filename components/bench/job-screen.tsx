@@ -25,7 +25,7 @@ import { StationHeader } from "./station-header";
 // on the left and entry on the right; in portrait and on a phone one column with the entry and
 // keypad right under the station and its verdict, so nothing needed for an entry is scrolled to.
 const GRID = [
-  "grid items-start gap-4 [grid-template-areas:'where'_'last'_'entry'_'more']",
+  "grid grid-cols-[minmax(0,1fr)] items-start gap-4 [grid-template-areas:'where'_'last'_'entry'_'more']",
   "lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] lg:grid-rows-[auto_auto_1fr] lg:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
   "landscape:md:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] landscape:md:grid-rows-[auto_auto_1fr] landscape:md:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
 ].join(" ");

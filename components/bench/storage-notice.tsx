@@ -20,7 +20,7 @@ export function StorageNotice() {
     <p className="flex items-start gap-2 text-sm leading-snug font-medium text-watch" data-testid="storage" data-kept={kept}>
       <svg width="18" height="18" viewBox="0 0 18 18" aria-hidden="true" className="mt-0.5 shrink-0"><path d="M9 1.5 17 16H1Z" fill="currentColor" /><path d="M9 6.5v4.5M9 13.3v.2" stroke="white" strokeWidth="2.2" strokeLinecap="round" /></svg>
       {kept === "refused"
-        ? "This browser has not promised to keep the bench's data: install Tenthwise to the home screen, and send readings often (a full tablet may clear unsent ones)."
+        ? "This browser has not promised to keep the bench's data: install Tenthwise to the home screen and send readings often."
         : "This browser cannot promise to keep the bench's data: send readings often."}
     </p>
   );

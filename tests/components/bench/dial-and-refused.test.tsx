@@ -1,0 +1,85 @@
+// @vitest-environment jsdom
+import "fake-indexeddb/auto";
+import { act, cleanup, configure, fireEvent, render, screen, waitFor } from "@testing-library/react";
+import { useLiveQuery } from "dexie-react-hooks";
+import { afterEach, describe, expect, it, vi } from "vitest";
+import { BenchProvider } from "@/components/bench/bench-context";
+import { JobScreen } from "@/components/bench/job-screen";
+import { BenchDb } from "@/lib/offline/db";
+import { getJobPrefs } from "@/lib/offline/meta";
+import { applyPushResults } from "@/lib/offline/outbox";
+import { savePack } from "@/lib/offline/packs";
+import { readingsOfJob, recordReading } from "@/lib/offline/readings";
+import type { BenchInstrument, JobPack } from "@/lib/schemas/sync";
+import type { SyncEngine } from "@/lib/offline/sync-engine";
+import { makePack } from "../../lib/offline/fake-server";
+
+configure({ asyncUtilTimeout: 5000 });
+afterEach(cleanup);
+
+const dialGauge: BenchInstrument = { id: 3, kind: "bore_gauge_dial", label: "Dial bore gauge", serial: "DB-1", unit: "in", resolution: 0.0001, expandedU: 0, coverageK: 2, calibrationDue: null, dialPlusMeansSmaller: true, active: true };
+let n = 0;
+
+async function mount(pack: JobPack, seed?: (db: BenchDb) => Promise<void>) {
+  const db = new BenchDb(`dial-${++n}-${Date.now()}`);
+  await savePack(db, pack);
+  await seed?.(db);
+  const engine = { afterEntry: vi.fn(), sync: vi.fn() } as unknown as SyncEngine;
+  function Live() {
+    const readings = useLiveQuery(() => readingsOfJob(db, pack.job.id), []);
+    const prefs = useLiveQuery(() => getJobPrefs(db, pack.job.id), []);
+    return readings && prefs ? <JobScreen pack={pack} readings={readings} prefs={prefs} /> : null;
+  }
+  render(<BenchProvider value={{ db, engine, deviceId: "tab-test", actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" } }}><Live /></BenchProvider>);
+  const input = (await screen.findByTestId("entry")) as HTMLInputElement;
+  await waitFor(() => expect(document.activeElement).toBe(input));
+  return { db, input };
+}
+
+function type(input: HTMLInputElement, text: string) {
+  fireEvent.change(input, { target: { value: text } });
+  fireEvent.keyDown(input, { key: "Enter" });
+}
+
+describe("dial bore gauge mode", () => {
+  it("asks for the setting size once per group, shows the sign convention, and saves the computed diameter", async () => {
+    const { db, input } = await mount({ ...makePack(1), instruments: [dialGauge] });
+    fireEvent.click(screen.getByRole("button", { name: "Dial mode off" }));
+    await screen.findByRole("button", { name: "Dial mode on" });
+    expect(screen.getByTestId("dial-sign").textContent).toMatch(/plus \(\+\) reading means a smaller bore/);
+    expect(screen.getByRole("button", { name: "Set size" })).toBeTruthy();
+    await act(async () => type(input, "4.0300"));
+    await waitFor(async () => expect((await getJobPrefs(db, 1)).dialSettings.bore).toBe(4.03));
+    await screen.findByRole("button", { name: "Save" });
+    expect(screen.getByText(/set at 4\.0300 in · \+ means smaller/)).toBeTruthy();
+    await act(async () => type(input, "-0.0002")); // the needle 2 tenths minus: a bigger bore
+    await waitFor(async () => expect(await db.readings.count()).toBe(1));
+    const [r] = await db.readings.toArray();
+    expect(r).toMatchObject({ stationId: "bore/1/top/A", entryMode: "dial", dialSetting: 4.03, dialDeviation: -0.0002, value: 4.0302, instrumentId: 3 });
+    expect(screen.getByTestId("last-entry").textContent).toContain("4.0302");
+    // The next station of the group keeps the setting: the next entry is a dial reading at once.
+    await act(async () => type(input, "0.0001"));
+    await waitFor(async () => expect(await db.readings.count()).toBe(2));
+    expect((await db.readings.orderBy("takenAt").last())?.value).toBe(4.0299);
+  });
+});
+
+describe("a reading the server refused", () => {
+  it("is listed with the server's words, and fixing it sends the same reading again", async () => {
+    let refusedId = "";
+    const { db, input } = await mount(makePack(1), async (db) => {
+      const r = await recordReading(db, { jobId: 1, stationId: "bore/1/top/A", value: 4.0302, unit: "in" }, { deviceId: "tab-test", takenBy: 7 });
+      refusedId = r.id;
+      await applyPushResults(db, [r], [{ index: 0, id: r.id, status: "rejected", code: "invalid", reason: "The gauge was retired before this reading" }]);
+    });
+    expect((await screen.findByText(/refused by the server/)).textContent).toMatch(/1 reading was refused/);
+    expect(screen.getAllByText(/The gauge was retired before this reading/).length).toBeGreaterThan(0);
+    fireEvent.click(screen.getByRole("button", { name: "Fix it" }));
+    expect(screen.getByTestId("where").getAttribute("data-station")).toBe("bore/1/top/A");
+    await act(async () => type(input, "4.0301"));
+    await waitFor(async () => expect((await db.readings.get(refusedId))?.state).toBe("pending"));
+    expect(await db.readings.count()).toBe(1);
+    expect((await db.readings.get(refusedId))?.value).toBe(4.0301);
+    expect(await db.outbox.get(refusedId)).toBeTruthy();
+  });
+});
