@@ -1,4 +1,5 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import { Op, UniqueConstraintError, type Transaction } from "sequelize";
 import { Customer, Job, MailOutbox, type JsonObject } from "@/models";
 import { getSequelize } from "./db";
@@ -47,12 +48,21 @@ export const releaseMailKey = (releaseId: number) => `build_record:release:${rel
  * or the release was already queued. The notifier queues any release this was not called for.
  */
 export async function enqueueReleaseMail(t: Transaction | null, o: { shopId: number; jobId: number; releaseId: number }): Promise<boolean> {
+  return queueRecord(t, o, releaseMailKey(o.releaseId));
+}
+
+/** The shop sends the record again (a customer asked for a new link): a new message each time. */
+export async function enqueueRecordResend(t: Transaction | null, o: { shopId: number; jobId: number; releaseId: number }): Promise<boolean> {
+  return queueRecord(t, o, `${releaseMailKey(o.releaseId)}:again:${randomUUID()}`);
+}
+
+async function queueRecord(t: Transaction | null, o: { shopId: number; jobId: number; releaseId: number }, dedupeKey: string): Promise<boolean> {
   getSequelize();
   const job = await Job.findOne({ where: { id: o.jobId, shopId: o.shopId }, transaction: t ?? undefined });
   const customer = job ? await Customer.findOne({ where: { id: job.customerId, shopId: o.shopId }, transaction: t ?? undefined }) : null;
   if (!job || !customer?.email) return false;
   return enqueueMail(t, {
-    shopId: o.shopId, kind: "build_record", to: customer.email, dedupeKey: releaseMailKey(o.releaseId),
+    shopId: o.shopId, kind: "build_record", to: customer.email, dedupeKey,
     subject: `Build record ${job.code}: ${job.title}`, payload: { jobId: o.jobId, releaseId: o.releaseId },
   });
 }

@@ -2,15 +2,16 @@
 // rendered to PNG (pdftoppm, when installed) for a person to look at in tests/artifacts/.
 import { execFileSync } from "node:child_process";
 import { existsSync, mkdirSync, writeFileSync } from "node:fs";
-import { QueryTypes } from "sequelize";
+import { Op, QueryTypes } from "sequelize";
 import { describe, expect, it } from "vitest";
 import { GET } from "@/app/api/record/[jobId]/pdf/route";
+import { POST as send } from "@/app/api/record/[jobId]/send/route";
 import { getSequelize } from "@/lib/server/db";
-import { Release } from "@/models";
+import { Customer, MailOutbox, Release } from "@/models";
 import { createShop, type TestUser } from "../support/factories";
 import { ACCEPT_REASON, createRecordJob } from "../support/record-fixtures";
 import { pdfText } from "../support/pdf-text";
-import { asUser } from "../support/requests";
+import { asUser, call } from "../support/requests";
 
 async function getPdf(user: TestUser | null, jobId: number, query = "") {
   const res = await GET(await asUser(user, "GET", `/api/record/${jobId}/pdf${query}`), { params: Promise.resolve({ jobId: String(jobId) }) });
@@ -103,5 +104,24 @@ describe("GET /api/record/[jobId]/pdf", () => {
     expect((await getPdf(null, job.job.id)).status).toBe(401);
     expect((await getPdf(other.users.lead, job.job.id)).status).toBe(404);
     expect((await getPdf(job.users.lead, job.job.id, "?release=99999999")).status).toBe(404);
+  });
+
+  it("POST /api/record/[jobId]/send queues the record to the customer again, with words when it cannot", async () => {
+    const job = await createRecordJob({ photo: false });
+    const other = await createShop();
+    const post = async (user: TestUser, jobId = job.job.id) => call(send, await asUser(user, "POST", `/api/record/${jobId}/send`), { jobId: String(jobId) });
+    expect((await post(job.users.inspector)).status).toBe(202);
+    expect((await post(job.users.lead)).status).toBe(202);
+    expect(await MailOutbox.count({ where: { shopId: job.shop.id, dedupeKey: { [Op.startsWith]: `build_record:release:${job.release!.id}:again:` } } })).toBe(2);
+    expect((await post(job.users.machinist)).status).toBe(403);
+    expect((await post(other.users.lead, job.job.id)).status).toBe(404);
+    const draft = await createRecordJob({ release: false, photo: false });
+    const refused = await post(draft.users.inspector, draft.job.id);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toContain("no standing release");
+    await Customer.update({ email: null }, { where: { shopId: job.shop.id } });
+    const noMail = await post(job.users.inspector);
+    expect(noMail.status).toBe(409);
+    expect(noMail.body.error.message).toContain("no e-mail address");
   });
 });

@@ -44,7 +44,7 @@ function cellContent(content: ReactNode) {
 export function Table<T>({ columns, rows, note }: { columns: Column<T>[]; rows: T[]; note?: (row: T) => string }) {
   return (
     <View style={s.table}>
-      <View style={s.th} fixed>
+      <View style={s.th} fixed minPresenceAhead={24}>
         {columns.map((c) => (
           <Text key={c.title} style={[s.cell, { width: c.width }]}>{c.title}</Text>
         ))}

@@ -1,0 +1,14 @@
+import { checkCustomerToken } from "@/lib/server/customer-link";
+import { customerView } from "@/lib/server/customer-link-repo";
+import { open } from "@/lib/server/route";
+import { pdfResponse, recordFileName, renderRecordPdf } from "@/lib/server/record/record-pdf";
+
+// Public: the customer's download of the one record their signed link names. A link that has
+// expired or been altered goes back to /r/<token>, which says so in words and whom to ask.
+export const GET = open<{ token: string }>(async ({ req, params }) => {
+  const back = new URL(`/r/${encodeURIComponent(params.token)}`, req.url);
+  if (!checkCustomerToken(params.token).ok) return Response.redirect(back, 303);
+  const view = await customerView(params.token);
+  if (view.status !== "ok") return Response.redirect(back, 303);
+  return pdfResponse(await renderRecordPdf(view.record), recordFileName(view.record), "attachment");
+});
