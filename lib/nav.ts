@@ -7,6 +7,7 @@ export const NAV: Record<Role, { href: string; label: string }[]> = {
     { href: "/desk", label: "Jobs" },
     { href: "/desk/flags", label: "Flags" },
     { href: "/desk/specs", label: "Spec sheets" },
+    { href: "/release", label: "Release" },
     { href: "/audit", label: "Audit" },
     { href: "/bench", label: "Bench" },
   ],
