@@ -78,7 +78,7 @@ export async function runNotifierOnce(opts: { now?: Date } = {}): Promise<Notifi
   return { releaseMails, digests, ready, delivered, errors };
 }
 
-const holder = globalThis as unknown as { __tenthwiseNotifier?: { timer: NodeJS.Timeout } };
+const holder = globalThis as unknown as { __tenthwiseNotifier?: { timer: NodeJS.Timeout; first: NodeJS.Timeout } };
 
 /** Starts the timer once per process; NOTIFY_INTERVAL_SECONDS=0 leaves it off. */
 export function startNotifier(): boolean {
@@ -99,7 +99,19 @@ export function startNotifier(): boolean {
   };
   const timer = setInterval(tick, seconds * 1000);
   timer.unref();
-  setTimeout(tick, Math.min(15, seconds) * 1000).unref();
-  holder.__tenthwiseNotifier = { timer };
+  const first = setTimeout(tick, Math.min(15, seconds) * 1000);
+  first.unref();
+  holder.__tenthwiseNotifier = { timer, first };
   return true;
 }
+
+/** Stops the timer (tests, and a clean shutdown). */
+export function stopNotifier(): void {
+  const n = holder.__tenthwiseNotifier;
+  if (!n) return;
+  clearInterval(n.timer);
+  clearTimeout(n.first);
+  holder.__tenthwiseNotifier = undefined;
+}
+
+export const notifierRunning = () => !!holder.__tenthwiseNotifier;
