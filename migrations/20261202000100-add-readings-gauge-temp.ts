@@ -7,5 +7,7 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
 }
 
 export async function down({ context: qi }: MigrationParams): Promise<void> {
-  await qi.removeColumn("readings", "gauge_temp_c");
+  // Plain SQL: Sequelize's mariadb removeColumn issues an untyped raw query that the mariadb 3.x
+  // driver rejects ("Cannot delete property 'meta'"), see STACK.md.
+  await qi.sequelize.query("ALTER TABLE `readings` DROP COLUMN `gauge_temp_c`");
 }
