@@ -7,7 +7,7 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
 }
 
 export async function down({ context: qi }: MigrationParams): Promise<void> {
-  // Plain SQL: Sequelize's mariadb removeColumn issues an untyped raw query that the mariadb 3.x
-  // driver rejects ("Cannot delete property 'meta'"), see STACK.md.
-  await qi.sequelize.query("ALTER TABLE `readings` DROP COLUMN `gauge_temp_c`");
+  // Plain SQL: QueryInterface.removeColumn first runs an untyped raw SELECT for foreign keys, which
+  // Sequelize 6 cannot read back from mariadb 3.x ("Cannot delete property 'meta'", STACK.md).
+  await qi.sequelize.query("ALTER TABLE readings DROP COLUMN gauge_temp_c");
 }

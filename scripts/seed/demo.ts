@@ -4,6 +4,7 @@ import bcrypt from "bcryptjs";
 import { readFileSync } from "node:fs";
 import { getSequelize } from "@/lib/server/db";
 import { Customer, Engine, Instrument, Job, JobLimit, Shop, SpecLimit, SpecTemplate, User } from "@/models";
+import { seedDemoReadings } from "./demo-readings";
 import { STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-specs";
 
 type Demo = { shop: string; password: string; accounts: { role: "machinist" | "lead" | "inspector" | "admin"; name: string; email: string }[] };
@@ -78,5 +79,5 @@ export async function seedDemo(): Promise<DemoContext> {
   ];
   for (const { key, ...g } of gauges) instruments[key] = (await Instrument.create({ shopId: shop.id, ...g })).id;
 
-  return { shopId: shop.id, users, jobs, instruments };
+  return seedDemoReadings({ shopId: shop.id, users, jobs, instruments });
 }
