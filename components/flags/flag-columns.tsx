@@ -33,7 +33,7 @@ export const flagColumns = [
   col.accessor("value", { id: "value", header: "Value", cell: ({ row }) => <span className="tabular whitespace-nowrap">{withUnit(row.original.value, row.original.unit)}</span> }),
   col.display({ id: "limits", header: "Limits", ...fixed, cell: ({ row }) => <span className="tabular whitespace-nowrap text-sm">{limitsText(row.original.limitMin, row.original.limitMax, row.original.unit)}</span> }),
   col.accessor("deviation", { id: "deviation", header: "Deviation", cell: ({ row }) => <span className="whitespace-nowrap text-sm">{deviationText(row.original.deviation, row.original.unit)}</span> }),
-  col.accessor("verdict", { id: "verdict", header: "Verdict", cell: ({ row }) => <VerdictBadge verdict={row.original.verdict} size="sm" /> }),
+  col.accessor("verdict", { id: "verdict", header: "Verdict", cell: ({ row }) => <span className="whitespace-nowrap"><VerdictBadge verdict={row.original.verdict} size="sm" /></span> }),
   col.accessor("reason", { id: "reason", header: "Reason", cell: ({ row }) => <ReasonTag reason={row.original.reason} /> }),
   col.display({
     id: "gauge", header: "Gauge", ...fixed,

@@ -41,6 +41,7 @@ export function beyondLimit(value: number, min: number | null, max: number | nul
 
 export function age(iso: string, now = Date.now()): string {
   const minutes = Math.max(0, Math.round((now - Date.parse(iso)) / 60_000));
+  if (minutes < 1) return "under 1 min";
   if (minutes < 60) return `${minutes} min`;
   const hours = Math.round(minutes / 60);
   if (hours < 48) return `${hours} h`;

@@ -19,14 +19,28 @@ export function SquareDot({ cx, cy, index, value }: DotProps) {
   return <rect key={`b-${index}`} x={cx - 5} y={cy - 5} width={10} height={10} fill="white" stroke={STEEL} strokeWidth={2.5} />;
 }
 
-/** Axis range covering the figures and the limits, with room around them. */
-export function domainOf(values: (number | null | undefined)[]): [number, number] | undefined {
+const round = (x: number) => Number(x.toFixed(9));
+
+/**
+ * Axis range and round ticks covering the figures and the limits: a step of 1, 2 or 5 × 10ⁿ
+ * giving at most five intervals, so ticks read 4.0298, 4.0300… rather than 4.02977.
+ */
+export function scaleOf(values: (number | null | undefined)[]): { domain: [number, number]; ticks: number[] } | undefined {
   const xs = values.filter((v): v is number => typeof v === "number" && Number.isFinite(v));
   if (!xs.length) return undefined;
-  const lo = Math.min(...xs);
-  const hi = Math.max(...xs);
-  const pad = hi === lo ? Math.max(Math.abs(hi) * 0.0002, 0.0005) : (hi - lo) * 0.25;
-  return [lo - pad, hi + pad];
+  let lo = Math.min(...xs);
+  let hi = Math.max(...xs);
+  const span = hi - lo || Math.max(Math.abs(hi) * 0.0001, 0.0001);
+  lo -= span * 0.15;
+  hi += span * 0.15;
+  const raw = (hi - lo) / 5;
+  const mag = 10 ** Math.floor(Math.log10(raw));
+  const step = [1, 2, 5, 10].map((m) => m * mag).find((s) => s >= raw) ?? 10 * mag;
+  const first = round(Math.floor(lo / step) * step);
+  const last = round(Math.ceil(hi / step) * step);
+  const ticks: number[] = [];
+  for (let t = first; t <= last + step / 2; t = round(t + step)) ticks.push(t);
+  return { domain: [first, last], ticks };
 }
 
 export function Legend({ a, b }: { a: string; b: string }) {
@@ -48,4 +62,8 @@ export function Legend({ a, b }: { a: string; b: string }) {
   );
 }
 
-export const distinct = (xs: (number | null)[]) => [...new Set(xs.filter((x): x is number => x !== null))];
+/** The limit lines of a chart: each distinct minimum and maximum, labelled min or max. */
+export function limitLines(points: { min: number | null; max: number | null }[]): { value: number; label: "min" | "max" }[] {
+  const of = (k: "min" | "max") => [...new Set(points.map((p) => p[k]).filter((x): x is number => x !== null))].map((value) => ({ value, label: k }));
+  return [...of("min"), ...of("max")];
+}

@@ -4,7 +4,7 @@ import { CartesianGrid, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } 
 import { figure, limitsText, withUnit } from "@/components/flags/format";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
 import type { DeckCorner } from "@/lib/server/maps";
-import { distinct, domainOf, LIMIT, LINE_A, LINE_B, MUTED, RoundDot, SquareDot } from "./chart-parts";
+import { limitLines, LIMIT, LINE_A, LINE_B, MUTED, RoundDot, scaleOf, SquareDot } from "./chart-parts";
 
 // Deck height at each corner: one line per bank (left solid/round, right dashed/square), front
 // to rear, against the limit lines; a tilt from front to rear or a step between banks shows at once.
@@ -16,8 +16,8 @@ export function DeckCard({ corners, unit }: { corners: DeckCorner[]; unit: strin
     at: corner === "front" ? "Front" : "Rear",
     ...Object.fromEntries(banks.map((b) => [b, corners.find((c) => c.bank === b && c.corner === corner)?.point.value ?? null])),
   }));
-  const limits = distinct(corners.flatMap((c) => [c.point.min, c.point.max]));
-  const domain = domainOf([...corners.map((c) => c.point.value), ...limits]);
+  const limits = limitLines(corners.map((c) => c.point));
+  const scale = scaleOf([...corners.map((c) => c.point.value), ...limits.map((l) => l.value)]);
   const hasData = corners.some((c) => c.point.value !== null);
   const first = corners.find((c) => c.point.min !== null || c.point.max !== null)?.point;
   return (
@@ -27,11 +27,11 @@ export function DeckCard({ corners, unit }: { corners: DeckCorner[]; unit: strin
         <span className="text-xs text-muted">{first ? limitsText(first.min, first.max, unit) : ""}</span>
       </figcaption>
       {hasData ? (
-        <LineChart width={420} height={220} data={data} margin={{ top: 8, right: 24, bottom: 4, left: 8 }}>
+        <LineChart width={420} height={220} data={data} margin={{ top: 10, right: 34, bottom: 4, left: 4 }}>
           <CartesianGrid stroke="rgb(var(--c-rule))" strokeDasharray="1 4" />
-          <XAxis type="category" dataKey="at" tick={{ fontSize: 12, fill: MUTED }} />
-          <YAxis type="number" domain={domain ?? ["auto", "auto"]} tickFormatter={(v: number) => figure(v, unit)} tick={{ fontSize: 11, fill: MUTED }} width={64} />
-          {limits.map((v) => <ReferenceLine key={v} y={v} {...LIMIT} label={{ value: figure(v, unit), position: "right", fontSize: 10, fill: MUTED }} />)}
+          <XAxis type="category" dataKey="at" tick={{ fontSize: 12, fill: MUTED }} padding={{ left: 40, right: 40 }} />
+          <YAxis type="number" domain={scale?.domain ?? ["auto", "auto"]} ticks={scale?.ticks} interval={0} tickFormatter={(v: number) => figure(v, unit)} tick={{ fontSize: 11, fill: MUTED }} width={64} />
+          {limits.map((l) => <ReferenceLine key={`${l.label}${l.value}`} y={l.value} {...LIMIT} label={{ value: l.label, position: "right", fontSize: 10, fill: MUTED }} />)}
           <Tooltip formatter={(v) => (typeof v === "number" ? withUnit(v, unit) : String(v))} />
           {banks.map((b, i) => (
             <Line key={b} dataKey={b} name={BANK_WORDS[b] ?? b} {...(i === 0 ? LINE_A : LINE_B)} dot={i === 0 ? RoundDot : SquareDot} activeDot={false} isAnimationActive={false} connectNulls={false} />

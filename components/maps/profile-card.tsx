@@ -4,7 +4,7 @@ import { CartesianGrid, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } 
 import { figure, limitsText, withUnit } from "@/components/flags/format";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
 import type { Figure, Profile } from "@/lib/server/maps";
-import { distinct, domainOf, LIMIT, LINE_A, LINE_B, MUTED, RoundDot, SquareDot } from "./chart-parts";
+import { limitLines, LIMIT, LINE_A, LINE_B, MUTED, RoundDot, scaleOf, SquareDot } from "./chart-parts";
 
 // One bore or journal: diameter at each depth (or end) on both axes against the limit lines.
 // Bores stand upright (top of bore at the top), journals lie along the crank (front left).
@@ -29,12 +29,13 @@ function FigureLine({ name, f, unit }: { name: string; f: Figure; unit: string }
 
 export function ProfileCard({ p, unit, upright }: { p: Profile; unit: string; upright: boolean }) {
   const data = p.rows.map((r) => ({ at: AT_WORDS[r.at] ?? r.at, A: r.A.value, B: r.B.value }));
-  const limits = distinct(p.rows.flatMap((r) => [r.A.min, r.A.max, r.B.min, r.B.max]));
-  const domain = domainOf([...data.flatMap((d) => [d.A, d.B]), ...limits]);
+  const limits = limitLines(p.rows.flatMap((r) => [r.A, r.B]));
+  const scale = scaleOf([...data.flatMap((d) => [d.A, d.B]), ...limits.map((l) => l.value)]);
   const hasData = data.some((d) => d.A !== null || d.B !== null);
   const tick = (v: number) => figure(v, unit);
-  const valueAxis = { type: "number" as const, domain: domain ?? ["auto", "auto"], tickFormatter: tick, tick: { fontSize: 11, fill: MUTED }, allowDataOverflow: false };
-  const placeAxis = { type: "category" as const, dataKey: "at", tick: { fontSize: 12, fill: MUTED } };
+  const valueAxis = { type: "number" as const, domain: scale?.domain ?? ["auto", "auto"], ticks: scale?.ticks, tickFormatter: tick, tick: { fontSize: 11, fill: MUTED }, interval: 0 as const };
+  // Room at the ends of the place axis so the first and last depth (or end) are not on the frame.
+  const placeAxis = { type: "category" as const, dataKey: "at", tick: { fontSize: 12, fill: MUTED }, padding: upright ? { top: 14, bottom: 14 } : { left: 28, right: 28 } };
   const refLine = (v: number) => (upright ? { x: v } : { y: v });
   const first = p.rows.find((r) => r.A.min !== null || r.A.max !== null)?.A ?? p.rows[0]?.A;
   return (
@@ -44,12 +45,12 @@ export function ProfileCard({ p, unit, upright }: { p: Profile; unit: string; up
         <span className="text-xs text-muted">{first ? limitsText(first.min, first.max, unit) : ""}</span>
       </figcaption>
       {hasData ? (
-        <LineChart width={upright ? 300 : 300} height={upright ? 200 : 180} data={data} layout={upright ? "vertical" : "horizontal"} margin={{ top: 8, right: 16, bottom: 4, left: 8 }}>
+        <LineChart width={300} height={upright ? 210 : 190} data={data} layout={upright ? "vertical" : "horizontal"} margin={upright ? { top: 18, right: 18, bottom: 4, left: 4 } : { top: 10, right: 34, bottom: 4, left: 4 }}>
           <CartesianGrid stroke="rgb(var(--c-rule))" strokeDasharray="1 4" />
           {upright ? <XAxis {...valueAxis} /> : <XAxis {...placeAxis} />}
           {upright ? <YAxis {...placeAxis} width={60} /> : <YAxis {...valueAxis} width={64} />}
-          {limits.map((v) => (
-            <ReferenceLine key={v} {...refLine(v)} {...LIMIT} ifOverflow="extendDomain" label={{ value: figure(v, unit), position: upright ? "top" : "right", fontSize: 10, fill: MUTED }} />
+          {limits.map((l) => (
+            <ReferenceLine key={`${l.label}${l.value}`} {...refLine(l.value)} {...LIMIT} label={{ value: l.label, position: upright ? "top" : "right", fontSize: 10, fill: MUTED }} />
           ))}
           <Tooltip formatter={(v) => (typeof v === "number" ? withUnit(v, unit) : String(v))} />
           <Line dataKey="A" name="Axis A" {...LINE_A} dot={RoundDot} activeDot={false} isAnimationActive={false} connectNulls={false} />

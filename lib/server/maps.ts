@@ -1,7 +1,8 @@
 import "server-only";
 import {
   AXES, BORE_DEPTHS, JOURNAL_POSITIONS, cleanDecimal, convertLength, deckBanks, deriveReadings, evaluateReading, lengthUnitOf,
-  rodJournalCount, type DerivedValue, type EngineShape, type LengthUnit, type RawReading, type SpecLimit, type Verdict,
+  limitsFor, parseStationId, rodJournalCount, type DerivedValue, type EngineShape, type LengthUnit, type LimitContext,
+  type NominalSizes, type RawReading, type SpecLimit, type Verdict,
 } from "@/lib/domain";
 import { toRaw } from "./ingest-evaluate";
 import { loadJobContext } from "./job-context";
@@ -27,13 +28,25 @@ export type JobMaps = {
 };
 
 type Judge = (stationId: string) => MapPoint;
+const SIZE: Record<string, keyof NominalSizes> = { bore: "bore", main: "mainJournal", rod: "rodJournal" };
+
+/** The limit at a station not read yet (findLimit/resolveLimit), so the chart still shows its lines. */
+function limitOnly(stationId: string, shape: EngineShape, spec: SpecLimit[], unit: LengthUnit) {
+  const p = parseStationId(stationId);
+  const size = shape.nominalSizes?.[SIZE[p.section] ?? "bore"];
+  const context: LimitContext = size && SIZE[p.section] ? { nominal: { value: size, unit }, diameter: { value: size, unit } } : {};
+  return p.characteristic ? limitsFor(spec, p.characteristic, stationId, context).limits : undefined;
+}
 
 function judgeWith(raws: Map<string, RawReading>, shape: EngineShape, spec: SpecLimit[], unit: LengthUnit): Judge {
   const all = [...raws.values()];
   const inUnit = (x: number | undefined, from: string) => (x === undefined ? null : from === unit ? x : cleanDecimal(convertLength(x, from as LengthUnit, unit)));
   return (stationId) => {
     const raw = raws.get(stationId);
-    if (!raw) return { value: null, min: null, max: null, verdict: null };
+    if (!raw) {
+      const l = limitOnly(stationId, shape, spec, unit);
+      return { value: null, min: inUnit(l?.min, l?.unit ?? unit), max: inUnit(l?.max, l?.unit ?? unit), verdict: null };
+    }
     try {
       const e = evaluateReading(raw, shape, spec, all);
       const from = e.limits?.unit ?? e.unit;

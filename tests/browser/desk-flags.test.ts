@@ -8,6 +8,8 @@ import { request, type APIRequestContext, type Browser, type Page } from "playwr
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { BASE_URL, launchBrowser, newTabletPage, screenshot } from "../support/browser";
 
+// Data arrives through TanStack Query after hydration; give the server time on a cold start.
+const WAIT = { timeout: 15_000 };
 const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
 const email = (role: string) => demo.accounts.find((a) => a.role === role)!.email;
 
@@ -78,7 +80,7 @@ describe("the lead's flag queue", () => {
   it("lists the job's flags with words, verdict and reason; sorting and filters live in the URL", async () => {
     await page.goto(`/desk/flags?job=${jobId}`);
     const table = page.getByTestId("flag-table");
-    await expect.poll(() => table.textContent()).toMatch(/Cylinder 5 · top of bore · axis A \(thrust\)/);
+    await expect.poll(() => table.textContent(), WAIT).toMatch(/Cylinder 5 · top of bore · axis A \(thrust\)/);
     const text = (await table.textContent()) ?? "";
     expect(text).toMatch(/Out of spec/);
     expect(text).toMatch(/Main journal 3 · front end · axis A/);
@@ -93,7 +95,7 @@ describe("the lead's flag queue", () => {
     await page.getByLabel("Measure again").check();
     await page.getByLabel("Note for the machinist (optional)").fill("Re-zero on the setting ring, then read again");
     await page.getByRole("button", { name: "Record decision" }).click();
-    await expect.poll(() => decisions().textContent()).toMatch(/Measure again.*Re-zero on the setting ring/s);
+    await expect.poll(() => decisions().textContent(), WAIT).toMatch(/Measure again.*Re-zero on the setting ring/s);
     const pack = await (await rosa.get(`/api/bench/jobs/${jobId}`)).json();
     expect(pack.flags.find((f: { id: number }) => f.id === id)).toMatchObject({ disposition: "measure_again", revisit: true, stations: [STATIONS.measure] });
   });
@@ -104,17 +106,17 @@ describe("the lead's flag queue", () => {
     await page.getByRole("button", { name: "hone", exact: true }).click();
     expect(await page.getByLabel("Operation", { exact: true }).inputValue()).toBe("hone");
     await page.getByRole("button", { name: "Record decision" }).click();
-    await expect.poll(() => decisions().textContent()).toMatch(/Machine again: hone/);
+    await expect.poll(() => decisions().textContent(), WAIT).toMatch(/Machine again: hone/);
   });
 
   it("accept: refused without a reason (and nothing typed is lost), recorded with one; the verdict stays", async () => {
     await openFlag(/Main journal 3 · front end/);
     await page.getByLabel("Accept as is").check();
     await page.getByRole("button", { name: "Record decision" }).click();
-    await expect.poll(() => page.getByText(/Write why this value is accepted/).count()).toBeGreaterThan(0);
+    await expect.poll(() => page.getByText(/Write why this value is accepted/).count(), WAIT).toBeGreaterThan(0);
     await page.getByLabel(/Why is it accepted as it is/).fill("Crank to be ground undersize by the customer's own shop; recorded as received");
     await page.getByRole("button", { name: "Record decision" }).click();
-    await expect.poll(() => decisions().textContent()).toMatch(/Accepted as is.*Reason: Crank to be ground/s);
+    await expect.poll(() => decisions().textContent(), WAIT).toMatch(/Accepted as is.*Reason: Crank to be ground/s);
     expect(await page.locator('[data-verdict="out_of_spec"]').count()).toBeGreaterThan(0);
     await screenshot(page, "desk-flag-accepted");
   });
@@ -122,10 +124,11 @@ describe("the lead's flag queue", () => {
   it("a new in-spec reading closes the measure-again flag; its decision stays on record", async () => {
     const id = await openFlag(/Cylinder 5 · top of bore/);
     const pack = await (await rosa.get(`/api/bench/jobs/${jobId}`)).json();
-    const old = pack.readings.find((r: { stationId: string; supersededBy: string | null }) => r.stationId === STATIONS.measure && !r.supersededBy);
-    await send(STATIONS.measure, 4.0301, old.id);
+    // The machinist's correction of the flagged reading (the tablet sends `supersedes`).
+    const flagged = pack.flags.find((f: { id: number }) => f.id === id).readingId;
+    await send(STATIONS.measure, 4.0301, flagged);
     await page.goto(`/desk/flags/${id}`);
-    await expect.poll(() => page.getByRole("note").filter({ hasText: /Closed/ }).count()).toBeGreaterThan(0);
+    await expect.poll(() => page.getByRole("note").filter({ hasText: /Closed/ }).count(), WAIT).toBeGreaterThan(0);
     expect(await decisions().textContent()).toMatch(/Measure again/);
     expect(await page.getByRole("button", { name: "Record decision" }).count()).toBe(0);
     await screenshot(page, "desk-flag-closed");

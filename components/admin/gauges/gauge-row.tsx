@@ -33,11 +33,11 @@ export function GaugeRow({ gauge, canEdit, onEdit }: { gauge: InstrumentRecord; 
           <div className="text-xs">{gauge.dialPlusMeansSmaller ? "Plus on the dial = smaller bore" : "Plus on the dial = larger bore"}</div>
         )}
       </td>
-      <td className="p-3 text-sm tabular">
+      <td className="whitespace-nowrap p-3 text-sm tabular">
         <div>Resolution {gauge.resolution} {unit}</div>
         <div>U = {gauge.expandedU} {unit} (k = {gauge.coverageK})</div>
       </td>
-      <td className="p-3 text-sm tabular">
+      <td className="whitespace-nowrap p-3 text-sm tabular">
         <div>Calibrated {gauge.calibratedOn}</div>
         <div className="font-semibold text-ink">Due {gauge.calibrationDue}</div>
       </td>
