@@ -45,12 +45,12 @@ export const BUILD_KINDS = ["street", "endurance", "marine", "diesel", "drag", "
 export const SPEC_FILE_FORMAT = "tenthwise.spec-template";
 
 export const LIMIT_TYPE_WORDS: Record<(typeof LIMIT_TYPES)[number], string> = {
-  min_max: "Between a minimum and a maximum",
-  nominal_tol: "Nominal size ± tolerances",
-  max_only: "At most (maximum only)",
-  min_only: "At least (minimum only)",
+  min_max: "Minimum and maximum",
+  nominal_tol: "Nominal ± tolerances",
+  max_only: "Maximum only",
+  min_only: "Minimum only",
   per_inch: "Per inch of diameter",
-  iso286: "ISO 286 tolerance class",
+  iso286: "ISO 286 class",
 };
 
 /** The value fields each limit type uses; the others are cleared when a limit is stored. */

@@ -155,6 +155,11 @@ describe("export and import", () => {
     expect(res.status).toBe(EDITORS.has(role) ? 201 : 403);
   });
 
+  it("413 for a file far larger than any sheet", async () => {
+    const res = await call(IMPORT as never, await asUser(a.users.lead, "POST", "/api/specs/import", "x".repeat(1_000_001), { "content-length": "1000001" }));
+    expect(res.status).toBe(413);
+  });
+
   it("400 for a file that is not JSON", async () => {
     expect((await call(IMPORT as never, await asUser(a.users.lead, "POST", "/api/specs/import", "{\"format\":"))).status).toBe(400);
   });

@@ -36,15 +36,19 @@ function LimitsForm({ view }: { view: JobLimitsView }) {
       <form noValidate onSubmit={form.handleSubmit((v) => save.mutate(v))} className="flex flex-col gap-5">
         <Notice title="Saving re-judges the job">Every current reading and computed value of this job is checked again against the limits you save. Flags open for values that fall outside and close for values now in spec; each change is in the audit trail with the limits before and after.</Notice>
         <SpecLimitsEditor lengthUnit={view.job.unitSystem} />
-        <ServerError error={save.error} />
-        {r && !form.formState.isDirty && (
-          <p role="status" className="rounded-tool border-2 border-pass bg-pass-soft p-3 font-medium text-ink">
-            Saved as revision {save.data!.job.specRevision}: {plural(r.reevaluated, "reading")} re-judged with a new result, {plural(r.opened, "flag")} opened, {plural(r.closed, "flag")} closed, {plural(r.updated, "flag")} updated.
-          </p>
-        )}
-        <div className="sticky bottom-0 flex gap-3 border-t-2 border-rule bg-paper py-3">
-          <Button type="submit" big disabled={save.isPending}>{save.isPending ? "Saving and re-judging…" : "Save limits"}</Button>
-          <a href={`/desk/jobs/${id}`} className="inline-flex min-h-16 items-center rounded-tool border-2 border-rule bg-panel px-6 text-lg font-semibold">Back to the job</a>
+        {/* The outcome sits in the bar that stays on screen, beside the button that caused it. */}
+        <div className="sticky bottom-0 flex flex-col gap-2 border-t-2 border-rule bg-paper py-3">
+          <ServerError error={save.error} />
+          {form.formState.submitCount > 0 && !form.formState.isValid && <p role="alert" className="font-medium text-fail">Some limits need fixing; each one says what to change.</p>}
+          {r && !form.formState.isDirty && (
+            <p role="status" className="rounded-tool border-2 border-pass bg-pass-soft p-3 font-medium text-ink">
+              Saved as revision {save.data!.job.specRevision}: {plural(r.reevaluated, "reading")} re-judged with a new result, {plural(r.opened, "flag")} opened, {plural(r.closed, "flag")} closed, {plural(r.updated, "flag")} updated.
+            </p>
+          )}
+          <div className="flex gap-3">
+            <Button type="submit" big disabled={save.isPending}>{save.isPending ? "Saving and re-judging…" : "Save limits"}</Button>
+            <a href={`/desk/jobs/${id}`} className="inline-flex min-h-16 items-center rounded-tool border-2 border-rule bg-panel px-6 text-lg font-semibold">Back to the job</a>
+          </div>
         </div>
       </form>
     </FormProvider>

@@ -14,7 +14,10 @@ import { JobSummary } from "./job-summary";
 import { keys, useJob, type JobDetail } from "./queries";
 
 // The job's desk page: who and what, where it stands, and the way to everything else about it.
-const NEXT_STATUS: Record<string, "measuring" | "review" | undefined> = { intake: "measuring", measuring: "review" };
+const NEXT_STATUS: Record<string, { to: "measuring" | "review"; words: string } | undefined> = {
+  intake: { to: "measuring", words: "Start measuring" },
+  measuring: { to: "review", words: "Send to review" },
+};
 const materialWords = (m: string | null) => (m ? (EXPANSION_COEFFICIENTS as Record<string, { label: string }>)[m]?.label ?? m : "not recorded");
 const btn = "inline-flex min-h-11 items-center rounded-tool border-2 border-rule bg-panel px-4 font-semibold hover:border-steel";
 
@@ -31,8 +34,16 @@ function Facts({ d }: { d: JobDetail }) {
       <Fact label="Engine">{e.description}<span className="block text-sm text-muted">{e.cylinders} cylinders, {e.layout === "v" ? "V" : e.layout}, {e.mains} mains, {e.valvesPerCylinder} valves a cylinder</span></Fact>
       <Fact label="Nominal bore × stroke"><span className="tabular">{e.nominalBore} × {e.nominalStroke} {u}</span></Fact>
       <Fact label="Units">{u === "mm" ? "Metric (mm, N·m)" : "Inch (in, lbf·ft)"}</Fact>
-      <Fact label="Materials">Block {materialWords(e.blockMaterial)}<span className="block text-sm text-muted">Head {materialWords(e.headMaterial)} · pistons {materialWords(e.pistonMaterial)}</span></Fact>
-      <Fact label="Serials"><span className="font-mono text-sm">Block {e.blockSerial ?? "—"} · crank {e.crankSerial ?? "—"} · heads {e.headSerials ?? "—"}</span></Fact>
+      <Fact label="Materials">
+        <span className="block">Block: {materialWords(e.blockMaterial)}</span>
+        <span className="block text-sm text-muted">Head: {materialWords(e.headMaterial)}</span>
+        <span className="block text-sm text-muted">Pistons: {materialWords(e.pistonMaterial)}</span>
+      </Fact>
+      <Fact label="Serials">
+        <span className="block text-sm">Block <span className="font-mono">{e.blockSerial ?? "not recorded"}</span></span>
+        <span className="block text-sm">Crank <span className="font-mono">{e.crankSerial ?? "not recorded"}</span></span>
+        <span className="block text-sm">Heads <span className="font-mono">{e.headSerials ?? "not recorded"}</span></span>
+      </Fact>
       <Fact label="Spec sheet">{d.job.templateName ?? "Template since deleted"}<span className="block text-sm text-muted">{d.job.limitCount} limits on the job · revision {d.job.specRevision}</span></Fact>
       <Fact label="Due">{d.job.dueDate ?? "No date"}</Fact>
       {d.job.notes && <div className="sm:col-span-2 lg:col-span-4"><Fact label="Notes"><span className="whitespace-pre-line">{d.job.notes}</span></Fact></div>}
@@ -53,7 +64,7 @@ function StatusMove({ d }: { d: JobDetail }) {
   if (!next) return null;
   return (
     <>
-      <Button onClick={() => move.mutate(next)} disabled={move.isPending}>{move.isPending ? "Moving…" : `Move to ${STATUS_WORDS[next].toLowerCase()}`}</Button>
+      <Button onClick={() => move.mutate(next.to)} disabled={move.isPending} title={`Status becomes “${STATUS_WORDS[next.to]}”`}>{move.isPending ? "Saving…" : next.words}</Button>
       {move.error && <div className="w-full"><ServerError error={move.error} /></div>}
     </>
   );

@@ -53,12 +53,14 @@ export function SpecTemplateForm({ template, jobCount = 0 }: { template?: Templa
           <AreaField wrapClass="md:col-span-3" label="Notes" rows={2} error={messageOf(errors.notes)} {...register("notes")} />
         </fieldset>
         <SpecLimitsEditor lengthUnit={unit} />
-        <ServerError error={save.error} />
-        {submitCount > 0 && !isValid && <Notice tone="error">Some fields need fixing; each one says what to change.</Notice>}
-        {save.isSuccess && !isDirty && <p role="status" className="font-medium text-pass">Saved: version {save.data.template.version}.</p>}
-        <div className="sticky bottom-0 flex gap-3 border-t-2 border-rule bg-paper py-3">
-          <Button type="submit" big disabled={save.isPending}>{save.isPending ? "Saving…" : template ? "Save sheet" : "Create sheet"}</Button>
-          <Button type="button" tone="quiet" big onClick={() => router.push("/desk/specs")}>Back to sheets</Button>
+        <div className="sticky bottom-0 flex flex-col gap-2 border-t-2 border-rule bg-paper py-3">
+          <ServerError error={save.error} />
+          {submitCount > 0 && !isValid && <p role="alert" className="font-medium text-fail">Some fields need fixing; each one says what to change.</p>}
+          {save.isSuccess && !isDirty && <p role="status" className="font-medium text-pass">Saved: version {save.data.template.version}.</p>}
+          <div className="flex gap-3">
+            <Button type="submit" big disabled={save.isPending}>{save.isPending ? "Saving…" : template ? "Save sheet" : "Create sheet"}</Button>
+            <Button type="button" tone="quiet" big onClick={() => router.push("/desk/specs")}>Back to sheets</Button>
+          </div>
         </div>
       </form>
     </FormProvider>
