@@ -16,7 +16,7 @@ export function RoundDot({ cx, cy, index, value }: DotProps) {
 
 export function SquareDot({ cx, cy, index, value }: DotProps) {
   if (cx === undefined || cy === undefined || value === null || value === undefined) return <g key={`b-${index}`} />;
-  return <rect key={`b-${index}`} x={cx - 5} y={cy - 5} width={10} height={10} fill="white" stroke={STEEL} strokeWidth={2.5} />;
+  return <rect key={`b-${index}`} x={cx - 6} y={cy - 6} width={12} height={12} fill="none" stroke={STEEL} strokeWidth={2.5} />;
 }
 
 const round = (x: number) => Number(x.toFixed(9));
@@ -51,7 +51,7 @@ export function Legend({ a, b }: { a: string; b: string }) {
         {a}: solid line, round marker
       </li>
       <li className="flex items-center gap-2">
-        <svg width="44" height="14" aria-hidden="true"><line x1="2" y1="7" x2="42" y2="7" {...LINE_B} /><rect x="17" y="2" width="10" height="10" fill="white" stroke={STEEL} strokeWidth="2.5" /></svg>
+        <svg width="44" height="14" aria-hidden="true"><line x1="2" y1="7" x2="42" y2="7" {...LINE_B} /><rect x="16" y="1" width="12" height="12" fill="none" stroke={STEEL} strokeWidth="2.5" /></svg>
         {b}: dashed line, square marker
       </li>
       <li className="flex items-center gap-2">

@@ -21,7 +21,7 @@ export function DeckCard({ corners, unit }: { corners: DeckCorner[]; unit: strin
   const hasData = corners.some((c) => c.point.value !== null);
   const first = corners.find((c) => c.point.min !== null || c.point.max !== null)?.point;
   return (
-    <figure className="flex flex-col gap-2 rounded-tool border-2 border-rule bg-panel p-3 print:break-inside-avoid" data-testid="map-deck">
+    <figure className="flex max-w-xl flex-col gap-2 rounded-tool border-2 border-rule bg-panel p-3 print:break-inside-avoid" data-testid="map-deck">
       <figcaption className="flex items-baseline justify-between gap-2">
         <span className="font-semibold">Deck height by corner</span>
         <span className="text-xs text-muted">{first ? limitsText(first.min, first.max, unit) : ""}</span>
