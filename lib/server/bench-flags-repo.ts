@@ -3,6 +3,7 @@ import { Op, QueryTypes, type Transaction } from "sequelize";
 import { Flag, decimalToNumber } from "@/models";
 import type { BenchFlag } from "@/lib/schemas/sync";
 import { getSequelize } from "./db";
+import { insertMany } from "./sql-insert";
 
 // Flags as the bench and the reconciler see them. The lead's desk (dispositions) has its own
 // repo; this one only opens, re-evaluates and closes flags, and reads them for the tablet.
@@ -47,12 +48,10 @@ const NEW_COLUMNS: [string, keyof NewFlag][] = [
 export async function createFlags(t: Transaction, rows: NewFlag[]): Promise<number[]> {
   if (rows.length === 0) return [];
   const now = new Date();
-  const [firstId] = await getSequelize().query(
-    `INSERT INTO flags (${NEW_COLUMNS.map(([c]) => c).join(",")},state,created_at,updated_at) VALUES ${rows.map(() => `(${NEW_COLUMNS.map(() => "?").join(",")},'open',?,?)`).join(",")}`,
-    { replacements: rows.flatMap((r) => [...NEW_COLUMNS.map(([, k]) => r[k]), now, now]), type: QueryTypes.INSERT, transaction: t },
-  );
+  const firstId = await insertMany(t, "flags", [...NEW_COLUMNS.map(([c]) => c), "state", "created_at", "updated_at"],
+    rows.map((r) => [...NEW_COLUMNS.map(([, k]) => r[k]), "open", now, now]));
   // A multi-row INSERT takes consecutive auto-increment ids (InnoDB "simple insert").
-  return rows.map((_, i) => Number(firstId) + i);
+  return rows.map((_, i) => firstId + i);
 }
 
 export async function updateFlag(t: Transaction, id: number, patch: FlagPatch): Promise<void> {

@@ -3,6 +3,7 @@ import { Op, QueryTypes, type Transaction } from "sequelize";
 import { Instrument, decimalToNumber } from "@/models";
 import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize } from "./db";
+import { insertMany } from "./sql-insert";
 import type { InstrumentInfo, ReadingFacts } from "./ingest-evaluate";
 
 // Readings and the gauges they were taken with. Plain objects out; every query scoped by shop or
@@ -113,13 +114,9 @@ const INSERT_COLUMNS: [string, keyof NewReading][] = [
 
 /** One multi-row INSERT; rows must already be in foreign-key order (a correction after its target). */
 export async function insertReadings(t: Transaction, rows: NewReading[]): Promise<void> {
-  if (rows.length === 0) return;
-  const tuple = `(${INSERT_COLUMNS.map(() => "?").join(",")},?,?)`;
   const now = new Date();
-  await getSequelize().query(
-    `INSERT INTO readings (${INSERT_COLUMNS.map(([c]) => c).join(",")},created_at,updated_at) VALUES ${rows.map(() => tuple).join(",")}`,
-    { replacements: rows.flatMap((r) => [...INSERT_COLUMNS.map(([, k]) => r[k]), now, now]), type: QueryTypes.INSERT, transaction: t },
-  );
+  await insertMany(t, "readings", [...INSERT_COLUMNS.map(([c]) => c), "created_at", "updated_at"],
+    rows.map((r) => [...INSERT_COLUMNS.map(([, k]) => r[k]), now, now]));
 }
 
 export async function updateEvaluation(
