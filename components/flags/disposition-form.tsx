@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, type UseFormReturn } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { api, ApiError } from "@/lib/client/api";
@@ -19,6 +19,24 @@ const KINDS: { kind: Values["kind"]; title: string; words: string }[] = [
 ];
 
 const area = "min-h-24 w-full rounded-tool border-2 bg-paper p-3 text-base";
+
+/** The operation: the usual ones as one-tap choices, or anything the lead types. */
+function OperationField({ form, error }: { form: UseFormReturn<Values, unknown, DispositionInput>; error?: string }) {
+  return (
+    <div className="flex flex-col gap-2">
+      <label htmlFor="operation" className="font-medium">Operation</label>
+      <div className="flex flex-wrap gap-2" role="group" aria-label="Common operations">
+        {MACHINE_OPERATIONS.map((op) => (
+          <button key={op} type="button" onClick={() => form.setValue("operation", op, { shouldValidate: true })} className="min-h-11 rounded-full border-2 border-rule px-3 text-sm font-medium hover:border-steel">
+            {op}
+          </button>
+        ))}
+      </div>
+      <input id="operation" className={`min-h-12 rounded-tool border-2 bg-paper px-3 text-lg ${error ? "border-fail" : "border-rule"}`} placeholder="Pick one above or type another" {...form.register("operation")} />
+      {error && <span className="text-sm font-medium text-fail">{error}</span>}
+    </div>
+  );
+}
 
 export function DispositionForm({ flagId }: { flagId: number }) {
   const qc = useQueryClient();
@@ -54,20 +72,7 @@ export function DispositionForm({ flagId }: { flagId: number }) {
           </label>
         ))}
       </fieldset>
-      {kind === "machine_again" && (
-        <div className="flex flex-col gap-2">
-          <label htmlFor="operation" className="font-medium">Operation</label>
-          <div className="flex flex-wrap gap-2" role="group" aria-label="Common operations">
-            {MACHINE_OPERATIONS.map((op) => (
-              <button key={op} type="button" onClick={() => form.setValue("operation", op, { shouldValidate: true })} className="min-h-11 rounded-full border-2 border-rule px-3 text-sm font-medium hover:border-steel">
-                {op}
-              </button>
-            ))}
-          </div>
-          <input id="operation" className={`min-h-12 rounded-tool border-2 bg-paper px-3 text-lg ${e.operation ? "border-fail" : "border-rule"}`} placeholder="Pick one above or type another" {...form.register("operation")} />
-          {e.operation && <span className="text-sm font-medium text-fail">{e.operation.message}</span>}
-        </div>
-      )}
+      {kind === "machine_again" && <OperationField form={form} error={e.operation?.message} />}
       {kind === "accept" ? (
         <label className="flex flex-col gap-1.5">
           <span className="font-medium">Why is it accepted as it is? (required)</span>

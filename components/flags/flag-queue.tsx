@@ -1,7 +1,7 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
-import { flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useMemo } from "react";
 import { Notice } from "@/components/ui/notice";
@@ -9,6 +9,7 @@ import { api } from "@/lib/client/api";
 import { flagListQuerySchema, type FlagListQuery, type FlagPage } from "@/lib/schemas/flag";
 import { flagColumns } from "./flag-columns";
 import { FlagFilters, type JobOption } from "./flag-filters";
+import { FlagTable } from "./flag-table";
 import { Pager } from "./pager";
 
 // The queue's state lives in the URL (?job=12&state=open&sort=age…), so a job page can link
@@ -22,11 +23,6 @@ function toParams(q: FlagListQuery): string {
   const p = new URLSearchParams();
   for (const [k, v] of Object.entries(q)) if (v !== undefined) p.set(k, String(v));
   return p.toString();
-}
-
-function SortMark({ dir }: { dir: false | "asc" | "desc" }) {
-  if (!dir) return <span aria-hidden="true" className="text-rule">↕</span>;
-  return <span aria-hidden="true">{dir === "asc" ? "▲" : "▼"}</span>;
 }
 
 export function FlagQueue({ jobs }: { jobs: JobOption[] }) {
@@ -62,32 +58,7 @@ export function FlagQueue({ jobs }: { jobs: JobOption[] }) {
       <FlagFilters value={q} jobs={jobs} onChange={set} />
       {flags.isError && <Notice tone="error" title="Could not load the flags">{flags.error.message} Try again in a moment.</Notice>}
       <div className="overflow-x-auto rounded-tool border-2 border-rule bg-panel" aria-busy={flags.isFetching}>
-        <table className="w-full min-w-[72rem] text-left" data-testid="flag-table">
-          <thead className="bg-paper text-sm text-muted">
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id}>
-                {hg.headers.map((h) => (
-                  <th key={h.id} className="p-2 font-semibold" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === "asc" ? "ascending" : "descending") : undefined}>
-                    {h.column.getCanSort() ? (
-                      <button type="button" className="inline-flex min-h-11 items-center gap-1 hover:text-ink" onClick={h.column.getToggleSortingHandler()}>
-                        {flexRender(h.column.columnDef.header, h.getContext())} <SortMark dir={h.column.getIsSorted()} />
-                      </button>
-                    ) : (
-                      flexRender(h.column.columnDef.header, h.getContext())
-                    )}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="border-t-2 border-rule align-top hover:bg-paper" data-flag-id={row.original.id}>
-                {row.getVisibleCells().map((cell) => <td key={cell.id} className="p-2">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>)}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <FlagTable table={table} />
         {flags.isPending && <p className="p-4 text-muted">Loading flags…</p>}
         {page && page.total === 0 && (
           <p className="p-6 text-muted" data-testid="flags-empty">

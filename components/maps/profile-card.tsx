@@ -27,6 +27,32 @@ function FigureLine({ name, f, unit }: { name: string; f: Figure; unit: string }
   );
 }
 
+/** The figures under the chart; only a verdict that needs attention gets a badge. */
+function PointsTable({ rows, unit }: { rows: Profile["rows"]; unit: string }) {
+  return (
+    <table className="w-full text-sm">
+      <thead className="text-xs text-muted">
+        <tr><th className="text-left font-medium"><span className="sr-only">Where</span></th><th className="text-left font-medium">Axis A</th><th className="text-left font-medium">Axis B</th></tr>
+      </thead>
+      <tbody>
+        {rows.map((r) => (
+          <tr key={r.at}>
+            <td className="py-0.5 pr-2 text-muted">{AT_WORDS[r.at] ?? r.at}</td>
+            {[r.A, r.B].map((pt, i) => (
+              <td key={i} className="py-0.5 pr-2">
+                <span className="flex flex-wrap items-center gap-1">
+                  <span className="tabular">{figure(pt.value, unit)}</span>
+                  {pt.verdict && pt.verdict !== "in_spec" && <VerdictBadge verdict={pt.verdict} size="sm" />}
+                </span>
+              </td>
+            ))}
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
 export function ProfileCard({ p, unit, upright }: { p: Profile; unit: string; upright: boolean }) {
   const data = p.rows.map((r) => ({ at: AT_WORDS[r.at] ?? r.at, A: r.A.value, B: r.B.value }));
   const limits = limitLines(p.rows.flatMap((r) => [r.A, r.B]));
@@ -59,26 +85,7 @@ export function ProfileCard({ p, unit, upright }: { p: Profile; unit: string; up
       ) : (
         <p className="flex h-24 items-center justify-center rounded-tool border-2 border-dashed border-rule text-sm text-muted">No readings yet</p>
       )}
-      <table className="w-full text-sm">
-        <thead className="text-xs text-muted">
-          <tr><th className="text-left font-medium"> </th><th className="text-left font-medium">Axis A</th><th className="text-left font-medium">Axis B</th></tr>
-        </thead>
-        <tbody>
-          {p.rows.map((r) => (
-            <tr key={r.at}>
-              <td className="py-0.5 pr-2 text-muted">{AT_WORDS[r.at] ?? r.at}</td>
-              {[r.A, r.B].map((pt, i) => (
-                <td key={i} className="py-0.5 pr-2">
-                  <span className="flex flex-wrap items-center gap-1">
-                    <span className="tabular">{figure(pt.value, unit)}</span>
-                    {pt.verdict && pt.verdict !== "in_spec" && <VerdictBadge verdict={pt.verdict} size="sm" />}
-                  </span>
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <PointsTable rows={p.rows} unit={unit} />
       <FigureLine name="Taper" f={p.taper} unit={unit} />
       <FigureLine name="Out-of-round" f={p.outOfRound} unit={unit} />
     </figure>

@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, type UseFormReturn } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { TextField } from "@/components/ui/text-field";
@@ -20,6 +20,21 @@ function initial(g?: InstrumentRecord): InstrumentValues {
   if (!g) return { kind: "outside_mic", label: "", serial: "", unit: "in", resolution: Number.NaN, expandedU: Number.NaN, calibratedOn: "", calibrationDue: "", dialPlusMeansSmaller: true };
   const { kind, label, serial, unit, resolution, expandedU, calibratedOn, calibrationDue, dialPlusMeansSmaller } = g;
   return { kind, label, serial, unit, resolution, expandedU, calibratedOn, calibrationDue, dialPlusMeansSmaller };
+}
+
+/** Only for dial bore gauges: which way the dial reads, so the tablet turns a dial reading into a diameter. */
+function DialSignField({ form }: { form: UseFormReturn<InstrumentValues, unknown, InstrumentInput> }) {
+  return (
+    <label className="flex items-start gap-3">
+      <input type="checkbox" className="mt-1 h-6 w-6" {...form.register("dialPlusMeansSmaller")} />
+      <span>
+        <span className="font-medium">Plus on the dial means a smaller bore</span>
+        <span className="block text-sm text-muted">
+          Most dial bore gauges read plus when the bore is smaller than the size they were zeroed on. Untick it for a gauge that reads the other way; the tablet uses this to turn the dial reading into a diameter.
+        </span>
+      </span>
+    </label>
+  );
 }
 
 export function GaugeForm({ gauge, onDone }: { gauge?: InstrumentRecord; onDone: () => void }) {
@@ -82,17 +97,7 @@ export function GaugeForm({ gauge, onDone }: { gauge?: InstrumentRecord; onDone:
         <TextField label="Calibrated on" type="date" error={e.calibratedOn?.message} {...form.register("calibratedOn")} />
         <TextField label="Calibration due" type="date" hint="Readings taken after this date are flagged" error={e.calibrationDue?.message} {...form.register("calibrationDue")} />
       </div>
-      {kind === "bore_gauge_dial" && (
-        <label className="flex items-start gap-3">
-          <input type="checkbox" className="mt-1 h-6 w-6" {...form.register("dialPlusMeansSmaller")} />
-          <span>
-            <span className="font-medium">Plus on the dial means a smaller bore</span>
-            <span className="block text-sm text-muted">
-              Most dial bore gauges read plus when the bore is smaller than the size they were zeroed on. Untick it for a gauge that reads the other way; the tablet uses this to turn the dial reading into a diameter.
-            </span>
-          </span>
-        </label>
-      )}
+      {kind === "bore_gauge_dial" && <DialSignField form={form} />}
       <div className="flex gap-3">
         <Button type="submit" disabled={save.isPending}>{save.isPending ? "Saving…" : gauge ? "Save changes" : "Register gauge"}</Button>
         <Button type="button" tone="quiet" onClick={onDone}>Cancel</Button>
