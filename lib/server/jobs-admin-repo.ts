@@ -7,6 +7,7 @@ import { recordAudit } from "./audit";
 import { recordChange } from "./changes";
 import { getSequelize } from "./db";
 import { AppError, notFound } from "./errors";
+import { lockReasonOf } from "./ingest-check";
 
 // Creating and editing jobs from the desk. Every write is one transaction with its audit
 // event; a job's status change also goes on the change feed so tablets see it.
@@ -89,13 +90,15 @@ export async function createJob(actor: Actor, v: JobValues): Promise<{ id: numbe
   });
 }
 
-/** Released and closed jobs, and a job under a standing release (lockedAt), are locked. */
-export function isJobLocked(job: Pick<Job, "status" | "lockedAt">): boolean {
-  return job.status === "released" || job.status === "closed" || !!job.lockedAt;
+type LockFacts = Pick<Job, "code" | "status" | "lockedAt" | "updatedAt">;
+
+/** Released and closed jobs, and a job under a standing release, are locked (the ingest's own rule). */
+export function isJobLocked(job: LockFacts): boolean {
+  return lockReasonOf(job) !== null;
 }
 
 /** Locked jobs are not edited from the desk (job, limits, build plan). */
-export function assertJobEditable(job: Pick<Job, "status" | "lockedAt">): void {
+export function assertJobEditable(job: LockFacts): void {
   if (isJobLocked(job)) {
     throw new AppError("job_locked", `This job is ${job.lockedAt && job.status !== "closed" ? "released" : job.status} and locked; the inspector must void the release before it can change`);
   }

@@ -63,6 +63,23 @@ describe("jobs on the desk", () => {
     expect(await page.getByRole("status").filter({ hasText: "of" }).textContent()).toMatch(/^1 of \d+ jobs$/);
   });
 
+  it("fits a tablet held landscape: nothing wider than the screen", async () => {
+    const tablet = (await newTabletPage(browser, { width: 1024, height: 768 })).page;
+    await signIn(tablet, email("lead"), demo.password);
+    await tablet.getByRole("row", { name: /KF-2611/ }).waitFor();
+    const overflow = () => tablet.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(await overflow()).toBeLessThanOrEqual(0);
+    await screenshot(tablet, "desk-jobs-board-tablet");
+    await tablet.getByRole("link", { name: /Pickup V8 rebuild/ }).click();
+    await tablet.getByRole("heading", { name: "Readings" }).waitFor();
+    expect(await overflow()).toBeLessThanOrEqual(0);
+    await screenshot(tablet, "desk-job-page-tablet");
+    await tablet.getByRole("link", { name: /Build plan/ }).click();
+    await tablet.getByLabel("Rod length, centre to centre").waitFor();
+    expect(await overflow()).toBeLessThanOrEqual(0);
+    await screenshot(tablet, "desk-plan-tablet");
+  });
+
   it("the admin reads the board but cannot create jobs", async () => {
     const other = (await newTabletPage(browser, { width: 1440, height: 900 })).page;
     await signIn(other, email("admin"), demo.password);

@@ -49,7 +49,7 @@ function SortHeader({ k, label, sort, setSort }: { k: SortKey; label: string; so
 function DueCell({ job, today }: { job: BoardJob; today: string }) {
   if (!job.dueDate) return <span className="text-muted">No date</span>;
   const late = job.dueDate < today && job.status !== "released" && job.status !== "closed";
-  return <span className="tabular">{job.dueDate}{late && <span className="ml-2 rounded-tool border border-fail px-1 text-xs font-semibold text-fail">overdue</span>}</span>;
+  return <span className="whitespace-nowrap tabular">{job.dueDate}{late && <span className="ml-2 rounded-tool border border-fail px-1 text-xs font-semibold text-fail">overdue</span>}</span>;
 }
 
 function Row({ j, today }: { j: BoardJob; today: string }) {
