@@ -7,6 +7,8 @@ import { request, type APIRequestContext, type Browser, type Page } from "playwr
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { BASE_URL, launchBrowser, newTabletPage, screenshot } from "../support/browser";
 
+// Data arrives through TanStack Query after hydration; give the server time on a cold start.
+const WAIT = { timeout: 15_000 };
 const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
 const email = (role: string) => demo.accounts.find((a) => a.role === role)!.email;
 
@@ -46,7 +48,7 @@ describe("gauges and calibration", () => {
   it("shows the demo gauges with their status in words", async () => {
     await admin.goto("/admin/gauges");
     const table = admin.getByRole("region", { name: "Gauges" });
-    await expect.poll(() => table.textContent()).toMatch(/KF-DB-07/);
+    await expect.poll(() => table.textContent(), WAIT).toMatch(/KF-DB-07/);
     const text = (await table.textContent()) ?? "";
     expect(text).toMatch(/In calibration/);
     await screenshot(admin, "admin-gauges");
@@ -61,7 +63,7 @@ describe("gauges and calibration", () => {
     await form.getByLabel("Calibration due").fill(day(-60));
     await form.getByRole("button", { name: "Register gauge" }).click();
     // Every problem at once, each beside its field.
-    await expect.poll(() => form.textContent()).toMatch(/Resolution must be a number/);
+    await expect.poll(() => form.textContent(), WAIT).toMatch(/Resolution must be a number/);
     expect(await form.textContent()).toMatch(/due date must come after the calibration date/);
     expect(await form.textContent()).toMatch(/Expanded uncertainty U must be a number/);
     expect(await form.getByLabel("Serial number").inputValue()).toBe(SERIAL);
@@ -75,14 +77,14 @@ describe("gauges and calibration", () => {
     await form.getByLabel("Calibrated on").fill(day(-400));
     await form.getByLabel("Calibration due").fill(day(-35));
     await form.getByRole("button", { name: "Register gauge" }).click();
-    await expect.poll(() => row().textContent()).toMatch(/Past due.*35 days over/s);
+    await expect.poll(() => row().textContent(), WAIT).toMatch(/Past due.*35 days over/s);
     await admin.getByText(/past the calibration due date/).first().waitFor();
   });
 
   it("takes a calibration certificate upload and shows its link", async () => {
     const pdf = Buffer.from("%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n");
     await row().getByLabel(/Calibration certificate for/).setInputFiles({ name: "old-gauge-cert.pdf", mimeType: "application/pdf", buffer: pdf });
-    await expect.poll(() => row().textContent()).toMatch(/Certificate: old-gauge-cert\.pdf/);
+    await expect.poll(() => row().textContent(), WAIT).toMatch(/Certificate: old-gauge-cert\.pdf/);
     await screenshot(admin, "admin-gauges-past-due");
   });
 
@@ -103,7 +105,7 @@ describe("gauges and calibration", () => {
     await signInAs(page, email("lead"));
     await page.goto(`/desk/flags?job=${jobId}&reason=gauge_past_due`);
     const table = page.getByTestId("flag-table");
-    await expect.poll(() => table.textContent()).toMatch(/Cylinder 6 · bottom of bore · axis B \(pin\)/);
+    await expect.poll(() => table.textContent(), WAIT).toMatch(/Cylinder 6 · bottom of bore · axis B \(pin\)/);
     expect(await table.textContent()).toMatch(/Gauge past calibration due/);
     expect(await table.textContent()).toMatch(new RegExp(SERIAL));
     await screenshot(page, "desk-flags-gauge-past-due");

@@ -7,6 +7,8 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { BASE_URL, launchBrowser, newTabletPage, screenshot } from "../support/browser";
 
+// Data arrives through TanStack Query after hydration; give the server time on a cold start.
+const WAIT = { timeout: 15_000 };
 const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
 const adminEmail = demo.accounts.find((a) => a.role === "admin")!.email;
 
@@ -53,7 +55,7 @@ describe("users", () => {
     await form.getByLabel("Name").fill("Wendell Quarry");
     await form.getByLabel("E-mail").fill("not-an-address");
     await form.getByRole("button", { name: "Create account" }).click();
-    await expect.poll(() => form.textContent()).toMatch(/Enter an e-mail like/);
+    await expect.poll(() => form.textContent(), WAIT).toMatch(/Enter an e-mail like/);
     await form.getByLabel("E-mail").fill(NEW_EMAIL);
     await form.getByRole("button", { name: "Create account" }).click();
     const shown = page.getByTestId("temporary-password");
@@ -81,13 +83,13 @@ describe("users", () => {
   it("changes the role, deactivates and reactivates", async () => {
     const r = row(NEW_EMAIL);
     await r.getByRole("combobox").selectOption("inspector");
-    await expect.poll(async () => r.getByRole("combobox").inputValue()).toBe("inspector");
+    await expect.poll(async () => r.getByRole("combobox").inputValue(), WAIT).toBe("inspector");
     await r.getByRole("button", { name: "Deactivate" }).click();
     await r.getByRole("button", { name: /Yes, deactivate/ }).click();
-    await expect.poll(() => r.textContent()).toMatch(/Deactivated/);
+    await expect.poll(() => r.textContent(), WAIT).toMatch(/Deactivated/);
     expect(await canSignIn(NEW_EMAIL, "any")).toBe(false);
     await screenshot(page, "admin-users");
     await r.getByRole("button", { name: "Reactivate" }).click();
-    await expect.poll(() => r.textContent()).toMatch(/Active/);
+    await expect.poll(() => r.textContent(), WAIT).toMatch(/Active/);
   });
 });

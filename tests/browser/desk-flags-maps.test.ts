@@ -6,6 +6,8 @@ import { request, type APIRequestContext, type Browser, type Page } from "playwr
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { BASE_URL, launchBrowser, screenshot } from "../support/browser";
 
+// Data arrives through TanStack Query after hydration; give the server time on a cold start.
+const WAIT = { timeout: 15_000 };
 const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
 const email = (role: string) => demo.accounts.find((a) => a.role === role)!.email;
 
