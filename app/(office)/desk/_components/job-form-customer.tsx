@@ -1,5 +1,6 @@
 "use client";
 
+import { useEffect } from "react";
 import { useFormContext } from "react-hook-form";
 import type { JobInput } from "@/lib/schemas/job";
 import { Field, SelectField, asNumber, messageOf } from "./fields";
@@ -7,11 +8,15 @@ import { useCustomers } from "./queries";
 
 // Pick a customer of the shop, or enter a new one (created with the job, in one transaction).
 export function JobFormCustomer() {
-  const { register, watch, formState: { errors } } = useFormContext<JobInput>();
+  const { register, watch, setValue, formState: { errors } } = useFormContext<JobInput>();
   const customers = useCustomers();
   const mode = watch("customer.mode");
   const e = errors.customer as Record<string, { message?: string } | undefined> | undefined;
   const noneYet = customers.isSuccess && customers.data.length === 0;
+  // A shop with no customers yet starts on "new", so the first job needs no extra click.
+  useEffect(() => {
+    if (noneYet && mode === "existing") setValue("customer.mode", "new");
+  }, [noneYet, mode, setValue]);
   return (
     <fieldset className="flex flex-col gap-4 rounded-tool border-2 border-rule bg-panel p-4">
       <legend className="px-1 text-lg font-semibold">Customer</legend>

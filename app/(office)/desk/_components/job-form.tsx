@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { FormProvider, useForm } from "react-hook-form";
+import { FormProvider, useForm, type DefaultValues } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { api } from "@/lib/client/api";
 import { DESK_STATUSES, jobEditSchema, jobSchema, type JobInput, type JobValues } from "@/lib/schemas/job";
@@ -15,13 +15,12 @@ import { keys, useTemplates, type JobDetail } from "./queries";
 
 // Create or edit a job with the one shared schema (lib/schemas/job.ts). Creating picks the
 // spec sheet whose limits the job copies; editing leaves the job's own limits alone.
-export const NEW_JOB: JobInput = {
-  code: "", title: "", customer: { mode: "existing", id: null as unknown as number }, unitSystem: "in", templateId: null as unknown as number,
-  dueDate: "", status: "intake", notes: "",
+// Customer, spec sheet, bore and stroke start empty: the lead must choose or enter them.
+export const NEW_JOB: DefaultValues<JobInput> = {
+  code: "", title: "", customer: { mode: "existing" }, unitSystem: "in", dueDate: "", status: "intake", notes: "",
   engine: {
     description: "", cylinders: 8, layout: "v", mains: 5, valvesPerCylinder: 2, ringsPerPiston: 3, boltsPerRod: 2,
-    nominalBore: null as unknown as number, nominalStroke: null as unknown as number, blockMaterial: "greyCastIron",
-    headMaterial: null, pistonMaterial: null, blockSerial: "", crankSerial: "", headSerials: "", fuel: null,
+    blockMaterial: "greyCastIron", headMaterial: null, pistonMaterial: null, blockSerial: "", crankSerial: "", headSerials: "", fuel: null,
   },
 };
 
@@ -46,7 +45,7 @@ export function JobForm({ job }: { job?: JobDetail }) {
   const router = useRouter();
   const form = useForm<JobInput, unknown, JobValues>({
     resolver: zodResolver((editing ? jobEditSchema : jobSchema) as typeof jobSchema),
-    defaultValues: job ? (editValuesOf(job) as JobInput) : NEW_JOB,
+    defaultValues: job ? (editValuesOf(job) as DefaultValues<JobInput>) : NEW_JOB,
     mode: "onTouched",
   });
   const { templates, active } = useActiveTemplates();

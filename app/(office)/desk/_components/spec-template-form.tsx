@@ -15,19 +15,22 @@ import { SpecLimitsEditor, blankLimit } from "./spec-limits-editor";
 // A spec sheet template: header and limits, one schema for form and route (lib/schemas/spec.ts).
 const NEW_TEMPLATE: TemplateInput = { name: "", engineKind: "", buildKind: "street", unitSystem: "in", notes: "", limits: [blankLimit("in")] };
 
+/** The form's values of a stored sheet (only the schema's fields: the form is checked strictly). */
+const valuesOf = (t: TemplateRecord): TemplateInput => ({ name: t.name, engineKind: t.engineKind, buildKind: t.buildKind, unitSystem: t.unitSystem, notes: t.notes ?? "", limits: t.limits });
+
 export function SpecTemplateForm({ template, jobCount = 0 }: { template?: TemplateRecord; jobCount?: number }) {
   const qc = useQueryClient();
   const router = useRouter();
   const form = useForm<TemplateInput, unknown, TemplateValues>({
     resolver: zodResolver(templateSchema),
-    defaultValues: template ? { name: template.name, engineKind: template.engineKind, buildKind: template.buildKind, unitSystem: template.unitSystem, notes: template.notes ?? "", limits: template.limits } : NEW_TEMPLATE,
+    defaultValues: template ? valuesOf(template) : NEW_TEMPLATE,
   });
   const save = useMutation({
     mutationFn: (v: TemplateValues) => api<{ template: TemplateRecord }>(template ? `/api/specs/${template.id}` : "/api/specs", { method: template ? "PUT" : "POST", json: v }),
     onSuccess: async ({ template: saved }) => {
       qc.setQueryData(keys.spec(saved.id), (old: { jobCount: number } | undefined) => ({ template: saved, jobCount: old?.jobCount ?? 0 }));
       await qc.invalidateQueries({ queryKey: keys.specs });
-      form.reset({ ...saved, notes: saved.notes ?? "" });
+      form.reset(valuesOf(saved));
       if (!template) router.replace(`/desk/specs/${saved.id}`);
     },
     onError: (err) => applyFieldErrors(err, form.setError as never),
