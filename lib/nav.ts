@@ -8,11 +8,14 @@ export const NAV: Record<Role, { href: string; label: string }[]> = {
     { href: "/desk/flags", label: "Flags" },
     { href: "/desk/specs", label: "Spec sheets" },
     { href: "/release", label: "Release" },
+    { href: "/admin/gauges", label: "Gauges" },
     { href: "/audit", label: "Audit" },
     { href: "/bench", label: "Bench" },
   ],
   inspector: [
     { href: "/release", label: "Release" },
+    { href: "/desk/flags", label: "Flags" },
+    { href: "/admin/gauges", label: "Gauges" },
     { href: "/audit", label: "Audit" },
   ],
   admin: [
