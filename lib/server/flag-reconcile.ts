@@ -8,7 +8,7 @@ import { recordAudits, recordChanges, type ChangeInput } from "./bulk-log-repo";
 import { newestInput, planFlags, wantedDerived, wantedRaw, type Closer } from "./flag-reconcile-plan";
 import { gaugePastDue, round6, sameEvaluation, storedEvaluation, toRaw } from "./ingest-evaluate";
 import { loadJobContext, type JobContext } from "./job-context";
-import { currentReadings, findInstruments, jobReadings, lockJobs, updateEvaluation, type StoredReading } from "./readings-repo";
+import { currentReadings, jobReadingsWithGauges, lockJobs, updateEvaluation, type StoredReading } from "./readings-repo";
 
 // The ONE mechanism that keeps a job's stored verdicts and flags in line with its readings and
 // limits. Ingest calls it after writing readings; a limits edit calls it after changing job_limits.
@@ -35,9 +35,10 @@ export type ReconcileOptions = {
   /** Why, for the audit trail: e.g. 'sync', 'limits-edit', 'gauge-edit'. */
   cause: string;
   /**
-   * Readings written in this same transaction (ingest). Their creation is audited by the caller, and
-   * only they (and ring gaps whose bore they change) are re-evaluated: every other current reading
-   * was judged against these same limits when it arrived or at the last reconciliation.
+   * Readings written in this same transaction (ingest), already judged and stored with their verdict.
+   * Their creation is audited by the caller, and only ring gaps whose bore they change are judged
+   * again: every other current reading was judged against these same limits when it arrived or at
+   * the last reconciliation.
    * Leave it out to re-evaluate everything (after a limits or gauge edit).
    */
   fresh?: ReadonlySet<string>;
@@ -60,11 +61,16 @@ const storedOf = (r: StoredReading): ReadingEvaluation => ({
   verdict: r.verdict, verdictNote: r.verdictNote, unit: r.unit, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation,
 });
 
-/** Which current readings to judge again: all, or (ingest) the fresh ones and the ring gaps of their bores. */
+/**
+ * Which current readings to judge again: all of them, or (ingest) only the ring gaps whose bore
+ * changed. A fresh reading was judged by ingest against these same limits and gauge, and stored
+ * with that verdict; only a ring gap's limit depends on other readings (its bore's diameter).
+ */
 function toJudge(current: StoredReading[], fresh?: ReadonlySet<string>): (r: StoredReading) => boolean {
   if (!fresh) return () => true;
-  const cylinders = new Set(current.filter((r) => fresh.has(r.id) && r.stationId.startsWith("bore/")).map((r) => parseStationId(r.stationId).cylinder));
-  return (r) => fresh.has(r.id) || (r.stationId.startsWith("ring-gap/") && cylinders.has(parseStationId(r.stationId).cylinder));
+  const cylinderOf = (r: StoredReading) => parseStationId(r.stationId).cylinder;
+  const cylinders = new Set(current.filter((r) => fresh.has(r.id) && r.stationId.startsWith("bore/")).map(cylinderOf));
+  return (r) => r.stationId.startsWith("ring-gap/") && (fresh.has(r.id) || cylinders.has(cylinderOf(r)));
 }
 
 function evaluateCurrent(ctx: JobContext, current: StoredReading[], raws: RawReading[], past: boolean[], judge: (r: StoredReading) => boolean) {
@@ -128,8 +134,8 @@ export async function reconcileJob(t: Transaction, o: ReconcileOptions): Promise
     ctx = await loadJobContext(o.shopId, o.jobId, t);
   }
   // With a context the caller locked the job before its first read, so its snapshot is fresh.
-  const current = currentReadings(await jobReadings(t, o.jobId, !o.context));
-  const instruments = await findInstruments(t, o.shopId, current.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])));
+  const { readings, instruments } = await jobReadingsWithGauges(t, o.shopId, o.jobId, !o.context);
+  const current = currentReadings(readings);
   const inst = (r: StoredReading) => (r.instrumentId ? instruments.get(r.instrumentId) : undefined);
   const raws = current.map((r) => toRaw(r, inst(r)));
   const past = current.map((r) => gaugePastDue(inst(r), r.takenAt));

@@ -35,13 +35,25 @@ function parseItems(raw: unknown[]): Parsed[] {
   });
 }
 
+// Station ids per engine shape (keyed by its JSON, so an edited engine never meets a stale route).
+const routeCache = new Map<string, Set<string>>();
+function routeIdsOf(shape: BatchJob["shape"]): Set<string> {
+  const key = JSON.stringify(shape);
+  let ids = routeCache.get(key);
+  if (!ids) {
+    if (routeCache.size > 100) routeCache.clear();
+    ids = new Set(benchRoute(shape).sections.flatMap((s) => s.stations.map((st) => st.id)));
+    routeCache.set(key, ids);
+  }
+  return ids;
+}
+
 async function batchContext(t: Transaction, actor: Actor, deviceId: string, items: PushReading[]): Promise<BatchContext> {
   const owned = await lockJobs(t, actor.shopId, items.map((i) => i.jobId));
   const jobs = new Map<number, BatchJob>();
   for (const id of owned) {
     const ctx = await loadJobContext(actor.shopId, id, t);
-    const routeIds = new Set(benchRoute(ctx.shape).sections.flatMap((s) => s.stations.map((st) => st.id)));
-    jobs.set(id, { ...ctx, routeIds, lockReason: lockReasonOf(ctx.job) });
+    jobs.set(id, { ...ctx, routeIds: routeIdsOf(ctx.shape), lockReason: lockReasonOf(ctx.job) });
   }
   const supersedes = items.flatMap((i) => (i.supersedes ? [i.supersedes] : []));
   const instruments = await findInstruments(t, actor.shopId, items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : [])));

@@ -94,6 +94,33 @@ export async function jobReadings(t: Transaction | undefined, jobId: number, loc
   return selectReadings("job_id = ?", [jobId], t, t && locking ? " LOCK IN SHARE MODE" : "");
 }
 
+const GAUGE_COLUMNS = `g.id AS gId, g.shop_id AS gShopId, g.kind AS gKind, g.label AS gLabel, g.serial AS gSerial,
+  g.unit AS gUnit, g.resolution AS gResolution, g.expanded_u AS gExpandedU, g.coverage_k AS gCoverageK,
+  g.calibration_due AS gCalibrationDue, g.dial_plus_means_smaller AS gDial, g.active AS gActive`;
+const READING_COLUMNS = COLUMNS.split(",").map((c) => `r.${c.trim()}`).join(", ");
+
+function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
+  const due = row.gCalibrationDue;
+  return {
+    id: Number(row.gId), shopId: Number(row.gShopId), kind: String(row.gKind), label: String(row.gLabel), serial: String(row.gSerial),
+    unit: String(row.gUnit), resolution: Number(row.gResolution), expandedU: Number(row.gExpandedU), coverageK: Number(row.gCoverageK ?? 2),
+    calibrationDue: due === null || due === undefined ? null : due instanceof Date ? due.toISOString().slice(0, 10) : String(due).slice(0, 10),
+    dialPlusMeansSmaller: !!row.gDial, active: !!row.gActive,
+  };
+}
+
+/** jobReadings and the shop's gauges they were taken with, in one query (reconciliation's hot path). */
+export async function jobReadingsWithGauges(t: Transaction, shopId: number, jobId: number, locking = true) {
+  const rows = await getSequelize().query<Record<string, unknown>>(
+    `SELECT ${READING_COLUMNS}, ${GAUGE_COLUMNS} FROM readings r LEFT JOIN instruments g ON g.id = r.instrument_id AND g.shop_id = ?
+      WHERE r.job_id = ? ORDER BY r.taken_at, r.received_at, r.id${locking ? " LOCK IN SHARE MODE" : ""}`,
+    { replacements: [shopId, jobId], type: QueryTypes.SELECT, transaction: t },
+  );
+  const instruments = new Map<number, InstrumentInfo>();
+  for (const row of rows) if (row.gId !== null && row.gId !== undefined && !instruments.has(Number(row.gId))) instruments.set(Number(row.gId), gaugeOf(row));
+  return { readings: rows.map(fromRow), instruments };
+}
+
 /** The station's current figure: the latest reading with a value that no other reading corrects. */
 export function currentReadings(all: StoredReading[]): StoredReading[] {
   const corrected = new Set(all.map((r) => r.supersedes).filter(Boolean));

@@ -3,9 +3,9 @@
 // mariadb connector, in the same run, on a throwaway MariaDB. Prints readings/s and the ratio.
 // Target: handler ≥ 0.5 × raw. Benchmark data only (invented figures, scripts/bench/sync-readings.ts).
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, rmSync } from "node:fs";
+import { mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { randomBytes } from "node:crypto";
-import { tmpdir } from "node:os";
+import { cpus, loadavg, tmpdir } from "node:os";
 import { join } from "node:path";
 
 const READINGS = Number(process.env.TW_BENCH_READINGS ?? 10_000);
@@ -21,7 +21,7 @@ if (!process.env.TW_BENCH_CHILD) {
 }
 
 type Services = {
-  startMariaDb(o: { dataDir: string; port: number; database: string; user: string; password: string; throwaway: boolean }): Promise<{ url: string; stop(): Promise<void> }>;
+  startMariaDb(o: { dataDir: string; port: number; database: string; user: string; password: string; throwaway: boolean }): Promise<{ url: string; pid: number; stop(): Promise<void> }>;
   freePort(): Promise<number>;
 };
 
@@ -34,10 +34,27 @@ async function startDb() {
   const password = randomBytes(12).toString("hex");
   const db = await startMariaDb({ dataDir: join(dir, "mariadb"), port: await freePort(), database: "tenthwise_bench", user: "tenthwise", password, throwaway: true });
   Object.assign(process.env, { DATABASE_URL: db.url, SESSION_SECRET: randomBytes(32).toString("hex"), DB_POOL_MAX: "10" });
-  return { url: db.url, stop: async () => { await db.stop(); rmSync(dir, { recursive: true, force: true }); } };
+  return { url: db.url, pid: db.pid, stop: async () => { await db.stop(); rmSync(dir, { recursive: true, force: true }); } };
 }
 
 const perSec = (n: number, ms: number) => Math.round((n * 1000) / ms);
+
+/** CPU time (ms) used so far by this process and by the MariaDB server: wall clock on a busy machine is noisy. */
+function cpuNow(dbPid: number): { node: number; db: number } {
+  const [utime, stime] = readFileSync(`/proc/${dbPid}/stat`, "utf8").split(") ")[1].split(" ").slice(11, 13).map(Number);
+  const u = process.cpuUsage();
+  return { node: (u.user + u.system) / 1000, db: ((utime + stime) * 1000) / 100 };
+}
+
+/** Runs `fn`, returning wall ms and the CPU ms of both processes. */
+async function measure(dbPid: number, fn: () => Promise<unknown>) {
+  const c0 = cpuNow(dbPid);
+  const t0 = performance.now();
+  await fn();
+  const wall = performance.now() - t0;
+  const c1 = cpuNow(dbPid);
+  return { wall, node: c1.node - c0.node, db: c1.db - c0.db };
+}
 const fmt = (n: number) => n.toLocaleString("en-US");
 
 async function main() {
@@ -56,30 +73,25 @@ async function main() {
 
     const readings = benchReadings(oneTablet, READINGS, TAKEN_AT);
     const q0 = await ctx.questions();
-    const t0 = performance.now();
-    await ctx.pushAll(readings, BATCH, 1);
-    const handlerMs = performance.now() - t0;
+    const one = await measure(db.pid, () => ctx.pushAll(readings, BATCH, 1));
     const queries = ((await ctx.questions()) - q0) / Math.ceil(readings.length / BATCH);
 
     // The same rows (every column as the handler stored it) under fresh ids, in one statement.
     const rows = await ctx.rowsLikeMany(oneTablet, raw);
-    const t1 = performance.now();
-    await ctx.rawInsert(rows);
-    const rawMs = performance.now() - t1;
+    const bare = await measure(db.pid, () => ctx.rawInsert(rows));
 
     // A shop has several tablets: the same amount again, four clients at once on their own jobs.
     const parallel = benchReadings(fourTablets, READINGS, TAKEN_AT);
-    const t2 = performance.now();
-    await ctx.pushAll(parallel, BATCH, 4);
-    const parallelMs = performance.now() - t2;
+    const four = await measure(db.pid, () => ctx.pushAll(parallel, BATCH, 4));
 
     const stored = await ctx.countReadings([...oneTablet, ...fourTablets]);
     if (stored !== readings.length + parallel.length || rows.length !== readings.length) throw new Error(`stored ${stored}, raw ${rows.length}, sent ${readings.length}`);
-    const [h, r, p] = [perSec(readings.length, handlerMs), perSec(rows.length, rawMs), perSec(parallel.length, parallelMs)];
-    console.log(`bench:sync  ${fmt(readings.length)} readings in batches of ${BATCH} over ${oneTablet.length} V8 jobs (${await ctx.countFlags(oneTablet)} flags opened), ${queries.toFixed(1)} queries per batch`);
-    console.log(`  POST /api/sync, one tablet  : ${fmt(h).padStart(7)} readings/s (${handlerMs.toFixed(0)} ms; readings, verdicts, flags, audit and change feed)`);
-    console.log(`  POST /api/sync, four tablets: ${fmt(p).padStart(7)} readings/s (${parallelMs.toFixed(0)} ms)`);
-    console.log(`  raw multi-row INSERT        : ${fmt(r).padStart(7)} readings/s (${rawMs.toFixed(0)} ms; the readings table only)`);
+    const [h, r, p] = [perSec(readings.length, one.wall), perSec(rows.length, bare.wall), perSec(parallel.length, four.wall)];
+    const cpu = (m: typeof one) => `CPU: node ${m.node.toFixed(0)} ms, MariaDB ${m.db.toFixed(0)} ms`;
+    console.log(`bench:sync  ${fmt(readings.length)} readings in batches of ${BATCH} over ${oneTablet.length} V8 jobs (${await ctx.countFlags(oneTablet)} flags opened), ${queries.toFixed(1)} queries per batch; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores`);
+    console.log(`  POST /api/sync, one tablet  : ${fmt(h).padStart(7)} readings/s (${one.wall.toFixed(0)} ms; ${cpu(one)}; readings, verdicts, flags, audit and change feed)`);
+    console.log(`  POST /api/sync, four tablets: ${fmt(p).padStart(7)} readings/s (${four.wall.toFixed(0)} ms; ${cpu(four)})`);
+    console.log(`  raw multi-row INSERT        : ${fmt(r).padStart(7)} readings/s (${bare.wall.toFixed(0)} ms; ${cpu(bare)}; the readings table only)`);
     console.log(`  ratio handler / raw         : ${(h / r).toFixed(2)} one tablet, ${(p / r).toFixed(2)} four tablets (target ≥ 0.50)`);
     if (process.env.TW_BENCH_TRACE) ctx.printTrace();
     await ctx.close();

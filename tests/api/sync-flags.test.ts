@@ -4,6 +4,8 @@
 // INCH_LIMITS of tests/support/factories.ts.
 import { beforeEach, describe, expect, it } from "vitest";
 import { GET as PACK } from "@/app/api/bench/jobs/[jobId]/route";
+import { getSequelize } from "@/lib/server/db";
+import { JobLimit } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";
 import { count, flagsOf, later, push, reading } from "./sync-fixtures";
@@ -102,5 +104,21 @@ describe("flags for derived values", () => {
     const reground = reading(s.job.id, "main/2/front/A", 2.4498, { takenAt: later(60) }); // 0.0022 in spec
     await push(s.users.machinist, [reground]);
     expect((await flagsOf(s.job.id))[0]).toMatchObject({ state: "closed", closedByReadingId: reground.id });
+  });
+});
+
+describe("a value whose limit depends on other readings", () => {
+  it("a ring gap judged on the nominal bore is judged again when its bore arrives", async () => {
+    // Ring gap 0.004–0.005 in per inch of bore (common practice, from memory): on the 4.03 in
+    // nominal bore that is 0.01612–0.02015 in; on a measured 4.10 in bore, 0.0164–0.0205 in.
+    getSequelize();
+    await JobLimit.create({ jobId: s.job.id, characteristic: "ring_end_gap", stationPattern: "*", limitType: "per_inch", unit: "in", perInchMin: 0.004, perInchMax: 0.005, required: true, sortOrder: 99 });
+    const gap = reading(s.job.id, "ring-gap/1/top", 0.0162);
+    expect((await push(s.users.machinist, [gap])).body.results[0].evaluation).toMatchObject({ verdict: "in_spec", limitMin: 0.01612 });
+    const bores = ["top", "mid", "bottom"].flatMap((d) => ["A", "B"].map((a) => reading(s.job.id, `bore/1/${d}/${a}`, 4.1, { takenAt: later(5) })));
+    await push(s.users.machinist, bores);
+    expect(await count("SELECT COUNT(*) AS n FROM readings WHERE id = ? AND verdict = 'out_of_spec' AND limit_min = 0.0164", [gap.id])).toBe(1);
+    expect((await flagsOf(s.job.id)).filter((f) => f.readingId === gap.id)).toMatchObject([{ state: "open", reason: "out_of_spec" }]);
+    expect(await count("SELECT COUNT(*) AS n FROM audit_events WHERE action = 'reading.re-evaluate' AND entity_id = ?", [gap.id])).toBe(1);
   });
 });
