@@ -10,6 +10,8 @@ import { getSequelize } from "@/lib/server/db";
 import { Customer, MailOutbox, Release } from "@/models";
 import { createShop, type TestUser } from "../support/factories";
 import { ACCEPT_REASON, createRecordJob } from "../support/record-fixtures";
+import { renderRecordPdf } from "@/lib/server/record/record-pdf";
+import type { BuildRecord, ReadingLine } from "@/lib/server/record/record-types";
 import { pdfText } from "../support/pdf-text";
 import { asUser, call } from "../support/requests";
 
@@ -66,6 +68,7 @@ describe("GET /api/record/[jobId]/pdf", () => {
     expect(text).toContain("Matches: the record in the database now gives the same fingerprint");
     expect(text).toContain("do not replace the fastener or engine maker's instructions");
     expect(text).toContain("Follow local codes and licensed practice");
+    expect(text).toContain(`Page 1 of ${pages}`);
 
     mkdirSync("tests/artifacts", { recursive: true });
     writeFileSync("tests/artifacts/record.pdf", res.bytes);
@@ -124,4 +127,25 @@ describe("GET /api/record/[jobId]/pdf", () => {
     expect(noMail.status).toBe(409);
     expect(noMail.body.error.message).toContain("no e-mail address");
   });
+
+  it("renders a long record (a V8's full route and more) with its header and page number on every page", async () => {
+    // react-pdf 4 drifts fixed footers placed from the bottom on long documents until pdfkit
+    // throws "unsupported number" (diegomura/react-pdf#3416); the record places them from the top.
+    const row = (i: number): ReadingLine => ({
+      stationId: `bore/${i}`, station: `Station ${i}`, value: "4.0301 in", limits: "4.0295 to 4.0305 in", deviation: "+0.0001",
+      verdict: "in_spec", verdictWords: "In spec", gauge: "G-1", takenBy: "Test machinist", takenAt: "2026-12-01 10:00", notes: i % 9 ? "" : "part at 24 °C", photos: [],
+    });
+    const record: BuildRecord = {
+      generatedAt: "2026-12-01 12:00 UTC", pageSize: "A4", shop: { name: "Long shop", contact: [] }, customer: { name: "C", contact: [] },
+      job: { id: 1, code: "L-1", title: "Long job", status: "review", units: "mm and N·m", specRevision: 1, notes: null }, engine: [], plan: null,
+      sections: [{ id: "bore", label: "Cylinder bores", what: "", rows: Array.from({ length: 320 }, (_, i) => row(i)) }],
+      derived: [], torque: [], flags: [], gauges: [], photos: [], tally: { measured: 320, inSpec: 320, marginal: 0, outOfSpec: 0, skipped: 0, unjudged: 0 },
+      release: null, earlierReleases: [], safety: ["Safety line"],
+    };
+    const { text, pages } = await pdfText(await renderRecordPdf(record));
+    expect(pages).toBeGreaterThan(12);
+    for (let p = 1; p <= pages; p++) expect(text).toContain(`Page ${p} of ${pages}`);
+    expect(text.match(/Tenthwise build record · L-1 · DRAFT/g)?.length).toBe(pages);
+    expect(text).toContain("Station 319");
+  }, 180_000);
 });

@@ -3,7 +3,7 @@ import { Document, Page, Text, View } from "@react-pdf/renderer";
 import { plural } from "./record-format";
 import { Heading, KeyValues, VerdictShape } from "./record-pdf-parts";
 import { PhotosSection, PlanSection, ReadingsSection, ReviewSections, TorqueSection } from "./record-pdf-sections";
-import { s, VERDICT_COLOUR } from "./record-pdf-styles";
+import { footerTop, s, VERDICT_COLOUR } from "./record-pdf-styles";
 import type { BuildRecord, ReleaseStamp } from "./record-types";
 
 // The build record as a PDF document (our own layout). Page one carries who, what, the release
@@ -113,10 +113,11 @@ export function RecordDocument({ record }: { record: BuildRecord }) {
         <ReviewSections record={record} />
         <PhotosSection record={record} />
         <Signature record={record} />
-        <View style={s.footer} fixed>
+        <View style={[s.footer, footerTop(record.pageSize)]} fixed>
           <Text>{`Made ${record.generatedAt} · ${fingerprint}`}</Text>
-          <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
         </View>
+        {/* On its own: a render() text inside a View gets no page numbers. */}
+        <Text style={[s.pageNumber, footerTop(record.pageSize)]} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
       </Page>
     </Document>
   );

@@ -14,10 +14,16 @@ export const STEEL = "#1c4070";
 export const BRASS = "#b07814";
 export const VERDICT_COLOUR = { in_spec: "#0e6e4e", marginal: "#965c00", out_of_spec: "#b21e2c" } as const;
 
+const PAGE_HEIGHT = { LETTER: 792, A4: 841.89 } as const;
+export const footerTop = (size: keyof typeof PAGE_HEIGHT) => ({ top: PAGE_HEIGHT[size] - 32 });
+
 export const s = StyleSheet.create({
   page: { paddingTop: 54, paddingBottom: 48, paddingHorizontal: 36, fontFamily: "Helvetica", fontSize: 8.5, color: INK, lineHeight: 1.3 },
   header: { position: "absolute", top: 20, left: 36, right: 36, flexDirection: "row", justifyContent: "space-between", borderBottomWidth: 0.75, borderBottomColor: RULE, paddingBottom: 4, fontSize: 7.5, color: MUTED },
-  footer: { position: "absolute", bottom: 20, left: 36, right: 36, flexDirection: "row", justifyContent: "space-between", borderTopWidth: 0.75, borderTopColor: RULE, paddingTop: 4, fontSize: 7, color: MUTED },
+  footer: { position: "absolute", left: 36, right: 36, borderTopWidth: 0.75, borderTopColor: RULE, paddingTop: 4, fontSize: 7, color: MUTED },
+  // Footer lines are placed from the top (footerTop): a fixed element placed from the bottom, or
+  // given a height, drifts page by page in react-pdf 4 until the number is lost or pdfkit throws.
+  pageNumber: { position: "absolute", left: 36, right: 36, paddingTop: 4, textAlign: "right", fontSize: 7, color: MUTED },
   watermark: { position: "absolute", top: 300, left: 0, right: 0, textAlign: "center", fontSize: 120, lineHeight: 1, fontFamily: "Helvetica-Bold", color: "#b21e2c", opacity: 0.13, transform: "rotate(-30deg)" },
   title: { fontSize: 22, lineHeight: 1.15, fontFamily: "Helvetica-Bold", color: STEEL },
   subtitle: { fontSize: 12, lineHeight: 1.2, marginTop: 2, marginBottom: 10 },
