@@ -4,9 +4,10 @@
 //   200 { results: PushResult[], cursor }      every reading was stored (or already was: replay)
 //   400 bad_json                               the body is not JSON
 //   401 unauthorized / 403 forbidden           signed out / another role (inspector, admin)
+//   413 payload_too_large                      more than MAX_BATCH readings: split the batch and send again
 //   422 invalid, no `results`                  the batch itself is malformed (not an object, no deviceId,
-//                                              readings not an array, more than MAX_BATCH readings):
-//                                              `error.fields` says where (keys "_", "deviceId", "readings")
+//                                              readings not an array): `error.fields` says where
+//                                              (keys "_", "deviceId", "readings")
 //   422 invalid + `results`                    one or more readings were refused. NOTHING was written.
 //   409 job_locked + `results`                 same, and every refused reading is for a released/closed job
 //     Error replies carry `{ error: { code, message, fields }, results, cursor }`; fields are keyed
@@ -105,7 +106,8 @@ export type PushReadingInput = z.input<typeof pushReadingSchema>;
 /** The batch envelope: items are checked one by one (pushReadingSchema) so each gets its own result. */
 export const pushBatchSchema = z.object({
   deviceId: z.string("deviceId is needed (the tablet's id)").trim().min(1, "deviceId is needed (the tablet's id)").max(64, "deviceId is too long (64 characters at most)"),
-  readings: z.array(z.unknown(), "readings must be a list").max(MAX_BATCH, `Send at most ${MAX_BATCH} readings per batch`),
+  // The MAX_BATCH limit is checked by the server (413), so an oversize batch is told to split.
+  readings: z.array(z.unknown(), "readings must be a list"),
 });
 export type PushBatch = { deviceId: string; readings: PushReadingInput[] };
 

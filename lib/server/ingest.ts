@@ -2,13 +2,13 @@ import "server-only";
 import type { Transaction } from "sequelize";
 import { benchRoute } from "@/lib/domain";
 import {
-  pushReadingSchema, type FieldErrors, type PushErrorReply, type PushReading, type PushReply, type PushResult,
+  MAX_BATCH, pushReadingSchema, type FieldErrors, type PushErrorReply, type PushReading, type PushReply, type PushResult,
   type ReadingEvaluation,
 } from "@/lib/schemas/sync";
 import type { Actor } from "./access";
 import { recordAudits, recordChanges } from "./bulk-log-repo";
 import { getSequelize } from "./db";
-import { fieldErrors } from "./errors";
+import { AppError, fieldErrors } from "./errors";
 import { reconcileJob, type ReconcileLog } from "./flag-reconcile";
 import { checkItem, lockReasonOf, type BatchContext, type BatchJob, type Checked } from "./ingest-check";
 import { withDeadlockRetry } from "./ingest-retry";
@@ -151,6 +151,9 @@ function refusal(res: PushResult[], cursor: string): IngestReply {
 }
 
 export async function ingestBatch(actor: Actor, batch: { deviceId: string; readings: unknown[] }): Promise<IngestReply> {
+  if (batch.readings.length > MAX_BATCH) {
+    throw new AppError("payload_too_large", `Send at most ${MAX_BATCH} readings per batch; this one has ${batch.readings.length}. Split it and send again.`);
+  }
   const parsed = parseItems(batch.readings);
   const items = parsed.flatMap((p) => (p.item ? [p.item] : []));
   return withDeadlockRetry(() => getSequelize().transaction(async (t) => {

@@ -173,12 +173,18 @@ describe("POST /api/sync: bad payloads → 400/422 with field errors and no part
     ["an array", [], "_"],
     ["no deviceId", { readings: [] }, "deviceId"],
     ["readings not a list", { deviceId: "t", readings: "many" }, "readings"],
-    ["too many readings", { deviceId: "t", readings: Array.from({ length: 501 }, () => ({})) }, "readings"],
   ])("422 for a malformed batch (%s), with no per-item results", async (_name, body, field) => {
     const res = await call(POST, await asUser(a.users.machinist, "POST", "/api/sync", body));
     expect(res.status).toBe(422);
     expect(res.body.error.fields[field]).toBeDefined();
     expect(res.body.results).toBeUndefined();
+  });
+
+  it("413 for more than 500 readings, saying to split the batch", async () => {
+    const res = await call(POST, await asUser(a.users.machinist, "POST", "/api/sync", { deviceId: "t", readings: Array.from({ length: 501 }, () => ({})) }));
+    expect(res.status).toBe(413);
+    expect(res.body.error).toMatchObject({ code: "payload_too_large" });
+    expect(res.body.error.message).toMatch(/at most 500 .* Split it/);
   });
 
   const cases: [string, (job: number) => Record<string, unknown>, string, string, RegExp][] = [
