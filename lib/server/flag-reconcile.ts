@@ -16,7 +16,8 @@ import { currentReadings, jobReadingsWithGauges, lockJobs, updateEvaluation, typ
 // Inside the caller's transaction it: locks the job row; takes each station's current reading (the
 // latest by takenAt that no other reading corrects; skipped entries carry no value and are passed
 // over); re-evaluates it with lib/domain and stores the verdict when it changed; derives taper,
-// out-of-round, clearances and stretch; then makes the flags match (flag-reconcile-plan.ts):
+// out-of-round, clearances and stretch; then makes the flags match (flag-reconcile-plan.ts). With
+// `fresh` (ingest) it limits both to what the new readings can change; without it, everything:
 //   - a value (raw or derived) that is out_of_spec, marginal, or read with a gauge past its due date
 //     (raw only) gets one flag, unless an open or disposed flag for that same value exists;
 //   - an open or disposed flag is closed when its value is no longer current (a newer reading at the
@@ -108,8 +109,41 @@ function derivedOf(raws: RawReading[], ctx: JobContext): DerivedValue[] {
   }
 }
 
-async function syncFlags(t: Transaction, o: ReconcileOptions, wanted: Map<string, NewFlag>, closers: Map<string, Closer>, log: ReconcileLog) {
-  const plan = planFlags(await unclosedFlags(t, o.jobId, !o.context), wanted, closers);
+// Derived key → input stations of a job's shape and spec (the core's own recipes), by their JSON.
+const recipeCache = new Map<string, Map<string, string[]>>();
+function recipeInputs(ctx: JobContext): Map<string, string[]> {
+  const key = JSON.stringify([ctx.shape, ctx.spec]);
+  let inputs = recipeCache.get(key);
+  if (!inputs) {
+    if (recipeCache.size > 100) recipeCache.clear();
+    inputs = new Map(derivedOf([], ctx).map((d) => [d.key, d.inputs]));
+    recipeCache.set(key, inputs);
+  }
+  return inputs;
+}
+
+/**
+ * The derived values to recompute: all of them, or (ingest) those with a fresh reading among their
+ * inputs, computed from just the readings they need. `inScope` tells which derived flags to revisit.
+ */
+function derivedScope(ctx: JobContext, current: StoredReading[], raws: RawReading[], fresh?: ReadonlySet<string>) {
+  if (!fresh) return { derived: derivedOf(raws, ctx), inScope: (_key: string) => true };
+  const freshStations = new Set(current.filter((r) => fresh.has(r.id)).map((r) => r.stationId));
+  const affected = new Set<string>();
+  const needed = new Set<string>();
+  for (const [key, inputs] of recipeInputs(ctx)) {
+    if (!inputs.some((s) => freshStations.has(s))) continue;
+    affected.add(key);
+    for (const s of inputs) needed.add(s);
+  }
+  const derived = affected.size ? derivedOf(raws.filter((r) => needed.has(r.stationId)), ctx).filter((d) => affected.has(d.key)) : [];
+  return { derived, inScope: (key: string) => affected.has(key) };
+}
+
+async function syncFlags(t: Transaction, o: ReconcileOptions, wanted: Map<string, NewFlag>, closers: Map<string, Closer>, inScope: (key: string) => boolean, log: ReconcileLog) {
+  // Derived flags outside the scope of this reconciliation keep whatever they are.
+  const flags = (await unclosedFlags(t, o.jobId, !o.context)).filter((f) => !f.derivedKey || inScope(f.derivedKey));
+  const plan = planFlags(flags, wanted, closers);
   const note = (id: number, action: string, before: unknown, after: object) => {
     log.audits.push({ shopId: o.shopId, userId: o.userId, action, entityType: "flag", entityId: id, before, after: { ...after, cause: o.cause } });
     log.changes.push({ shopId: o.shopId, jobId: o.jobId, entity: "flag", entityId: id, deviceId: o.deviceId });
@@ -150,12 +184,13 @@ export async function reconcileJob(t: Transaction, o: ReconcileOptions): Promise
     const w = wantedRaw(r, evals[i]);
     if (w) wanted.set(`r:${r.id}`, w);
   });
-  for (const d of derivedOf(raws, ctx)) {
+  const { derived, inScope } = derivedScope(ctx, current, raws, o.fresh);
+  for (const d of derived) {
     closers.set(`d:${d.key}`, { id: newestInput(d, byStation), value: round6(d.value) });
     const w = wantedDerived(o.shopId, o.jobId, d);
     if (w) wanted.set(`d:${d.key}`, w);
   }
-  const flags = await syncFlags(t, o, wanted, closers, log);
+  const flags = await syncFlags(t, o, wanted, closers, inScope, log);
   if (!o.log) {
     await recordAudits(t, log.audits);
     await recordChanges(t, log.changes);
