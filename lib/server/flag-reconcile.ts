@@ -172,7 +172,9 @@ export async function reconcileJob(t: Transaction, o: ReconcileOptions): Promise
   const current = currentReadings(readings);
   const inst = (r: StoredReading) => (r.instrumentId ? instruments.get(r.instrumentId) : undefined);
   const raws = current.map((r) => toRaw(r, inst(r)));
-  const past = current.map((r) => gaugePastDue(inst(r), r.takenAt));
+  // Past due is a fact of the moment of measurement: once stored, a later recalibration of the
+  // gauge (a new due date) must not clear it.
+  const past = current.map((r) => r.verdictNote === "gauge_past_due" || gaugePastDue(inst(r), r.takenAt));
   const evals = evaluateCurrent(ctx, current, raws, past, toJudge(current, o.fresh));
   const log: ReconcileLog = o.log ?? { audits: [], changes: [] };
   const reevaluated = await storeEvaluations(t, o, current, evals, log);

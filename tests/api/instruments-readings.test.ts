@@ -50,6 +50,18 @@ describe("gauge past its calibration due date", () => {
     expect(flag).toBeNull();
   });
 
+  it("a later recalibration of the gauge does not clear a reading taken while it was past due", async () => {
+    const { Instrument } = await import("@/models");
+    const old = await register({ calibratedOn: day(-400), calibrationDue: day(-3) });
+    const { reading, flag } = await read("bore/4/mid/A", 4.03, old);
+    expect(flag).toMatchObject({ reason: "gauge_past_due", state: "open" });
+    await Instrument.update({ calibratedOn: day(0), calibrationDue: day(365) }, { where: { id: old } });
+    await read("bore/4/mid/B", 4.03, old); // any later sync on the job reconciles it again
+    await reading.reload();
+    expect(reading.verdictNote).toBe("gauge_past_due");
+    expect((await Flag.findByPk(flag!.id))?.state).toBe("open");
+  });
+
   it("out of spec wins over past due as the reason", async () => {
     const old = await register({ calibratedOn: day(-400), calibrationDue: day(-30) });
     const { flag } = await read("bore/3/mid/A", 4.04, old);
