@@ -18,11 +18,21 @@ export function retryDelaySeconds(attempts: number, base = env().MAIL_RETRY_BASE
 
 const describe = (err: unknown) => (err instanceof Error ? err.message : String(err)) || "Unknown error";
 
-export async function deliverPendingMail(opts: { now?: Date; limit?: number; send?: (m: OutgoingMail) => Promise<unknown> } = {}): Promise<DeliveryReport> {
+/** `only` restricts a run to these outbox ids (an admin's "send this one now", and tests). */
+type DeliverOptions = { now?: Date; limit?: number; budgetMs?: number; only?: number[]; send?: (m: OutgoingMail) => Promise<unknown> };
+
+/**
+ * Sends due messages one claim at a time, up to `limit` or until `budgetMs` has passed (a build
+ * record takes a PDF render), so a backlog is worked off over several passes, never in one long one.
+ */
+export async function deliverPendingMail(opts: DeliverOptions = {}): Promise<DeliveryReport> {
   const now = opts.now ?? new Date();
   const send = opts.send ?? sendMail;
+  const until = Date.now() + (opts.budgetMs ?? 20_000);
   const report: DeliveryReport = { sent: [], failed: [] };
-  for (const row of await claimDue(now, opts.limit ?? 20)) {
+  for (let i = 0; i < (opts.limit ?? 20) && Date.now() < until; i++) {
+    const [row] = await claimDue(now, 1, opts.only);
+    if (!row) break;
     try {
       await send(await composeMail(row));
       await markSent(row.id, new Date());

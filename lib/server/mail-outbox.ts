@@ -77,10 +77,10 @@ export async function queuedWithPrefix(prefix: string): Promise<boolean> {
  * Claims due messages for this worker: each claim pushes next_attempt_at past a lease in one
  * conditional UPDATE, so two workers (or two app instances) never send the same message at once.
  */
-export async function claimDue(now: Date, limit: number, leaseSeconds = 300): Promise<OutboxRow[]> {
+export async function claimDue(now: Date, limit: number, only?: number[], leaseSeconds = 300): Promise<OutboxRow[]> {
   getSequelize();
   const due = await MailOutbox.findAll({
-    where: { sentAt: null, nextAttemptAt: { [Op.lte]: now }, attempts: { [Op.lt]: env().MAIL_MAX_ATTEMPTS } },
+    where: { sentAt: null, nextAttemptAt: { [Op.lte]: now }, attempts: { [Op.lt]: env().MAIL_MAX_ATTEMPTS }, ...(only ? { id: only } : {}) },
     order: [["nextAttemptAt", "ASC"], ["id", "ASC"]], limit,
   });
   const lease = new Date(now.getTime() + leaseSeconds * 1000);

@@ -20,7 +20,7 @@ export async function releasesWithoutMail(since: Date): Promise<{ id: number; sh
     `SELECT r.id, r.shop_id, r.job_id FROM releases r
        LEFT JOIN mail_outbox m ON m.dedupe_key = CONCAT('build_record:release:', r.id)
       WHERE r.voided_at IS NULL AND r.signed_at >= ? AND m.id IS NULL
-      ORDER BY r.id LIMIT 100`,
+      ORDER BY r.id DESC LIMIT 100`,
     { replacements: [since], type: QueryTypes.SELECT },
   );
   return rows.map((r) => ({ id: Number(r.id), shopId: Number(r.shop_id), jobId: Number(r.job_id) }));
@@ -62,11 +62,37 @@ export async function flagsAfter(shopId: number, after: { id?: number; since?: D
 
 export type OpenJob = { id: number; shopId: number; code: string; title: string; specRevision: number };
 
-/** Jobs not released, closed or locked: the ones whose checklist may turn complete. */
-export async function openJobs(): Promise<OpenJob[]> {
-  getSequelize();
-  const jobs = await Job.findAll({ where: { status: ["intake", "measuring", "review"], lockedAt: null }, order: [["id", "ASC"]] });
-  return jobs.map((j) => ({ id: j.id, shopId: j.shopId, code: j.code, title: j.title, specRevision: j.specRevision }));
+const OPEN = "j.status IN ('intake', 'measuring', 'review') AND j.locked_at IS NULL";
+const toOpenJob = (j: { id: number; shop_id: number; code: string; title: string; spec_revision: number }): OpenJob =>
+  ({ id: Number(j.id), shopId: Number(j.shop_id), code: j.code, title: j.title, specRevision: Number(j.spec_revision) });
+
+/**
+ * Open jobs (not released, closed or locked) touched since the cursor: a change in the sync feed
+ * (readings, flags, limits) after `syncId`, or an edit of the job row (plan, status) since `at`.
+ * With no cursor yet, feed changes since `at` count. Also returns the feed's newest id.
+ */
+export async function changedOpenJobs(since: { syncId: number | null; at: Date }): Promise<{ jobs: OpenJob[]; syncId: number }> {
+  const sequelize = getSequelize();
+  const [top] = await sequelize.query<{ m: number | null }>("SELECT MAX(id) AS m FROM sync_changes", { type: QueryTypes.SELECT });
+  const feed = since.syncId === null ? "created_at >= :at" : "id > :syncId";
+  const rows = await sequelize.query<Parameters<typeof toOpenJob>[0]>(
+    `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j
+      WHERE ${OPEN} AND (j.updated_at >= :at OR j.id IN (SELECT job_id FROM sync_changes WHERE ${feed}))
+      ORDER BY j.id DESC LIMIT 500`,
+    { replacements: { at: since.at, syncId: since.syncId ?? 0 }, type: QueryTypes.SELECT },
+  );
+  return { jobs: rows.map(toOpenJob), syncId: Number(top?.m ?? 0) };
+}
+
+/** The next `limit` open jobs after `afterId`, wrapping round to the lowest id. */
+export async function openJobsAfter(afterId: number, limit: number): Promise<OpenJob[]> {
+  const page = (where: string) => getSequelize().query<Parameters<typeof toOpenJob>[0]>(
+    `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j WHERE ${OPEN} ${where} ORDER BY j.id LIMIT ${Number(limit)}`,
+    { replacements: [afterId], type: QueryTypes.SELECT },
+  );
+  const rows = await page("AND j.id > ?");
+  if (rows.length < limit && afterId > 0) rows.push(...(await page("AND j.id <= ?")).slice(0, limit - rows.length));
+  return rows.map(toOpenJob);
 }
 
 export async function releaseCount(jobId: number): Promise<number> {

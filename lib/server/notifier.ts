@@ -5,7 +5,8 @@ import { enqueueMail, enqueueReleaseMail, queuedWithPrefix } from "./mail-outbox
 import { deliverPendingMail, type DeliveryReport } from "./mail-outbox-worker";
 import { digestMessage, readyMessage } from "./notifier-messages";
 import {
-  flagsAfter, lastDigest, openJobs, recipients, releaseCount, releasesWithoutMail, shopName, shopsWithFlagsSince, type OpenJob,
+  changedOpenJobs, flagsAfter, lastDigest, openJobsAfter, recipients, releaseCount, releasesWithoutMail, shopName, shopsWithFlagsSince,
+  type OpenJob,
 } from "./notifier-repo";
 import { releaseChecklist } from "./release-checklist";
 
@@ -15,6 +16,15 @@ import { releaseChecklist } from "./release-checklist";
 // complete (once per job, spec revision and release round); then deliver what is due. Every step
 // is keyed so two app instances running it at once queue each message only once.
 const DAY = 86_400_000;
+// Jobs checked each pass besides those that changed: a slow round over every open job, so a
+// change the feed does not show (a gauge's dates corrected) is still noticed.
+const ROUND_ROBIN_PER_PASS = 20;
+
+// Checklists are computed for at most this long per pass; the rest wait for the next pass.
+const CHECK_BUDGET_MS = 10_000;
+
+type PassState = { syncId: number | null; lastPassAt: Date | null; robin: number; backlog: OpenJob[] };
+const memory = globalThis as unknown as { __tenthwiseNotifierState?: PassState };
 
 export type NotifierReport = { releaseMails: number; digests: number; ready: number; delivered: DeliveryReport; errors: string[] };
 
@@ -54,6 +64,30 @@ async function readyFor(job: OpenJob): Promise<number> {
   return n;
 }
 
+const passState = () => (memory.__tenthwiseNotifierState ??= { syncId: null, lastPassAt: null, robin: 0, backlog: [] });
+
+/** Open jobs whose checklist may have turned complete: just changed first, then last pass's leftovers, then the round. */
+async function jobsToCheck(startedAt: Date): Promise<OpenJob[]> {
+  const st = passState();
+  // A few seconds of overlap: a change committed while the last pass ran is not missed.
+  const at = new Date((st.lastPassAt ?? new Date(startedAt.getTime() - DAY)).getTime() - 5000);
+  const changed = await changedOpenJobs({ syncId: st.syncId, at });
+  const round = await openJobsAfter(st.robin, ROUND_ROBIN_PER_PASS);
+  Object.assign(st, { syncId: changed.syncId, lastPassAt: startedAt, robin: round.at(-1)?.id ?? 0 });
+  const byId = new Map([...changed.jobs, ...st.backlog, ...round].map((j) => [j.id, j]));
+  return [...byId.values()];
+}
+
+async function readyPass(now: Date, step: <T>(what: string, fn: () => Promise<T>, fallback: T) => Promise<T>): Promise<number> {
+  const queue = await step("ready for release", () => jobsToCheck(now), [] as OpenJob[]);
+  const until = Date.now() + CHECK_BUDGET_MS;
+  let ready = 0;
+  let i = 0;
+  for (; i < queue.length && Date.now() < until; i++) ready += await step(`ready for release ${queue[i].code}`, () => readyFor(queue[i]), 0);
+  passState().backlog = queue.slice(i, i + 2000);
+  return ready;
+}
+
 /** One pass of the notifier. A failing step is reported and does not stop the others. */
 export async function runNotifierOnce(opts: { now?: Date } = {}): Promise<NotifierReport> {
   const now = opts.now ?? new Date();
@@ -71,8 +105,7 @@ export async function runNotifierOnce(opts: { now?: Date } = {}): Promise<Notifi
   for (const shopId of await step("flag digest", () => shopsWithFlagsSince(new Date(now.getTime() - 7 * DAY)), [] as number[])) {
     digests += await step(`flag digest for shop ${shopId}`, () => digestFor(shopId, now), 0);
   }
-  let ready = 0;
-  for (const job of await step("ready for release", openJobs, [])) ready += await step(`ready for release ${job.code}`, () => readyFor(job), 0);
+  const ready = await readyPass(now, step);
   // Delivery's clock is read after queuing, so what this run queued is already due.
   const delivered = await step("delivery", () => deliverPendingMail({ now: opts.now ?? new Date() }), { sent: [], failed: [] });
   return { releaseMails, digests, ready, delivered, errors };

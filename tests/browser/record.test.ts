@@ -8,7 +8,7 @@ import { runNotifierOnce } from "@/lib/server/notifier";
 import { launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
 import { TEST_PASSWORD } from "../support/factories";
 import { pdfText } from "../support/pdf-text";
-import { ACCEPT_REASON, createRecordJob } from "../support/record-fixtures";
+import { ACCEPT_REASON, createRecordJob, deliverFor } from "../support/record-fixtures";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -61,7 +61,8 @@ describe("the customer's record link", () => {
 
   it("lets the shop admin find the e-mailed record, PDF attached, in the local mail view", async () => {
     const job = await createRecordJob({ photo: false });
-    await runNotifierOnce(); // queues and sends the release's build record to the fake SMTP server
+    await runNotifierOnce(); // queues the release's build record
+    await deliverFor(job.shop.id); // and sends it to the fake SMTP server
     const { context, page } = await newTabletPage(browser, { width: 1280, height: 900 });
     await signIn(page, job.users.admin.email, TEST_PASSWORD);
     await page.goto("/admin/mail");

@@ -10,6 +10,7 @@ import { describe, expect, it } from "vitest";
 import { GET as outboxList } from "@/app/api/mail/outbox/route";
 import { POST as retry } from "@/app/api/mail/outbox/[id]/retry/route";
 import { checkCustomerToken } from "@/lib/server/customer-link";
+import { recordChange } from "@/lib/server/changes";
 import { getSequelize } from "@/lib/server/db";
 import { listMailFiles } from "@/lib/server/mail-files";
 import { enqueueReleaseMail } from "@/lib/server/mail-outbox";
@@ -19,7 +20,7 @@ import { releaseChecklist } from "@/lib/server/release-checklist";
 import { Flag, Job, JobLimit, MailOutbox, Reading } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { pdfText } from "../support/pdf-text";
-import { BUILD_PLAN, createRecordJob } from "../support/record-fixtures";
+import { BUILD_PLAN, createRecordJob, deliverFor } from "../support/record-fixtures";
 import { asUser, call } from "../support/requests";
 
 const MAIL_DIR = process.env.MAIL_DIR!;
@@ -59,6 +60,7 @@ describe("mail through the outbox", () => {
     const customer = `customer-${job.job.code.slice(2)}@test.example`;
     await runNotifierOnce(); // catches the release: nobody queued its mail
     await runNotifierOnce();
+    await deliverFor(job.shop.id);
     const mails = await waitForMails(customer, 1);
     expect(mails).toHaveLength(1);
     const m = mails[0];
@@ -99,6 +101,7 @@ describe("mail through the outbox", () => {
     await addFlag(s, "bore/3/top/A", 4.0311);
     await addFlag(s, "bore/4/mid/B", 4.0290);
     await runNotifierOnce();
+    await deliverFor(s.shop.id);
     let mails = await waitForMails(s.users.lead.email, 1);
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toBe(`2 new flags to review: ${s.job.code}`);
@@ -109,6 +112,7 @@ describe("mail through the outbox", () => {
     await addFlag(s, "bore/5/top/B", 4.0312);
     await runNotifierOnce();
     await runNotifierOnce();
+    await deliverFor(s.shop.id);
     mails = await waitForMails(s.users.lead.email, 2);
     expect(mails).toHaveLength(2);
     const second = mails.find((m) => m.subject?.startsWith("1 new flag"))!;
@@ -123,8 +127,10 @@ describe("mail through the outbox", () => {
     await runNotifierOnce();
     expect(await mailsTo(s.users.inspector.email)).toHaveLength(0); // torque records still missing
     for (const group of ["main-caps", "rod-bolts", "head-bolts", "flywheel", "damper"]) {
+      const id = randomUUID();
+      await recordChange(null, { shopId: s.shop.id, jobId: s.job.id, entity: "reading", entityId: id });
       await Reading.create({
-        id: randomUUID(), shopId: s.shop.id, jobId: s.job.id, stationId: `torque/${group}`, characteristic: "fastener_torque",
+        id, shopId: s.shop.id, jobId: s.job.id, stationId: `torque/${group}`, characteristic: "fastener_torque",
         valueEntered: 68, unitEntered: "lbf_ft", lubricant: "engine-oil", takenBy: s.users.machinist.id, takenAt: new Date(), deviceId: "t",
         verdict: "in_spec", limitMin: 65, limitMax: 70,
       });
@@ -132,13 +138,15 @@ describe("mail through the outbox", () => {
     expect((await releaseChecklist(s.shop.id, s.job.id)).complete).toBe(true);
     await runNotifierOnce();
     await runNotifierOnce();
+    await deliverFor(s.shop.id);
     let mails = await waitForMails(s.users.inspector.email, 1);
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toBe(`Ready for release: ${s.job.code}, Test job ${s.job.code.slice(2)}`);
     expect(mails[0].text).toContain(`/release/${s.job.id}`);
     expect(await mailsTo(s.users.lead.email)).toHaveLength(0);
-    await Job.increment("specRevision", { where: { id: s.job.id } });
+    await Job.update({ specRevision: 2 }, { where: { id: s.job.id } }); // as a limits edit does
     await runNotifierOnce();
+    await deliverFor(s.shop.id);
     mails = await waitForMails(s.users.inspector.email, 2);
     expect(mails).toHaveLength(2);
   });
@@ -150,14 +158,14 @@ describe("failed mail", () => {
     const later = new Date(Date.now() + 3600_000); // not due for the app's own worker
     const row = await MailOutbox.create({ shopId: s.shop.id, kind: "flag_digest", toAddress: s.users.lead.email, subject: "Test digest", payload: { text: "Hello" }, nextAttemptAt: later });
     const dead = nodemailer.createTransport({ host: "127.0.0.1", port: 1, connectionTimeout: 2000 });
-    const first = await deliverPendingMail({ now: later, send: (m) => dead.sendMail({ from: "t@test.example", ...m }) });
+    const first = await deliverPendingMail({ now: later, only: [row.id], send: (m) => dead.sendMail({ from: "t@test.example", ...m }) });
     expect(first.failed.map((f) => f.id)).toContain(row.id);
     await row.reload();
     expect(row.sentAt).toBeNull();
     expect(row.attempts).toBe(1);
     expect(row.lastError).toMatch(/Attempt 1 at .*ECONNREFUSED/);
     expect(row.nextAttemptAt.getTime() - later.getTime()).toBe(retryDelaySeconds(1) * 1000);
-    await deliverPendingMail({ now: row.nextAttemptAt, send: () => Promise.reject(new Error("451 try later")) });
+    await deliverPendingMail({ now: row.nextAttemptAt, only: [row.id], send: () => Promise.reject(new Error("451 try later")) });
     await row.reload();
     expect(row.attempts).toBe(2);
     expect(retryDelaySeconds(2)).toBe(2 * retryDelaySeconds(1));
@@ -171,7 +179,7 @@ describe("failed mail", () => {
     expect((await call(retry, await asUser(other.users.admin, "POST", `/api/mail/outbox/${row.id}/retry`), { id: String(row.id) })).status).toBe(404);
     const retried = await call(retry, await asUser(s.users.admin, "POST", `/api/mail/outbox/${row.id}/retry`), { id: String(row.id) });
     expect(retried.status).toBe(200);
-    await deliverPendingMail();
+    await deliverPendingMail({ only: [row.id] });
     for (let i = 0; i < 40 && !row.sentAt; i++) {
       await sleep(250); // the app's own worker may have claimed it first
       await row.reload();

@@ -3,6 +3,8 @@
 import { afterEach, describe, expect, it } from "vitest";
 import { register } from "@/instrumentation";
 import { notifierRunning, runNotifierOnce, startNotifier, stopNotifier } from "@/lib/server/notifier";
+import { Flag, MailOutbox } from "@/models";
+import { createShop } from "../support/factories";
 
 const saved = { runtime: process.env.NEXT_RUNTIME, phase: process.env.NEXT_PHASE };
 
@@ -31,10 +33,16 @@ describe("notifier start-up", () => {
     expect(notifierRunning()).toBe(false);
   });
 
-  it("queues nothing new on a second pass, and reports no errors", async () => {
-    await runNotifierOnce();
-    const again = await runNotifierOnce();
-    expect(again.errors).toEqual([]);
-    expect([again.releaseMails, again.digests, again.ready]).toEqual([0, 0, 0]);
-  });
+  it("queues a shop's flag digest once, however many passes see it, and reports no errors", async () => {
+    const s = await createShop();
+    await Flag.create({
+      shopId: s.shop.id, jobId: s.job.id, stationId: "bore/1/top/A", characteristic: "bore_diameter", value: 4.0311, unit: "in",
+      limitMin: 4.0295, limitMax: 4.0305, verdict: "out_of_spec", reason: "out_of_spec",
+    });
+    const first = await runNotifierOnce();
+    const second = await runNotifierOnce();
+    expect(first.errors).toEqual([]);
+    expect(second.errors).toEqual([]);
+    expect(await MailOutbox.count({ where: { shopId: s.shop.id, kind: "flag_digest" } })).toBe(1);
+  }, 180_000);
 });

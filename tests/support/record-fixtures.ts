@@ -7,8 +7,9 @@ import sharp from "sharp";
 import { CANONICAL_VERSION, itemDigests, releaseHash } from "@/lib/server/release-hash";
 import { buildSnapshot, gaugeRecord } from "@/lib/server/release-hash-snapshot";
 import { loadJobRecord } from "@/lib/server/release-repo";
+import { deliverPendingMail } from "@/lib/server/mail-outbox-worker";
 import { putObject } from "@/lib/server/storage";
-import { Attachment, Flag, FlagDisposition, Job, Reading, Release, type JsonValue } from "@/models";
+import { Attachment, Flag, FlagDisposition, Job, MailOutbox, Reading, Release, type JsonValue } from "@/models";
 import { createShop, type TestShop } from "./factories";
 
 type Fixture = { station: string; value: number; unit?: string; verdict: "in_spec" | "marginal" | "out_of_spec"; min: number; max: number; nominal?: number; lubricant?: string };
@@ -98,3 +99,9 @@ export async function createRecordJob(opts: { release?: boolean; photo?: boolean
 }
 
 export type RecordJob = Awaited<ReturnType<typeof createRecordJob>>;
+
+/** Sends what one shop has queued now: other tests' mail may be queued ahead of it. */
+export async function deliverFor(shopId: number) {
+  const due = await MailOutbox.findAll({ where: { shopId, sentAt: null }, attributes: ["id"] });
+  return deliverPendingMail({ only: due.map((m) => m.id), budgetMs: 60_000 });
+}

@@ -63,13 +63,13 @@ export function Table<T>({ columns, rows, note }: { columns: Column<T>[]; rows: 
   );
 }
 
-export function KeyValues({ lines }: { lines: Line[] }) {
+export function KeyValues({ lines, labelWidth = 32 }: { lines: Line[]; labelWidth?: number }) {
   return (
     <View>
       {lines.map((l) => (
         <View key={l.label} style={s.kv} wrap={false}>
-          <Text style={s.kvLabel}>{l.label}</Text>
-          <Text style={s.kvValue}>{l.value}</Text>
+          <Text style={[s.kvLabel, { width: `${labelWidth}%` }]}>{l.label}</Text>
+          <Text style={[s.kvValue, { width: `${100 - labelWidth}%`, paddingLeft: 4 }]}>{l.value}</Text>
         </View>
       ))}
     </View>

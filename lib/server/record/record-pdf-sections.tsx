@@ -68,8 +68,8 @@ export function PlanSection({ plan }: { plan: BuildRecord["plan"] }) {
     <View>
       <Heading>Build plan</Heading>
       <View style={s.row2}>
-        <View style={s.col}><SubHeading>As planned</SubHeading><KeyValues lines={plan.entered} /></View>
-        <View style={s.col}><SubHeading>Figures computed from the plan</SubHeading><KeyValues lines={plan.figures} />
+        <View style={s.col}><SubHeading>As planned</SubHeading><KeyValues lines={plan.entered} labelWidth={50} /></View>
+        <View style={s.col}><SubHeading>Figures computed from the plan</SubHeading><KeyValues lines={plan.figures} labelWidth={42} />
           {plan.problems.map((p) => <Text key={p} style={s.bold}>{p}</Text>)}
         </View>
       </View>
