@@ -1,7 +1,7 @@
 "use client";
 
 import { startTransition, useCallback, useMemo, useRef, useState } from "react";
-import { evaluateReading, type Lubricant, type MeasureUnit, type Station, type Verdict } from "@/lib/domain";
+import { evaluateReading, type Lubricant, type Station } from "@/lib/domain";
 import type { JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "@/lib/offline/db";
 import { buildReading, dialGroup, isDialGauge, parseEntry, pickGauge } from "@/lib/offline/entry";
@@ -10,24 +10,13 @@ import { gaugeU, usableRaw } from "@/lib/offline/preview";
 import { recordReading, resendReading, type NewReading } from "@/lib/offline/readings";
 import { nextOpenStation, type StationView } from "@/lib/offline/route-status";
 import { useBench } from "@/components/bench/bench-context";
+import { afterPaint } from "./use-after-paint";
+import { createEntryStore, type LastEntry } from "./use-entry-store";
 
 // One entry at the bench, from Enter to the next station. The verdict is computed at once from
-// the core and painted before the database write finishes; the write (reading + outbox, one
-// transaction) runs alongside, and the sync engine is only nudged afterwards: entry never waits.
-export interface LastEntry {
-  seq: number;
-  stationId: string;
-  label: string;
-  value: number | null;
-  unit: MeasureUnit;
-  verdict?: Verdict;
-  deviation?: number;
-  deviationUnit?: MeasureUnit;
-  note?: string;
-  skipped?: boolean;
-  stayed: boolean;
-}
-
+// the core and painted before anything else; the write (reading + outbox, one transaction) runs
+// alongside; the move to the next station follows both; the sync engine is only nudged:
+// entry never waits for sync.
 interface Args {
   pack: JobPack;
   views: StationView[];
@@ -43,42 +32,27 @@ export function chosenGauge(station: Station, pack: JobPack, prefs: JobPrefs) {
   return pickGauge(station, pack.instruments, prefs.gauges[gaugeKey(station)]);
 }
 
-export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo }: Args) {
-  const { db, engine, actor, deviceId } = useBench();
-  const [draft, setDraft] = useState("");
-  const [error, setError] = useState<string>();
-  const [last, setLast] = useState<LastEntry>();
-  const [settingFor, setSettingFor] = useState<string>();
-  const seq = useRef(0);
-  // What was saved at each station before the live query caught up: keeps supersedes and the
-  // confirm rule right even when a gauge sends the next reading within milliseconds.
-  const justSaved = useRef(new Map<string, { id: string; count: number }>());
-  const raw = useMemo(() => usableRaw(readings, pack.instruments), [readings, pack.instruments]);
-  const view = views.find((v) => v.station.id === stationId);
-  const station = view?.station;
+function modeOf(station: Station | undefined, pack: JobPack, prefs: JobPrefs, settingFor?: string) {
   const instrument = station ? chosenGauge(station, pack, prefs) : undefined;
   const group = station ? dialGroup(station) : undefined;
   const dialOn = !!group && prefs.dialMode && isDialGauge(instrument);
   const needSetting = dialOn && (settingFor === group || prefs.dialSettings[group!] === undefined);
+  return { instrument, group, dialOn, needSetting };
+}
 
-  const finish = useCallback((entry: Omit<LastEntry, "seq">, write: Promise<unknown>, typed: string) => {
-    setLast({ ...entry, seq: ++seq.current });
-    setDraft("");
-    setError(undefined);
-    if (!entry.stayed) startTransition(() => moveTo(nextOpenStation(views, entry.stationId) ?? entry.stationId));
-    write.then(
-      () => {
-        performance.mark("tw:reading-committed");
-        engine.afterEntry();
-      },
-      (err: unknown) => {
-        setDraft(typed);
-        setError(`Not saved on this tablet (${err instanceof Error ? err.message : String(err)}); press Save again`);
-      },
-    );
-  }, [engine, moveTo, views]);
+export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo }: Args) {
+  const { db, engine, actor, deviceId } = useBench();
+  const [store] = useState(createEntryStore);
+  const [settingFor, setSettingFor] = useState<string>();
+  const seq = useRef(0);
+  // Set at Enter, shown after the paint; until then the next entry already goes there.
+  const pendingMove = useRef<string | null>(null);
+  // What was saved at each station before the live query caught up: keeps supersedes and the
+  // confirm rule right even when a gauge sends the next reading within milliseconds.
+  const justSaved = useRef(new Map<string, { id: string; count: number }>());
+  const raw = useMemo(() => usableRaw(readings, pack.instruments), [readings, pack.instruments]);
+  const mode = modeOf(views.find((v) => v.station.id === stationId)?.station, pack, prefs, settingFor);
 
-  /** The station's latest reading as far as this screen knows (live query, or a save it has not seen yet). */
   const latest = useCallback((v: StationView) => {
     const saved = justSaved.current.get(v.station.id);
     if (saved && !readings.some((r) => r.id === saved.id)) return { id: saved.id, count: saved.count, rejected: undefined };
@@ -93,27 +67,52 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
     return w.then((id) => void justSaved.current.set(reading.stationId, { id, count: known.count + 1 }));
   }, [db, deviceId, actor.userId]);
 
+  const finish = useCallback((entry: Omit<LastEntry, "seq">, saving: Promise<unknown>, typed: string) => {
+    store.set({ last: { ...entry, seq: ++seq.current }, draft: "", error: undefined });
+    if (!entry.stayed) {
+      // Shown once the verdict has painted and the write has committed, so neither waits on it.
+      const next = nextOpenStation(views, entry.stationId) ?? entry.stationId;
+      pendingMove.current = next;
+      const painted = new Promise<void>((r) => afterPaint(r));
+      void Promise.all([painted, saving.catch(() => undefined)]).then(() => {
+        if (pendingMove.current !== next) return;
+        pendingMove.current = null;
+        startTransition(() => moveTo(next));
+      });
+    }
+    saving.then(
+      () => {
+        performance.mark("tw:reading-committed");
+        engine.afterEntry();
+      },
+      (err: unknown) => store.set({ draft: typed, error: `Not saved on this tablet (${err instanceof Error ? err.message : String(err)}); press Save again` }),
+    );
+  }, [engine, moveTo, views, store]);
+
   const save = useCallback(() => {
-    if (!view || !station) return;
-    if (pack.job.locked) return setError(pack.job.lockReason ?? "This job is released; readings are locked");
-    if (needSetting) {
+    const view = views.find((v) => v.station.id === (pendingMove.current ?? stationId));
+    if (!view) return;
+    const { station } = view;
+    const { draft } = store.get();
+    if (pack.job.locked) return store.set({ error: pack.job.lockReason ?? "This job is released; readings are locked" });
+    const m = modeOf(station, pack, prefs, settingFor);
+    if (m.needSetting) {
       const parsed = parseEntry(draft, "the setting size");
-      if ("error" in parsed) return setError(parsed.error);
-      setDraft("");
-      setError(undefined);
+      if ("error" in parsed) return store.set({ error: parsed.error });
+      store.set({ draft: "", error: undefined });
       setSettingFor(undefined);
-      void patchJobPrefs(db, pack.job.id, { dialSettings: { ...prefs.dialSettings, [group!]: parsed.value } });
+      void patchJobPrefs(db, pack.job.id, { dialSettings: { ...prefs.dialSettings, [m.group!]: parsed.value } });
       return;
     }
     const known = latest(view);
-    const supersedes = known.id;
     const built = buildReading(draft, {
-      pack, station, instrument, dialSetting: dialOn ? prefs.dialSettings[group!] : undefined,
-      lubricant: prefs.lubricant as Lubricant | undefined, supersedes,
+      pack, station, instrument: m.instrument, dialSetting: m.dialOn ? prefs.dialSettings[m.group!] : undefined,
+      lubricant: prefs.lubricant as Lubricant | undefined, supersedes: known.id,
     });
-    if ("error" in built) return setError(built.error);
+    if ("error" in built) return store.set({ error: built.error });
     const r = built.reading;
-    const U = gaugeU(instrument, r.unit);
+    const saving = write(r, known); // started first: the store works while the verdict is worked out
+    const U = gaugeU(m.instrument, r.unit);
     let ev: ReturnType<typeof evaluateReading> | undefined;
     let note: string | undefined;
     try {
@@ -123,15 +122,20 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
       note = err instanceof Error ? err.message : String(err);
     }
     const stayed = ev?.verdict === "out_of_spec" && known.count === 0;
-    finish({ stationId: station.id, label: station.label, value: r.value, unit: r.unit, verdict: ev?.verdict, deviation: ev?.deviation, deviationUnit: ev?.unit, note, stayed }, write(r, known), draft);
-  }, [view, station, pack, needSetting, draft, db, prefs, group, instrument, dialOn, raw, finish, write, latest]);
+    finish({ stationId: station.id, label: station.label, value: r.value, unit: r.unit, verdict: ev?.verdict, deviation: ev?.deviation, deviationUnit: ev?.unit, note, stayed }, saving, draft);
+  }, [views, stationId, pack, prefs, settingFor, db, raw, latest, finish, write, store]);
 
   const skip = useCallback((reason: string) => {
-    if (!view || !station) return;
+    const view = views.find((v) => v.station.id === (pendingMove.current ?? stationId));
+    if (!view) return;
+    const { station } = view;
     const known = latest(view);
     const reading: NewReading = { jobId: pack.job.id, stationId: station.id, value: null, unit: station.unit, skipped: true, skipReason: reason, ...(known.id ? { supersedes: known.id } : {}) };
     finish({ stationId: station.id, label: station.label, value: null, unit: station.unit, skipped: true, note: `Skipped: ${reason}`, stayed: false }, write(reading, known), "");
-  }, [view, station, pack.job.id, finish, write, latest]);
+  }, [views, stationId, pack.job.id, finish, write, latest]);
 
-  return { draft, setDraft, error, setError, last, save, skip, instrument, dialOn, needSetting, group, askSetting: () => setSettingFor(group) };
+  /** A jump by the machinist wins over a move still waiting for the paint. */
+  const cancelMove = useCallback(() => void (pendingMove.current = null), []);
+  const askSetting = useCallback(() => setSettingFor(mode.group), [mode.group]);
+  return { store, save, skip, cancelMove, askSetting, ...mode };
 }

@@ -1,9 +1,10 @@
 "use client";
 
-import { useLiveQuery } from "dexie-react-hooks";
 import { useSearchParams } from "next/navigation";
 import { useEffect, useState } from "react";
 import { Notice } from "@/components/ui/notice";
+import { useAfterPaint } from "@/hooks/use-after-paint";
+import { useDexieQuery } from "@/hooks/use-dexie-query";
 import type { JobPack } from "@/lib/schemas/sync";
 import { getJobPrefs } from "@/lib/offline/meta";
 import { savePack } from "@/lib/offline/packs";
@@ -18,9 +19,12 @@ export function BenchJob() {
   const id = Number(useSearchParams().get("id"));
   const { db } = useBench();
   const [fetchError, setFetchError] = useState<string>();
-  const row = useLiveQuery(() => db.jobs.get(id).then((r) => r ?? null), [id]);
-  const readings = useLiveQuery(() => readingsOfJob(db, id), [id]);
-  const prefs = useLiveQuery(() => getJobPrefs(db, id), [id]);
+  const [row, rowError] = useDexieQuery(db, ["jobs"], () => db.jobs.get(id).then((r) => r ?? null), [id]);
+  // A new reading repaints the route and derived values only after its verdict has painted.
+  const [live, readError] = useDexieQuery(db, ["readings"], () => readingsOfJob(db, id), [id]);
+  const readings = useAfterPaint(live);
+  const [prefs] = useDexieQuery(db, ["meta"], () => getJobPrefs(db, id), [id]);
+  const storeError = rowError ?? readError;
 
   useEffect(() => {
     if (!Number.isInteger(id) || id <= 0) return;
@@ -38,6 +42,9 @@ export function BenchJob() {
 
   if (!Number.isInteger(id) || id <= 0) {
     return <main className="mx-auto max-w-3xl px-4 py-8"><Notice tone="error">No job was picked. Go back to the <a className="underline" href="/bench">job list</a> and open one.</Notice></main>;
+  }
+  if (storeError && (row === undefined || readings === undefined)) {
+    return <main className="mx-auto max-w-3xl px-4 py-8"><Notice tone="error" title="The tablet's storage could not be read">{storeError.message}. Reload the page; nothing saved is lost.</Notice></main>;
   }
   if (row === undefined || readings === undefined || prefs === undefined) return <main className="px-4 py-8 text-lg text-muted">Opening the job…</main>;
   if (row === null) {

@@ -1,5 +1,6 @@
 "use client";
 
+import { memo } from "react";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
 import { formatDeviation, type DerivedValue } from "@/lib/domain";
 import { figure, UNIT_WORDS } from "./units";
@@ -24,7 +25,7 @@ function where(d: DerivedValue): string {
   return parts.length > 1 ? parts.slice(1).join(" · ") : parts.join(" · ");
 }
 
-export function DerivedPanel({ values }: { values: DerivedValue[] }) {
+export const DerivedPanel = memo(function DerivedPanel({ values }: { values: DerivedValue[] }) {
   if (values.length === 0) return null;
   return (
     <section className="flex flex-col gap-2" aria-label="Derived values" data-testid="derived">
@@ -50,4 +51,4 @@ export function DerivedPanel({ values }: { values: DerivedValue[] }) {
       </ul>
     </section>
   );
-}
+});

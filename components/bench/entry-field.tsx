@@ -1,25 +1,27 @@
 "use client";
 
 import { forwardRef, type KeyboardEvent, type ReactNode } from "react";
+import { useEntryField, type EntryStore } from "@/hooks/use-entry-store";
 import { cleanTyped } from "@/lib/offline/entry";
 
 // The value being entered, shown large with its unit and the gauge in use. It is a real input so
 // a gauge that types (digits, then Enter) or a physical keyboard works with no tap;
 // inputMode="none" keeps the tablet's own on-screen keyboard away (the glove keypad is below).
 interface Props {
-  value: string;
-  onChange: (v: string) => void;
+  store: EntryStore;
   onEnter: () => void;
   unit: string;
   label: string;
   hint: string;
   gauge: ReactNode;
   placeholder: string;
-  error?: string;
   disabled?: boolean;
 }
 
-export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryField({ value, onChange, onEnter, unit, label, hint, gauge, placeholder, error, disabled }, ref) {
+export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryField({ store, onEnter, unit, label, hint, gauge, placeholder, disabled }, ref) {
+  const value = useEntryField(store, "draft");
+  const error = useEntryField(store, "error");
+  const onChange = (draft: string) => store.set({ draft, error: undefined });
   function onKeyDown(e: KeyboardEvent<HTMLInputElement>) {
     if (e.key === "Enter") {
       e.preventDefault();
@@ -31,7 +33,7 @@ export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryFiel
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor="tw-entry" className="truncate text-sm font-semibold text-muted">{label}</label>
-      <div className={`rounded-tool border-4 bg-panel px-4 pb-1 pt-1 focus-within:border-brass ${error ? "border-fail" : "border-steel"}`}>
+      <div className={`rounded-tool border-4 bg-panel px-4 pb-1 pt-1 [contain:content] focus-within:border-brass ${error ? "border-fail" : "border-steel"}`}>
         <div className="flex items-baseline gap-3">
           <input
             id="tw-entry"

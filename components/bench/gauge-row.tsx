@@ -1,6 +1,6 @@
 "use client";
 
-import { useState } from "react";
+import { memo, useState } from "react";
 import type { BenchInstrument } from "@/lib/schemas/sync";
 
 // Picking the gauge (it sets the guard band and, for a dial bore gauge, the sign convention) and,
@@ -17,7 +17,7 @@ interface Props {
 
 const pastDue = (g: BenchInstrument) => !!g.calibrationDue && g.calibrationDue < new Date().toISOString().slice(0, 10);
 
-export function GaugeRow({ gauges, chosen, onChoose, dialCapable, dialOn, onDial, onChangeSetting }: Props) {
+export const GaugeRow = memo(function GaugeRow({ gauges, chosen, onChoose, dialCapable, dialOn, onDial, onChangeSetting }: Props) {
   const [open, setOpen] = useState(false);
   return (
     <div className="flex flex-col gap-2" data-testid="gauge">
@@ -54,4 +54,4 @@ export function GaugeRow({ gauges, chosen, onChoose, dialCapable, dialOn, onDial
       )}
     </div>
   );
-}
+});

@@ -1,11 +1,11 @@
 "use client";
 
-import { useLiveQuery } from "dexie-react-hooks";
 import { useEffect, useState } from "react";
 import { Notice } from "@/components/ui/notice";
 import type { BenchJobSummary, JobPack } from "@/lib/schemas/sync";
 import { savePack } from "@/lib/offline/packs";
 import { getJson } from "@/lib/offline/transport";
+import { useDexieQuery } from "@/hooks/use-dexie-query";
 import { useBench } from "./bench-context";
 
 // The jobs waiting for measurement. Online, every listed job is downloaded to the tablet in the
@@ -17,8 +17,8 @@ export function JobPicker() {
   const { db } = useBench();
   const [remote, setRemote] = useState<BenchJobSummary[] | null>(null);
   const [offline, setOffline] = useState(false);
-  const local = useLiveQuery(() => db.jobs.toArray(), [], []);
-  const pending = useLiveQuery(async () => {
+  const [local] = useDexieQuery(db, ["jobs"], () => db.jobs.toArray(), [], []);
+  const [pending] = useDexieQuery(db, ["outbox"], async () => {
     const counts = new Map<number, number>();
     await db.outbox.each((o) => void counts.set(o.jobId, (counts.get(o.jobId) ?? 0) + 1));
     return counts;

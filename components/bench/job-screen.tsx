@@ -1,6 +1,6 @@
 "use client";
 
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { FastenerCaution, Notice } from "@/components/ui/notice";
 import { Button } from "@/components/ui/button";
 import { chosenGauge, useBenchEntry } from "@/hooks/use-bench-entry";
@@ -9,7 +9,7 @@ import type { LocalReading } from "@/lib/offline/db";
 import { dialGroup, gaugesFor, isDialGauge } from "@/lib/offline/entry";
 import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { derivedFor } from "@/lib/offline/preview";
-import { nextOpenStation, sectionProgress, stationViews, type StationView } from "@/lib/offline/route-status";
+import { nextOpenStation, OPEN_STATES, sectionProgress, stationViews, type StationView } from "@/lib/offline/route-status";
 import { useBench } from "./bench-context";
 import { DerivedPanel, relevantDerived } from "./derived-panel";
 import { EntryPanel } from "./entry-panel";
@@ -44,7 +44,7 @@ function RefusedNotice({ views, onFix }: { views: StationView[]; onFix: (id: str
     </Notice>
   );
 }
-export function JobScreen({ pack, readings, prefs }: { pack: JobPack; readings: LocalReading[]; prefs: JobPrefs }) {
+export const JobScreen = memo(function JobScreen({ pack, readings, prefs }: { pack: JobPack; readings: LocalReading[]; prefs: JobPrefs }) {
   const { db } = useBench();
   const views = useMemo(() => stationViews(pack, readings), [pack, readings]);
   const sections = useMemo(() => sectionProgress(pack, views), [pack, views]);
@@ -60,54 +60,68 @@ export function JobScreen({ pack, readings, prefs }: { pack: JobPack; readings: 
     if (!sheet) inputRef.current?.focus();
   }, [stationId, sheet]);
 
+  // Stable props, so an entry repaints only the readout and the verdict (the memoised parts
+  // keep their DOM): the Enter-to-verdict time is what bench:entry measures.
+  const jobId = pack.job.id;
+  const onPrefs = useCallback((patch: Partial<JobPrefs>) => void patchJobPrefs(db, jobId, patch), [db, jobId]);
+  const { cancelMove } = entry;
+  const jump = useCallback((id: string) => {
+    cancelMove();
+    setStationId(id);
+    setSheet(null);
+  }, [cancelMove]);
+  const pickSection = useCallback((sid: string) => {
+    const mine = views.filter((v) => v.station.section === sid);
+    jump((mine.find((v) => OPEN_STATES.includes(v.state)) ?? mine[0]).station.id);
+  }, [views, jump]);
+  const openRoute = useCallback(() => setSheet("route"), []);
+  const pickLubricant = useCallback((l: string) => onPrefs({ lubricant: l }), [onPrefs]);
+  const currentId = view?.current && view.current.state !== "rejected" ? view.current.id : undefined;
+  const photoOwner = useMemo(() => (currentId
+    ? { jobId, ownerType: "reading" as const, ownerId: currentId }
+    : { jobId, ownerType: "job" as const, ownerId: String(jobId) }), [jobId, currentId]);
+  const gauges = useMemo(() => (view ? gaugesFor(view.station, pack.instruments) : []), [view, pack.instruments]);
+  const shownDerived = useMemo(() => (view ? relevantDerived(derived, view.station.id) : []), [derived, view]);
+
   if (!view) return <Notice tone="error">This job has no stations on its route; ask the lead to check the engine&apos;s shape.</Notice>;
   const station = view.station;
   const inSection = views.filter((v) => v.station.section === station.section);
   const section = sections.find((s) => s.id === station.section);
-  const gauges = gaugesFor(station, pack.instruments);
+
   const dialCapable = !!dialGroup(station) && isDialGauge(chosenGauge(station, pack, prefs));
   const refused = views.filter((v) => v.state === "rejected");
-  const onPrefs = (patch: Partial<JobPrefs>) => void patchJobPrefs(db, pack.job.id, patch);
-  const photoOwner = view.current && view.current.state !== "rejected"
-    ? { jobId: pack.job.id, ownerType: "reading" as const, ownerId: view.current.id }
-    : { jobId: pack.job.id, ownerType: "job" as const, ownerId: String(pack.job.id) };
-  const jump = (id: string) => {
-    setStationId(id);
-    setSheet(null);
-  };
-  const pickSection = (sid: string) => {
-    const mine = views.filter((v) => v.station.section === sid);
-    jump((mine.find((v) => ["todo", "confirm", "revisit", "rejected"].includes(v.state)) ?? mine[0]).station.id);
-  };
 
   return (
     <main className="mx-auto flex max-w-7xl flex-col gap-3 px-4 py-3" data-testid="job-screen" data-job={pack.job.id}>
-      <SectionStrip sections={sections} current={station.section} onPick={pickSection} onAll={() => setSheet("route")} />
+      <SectionStrip sections={sections} current={station.section} onPick={pickSection} onAll={openRoute} />
       {pack.job.locked && <Notice tone="error" title="This job is released">{pack.job.lockReason ?? "Readings are locked."} New readings cannot be taken.</Notice>}
       {refused.length > 0 && <RefusedNotice views={refused} onFix={jump} />}
       <div className={GRID}>
         <div className="flex flex-col gap-3 [grid-area:where]">
           <p className="truncate text-sm text-muted"><span className="font-semibold text-ink">{pack.job.title}</span> · <span className="font-mono">{pack.job.code}</span> · {pack.job.engine}</p>
-          <StationHeader view={view} sectionLabel={section?.label ?? station.section} position={[inSection.indexOf(view) + 1, inSection.length]} shape={pack.shape} />
-          {station.torque && <LubricantPicker value={prefs.lubricant} onPick={(l) => onPrefs({ lubricant: l })} />}
+          <StationHeader view={view} sectionLabel={section?.label ?? station.section} index={inSection.indexOf(view) + 1} of={inSection.length} shape={pack.shape} />
+          {station.torque && <LubricantPicker value={prefs.lubricant} onPick={pickLubricant} />}
           {station.section === "bolt" && <FastenerCaution />}
         </div>
         <div className="[grid-area:last]">
-          <LastEntryCard last={entry.last} onAgain={jump} />
+          <LastEntryCard store={entry.store} onAgain={jump} />
         </div>
         <div className="[grid-area:entry]">
-          <EntryPanel station={station} entry={entry} gauges={gauges} prefs={prefs} onPrefs={onPrefs} inputRef={inputRef} locked={pack.job.locked} dialCapable={dialCapable} />
+          <EntryPanel
+            station={station} store={entry.store} save={entry.save} instrument={entry.instrument} dialOn={entry.dialOn} needSetting={entry.needSetting}
+            group={entry.group} askSetting={entry.askSetting} gauges={gauges} prefs={prefs} onPrefs={onPrefs} inputRef={inputRef} locked={pack.job.locked} dialCapable={dialCapable}
+          />
         </div>
         <div className="flex flex-col gap-3 [grid-area:more]">
           <div className="grid grid-cols-2 gap-3">
             <Button big tone="quiet" onClick={() => setSheet("skip")} disabled={pack.job.locked}>Skip…</Button>
             <PhotoButton jobId={pack.job.id} owner={photoOwner} />
           </div>
-          <DerivedPanel values={relevantDerived(derived, station.id)} />
+          <DerivedPanel values={shownDerived} />
         </div>
       </div>
       {sheet === "route" && <RouteSheet sections={sections} views={views} current={station.id} onPick={jump} onClose={() => setSheet(null)} />}
       {sheet === "skip" && <SkipSheet station={station.label} onSkip={(r) => { entry.skip(r); setSheet(null); }} onClose={() => setSheet(null)} />}
     </main>
   );
-}
+});

@@ -1,6 +1,6 @@
 "use client";
 
-import type { PointerEvent } from "react";
+import { memo, type PointerEvent } from "react";
 
 // The glove keypad: every key at least 64 CSS px tall (and wider than tall) with 10 px between
 // keys, no hover, no drag,
@@ -33,7 +33,7 @@ export function applyKey(draft: string, key: PadKey): string {
   return draft + key;
 }
 
-export function Keypad({ onKey, onEnter, enterLabel = "Save", disabled = false }: { onKey: (k: PadKey) => void; onEnter: () => void; enterLabel?: string; disabled?: boolean }) {
+export const Keypad = memo(function Keypad({ onKey, onEnter, enterLabel = "Save", disabled = false }: { onKey: (k: PadKey) => void; onEnter: () => void; enterLabel?: string; disabled?: boolean }) {
   const digit = (d: PadKey) => <Key key={d} label={d} name={d} onPress={() => onKey(d)} />;
   return (
     <div className="grid grid-cols-4 gap-2.5" role="group" aria-label="Keypad" data-testid="keypad">
@@ -56,4 +56,4 @@ export function Keypad({ onKey, onEnter, enterLabel = "Save", disabled = false }
       <Key label="." name="Decimal point" onPress={() => onKey(".")} />
     </div>
   );
-}
+});

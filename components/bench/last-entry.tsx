@@ -2,18 +2,19 @@
 
 import { VerdictBadge } from "@/components/ui/verdict-badge";
 import { formatDeviation } from "@/lib/domain";
-import type { LastEntry } from "@/hooks/use-bench-entry";
+import { useEntryField, type EntryStore } from "@/hooks/use-entry-store";
 import { figure, UNIT_WORDS } from "./units";
 
 // The answer to the entry just made, painted at once: verdict (colour, word and shape) and how
 // far from nominal in the shop's words (tenths or µm). Out of spec on a first reading asks for
 // a confirming second one before the route moves on.
-export function LastEntryCard({ last, onAgain }: { last?: LastEntry; onAgain: (stationId: string) => void }) {
+export function LastEntryCard({ store, onAgain }: { store: EntryStore; onAgain: (stationId: string) => void }) {
+  const last = useEntryField(store, "last");
   if (!last) {
     return <p className="rounded-tool border-2 border-dashed border-rule p-4 text-muted" data-testid="last-entry">The verdict of each reading shows here as soon as it is saved.</p>;
   }
   return (
-    <section className="flex flex-col gap-2 rounded-tool border-2 border-rule bg-panel p-3" data-testid="last-entry" data-seq={last.seq} data-verdict={last.verdict ?? "none"} aria-live="polite">
+    <section className="flex flex-col gap-2 rounded-tool border-2 border-rule bg-panel p-3 [contain:content]" data-testid="last-entry" data-seq={last.seq} data-verdict={last.verdict ?? "none"} aria-live="polite">
       <p className="truncate text-sm text-muted">Last saved · {last.label}</p>
       <div className="flex flex-wrap items-center gap-x-3 gap-y-2">
         {last.verdict && <VerdictBadge verdict={last.verdict} size="lg" />}

@@ -1,11 +1,12 @@
 "use client";
 
+import { memo } from "react";
 import { FastenerCaution } from "@/components/ui/notice";
 import { LUBRICANT_LABELS, type Lubricant } from "@/lib/domain";
 
 // Torque figures mean nothing without the lubricant (it changes the preload a torque gives), so
 // the lubricant is picked before a torque is saved, with the fastener caution beside it.
-export function LubricantPicker({ value, onPick }: { value?: string; onPick: (l: Lubricant) => void }) {
+export const LubricantPicker = memo(function LubricantPicker({ value, onPick }: { value?: string; onPick: (l: Lubricant) => void }) {
   return (
     <div className="flex flex-col gap-2">
       <FastenerCaution />
@@ -19,4 +20,4 @@ export function LubricantPicker({ value, onPick }: { value?: string; onPick: (l:
       </div>
     </div>
   );
-}
+});

@@ -1,16 +1,16 @@
 "use client";
 
-import { useLiveQuery } from "dexie-react-hooks";
-import { useState, type ChangeEvent } from "react";
+import { memo, useState, type ChangeEvent } from "react";
 import { addPhoto, type PhotoOwner } from "@/lib/offline/photos";
+import { useDexieQuery } from "@/hooks/use-dexie-query";
 import { useBench } from "./bench-context";
 
 // A photo from the tablet's camera (a scored bore, a spun bearing), kept on the tablet until
 // the server has it. Attached to the station's current reading, else to the job.
-export function PhotoButton({ owner, jobId }: { owner: PhotoOwner; jobId: number }) {
+export const PhotoButton = memo(function PhotoButton({ owner, jobId }: { owner: PhotoOwner; jobId: number }) {
   const { db, engine, actor } = useBench();
   const [error, setError] = useState<string>();
-  const waiting = useLiveQuery(() => db.photos.where("jobId").equals(jobId).filter((p) => p.state === "pending").count(), [jobId], 0);
+  const [waiting] = useDexieQuery(db, ["photos"], () => db.photos.where("jobId").equals(jobId).filter((p) => p.state === "pending").count(), [jobId], 0);
   async function onFile(e: ChangeEvent<HTMLInputElement>) {
     const file = e.target.files?.[0];
     e.target.value = "";
@@ -33,4 +33,4 @@ export function PhotoButton({ owner, jobId }: { owner: PhotoOwner; jobId: number
       {error && <p className="text-sm font-semibold text-fail" role="alert">{error}</p>}
     </div>
   );
-}
+});

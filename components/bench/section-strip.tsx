@@ -1,9 +1,10 @@
 "use client";
 
+import { memo } from "react";
 import type { SectionProgress } from "@/lib/offline/route-status";
 
 // Progress per section, always in view; a tap jumps to the section's first open station.
-export function SectionStrip({ sections, current, onPick, onAll }: { sections: SectionProgress[]; current: string; onPick: (id: string) => void; onAll: () => void }) {
+export const SectionStrip = memo(function SectionStrip({ sections, current, onPick, onAll }: { sections: SectionProgress[]; current: string; onPick: (id: string) => void; onAll: () => void }) {
   return (
     <nav aria-label="Sections" className="flex gap-2 overflow-x-auto pb-1">
       <button type="button" onClick={onAll} className="min-h-16 shrink-0 rounded-tool bg-steel px-4 text-lg font-semibold text-steel-ink">
@@ -29,4 +30,4 @@ export function SectionStrip({ sections, current, onPick, onAll }: { sections: S
       })}
     </nav>
   );
-}
+});

@@ -1,18 +1,19 @@
 "use client";
 
+import { memo } from "react";
 import { parseStationId, type EngineShape } from "@/lib/domain";
 import type { StationView } from "@/lib/offline/route-status";
 import { StationDiagram } from "./station-diagram";
 import { StateTag } from "./station-state";
 
 // Where am I: section, position in it, the station in words, a small drawing, and its state.
-export function StationHeader({ view, sectionLabel, position, shape }: { view: StationView; sectionLabel: string; position: [number, number]; shape: EngineShape }) {
+export const StationHeader = memo(function StationHeader({ view, sectionLabel, index, of, shape }: { view: StationView; sectionLabel: string; index: number; of: number; shape: EngineShape }) {
   const p = parseStationId(view.station.id);
   return (
     <section className="flex flex-col gap-1.5" aria-label="Where you are" data-testid="where" data-station={view.station.id}>
       <p className="flex flex-wrap items-center gap-x-3 text-base font-semibold text-muted">
         <span>{sectionLabel}</span>
-        <span>station {position[0]} of {position[1]}</span>
+        <span>station {index} of {of}</span>
         <StateTag state={view.state} />
       </p>
       <h2 className="text-2xl font-bold leading-tight">{view.station.label}</h2>
@@ -30,4 +31,4 @@ export function StationHeader({ view, sectionLabel, position, shape }: { view: S
       <StationDiagram p={p} shape={shape} />
     </section>
   );
-}
+});

@@ -1,10 +1,10 @@
 "use client";
 
-import { useLiveQuery } from "dexie-react-hooks";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { useOnline } from "@/hooks/use-online";
 import { getSyncStatus, IDLE_STATUS } from "@/lib/offline/meta";
+import { useDexieQuery } from "@/hooks/use-dexie-query";
 import { useBench } from "./bench-context";
 
 // The sync badge (STYLE habit 11): how many readings wait, when the server last took them, and
@@ -21,10 +21,20 @@ export function SyncBadge() {
   const { db, engine, actor } = useBench();
   const online = useOnline();
   const [tapped, setTapped] = useState(false);
-  const pending = useLiveQuery(() => db.outbox.where("takenBy").equals(actor.userId).count(), [actor.userId], 0);
-  const others = useLiveQuery(() => db.outbox.filter((o) => o.takenBy !== actor.userId).count(), [actor.userId], 0);
-  const refused = useLiveQuery(() => db.readings.where("state").equals("rejected").count(), [], 0);
-  const status = useLiveQuery(() => getSyncStatus(db), [], IDLE_STATUS);
+  // One read for the whole badge (it re-runs after each commit on these tables).
+  const [{ pending, others, refused, status }] = useDexieQuery(
+    db,
+    ["outbox", "readings", "meta"],
+    () => db.transaction("r", db.outbox, db.readings, db.meta, async () => {
+      const [mine, all, rejected, st] = await Promise.all([
+        db.outbox.where("takenBy").equals(actor.userId).count(), db.outbox.count(),
+        db.readings.where("state").equals("rejected").count(), getSyncStatus(db),
+      ]);
+      return { pending: mine, others: all - mine, refused: rejected, status: st };
+    }),
+    [actor.userId],
+    { pending: 0, others: 0, refused: 0, status: IDLE_STATUS },
+  );
   const tone = status.lastError && (status.needsAction || pending > 0) ? "bad" : pending > 0 ? "wait" : "ok";
   const toneClass = tone === "ok" ? "border-pass bg-pass-soft text-pass" : tone === "wait" ? "border-watch bg-watch-soft text-watch" : "border-fail bg-fail-soft text-fail";
   const head = status.running ? "Sending…" : pending > 0 ? `${pending} waiting to send` : "All sent";

@@ -1,9 +1,9 @@
 "use client";
 
 import { useSerwist } from "@serwist/next/react";
-import { useLiveQuery } from "dexie-react-hooks";
 import { useEffect, useState } from "react";
 import { Button } from "@/components/ui/button";
+import { useDexieQuery } from "@/hooks/use-dexie-query";
 import { useBench } from "./bench-context";
 
 // A new version of the app is installed but waits (the worker does not skip waiting). It is
@@ -13,7 +13,8 @@ export function UpdateBanner() {
   const { serwist } = useSerwist();
   const { db } = useBench();
   const [waiting, setWaiting] = useState(false);
-  const queued = useLiveQuery(() => db.outbox.count(), [], 0);
+  // Watched only while an update waits, so entries do not pay for this query the rest of the time.
+  const [queued] = useDexieQuery(db, ["outbox"], () => (waiting ? db.outbox.count() : Promise.resolve(0)), [waiting], 0);
 
   useEffect(() => {
     if (!serwist) return;

@@ -95,13 +95,23 @@ export class BenchDb extends Dexie {
   meta!: EntityTable<MetaRow, "key">;
 
   constructor(name = "tenthwise-bench") {
-    super(name);
+    // No optimistic live-query cache: it re-evaluates every watched query inside each write,
+    // which the entry's commit would wait on; live queries simply re-read after the commit.
+    super(name, { cache: "disabled" });
     this.version(1).stores({
       jobs: "jobId, openedAt",
       readings: "id, jobId, [jobId+stationId], state, takenAt",
       outbox: "readingId, jobId, takenBy, queuedAt",
       photos: "id, jobId, ownerId, state",
       meta: "key",
+    });
+    // Only the indexes a query uses: every index is one more write inside each entry's
+    // transaction, and the entry's commit time is what the machinist waits on.
+    this.version(2).stores({
+      jobs: "jobId",
+      readings: "id, jobId, state",
+      outbox: "readingId, takenBy",
+      photos: "id, jobId, state",
     });
   }
 }

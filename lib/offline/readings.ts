@@ -52,10 +52,14 @@ export async function recordReading(db: BenchDb, input: NewReading, ctx: WriteCo
     state: "pending",
     updatedAt: at,
   };
-  await db.transaction("rw", db.readings, db.outbox, async () => {
-    await db.readings.add(row);
-    await db.outbox.add({ readingId: row.id, jobId: row.jobId, takenBy: row.takenBy, queuedAt: at, attempts: 0 });
-  });
+  // Both writes are issued at once (one round trip to the store, not two); the transaction
+  // still commits both or neither.
+  await db.transaction("rw", db.readings, db.outbox, () =>
+    Promise.all([
+      db.readings.add(row),
+      db.outbox.add({ readingId: row.id, jobId: row.jobId, takenBy: row.takenBy, queuedAt: at, attempts: 0 }),
+    ]),
+  );
   return row;
 }
 

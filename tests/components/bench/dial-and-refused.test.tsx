@@ -60,7 +60,7 @@ describe("dial bore gauge mode", () => {
     // The next station of the group keeps the setting: the next entry is a dial reading at once.
     await act(async () => type(input, "0.0001"));
     await waitFor(async () => expect(await db.readings.count()).toBe(2));
-    expect((await db.readings.orderBy("takenAt").last())?.value).toBe(4.0299);
+    expect((await db.readings.toCollection().sortBy("takenAt")).at(-1)?.value).toBe(4.0299);
   });
 });
 

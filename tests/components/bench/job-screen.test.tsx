@@ -78,7 +78,7 @@ describe("bench entry", () => {
     await act(async () => gaugeTypes("4.0311"));
     await waitFor(() => expect(station()).toBe("bore/1/top/B"));
     await waitFor(async () => expect(await db.readings.count()).toBe(2));
-    const [first, second] = await db.readings.orderBy("takenAt").toArray();
+    const [first, second] = await db.readings.toCollection().sortBy("takenAt");
     expect(second.supersedes).toBe(first.id);
   });
 

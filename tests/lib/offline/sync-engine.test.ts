@@ -16,7 +16,7 @@ function engineFor(db: BenchDb, server: FakeServer, extra: Partial<ConstructorPa
 }
 afterEach(() => engines.splice(0).forEach((e) => e.stop()));
 
-const states = async (db: BenchDb) => (await db.readings.orderBy("takenAt").toArray()).map((r) => r.state);
+const states = async (db: BenchDb) => (await db.readings.toCollection().sortBy("takenAt")).map((r) => r.state);
 const BORES: [string, number][] = [["bore/1/top/A", 4.0302], ["bore/1/top/B", 4.0301], ["bore/1/mid/A", 4.0303], ["bore/1/mid/B", 4.03], ["bore/1/bottom/A", 4.0299]];
 
 describe("sync engine", () => {

@@ -1,0 +1,28 @@
+"use client";
+
+import { useEffect, useState } from "react";
+
+/** Runs `fn` once the browser has painted the next frame (a timer queued from requestAnimationFrame). */
+export function afterPaint(fn: () => void): () => void {
+  if (typeof requestAnimationFrame !== "function") {
+    const t = setTimeout(fn, 16);
+    return () => clearTimeout(t);
+  }
+  let t: ReturnType<typeof setTimeout> | undefined;
+  const raf = requestAnimationFrame(() => (t = setTimeout(fn, 0)));
+  return () => {
+    cancelAnimationFrame(raf);
+    clearTimeout(t);
+  };
+}
+
+/**
+ * `value`, but a changed value reaches the screen only after the frame in flight has painted.
+ * The bench uses it for the job's readings: the verdict of an entry paints first, and the heavier
+ * recomputation of the route and derived values follows in the next frame.
+ */
+export function useAfterPaint<T>(value: T): T {
+  const [shown, setShown] = useState(value);
+  useEffect(() => (Object.is(value, shown) ? undefined : afterPaint(() => setShown(() => value))), [value, shown]);
+  return shown;
+}
