@@ -1,19 +1,9 @@
 // Engine build arithmetic: displacement, compression ratio, rod ratio, deck stack-up, valve lift
 // and spring rate. Volumes follow Heywood, Internal Combustion Engine Fundamentals (1988), §2.2:
 // swept volume π/4·B²·L per cylinder, compression ratio (Vd + Vc)/Vc.
+import { requireFinite, requirePositive } from "./checks";
 import type { LengthUnit } from "./types";
 import { cleanDecimal, decimalDifference, decimalSum } from "./units";
-
-function requireFinite(value: number, name: string): void {
-  if (typeof value !== "number" || !Number.isFinite(value)) {
-    throw new Error(`${name} must be a number; got ${String(value)}`);
-  }
-}
-
-function requirePositive(value: number, name: string): void {
-  requireFinite(value, name);
-  if (value <= 0) throw new Error(`${name} must be greater than zero; got ${value}`);
-}
 
 function cylinderVolume(diameter: number, height: number): number {
   return (Math.PI / 4) * diameter * diameter * height;

@@ -1,18 +1,8 @@
 // Clearances are differences of two decimal readings, so each result is cleaned of binary
 // float noise (exact decimal arithmetic): 2.2022 − 2.2000 must be exactly 0.0022, or a value
 // sitting on a limit would read as past it. All lengths are in the caller's unit (in or mm), both alike.
+import { requireFinite, requirePositive } from "./checks";
 import { cleanDecimal, decimalDifference } from "./units";
-
-function requireFinite(value: number, name: string): void {
-  if (typeof value !== "number" || !Number.isFinite(value)) {
-    throw new Error(`${name} must be a number; got ${String(value)}`);
-  }
-}
-
-function requirePositive(value: number, name: string): void {
-  requireFinite(value, name);
-  if (value <= 0) throw new Error(`${name} must be greater than zero; got ${value}`);
-}
 
 /** Installed bearing bore minus journal diameter. Negative means the journal will not fit. */
 export function oilClearance(bearingBore: number, journal: number): number {

@@ -3,6 +3,7 @@
 // differential form applies: L20 = L·(1 + αg·(tg − 20))/(1 + αp·(tp − 20)) (ISO/TR 16015:2003
 // nominal differential expansion; formula form from memory). Without a gauge temperature the
 // gauge is taken to be at 20 °C (or length-invariant) and L20 = L/(1 + αp·(tp − 20)).
+import { requireFinite } from "./checks";
 
 /** ISO 1:2022 standard reference temperature for geometrical product specification. */
 export const REFERENCE_TEMP_C = 20;
@@ -60,12 +61,6 @@ export interface CorrectTo20CInput {
   gaugeTempC?: number;
   /** Defaults to gauge steel when a gauge temperature is given without one. */
   alphaGauge?: number;
-}
-
-function requireFinite(value: number, name: string): void {
-  if (typeof value !== "number" || !Number.isFinite(value)) {
-    throw new Error(`${name} must be a number; got ${String(value)}`);
-  }
 }
 
 function requireAlpha(value: number, name: string): void {
