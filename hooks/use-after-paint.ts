@@ -16,6 +16,16 @@ export function afterPaint(fn: () => void): () => void {
   };
 }
 
+/** Runs `fn` when the page is idle (or after `timeoutMs` at the latest): for work no screen waits on. */
+export function whenIdle(fn: () => void, timeoutMs = 1500): () => void {
+  if (typeof requestIdleCallback !== "function") {
+    const t = setTimeout(fn, 200);
+    return () => clearTimeout(t);
+  }
+  const id = requestIdleCallback(fn, { timeout: timeoutMs });
+  return () => cancelIdleCallback(id);
+}
+
 /**
  * `value`, but a changed value reaches the screen only after the frame in flight has painted.
  * The bench uses it for the job's readings: the verdict of an entry paints first, and the heavier

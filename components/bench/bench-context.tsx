@@ -3,13 +3,13 @@
 import { createContext, useContext } from "react";
 import type { BenchDb } from "@/lib/offline/db";
 import type { DeviceActor } from "@/lib/offline/meta";
-import type { SyncEngine } from "@/lib/offline/sync-engine";
+import type { EngineHandle } from "@/lib/offline/engine-handle";
 
 // What every bench screen shares once the shell has booted: the tablet's database, the one sync
 // engine, who is measuring (from the server, or remembered when offline) and the device id.
 export interface Bench {
   db: BenchDb;
-  engine: SyncEngine;
+  engine: EngineHandle;
   actor: DeviceActor;
   deviceId: string;
 }

@@ -1,15 +1,13 @@
 "use client";
 
 import { useSearchParams } from "next/navigation";
-import { useEffect, useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { Notice } from "@/components/ui/notice";
-import { useAfterPaint } from "@/hooks/use-after-paint";
+import { useAfterPaint, whenIdle } from "@/hooks/use-after-paint";
 import { useDexieQuery } from "@/hooks/use-dexie-query";
 import type { JobPack } from "@/lib/schemas/sync";
 import { getJobPrefs } from "@/lib/offline/meta";
-import { savePack } from "@/lib/offline/packs";
 import { readingsOfJob } from "@/lib/offline/readings";
-import { ActionError, getJson } from "@/lib/offline/transport";
 import { useBench } from "./bench-context";
 import { JobScreen } from "./job-screen";
 
@@ -26,19 +24,34 @@ export function BenchJob() {
   const [prefs] = useDexieQuery(db, ["meta"], () => getJobPrefs(db, id), [id]);
   const storeError = rowError ?? readError;
 
+  const loaded = row !== undefined;
+  const onTablet = !!row;
+  const refreshed = useRef<number>(undefined);
   useEffect(() => {
-    if (!Number.isInteger(id) || id <= 0) return;
+    if (!Number.isInteger(id) || id <= 0 || !loaded || refreshed.current === id) return;
+    refreshed.current = id;
     let stop = false;
-    getJson<JobPack>(fetch, `/api/bench/jobs/${id}`)
-      .then((pack) => savePack(db, pack))
+    let cancel = () => {};
+    // A job already on the tablet shows from its store first; the refresh (and its code) follows
+    // once the screen is idle. A job not on the tablet yet is fetched at once.
+    let started = false;
+    const refresh = () => (started = true) && Promise.all([import("@/lib/offline/transport"), import("@/lib/offline/packs")])
+      .then(([{ getJson }, { savePack }]) => getJson<JobPack>(fetch, `/api/bench/jobs/${id}`).then((pack) => savePack(db, pack)))
       .then(() => !stop && setFetchError(undefined))
-      .catch((err: unknown) => {
+      .catch(async (err: unknown) => {
+        const { ActionError } = await import("@/lib/offline/transport");
         if (stop) return;
         const gone = err instanceof ActionError && err.status === 404;
         setFetchError(gone ? "This job is not on the server for your shop any more" : err instanceof ActionError ? err.message : "offline");
       });
-    return () => void (stop = true);
-  }, [db, id]);
+    if (onTablet) cancel = whenIdle(() => void refresh());
+    else void refresh();
+    return () => {
+      stop = true;
+      cancel();
+      if (!started) refreshed.current = undefined; // cancelled before it began: let it run again
+    };
+  }, [db, id, loaded, onTablet]);
 
   if (!Number.isInteger(id) || id <= 0) {
     return <main className="mx-auto max-w-3xl px-4 py-8"><Notice tone="error">No job was picked. Go back to the <a className="underline" href="/bench">job list</a> and open one.</Notice></main>;

@@ -5,8 +5,9 @@ import { AppHeader } from "@/components/app-header";
 import { Notice } from "@/components/ui/notice";
 import { getBenchDb } from "@/lib/offline/db";
 import { ensureDeviceId, getMeta, setMeta, type DeviceActor } from "@/lib/offline/meta";
-import { SyncEngine } from "@/lib/offline/sync-engine";
+import { lazyEngine } from "@/lib/offline/engine-handle";
 import { BenchProvider, type Bench } from "./bench-context";
+import { whenIdle } from "@/hooks/use-after-paint";
 import { BenchBar } from "./bench-bar";
 
 // The bench is a client shell (precached by the service worker), so it opens with no network.
@@ -33,7 +34,7 @@ async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> 
   }
 }
 
-let engine: SyncEngine | undefined;
+let engine: ReturnType<typeof lazyEngine> | undefined;
 
 async function boot(): Promise<Boot> {
   const db = getBenchDb();
@@ -50,10 +51,7 @@ async function boot(): Promise<Boot> {
     window.location.assign("/");
     return { kind: "loading" };
   }
-  if (!engine) {
-    engine = new SyncEngine({ db });
-    engine.start();
-  }
+  engine ??= lazyEngine(db, () => import("@/lib/offline/sync-engine"));
   return { kind: "ready", bench: { db, engine, actor, deviceId } };
 }
 
@@ -62,6 +60,8 @@ export function BenchShell({ children }: { children: ReactNode }) {
   useEffect(() => {
     boot().then(setState, (err: unknown) => setState({ kind: "failed", message: err instanceof Error ? err.message : String(err) }));
   }, []);
+  // The sync engine's code loads once the bench is on screen and idle; it syncs as soon as it starts.
+  useEffect(() => (state.kind === "ready" ? whenIdle(() => void engine?.start()) : undefined), [state.kind]);
 
   if (state.kind === "ready") {
     return (

@@ -3,8 +3,6 @@
 import { useEffect, useState } from "react";
 import { Notice } from "@/components/ui/notice";
 import type { BenchJobSummary, JobPack } from "@/lib/schemas/sync";
-import { savePack } from "@/lib/offline/packs";
-import { getJson } from "@/lib/offline/transport";
 import { useDexieQuery } from "@/hooks/use-dexie-query";
 import { useBench } from "./bench-context";
 
@@ -26,8 +24,10 @@ export function JobPicker() {
 
   useEffect(() => {
     let stop = false;
-    getJson<{ jobs: BenchJobSummary[] }>(fetch, "/api/bench/jobs")
-      .then(async ({ jobs }) => {
+    const net = Promise.all([import("@/lib/offline/transport"), import("@/lib/offline/packs")]);
+    net
+      .then(async ([{ getJson }, { savePack }]) => {
+        const { jobs } = await getJson<{ jobs: BenchJobSummary[] }>(fetch, "/api/bench/jobs");
         if (stop) return;
         setRemote(jobs);
         for (const j of jobs) await getJson<JobPack>(fetch, `/api/bench/jobs/${j.id}`).then((p) => savePack(db, p)).catch(() => undefined);

@@ -1,6 +1,6 @@
 "use client";
 
-import { memo, useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { lazy, memo, Suspense, useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { FastenerCaution, Notice } from "@/components/ui/notice";
 import { Button } from "@/components/ui/button";
 import { chosenGauge, useBenchEntry } from "@/hooks/use-bench-entry";
@@ -16,14 +16,16 @@ import { EntryPanel } from "./entry-panel";
 import { LastEntryCard } from "./last-entry";
 import { LubricantPicker } from "./lubricant-picker";
 import { PhotoButton } from "./photo-button";
-import { RouteSheet } from "./route-sheet";
 import { SectionStrip } from "./section-strip";
-import { SkipSheet } from "./skip-sheet";
 import { StationHeader } from "./station-header";
 
 // One job at the bench: section progress on top; in landscape, where-am-I and the last verdict
 // on the left and entry on the right; in portrait and on a phone one column with the entry and
 // keypad right under the station and its verdict, so nothing needed for an entry is scrolled to.
+// Opened on a tap only, so their code stays out of the first load (precached for offline use).
+const RouteSheet = lazy(() => import("./route-sheet").then((m) => ({ default: m.RouteSheet })));
+const SkipSheet = lazy(() => import("./skip-sheet").then((m) => ({ default: m.SkipSheet })));
+
 const GRID = [
   "grid grid-cols-[minmax(0,1fr)] items-start gap-4 [grid-template-areas:'where'_'last'_'entry'_'more']",
   "lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] lg:grid-rows-[auto_auto_1fr] lg:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
@@ -120,8 +122,10 @@ export const JobScreen = memo(function JobScreen({ pack, readings, prefs }: { pa
           <DerivedPanel values={shownDerived} />
         </div>
       </div>
-      {sheet === "route" && <RouteSheet sections={sections} views={views} current={station.id} onPick={jump} onClose={() => setSheet(null)} />}
-      {sheet === "skip" && <SkipSheet station={station.label} onSkip={(r) => { entry.skip(r); setSheet(null); }} onClose={() => setSheet(null)} />}
+      <Suspense fallback={sheet ? <p className="fixed inset-x-0 top-1/3 z-40 text-center text-lg font-semibold">Opening…</p> : null}>
+        {sheet === "route" && <RouteSheet sections={sections} views={views} current={station.id} onPick={jump} onClose={() => setSheet(null)} />}
+        {sheet === "skip" && <SkipSheet station={station.label} onSkip={(r) => { entry.skip(r); setSheet(null); }} onClose={() => setSheet(null)} />}
+      </Suspense>
     </main>
   );
 });

@@ -1,7 +1,7 @@
 "use client";
 
 import { memo, useState, type ChangeEvent } from "react";
-import { addPhoto, type PhotoOwner } from "@/lib/offline/photos";
+import type { PhotoOwner } from "@/lib/offline/photos";
 import { useDexieQuery } from "@/hooks/use-dexie-query";
 import { useBench } from "./bench-context";
 
@@ -16,6 +16,7 @@ export const PhotoButton = memo(function PhotoButton({ owner, jobId }: { owner: 
     e.target.value = "";
     if (!file) return;
     try {
+      const { addPhoto } = await import("@/lib/offline/photos");
       await addPhoto(db, file, owner, actor.userId);
       setError(undefined);
       engine.afterEntry();

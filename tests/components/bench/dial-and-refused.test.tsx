@@ -11,7 +11,7 @@ import { applyPushResults } from "@/lib/offline/outbox";
 import { savePack } from "@/lib/offline/packs";
 import { readingsOfJob, recordReading } from "@/lib/offline/readings";
 import type { BenchInstrument, JobPack } from "@/lib/schemas/sync";
-import type { SyncEngine } from "@/lib/offline/sync-engine";
+import type { EngineHandle } from "@/lib/offline/engine-handle";
 import { makePack } from "../../lib/offline/fake-server";
 
 configure({ asyncUtilTimeout: 5000 });
@@ -24,7 +24,7 @@ async function mount(pack: JobPack, seed?: (db: BenchDb) => Promise<void>) {
   const db = new BenchDb(`dial-${++n}-${Date.now()}`);
   await savePack(db, pack);
   await seed?.(db);
-  const engine = { afterEntry: vi.fn(), sync: vi.fn() } as unknown as SyncEngine;
+  const engine = { afterEntry: vi.fn(), sync: vi.fn() } as unknown as EngineHandle;
   function Live() {
     const readings = useLiveQuery(() => readingsOfJob(db, pack.job.id), []);
     const prefs = useLiveQuery(() => getJobPrefs(db, pack.job.id), []);

@@ -10,7 +10,7 @@ import { BenchDb } from "@/lib/offline/db";
 import { getJobPrefs } from "@/lib/offline/meta";
 import { savePack } from "@/lib/offline/packs";
 import { readingsOfJob } from "@/lib/offline/readings";
-import type { SyncEngine } from "@/lib/offline/sync-engine";
+import type { EngineHandle } from "@/lib/offline/engine-handle";
 import { makePack } from "../../lib/offline/fake-server";
 
 configure({ asyncUtilTimeout: 5000 }); // Dexie commits under a loaded test run can take a while
@@ -30,7 +30,7 @@ function Live() {
 beforeEach(async () => {
   db = new BenchDb(`screen-${++n}-${Date.now()}`);
   await savePack(db, pack);
-  const engine = { afterEntry: vi.fn(), sync: vi.fn() } as unknown as SyncEngine;
+  const engine = { afterEntry: vi.fn(), sync: vi.fn() } as unknown as EngineHandle;
   bench = { db, engine, deviceId: "tab-test", actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" } };
   render(<BenchProvider value={bench}><Live /></BenchProvider>);
   const input = await screen.findByTestId("entry");
@@ -102,7 +102,7 @@ describe("bench entry", () => {
     fireEvent.keyDown(input, { key: "Escape" });
     expect(input.value).toBe("");
     fireEvent.click(screen.getByRole("button", { name: "Skip…" }));
-    fireEvent.click(screen.getByRole("button", { name: "Skip with this reason" }));
+    fireEvent.click(await screen.findByRole("button", { name: "Skip with this reason" })); // the sheet loads on demand
     expect(screen.getByRole("alert").textContent).toMatch(/Type why the station is skipped/);
     await act(async () => void fireEvent.click(screen.getByRole("button", { name: "Not on this engine" })));
     await waitFor(() => expect(station()).toBe("bore/1/top/B"));

@@ -6,7 +6,7 @@ import { BenchProvider } from "@/components/bench/bench-context";
 import { UpdateBanner } from "@/components/bench/update-banner";
 import { BenchDb } from "@/lib/offline/db";
 import { recordReading } from "@/lib/offline/readings";
-import type { SyncEngine } from "@/lib/offline/sync-engine";
+import type { EngineHandle } from "@/lib/offline/engine-handle";
 
 // A stand-in for @serwist/window: records listeners so the test can announce a waiting worker.
 const listeners = new Map<string, (e: { isUpdate?: boolean }) => void>();
@@ -22,7 +22,7 @@ afterEach(cleanup);
 async function mount() {
   const db = new BenchDb(`update-${Date.now()}-${Math.random()}`);
   render(
-    <BenchProvider value={{ db, engine: {} as SyncEngine, deviceId: "tab-test", actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" } }}>
+    <BenchProvider value={{ db, engine: {} as EngineHandle, deviceId: "tab-test", actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" } }}>
       <UpdateBanner />
     </BenchProvider>,
   );
