@@ -2,26 +2,14 @@ import "server-only";
 import {
   convertLength, convertTorque, type Evaluation, type Lubricant, type MeasureUnit, type RawReading,
 } from "@/lib/domain";
-import type { ReadingEvaluation } from "@/lib/schemas/sync";
+import type { BenchInstrument, ReadingEvaluation } from "@/lib/schemas/sync";
 
 // The edge between a stored (or incoming) reading and the core's RawReading, shared by ingest and
 // flag reconciliation so a verdict computed at upload and one recomputed after a limits edit can
 // never disagree. No formula lives here: conversions and verdicts come from lib/domain.
 
-export type InstrumentInfo = {
-  id: number;
-  shopId: number;
-  kind: string;
-  label: string;
-  serial: string;
-  unit: string;
-  resolution: number;
-  expandedU: number;
-  coverageK: number;
-  calibrationDue: string | null;
-  dialPlusMeansSmaller: boolean;
-  active: boolean;
-};
+/** A gauge as the server checks readings against it: the tablet's view plus its shop. */
+export type InstrumentInfo = BenchInstrument & { shopId: number };
 
 /** What the core needs of a reading, whether it came from the tablet or from the database. */
 export type ReadingFacts = {
