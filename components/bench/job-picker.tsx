@@ -15,6 +15,7 @@ export function JobPicker() {
   const { db } = useBench();
   const [remote, setRemote] = useState<BenchJobSummary[] | null>(null);
   const [offline, setOffline] = useState(false);
+  const [failed, setFailed] = useState<Record<number, string>>({});
   const [local] = useDexieQuery(db, ["jobs"], () => db.jobs.toArray(), [], []);
   const [pending] = useDexieQuery(db, ["outbox"], async () => {
     const counts = new Map<number, number>();
@@ -30,7 +31,11 @@ export function JobPicker() {
         const { jobs } = await getJson<{ jobs: BenchJobSummary[] }>(fetch, "/api/bench/jobs");
         if (stop) return;
         setRemote(jobs);
-        for (const j of jobs) await getJson<JobPack>(fetch, `/api/bench/jobs/${j.id}`).then((p) => savePack(db, p)).catch(() => undefined);
+        for (const j of jobs) {
+          await getJson<JobPack>(fetch, `/api/bench/jobs/${j.id}`).then((p) => savePack(db, p)).catch((err: unknown) => {
+            if (!stop) setFailed((f) => ({ ...f, [j.id]: err instanceof Error ? err.message : String(err) }));
+          });
+        }
       })
       .catch(() => !stop && setOffline(true));
     return () => void (stop = true);
@@ -61,7 +66,7 @@ export function JobPicker() {
               <span className="text-xl font-semibold">{j.title}</span>
               <span className="text-sm text-muted">{j.sub}</span>
               <span className={`text-sm font-semibold ${j.onTablet ? "text-pass" : "text-muted"}`} data-testid="on-tablet" data-ready={j.onTablet}>
-                {j.onTablet ? "✓ Ready offline" : "Downloading to the tablet…"}
+                {j.onTablet ? "✓ Ready offline" : failed[j.id] ? `Not downloaded: ${failed[j.id]}` : "Downloading to the tablet…"}
                 {j.pending ? ` · ${j.pending} waiting to send` : ""}
               </span>
             </a>
