@@ -46,4 +46,11 @@ const serwist = new Serwist({
   fallbacks: { entries: [{ url: "/bench", matcher: ({ request }) => request.mode === "navigate" }] },
 });
 
+// A page that loaded while this worker was still installing (the bench right after sign-in) is
+// not controlled, so its lazily loaded code would not come from the cache offline. The bench asks
+// to be claimed once the worker is active (components/bench/bench-shell.tsx).
+self.addEventListener("message", (event) => {
+  if (event.data?.type === "TW_CLAIM") event.waitUntil(self.clients.claim());
+});
+
 serwist.addEventListeners();

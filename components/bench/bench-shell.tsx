@@ -60,6 +60,13 @@ export function BenchShell({ children }: { children: ReactNode }) {
   useEffect(() => {
     boot().then(setState, (err: unknown) => setState({ kind: "failed", message: err instanceof Error ? err.message : String(err) }));
   }, []);
+  // Opened while the worker was still installing (first visit): ask it to take this page over.
+  useEffect(() => {
+    // `ready` never settles without a worker (private mode, an old browser): the bench still works online.
+    void navigator.serviceWorker?.ready.then((reg) => {
+      if (!navigator.serviceWorker.controller) reg.active?.postMessage({ type: "TW_CLAIM" });
+    });
+  }, []);
   // The sync engine's code loads once the bench is on screen and idle; it syncs as soon as it starts.
   useEffect(() => (state.kind === "ready" ? whenIdle(() => void engine?.start()) : undefined), [state.kind]);
 
