@@ -1,6 +1,6 @@
 import "server-only";
 import {
-  convertLength, convertTorque, type Evaluation, type Lubricant, type MeasureUnit, type RawReading,
+  convertLength, convertTorque, uncertaintyAtK2, type Evaluation, type Lubricant, type MeasureUnit, type RawReading,
 } from "@/lib/domain";
 import type { BenchInstrument, ReadingEvaluation } from "@/lib/schemas/sync";
 
@@ -51,7 +51,7 @@ export function quantityOfUnit(unit: string): "length" | "torque" | undefined {
 /** The gauge's expanded uncertainty at k = 2, in `unit`; undefined when the units do not mix. */
 export function uncertaintyIn(inst: InstrumentInfo | undefined, unit: string): number | undefined {
   if (!inst || !(inst.expandedU >= 0)) return undefined;
-  const atK2 = inst.coverageK > 0 ? (inst.expandedU * 2) / inst.coverageK : inst.expandedU;
+  const atK2 = uncertaintyAtK2(inst.expandedU, inst.coverageK > 0 ? inst.coverageK : 2);
   return convertUnit(atK2, inst.unit, unit);
 }
 
