@@ -5,22 +5,14 @@ import { Customer, Engine, Flag, Job, JobLimit } from "@/models";
 import { getSequelize } from "./db";
 import { toEngineShape, toSpecLimit } from "./job-context";
 import { measuredStations, requiredStationIds } from "./jobs-admin-readings-repo";
-import type { JobStatus } from "./jobs-repo";
+import type { JobStatus, JobSummary } from "./jobs-repo";
 
 // The jobs board: every job of the shop with what the lead scans for at a glance. Progress
 // counts the REQUIRED stations of the engine's bench route, as the release checklist does (a
 // required limit on the station's own characteristic, or the station feeds a derived value
 // with a required limit); a station is done when its current reading is a value, not a skip.
 // Closed jobs show no progress: their record is final and reading them all would slow the board.
-export type BoardJob = {
-  id: number;
-  code: string;
-  title: string;
-  status: JobStatus;
-  unitSystem: "in" | "mm";
-  dueDate: string | null;
-  customer: string;
-  engine: string;
+export type BoardJob = JobSummary & {
   progress: { done: number; required: number } | null;
   flags: { open: number; disposed: number };
   updatedAt: string;
