@@ -2,22 +2,14 @@
 // person signs in with it, a reset issues another, deactivate and reactivate; the admin's own role
 // cannot be changed here. Invented names.
 import { randomUUID } from "node:crypto";
-import { readFileSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, launchBrowser, newTabletPage, screenshot } from "../support/browser";
+import { BASE_URL, demo, launchBrowser, newTabletPage, screenshot, signInAs } from "../support/browser";
 
 // Data arrives through TanStack Query after hydration; give the server time on a cold start.
 const WAIT = { timeout: 15_000 };
-const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
 const adminEmail = demo.accounts.find((a) => a.role === "admin")!.email;
 
-// Signs the page's context in through the API (the sign-in form itself is tested elsewhere): a
-// click on a form before it has hydrated would otherwise be a plain GET and the test would hang.
-async function signInAs(page: Page, address: string) {
-  const res = await page.context().request.post("/api/session", { data: { email: address, password: demo.password } });
-  expect(res.status()).toBe(200);
-}
 
 const NEW_EMAIL = `wendell-${randomUUID().slice(0, 6)}@kestrelflats.example`;
 

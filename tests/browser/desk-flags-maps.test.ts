@@ -1,22 +1,14 @@
 // Bore, journal and deck maps of demo job KF-2611 in Chromium, for the lead and the inspector,
 // on screen and as printed. The machinist (rosa) first sends invented readings through POST /api/sync.
 import { randomUUID } from "node:crypto";
-import { readFileSync } from "node:fs";
 import { request, type APIRequestContext, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, launchBrowser, screenshot } from "../support/browser";
+import { BASE_URL, demo, demoEmail, launchBrowser, screenshot, signInAs } from "../support/browser";
 
 // Data arrives through TanStack Query after hydration; give the server time on a cold start.
 const WAIT = { timeout: 15_000 };
-const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
-const email = (role: string) => demo.accounts.find((a) => a.role === role)!.email;
+const email = demoEmail;
 
-// Signs the page's context in through the API (the sign-in form itself is tested elsewhere): a
-// click on a form before it has hydrated would otherwise be a plain GET and the test would hang.
-async function signInAs(page: Page, address: string) {
-  const res = await page.context().request.post("/api/session", { data: { email: address, password: demo.password } });
-  expect(res.status()).toBe(200);
-}
 
 // Demo spec KF-2611: bore 4.0299–4.0304, main 2.4485–2.4495, rod 2.0985–2.0995, deck 9.022–9.028 (in).
 const FIGURES: Record<string, number> = {

@@ -3,22 +3,14 @@
 // one flag of each kind; "measure again" then reaches the tablet through the job pack; a new
 // in-spec reading closes that flag and its decision history stays. Figures are invented.
 import { randomUUID } from "node:crypto";
-import { readFileSync } from "node:fs";
 import { request, type APIRequestContext, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, launchBrowser, newTabletPage, screenshot } from "../support/browser";
+import { BASE_URL, demo, demoEmail, launchBrowser, newTabletPage, screenshot, signInAs } from "../support/browser";
 
 // Data arrives through TanStack Query after hydration; give the server time on a cold start.
 const WAIT = { timeout: 15_000 };
-const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
-const email = (role: string) => demo.accounts.find((a) => a.role === role)!.email;
+const email = demoEmail;
 
-// Signs the page's context in through the API (the sign-in form itself is tested elsewhere): a
-// click on a form before it has hydrated would otherwise be a plain GET and the test would hang.
-async function signInAs(page: Page, address: string) {
-  const res = await page.context().request.post("/api/session", { data: { email: address, password: demo.password } });
-  expect(res.status()).toBe(200);
-}
 
 let browser: Browser;
 let page: Page;

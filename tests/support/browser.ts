@@ -1,5 +1,6 @@
 // Headless Debian Chromium through playwright-core, with the flags this machine needs.
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { readFileSync } from "node:fs";
 import { mkdtempSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -37,4 +38,20 @@ export async function signIn(page: Page, email: string, password: string) {
 
 export async function screenshot(page: Page, name: string) {
   await page.screenshot({ path: `tests/artifacts/${name}.png`, fullPage: true });
+}
+
+// The demo accounts the seed creates (scripts/demo-accounts.json), for signing in by role.
+export const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as {
+  password: string;
+  accounts: { role: string; name: string; email: string }[];
+};
+export const demoEmail = (role: string) => demo.accounts.find((a) => a.role === role)!.email;
+
+/**
+ * Signs the page's context in through the API (the sign-in form itself is tested in
+ * sign-in.test.ts), so a test never races the form's hydration. Throws unless it worked.
+ */
+export async function signInAs(page: Page, address: string) {
+  const res = await page.context().request.post("/api/session", { data: { email: address, password: demo.password } });
+  if (res.status() !== 200) throw new Error(`Sign-in as ${address} answered ${res.status()}`);
 }
