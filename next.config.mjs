@@ -6,6 +6,8 @@ const nextConfig = {
   // These packages load drivers and migrations dynamically; bundling them breaks (see STACK.md).
   serverExternalPackages: ["sequelize", "mariadb", "umzug", "sharp", "@react-pdf/renderer", "nodemailer"],
   poweredByHeader: false,
+  // For profiling the bench in a browser (DEVELOPERS.md, "Profiling"): maps minified frames to source.
+  productionBrowserSourceMaps: process.env.TW_SOURCE_MAPS === "1",
   reactStrictMode: true,
   typedRoutes: false,
   // Types are checked once per test run by `tsc --noEmit` (scripts/test.mjs), over the whole

@@ -27,6 +27,20 @@ export function whenIdle(fn: () => void, timeoutMs = 1500): () => void {
 }
 
 /**
+ * Runs `fn` once the page has settled: `delayMs` after now, then when idle. For code the screen
+ * does not need to take an entry (the sync engine, the pack refresh): it loads after the screen
+ * is up instead of competing with it, which keeps it out of the first-load JavaScript (bench:bundle).
+ */
+export function whenSettled(fn: () => void, delayMs = 1000): () => void {
+  let cancelIdle = () => {};
+  const t = setTimeout(() => (cancelIdle = whenIdle(fn)), delayMs);
+  return () => {
+    clearTimeout(t);
+    cancelIdle();
+  };
+}
+
+/**
  * `value`, but a changed value reaches the screen only after the frame in flight has painted.
  * The bench uses it for the job's readings: the verdict of an entry paints first, and the heavier
  * recomputation of the route and derived values follows in the next frame.

@@ -3,7 +3,7 @@
 import { useSearchParams } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
 import { Notice } from "@/components/ui/notice";
-import { useAfterPaint, whenIdle } from "@/hooks/use-after-paint";
+import { useAfterPaint, whenSettled } from "@/hooks/use-after-paint";
 import { useDexieQuery } from "@/hooks/use-dexie-query";
 import type { JobPack } from "@/lib/schemas/sync";
 import { getJobPrefs } from "@/lib/offline/meta";
@@ -33,7 +33,7 @@ export function BenchJob() {
     let stop = false;
     let cancel = () => {};
     // A job already on the tablet shows from its store first; the refresh (and its code) follows
-    // once the screen is idle. A job not on the tablet yet is fetched at once.
+    // once the screen has settled. A job not on the tablet yet is fetched at once.
     let started = false;
     const refresh = () => (started = true) && Promise.all([import("@/lib/offline/transport"), import("@/lib/offline/packs")])
       .then(([{ getJson }, { savePack }]) => getJson<JobPack>(fetch, `/api/bench/jobs/${id}`).then((pack) => savePack(db, pack)))
@@ -44,7 +44,7 @@ export function BenchJob() {
         const gone = err instanceof ActionError && err.status === 404;
         setFetchError(gone ? "This job is not on the server for your shop any more" : err instanceof ActionError ? err.message : "offline");
       });
-    if (onTablet) cancel = whenIdle(() => void refresh());
+    if (onTablet) cancel = whenSettled(() => void refresh());
     else void refresh();
     return () => {
       stop = true;

@@ -7,7 +7,7 @@ import { getBenchDb } from "@/lib/offline/db";
 import { ensureDeviceId, getMeta, setMeta, type DeviceActor } from "@/lib/offline/meta";
 import { lazyEngine } from "@/lib/offline/engine-handle";
 import { BenchProvider, type Bench } from "./bench-context";
-import { whenIdle } from "@/hooks/use-after-paint";
+import { whenSettled } from "@/hooks/use-after-paint";
 import { BenchBar } from "./bench-bar";
 
 // The bench is a client shell (precached by the service worker), so it opens with no network.
@@ -67,8 +67,9 @@ export function BenchShell({ children }: { children: ReactNode }) {
       if (!navigator.serviceWorker.controller) reg.active?.postMessage({ type: "TW_CLAIM" });
     });
   }, []);
-  // The sync engine's code loads once the bench is on screen and idle; it syncs as soon as it starts.
-  useEffect(() => (state.kind === "ready" ? whenIdle(() => void engine?.start()) : undefined), [state.kind]);
+  // The sync engine's code loads once the bench is on screen and settled; it syncs as soon as it
+  // starts (an entry made before then is sent in that first run).
+  useEffect(() => (state.kind === "ready" ? whenSettled(() => void engine?.start()) : undefined), [state.kind]);
 
   if (state.kind === "ready") {
     return (

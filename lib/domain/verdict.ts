@@ -9,8 +9,8 @@
 //
 // Exactness: readings are decimal figures, but binary floats are not (4.0312 − 4.0302 is
 // 0.0010000000000003 as a double). Every input is first rounded to 12 significant digits (far
-// finer than any gauge, far coarser than float noise) and compared as decimal.js values.
-import Decimal from "decimal.js";
+// finer than any gauge, far coarser than float noise) and compared as exact decimals (decimal.js-light).
+import Decimal from "decimal.js-light";
 import type { MeasureUnit, ResolvedLimit, Verdict } from "./types";
 
 const D = Decimal.clone({ precision: 40 });
@@ -50,7 +50,7 @@ function exactLimits(min: VerdictInput["min"], max: VerdictInput["max"], uncerta
     throw new Error(`Lower limit ${String(min)} is above upper limit ${String(max)}; swap them on the spec`);
   }
   const u = optionalExact(uncertainty, "Uncertainty U") ?? new D(0);
-  if (u.isNeg()) throw new Error(`Uncertainty U cannot be negative; got ${String(uncertainty)}`);
+  if (u.isNegative()) throw new Error(`Uncertainty U cannot be negative; got ${String(uncertainty)}`);
   return { lo, hi, u };
 }
 
@@ -120,5 +120,5 @@ export function formatDeviation(dev: number, unit: MeasureUnit): string {
   if (steps.isZero()) return "on nominal";
   const amount = steps.abs();
   const word = amount.eq(1) ? step.singular : step.plural;
-  return `${amount.toString()} ${word} ${steps.isNeg() ? "under" : "over"}`;
+  return `${amount.toString()} ${word} ${steps.isNegative() ? "under" : "over"}`;
 }

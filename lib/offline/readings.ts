@@ -1,7 +1,9 @@
 // Writing readings on the tablet. Each write puts the reading and its outbox row in ONE
-// transaction, so a reading is never saved without being queued, nor queued without being saved.
+// transaction (add-together.ts), so a reading is never saved without being queued, nor queued
+// without being saved.
 import type { Lubricant, MeasureUnit } from "@/lib/domain";
-import type { BenchDb, LocalReading } from "./db";
+import { addTogether } from "./add-together";
+import type { BenchDb, LocalReading, OutboxRow } from "./db";
 import { uuidv4 } from "./ids";
 
 export interface NewReading {
@@ -35,10 +37,18 @@ function checkNew(input: NewReading): void {
   if (typeof input.value !== "number" || !Number.isFinite(input.value)) throw new Error("Enter the value as a number, e.g. 4.0302");
 }
 
+// Entries made within one millisecond (a gauge can send two readings that fast) still get
+// distinct, increasing times, so the outbox sends them, and the route shows them, in entry order.
+let lastInstant = 0;
+function nextInstant(now: Date): string {
+  lastInstant = Math.max(now.getTime(), lastInstant + 1);
+  return new Date(lastInstant).toISOString();
+}
+
 /** Saves one reading (pending) and queues it; resolves once both are committed. */
 export async function recordReading(db: BenchDb, input: NewReading, ctx: WriteContext): Promise<LocalReading> {
   checkNew(input);
-  const at = (ctx.now?.() ?? new Date()).toISOString();
+  const at = nextInstant(ctx.now?.() ?? new Date());
   const row: LocalReading = {
     ...input,
     id: uuidv4(),
@@ -52,14 +62,10 @@ export async function recordReading(db: BenchDb, input: NewReading, ctx: WriteCo
     state: "pending",
     updatedAt: at,
   };
-  // Both writes are issued at once (one round trip to the store, not two); the transaction
-  // still commits both or neither.
-  await db.transaction("rw", db.readings, db.outbox, () =>
-    Promise.all([
-      db.readings.add(row),
-      db.outbox.add({ readingId: row.id, jobId: row.jobId, takenBy: row.takenBy, queuedAt: at, attempts: 0 }),
-    ]),
-  );
+  await addTogether(db, [
+    { table: "readings", row, key: row.id, indexed: { jobId: row.jobId, state: row.state } },
+    { table: "outbox", row: { readingId: row.id, jobId: row.jobId, takenBy: row.takenBy, queuedAt: at, attempts: 0 } satisfies OutboxRow, key: row.id, indexed: { takenBy: row.takenBy } },
+  ]);
   return row;
 }
 

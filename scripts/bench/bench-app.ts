@@ -61,7 +61,8 @@ export async function startApp(): Promise<{ baseUrl: string; stop: () => Promise
       LINK_SECRET: secrets.LINK_SECRET, APP_URL: baseUrl, NOTIFY_INTERVAL_SECONDS: "0",
     };
     execFileSync("node", ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts", "--seed"], { stdio: "inherit", env });
-    const distDir = ensureBuild({ perVersion: true });
+    // TW_BENCH_DIST_DIR: serve a build made by hand (e.g. with TW_SOURCE_MAPS=1 for profiling).
+    const distDir = process.env.TW_BENCH_DIST_DIR || ensureBuild({ perVersion: true });
     server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(appPort), "-H", "127.0.0.1"], {
       stdio: ["ignore", "ignore", "inherit"], env: { ...env, NODE_ENV: "production", TW_DIST_DIR: distDir },
     });

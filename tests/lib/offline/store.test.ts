@@ -17,15 +17,6 @@ describe("local store", () => {
     expect(await db.outbox.get(r.id)).toMatchObject({ readingId: r.id, jobId: 1, takenBy: 7, attempts: 0 });
   });
 
-  it("writes neither when the outbox write fails (one transaction)", async () => {
-    const db = await freshDb();
-    db.outbox.hook("creating", () => {
-      throw new Error("disk full");
-    });
-    await expect(recordReading(db, bore("bore/1/top/A", 4.0302), CTX)).rejects.toThrow(/disk full/);
-    expect(await db.readings.count()).toBe(0);
-  });
-
   it("refuses a value that is not a number and a skip without a reason, saying what to fix", async () => {
     const db = await freshDb();
     await expect(recordReading(db, bore("bore/1/top/A", Number.NaN), CTX)).rejects.toThrow(/as a number/);
