@@ -14,6 +14,7 @@ import * as createAuditEvents from "./20261201001000-create-audit-events";
 import * as createSyncChanges from "./20261201001100-create-sync-changes";
 import * as createMailOutbox from "./20261201001200-create-mail-outbox";
 import * as addReadingsGaugeTemp from "./20261202000100-add-readings-gauge-temp";
+import * as addJobsContextRevision from "./20261202000200-add-jobs-context-revision";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -36,6 +37,7 @@ export const migrations: Migration[] = [
   step("20261201001100-create-sync-changes", createSyncChanges),
   step("20261201001200-create-mail-outbox", createMailOutbox),
   step("20261202000100-add-readings-gauge-temp", addReadingsGaugeTemp),
+  step("20261202000200-add-jobs-context-revision", addJobsContextRevision),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */

@@ -2,7 +2,7 @@ import "server-only";
 import { QueryTypes } from "sequelize";
 import type { AuditEventView, AuditFacets, AuditPage, AuditQuery } from "@/lib/schemas/audit";
 import { Job, User } from "@/models";
-import { diffJson } from "./audit-query-diff";
+import { eventChanges } from "./audit-query-summary";
 import { getSequelize } from "./db";
 
 // Reads of the append-only audit trail, filtered and paged in the database. Events carry an
@@ -76,7 +76,7 @@ export async function queryAudit(shopId: number, q: AuditQuery): Promise<AuditPa
   const { users, jobs } = await namesAndCodes(shopId, rows);
   const events: AuditEventView[] = rows.map((r) => {
     const jobId = r.job_id !== null && Number(r.job_id) > 0 && jobs.has(Number(r.job_id)) ? Number(r.job_id) : null;
-    const { changes, truncated } = diffJson(parse(r.before), parse(r.after));
+    const { changes, truncated } = eventChanges(r.action, parse(r.before), parse(r.after));
     return {
       id: Number(r.id), at: r.at, userId: r.user_id === null ? null : Number(r.user_id),
       userName: r.user_id === null ? null : users.get(Number(r.user_id)) ?? null, action: r.action,

@@ -1,8 +1,9 @@
 import "server-only";
-import { Op, QueryTypes, type Transaction } from "sequelize";
-import { Flag, decimalToNumber } from "@/models";
+import { Op, type Transaction } from "sequelize";
+import { Flag } from "@/models";
 import type { BenchFlag } from "@/lib/schemas/sync";
 import { getSequelize } from "./db";
+import { sqlRows, sqlWrite } from "./sql-driver";
 import { insertMany } from "./sql-insert";
 
 // Flags as the bench and the reconciler see them. The lead's desk (dispositions) has its own
@@ -33,8 +34,9 @@ export type UnclosedFlag = Pick<FlagRow, "id" | "shopId" | "jobId" | "readingId"
  */
 export async function unclosedFlags(t: Transaction, jobId: number, locking = true): Promise<UnclosedFlag[]> {
   const sql = locking ? `${UNCLOSED} LOCK IN SHARE MODE` : UNCLOSED;
-  const rows = await getSequelize().query<UnclosedFlag>(sql, { replacements: [jobId], type: QueryTypes.SELECT, transaction: t });
-  for (const r of rows) for (const k of ["value", "limitMin", "limitMax", "deviation"] as const) (r as Record<string, unknown>)[k] = decimalToNumber(r[k]);
+  // The driver path returns DECIMAL and BIGINT as numbers already (sql-driver.ts).
+  const rows = await sqlRows<UnclosedFlag>(t, sql, [jobId]);
+  for (const r of rows) (r.id = Number(r.id)), (r.jobId = Number(r.jobId)), (r.shopId = Number(r.shopId));
   return rows;
 }
 
@@ -54,9 +56,15 @@ export async function createFlags(t: Transaction, rows: NewFlag[]): Promise<numb
   return rows.map((_, i) => firstId + i);
 }
 
+const PATCH_COLUMNS: Record<keyof FlagPatch, string> = {
+  value: "value", unit: "unit", limitMin: "limit_min", limitMax: "limit_max", deviation: "deviation", verdict: "verdict",
+  reason: "reason", state: "state", closedAt: "closed_at", closedByReadingId: "closed_by_reading_id",
+};
+
 export async function updateFlag(t: Transaction, id: number, patch: FlagPatch): Promise<void> {
-  getSequelize();
-  await Flag.update(patch, { where: { id }, transaction: t, hooks: false });
+  const keys = (Object.keys(patch) as (keyof FlagPatch)[]).filter((k) => patch[k] !== undefined);
+  const sets = [...keys.map((k) => `${PATCH_COLUMNS[k]} = ?`), "updated_at = ?"];
+  await sqlWrite(t, `UPDATE flags SET ${sets.join(", ")} WHERE id = ?`, [...keys.map((k) => patch[k]), new Date(), id]);
 }
 
 export async function flagsOfJobs(jobIds: number[], opts: { ids?: number[]; unclosedOnly?: boolean } = {}): Promise<FlagRow[]> {

@@ -1,14 +1,16 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import { deriveReadings, evaluateReading, parseStationId, type DerivedValue, type RawReading } from "@/lib/domain";
+import { evaluateReading, type RawReading } from "@/lib/domain";
 import type { ReadingEvaluation } from "@/lib/schemas/sync";
 import type { AuditInput } from "./audit";
-import { createFlags, unclosedFlags, updateFlag, type NewFlag } from "./bench-flags-repo";
+import { createFlags, unclosedFlags, updateFlag, type NewFlag, type UnclosedFlag } from "./bench-flags-repo";
 import { recordAudits, recordChanges, type ChangeInput } from "./bulk-log-repo";
 import { newestInput, planFlags, wantedDerived, wantedRaw, type Closer } from "./flag-reconcile-plan";
+import { derivedScope, ingestStations, toJudge } from "./flag-reconcile-scope";
 import { gaugePastDue, round6, sameEvaluation, storedEvaluation, toRaw } from "./ingest-evaluate";
 import { loadJobContext, type JobContext } from "./job-context";
 import { currentReadings, jobReadingsWithGauges, lockJobs, updateEvaluation, type StoredReading } from "./readings-repo";
+import { settleAll } from "./sql-driver";
 
 // The ONE mechanism that keeps a job's stored verdicts and flags in line with its readings and
 // limits. Ingest calls it after writing readings; a limits edit calls it after changing job_limits.
@@ -17,7 +19,8 @@ import { currentReadings, jobReadingsWithGauges, lockJobs, updateEvaluation, typ
 // latest by takenAt that no other reading corrects; skipped entries carry no value and are passed
 // over); re-evaluates it with lib/domain and stores the verdict when it changed; derives taper,
 // out-of-round, clearances and stretch; then makes the flags match (flag-reconcile-plan.ts). With
-// `fresh` (ingest) it limits both to what the new readings can change; without it, everything:
+// `fresh` (ingest) it reads, judges and revisits only what the new readings can change
+// (flag-reconcile-scope.ts); without it, everything:
 //   - a value (raw or derived) that is out_of_spec, marginal, or read with a gauge past its due date
 //     (raw only) gets one flag, unless an open or disposed flag for that same value exists;
 //   - an open or disposed flag is closed when its value is no longer current (a newer reading at the
@@ -36,13 +39,13 @@ export type ReconcileOptions = {
   /** Why, for the audit trail: e.g. 'sync', 'limits-edit', 'gauge-edit'. */
   cause: string;
   /**
-   * Readings written in this same transaction (ingest), already judged and stored with their verdict.
-   * Their creation is audited by the caller, and only ring gaps whose bore they change are judged
-   * again: every other current reading was judged against these same limits when it arrived or at
-   * the last reconciliation.
+   * Readings written in this same transaction (ingest), id → station, already judged and stored with
+   * their verdict. Their creation is audited by the caller, and only ring gaps whose bore they change
+   * are judged again: every other current reading was judged against these same limits when it
+   * arrived or at the last reconciliation.
    * Leave it out to re-evaluate everything (after a limits or gauge edit).
    */
-  fresh?: ReadonlySet<string>;
+  fresh?: ReadonlyMap<string, string>;
   /** The job's context loaded in this transaction with the job row already locked (saves queries). */
   context?: JobContext;
   /** Collects audit and change rows for the caller to write with its own, instead of writing them here. */
@@ -50,29 +53,19 @@ export type ReconcileOptions = {
 };
 export type ReconcileLog = { audits: AuditInput[]; changes: ChangeInput[] };
 export type ReconcileResult = {
-  /** The stored evaluation of every current reading, after reconciliation. */
+  /** The stored evaluation of every current reading read, after reconciliation. */
   evaluations: Map<string, ReadingEvaluation>;
   opened: number[];
   closed: number[];
   updatedFlags: number[];
   reevaluated: string[];
 };
+/** What a reconciliation reads: the readings in scope with their gauges, and the unclosed flags in scope. */
+export type ReconcileInput = Awaited<ReturnType<typeof jobReadingsWithGauges>> & { flags: UnclosedFlag[] };
 
 const storedOf = (r: StoredReading): ReadingEvaluation => ({
   verdict: r.verdict, verdictNote: r.verdictNote, unit: r.unit, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation,
 });
-
-/**
- * Which current readings to judge again: all of them, or (ingest) only the ring gaps whose bore
- * changed. A fresh reading was judged by ingest against these same limits and gauge, and stored
- * with that verdict; only a ring gap's limit depends on other readings (its bore's diameter).
- */
-function toJudge(current: StoredReading[], fresh?: ReadonlySet<string>): (r: StoredReading) => boolean {
-  if (!fresh) return () => true;
-  const cylinderOf = (r: StoredReading) => parseStationId(r.stationId).cylinder;
-  const cylinders = new Set(current.filter((r) => fresh.has(r.id) && r.stationId.startsWith("bore/")).map(cylinderOf));
-  return (r) => r.stationId.startsWith("ring-gap/") && (fresh.has(r.id) || cylinders.has(cylinderOf(r)));
-}
 
 function evaluateCurrent(ctx: JobContext, current: StoredReading[], raws: RawReading[], past: boolean[], judge: (r: StoredReading) => boolean) {
   return current.map((r, i) => {
@@ -86,89 +79,66 @@ function evaluateCurrent(ctx: JobContext, current: StoredReading[], raws: RawRea
   });
 }
 
+/** Stores changed verdicts (issued together, one round trip); returns the re-evaluated ids that were not fresh. */
 async function storeEvaluations(t: Transaction, o: ReconcileOptions, current: StoredReading[], evals: ReadingEvaluation[], log: ReconcileLog) {
   const changed: string[] = [];
+  const writes: Promise<void>[] = [];
   for (const [i, r] of current.entries()) {
     const { unit: _u, ...e } = evals[i];
     if (sameEvaluation(r, e)) continue;
-    await updateEvaluation(t, r.id, e);
+    writes.push(updateEvaluation(t, r.id, e));
     if (o.fresh?.has(r.id)) continue;
     changed.push(r.id);
     const before = { verdict: r.verdict, verdictNote: r.verdictNote, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation };
     log.audits.push({ shopId: o.shopId, userId: o.userId, action: "reading.re-evaluate", entityType: "reading", entityId: r.id, before, after: { ...e, cause: o.cause } });
     log.changes.push({ shopId: o.shopId, jobId: o.jobId, entity: "reading", entityId: r.id, deviceId: o.deviceId });
   }
+  await settleAll(writes);
   return changed;
 }
 
-function derivedOf(raws: RawReading[], ctx: JobContext): DerivedValue[] {
-  try {
-    return deriveReadings(raws, ctx.shape, ctx.spec);
-  } catch {
-    return []; // an engine shape the core refuses has no derived values to flag
-  }
-}
-
-// Derived key → input stations of a job's shape and spec (the core's own recipes), by their JSON.
-const recipeCache = new Map<string, Map<string, string[]>>();
-function recipeInputs(ctx: JobContext): Map<string, string[]> {
-  const key = JSON.stringify([ctx.shape, ctx.spec]);
-  let inputs = recipeCache.get(key);
-  if (!inputs) {
-    if (recipeCache.size > 100) recipeCache.clear();
-    inputs = new Map(derivedOf([], ctx).map((d) => [d.key, d.inputs]));
-    recipeCache.set(key, inputs);
-  }
-  return inputs;
-}
-
-/**
- * The derived values to recompute: all of them, or (ingest) those with a fresh reading among their
- * inputs, computed from just the readings they need. `inScope` tells which derived flags to revisit.
- */
-function derivedScope(ctx: JobContext, current: StoredReading[], raws: RawReading[], fresh?: ReadonlySet<string>) {
-  if (!fresh) return { derived: derivedOf(raws, ctx), inScope: (_key: string) => true };
-  const freshStations = new Set(current.filter((r) => fresh.has(r.id)).map((r) => r.stationId));
-  const affected = new Set<string>();
-  const needed = new Set<string>();
-  for (const [key, inputs] of recipeInputs(ctx)) {
-    if (!inputs.some((s) => freshStations.has(s))) continue;
-    affected.add(key);
-    for (const s of inputs) needed.add(s);
-  }
-  const derived = affected.size ? derivedOf(raws.filter((r) => needed.has(r.stationId)), ctx).filter((d) => affected.has(d.key)) : [];
-  return { derived, inScope: (key: string) => affected.has(key) };
-}
-
-async function syncFlags(t: Transaction, o: ReconcileOptions, wanted: Map<string, NewFlag>, closers: Map<string, Closer>, inScope: (key: string) => boolean, log: ReconcileLog) {
-  // Derived flags outside the scope of this reconciliation keep whatever they are.
-  const flags = (await unclosedFlags(t, o.jobId, !o.context)).filter((f) => !f.derivedKey || inScope(f.derivedKey));
+async function syncFlags(t: Transaction, o: ReconcileOptions, flags: UnclosedFlag[], wanted: Map<string, NewFlag>, closers: Map<string, Closer>, log: ReconcileLog) {
   const plan = planFlags(flags, wanted, closers);
   const note = (id: number, action: string, before: unknown, after: object) => {
     log.audits.push({ shopId: o.shopId, userId: o.userId, action, entityType: "flag", entityId: id, before, after: { ...after, cause: o.cause } });
     log.changes.push({ shopId: o.shopId, jobId: o.jobId, entity: "flag", entityId: id, deviceId: o.deviceId });
   };
+  const writes: Promise<unknown>[] = [];
   for (const { flag: f, patch } of plan.update) {
-    await updateFlag(t, f.id, patch);
+    writes.push(updateFlag(t, f.id, patch));
     note(f.id, "flag.re-evaluate", { verdict: f.verdict, reason: f.reason, limitMin: f.limitMin, limitMax: f.limitMax, deviation: f.deviation }, patch);
   }
   for (const { flag: f, closedByReadingId } of plan.close) {
-    await updateFlag(t, f.id, { state: "closed", closedAt: new Date(), closedByReadingId });
+    writes.push(updateFlag(t, f.id, { state: "closed", closedAt: new Date(), closedByReadingId }));
     note(f.id, "flag.close", { state: f.state, disposition: f.disposition }, { state: "closed", closedByReadingId });
   }
-  const ids = await createFlags(t, plan.open);
+  const [ids] = await settleAll([createFlags(t, plan.open), ...writes]);
   plan.open.forEach((f, i) => note(ids[i], "flag.open", null, { stationId: f.stationId, derivedKey: f.derivedKey, readingId: f.readingId, value: f.value, unit: f.unit, verdict: f.verdict, reason: f.reason }));
   return { opened: ids, closed: plan.close.map((c) => c.flag.id), updatedFlags: plan.update.map((u) => u.flag.id) };
 }
 
-export async function reconcileJob(t: Transaction, o: ReconcileOptions): Promise<ReconcileResult> {
+/**
+ * Issues the reads of a reconciliation (readings in scope with their gauges, unclosed flags) without
+ * waiting between them. `context` must be the job's, loaded with the job row locked.
+ */
+export function readForReconcile(t: Transaction, o: ReconcileOptions, ctx: JobContext): Promise<ReconcileInput> {
+  // With a context the caller locked the job before its first read, so its snapshot is fresh.
+  const locking = !o.context;
+  const stations = o.fresh ? ingestStations(ctx, new Set(o.fresh.values())) : undefined;
+  const inScope = stations ? new Set(stations) : undefined;
+  const reading = jobReadingsWithGauges(t, o.shopId, o.jobId, locking, stations);
+  // Raw flags outside the scope keep whatever they are (derived ones are filtered once derived).
+  const flags = unclosedFlags(t, o.jobId, locking).then((fs) => (inScope ? fs.filter((f) => !!f.derivedKey || inScope.has(f.stationId)) : fs));
+  return settleAll([reading, flags]).then(([r, f]) => ({ ...r, flags: f }));
+}
+
+export async function reconcileJob(t: Transaction, o: ReconcileOptions, input?: Promise<ReconcileInput>): Promise<ReconcileResult> {
   let ctx = o.context;
   if (!ctx) {
     await lockJobs(t, o.shopId, [o.jobId]);
     ctx = await loadJobContext(o.shopId, o.jobId, t);
   }
-  // With a context the caller locked the job before its first read, so its snapshot is fresh.
-  const { readings, instruments } = await jobReadingsWithGauges(t, o.shopId, o.jobId, !o.context);
+  const { readings, instruments, flags } = await (input ?? readForReconcile(t, o, ctx));
   const current = currentReadings(readings);
   const inst = (r: StoredReading) => (r.instrumentId ? instruments.get(r.instrumentId) : undefined);
   const raws = current.map((r) => toRaw(r, inst(r)));
@@ -192,10 +162,8 @@ export async function reconcileJob(t: Transaction, o: ReconcileOptions): Promise
     const w = wantedDerived(o.shopId, o.jobId, d);
     if (w) wanted.set(`d:${d.key}`, w);
   }
-  const flags = await syncFlags(t, o, wanted, closers, inScope, log);
-  if (!o.log) {
-    await recordAudits(t, log.audits);
-    await recordChanges(t, log.changes);
-  }
-  return { evaluations: new Map(current.map((r, i) => [r.id, evals[i]])), reevaluated, ...flags };
+  // Derived flags outside the scope of this reconciliation keep whatever they are.
+  const result = await syncFlags(t, o, flags.filter((f) => !f.derivedKey || inScope(f.derivedKey)), wanted, closers, log);
+  if (!o.log) await settleAll([recordAudits(t, log.audits), recordChanges(t, log.changes)]);
+  return { evaluations: new Map(current.map((r, i) => [r.id, evals[i]])), reevaluated, ...result };
 }

@@ -1,26 +1,28 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import { benchRoute } from "@/lib/domain";
 import {
   MAX_BATCH, pushReadingSchema, type FieldErrors, type PushErrorReply, type PushReading, type PushReply, type PushResult,
   type ReadingEvaluation,
 } from "@/lib/schemas/sync";
 import type { Actor } from "./access";
 import { recordAudits, recordChanges } from "./bulk-log-repo";
+import { syncAudits } from "./ingest-audit";
 import { getSequelize } from "./db";
 import { AppError, fieldErrors } from "./errors";
-import { reconcileJob, type ReconcileLog } from "./flag-reconcile";
-import { checkItem, lockReasonOf, type BatchContext, type BatchJob, type Checked } from "./ingest-check";
+import { readForReconcile, reconcileJob, type ReconcileLog } from "./flag-reconcile";
+import { checkItem, type BatchContext, type Checked } from "./ingest-check";
+import { batchJobs } from "./ingest-context";
 import { withDeadlockRetry } from "./ingest-retry";
-import { loadJobContext } from "./job-context";
-import { findInstruments, findReadings, insertReadings, lockJobs, type NewReading } from "./readings-repo";
+import { findInstruments, findReadings, insertReadings, lockJobRevisions, type NewReading } from "./readings-repo";
+import { settleAll } from "./sql-driver";
 import { lastChangeId } from "./sync-feed";
 
 // POST /api/sync: one batch, one transaction, all or nothing (the rule is documented in
 // lib/schemas/sync.ts). Steps: parse each item; lock the batch's jobs; check every item against
 // its job, the gauges and what is stored; if any is refused, write nothing and say why per item;
 // else insert the new readings in one statement, reconcile each job's verdicts and flags once,
-// and log every reading (audit + change feed) with its final verdict.
+// and log the batch: one audit event per job listing its new readings with their final verdicts
+// (ingest-audit.ts), and one change-feed row per reading.
 
 type Parsed = { index: number; item?: PushReading; id: string | null; errors?: FieldErrors };
 /** null: the item failed the schema. duplicate: the same id earlier in the batch with the same figures. */
@@ -35,30 +37,17 @@ function parseItems(raw: unknown[]): Parsed[] {
   });
 }
 
-// Station ids per engine shape (keyed by its JSON, so an edited engine never meets a stale route).
-const routeCache = new Map<string, Set<string>>();
-function routeIdsOf(shape: BatchJob["shape"]): Set<string> {
-  const key = JSON.stringify(shape);
-  let ids = routeCache.get(key);
-  if (!ids) {
-    if (routeCache.size > 100) routeCache.clear();
-    ids = new Set(benchRoute(shape).sections.flatMap((s) => s.stations.map((st) => st.id)));
-    routeCache.set(key, ids);
-  }
-  return ids;
-}
-
 async function batchContext(t: Transaction, actor: Actor, deviceId: string, items: PushReading[]): Promise<BatchContext> {
-  const owned = await lockJobs(t, actor.shopId, items.map((i) => i.jobId));
-  const jobs = new Map<number, BatchJob>();
-  for (const id of owned) {
-    const ctx = await loadJobContext(actor.shopId, id, t);
-    jobs.set(id, { ...ctx, routeIds: routeIdsOf(ctx.shape), lockReason: lockReasonOf(ctx.job) });
-  }
   const supersedes = items.flatMap((i) => (i.supersedes ? [i.supersedes] : []));
-  const instruments = await findInstruments(t, actor.shopId, items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : [])));
-  // One lookup for both: ids already stored (replays, conflicts) and the readings corrected.
-  const known = await findReadings(t, [...new Set([...items.map((i) => i.id), ...supersedes])]);
+  // Issued together (one round trip). The lock runs first on the server, so the reads after it
+  // (and this transaction's snapshot) already see every batch committed before we got the lock.
+  const [revisions, instruments, known] = await settleAll([
+    lockJobRevisions(t, actor.shopId, items.map((i) => i.jobId)),
+    findInstruments(t, actor.shopId, items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : []))),
+    // One lookup for both: ids already stored (replays, conflicts) and the readings corrected.
+    findReadings(t, [...new Set([...items.map((i) => i.id), ...supersedes])]),
+  ]);
+  const jobs = await batchJobs(t, actor.shopId, revisions);
   const existing = new Map(items.flatMap((i) => (known.has(i.id) ? [[i.id, known.get(i.id)!] as const] : [])));
   const targets = new Map<string, { shopId: number; jobId: number; stationId: string }>(supersedes.flatMap((id) => (known.has(id) ? [[id, known.get(id)!] as const] : [])));
   for (const i of items) if (!targets.has(i.id) && supersedes.includes(i.id)) targets.set(i.id, { shopId: actor.shopId, jobId: i.jobId, stationId: i.stationId });
@@ -100,27 +89,32 @@ function evaluationOf(c: { row: NewReading }, final: ReadingEvaluation | undefin
   return final ?? { verdict: r.verdict, verdictNote: r.verdictNote, unit: r.unit, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation };
 }
 
-/** Inserts, reconciles each job once, and logs it all with two INSERTs; returns final evaluations and the cursor. */
+/**
+ * Inserts, reconciles each job once, and logs it all; returns final evaluations and the cursor.
+ * The insert and every job's reconciliation reads are issued together (one round trip): the
+ * server runs them in order, so the reads see the new rows.
+ */
 async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: NewReading[]) {
-  await insertReadings(t, insertOrder(fresh));
-  const finals = new Map<string, ReadingEvaluation>();
-  const ids = new Set(fresh.map((r) => r.id));
+  const jobIds = [...new Set(fresh.map((r) => r.jobId))].sort((a, b) => a - b);
   const log: ReconcileLog = {
     audits: [],
     changes: fresh.map((r) => ({ shopId: actor.shopId, jobId: r.jobId, entity: "reading" as const, entityId: r.id, deviceId: bc.deviceId })),
   };
-  for (const jobId of [...new Set(fresh.map((r) => r.jobId))].sort((a, b) => a - b)) {
-    const context = bc.jobs.get(jobId)!;
-    const res = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, deviceId: bc.deviceId, cause: "sync", fresh: ids, context, log });
-    for (const [id, e] of res.evaluations) if (ids.has(id)) finals.set(id, e);
+  const options = jobIds.map((jobId) => ({
+    shopId: actor.shopId, jobId, userId: actor.userId, deviceId: bc.deviceId, cause: "sync", log, context: bc.jobs.get(jobId)!,
+    fresh: new Map(fresh.filter((r) => r.jobId === jobId).map((r) => [r.id, r.stationId])),
+  }));
+  const inserting = insertReadings(t, insertOrder(fresh));
+  const inputs = options.map((o) => readForReconcile(t, o, o.context));
+  await settleAll([inserting, ...inputs]);
+  const finals = new Map<string, ReadingEvaluation>();
+  for (const [i, o] of options.entries()) {
+    const res = await reconcileJob(t, o, inputs[i]);
+    for (const [id, e] of res.evaluations) if (o.fresh.has(id)) finals.set(id, e);
   }
-  const after = (r: NewReading) => ({
-    jobId: r.jobId, stationId: r.stationId, value: r.value, unit: r.unit, skipped: r.skipped, supersedes: r.supersedes,
-    verdict: finals.get(r.id)?.verdict ?? r.verdict, deviceId: bc.deviceId,
-  });
-  log.audits.unshift(...fresh.map((r) => ({ shopId: actor.shopId, userId: actor.userId, action: r.supersedes ? "reading.correct" : "reading.create", entityType: "reading", entityId: r.id, after: after(r) })));
-  await recordAudits(t, log.audits);
-  return { finals, cursor: await recordChanges(t, log.changes) };
+  log.audits.unshift(...syncAudits(actor, bc.deviceId, fresh, finals));
+  const [, cursor] = await settleAll([recordAudits(t, log.audits), recordChanges(t, log.changes)]);
+  return { finals, cursor };
 }
 
 function results(parsed: Parsed[], checked: Outcome[], finals: Map<string, ReadingEvaluation>, refused: boolean): PushResult[] {

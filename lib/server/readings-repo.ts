@@ -3,6 +3,7 @@ import { Op, QueryTypes, type Transaction } from "sequelize";
 import { Instrument, decimalToNumber } from "@/models";
 import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize } from "./db";
+import { sqlRows, sqlWrite, utcDate } from "./sql-driver";
 import { insertMany } from "./sql-insert";
 import type { InstrumentInfo, ReadingFacts } from "./ingest-evaluate";
 
@@ -50,16 +51,18 @@ function fromRow(row: Record<string, unknown>): StoredReading {
   r.shopId = Number(row.shopId);
   r.instrumentId = row.instrumentId === null ? null : Number(row.instrumentId);
   r.skipped = !!row.skipped;
-  r.takenAt = new Date(row.takenAt as Date);
-  r.receivedAt = new Date(row.receivedAt as Date);
+  // Sequelize hands DATETIME back as a Date, the driver path (sql-driver.ts) as UTC text.
+  r.takenAt = utcDate(row.takenAt) as Date;
+  r.receivedAt = utcDate(row.receivedAt) as Date;
   return r;
 }
 
+/** Inside a transaction on its own driver connection (the sync hot path), else through Sequelize. */
 async function selectReadings(where: string, replacements: unknown[], t?: Transaction, lock = ""): Promise<StoredReading[]> {
-  const rows = await getSequelize().query<Record<string, unknown>>(
-    `SELECT ${COLUMNS} FROM readings WHERE ${where} ${ORDER}${lock}`,
-    { replacements, type: QueryTypes.SELECT, transaction: t },
-  );
+  const sql = `SELECT ${COLUMNS} FROM readings WHERE ${where} ${ORDER}${lock}`;
+  const rows = t
+    ? await sqlRows(t, sql, replacements)
+    : await getSequelize().query<Record<string, unknown>>(sql, { replacements, type: QueryTypes.SELECT });
   return rows.map(fromRow);
 }
 
@@ -69,12 +72,19 @@ async function selectReadings(where: string, replacements: unknown[], t?: Transa
  * lock first, which serialises them per job.
  */
 export async function lockJobs(t: Transaction, shopId: number, jobIds: number[]): Promise<Set<number>> {
-  if (jobIds.length === 0) return new Set();
-  const rows = await getSequelize().query<{ id: number }>(
-    "SELECT id FROM jobs WHERE shop_id = ? AND id IN (?) ORDER BY id FOR UPDATE",
-    { replacements: [shopId, [...new Set(jobIds)].sort((a, b) => a - b)], type: QueryTypes.SELECT, transaction: t },
-  );
-  return new Set(rows.map((r) => Number(r.id)));
+  return new Set((await lockJobRevisions(t, shopId, jobIds)).keys());
+}
+
+/**
+ * lockJobs, returning each locked job's context_revision (as text: it is a 64-bit token). Read
+ * under the row lock, so it is the latest committed token and cannot change until we commit.
+ */
+export async function lockJobRevisions(t: Transaction, shopId: number, jobIds: number[]): Promise<Map<number, string>> {
+  if (jobIds.length === 0) return new Map();
+  const rows = await sqlRows<{ id: number; revision: string }>(t,
+    "SELECT id, CAST(context_revision AS CHAR) AS revision FROM jobs WHERE shop_id = ? AND id IN (?) ORDER BY id FOR UPDATE",
+    [shopId, [...new Set(jobIds)].sort((a, b) => a - b)]);
+  return new Map(rows.map((r) => [Number(r.id), String(r.revision)]));
 }
 
 /** Readings with these ids in ANY shop: a client id is global, so a clash must be seen to be refused. */
@@ -109,13 +119,17 @@ function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
   };
 }
 
-/** jobReadings and the shop's gauges they were taken with, in one query (reconciliation's hot path). */
-export async function jobReadingsWithGauges(t: Transaction, shopId: number, jobId: number, locking = true) {
-  const rows = await getSequelize().query<Record<string, unknown>>(
+/**
+ * jobReadings and the shop's gauges they were taken with, in one query (reconciliation's hot path);
+ * with `stations`, only the readings at those stations (a station's current figure depends on its
+ * own readings only: a correction is always taken at the station it corrects).
+ */
+export async function jobReadingsWithGauges(t: Transaction, shopId: number, jobId: number, locking = true, stations?: readonly string[]) {
+  if (stations?.length === 0) return { readings: [], instruments: new Map<number, InstrumentInfo>() };
+  const rows = await sqlRows(t,
     `SELECT ${READING_COLUMNS}, ${GAUGE_COLUMNS} FROM readings r LEFT JOIN instruments g ON g.id = r.instrument_id AND g.shop_id = ?
-      WHERE r.job_id = ? ORDER BY r.taken_at, r.received_at, r.id${locking ? " LOCK IN SHARE MODE" : ""}`,
-    { replacements: [shopId, jobId], type: QueryTypes.SELECT, transaction: t },
-  );
+      WHERE r.job_id = ?${stations ? " AND r.station_id IN (?)" : ""} ORDER BY r.taken_at, r.received_at, r.id${locking ? " LOCK IN SHARE MODE" : ""}`,
+    stations ? [shopId, jobId, stations] : [shopId, jobId]);
   const instruments = new Map<number, InstrumentInfo>();
   for (const row of rows) if (row.gId !== null && row.gId !== undefined && !instruments.has(Number(row.gId))) instruments.set(Number(row.gId), gaugeOf(row));
   return { readings: rows.map(fromRow), instruments };
@@ -151,10 +165,8 @@ export async function updateEvaluation(
   id: string,
   e: Pick<StoredReading, "verdict" | "verdictNote" | "limitMin" | "limitMax" | "deviation">,
 ): Promise<void> {
-  await getSequelize().query(
-    "UPDATE readings SET verdict = ?, verdict_note = ?, limit_min = ?, limit_max = ?, deviation = ?, updated_at = ? WHERE id = ?",
-    { replacements: [e.verdict, e.verdictNote, e.limitMin, e.limitMax, e.deviation, new Date(), id], type: QueryTypes.UPDATE, transaction: t },
-  );
+  await sqlWrite(t, "UPDATE readings SET verdict = ?, verdict_note = ?, limit_min = ?, limit_max = ?, deviation = ?, updated_at = ? WHERE id = ?",
+    [e.verdict, e.verdictNote, e.limitMin, e.limitMax, e.deviation, new Date(), id]);
 }
 
 function toInstrument(i: Instrument): InstrumentInfo {
@@ -168,8 +180,12 @@ function toInstrument(i: Instrument): InstrumentInfo {
 /** The shop's gauges with these ids (other shops' ids are simply absent). */
 export async function findInstruments(t: Transaction | undefined, shopId: number, ids: number[]): Promise<Map<number, InstrumentInfo>> {
   if (ids.length === 0) return new Map();
+  if (t) {
+    const rows = await sqlRows(t, `SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE g.shop_id = ? AND g.id IN (?)`, [shopId, [...new Set(ids)]]);
+    return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
+  }
   getSequelize();
-  const rows = await Instrument.findAll({ where: { shopId, id: { [Op.in]: [...new Set(ids)] } }, transaction: t });
+  const rows = await Instrument.findAll({ where: { shopId, id: { [Op.in]: [...new Set(ids)] } } });
   return new Map(rows.map((i) => [i.id, toInstrument(i)]));
 }
 

@@ -1,25 +1,22 @@
 import "server-only";
-import { QueryTypes, type Transaction } from "sequelize";
-import { getSequelize } from "./db";
+import type { Transaction } from "sequelize";
+import { sqlWrite } from "./sql-driver";
 
-// One multi-row INSERT with bound parameters: the mariadb driver formats the values itself, which
-// is several times cheaper than Sequelize's own escaping of replacements for hundreds of rows
-// (bench:sync). Dates go as Date objects (UTC, as the connection is configured); never undefined.
+// One multi-row INSERT with `?` placeholders on the transaction's own driver connection
+// (sql-driver.ts): the mariadb driver formats the values itself, which is several times cheaper
+// than Sequelize's handling of hundreds of bound values (bench:sync). Dates go as UTC text;
+// undefined as NULL.
+
+/** The SQL of a multi-row INSERT of `count` rows. */
+export function insertSql(table: string, columns: readonly string[], count: number): string {
+  const tuple = `(${columns.map(() => "?").join(",")})`;
+  return `INSERT INTO ${table} (${columns.map((c) => `\`${c}\``).join(",")}) VALUES ${Array(count).fill(tuple).join(",")}`;
+}
 
 /** Inserts `rows` (values in `columns` order); returns the first auto-increment id, if the table has one. */
 export async function insertMany(t: Transaction, table: string, columns: readonly string[], rows: unknown[][]): Promise<number> {
   if (rows.length === 0) return 0;
-  const bind: unknown[] = [];
-  const tuples = rows.map((row) => {
-    const marks = row.map((v) => {
-      bind.push(v === undefined ? null : v);
-      return `$${bind.length}`;
-    });
-    return `(${marks.join(",")})`;
-  });
-  const [firstId] = await getSequelize().query(
-    `INSERT INTO ${table} (${columns.map((c) => `\`${c}\``).join(",")}) VALUES ${tuples.join(",")}`,
-    { bind, type: QueryTypes.INSERT, transaction: t },
-  );
-  return Number(firstId);
+  const { insertId } = await sqlWrite(t, insertSql(table, columns, rows.length), rows.flat());
+  return insertId;
 }
+

@@ -4,6 +4,7 @@
 // out-of-round ≤ 0.001 in, main oil clearance 0.0015–0.0025 in, torque 65–70 lbf·ft).
 import { randomUUID } from "node:crypto";
 import { QueryTypes } from "sequelize";
+import { expect } from "vitest";
 import { getSequelize } from "@/lib/server/db";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 import { POST, GET } from "@/app/api/sync/route";
@@ -51,4 +52,24 @@ export async function flagsOf(jobId: number) {
     "SELECT id, reading_id AS readingId, derived_key AS derivedKey, station_id AS stationId, state, reason, verdict, closed_by_reading_id AS closedByReadingId, value FROM flags WHERE job_id = ? ORDER BY id",
     { replacements: [jobId], type: QueryTypes.SELECT },
   );
+}
+
+type SyncedEntry = { id: string; stationId: string; value: number | null; unit: string; verdict: string | null; supersedes: string | null };
+
+/**
+ * The readings listed by the shop's "readings.sync" audit events (one event per job per batch),
+ * with the job and device each event names, in the order written.
+ */
+export async function syncedInAudit(shopId: number) {
+  const rows = await getSequelize().query<{ userId: number; entityType: string; entityId: string; after: unknown }>(
+    "SELECT user_id AS userId, entity_type AS entityType, entity_id AS entityId, `after` FROM audit_events WHERE shop_id = ? AND action = 'readings.sync' ORDER BY id",
+    { replacements: [shopId], type: QueryTypes.SELECT },
+  );
+  return rows.flatMap((r) => {
+    const after = (typeof r.after === "string" ? JSON.parse(r.after) : r.after) as { jobId: number; deviceId: string; count: number; readings: SyncedEntry[] };
+    expect(r.entityType).toBe("job");
+    expect(Number(r.entityId)).toBe(after.jobId);
+    expect(after.count).toBe(after.readings.length);
+    return after.readings.map((e) => ({ ...e, jobId: after.jobId, deviceId: after.deviceId, userId: Number(r.userId) }));
+  });
 }

@@ -8,7 +8,7 @@ import { getSequelize } from "@/lib/server/db";
 import { JobLimit } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";
-import { count, flagsOf, later, push, reading } from "./sync-fixtures";
+import { count, flagsOf, later, push, reading, syncedInAudit } from "./sync-fixtures";
 
 let s: TestShop;
 beforeEach(async () => {
@@ -42,7 +42,7 @@ describe("flags for raw readings", () => {
     expect(res.status).toBe(200);
     expect(await flagsOf(s.job.id)).toMatchObject([{ readingId: bad.id, state: "closed", closedByReadingId: fix.id }]);
     expect(await count("SELECT COUNT(*) AS n FROM readings WHERE job_id = ? AND station_id = 'bore/2/mid/B'", [s.job.id])).toBe(2);
-    expect(await count("SELECT COUNT(*) AS n FROM audit_events WHERE action = 'reading.correct' AND entity_id = ?", [fix.id])).toBe(1);
+    expect((await syncedInAudit(s.shop.id)).filter((e) => e.id === fix.id)).toMatchObject([{ stationId: "bore/2/mid/B", supersedes: bad.id, verdict: "in_spec" }]);
     const pack = await call(PACK, await asUser(s.users.machinist, "GET", `/api/bench/jobs/${s.job.id}`), { jobId: String(s.job.id) });
     const old = pack.body.readings.find((r: { id: string }) => r.id === bad.id);
     expect(old).toMatchObject({ value: 4.0293, verdict: "out_of_spec", supersededBy: fix.id });

@@ -6,7 +6,7 @@ import { Instrument, Job } from "@/models";
 import { POST } from "@/app/api/sync/route";
 import { createShop, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";
-import { count, flagsOf, footprint, push, reading } from "./sync-fixtures";
+import { count, flagsOf, footprint, push, reading, syncedInAudit } from "./sync-fixtures";
 
 let a: TestShop;
 let b: TestShop;
@@ -61,7 +61,9 @@ describe("POST /api/sync: accepted readings", () => {
     const after = await footprint(a.job.id, a.shop.id);
     expect(after.readings - before.readings).toBe(1);
     expect(after.changes - before.changes).toBeGreaterThanOrEqual(1);
-    expect(await count("SELECT COUNT(*) AS n FROM audit_events WHERE entity_type = 'reading' AND entity_id = ? AND action = 'reading.create'", [r.id])).toBe(1);
+    // One "readings.sync" audit event per job per batch lists each new reading exactly once.
+    const audited = (await syncedInAudit(a.shop.id)).filter((e) => e.id === r.id);
+    expect(audited).toEqual([{ id: r.id, stationId: "bore/2/top/A", value: 4.0302, unit: "in", verdict: "in_spec", supersedes: null, jobId: a.job.id, deviceId: "tablet-7", userId: a.users.machinist.id }]);
   });
 
   it("a replay of the same batch is a no-op: accepted again with the stored verdict, nothing new written", async () => {

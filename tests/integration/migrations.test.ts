@@ -9,6 +9,7 @@ import { QueryTypes, Sequelize } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { migrator } from "../../lib/server/migrate";
 import { APPEND_ONLY_MESSAGE } from "../../migrations/20261201001000-create-audit-events";
+import { CONTEXT_TRIGGERS } from "../../migrations/20261202000200-add-jobs-context-revision";
 import { MIGRATED_TABLES, migrations } from "../../migrations/index";
 
 // npm test provides an empty scratch database for this file, so dropping every table never
@@ -73,7 +74,9 @@ async function restoreRows(parked: string[]): Promise<void> {
   await sequelize.transaction(async (transaction) => {
     // Session setting, so the whole restore runs on the transaction's one connection.
     await sequelize.query("SET FOREIGN_KEY_CHECKS = 0", { transaction });
-    for (const table of parked) {
+    // Children before parents: a job_limits row put back must not fire its trigger on a restored
+    // job (it would give the job a new context_revision, and the checksums below would differ).
+    for (const table of [...parked].reverse()) {
       await sequelize.query(`INSERT INTO \`${table}\` SELECT * FROM \`${PARKED}${table}\``, { transaction });
     }
     await sequelize.query("SET FOREIGN_KEY_CHECKS = 1", { transaction });
@@ -126,7 +129,7 @@ describe("migrations", () => {
     expect(await triggerNames()).toEqual([]);
   });
 
-  it("all up creates every table, in utf8mb4, with the audit triggers", async () => {
+  it("all up creates every table, in utf8mb4, with the audit and context-revision triggers", async () => {
     await umzug.up();
     expect(await umzug.pending()).toEqual([]);
     expect(await tableNames()).toEqual([...MIGRATED_TABLES].sort());
@@ -134,7 +137,7 @@ describe("migrations", () => {
       `SELECT table_name AS name, table_collation AS collation FROM information_schema.tables WHERE table_schema = DATABASE() AND ${IGNORED}`,
     );
     for (const c of collations) expect(c.collation, c.name).toMatch(/^utf8mb4_/);
-    expect(await triggerNames()).toEqual(["audit_events_no_delete", "audit_events_no_update"]);
+    expect(await triggerNames()).toEqual(["audit_events_no_delete", "audit_events_no_update", ...CONTEXT_TRIGGERS].sort());
   });
 
   it("audit_events refuses UPDATE and DELETE, and keeps the row", async () => {

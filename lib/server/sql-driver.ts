@@ -1,0 +1,62 @@
+import "server-only";
+import type { Transaction } from "sequelize";
+
+// Hot-path SQL of POST /api/sync straight on the transaction's own mariadb connection (Sequelize v6
+// keeps it on `transaction.connection`), so it stays inside the same transaction and job locks but
+// skips Sequelize's query and row formatting, which cost more CPU than the queries (bench:sync).
+//
+// Pipelining: the driver sends a query as soon as it is issued, without waiting for the answers of
+// the ones before (mariadb `pipelining`, on by default); the server still runs them one after the
+// other, in order. Issuing several before awaiting them saves round trips; their order on the
+// server is the order they were issued.
+//
+// Dates travel as UTC text both ways ('YYYY-MM-DD HH:MM:SS.mmm'): the driver would format and
+// parse them in the Node process's local time zone, while the session runs at +00:00.
+
+type DriverConnection = { query(opts: Record<string, unknown> & { sql: string }, values?: unknown[]): Promise<unknown> };
+export type WriteResult = { affectedRows: number; insertId: number };
+
+// Per-query options override the connection's (Sequelize's typeCast hook would parse each field).
+const OPTIONS = { typeCast: undefined, decimalAsNumber: true, bigIntAsNumber: true, insertIdAsNumber: true, dateStrings: true, checkDuplicate: false };
+
+function driverOf(t: Transaction): DriverConnection {
+  const c = (t as unknown as { connection?: DriverConnection }).connection;
+  if (!c) throw new Error("The transaction has no database connection yet");
+  return c;
+}
+
+/** A Date as the DATETIME(3) text of its UTC time. */
+export const utcText = (d: Date): string => d.toISOString().slice(0, 23).replace("T", " ");
+
+/** A DATETIME column read as text (UTC) back to a Date; null stays null. */
+export function utcDate(v: unknown): Date | null {
+  if (v === null || v === undefined) return null;
+  if (v instanceof Date) return v;
+  const s = String(v);
+  return new Date(s.length <= 10 ? `${s}T00:00:00Z` : `${s.replace(" ", "T")}Z`);
+}
+
+const param = (v: unknown) => (v === undefined ? null : v instanceof Date ? utcText(v) : v);
+
+/** SELECT rows as plain objects (DECIMAL and BIGINT as numbers, DATETIME as UTC text). */
+export async function sqlRows<T = Record<string, unknown>>(t: Transaction, sql: string, values: unknown[] = []): Promise<T[]> {
+  const rows = (await driverOf(t).query({ sql, ...OPTIONS }, values.map(param))) as T[];
+  return Array.isArray(rows) ? rows : [];
+}
+
+/** INSERT / UPDATE / DELETE; insertId is the first auto-increment id of a multi-row INSERT. */
+export async function sqlWrite(t: Transaction, sql: string, values: unknown[] = []): Promise<WriteResult> {
+  const r = (await driverOf(t).query({ sql, ...OPTIONS }, values.map(param))) as { affectedRows?: number; insertId?: number | bigint };
+  return { affectedRows: Number(r.affectedRows ?? 0), insertId: Number(r.insertId ?? 0) };
+}
+
+/**
+ * Awaits queries that were issued together (pipelined); throws the first failure, after every one
+ * has settled, so none is left rejecting unobserved.
+ */
+export async function settleAll<T extends readonly unknown[]>(promises: { [K in keyof T]: Promise<T[K]> }): Promise<T> {
+  const results = await Promise.allSettled(promises);
+  const failed = results.find((r): r is PromiseRejectedResult => r.status === "rejected");
+  if (failed) throw failed.reason;
+  return results.map((r) => (r as PromiseFulfilledResult<unknown>).value) as unknown as T;
+}
