@@ -79,21 +79,23 @@ function evaluateCurrent(ctx: JobContext, current: StoredReading[], raws: RawRea
   });
 }
 
-/** Stores changed verdicts (issued together, one round trip); returns the re-evaluated ids that were not fresh. */
+// Writes here are awaited one by one, never pipelined behind another write: if a statement dies in
+// a deadlock, InnoDB rolls the transaction back and a write already queued behind it would run
+// (and commit) on its own. Reads may follow a write in a pipeline (sql-driver.ts).
+
+/** Stores changed verdicts; returns the re-evaluated ids that were not fresh. */
 async function storeEvaluations(t: Transaction, o: ReconcileOptions, current: StoredReading[], evals: ReadingEvaluation[], log: ReconcileLog) {
   const changed: string[] = [];
-  const writes: Promise<void>[] = [];
   for (const [i, r] of current.entries()) {
     const { unit: _u, ...e } = evals[i];
     if (sameEvaluation(r, e)) continue;
-    writes.push(updateEvaluation(t, r.id, e));
+    await updateEvaluation(t, r.id, e);
     if (o.fresh?.has(r.id)) continue;
     changed.push(r.id);
     const before = { verdict: r.verdict, verdictNote: r.verdictNote, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation };
     log.audits.push({ shopId: o.shopId, userId: o.userId, action: "reading.re-evaluate", entityType: "reading", entityId: r.id, before, after: { ...e, cause: o.cause } });
     log.changes.push({ shopId: o.shopId, jobId: o.jobId, entity: "reading", entityId: r.id, deviceId: o.deviceId });
   }
-  await settleAll(writes);
   return changed;
 }
 
@@ -103,16 +105,15 @@ async function syncFlags(t: Transaction, o: ReconcileOptions, flags: UnclosedFla
     log.audits.push({ shopId: o.shopId, userId: o.userId, action, entityType: "flag", entityId: id, before, after: { ...after, cause: o.cause } });
     log.changes.push({ shopId: o.shopId, jobId: o.jobId, entity: "flag", entityId: id, deviceId: o.deviceId });
   };
-  const writes: Promise<unknown>[] = [];
   for (const { flag: f, patch } of plan.update) {
-    writes.push(updateFlag(t, f.id, patch));
+    await updateFlag(t, f.id, patch);
     note(f.id, "flag.re-evaluate", { verdict: f.verdict, reason: f.reason, limitMin: f.limitMin, limitMax: f.limitMax, deviation: f.deviation }, patch);
   }
   for (const { flag: f, closedByReadingId } of plan.close) {
-    writes.push(updateFlag(t, f.id, { state: "closed", closedAt: new Date(), closedByReadingId }));
+    await updateFlag(t, f.id, { state: "closed", closedAt: new Date(), closedByReadingId });
     note(f.id, "flag.close", { state: f.state, disposition: f.disposition }, { state: "closed", closedByReadingId });
   }
-  const [ids] = await settleAll([createFlags(t, plan.open), ...writes]);
+  const ids = await createFlags(t, plan.open);
   plan.open.forEach((f, i) => note(ids[i], "flag.open", null, { stationId: f.stationId, derivedKey: f.derivedKey, readingId: f.readingId, value: f.value, unit: f.unit, verdict: f.verdict, reason: f.reason }));
   return { opened: ids, closed: plan.close.map((c) => c.flag.id), updatedFlags: plan.update.map((u) => u.flag.id) };
 }
@@ -164,6 +165,9 @@ export async function reconcileJob(t: Transaction, o: ReconcileOptions, input?: 
   }
   // Derived flags outside the scope of this reconciliation keep whatever they are.
   const result = await syncFlags(t, o, flags.filter((f) => !f.derivedKey || inScope(f.derivedKey)), wanted, closers, log);
-  if (!o.log) await settleAll([recordAudits(t, log.audits), recordChanges(t, log.changes)]);
+  if (!o.log) {
+    await recordAudits(t, log.audits);
+    await recordChanges(t, log.changes);
+  }
   return { evaluations: new Map(current.map((r, i) => [r.id, evals[i]])), reevaluated, ...result };
 }

@@ -3,7 +3,7 @@ import type { Sequelize, Transaction } from "sequelize";
 import { benchRoute } from "@/lib/domain";
 import { getSequelize } from "./db";
 import { lockReasonOf, type BatchJob } from "./ingest-check";
-import { loadJobContext } from "./job-context";
+import { loadJobContext, type JobContext } from "./job-context";
 
 // Each job's context as POST /api/sync judges readings with it (job, engine shape, limits, route
 // station ids, lock reason), kept in memory between batches. A tablet sends a job's readings in
@@ -44,7 +44,9 @@ function routeIdsOf(shape: BatchJob["shape"]): Set<string> {
  * The contexts of these locked jobs (`revisions`: id → context_revision, from lockJobRevisions in
  * this transaction): from the cache when the token matches, else loaded now and remembered.
  */
-export async function batchJobs(t: Transaction, shopId: number, revisions: Map<number, string>): Promise<Map<number, BatchJob>> {
+export async function batchJobs(
+  t: Transaction, shopId: number, revisions: Map<number, string>, prefetched = new Map<number, Promise<JobContext | null>>(),
+): Promise<Map<number, BatchJob>> {
   const cache = cacheOf();
   const jobs = new Map<number, BatchJob>();
   for (const [id, revision] of revisions) {
@@ -53,7 +55,7 @@ export async function batchJobs(t: Transaction, shopId: number, revisions: Map<n
       jobs.set(id, hit.job);
       continue;
     }
-    const ctx = await loadJobContext(shopId, id, t);
+    const ctx = (await prefetched.get(id)) ?? (await loadJobContext(shopId, id, t));
     const job: BatchJob = { ...ctx, routeIds: routeIdsOf(ctx.shape), lockReason: lockReasonOf(ctx.job) };
     if (cache.size >= MAX_ENTRIES) cache.clear();
     cache.set(id, { shopId, revision, job });
@@ -62,5 +64,13 @@ export async function batchJobs(t: Transaction, shopId: number, revisions: Map<n
   return jobs;
 }
 
-/** How many contexts are cached (tests). */
-export const cachedJobCount = () => cacheOf().size;
+/**
+ * Starts loading the context of each job the cache has no entry for, to be issued right after the
+ * job lock in the same pipeline (so it reads after the lock, in the same snapshot): a tablet's first
+ * batch for a job then costs no extra round trip. A failure here only means batchJobs loads again.
+ */
+export function prefetchJobs(t: Transaction, shopId: number, jobIds: number[]): Map<number, Promise<JobContext | null>> {
+  const cache = cacheOf();
+  const unseen = [...new Set(jobIds)].filter((id) => !cache.has(id));
+  return new Map(unseen.map((id) => [id, loadJobContext(shopId, id, t).catch(() => null)]));
+}

@@ -11,7 +11,7 @@ import { getSequelize } from "./db";
 import { AppError, fieldErrors } from "./errors";
 import { readForReconcile, reconcileJob, type ReconcileLog } from "./flag-reconcile";
 import { checkItem, type BatchContext, type Checked } from "./ingest-check";
-import { batchJobs } from "./ingest-context";
+import { batchJobs, prefetchJobs } from "./ingest-context";
 import { withDeadlockRetry } from "./ingest-retry";
 import { findInstruments, findReadings, insertReadings, lockJobRevisions, type NewReading } from "./readings-repo";
 import { settleAll } from "./sql-driver";
@@ -41,13 +41,16 @@ async function batchContext(t: Transaction, actor: Actor, deviceId: string, item
   const supersedes = items.flatMap((i) => (i.supersedes ? [i.supersedes] : []));
   // Issued together (one round trip). The lock runs first on the server, so the reads after it
   // (and this transaction's snapshot) already see every batch committed before we got the lock.
-  const [revisions, instruments, known] = await settleAll([
+  const reads = settleAll([
     lockJobRevisions(t, actor.shopId, items.map((i) => i.jobId)),
     findInstruments(t, actor.shopId, items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : []))),
     // One lookup for both: ids already stored (replays, conflicts) and the readings corrected.
     findReadings(t, [...new Set([...items.map((i) => i.id), ...supersedes])]),
   ]);
-  const jobs = await batchJobs(t, actor.shopId, revisions);
+  // Issued after those, so the context of a job never seen before is read with the lock held.
+  const prefetched = prefetchJobs(t, actor.shopId, items.map((i) => i.jobId));
+  const [revisions, instruments, known] = await reads;
+  const jobs = await batchJobs(t, actor.shopId, revisions, prefetched);
   const existing = new Map(items.flatMap((i) => (known.has(i.id) ? [[i.id, known.get(i.id)!] as const] : [])));
   const targets = new Map<string, { shopId: number; jobId: number; stationId: string }>(supersedes.flatMap((id) => (known.has(id) ? [[id, known.get(id)!] as const] : [])));
   for (const i of items) if (!targets.has(i.id) && supersedes.includes(i.id)) targets.set(i.id, { shopId: actor.shopId, jobId: i.jobId, stationId: i.stationId });
@@ -92,7 +95,8 @@ function evaluationOf(c: { row: NewReading }, final: ReadingEvaluation | undefin
 /**
  * Inserts, reconciles each job once, and logs it all; returns final evaluations and the cursor.
  * The insert and every job's reconciliation reads are issued together (one round trip): the
- * server runs them in order, so the reads see the new rows.
+ * server runs them in order, so the reads see the new rows. Only reads ever follow a write in a
+ * pipeline: after a deadlock, a queued write would run outside the rolled-back transaction.
  */
 async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: NewReading[]) {
   const jobIds = [...new Set(fresh.map((r) => r.jobId))].sort((a, b) => a - b);
@@ -113,8 +117,9 @@ async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: NewR
     for (const [id, e] of res.evaluations) if (o.fresh.has(id)) finals.set(id, e);
   }
   log.audits.unshift(...syncAudits(actor, bc.deviceId, fresh, finals));
-  const [, cursor] = await settleAll([recordAudits(t, log.audits), recordChanges(t, log.changes)]);
-  return { finals, cursor };
+  // One after the other: a write never waits in a pipeline behind another (flag-reconcile.ts says why).
+  await recordAudits(t, log.audits);
+  return { finals, cursor: await recordChanges(t, log.changes) };
 }
 
 function results(parsed: Parsed[], checked: Outcome[], finals: Map<string, ReadingEvaluation>, refused: boolean): PushResult[] {

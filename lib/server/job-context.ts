@@ -1,5 +1,5 @@
 import "server-only";
-import type { Transaction } from "sequelize";
+import { Op, literal, type Transaction } from "sequelize";
 import { EXPANSION_COEFFICIENTS, type EngineShape, type SpecLimit } from "@/lib/domain";
 import { Engine, Job, JobLimit } from "@/models";
 import { getSequelize } from "./db";
@@ -52,12 +52,16 @@ export type JobContext = { job: Job; engine: Engine; shape: EngineShape; spec: S
 /** A job of this shop with its engine shape and its own limit snapshot; 404 for any other shop. */
 export async function loadJobContext(shopId: number, jobId: number, t?: Transaction): Promise<JobContext> {
   getSequelize();
-  const job = await Job.findOne({ where: { id: jobId, shopId }, transaction: t });
-  if (!job) throw notFound("Job");
-  const [engine, limits] = await Promise.all([
-    Engine.findByPk(job.engineId, { transaction: t }),
+  // All three at once (inside a transaction they share its connection and go out in one round
+  // trip); the engine is found through this shop's job, so nothing of another shop is read.
+  // (Op.eq is needed: a bare literal as a where value becomes the whole condition.)
+  const engineOfJob = literal(`(SELECT engine_id FROM jobs WHERE id = ${Number(jobId)} AND shop_id = ${Number(shopId)})`);
+  const [job, engine, limits] = await Promise.all([
+    Job.findOne({ where: { id: jobId, shopId }, transaction: t }),
+    Engine.findOne({ where: { id: { [Op.eq]: engineOfJob } }, transaction: t }),
     JobLimit.findAll({ where: { jobId }, order: [["sortOrder", "ASC"], ["id", "ASC"]], transaction: t }),
   ]);
+  if (!job) throw notFound("Job");
   if (!engine) throw notFound("Engine");
   return { job, engine, shape: toEngineShape(engine, job.unitSystem), spec: limits.map(toSpecLimit) };
 }

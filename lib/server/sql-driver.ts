@@ -8,7 +8,9 @@ import type { Transaction } from "sequelize";
 // Pipelining: the driver sends a query as soon as it is issued, without waiting for the answers of
 // the ones before (mariadb `pipelining`, on by default); the server still runs them one after the
 // other, in order. Issuing several before awaiting them saves round trips; their order on the
-// server is the order they were issued.
+// server is the order they were issued. Only reads may wait behind a write: if a statement dies in
+// a deadlock, InnoDB rolls the whole transaction back and the next queued statement runs outside it
+// (autocommit) — harmless for a read, a committed orphan for a write.
 //
 // Dates travel as UTC text both ways ('YYYY-MM-DD HH:MM:SS.mmm'): the driver would format and
 // parse them in the Node process's local time zone, while the session runs at +00:00.
@@ -36,17 +38,29 @@ export function utcDate(v: unknown): Date | null {
   return new Date(s.length <= 10 ? `${s}T00:00:00Z` : `${s.replace(" ", "T")}Z`);
 }
 
+/** A listener for every statement run here and its wall time in ms (bench:sync's TW_BENCH_TRACE). */
+type Trace = (sql: string, ms: number) => void;
+let trace: Trace | null = null;
+export const setSqlTrace = (fn: Trace | null) => void (trace = fn);
+
+async function run(t: Transaction, sql: string, values: unknown[]): Promise<unknown> {
+  const started = trace ? performance.now() : 0;
+  const out = await driverOf(t).query({ sql, ...OPTIONS }, values.map(param));
+  trace?.(sql, performance.now() - started);
+  return out;
+}
+
 const param = (v: unknown) => (v === undefined ? null : v instanceof Date ? utcText(v) : v);
 
 /** SELECT rows as plain objects (DECIMAL and BIGINT as numbers, DATETIME as UTC text). */
 export async function sqlRows<T = Record<string, unknown>>(t: Transaction, sql: string, values: unknown[] = []): Promise<T[]> {
-  const rows = (await driverOf(t).query({ sql, ...OPTIONS }, values.map(param))) as T[];
+  const rows = (await run(t, sql, values)) as T[];
   return Array.isArray(rows) ? rows : [];
 }
 
 /** INSERT / UPDATE / DELETE; insertId is the first auto-increment id of a multi-row INSERT. */
 export async function sqlWrite(t: Transaction, sql: string, values: unknown[] = []): Promise<WriteResult> {
-  const r = (await driverOf(t).query({ sql, ...OPTIONS }, values.map(param))) as { affectedRows?: number; insertId?: number | bigint };
+  const r = (await run(t, sql, values)) as { affectedRows?: number; insertId?: number | bigint };
   return { affectedRows: Number(r.affectedRows ?? 0), insertId: Number(r.insertId ?? 0) };
 }
 

@@ -6,6 +6,7 @@ import { POST } from "@/app/api/sync/route";
 import { closeSequelize, getSequelize } from "@/lib/server/db";
 import { migrateUp } from "@/lib/server/migrate";
 import { sealSession, SESSION_COOKIE } from "@/lib/server/session";
+import { setSqlTrace } from "@/lib/server/sql-driver";
 import { Customer, Engine, Job, JobLimit, Shop, User } from "@/models";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 import { STREET_V8_INCH } from "../seed/demo-specs";
@@ -38,20 +39,26 @@ async function fixture(jobs: number) {
   return { jobIds, cookie };
 }
 
-/** With TW_BENCH_TRACE=1: time spent per kind of SQL statement (Sequelize's benchmark logging). */
+/**
+ * With TW_BENCH_TRACE=1: wall time per kind of SQL statement, from Sequelize's benchmark logging
+ * and from the hot path's own driver calls (lib/server/sql-driver.ts). Pipelined statements
+ * overlap, so their times add up to more than the wall clock.
+ */
 function traceQueries() {
   const timing = new Map<string, [number, number]>();
+  const record = (sql: string, ms: number) => {
+    const key = sql.replace(/^Execut\w+ \([^)]*\): /, "").replace(/\s+/g, " ").replace(/\d+/g, "N").slice(0, 70);
+    const cur = timing.get(key) ?? [0, 0];
+    timing.set(key, [cur[0] + 1, cur[1] + ms]);
+  };
   if (process.env.TW_BENCH_TRACE) {
     const options = (getSequelize() as unknown as { options: { benchmark?: boolean; logging?: unknown } }).options;
     options.benchmark = true;
-    options.logging = (sql: string, ms: number) => {
-      const key = sql.replace(/^Execut\w+ \([^)]*\): /, "").replace(/\d+/g, "N").slice(0, 70);
-      const cur = timing.get(key) ?? [0, 0];
-      timing.set(key, [cur[0] + 1, cur[1] + ms]);
-    };
+    options.logging = (sql: string, ms: number) => record(sql, ms);
+    setSqlTrace(record);
   }
   const print = () => {
-    for (const [k, [n, ms]] of [...timing].sort((a, b) => b[1][1] - a[1][1]).slice(0, 20)) console.log(`${String(ms).padStart(7)} ms ${String(n).padStart(6)}× ${k}`);
+    for (const [k, [n, ms]] of [...timing].sort((a, b) => b[1][1] - a[1][1]).slice(0, 20)) console.log(`${ms.toFixed(0).padStart(7)} ms ${String(n).padStart(6)}× ${k}`);
   };
   return { print };
 }

@@ -55,6 +55,18 @@ describe("the sync server's cached job context", () => {
     expect(res.body.results[0].errors.stationId[0]).toMatch(/not on job .*\(4 cylinders/);
   });
 
+  it("a job on another engine of the shop is judged with its own engine", async () => {
+    const four = await Engine.create({
+      shopId: s.shop.id, customerId: s.customer.id, description: "Test four", cylinders: 4, layout: "inline", mains: 5,
+      unitSystem: "in", nominalBore: 3.5, nominalStroke: 3.2, blockMaterial: "greyCastIron",
+    });
+    const job = await Job.create({ shopId: s.shop.id, customerId: s.customer.id, engineId: four.id, code: `F-${four.id}`, title: "Four", unitSystem: "in", status: "measuring" });
+    const ok = await push(s.users.machinist, [reading(job.id, "bore/1/top/A", 3.5002)]);
+    expect(ok.status).toBe(200); // 3.5 in is this engine's bore, far from the V8's 4.03
+    const res = await push(s.users.machinist, [reading(job.id, "bore/6/top/A", 3.5002)]);
+    expect(res.body.results[0].errors.stationId[0]).toMatch(/\(4 cylinders/);
+  });
+
   it("a job locked between batches refuses the next batch, with the reason", async () => {
     expect((await push(s.users.machinist, [reading(s.job.id, "bore/1/top/A", 4.0301)])).status).toBe(200);
     await Job.update({ status: "released", lockedAt: new Date("2026-12-01T10:00:00Z") }, { where: { id: s.job.id } });
