@@ -95,7 +95,8 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
     const { station } = view;
     const { draft } = store.get();
     if (pack.job.locked) return store.set({ error: pack.job.lockReason ?? "This job is released; readings are locked" });
-    const m = modeOf(station, pack, prefs, settingFor);
+    // The mode worked out for this render, unless a gauge's next reading arrived before the move painted.
+    const m = station.id === stationId ? mode : modeOf(station, pack, prefs, settingFor);
     if (m.needSetting) {
       const parsed = parseEntry(draft, "the setting size");
       if ("error" in parsed) return store.set({ error: parsed.error });
@@ -123,7 +124,7 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
     }
     const stayed = ev?.verdict === "out_of_spec" && known.count === 0;
     finish({ stationId: station.id, label: station.label, value: r.value, unit: r.unit, verdict: ev?.verdict, deviation: ev?.deviation, deviationUnit: ev?.unit, note, stayed }, saving, draft);
-  }, [views, stationId, pack, prefs, settingFor, db, raw, latest, finish, write, store]);
+  }, [views, stationId, mode, pack, prefs, settingFor, db, raw, latest, finish, write, store]);
 
   const skip = useCallback((reason: string) => {
     const view = views.find((v) => v.station.id === (pendingMove.current ?? stationId));

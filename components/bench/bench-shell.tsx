@@ -1,7 +1,7 @@
 "use client";
 
 import { useEffect, useState, type ReactNode } from "react";
-import { AppHeader } from "@/components/app-header";
+import { HeaderBar } from "@/components/header-bar";
 import { Notice } from "@/components/ui/notice";
 import { getBenchDb } from "@/lib/offline/db";
 import { ensureDeviceId, getMeta, setMeta, type DeviceActor } from "@/lib/offline/meta";
@@ -74,7 +74,7 @@ export function BenchShell({ children }: { children: ReactNode }) {
   if (state.kind === "ready") {
     return (
       <BenchProvider value={state.bench}>
-        <AppHeader actor={state.bench.actor} current="/bench" />
+        <HeaderBar actor={state.bench.actor} current="/bench" link="a" />
         <BenchBar />
         {children}
       </BenchProvider>

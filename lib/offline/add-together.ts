@@ -47,6 +47,9 @@ export function addTogether(db: Dexie, adds: Add[]): Promise<void> {
     tx.onabort = () => reject(tx.error ?? new Error("The tablet's storage did not save the reading"));
     try {
       for (const a of adds) tx.objectStore(a.table).add(a.row);
+      // Nothing else goes in: commit now rather than after the page has handled each add's
+      // success event, which waits behind the verdict's paint on a busy tablet.
+      tx.commit?.();
     } catch (err) {
       tx.onabort = null;
       tx.abort();
