@@ -1,6 +1,6 @@
 "use client";
 
-import { forwardRef, type KeyboardEvent, type ReactNode } from "react";
+import { forwardRef, useEffect, useImperativeHandle, useRef, type KeyboardEvent, type ReactNode } from "react";
 import { useEntryField, type EntryStore } from "@/hooks/use-entry-store";
 import { cleanTyped } from "@/lib/offline/entry";
 
@@ -19,8 +19,19 @@ interface Props {
 }
 
 export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryField({ store, onEnter, unit, label, hint, gauge, placeholder, disabled }, ref) {
-  const value = useEntryField(store, "draft");
   const error = useEntryField(store, "error");
+  const input = useRef<HTMLInputElement>(null);
+  useImperativeHandle(ref, () => input.current!, []);
+  // The text lives in the store and is written straight into the input (not re-rendered by
+  // React): a keystroke, a keypad tap or an Enter costs one DOM write, not a render.
+  useEffect(() => {
+    const show = () => {
+      const { draft } = store.get();
+      if (input.current && input.current.value !== draft) input.current.value = draft;
+    };
+    show();
+    return store.subscribe(show);
+  }, [store]);
   const onChange = (draft: string) => store.set({ draft, error: undefined });
   function onKeyDown(e: KeyboardEvent<HTMLInputElement>) {
     if (e.key === "Enter") {
@@ -37,8 +48,8 @@ export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryFiel
         <div className="flex items-baseline gap-3">
           <input
             id="tw-entry"
-            ref={ref}
-            value={value}
+            ref={input}
+            defaultValue=""
             onChange={(e) => onChange(cleanTyped(e.target.value))}
             onKeyDown={onKeyDown}
             inputMode="none"
