@@ -14,9 +14,10 @@ function partOf(stationId: string): string {
   return seg.slice(0, 2).join("/");
 }
 
-export function relevantDerived(all: DerivedValue[], stationId: string): DerivedValue[] {
+/** Which stations' derived values the panel shows for `stationId`: those of the same part. */
+export function onSamePart(stationId: string): (input: string) => boolean {
   const part = partOf(stationId);
-  return all.filter((d) => d.inputs.some((i) => partOf(i) === part));
+  return (input) => partOf(input) === part;
 }
 
 /** Where on the part a value applies ("front end · axis A"), without the part's name again. */

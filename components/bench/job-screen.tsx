@@ -11,7 +11,7 @@ import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { derivedFor } from "@/lib/offline/preview";
 import { nextOpenStation, OPEN_STATES, sectionProgress, stationViews, type StationView } from "@/lib/offline/route-status";
 import { useBench } from "./bench-context";
-import { DerivedPanel, relevantDerived } from "./derived-panel";
+import { DerivedPanel, onSamePart } from "./derived-panel";
 import { EntryPanel } from "./entry-panel";
 import { LastEntryCard } from "./last-entry";
 import { LubricantPicker } from "./lubricant-picker";
@@ -50,7 +50,6 @@ export const JobScreen = memo(function JobScreen({ pack, readings, prefs }: { pa
   const { db } = useBench();
   const views = useMemo(() => stationViews(pack, readings), [pack, readings]);
   const sections = useMemo(() => sectionProgress(pack, views), [pack, views]);
-  const derived = useMemo(() => derivedFor(pack, readings), [pack, readings]);
   const [stationId, setStationId] = useState(() => nextOpenStation(views) ?? views[0]?.station.id ?? "");
   const [sheet, setSheet] = useState<"route" | "skip" | null>(null);
   const inputRef = useRef<HTMLInputElement>(null);
@@ -83,7 +82,9 @@ export const JobScreen = memo(function JobScreen({ pack, readings, prefs }: { pa
     ? { jobId, ownerType: "reading" as const, ownerId: currentId }
     : { jobId, ownerType: "job" as const, ownerId: String(jobId) }), [jobId, currentId]);
   const gauges = useMemo(() => (view ? gaugesFor(view.station, pack.instruments) : []), [view, pack.instruments]);
-  const shownDerived = useMemo(() => (view ? relevantDerived(derived, view.station.id) : []), [derived, view]);
+  // Only the part on screen: the core works out nothing else after each entry.
+  const partStation = view?.station.id;
+  const shownDerived = useMemo(() => (partStation ? derivedFor(pack, readings, onSamePart(partStation)) : []), [pack, readings, partStation]);
 
   if (!view) return <Notice tone="error">This job has no stations on its route; ask the lead to check the engine&apos;s shape.</Notice>;
   const station = view.station;

@@ -252,14 +252,25 @@ function derive(recipe: Recipe, engine: EngineShape, spec: SpecLimit[], ok: Map<
   return { ...head, ...judged, unit: judged.unit as LengthUnit, ...(corrections.length ? { corrections } : {}), ...(note ? { note } : {}) };
 }
 
+export interface DeriveOptions {
+  /**
+   * Only the values with an input at a station this accepts (the part on the tablet's screen, the
+   * stations a sync upload touched): the same values as a full pass would give, without the rest.
+   */
+  touching?: (stationId: string) => boolean;
+}
+
 /**
  * Every value computed from the raw readings (one per recipe: taper and out-of-round per bore
  * and journal, piston-to-wall per cylinder, oil clearance per bearing point, stretch per bolt),
  * each with its resolved limits and verdict when the spec has a limit, and the inputs still missing.
  */
-export function deriveReadings(readings: RawReading[], engine: EngineShape, spec: SpecLimit[]): DerivedValue[] {
+export function deriveReadings(readings: RawReading[], engine: EngineShape, spec: SpecLimit[], options: DeriveOptions = {}): DerivedValue[] {
   checkEngineShape(engine);
   if (!Array.isArray(readings)) throw new Error("deriveReadings needs the job's readings as a list");
-  const { ok, bad } = prepareAll(readings, engine);
-  return recipes(engine).map((r) => derive(r, engine, spec, ok, bad));
+  const { touching } = options;
+  const wanted = touching ? recipes(engine).filter((r) => r.inputs.some(touching)) : recipes(engine);
+  const needed = touching ? new Set(wanted.flatMap((r) => r.inputs)) : undefined;
+  const { ok, bad } = prepareAll(needed ? readings.filter((r) => needed.has(r?.stationId)) : readings, engine);
+  return wanted.map((r) => derive(r, engine, spec, ok, bad));
 }

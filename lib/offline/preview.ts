@@ -83,9 +83,10 @@ export function previewReading(r: LocalReading, pack: JobPack, raw: RawReading[]
   }
 }
 
-export function derivedFor(pack: JobPack, readings: LocalReading[]): DerivedValue[] {
+/** Derived values of the job; with `touching`, only those fed by the stations it accepts (the core computes no others). */
+export function derivedFor(pack: JobPack, readings: LocalReading[], touching?: (stationId: string) => boolean): DerivedValue[] {
   try {
-    return deriveReadings(usableRaw(readings, pack.instruments), pack.shape, pack.spec);
+    return deriveReadings(usableRaw(readings, pack.instruments), pack.shape, pack.spec, touching ? { touching } : {});
   } catch {
     return [];
   }

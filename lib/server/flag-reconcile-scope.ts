@@ -15,9 +15,9 @@ import type { StoredReading } from "./readings-repo";
 // last reconciliation, and its flags were made to match then; reading it again would change
 // nothing (tests/integration/flag-reconcile-scope.test.ts checks a full pass after ingest is a no-op).
 
-export function derivedOf(raws: RawReading[], ctx: JobContext): DerivedValue[] {
+export function derivedOf(raws: RawReading[], ctx: JobContext, touching?: (stationId: string) => boolean): DerivedValue[] {
   try {
-    return deriveReadings(raws, ctx.shape, ctx.spec);
+    return deriveReadings(raws, ctx.shape, ctx.spec, touching ? { touching } : {});
   } catch {
     return []; // an engine shape the core refuses has no derived values to flag
   }
@@ -89,12 +89,10 @@ export function derivedScope(ctx: JobContext, current: StoredReading[], raws: Ra
   if (!fresh) return { derived: derivedOf(raws, ctx), inScope: (_key: string) => true };
   const freshStations = new Set(current.filter((r) => fresh.has(r.id)).map((r) => r.stationId));
   const affected = new Set<string>();
-  const needed = new Set<string>();
   for (const [key, inputs] of recipeInputs(ctx)) {
     if (!inputs.some((s) => freshStations.has(s))) continue;
     affected.add(key);
-    for (const s of inputs) needed.add(s);
   }
-  const derived = affected.size ? derivedOf(raws.filter((r) => needed.has(r.stationId)), ctx).filter((d) => affected.has(d.key)) : [];
+  const derived = affected.size ? derivedOf(raws, ctx, (s) => freshStations.has(s)).filter((d) => affected.has(d.key)) : [];
   return { derived, inScope: (key: string) => affected.has(key) };
 }

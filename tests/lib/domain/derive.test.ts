@@ -161,6 +161,18 @@ describe("missing and superseded inputs", () => {
     expect(new Set(all.map((d) => d.key)).size).toBe(110);
     expect(all.every((d) => d.missing.length === d.inputs.length && d.value === undefined)).toBe(true);
   });
+  it("with `touching`, gives exactly the values a full pass gives for those stations, and only them", () => {
+    // Invented figures (not reference values): every station of every derived value, so nothing is missing.
+    const stations = [...new Set(deriveReadings([], v8, []).flatMap((d) => d.inputs))];
+    const readings = stations.map((id, i) => at(id, id.startsWith("bolt/") ? 2 + (i % 3) * 0.0002 + (id.endsWith("loaded") ? 0.006 : 0) : 4.03 + (i % 7) * 0.0001));
+    const spec = [limit({ characteristic: "bore_taper", max: 0.0005 }), limit({ characteristic: "rod_bolt_stretch", limitType: "min_max", min: 0.005, max: 0.007 })];
+    const full = deriveReadings(readings, v8, spec);
+    for (const touching of [(s: string) => s.startsWith("bore/3/"), (s: string) => s === "bolt/2/1/loaded", (s: string) => s.startsWith("main-brg/4/")]) {
+      const some = deriveReadings(readings, v8, spec, { touching });
+      expect(some.length).toBeGreaterThan(0);
+      expect(some).toEqual(full.filter((d) => d.inputs.some(touching)));
+    }
+  });
   it("uses the latest reading of a station, by takenAt, whatever the list order", () => {
     const readings = [
       at("bolt/1/1/loaded", 2.0062, { takenAt: "2026-03-02T10:05:00Z" }),
