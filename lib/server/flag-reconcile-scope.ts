@@ -93,6 +93,7 @@ export function derivedScope(ctx: JobContext, current: StoredReading[], raws: Ra
     if (!inputs.some((s) => freshStations.has(s))) continue;
     affected.add(key);
   }
-  const derived = affected.size ? derivedOf(raws, ctx, (s) => freshStations.has(s)).filter((d) => affected.has(d.key)) : [];
+  // The core computes just the values a fresh station feeds: the same set as `affected`.
+  const derived = affected.size ? derivedOf(raws, ctx, (s) => freshStations.has(s)) : [];
   return { derived, inScope: (key: string) => affected.has(key) };
 }
