@@ -3,8 +3,18 @@ import localFont from "next/font/local";
 import { Providers } from "./providers";
 import "./globals.css";
 
-const sans = localFont({ src: "./fonts/inter-latin-wght.woff2", weight: "100 900", variable: "--font-sans", display: "swap" });
-const mono = localFont({ src: "./fonts/jetbrains-mono-latin-wght.woff2", weight: "100 800", variable: "--font-mono", display: "swap" });
+const sans = localFont({
+  src: "./fonts/inter-latin-wght.woff2",
+  weight: "100 900",
+  variable: "--font-sans",
+  display: "swap",
+});
+const mono = localFont({
+  src: "./fonts/jetbrains-mono-latin-wght.woff2",
+  weight: "100 800",
+  variable: "--font-mono",
+  display: "swap",
+});
 
 export const metadata: Metadata = {
   title: { default: "Tenthwise", template: "%s · Tenthwise" },

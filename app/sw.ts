@@ -33,11 +33,17 @@ const serwist = new Serwist({
     { matcher: ({ sameOrigin, url }) => sameOrigin && url.pathname.startsWith("/api/"), handler: new NetworkOnly() },
     {
       matcher: ({ sameOrigin, url }) => sameOrigin && url.pathname.startsWith("/_next/static/"),
-      handler: new CacheFirst({ cacheName: "tw-static", plugins: [new ExpirationPlugin({ maxEntries: 200, maxAgeSeconds: 30 * 24 * 3600 })] }),
+      handler: new CacheFirst({
+        cacheName: "tw-static",
+        plugins: [new ExpirationPlugin({ maxEntries: 200, maxAgeSeconds: 30 * 24 * 3600 })],
+      }),
     },
     {
       matcher: ({ sameOrigin, url }) => sameOrigin && /\.(?:png|svg|ico|webp|woff2)$/i.test(url.pathname),
-      handler: new StaleWhileRevalidate({ cacheName: "tw-assets", plugins: [new ExpirationPlugin({ maxEntries: 64 })] }),
+      handler: new StaleWhileRevalidate({
+        cacheName: "tw-assets",
+        plugins: [new ExpirationPlugin({ maxEntries: 64 })],
+      }),
     },
     { matcher: ({ request }) => request.mode === "navigate", handler: new NetworkOnly() },
   ],

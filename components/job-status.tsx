@@ -10,7 +10,10 @@ export const STATUS_WORDS: Record<JobStatus, string> = {
 
 export function JobStatusTag({ status }: { status: JobStatus }) {
   return (
-    <span className="inline-flex rounded-tool border-2 border-rule px-2 py-0.5 text-sm font-medium" data-status={status}>
+    <span
+      className="inline-flex rounded-tool border-2 border-rule px-2 py-0.5 text-sm font-medium"
+      data-status={status}
+    >
       {STATUS_WORDS[status]}
     </span>
   );

@@ -53,48 +53,67 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
   const raw = useMemo(() => usableRaw(readings, pack.instruments), [readings, pack.instruments]);
   const mode = modeOf(views.find((v) => v.station.id === stationId)?.station, pack, prefs, settingFor);
 
-  const latest = useCallback((v: StationView) => {
-    const saved = justSaved.current.get(v.station.id);
-    if (saved && !readings.some((r) => r.id === saved.id)) return { id: saved.id, count: saved.count, rejected: undefined };
-    const cur = v.current;
-    return { id: cur && cur.state !== "rejected" ? cur.id : undefined, count: v.count, rejected: cur?.state === "rejected" ? cur.id : undefined };
-  }, [readings]);
+  const latest = useCallback(
+    (v: StationView) => {
+      const saved = justSaved.current.get(v.station.id);
+      if (saved && !readings.some((r) => r.id === saved.id))
+        return { id: saved.id, count: saved.count, rejected: undefined };
+      const cur = v.current;
+      return {
+        id: cur && cur.state !== "rejected" ? cur.id : undefined,
+        count: v.count,
+        rejected: cur?.state === "rejected" ? cur.id : undefined,
+      };
+    },
+    [readings],
+  );
 
-  const write = useCallback((reading: NewReading, known: ReturnType<typeof latest>) => {
-    const w = known.rejected
-      ? resendReading(db, known.rejected, reading).then(() => known.rejected!)
-      : recordReading(db, reading, { deviceId, takenBy: actor.userId }).then((r) => r.id);
-    return w.then((id) => void justSaved.current.set(reading.stationId, { id, count: known.count + 1 }));
-  }, [db, deviceId, actor.userId]);
+  const write = useCallback(
+    (reading: NewReading, known: ReturnType<typeof latest>) => {
+      const w = known.rejected
+        ? resendReading(db, known.rejected, reading).then(() => known.rejected!)
+        : recordReading(db, reading, { deviceId, takenBy: actor.userId }).then((r) => r.id);
+      return w.then((id) => void justSaved.current.set(reading.stationId, { id, count: known.count + 1 }));
+    },
+    [db, deviceId, actor.userId],
+  );
 
-  const finish = useCallback((entry: Omit<LastEntry, "seq">, saving: Promise<unknown>, typed: string) => {
-    store.set({ last: { ...entry, seq: ++seq.current }, draft: "", error: undefined });
-    if (!entry.stayed) {
-      // Shown once the verdict has painted and the write has committed, so neither waits on it.
-      const next = nextOpenStation(views, entry.stationId) ?? entry.stationId;
-      pendingMove.current = next;
-      const painted = new Promise<void>((r) => afterPaint(r));
-      void Promise.all([painted, saving.catch(() => undefined)]).then(() => {
-        if (pendingMove.current !== next) return;
-        pendingMove.current = null;
-        startTransition(() => moveTo(next));
-      });
-    }
-    saving.then(
-      () => {
-        performance.mark("tw:reading-committed");
-        engine.afterEntry();
-      },
-      (err: unknown) => store.set({ draft: typed, error: `Not saved on this tablet (${err instanceof Error ? err.message : String(err)}); press Save again` }),
-    );
-  }, [engine, moveTo, views, store]);
+  const finish = useCallback(
+    (entry: Omit<LastEntry, "seq">, saving: Promise<unknown>, typed: string) => {
+      store.set({ last: { ...entry, seq: ++seq.current }, draft: "", error: undefined });
+      if (!entry.stayed) {
+        // Shown once the verdict has painted and the write has committed, so neither waits on it.
+        const next = nextOpenStation(views, entry.stationId) ?? entry.stationId;
+        pendingMove.current = next;
+        const painted = new Promise<void>((r) => afterPaint(r));
+        void Promise.all([painted, saving.catch(() => undefined)]).then(() => {
+          if (pendingMove.current !== next) return;
+          pendingMove.current = null;
+          startTransition(() => moveTo(next));
+        });
+      }
+      saving.then(
+        () => {
+          performance.mark("tw:reading-committed");
+          engine.afterEntry();
+        },
+        (err: unknown) =>
+          store.set({
+            draft: typed,
+            error: `Not saved on this tablet (${err instanceof Error ? err.message : String(err)}); press Save again`,
+          }),
+      );
+    },
+    [engine, moveTo, views, store],
+  );
 
   const save = useCallback(() => {
     const view = views.find((v) => v.station.id === (pendingMove.current ?? stationId));
     if (!view) return;
     const { station } = view;
     const { draft } = store.get();
-    if (pack.job.locked) return store.set({ error: pack.job.lockReason ?? "This job is released; readings are locked" });
+    if (pack.job.locked)
+      return store.set({ error: pack.job.lockReason ?? "This job is released; readings are locked" });
     // The mode worked out for this render, unless a gauge's next reading arrived before the move painted.
     const m = station.id === stationId ? mode : modeOf(station, pack, prefs, settingFor);
     if (m.needSetting) {
@@ -107,8 +126,12 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
     }
     const known = latest(view);
     const built = buildReading(draft, {
-      pack, station, instrument: m.instrument, dialSetting: m.dialOn ? prefs.dialSettings[m.group!] : undefined,
-      lubricant: prefs.lubricant as Lubricant | undefined, supersedes: known.id,
+      pack,
+      station,
+      instrument: m.instrument,
+      dialSetting: m.dialOn ? prefs.dialSettings[m.group!] : undefined,
+      lubricant: prefs.lubricant as Lubricant | undefined,
+      supersedes: known.id,
     });
     if ("error" in built) return store.set({ error: built.error });
     const r = built.reading;
@@ -117,23 +140,65 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
     let ev: ReturnType<typeof evaluateReading> | undefined;
     let note: string | undefined;
     try {
-      ev = evaluateReading({ stationId: r.stationId, value: r.value!, unit: r.unit, ...(U !== undefined ? { uncertainty: U } : {}) }, pack.shape, pack.spec, raw);
+      ev = evaluateReading(
+        { stationId: r.stationId, value: r.value!, unit: r.unit, ...(U !== undefined ? { uncertainty: U } : {}) },
+        pack.shape,
+        pack.spec,
+        raw,
+      );
       note = ev.verdict ? undefined : "No limit for this station on the job's spec; the figure is logged";
     } catch (err) {
       note = err instanceof Error ? err.message : String(err);
     }
     const stayed = ev?.verdict === "out_of_spec" && known.count === 0;
-    finish({ stationId: station.id, label: station.label, value: r.value, unit: r.unit, verdict: ev?.verdict, deviation: ev?.deviation, deviationUnit: ev?.unit, note, stayed }, saving, draft);
+    finish(
+      {
+        stationId: station.id,
+        label: station.label,
+        value: r.value,
+        unit: r.unit,
+        verdict: ev?.verdict,
+        deviation: ev?.deviation,
+        deviationUnit: ev?.unit,
+        note,
+        stayed,
+      },
+      saving,
+      draft,
+    );
   }, [views, stationId, mode, pack, prefs, settingFor, db, raw, latest, finish, write, store]);
 
-  const skip = useCallback((reason: string) => {
-    const view = views.find((v) => v.station.id === (pendingMove.current ?? stationId));
-    if (!view) return;
-    const { station } = view;
-    const known = latest(view);
-    const reading: NewReading = { jobId: pack.job.id, stationId: station.id, value: null, unit: station.unit, skipped: true, skipReason: reason, ...(known.id ? { supersedes: known.id } : {}) };
-    finish({ stationId: station.id, label: station.label, value: null, unit: station.unit, skipped: true, note: `Skipped: ${reason}`, stayed: false }, write(reading, known), "");
-  }, [views, stationId, pack.job.id, finish, write, latest]);
+  const skip = useCallback(
+    (reason: string) => {
+      const view = views.find((v) => v.station.id === (pendingMove.current ?? stationId));
+      if (!view) return;
+      const { station } = view;
+      const known = latest(view);
+      const reading: NewReading = {
+        jobId: pack.job.id,
+        stationId: station.id,
+        value: null,
+        unit: station.unit,
+        skipped: true,
+        skipReason: reason,
+        ...(known.id ? { supersedes: known.id } : {}),
+      };
+      finish(
+        {
+          stationId: station.id,
+          label: station.label,
+          value: null,
+          unit: station.unit,
+          skipped: true,
+          note: `Skipped: ${reason}`,
+          stayed: false,
+        },
+        write(reading, known),
+        "",
+      );
+    },
+    [views, stationId, pack.job.id, finish, write, latest],
+  );
 
   /** A jump by the machinist wins over a move still waiting for the paint. */
   const cancelMove = useCallback(() => void (pendingMove.current = null), []);

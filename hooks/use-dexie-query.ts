@@ -10,9 +10,26 @@ import type { BenchDb } from "@/lib/offline/db";
  * writer's commit event, so an entry learns its reading is safe before any screen re-reads.
  * A failing query keeps the last good value and is reported in `error`, never swallowed.
  */
-export function useDexieQuery<T>(db: BenchDb, tables: string[], query: () => Promise<T>, deps: DependencyList, initial: T): [T, Error | undefined];
-export function useDexieQuery<T>(db: BenchDb, tables: string[], query: () => Promise<T>, deps: DependencyList): [T | undefined, Error | undefined];
-export function useDexieQuery<T>(db: BenchDb, tables: string[], query: () => Promise<T>, deps: DependencyList, initial?: T) {
+export function useDexieQuery<T>(
+  db: BenchDb,
+  tables: string[],
+  query: () => Promise<T>,
+  deps: DependencyList,
+  initial: T,
+): [T, Error | undefined];
+export function useDexieQuery<T>(
+  db: BenchDb,
+  tables: string[],
+  query: () => Promise<T>,
+  deps: DependencyList,
+): [T | undefined, Error | undefined];
+export function useDexieQuery<T>(
+  db: BenchDb,
+  tables: string[],
+  query: () => Promise<T>,
+  deps: DependencyList,
+  initial?: T,
+) {
   const [state, setState] = useState<{ value: T | undefined; error?: Error }>({ value: initial });
   const latest = useRef(query);
   latest.current = query;
@@ -23,7 +40,8 @@ export function useDexieQuery<T>(db: BenchDb, tables: string[], query: () => Pro
     const run = () =>
       latest.current().then(
         (value) => alive && setState({ value }),
-        (err: unknown) => alive && setState((s) => ({ value: s.value, error: err instanceof Error ? err : new Error(String(err)) })),
+        (err: unknown) =>
+          alive && setState((s) => ({ value: s.value, error: err instanceof Error ? err : new Error(String(err)) })),
       );
     const prefixes = key.split(",").map((t) => `idb://${db.name}/${t}/`);
     const onMutated = (parts: Record<string, unknown>) => {

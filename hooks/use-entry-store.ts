@@ -51,5 +51,9 @@ export function createEntryStore(): EntryStore {
 
 /** One field of the entry state; the component re-renders only when that field changes. */
 export function useEntryField<K extends keyof EntryState>(store: EntryStore, key: K): EntryState[K] {
-  return useSyncExternalStore(store.subscribe, () => store.get()[key], () => store.get()[key]);
+  return useSyncExternalStore(
+    store.subscribe,
+    () => store.get()[key],
+    () => store.get()[key],
+  );
 }

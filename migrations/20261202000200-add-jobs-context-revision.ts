@@ -13,17 +13,36 @@ import type { MigrationParams } from "./column-helpers";
 
 const NEW_TOKEN = "UUID_SHORT()";
 const TRIGGERS: [name: string, sql: string][] = [
-  ["jobs_context_revision_insert", `BEFORE INSERT ON jobs FOR EACH ROW IF NEW.context_revision = 0 THEN SET NEW.context_revision = ${NEW_TOKEN}; END IF`],
+  [
+    "jobs_context_revision_insert",
+    `BEFORE INSERT ON jobs FOR EACH ROW IF NEW.context_revision = 0 THEN SET NEW.context_revision = ${NEW_TOKEN}; END IF`,
+  ],
   ["jobs_context_revision_update", `BEFORE UPDATE ON jobs FOR EACH ROW SET NEW.context_revision = ${NEW_TOKEN}`],
-  ["engines_context_revision_update", `AFTER UPDATE ON engines FOR EACH ROW UPDATE jobs SET context_revision = ${NEW_TOKEN} WHERE engine_id IN (OLD.id, NEW.id)`],
-  ["job_limits_context_revision_insert", `AFTER INSERT ON job_limits FOR EACH ROW UPDATE jobs SET context_revision = ${NEW_TOKEN} WHERE id = NEW.job_id`],
-  ["job_limits_context_revision_update", `AFTER UPDATE ON job_limits FOR EACH ROW UPDATE jobs SET context_revision = ${NEW_TOKEN} WHERE id IN (OLD.job_id, NEW.job_id)`],
-  ["job_limits_context_revision_delete", `AFTER DELETE ON job_limits FOR EACH ROW UPDATE jobs SET context_revision = ${NEW_TOKEN} WHERE id = OLD.job_id`],
+  [
+    "engines_context_revision_update",
+    `AFTER UPDATE ON engines FOR EACH ROW UPDATE jobs SET context_revision = ${NEW_TOKEN} WHERE engine_id IN (OLD.id, NEW.id)`,
+  ],
+  [
+    "job_limits_context_revision_insert",
+    `AFTER INSERT ON job_limits FOR EACH ROW UPDATE jobs SET context_revision = ${NEW_TOKEN} WHERE id = NEW.job_id`,
+  ],
+  [
+    "job_limits_context_revision_update",
+    `AFTER UPDATE ON job_limits FOR EACH ROW UPDATE jobs SET context_revision = ${NEW_TOKEN} WHERE id IN (OLD.job_id, NEW.job_id)`,
+  ],
+  [
+    "job_limits_context_revision_delete",
+    `AFTER DELETE ON job_limits FOR EACH ROW UPDATE jobs SET context_revision = ${NEW_TOKEN} WHERE id = OLD.job_id`,
+  ],
 ];
 export const CONTEXT_TRIGGERS = TRIGGERS.map(([name]) => name);
 
 export async function up({ context: qi }: MigrationParams): Promise<void> {
-  await qi.addColumn("jobs", "context_revision", { type: DataTypes.BIGINT.UNSIGNED, allowNull: false, defaultValue: 0 });
+  await qi.addColumn("jobs", "context_revision", {
+    type: DataTypes.BIGINT.UNSIGNED,
+    allowNull: false,
+    defaultValue: 0,
+  });
   await qi.sequelize.query(`UPDATE jobs SET context_revision = ${NEW_TOKEN}`);
   for (const [name, sql] of TRIGGERS) await qi.sequelize.query(`CREATE TRIGGER ${name} ${sql}`);
 }

@@ -42,7 +42,22 @@ export const migrations: Migration[] = [
 
 /** Every table the migrations create, for tests and tooling that check the schema. */
 export const MIGRATED_TABLES = [
-  "shops", "users", "auth_throttle", "customers", "engines", "attachments", "spec_templates",
-  "spec_limits", "jobs", "job_limits", "instruments", "readings", "flags", "flag_dispositions",
-  "releases", "audit_events", "sync_changes", "mail_outbox",
+  "shops",
+  "users",
+  "auth_throttle",
+  "customers",
+  "engines",
+  "attachments",
+  "spec_templates",
+  "spec_limits",
+  "jobs",
+  "job_limits",
+  "instruments",
+  "readings",
+  "flags",
+  "flag_dispositions",
+  "releases",
+  "audit_events",
+  "sync_changes",
+  "mail_outbox",
 ] as const;

@@ -24,8 +24,19 @@ const off = { constraints: false } as const;
 
 function associateShop(): void {
   const children: ModelStatic<Model>[] = [
-    User, Customer, Engine, SpecTemplate, Job, Instrument, Attachment, AuditEvent, Reading, Flag,
-    Release, SyncChange, MailOutbox,
+    User,
+    Customer,
+    Engine,
+    SpecTemplate,
+    Job,
+    Instrument,
+    Attachment,
+    AuditEvent,
+    Reading,
+    Flag,
+    Release,
+    SyncChange,
+    MailOutbox,
   ];
   for (const child of children) child.belongsTo(Shop, { ...off, as: "shop", foreignKey: "shopId" });
   Shop.hasMany(User, { ...off, as: "users", foreignKey: "shopId" });

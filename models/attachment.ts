@@ -1,6 +1,11 @@
 import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes,
-  type NonAttribute, type Sequelize,
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
 } from "sequelize";
 import { datetime, enumOf, modelOptions, ref, str, uuidId } from "./columns";
 import { ATTACHMENT_OWNER_TYPES, type AttachmentOwnerType } from "./enums";

@@ -1,5 +1,9 @@
 import {
-  Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from "sequelize";
 import { bigId, datetime, json, modelOptions, ref, str } from "./columns";

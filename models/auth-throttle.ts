@@ -1,5 +1,9 @@
 import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes,
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
   type Sequelize,
 } from "sequelize";
 import { datetime, int, modelOptions } from "./columns";

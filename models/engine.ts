@@ -1,6 +1,11 @@
 import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes,
-  type NonAttribute, type Sequelize,
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
 } from "sequelize";
 import { decimal, enumOf, intId, modelOptions, ref, stamps, str } from "./columns";
 import { ENGINE_LAYOUTS, FUELS, UNIT_SYSTEMS, type EngineLayout, type Fuel, type UnitSystem } from "./enums";

@@ -1,5 +1,9 @@
 import {
-  Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from "sequelize";
 import { datetime, enumOf, intId, modelOptions, ref, str, text } from "./columns";
@@ -8,10 +12,7 @@ import type { Flag } from "./flag";
 import type { User } from "./user";
 
 /** One decision about a flag, with who, when and why. History: rows are only ever added. */
-export class FlagDisposition extends Model<
-  InferAttributes<FlagDisposition>,
-  InferCreationAttributes<FlagDisposition>
-> {
+export class FlagDisposition extends Model<InferAttributes<FlagDisposition>, InferCreationAttributes<FlagDisposition>> {
   declare id: CreationOptional<number>;
   declare flagId: number;
   declare disposition: Disposition;

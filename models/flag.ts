@@ -1,11 +1,22 @@
 import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes,
-  type NonAttribute, type Sequelize,
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
 } from "sequelize";
 import { datetime, decimal, enumOf, intId, modelOptions, ref, stamps, str, text } from "./columns";
 import {
-  DISPOSITIONS, FLAG_REASONS, FLAG_STATES, VERDICTS,
-  type Disposition, type FlagReason, type FlagState, type Verdict,
+  DISPOSITIONS,
+  FLAG_REASONS,
+  FLAG_STATES,
+  VERDICTS,
+  type Disposition,
+  type FlagReason,
+  type FlagState,
+  type Verdict,
 } from "./enums";
 import type { FlagDisposition } from "./flag-disposition";
 import type { Job } from "./job";

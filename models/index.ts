@@ -35,16 +35,47 @@ import { SyncChange, initSyncChange } from "./sync-change";
 import { User, initUser } from "./user";
 
 export {
-  Attachment, AuditEvent, AuthThrottle, Customer, Engine, Flag, FlagDisposition, Instrument, Job,
-  JobLimit, MailOutbox, Reading, Release, Shop, SpecLimit, SpecTemplate, SyncChange, User,
+  Attachment,
+  AuditEvent,
+  AuthThrottle,
+  Customer,
+  Engine,
+  Flag,
+  FlagDisposition,
+  Instrument,
+  Job,
+  JobLimit,
+  MailOutbox,
+  Reading,
+  Release,
+  Shop,
+  SpecLimit,
+  SpecTemplate,
+  SyncChange,
+  User,
 };
 export { decimalToNumber } from "./columns";
 export * from "./enums";
 
 const INITIALISERS = [
-  initShop, initUser, initAuthThrottle, initCustomer, initEngine, initAttachment, initSpecTemplate,
-  initSpecLimit, initJob, initJobLimit, initInstrument, initReading, initFlag, initFlagDisposition,
-  initRelease, initAuditEvent, initSyncChange, initMailOutbox,
+  initShop,
+  initUser,
+  initAuthThrottle,
+  initCustomer,
+  initEngine,
+  initAttachment,
+  initSpecTemplate,
+  initSpecLimit,
+  initJob,
+  initJobLimit,
+  initInstrument,
+  initReading,
+  initFlag,
+  initFlagDisposition,
+  initRelease,
+  initAuditEvent,
+  initSyncChange,
+  initMailOutbox,
 ];
 
 let boundTo: Sequelize | null = null;

@@ -1,6 +1,11 @@
 import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes,
-  type NonAttribute, type Sequelize,
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
 } from "sequelize";
 import { bool, dateOnly, decimal, intId, modelOptions, ref, stamps, str } from "./columns";
 import type { Attachment } from "./attachment";

@@ -1,5 +1,9 @@
 import {
-  Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
 } from "sequelize";
 import { datetime, int, intId, json, modelOptions, ref, stamps, str, text } from "./columns";
 import type { JsonObject } from "./enums";

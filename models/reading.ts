@@ -1,6 +1,11 @@
 import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes,
-  type NonAttribute, type Sequelize,
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
 } from "sequelize";
 import { bool, datetime, decimal, enumOf, modelOptions, ref, stamps, str, uuidId } from "./columns";
 import { ENTRY_MODES, VERDICTS, type EntryMode, type Verdict } from "./enums";
@@ -95,4 +100,3 @@ export function initReading(sequelize: Sequelize): void {
     modelOptions(sequelize, "readings", "both"),
   );
 }
-

@@ -1,6 +1,11 @@
 import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes,
-  type NonAttribute, type Sequelize,
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
 } from "sequelize";
 import { datetime, int, intId, json, modelOptions, ref, stamps, str, text } from "./columns";
 import type { JsonValue } from "./enums";

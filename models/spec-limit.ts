@@ -1,5 +1,9 @@
 import {
-  Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from "sequelize";
 import { intId, modelOptions, ref, stamps } from "./columns";

@@ -1,5 +1,9 @@
 import {
-  Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
 } from "sequelize";
 import { bigId, datetime, enumOf, modelOptions, ref, str } from "./columns";
 import { SYNC_ENTITIES, type SyncEntity } from "./enums";

@@ -46,7 +46,10 @@ async function main() {
     [iconSvg(), "apple-touch-icon.png", 180],
   ];
   for (const [svg, name, size] of jobs) {
-    await sharp(Buffer.from(svg), { density: (72 * size) / 40 }).resize(size, size).png({ compressionLevel: 9 }).toFile(`${OUT}/${name}`);
+    await sharp(Buffer.from(svg), { density: (72 * size) / 40 })
+      .resize(size, size)
+      .png({ compressionLevel: 9 })
+      .toFile(`${OUT}/${name}`);
     console.log(`${OUT}/${name} ${size}×${size}`);
   }
 }

@@ -18,8 +18,12 @@ async function main() {
   const { ensureBuild } = await import("./lib/build.mjs");
   const secrets = localSecrets();
   const services = await startServices({
-    mode: "start", dataRoot: ".data", dbPort: DB_PORT, smtpPort: Number(process.env.TW_SMTP_PORT ?? 2525),
-    s3Port: Number(process.env.TW_S3_PORT ?? 4569), secrets,
+    mode: "start",
+    dataRoot: ".data",
+    dbPort: DB_PORT,
+    smtpPort: Number(process.env.TW_SMTP_PORT ?? 2525),
+    s3Port: Number(process.env.TW_S3_PORT ?? 4569),
+    secrets,
   });
   let server;
   let stopping = null;
@@ -30,7 +34,10 @@ async function main() {
       console.log("\n[tenthwise] stopping …");
       if (server && server.exitCode === null && server.signalCode === null) {
         server.kill("SIGTERM");
-        await new Promise((r) => { server.once("exit", r); setTimeout(r, 8000); });
+        await new Promise((r) => {
+          server.once("exit", r);
+          setTimeout(r, 8000);
+        });
       }
       await services.stop();
       process.exit(code);
@@ -42,17 +49,31 @@ async function main() {
 
   try {
     const appEnv = {
-      ...process.env, ...services.env, NEXT_TELEMETRY_DISABLED: "1", NODE_ENV: "production",
+      ...process.env,
+      ...services.env,
+      NEXT_TELEMETRY_DISABLED: "1",
+      NODE_ENV: "production",
       SESSION_SECRET: process.env.SESSION_SECRET ?? secrets.SESSION_SECRET,
       LINK_SECRET: process.env.LINK_SECRET ?? secrets.LINK_SECRET,
       APP_URL: process.env.APP_URL ?? `http://localhost:${PORT}`,
     };
-    execFileSync("node", ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts", "--seed"], { stdio: "inherit", env: appEnv });
+    execFileSync(
+      "node",
+      ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts", "--seed"],
+      { stdio: "inherit", env: appEnv },
+    );
     ensureBuild();
-    server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(PORT), "-H", "0.0.0.0"], { stdio: "inherit", env: appEnv });
-    server.on("exit", (code) => { if (!stopping) shutdown(code ?? 1); });
+    server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(PORT), "-H", "0.0.0.0"], {
+      stdio: "inherit",
+      env: appEnv,
+    });
+    server.on("exit", (code) => {
+      if (!stopping) shutdown(code ?? 1);
+    });
     const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8"));
-    console.log(`\n  Tenthwise is at http://localhost:${PORT}\n\n  Demo sign-ins (demo only), password "${demo.password}":`);
+    console.log(
+      `\n  Tenthwise is at http://localhost:${PORT}\n\n  Demo sign-ins (demo only), password "${demo.password}":`,
+    );
     for (const a of demo.accounts) console.log(`    ${a.role.padEnd(10)} ${a.email}`);
     console.log("\n  Ctrl-C stops the app, MariaDB and the local fakes.\n");
   } catch (err) {
@@ -61,4 +82,7 @@ async function main() {
   }
 }
 
-main().catch((err) => { console.error(`[tenthwise] ${err.message}`); process.exit(1); });
+main().catch((err) => {
+  console.error(`[tenthwise] ${err.message}`);
+  process.exit(1);
+});

@@ -14,7 +14,12 @@ const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 async function waitForHttp(url, timeoutMs = 60_000) {
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
-    try { const r = await fetch(url); if (r.status < 500) return; } catch { /* not up yet */ }
+    try {
+      const r = await fetch(url);
+      if (r.status < 500) return;
+    } catch {
+      /* not up yet */
+    }
     await sleep(250);
   }
   throw new Error(`The app did not answer at ${url}`);
@@ -26,22 +31,33 @@ async function main() {
   const { startServices } = await import("./lib/services.mjs");
   const { ensureBuild } = await import("./lib/build.mjs");
   const dataRoot = mkdtempSync(join(tmpdir(), "tenthwise-test-"));
-  const secrets = { SESSION_SECRET: randomBytes(32).toString("hex"), LINK_SECRET: randomBytes(32).toString("hex"), DB_APP_PASSWORD: randomBytes(12).toString("hex") };
+  const secrets = {
+    SESSION_SECRET: randomBytes(32).toString("hex"),
+    LINK_SECRET: randomBytes(32).toString("hex"),
+    DB_APP_PASSWORD: randomBytes(12).toString("hex"),
+  };
   const [dbPort, smtpPort, s3Port, appPort] = [await freePort(), await freePort(), await freePort(), await freePort()];
   const services = await startServices({ mode: "test", dataRoot, dbPort, smtpPort, s3Port, secrets });
   let server;
   let vitest;
   let cleaning = null;
-  const cleanup = () => (cleaning ??= (async () => {
-    if (vitest && vitest.exitCode === null) vitest.kill("SIGTERM");
-    if (server && server.exitCode === null) {
-      server.kill("SIGTERM");
-      await new Promise((r) => { server.once("exit", r); setTimeout(r, 5000); });
-    }
-    await services.stop();
-    rmSync(dataRoot, { recursive: true, force: true });
-  })());
-  const onSignal = async () => { await cleanup(); process.exit(130); };
+  const cleanup = () =>
+    (cleaning ??= (async () => {
+      if (vitest && vitest.exitCode === null) vitest.kill("SIGTERM");
+      if (server && server.exitCode === null) {
+        server.kill("SIGTERM");
+        await new Promise((r) => {
+          server.once("exit", r);
+          setTimeout(r, 5000);
+        });
+      }
+      await services.stop();
+      rmSync(dataRoot, { recursive: true, force: true });
+    })());
+  const onSignal = async () => {
+    await cleanup();
+    process.exit(130);
+  };
   process.on("SIGINT", onSignal);
   process.on("SIGTERM", onSignal);
 
@@ -49,22 +65,36 @@ async function main() {
   try {
     const baseUrl = `http://127.0.0.1:${appPort}`;
     const env = {
-      ...process.env, ...services.env, NEXT_TELEMETRY_DISABLED: "1",
-      SESSION_SECRET: secrets.SESSION_SECRET, LINK_SECRET: secrets.LINK_SECRET, APP_URL: baseUrl,
-      TW_BASE_URL: baseUrl, TW_TEST_DATA_ROOT: dataRoot, TW_DB_PORT: String(dbPort),
+      ...process.env,
+      ...services.env,
+      NEXT_TELEMETRY_DISABLED: "1",
+      SESSION_SECRET: secrets.SESSION_SECRET,
+      LINK_SECRET: secrets.LINK_SECRET,
+      APP_URL: baseUrl,
+      TW_BASE_URL: baseUrl,
+      TW_TEST_DATA_ROOT: dataRoot,
+      TW_DB_PORT: String(dbPort),
     };
-    execFileSync("node", ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts", "--seed"], { stdio: "inherit", env });
+    execFileSync(
+      "node",
+      ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts", "--seed"],
+      { stdio: "inherit", env },
+    );
     // Only browser tests need the built app; a run of named unit/integration files skips it.
     const args = process.argv.slice(2);
     const needsApp = args.length === 0 || args.some((a) => a.includes("browser"));
     if (needsApp) {
       const distDir = ensureBuild({ perVersion: true });
       server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(appPort), "-H", "127.0.0.1"], {
-        stdio: ["ignore", "ignore", "inherit"], env: { ...env, NODE_ENV: "production", TW_DIST_DIR: distDir },
+        stdio: ["ignore", "ignore", "inherit"],
+        env: { ...env, NODE_ENV: "production", TW_DIST_DIR: distDir },
       });
       await waitForHttp(`${baseUrl}/sign-in`);
     }
-    vitest = spawn("node", ["node_modules/vitest/vitest.mjs", "run", ...process.argv.slice(2)], { stdio: "inherit", env: { ...env, NODE_ENV: "test" } });
+    vitest = spawn("node", ["node_modules/vitest/vitest.mjs", "run", ...process.argv.slice(2)], {
+      stdio: "inherit",
+      env: { ...env, NODE_ENV: "test" },
+    });
     code = await new Promise((r) => vitest.on("exit", (c) => r(c ?? 1)));
     if (process.argv.length <= 2) {
       // A full run also type-checks the whole tree (the build skips it; see next.config.mjs).
@@ -80,4 +110,7 @@ async function main() {
   process.exit(code);
 }
 
-main().catch((err) => { console.error(err); process.exit(1); });
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});

@@ -13,8 +13,11 @@ export async function GET() {
   const body = await readFile(file, "utf8").catch(() => null);
   if (body === null) {
     return new Response("// This build has no service worker: run `serwist build` after `next build`.\n", {
-      status: 404, headers: { "Content-Type": "text/javascript; charset=utf-8", "Cache-Control": "no-store" },
+      status: 404,
+      headers: { "Content-Type": "text/javascript; charset=utf-8", "Cache-Control": "no-store" },
     });
   }
-  return new Response(body, { headers: { "Content-Type": "text/javascript; charset=utf-8", "Cache-Control": "no-cache" } });
+  return new Response(body, {
+    headers: { "Content-Type": "text/javascript; charset=utf-8", "Cache-Control": "no-cache" },
+  });
 }

@@ -16,7 +16,14 @@ function Shape({ tone }: { tone: StatusTone }) {
       {tone === "good" && (
         <>
           <circle cx="8" cy="8" r="7" fill="currentColor" />
-          <path d="M4.5 8.3 7 10.8 11.6 5.6" fill="none" stroke="white" strokeWidth="2" strokeLinecap="round" strokeLinejoin="round" />
+          <path
+            d="M4.5 8.3 7 10.8 11.6 5.6"
+            fill="none"
+            stroke="white"
+            strokeWidth="2"
+            strokeLinecap="round"
+            strokeLinejoin="round"
+          />
         </>
       )}
       {tone === "soon" && <path d="M8 1 15 14H1Z" fill="currentColor" />}
@@ -38,7 +45,10 @@ function Shape({ tone }: { tone: StatusTone }) {
 
 export function StatusTag({ tone, children }: { tone: StatusTone; children: ReactNode }) {
   return (
-    <span className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border-2 px-2.5 py-0.5 text-sm font-semibold ${TONE[tone]}`} data-tone={tone}>
+    <span
+      className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border-2 px-2.5 py-0.5 text-sm font-semibold ${TONE[tone]}`}
+      data-tone={tone}
+    >
       <Shape tone={tone} />
       {children}
     </span>

@@ -33,7 +33,14 @@ function Table({ data }: { data: AuditPage }) {
     <div className="overflow-x-auto rounded-tool border-2 border-rule bg-panel">
       <table className="w-full text-left text-sm">
         <thead className="border-b-2 border-rule text-muted">
-          <tr><th className="p-2">When (UTC)</th><th className="p-2">Who</th><th className="p-2">Action</th><th className="p-2">Record</th><th className="p-2">Job</th><th className="p-2">Before → after</th></tr>
+          <tr>
+            <th className="p-2">When (UTC)</th>
+            <th className="p-2">Who</th>
+            <th className="p-2">Action</th>
+            <th className="p-2">Record</th>
+            <th className="p-2">Job</th>
+            <th className="p-2">Before → after</th>
+          </tr>
         </thead>
         <tbody>
           {data.events.map((e) => (
@@ -41,9 +48,24 @@ function Table({ data }: { data: AuditPage }) {
               <td className="tabular whitespace-nowrap p-2 font-mono text-xs">{stamp(e.at)}</td>
               <td className="whitespace-nowrap p-2">{e.userName ?? <span className="text-muted">System</span>}</td>
               <td className="p-2 font-mono text-xs font-semibold">{e.action}</td>
-              <td className="whitespace-nowrap p-2">{e.entityType} <span className="font-mono text-xs text-muted">{e.entityId.length > 12 ? `${e.entityId.slice(0, 8)}…` : `#${e.entityId}`}</span></td>
-              <td className="whitespace-nowrap p-2">{e.jobId ? <Link className="font-mono text-steel underline" href={`/release/${e.jobId}`}>{e.jobCode}</Link> : <span className="text-muted">—</span>}</td>
-              <td className="min-w-72 p-2"><AuditChanges changes={e.changes} truncated={e.truncated} /></td>
+              <td className="whitespace-nowrap p-2">
+                {e.entityType}{" "}
+                <span className="font-mono text-xs text-muted">
+                  {e.entityId.length > 12 ? `${e.entityId.slice(0, 8)}…` : `#${e.entityId}`}
+                </span>
+              </td>
+              <td className="whitespace-nowrap p-2">
+                {e.jobId ? (
+                  <Link className="font-mono text-steel underline" href={`/release/${e.jobId}`}>
+                    {e.jobCode}
+                  </Link>
+                ) : (
+                  <span className="text-muted">—</span>
+                )}
+              </td>
+              <td className="min-w-72 p-2">
+                <AuditChanges changes={e.changes} truncated={e.truncated} />
+              </td>
             </tr>
           ))}
         </tbody>
@@ -54,27 +76,48 @@ function Table({ data }: { data: AuditPage }) {
 
 export function AuditBrowser() {
   const { filters, page, go } = useFilters();
-  const query = new URLSearchParams({ ...Object.fromEntries(Object.entries(filters).filter(([, v]) => v)), page: String(page), pageSize: String(PAGE_SIZE) });
+  const query = new URLSearchParams({
+    ...Object.fromEntries(Object.entries(filters).filter(([, v]) => v)),
+    page: String(page),
+    pageSize: String(PAGE_SIZE),
+  });
   const facets = useQuery({ queryKey: ["audit-facets"], queryFn: () => api<AuditFacets>("/api/audit/facets") });
-  const events = useQuery({ queryKey: ["audit", query.toString()], queryFn: () => api<AuditPage>(`/api/audit?${query}`), placeholderData: keepPreviousData });
+  const events = useQuery({
+    queryKey: ["audit", query.toString()],
+    queryFn: () => api<AuditPage>(`/api/audit?${query}`),
+    placeholderData: keepPreviousData,
+  });
   const fieldErrors = events.error instanceof ApiError ? events.error.fields : undefined;
   return (
     <div className="flex flex-col gap-4">
       <AuditFilters facets={facets.data} value={filters} onChange={(f) => go(f, 1)} error={fieldErrors} />
-      {events.isPending ? <Loading what="the audit trail" />
-        : events.isError ? <LoadFailed what="the audit trail" error={events.error} retry={() => events.refetch()} />
-        : events.data.total === 0 ? <Empty>No event matches these filters.</Empty>
-        : (
-          <>
-            <Table data={events.data} />
-            <nav aria-label="Pages" className="flex flex-wrap items-center gap-3">
-              <Button tone="quiet" disabled={page <= 1} onClick={() => go(filters, page - 1)}>← Newer</Button>
-              <span className="text-sm" data-testid="audit-pages">Page {events.data.page} of {events.data.pages} · {events.data.total} events</span>
-              <Button tone="quiet" disabled={page >= events.data.pages} onClick={() => go(filters, page + 1)}>Older →</Button>
-              {events.isFetching && <span className="text-sm text-muted" role="status">Updating…</span>}
-            </nav>
-          </>
-        )}
+      {events.isPending ? (
+        <Loading what="the audit trail" />
+      ) : events.isError ? (
+        <LoadFailed what="the audit trail" error={events.error} retry={() => events.refetch()} />
+      ) : events.data.total === 0 ? (
+        <Empty>No event matches these filters.</Empty>
+      ) : (
+        <>
+          <Table data={events.data} />
+          <nav aria-label="Pages" className="flex flex-wrap items-center gap-3">
+            <Button tone="quiet" disabled={page <= 1} onClick={() => go(filters, page - 1)}>
+              ← Newer
+            </Button>
+            <span className="text-sm" data-testid="audit-pages">
+              Page {events.data.page} of {events.data.pages} · {events.data.total} events
+            </span>
+            <Button tone="quiet" disabled={page >= events.data.pages} onClick={() => go(filters, page + 1)}>
+              Older →
+            </Button>
+            {events.isFetching && (
+              <span className="text-sm text-muted" role="status">
+                Updating…
+              </span>
+            )}
+          </nav>
+        </>
+      )}
     </div>
   );
 }

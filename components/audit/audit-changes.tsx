@@ -8,11 +8,22 @@ export function AuditChanges({ changes, truncated }: { changes: AuditChange[]; t
       {changes.map((c) => (
         <li key={c.path} className="break-words" data-kind={c.kind}>
           <span className="font-mono text-xs text-muted">{c.path}</span>{" "}
-          {c.kind === "added" && <span><span className="sr-only">set to </span><span className="font-medium">{c.after}</span></span>}
-          {c.kind === "removed" && <span><span className="sr-only">removed, was </span><del className="text-muted">{c.before}</del></span>}
+          {c.kind === "added" && (
+            <span>
+              <span className="sr-only">set to </span>
+              <span className="font-medium">{c.after}</span>
+            </span>
+          )}
+          {c.kind === "removed" && (
+            <span>
+              <span className="sr-only">removed, was </span>
+              <del className="text-muted">{c.before}</del>
+            </span>
+          )}
           {c.kind === "changed" && (
             <span>
-              <del className="text-muted">{c.before}</del> <span aria-label="changed to">→</span> <ins className="font-medium no-underline">{c.after}</ins>
+              <del className="text-muted">{c.before}</del> <span aria-label="changed to">→</span>{" "}
+              <ins className="font-medium no-underline">{c.after}</ins>
             </span>
           )}
         </li>

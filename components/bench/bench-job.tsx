@@ -35,15 +35,25 @@ export function BenchJob() {
     // A job already on the tablet shows from its store first; the refresh (and its code) follows
     // once the screen has settled. A job not on the tablet yet is fetched at once.
     let started = false;
-    const refresh = () => (started = true) && Promise.all([import("@/lib/offline/transport"), import("@/lib/offline/packs")])
-      .then(([{ getJson }, { savePack }]) => getJson<JobPack>(fetch, `/api/bench/jobs/${id}`).then((pack) => savePack(db, pack)))
-      .then(() => !stop && setFetchError(undefined))
-      .catch(async (err: unknown) => {
-        const { ActionError } = await import("@/lib/offline/transport");
-        if (stop) return;
-        const gone = err instanceof ActionError && err.status === 404;
-        setFetchError(gone ? "This job is not on the server for your shop any more" : err instanceof ActionError ? err.message : "offline");
-      });
+    const refresh = () =>
+      (started = true) &&
+      Promise.all([import("@/lib/offline/transport"), import("@/lib/offline/packs")])
+        .then(([{ getJson }, { savePack }]) =>
+          getJson<JobPack>(fetch, `/api/bench/jobs/${id}`).then((pack) => savePack(db, pack)),
+        )
+        .then(() => !stop && setFetchError(undefined))
+        .catch(async (err: unknown) => {
+          const { ActionError } = await import("@/lib/offline/transport");
+          if (stop) return;
+          const gone = err instanceof ActionError && err.status === 404;
+          setFetchError(
+            gone
+              ? "This job is not on the server for your shop any more"
+              : err instanceof ActionError
+                ? err.message
+                : "offline",
+          );
+        });
     if (onTablet) cancel = whenSettled(() => void refresh());
     else void refresh();
     return () => {
@@ -54,25 +64,48 @@ export function BenchJob() {
   }, [db, id, loaded, onTablet]);
 
   if (!Number.isInteger(id) || id <= 0) {
-    return <main className="mx-auto max-w-3xl px-4 py-8"><Notice tone="error">No job was picked. Go back to the <a className="underline" href="/bench">job list</a> and open one.</Notice></main>;
+    return (
+      <main className="mx-auto max-w-3xl px-4 py-8">
+        <Notice tone="error">
+          No job was picked. Go back to the{" "}
+          <a className="underline" href="/bench">
+            job list
+          </a>{" "}
+          and open one.
+        </Notice>
+      </main>
+    );
   }
   if (storeError && (row === undefined || readings === undefined)) {
-    return <main className="mx-auto max-w-3xl px-4 py-8"><Notice tone="error" title="The tablet's storage could not be read">{storeError.message}. Reload the page; nothing saved is lost.</Notice></main>;
+    return (
+      <main className="mx-auto max-w-3xl px-4 py-8">
+        <Notice tone="error" title="The tablet's storage could not be read">
+          {storeError.message}. Reload the page; nothing saved is lost.
+        </Notice>
+      </main>
+    );
   }
-  if (row === undefined || readings === undefined || prefs === undefined) return <main className="px-4 py-8 text-lg text-muted">Opening the job…</main>;
+  if (row === undefined || readings === undefined || prefs === undefined)
+    return <main className="px-4 py-8 text-lg text-muted">Opening the job…</main>;
   if (row === null) {
     return (
       <main className="mx-auto max-w-3xl px-4 py-8">
         <Notice tone="error" title="This job is not on the tablet yet">
           {fetchError && fetchError !== "offline" ? `${fetchError}. ` : "Connect to the network once to download it. "}
-          <a className="font-semibold underline" href="/bench">Back to the job list</a>
+          <a className="font-semibold underline" href="/bench">
+            Back to the job list
+          </a>
         </Notice>
       </main>
     );
   }
   return (
     <>
-      {fetchError && fetchError !== "offline" && <div className="mx-auto max-w-7xl px-4 pt-3"><Notice tone="error">{fetchError}</Notice></div>}
+      {fetchError && fetchError !== "offline" && (
+        <div className="mx-auto max-w-7xl px-4 pt-3">
+          <Notice tone="error">{fetchError}</Notice>
+        </div>
+      )}
       <JobScreen key={row.jobId} pack={row.pack} readings={readings} prefs={prefs} />
     </>
   );

@@ -14,7 +14,8 @@ import { BenchBar } from "./bench-bar";
 // Who is measuring comes from /api/me when the server answers, else from the last answer kept
 // on the tablet: offline, the machinist is never bounced to the sign-in page. Data is still
 // only ever served by signed-in API routes.
-type Boot = { kind: "loading" } | { kind: "ready"; bench: Bench } | { kind: "unknown" } | { kind: "failed"; message: string };
+type Boot =
+  { kind: "loading" } | { kind: "ready"; bench: Bench } | { kind: "unknown" } | { kind: "failed"; message: string };
 
 const BENCH_ROLES = ["machinist", "lead"];
 
@@ -25,8 +26,17 @@ async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> 
     const res = await fetch("/api/me", { cache: "no-store", credentials: "same-origin", signal: ctl.signal });
     if (res.status === 401) return "signed-out";
     if (!res.ok) return "offline";
-    const me = (await res.json()) as { user: { id: number; name: string; email: string; role: DeviceActor["role"] }; shop: { id: number } | null };
-    return { userId: me.user.id, shopId: me.shop?.id ?? 0, name: me.user.name, email: me.user.email, role: me.user.role };
+    const me = (await res.json()) as {
+      user: { id: number; name: string; email: string; role: DeviceActor["role"] };
+      shop: { id: number } | null;
+    };
+    return {
+      userId: me.user.id,
+      shopId: me.shop?.id ?? 0,
+      name: me.user.name,
+      email: me.user.email,
+      role: me.user.role,
+    };
   } catch {
     return "offline";
   } finally {
@@ -58,7 +68,9 @@ async function boot(): Promise<Boot> {
 export function BenchShell({ children }: { children: ReactNode }) {
   const [state, setState] = useState<Boot>({ kind: "loading" });
   useEffect(() => {
-    boot().then(setState, (err: unknown) => setState({ kind: "failed", message: err instanceof Error ? err.message : String(err) }));
+    boot().then(setState, (err: unknown) =>
+      setState({ kind: "failed", message: err instanceof Error ? err.message : String(err) }),
+    );
   }, []);
   // Opened while the worker was still installing (first visit): ask it to take this page over.
   useEffect(() => {

@@ -33,18 +33,34 @@ export const DerivedPanel = memo(function DerivedPanel({ values }: { values: Der
       <h3 className="text-sm font-semibold uppercase tracking-wide text-muted">Worked out from the readings</h3>
       <ul className="flex flex-col gap-2">
         {values.map((d) => (
-          <li key={d.key} className="grid grid-cols-[minmax(0,1fr)_auto] items-center gap-x-3 rounded-tool border-2 border-rule bg-panel px-3 py-2" data-key={d.key}>
+          <li
+            key={d.key}
+            className="grid grid-cols-[minmax(0,1fr)_auto] items-center gap-x-3 rounded-tool border-2 border-rule bg-panel px-3 py-2"
+            data-key={d.key}
+          >
             <span className="flex flex-col">
               <span className="font-medium">{d.label.split(" · ")[0]}</span>
               <span className="text-sm text-muted">{where(d)}</span>
             </span>
             {d.missing.length > 0 || d.value === undefined ? (
-              <span className="text-right text-sm text-muted">waiting for {d.missing.length} more<br />reading{d.missing.length === 1 ? "" : "s"}</span>
+              <span className="text-right text-sm text-muted">
+                waiting for {d.missing.length} more
+                <br />
+                reading{d.missing.length === 1 ? "" : "s"}
+              </span>
             ) : (
               <span className="flex flex-col items-end gap-1">
-                <span className="font-mono text-lg tabular">{figure(d.value, d.unit)} {UNIT_WORDS[d.unit]}</span>
-                {d.verdict ? <VerdictBadge verdict={d.verdict} size="sm" /> : <span className="text-sm text-muted">no limit on the spec</span>}
-                {d.deviation !== undefined && <span className="text-sm text-muted">{formatDeviation(d.deviation, d.unit)}</span>}
+                <span className="font-mono text-lg tabular">
+                  {figure(d.value, d.unit)} {UNIT_WORDS[d.unit]}
+                </span>
+                {d.verdict ? (
+                  <VerdictBadge verdict={d.verdict} size="sm" />
+                ) : (
+                  <span className="text-sm text-muted">no limit on the spec</span>
+                )}
+                {d.deviation !== undefined && (
+                  <span className="text-sm text-muted">{formatDeviation(d.deviation, d.unit)}</span>
+                )}
               </span>
             )}
           </li>

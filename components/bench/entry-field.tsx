@@ -18,7 +18,10 @@ interface Props {
   disabled?: boolean;
 }
 
-export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryField({ store, onEnter, unit, label, hint, gauge, placeholder, disabled }, ref) {
+export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryField(
+  { store, onEnter, unit, label, hint, gauge, placeholder, disabled },
+  ref,
+) {
   const error = useEntryField(store, "error");
   const input = useRef<HTMLInputElement>(null);
   useImperativeHandle(ref, () => input.current!, []);
@@ -43,8 +46,12 @@ export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryFiel
   }
   return (
     <div className="flex flex-col gap-1">
-      <label htmlFor="tw-entry" className="truncate text-sm font-semibold text-muted">{label}</label>
-      <div className={`rounded-tool border-4 bg-panel px-4 pb-1 pt-1 [contain:content] focus-within:border-brass ${error ? "border-fail" : "border-steel"}`}>
+      <label htmlFor="tw-entry" className="truncate text-sm font-semibold text-muted">
+        {label}
+      </label>
+      <div
+        className={`rounded-tool border-4 bg-panel px-4 pb-1 pt-1 [contain:content] focus-within:border-brass ${error ? "border-fail" : "border-steel"}`}
+      >
         <div className="flex items-baseline gap-3">
           <input
             id="tw-entry"
@@ -69,7 +76,11 @@ export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryFiel
         </div>
         <div className="truncate text-sm text-muted">{gauge}</div>
       </div>
-      <p id="tw-entry-note" className={`min-h-6 text-base leading-snug ${error ? "font-semibold text-fail" : "text-muted"}`} role={error ? "alert" : undefined}>
+      <p
+        id="tw-entry-note"
+        className={`min-h-6 text-base leading-snug ${error ? "font-semibold text-fail" : "text-muted"}`}
+        role={error ? "alert" : undefined}
+      >
         {error ?? hint}
       </p>
     </div>

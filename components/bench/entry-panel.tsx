@@ -32,10 +32,18 @@ interface Props {
 function hintFor(station: Station, dialOn: boolean, needSetting: boolean): string {
   if (needSetting) return "Type the size the gauge was zeroed on, then Set size; it is kept for this group of stations";
   if (dialOn) return "Type the dial's reading (± for minus), then Save or Enter";
-  return station.torque ? "Type the torque, then Save or Enter" : "Type the value or let the gauge send it, then Save or Enter";
+  return station.torque
+    ? "Type the torque, then Save or Enter"
+    : "Type the value or let the gauge send it, then Save or Enter";
 }
 
-function gaugeLine(station: Station, g: BenchInstrument | undefined, dialOn: boolean, group: string | undefined, prefs: JobPrefs): string {
+function gaugeLine(
+  station: Station,
+  g: BenchInstrument | undefined,
+  dialOn: boolean,
+  group: string | undefined,
+  prefs: JobPrefs,
+): string {
   const name = g ? `${g.label} (${g.serial})` : "no gauge picked";
   if (!dialOn || !group) return `Gauge: ${name}`;
   const setting = prefs.dialSettings[group];
@@ -50,10 +58,13 @@ export const EntryPanel = memo(function EntryPanel(p: Props) {
   const label = needSetting ? "Setting size" : dialOn ? "Dial reading" : "Reading";
   // Callbacks that never change for the memoised keypad and gauge row.
   const focus = useCallback(() => inputRef.current?.focus(), [inputRef]);
-  const onKey = useCallback((k: PadKey) => {
-    store.set({ draft: applyKey(store.get().draft, k), error: undefined });
-    focus();
-  }, [store, focus]);
+  const onKey = useCallback(
+    (k: PadKey) => {
+      store.set({ draft: applyKey(store.get().draft, k), error: undefined });
+      focus();
+    },
+    [store, focus],
+  );
   const saveRef = useRef(save);
   saveRef.current = save;
   const onEnter = useCallback(() => {
@@ -61,7 +72,10 @@ export const EntryPanel = memo(function EntryPanel(p: Props) {
     focus();
   }, [focus]);
   const gaugeKey = station.gaugeKind ?? station.characteristic;
-  const onChoose = useCallback((id: number) => onPrefs({ gauges: { ...prefs.gauges, [gaugeKey]: id } }), [onPrefs, prefs.gauges, gaugeKey]);
+  const onChoose = useCallback(
+    (id: number) => onPrefs({ gauges: { ...prefs.gauges, [gaugeKey]: id } }),
+    [onPrefs, prefs.gauges, gaugeKey],
+  );
   const onDial = useCallback((on: boolean) => onPrefs({ dialMode: on }), [onPrefs]);
   const onChangeSetting = useCallback(() => {
     askSetting();
@@ -81,7 +95,15 @@ export const EntryPanel = memo(function EntryPanel(p: Props) {
         disabled={p.locked}
       />
       <Keypad onKey={onKey} onEnter={onEnter} enterLabel={needSetting ? "Set size" : "Save"} disabled={p.locked} />
-      <GaugeRow gauges={p.gauges} chosen={p.instrument} onChoose={onChoose} dialCapable={p.dialCapable} dialOn={dialOn} onDial={onDial} onChangeSetting={onChangeSetting} />
+      <GaugeRow
+        gauges={p.gauges}
+        chosen={p.instrument}
+        onChoose={onChoose}
+        dialCapable={p.dialCapable}
+        dialOn={dialOn}
+        onDial={onDial}
+        onChangeSetting={onChangeSetting}
+      />
     </section>
   );
 });

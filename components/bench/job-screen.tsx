@@ -9,7 +9,13 @@ import type { LocalReading } from "@/lib/offline/db";
 import { dialGroup, gaugesFor, isDialGauge } from "@/lib/offline/entry";
 import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { derivedFor } from "@/lib/offline/preview";
-import { nextOpenStation, OPEN_STATES, sectionProgress, stationViews, type StationView } from "@/lib/offline/route-status";
+import {
+  nextOpenStation,
+  OPEN_STATES,
+  sectionProgress,
+  stationViews,
+  type StationView,
+} from "@/lib/offline/route-status";
 import { useBench } from "./bench-context";
 import { DerivedPanel, onSamePart } from "./derived-panel";
 import { EntryPanel } from "./entry-panel";
@@ -34,19 +40,34 @@ const GRID = [
 
 function RefusedNotice({ views, onFix }: { views: StationView[]; onFix: (id: string) => void }) {
   return (
-    <Notice tone="error" title={`${views.length} reading${views.length === 1 ? " was" : "s were"} refused by the server`}>
+    <Notice
+      tone="error"
+      title={`${views.length} reading${views.length === 1 ? " was" : "s were"} refused by the server`}
+    >
       <ul className="mt-1 flex flex-col gap-2">
         {views.map((v) => (
           <li key={v.station.id} className="flex flex-wrap items-center gap-3">
-            <span>{v.station.label}: {v.current?.rejection?.reason}</span>
-            <Button tone="quiet" onClick={() => onFix(v.station.id)}>Fix it</Button>
+            <span>
+              {v.station.label}: {v.current?.rejection?.reason}
+            </span>
+            <Button tone="quiet" onClick={() => onFix(v.station.id)}>
+              Fix it
+            </Button>
           </li>
         ))}
       </ul>
     </Notice>
   );
 }
-export const JobScreen = memo(function JobScreen({ pack, readings, prefs }: { pack: JobPack; readings: LocalReading[]; prefs: JobPrefs }) {
+export const JobScreen = memo(function JobScreen({
+  pack,
+  readings,
+  prefs,
+}: {
+  pack: JobPack;
+  readings: LocalReading[];
+  prefs: JobPrefs;
+}) {
   const { db } = useBench();
   const views = useMemo(() => stationViews(pack, readings), [pack, readings]);
   const sections = useMemo(() => sectionProgress(pack, views), [pack, views]);
@@ -66,27 +87,45 @@ export const JobScreen = memo(function JobScreen({ pack, readings, prefs }: { pa
   const jobId = pack.job.id;
   const onPrefs = useCallback((patch: Partial<JobPrefs>) => void patchJobPrefs(db, jobId, patch), [db, jobId]);
   const { cancelMove } = entry;
-  const jump = useCallback((id: string) => {
-    cancelMove();
-    setStationId(id);
-    setSheet(null);
-  }, [cancelMove]);
-  const pickSection = useCallback((sid: string) => {
-    const mine = views.filter((v) => v.station.section === sid);
-    jump((mine.find((v) => OPEN_STATES.includes(v.state)) ?? mine[0]).station.id);
-  }, [views, jump]);
+  const jump = useCallback(
+    (id: string) => {
+      cancelMove();
+      setStationId(id);
+      setSheet(null);
+    },
+    [cancelMove],
+  );
+  const pickSection = useCallback(
+    (sid: string) => {
+      const mine = views.filter((v) => v.station.section === sid);
+      jump((mine.find((v) => OPEN_STATES.includes(v.state)) ?? mine[0]).station.id);
+    },
+    [views, jump],
+  );
   const openRoute = useCallback(() => setSheet("route"), []);
   const pickLubricant = useCallback((l: string) => onPrefs({ lubricant: l }), [onPrefs]);
   const currentId = view?.current && view.current.state !== "rejected" ? view.current.id : undefined;
-  const photoOwner = useMemo(() => (currentId
-    ? { jobId, ownerType: "reading" as const, ownerId: currentId }
-    : { jobId, ownerType: "job" as const, ownerId: String(jobId) }), [jobId, currentId]);
+  const photoOwner = useMemo(
+    () =>
+      currentId
+        ? { jobId, ownerType: "reading" as const, ownerId: currentId }
+        : { jobId, ownerType: "job" as const, ownerId: String(jobId) },
+    [jobId, currentId],
+  );
   const gauges = useMemo(() => (view ? gaugesFor(view.station, pack.instruments) : []), [view, pack.instruments]);
   // Only the part on screen: the core works out nothing else after each entry.
   const partStation = view?.station.id;
-  const shownDerived = useMemo(() => (partStation ? derivedFor(pack, readings, onSamePart(partStation)) : []), [pack, readings, partStation]);
+  const shownDerived = useMemo(
+    () => (partStation ? derivedFor(pack, readings, onSamePart(partStation)) : []),
+    [pack, readings, partStation],
+  );
 
-  if (!view) return <Notice tone="error">This job has no stations on its route; ask the lead to check the engine&apos;s shape.</Notice>;
+  if (!view)
+    return (
+      <Notice tone="error">
+        This job has no stations on its route; ask the lead to check the engine&apos;s shape.
+      </Notice>
+    );
   const station = view.station;
   const inSection = views.filter((v) => v.station.section === station.section);
   const section = sections.find((s) => s.id === station.section);
@@ -97,12 +136,25 @@ export const JobScreen = memo(function JobScreen({ pack, readings, prefs }: { pa
   return (
     <main className="mx-auto flex max-w-7xl flex-col gap-3 px-4 py-3" data-testid="job-screen" data-job={pack.job.id}>
       <SectionStrip sections={sections} current={station.section} onPick={pickSection} onAll={openRoute} />
-      {pack.job.locked && <Notice tone="error" title="This job is released">{pack.job.lockReason ?? "Readings are locked."} New readings cannot be taken.</Notice>}
+      {pack.job.locked && (
+        <Notice tone="error" title="This job is released">
+          {pack.job.lockReason ?? "Readings are locked."} New readings cannot be taken.
+        </Notice>
+      )}
       {refused.length > 0 && <RefusedNotice views={refused} onFix={jump} />}
       <div className={GRID}>
         <div className="flex flex-col gap-3 [grid-area:where]">
-          <p className="truncate text-sm text-muted"><span className="font-semibold text-ink">{pack.job.title}</span> · <span className="font-mono">{pack.job.code}</span> · {pack.job.engine}</p>
-          <StationHeader view={view} sectionLabel={section?.label ?? station.section} index={inSection.indexOf(view) + 1} of={inSection.length} shape={pack.shape} />
+          <p className="truncate text-sm text-muted">
+            <span className="font-semibold text-ink">{pack.job.title}</span> ·{" "}
+            <span className="font-mono">{pack.job.code}</span> · {pack.job.engine}
+          </p>
+          <StationHeader
+            view={view}
+            sectionLabel={section?.label ?? station.section}
+            index={inSection.indexOf(view) + 1}
+            of={inSection.length}
+            shape={pack.shape}
+          />
           {station.torque && <LubricantPicker value={prefs.lubricant} onPick={pickLubricant} />}
           {station.section === "bolt" && <FastenerCaution />}
         </div>
@@ -111,21 +163,56 @@ export const JobScreen = memo(function JobScreen({ pack, readings, prefs }: { pa
         </div>
         <div className="[grid-area:entry]">
           <EntryPanel
-            station={station} store={entry.store} save={entry.save} instrument={entry.instrument} dialOn={entry.dialOn} needSetting={entry.needSetting}
-            group={entry.group} askSetting={entry.askSetting} gauges={gauges} prefs={prefs} onPrefs={onPrefs} inputRef={inputRef} locked={pack.job.locked} dialCapable={dialCapable}
+            station={station}
+            store={entry.store}
+            save={entry.save}
+            instrument={entry.instrument}
+            dialOn={entry.dialOn}
+            needSetting={entry.needSetting}
+            group={entry.group}
+            askSetting={entry.askSetting}
+            gauges={gauges}
+            prefs={prefs}
+            onPrefs={onPrefs}
+            inputRef={inputRef}
+            locked={pack.job.locked}
+            dialCapable={dialCapable}
           />
         </div>
         <div className="flex flex-col gap-3 [grid-area:more]">
           <div className="grid grid-cols-2 gap-3">
-            <Button big tone="quiet" onClick={() => setSheet("skip")} disabled={pack.job.locked}>Skip…</Button>
+            <Button big tone="quiet" onClick={() => setSheet("skip")} disabled={pack.job.locked}>
+              Skip…
+            </Button>
             <PhotoButton jobId={pack.job.id} owner={photoOwner} />
           </div>
           <DerivedPanel values={shownDerived} />
         </div>
       </div>
-      <Suspense fallback={sheet ? <p className="fixed inset-x-0 top-1/3 z-40 text-center text-lg font-semibold">Opening…</p> : null}>
-        {sheet === "route" && <RouteSheet sections={sections} views={views} current={station.id} onPick={jump} onClose={() => setSheet(null)} />}
-        {sheet === "skip" && <SkipSheet station={station.label} onSkip={(r) => { entry.skip(r); setSheet(null); }} onClose={() => setSheet(null)} />}
+      <Suspense
+        fallback={
+          sheet ? <p className="fixed inset-x-0 top-1/3 z-40 text-center text-lg font-semibold">Opening…</p> : null
+        }
+      >
+        {sheet === "route" && (
+          <RouteSheet
+            sections={sections}
+            views={views}
+            current={station.id}
+            onPick={jump}
+            onClose={() => setSheet(null)}
+          />
+        )}
+        {sheet === "skip" && (
+          <SkipSheet
+            station={station.label}
+            onSkip={(r) => {
+              entry.skip(r);
+              setSheet(null);
+            }}
+            onClose={() => setSheet(null)}
+          />
+        )}
       </Suspense>
     </main>
   );

@@ -10,7 +10,17 @@ export type PadKey = "0" | "1" | "2" | "3" | "4" | "5" | "6" | "7" | "8" | "9" |
 
 const keepFocus = (e: PointerEvent) => e.preventDefault();
 
-function Key({ label, name, onPress, className = "" }: { label: string; name: string; onPress: () => void; className?: string }) {
+function Key({
+  label,
+  name,
+  onPress,
+  className = "",
+}: {
+  label: string;
+  name: string;
+  onPress: () => void;
+  className?: string;
+}) {
   return (
     <button
       type="button"
@@ -33,7 +43,17 @@ export function applyKey(draft: string, key: PadKey): string {
   return draft + key;
 }
 
-export const Keypad = memo(function Keypad({ onKey, onEnter, enterLabel = "Save", disabled = false }: { onKey: (k: PadKey) => void; onEnter: () => void; enterLabel?: string; disabled?: boolean }) {
+export const Keypad = memo(function Keypad({
+  onKey,
+  onEnter,
+  enterLabel = "Save",
+  disabled = false,
+}: {
+  onKey: (k: PadKey) => void;
+  onEnter: () => void;
+  enterLabel?: string;
+  disabled?: boolean;
+}) {
   const digit = (d: PadKey) => <Key key={d} label={d} name={d} onPress={() => onKey(d)} />;
   return (
     <div className="grid grid-cols-4 gap-2.5" role="group" aria-label="Keypad" data-testid="keypad">

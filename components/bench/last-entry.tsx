@@ -11,10 +11,20 @@ import { figure, UNIT_WORDS } from "./units";
 export function LastEntryCard({ store, onAgain }: { store: EntryStore; onAgain: (stationId: string) => void }) {
   const last = useEntryField(store, "last");
   if (!last) {
-    return <p className="rounded-tool border-2 border-dashed border-rule p-4 text-muted" data-testid="last-entry">The verdict of each reading shows here as soon as it is saved.</p>;
+    return (
+      <p className="rounded-tool border-2 border-dashed border-rule p-4 text-muted" data-testid="last-entry">
+        The verdict of each reading shows here as soon as it is saved.
+      </p>
+    );
   }
   return (
-    <section className="flex flex-col gap-2 rounded-tool border-2 border-rule bg-panel p-3 [contain:content]" data-testid="last-entry" data-seq={last.seq} data-verdict={last.verdict ?? "none"} aria-live="polite">
+    <section
+      className="flex flex-col gap-2 rounded-tool border-2 border-rule bg-panel p-3 [contain:content]"
+      data-testid="last-entry"
+      data-seq={last.seq}
+      data-verdict={last.verdict ?? "none"}
+      aria-live="polite"
+    >
       <p className="truncate text-sm text-muted">Last saved · {last.label}</p>
       <div className="flex flex-wrap items-center gap-x-3 gap-y-2">
         {last.verdict && <VerdictBadge verdict={last.verdict} size="lg" />}
@@ -24,10 +34,16 @@ export function LastEntryCard({ store, onAgain }: { store: EntryStore; onAgain: 
           </span>
         )}
         {last.deviation !== undefined && last.deviationUnit && (
-          <span className="text-xl font-semibold" data-testid="deviation">{formatDeviation(last.deviation, last.deviationUnit)}</span>
+          <span className="text-xl font-semibold" data-testid="deviation">
+            {formatDeviation(last.deviation, last.deviationUnit)}
+          </span>
         )}
         {!last.stayed && (
-          <button type="button" onClick={() => onAgain(last.stationId)} className="ml-auto min-h-16 rounded-tool border-2 border-rule px-4 text-lg font-semibold">
+          <button
+            type="button"
+            onClick={() => onAgain(last.stationId)}
+            className="ml-auto min-h-16 rounded-tool border-2 border-rule px-4 text-lg font-semibold"
+          >
             Measure again
           </button>
         )}

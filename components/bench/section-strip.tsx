@@ -4,10 +4,24 @@ import { memo } from "react";
 import type { SectionProgress } from "@/lib/offline/route-status";
 
 // Progress per section, always in view; a tap jumps to the section's first open station.
-export const SectionStrip = memo(function SectionStrip({ sections, current, onPick, onAll }: { sections: SectionProgress[]; current: string; onPick: (id: string) => void; onAll: () => void }) {
+export const SectionStrip = memo(function SectionStrip({
+  sections,
+  current,
+  onPick,
+  onAll,
+}: {
+  sections: SectionProgress[];
+  current: string;
+  onPick: (id: string) => void;
+  onAll: () => void;
+}) {
   return (
     <nav aria-label="Sections" className="flex gap-2 overflow-x-auto pb-1">
-      <button type="button" onClick={onAll} className="min-h-16 shrink-0 rounded-tool bg-steel px-4 text-lg font-semibold text-steel-ink">
+      <button
+        type="button"
+        onClick={onAll}
+        className="min-h-16 shrink-0 rounded-tool bg-steel px-4 text-lg font-semibold text-steel-ink"
+      >
         All stations
       </button>
       {sections.map((s) => {
@@ -23,7 +37,8 @@ export const SectionStrip = memo(function SectionStrip({ sections, current, onPi
           >
             <span className="text-sm font-semibold leading-tight">{s.label}</span>
             <span className="text-sm tabular text-muted">
-              {s.done} of {s.total}{complete ? " · done" : ""}
+              {s.done} of {s.total}
+              {complete ? " · done" : ""}
             </span>
           </button>
         );

@@ -4,9 +4,22 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 
 // Skipping a station always needs a reason; the usual ones are one tap, anything else is typed.
-const REASONS = ["Not on this engine", "Part is out for machining", "Lead said to skip it", "Cannot reach it in this setup"];
+const REASONS = [
+  "Not on this engine",
+  "Part is out for machining",
+  "Lead said to skip it",
+  "Cannot reach it in this setup",
+];
 
-export function SkipSheet({ station, onSkip, onClose }: { station: string; onSkip: (reason: string) => void; onClose: () => void }) {
+export function SkipSheet({
+  station,
+  onSkip,
+  onClose,
+}: {
+  station: string;
+  onSkip: (reason: string) => void;
+  onClose: () => void;
+}) {
   const [other, setOther] = useState("");
   const [error, setError] = useState<string>();
   function skipOther() {
@@ -14,24 +27,47 @@ export function SkipSheet({ station, onSkip, onClose }: { station: string; onSki
     onSkip(other.trim());
   }
   return (
-    <div role="dialog" aria-modal="true" aria-label="Skip this station" className="fixed inset-0 z-40 flex items-end justify-center bg-ink/40 sm:items-center">
+    <div
+      role="dialog"
+      aria-modal="true"
+      aria-label="Skip this station"
+      className="fixed inset-0 z-40 flex items-end justify-center bg-ink/40 sm:items-center"
+    >
       <div className="flex w-full max-w-xl flex-col gap-4 rounded-t-tool bg-paper p-5 sm:rounded-tool">
         <h2 className="text-2xl font-bold">Skip: {station}</h2>
         <div className="grid gap-3 sm:grid-cols-2">
           {REASONS.map((r) => (
-            <button key={r} type="button" onClick={() => onSkip(r)} className="min-h-16 rounded-tool border-2 border-rule bg-panel px-4 text-left text-lg font-semibold">
+            <button
+              key={r}
+              type="button"
+              onClick={() => onSkip(r)}
+              className="min-h-16 rounded-tool border-2 border-rule bg-panel px-4 text-left text-lg font-semibold"
+            >
               {r}
             </button>
           ))}
         </div>
         <label className="flex flex-col gap-1.5">
           <span className="font-medium">Another reason</span>
-          <input value={other} onChange={(e) => setOther(e.target.value)} maxLength={255} className="min-h-16 rounded-tool border-2 border-rule bg-panel px-3 text-lg" />
+          <input
+            value={other}
+            onChange={(e) => setOther(e.target.value)}
+            maxLength={255}
+            className="min-h-16 rounded-tool border-2 border-rule bg-panel px-3 text-lg"
+          />
         </label>
-        {error && <p className="font-semibold text-fail" role="alert">{error}</p>}
+        {error && (
+          <p className="font-semibold text-fail" role="alert">
+            {error}
+          </p>
+        )}
         <div className="flex flex-wrap gap-3">
-          <Button big onClick={skipOther}>Skip with this reason</Button>
-          <Button big tone="quiet" onClick={onClose}>Back to measuring</Button>
+          <Button big onClick={skipOther}>
+            Skip with this reason
+          </Button>
+          <Button big tone="quiet" onClick={onClose}>
+            Back to measuring
+          </Button>
         </div>
       </div>
     </div>

@@ -14,7 +14,13 @@ export function UpdateBanner() {
   const { db } = useBench();
   const [waiting, setWaiting] = useState(false);
   // Watched only while an update waits, so entries do not pay for this query the rest of the time.
-  const [queued] = useDexieQuery(db, ["outbox"], () => (waiting ? db.outbox.count() : Promise.resolve(0)), [waiting], 0);
+  const [queued] = useDexieQuery(
+    db,
+    ["outbox"],
+    () => (waiting ? db.outbox.count() : Promise.resolve(0)),
+    [waiting],
+    0,
+  );
 
   useEffect(() => {
     if (!serwist) return;
@@ -37,12 +43,20 @@ export function UpdateBanner() {
     serwist?.messageSkipWaiting();
   }
   return (
-    <div className="flex flex-wrap items-center gap-3 rounded-tool border-2 border-steel bg-panel px-4 py-2" role="status" data-testid="update-banner">
+    <div
+      className="flex flex-wrap items-center gap-3 rounded-tool border-2 border-steel bg-panel px-4 py-2"
+      role="status"
+      data-testid="update-banner"
+    >
       <span className="font-semibold">A new version of Tenthwise is ready.</span>
       {queued > 0 ? (
-        <span className="text-sm text-muted">It will be offered once the {queued} waiting reading{queued === 1 ? " is" : "s are"} sent.</span>
+        <span className="text-sm text-muted">
+          It will be offered once the {queued} waiting reading{queued === 1 ? " is" : "s are"} sent.
+        </span>
       ) : (
-        <Button onClick={apply} className="min-h-12">Update now</Button>
+        <Button onClick={apply} className="min-h-12">
+          Update now
+        </Button>
       )}
     </div>
   );

@@ -5,7 +5,9 @@ export function JobsProgress({ done, required }: { done: number; required: numbe
   const pct = Math.round((done / required) * 100);
   return (
     <span className="flex min-w-40 flex-col gap-1" title={`${done} of ${required} required stations measured`}>
-      <span className="text-sm tabular"><span className="font-semibold">{done}</span> of {required} · {pct}%</span>
+      <span className="text-sm tabular">
+        <span className="font-semibold">{done}</span> of {required} · {pct}%
+      </span>
       <span className="h-2 w-full overflow-hidden rounded-full border border-rule bg-paper" aria-hidden="true">
         <span className="block h-full bg-steel" style={{ width: `${pct}%` }} />
       </span>

@@ -2,8 +2,16 @@
 // only decides which figures the entered values allow and keeps the core's own messages when a
 // combination cannot work. Pure: used live on the plan page and wherever the plan is shown.
 import {
-  ccToCubicIn, compressionHeight, compressionRatio, cubicInToCc, deckClearanceFor, displacement, rodRatio, valveLift,
-  type CompressionHeightResult, type CompressionRatioResult,
+  ccToCubicIn,
+  compressionHeight,
+  compressionRatio,
+  cubicInToCc,
+  deckClearanceFor,
+  displacement,
+  rodRatio,
+  valveLift,
+  type CompressionHeightResult,
+  type CompressionRatioResult,
 } from "@/lib/domain";
 import { pistonCcOf, type BuildPlan } from "@/lib/schemas/build-plan";
 
@@ -12,17 +20,30 @@ export type Figure<T> = { ok: true; value: T } | { ok: false; why: string };
 type PlanValues = Partial<Omit<BuildPlan, "format" | "version" | "volumeUnit">> & { lengthUnit: "in" | "mm" };
 
 const WORDS: Record<string, string> = {
-  bore: "the bore", stroke: "the stroke", rodLength: "the rod length", compressionHeight: "the compression height",
-  deckHeight: "the deck height", chamberCc: "the chamber volume", gasketBore: "the gasket bore", gasketThickness: "the gasket thickness",
-  pistonVolumeCc: "the dish or dome volume", intakeLobeLift: "the intake lobe lift", exhaustLobeLift: "the exhaust lobe lift",
-  rockerRatio: "the rocker ratio", intakeLash: "the intake lash", exhaustLash: "the exhaust lash", cylinders: "the cylinder count",
+  bore: "the bore",
+  stroke: "the stroke",
+  rodLength: "the rod length",
+  compressionHeight: "the compression height",
+  deckHeight: "the deck height",
+  chamberCc: "the chamber volume",
+  gasketBore: "the gasket bore",
+  gasketThickness: "the gasket thickness",
+  pistonVolumeCc: "the dish or dome volume",
+  intakeLobeLift: "the intake lobe lift",
+  exhaustLobeLift: "the exhaust lobe lift",
+  rockerRatio: "the rocker ratio",
+  intakeLash: "the intake lash",
+  exhaustLash: "the exhaust lash",
+  cylinders: "the cylinder count",
 };
 
 const isNum = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x);
 
 /** Runs `compute` when every needed value is a number; otherwise says which to enter. */
 function attempt<T>(needs: Record<string, unknown>, compute: () => T): Figure<T> {
-  const missing = Object.entries(needs).filter(([, v]) => !isNum(v)).map(([k]) => WORDS[k] ?? k);
+  const missing = Object.entries(needs)
+    .filter(([, v]) => !isNum(v))
+    .map(([k]) => WORDS[k] ?? k);
   if (missing.length) return { ok: false, why: `Enter ${missing.join(", ").replace(/, ([^,]*)$/, " and $1")}` };
   try {
     return { ok: true, value: compute() };
@@ -46,7 +67,8 @@ export function planFigures(p: PlanValues, cylinders: number): PlanFigures {
   const ch = p.compressionHeight;
   const pistonVolumeCc = p.pistonTop === "flat" ? 0 : p.pistonVolumeCc;
   const deckClearance = attempt({ deckHeight, stroke, rodLength, compressionHeight: ch }, () =>
-    deckClearanceFor({ deckHeight: deckHeight!, stroke: stroke!, rodLength: rodLength!, compressionHeight: ch! }));
+    deckClearanceFor({ deckHeight: deckHeight!, stroke: stroke!, rodLength: rodLength!, compressionHeight: ch! }),
+  );
   return {
     displacement: attempt({ bore, stroke, cylinders }, () => {
       const raw = displacement(bore!, stroke!, cylinders);
@@ -56,14 +78,31 @@ export function planFigures(p: PlanValues, cylinders: number): PlanFigures {
     }),
     rodRatio: attempt({ rodLength, stroke }, () => rodRatio(rodLength!, stroke!)),
     deckClearance,
-    zeroDeck: attempt({ deckHeight, stroke, rodLength }, () => compressionHeight({ deckHeight: deckHeight!, stroke: stroke!, rodLength: rodLength!, deckClearance: 0 })),
+    zeroDeck: attempt({ deckHeight, stroke, rodLength }, () =>
+      compressionHeight({ deckHeight: deckHeight!, stroke: stroke!, rodLength: rodLength!, deckClearance: 0 }),
+    ),
     compression: deckClearance.ok
-      ? attempt({ bore, stroke, gasketBore, gasketThickness, chamberCc, pistonVolumeCc }, () => compressionRatio({
-        lengthUnit: p.lengthUnit, bore: bore!, stroke: stroke!, gasketBore: gasketBore!, gasketThickness: gasketThickness!,
-        deckClearance: deckClearance.value, chamberCc: chamberCc!, pistonCc: pistonCcOf({ pistonTop: p.pistonTop ?? "flat", pistonVolumeCc }),
-      }))
-      : { ok: false, why: `Needs the deck clearance: ${deckClearance.why.charAt(0).toLowerCase()}${deckClearance.why.slice(1)}` },
-    intakeLift: attempt({ intakeLobeLift: p.intakeLobeLift, rockerRatio, intakeLash: p.intakeLash }, () => valveLift(p.intakeLobeLift!, rockerRatio!, p.intakeLash!)),
-    exhaustLift: attempt({ exhaustLobeLift: p.exhaustLobeLift, rockerRatio, exhaustLash: p.exhaustLash }, () => valveLift(p.exhaustLobeLift!, rockerRatio!, p.exhaustLash!)),
+      ? attempt({ bore, stroke, gasketBore, gasketThickness, chamberCc, pistonVolumeCc }, () =>
+          compressionRatio({
+            lengthUnit: p.lengthUnit,
+            bore: bore!,
+            stroke: stroke!,
+            gasketBore: gasketBore!,
+            gasketThickness: gasketThickness!,
+            deckClearance: deckClearance.value,
+            chamberCc: chamberCc!,
+            pistonCc: pistonCcOf({ pistonTop: p.pistonTop ?? "flat", pistonVolumeCc }),
+          }),
+        )
+      : {
+          ok: false,
+          why: `Needs the deck clearance: ${deckClearance.why.charAt(0).toLowerCase()}${deckClearance.why.slice(1)}`,
+        },
+    intakeLift: attempt({ intakeLobeLift: p.intakeLobeLift, rockerRatio, intakeLash: p.intakeLash }, () =>
+      valveLift(p.intakeLobeLift!, rockerRatio!, p.intakeLash!),
+    ),
+    exhaustLift: attempt({ exhaustLobeLift: p.exhaustLobeLift, rockerRatio, exhaustLash: p.exhaustLash }, () =>
+      valveLift(p.exhaustLobeLift!, rockerRatio!, p.exhaustLash!),
+    ),
   };
 }

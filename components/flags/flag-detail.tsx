@@ -29,11 +29,17 @@ function Summary({ d }: { d: Detail }) {
       <Fact label="Value">{withUnit(f.value, f.unit)}</Fact>
       <Fact label="Limits">{limitsText(f.limitMin, f.limitMax, f.unit)}</Fact>
       <Fact label="From nominal">{deviationText(f.deviation, f.unit)}</Fact>
-      <Fact label="Beyond the limit by">{beyond === null ? "inside the limits" : withUnit(Math.abs(beyond), f.unit)}</Fact>
-      <Fact label="Gauge">{f.gauge ? `${f.gauge.label} · ${f.gauge.serial}` : f.derived ? "computed from readings" : "none recorded"}</Fact>
+      <Fact label="Beyond the limit by">
+        {beyond === null ? "inside the limits" : withUnit(Math.abs(beyond), f.unit)}
+      </Fact>
+      <Fact label="Gauge">
+        {f.gauge ? `${f.gauge.label} · ${f.gauge.serial}` : f.derived ? "computed from readings" : "none recorded"}
+      </Fact>
       <Fact label="Gauge calibration due">{f.gauge?.calibrationDue ?? "—"}</Fact>
       <Fact label="Taken">{f.takenBy ? `${f.takenBy} · ${when(f.takenAt)}` : "—"}</Fact>
-      <Fact label="Flag raised">{when(f.createdAt)} ({age(f.createdAt)} ago)</Fact>
+      <Fact label="Flag raised">
+        {when(f.createdAt)} ({age(f.createdAt)} ago)
+      </Fact>
     </dl>
   );
 }
@@ -41,16 +47,28 @@ function Summary({ d }: { d: Detail }) {
 export function FlagDetailView({ flagId, canDecide }: { flagId: number; canDecide: boolean }) {
   const q = useQuery({ queryKey: ["flag", flagId], queryFn: () => api<Detail>(`/api/flags/${flagId}`) });
   if (q.isPending) return <p className="text-muted">Loading the flag…</p>;
-  if (q.isError) return <Notice tone="error" title="Could not load this flag">{q.error.message}</Notice>;
+  if (q.isError)
+    return (
+      <Notice tone="error" title="Could not load this flag">
+        {q.error.message}
+      </Notice>
+    );
   const d = q.data;
   const f = d.flag;
   return (
     <div className="flex flex-col gap-6">
       <div className="flex flex-col gap-2">
-        <Link href={`/desk/flags?job=${d.job.id}`} className="no-print text-sm text-steel underline">← Flags of job {d.job.code}</Link>
-        <p className="font-mono text-sm text-muted">{d.job.code} · {d.job.title}</p>
+        <Link href={`/desk/flags?job=${d.job.id}`} className="no-print text-sm text-steel underline">
+          ← Flags of job {d.job.code}
+        </Link>
+        <p className="font-mono text-sm text-muted">
+          {d.job.code} · {d.job.title}
+        </p>
         <h1 className="text-3xl font-semibold">{f.station}</h1>
-        <p className="text-muted">{f.characteristicLabel}{f.derived ? " (computed value)" : ""}</p>
+        <p className="text-muted">
+          {f.characteristicLabel}
+          {f.derived ? " (computed value)" : ""}
+        </p>
         <div className="flex flex-wrap items-center gap-3">
           <VerdictBadge verdict={f.verdict} size="lg" />
           <ReasonTag reason={f.reason} />
@@ -60,16 +78,23 @@ export function FlagDetailView({ flagId, canDecide }: { flagId: number; canDecid
       <Summary d={d} />
       {f.reason === "gauge_past_due" && (
         <Notice tone="caution" title="Read with a gauge past its calibration due date">
-          The figure itself {f.verdict === "in_spec" ? "is within the limits" : "is outside or near the limits"}, but the gauge was overdue when it was taken, so it cannot be trusted as is.
-          Measure again with a calibrated gauge, or accept with the reason (for example, checked against a setting master).
+          The figure itself {f.verdict === "in_spec" ? "is within the limits" : "is outside or near the limits"}, but
+          the gauge was overdue when it was taken, so it cannot be trusted as is. Measure again with a calibrated gauge,
+          or accept with the reason (for example, checked against a setting master).
         </Notice>
       )}
       {f.state === "closed" && (
         <Notice title="Closed">
-          Closed {when(f.closedAt)}{f.closedByReadingId ? " by a newer reading at the station (see the readings below)" : " when the limits changed and the value no longer needed attention"}. The decisions stay on record.
+          Closed {when(f.closedAt)}
+          {f.closedByReadingId
+            ? " by a newer reading at the station (see the readings below)"
+            : " when the limits changed and the value no longer needed attention"}
+          . The decisions stay on record.
         </Notice>
       )}
-      {f.state !== "closed" && d.job.locked && <Notice title="Job locked">This job is released and locked; reopen it before changing a decision.</Notice>}
+      {f.state !== "closed" && d.job.locked && (
+        <Notice title="Job locked">This job is released and locked; reopen it before changing a decision.</Notice>
+      )}
       <FlagHistory stations={d.stations} />
       <DerivedFed derived={d.derived} isDerived={f.derived} />
       <DecisionHistory entries={d.dispositions} />

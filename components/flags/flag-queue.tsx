@@ -30,7 +30,8 @@ export function FlagQueue({ jobs }: { jobs: JobOption[] }) {
   const pathname = usePathname();
   const search = useSearchParams();
   const q = useMemo(() => readQuery(new URLSearchParams(search.toString())), [search]);
-  const set = (patch: Partial<FlagListQuery>) => router.replace(`${pathname}?${toParams({ ...q, page: 1, ...patch })}`, { scroll: false });
+  const set = (patch: Partial<FlagListQuery>) =>
+    router.replace(`${pathname}?${toParams({ ...q, page: 1, ...patch })}`, { scroll: false });
   const flags = useQuery({
     queryKey: ["flags", toParams(q)],
     queryFn: () => api<FlagPage>(`/api/flags?${toParams(q)}`),
@@ -48,7 +49,11 @@ export function FlagQueue({ jobs }: { jobs: JobOption[] }) {
     onSortingChange: (updater) => {
       const next = typeof updater === "function" ? updater(sorting) : updater;
       const first = next[0];
-      set(first ? { sort: first.id as FlagListQuery["sort"], dir: first.desc ? "desc" : "asc" } : { sort: "age", dir: "desc" });
+      set(
+        first
+          ? { sort: first.id as FlagListQuery["sort"], dir: first.desc ? "desc" : "asc" }
+          : { sort: "age", dir: "desc" },
+      );
     },
     enableSortingRemoval: false,
   });
@@ -56,17 +61,31 @@ export function FlagQueue({ jobs }: { jobs: JobOption[] }) {
   return (
     <div className="flex flex-col gap-4">
       <FlagFilters value={q} jobs={jobs} onChange={set} />
-      {flags.isError && <Notice tone="error" title="Could not load the flags">{flags.error.message} Try again in a moment.</Notice>}
+      {flags.isError && (
+        <Notice tone="error" title="Could not load the flags">
+          {flags.error.message} Try again in a moment.
+        </Notice>
+      )}
       <div className="overflow-x-auto rounded-tool border-2 border-rule bg-panel" aria-busy={flags.isFetching}>
         <FlagTable table={table} />
         {flags.isPending && <p className="p-4 text-muted">Loading flags…</p>}
         {page && page.total === 0 && (
           <p className="p-6 text-muted" data-testid="flags-empty">
-            No flags match these filters.{q.state === "active" ? " Every reading so far is in spec or closed." : " Try another state or job."}
+            No flags match these filters.
+            {q.state === "active" ? " Every reading so far is in spec or closed." : " Try another state or job."}
           </p>
         )}
       </div>
-      {page && page.total > 0 && <Pager page={page.page} pageCount={page.pageCount} pageSize={page.pageSize} total={page.total} onPage={(p) => set({ page: p })} onPageSize={(s) => set({ pageSize: s })} />}
+      {page && page.total > 0 && (
+        <Pager
+          page={page.page}
+          pageCount={page.pageCount}
+          pageSize={page.pageSize}
+          total={page.total}
+          onPage={(p) => set({ page: p })}
+          onPageSize={(s) => set({ pageSize: s })}
+        />
+      )}
     </div>
   );
 }

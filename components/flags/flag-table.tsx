@@ -5,7 +5,12 @@ import type { FlagListItem } from "@/lib/schemas/flag";
 
 // The queue's table: headers sort on the server (the queue turns a click into ?sort=&dir=).
 function SortMark({ dir }: { dir: false | "asc" | "desc" }) {
-  if (!dir) return <span aria-hidden="true" className="text-rule">↕</span>;
+  if (!dir)
+    return (
+      <span aria-hidden="true" className="text-rule">
+        ↕
+      </span>
+    );
   return <span aria-hidden="true">{dir === "asc" ? "▲" : "▼"}</span>;
 }
 
@@ -16,9 +21,19 @@ export function FlagTable({ table }: { table: Table<FlagListItem> }) {
         {table.getHeaderGroups().map((hg) => (
           <tr key={hg.id}>
             {hg.headers.map((h) => (
-              <th key={h.id} className="p-2 font-semibold" aria-sort={h.column.getIsSorted() ? (h.column.getIsSorted() === "asc" ? "ascending" : "descending") : undefined}>
+              <th
+                key={h.id}
+                className="p-2 font-semibold"
+                aria-sort={
+                  h.column.getIsSorted() ? (h.column.getIsSorted() === "asc" ? "ascending" : "descending") : undefined
+                }
+              >
                 {h.column.getCanSort() ? (
-                  <button type="button" className="inline-flex min-h-11 items-center gap-1 hover:text-ink" onClick={h.column.getToggleSortingHandler()}>
+                  <button
+                    type="button"
+                    className="inline-flex min-h-11 items-center gap-1 hover:text-ink"
+                    onClick={h.column.getToggleSortingHandler()}
+                  >
                     {flexRender(h.column.columnDef.header, h.getContext())} <SortMark dir={h.column.getIsSorted()} />
                   </button>
                 ) : (
@@ -32,7 +47,11 @@ export function FlagTable({ table }: { table: Table<FlagListItem> }) {
       <tbody>
         {table.getRowModel().rows.map((row) => (
           <tr key={row.id} className="border-t-2 border-rule align-top hover:bg-paper" data-flag-id={row.original.id}>
-            {row.getVisibleCells().map((cell) => <td key={cell.id} className="p-2">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>)}
+            {row.getVisibleCells().map((cell) => (
+              <td key={cell.id} className="p-2">
+                {flexRender(cell.column.columnDef.cell, cell.getContext())}
+              </td>
+            ))}
           </tr>
         ))}
       </tbody>

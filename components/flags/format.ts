@@ -13,7 +13,8 @@ export function figure(x: number | null | undefined, unit: string): string {
   return Number(short) === Number(long) ? short : long.replace(/0+$/, "");
 }
 
-export const withUnit = (x: number | null | undefined, unit: string) => (x === null || x === undefined ? "—" : `${figure(x, unit)} ${UNIT_WORDS[unit] ?? unit}`);
+export const withUnit = (x: number | null | undefined, unit: string) =>
+  x === null || x === undefined ? "—" : `${figure(x, unit)} ${UNIT_WORDS[unit] ?? unit}`;
 
 export function limitsText(min: number | null, max: number | null, unit: string): string {
   const u = UNIT_WORDS[unit] ?? unit;
@@ -49,4 +50,12 @@ export function age(iso: string, now = Date.now()): string {
 }
 
 export const when = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleString("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" }) : "—";
+  iso
+    ? new Date(iso).toLocaleString("en-GB", {
+        day: "numeric",
+        month: "short",
+        year: "numeric",
+        hour: "2-digit",
+        minute: "2-digit",
+      })
+    : "—";

@@ -16,7 +16,18 @@ export function RoundDot({ cx, cy, index, value }: DotProps) {
 
 export function SquareDot({ cx, cy, index, value }: DotProps) {
   if (cx === undefined || cy === undefined || value === null || value === undefined) return <g key={`b-${index}`} />;
-  return <rect key={`b-${index}`} x={cx - 6} y={cy - 6} width={12} height={12} fill="none" stroke={STEEL} strokeWidth={2.5} />;
+  return (
+    <rect
+      key={`b-${index}`}
+      x={cx - 6}
+      y={cy - 6}
+      width={12}
+      height={12}
+      fill="none"
+      stroke={STEEL}
+      strokeWidth={2.5}
+    />
+  );
 }
 
 const round = (x: number) => Number(x.toFixed(9));
@@ -25,7 +36,9 @@ const round = (x: number) => Number(x.toFixed(9));
  * Axis range and round ticks covering the figures and the limits: a step of 1, 2 or 5 × 10ⁿ
  * giving at most five intervals, so ticks read 4.0298, 4.0300… rather than 4.02977.
  */
-export function scaleOf(values: (number | null | undefined)[]): { domain: [number, number]; ticks: number[] } | undefined {
+export function scaleOf(
+  values: (number | null | undefined)[],
+): { domain: [number, number]; ticks: number[] } | undefined {
   const xs = values.filter((v): v is number => typeof v === "number" && Number.isFinite(v));
   if (!xs.length) return undefined;
   let lo = Math.min(...xs);
@@ -47,15 +60,23 @@ export function Legend({ a, b }: { a: string; b: string }) {
   return (
     <ul className="flex flex-wrap gap-x-6 gap-y-2 text-sm" aria-label="How to read the maps">
       <li className="flex items-center gap-2">
-        <svg width="44" height="14" aria-hidden="true"><line x1="2" y1="7" x2="42" y2="7" {...LINE_A} /><circle cx="22" cy="7" r="5" fill={INK} stroke="white" strokeWidth="1.5" /></svg>
+        <svg width="44" height="14" aria-hidden="true">
+          <line x1="2" y1="7" x2="42" y2="7" {...LINE_A} />
+          <circle cx="22" cy="7" r="5" fill={INK} stroke="white" strokeWidth="1.5" />
+        </svg>
         {a}: solid line, round marker
       </li>
       <li className="flex items-center gap-2">
-        <svg width="44" height="14" aria-hidden="true"><line x1="2" y1="7" x2="42" y2="7" {...LINE_B} /><rect x="16" y="1" width="12" height="12" fill="none" stroke={STEEL} strokeWidth="2.5" /></svg>
+        <svg width="44" height="14" aria-hidden="true">
+          <line x1="2" y1="7" x2="42" y2="7" {...LINE_B} />
+          <rect x="16" y="1" width="12" height="12" fill="none" stroke={STEEL} strokeWidth="2.5" />
+        </svg>
         {b}: dashed line, square marker
       </li>
       <li className="flex items-center gap-2">
-        <svg width="44" height="14" aria-hidden="true"><line x1="2" y1="7" x2="42" y2="7" {...LIMIT} /></svg>
+        <svg width="44" height="14" aria-hidden="true">
+          <line x1="2" y1="7" x2="42" y2="7" {...LIMIT} />
+        </svg>
         Limits (min / max): dotted
       </li>
     </ul>
@@ -63,7 +84,10 @@ export function Legend({ a, b }: { a: string; b: string }) {
 }
 
 /** The limit lines of a chart: each distinct minimum and maximum, labelled min or max. */
-export function limitLines(points: { min: number | null; max: number | null }[]): { value: number; label: "min" | "max" }[] {
-  const of = (k: "min" | "max") => [...new Set(points.map((p) => p[k]).filter((x): x is number => x !== null))].map((value) => ({ value, label: k }));
+export function limitLines(
+  points: { min: number | null; max: number | null }[],
+): { value: number; label: "min" | "max" }[] {
+  const of = (k: "min" | "max") =>
+    [...new Set(points.map((p) => p[k]).filter((x): x is number => x !== null))].map((value) => ({ value, label: k }));
   return [...of("min"), ...of("max")];
 }

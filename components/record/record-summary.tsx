@@ -9,15 +9,21 @@ function ReleaseState({ record }: { record: BuildRecord }) {
   if (r.status === "void") {
     return (
       <Notice tone="error" title="VOID: this release was withdrawn">
-        Withdrawn on {r.voidedAt}{r.voidedByName ? ` by ${r.voidedByName}` : ""}. Reason: {r.voidReason ?? "none given"}. Do not assemble from this record; ask {record.shop.name} for the current one.
+        Withdrawn on {r.voidedAt}
+        {r.voidedByName ? ` by ${r.voidedByName}` : ""}. Reason: {r.voidReason ?? "none given"}. Do not assemble from
+        this record; ask {record.shop.name} for the current one.
       </Notice>
     );
   }
   return (
     <div className="rounded-tool border-4 border-steel bg-panel p-4" data-testid="release-state">
       <p className="text-xl font-semibold">Released for assembly</p>
-      <p>Signed by {r.signedName}, inspector, on {r.signedAt}.</p>
-      <p className="mt-2 text-sm text-muted">Fingerprint (SHA-256): <span className="break-all font-mono">{r.hash}</span></p>
+      <p>
+        Signed by {r.signedName}, inspector, on {r.signedAt}.
+      </p>
+      <p className="mt-2 text-sm text-muted">
+        Fingerprint (SHA-256): <span className="break-all font-mono">{r.hash}</span>
+      </p>
       <p className="text-sm text-muted">{r.check.words}</p>
     </div>
   );
@@ -27,9 +33,15 @@ function Tally({ record }: { record: BuildRecord }) {
   const t = record.tally;
   return (
     <ul className="flex flex-wrap gap-3" aria-label="Readings by verdict">
-      <li className="flex items-center gap-2"><VerdictBadge verdict="in_spec" /> <span className="tabular">{t.inSpec}</span></li>
-      <li className="flex items-center gap-2"><VerdictBadge verdict="marginal" /> <span className="tabular">{t.marginal}</span></li>
-      <li className="flex items-center gap-2"><VerdictBadge verdict="out_of_spec" /> <span className="tabular">{t.outOfSpec}</span></li>
+      <li className="flex items-center gap-2">
+        <VerdictBadge verdict="in_spec" /> <span className="tabular">{t.inSpec}</span>
+      </li>
+      <li className="flex items-center gap-2">
+        <VerdictBadge verdict="marginal" /> <span className="tabular">{t.marginal}</span>
+      </li>
+      <li className="flex items-center gap-2">
+        <VerdictBadge verdict="out_of_spec" /> <span className="tabular">{t.outOfSpec}</span>
+      </li>
       {t.skipped > 0 && <li className="text-muted">{t.skipped} skipped</li>}
     </ul>
   );
@@ -41,12 +53,30 @@ export function RecordSummary({ record }: { record: BuildRecord }) {
     <div className="flex flex-col gap-6">
       <ReleaseState record={record} />
       <section className="grid gap-4 sm:grid-cols-2">
-        <div><h2 className="font-semibold">Shop</h2><p>{record.shop.name}</p>{record.shop.contact.map((c) => <p key={c} className="text-muted">{c}</p>)}</div>
-        <div><h2 className="font-semibold">Engine</h2>{record.engine.map((l) => <p key={l.label}><span className="text-muted">{l.label}:</span> {l.value}</p>)}</div>
+        <div>
+          <h2 className="font-semibold">Shop</h2>
+          <p>{record.shop.name}</p>
+          {record.shop.contact.map((c) => (
+            <p key={c} className="text-muted">
+              {c}
+            </p>
+          ))}
+        </div>
+        <div>
+          <h2 className="font-semibold">Engine</h2>
+          {record.engine.map((l) => (
+            <p key={l.label}>
+              <span className="text-muted">{l.label}:</span> {l.value}
+            </p>
+          ))}
+        </div>
       </section>
       <section>
         <h2 className="mb-2 text-xl font-semibold">What was measured</h2>
-        <p className="mb-3">{record.tally.measured} stations measured and {record.derived.length} values computed from them, in {record.sections.map((s) => s.label.toLowerCase()).join(", ") || "no sections"}.</p>
+        <p className="mb-3">
+          {record.tally.measured} stations measured and {record.derived.length} values computed from them, in{" "}
+          {record.sections.map((s) => s.label.toLowerCase()).join(", ") || "no sections"}.
+        </p>
         <Tally record={record} />
       </section>
       {decided.length > 0 && (
@@ -55,8 +85,15 @@ export function RecordSummary({ record }: { record: BuildRecord }) {
           <ul className="flex flex-col gap-2">
             {decided.map((f) => (
               <li key={f.id} className="rounded-tool border-2 border-rule bg-panel p-3">
-                <p className="flex flex-wrap items-center gap-2 font-semibold"><VerdictBadge verdict={f.verdict} size="sm" /> {f.what}, {f.station}: {f.value} (limits {f.limits})</p>
-                {f.decisions.map((d, i) => <p key={i} className="text-sm">{d.when}{d.who ? `, ${d.who}` : ""}: {d.words}</p>)}
+                <p className="flex flex-wrap items-center gap-2 font-semibold">
+                  <VerdictBadge verdict={f.verdict} size="sm" /> {f.what}, {f.station}: {f.value} (limits {f.limits})
+                </p>
+                {f.decisions.map((d, i) => (
+                  <p key={i} className="text-sm">
+                    {d.when}
+                    {d.who ? `, ${d.who}` : ""}: {d.words}
+                  </p>
+                ))}
               </li>
             ))}
           </ul>
@@ -66,13 +103,21 @@ export function RecordSummary({ record }: { record: BuildRecord }) {
         <section>
           <h2 className="mb-2 text-xl font-semibold">Fastener torque</h2>
           <ul className="mb-3 flex flex-col gap-1">
-            {record.torque.map((t) => <li key={t.station}>{t.station}: <strong>{t.value}</strong>, lubricant {t.lubricant.toLowerCase()}</li>)}
+            {record.torque.map((t) => (
+              <li key={t.station}>
+                {t.station}: <strong>{t.value}</strong>, lubricant {t.lubricant.toLowerCase()}
+              </li>
+            ))}
           </ul>
           <FastenerCaution />
         </section>
       )}
       <Notice tone="caution" title="Safety">
-        {record.safety.map((line) => <p key={line} className="mb-1">{line}</p>)}
+        {record.safety.map((line) => (
+          <p key={line} className="mb-1">
+            {line}
+          </p>
+        ))}
       </Notice>
     </div>
   );

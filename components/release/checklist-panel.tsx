@@ -16,7 +16,9 @@ function Item({ item }: { item: ChecklistItem }) {
     <li className="flex flex-wrap items-baseline gap-x-3 text-sm" data-item={item.key}>
       <span>{item.text}</span>
       {item.links.map((l) => (
-        <Link key={l.href} href={l.href} className="whitespace-nowrap font-medium text-steel underline">{l.label}</Link>
+        <Link key={l.href} href={l.href} className="whitespace-nowrap font-medium text-steel underline">
+          {l.label}
+        </Link>
       ))}
     </li>
   );
@@ -39,9 +41,14 @@ function Sections({ items }: { items: ChecklistItem[] }) {
         <li key={section}>
           <details>
             <summary className="min-h-8 cursor-pointer text-sm font-medium">
-              {SECTION_LABELS[section as SectionId] ?? section}: {group.length} {group.length === 1 ? "station" : "stations"}
+              {SECTION_LABELS[section as SectionId] ?? section}: {group.length}{" "}
+              {group.length === 1 ? "station" : "stations"}
             </summary>
-            <ul className="mt-1 flex flex-col gap-1.5 pl-4">{group.map((item) => <Item key={item.key} item={item} />)}</ul>
+            <ul className="mt-1 flex flex-col gap-1.5 pl-4">
+              {group.map((item) => (
+                <Item key={item.key} item={item} />
+              ))}
+            </ul>
           </details>
         </li>
       ))}
@@ -53,7 +60,11 @@ function Check({ check, n }: { check: ChecklistCheck; n: number }) {
   const [open, setOpen] = useState(false);
   const shown = open ? check.items : check.items.slice(0, FOLD);
   return (
-    <li className="flex flex-col gap-2 border-t-2 border-rule py-3 first:border-t-0" data-check={check.id} data-ok={check.ok}>
+    <li
+      className="flex flex-col gap-2 border-t-2 border-rule py-3 first:border-t-0"
+      data-check={check.id}
+      data-ok={check.ok}
+    >
       <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
         <span className="font-mono text-sm text-muted">{n}</span>
         <StatusTag tone={check.ok ? "good" : "bad"}>{check.ok ? "Complete" : "Blocking"}</StatusTag>
@@ -63,10 +74,17 @@ function Check({ check, n }: { check: ChecklistCheck; n: number }) {
       {check.id === "readings" && check.items.length > FOLD && <Sections items={check.items} />}
       {check.items.length > 0 && !(check.id === "readings" && check.items.length > FOLD) && (
         <ul className="ml-6 flex flex-col gap-1.5 border-l-4 border-fail pl-3">
-          {shown.map((item) => <Item key={item.key} item={item} />)}
+          {shown.map((item) => (
+            <Item key={item.key} item={item} />
+          ))}
           {check.items.length > FOLD && (
             <li>
-              <button type="button" className="min-h-11 text-sm font-semibold text-steel underline" onClick={() => setOpen(!open)} aria-expanded={open}>
+              <button
+                type="button"
+                className="min-h-11 text-sm font-semibold text-steel underline"
+                onClick={() => setOpen(!open)}
+                aria-expanded={open}
+              >
                 {open ? "Show fewer" : `Show all ${check.items.length}`}
               </button>
             </li>
@@ -82,13 +100,19 @@ export function ChecklistPanel({ checklist }: { checklist: ReleaseChecklist }) {
   return (
     <section aria-labelledby="checklist-h" className="rounded-tool border-2 border-rule bg-panel p-4">
       <div className="flex flex-wrap items-center justify-between gap-2">
-        <h2 id="checklist-h" className="text-xl font-semibold">Release checklist</h2>
+        <h2 id="checklist-h" className="text-xl font-semibold">
+          Release checklist
+        </h2>
         <p className="font-semibold" data-testid="checklist-state">
-          {blocking === 0 ? "Nothing blocks release" : `${blocking} ${blocking === 1 ? "item blocks" : "items block"} release`}
+          {blocking === 0
+            ? "Nothing blocks release"
+            : `${blocking} ${blocking === 1 ? "item blocks" : "items block"} release`}
         </p>
       </div>
       <ol className="mt-2">
-        {checklist.checks.map((c, i) => <Check key={c.id} check={c} n={i + 1} />)}
+        {checklist.checks.map((c, i) => (
+          <Check key={c.id} check={c} n={i + 1} />
+        ))}
       </ol>
     </section>
   );

@@ -10,7 +10,9 @@ export function ReadingsSummary({ counts }: { counts: ReadingCounts }) {
   ] as const;
   return (
     <section aria-labelledby="readings-h" className="rounded-tool border-2 border-rule bg-panel p-4">
-      <h2 id="readings-h" className="text-xl font-semibold">Readings</h2>
+      <h2 id="readings-h" className="text-xl font-semibold">
+        Readings
+      </h2>
       <p className="text-sm text-muted">{counts.current} current readings</p>
       <ul className="mt-3 flex flex-wrap gap-3">
         {(["in_spec", "marginal", "out_of_spec"] as const).map((v) => (
@@ -21,7 +23,11 @@ export function ReadingsSummary({ counts }: { counts: ReadingCounts }) {
         ))}
       </ul>
       <ul className="mt-3 flex flex-wrap gap-x-4 text-sm text-muted">
-        {extra.map(([n, words]) => <li key={words}><span className="tabular font-semibold text-ink">{n}</span> {words}</li>)}
+        {extra.map(([n, words]) => (
+          <li key={words}>
+            <span className="tabular font-semibold text-ink">{n}</span> {words}
+          </li>
+        ))}
       </ul>
     </section>
   );

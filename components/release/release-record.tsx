@@ -15,19 +15,34 @@ const VERIFY_WORDS = { match: "Matches", changed: "Changed since release", void:
 
 function VerifyNow({ jobId }: { jobId: number }) {
   const v = useVerification(jobId, true);
-  if (v.isPending) return <p className="text-sm text-muted" role="status">Checking the record against the database…</p>;
+  if (v.isPending)
+    return (
+      <p className="text-sm text-muted" role="status">
+        Checking the record against the database…
+      </p>
+    );
   if (v.isError) return <p className="text-sm text-fail">Could not check: {v.error.message}</p>;
   const r: Verification = v.data;
   return (
     <div className="flex flex-col gap-1" data-testid="verification" data-status={r.status}>
       <div className="flex flex-wrap items-center gap-2">
         <StatusTag tone={VERIFY_TONE[r.status]}>{VERIFY_WORDS[r.status]}</StatusTag>
-        <button type="button" className="min-h-11 text-sm font-semibold text-steel underline" onClick={() => v.refetch()}>Check again</button>
+        <button
+          type="button"
+          className="min-h-11 text-sm font-semibold text-steel underline"
+          onClick={() => v.refetch()}
+        >
+          Check again
+        </button>
       </div>
       <p className="text-sm">{r.words}</p>
       {r.differences.length > 0 && (
         <ul className="ml-4 list-disc text-sm">
-          {r.differences.slice(0, 12).map((d) => <li key={`${d.section}:${d.id}`}>{d.label}: {d.change}</li>)}
+          {r.differences.slice(0, 12).map((d) => (
+            <li key={`${d.section}:${d.id}`}>
+              {d.label}: {d.change}
+            </li>
+          ))}
           {r.differences.length > 12 && <li>and {r.differences.length - 12} more</li>}
         </ul>
       )}
@@ -38,44 +53,77 @@ function VerifyNow({ jobId }: { jobId: number }) {
 function Entry({ r, verifyHref }: { r: ReleaseRecord; verifyHref: string }) {
   const isVoid = r.status === "void";
   return (
-    <li className={`flex flex-col gap-2 rounded-tool border-2 p-4 ${isVoid ? "border-rule bg-paper" : "border-pass bg-panel"}`} data-release={r.id} data-status={r.status}>
+    <li
+      className={`flex flex-col gap-2 rounded-tool border-2 p-4 ${isVoid ? "border-rule bg-paper" : "border-pass bg-panel"}`}
+      data-release={r.id}
+      data-status={r.status}
+    >
       <div className="flex items-start justify-between gap-3">
         <div className="flex flex-wrap items-center gap-2">
           <StatusTag tone={isVoid ? "off" : "good"}>{isVoid ? "VOID" : "Released"}</StatusTag>
           <span className="font-semibold">Signed by {r.signedName}</span>
-          {r.signedName.toLowerCase() !== r.inspectorName.toLowerCase() && <span className="text-sm text-muted">(account: {r.inspectorName})</span>}
+          {r.signedName.toLowerCase() !== r.inspectorName.toLowerCase() && (
+            <span className="text-sm text-muted">(account: {r.inspectorName})</span>
+          )}
           <span className="text-sm text-muted">{stamp(r.signedAt)}</span>
         </div>
         {isVoid && (
-          <span aria-hidden="true" className="shrink-0 rotate-[-6deg] rounded-tool border-4 border-fail px-2 text-3xl font-black tracking-widest text-fail">VOID</span>
+          <span
+            aria-hidden="true"
+            className="shrink-0 rotate-[-6deg] rounded-tool border-4 border-fail px-2 text-3xl font-black tracking-widest text-fail"
+          >
+            VOID
+          </span>
         )}
       </div>
       <div className="flex flex-col">
         <span className="text-sm text-muted">Fingerprint (SHA-256, canonical record version {r.canonicalVersion})</span>
         <code className="flex flex-wrap gap-x-2 font-mono text-sm" data-testid="release-hash" data-hash={r.hash}>
-          {groups(r.hash).map((g, i) => <span key={i}>{g}</span>)}
+          {groups(r.hash).map((g, i) => (
+            <span key={i}>{g}</span>
+          ))}
         </code>
       </div>
       {isVoid && (
         <p className="text-sm" data-testid="void-reason">
-          <span className="font-semibold">Voided {r.voidedAt ? stamp(r.voidedAt) : ""}{r.voidedByName ? ` by ${r.voidedByName}` : ""}.</span> Reason: {r.voidReason}
+          <span className="font-semibold">
+            Voided {r.voidedAt ? stamp(r.voidedAt) : ""}
+            {r.voidedByName ? ` by ${r.voidedByName}` : ""}.
+          </span>{" "}
+          Reason: {r.voidReason}
         </p>
       )}
-      <Link href={verifyHref} className="text-sm font-medium text-steel underline">Public verification page for this fingerprint</Link>
+      <Link href={verifyHref} className="text-sm font-medium text-steel underline">
+        Public verification page for this fingerprint
+      </Link>
     </li>
   );
 }
 
-export function ReleaseRecords({ jobId, jobCode, releases }: { jobId: number; jobCode: string; releases: ReleaseRecord[] }) {
+export function ReleaseRecords({
+  jobId,
+  jobCode,
+  releases,
+}: {
+  jobId: number;
+  jobCode: string;
+  releases: ReleaseRecord[];
+}) {
   const standing = releases.find((r) => r.status === "standing");
   return (
     <section aria-labelledby="record-h" className="flex flex-col gap-3 rounded-tool border-2 border-rule bg-panel p-4">
-      <h2 id="record-h" className="text-xl font-semibold">Release record</h2>
-      {releases.length === 0 ? <p className="text-muted">Not released yet.</p> : (
+      <h2 id="record-h" className="text-xl font-semibold">
+        Release record
+      </h2>
+      {releases.length === 0 ? (
+        <p className="text-muted">Not released yet.</p>
+      ) : (
         <>
           {standing && <VerifyNow jobId={jobId} />}
           <ol className="flex flex-col gap-3">
-            {releases.map((r) => <Entry key={r.id} r={r} verifyHref={`/verify?job=${encodeURIComponent(jobCode)}&hash=${r.hash}`} />)}
+            {releases.map((r) => (
+              <Entry key={r.id} r={r} verifyHref={`/verify?job=${encodeURIComponent(jobCode)}&hash=${r.hash}`} />
+            ))}
           </ol>
         </>
       )}

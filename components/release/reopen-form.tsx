@@ -25,23 +25,44 @@ export function ReopenForm({ jobId, jobCode }: { jobId: number; jobCode: string 
       form.reset();
     } catch (err) {
       if (err instanceof ApiError && err.fields?.reason) form.setError("reason", { message: err.fields.reason[0] });
-      setProblem(err instanceof ApiError ? err.message : "Could not reach the server; the job was not reopened. Try again.");
+      setProblem(
+        err instanceof ApiError ? err.message : "Could not reach the server; the job was not reopened. Try again.",
+      );
     }
   });
 
   return (
     <section aria-labelledby={`${id}-h`} className="flex flex-col gap-3 rounded-tool border-2 border-fail bg-panel p-4">
-      <h2 id={`${id}-h`} className="text-xl font-semibold">Reopen {jobCode}</h2>
-      <p className="text-sm">Reopening voids the standing release. It stays on the record marked VOID with your reason, the readings unlock, and the inspector must release again.</p>
+      <h2 id={`${id}-h`} className="text-xl font-semibold">
+        Reopen {jobCode}
+      </h2>
+      <p className="text-sm">
+        Reopening voids the standing release. It stays on the record marked VOID with your reason, the readings unlock,
+        and the inspector must release again.
+      </p>
       {problem && <Notice tone="error">{problem}</Notice>}
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">
         <label htmlFor={id} className="flex flex-col gap-1.5">
           <span className="font-medium">Why is the job reopened?</span>
-          <textarea id={id} rows={3} aria-invalid={error ? true : undefined} aria-describedby={error ? `${id}-err` : undefined}
-            className={`rounded-tool border-2 bg-paper p-3 text-base ${error ? "border-fail" : "border-rule"}`} {...form.register("reason")} />
-          {error && <span id={`${id}-err`} className="text-sm font-medium text-fail">{error}</span>}
+          <textarea
+            id={id}
+            rows={3}
+            aria-invalid={error ? true : undefined}
+            aria-describedby={error ? `${id}-err` : undefined}
+            className={`rounded-tool border-2 bg-paper p-3 text-base ${error ? "border-fail" : "border-rule"}`}
+            {...form.register("reason")}
+          />
+          {error && (
+            <span id={`${id}-err`} className="text-sm font-medium text-fail">
+              {error}
+            </span>
+          )}
         </label>
-        <div><Button type="submit" tone="danger" disabled={form.formState.isSubmitting}>{form.formState.isSubmitting ? "Reopening…" : "Reopen and void the release"}</Button></div>
+        <div>
+          <Button type="submit" tone="danger" disabled={form.formState.isSubmitting}>
+            {form.formState.isSubmitting ? "Reopening…" : "Reopen and void the release"}
+          </Button>
+        </div>
       </form>
     </section>
   );

@@ -8,7 +8,12 @@ const TONES: Record<Tone, string> = {
   danger: "bg-fail text-white hover:brightness-110",
 };
 
-export function Button({ tone = "primary", big = false, className = "", ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: Tone; big?: boolean }) {
+export function Button({
+  tone = "primary",
+  big = false,
+  className = "",
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: Tone; big?: boolean }) {
   const size = big ? "min-h-16 px-6 text-lg" : "min-h-11 px-4 text-base";
   return (
     <button

@@ -5,7 +5,12 @@ export function LogoMark({ size = 36, className = "" }: { size?: number; classNa
     const a = Math.PI * (1.1 + (0.8 * i) / 10);
     const r1 = 13.5;
     const r2 = i % 5 === 0 ? 9.5 : 11.2;
-    return { x1: 20 + r1 * Math.cos(a), y1: 21 + r1 * Math.sin(a), x2: 20 + r2 * Math.cos(a), y2: 21 + r2 * Math.sin(a) };
+    return {
+      x1: 20 + r1 * Math.cos(a),
+      y1: 21 + r1 * Math.sin(a),
+      x2: 20 + r2 * Math.cos(a),
+      y2: 21 + r2 * Math.sin(a),
+    };
   });
   return (
     <svg width={size} height={size} viewBox="0 0 40 40" aria-hidden="true" className={className}>
@@ -23,7 +28,9 @@ export function Wordmark({ className = "" }: { className?: string }) {
   return (
     <span className={`inline-flex items-center gap-2 font-semibold tracking-tight ${className}`}>
       <LogoMark size={32} />
-      <span className="text-xl">Tenth<span className="text-brass">wise</span></span>
+      <span className="text-xl">
+        Tenth<span className="text-brass">wise</span>
+      </span>
     </span>
   );
 }

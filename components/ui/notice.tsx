@@ -7,7 +7,15 @@ const STYLES = {
   error: "border-fail bg-fail-soft",
 } as const;
 
-export function Notice({ tone = "info", title, children }: { tone?: keyof typeof STYLES; title?: string; children: ReactNode }) {
+export function Notice({
+  tone = "info",
+  title,
+  children,
+}: {
+  tone?: keyof typeof STYLES;
+  title?: string;
+  children: ReactNode;
+}) {
   return (
     <div role={tone === "error" ? "alert" : "note"} className={`rounded-tool border-l-4 p-3 text-sm ${STYLES[tone]}`}>
       {title && <p className="mb-1 font-semibold">{title}</p>}

@@ -30,9 +30,13 @@ export function VerdictShape({ verdict, size = 16 }: { verdict: Verdict; size?: 
 }
 
 export function VerdictBadge({ verdict, size = "md" }: { verdict: Verdict; size?: "sm" | "md" | "lg" }) {
-  const pad = size === "lg" ? "px-4 py-2 text-xl gap-3" : size === "sm" ? "px-2 py-0.5 text-xs gap-1" : "px-3 py-1 text-sm gap-2";
+  const pad =
+    size === "lg" ? "px-4 py-2 text-xl gap-3" : size === "sm" ? "px-2 py-0.5 text-xs gap-1" : "px-3 py-1 text-sm gap-2";
   return (
-    <span className={`inline-flex items-center rounded-full border-2 font-semibold ${pad} ${TONE[verdict]}`} data-verdict={verdict}>
+    <span
+      className={`inline-flex items-center rounded-full border-2 font-semibold ${pad} ${TONE[verdict]}`}
+      data-verdict={verdict}
+    >
       <VerdictShape verdict={verdict} size={size === "lg" ? 22 : size === "sm" ? 11 : 15} />
       {VERDICT_WORDS[verdict]}
     </span>

@@ -1,7 +1,12 @@
 // Browser fetch helper: JSON in, JSON out, and our error envelope turned into an ApiError
 // whose message says what to fix and whose `fields` map field errors for forms.
 export class ApiError extends Error {
-  constructor(readonly status: number, readonly code: string, message: string, readonly fields?: Record<string, string[]>) {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: Record<string, string[]>,
+  ) {
     super(message);
   }
 }
@@ -18,7 +23,12 @@ export async function api<T>(url: string, init: RequestInit & { json?: unknown }
   const body = await res.json().catch(() => null);
   if (!res.ok) {
     const e = body?.error;
-    throw new ApiError(res.status, e?.code ?? "http_error", e?.message ?? `The server answered ${res.status}`, e?.fields);
+    throw new ApiError(
+      res.status,
+      e?.code ?? "http_error",
+      e?.message ?? `The server answered ${res.status}`,
+      e?.fields,
+    );
   }
   return body as T;
 }

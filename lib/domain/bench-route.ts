@@ -3,12 +3,35 @@
 // crank, the rods (bolt free length, then bearing bores and torqued length with the caps on),
 // pistons and rings, then the assembly checks (end play, side clearance), torque, and lash.
 // Sections are grouped so the tablet can show progress per section.
-import { describeStation, deckBanks, parseStationId, ringNames, valveNames, CHARACTERISTICS, SECTION_LABELS, BORE_DEPTHS, AXES, JOURNAL_POSITIONS } from "./stations";
+import {
+  describeStation,
+  deckBanks,
+  parseStationId,
+  ringNames,
+  valveNames,
+  CHARACTERISTICS,
+  SECTION_LABELS,
+  BORE_DEPTHS,
+  AXES,
+  JOURNAL_POSITIONS,
+} from "./stations";
 import { EXPANSION_COEFFICIENTS } from "./thermal";
 import type { BenchRoute, EngineShape, LengthUnit, RouteSection, SectionId, Station, TorqueUnit } from "./types";
 
 export const SECTION_ORDER: readonly SectionId[] = [
-  "bore", "deck", "main-brg", "main", "rod", "bolt", "rod-brg", "skirt", "ring-gap", "end-play", "side", "torque", "lash",
+  "bore",
+  "deck",
+  "main-brg",
+  "main",
+  "rod",
+  "bolt",
+  "rod-brg",
+  "skirt",
+  "ring-gap",
+  "end-play",
+  "side",
+  "torque",
+  "lash",
 ];
 
 /** Fastener groups logged when the engine names none. */
@@ -34,7 +57,9 @@ function checkOptions(engine: EngineShape): void {
   for (const g of engine.torqueGroups ?? []) parseStationId(`torque/${g}`);
   for (const [part, material] of Object.entries(engine.materials ?? {})) {
     if (!(material in EXPANSION_COEFFICIENTS)) {
-      throw new Error(`Unknown material '${String(material)}' for ${part}; use one of ${Object.keys(EXPANSION_COEFFICIENTS).join(", ")}`);
+      throw new Error(
+        `Unknown material '${String(material)}' for ${part}; use one of ${Object.keys(EXPANSION_COEFFICIENTS).join(", ")}`,
+      );
     }
   }
   for (const [size, value] of Object.entries(engine.nominalSizes ?? {})) {
@@ -46,13 +71,16 @@ function checkOptions(engine: EngineShape): void {
 
 /** Throws, saying what to fix, when an engine shape cannot be measured as given. */
 export function checkEngineShape(engine: EngineShape): void {
-  if (engine === null || typeof engine !== "object") throw new Error("An engine shape is needed (cylinders, layout, mains…)");
+  if (engine === null || typeof engine !== "object")
+    throw new Error("An engine shape is needed (cylinders, layout, mains…)");
   whole(engine.cylinders, "Cylinders", 1, 16);
   if (!["inline", "v", "flat"].includes(engine.layout)) {
     throw new Error(`Layout must be inline, v or flat; got '${String(engine.layout)}'`);
   }
   if (engine.layout !== "inline" && engine.cylinders % 2 !== 0) {
-    throw new Error(`A ${engine.layout === "v" ? "V" : "flat"} engine has an even number of cylinders; got ${engine.cylinders}`);
+    throw new Error(
+      `A ${engine.layout === "v" ? "V" : "flat"} engine has an even number of cylinders; got ${engine.cylinders}`,
+    );
   }
   whole(engine.mains, "Main bearings", 1, 10);
   valveNames(engine.valvesPerCylinder);
@@ -93,11 +121,14 @@ const STATION_IDS: Record<SectionId, (e: EngineShape) => string[]> = {
   main: (e) => spans("main", e.mains),
   rod: (e) => spans("rod", rodJournalCount(e)),
   // All free lengths first (rods apart on the bench), then torqued lengths as each cap goes on.
-  bolt: (e) => (["free", "loaded"] as const).flatMap((s) =>
-    range(e.cylinders).flatMap((r) => range(e.boltsPerRod ?? 2).map((b) => `bolt/${r}/${b}/${s}`))),
+  bolt: (e) =>
+    (["free", "loaded"] as const).flatMap((s) =>
+      range(e.cylinders).flatMap((r) => range(e.boltsPerRod ?? 2).map((b) => `bolt/${r}/${b}/${s}`)),
+    ),
   "rod-brg": (e) => spans("rod-brg", e.cylinders),
   skirt: (e) => range(e.cylinders).map((c) => `skirt/${c}`),
-  "ring-gap": (e) => range(e.cylinders).flatMap((c) => ringNames(e.ringsPerPiston ?? 3).map((r) => `ring-gap/${c}/${r}`)),
+  "ring-gap": (e) =>
+    range(e.cylinders).flatMap((c) => ringNames(e.ringsPerPiston ?? 3).map((r) => `ring-gap/${c}/${r}`)),
   "end-play": () => ["end-play"],
   side: (e) => range(e.cylinders).map((r) => `side/${r}`),
   torque: (e) => (e.torqueGroups ?? DEFAULT_TORQUE_GROUPS).map((g) => `torque/${g}`),
@@ -110,8 +141,13 @@ function stationOf(id: string, engine: EngineShape): Station {
   const info = CHARACTERISTICS[characteristic];
   const torque = info.kind === "torque";
   return {
-    id, characteristic, section, label: describeStation(id), kind: info.kind,
-    unit: torque ? torqueUnitOf(engine) : lengthUnitOf(engine), torque,
+    id,
+    characteristic,
+    section,
+    label: describeStation(id),
+    kind: info.kind,
+    unit: torque ? torqueUnitOf(engine) : lengthUnitOf(engine),
+    torque,
     ...(info.gaugeKind ? { gaugeKind: info.gaugeKind } : {}),
   };
 }
@@ -123,7 +159,8 @@ function stationOf(id: string, engine: EngineShape): Station {
 export function benchRoute(engine: EngineShape, sections?: SectionId[]): BenchRoute {
   checkEngineShape(engine);
   for (const s of sections ?? []) {
-    if (!SECTION_ORDER.includes(s)) throw new Error(`Unknown section '${String(s)}'; use one of ${SECTION_ORDER.join(", ")}`);
+    if (!SECTION_ORDER.includes(s))
+      throw new Error(`Unknown section '${String(s)}'; use one of ${SECTION_ORDER.join(", ")}`);
   }
   const wanted = SECTION_ORDER.filter((s) => !sections || sections.includes(s));
   const out: RouteSection[] = wanted.map((id) => {

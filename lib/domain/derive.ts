@@ -17,11 +17,29 @@ import { benchRoute, checkEngineShape, lengthUnitOf, rodJournalCount, rodJournal
 import { boltStretch, oilClearance, pistonToWall } from "./clearances";
 import { boreGeometry, journalGeometry } from "./geometry";
 import { judge, limitsFor, type LimitContext } from "./limits";
-import { AXES, BORE_DEPTHS, CHARACTERISTICS, JOURNAL_POSITIONS, LUBRICANT_LABELS, describeStation, parseStationId } from "./stations";
+import {
+  AXES,
+  BORE_DEPTHS,
+  CHARACTERISTICS,
+  JOURNAL_POSITIONS,
+  LUBRICANT_LABELS,
+  describeStation,
+  parseStationId,
+} from "./stations";
 import { correctTo20C, EXPANSION_COEFFICIENTS } from "./thermal";
 import type {
-  CharacteristicId, DerivedCharacteristic, DerivedValue, EngineShape, Evaluation, LengthUnit,
-  MeasureUnit, NominalSizes, RawCharacteristic, RawReading, SpecLimit, ThermalCorrection,
+  CharacteristicId,
+  DerivedCharacteristic,
+  DerivedValue,
+  EngineShape,
+  Evaluation,
+  LengthUnit,
+  MeasureUnit,
+  NominalSizes,
+  RawCharacteristic,
+  RawReading,
+  SpecLimit,
+  ThermalCorrection,
 } from "./types";
 import { clearanceUncertainty } from "./uncertainty";
 import { cleanDecimal, convertLength } from "./units";
@@ -43,11 +61,15 @@ function checkReading(reading: RawReading, characteristic: RawCharacteristic): v
   const id = reading.stationId;
   const { kind, label } = CHARACTERISTICS[characteristic];
   const units = kind === "length" ? ["in", "mm"] : ["lbf_ft", "nm"];
-  if (!units.includes(reading.unit)) throw new Error(`${id} takes a ${kind} in ${units.join(" or ")}; got unit '${String(reading.unit)}'`);
-  if (typeof reading.value !== "number" || !Number.isFinite(reading.value)) throw new Error(`${id}: the value must be a number; re-enter it`);
+  if (!units.includes(reading.unit))
+    throw new Error(`${id} takes a ${kind} in ${units.join(" or ")}; got unit '${String(reading.unit)}'`);
+  if (typeof reading.value !== "number" || !Number.isFinite(reading.value))
+    throw new Error(`${id}: the value must be a number; re-enter it`);
   const zeroOk = MAY_BE_ZERO.has(characteristic);
   if (zeroOk ? reading.value < 0 : reading.value <= 0) {
-    throw new Error(`${id}: ${reading.value} cannot be right; a ${label.split(",")[0].toLowerCase()} is ${zeroOk ? "zero or more" : "above zero"}`);
+    throw new Error(
+      `${id}: ${reading.value} cannot be right; a ${label.split(",")[0].toLowerCase()} is ${zeroOk ? "zero or more" : "above zero"}`,
+    );
   }
   const u = reading.uncertainty;
   if (u !== undefined && (typeof u !== "number" || !Number.isFinite(u) || u < 0)) {
@@ -58,29 +80,52 @@ function checkReading(reading: RawReading, characteristic: RawCharacteristic): v
   }
 }
 
-function correction(reading: RawReading, characteristic: RawCharacteristic, engine: EngineShape): Pick<Prepared, "correction" | "note"> {
+function correction(
+  reading: RawReading,
+  characteristic: RawCharacteristic,
+  engine: EngineShape,
+): Pick<Prepared, "correction" | "note"> {
   const part = CHARACTERISTICS[characteristic].part;
   const t = reading.temperatureC;
   if (t === undefined || !part) return {};
   const material = reading.material ?? engine.materials?.[part];
-  if (!material) return { note: `Measured at ${t} °C, but no ${part} material is set, so it is not corrected to 20 °C` };
+  if (!material)
+    return { note: `Measured at ${t} °C, but no ${part} material is set, so it is not corrected to 20 °C` };
   const coefficient = EXPANSION_COEFFICIENTS[material];
   if (!coefficient) throw new Error(`${reading.stationId}: unknown material '${String(material)}'`);
   const g = reading.gaugeTemperatureC;
-  const corrected = cleanDecimal(correctTo20C({ length: reading.value, partTempC: t, alphaPart: coefficient.alpha, ...(g !== undefined ? { gaugeTempC: g } : {}) }));
+  const corrected = cleanDecimal(
+    correctTo20C({
+      length: reading.value,
+      partTempC: t,
+      alphaPart: coefficient.alpha,
+      ...(g !== undefined ? { gaugeTempC: g } : {}),
+    }),
+  );
   return {
-    correction: { stationId: reading.stationId, measured: reading.value, corrected, partTempC: t, alphaPart: coefficient.alpha, material, ...(g !== undefined ? { gaugeTempC: g } : {}) },
+    correction: {
+      stationId: reading.stationId,
+      measured: reading.value,
+      corrected,
+      partTempC: t,
+      alphaPart: coefficient.alpha,
+      material,
+      ...(g !== undefined ? { gaugeTempC: g } : {}),
+    },
   };
 }
 
 function prepare(reading: RawReading, engine: EngineShape): Prepared {
   if (reading === null || typeof reading !== "object") throw new Error("A reading needs { stationId, value, unit }");
   const { characteristic } = parseStationId(reading.stationId);
-  if (!characteristic) throw new Error(`${reading.stationId} names a part; readings are taken at stations such as 'bore/1/top/A'`);
+  if (!characteristic)
+    throw new Error(`${reading.stationId} names a part; readings are taken at stations such as 'bore/1/top/A'`);
   checkReading(reading, characteristic);
   const fix = correction(reading, characteristic, engine);
   return {
-    characteristic, unit: reading.unit, ...fix,
+    characteristic,
+    unit: reading.unit,
+    ...fix,
     value: fix.correction ? fix.correction.corrected : reading.value,
     ...(reading.uncertainty !== undefined ? { uncertainty: reading.uncertainty } : {}),
   };
@@ -111,12 +156,22 @@ function latestByStation(readings: RawReading[]): Map<string, RawReading> {
 
 // Which nominal size a characteristic's per-inch rule or ISO 286 class refers to.
 const SIZE_OF: Partial<Record<CharacteristicId, keyof NominalSizes>> = {
-  bore_diameter: "bore", piston_skirt_diameter: "bore", ring_end_gap: "bore", piston_to_wall: "bore",
-  bore_taper: "bore", bore_out_of_round: "bore",
-  main_journal_diameter: "mainJournal", main_bearing_bore: "mainJournal", main_oil_clearance: "mainJournal",
-  main_journal_taper: "mainJournal", main_journal_out_of_round: "mainJournal",
-  rod_journal_diameter: "rodJournal", rod_bearing_bore: "rodJournal", rod_oil_clearance: "rodJournal",
-  rod_journal_taper: "rodJournal", rod_journal_out_of_round: "rodJournal",
+  bore_diameter: "bore",
+  piston_skirt_diameter: "bore",
+  ring_end_gap: "bore",
+  piston_to_wall: "bore",
+  bore_taper: "bore",
+  bore_out_of_round: "bore",
+  main_journal_diameter: "mainJournal",
+  main_bearing_bore: "mainJournal",
+  main_oil_clearance: "mainJournal",
+  main_journal_taper: "mainJournal",
+  main_journal_out_of_round: "mainJournal",
+  rod_journal_diameter: "rodJournal",
+  rod_bearing_bore: "rodJournal",
+  rod_oil_clearance: "rodJournal",
+  rod_journal_taper: "rodJournal",
+  rod_journal_out_of_round: "rodJournal",
 };
 
 /** Limit context: a measured diameter when there is one, else the engine's nominal size. */
@@ -131,9 +186,14 @@ function contextFor(characteristic: CharacteristicId, engine: EngineShape, measu
   };
 }
 
-const joinNotes = (...notes: (string | undefined)[]): string | undefined => notes.filter(Boolean).join("; ") || undefined;
+const joinNotes = (...notes: (string | undefined)[]): string | undefined =>
+  notes.filter(Boolean).join("; ") || undefined;
 
-function boreMean(cylinder: number | undefined, readings: Map<string, Prepared>, engine: EngineShape): number | undefined {
+function boreMean(
+  cylinder: number | undefined,
+  readings: Map<string, Prepared>,
+  engine: EngineShape,
+): number | undefined {
   const values = BORE_DEPTHS.flatMap((d) => AXES.map((a) => readings.get(`bore/${cylinder}/${d}/${a}`)))
     .filter((p): p is Prepared => p !== undefined)
     .map((p) => toEngineUnit(p, engine));
@@ -144,7 +204,10 @@ function toEngineUnit(p: Prepared, engine: EngineShape, x = p.value): number {
   return cleanDecimal(convertLength(x, p.unit as LengthUnit, lengthUnitOf(engine)));
 }
 
-function prepareAll(readings: RawReading[], engine: EngineShape): { ok: Map<string, Prepared>; bad: Map<string, string> } {
+function prepareAll(
+  readings: RawReading[],
+  engine: EngineShape,
+): { ok: Map<string, Prepared>; bad: Map<string, string> } {
   const ok = new Map<string, Prepared>();
   const bad = new Map<string, string>();
   for (const [id, r] of latestByStation(readings)) {
@@ -162,17 +225,29 @@ function prepareAll(readings: RawReading[], engine: EngineShape): { ok: Map<stri
  * nominal. Throws, saying what to fix, for a station the engine does not have or a bad value.
  * `readings` (the job's others) give a ring-gap rule its bore; without them the nominal bore is used.
  */
-export function evaluateReading(reading: RawReading, engine: EngineShape, spec: SpecLimit[], readings: RawReading[] = []): Evaluation {
+export function evaluateReading(
+  reading: RawReading,
+  engine: EngineShape,
+  spec: SpecLimit[],
+  readings: RawReading[] = [],
+): Evaluation {
   checkEngineShape(engine);
   const p = prepare(reading, engine);
   if (!routeIds(engine).has(reading.stationId)) {
-    throw new Error(`Station '${reading.stationId}' is not on this engine's route (${engine.cylinders} cylinders, ${engine.mains} mains)`);
+    throw new Error(
+      `Station '${reading.stationId}' is not on this engine's route (${engine.cylinders} cylinders, ${engine.mains} mains)`,
+    );
   }
   const station = parseStationId(reading.stationId);
   const boreReadings = readings.filter((r) => r?.stationId?.startsWith(`bore/${station.cylinder}/`));
-  const bore = p.characteristic === "ring_end_gap" ? boreMean(station.cylinder, prepareAll(boreReadings, engine).ok, engine) : undefined;
+  const bore =
+    p.characteristic === "ring_end_gap"
+      ? boreMean(station.cylinder, prepareAll(boreReadings, engine).ok, engine)
+      : undefined;
   const found = limitsFor(spec, p.characteristic, reading.stationId, contextFor(p.characteristic, engine, bore));
-  const base: Evaluation = found.limits ? judge(p.value, p.unit, p.uncertainty, found.limits) : { value: p.value, unit: p.unit };
+  const base: Evaluation = found.limits
+    ? judge(p.value, p.unit, p.uncertainty, found.limits)
+    : { value: p.value, unit: p.unit };
   const note = joinNotes(p.note, found.note, base.note);
   return { ...base, ...(p.correction ? { correction: p.correction } : {}), ...(note ? { note } : {}) };
 }
@@ -187,10 +262,14 @@ interface Recipe {
 }
 
 function geometryRecipes(prefix: "bore" | "main" | "rod", n: number, inputs: string[], half: number): Recipe[] {
-  const shape = (v: number[]) => (prefix === "bore" ? boreGeometry : journalGeometry)({ axisA: v.slice(0, half), axisB: v.slice(half) });
-  const names = prefix === "bore" ? (["bore_taper", "bore_out_of_round"] as const)
-    : prefix === "main" ? (["main_journal_taper", "main_journal_out_of_round"] as const)
-    : (["rod_journal_taper", "rod_journal_out_of_round"] as const);
+  const shape = (v: number[]) =>
+    (prefix === "bore" ? boreGeometry : journalGeometry)({ axisA: v.slice(0, half), axisB: v.slice(half) });
+  const names =
+    prefix === "bore"
+      ? (["bore_taper", "bore_out_of_round"] as const)
+      : prefix === "main"
+        ? (["main_journal_taper", "main_journal_out_of_round"] as const)
+        : (["rod_journal_taper", "rod_journal_out_of_round"] as const);
   return [
     { characteristic: names[0], stationId: `${prefix}/${n}`, inputs, compute: (v) => shape(v).taper },
     { characteristic: names[1], stationId: `${prefix}/${n}`, inputs, compute: (v) => shape(v).outOfRound },
@@ -198,25 +277,53 @@ function geometryRecipes(prefix: "bore" | "main" | "rod", n: number, inputs: str
 }
 
 const range = (n: number): number[] => Array.from({ length: n }, (_, i) => i + 1);
-const byAxis = (head: string, spots: readonly string[]): string[] => AXES.flatMap((a) => spots.map((s) => `${head}/${s}/${a}`));
+const byAxis = (head: string, spots: readonly string[]): string[] =>
+  AXES.flatMap((a) => spots.map((s) => `${head}/${s}/${a}`));
 const points = JOURNAL_POSITIONS.flatMap((p) => AXES.map((a) => `${p}/${a}`));
 
 function recipes(engine: EngineShape): Recipe[] {
   const out: Recipe[] = [];
   for (const c of range(engine.cylinders)) {
     out.push(...geometryRecipes("bore", c, byAxis(`bore/${c}`, BORE_DEPTHS), BORE_DEPTHS.length));
-    out.push({ characteristic: "piston_to_wall", stationId: `bore/${c}`, inputs: [`bore/${c}/mid/A`, `skirt/${c}`], compute: (v) => pistonToWall(v[0], v[1]), diameterInput: 0 });
+    out.push({
+      characteristic: "piston_to_wall",
+      stationId: `bore/${c}`,
+      inputs: [`bore/${c}/mid/A`, `skirt/${c}`],
+      compute: (v) => pistonToWall(v[0], v[1]),
+      diameterInput: 0,
+    });
   }
-  for (const m of range(engine.mains)) out.push(...geometryRecipes("main", m, byAxis(`main/${m}`, JOURNAL_POSITIONS), JOURNAL_POSITIONS.length));
-  for (const j of range(rodJournalCount(engine))) out.push(...geometryRecipes("rod", j, byAxis(`rod/${j}`, JOURNAL_POSITIONS), JOURNAL_POSITIONS.length));
+  for (const m of range(engine.mains))
+    out.push(...geometryRecipes("main", m, byAxis(`main/${m}`, JOURNAL_POSITIONS), JOURNAL_POSITIONS.length));
+  for (const j of range(rodJournalCount(engine)))
+    out.push(...geometryRecipes("rod", j, byAxis(`rod/${j}`, JOURNAL_POSITIONS), JOURNAL_POSITIONS.length));
   for (const m of range(engine.mains)) {
-    for (const pt of points) out.push({ characteristic: "main_oil_clearance", stationId: `main-brg/${m}/${pt}`, inputs: [`main-brg/${m}/${pt}`, `main/${m}/${pt}`], compute: (v) => oilClearance(v[0], v[1]), diameterInput: 1 });
+    for (const pt of points)
+      out.push({
+        characteristic: "main_oil_clearance",
+        stationId: `main-brg/${m}/${pt}`,
+        inputs: [`main-brg/${m}/${pt}`, `main/${m}/${pt}`],
+        compute: (v) => oilClearance(v[0], v[1]),
+        diameterInput: 1,
+      });
   }
   for (const r of range(engine.cylinders)) {
     const pin = rodJournalOf(engine, r);
-    for (const pt of points) out.push({ characteristic: "rod_oil_clearance", stationId: `rod-brg/${r}/${pt}`, inputs: [`rod-brg/${r}/${pt}`, `rod/${pin}/${pt}`], compute: (v) => oilClearance(v[0], v[1]), diameterInput: 1 });
+    for (const pt of points)
+      out.push({
+        characteristic: "rod_oil_clearance",
+        stationId: `rod-brg/${r}/${pt}`,
+        inputs: [`rod-brg/${r}/${pt}`, `rod/${pin}/${pt}`],
+        compute: (v) => oilClearance(v[0], v[1]),
+        diameterInput: 1,
+      });
     for (const b of range(engine.boltsPerRod ?? 2)) {
-      out.push({ characteristic: "rod_bolt_stretch", stationId: `bolt/${r}/${b}`, inputs: [`bolt/${r}/${b}/free`, `bolt/${r}/${b}/loaded`], compute: (v) => boltStretch(v[0], v[1]) });
+      out.push({
+        characteristic: "rod_bolt_stretch",
+        stationId: `bolt/${r}/${b}`,
+        inputs: [`bolt/${r}/${b}/free`, `bolt/${r}/${b}/loaded`],
+        compute: (v) => boltStretch(v[0], v[1]),
+      });
     }
   }
   return out;
@@ -229,15 +336,33 @@ function combinedU(inputs: Prepared[], engine: EngineShape): number | undefined 
   return cleanDecimal(2 * clearanceUncertainty({ uBore: a / 2, uJournal: b / 2 }));
 }
 
-function derive(recipe: Recipe, engine: EngineShape, spec: SpecLimit[], ok: Map<string, Prepared>, bad: Map<string, string>): DerivedValue {
+function derive(
+  recipe: Recipe,
+  engine: EngineShape,
+  spec: SpecLimit[],
+  ok: Map<string, Prepared>,
+  bad: Map<string, string>,
+): DerivedValue {
   const { characteristic, stationId, inputs } = recipe;
   const unit = lengthUnitOf(engine);
   const missing = inputs.filter((id) => !ok.has(id));
-  const head = { key: `${characteristic}@${stationId}`, characteristic, stationId, label: `${CHARACTERISTICS[characteristic].label} · ${describeStation(stationId)}`, unit, inputs, missing };
+  const head = {
+    key: `${characteristic}@${stationId}`,
+    characteristic,
+    stationId,
+    label: `${CHARACTERISTICS[characteristic].label} · ${describeStation(stationId)}`,
+    unit,
+    inputs,
+    missing,
+  };
   const unusable = joinNotes(...missing.filter((id) => bad.has(id)).map((id) => `not usable: ${bad.get(id)}`));
   const got = inputs.map((id) => ok.get(id)).filter((p): p is Prepared => p !== undefined);
   const values = got.map((p) => toEngineUnit(p, engine));
-  const measured = missing.length ? undefined : recipe.diameterInput !== undefined ? values[recipe.diameterInput] : cleanDecimal(values.reduce((s, v) => s + v, 0) / values.length);
+  const measured = missing.length
+    ? undefined
+    : recipe.diameterInput !== undefined
+      ? values[recipe.diameterInput]
+      : cleanDecimal(values.reduce((s, v) => s + v, 0) / values.length);
   const found = limitsFor(spec, characteristic, stationId, contextFor(characteristic, engine, measured));
   if (missing.length) {
     const note = joinNotes(unusable, found.note);
@@ -247,9 +372,17 @@ function derive(recipe: Recipe, engine: EngineShape, spec: SpecLimit[], ok: Map<
   const U = combinedU(got, engine);
   const corrections = got.flatMap((p) => (p.correction ? [p.correction] : []));
   // judge reports the value in the limit's unit (a length unit, or the engine's when it cannot convert).
-  const judged: Evaluation = found.limits ? judge(value, unit, U, found.limits) : { value, unit, ...(U !== undefined ? { uncertainty: U } : {}) };
+  const judged: Evaluation = found.limits
+    ? judge(value, unit, U, found.limits)
+    : { value, unit, ...(U !== undefined ? { uncertainty: U } : {}) };
   const note = joinNotes(found.note, judged.note, ...got.map((p) => p.note));
-  return { ...head, ...judged, unit: judged.unit as LengthUnit, ...(corrections.length ? { corrections } : {}), ...(note ? { note } : {}) };
+  return {
+    ...head,
+    ...judged,
+    unit: judged.unit as LengthUnit,
+    ...(corrections.length ? { corrections } : {}),
+    ...(note ? { note } : {}),
+  };
 }
 
 export interface DeriveOptions {
@@ -265,7 +398,12 @@ export interface DeriveOptions {
  * and journal, piston-to-wall per cylinder, oil clearance per bearing point, stretch per bolt),
  * each with its resolved limits and verdict when the spec has a limit, and the inputs still missing.
  */
-export function deriveReadings(readings: RawReading[], engine: EngineShape, spec: SpecLimit[], options: DeriveOptions = {}): DerivedValue[] {
+export function deriveReadings(
+  readings: RawReading[],
+  engine: EngineShape,
+  spec: SpecLimit[],
+  options: DeriveOptions = {},
+): DerivedValue[] {
   checkEngineShape(engine);
   if (!Array.isArray(readings)) throw new Error("deriveReadings needs the job's readings as a list");
   const { touching } = options;

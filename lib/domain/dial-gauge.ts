@@ -24,6 +24,7 @@ export function dialDiameter({ setting, deviation, plusMeansSmaller }: DialInput
     throw new Error(`The dial reading must be a number; got ${String(deviation)}`);
   }
   const d = plusMeansSmaller ? decimalDifference(setting, deviation) : decimalSum([setting, deviation]);
-  if (d <= 0) throw new Error(`A setting of ${setting} and a dial reading of ${deviation} give no diameter; check both`);
+  if (d <= 0)
+    throw new Error(`A setting of ${setting} and a dial reading of ${deviation} give no diameter; check both`);
   return d;
 }

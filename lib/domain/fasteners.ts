@@ -115,13 +115,7 @@ export function recommendedPreload(input: { stressArea: number; proofStrength: n
 }
 
 export type ThreadCondition =
-  | "unspecified"
-  | "dry_black_oxide"
-  | "zinc_plated"
-  | "oiled"
-  | "cadmium_plated"
-  | "anti_seize"
-  | "moly_paste";
+  "unspecified" | "dry_black_oxide" | "zinc_plated" | "oiled" | "cadmium_plated" | "anti_seize" | "moly_paste";
 
 export interface NutFactorEntry {
   label: string;
@@ -129,14 +123,16 @@ export interface NutFactorEntry {
   source: string;
 }
 
-const SHIGLEY_8_15 = "Shigley's Mechanical Engineering Design (Budynas & Nisbett), Table 8-15 (after Blake & Kurtz), from memory";
+const SHIGLEY_8_15 =
+  "Shigley's Mechanical Engineering Design (Budynas & Nisbett), Table 8-15 (after Blake & Kurtz), from memory";
 
 /** Nut factor K by thread condition. K scatters widely (±25 % or more); a maker's figure governs. */
 export const NUT_FACTORS: Readonly<Record<ThreadCondition, NutFactorEntry>> = {
   unspecified: {
     label: "Steel, condition not stated",
     nutFactor: 0.2,
-    source: "Shigley's Mechanical Engineering Design, Ch. 8 text beside Eq. 8-27 (K = 0.2 when not stated), from memory",
+    source:
+      "Shigley's Mechanical Engineering Design, Ch. 8 text beside Eq. 8-27 (K = 0.2 when not stated), from memory",
   },
   dry_black_oxide: { label: "Dry, non-plated black finish", nutFactor: 0.3, source: SHIGLEY_8_15 },
   zinc_plated: { label: "Zinc-plated, dry", nutFactor: 0.2, source: SHIGLEY_8_15 },

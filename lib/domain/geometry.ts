@@ -43,7 +43,10 @@ function validate(input: AxisReadings, what: string): void {
         `axis A has ${axisA.length}, axis B has ${axisB.length}`,
     );
   }
-  for (const [name, axis] of [["A", axisA], ["B", axisB]] as const) {
+  for (const [name, axis] of [
+    ["A", axisA],
+    ["B", axisB],
+  ] as const) {
     axis.forEach((value, i) => {
       if (typeof value !== "number" || !Number.isFinite(value)) {
         throw new Error(`${what} reading ${i + 1} on axis ${name} is not a number; re-enter it`);

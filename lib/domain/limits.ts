@@ -93,7 +93,9 @@ function ordered(limit: SpecLimit, min: number, max: number): ResolvedLimit {
 
 function lengthUnitOf(limit: SpecLimit): LengthUnit {
   if (limit.unit !== "in" && limit.unit !== "mm") {
-    throw new Error(`Limit '${nameOf(limit)}' is ${limit.limitType}, which only works for lengths (in or mm), not ${limit.unit}`);
+    throw new Error(
+      `Limit '${nameOf(limit)}' is ${limit.limitType}, which only works for lengths (in or mm), not ${limit.unit}`,
+    );
   }
   return limit.unit;
 }
@@ -103,7 +105,9 @@ function resolveNominalTol(limit: SpecLimit): ResolvedLimit {
   const plus = need(limit, "tolPlus", "plus tolerance");
   const minus = need(limit, "tolMinus", "minus tolerance");
   if (plus < 0 || minus < 0) {
-    throw new Error(`Limit '${nameOf(limit)}': give tolPlus and tolMinus as sizes (both ≥ 0); the minus one is subtracted`);
+    throw new Error(
+      `Limit '${nameOf(limit)}': give tolPlus and tolMinus as sizes (both ≥ 0); the minus one is subtracted`,
+    );
   }
   return { unit: limit.unit, nominal, min: cleanDecimal(nominal - minus), max: cleanDecimal(nominal + plus) };
 }
@@ -113,11 +117,15 @@ function resolvePerInch(limit: SpecLimit, context: LimitContext): ResolvedLimit 
   const lo = limit.perInchMin;
   const hi = limit.perInchMax;
   if (lo === undefined && hi === undefined) {
-    throw new Error(`Limit '${nameOf(limit)}' is per inch of diameter but has neither perInchMin nor perInchMax; enter one`);
+    throw new Error(
+      `Limit '${nameOf(limit)}' is per inch of diameter but has neither perInchMin nor perInchMax; enter one`,
+    );
   }
   const d = context.diameter;
   if (!d || !Number.isFinite(d.value) || d.value <= 0) {
-    throw new Error(`Limit '${nameOf(limit)}' is per inch of diameter and needs that diameter; measure it or enter the nominal size on the job`);
+    throw new Error(
+      `Limit '${nameOf(limit)}' is per inch of diameter and needs that diameter; measure it or enter the nominal size on the job`,
+    );
   }
   // "Per inch of diameter" is a ratio (in per in = mm per mm), so the diameter only has to be
   // in the limit's own unit: a 55.88 mm journal becomes 2.2 in before an inch rule applies.
@@ -130,7 +138,8 @@ function resolvePerInch(limit: SpecLimit, context: LimitContext): ResolvedLimit 
 
 function resolveIso286(limit: SpecLimit, context: LimitContext): ResolvedLimit {
   const unit = lengthUnitOf(limit);
-  if (!limit.isoClass) throw new Error(`Limit '${nameOf(limit)}' is ISO 286 but has no tolerance class (e.g. H7, g6); enter one`);
+  if (!limit.isoClass)
+    throw new Error(`Limit '${nameOf(limit)}' is ISO 286 but has no tolerance class (e.g. H7, g6); enter one`);
   const given = limit.nominal !== undefined ? { value: limit.nominal, unit } : context.nominal;
   if (!given || !Number.isFinite(given.value)) {
     throw new Error(`Limit '${nameOf(limit)}' is ISO 286 and needs a nominal size; enter it on the limit or the job`);
@@ -188,7 +197,9 @@ const isLength = (u: MeasureUnit): u is LengthUnit => u === "in" || u === "mm";
 function convert(value: number, from: MeasureUnit, to: MeasureUnit): number | undefined {
   if (from === to) return value;
   if (isLength(from) !== isLength(to)) return undefined;
-  const out = isLength(from) ? convertLength(value, from, to as LengthUnit) : convertTorque(value, from, to as "lbf_ft" | "nm");
+  const out = isLength(from)
+    ? convertLength(value, from, to as LengthUnit)
+    : convertTorque(value, from, to as "lbf_ft" | "nm");
   return cleanDecimal(out);
 }
 
@@ -197,7 +208,12 @@ function convert(value: number, from: MeasureUnit, to: MeasureUnit): number | un
  * limits: the value and U are brought into the limits' unit first, so the limit stays exactly
  * as the spec wrote it.
  */
-export function judge(value: number, unit: MeasureUnit, uncertainty: number | undefined, limits: ResolvedLimit): Evaluation {
+export function judge(
+  value: number,
+  unit: MeasureUnit,
+  uncertainty: number | undefined,
+  limits: ResolvedLimit,
+): Evaluation {
   const v = convert(value, unit, limits.unit);
   if (v === undefined) {
     return { value, unit, note: `The limit is in ${limits.unit} but the value is in ${unit}; fix the spec unit` };

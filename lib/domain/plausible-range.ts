@@ -32,7 +32,9 @@ export const NOMINAL_BORE_SLACK = 0.1;
 const round = (x: number) => cleanDecimal(Number(x.toPrecision(4)));
 
 function canonical(value: number, unit: MeasureUnit): number {
-  return cleanDecimal(unit === "in" || unit === "mm" ? convertLength(value, unit, "mm") : convertTorque(value, unit, "nm"));
+  return cleanDecimal(
+    unit === "in" || unit === "mm" ? convertLength(value, unit, "mm") : convertTorque(value, unit, "nm"),
+  );
 }
 
 function rangeWords(r: Range, kind: "length" | "torque"): string {
@@ -44,7 +46,12 @@ function rangeWords(r: Range, kind: "length" | "torque"): string {
  * Why a value cannot be a real reading at this station, or undefined when it can. The unit must
  * already suit the characteristic (a length in in or mm, a torque in lbf_ft or nm).
  */
-export function implausibleReason(stationId: string, value: number, unit: MeasureUnit, engine?: EngineShape): string | undefined {
+export function implausibleReason(
+  stationId: string,
+  value: number,
+  unit: MeasureUnit,
+  engine?: EngineShape,
+): string | undefined {
   const { characteristic } = parseStationId(stationId);
   if (!characteristic) return undefined;
   const info = CHARACTERISTICS[characteristic];

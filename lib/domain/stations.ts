@@ -34,7 +34,11 @@ import type {
 
 type Entry = Omit<CharacteristicInfo, "id">;
 const len = (section: SectionId, label: string, extra: Partial<Entry> = {}): Entry => ({
-  label, section, kind: "length", derived: false, ...extra,
+  label,
+  section,
+  kind: "length",
+  derived: false,
+  ...extra,
 });
 const derived = (section: SectionId, label: string): Entry => ({ label, section, kind: "length", derived: true });
 
@@ -42,17 +46,32 @@ const ENTRIES: Record<CharacteristicId, Entry> = {
   bore_diameter: len("bore", "Cylinder bore diameter", { part: "block", gaugeKind: "dial-bore-gauge" }),
   main_journal_diameter: len("main", "Main journal diameter", { part: "crank", gaugeKind: "micrometer" }),
   rod_journal_diameter: len("rod", "Rod journal diameter", { part: "crank", gaugeKind: "micrometer" }),
-  main_bearing_bore: len("main-brg", "Main bearing bore, shells in and caps torqued", { part: "block", gaugeKind: "dial-bore-gauge" }),
-  rod_bearing_bore: len("rod-brg", "Rod bearing bore, shells in and cap torqued", { part: "rods", gaugeKind: "dial-bore-gauge" }),
+  main_bearing_bore: len("main-brg", "Main bearing bore, shells in and caps torqued", {
+    part: "block",
+    gaugeKind: "dial-bore-gauge",
+  }),
+  rod_bearing_bore: len("rod-brg", "Rod bearing bore, shells in and cap torqued", {
+    part: "rods",
+    gaugeKind: "dial-bore-gauge",
+  }),
   piston_skirt_diameter: len("skirt", "Piston skirt diameter", { part: "pistons", gaugeKind: "micrometer" }),
   ring_end_gap: len("ring-gap", "Ring end gap, ring square in its bore", { gaugeKind: "feeler" }),
   rod_side_clearance: len("side", "Rod side clearance", { gaugeKind: "feeler" }),
   crank_end_play: len("end-play", "Crankshaft end play", { gaugeKind: "dial-indicator" }),
-  rod_bolt_free_length: len("bolt", "Rod bolt length before torquing", { part: "rodBolts", gaugeKind: "stretch-gauge" }),
+  rod_bolt_free_length: len("bolt", "Rod bolt length before torquing", {
+    part: "rodBolts",
+    gaugeKind: "stretch-gauge",
+  }),
   rod_bolt_loaded_length: len("bolt", "Rod bolt length torqued", { part: "rodBolts", gaugeKind: "stretch-gauge" }),
   deck_height: len("deck", "Deck height", { part: "block", gaugeKind: "deck-gauge" }),
   valve_lash: len("lash", "Valve lash", { gaugeKind: "feeler" }),
-  fastener_torque: { label: "Fastener torque", section: "torque", kind: "torque", derived: false, gaugeKind: "torque-wrench" },
+  fastener_torque: {
+    label: "Fastener torque",
+    section: "torque",
+    kind: "torque",
+    derived: false,
+    gaugeKind: "torque-wrench",
+  },
   main_oil_clearance: derived("main-brg", "Main bearing oil clearance"),
   rod_oil_clearance: derived("rod-brg", "Rod bearing oil clearance"),
   piston_to_wall: derived("skirt", "Piston-to-wall clearance"),
@@ -109,7 +128,10 @@ export const LUBRICANT_LABELS: Readonly<Record<Lubricant, string>> = {
 /** Ring names for a piston with `count` rings: the top ring first, the oil ring last. */
 export function ringNames(count: number): string[] {
   const byCount: Record<number, string[]> = {
-    1: ["top"], 2: ["top", "oil"], 3: ["top", "second", "oil"], 4: ["top", "second", "third", "oil"],
+    1: ["top"],
+    2: ["top", "oil"],
+    3: ["top", "second", "oil"],
+    4: ["top", "second", "third", "oil"],
   };
   const names = byCount[count];
   if (!names) throw new Error(`Rings per piston must be 1 to 4; got ${String(count)}`);
@@ -136,27 +158,70 @@ export function deckBanks(layout: EngineShape["layout"]): DeckBank[] {
 // Each section's segments after the first: a field name and what it may hold.
 type FieldRule = readonly [keyof ParsedStation, readonly string[] | "number" | RegExp];
 const NUMBER = /^[1-9]\d{0,2}$/;
-const POS_AXIS = [["position", JOURNAL_POSITIONS], ["axis", AXES]] as const;
-const GRAMMAR: Record<SectionId, { fields: readonly FieldRule[]; partLength?: number; characteristic: RawCharacteristic }> = {
-  bore: { fields: [["cylinder", "number"], ["depth", BORE_DEPTHS], ["axis", AXES]], partLength: 1, characteristic: "bore_diameter" },
+const POS_AXIS = [
+  ["position", JOURNAL_POSITIONS],
+  ["axis", AXES],
+] as const;
+const GRAMMAR: Record<
+  SectionId,
+  { fields: readonly FieldRule[]; partLength?: number; characteristic: RawCharacteristic }
+> = {
+  bore: {
+    fields: [
+      ["cylinder", "number"],
+      ["depth", BORE_DEPTHS],
+      ["axis", AXES],
+    ],
+    partLength: 1,
+    characteristic: "bore_diameter",
+  },
   main: { fields: [["main", "number"], ...POS_AXIS], partLength: 1, characteristic: "main_journal_diameter" },
   rod: { fields: [["journal", "number"], ...POS_AXIS], partLength: 1, characteristic: "rod_journal_diameter" },
   "main-brg": { fields: [["main", "number"], ...POS_AXIS], characteristic: "main_bearing_bore" },
   "rod-brg": { fields: [["rod", "number"], ...POS_AXIS], characteristic: "rod_bearing_bore" },
   skirt: { fields: [["cylinder", "number"]], characteristic: "piston_skirt_diameter" },
-  "ring-gap": { fields: [["cylinder", "number"], ["ring", ["top", "second", "third", "oil"]]], characteristic: "ring_end_gap" },
+  "ring-gap": {
+    fields: [
+      ["cylinder", "number"],
+      ["ring", ["top", "second", "third", "oil"]],
+    ],
+    characteristic: "ring_end_gap",
+  },
   side: { fields: [["rod", "number"]], characteristic: "rod_side_clearance" },
   "end-play": { fields: [], characteristic: "crank_end_play" },
-  bolt: { fields: [["rod", "number"], ["bolt", "number"], ["boltState", ["free", "loaded"]]], partLength: 2, characteristic: "rod_bolt_free_length" },
-  deck: { fields: [["bank", ["block", "left", "right"]], ["corner", ["front", "rear"]]], characteristic: "deck_height" },
-  lash: { fields: [["cylinder", "number"], ["valve", /^(int|exh)([1-9])?$/]], characteristic: "valve_lash" },
+  bolt: {
+    fields: [
+      ["rod", "number"],
+      ["bolt", "number"],
+      ["boltState", ["free", "loaded"]],
+    ],
+    partLength: 2,
+    characteristic: "rod_bolt_free_length",
+  },
+  deck: {
+    fields: [
+      ["bank", ["block", "left", "right"]],
+      ["corner", ["front", "rear"]],
+    ],
+    characteristic: "deck_height",
+  },
+  lash: {
+    fields: [
+      ["cylinder", "number"],
+      ["valve", /^(int|exh)([1-9])?$/],
+    ],
+    characteristic: "valve_lash",
+  },
   torque: { fields: [["group", /^[a-z0-9]+(-[a-z0-9]+)*$/]], characteristic: "fastener_torque" },
 };
 
 function fieldValue(id: string, [name, rule]: FieldRule, raw: string | undefined): string | number {
-  const ok = raw !== undefined && (rule === "number" ? NUMBER.test(raw) : rule instanceof RegExp ? rule.test(raw) : rule.includes(raw));
+  const ok =
+    raw !== undefined &&
+    (rule === "number" ? NUMBER.test(raw) : rule instanceof RegExp ? rule.test(raw) : rule.includes(raw));
   if (!ok) {
-    const want = rule === "number" ? "a number from 1" : rule instanceof RegExp ? "a lower-case name" : rule.join(" | ");
+    const want =
+      rule === "number" ? "a number from 1" : rule instanceof RegExp ? "a lower-case name" : rule.join(" | ");
     throw new Error(`Unknown station '${id}': the ${String(name)} must be ${want}, got '${raw ?? ""}'`);
   }
   return rule === "number" ? Number(raw) : raw;
@@ -167,7 +232,8 @@ export function parseStationId(id: string): ParsedStation {
   if (typeof id !== "string" || id === "") throw new Error("A station id is needed, e.g. 'bore/1/top/A'");
   const [head, ...rest] = id.split("/");
   const grammar = (GRAMMAR as Record<string, (typeof GRAMMAR)[SectionId]>)[head];
-  if (!grammar) throw new Error(`Unknown station '${id}': '${head}' is not a section (${Object.keys(GRAMMAR).join(", ")})`);
+  if (!grammar)
+    throw new Error(`Unknown station '${id}': '${head}' is not a section (${Object.keys(GRAMMAR).join(", ")})`);
   const isPart = grammar.partLength !== undefined && rest.length === grammar.partLength;
   if (!isPart && rest.length !== grammar.fields.length) {
     throw new Error(`Unknown station '${id}': a ${head} station has ${grammar.fields.length + 1} segments`);
@@ -197,19 +263,36 @@ function spanWords(p: ParsedStation, axisWords: Record<Axis, string>): string[] 
 
 function words(p: ParsedStation): string[] {
   switch (p.section) {
-    case "bore": return [`Cylinder ${p.cylinder}`, p.depth ? DEPTH_WORDS[p.depth] : "", p.axis ? BORE_AXIS[p.axis] : ""];
-    case "main": return [`Main journal ${p.main}`, ...spanWords(p, JOURNAL_AXIS)];
-    case "rod": return [`Rod journal ${p.journal}`, ...spanWords(p, JOURNAL_AXIS)];
-    case "main-brg": return [`Main bearing ${p.main} (installed)`, ...spanWords(p, BEARING_AXIS)];
-    case "rod-brg": return [`Rod ${p.rod} bearing (installed)`, ...spanWords(p, BEARING_AXIS)];
-    case "skirt": return [`Piston ${p.cylinder}`, "skirt at the maker's gauge point"];
-    case "ring-gap": return [`Cylinder ${p.cylinder}`, `${p.ring} ring end gap`];
-    case "side": return [`Rod ${p.rod}`, "side clearance"];
-    case "end-play": return ["Crankshaft", "end play"];
-    case "bolt": return [`Rod ${p.rod}`, `bolt ${p.bolt}`, p.boltState ? (p.boltState === "free" ? "free length" : "torqued length") : ""];
-    case "deck": return [p.bank === "block" ? "Deck" : `${p.bank === "left" ? "Left" : "Right"} bank deck`, `${p.corner} corner`];
-    case "lash": return [`Cylinder ${p.cylinder}`, `${valveWords(p.valve ?? "")} lash`];
-    case "torque": return ["Torque", TORQUE_GROUP_LABELS[p.group ?? ""] ?? (p.group ?? "").replace(/-/g, " ")];
+    case "bore":
+      return [`Cylinder ${p.cylinder}`, p.depth ? DEPTH_WORDS[p.depth] : "", p.axis ? BORE_AXIS[p.axis] : ""];
+    case "main":
+      return [`Main journal ${p.main}`, ...spanWords(p, JOURNAL_AXIS)];
+    case "rod":
+      return [`Rod journal ${p.journal}`, ...spanWords(p, JOURNAL_AXIS)];
+    case "main-brg":
+      return [`Main bearing ${p.main} (installed)`, ...spanWords(p, BEARING_AXIS)];
+    case "rod-brg":
+      return [`Rod ${p.rod} bearing (installed)`, ...spanWords(p, BEARING_AXIS)];
+    case "skirt":
+      return [`Piston ${p.cylinder}`, "skirt at the maker's gauge point"];
+    case "ring-gap":
+      return [`Cylinder ${p.cylinder}`, `${p.ring} ring end gap`];
+    case "side":
+      return [`Rod ${p.rod}`, "side clearance"];
+    case "end-play":
+      return ["Crankshaft", "end play"];
+    case "bolt":
+      return [
+        `Rod ${p.rod}`,
+        `bolt ${p.bolt}`,
+        p.boltState ? (p.boltState === "free" ? "free length" : "torqued length") : "",
+      ];
+    case "deck":
+      return [p.bank === "block" ? "Deck" : `${p.bank === "left" ? "Left" : "Right"} bank deck`, `${p.corner} corner`];
+    case "lash":
+      return [`Cylinder ${p.cylinder}`, `${valveWords(p.valve ?? "")} lash`];
+    case "torque":
+      return ["Torque", TORQUE_GROUP_LABELS[p.group ?? ""] ?? (p.group ?? "").replace(/-/g, " ")];
   }
 }
 

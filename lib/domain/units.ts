@@ -59,9 +59,7 @@ export function decimalDifference(a: number, b: number): number {
 
 /** Exact sum of signed decimal figures (stack-ups such as deck − stroke/2 − rod − clearance). */
 export function decimalSum(terms: readonly number[]): number {
-  return terms
-    .reduce((sum: Decimal, t, i) => sum.plus(toDecimal(t, `term ${i + 1}`)), new Decimal(0))
-    .toNumber();
+  return terms.reduce((sum: Decimal, t, i) => sum.plus(toDecimal(t, `term ${i + 1}`)), new Decimal(0)).toNumber();
 }
 
 export function inToMm(inches: number): number {

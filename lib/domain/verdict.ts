@@ -42,7 +42,11 @@ interface ExactLimits {
   u: Dec;
 }
 
-function exactLimits(min: VerdictInput["min"], max: VerdictInput["max"], uncertainty: VerdictInput["uncertainty"]): ExactLimits {
+function exactLimits(
+  min: VerdictInput["min"],
+  max: VerdictInput["max"],
+  uncertainty: VerdictInput["uncertainty"],
+): ExactLimits {
   const lo = optionalExact(min, "Lower limit");
   const hi = optionalExact(max, "Upper limit");
   if (!lo && !hi) throw new Error("A verdict needs at least one limit (min or max); add one to the spec");

@@ -20,14 +20,19 @@ function changeNotice(db: Dexie, adds: Add[]) {
   for (const a of adds) {
     const prefix = `idb://${db.name}/${a.table}/`;
     (parts[prefix] ??= new RangeSet()).addKey(a.key);
-    for (const [index, value] of Object.entries(a.indexed ?? {})) (parts[prefix + index] ??= new RangeSet()).addKey(value);
+    for (const [index, value] of Object.entries(a.indexed ?? {}))
+      (parts[prefix + index] ??= new RangeSet()).addKey(value);
   }
   return parts;
 }
 
 /** The same writes through Dexie: when the database is not open yet (or was closed for an upgrade). */
 function withDexie(db: Dexie, adds: Add[]): Promise<void> {
-  return db.transaction("rw", [...new Set(adds.map((a) => a.table))], () => Promise.all(adds.map((a) => db.table(a.table).add(a.row)))).then(() => undefined);
+  return db
+    .transaction("rw", [...new Set(adds.map((a) => a.table))], () =>
+      Promise.all(adds.map((a) => db.table(a.table).add(a.row))),
+    )
+    .then(() => undefined);
 }
 
 export function addTogether(db: Dexie, adds: Add[]): Promise<void> {

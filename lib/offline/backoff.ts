@@ -9,7 +9,11 @@ export interface BackoffRule {
 export const DEFAULT_BACKOFF: BackoffRule = { baseMs: 2_000, maxMs: 5 * 60_000 };
 
 /** Delay before attempt `failures + 1`, given `failures` failures in a row (≥ 1). */
-export function backoffDelay(failures: number, rule: BackoffRule = DEFAULT_BACKOFF, random: () => number = Math.random): number {
+export function backoffDelay(
+  failures: number,
+  rule: BackoffRule = DEFAULT_BACKOFF,
+  random: () => number = Math.random,
+): number {
   if (failures < 1) return 0;
   const nominal = Math.min(rule.maxMs, rule.baseMs * 2 ** Math.min(failures - 1, 30));
   return Math.round(nominal / 2 + random() * (nominal / 2));

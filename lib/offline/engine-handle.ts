@@ -9,7 +9,10 @@ export interface EngineHandle {
   sync(reason: SyncReason): Promise<void>;
 }
 
-export function lazyEngine(db: BenchDb, load: () => Promise<typeof import("./sync-engine")>): EngineHandle & { start(): Promise<SyncEngine> } {
+export function lazyEngine(
+  db: BenchDb,
+  load: () => Promise<typeof import("./sync-engine")>,
+): EngineHandle & { start(): Promise<SyncEngine> } {
   let engine: SyncEngine | undefined;
   let starting: Promise<SyncEngine> | undefined;
   let entryWaiting = false;

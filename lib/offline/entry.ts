@@ -47,11 +47,16 @@ export function buildReading(text: string, ctx: EntryContext): Built {
   const dial = ctx.dialSetting !== undefined && isDialGauge(instrument);
   const parsed = parseEntry(text, dial ? "the dial reading" : "the value");
   if ("error" in parsed) return parsed;
-  if (station.torque && !ctx.lubricant) return { error: "Pick the lubricant used on the threads before saving the torque" };
+  if (station.torque && !ctx.lubricant)
+    return { error: "Pick the lubricant used on the threads before saving the torque" };
   let value = parsed.value;
   if (dial) {
     try {
-      value = dialDiameter({ setting: ctx.dialSetting!, deviation: parsed.value, plusMeansSmaller: instrument!.dialPlusMeansSmaller });
+      value = dialDiameter({
+        setting: ctx.dialSetting!,
+        deviation: parsed.value,
+        plusMeansSmaller: instrument!.dialPlusMeansSmaller,
+      });
     } catch (err) {
       return { error: err instanceof Error ? err.message : String(err) };
     }
@@ -60,7 +65,10 @@ export function buildReading(text: string, ctx: EntryContext): Built {
   if (why) return { error: why };
   return {
     reading: {
-      jobId: pack.job.id, stationId: station.id, value, unit: station.unit,
+      jobId: pack.job.id,
+      stationId: station.id,
+      value,
+      unit: station.unit,
       entryMode: dial ? "dial" : "direct",
       ...(dial ? { dialSetting: ctx.dialSetting, dialDeviation: parsed.value } : {}),
       ...(instrument ? { instrumentId: instrument.id } : {}),
@@ -86,7 +94,11 @@ export function gaugesFor(station: Station, instruments: BenchInstrument[]): Ben
 }
 
 /** The gauge picked for this kind of station, else the shop's usual kind for it; never a guess across kinds. */
-export function pickGauge(station: Station, instruments: BenchInstrument[], pickedId?: number): BenchInstrument | undefined {
+export function pickGauge(
+  station: Station,
+  instruments: BenchInstrument[],
+  pickedId?: number,
+): BenchInstrument | undefined {
   const options = gaugesFor(station, instruments);
   return options.find((g) => g.id === pickedId) ?? options.find((g) => kindScore(station, g) === 0);
 }

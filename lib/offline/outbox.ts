@@ -14,10 +14,18 @@ export interface Batch {
 }
 
 /** The oldest queued readings taken by `userId` (another person's wait for their own session). */
-export async function nextBatch(db: BenchDb, userId: number, size = BATCH_SIZE, exclude: ReadonlySet<string> = new Set()): Promise<Batch> {
+export async function nextBatch(
+  db: BenchDb,
+  userId: number,
+  size = BATCH_SIZE,
+  exclude: ReadonlySet<string> = new Set(),
+): Promise<Batch> {
   return db.transaction("r", db.outbox, db.readings, async () => {
     const rows = await db.outbox.where("takenBy").equals(userId).sortBy("queuedAt");
-    const ids = rows.map((r) => r.readingId).filter((id) => !exclude.has(id)).slice(0, size);
+    const ids = rows
+      .map((r) => r.readingId)
+      .filter((id) => !exclude.has(id))
+      .slice(0, size);
     const readings = (await db.readings.bulkGet(ids)).filter((r): r is LocalReading => r !== undefined);
     return { readings, payload: readings.map(toPushReading) };
   });
@@ -30,7 +38,12 @@ export interface PushOutcome {
 }
 
 /** Applies the server's per-item answer to the batch that was sent, in one transaction. */
-export async function applyPushResults(db: BenchDb, sent: LocalReading[], results: PushResult[], now = new Date()): Promise<PushOutcome> {
+export async function applyPushResults(
+  db: BenchDb,
+  sent: LocalReading[],
+  results: PushResult[],
+  now = new Date(),
+): Promise<PushOutcome> {
   const outcome: PushOutcome = { accepted: 0, rejected: 0, held: 0 };
   const at = now.toISOString();
   await db.transaction("rw", db.readings, db.outbox, async () => {
@@ -41,13 +54,25 @@ export async function applyPushResults(db: BenchDb, sent: LocalReading[], result
       if (res.status === "accepted") {
         const e = res.evaluation;
         await db.readings.put({
-          ...local, state: "synced", rejection: undefined, updatedAt: at,
-          verdict: e.verdict, verdictNote: e.verdictNote, deviation: e.deviation, limitMin: e.limitMin, limitMax: e.limitMax,
+          ...local,
+          state: "synced",
+          rejection: undefined,
+          updatedAt: at,
+          verdict: e.verdict,
+          verdictNote: e.verdictNote,
+          deviation: e.deviation,
+          limitMin: e.limitMin,
+          limitMax: e.limitMax,
         });
         await db.outbox.delete(id);
         outcome.accepted++;
       } else if (res.status === "rejected") {
-        await db.readings.put({ ...local, state: "rejected", rejection: { code: res.code, reason: res.reason, ...(res.errors ? { errors: res.errors } : {}) }, updatedAt: at });
+        await db.readings.put({
+          ...local,
+          state: "rejected",
+          rejection: { code: res.code, reason: res.reason, ...(res.errors ? { errors: res.errors } : {}) },
+          updatedAt: at,
+        });
         await db.outbox.delete(id);
         outcome.rejected++;
       } else {

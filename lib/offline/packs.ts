@@ -38,7 +38,12 @@ export async function savePack(db: BenchDb, pack: JobPack, now = new Date()): Pr
 export async function applyFeed(db: BenchDb, feed: SyncFeed, now = new Date()): Promise<void> {
   await db.transaction("rw", db.jobs, db.readings, db.outbox, db.meta, async () => {
     await mergeReadings(db, feed.readings);
-    const ids = new Set([...feed.jobs.map((j) => j.id), ...feed.limits.map((l) => l.jobId), ...feed.flags.map((f) => f.jobId), ...feed.missing]);
+    const ids = new Set([
+      ...feed.jobs.map((j) => j.id),
+      ...feed.limits.map((l) => l.jobId),
+      ...feed.flags.map((f) => f.jobId),
+      ...feed.missing,
+    ]);
     for (const jobId of ids) {
       const row = await db.jobs.get(jobId);
       if (!row) continue;
@@ -51,7 +56,12 @@ export async function applyFeed(db: BenchDb, feed: SyncFeed, now = new Date()): 
         flags: mergeFlags(row.pack.flags, feed.flags, jobId),
       };
       if (limits) pack.job = { ...pack.job, specRevision: limits.specRevision };
-      await db.jobs.put({ ...row, pack, refreshedAt: now.toISOString(), gone: feed.missing.includes(jobId) || undefined });
+      await db.jobs.put({
+        ...row,
+        pack,
+        refreshedAt: now.toISOString(),
+        gone: feed.missing.includes(jobId) || undefined,
+      });
     }
     await setMeta(db, "cursor", feed.cursor);
   });

@@ -13,12 +13,25 @@ export interface PhotoOwner {
   ownerId: string;
 }
 
-export async function addPhoto(db: BenchDb, file: Blob & { name?: string }, owner: PhotoOwner, takenBy: number, now = new Date()): Promise<PhotoRow> {
+export async function addPhoto(
+  db: BenchDb,
+  file: Blob & { name?: string },
+  owner: PhotoOwner,
+  takenBy: number,
+  now = new Date(),
+): Promise<PhotoRow> {
   if (!file.type.startsWith("image/")) throw new Error("That file is not a photo; pick a picture from the camera");
   if (file.size > MAX_PHOTO_BYTES) throw new Error("That photo is over 15 MB; take it again at a lower resolution");
   const row: PhotoRow = {
-    id: uuidv4(), ...owner, blob: file, contentType: file.type, name: file.name || `photo-${now.toISOString()}.jpg`,
-    size: file.size, createdAt: now.toISOString(), takenBy, state: "pending",
+    id: uuidv4(),
+    ...owner,
+    blob: file,
+    contentType: file.type,
+    name: file.name || `photo-${now.toISOString()}.jpg`,
+    size: file.size,
+    createdAt: now.toISOString(),
+    takenBy,
+    state: "pending",
   };
   await db.photos.add(row);
   return row;
@@ -37,7 +50,11 @@ export interface PhotoOutcome {
 
 /** Uploads this user's pending photos whose owner is on the server; stops at the first 404/501. */
 export async function uploadPhotos(db: BenchDb, fetchFn: Fetch, base: string, userId: number): Promise<PhotoOutcome> {
-  const pending = await db.photos.where("state").equals("pending").filter((p) => p.takenBy === userId).sortBy("createdAt");
+  const pending = await db.photos
+    .where("state")
+    .equals("pending")
+    .filter((p) => p.takenBy === userId)
+    .sortBy("createdAt");
   const out: PhotoOutcome = { uploaded: 0, waiting: 0, unavailable: false };
   for (const [i, p] of pending.entries()) {
     if (!p.blob || !(await ownerReady(db, p))) {

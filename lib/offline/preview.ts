@@ -2,8 +2,15 @@
 // instant verdicts and derived values, all from lib/domain (the same core the server uses; the
 // server's stored verdict replaces the preview once a reading is synced).
 import {
-  convertLength, deriveReadings, evaluateReading, uncertaintyAtK2,
-  type DerivedValue, type Evaluation, type MeasureUnit, type RawReading, type Verdict,
+  convertLength,
+  deriveReadings,
+  evaluateReading,
+  uncertaintyAtK2,
+  type DerivedValue,
+  type Evaluation,
+  type MeasureUnit,
+  type RawReading,
+  type Verdict,
 } from "@/lib/domain";
 import type { BenchInstrument, JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "./db";
@@ -44,7 +51,10 @@ export function toRaw(r: LocalReading, instruments: BenchInstrument[]): RawReadi
   const inst = instruments.find((i) => i.id === r.instrumentId);
   const U = gaugeU(inst, r.unit);
   return {
-    stationId: r.stationId, value: r.value, unit: r.unit, takenAt: r.takenAt,
+    stationId: r.stationId,
+    value: r.value,
+    unit: r.unit,
+    takenAt: r.takenAt,
     ...(r.partTempC !== undefined ? { temperatureC: r.partTempC } : {}),
     ...(r.gaugeTempC !== undefined ? { gaugeTemperatureC: r.gaugeTempC } : {}),
     ...(U !== undefined ? { uncertainty: U } : {}),
@@ -84,7 +94,11 @@ export function previewReading(r: LocalReading, pack: JobPack, raw: RawReading[]
 }
 
 /** Derived values of the job; with `touching`, only those fed by the stations it accepts (the core computes no others). */
-export function derivedFor(pack: JobPack, readings: LocalReading[], touching?: (stationId: string) => boolean): DerivedValue[] {
+export function derivedFor(
+  pack: JobPack,
+  readings: LocalReading[],
+  touching?: (stationId: string) => boolean,
+): DerivedValue[] {
   try {
     return deriveReadings(usableRaw(readings, pack.instruments), pack.shape, pack.spec, touching ? { touching } : {});
   } catch {

@@ -34,7 +34,8 @@ function checkNew(input: NewReading): void {
     if (!input.skipReason?.trim()) throw new Error("Say why the station is skipped");
     return;
   }
-  if (typeof input.value !== "number" || !Number.isFinite(input.value)) throw new Error("Enter the value as a number, e.g. 4.0302");
+  if (typeof input.value !== "number" || !Number.isFinite(input.value))
+    throw new Error("Enter the value as a number, e.g. 4.0302");
 }
 
 // Entries made within one millisecond (a gauge can send two readings that fast) still get
@@ -64,7 +65,12 @@ export async function recordReading(db: BenchDb, input: NewReading, ctx: WriteCo
   };
   await addTogether(db, [
     { table: "readings", row, key: row.id, indexed: { jobId: row.jobId, state: row.state } },
-    { table: "outbox", row: { readingId: row.id, jobId: row.jobId, takenBy: row.takenBy, queuedAt: at, attempts: 0 } satisfies OutboxRow, key: row.id, indexed: { takenBy: row.takenBy } },
+    {
+      table: "outbox",
+      row: { readingId: row.id, jobId: row.jobId, takenBy: row.takenBy, queuedAt: at, attempts: 0 } satisfies OutboxRow,
+      key: row.id,
+      indexed: { takenBy: row.takenBy },
+    },
   ]);
   return row;
 }
@@ -82,10 +88,23 @@ export async function resendReading(db: BenchDb, id: string, fix: ReadingFix, no
     if (!r) throw new Error("That reading is not on this tablet");
     if (r.state !== "rejected") throw new Error("Only a reading the server refused can be sent again");
     const { jobId: _j, stationId: _s, unit: _u, ...changes } = fix as NewReading;
-    const next: LocalReading = { ...r, ...changes, state: "pending", rejection: undefined, updatedAt: now.toISOString() };
-    if (!next.skipped && (typeof next.value !== "number" || !Number.isFinite(next.value))) throw new Error("Enter the value as a number");
+    const next: LocalReading = {
+      ...r,
+      ...changes,
+      state: "pending",
+      rejection: undefined,
+      updatedAt: now.toISOString(),
+    };
+    if (!next.skipped && (typeof next.value !== "number" || !Number.isFinite(next.value)))
+      throw new Error("Enter the value as a number");
     await db.readings.put(next);
-    await db.outbox.put({ readingId: id, jobId: r.jobId, takenBy: r.takenBy, queuedAt: now.toISOString(), attempts: 0 });
+    await db.outbox.put({
+      readingId: id,
+      jobId: r.jobId,
+      takenBy: r.takenBy,
+      queuedAt: now.toISOString(),
+      attempts: 0,
+    });
   });
 }
 

@@ -6,7 +6,13 @@ import type { LocalReading } from "./db";
 import { currentByStation, previewReading, usableRaw } from "./preview";
 
 export type StationState =
-  | "todo" | "in_spec" | "marginal" | "out_of_spec" | "no_limit" | "skipped" | "rejected"
+  | "todo"
+  | "in_spec"
+  | "marginal"
+  | "out_of_spec"
+  | "no_limit"
+  | "skipped"
+  | "rejected"
   /** Out of spec on its only reading: a confirming second reading is asked for. */
   | "confirm"
   /** The lead sent it back (measure again / machine again) and nothing newer was taken. */
@@ -28,7 +34,9 @@ export interface StationView {
 export const OPEN_STATES: readonly StationState[] = ["todo", "confirm", "revisit", "rejected"];
 
 function revisitFlag(flags: BenchFlag[], stationId: string, current?: LocalReading): BenchFlag | undefined {
-  return flags.find((f) => f.revisit && f.stations.includes(stationId) && !(current && f.disposedAt && current.takenAt > f.disposedAt));
+  return flags.find(
+    (f) => f.revisit && f.stations.includes(stationId) && !(current && f.disposedAt && current.takenAt > f.disposedAt),
+  );
 }
 
 function stateOf(current: LocalReading | undefined, verdict: Verdict | undefined, count: number): StationState {
@@ -52,7 +60,16 @@ export function stationViews(pack: JobPack, readings: LocalReading[]): StationVi
     const count = counts.get(station.id) ?? 0;
     const revisit = revisitFlag(pack.flags, station.id, cur);
     const state = revisit ? "revisit" : stateOf(cur, preview.verdict, count);
-    return { station, index, state, current: cur, verdict: preview.verdict, deviation: preview.evaluation?.deviation, count, ...(revisit ? { revisit } : {}) };
+    return {
+      station,
+      index,
+      state,
+      current: cur,
+      verdict: preview.verdict,
+      deviation: preview.evaluation?.deviation,
+      count,
+      ...(revisit ? { revisit } : {}),
+    };
   });
 }
 

@@ -33,7 +33,9 @@ export class SyncEngine {
   private readonly db: BenchDb;
   private readonly fetchFn: Fetch;
   private readonly base: string;
-  private readonly opts: Required<Pick<SyncEngineOptions, "intervalMs" | "entryDebounceMs" | "backoff" | "batchSize" | "random" | "now">>;
+  private readonly opts: Required<
+    Pick<SyncEngineOptions, "intervalMs" | "entryDebounceMs" | "backoff" | "batchSize" | "random" | "now">
+  >;
   private running: Promise<void> | null = null;
   private again = false;
   private retryTimer: ReturnType<typeof setTimeout> | undefined;
@@ -46,8 +48,12 @@ export class SyncEngine {
     this.fetchFn = o.fetch ?? ((...a) => fetch(...a));
     this.base = o.baseUrl ?? "";
     this.opts = {
-      intervalMs: o.intervalMs ?? 60_000, entryDebounceMs: o.entryDebounceMs ?? 700, backoff: o.backoff ?? DEFAULT_BACKOFF,
-      batchSize: o.batchSize ?? BATCH_SIZE, random: o.random ?? Math.random, now: o.now ?? (() => new Date()),
+      intervalMs: o.intervalMs ?? 60_000,
+      entryDebounceMs: o.entryDebounceMs ?? 700,
+      backoff: o.backoff ?? DEFAULT_BACKOFF,
+      batchSize: o.batchSize ?? BATCH_SIZE,
+      random: o.random ?? Math.random,
+      now: o.now ?? (() => new Date()),
     };
   }
 
@@ -103,8 +109,14 @@ export class SyncEngine {
       await this.pullAll();
       const photos = await uploadPhotos(this.db, this.fetchFn, this.base, actor.userId);
       await patchSyncStatus(this.db, {
-        running: false, lastSuccessAt: this.opts.now().toISOString(), failures: 0, nextAttemptAt: undefined, needsAction: false,
-        lastError: photos.unavailable ? `${photos.waiting} photo(s) wait: the server does not take uploads yet` : undefined,
+        running: false,
+        lastSuccessAt: this.opts.now().toISOString(),
+        failures: 0,
+        nextAttemptAt: undefined,
+        needsAction: false,
+        lastError: photos.unavailable
+          ? `${photos.waiting} photo(s) wait: the server does not take uploads yet`
+          : undefined,
       });
     } catch (err) {
       await this.recordFailure(err);
@@ -113,14 +125,23 @@ export class SyncEngine {
 
   private async recordFailure(err: unknown): Promise<void> {
     if (err instanceof ActionError) {
-      await patchSyncStatus(this.db, { running: false, lastError: err.message, needsAction: true, nextAttemptAt: undefined });
+      await patchSyncStatus(this.db, {
+        running: false,
+        lastError: err.message,
+        needsAction: true,
+        nextAttemptAt: undefined,
+      });
       return;
     }
     const failures = (await getSyncStatus(this.db)).failures + 1;
     const delay = backoffDelay(failures, this.opts.backoff, this.opts.random);
-    const message = err instanceof TransientError ? err.message : `Sync stopped: ${err instanceof Error ? err.message : String(err)}`;
+    const message =
+      err instanceof TransientError ? err.message : `Sync stopped: ${err instanceof Error ? err.message : String(err)}`;
     await patchSyncStatus(this.db, {
-      running: false, failures, lastError: message, needsAction: false,
+      running: false,
+      failures,
+      lastError: message,
+      needsAction: false,
       nextAttemptAt: new Date(this.opts.now().getTime() + delay).toISOString(),
     });
     clearTimeout(this.retryTimer);
@@ -142,7 +163,8 @@ export class SyncEngine {
       }
       const outcome = await applyPushResults(this.db, batch.readings, answer.results, this.opts.now());
       // Held readings are sent again without the refused ones; no progress at all means stop.
-      if (outcome.accepted + outcome.rejected === 0) throw new ActionError(422, "The server held every reading without saying why; try Sync now");
+      if (outcome.accepted + outcome.rejected === 0)
+        throw new ActionError(422, "The server held every reading without saying why; try Sync now");
       for (const r of answer.results) if (r.status === "rejected" && r.id) refusedNow.add(r.id);
     }
   }

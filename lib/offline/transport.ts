@@ -8,7 +8,10 @@ export type Fetch = typeof fetch;
 export class TransientError extends Error {}
 /** Needs a person: signed out, wrong role, or a request the server cannot take as sent. */
 export class ActionError extends Error {
-  constructor(readonly status: number, message: string) {
+  constructor(
+    readonly status: number,
+    message: string,
+  ) {
     super(message);
   }
 }
@@ -34,16 +37,24 @@ async function body(res: Response): Promise<Record<string, unknown> | null> {
 function refuse(res: Response, json: Record<string, unknown> | null, what: string): never {
   if (res.status >= 500) throw new TransientError(`The server had a problem (${res.status}); trying again shortly`);
   if (res.status === 401) throw new ActionError(401, "Signed out: sign in again so the tablet can send its readings");
-  if (res.status === 403) throw new ActionError(403, "This account cannot send bench readings; sign in as a machinist or lead");
+  if (res.status === 403)
+    throw new ActionError(403, "This account cannot send bench readings; sign in as a machinist or lead");
   const err = json?.error as { message?: string } | undefined;
   throw new ActionError(res.status, `${what}: ${err?.message ?? `the server answered ${res.status}`}`);
 }
 
 export type PushAnswer = { kind: "results"; results: PushResult[] } | { kind: "too_large" };
 
-export async function pushBatch(fetchFn: Fetch, base: string, deviceId: string, readings: unknown[]): Promise<PushAnswer> {
+export async function pushBatch(
+  fetchFn: Fetch,
+  base: string,
+  deviceId: string,
+  readings: unknown[],
+): Promise<PushAnswer> {
   const res = await send(fetchFn, `${base}/api/sync`, {
-    method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify({ deviceId, readings }),
+    method: "POST",
+    headers: { "Content-Type": "application/json" },
+    body: JSON.stringify({ deviceId, readings }),
   });
   const json = await body(res);
   if (res.ok) return { kind: "results", results: (json as PushReply | null)?.results ?? [] };
@@ -69,7 +80,11 @@ export async function getJson<T>(fetchFn: Fetch, url: string): Promise<T> {
 }
 
 /** Photo upload; `unavailable` means the server has no upload route yet (404/501): keep waiting. */
-export async function uploadFile(fetchFn: Fetch, base: string, form: FormData): Promise<"ok" | "unavailable" | { refused: string }> {
+export async function uploadFile(
+  fetchFn: Fetch,
+  base: string,
+  form: FormData,
+): Promise<"ok" | "unavailable" | { refused: string }> {
   const res = await send(fetchFn, `${base}/api/attachments`, { method: "POST", body: form });
   if (res.ok) return "ok";
   if (res.status === 404 || res.status === 501) return "unavailable";

@@ -5,7 +5,11 @@ import { ATTACHMENT_OWNER_TYPES } from "@/models/enums";
 // the device's own UUID for this file, so a photo taken offline can be sent again safely.
 export const uploadFieldsSchema = z.object({
   ownerType: z.enum(ATTACHMENT_OWNER_TYPES, { error: "ownerType must be job, reading or instrument" }),
-  ownerId: z.string().trim().min(1, "Say which job, reading or gauge the file belongs to (ownerId)").max(36, "ownerId is too long"),
+  ownerId: z
+    .string()
+    .trim()
+    .min(1, "Say which job, reading or gauge the file belongs to (ownerId)")
+    .max(36, "ownerId is too long"),
   clientId: z.uuid({ error: "clientId must be a UUID made by the device for this file" }),
 });
 

@@ -8,26 +8,48 @@
 import { z } from "zod";
 
 const blank = (v: unknown) => (v === "" || v === null ? undefined : v);
-const id = (what: string) => z.preprocess(blank, z.coerce.number(`${what} must be a number`).int(`${what} must be a whole number`).positive(`${what} must be a whole number`).optional());
+const id = (what: string) =>
+  z.preprocess(
+    blank,
+    z.coerce
+      .number(`${what} must be a number`)
+      .int(`${what} must be a whole number`)
+      .positive(`${what} must be a whole number`)
+      .optional(),
+  );
 const day = (what: string) => z.preprocess(blank, z.iso.date(`${what} must be a date like 2026-12-01`).optional());
-const word = (max: number, what: string) => z.preprocess(blank, z.string().trim().max(max, `${what} is at most ${max} characters`).optional());
+const word = (max: number, what: string) =>
+  z.preprocess(blank, z.string().trim().max(max, `${what} is at most ${max} characters`).optional());
 
-export const auditQuerySchema = z.object({
-  job: id("Job"),
-  user: id("User"),
-  action: word(64, "Action"),
-  entity: word(32, "Entity"),
-  entityId: word(64, "Entity id"),
-  from: day("From"),
-  to: day("To"),
-  page: z.preprocess(blank, z.coerce.number("Page must be a number").int().min(1, "Pages start at 1").default(1)),
-  pageSize: z.preprocess(blank, z.coerce.number("Page size must be a number").int().min(1).max(100, "At most 100 events a page").default(25)),
-}).refine((q) => !q.from || !q.to || q.from <= q.to, { path: ["to"], message: "The end date is before the start date; swap them" });
+export const auditQuerySchema = z
+  .object({
+    job: id("Job"),
+    user: id("User"),
+    action: word(64, "Action"),
+    entity: word(32, "Entity"),
+    entityId: word(64, "Entity id"),
+    from: day("From"),
+    to: day("To"),
+    page: z.preprocess(blank, z.coerce.number("Page must be a number").int().min(1, "Pages start at 1").default(1)),
+    pageSize: z.preprocess(
+      blank,
+      z.coerce.number("Page size must be a number").int().min(1).max(100, "At most 100 events a page").default(25),
+    ),
+  })
+  .refine((q) => !q.from || !q.to || q.from <= q.to, {
+    path: ["to"],
+    message: "The end date is before the start date; swap them",
+  });
 
 export type AuditQuery = z.output<typeof auditQuerySchema>;
 export type AuditQueryInput = z.input<typeof auditQuerySchema>;
 
-export type AuditChange = { path: string; kind: "added" | "removed" | "changed"; before: string | null; after: string | null };
+export type AuditChange = {
+  path: string;
+  kind: "added" | "removed" | "changed";
+  before: string | null;
+  after: string | null;
+};
 
 export type AuditEventView = {
   id: number;

@@ -9,42 +9,72 @@ import { UNIT_SYSTEMS } from "@/models/enums";
 export const PISTON_TOPS = ["flat", "dish", "dome"] as const;
 
 const length = (what: string) =>
-  z.number({ error: `Enter the ${what} as a number` }).positive(`The ${what} is above zero`).max(2000, `Check the ${what}: it is too large`).nullish();
+  z
+    .number({ error: `Enter the ${what} as a number` })
+    .positive(`The ${what} is above zero`)
+    .max(2000, `Check the ${what}: it is too large`)
+    .nullish();
 const gap = (what: string) =>
-  z.number({ error: `Enter the ${what} as a number` }).min(0, `The ${what} is 0 or more`).max(100, `Check the ${what}: it is too large`).nullish();
+  z
+    .number({ error: `Enter the ${what} as a number` })
+    .min(0, `The ${what} is 0 or more`)
+    .max(100, `Check the ${what}: it is too large`)
+    .nullish();
 const cc = (what: string) =>
-  z.number({ error: `Enter the ${what} in cc` }).min(0, `Enter the ${what} as a size (0 or more); pick dish or dome for its sign`).max(5000, `Check the ${what}: it is too large`).nullish();
+  z
+    .number({ error: `Enter the ${what} in cc` })
+    .min(0, `Enter the ${what} as a size (0 or more); pick dish or dome for its sign`)
+    .max(5000, `Check the ${what}: it is too large`)
+    .nullish();
 
-export const buildPlanSchema = z.strictObject({
-  format: z.literal("tenthwise.build-plan").default("tenthwise.build-plan"),
-  version: z.literal(1).default(1),
-  lengthUnit: z.enum(UNIT_SYSTEMS, { error: "The plan's length unit is in or mm" }),
-  volumeUnit: z.literal("cc").default("cc"),
-  bore: length("bore"),
-  stroke: length("stroke"),
-  rodLength: length("rod length (centre to centre)"),
-  compressionHeight: length("piston compression height"),
-  pistonTop: z.enum(PISTON_TOPS, { error: "Pick flat top, dish or dome" }),
-  /** Dish or dome volume as a size; the sign comes from pistonTop (dish adds, dome takes away). */
-  pistonVolumeCc: cc("dish or dome volume"),
-  chamberCc: z.number({ error: "Enter the chamber volume in cc" }).positive("The chamber volume is above zero").max(5000, "Check the chamber volume: it is too large").nullish(),
-  gasketBore: length("gasket bore"),
-  gasketThickness: gap("gasket thickness (compressed)"),
-  deckHeight: length("block deck height"),
-  intakeLobeLift: length("intake lobe lift"),
-  exhaustLobeLift: length("exhaust lobe lift"),
-  rockerRatio: z.number({ error: "Enter the rocker ratio, e.g. 1.5" }).positive("The rocker ratio is above zero").max(5, "Check the rocker ratio: it is usually 1.0 to 2.0").nullish(),
-  intakeLash: gap("intake lash"),
-  exhaustLash: gap("exhaust lash"),
-  notes: z.string().max(2000, "Keep notes to 2000 characters").nullish(),
-}).superRefine((p, ctx) => {
-  if (p.pistonTop !== "flat" && (p.pistonVolumeCc === null || p.pistonVolumeCc === undefined)) {
-    ctx.addIssue({ code: "custom", path: ["pistonVolumeCc"], message: `Enter the ${p.pistonTop} volume in cc, or pick flat top` });
-  }
-  if (typeof p.gasketBore === "number" && typeof p.bore === "number" && p.gasketBore < p.bore) {
-    ctx.addIssue({ code: "custom", path: ["gasketBore"], message: "The gasket bore is smaller than the bore; check both (a gasket bore is usually a little larger)" });
-  }
-});
+export const buildPlanSchema = z
+  .strictObject({
+    format: z.literal("tenthwise.build-plan").default("tenthwise.build-plan"),
+    version: z.literal(1).default(1),
+    lengthUnit: z.enum(UNIT_SYSTEMS, { error: "The plan's length unit is in or mm" }),
+    volumeUnit: z.literal("cc").default("cc"),
+    bore: length("bore"),
+    stroke: length("stroke"),
+    rodLength: length("rod length (centre to centre)"),
+    compressionHeight: length("piston compression height"),
+    pistonTop: z.enum(PISTON_TOPS, { error: "Pick flat top, dish or dome" }),
+    /** Dish or dome volume as a size; the sign comes from pistonTop (dish adds, dome takes away). */
+    pistonVolumeCc: cc("dish or dome volume"),
+    chamberCc: z
+      .number({ error: "Enter the chamber volume in cc" })
+      .positive("The chamber volume is above zero")
+      .max(5000, "Check the chamber volume: it is too large")
+      .nullish(),
+    gasketBore: length("gasket bore"),
+    gasketThickness: gap("gasket thickness (compressed)"),
+    deckHeight: length("block deck height"),
+    intakeLobeLift: length("intake lobe lift"),
+    exhaustLobeLift: length("exhaust lobe lift"),
+    rockerRatio: z
+      .number({ error: "Enter the rocker ratio, e.g. 1.5" })
+      .positive("The rocker ratio is above zero")
+      .max(5, "Check the rocker ratio: it is usually 1.0 to 2.0")
+      .nullish(),
+    intakeLash: gap("intake lash"),
+    exhaustLash: gap("exhaust lash"),
+    notes: z.string().max(2000, "Keep notes to 2000 characters").nullish(),
+  })
+  .superRefine((p, ctx) => {
+    if (p.pistonTop !== "flat" && (p.pistonVolumeCc === null || p.pistonVolumeCc === undefined)) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["pistonVolumeCc"],
+        message: `Enter the ${p.pistonTop} volume in cc, or pick flat top`,
+      });
+    }
+    if (typeof p.gasketBore === "number" && typeof p.bore === "number" && p.gasketBore < p.bore) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["gasketBore"],
+        message: "The gasket bore is smaller than the bore; check both (a gasket bore is usually a little larger)",
+      });
+    }
+  });
 
 export type BuildPlanInput = z.input<typeof buildPlanSchema>;
 export type BuildPlan = z.output<typeof buildPlanSchema>;

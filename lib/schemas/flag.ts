@@ -1,32 +1,58 @@
 import { z } from "zod";
-import { FLAG_REASONS, VERDICTS, type Disposition, type FlagReason, type FlagState, type Verdict } from "@/models/enums";
+import {
+  FLAG_REASONS,
+  VERDICTS,
+  type Disposition,
+  type FlagReason,
+  type FlagState,
+  type Verdict,
+} from "@/models/enums";
 
 // The lead's decisions about a flag, and the flag queue's query: one schema for the disposition
 // form and POST /api/flags/[flagId]/disposition, one for the queue's URL and GET /api/flags.
 
 /** Common machining operations offered as choices; the lead may also type another. */
 export const MACHINE_OPERATIONS = [
-  "hone", "bore oversize and hone", "grind undersize", "polish journal", "align-hone", "resurface deck", "resize rod big end",
+  "hone",
+  "bore oversize and hone",
+  "grind undersize",
+  "polish journal",
+  "align-hone",
+  "resurface deck",
+  "resize rod big end",
 ] as const;
 
-const note = z.string({ error: "The note must be text" }).trim().max(1000, "Keep the note under 1000 characters").optional()
+const note = z
+  .string({ error: "The note must be text" })
+  .trim()
+  .max(1000, "Keep the note under 1000 characters")
+  .optional()
   .transform((s) => (s ? s : undefined));
 
-export const dispositionSchema = z.discriminatedUnion("kind", [
-  z.object({ kind: z.literal("measure_again"), note }),
-  z.object({
-    kind: z.literal("machine_again"),
-    operation: z.string({ error: "Name the operation, e.g. hone, grind undersize or align-hone" }).trim()
-      .min(1, "Name the operation, e.g. hone, grind undersize or align-hone").max(120, "Keep the operation under 120 characters"),
-    note,
-  }),
-  z.object({
-    kind: z.literal("accept"),
-    reason: z.string({ error: "Write why this value is accepted as it is" }).trim()
-      .min(1, "Write why this value is accepted as it is: an acceptance without a reason is not recorded")
-      .max(2000, "Keep the reason under 2000 characters"),
-  }),
-], { error: "Choose what to do: measure_again, machine_again or accept" });
+export const dispositionSchema = z.discriminatedUnion(
+  "kind",
+  [
+    z.object({ kind: z.literal("measure_again"), note }),
+    z.object({
+      kind: z.literal("machine_again"),
+      operation: z
+        .string({ error: "Name the operation, e.g. hone, grind undersize or align-hone" })
+        .trim()
+        .min(1, "Name the operation, e.g. hone, grind undersize or align-hone")
+        .max(120, "Keep the operation under 120 characters"),
+      note,
+    }),
+    z.object({
+      kind: z.literal("accept"),
+      reason: z
+        .string({ error: "Write why this value is accepted as it is" })
+        .trim()
+        .min(1, "Write why this value is accepted as it is: an acceptance without a reason is not recorded")
+        .max(2000, "Keep the reason under 2000 characters"),
+    }),
+  ],
+  { error: "Choose what to do: measure_again, machine_again or accept" },
+);
 
 export type DispositionInput = z.output<typeof dispositionSchema>;
 
@@ -53,14 +79,48 @@ export type FlagStateFilter = (typeof FLAG_STATE_FILTERS)[number];
 const blank = (v: unknown) => (v === "" || v === null ? undefined : v);
 
 export const flagListQuerySchema = z.object({
-  page: z.preprocess(blank, z.coerce.number({ error: "page must be a whole number from 1" }).int("page must be a whole number from 1").min(1, "page must be a whole number from 1").default(1)),
-  pageSize: z.preprocess(blank, z.coerce.number({ error: "pageSize must be 1 to 100" }).int("pageSize must be 1 to 100").min(1, "pageSize must be 1 to 100").max(100, "pageSize must be 1 to 100").default(25)),
-  sort: z.preprocess(blank, z.enum(FLAG_SORTS, { error: `sort must be one of ${FLAG_SORTS.join(", ")}` }).default("age")),
+  page: z.preprocess(
+    blank,
+    z.coerce
+      .number({ error: "page must be a whole number from 1" })
+      .int("page must be a whole number from 1")
+      .min(1, "page must be a whole number from 1")
+      .default(1),
+  ),
+  pageSize: z.preprocess(
+    blank,
+    z.coerce
+      .number({ error: "pageSize must be 1 to 100" })
+      .int("pageSize must be 1 to 100")
+      .min(1, "pageSize must be 1 to 100")
+      .max(100, "pageSize must be 1 to 100")
+      .default(25),
+  ),
+  sort: z.preprocess(
+    blank,
+    z.enum(FLAG_SORTS, { error: `sort must be one of ${FLAG_SORTS.join(", ")}` }).default("age"),
+  ),
   dir: z.preprocess(blank, z.enum(["asc", "desc"], { error: "dir must be asc or desc" }).default("desc")),
-  state: z.preprocess(blank, z.enum(FLAG_STATE_FILTERS, { error: `state must be one of ${FLAG_STATE_FILTERS.join(", ")}` }).default("active")),
-  job: z.preprocess(blank, z.coerce.number({ error: "job must be a job id" }).int("job must be a job id").positive("job must be a job id").optional()),
-  verdict: z.preprocess(blank, z.enum(VERDICTS, { error: "verdict must be in_spec, marginal or out_of_spec" }).optional()),
-  reason: z.preprocess(blank, z.enum(FLAG_REASONS, { error: "reason must be out_of_spec, marginal or gauge_past_due" }).optional()),
+  state: z.preprocess(
+    blank,
+    z.enum(FLAG_STATE_FILTERS, { error: `state must be one of ${FLAG_STATE_FILTERS.join(", ")}` }).default("active"),
+  ),
+  job: z.preprocess(
+    blank,
+    z.coerce
+      .number({ error: "job must be a job id" })
+      .int("job must be a job id")
+      .positive("job must be a job id")
+      .optional(),
+  ),
+  verdict: z.preprocess(
+    blank,
+    z.enum(VERDICTS, { error: "verdict must be in_spec, marginal or out_of_spec" }).optional(),
+  ),
+  reason: z.preprocess(
+    blank,
+    z.enum(FLAG_REASONS, { error: "reason must be out_of_spec, marginal or gauge_past_due" }).optional(),
+  ),
 });
 export type FlagListQuery = z.output<typeof flagListQuerySchema>;
 
@@ -133,7 +193,14 @@ export type DerivedFigure = {
   missing: string[];
 };
 
-export type DispositionEntry = { id: number; disposition: Disposition; operation: string | null; reason: string | null; by: string; at: string };
+export type DispositionEntry = {
+  id: number;
+  disposition: Disposition;
+  operation: string | null;
+  reason: string | null;
+  by: string;
+  at: string;
+};
 
 export type FlagDetail = {
   flag: FlagListItem & { closedByReadingId: string | null };

@@ -25,20 +25,39 @@ export type InstrumentUnit = keyof typeof INSTRUMENT_UNITS;
 const UNIT_IDS = Object.keys(INSTRUMENT_UNITS) as [InstrumentUnit, ...InstrumentUnit[]];
 
 const date = (what: string) =>
-  z.string({ error: `Enter the ${what} date` })
+  z
+    .string({ error: `Enter the ${what} date` })
     .regex(/^\d{4}-\d{2}-\d{2}$/, `Enter the ${what} date as YYYY-MM-DD`)
-    .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), `That ${what} date does not exist`);
+    .refine(
+      (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
+      `That ${what} date does not exist`,
+    );
 
-const positive = (what: string) => z.number({ error: `${what} must be a number` }).finite(`${what} must be a number`).positive(`${what} must be above zero`);
+const positive = (what: string) =>
+  z
+    .number({ error: `${what} must be a number` })
+    .finite(`${what} must be a number`)
+    .positive(`${what} must be above zero`);
 
 /** The fields of a gauge as the admin enters them; U is the expanded uncertainty at k = 2. */
 export const instrumentFields = z.object({
   kind: z.enum(INSTRUMENT_KIND_IDS, { error: "Choose what kind of gauge this is" }),
-  label: z.string({ error: "Give the gauge a name people recognise" }).trim().min(1, "Give the gauge a name people recognise").max(120, "Keep the name under 120 characters"),
-  serial: z.string({ error: "Enter the serial number engraved on the gauge" }).trim().min(1, "Enter the serial number engraved on the gauge").max(64, "Keep the serial under 64 characters"),
+  label: z
+    .string({ error: "Give the gauge a name people recognise" })
+    .trim()
+    .min(1, "Give the gauge a name people recognise")
+    .max(120, "Keep the name under 120 characters"),
+  serial: z
+    .string({ error: "Enter the serial number engraved on the gauge" })
+    .trim()
+    .min(1, "Enter the serial number engraved on the gauge")
+    .max(64, "Keep the serial under 64 characters"),
   unit: z.enum(UNIT_IDS, { error: "Choose the unit the gauge reads: in, mm, lbf·ft or N·m" }),
   resolution: positive("Resolution"),
-  expandedU: z.number({ error: "Expanded uncertainty U must be a number" }).finite("Expanded uncertainty U must be a number").min(0, "Expanded uncertainty U cannot be negative"),
+  expandedU: z
+    .number({ error: "Expanded uncertainty U must be a number" })
+    .finite("Expanded uncertainty U must be a number")
+    .min(0, "Expanded uncertainty U cannot be negative"),
   calibratedOn: date("calibration"),
   calibrationDue: date("calibration due"),
   dialPlusMeansSmaller: z.boolean({ error: "Say whether plus on the dial means a smaller bore" }),
@@ -47,7 +66,10 @@ export const instrumentFields = z.object({
 type Fields = z.output<typeof instrumentFields>;
 type Payload = { issues: { path?: PropertyKey[] }[] };
 /** Run a cross-field rule only when its own fields are valid, so all errors show at once. */
-const when = (...fields: (keyof Fields)[]) => (p: Payload) => p.issues.every((i) => !fields.includes(i.path?.[0] as keyof Fields));
+const when =
+  (...fields: (keyof Fields)[]) =>
+  (p: Payload) =>
+    p.issues.every((i) => !fields.includes(i.path?.[0] as keyof Fields));
 
 const unitFits = (v: Fields) => {
   const family = INSTRUMENT_KINDS[v.kind].family;
@@ -57,9 +79,21 @@ const unitFits = (v: Fields) => {
 /** Rules across fields, shared by create (whole object) and edit (after merging with what is stored). */
 export function withInstrumentRules<S extends z.ZodType<Fields>>(schema: S): S {
   return schema
-    .refine(unitFits, { path: ["unit"], message: "The unit must fit the kind: a torque wrench reads lbf·ft or N·m, every other gauge in or mm", when: when("kind", "unit") })
-    .refine((v) => v.calibrationDue > v.calibratedOn, { path: ["calibrationDue"], message: "The due date must come after the calibration date", when: when("calibratedOn", "calibrationDue") })
-    .refine((v) => !(v.expandedU > 100 * v.resolution), { path: ["expandedU"], message: "U is more than 100 times the resolution; check both figures and their unit", when: when("expandedU", "resolution") }) as S;
+    .refine(unitFits, {
+      path: ["unit"],
+      message: "The unit must fit the kind: a torque wrench reads lbf·ft or N·m, every other gauge in or mm",
+      when: when("kind", "unit"),
+    })
+    .refine((v) => v.calibrationDue > v.calibratedOn, {
+      path: ["calibrationDue"],
+      message: "The due date must come after the calibration date",
+      when: when("calibratedOn", "calibrationDue"),
+    })
+    .refine((v) => !(v.expandedU > 100 * v.resolution), {
+      path: ["expandedU"],
+      message: "U is more than 100 times the resolution; check both figures and their unit",
+      when: when("expandedU", "resolution"),
+    }) as S;
 }
 
 /** Registering: most dial bore gauges read plus for a smaller bore, so that is the default. */
@@ -71,9 +105,13 @@ export const instrumentSchema = withInstrumentRules(
  * An edit: any of the fields, plus switching the gauge off or on. (A certificate is attached by
  * uploading it: POST /api/attachments with ownerType 'instrument' links it to the gauge.)
  */
-export const instrumentPatchSchema = instrumentFields.partial().extend({
-  active: z.boolean({ error: "active must be true or false" }).optional(),
-}).strict().refine((v) => Object.keys(v).length > 0, { message: "Say what to change", path: ["_"] });
+export const instrumentPatchSchema = instrumentFields
+  .partial()
+  .extend({
+    active: z.boolean({ error: "active must be true or false" }).optional(),
+  })
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: "Say what to change", path: ["_"] });
 
 export type InstrumentValues = z.input<typeof instrumentSchema>;
 export type InstrumentInput = z.output<typeof instrumentSchema>;

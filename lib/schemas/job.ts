@@ -7,68 +7,117 @@ import { ENGINE_LAYOUTS, FUELS, UNIT_SYSTEMS } from "@/models/enums";
 
 /** Statuses the desk sets; released and closed belong to the release step. */
 export const DESK_STATUSES = ["intake", "measuring", "review"] as const;
-export const MATERIALS = Object.keys(EXPANSION_COEFFICIENTS) as [keyof typeof EXPANSION_COEFFICIENTS, ...(keyof typeof EXPANSION_COEFFICIENTS)[]];
+export const MATERIALS = Object.keys(EXPANSION_COEFFICIENTS) as [
+  keyof typeof EXPANSION_COEFFICIENTS,
+  ...(keyof typeof EXPANSION_COEFFICIENTS)[],
+];
 
 const text = (max: number, what: string) => z.string().trim().max(max, `Keep ${what} to ${max} characters`).nullish();
 const whole = (what: string, lo: number, hi: number) =>
-  z.number({ error: `Enter the ${what} as a whole number` }).int(`Enter the ${what} as a whole number`)
-    .min(lo, `${what[0].toUpperCase()}${what.slice(1)}: ${lo} to ${hi}`).max(hi, `${what[0].toUpperCase()}${what.slice(1)}: ${lo} to ${hi}`);
-const size = (what: string) => z.number({ error: `Enter the ${what} as a number` }).positive(`The ${what} is above zero`).max(10000, `Check the ${what}: it is too large`);
+  z
+    .number({ error: `Enter the ${what} as a whole number` })
+    .int(`Enter the ${what} as a whole number`)
+    .min(lo, `${what[0].toUpperCase()}${what.slice(1)}: ${lo} to ${hi}`)
+    .max(hi, `${what[0].toUpperCase()}${what.slice(1)}: ${lo} to ${hi}`);
+const size = (what: string) =>
+  z
+    .number({ error: `Enter the ${what} as a number` })
+    .positive(`The ${what} is above zero`)
+    .max(10000, `Check the ${what}: it is too large`);
 const material = (what: string) => z.enum(MATERIALS, { error: `Pick the ${what} material from the list` });
 
 // Plain (not strict) objects: the form keeps what was typed for the other choice, and the
 // schema drops it, so switching between "known" and "new" loses nothing on screen.
-export const customerPickSchema = z.discriminatedUnion("mode", [
-  z.object({ mode: z.literal("existing"), id: z.number({ error: "Pick a customer" }).int().positive("Pick a customer") }),
-  z.object({
-    mode: z.literal("new"),
-    name: z.string().trim().min(1, "Enter the customer's name").max(160, "Keep the name to 160 characters"),
-    email: z.union([z.literal(""), z.string().trim().email("Enter an e-mail like name@example.com").max(255)]).nullish(),
-    phone: text(40, "the phone number"),
-  }),
-], { error: "Pick a customer or enter a new one" });
+export const customerPickSchema = z.discriminatedUnion(
+  "mode",
+  [
+    z.object({
+      mode: z.literal("existing"),
+      id: z.number({ error: "Pick a customer" }).int().positive("Pick a customer"),
+    }),
+    z.object({
+      mode: z.literal("new"),
+      name: z.string().trim().min(1, "Enter the customer's name").max(160, "Keep the name to 160 characters"),
+      email: z
+        .union([z.literal(""), z.string().trim().email("Enter an e-mail like name@example.com").max(255)])
+        .nullish(),
+      phone: text(40, "the phone number"),
+    }),
+  ],
+  { error: "Pick a customer or enter a new one" },
+);
 
-export const engineSchema = z.strictObject({
-  description: z.string().trim().min(1, "Describe the engine, e.g. small-block V8, 0.030 in over").max(255, "Keep it to 255 characters"),
-  cylinders: whole("number of cylinders", 1, 16),
-  layout: z.enum(ENGINE_LAYOUTS, { error: "Pick inline, V or flat" }),
-  mains: whole("number of main bearings", 1, 10),
-  valvesPerCylinder: whole("valves per cylinder", 2, 5),
-  ringsPerPiston: whole("rings per piston", 1, 4),
-  boltsPerRod: whole("bolts per rod", 1, 4),
-  nominalBore: size("nominal bore"),
-  nominalStroke: size("nominal stroke"),
-  blockMaterial: material("block"),
-  headMaterial: material("head").nullish(),
-  pistonMaterial: material("piston").nullish(),
-  blockSerial: text(64, "the block serial"),
-  crankSerial: text(64, "the crank serial"),
-  headSerials: text(160, "the head serials"),
-  fuel: z.enum(FUELS, { error: "Pick gasoline, diesel or other" }).nullish(),
-}).superRefine((e, ctx) => {
-  if (e.layout !== "inline" && e.cylinders % 2 !== 0) {
-    ctx.addIssue({ code: "custom", path: ["cylinders"], message: `A ${e.layout === "v" ? "V" : "flat"} engine has an even number of cylinders` });
-    return;
-  }
-  // Anything else the core cannot measure (checked by the core itself, in its own words).
-  try {
-    checkEngineShape({ cylinders: e.cylinders, layout: e.layout, mains: e.mains, valvesPerCylinder: e.valvesPerCylinder, ringsPerPiston: e.ringsPerPiston, boltsPerRod: e.boltsPerRod, unitSystem: "inch" });
-  } catch (err) {
-    ctx.addIssue({ code: "custom", path: ["cylinders"], message: (err as Error).message });
-  }
-});
+export const engineSchema = z
+  .strictObject({
+    description: z
+      .string()
+      .trim()
+      .min(1, "Describe the engine, e.g. small-block V8, 0.030 in over")
+      .max(255, "Keep it to 255 characters"),
+    cylinders: whole("number of cylinders", 1, 16),
+    layout: z.enum(ENGINE_LAYOUTS, { error: "Pick inline, V or flat" }),
+    mains: whole("number of main bearings", 1, 10),
+    valvesPerCylinder: whole("valves per cylinder", 2, 5),
+    ringsPerPiston: whole("rings per piston", 1, 4),
+    boltsPerRod: whole("bolts per rod", 1, 4),
+    nominalBore: size("nominal bore"),
+    nominalStroke: size("nominal stroke"),
+    blockMaterial: material("block"),
+    headMaterial: material("head").nullish(),
+    pistonMaterial: material("piston").nullish(),
+    blockSerial: text(64, "the block serial"),
+    crankSerial: text(64, "the crank serial"),
+    headSerials: text(160, "the head serials"),
+    fuel: z.enum(FUELS, { error: "Pick gasoline, diesel or other" }).nullish(),
+  })
+  .superRefine((e, ctx) => {
+    if (e.layout !== "inline" && e.cylinders % 2 !== 0) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["cylinders"],
+        message: `A ${e.layout === "v" ? "V" : "flat"} engine has an even number of cylinders`,
+      });
+      return;
+    }
+    // Anything else the core cannot measure (checked by the core itself, in its own words).
+    try {
+      checkEngineShape({
+        cylinders: e.cylinders,
+        layout: e.layout,
+        mains: e.mains,
+        valvesPerCylinder: e.valvesPerCylinder,
+        ringsPerPiston: e.ringsPerPiston,
+        boltsPerRod: e.boltsPerRod,
+        unitSystem: "inch",
+      });
+    } catch (err) {
+      ctx.addIssue({ code: "custom", path: ["cylinders"], message: (err as Error).message });
+    }
+  });
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Enter the date as YYYY-MM-DD")
-  .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)) && new Date(`${d}T00:00:00Z`).toISOString().startsWith(d), "That date does not exist");
+const isoDate = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, "Enter the date as YYYY-MM-DD")
+  .refine(
+    (d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)) && new Date(`${d}T00:00:00Z`).toISOString().startsWith(d),
+    "That date does not exist",
+  );
 
 export const jobSchema = z.strictObject({
-  code: z.string().trim().min(1, "Give the job a code, e.g. KF-2614").max(24, "Keep the code to 24 characters")
+  code: z
+    .string()
+    .trim()
+    .min(1, "Give the job a code, e.g. KF-2614")
+    .max(24, "Keep the code to 24 characters")
     .regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, "Use letters, digits, dots and dashes in the code"),
   title: z.string().trim().min(1, "Give the job a title").max(160, "Keep the title to 160 characters"),
   customer: customerPickSchema,
   engine: engineSchema,
   unitSystem: z.enum(UNIT_SYSTEMS, { error: "Pick inch or metric" }),
-  templateId: z.number({ error: "Pick the spec sheet the job starts from" }).int().positive("Pick the spec sheet the job starts from"),
+  templateId: z
+    .number({ error: "Pick the spec sheet the job starts from" })
+    .int()
+    .positive("Pick the spec sheet the job starts from"),
   dueDate: z.union([z.literal(""), isoDate]).nullish(),
   status: z.enum(DESK_STATUSES, { error: "Pick intake, measuring or review" }),
   notes: text(4000, "notes"),

@@ -14,13 +14,22 @@ import { z } from "zod";
 import type { Verdict } from "@/lib/domain";
 
 export const signSchema = z.object({
-  fullName: z.string("Type your full name").trim().min(1, "Type your full name as it is on your account").max(160, "That name is too long"),
-  password: z.string("Enter your password").min(1, "Enter your password again to sign").max(200, "That password is too long"),
+  fullName: z
+    .string("Type your full name")
+    .trim()
+    .min(1, "Type your full name as it is on your account")
+    .max(160, "That name is too long"),
+  password: z
+    .string("Enter your password")
+    .min(1, "Enter your password again to sign")
+    .max(200, "That password is too long"),
 });
 export type SignInput = z.infer<typeof signSchema>;
 
 export const reopenSchema = z.object({
-  reason: z.string("Say why the job is reopened").trim()
+  reason: z
+    .string("Say why the job is reopened")
+    .trim()
     .min(10, "Say why the job is reopened, in a sentence (10 characters or more)")
     .max(2000, "Keep the reason to 2000 characters"),
 });
@@ -28,7 +37,10 @@ export type ReopenInput = z.infer<typeof reopenSchema>;
 
 export const HASH_PATTERN = /^[0-9a-f]{64}$/;
 export const publicVerifySchema = z.object({
-  hash: z.string("Give the record's fingerprint (hash)").trim().toLowerCase()
+  hash: z
+    .string("Give the record's fingerprint (hash)")
+    .trim()
+    .toLowerCase()
     .regex(HASH_PATTERN, "The fingerprint is 64 characters, 0-9 and a-f, as printed on the build record"),
   job: z.string().trim().max(24, "A job code is at most 24 characters").optional(),
 });
@@ -61,7 +73,10 @@ export type ReleaseRecord = {
   voidReason: string | null;
 };
 
-export type ReadingCounts = { current: number; superseded: number; skipped: number } & Record<Verdict | "unjudged", number>;
+export type ReadingCounts = { current: number; superseded: number; skipped: number } & Record<
+  Verdict | "unjudged",
+  number
+>;
 
 export type FlagSummary = {
   id: number;
@@ -80,7 +95,16 @@ export type FlagSummary = {
 };
 
 export type ReleaseView = {
-  job: { id: number; code: string; title: string; status: string; lockedAt: string | null; customer: string; engine: string; unitSystem: string };
+  job: {
+    id: number;
+    code: string;
+    title: string;
+    status: string;
+    lockedAt: string | null;
+    customer: string;
+    engine: string;
+    unitSystem: string;
+  };
   checklist: ReleaseChecklist;
   counts: ReadingCounts;
   flags: FlagSummary[];
@@ -90,8 +114,16 @@ export type ReleaseView = {
 };
 
 export type ReleaseJobSummary = {
-  id: number; code: string; title: string; status: string; customer: string; engine: string; dueDate: string | null;
-  complete: boolean; unmet: number; release: { signedAt: string; hash: string } | null;
+  id: number;
+  code: string;
+  title: string;
+  status: string;
+  customer: string;
+  engine: string;
+  dueDate: string | null;
+  complete: boolean;
+  unmet: number;
+  release: { signedAt: string; hash: string } | null;
 };
 
 export type Difference = { section: string; id: string; label: string; change: "changed" | "added" | "removed" };

@@ -4,12 +4,25 @@
 // the shop could measure; the probe engines below hold every station form the grammar has
 // (V and inline decks, 2- and 5-valve heads, 4 rings, 4 bolts, 16 cylinders, 10 mains).
 import {
-  CHARACTERISTICS, benchRoute, deriveReadings, matchStationPattern, parseStationId,
-  type CharacteristicId, type EngineShape,
+  CHARACTERISTICS,
+  benchRoute,
+  deriveReadings,
+  matchStationPattern,
+  parseStationId,
+  type CharacteristicId,
+  type EngineShape,
 } from "@/lib/domain";
 
 const PROBES: EngineShape[] = [
-  { cylinders: 16, layout: "v", mains: 10, valvesPerCylinder: 2, ringsPerPiston: 4, boltsPerRod: 4, unitSystem: "inch" },
+  {
+    cylinders: 16,
+    layout: "v",
+    mains: 10,
+    valvesPerCylinder: 2,
+    ringsPerPiston: 4,
+    boltsPerRod: 4,
+    unitSystem: "inch",
+  },
   { cylinders: 16, layout: "inline", mains: 10, valvesPerCylinder: 5, unitSystem: "inch" },
 ];
 
@@ -43,8 +56,8 @@ export const STATION_FORMS: Record<CharacteristicId, string> = {
 
 /** The pattern rule in words (the same rule limits.ts applies). */
 export const PATTERN_RULE =
-  "Write a station id, with * for any part of it. A * at the end matches everything after it (\"main/3/*\" is all of main 3); " +
-  "a * in the middle matches exactly one part (\"bore/*/top/*\" is the top of every bore); \"*\" alone matches every station. " +
+  'Write a station id, with * for any part of it. A * at the end matches everything after it ("main/3/*" is all of main 3); ' +
+  'a * in the middle matches exactly one part ("bore/*/top/*" is the top of every bore); "*" alone matches every station. ' +
   "When two limits match, the one with more written-out parts wins.";
 
 let stationIndex: Map<string, string[]> | null = null;

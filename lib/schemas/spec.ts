@@ -39,7 +39,14 @@ import { stationPatternProblem } from "./spec-pattern";
 export const CHARACTERISTIC_IDS = Object.keys(CHARACTERISTICS) as [CharacteristicId, ...CharacteristicId[]];
 export const MEASURE_UNITS = ["in", "mm", "lbf_ft", "nm"] as const;
 export const GAUGE_KINDS = [
-  "micrometer", "bore-gauge", "dial-bore-gauge", "feeler", "dial-indicator", "stretch-gauge", "deck-gauge", "torque-wrench",
+  "micrometer",
+  "bore-gauge",
+  "dial-bore-gauge",
+  "feeler",
+  "dial-indicator",
+  "stretch-gauge",
+  "deck-gauge",
+  "torque-wrench",
 ] as const satisfies readonly GaugeKind[];
 export const BUILD_KINDS = ["street", "endurance", "marine", "diesel", "drag", "vintage", "industrial"] as const;
 export const SPEC_FILE_FORMAT = "tenthwise.spec-template";
@@ -67,83 +74,101 @@ export type LimitValueField = (typeof LIMIT_FIELDS)[keyof typeof LIMIT_FIELDS][n
 const num = (what: string) => z.number({ error: `Enter the ${what} as a number` });
 const optNum = (what: string) => num(what).nullish();
 
-export const limitSchema = z.strictObject({
-  characteristic: z.enum(CHARACTERISTIC_IDS, { error: "Pick a characteristic from the list" }),
-  stationPattern: z.string().trim().min(1, "Enter a station pattern; * means every station").max(64, "Keep the pattern to 64 characters"),
-  limitType: z.enum(LIMIT_TYPES, { error: "Pick a limit type" }),
-  unit: z.enum(MEASURE_UNITS, { error: "Pick a unit: in, mm, lbf_ft or nm" }),
-  min: optNum("minimum"),
-  max: optNum("maximum"),
-  nominal: optNum("nominal size"),
-  tolPlus: optNum("plus tolerance"),
-  tolMinus: optNum("minus tolerance"),
-  perInchMin: optNum("minimum per inch"),
-  perInchMax: optNum("maximum per inch"),
-  isoClass: z.string().trim().max(8, "An ISO 286 class is short, e.g. H7 or g6").nullish(),
-  required: z.boolean({ error: "Say whether the limit is required" }),
-  gaugeKind: z.enum(GAUGE_KINDS, { error: "Pick a gauge kind from the list" }).nullish(),
-  label: z.string().trim().max(120, "Keep the label to 120 characters").nullish(),
-}).superRefine((l, ctx) => {
-  const add = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
-  const has = (v: number | null | undefined) => typeof v === "number";
-  const info = CHARACTERISTICS[l.characteristic];
-  const lengthUnit = l.unit === "in" || l.unit === "mm";
-  if (info.kind === "torque" && lengthUnit) add("unit", "Torque is in lbf_ft or nm");
-  if (info.kind === "length" && !lengthUnit) add("unit", `${info.label} is a length: use in or mm`);
-  const problem = stationPatternProblem(l.characteristic, l.stationPattern);
-  if (problem) add("stationPattern", problem);
-  switch (l.limitType) {
-    case "min_max":
-      if (!has(l.min)) add("min", "Enter the minimum");
-      if (!has(l.max)) add("max", "Enter the maximum");
-      if (has(l.min) && has(l.max) && l.min! > l.max!) add("max", "The maximum is below the minimum; swap them");
-      break;
-    case "max_only":
-      if (!has(l.max)) add("max", "Enter the maximum");
-      break;
-    case "min_only":
-      if (!has(l.min)) add("min", "Enter the minimum");
-      break;
-    case "nominal_tol":
-      if (!has(l.nominal)) add("nominal", "Enter the nominal size");
-      for (const k of ["tolPlus", "tolMinus"] as const) {
-        if (!has(l[k])) add(k, `Enter the ${k === "tolPlus" ? "plus" : "minus"} tolerance (0 if none)`);
-        else if (l[k]! < 0) add(k, "Enter the tolerance as a size (0 or more); the minus one is subtracted for you");
-      }
-      break;
-    case "per_inch":
-      if (info.kind === "torque") add("limitType", "A per-inch rule is for lengths, not torque; pick another type");
-      if (!has(l.perInchMin) && !has(l.perInchMax)) add("perInchMax", "Enter a minimum or a maximum per inch of diameter (e.g. 0.001)");
-      for (const k of ["perInchMin", "perInchMax"] as const) if (has(l[k]) && l[k]! < 0) add(k, "A per-inch figure is 0 or more");
-      if (has(l.perInchMin) && has(l.perInchMax) && l.perInchMin! > l.perInchMax!) add("perInchMax", "The maximum per inch is below the minimum; swap them");
-      break;
-    case "iso286":
-      if (info.kind === "torque") add("limitType", "An ISO 286 class is for lengths, not torque; pick another type");
-      if (!l.isoClass) add("isoClass", "Enter the ISO 286 class, e.g. H7 for a bore or g6 for a shaft");
-      else {
-        try {
-          iso286Deviations(50, l.isoClass);
-        } catch (err) {
-          add("isoClass", (err as Error).message);
+export const limitSchema = z
+  .strictObject({
+    characteristic: z.enum(CHARACTERISTIC_IDS, { error: "Pick a characteristic from the list" }),
+    stationPattern: z
+      .string()
+      .trim()
+      .min(1, "Enter a station pattern; * means every station")
+      .max(64, "Keep the pattern to 64 characters"),
+    limitType: z.enum(LIMIT_TYPES, { error: "Pick a limit type" }),
+    unit: z.enum(MEASURE_UNITS, { error: "Pick a unit: in, mm, lbf_ft or nm" }),
+    min: optNum("minimum"),
+    max: optNum("maximum"),
+    nominal: optNum("nominal size"),
+    tolPlus: optNum("plus tolerance"),
+    tolMinus: optNum("minus tolerance"),
+    perInchMin: optNum("minimum per inch"),
+    perInchMax: optNum("maximum per inch"),
+    isoClass: z.string().trim().max(8, "An ISO 286 class is short, e.g. H7 or g6").nullish(),
+    required: z.boolean({ error: "Say whether the limit is required" }),
+    gaugeKind: z.enum(GAUGE_KINDS, { error: "Pick a gauge kind from the list" }).nullish(),
+    label: z.string().trim().max(120, "Keep the label to 120 characters").nullish(),
+  })
+  .superRefine((l, ctx) => {
+    const add = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
+    const has = (v: number | null | undefined) => typeof v === "number";
+    const info = CHARACTERISTICS[l.characteristic];
+    const lengthUnit = l.unit === "in" || l.unit === "mm";
+    if (info.kind === "torque" && lengthUnit) add("unit", "Torque is in lbf_ft or nm");
+    if (info.kind === "length" && !lengthUnit) add("unit", `${info.label} is a length: use in or mm`);
+    const problem = stationPatternProblem(l.characteristic, l.stationPattern);
+    if (problem) add("stationPattern", problem);
+    switch (l.limitType) {
+      case "min_max":
+        if (!has(l.min)) add("min", "Enter the minimum");
+        if (!has(l.max)) add("max", "Enter the maximum");
+        if (has(l.min) && has(l.max) && l.min! > l.max!) add("max", "The maximum is below the minimum; swap them");
+        break;
+      case "max_only":
+        if (!has(l.max)) add("max", "Enter the maximum");
+        break;
+      case "min_only":
+        if (!has(l.min)) add("min", "Enter the minimum");
+        break;
+      case "nominal_tol":
+        if (!has(l.nominal)) add("nominal", "Enter the nominal size");
+        for (const k of ["tolPlus", "tolMinus"] as const) {
+          if (!has(l[k])) add(k, `Enter the ${k === "tolPlus" ? "plus" : "minus"} tolerance (0 if none)`);
+          else if (l[k]! < 0) add(k, "Enter the tolerance as a size (0 or more); the minus one is subtracted for you");
         }
-      }
-      if (has(l.nominal) && l.nominal! <= 0) add("nominal", "The nominal size is above zero (or leave it empty to use the engine's)");
-      break;
-  }
-});
+        break;
+      case "per_inch":
+        if (info.kind === "torque") add("limitType", "A per-inch rule is for lengths, not torque; pick another type");
+        if (!has(l.perInchMin) && !has(l.perInchMax))
+          add("perInchMax", "Enter a minimum or a maximum per inch of diameter (e.g. 0.001)");
+        for (const k of ["perInchMin", "perInchMax"] as const)
+          if (has(l[k]) && l[k]! < 0) add(k, "A per-inch figure is 0 or more");
+        if (has(l.perInchMin) && has(l.perInchMax) && l.perInchMin! > l.perInchMax!)
+          add("perInchMax", "The maximum per inch is below the minimum; swap them");
+        break;
+      case "iso286":
+        if (info.kind === "torque") add("limitType", "An ISO 286 class is for lengths, not torque; pick another type");
+        if (!l.isoClass) add("isoClass", "Enter the ISO 286 class, e.g. H7 for a bore or g6 for a shaft");
+        else {
+          try {
+            iso286Deviations(50, l.isoClass);
+          } catch (err) {
+            add("isoClass", (err as Error).message);
+          }
+        }
+        if (has(l.nominal) && l.nominal! <= 0)
+          add("nominal", "The nominal size is above zero (or leave it empty to use the engine's)");
+        break;
+    }
+  });
 
 export type LimitInput = z.input<typeof limitSchema>;
 export type LimitValues = z.output<typeof limitSchema>;
 
 /** A list of limits: at least one, and no two for the same characteristic and pattern. */
-export const limitListSchema = z.array(limitSchema).min(1, "Add at least one limit").max(400, "A sheet holds at most 400 limits")
+export const limitListSchema = z
+  .array(limitSchema)
+  .min(1, "Add at least one limit")
+  .max(400, "A sheet holds at most 400 limits")
   .superRefine((limits, ctx) => {
     const seen = new Map<string, number>();
     limits.forEach((l, i) => {
       const key = `${l.characteristic}|${l.stationPattern.trim()}`;
       const first = seen.get(key);
       if (first === undefined) seen.set(key, i);
-      else ctx.addIssue({ code: "custom", path: [i, "stationPattern"], message: `Limit ${first + 1} already covers ${CHARACTERISTICS[l.characteristic].label.toLowerCase()} at '${l.stationPattern}'; change the pattern or remove one` });
+      else
+        ctx.addIssue({
+          code: "custom",
+          path: [i, "stationPattern"],
+          message: `Limit ${first + 1} already covers ${CHARACTERISTICS[l.characteristic].label.toLowerCase()} at '${l.stationPattern}'; change the pattern or remove one`,
+        });
     });
   });
 
@@ -157,7 +182,11 @@ export type JobLimitsValues = z.output<typeof jobLimitsSchema>;
 
 export const templateSchema = z.strictObject({
   name: z.string().trim().min(1, "Give the sheet a name").max(160, "Keep the name to 160 characters"),
-  engineKind: z.string().trim().min(1, "Say which engine it is for, e.g. V8 gasoline").max(64, "Keep it to 64 characters"),
+  engineKind: z
+    .string()
+    .trim()
+    .min(1, "Say which engine it is for, e.g. V8 gasoline")
+    .max(64, "Keep it to 64 characters"),
   buildKind: z.string().trim().min(1, "Say which build, e.g. street or marine").max(32, "Keep it to 32 characters"),
   unitSystem: z.enum(UNIT_SYSTEMS, { error: "Pick in or mm" }),
   notes: z.string().max(2000, "Keep notes to 2000 characters").nullish(),
@@ -168,7 +197,9 @@ export type TemplateInput = z.input<typeof templateSchema>;
 export type TemplateValues = z.output<typeof templateSchema>;
 
 export const templateFileSchema = z.strictObject({
-  format: z.literal(SPEC_FILE_FORMAT, { error: `This is not a Tenthwise spec template file: "format" must be "${SPEC_FILE_FORMAT}"` }),
+  format: z.literal(SPEC_FILE_FORMAT, {
+    error: `This is not a Tenthwise spec template file: "format" must be "${SPEC_FILE_FORMAT}"`,
+  }),
   version: z.literal(1, { error: "This file's version is not one this Tenthwise reads; it reads version 1" }),
   exportedAt: z.string().max(40).optional(),
   template: templateSchema,
@@ -178,5 +209,7 @@ export type TemplateFile = z.output<typeof templateFileSchema>;
 
 /** A limit with its empty fields left out, as the file and the API send it. */
 export function compactLimit(l: LimitValues): LimitValues {
-  return Object.fromEntries(Object.entries(l).filter(([, v]) => v !== null && v !== undefined && v !== "")) as LimitValues;
+  return Object.fromEntries(
+    Object.entries(l).filter(([, v]) => v !== null && v !== undefined && v !== ""),
+  ) as LimitValues;
 }

@@ -55,57 +55,78 @@ export const UNITS = ["in", "mm", "lbf_ft", "nm"] as const;
 export const LUBRICANTS = Object.keys(LUBRICANT_LABELS) as [Lubricant, ...Lubricant[]];
 
 const temperature = (what: string) =>
-  z.number(`${what} must be a number in °C`).min(-30, `${what} below -30 °C cannot be right; check it`)
+  z
+    .number(`${what} must be a number in °C`)
+    .min(-30, `${what} below -30 °C cannot be right; check it`)
     .max(150, `${what} above 150 °C cannot be right; let the part cool and measure again`);
 
-const stationId = z.string("Pick a station").min(1, "Pick a station").max(64, "Station id is too long")
+const stationId = z
+  .string("Pick a station")
+  .min(1, "Pick a station")
+  .max(64, "Station id is too long")
   .superRefine((id, ctx) => {
     try {
       const p = parseStationId(id);
-      if (!p.characteristic) ctx.addIssue({ code: "custom", message: `'${id}' names a part; readings are taken at stations such as 'bore/1/top/A'` });
+      if (!p.characteristic)
+        ctx.addIssue({
+          code: "custom",
+          message: `'${id}' names a part; readings are taken at stations such as 'bore/1/top/A'`,
+        });
     } catch (err) {
       ctx.addIssue({ code: "custom", message: err instanceof Error ? err.message : String(err) });
     }
   });
 
 /** One reading as the tablet queues it. `value` is in `unit`, exactly as entered (or the dial's diameter). */
-export const pushReadingSchema = z.object({
-  id: z.uuidv4("The reading id must be a UUID v4 made on the tablet"),
-  jobId: z.number("Job id must be a number").int("Job id must be a whole number").positive("Job id must be a whole number"),
-  stationId,
-  value: z.number("Enter the value as a number").finite("Enter the value as a number").nullable().optional(),
-  unit: z.enum(UNITS, "Unit must be in, mm, lbf_ft or nm"),
-  entryMode: z.enum(["direct", "dial"], "Entry mode must be direct or dial").default("direct"),
-  dialSetting: z.number("Dial setting must be a number").positive("The setting size must be above zero").optional(),
-  dialDeviation: z.number("Dial reading must be a number").finite().optional(),
-  instrumentId: z.number("Gauge id must be a number").int().positive().optional(),
-  partTempC: temperature("Part temperature").optional(),
-  gaugeTempC: temperature("Gauge temperature").optional(),
-  lubricant: z.enum(LUBRICANTS, `Lubricant must be one of ${LUBRICANTS.join(", ")}`).optional(),
-  skipped: z.boolean().optional(),
-  skipReason: z.string().trim().max(255, "Keep the skip reason under 255 characters").optional(),
-  supersedes: z.uuid("supersedes must be the id of the reading this one corrects").optional(),
-  note: z.string().max(500, "Keep the note under 500 characters").optional(),
-  takenAt: z.iso.datetime({ offset: true, message: "takenAt must be an ISO date-time such as 2026-12-01T09:30:00Z" }),
-}).superRefine((r, ctx) => {
-  const add = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
-  if (r.skipped) {
-    if (!r.skipReason) add("skipReason", "Say why the station was skipped");
-    if (r.value !== undefined && r.value !== null) add("value", "A skipped station has no value; clear it or un-skip");
-  } else if (r.value === undefined || r.value === null) add("value", "Enter a value, or skip the station with a reason");
-  if (r.entryMode === "dial") {
-    if (r.dialSetting === undefined) add("dialSetting", "Dial mode needs the setting size the gauge was zeroed on");
-    if (r.dialDeviation === undefined) add("dialDeviation", "Dial mode needs the dial's reading");
-    if (r.instrumentId === undefined) add("instrumentId", "Dial mode needs the gauge, because its sign convention decides the diameter");
-  }
-  if (r.supersedes && r.supersedes === r.id) add("supersedes", "A reading cannot correct itself");
-});
+export const pushReadingSchema = z
+  .object({
+    id: z.uuidv4("The reading id must be a UUID v4 made on the tablet"),
+    jobId: z
+      .number("Job id must be a number")
+      .int("Job id must be a whole number")
+      .positive("Job id must be a whole number"),
+    stationId,
+    value: z.number("Enter the value as a number").finite("Enter the value as a number").nullable().optional(),
+    unit: z.enum(UNITS, "Unit must be in, mm, lbf_ft or nm"),
+    entryMode: z.enum(["direct", "dial"], "Entry mode must be direct or dial").default("direct"),
+    dialSetting: z.number("Dial setting must be a number").positive("The setting size must be above zero").optional(),
+    dialDeviation: z.number("Dial reading must be a number").finite().optional(),
+    instrumentId: z.number("Gauge id must be a number").int().positive().optional(),
+    partTempC: temperature("Part temperature").optional(),
+    gaugeTempC: temperature("Gauge temperature").optional(),
+    lubricant: z.enum(LUBRICANTS, `Lubricant must be one of ${LUBRICANTS.join(", ")}`).optional(),
+    skipped: z.boolean().optional(),
+    skipReason: z.string().trim().max(255, "Keep the skip reason under 255 characters").optional(),
+    supersedes: z.uuid("supersedes must be the id of the reading this one corrects").optional(),
+    note: z.string().max(500, "Keep the note under 500 characters").optional(),
+    takenAt: z.iso.datetime({ offset: true, message: "takenAt must be an ISO date-time such as 2026-12-01T09:30:00Z" }),
+  })
+  .superRefine((r, ctx) => {
+    const add = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
+    if (r.skipped) {
+      if (!r.skipReason) add("skipReason", "Say why the station was skipped");
+      if (r.value !== undefined && r.value !== null)
+        add("value", "A skipped station has no value; clear it or un-skip");
+    } else if (r.value === undefined || r.value === null)
+      add("value", "Enter a value, or skip the station with a reason");
+    if (r.entryMode === "dial") {
+      if (r.dialSetting === undefined) add("dialSetting", "Dial mode needs the setting size the gauge was zeroed on");
+      if (r.dialDeviation === undefined) add("dialDeviation", "Dial mode needs the dial's reading");
+      if (r.instrumentId === undefined)
+        add("instrumentId", "Dial mode needs the gauge, because its sign convention decides the diameter");
+    }
+    if (r.supersedes && r.supersedes === r.id) add("supersedes", "A reading cannot correct itself");
+  });
 export type PushReading = z.output<typeof pushReadingSchema>;
 export type PushReadingInput = z.input<typeof pushReadingSchema>;
 
 /** The batch envelope: items are checked one by one (pushReadingSchema) so each gets its own result. */
 export const pushBatchSchema = z.object({
-  deviceId: z.string("deviceId is needed (the tablet's id)").trim().min(1, "deviceId is needed (the tablet's id)").max(64, "deviceId is too long (64 characters at most)"),
+  deviceId: z
+    .string("deviceId is needed (the tablet's id)")
+    .trim()
+    .min(1, "deviceId is needed (the tablet's id)")
+    .max(64, "deviceId is too long (64 characters at most)"),
   // The MAX_BATCH limit is checked by the server (413), so an oversize batch is told to split.
   readings: z.array(z.unknown(), "readings must be a list"),
 });
@@ -126,7 +147,14 @@ export type ReadingEvaluation = {
 };
 
 export type PushResult =
-  | { index: number; id: string; status: "accepted"; replay: boolean; verdict: Verdict | null; evaluation: ReadingEvaluation }
+  | {
+      index: number;
+      id: string;
+      status: "accepted";
+      replay: boolean;
+      verdict: Verdict | null;
+      evaluation: ReadingEvaluation;
+    }
   | { index: number; id: string; status: "held" }
   | { index: number; id: string | null; status: "rejected"; code: RejectCode; reason: string; errors?: FieldErrors };
 
@@ -209,7 +237,13 @@ export type BenchJobHeader = {
   dueDate: string | null;
 };
 
-export type BenchJobSummary = BenchJobHeader & { customer: string; engine: string; readings: number; stations: number; openFlags: number };
+export type BenchJobSummary = BenchJobHeader & {
+  customer: string;
+  engine: string;
+  readings: number;
+  stations: number;
+  openFlags: number;
+};
 
 export type BenchInstrument = {
   id: number;
@@ -251,8 +285,12 @@ export type SyncFeed = {
 };
 
 export const feedQuerySchema = z.object({
-  since: z.string().regex(/^\d{1,18}$/, "since must be a cursor from an earlier reply (digits)").default("0"),
-  jobs: z.string("jobs is needed: the job ids this device holds, e.g. jobs=1,2,3")
+  since: z
+    .string()
+    .regex(/^\d{1,18}$/, "since must be a cursor from an earlier reply (digits)")
+    .default("0"),
+  jobs: z
+    .string("jobs is needed: the job ids this device holds, e.g. jobs=1,2,3")
     .regex(/^\d{1,10}(,\d{1,10}){0,199}$/, "jobs must be job ids separated by commas (at most 200), e.g. jobs=1,2,3")
     .transform((s) => [...new Set(s.split(",").map(Number))]),
 });

@@ -5,7 +5,11 @@ import { ROLES } from "@/models/enums";
 const role = z.enum(ROLES, { error: "Choose a role: machinist, lead, inspector or admin" });
 
 export const inviteUserSchema = z.object({
-  name: z.string({ error: "Enter the person's name" }).trim().min(1, "Enter the person's name").max(120, "Keep the name under 120 characters"),
+  name: z
+    .string({ error: "Enter the person's name" })
+    .trim()
+    .min(1, "Enter the person's name")
+    .max(120, "Keep the name under 120 characters"),
   email: z
     .string({ error: "Enter an e-mail address" })
     .trim()

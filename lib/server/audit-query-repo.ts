@@ -26,8 +26,15 @@ END AS UNSIGNED)`;
 const AT = `CONCAT(DATE_FORMAT(e.created_at, '%Y-%m-%dT%H:%i:%s.'), LPAD(FLOOR(MICROSECOND(e.created_at) / 1000), 3, '0'), 'Z')`;
 
 type Row = {
-  id: number | string | bigint; user_id: number | null; action: string; entity_type: string; entity_id: string;
-  before: unknown; after: unknown; at: string; job_id: number | string | null;
+  id: number | string | bigint;
+  user_id: number | null;
+  action: string;
+  entity_type: string;
+  entity_id: string;
+  before: unknown;
+  after: unknown;
+  at: string;
+  job_id: number | string | null;
 };
 
 function where(shopId: number, q: AuditQuery) {
@@ -55,8 +62,22 @@ const parse = (v: unknown) => {
 };
 
 async function namesAndCodes(shopId: number, rows: Row[]) {
-  const userIds = [...new Set(rows.map((r) => r.user_id).filter((x): x is number => x !== null).map(Number))];
-  const jobIds = [...new Set(rows.map((r) => r.job_id).filter((x) => x !== null && Number(x) > 0).map(Number))];
+  const userIds = [
+    ...new Set(
+      rows
+        .map((r) => r.user_id)
+        .filter((x): x is number => x !== null)
+        .map(Number),
+    ),
+  ];
+  const jobIds = [
+    ...new Set(
+      rows
+        .map((r) => r.job_id)
+        .filter((x) => x !== null && Number(x) > 0)
+        .map(Number),
+    ),
+  ];
   const [users, jobs] = await Promise.all([
     userIds.length ? User.findAll({ where: { id: userIds, shopId }, attributes: ["id", "name"] }) : [],
     jobIds.length ? Job.findAll({ where: { id: jobIds, shopId }, attributes: ["id", "code"] }) : [],
@@ -68,19 +89,31 @@ async function namesAndCodes(shopId: number, rows: Row[]) {
 export async function queryAudit(shopId: number, q: AuditQuery): Promise<AuditPage> {
   const sequelize = getSequelize();
   const { sql, replacements } = where(shopId, q);
-  const [{ n }] = await sequelize.query<{ n: number | string | bigint }>(`SELECT COUNT(*) AS n ${sql}`, { type: QueryTypes.SELECT, replacements });
+  const [{ n }] = await sequelize.query<{ n: number | string | bigint }>(`SELECT COUNT(*) AS n ${sql}`, {
+    type: QueryTypes.SELECT,
+    replacements,
+  });
   const total = Number(n);
   const rows = await sequelize.query<Row>(`SELECT x.* ${sql} ORDER BY x.id DESC LIMIT :limit OFFSET :offset`, {
-    type: QueryTypes.SELECT, replacements: { ...replacements, limit: q.pageSize, offset: (q.page - 1) * q.pageSize },
+    type: QueryTypes.SELECT,
+    replacements: { ...replacements, limit: q.pageSize, offset: (q.page - 1) * q.pageSize },
   });
   const { users, jobs } = await namesAndCodes(shopId, rows);
   const events: AuditEventView[] = rows.map((r) => {
     const jobId = r.job_id !== null && Number(r.job_id) > 0 && jobs.has(Number(r.job_id)) ? Number(r.job_id) : null;
     const { changes, truncated } = eventChanges(r.action, parse(r.before), parse(r.after));
     return {
-      id: Number(r.id), at: r.at, userId: r.user_id === null ? null : Number(r.user_id),
-      userName: r.user_id === null ? null : users.get(Number(r.user_id)) ?? null, action: r.action,
-      entityType: r.entity_type, entityId: r.entity_id, jobId, jobCode: jobId ? jobs.get(jobId) ?? null : null, changes, truncated,
+      id: Number(r.id),
+      at: r.at,
+      userId: r.user_id === null ? null : Number(r.user_id),
+      userName: r.user_id === null ? null : (users.get(Number(r.user_id)) ?? null),
+      action: r.action,
+      entityType: r.entity_type,
+      entityId: r.entity_id,
+      jobId,
+      jobCode: jobId ? (jobs.get(jobId) ?? null) : null,
+      changes,
+      truncated,
     };
   });
   return { events, page: q.page, pageSize: q.pageSize, total, pages: Math.max(1, Math.ceil(total / q.pageSize)) };
@@ -90,14 +123,20 @@ export async function queryAudit(shopId: number, q: AuditQuery): Promise<AuditPa
 export async function auditFacets(shopId: number): Promise<AuditFacets> {
   const sequelize = getSequelize();
   const distinct = (col: "action" | "entity_type") =>
-    sequelize.query<{ v: string }>(`SELECT DISTINCT ${col} AS v FROM audit_events WHERE shop_id = :shop ORDER BY v`, { type: QueryTypes.SELECT, replacements: { shop: shopId } });
+    sequelize.query<{ v: string }>(`SELECT DISTINCT ${col} AS v FROM audit_events WHERE shop_id = :shop ORDER BY v`, {
+      type: QueryTypes.SELECT,
+      replacements: { shop: shopId },
+    });
   const [actions, entities, users, jobs] = await Promise.all([
-    distinct("action"), distinct("entity_type"),
+    distinct("action"),
+    distinct("entity_type"),
     User.findAll({ where: { shopId }, attributes: ["id", "name"], order: [["name", "ASC"]] }),
     Job.findAll({ where: { shopId }, attributes: ["id", "code", "title"], order: [["code", "ASC"]] }),
   ]);
   return {
-    actions: actions.map((a) => a.v), entities: entities.map((e) => e.v),
-    users: users.map((u) => ({ id: u.id, name: u.name })), jobs: jobs.map((j) => ({ id: j.id, code: j.code, title: j.title })),
+    actions: actions.map((a) => a.v),
+    entities: entities.map((e) => e.v),
+    users: users.map((u) => ({ id: u.id, name: u.name })),
+    jobs: jobs.map((j) => ({ id: j.id, code: j.code, title: j.title })),
   };
 }

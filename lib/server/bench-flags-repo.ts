@@ -16,15 +16,62 @@ export type FlagRow = Omit<BenchFlag, "stations" | "revisit" | "disposedAt" | "c
   closedAt: Date | null;
   createdAt: Date;
 };
-export type NewFlag = Pick<FlagRow, "shopId" | "jobId" | "readingId" | "derivedKey" | "stationId" | "characteristic" | "value" | "unit" | "limitMin" | "limitMax" | "deviation" | "verdict" | "reason">;
-export type FlagPatch = Partial<Pick<FlagRow, "value" | "unit" | "limitMin" | "limitMax" | "deviation" | "verdict" | "reason" | "state" | "closedAt" | "closedByReadingId">>;
+export type NewFlag = Pick<
+  FlagRow,
+  | "shopId"
+  | "jobId"
+  | "readingId"
+  | "derivedKey"
+  | "stationId"
+  | "characteristic"
+  | "value"
+  | "unit"
+  | "limitMin"
+  | "limitMax"
+  | "deviation"
+  | "verdict"
+  | "reason"
+>;
+export type FlagPatch = Partial<
+  Pick<
+    FlagRow,
+    | "value"
+    | "unit"
+    | "limitMin"
+    | "limitMax"
+    | "deviation"
+    | "verdict"
+    | "reason"
+    | "state"
+    | "closedAt"
+    | "closedByReadingId"
+  >
+>;
 
 const plain = (f: Flag): FlagRow => f.get({ plain: true }) as unknown as FlagRow;
 
 const UNCLOSED = `SELECT id, shop_id AS shopId, job_id AS jobId, reading_id AS readingId, derived_key AS derivedKey,
   station_id AS stationId, characteristic, value, unit, limit_min AS limitMin, limit_max AS limitMax, deviation,
   verdict, reason, state, disposition FROM flags WHERE job_id = ? AND state <> 'closed' ORDER BY id`;
-export type UnclosedFlag = Pick<FlagRow, "id" | "shopId" | "jobId" | "readingId" | "derivedKey" | "stationId" | "characteristic" | "value" | "unit" | "limitMin" | "limitMax" | "deviation" | "verdict" | "reason" | "state" | "disposition">;
+export type UnclosedFlag = Pick<
+  FlagRow,
+  | "id"
+  | "shopId"
+  | "jobId"
+  | "readingId"
+  | "derivedKey"
+  | "stationId"
+  | "characteristic"
+  | "value"
+  | "unit"
+  | "limitMin"
+  | "limitMax"
+  | "deviation"
+  | "verdict"
+  | "reason"
+  | "state"
+  | "disposition"
+>;
 
 /**
  * Flags of the job that are open or disposed. Every writer of a job's flags holds the job row's lock,
@@ -36,29 +83,51 @@ export async function unclosedFlags(t: Transaction, jobId: number, locking = tru
   const sql = locking ? `${UNCLOSED} LOCK IN SHARE MODE` : UNCLOSED;
   // The driver path returns DECIMAL and BIGINT as numbers already (sql-driver.ts).
   const rows = await sqlRows<UnclosedFlag>(t, sql, [jobId]);
-  for (const r of rows) (r.id = Number(r.id)), (r.jobId = Number(r.jobId)), (r.shopId = Number(r.shopId));
+  for (const r of rows) ((r.id = Number(r.id)), (r.jobId = Number(r.jobId)), (r.shopId = Number(r.shopId)));
   return rows;
 }
 
 const NEW_COLUMNS: [string, keyof NewFlag][] = [
-  ["shop_id", "shopId"], ["job_id", "jobId"], ["reading_id", "readingId"], ["derived_key", "derivedKey"], ["station_id", "stationId"],
-  ["characteristic", "characteristic"], ["value", "value"], ["unit", "unit"], ["limit_min", "limitMin"], ["limit_max", "limitMax"],
-  ["deviation", "deviation"], ["verdict", "verdict"], ["reason", "reason"],
+  ["shop_id", "shopId"],
+  ["job_id", "jobId"],
+  ["reading_id", "readingId"],
+  ["derived_key", "derivedKey"],
+  ["station_id", "stationId"],
+  ["characteristic", "characteristic"],
+  ["value", "value"],
+  ["unit", "unit"],
+  ["limit_min", "limitMin"],
+  ["limit_max", "limitMax"],
+  ["deviation", "deviation"],
+  ["verdict", "verdict"],
+  ["reason", "reason"],
 ];
 
 /** One INSERT; returns the new ids in row order. */
 export async function createFlags(t: Transaction, rows: NewFlag[]): Promise<number[]> {
   if (rows.length === 0) return [];
   const now = new Date();
-  const firstId = await insertMany(t, "flags", [...NEW_COLUMNS.map(([c]) => c), "state", "created_at", "updated_at"],
-    rows.map((r) => [...NEW_COLUMNS.map(([, k]) => r[k]), "open", now, now]));
+  const firstId = await insertMany(
+    t,
+    "flags",
+    [...NEW_COLUMNS.map(([c]) => c), "state", "created_at", "updated_at"],
+    rows.map((r) => [...NEW_COLUMNS.map(([, k]) => r[k]), "open", now, now]),
+  );
   // A multi-row INSERT takes consecutive auto-increment ids (InnoDB "simple insert").
   return rows.map((_, i) => firstId + i);
 }
 
 const PATCH_COLUMNS: Record<keyof FlagPatch, string> = {
-  value: "value", unit: "unit", limitMin: "limit_min", limitMax: "limit_max", deviation: "deviation", verdict: "verdict",
-  reason: "reason", state: "state", closedAt: "closed_at", closedByReadingId: "closed_by_reading_id",
+  value: "value",
+  unit: "unit",
+  limitMin: "limit_min",
+  limitMax: "limit_max",
+  deviation: "deviation",
+  verdict: "verdict",
+  reason: "reason",
+  state: "state",
+  closedAt: "closed_at",
+  closedByReadingId: "closed_by_reading_id",
 };
 
 export async function updateFlag(t: Transaction, id: number, patch: FlagPatch): Promise<void> {
@@ -67,7 +136,10 @@ export async function updateFlag(t: Transaction, id: number, patch: FlagPatch): 
   await sqlWrite(t, `UPDATE flags SET ${sets.join(", ")} WHERE id = ?`, [...keys.map((k) => patch[k]), new Date(), id]);
 }
 
-export async function flagsOfJobs(jobIds: number[], opts: { ids?: number[]; unclosedOnly?: boolean } = {}): Promise<FlagRow[]> {
+export async function flagsOfJobs(
+  jobIds: number[],
+  opts: { ids?: number[]; unclosedOnly?: boolean } = {},
+): Promise<FlagRow[]> {
   if (jobIds.length === 0 || opts.ids?.length === 0) return [];
   getSequelize();
   const rows = await Flag.findAll({
@@ -87,11 +159,27 @@ const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 export function toBenchFlag(f: FlagRow, inputs: Map<string, string[]>): BenchFlag {
   const stations = f.derivedKey ? (inputs.get(f.derivedKey) ?? [f.stationId]) : [f.stationId];
   return {
-    id: f.id, jobId: f.jobId, readingId: f.readingId, derivedKey: f.derivedKey, stationId: f.stationId,
-    characteristic: f.characteristic, value: f.value, unit: f.unit, limitMin: f.limitMin, limitMax: f.limitMax,
-    deviation: f.deviation, verdict: f.verdict, reason: f.reason, state: f.state, disposition: f.disposition,
-    operation: f.operation, dispositionReason: f.dispositionReason, disposedAt: iso(f.disposedAt),
-    closedAt: iso(f.closedAt), createdAt: iso(f.createdAt) as string, stations,
+    id: f.id,
+    jobId: f.jobId,
+    readingId: f.readingId,
+    derivedKey: f.derivedKey,
+    stationId: f.stationId,
+    characteristic: f.characteristic,
+    value: f.value,
+    unit: f.unit,
+    limitMin: f.limitMin,
+    limitMax: f.limitMax,
+    deviation: f.deviation,
+    verdict: f.verdict,
+    reason: f.reason,
+    state: f.state,
+    disposition: f.disposition,
+    operation: f.operation,
+    dispositionReason: f.dispositionReason,
+    disposedAt: iso(f.disposedAt),
+    closedAt: iso(f.closedAt),
+    createdAt: iso(f.createdAt) as string,
+    stations,
     revisit: f.state === "disposed" && (f.disposition === "measure_again" || f.disposition === "machine_again"),
   };
 }

@@ -14,8 +14,15 @@ type JobWithNames = Job & { customer?: Customer; engine?: Engine };
 export function toHeader(j: Job): BenchJobHeader {
   const lockReason = lockReasonOf(j);
   return {
-    id: j.id, code: j.code, title: j.title, status: j.status, unitSystem: j.unitSystem, locked: lockReason !== null,
-    lockedAt: j.lockedAt ? new Date(j.lockedAt).toISOString() : null, lockReason, specRevision: j.specRevision,
+    id: j.id,
+    code: j.code,
+    title: j.title,
+    status: j.status,
+    unitSystem: j.unitSystem,
+    locked: lockReason !== null,
+    lockedAt: j.lockedAt ? new Date(j.lockedAt).toISOString() : null,
+    lockReason,
+    specRevision: j.specRevision,
     dueDate: j.dueDate ?? null,
   };
 }
@@ -33,7 +40,10 @@ export async function openBenchJobs(shopId: number): Promise<JobWithNames[]> {
   return (await Job.findAll({
     where: { shopId, status: { [Op.in]: [...OPEN_STATUSES] }, lockedAt: null },
     include,
-    order: [["dueDate", "ASC"], ["id", "ASC"]],
+    order: [
+      ["dueDate", "ASC"],
+      ["id", "ASC"],
+    ],
   })) as JobWithNames[];
 }
 
@@ -54,9 +64,12 @@ export async function jobHeaders(shopId: number, ids: number[]): Promise<BenchJo
 export async function jobProgress(jobIds: number[]): Promise<Map<number, { readings: number; openFlags: number }>> {
   const out = new Map(jobIds.map((id) => [id, { readings: 0, openFlags: 0 }]));
   if (jobIds.length === 0) return out;
-  const q = (sql: string) => getSequelize().query<{ jobId: number; n: number }>(sql, { replacements: [jobIds], type: QueryTypes.SELECT });
+  const q = (sql: string) =>
+    getSequelize().query<{ jobId: number; n: number }>(sql, { replacements: [jobIds], type: QueryTypes.SELECT });
   const [readings, flags] = await Promise.all([
-    q("SELECT job_id AS jobId, COUNT(DISTINCT station_id) AS n FROM readings WHERE job_id IN (?) AND skipped = 0 GROUP BY job_id"),
+    q(
+      "SELECT job_id AS jobId, COUNT(DISTINCT station_id) AS n FROM readings WHERE job_id IN (?) AND skipped = 0 GROUP BY job_id",
+    ),
     q("SELECT job_id AS jobId, COUNT(*) AS n FROM flags WHERE job_id IN (?) AND state <> 'closed' GROUP BY job_id"),
   ]);
   for (const r of readings) out.get(Number(r.jobId))!.readings = Number(r.n);

@@ -15,7 +15,10 @@ function routeOf(shape: Parameters<typeof benchRoute>[0], code: string) {
   try {
     return benchRoute(shape);
   } catch (err) {
-    throw new AppError("bad_request", `Job ${code}'s engine cannot be measured as entered: ${(err as Error).message}. Ask the lead to fix the engine.`);
+    throw new AppError(
+      "bad_request",
+      `Job ${code}'s engine cannot be measured as entered: ${(err as Error).message}. Ask the lead to fix the engine.`,
+    );
   }
 }
 
@@ -41,7 +44,10 @@ export async function jobPack(actor: Actor, jobId: number): Promise<JobPack> {
   const ctx = await loadJobContext(actor.shopId, jobId);
   const route = routeOf(ctx.shape, ctx.job.code);
   const [instruments, readings, flags, inputs] = await Promise.all([
-    shopInstruments(actor.shopId), readingsOfJobs([jobId]), flagsOfJobs([jobId], { unclosedOnly: true }), derivedInputs(actor.shopId, [jobId]),
+    shopInstruments(actor.shopId),
+    readingsOfJobs([jobId]),
+    flagsOfJobs([jobId], { unclosedOnly: true }),
+    derivedInputs(actor.shopId, [jobId]),
   ]);
   const correctedBy = new Map<string, string>();
   for (const r of readings) if (r.supersedes) correctedBy.set(r.supersedes, r.id);

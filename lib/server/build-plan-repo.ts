@@ -30,7 +30,12 @@ export async function getBuildPlan(shopId: number, jobId: number): Promise<Build
   return {
     plan: parseStored(job.buildPlan),
     job: { id: job.id, code: job.code, title: job.title, unitSystem: job.unitSystem, locked: isJobLocked(job) },
-    engine: { cylinders: engine.cylinders, nominalBore: engine.nominalBore, nominalStroke: engine.nominalStroke, description: engine.description },
+    engine: {
+      cylinders: engine.cylinders,
+      nominalBore: engine.nominalBore,
+      nominalStroke: engine.nominalStroke,
+      description: engine.description,
+    },
   };
 }
 
@@ -40,10 +45,20 @@ export async function saveBuildPlan(actor: Actor, jobId: number, plan: BuildPlan
     if (!job) throw notFound("Job");
     assertJobEditable(job);
     if (plan.lengthUnit !== job.unitSystem) {
-      throw new AppError("invalid", "Some fields need fixing", { lengthUnit: [`This job is in ${job.unitSystem}; enter the plan in ${job.unitSystem}`] });
+      throw new AppError("invalid", "Some fields need fixing", {
+        lengthUnit: [`This job is in ${job.unitSystem}; enter the plan in ${job.unitSystem}`],
+      });
     }
     const before = job.buildPlan;
     await job.update({ buildPlan: plan as unknown as JsonObject }, { transaction: t });
-    await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action: "job.build_plan", entityType: "job", entityId: jobId, before, after: plan });
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "job.build_plan",
+      entityType: "job",
+      entityId: jobId,
+      before,
+      after: plan,
+    });
   });
 }

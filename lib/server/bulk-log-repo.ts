@@ -13,19 +13,42 @@ const json = (v: unknown) => (v === undefined || v === null ? null : JSON.string
 export async function recordAudits(t: Transaction, events: AuditInput[]): Promise<void> {
   if (events.length === 0) return;
   const now = new Date();
-  await insertMany(t, "audit_events", ["shop_id", "user_id", "action", "entity_type", "entity_id", "before", "after", "created_at"],
-    events.map((e) => [e.shopId, e.userId, e.action, e.entityType, String(e.entityId), json(e.before), json(e.after), now]));
+  await insertMany(
+    t,
+    "audit_events",
+    ["shop_id", "user_id", "action", "entity_type", "entity_id", "before", "after", "created_at"],
+    events.map((e) => [
+      e.shopId,
+      e.userId,
+      e.action,
+      e.entityType,
+      String(e.entityId),
+      json(e.before),
+      json(e.after),
+      now,
+    ]),
+  );
 }
 
-export type ChangeInput = { shopId: number; jobId: number; entity: SyncEntity; entityId: string | number; deviceId?: string | null };
+export type ChangeInput = {
+  shopId: number;
+  jobId: number;
+  entity: SyncEntity;
+  entityId: string | number;
+  deviceId?: string | null;
+};
 
 /** Returns the id of the last change row written ("0" when none), the push reply's cursor. */
 export async function recordChanges(t: Transaction, changes: ChangeInput[]): Promise<string> {
   if (changes.length === 0) return "0";
   // The JS clock, as recordChange uses: the feed's settle window is measured on it.
   const now = new Date();
-  const firstId = await insertMany(t, "sync_changes", ["shop_id", "job_id", "entity", "entity_id", "device_id", "created_at"],
-    changes.map((c) => [c.shopId, c.jobId, c.entity, String(c.entityId), c.deviceId ?? null, now]));
+  const firstId = await insertMany(
+    t,
+    "sync_changes",
+    ["shop_id", "job_id", "entity", "entity_id", "device_id", "created_at"],
+    changes.map((c) => [c.shopId, c.jobId, c.entity, String(c.entityId), c.deviceId ?? null, now]),
+  );
   // One multi-row INSERT takes consecutive auto-increment ids (InnoDB, "simple insert").
   return String(firstId + changes.length - 1);
 }

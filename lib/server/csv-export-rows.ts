@@ -1,7 +1,17 @@
 import "server-only";
 import {
-  benchRoute, cleanDecimal, convertLength, convertTorque, deriveReadings, describeStation, CHARACTERISTICS,
-  type CharacteristicId, type LengthUnit, type MeasureUnit, type TorqueUnit, type Verdict,
+  benchRoute,
+  cleanDecimal,
+  convertLength,
+  convertTorque,
+  deriveReadings,
+  describeStation,
+  CHARACTERISTICS,
+  type CharacteristicId,
+  type LengthUnit,
+  type MeasureUnit,
+  type TorqueUnit,
+  type Verdict,
 } from "@/lib/domain";
 import { loadJobContext } from "./job-context";
 import { loadJobReadings, type JobReadings } from "./jobs-admin-readings-repo";
@@ -23,7 +33,8 @@ function converter(units: Units) {
   return (x: number | null | undefined, from: MeasureUnit): number | null => {
     if (x === null || x === undefined) return null;
     // Converted figures are cleaned of float noise (102.362 mm is 4.03 in, not 4.029999999999999).
-    if (from === "in" || from === "mm") return from === units.length ? x : cleanDecimal(convertLength(x, from, units.length));
+    if (from === "in" || from === "mm")
+      return from === units.length ? x : cleanDecimal(convertLength(x, from, units.length));
     return from === units.torque ? x : cleanDecimal(convertTorque(x, from, units.torque));
   };
 }
@@ -36,12 +47,27 @@ function readingRow(r: StoredReading, units: Units, ctx: { current: Set<string>;
   const rowUnit = isTorqueUnit(unit) ? units.torque : units.length;
   const label = CHARACTERISTICS[r.characteristic as CharacteristicId]?.label ?? r.characteristic;
   let words = "";
-  try { words = describeStation(r.stationId); } catch { /* an id the core no longer knows: leave the words out */ }
+  try {
+    words = describeStation(r.stationId);
+  } catch {
+    /* an id the core no longer knows: leave the words out */
+  }
   const gauge = r.instrumentId ? ctx.data.instruments.get(r.instrumentId)?.serial : null;
   return [
-    "reading", r.stationId, words, label, r.skipped ? null : to(r.value, unit), UNIT_WORDS[rowUnit], to(r.limitMin, unit), to(r.limitMax, unit),
-    r.skipped ? "Skipped" : r.verdict ? VERDICT_TEXT[r.verdict] : "", to(r.deviation, unit),
-    gauge, ctx.data.takers.get(r.takenBy) ?? "", r.takenAt.toISOString(), ctx.current.has(r.id) ? "no" : "yes",
+    "reading",
+    r.stationId,
+    words,
+    label,
+    r.skipped ? null : to(r.value, unit),
+    UNIT_WORDS[rowUnit],
+    to(r.limitMin, unit),
+    to(r.limitMax, unit),
+    r.skipped ? "Skipped" : r.verdict ? VERDICT_TEXT[r.verdict] : "",
+    to(r.deviation, unit),
+    gauge,
+    ctx.data.takers.get(r.takenBy) ?? "",
+    r.takenAt.toISOString(),
+    ctx.current.has(r.id) ? "no" : "yes",
   ];
 }
 
@@ -49,27 +75,62 @@ export async function readingsCsv(shopId: number, jobId: number, opts: { history
   const ctx = await loadJobContext(shopId, jobId);
   const data = await loadJobReadings(shopId, jobId);
   const current = new Set(data.current.map((r) => r.id));
-  const units: Units = ctx.job.unitSystem === "mm" ? { length: "mm", torque: "nm" } : { length: "in", torque: "lbf_ft" };
+  const units: Units =
+    ctx.job.unitSystem === "mm" ? { length: "mm", torque: "nm" } : { length: "in", torque: "lbf_ft" };
   const to = converter(units);
   let order = new Map<string, number>();
   let derivedRows: Cell[][] = [];
   try {
-    order = new Map(benchRoute(ctx.shape).sections.flatMap((s) => s.stations).map((s, i) => [s.id, i]));
-    derivedRows = deriveReadings(data.raws, ctx.shape, ctx.spec).filter((d) => typeof d.value === "number").map((d) => [
-      "derived", d.stationId, describeStation(d.stationId), CHARACTERISTICS[d.characteristic].label, to(d.value, d.unit), UNIT_WORDS[units.length],
-      d.limits ? to(d.limits.min, d.limits.unit) : null, d.limits ? to(d.limits.max, d.limits.unit) : null,
-      d.verdict ? VERDICT_TEXT[d.verdict] : "", to(d.deviation, d.unit), "", "", "", "",
-    ]);
+    order = new Map(
+      benchRoute(ctx.shape)
+        .sections.flatMap((s) => s.stations)
+        .map((s, i) => [s.id, i]),
+    );
+    derivedRows = deriveReadings(data.raws, ctx.shape, ctx.spec)
+      .filter((d) => typeof d.value === "number")
+      .map((d) => [
+        "derived",
+        d.stationId,
+        describeStation(d.stationId),
+        CHARACTERISTICS[d.characteristic].label,
+        to(d.value, d.unit),
+        UNIT_WORDS[units.length],
+        d.limits ? to(d.limits.min, d.limits.unit) : null,
+        d.limits ? to(d.limits.max, d.limits.unit) : null,
+        d.verdict ? VERDICT_TEXT[d.verdict] : "",
+        to(d.deviation, d.unit),
+        "",
+        "",
+        "",
+        "",
+      ]);
   } catch {
     // An engine the core cannot lay out: readings still export, in the order they were taken.
   }
   const rank = (id: string) => order.get(id) ?? Number.MAX_SAFE_INTEGER;
   // data.all is in taken order, and the sort is stable: earlier readings of a station come first.
-  const picked = data.all.filter((r) => current.has(r.id) || opts.history).sort((a, b) => rank(a.stationId) - rank(b.stationId));
+  const picked = data.all
+    .filter((r) => current.has(r.id) || opts.history)
+    .sort((a, b) => rank(a.stationId) - rank(b.stationId));
   const u = `${UNIT_WORDS[units.length]} | ${UNIT_WORDS[units.torque]}`;
   const header = [
-    "row", "station", "station (words)", "characteristic", `value (${u})`, "unit", `min (${u})`, `max (${u})`, "verdict",
-    `deviation (${u})`, "gauge serial", "taken by", "taken at (UTC, ISO 8601)", "superseded?",
+    "row",
+    "station",
+    "station (words)",
+    "characteristic",
+    `value (${u})`,
+    "unit",
+    `min (${u})`,
+    `max (${u})`,
+    "verdict",
+    `deviation (${u})`,
+    "gauge serial",
+    "taken by",
+    "taken at (UTC, ISO 8601)",
+    "superseded?",
   ];
-  return { csv: toCsv(header, [...picked.map((r) => readingRow(r, units, { current, data })), ...derivedRows]), code: ctx.job.code };
+  return {
+    csv: toCsv(header, [...picked.map((r) => readingRow(r, units, { current, data })), ...derivedRows]),
+    code: ctx.job.code,
+  };
 }

@@ -30,5 +30,12 @@ export async function customerView(token: string): Promise<CustomerView> {
   if (!release) return { status: "invalid" };
   if (!check.ok) return { status: "expired", shop: await contactOf(release.shopId), expiredAt: check.expiresAt };
   const record = await loadBuildRecord(release.shopId, release.jobId, { releaseId: release.id });
-  return { status: "ok", record, expiresAt: check.expiresAt, releaseId: release.id, shopId: release.shopId, jobId: release.jobId };
+  return {
+    status: "ok",
+    record,
+    expiresAt: check.expiresAt,
+    releaseId: release.id,
+    shopId: release.shopId,
+    jobId: release.jobId,
+  };
 }

@@ -13,12 +13,15 @@ export type LinkCheck =
   | { ok: false; reason: "invalid" };
 
 function sign(releaseId: number, expires: number): string {
-  return createHmac("sha256", linkSecret()).update(`tenthwise-record:${VERSION}:${releaseId}:${expires}`).digest("base64url");
+  return createHmac("sha256", linkSecret())
+    .update(`tenthwise-record:${VERSION}:${releaseId}:${expires}`)
+    .digest("base64url");
 }
 
 /** A link token for one release, valid for ttlSeconds (default LINK_TTL_DAYS). */
 export function createCustomerToken(releaseId: number, opts: { ttlSeconds?: number; now?: number } = {}): string {
-  if (!Number.isInteger(releaseId) || releaseId <= 0) throw new Error(`A record link needs a release id; got ${String(releaseId)}`);
+  if (!Number.isInteger(releaseId) || releaseId <= 0)
+    throw new Error(`A record link needs a release id; got ${String(releaseId)}`);
   const ttl = opts.ttlSeconds ?? Math.round(env().LINK_TTL_DAYS * 86_400);
   const expires = Math.floor((opts.now ?? Date.now()) / 1000) + ttl;
   return `${VERSION}.${releaseId}.${expires}.${sign(releaseId, expires)}`;
@@ -31,7 +34,8 @@ export function customerLinkUrl(token: string): string {
 /** Checks the signature first, so "expired" is only ever said of a link we really made. */
 export function checkCustomerToken(token: string | undefined, now = Date.now()): LinkCheck {
   const parts = (token ?? "").split(".");
-  if (parts.length !== 4 || parts[0] !== VERSION || !/^\d{1,10}$/.test(parts[1]) || !/^\d{1,12}$/.test(parts[2])) return { ok: false, reason: "invalid" };
+  if (parts.length !== 4 || parts[0] !== VERSION || !/^\d{1,10}$/.test(parts[1]) || !/^\d{1,12}$/.test(parts[2]))
+    return { ok: false, reason: "invalid" };
   const releaseId = Number(parts[1]);
   const expires = Number(parts[2]);
   const given = Buffer.from(parts[3], "base64url");

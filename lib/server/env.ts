@@ -8,7 +8,10 @@ const schema = z
   .object({
     NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
     APP_URL: z.string().url().default("http://localhost:3000"),
-    DATABASE_URL: z.string().regex(/^mariadb:\/\//, "DATABASE_URL must start with mariadb://").optional(),
+    DATABASE_URL: z
+      .string()
+      .regex(/^mariadb:\/\//, "DATABASE_URL must start with mariadb://")
+      .optional(),
     DB_HOST: z.string().optional(),
     DB_PORT: optionalNumber,
     DB_NAME: z.string().optional(),
@@ -20,7 +23,10 @@ const schema = z
     LINK_SECRET: z.string().min(32, "LINK_SECRET must be at least 32 characters").optional(),
     SMTP_HOST: z.string().default("127.0.0.1"),
     SMTP_PORT: z.coerce.number().int().positive().default(2525),
-    SMTP_SECURE: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+    SMTP_SECURE: z
+      .enum(["true", "false"])
+      .default("false")
+      .transform((v) => v === "true"),
     SMTP_USER: z.string().optional(),
     SMTP_PASSWORD: z.string().optional(),
     MAIL_FROM: z.string().default("Tenthwise <records@tenthwise.local>"),
@@ -30,8 +36,15 @@ const schema = z
     S3_BUCKET: z.string().default("tenthwise"),
     S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
     S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
-    S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default("true").transform((v) => v === "true"),
-    UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(15 * 1024 * 1024),
+    S3_FORCE_PATH_STYLE: z
+      .enum(["true", "false"])
+      .default("true")
+      .transform((v) => v === "true"),
+    UPLOAD_MAX_BYTES: z.coerce
+      .number()
+      .int()
+      .positive()
+      .default(15 * 1024 * 1024),
     // Background mail: how often the notifier looks for new flags, ready jobs and releases
     // (0 turns the background worker off; runNotifierOnce() still works), and the retry backoff.
     NOTIFY_INTERVAL_SECONDS: z.coerce.number().int().min(0).default(180),

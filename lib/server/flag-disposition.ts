@@ -19,7 +19,10 @@ const when = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ") + " UTC
 
 function refuseLocked(job: Job): void {
   if (job.status === "released" || job.status === "closed" || job.lockedAt) {
-    throw new AppError("job_locked", `Job ${job.code} is released and locked, so its flags cannot be decided again. Reopen the job (with a reason) first.`);
+    throw new AppError(
+      "job_locked",
+      `Job ${job.code} is released and locked, so its flags cannot be decided again. Reopen the job (with a reason) first.`,
+    );
   }
 }
 
@@ -27,7 +30,10 @@ function refuseClosed(flag: Flag): void {
   if (flag.state !== "closed") return;
   const at = flag.closedAt ? ` on ${when(flag.closedAt)}` : "";
   const by = flag.closedByReadingId ? " by a newer reading at the station" : " after the limits changed";
-  throw new AppError("conflict", `This flag was closed${at}${by}; there is nothing left to decide. Its history stays on record; a new flag opens if the value needs attention again.`);
+  throw new AppError(
+    "conflict",
+    `This flag was closed${at}${by}; there is nothing left to decide. Its history stays on record; a new flag opens if the value needs attention again.`,
+  );
 }
 
 /** Where the decision's words go: the operation, and the reason or note. */
@@ -38,8 +44,14 @@ function fieldsOf(input: DispositionInput): { operation: string | null; reason: 
 }
 
 const auditView = (f: Flag) => ({
-  state: f.state, disposition: f.disposition, operation: f.operation, dispositionReason: f.dispositionReason,
-  disposedBy: f.disposedBy, disposedAt: f.disposedAt, verdict: f.verdict, reason: f.reason,
+  state: f.state,
+  disposition: f.disposition,
+  operation: f.operation,
+  dispositionReason: f.dispositionReason,
+  disposedBy: f.disposedBy,
+  disposedAt: f.disposedAt,
+  verdict: f.verdict,
+  reason: f.reason,
 });
 
 async function decide(t: Transaction, actor: Actor, flagId: number, jobId: number, input: DispositionInput) {
@@ -53,17 +65,44 @@ async function decide(t: Transaction, actor: Actor, flagId: number, jobId: numbe
   refuseClosed(flag);
   const before = auditView(flag);
   const { operation, reason } = fieldsOf(input);
-  const row = await FlagDisposition.create({ flagId, disposition: input.kind, operation, reason, userId: actor.userId }, { transaction: t });
-  await flag.update({ state: "disposed", disposition: input.kind, operation, dispositionReason: reason, disposedBy: actor.userId, disposedAt: row.createdAt }, { transaction: t });
+  const row = await FlagDisposition.create(
+    { flagId, disposition: input.kind, operation, reason, userId: actor.userId },
+    { transaction: t },
+  );
+  await flag.update(
+    {
+      state: "disposed",
+      disposition: input.kind,
+      operation,
+      dispositionReason: reason,
+      disposedBy: actor.userId,
+      disposedAt: row.createdAt,
+    },
+    { transaction: t },
+  );
   await recordAudit(t, {
-    shopId: actor.shopId, userId: actor.userId, action: `flag.${input.kind}`, entityType: "flag", entityId: flag.id,
-    before, after: { ...auditView(flag), dispositionId: row.id, station: stationWords(flag.stationId), words: DISPOSITION_WORDS[input.kind] },
+    shopId: actor.shopId,
+    userId: actor.userId,
+    action: `flag.${input.kind}`,
+    entityType: "flag",
+    entityId: flag.id,
+    before,
+    after: {
+      ...auditView(flag),
+      dispositionId: row.id,
+      station: stationWords(flag.stationId),
+      words: DISPOSITION_WORDS[input.kind],
+    },
   });
   await recordChange(t, { shopId: actor.shopId, jobId, entity: "flag", entityId: flag.id });
   return row.id;
 }
 
-export async function disposeFlag(actor: Actor, flagId: number, input: DispositionInput): Promise<{ flag: FlagListItem; dispositionId: number }> {
+export async function disposeFlag(
+  actor: Actor,
+  flagId: number,
+  input: DispositionInput,
+): Promise<{ flag: FlagListItem; dispositionId: number }> {
   const sequelize = getSequelize();
   const found = await getFlagOrThrow(actor.shopId, flagId);
   const dispositionId = await sequelize.transaction((t) => decide(t, actor, flagId, found.jobId, input));

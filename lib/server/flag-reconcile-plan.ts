@@ -27,18 +27,38 @@ export function wantedRaw(r: StoredReading, e: ReadingEvaluation): NewFlag | nul
   const reason = rawReason(e);
   if (!reason) return null;
   return {
-    shopId: r.shopId, jobId: r.jobId, readingId: r.id, derivedKey: null, stationId: r.stationId, characteristic: r.characteristic,
-    value: r.value as number, unit: r.unit, limitMin: e.limitMin, limitMax: e.limitMax, deviation: e.deviation,
-    verdict: e.verdict ?? "in_spec", reason,
+    shopId: r.shopId,
+    jobId: r.jobId,
+    readingId: r.id,
+    derivedKey: null,
+    stationId: r.stationId,
+    characteristic: r.characteristic,
+    value: r.value as number,
+    unit: r.unit,
+    limitMin: e.limitMin,
+    limitMax: e.limitMax,
+    deviation: e.deviation,
+    verdict: e.verdict ?? "in_spec",
+    reason,
   };
 }
 
 export function wantedDerived(shopId: number, jobId: number, d: DerivedValue): NewFlag | null {
   if ((d.verdict !== "out_of_spec" && d.verdict !== "marginal") || d.value === undefined) return null;
   return {
-    shopId, jobId, readingId: null, derivedKey: d.key, stationId: d.stationId, characteristic: d.characteristic,
-    value: round6(d.value) as number, unit: d.unit, limitMin: round6(d.limits?.min), limitMax: round6(d.limits?.max),
-    deviation: round6(d.deviation), verdict: d.verdict, reason: d.verdict,
+    shopId,
+    jobId,
+    readingId: null,
+    derivedKey: d.key,
+    stationId: d.stationId,
+    characteristic: d.characteristic,
+    value: round6(d.value) as number,
+    unit: d.unit,
+    limitMin: round6(d.limits?.min),
+    limitMax: round6(d.limits?.max),
+    deviation: round6(d.deviation),
+    verdict: d.verdict,
+    reason: d.verdict,
   };
 }
 

@@ -15,7 +15,11 @@ import type { StoredReading } from "./readings-repo";
 // last reconciliation, and its flags were made to match then; reading it again would change
 // nothing (tests/integration/flag-reconcile-scope.test.ts checks a full pass after ingest is a no-op).
 
-export function derivedOf(raws: RawReading[], ctx: JobContext, touching?: (stationId: string) => boolean): DerivedValue[] {
+export function derivedOf(
+  raws: RawReading[],
+  ctx: JobContext,
+  touching?: (stationId: string) => boolean,
+): DerivedValue[] {
   try {
     return deriveReadings(raws, ctx.shape, ctx.spec, touching ? { touching } : {});
   } catch {
@@ -64,7 +68,8 @@ export function ingestStations(ctx: JobContext, freshStations: ReadonlySet<strin
   }
   const cylinders = new Set([...freshStations].filter(ringGapCoupled).map((s) => parseStationId(s).cylinder));
   if (cylinders.size) {
-    for (const id of routeStations(ctx)) if (ringGapCoupled(id) && cylinders.has(parseStationId(id).cylinder)) out.add(id);
+    for (const id of routeStations(ctx))
+      if (ringGapCoupled(id) && cylinders.has(parseStationId(id).cylinder)) out.add(id);
   }
   return [...out];
 }
@@ -85,7 +90,12 @@ export function toJudge(current: StoredReading[], fresh?: ReadonlyMap<string, st
  * The derived values to recompute: all of them, or (ingest) those with a fresh reading among their
  * inputs, computed from just the readings they need. `inScope` tells which derived flags to revisit.
  */
-export function derivedScope(ctx: JobContext, current: StoredReading[], raws: RawReading[], fresh?: ReadonlyMap<string, string>) {
+export function derivedScope(
+  ctx: JobContext,
+  current: StoredReading[],
+  raws: RawReading[],
+  fresh?: ReadonlyMap<string, string>,
+) {
   if (!fresh) return { derived: derivedOf(raws, ctx), inScope: (_key: string) => true };
   const freshStations = new Set(current.filter((r) => fresh.has(r.id)).map((r) => r.stationId));
   const affected = new Set<string>();

@@ -9,7 +9,13 @@ import { newestInput, planFlags, wantedDerived, wantedRaw, type Closer } from ".
 import { derivedScope, ingestStations, toJudge } from "./flag-reconcile-scope";
 import { gaugePastDue, round6, sameEvaluation, storedEvaluation, toRaw } from "./ingest-evaluate";
 import { loadJobContext, type JobContext } from "./job-context";
-import { currentReadings, jobReadingsWithGauges, lockJobs, updateEvaluation, type StoredReading } from "./readings-repo";
+import {
+  currentReadings,
+  jobReadingsWithGauges,
+  lockJobs,
+  updateEvaluation,
+  type StoredReading,
+} from "./readings-repo";
 import { settleAll } from "./sql-driver";
 
 // The ONE mechanism that keeps a job's stored verdicts and flags in line with its readings and
@@ -64,10 +70,21 @@ export type ReconcileResult = {
 export type ReconcileInput = Awaited<ReturnType<typeof jobReadingsWithGauges>> & { flags: UnclosedFlag[] };
 
 const storedOf = (r: StoredReading): ReadingEvaluation => ({
-  verdict: r.verdict, verdictNote: r.verdictNote, unit: r.unit, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation,
+  verdict: r.verdict,
+  verdictNote: r.verdictNote,
+  unit: r.unit,
+  limitMin: r.limitMin,
+  limitMax: r.limitMax,
+  deviation: r.deviation,
 });
 
-function evaluateCurrent(ctx: JobContext, current: StoredReading[], raws: RawReading[], past: boolean[], judge: (r: StoredReading) => boolean) {
+function evaluateCurrent(
+  ctx: JobContext,
+  current: StoredReading[],
+  raws: RawReading[],
+  past: boolean[],
+  judge: (r: StoredReading) => boolean,
+) {
   return current.map((r, i) => {
     if (!judge(r)) return storedOf(r);
     try {
@@ -84,7 +101,13 @@ function evaluateCurrent(ctx: JobContext, current: StoredReading[], raws: RawRea
 // (and commit) on its own. Reads may follow a write in a pipeline (sql-driver.ts).
 
 /** Stores changed verdicts; returns the re-evaluated ids that were not fresh. */
-async function storeEvaluations(t: Transaction, o: ReconcileOptions, current: StoredReading[], evals: ReadingEvaluation[], log: ReconcileLog) {
+async function storeEvaluations(
+  t: Transaction,
+  o: ReconcileOptions,
+  current: StoredReading[],
+  evals: ReadingEvaluation[],
+  log: ReconcileLog,
+) {
   const changed: string[] = [];
   for (const [i, r] of current.entries()) {
     const { unit: _u, ...e } = evals[i];
@@ -92,29 +115,73 @@ async function storeEvaluations(t: Transaction, o: ReconcileOptions, current: St
     await updateEvaluation(t, r.id, e);
     if (o.fresh?.has(r.id)) continue;
     changed.push(r.id);
-    const before = { verdict: r.verdict, verdictNote: r.verdictNote, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation };
-    log.audits.push({ shopId: o.shopId, userId: o.userId, action: "reading.re-evaluate", entityType: "reading", entityId: r.id, before, after: { ...e, cause: o.cause } });
+    const before = {
+      verdict: r.verdict,
+      verdictNote: r.verdictNote,
+      limitMin: r.limitMin,
+      limitMax: r.limitMax,
+      deviation: r.deviation,
+    };
+    log.audits.push({
+      shopId: o.shopId,
+      userId: o.userId,
+      action: "reading.re-evaluate",
+      entityType: "reading",
+      entityId: r.id,
+      before,
+      after: { ...e, cause: o.cause },
+    });
     log.changes.push({ shopId: o.shopId, jobId: o.jobId, entity: "reading", entityId: r.id, deviceId: o.deviceId });
   }
   return changed;
 }
 
-async function syncFlags(t: Transaction, o: ReconcileOptions, flags: UnclosedFlag[], wanted: Map<string, NewFlag>, closers: Map<string, Closer>, log: ReconcileLog) {
+async function syncFlags(
+  t: Transaction,
+  o: ReconcileOptions,
+  flags: UnclosedFlag[],
+  wanted: Map<string, NewFlag>,
+  closers: Map<string, Closer>,
+  log: ReconcileLog,
+) {
   const plan = planFlags(flags, wanted, closers);
   const note = (id: number, action: string, before: unknown, after: object) => {
-    log.audits.push({ shopId: o.shopId, userId: o.userId, action, entityType: "flag", entityId: id, before, after: { ...after, cause: o.cause } });
+    log.audits.push({
+      shopId: o.shopId,
+      userId: o.userId,
+      action,
+      entityType: "flag",
+      entityId: id,
+      before,
+      after: { ...after, cause: o.cause },
+    });
     log.changes.push({ shopId: o.shopId, jobId: o.jobId, entity: "flag", entityId: id, deviceId: o.deviceId });
   };
   for (const { flag: f, patch } of plan.update) {
     await updateFlag(t, f.id, patch);
-    note(f.id, "flag.re-evaluate", { verdict: f.verdict, reason: f.reason, limitMin: f.limitMin, limitMax: f.limitMax, deviation: f.deviation }, patch);
+    note(
+      f.id,
+      "flag.re-evaluate",
+      { verdict: f.verdict, reason: f.reason, limitMin: f.limitMin, limitMax: f.limitMax, deviation: f.deviation },
+      patch,
+    );
   }
   for (const { flag: f, closedByReadingId } of plan.close) {
     await updateFlag(t, f.id, { state: "closed", closedAt: new Date(), closedByReadingId });
     note(f.id, "flag.close", { state: f.state, disposition: f.disposition }, { state: "closed", closedByReadingId });
   }
   const ids = await createFlags(t, plan.open);
-  plan.open.forEach((f, i) => note(ids[i], "flag.open", null, { stationId: f.stationId, derivedKey: f.derivedKey, readingId: f.readingId, value: f.value, unit: f.unit, verdict: f.verdict, reason: f.reason }));
+  plan.open.forEach((f, i) =>
+    note(ids[i], "flag.open", null, {
+      stationId: f.stationId,
+      derivedKey: f.derivedKey,
+      readingId: f.readingId,
+      value: f.value,
+      unit: f.unit,
+      verdict: f.verdict,
+      reason: f.reason,
+    }),
+  );
   return { opened: ids, closed: plan.close.map((c) => c.flag.id), updatedFlags: plan.update.map((u) => u.flag.id) };
 }
 
@@ -129,11 +196,17 @@ export function readForReconcile(t: Transaction, o: ReconcileOptions, ctx: JobCo
   const inScope = stations ? new Set(stations) : undefined;
   const reading = jobReadingsWithGauges(t, o.shopId, o.jobId, locking, stations);
   // Raw flags outside the scope keep whatever they are (derived ones are filtered once derived).
-  const flags = unclosedFlags(t, o.jobId, locking).then((fs) => (inScope ? fs.filter((f) => !!f.derivedKey || inScope.has(f.stationId)) : fs));
+  const flags = unclosedFlags(t, o.jobId, locking).then((fs) =>
+    inScope ? fs.filter((f) => !!f.derivedKey || inScope.has(f.stationId)) : fs,
+  );
   return settleAll([reading, flags]).then(([r, f]) => ({ ...r, flags: f }));
 }
 
-export async function reconcileJob(t: Transaction, o: ReconcileOptions, input?: Promise<ReconcileInput>): Promise<ReconcileResult> {
+export async function reconcileJob(
+  t: Transaction,
+  o: ReconcileOptions,
+  input?: Promise<ReconcileInput>,
+): Promise<ReconcileResult> {
   let ctx = o.context;
   if (!ctx) {
     await lockJobs(t, o.shopId, [o.jobId]);
@@ -164,7 +237,14 @@ export async function reconcileJob(t: Transaction, o: ReconcileOptions, input?: 
     if (w) wanted.set(`d:${d.key}`, w);
   }
   // Derived flags outside the scope of this reconciliation keep whatever they are.
-  const result = await syncFlags(t, o, flags.filter((f) => !f.derivedKey || inScope(f.derivedKey)), wanted, closers, log);
+  const result = await syncFlags(
+    t,
+    o,
+    flags.filter((f) => !f.derivedKey || inScope(f.derivedKey)),
+    wanted,
+    closers,
+    log,
+  );
   if (!o.log) {
     await recordAudits(t, log.audits);
     await recordChanges(t, log.changes);

@@ -15,7 +15,11 @@ import { listAttachments } from "./uploads-repo";
 
 const iso = (d: Date) => new Date(d).toISOString();
 
-function derivedOf(current: StoredReading[], instruments: Map<number, InstrumentInfo>, ctx: Awaited<ReturnType<typeof loadJobContext>>): DerivedValue[] {
+function derivedOf(
+  current: StoredReading[],
+  instruments: Map<number, InstrumentInfo>,
+  ctx: Awaited<ReturnType<typeof loadJobContext>>,
+): DerivedValue[] {
   const raws = current.map((r) => toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined));
   try {
     return deriveReadings(raws, ctx.shape, ctx.spec);
@@ -26,8 +30,14 @@ function derivedOf(current: StoredReading[], instruments: Map<number, Instrument
 
 function toFigure(d: DerivedValue): DerivedFigure {
   return {
-    key: d.key, label: d.label, value: d.value ?? null, unit: d.limits?.unit ?? d.unit,
-    min: d.limits?.min ?? null, max: d.limits?.max ?? null, verdict: d.verdict ?? null, missing: d.missing,
+    key: d.key,
+    label: d.label,
+    value: d.value ?? null,
+    unit: d.limits?.unit ?? d.unit,
+    min: d.limits?.min ?? null,
+    max: d.limits?.max ?? null,
+    verdict: d.verdict ?? null,
+    missing: d.missing,
   };
 }
 
@@ -48,16 +58,29 @@ type HistoryInput = {
 
 function history(stationId: string, h: HistoryInput): HistoryReading[] {
   const correctedBy = new Map(h.all.filter((r) => r.supersedes).map((r) => [r.supersedes as string, r.id]));
-  return h.all.filter((r) => r.stationId === stationId).map((r) => {
-    const g = r.instrumentId ? h.instruments.get(r.instrumentId) : undefined;
-    return {
-      id: r.id, value: r.value, unit: r.unit, verdict: r.verdict, verdictNote: r.verdictNote, skipped: r.skipped,
-      skipReason: r.skipReason, note: r.note, takenAt: iso(r.takenAt), takenBy: h.names.get(r.takenBy) ?? null,
-      gauge: g ? { id: g.id, label: g.label, serial: g.serial, calibrationDue: g.calibrationDue } : null,
-      supersedes: r.supersedes, supersededBy: correctedBy.get(r.id) ?? null,
-      current: h.current.has(r.id), flagged: r.id === h.flaggedId, photos: h.photos.get(r.id) ?? [],
-    };
-  });
+  return h.all
+    .filter((r) => r.stationId === stationId)
+    .map((r) => {
+      const g = r.instrumentId ? h.instruments.get(r.instrumentId) : undefined;
+      return {
+        id: r.id,
+        value: r.value,
+        unit: r.unit,
+        verdict: r.verdict,
+        verdictNote: r.verdictNote,
+        skipped: r.skipped,
+        skipReason: r.skipReason,
+        note: r.note,
+        takenAt: iso(r.takenAt),
+        takenBy: h.names.get(r.takenBy) ?? null,
+        gauge: g ? { id: g.id, label: g.label, serial: g.serial, calibrationDue: g.calibrationDue } : null,
+        supersedes: r.supersedes,
+        supersededBy: correctedBy.get(r.id) ?? null,
+        current: h.current.has(r.id),
+        flagged: r.id === h.flaggedId,
+        photos: h.photos.get(r.id) ?? [],
+      };
+    });
 }
 
 async function photosOf(shopId: number, readingIds: string[]): Promise<Map<string, Photo[]>> {
@@ -71,10 +94,21 @@ async function photosOf(shopId: number, readingIds: string[]): Promise<Map<strin
 }
 
 async function dispositionsOf(flagId: number): Promise<DispositionEntry[]> {
-  const rows = await FlagDisposition.findAll({ where: { flagId }, include: [{ model: User, as: "user", attributes: ["id", "name"] }], order: [["createdAt", "ASC"], ["id", "ASC"]] });
+  const rows = await FlagDisposition.findAll({
+    where: { flagId },
+    include: [{ model: User, as: "user", attributes: ["id", "name"] }],
+    order: [
+      ["createdAt", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
   return rows.map((d) => ({
-    id: d.id, disposition: d.disposition, operation: d.operation ?? null, reason: d.reason ?? null,
-    by: d.user?.name ?? `user ${d.userId}`, at: iso(d.createdAt),
+    id: d.id,
+    disposition: d.disposition,
+    operation: d.operation ?? null,
+    reason: d.reason ?? null,
+    by: d.user?.name ?? `user ${d.userId}`,
+    at: iso(d.createdAt),
   }));
 }
 
@@ -84,20 +118,43 @@ export async function getFlagDetail(shopId: number, flagId: number): Promise<Fla
   const ctx = await loadJobContext(shopId, f.jobId);
   const all = await jobReadings(undefined, f.jobId);
   const current = currentReadings(all);
-  const instruments = await findInstruments(undefined, shopId, all.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])));
+  const instruments = await findInstruments(
+    undefined,
+    shopId,
+    all.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
+  );
   const derived = derivedOf(current, instruments, ctx);
   const own = f.derivedKey ? derived.find((d) => d.key === f.derivedKey) : undefined;
   const stationIds = f.readingId ? [f.stationId] : (own?.inputs ?? []);
   const atStations = all.filter((r) => stationIds.includes(r.stationId));
   const [names, photos, dispositions] = await Promise.all([
-    namesOf(atStations.map((r) => r.takenBy)), photosOf(shopId, atStations.map((r) => r.id)), dispositionsOf(f.id),
+    namesOf(atStations.map((r) => r.takenBy)),
+    photosOf(
+      shopId,
+      atStations.map((r) => r.id),
+    ),
+    dispositionsOf(f.id),
   ]);
-  const h: HistoryInput = { all, current: new Set(current.map((r) => r.id)), instruments, names, photos, flaggedId: f.readingId ?? null };
+  const h: HistoryInput = {
+    all,
+    current: new Set(current.map((r) => r.id)),
+    instruments,
+    names,
+    photos,
+    flaggedId: f.readingId ?? null,
+  };
   const fed = f.readingId ? derived.filter((d) => d.inputs.includes(f.stationId)) : own ? [own] : [];
   const job = f.job;
   return {
     flag: { ...toListItem(f), closedByReadingId: f.closedByReadingId ?? null },
-    job: { id: job.id, code: job.code, title: job.title, status: job.status, unitSystem: job.unitSystem, locked: job.status === "released" || job.status === "closed" || !!job.lockedAt },
+    job: {
+      id: job.id,
+      code: job.code,
+      title: job.title,
+      status: job.status,
+      unitSystem: job.unitSystem,
+      locked: job.status === "released" || job.status === "closed" || !!job.lockedAt,
+    },
     stations: stationIds.map((s) => ({ stationId: s, words: stationWords(s), readings: history(s, h) })),
     derived: fed.map(toFigure),
     dispositions,

@@ -27,13 +27,23 @@ export type SyncAuditAfter = { jobId: number; deviceId: string; count: number; r
 
 function entry(r: NewReading, final: ReadingEvaluation | undefined): SyncedReading {
   return {
-    id: r.id, stationId: r.stationId, value: r.value, unit: r.unit, verdict: final?.verdict ?? r.verdict,
-    supersedes: r.supersedes, ...(r.skipped ? { skipped: true as const } : {}),
+    id: r.id,
+    stationId: r.stationId,
+    value: r.value,
+    unit: r.unit,
+    verdict: final?.verdict ?? r.verdict,
+    supersedes: r.supersedes,
+    ...(r.skipped ? { skipped: true as const } : {}),
   };
 }
 
 /** One "readings.sync" event per job of the batch, its readings in the order they were sent. */
-export function syncAudits(actor: Actor, deviceId: string, fresh: NewReading[], finals: Map<string, ReadingEvaluation>): AuditInput[] {
+export function syncAudits(
+  actor: Actor,
+  deviceId: string,
+  fresh: NewReading[],
+  finals: Map<string, ReadingEvaluation>,
+): AuditInput[] {
   const byJob = new Map<number, SyncedReading[]>();
   for (const r of fresh) {
     const list = byJob.get(r.jobId) ?? [];
@@ -42,6 +52,13 @@ export function syncAudits(actor: Actor, deviceId: string, fresh: NewReading[], 
   }
   return [...byJob].map(([jobId, readings]) => {
     const after: SyncAuditAfter = { jobId, deviceId, count: readings.length, readings };
-    return { shopId: actor.shopId, userId: actor.userId, action: SYNC_ACTION, entityType: "job", entityId: jobId, after };
+    return {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: SYNC_ACTION,
+      entityType: "job",
+      entityId: jobId,
+      after,
+    };
   });
 }

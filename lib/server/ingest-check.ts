@@ -1,10 +1,21 @@
 import "server-only";
 import {
-  CHARACTERISTICS, LUBRICANT_LABELS, dialDiameter, evaluateReading, implausibleReason, parseStationId,
+  CHARACTERISTICS,
+  LUBRICANT_LABELS,
+  dialDiameter,
+  evaluateReading,
+  implausibleReason,
+  parseStationId,
 } from "@/lib/domain";
 import type { FieldErrors, PushReading, ReadingEvaluation, RejectCode } from "@/lib/schemas/sync";
 import {
-  canonicalValue, gaugePastDue, quantityOfUnit, round6, storedEvaluation, toRaw, type InstrumentInfo,
+  canonicalValue,
+  gaugePastDue,
+  quantityOfUnit,
+  round6,
+  storedEvaluation,
+  toRaw,
+  type InstrumentInfo,
 } from "./ingest-evaluate";
 import type { JobContext } from "./job-context";
 import type { NewReading, StoredReading } from "./readings-repo";
@@ -33,7 +44,12 @@ export type Checked =
 const DATE = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
 
 /** Why a job refuses readings, in words, or null when it takes them. */
-export function lockReasonOf(job: { code: string; status: string; lockedAt: Date | null; updatedAt: Date }): string | null {
+export function lockReasonOf(job: {
+  code: string;
+  status: string;
+  lockedAt: Date | null;
+  updatedAt: Date;
+}): string | null {
   const locked = job.status === "released" || job.status === "closed" || !!job.lockedAt;
   if (!locked) return null;
   const verb = job.status === "closed" ? "closed" : job.status === "released" ? "released" : "locked";
@@ -45,28 +61,69 @@ export function rowOf(item: PushReading, bc: BatchContext, characteristic: strin
   const skipped = !!item.skipped;
   const value = skipped ? null : (item.value ?? null);
   return {
-    id: item.id, shopId: bc.shopId, jobId: item.jobId, stationId: item.stationId, characteristic,
-    value, unit: item.unit, valueCanonical: value === null ? null : canonicalValue(value, item.unit),
-    entryMode: item.entryMode, dialSetting: item.dialSetting ?? null, dialDeviation: item.dialDeviation ?? null,
-    instrumentId: item.instrumentId ?? null, partTempC: item.partTempC ?? null, gaugeTempC: item.gaugeTempC ?? null,
-    lubricant: item.lubricant ?? null, skipped, skipReason: skipped ? (item.skipReason ?? null) : null,
-    note: item.note ?? null, takenBy: bc.userId, takenAt: new Date(item.takenAt), receivedAt: bc.now,
-    deviceId: bc.deviceId, supersedes: item.supersedes ?? null,
-    verdict: null, verdictNote: null, limitMin: null, limitMax: null, deviation: null,
+    id: item.id,
+    shopId: bc.shopId,
+    jobId: item.jobId,
+    stationId: item.stationId,
+    characteristic,
+    value,
+    unit: item.unit,
+    valueCanonical: value === null ? null : canonicalValue(value, item.unit),
+    entryMode: item.entryMode,
+    dialSetting: item.dialSetting ?? null,
+    dialDeviation: item.dialDeviation ?? null,
+    instrumentId: item.instrumentId ?? null,
+    partTempC: item.partTempC ?? null,
+    gaugeTempC: item.gaugeTempC ?? null,
+    lubricant: item.lubricant ?? null,
+    skipped,
+    skipReason: skipped ? (item.skipReason ?? null) : null,
+    note: item.note ?? null,
+    takenBy: bc.userId,
+    takenAt: new Date(item.takenAt),
+    receivedAt: bc.now,
+    deviceId: bc.deviceId,
+    supersedes: item.supersedes ?? null,
+    verdict: null,
+    verdictNote: null,
+    limitMin: null,
+    limitMax: null,
+    deviation: null,
   };
 }
 
-const PAYLOAD = ["jobId", "stationId", "unit", "entryMode", "instrumentId", "lubricant", "skipped", "skipReason", "supersedes", "note"] as const;
+const PAYLOAD = [
+  "jobId",
+  "stationId",
+  "unit",
+  "entryMode",
+  "instrumentId",
+  "lubricant",
+  "skipped",
+  "skipReason",
+  "supersedes",
+  "note",
+] as const;
 const NUMBERS = ["value", "dialSetting", "dialDeviation", "partTempC", "gaugeTempC"] as const;
 
 /** True when a resent reading carries the same figures as the stored one (who sent it does not matter). */
-export function samePayload(a: Pick<StoredReading, (typeof PAYLOAD)[number] | (typeof NUMBERS)[number] | "takenAt">, b: typeof a): boolean {
-  return PAYLOAD.every((k) => (a[k] ?? null) === (b[k] ?? null))
-    && NUMBERS.every((k) => round6(a[k]) === round6(b[k]))
-    && a.takenAt.getTime() === b.takenAt.getTime();
+export function samePayload(
+  a: Pick<StoredReading, (typeof PAYLOAD)[number] | (typeof NUMBERS)[number] | "takenAt">,
+  b: typeof a,
+): boolean {
+  return (
+    PAYLOAD.every((k) => (a[k] ?? null) === (b[k] ?? null)) &&
+    NUMBERS.every((k) => round6(a[k]) === round6(b[k])) &&
+    a.takenAt.getTime() === b.takenAt.getTime()
+  );
 }
 
-function checkGauge(item: PushReading, bc: BatchContext, kind: string, add: (f: string, m: string) => void): InstrumentInfo | undefined {
+function checkGauge(
+  item: PushReading,
+  bc: BatchContext,
+  kind: string,
+  add: (f: string, m: string) => void,
+): InstrumentInfo | undefined {
   if (item.instrumentId === undefined) return undefined;
   const inst = bc.instruments.get(item.instrumentId);
   if (!inst) {
@@ -75,7 +132,10 @@ function checkGauge(item: PushReading, bc: BatchContext, kind: string, add: (f: 
   }
   const reads = quantityOfUnit(inst.unit);
   if (reads && reads !== kind) {
-    add("instrumentId", `Gauge '${inst.label}' (${inst.serial}) reads ${reads}; ${item.stationId} needs a ${kind} gauge`);
+    add(
+      "instrumentId",
+      `Gauge '${inst.label}' (${inst.serial}) reads ${reads}; ${item.stationId} needs a ${kind} gauge`,
+    );
     return undefined;
   }
   return inst;
@@ -85,13 +145,20 @@ function checkDial(item: PushReading, inst: InstrumentInfo | undefined, add: (f:
   if (item.entryMode !== "dial" || !inst || item.dialSetting === undefined || item.dialDeviation === undefined) return;
   let expected: number;
   try {
-    expected = dialDiameter({ setting: item.dialSetting, deviation: item.dialDeviation, plusMeansSmaller: inst.dialPlusMeansSmaller });
+    expected = dialDiameter({
+      setting: item.dialSetting,
+      deviation: item.dialDeviation,
+      plusMeansSmaller: inst.dialPlusMeansSmaller,
+    });
   } catch (err) {
     return add("dialDeviation", (err as Error).message);
   }
   if (round6(expected) !== round6(item.value)) {
     const sign = inst.dialPlusMeansSmaller ? "plus means a smaller bore" : "plus means a larger bore";
-    add("value", `Setting ${item.dialSetting} with a dial reading of ${item.dialDeviation} gives ${expected} ${item.unit} on gauge '${inst.label}' (${sign}), not ${item.value}; check the gauge's sign setting and enter the reading again`);
+    add(
+      "value",
+      `Setting ${item.dialSetting} with a dial reading of ${item.dialDeviation} gives ${expected} ${item.unit} on gauge '${inst.label}' (${sign}), not ${item.value}; check the gauge's sign setting and enter the reading again`,
+    );
   }
 }
 
@@ -99,10 +166,16 @@ function checkCorrection(item: PushReading, bc: BatchContext, job: BatchJob, add
   if (!item.supersedes) return;
   const target = bc.targets.get(item.supersedes);
   if (!target || target.shopId !== bc.shopId || target.jobId !== item.jobId) {
-    return add("supersedes", `The reading this corrects (${item.supersedes}) is not on job ${job.job.code}; correct a reading of this job`);
+    return add(
+      "supersedes",
+      `The reading this corrects (${item.supersedes}) is not on job ${job.job.code}; correct a reading of this job`,
+    );
   }
   if (target.stationId !== item.stationId) {
-    add("supersedes", `It corrects a reading at ${target.stationId}, but this one is at ${item.stationId}; a correction is taken at the same station`);
+    add(
+      "supersedes",
+      `It corrects a reading at ${target.stationId}, but this one is at ${item.stationId}; a correction is taken at the same station`,
+    );
   }
 }
 
@@ -110,14 +183,23 @@ function checkFigures(item: PushReading, bc: BatchContext, job: BatchJob, add: (
   const characteristic = parseStationId(item.stationId).characteristic!;
   const info = CHARACTERISTICS[characteristic];
   if (!job.routeIds.has(item.stationId)) {
-    add("stationId", `Station '${item.stationId}' is not on job ${job.job.code}'s engine (${job.shape.cylinders} cylinders, ${job.shape.mains} mains); pick a station from the route`);
+    add(
+      "stationId",
+      `Station '${item.stationId}' is not on job ${job.job.code}'s engine (${job.shape.cylinders} cylinders, ${job.shape.mains} mains); pick a station from the route`,
+    );
   }
   const unitKind = quantityOfUnit(item.unit);
   if (unitKind !== info.kind) {
-    add("unit", `${info.label} is a ${info.kind}: use ${info.kind === "length" ? "in or mm" : "lbf_ft or nm"}, not ${item.unit}`);
+    add(
+      "unit",
+      `${info.label} is a ${info.kind}: use ${info.kind === "length" ? "in or mm" : "lbf_ft or nm"}, not ${item.unit}`,
+    );
   }
   if (info.kind === "torque" && !item.lubricant && !item.skipped) {
-    add("lubricant", `Say which lubricant was on the threads and under the head (${Object.keys(LUBRICANT_LABELS).join(", ")})`);
+    add(
+      "lubricant",
+      `Say which lubricant was on the threads and under the head (${Object.keys(LUBRICANT_LABELS).join(", ")})`,
+    );
   }
   const inst = checkGauge(item, bc, info.kind, add);
   if (!item.skipped && unitKind === info.kind) {
@@ -132,7 +214,13 @@ function checkFigures(item: PushReading, bc: BatchContext, job: BatchJob, add: (
 /** Checks one parsed reading of the batch against its (locked) job, the gauges and what is stored. */
 export function checkItem(item: PushReading, bc: BatchContext): Checked {
   const job = bc.jobs.get(item.jobId);
-  if (!job) return { kind: "rejected", code: "not_found", reason: `Job ${item.jobId} not found`, errors: { jobId: [`Job ${item.jobId} not found`] } };
+  if (!job)
+    return {
+      kind: "rejected",
+      code: "not_found",
+      reason: `Job ${item.jobId} not found`,
+      errors: { jobId: [`Job ${item.jobId} not found`] },
+    };
   const stored = bc.existing.get(item.id);
   if (stored) {
     const mine = stored.shopId === bc.shopId && samePayload(stored, rowOf(item, bc, stored.characteristic));
@@ -140,7 +228,8 @@ export function checkItem(item: PushReading, bc: BatchContext): Checked {
     const reason = `Reading ${item.id} is already stored with other figures; nothing was overwritten. Send a correction as a new reading that supersedes it`;
     return { kind: "rejected", code: "conflict", reason, errors: { id: [reason] } };
   }
-  if (job.lockReason) return { kind: "rejected", code: "job_locked", reason: job.lockReason, errors: { jobId: [job.lockReason] } };
+  if (job.lockReason)
+    return { kind: "rejected", code: "job_locked", reason: job.lockReason, errors: { jobId: [job.lockReason] } };
   const errors: FieldErrors = {};
   const add = (f: string, m: string) => void (errors[f] ??= []).push(m);
   const { characteristic, inst } = checkFigures(item, bc, job, add);
@@ -155,7 +244,9 @@ export function checkItem(item: PushReading, bc: BatchContext): Checked {
     }
   }
   if (Object.keys(errors).length) {
-    const reason = Object.entries(errors).map(([f, m]) => `${f}: ${m.join("; ")}`).join(". ");
+    const reason = Object.entries(errors)
+      .map(([f, m]) => `${f}: ${m.join("; ")}`)
+      .join(". ");
     return { kind: "rejected", code: "invalid", reason, errors };
   }
   const { unit: _u, ...verdictFields } = evaluation;

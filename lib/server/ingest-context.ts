@@ -45,7 +45,10 @@ function routeIdsOf(shape: BatchJob["shape"]): Set<string> {
  * this transaction): from the cache when the token matches, else loaded now and remembered.
  */
 export async function batchJobs(
-  t: Transaction, shopId: number, revisions: Map<number, string>, prefetched = new Map<number, Promise<JobContext | null>>(),
+  t: Transaction,
+  shopId: number,
+  revisions: Map<number, string>,
+  prefetched = new Map<number, Promise<JobContext | null>>(),
 ): Promise<Map<number, BatchJob>> {
   const cache = cacheOf();
   const jobs = new Map<number, BatchJob>();
@@ -69,7 +72,11 @@ export async function batchJobs(
  * job lock in the same pipeline (so it reads after the lock, in the same snapshot): a tablet's first
  * batch for a job then costs no extra round trip. A failure here only means batchJobs loads again.
  */
-export function prefetchJobs(t: Transaction, shopId: number, jobIds: number[]): Map<number, Promise<JobContext | null>> {
+export function prefetchJobs(
+  t: Transaction,
+  shopId: number,
+  jobIds: number[],
+): Map<number, Promise<JobContext | null>> {
   const cache = cacheOf();
   const unseen = [...new Set(jobIds)].filter((id) => !cache.has(id));
   return new Map(unseen.map((id) => [id, loadJobContext(shopId, id, t).catch(() => null)]));

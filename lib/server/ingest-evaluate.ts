@@ -1,6 +1,12 @@
 import "server-only";
 import {
-  convertLength, convertTorque, uncertaintyAtK2, type Evaluation, type Lubricant, type MeasureUnit, type RawReading,
+  convertLength,
+  convertTorque,
+  uncertaintyAtK2,
+  type Evaluation,
+  type Lubricant,
+  type MeasureUnit,
+  type RawReading,
 } from "@/lib/domain";
 import type { BenchInstrument, ReadingEvaluation } from "@/lib/schemas/sync";
 
@@ -89,6 +95,11 @@ export function storedEvaluation(ev: Evaluation | null, unitEntered: string, pas
 }
 
 export function sameEvaluation(a: Omit<ReadingEvaluation, "unit">, b: Omit<ReadingEvaluation, "unit">): boolean {
-  return a.verdict === b.verdict && a.verdictNote === b.verdictNote && round6(a.limitMin) === round6(b.limitMin)
-    && round6(a.limitMax) === round6(b.limitMax) && round6(a.deviation) === round6(b.deviation);
+  return (
+    a.verdict === b.verdict &&
+    a.verdictNote === b.verdictNote &&
+    round6(a.limitMin) === round6(b.limitMin) &&
+    round6(a.limitMax) === round6(b.limitMax) &&
+    round6(a.deviation) === round6(b.deviation)
+  );
 }

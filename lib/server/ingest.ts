@@ -1,7 +1,13 @@
 import "server-only";
 import type { Transaction } from "sequelize";
 import {
-  MAX_BATCH, pushReadingSchema, type FieldErrors, type PushErrorReply, type PushReading, type PushReply, type PushResult,
+  MAX_BATCH,
+  pushReadingSchema,
+  type FieldErrors,
+  type PushErrorReply,
+  type PushReading,
+  type PushReply,
+  type PushResult,
   type ReadingEvaluation,
 } from "@/lib/schemas/sync";
 import type { Actor } from "./access";
@@ -32,29 +38,62 @@ export type IngestReply = { status: 200; body: PushReply } | { status: 409 | 422
 function parseItems(raw: unknown[]): Parsed[] {
   return raw.map((r, index) => {
     const parsed = pushReadingSchema.safeParse(r);
-    const id = r && typeof r === "object" && typeof (r as { id?: unknown }).id === "string" ? (r as { id: string }).id : null;
-    return parsed.success ? { index, item: parsed.data, id: parsed.data.id } : { index, id, errors: fieldErrors(parsed.error) };
+    const id =
+      r && typeof r === "object" && typeof (r as { id?: unknown }).id === "string" ? (r as { id: string }).id : null;
+    return parsed.success
+      ? { index, item: parsed.data, id: parsed.data.id }
+      : { index, id, errors: fieldErrors(parsed.error) };
   });
 }
 
-async function batchContext(t: Transaction, actor: Actor, deviceId: string, items: PushReading[]): Promise<BatchContext> {
+async function batchContext(
+  t: Transaction,
+  actor: Actor,
+  deviceId: string,
+  items: PushReading[],
+): Promise<BatchContext> {
   const supersedes = items.flatMap((i) => (i.supersedes ? [i.supersedes] : []));
   // Issued together (one round trip). The lock runs first on the server, so the reads after it
   // (and this transaction's snapshot) already see every batch committed before we got the lock.
   const reads = settleAll([
-    lockJobRevisions(t, actor.shopId, items.map((i) => i.jobId)),
-    findInstruments(t, actor.shopId, items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : []))),
+    lockJobRevisions(
+      t,
+      actor.shopId,
+      items.map((i) => i.jobId),
+    ),
+    findInstruments(
+      t,
+      actor.shopId,
+      items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : [])),
+    ),
     // One lookup for both: ids already stored (replays, conflicts) and the readings corrected.
     findReadings(t, [...new Set([...items.map((i) => i.id), ...supersedes])]),
   ]);
   // Issued after those, so the context of a job never seen before is read with the lock held.
-  const prefetched = prefetchJobs(t, actor.shopId, items.map((i) => i.jobId));
+  const prefetched = prefetchJobs(
+    t,
+    actor.shopId,
+    items.map((i) => i.jobId),
+  );
   const [revisions, instruments, known] = await reads;
   const jobs = await batchJobs(t, actor.shopId, revisions, prefetched);
   const existing = new Map(items.flatMap((i) => (known.has(i.id) ? [[i.id, known.get(i.id)!] as const] : [])));
-  const targets = new Map<string, { shopId: number; jobId: number; stationId: string }>(supersedes.flatMap((id) => (known.has(id) ? [[id, known.get(id)!] as const] : [])));
-  for (const i of items) if (!targets.has(i.id) && supersedes.includes(i.id)) targets.set(i.id, { shopId: actor.shopId, jobId: i.jobId, stationId: i.stationId });
-  return { shopId: actor.shopId, userId: actor.userId, deviceId, now: new Date(), jobs, instruments, existing, targets };
+  const targets = new Map<string, { shopId: number; jobId: number; stationId: string }>(
+    supersedes.flatMap((id) => (known.has(id) ? [[id, known.get(id)!] as const] : [])),
+  );
+  for (const i of items)
+    if (!targets.has(i.id) && supersedes.includes(i.id))
+      targets.set(i.id, { shopId: actor.shopId, jobId: i.jobId, stationId: i.stationId });
+  return {
+    shopId: actor.shopId,
+    userId: actor.userId,
+    deviceId,
+    now: new Date(),
+    jobs,
+    instruments,
+    existing,
+    targets,
+  };
 }
 
 /** Checks every parsed item; a second copy of an id in the batch is the first one's replay or a conflict. */
@@ -69,7 +108,9 @@ function checkAll(parsed: Parsed[], bc: BatchContext): Outcome[] {
     }
     const same = JSON.stringify(parsed[first].item) === JSON.stringify(p.item);
     const reason = `Reading ${p.item.id} appears twice in this batch with different figures; give the correction a new id`;
-    return same ? { kind: "duplicate", of: first } : { kind: "rejected", code: "conflict", reason, errors: { id: [reason] } };
+    return same
+      ? { kind: "duplicate", of: first }
+      : { kind: "rejected", code: "conflict", reason, errors: { id: [reason] } };
   });
 }
 
@@ -89,7 +130,16 @@ function insertOrder(rows: NewReading[]): NewReading[] {
 
 function evaluationOf(c: { row: NewReading }, final: ReadingEvaluation | undefined): ReadingEvaluation {
   const r = c.row;
-  return final ?? { verdict: r.verdict, verdictNote: r.verdictNote, unit: r.unit, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation };
+  return (
+    final ?? {
+      verdict: r.verdict,
+      verdictNote: r.verdictNote,
+      unit: r.unit,
+      limitMin: r.limitMin,
+      limitMax: r.limitMax,
+      deviation: r.deviation,
+    }
+  );
 }
 
 /**
@@ -102,10 +152,22 @@ async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: NewR
   const jobIds = [...new Set(fresh.map((r) => r.jobId))].sort((a, b) => a - b);
   const log: ReconcileLog = {
     audits: [],
-    changes: fresh.map((r) => ({ shopId: actor.shopId, jobId: r.jobId, entity: "reading" as const, entityId: r.id, deviceId: bc.deviceId })),
+    changes: fresh.map((r) => ({
+      shopId: actor.shopId,
+      jobId: r.jobId,
+      entity: "reading" as const,
+      entityId: r.id,
+      deviceId: bc.deviceId,
+    })),
   };
   const options = jobIds.map((jobId) => ({
-    shopId: actor.shopId, jobId, userId: actor.userId, deviceId: bc.deviceId, cause: "sync", log, context: bc.jobs.get(jobId)!,
+    shopId: actor.shopId,
+    jobId,
+    userId: actor.userId,
+    deviceId: bc.deviceId,
+    cause: "sync",
+    log,
+    context: bc.jobs.get(jobId)!,
     fresh: new Map(fresh.filter((r) => r.jobId === jobId).map((r) => [r.id, r.stationId])),
   }));
   const inserting = insertReadings(t, insertOrder(fresh));
@@ -122,14 +184,51 @@ async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: NewR
   return { finals, cursor: await recordChanges(t, log.changes) };
 }
 
-function results(parsed: Parsed[], checked: Outcome[], finals: Map<string, ReadingEvaluation>, refused: boolean): PushResult[] {
+function results(
+  parsed: Parsed[],
+  checked: Outcome[],
+  finals: Map<string, ReadingEvaluation>,
+  refused: boolean,
+): PushResult[] {
   const one = (p: Parsed, c: Outcome): PushResult => {
-    if (!c) return { index: p.index, id: p.id, status: "rejected", code: "invalid", reason: Object.entries(p.errors ?? {}).map(([f, m]) => `${f}: ${m.join("; ")}`).join(". "), errors: p.errors };
+    if (!c)
+      return {
+        index: p.index,
+        id: p.id,
+        status: "rejected",
+        code: "invalid",
+        reason: Object.entries(p.errors ?? {})
+          .map(([f, m]) => `${f}: ${m.join("; ")}`)
+          .join(". "),
+        errors: p.errors,
+      };
     if (c.kind === "duplicate") return { ...one(parsed[c.of], checked[c.of]), index: p.index };
-    if (c.kind === "rejected") return { index: p.index, id: p.id, status: "rejected", code: c.code, reason: c.reason, ...(c.errors ? { errors: c.errors } : {}) };
+    if (c.kind === "rejected")
+      return {
+        index: p.index,
+        id: p.id,
+        status: "rejected",
+        code: c.code,
+        reason: c.reason,
+        ...(c.errors ? { errors: c.errors } : {}),
+      };
     if (c.kind === "replay") {
       const s = c.stored;
-      return { index: p.index, id: s.id, status: "accepted", replay: true, verdict: s.verdict, evaluation: { verdict: s.verdict, verdictNote: s.verdictNote, unit: s.unit, limitMin: s.limitMin, limitMax: s.limitMax, deviation: s.deviation } };
+      return {
+        index: p.index,
+        id: s.id,
+        status: "accepted",
+        replay: true,
+        verdict: s.verdict,
+        evaluation: {
+          verdict: s.verdict,
+          verdictNote: s.verdictNote,
+          unit: s.unit,
+          limitMin: s.limitMin,
+          limitMax: s.limitMax,
+          deviation: s.deviation,
+        },
+      };
     }
     if (refused) return { index: p.index, id: c.row.id, status: "held" };
     const e = evaluationOf(c, finals.get(c.row.id));
@@ -141,29 +240,41 @@ function results(parsed: Parsed[], checked: Outcome[], finals: Map<string, Readi
 function refusal(res: PushResult[], cursor: string): IngestReply {
   const rejected = res.filter((r): r is Extract<PushResult, { status: "rejected" }> => r.status === "rejected");
   const fields: FieldErrors = {};
-  for (const r of rejected) for (const [f, m] of Object.entries(r.errors ?? { _: [r.reason] })) fields[`readings.${r.index}.${f}`] = m;
+  for (const r of rejected)
+    for (const [f, m] of Object.entries(r.errors ?? { _: [r.reason] })) fields[`readings.${r.index}.${f}`] = m;
   const locked = rejected.every((r) => r.code === "job_locked");
   const message = locked
     ? `${rejected[0].reason} Nothing in this batch was saved; the readings stay on the tablet.`
     : `${rejected.length} of ${res.length} readings need fixing; nothing in this batch was saved. Fix those (see each reading's errors) or send the others without them.`;
-  return { status: locked ? 409 : 422, body: { error: { code: locked ? "job_locked" : "invalid", message, fields }, results: res, cursor } };
+  return {
+    status: locked ? 409 : 422,
+    body: { error: { code: locked ? "job_locked" : "invalid", message, fields }, results: res, cursor },
+  };
 }
 
-export async function ingestBatch(actor: Actor, batch: { deviceId: string; readings: unknown[] }): Promise<IngestReply> {
+export async function ingestBatch(
+  actor: Actor,
+  batch: { deviceId: string; readings: unknown[] },
+): Promise<IngestReply> {
   if (batch.readings.length > MAX_BATCH) {
-    throw new AppError("payload_too_large", `Send at most ${MAX_BATCH} readings per batch; this one has ${batch.readings.length}. Split it and send again.`);
+    throw new AppError(
+      "payload_too_large",
+      `Send at most ${MAX_BATCH} readings per batch; this one has ${batch.readings.length}. Split it and send again.`,
+    );
   }
   const parsed = parseItems(batch.readings);
   const items = parsed.flatMap((p) => (p.item ? [p.item] : []));
-  return withDeadlockRetry(() => getSequelize().transaction(async (t) => {
-    const bc = await batchContext(t, actor, batch.deviceId, items);
-    const checked = checkAll(parsed, bc);
-    const bad = checked.some((c) => !c || c.kind === "rejected");
-    const fresh = bad ? [] : checked.flatMap((c) => (c?.kind === "new" ? [c.row] : []));
-    const { finals, cursor } = fresh.length
-      ? await write(t, actor, bc, fresh)
-      : { finals: new Map<string, ReadingEvaluation>(), cursor: await lastChangeId(t, [...bc.jobs.keys()]) };
-    const res = results(parsed, checked, finals, bad);
-    return bad ? refusal(res, cursor) : { status: 200 as const, body: { results: res, cursor } };
-  }));
+  return withDeadlockRetry(() =>
+    getSequelize().transaction(async (t) => {
+      const bc = await batchContext(t, actor, batch.deviceId, items);
+      const checked = checkAll(parsed, bc);
+      const bad = checked.some((c) => !c || c.kind === "rejected");
+      const fresh = bad ? [] : checked.flatMap((c) => (c?.kind === "new" ? [c.row] : []));
+      const { finals, cursor } = fresh.length
+        ? await write(t, actor, bc, fresh)
+        : { finals: new Map<string, ReadingEvaluation>(), cursor: await lastChangeId(t, [...bc.jobs.keys()]) };
+      const res = results(parsed, checked, finals, bad);
+      return bad ? refusal(res, cursor) : { status: 200 as const, body: { results: res, cursor } };
+    }),
+  );
 }

@@ -3,8 +3,13 @@ import { UniqueConstraintError, type Transaction } from "sequelize";
 import { z } from "zod";
 import { Attachment, Instrument } from "@/models";
 import {
-  calibrationStatus, instrumentFields, withInstrumentRules,
-  type InstrumentInput, type InstrumentPatch, type InstrumentRecord, type InstrumentUnit,
+  calibrationStatus,
+  instrumentFields,
+  withInstrumentRules,
+  type InstrumentInput,
+  type InstrumentPatch,
+  type InstrumentRecord,
+  type InstrumentUnit,
 } from "@/lib/schemas/instrument";
 import type { Actor } from "./access";
 import { recordAudit } from "./audit";
@@ -18,10 +23,18 @@ function reshape(g: Instrument, today = todayUtc()): InstrumentRecord {
   const cert = (g as Instrument & { certificate?: Attachment | null }).certificate;
   const due = g.calibrationDue ?? today;
   return {
-    id: g.id, kind: g.kind as InstrumentRecord["kind"], label: g.label, serial: g.serial, unit: g.unit as InstrumentUnit,
-    resolution: g.resolution, expandedU: g.expandedU, coverageK: g.coverageK,
-    calibratedOn: g.calibratedOn ?? "", calibrationDue: g.calibrationDue ?? "",
-    dialPlusMeansSmaller: g.dialPlusMeansSmaller, active: g.active,
+    id: g.id,
+    kind: g.kind as InstrumentRecord["kind"],
+    label: g.label,
+    serial: g.serial,
+    unit: g.unit as InstrumentUnit,
+    resolution: g.resolution,
+    expandedU: g.expandedU,
+    coverageK: g.coverageK,
+    calibratedOn: g.calibratedOn ?? "",
+    calibrationDue: g.calibrationDue ?? "",
+    dialPlusMeansSmaller: g.dialPlusMeansSmaller,
+    active: g.active,
     certificate: cert ? { id: cert.id, name: cert.originalName, url: `/api/attachments/${cert.id}` } : null,
     ...calibrationStatus(due, today),
   };
@@ -31,16 +44,31 @@ const withCertificate = { include: [{ model: Attachment, as: "certificate" }] };
 
 // What the audit keeps: the figures that decide verdicts and flags.
 const auditView = (g: Instrument) => ({
-  kind: g.kind, label: g.label, serial: g.serial, unit: g.unit, resolution: g.resolution, expandedU: g.expandedU,
-  coverageK: g.coverageK, calibratedOn: g.calibratedOn, calibrationDue: g.calibrationDue,
-  dialPlusMeansSmaller: g.dialPlusMeansSmaller, active: g.active,
+  kind: g.kind,
+  label: g.label,
+  serial: g.serial,
+  unit: g.unit,
+  resolution: g.resolution,
+  expandedU: g.expandedU,
+  coverageK: g.coverageK,
+  calibratedOn: g.calibratedOn,
+  calibrationDue: g.calibrationDue,
+  dialPlusMeansSmaller: g.dialPlusMeansSmaller,
+  active: g.active,
 });
 
-export async function listInstruments(shopId: number, opts: { includeInactive?: boolean } = {}): Promise<InstrumentRecord[]> {
+export async function listInstruments(
+  shopId: number,
+  opts: { includeInactive?: boolean } = {},
+): Promise<InstrumentRecord[]> {
   getSequelize();
   const rows = await Instrument.findAll({
     where: { shopId, ...(opts.includeInactive ? {} : { active: true }) },
-    order: [["active", "DESC"], ["calibrationDue", "ASC"], ["label", "ASC"]],
+    order: [
+      ["active", "DESC"],
+      ["calibrationDue", "ASC"],
+      ["label", "ASC"],
+    ],
     ...withCertificate,
   });
   const today = todayUtc();
@@ -78,8 +106,18 @@ export async function createInstrument(actor: Actor, input: InstrumentInput): Pr
   const sequelize = getSequelize();
   return guardSerial(input.serial, () =>
     sequelize.transaction(async (t) => {
-      const g = await Instrument.create({ ...input, shopId: actor.shopId, coverageK: 2, active: true }, { transaction: t });
-      await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action: "instrument.registered", entityType: "instrument", entityId: g.id, after: auditView(g) });
+      const g = await Instrument.create(
+        { ...input, shopId: actor.shopId, coverageK: 2, active: true },
+        { transaction: t },
+      );
+      await recordAudit(t, {
+        shopId: actor.shopId,
+        userId: actor.userId,
+        action: "instrument.registered",
+        entityType: "instrument",
+        entityId: g.id,
+        after: auditView(g),
+      });
       return reshape(g);
     }),
   );
@@ -109,7 +147,15 @@ export async function updateInstrument(actor: Actor, id: number, patch: Instrume
       const before = auditView(g);
       const action = actionFor(g, patch);
       await g.update({ ...next, ...(patch.active !== undefined ? { active: patch.active } : {}) }, { transaction: t });
-      await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action, entityType: "instrument", entityId: g.id, before, after: auditView(g) });
+      await recordAudit(t, {
+        shopId: actor.shopId,
+        userId: actor.userId,
+        action,
+        entityType: "instrument",
+        entityId: g.id,
+        before,
+        after: auditView(g),
+      });
       return reshape(g);
     }),
   );

@@ -8,9 +8,27 @@ import { notFound } from "./errors";
 // The one edge where database rows become the domain core's shapes (STYLE habit 6):
 // Engine → EngineShape, JobLimit → SpecLimit. Sync, re-evaluation, review, release and the
 // build record all go through here.
-type LimitRow = Pick<JobLimit, "characteristic" | "stationPattern" | "limitType" | "unit" | "min" | "max" | "nominal" | "tolPlus" | "tolMinus" | "perInchMin" | "perInchMax" | "isoClass" | "required" | "gaugeKind" | "label">;
+type LimitRow = Pick<
+  JobLimit,
+  | "characteristic"
+  | "stationPattern"
+  | "limitType"
+  | "unit"
+  | "min"
+  | "max"
+  | "nominal"
+  | "tolPlus"
+  | "tolMinus"
+  | "perInchMin"
+  | "perInchMax"
+  | "isoClass"
+  | "required"
+  | "gaugeKind"
+  | "label"
+>;
 
-const isMaterial = (m: string | null | undefined): m is keyof typeof EXPANSION_COEFFICIENTS => !!m && m in EXPANSION_COEFFICIENTS;
+const isMaterial = (m: string | null | undefined): m is keyof typeof EXPANSION_COEFFICIENTS =>
+  !!m && m in EXPANSION_COEFFICIENTS;
 
 export function toSpecLimit(row: LimitRow): SpecLimit {
   const out: Record<string, unknown> = {
@@ -55,11 +73,20 @@ export async function loadJobContext(shopId: number, jobId: number, t?: Transact
   // All three at once (inside a transaction they share its connection and go out in one round
   // trip); the engine is found through this shop's job, so nothing of another shop is read.
   // (Op.eq is needed: a bare literal as a where value becomes the whole condition.)
-  const engineOfJob = literal(`(SELECT engine_id FROM jobs WHERE id = ${Number(jobId)} AND shop_id = ${Number(shopId)})`);
+  const engineOfJob = literal(
+    `(SELECT engine_id FROM jobs WHERE id = ${Number(jobId)} AND shop_id = ${Number(shopId)})`,
+  );
   const [job, engine, limits] = await Promise.all([
     Job.findOne({ where: { id: jobId, shopId }, transaction: t }),
     Engine.findOne({ where: { id: { [Op.eq]: engineOfJob } }, transaction: t }),
-    JobLimit.findAll({ where: { jobId }, order: [["sortOrder", "ASC"], ["id", "ASC"]], transaction: t }),
+    JobLimit.findAll({
+      where: { jobId },
+      order: [
+        ["sortOrder", "ASC"],
+        ["id", "ASC"],
+      ],
+      transaction: t,
+    }),
   ]);
   if (!job) throw notFound("Job");
   if (!engine) throw notFound("Engine");

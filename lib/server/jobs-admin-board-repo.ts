@@ -21,7 +21,10 @@ export type BoardJob = JobSummary & {
 function progressOf(engine: Engine, unitSystem: "in" | "mm", spec: SpecLimit[], measured: Set<string>) {
   try {
     const shape = toEngineShape(engine, unitSystem);
-    const required = requiredStationIds({ spec, shape }, benchRoute(shape).sections.flatMap((s) => s.stations));
+    const required = requiredStationIds(
+      { spec, shape },
+      benchRoute(shape).sections.flatMap((s) => s.stations),
+    );
     return { done: required.filter((id) => measured.has(id)).length, required: required.length };
   } catch {
     // An engine the core cannot lay out has no route; the job page says why.
@@ -46,22 +49,43 @@ export async function listJobBoard(shopId: number): Promise<BoardJob[]> {
   getSequelize();
   const jobs = await Job.findAll({
     where: { shopId },
-    include: [{ model: Customer, as: "customer" }, { model: Engine, as: "engine" }],
-    order: [["dueDate", "ASC"], ["id", "ASC"]],
+    include: [
+      { model: Customer, as: "customer" },
+      { model: Engine, as: "engine" },
+    ],
+    order: [
+      ["dueDate", "ASC"],
+      ["id", "ASC"],
+    ],
   });
   const ids = jobs.map((j) => j.id);
   const open = jobs.filter((j) => j.status !== "closed").map((j) => j.id);
   const [limits, measured, flags] = await Promise.all([
-    open.length ? JobLimit.findAll({ where: { jobId: { [Op.in]: open } }, order: [["sortOrder", "ASC"], ["id", "ASC"]] }) : [],
+    open.length
+      ? JobLimit.findAll({
+          where: { jobId: { [Op.in]: open } },
+          order: [
+            ["sortOrder", "ASC"],
+            ["id", "ASC"],
+          ],
+        })
+      : [],
     measuredStations(shopId, open),
     flagCounts(shopId, ids),
   ]);
   const specs = new Map<number, SpecLimit[]>(open.map((id) => [id, []]));
   for (const l of limits) specs.get(l.jobId)!.push(toSpecLimit(l));
   return jobs.map((j) => ({
-    id: j.id, code: j.code, title: j.title, status: j.status as JobStatus, unitSystem: j.unitSystem,
-    dueDate: j.dueDate ?? null, customer: j.customer?.name ?? "", engine: j.engine?.description ?? "",
-    progress: j.engine && specs.has(j.id) ? progressOf(j.engine, j.unitSystem, specs.get(j.id)!, measured.get(j.id)!) : null,
+    id: j.id,
+    code: j.code,
+    title: j.title,
+    status: j.status as JobStatus,
+    unitSystem: j.unitSystem,
+    dueDate: j.dueDate ?? null,
+    customer: j.customer?.name ?? "",
+    engine: j.engine?.description ?? "",
+    progress:
+      j.engine && specs.has(j.id) ? progressOf(j.engine, j.unitSystem, specs.get(j.id)!, measured.get(j.id)!) : null,
     flags: flags.get(j.id)!,
     updatedAt: j.updatedAt.toISOString(),
   }));

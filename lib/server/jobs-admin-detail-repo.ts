@@ -13,7 +13,15 @@ import type { JobStatus } from "./jobs-repo";
 type Counts = Record<Verdict, number>;
 const zero = (): Counts => ({ in_spec: 0, marginal: 0, out_of_spec: 0 });
 
-export type SectionSummary = { id: string; label: string; stations: number; measured: number; required: number; requiredDone: number; verdicts: Counts };
+export type SectionSummary = {
+  id: string;
+  label: string;
+  stations: number;
+  measured: number;
+  required: number;
+  requiredDone: number;
+  verdicts: Counts;
+};
 
 function sectionsOf(ctx: JobContext, readings: JobReadings, done: Set<string>): SectionSummary[] {
   const byStation = new Map(readings.current.map((r) => [r.stationId, r]));
@@ -27,7 +35,15 @@ function sectionsOf(ctx: JobContext, readings: JobReadings, done: Set<string>): 
       measured += 1;
       if (r.verdict) verdicts[r.verdict] += 1;
     }
-    return { id: s.id, label: s.label, stations: s.count, measured, required: required.length, requiredDone: required.filter((id) => done.has(id)).length, verdicts };
+    return {
+      id: s.id,
+      label: s.label,
+      stations: s.count,
+      measured,
+      required: required.length,
+      requiredDone: required.filter((id) => done.has(id)).length,
+      verdicts,
+    };
   });
 }
 
@@ -47,7 +63,12 @@ function summarise(ctx: JobContext, readings: JobReadings, done: Set<string>) {
 }
 
 async function flagCounts(shopId: number, jobId: number) {
-  const rows = (await Flag.findAll({ where: { shopId, jobId }, attributes: ["state", [fn("COUNT", col("id")), "n"]], group: ["state"], raw: true })) as unknown as { state: string; n: number | string }[];
+  const rows = (await Flag.findAll({
+    where: { shopId, jobId },
+    attributes: ["state", [fn("COUNT", col("id")), "n"]],
+    group: ["state"],
+    raw: true,
+  })) as unknown as { state: string; n: number | string }[];
   const out = { open: 0, disposed: 0, closed: 0 };
   for (const r of rows) out[r.state as keyof typeof out] = Number(r.n);
   return out;
@@ -65,19 +86,45 @@ export async function getJobDetail(shopId: number, jobId: number) {
   ]);
   return {
     job: {
-      id: job.id, code: job.code, title: job.title, status: job.status as JobStatus, unitSystem: job.unitSystem,
-      dueDate: job.dueDate ?? null, notes: job.notes ?? null, specRevision: job.specRevision,
+      id: job.id,
+      code: job.code,
+      title: job.title,
+      status: job.status as JobStatus,
+      unitSystem: job.unitSystem,
+      dueDate: job.dueDate ?? null,
+      notes: job.notes ?? null,
+      specRevision: job.specRevision,
       locked: isJobLocked(job),
-      templateId: job.templateId ?? null, templateName: template?.name ?? null, limitCount: ctx.spec.length,
-      hasBuildPlan: !!job.buildPlan, createdAt: job.createdAt.toISOString(), updatedAt: job.updatedAt.toISOString(),
+      templateId: job.templateId ?? null,
+      templateName: template?.name ?? null,
+      limitCount: ctx.spec.length,
+      hasBuildPlan: !!job.buildPlan,
+      createdAt: job.createdAt.toISOString(),
+      updatedAt: job.updatedAt.toISOString(),
     },
-    customer: { id: job.customerId, name: customer?.name ?? "", email: customer?.email ?? null, phone: customer?.phone ?? null },
+    customer: {
+      id: job.customerId,
+      name: customer?.name ?? "",
+      email: customer?.email ?? null,
+      phone: customer?.phone ?? null,
+    },
     engine: {
-      description: engine.description, cylinders: engine.cylinders, layout: engine.layout, mains: engine.mains,
-      valvesPerCylinder: engine.valvesPerCylinder, ringsPerPiston: engine.ringsPerPiston, boltsPerRod: engine.boltsPerRod,
-      nominalBore: engine.nominalBore, nominalStroke: engine.nominalStroke, blockMaterial: engine.blockMaterial,
-      headMaterial: engine.headMaterial ?? null, pistonMaterial: engine.pistonMaterial ?? null, blockSerial: engine.blockSerial ?? null,
-      crankSerial: engine.crankSerial ?? null, headSerials: engine.headSerials ?? null, fuel: engine.fuel ?? null,
+      description: engine.description,
+      cylinders: engine.cylinders,
+      layout: engine.layout,
+      mains: engine.mains,
+      valvesPerCylinder: engine.valvesPerCylinder,
+      ringsPerPiston: engine.ringsPerPiston,
+      boltsPerRod: engine.boltsPerRod,
+      nominalBore: engine.nominalBore,
+      nominalStroke: engine.nominalStroke,
+      blockMaterial: engine.blockMaterial,
+      headMaterial: engine.headMaterial ?? null,
+      pistonMaterial: engine.pistonMaterial ?? null,
+      blockSerial: engine.blockSerial ?? null,
+      crankSerial: engine.crankSerial ?? null,
+      headSerials: engine.headSerials ?? null,
+      fuel: engine.fuel ?? null,
     },
     flags,
     summary: summarise(ctx, readings, measured.get(jobId) ?? new Set()),

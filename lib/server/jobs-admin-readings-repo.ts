@@ -32,7 +32,8 @@ export async function measuredStations(shopId: number, jobIds: number[]): Promis
     attributes: ["id", "jobId", "stationId", "supersedes", "skipped", "takenAt", "receivedAt"],
   });
   const byJob = new Map<number, ReleaseReadingRow[]>();
-  for (const r of rows) (byJob.get(r.jobId) ?? byJob.set(r.jobId, []).get(r.jobId)!).push(r.get({ plain: true }) as ReleaseReadingRow);
+  for (const r of rows)
+    (byJob.get(r.jobId) ?? byJob.set(r.jobId, []).get(r.jobId)!).push(r.get({ plain: true }) as ReleaseReadingRow);
   for (const [jobId, list] of byJob) {
     for (const r of releaseCurrent(list).values()) if (!r.skipped) out.get(jobId)?.add(r.stationId);
   }
@@ -53,7 +54,11 @@ export async function loadJobReadings(shopId: number, jobId: number): Promise<Jo
   const all = await jobReadings(undefined, jobId);
   const current = currentReadings(all);
   const [instruments, users] = await Promise.all([
-    findInstruments(undefined, shopId, all.flatMap((r) => (r.instrumentId ? [r.instrumentId] : []))),
+    findInstruments(
+      undefined,
+      shopId,
+      all.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
+    ),
     listUsers(shopId),
   ]);
   const raws = current.map((r) => toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined));

@@ -36,7 +36,10 @@ export async function listJobs(shopId: number, statuses?: JobStatus[]): Promise<
       { model: Customer, as: "customer" },
       { model: Engine, as: "engine" },
     ],
-    order: [["dueDate", "ASC"], ["id", "ASC"]],
+    order: [
+      ["dueDate", "ASC"],
+      ["id", "ASC"],
+    ],
   });
   return rows.map((r) => reshape(r as Job & { customer?: Customer; engine?: Engine }));
 }

@@ -35,7 +35,10 @@ async function composeBuildRecord(row: OutboxRow): Promise<OutgoingMail> {
   const text = recordText(record, customerLinkUrl(token), expires);
   const voided = record.release?.status === "void" ? "[VOID] " : "";
   return {
-    to: row.toAddress, subject: `${voided}${row.subject}`, text, html: textToHtml(text),
+    to: row.toAddress,
+    subject: `${voided}${row.subject}`,
+    text,
+    html: textToHtml(text),
     attachments: [{ filename: fileName, content: pdf, contentType: "application/pdf" }],
   };
 }
@@ -44,7 +47,11 @@ export async function composeMail(row: OutboxRow): Promise<OutgoingMail> {
   const base = row.kind === "build_record" ? await composeBuildRecord(row) : composeWritten(row);
   return {
     ...base,
-    headers: { "X-Tenthwise-Shop": String(row.shopId), "X-Tenthwise-Kind": row.kind, "X-Tenthwise-Outbox-Id": String(row.id) },
+    headers: {
+      "X-Tenthwise-Shop": String(row.shopId),
+      "X-Tenthwise-Kind": row.kind,
+      "X-Tenthwise-Outbox-Id": String(row.id),
+    },
   };
 }
 

@@ -9,8 +9,13 @@ import { AppError, notFound } from "./errors";
 // X-Tenthwise-Shop header) are shown, so one shop's admin never reads another shop's mail.
 export type MailAttachmentInfo = { index: number; filename: string; contentType: string; size: number };
 export type MailFile = {
-  file: string; to: string; subject: string; date: string | null; kind: string | null;
-  attachments: MailAttachmentInfo[]; text: string;
+  file: string;
+  to: string;
+  subject: string;
+  date: string | null;
+  kind: string | null;
+  attachments: MailAttachmentInfo[];
+  text: string;
 };
 
 const FILE_NAME = /^[A-Za-z0-9._-]+\.eml$/;
@@ -34,10 +39,19 @@ const header = (m: Parsed, name: string) => {
 };
 
 function toFile(file: string, m: Parsed): MailFile {
-  const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(", ") : m.to?.text ?? "";
+  const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(", ") : (m.to?.text ?? "");
   return {
-    file, to, subject: m.subject ?? "(no subject)", date: m.date ? m.date.toISOString() : null, kind: header(m, "x-tenthwise-kind"),
-    attachments: m.attachments.map((a, index) => ({ index, filename: a.filename ?? `attachment-${index + 1}`, contentType: a.contentType, size: a.size })),
+    file,
+    to,
+    subject: m.subject ?? "(no subject)",
+    date: m.date ? m.date.toISOString() : null,
+    kind: header(m, "x-tenthwise-kind"),
+    attachments: m.attachments.map((a, index) => ({
+      index,
+      filename: a.filename ?? `attachment-${index + 1}`,
+      contentType: a.contentType,
+      size: a.size,
+    })),
     text: m.text ?? "",
   };
 }
@@ -46,7 +60,11 @@ function toFile(file: string, m: Parsed): MailFile {
 export async function listMailFiles(shopId: number, limit = 50): Promise<MailFile[] | null> {
   const dir = mailDir();
   if (!dir) return null;
-  const names = (await readdir(dir).catch(() => [] as string[])).filter((n) => FILE_NAME.test(n)).sort().reverse().slice(0, SCAN_LIMIT);
+  const names = (await readdir(dir).catch(() => [] as string[]))
+    .filter((n) => FILE_NAME.test(n))
+    .sort()
+    .reverse()
+    .slice(0, SCAN_LIMIT);
   const out: MailFile[] = [];
   for (const name of names) {
     if (out.length >= limit) break;
@@ -57,7 +75,11 @@ export async function listMailFiles(shopId: number, limit = 50): Promise<MailFil
 }
 
 /** One attachment of one of the shop's messages; 404 for a file of another shop or none at all. */
-export async function mailAttachment(shopId: number, file: string, index: number): Promise<{ filename: string; contentType: string; content: Buffer }> {
+export async function mailAttachment(
+  shopId: number,
+  file: string,
+  index: number,
+): Promise<{ filename: string; contentType: string; content: Buffer }> {
   const dir = mailDir();
   if (!dir) throw new AppError("not_found", "The local mailbox is off: MAIL_DIR is not set");
   if (!FILE_NAME.test(file)) throw notFound("Message");

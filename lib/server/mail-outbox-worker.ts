@@ -19,7 +19,13 @@ export function retryDelaySeconds(attempts: number, base = env().MAIL_RETRY_BASE
 const describe = (err: unknown) => (err instanceof Error ? err.message : String(err)) || "Unknown error";
 
 /** `only` restricts a run to these outbox ids (an admin's "send this one now", and tests). */
-type DeliverOptions = { now?: Date; limit?: number; budgetMs?: number; only?: number[]; send?: (m: OutgoingMail) => Promise<unknown> };
+type DeliverOptions = {
+  now?: Date;
+  limit?: number;
+  budgetMs?: number;
+  only?: number[];
+  send?: (m: OutgoingMail) => Promise<unknown>;
+};
 
 /**
  * Sends due messages one claim at a time, up to `limit` or until `budgetMs` has passed (a build

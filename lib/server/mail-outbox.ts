@@ -10,18 +10,45 @@ import { env } from "./env";
 // A dedupe key makes an event queue its message once, however many app instances notice it.
 export type MailKind = "build_record" | "flag_digest" | "ready_for_release";
 
-export type NewMail = { shopId: number; kind: MailKind; to: string; subject: string; payload: JsonObject; dedupeKey?: string };
+export type NewMail = {
+  shopId: number;
+  kind: MailKind;
+  to: string;
+  subject: string;
+  payload: JsonObject;
+  dedupeKey?: string;
+};
 
 export type OutboxRow = {
-  id: number; shopId: number; kind: MailKind; toAddress: string; subject: string; payload: JsonObject; dedupeKey: string | null;
-  attempts: number; lastError: string | null; nextAttemptAt: Date; sentAt: Date | null; createdAt: Date;
+  id: number;
+  shopId: number;
+  kind: MailKind;
+  toAddress: string;
+  subject: string;
+  payload: JsonObject;
+  dedupeKey: string | null;
+  attempts: number;
+  lastError: string | null;
+  nextAttemptAt: Date;
+  sentAt: Date | null;
+  createdAt: Date;
 };
 
 function reshape(m: MailOutbox): OutboxRow {
   const payload = typeof m.payload === "string" ? (JSON.parse(m.payload) as JsonObject) : m.payload;
   return {
-    id: m.id, shopId: m.shopId, kind: m.kind as MailKind, toAddress: m.toAddress, subject: m.subject, payload, dedupeKey: m.dedupeKey ?? null,
-    attempts: m.attempts, lastError: m.lastError ?? null, nextAttemptAt: m.nextAttemptAt, sentAt: m.sentAt ?? null, createdAt: m.createdAt,
+    id: m.id,
+    shopId: m.shopId,
+    kind: m.kind as MailKind,
+    toAddress: m.toAddress,
+    subject: m.subject,
+    payload,
+    dedupeKey: m.dedupeKey ?? null,
+    attempts: m.attempts,
+    lastError: m.lastError ?? null,
+    nextAttemptAt: m.nextAttemptAt,
+    sentAt: m.sentAt ?? null,
+    createdAt: m.createdAt,
   };
 }
 
@@ -30,7 +57,15 @@ export async function enqueueMail(t: Transaction | null, m: NewMail): Promise<bo
   getSequelize();
   try {
     await MailOutbox.create(
-      { shopId: m.shopId, kind: m.kind, toAddress: m.to, subject: m.subject.slice(0, 255), payload: m.payload, dedupeKey: m.dedupeKey ?? null, nextAttemptAt: new Date() },
+      {
+        shopId: m.shopId,
+        kind: m.kind,
+        toAddress: m.to,
+        subject: m.subject.slice(0, 255),
+        payload: m.payload,
+        dedupeKey: m.dedupeKey ?? null,
+        nextAttemptAt: new Date(),
+      },
       { transaction: t ?? undefined },
     );
     return true;
@@ -47,23 +82,39 @@ export const releaseMailKey = (releaseId: number) => `build_record:release:${rel
  * and the link are made when it is sent). Returns false when the customer has no e-mail address
  * or the release was already queued. The notifier queues any release this was not called for.
  */
-export async function enqueueReleaseMail(t: Transaction | null, o: { shopId: number; jobId: number; releaseId: number }): Promise<boolean> {
+export async function enqueueReleaseMail(
+  t: Transaction | null,
+  o: { shopId: number; jobId: number; releaseId: number },
+): Promise<boolean> {
   return queueRecord(t, o, releaseMailKey(o.releaseId));
 }
 
 /** The shop sends the record again (a customer asked for a new link): a new message each time. */
-export async function enqueueRecordResend(t: Transaction | null, o: { shopId: number; jobId: number; releaseId: number }): Promise<boolean> {
+export async function enqueueRecordResend(
+  t: Transaction | null,
+  o: { shopId: number; jobId: number; releaseId: number },
+): Promise<boolean> {
   return queueRecord(t, o, `${releaseMailKey(o.releaseId)}:again:${randomUUID()}`);
 }
 
-async function queueRecord(t: Transaction | null, o: { shopId: number; jobId: number; releaseId: number }, dedupeKey: string): Promise<boolean> {
+async function queueRecord(
+  t: Transaction | null,
+  o: { shopId: number; jobId: number; releaseId: number },
+  dedupeKey: string,
+): Promise<boolean> {
   getSequelize();
   const job = await Job.findOne({ where: { id: o.jobId, shopId: o.shopId }, transaction: t ?? undefined });
-  const customer = job ? await Customer.findOne({ where: { id: job.customerId, shopId: o.shopId }, transaction: t ?? undefined }) : null;
+  const customer = job
+    ? await Customer.findOne({ where: { id: job.customerId, shopId: o.shopId }, transaction: t ?? undefined })
+    : null;
   if (!job || !customer?.email) return false;
   return enqueueMail(t, {
-    shopId: o.shopId, kind: "build_record", to: customer.email, dedupeKey,
-    subject: `Build record ${job.code}: ${job.title}`, payload: { jobId: o.jobId, releaseId: o.releaseId },
+    shopId: o.shopId,
+    kind: "build_record",
+    to: customer.email,
+    dedupeKey,
+    subject: `Build record ${job.code}: ${job.title}`,
+    payload: { jobId: o.jobId, releaseId: o.releaseId },
   });
 }
 
@@ -80,13 +131,25 @@ export async function queuedWithPrefix(prefix: string): Promise<boolean> {
 export async function claimDue(now: Date, limit: number, only?: number[], leaseSeconds = 300): Promise<OutboxRow[]> {
   getSequelize();
   const due = await MailOutbox.findAll({
-    where: { sentAt: null, nextAttemptAt: { [Op.lte]: now }, attempts: { [Op.lt]: env().MAIL_MAX_ATTEMPTS }, ...(only ? { id: only } : {}) },
-    order: [["nextAttemptAt", "ASC"], ["id", "ASC"]], limit,
+    where: {
+      sentAt: null,
+      nextAttemptAt: { [Op.lte]: now },
+      attempts: { [Op.lt]: env().MAIL_MAX_ATTEMPTS },
+      ...(only ? { id: only } : {}),
+    },
+    order: [
+      ["nextAttemptAt", "ASC"],
+      ["id", "ASC"],
+    ],
+    limit,
   });
   const lease = new Date(now.getTime() + leaseSeconds * 1000);
   const claimed: OutboxRow[] = [];
   for (const m of due) {
-    const [n] = await MailOutbox.update({ nextAttemptAt: lease }, { where: { id: m.id, sentAt: null, nextAttemptAt: { [Op.lte]: now } } });
+    const [n] = await MailOutbox.update(
+      { nextAttemptAt: lease },
+      { where: { id: m.id, sentAt: null, nextAttemptAt: { [Op.lte]: now } } },
+    );
     if (n === 1) claimed.push(reshape(m));
   }
   return claimed;
@@ -116,6 +179,9 @@ export async function findOutboxRow(id: number): Promise<OutboxRow | null> {
 /** An admin's "try again now": the attempt count starts over; the last error stays until it sends. */
 export async function retryNow(shopId: number, id: number): Promise<OutboxRow | null> {
   getSequelize();
-  const [n] = await MailOutbox.update({ attempts: 0, nextAttemptAt: new Date() }, { where: { id, shopId, sentAt: null } });
+  const [n] = await MailOutbox.update(
+    { attempts: 0, nextAttemptAt: new Date() },
+    { where: { id, shopId, sentAt: null } },
+  );
   return n ? findOutboxRow(id) : null;
 }

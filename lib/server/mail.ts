@@ -52,7 +52,10 @@ const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ESCAPES[c]);
 /** A plain HTML twin of a text body: paragraphs, and links made clickable. */
 export function textToHtml(text: string): string {
   const paragraphs = text.split(/\n{2,}/).map((p) => {
-    const lines = escapeHtml(p).replace(/(https?:\/\/[^\s<]+)/g, '<a href="$1">$1</a>').split("\n").join("<br>");
+    const lines = escapeHtml(p)
+      .replace(/(https?:\/\/[^\s<]+)/g, '<a href="$1">$1</a>')
+      .split("\n")
+      .join("<br>");
     return `<p>${lines}</p>`;
   });
   return `<div style="font-family:Helvetica,Arial,sans-serif;font-size:15px;line-height:1.45;color:#141b26">${paragraphs.join("\n")}</div>`;

@@ -1,8 +1,25 @@
 import "server-only";
 import {
-  AXES, BORE_DEPTHS, JOURNAL_POSITIONS, cleanDecimal, convertLength, deckBanks, deriveReadings, evaluateReading, lengthUnitOf,
-  limitsFor, parseStationId, rodJournalCount, type DerivedValue, type EngineShape, type LengthUnit, type LimitContext,
-  type NominalSizes, type RawReading, type SpecLimit, type Verdict,
+  AXES,
+  BORE_DEPTHS,
+  JOURNAL_POSITIONS,
+  cleanDecimal,
+  convertLength,
+  deckBanks,
+  deriveReadings,
+  evaluateReading,
+  lengthUnitOf,
+  limitsFor,
+  parseStationId,
+  rodJournalCount,
+  type DerivedValue,
+  type EngineShape,
+  type LengthUnit,
+  type LimitContext,
+  type NominalSizes,
+  type RawReading,
+  type SpecLimit,
+  type Verdict,
 } from "@/lib/domain";
 import { toRaw } from "./ingest-evaluate";
 import { loadJobContext } from "./job-context";
@@ -34,13 +51,15 @@ const SIZE: Record<string, keyof NominalSizes> = { bore: "bore", main: "mainJour
 function limitOnly(stationId: string, shape: EngineShape, spec: SpecLimit[], unit: LengthUnit) {
   const p = parseStationId(stationId);
   const size = shape.nominalSizes?.[SIZE[p.section] ?? "bore"];
-  const context: LimitContext = size && SIZE[p.section] ? { nominal: { value: size, unit }, diameter: { value: size, unit } } : {};
+  const context: LimitContext =
+    size && SIZE[p.section] ? { nominal: { value: size, unit }, diameter: { value: size, unit } } : {};
   return p.characteristic ? limitsFor(spec, p.characteristic, stationId, context).limits : undefined;
 }
 
 function judgeWith(raws: Map<string, RawReading>, shape: EngineShape, spec: SpecLimit[], unit: LengthUnit): Judge {
   const all = [...raws.values()];
-  const inUnit = (x: number | undefined, from: string) => (x === undefined ? null : from === unit ? x : cleanDecimal(convertLength(x, from as LengthUnit, unit)));
+  const inUnit = (x: number | undefined, from: string) =>
+    x === undefined ? null : from === unit ? x : cleanDecimal(convertLength(x, from as LengthUnit, unit));
   return (stationId) => {
     const raw = raws.get(stationId);
     if (!raw) {
@@ -50,7 +69,12 @@ function judgeWith(raws: Map<string, RawReading>, shape: EngineShape, spec: Spec
     try {
       const e = evaluateReading(raw, shape, spec, all);
       const from = e.limits?.unit ?? e.unit;
-      return { value: inUnit(e.value, from), min: inUnit(e.limits?.min, from), max: inUnit(e.limits?.max, from), verdict: e.verdict ?? null };
+      return {
+        value: inUnit(e.value, from),
+        min: inUnit(e.limits?.min, from),
+        max: inUnit(e.limits?.max, from),
+        verdict: e.verdict ?? null,
+      };
     } catch {
       return { value: null, min: null, max: null, verdict: null }; // not a figure the core can use: a gap on the map
     }
@@ -60,17 +84,35 @@ function judgeWith(raws: Map<string, RawReading>, shape: EngineShape, spec: Spec
 function figureOf(d: DerivedValue | undefined, unit: LengthUnit): Figure {
   if (!d) return { value: null, max: null, verdict: null, missing: 0 };
   const from = d.limits?.unit ?? d.unit;
-  const conv = (x: number | undefined) => (x === undefined ? null : from === unit ? x : cleanDecimal(convertLength(x, from as LengthUnit, unit)));
+  const conv = (x: number | undefined) =>
+    x === undefined ? null : from === unit ? x : cleanDecimal(convertLength(x, from as LengthUnit, unit));
   return { value: conv(d.value), max: conv(d.limits?.max), verdict: d.verdict ?? null, missing: d.missing.length };
 }
 
-function profiles(prefix: "bore" | "main" | "rod", count: number, at: readonly string[], judge: Judge, derived: Map<string, DerivedValue>, unit: LengthUnit): Profile[] {
-  const names = { bore: ["bore_taper", "bore_out_of_round", "Cylinder"], main: ["main_journal_taper", "main_journal_out_of_round", "Main journal"], rod: ["rod_journal_taper", "rod_journal_out_of_round", "Rod journal"] }[prefix];
+function profiles(
+  prefix: "bore" | "main" | "rod",
+  count: number,
+  at: readonly string[],
+  judge: Judge,
+  derived: Map<string, DerivedValue>,
+  unit: LengthUnit,
+): Profile[] {
+  const names = {
+    bore: ["bore_taper", "bore_out_of_round", "Cylinder"],
+    main: ["main_journal_taper", "main_journal_out_of_round", "Main journal"],
+    rod: ["rod_journal_taper", "rod_journal_out_of_round", "Rod journal"],
+  }[prefix];
   return Array.from({ length: count }, (_, i) => {
     const n = i + 1;
-    const rows = at.map((spot) => ({ at: spot, A: judge(`${prefix}/${n}/${spot}/${AXES[0]}`), B: judge(`${prefix}/${n}/${spot}/${AXES[1]}`) }));
+    const rows = at.map((spot) => ({
+      at: spot,
+      A: judge(`${prefix}/${n}/${spot}/${AXES[0]}`),
+      B: judge(`${prefix}/${n}/${spot}/${AXES[1]}`),
+    }));
     return {
-      n, label: `${names[2]} ${n}`, rows,
+      n,
+      label: `${names[2]} ${n}`,
+      rows,
       taper: figureOf(derived.get(`${names[0]}@${prefix}/${n}`), unit),
       outOfRound: figureOf(derived.get(`${names[1]}@${prefix}/${n}`), unit),
     };
@@ -81,8 +123,14 @@ export async function jobMaps(shopId: number, jobId: number): Promise<JobMaps> {
   const ctx = await loadJobContext(shopId, jobId);
   const all = await jobReadings(undefined, jobId);
   const current = currentReadings(all);
-  const instruments = await findInstruments(undefined, shopId, current.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])));
-  const raws = new Map(current.map((r) => [r.stationId, toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined)]));
+  const instruments = await findInstruments(
+    undefined,
+    shopId,
+    current.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
+  );
+  const raws = new Map(
+    current.map((r) => [r.stationId, toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined)]),
+  );
   const unit = lengthUnitOf(ctx.shape);
   let derived: DerivedValue[] = [];
   try {
@@ -99,6 +147,8 @@ export async function jobMaps(shopId: number, jobId: number): Promise<JobMaps> {
     bores: profiles("bore", ctx.shape.cylinders, BORE_DEPTHS, judge, byKey, unit),
     mains: profiles("main", ctx.shape.mains, JOURNAL_POSITIONS, judge, byKey, unit),
     rods: profiles("rod", rodJournalCount(ctx.shape), JOURNAL_POSITIONS, judge, byKey, unit),
-    deck: deckBanks(ctx.shape.layout).flatMap((bank) => (["front", "rear"] as const).map((corner) => ({ bank, corner, point: judge(`deck/${bank}/${corner}`) }))),
+    deck: deckBanks(ctx.shape.layout).flatMap((bank) =>
+      (["front", "rear"] as const).map((corner) => ({ bank, corner, point: judge(`deck/${bank}/${corner}`) })),
+    ),
   };
 }

@@ -7,18 +7,32 @@ import { limitsText, plural, VERDICT_WORDS, when, withUnit } from "./record/reco
 
 // The words of the flag digest (to leads) and the "ready for release" note (to inspectors).
 const MAX_LISTED = 40;
-const REASON = { out_of_spec: "outside its limits", marginal: "within the gauge's uncertainty of a limit", gauge_past_due: "gauge past calibration due" } as Record<string, string>;
-const STATE = { open: "waiting for a decision", disposed: "decided since", closed: "closed since by a newer in-spec reading" } as Record<string, string>;
+const REASON = {
+  out_of_spec: "outside its limits",
+  marginal: "within the gauge's uncertainty of a limit",
+  gauge_past_due: "gauge past calibration due",
+} as Record<string, string>;
+const STATE = {
+  open: "waiting for a decision",
+  disposed: "decided since",
+  closed: "closed since by a newer in-spec reading",
+} as Record<string, string>;
 
 const appUrl = (path: string) => `${env().APP_URL.replace(/\/$/, "")}${path}`;
 
 function flagLine(f: DigestFlag): string {
   const verdict = (VERDICT_WORDS as Record<string, string>)[f.verdict] ?? f.verdict;
-  return `- ${f.jobCode} · ${stationWords(f.stationId)}: ${characteristicWords(f.characteristic).toLowerCase()} ${withUnit(f.value, f.unit)} ` +
-    `(limits ${limitsText(f.limitMin, f.limitMax, f.unit)}), ${verdict.toUpperCase()}, ${REASON[f.reason] ?? f.reason}; ${STATE[f.state] ?? f.state}.`;
+  return (
+    `- ${f.jobCode} · ${stationWords(f.stationId)}: ${characteristicWords(f.characteristic).toLowerCase()} ${withUnit(f.value, f.unit)} ` +
+    `(limits ${limitsText(f.limitMin, f.limitMax, f.unit)}), ${verdict.toUpperCase()}, ${REASON[f.reason] ?? f.reason}; ${STATE[f.state] ?? f.state}.`
+  );
 }
 
-export function digestMessage(shop: string, flags: DigestFlag[], since: Date | null): { subject: string; text: string } {
+export function digestMessage(
+  shop: string,
+  flags: DigestFlag[],
+  since: Date | null,
+): { subject: string; text: string } {
   const jobs = [...new Set(flags.map((f) => f.jobCode))];
   const listed = flags.slice(0, MAX_LISTED).map(flagLine);
   if (flags.length > MAX_LISTED) listed.push(`- and ${flags.length - MAX_LISTED} more on the flag queue.`);
@@ -27,7 +41,10 @@ export function digestMessage(shop: string, flags: DigestFlag[], since: Date | n
     listed.join("\n"),
     `Decide each one (measure again, machine again, or accept with a reason) on the flag queue:\n${appUrl("/desk/flags")}`,
   ].join("\n\n");
-  return { subject: `${plural(flags.length, "new flag")} to review: ${jobs.slice(0, 4).join(", ")}${jobs.length > 4 ? ", …" : ""}`, text };
+  return {
+    subject: `${plural(flags.length, "new flag")} to review: ${jobs.slice(0, 4).join(", ")}${jobs.length > 4 ? ", …" : ""}`,
+    text,
+  };
 }
 
 export function readyMessage(job: OpenJob, checklist: ReleaseChecklist): { subject: string; text: string } {

@@ -44,36 +44,78 @@ export async function lastDigest(shopId: number): Promise<{ maxFlagId: number; a
 }
 
 export type DigestFlag = {
-  id: number; jobCode: string; stationId: string; characteristic: string; value: number; unit: string;
-  limitMin: number | null; limitMax: number | null; verdict: string; reason: string; state: string;
+  id: number;
+  jobCode: string;
+  stationId: string;
+  characteristic: string;
+  value: number;
+  unit: string;
+  limitMin: number | null;
+  limitMax: number | null;
+  verdict: string;
+  reason: string;
+  state: string;
 };
 
-export async function flagsAfter(shopId: number, after: { id?: number; since?: Date }, limit = 200): Promise<DigestFlag[]> {
+export async function flagsAfter(
+  shopId: number,
+  after: { id?: number; since?: Date },
+  limit = 200,
+): Promise<DigestFlag[]> {
   getSequelize();
-  const where = after.id !== undefined ? { shopId, id: { [Op.gt]: after.id } } : { shopId, createdAt: { [Op.gte]: after.since! } };
+  const where =
+    after.id !== undefined ? { shopId, id: { [Op.gt]: after.id } } : { shopId, createdAt: { [Op.gte]: after.since! } };
   const flags = await Flag.findAll({ where, order: [["id", "ASC"]], limit });
-  const jobs = await Job.findAll({ where: { id: [...new Set(flags.map((f) => f.jobId))], shopId }, attributes: ["id", "code"] });
+  const jobs = await Job.findAll({
+    where: { id: [...new Set(flags.map((f) => f.jobId))], shopId },
+    attributes: ["id", "code"],
+  });
   const code = new Map(jobs.map((j) => [j.id, j.code]));
   return flags.map((f) => ({
-    id: f.id, jobCode: code.get(f.jobId) ?? "", stationId: f.stationId, characteristic: f.characteristic, value: f.value, unit: f.unit,
-    limitMin: f.limitMin ?? null, limitMax: f.limitMax ?? null, verdict: f.verdict, reason: f.reason, state: f.state,
+    id: f.id,
+    jobCode: code.get(f.jobId) ?? "",
+    stationId: f.stationId,
+    characteristic: f.characteristic,
+    value: f.value,
+    unit: f.unit,
+    limitMin: f.limitMin ?? null,
+    limitMax: f.limitMax ?? null,
+    verdict: f.verdict,
+    reason: f.reason,
+    state: f.state,
   }));
 }
 
 export type OpenJob = { id: number; shopId: number; code: string; title: string; specRevision: number };
 
 const OPEN = "j.status IN ('intake', 'measuring', 'review') AND j.locked_at IS NULL";
-const toOpenJob = (j: { id: number; shop_id: number; code: string; title: string; spec_revision: number }): OpenJob =>
-  ({ id: Number(j.id), shopId: Number(j.shop_id), code: j.code, title: j.title, specRevision: Number(j.spec_revision) });
+const toOpenJob = (j: {
+  id: number;
+  shop_id: number;
+  code: string;
+  title: string;
+  spec_revision: number;
+}): OpenJob => ({
+  id: Number(j.id),
+  shopId: Number(j.shop_id),
+  code: j.code,
+  title: j.title,
+  specRevision: Number(j.spec_revision),
+});
 
 /**
  * Open jobs (not released, closed or locked) touched since the cursor: a change in the sync feed
  * (readings, flags, limits) after `syncId`, or an edit of the job row (plan, status) since `at`.
  * With no cursor yet, feed changes since `at` count. Also returns the feed's newest id.
  */
-export async function changedOpenJobs(since: { syncId: number | null; at: Date }): Promise<{ jobs: OpenJob[]; syncId: number }> {
+export async function changedOpenJobs(since: {
+  syncId: number | null;
+  at: Date;
+}): Promise<{ jobs: OpenJob[]; syncId: number }> {
   const sequelize = getSequelize();
-  const [top] = await sequelize.query<{ m: number | null }>("SELECT MAX(id) AS m FROM sync_changes", { type: QueryTypes.SELECT });
+  const [top] = await sequelize.query<{ m: number | null }>("SELECT MAX(id) AS m FROM sync_changes", {
+    type: QueryTypes.SELECT,
+  });
   const feed = since.syncId === null ? "created_at >= :at" : "id > :syncId";
   const rows = await sequelize.query<Parameters<typeof toOpenJob>[0]>(
     `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j
@@ -86,10 +128,11 @@ export async function changedOpenJobs(since: { syncId: number | null; at: Date }
 
 /** The next `limit` open jobs after `afterId`, wrapping round to the lowest id. */
 export async function openJobsAfter(afterId: number, limit: number): Promise<OpenJob[]> {
-  const page = (where: string) => getSequelize().query<Parameters<typeof toOpenJob>[0]>(
-    `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j WHERE ${OPEN} ${where} ORDER BY j.id LIMIT ${Number(limit)}`,
-    { replacements: [afterId], type: QueryTypes.SELECT },
-  );
+  const page = (where: string) =>
+    getSequelize().query<Parameters<typeof toOpenJob>[0]>(
+      `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j WHERE ${OPEN} ${where} ORDER BY j.id LIMIT ${Number(limit)}`,
+      { replacements: [afterId], type: QueryTypes.SELECT },
+    );
   const rows = await page("AND j.id > ?");
   if (rows.length < limit && afterId > 0) rows.push(...(await page("AND j.id <= ?")).slice(0, limit - rows.length));
   return rows.map(toOpenJob);

@@ -5,7 +5,15 @@ import { enqueueMail, enqueueReleaseMail, queuedWithPrefix } from "./mail-outbox
 import { deliverPendingMail, type DeliveryReport } from "./mail-outbox-worker";
 import { digestMessage, readyMessage } from "./notifier-messages";
 import {
-  changedOpenJobs, flagsAfter, lastDigest, openJobsAfter, recipients, releaseCount, releasesWithoutMail, shopName, shopsWithFlagsSince,
+  changedOpenJobs,
+  flagsAfter,
+  lastDigest,
+  openJobsAfter,
+  recipients,
+  releaseCount,
+  releasesWithoutMail,
+  shopName,
+  shopsWithFlagsSince,
   type OpenJob,
 } from "./notifier-repo";
 import { releaseChecklist } from "./release-checklist";
@@ -26,12 +34,23 @@ const CHECK_BUDGET_MS = 10_000;
 type PassState = { syncId: number | null; lastPassAt: Date | null; robin: number; backlog: OpenJob[] };
 const memory = globalThis as unknown as { __tenthwiseNotifierState?: PassState };
 
-export type NotifierReport = { releaseMails: number; digests: number; ready: number; delivered: DeliveryReport; errors: string[] };
+export type NotifierReport = {
+  releaseMails: number;
+  digests: number;
+  ready: number;
+  delivered: DeliveryReport;
+  errors: string[];
+};
 
 async function catchUpReleases(now: Date): Promise<number> {
   let n = 0;
   for (const r of await releasesWithoutMail(new Date(now.getTime() - 14 * DAY))) {
-    if (await getSequelize().transaction((t) => enqueueReleaseMail(t, { shopId: r.shopId, jobId: r.jobId, releaseId: r.id }))) n += 1;
+    if (
+      await getSequelize().transaction((t) =>
+        enqueueReleaseMail(t, { shopId: r.shopId, jobId: r.jobId, releaseId: r.id }),
+      )
+    )
+      n += 1;
   }
   return n;
 }
@@ -46,7 +65,17 @@ async function digestFor(shopId: number, now: Date): Promise<number> {
   let n = 0;
   for (const lead of leads) {
     const payload = { text, maxFlagId, flagIds: flags.map((f) => f.id) };
-    if (await enqueueMail(null, { shopId, kind: "flag_digest", to: lead.email, subject, payload, dedupeKey: `flag_digest:${shopId}:${maxFlagId}:${lead.id}` })) n += 1;
+    if (
+      await enqueueMail(null, {
+        shopId,
+        kind: "flag_digest",
+        to: lead.email,
+        subject,
+        payload,
+        dedupeKey: `flag_digest:${shopId}:${maxFlagId}:${lead.id}`,
+      })
+    )
+      n += 1;
   }
   return n;
 }
@@ -59,7 +88,17 @@ async function readyFor(job: OpenJob): Promise<number> {
   const { subject, text } = readyMessage(job, checklist);
   let n = 0;
   for (const inspector of await recipients(job.shopId, "inspector")) {
-    if (await enqueueMail(null, { shopId: job.shopId, kind: "ready_for_release", to: inspector.email, subject, payload: { text, jobId: job.id }, dedupeKey: `${round}${inspector.id}` })) n += 1;
+    if (
+      await enqueueMail(null, {
+        shopId: job.shopId,
+        kind: "ready_for_release",
+        to: inspector.email,
+        subject,
+        payload: { text, jobId: job.id },
+        dedupeKey: `${round}${inspector.id}`,
+      })
+    )
+      n += 1;
   }
   return n;
 }
@@ -78,12 +117,16 @@ async function jobsToCheck(startedAt: Date): Promise<OpenJob[]> {
   return [...byId.values()];
 }
 
-async function readyPass(now: Date, step: <T>(what: string, fn: () => Promise<T>, fallback: T) => Promise<T>): Promise<number> {
+async function readyPass(
+  now: Date,
+  step: <T>(what: string, fn: () => Promise<T>, fallback: T) => Promise<T>,
+): Promise<number> {
   const queue = await step("ready for release", () => jobsToCheck(now), [] as OpenJob[]);
   const until = Date.now() + CHECK_BUDGET_MS;
   let ready = 0;
   let i = 0;
-  for (; i < queue.length && Date.now() < until; i++) ready += await step(`ready for release ${queue[i].code}`, () => readyFor(queue[i]), 0);
+  for (; i < queue.length && Date.now() < until; i++)
+    ready += await step(`ready for release ${queue[i].code}`, () => readyFor(queue[i]), 0);
   passState().backlog = queue.slice(i, i + 2000);
   return ready;
 }
@@ -102,12 +145,19 @@ export async function runNotifierOnce(opts: { now?: Date } = {}): Promise<Notifi
   };
   const releaseMails = await step("release mail", () => catchUpReleases(now), 0);
   let digests = 0;
-  for (const shopId of await step("flag digest", () => shopsWithFlagsSince(new Date(now.getTime() - 7 * DAY)), [] as number[])) {
+  for (const shopId of await step(
+    "flag digest",
+    () => shopsWithFlagsSince(new Date(now.getTime() - 7 * DAY)),
+    [] as number[],
+  )) {
     digests += await step(`flag digest for shop ${shopId}`, () => digestFor(shopId, now), 0);
   }
   const ready = await readyPass(now, step);
   // Delivery's clock is read after queuing, so what this run queued is already due.
-  const delivered = await step("delivery", () => deliverPendingMail({ now: opts.now ?? new Date() }), { sent: [], failed: [] });
+  const delivered = await step("delivery", () => deliverPendingMail({ now: opts.now ?? new Date() }), {
+    sent: [],
+    failed: [],
+  });
   return { releaseMails, digests, ready, delivered, errors };
 }
 

@@ -41,7 +41,17 @@ const COLUMNS = `id, shop_id AS shopId, job_id AS jobId, station_id AS stationId
   part_temp_c AS partTempC, gauge_temp_c AS gaugeTempC, lubricant, skipped, skip_reason AS skipReason, note,
   taken_by AS takenBy, taken_at AS takenAt, received_at AS receivedAt, device_id AS deviceId, supersedes,
   verdict, verdict_note AS verdictNote, limit_min AS limitMin, limit_max AS limitMax, deviation`;
-const DECIMALS = ["valueCanonical", "value", "dialSetting", "dialDeviation", "partTempC", "gaugeTempC", "limitMin", "limitMax", "deviation"] as const;
+const DECIMALS = [
+  "valueCanonical",
+  "value",
+  "dialSetting",
+  "dialDeviation",
+  "partTempC",
+  "gaugeTempC",
+  "limitMin",
+  "limitMax",
+  "deviation",
+] as const;
 const ORDER = "ORDER BY taken_at, received_at, id";
 
 function fromRow(row: Record<string, unknown>): StoredReading {
@@ -58,7 +68,12 @@ function fromRow(row: Record<string, unknown>): StoredReading {
 }
 
 /** Inside a transaction on its own driver connection (the sync hot path), else through Sequelize. */
-async function selectReadings(where: string, replacements: unknown[], t?: Transaction, lock = ""): Promise<StoredReading[]> {
+async function selectReadings(
+  where: string,
+  replacements: unknown[],
+  t?: Transaction,
+  lock = "",
+): Promise<StoredReading[]> {
   const sql = `SELECT ${COLUMNS} FROM readings WHERE ${where} ${ORDER}${lock}`;
   const rows = t
     ? await sqlRows(t, sql, replacements)
@@ -81,9 +96,11 @@ export async function lockJobs(t: Transaction, shopId: number, jobIds: number[])
  */
 export async function lockJobRevisions(t: Transaction, shopId: number, jobIds: number[]): Promise<Map<number, string>> {
   if (jobIds.length === 0) return new Map();
-  const rows = await sqlRows<{ id: number; revision: string }>(t,
+  const rows = await sqlRows<{ id: number; revision: string }>(
+    t,
     "SELECT id, CAST(context_revision AS CHAR) AS revision FROM jobs WHERE shop_id = ? AND id IN (?) ORDER BY id FOR UPDATE",
-    [shopId, [...new Set(jobIds)].sort((a, b) => a - b)]);
+    [shopId, [...new Set(jobIds)].sort((a, b) => a - b)],
+  );
   return new Map(rows.map((r) => [Number(r.id), String(r.revision)]));
 }
 
@@ -107,15 +124,30 @@ export async function jobReadings(t: Transaction | undefined, jobId: number, loc
 const GAUGE_COLUMNS = `g.id AS gId, g.shop_id AS gShopId, g.kind AS gKind, g.label AS gLabel, g.serial AS gSerial,
   g.unit AS gUnit, g.resolution AS gResolution, g.expanded_u AS gExpandedU, g.coverage_k AS gCoverageK,
   g.calibration_due AS gCalibrationDue, g.dial_plus_means_smaller AS gDial, g.active AS gActive`;
-const READING_COLUMNS = COLUMNS.split(",").map((c) => `r.${c.trim()}`).join(", ");
+const READING_COLUMNS = COLUMNS.split(",")
+  .map((c) => `r.${c.trim()}`)
+  .join(", ");
 
 function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
   const due = row.gCalibrationDue;
   return {
-    id: Number(row.gId), shopId: Number(row.gShopId), kind: String(row.gKind), label: String(row.gLabel), serial: String(row.gSerial),
-    unit: String(row.gUnit), resolution: Number(row.gResolution), expandedU: Number(row.gExpandedU), coverageK: Number(row.gCoverageK ?? 2),
-    calibrationDue: due === null || due === undefined ? null : due instanceof Date ? due.toISOString().slice(0, 10) : String(due).slice(0, 10),
-    dialPlusMeansSmaller: !!row.gDial, active: !!row.gActive,
+    id: Number(row.gId),
+    shopId: Number(row.gShopId),
+    kind: String(row.gKind),
+    label: String(row.gLabel),
+    serial: String(row.gSerial),
+    unit: String(row.gUnit),
+    resolution: Number(row.gResolution),
+    expandedU: Number(row.gExpandedU),
+    coverageK: Number(row.gCoverageK ?? 2),
+    calibrationDue:
+      due === null || due === undefined
+        ? null
+        : due instanceof Date
+          ? due.toISOString().slice(0, 10)
+          : String(due).slice(0, 10),
+    dialPlusMeansSmaller: !!row.gDial,
+    active: !!row.gActive,
   };
 }
 
@@ -124,14 +156,24 @@ function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
  * with `stations`, only the readings at those stations (a station's current figure depends on its
  * own readings only: a correction is always taken at the station it corrects).
  */
-export async function jobReadingsWithGauges(t: Transaction, shopId: number, jobId: number, locking = true, stations?: readonly string[]) {
+export async function jobReadingsWithGauges(
+  t: Transaction,
+  shopId: number,
+  jobId: number,
+  locking = true,
+  stations?: readonly string[],
+) {
   if (stations?.length === 0) return { readings: [], instruments: new Map<number, InstrumentInfo>() };
-  const rows = await sqlRows(t,
+  const rows = await sqlRows(
+    t,
     `SELECT ${READING_COLUMNS}, ${GAUGE_COLUMNS} FROM readings r LEFT JOIN instruments g ON g.id = r.instrument_id AND g.shop_id = ?
       WHERE r.job_id = ?${stations ? " AND r.station_id IN (?)" : ""} ORDER BY r.taken_at, r.received_at, r.id${locking ? " LOCK IN SHARE MODE" : ""}`,
-    stations ? [shopId, jobId, stations] : [shopId, jobId]);
+    stations ? [shopId, jobId, stations] : [shopId, jobId],
+  );
   const instruments = new Map<number, InstrumentInfo>();
-  for (const row of rows) if (row.gId !== null && row.gId !== undefined && !instruments.has(Number(row.gId))) instruments.set(Number(row.gId), gaugeOf(row));
+  for (const row of rows)
+    if (row.gId !== null && row.gId !== undefined && !instruments.has(Number(row.gId)))
+      instruments.set(Number(row.gId), gaugeOf(row));
   return { readings: rows.map(fromRow), instruments };
 }
 
@@ -144,20 +186,45 @@ export function currentReadings(all: StoredReading[]): StoredReading[] {
 }
 
 const INSERT_COLUMNS: [string, keyof NewReading][] = [
-  ["id", "id"], ["shop_id", "shopId"], ["job_id", "jobId"], ["station_id", "stationId"], ["characteristic", "characteristic"],
-  ["value_canonical", "valueCanonical"], ["value_entered", "value"], ["unit_entered", "unit"], ["entry_mode", "entryMode"],
-  ["dial_setting", "dialSetting"], ["dial_deviation", "dialDeviation"], ["instrument_id", "instrumentId"],
-  ["part_temp_c", "partTempC"], ["gauge_temp_c", "gaugeTempC"], ["lubricant", "lubricant"], ["skipped", "skipped"],
-  ["skip_reason", "skipReason"], ["note", "note"], ["taken_by", "takenBy"], ["taken_at", "takenAt"],
-  ["received_at", "receivedAt"], ["device_id", "deviceId"], ["supersedes", "supersedes"], ["verdict", "verdict"],
-  ["verdict_note", "verdictNote"], ["limit_min", "limitMin"], ["limit_max", "limitMax"], ["deviation", "deviation"],
+  ["id", "id"],
+  ["shop_id", "shopId"],
+  ["job_id", "jobId"],
+  ["station_id", "stationId"],
+  ["characteristic", "characteristic"],
+  ["value_canonical", "valueCanonical"],
+  ["value_entered", "value"],
+  ["unit_entered", "unit"],
+  ["entry_mode", "entryMode"],
+  ["dial_setting", "dialSetting"],
+  ["dial_deviation", "dialDeviation"],
+  ["instrument_id", "instrumentId"],
+  ["part_temp_c", "partTempC"],
+  ["gauge_temp_c", "gaugeTempC"],
+  ["lubricant", "lubricant"],
+  ["skipped", "skipped"],
+  ["skip_reason", "skipReason"],
+  ["note", "note"],
+  ["taken_by", "takenBy"],
+  ["taken_at", "takenAt"],
+  ["received_at", "receivedAt"],
+  ["device_id", "deviceId"],
+  ["supersedes", "supersedes"],
+  ["verdict", "verdict"],
+  ["verdict_note", "verdictNote"],
+  ["limit_min", "limitMin"],
+  ["limit_max", "limitMax"],
+  ["deviation", "deviation"],
 ];
 
 /** One multi-row INSERT; rows must already be in foreign-key order (a correction after its target). */
 export async function insertReadings(t: Transaction, rows: NewReading[]): Promise<void> {
   const now = new Date();
-  await insertMany(t, "readings", [...INSERT_COLUMNS.map(([c]) => c), "created_at", "updated_at"],
-    rows.map((r) => [...INSERT_COLUMNS.map(([, k]) => r[k]), now, now]));
+  await insertMany(
+    t,
+    "readings",
+    [...INSERT_COLUMNS.map(([c]) => c), "created_at", "updated_at"],
+    rows.map((r) => [...INSERT_COLUMNS.map(([, k]) => r[k]), now, now]),
+  );
 }
 
 export async function updateEvaluation(
@@ -165,23 +232,42 @@ export async function updateEvaluation(
   id: string,
   e: Pick<StoredReading, "verdict" | "verdictNote" | "limitMin" | "limitMax" | "deviation">,
 ): Promise<void> {
-  await sqlWrite(t, "UPDATE readings SET verdict = ?, verdict_note = ?, limit_min = ?, limit_max = ?, deviation = ?, updated_at = ? WHERE id = ?",
-    [e.verdict, e.verdictNote, e.limitMin, e.limitMax, e.deviation, new Date(), id]);
+  await sqlWrite(
+    t,
+    "UPDATE readings SET verdict = ?, verdict_note = ?, limit_min = ?, limit_max = ?, deviation = ?, updated_at = ? WHERE id = ?",
+    [e.verdict, e.verdictNote, e.limitMin, e.limitMax, e.deviation, new Date(), id],
+  );
 }
 
 function toInstrument(i: Instrument): InstrumentInfo {
   return {
-    id: i.id, shopId: i.shopId, kind: i.kind, label: i.label, serial: i.serial, unit: i.unit,
-    resolution: Number(i.resolution), expandedU: Number(i.expandedU), coverageK: Number(i.coverageK ?? 2),
-    calibrationDue: i.calibrationDue ?? null, dialPlusMeansSmaller: !!i.dialPlusMeansSmaller, active: !!i.active,
+    id: i.id,
+    shopId: i.shopId,
+    kind: i.kind,
+    label: i.label,
+    serial: i.serial,
+    unit: i.unit,
+    resolution: Number(i.resolution),
+    expandedU: Number(i.expandedU),
+    coverageK: Number(i.coverageK ?? 2),
+    calibrationDue: i.calibrationDue ?? null,
+    dialPlusMeansSmaller: !!i.dialPlusMeansSmaller,
+    active: !!i.active,
   };
 }
 
 /** The shop's gauges with these ids (other shops' ids are simply absent). */
-export async function findInstruments(t: Transaction | undefined, shopId: number, ids: number[]): Promise<Map<number, InstrumentInfo>> {
+export async function findInstruments(
+  t: Transaction | undefined,
+  shopId: number,
+  ids: number[],
+): Promise<Map<number, InstrumentInfo>> {
   if (ids.length === 0) return new Map();
   if (t) {
-    const rows = await sqlRows(t, `SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE g.shop_id = ? AND g.id IN (?)`, [shopId, [...new Set(ids)]]);
+    const rows = await sqlRows(t, `SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE g.shop_id = ? AND g.id IN (?)`, [
+      shopId,
+      [...new Set(ids)],
+    ]);
     return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
   }
   getSequelize();
@@ -191,7 +277,14 @@ export async function findInstruments(t: Transaction | undefined, shopId: number
 
 export async function shopInstruments(shopId: number): Promise<InstrumentInfo[]> {
   getSequelize();
-  const rows = await Instrument.findAll({ where: { shopId }, order: [["kind", "ASC"], ["label", "ASC"], ["id", "ASC"]] });
+  const rows = await Instrument.findAll({
+    where: { shopId },
+    order: [
+      ["kind", "ASC"],
+      ["label", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
   return rows.map(toInstrument);
 }
 
@@ -215,12 +308,33 @@ const iso = (d: Date | string) => (d instanceof Date ? d : new Date(d)).toISOStr
 
 export function toServerReading(r: StoredReading, supersededBy: string | null): ServerReading {
   return {
-    id: r.id, jobId: r.jobId, stationId: r.stationId, characteristic: r.characteristic,
-    value: r.value, unit: r.unit, valueCanonical: r.valueCanonical, entryMode: r.entryMode,
-    dialSetting: r.dialSetting, dialDeviation: r.dialDeviation, instrumentId: r.instrumentId,
-    partTempC: r.partTempC, gaugeTempC: r.gaugeTempC, lubricant: r.lubricant, skipped: r.skipped,
-    skipReason: r.skipReason, note: r.note, supersedes: r.supersedes, supersededBy,
-    takenAt: iso(r.takenAt), receivedAt: iso(r.receivedAt), takenBy: r.takenBy, deviceId: r.deviceId,
-    verdict: r.verdict, verdictNote: r.verdictNote, limitMin: r.limitMin, limitMax: r.limitMax, deviation: r.deviation,
+    id: r.id,
+    jobId: r.jobId,
+    stationId: r.stationId,
+    characteristic: r.characteristic,
+    value: r.value,
+    unit: r.unit,
+    valueCanonical: r.valueCanonical,
+    entryMode: r.entryMode,
+    dialSetting: r.dialSetting,
+    dialDeviation: r.dialDeviation,
+    instrumentId: r.instrumentId,
+    partTempC: r.partTempC,
+    gaugeTempC: r.gaugeTempC,
+    lubricant: r.lubricant,
+    skipped: r.skipped,
+    skipReason: r.skipReason,
+    note: r.note,
+    supersedes: r.supersedes,
+    supersededBy,
+    takenAt: iso(r.takenAt),
+    receivedAt: iso(r.receivedAt),
+    takenBy: r.takenBy,
+    deviceId: r.deviceId,
+    verdict: r.verdict,
+    verdictNote: r.verdictNote,
+    limitMin: r.limitMin,
+    limitMax: r.limitMax,
+    deviation: r.deviation,
   };
 }

@@ -7,7 +7,11 @@ import type { FlagRow, InstrumentRow, JobRecord, ReadingRow } from "./release-re
 // The flags, gauges and build-plan checks of the release checklist. Pure, like the rules file.
 
 const VERDICT_WORDS = { in_spec: "in spec", marginal: "marginal", out_of_spec: "out of spec" } as const;
-const REASON_WORDS = { out_of_spec: "out of spec", marginal: "marginal (inside the limits by less than the gauge's uncertainty)", gauge_past_due: "taken with a gauge past its calibration due date" } as const;
+const REASON_WORDS = {
+  out_of_spec: "out of spec",
+  marginal: "marginal (inside the limits by less than the gauge's uncertainty)",
+  gauge_past_due: "taken with a gauge past its calibration due date",
+} as const;
 
 const flagLink = (id: number): ChecklistLink => ({ label: `Open flag #${id}`, href: `/desk/flags/${id}` });
 
@@ -22,16 +26,21 @@ function flagItem(record: JobRecord, f: FlagRow): ChecklistItem | null {
   const reason = REASON_WORDS[f.reason] ?? VERDICT_WORDS[f.verdict] ?? f.reason;
   if (f.state === "closed" || (f.state === "disposed" && f.disposition === "accept")) return null;
   if (f.state === "disposed" && (f.disposition === "measure_again" || f.disposition === "machine_again")) {
-    const sent = f.disposition === "machine_again" ? `to be machined again${f.operation ? ` (${f.operation})` : ""} and measured` : "to be measured again";
+    const sent =
+      f.disposition === "machine_again"
+        ? `to be machined again${f.operation ? ` (${f.operation})` : ""} and measured`
+        : "to be measured again";
     const stations = flagStations(record, f);
     return {
-      check: "flags", key: `flags:${f.id}`,
+      check: "flags",
+      key: `flags:${f.id}`,
       text: `Flag #${f.id}, ${what} (${reason}): the lead sent it back ${sent}; it still blocks release until a new in-spec reading closes it`,
       links: [flagLink(f.id), ...stations.slice(0, 2).map((s) => benchLink(record.job.id, s))],
     };
   }
   return {
-    check: "flags", key: `flags:${f.id}`,
+    check: "flags",
+    key: `flags:${f.id}`,
     text: `Flag #${f.id}, ${what} (${reason}): open, waiting for the lead's decision (measure again, machine again, or accept with a reason)`,
     links: [flagLink(f.id)],
   };
@@ -42,9 +51,12 @@ export function flagsCheck(record: JobRecord): ChecklistCheck {
   const items = record.flags.map((f) => flagItem(record, f)).filter((i): i is ChecklistItem => i !== null);
   const closed = record.flags.filter((f) => f.state === "closed").length;
   const accepted = record.flags.filter((f) => f.state === "disposed" && f.disposition === "accept").length;
-  const summary = record.flags.length === 0 ? "No flags on this job"
-    : items.length === 0 ? `${[closed ? `${plural(closed, "flag")} closed by an in-spec reading` : "", accepted ? `${accepted} accepted with a reason` : ""].filter(Boolean).join(", ")}; none open`
-    : `${plural(items.length, "flag")} still blocking; ${closed} closed, ${accepted} accepted`;
+  const summary =
+    record.flags.length === 0
+      ? "No flags on this job"
+      : items.length === 0
+        ? `${[closed ? `${plural(closed, "flag")} closed by an in-spec reading` : "", accepted ? `${accepted} accepted with a reason` : ""].filter(Boolean).join(", ")}; none open`
+        : `${plural(items.length, "flag")} still blocking; ${closed} closed, ${accepted} accepted`;
   return { id: "flags", title, ok: items.length === 0, summary, items };
 }
 
@@ -74,39 +86,75 @@ export function gaugesCheck(record: JobRecord, current: Map<string, ReadingRow>)
   const items: ChecklistItem[] = [...bad.entries()].map(([id, { problem, readings }]) => {
     const inst = instruments.get(id);
     const name = inst ? `${inst.label} (serial ${inst.serial})` : `Gauge #${id}`;
-    const where = readings.slice(0, 3).map((r) => stationWords(r.stationId)).join("; ");
+    const where = readings
+      .slice(0, 3)
+      .map((r) => stationWords(r.stationId))
+      .join("; ");
     const more = readings.length > 3 ? ` and ${readings.length - 3} more` : "";
     return {
-      check: "gauges", key: `gauges:${id}`,
+      check: "gauges",
+      key: `gauges:${id}`,
       text: `${name} ${problem} on ${plural(readings.length, "current reading")}: ${where}${more}. Measure again with a gauge in calibration, or correct the gauge's dates if they are wrong`,
       links: [{ label: "Gauges", href: "/admin/gauges" }, benchLink(record.job.id, readings[0].stationId)],
     };
   });
   const readings = [...used.values()].reduce((a, b) => a + b, 0);
-  const summary = used.size === 0 ? "No gauge is recorded on the current readings"
-    : items.length === 0 ? `${plural(used.size, "gauge")} used on ${plural(readings, "reading")}, all within calibration when used`
-    : `${items.length} of ${plural(used.size, "gauge")} used were not within calibration`;
+  const summary =
+    used.size === 0
+      ? "No gauge is recorded on the current readings"
+      : items.length === 0
+        ? `${plural(used.size, "gauge")} used on ${plural(readings, "reading")}, all within calibration when used`
+        : `${items.length} of ${plural(used.size, "gauge")} used were not within calibration`;
   return { id: "gauges", title, ok: items.length === 0, summary, items };
 }
 
 /** The plan fields a release needs, in words. Lash and notes are optional. */
 export const REQUIRED_PLAN_FIELDS = {
-  bore: "bore", stroke: "stroke", rodLength: "rod length", compressionHeight: "piston compression height",
-  pistonTop: "piston top (flat, dish or dome)", chamberCc: "chamber volume", gasketBore: "gasket bore",
-  gasketThickness: "gasket thickness", deckHeight: "deck height", intakeLobeLift: "intake lobe lift",
-  exhaustLobeLift: "exhaust lobe lift", rockerRatio: "rocker ratio",
+  bore: "bore",
+  stroke: "stroke",
+  rodLength: "rod length",
+  compressionHeight: "piston compression height",
+  pistonTop: "piston top (flat, dish or dome)",
+  chamberCc: "chamber volume",
+  gasketBore: "gasket bore",
+  gasketThickness: "gasket thickness",
+  deckHeight: "deck height",
+  intakeLobeLift: "intake lobe lift",
+  exhaustLobeLift: "exhaust lobe lift",
+  rockerRatio: "rocker ratio",
 } as const;
 
 export function planCheck(record: JobRecord): ChecklistCheck {
   const title = "The build plan is filled in";
   const link = { label: "Open the build plan", href: `/desk/jobs/${record.job.id}/plan` };
-  const item = (key: string, text: string): ChecklistItem => ({ check: "plan", key: `plan:${key}`, text, links: [link] });
+  const item = (key: string, text: string): ChecklistItem => ({
+    check: "plan",
+    key: `plan:${key}`,
+    text,
+    links: [link],
+  });
   const plan = record.job.buildPlan;
-  if (!plan) return { id: "plan", title, ok: false, summary: "No build plan yet", items: [item("none", "No build plan yet: the lead enters the combination on the plan page")] };
+  if (!plan)
+    return {
+      id: "plan",
+      title,
+      ok: false,
+      summary: "No build plan yet",
+      items: [item("none", "No build plan yet: the lead enters the combination on the plan page")],
+    };
   const parsed = buildPlanSchema.safeParse(plan);
   if (!parsed.success) {
-    const first = parsed.error.issues.slice(0, 3).map((i) => i.message).join("; ");
-    return { id: "plan", title, ok: false, summary: "The build plan has errors", items: [item("invalid", `The saved build plan has errors: ${first}`)] };
+    const first = parsed.error.issues
+      .slice(0, 3)
+      .map((i) => i.message)
+      .join("; ");
+    return {
+      id: "plan",
+      title,
+      ok: false,
+      summary: "The build plan has errors",
+      items: [item("invalid", `The saved build plan has errors: ${first}`)],
+    };
   }
   const p = parsed.data as Record<string, unknown>;
   const items = Object.entries(REQUIRED_PLAN_FIELDS)
@@ -116,6 +164,9 @@ export function planCheck(record: JobRecord): ChecklistCheck {
     items.push(item("pistonVolumeCc", `The build plan has no ${String(p.pistonTop)} volume yet`));
   }
   const total = Object.keys(REQUIRED_PLAN_FIELDS).length;
-  const summary = items.length === 0 ? "The build plan is filled in" : `${plural(items.length, "figure")} of the build plan still empty (of ${total} needed)`;
+  const summary =
+    items.length === 0
+      ? "The build plan is filled in"
+      : `${plural(items.length, "figure")} of the build plan still empty (of ${total} needed)`;
   return { id: "plan", title, ok: items.length === 0, summary, items };
 }

@@ -110,7 +110,8 @@ export function requiredStations(record: Pick<JobRecord, "shape" | "spec">, stat
 
 function shapeProblem(record: JobRecord, check: "readings" | "torque", error: string): ChecklistItem {
   return {
-    check, key: `${check}:shape`,
+    check,
+    key: `${check}:shape`,
     text: `The engine as entered cannot give a bench route (${error}); fix the job's engine first`,
     links: [{ label: "Open the job", href: `/desk/jobs/${record.job.id}` }],
   };
@@ -119,40 +120,72 @@ function shapeProblem(record: JobRecord, check: "readings" | "torque", error: st
 export function readingsCheck(record: JobRecord, current: Map<string, ReadingRow>): ChecklistCheck {
   const title = "Every required station has a current reading";
   const route = routeOf(record);
-  if (route.error) return { id: "readings", title, ok: false, summary: "No bench route", items: [shapeProblem(record, "readings", route.error)] };
+  if (route.error)
+    return {
+      id: "readings",
+      title,
+      ok: false,
+      summary: "No bench route",
+      items: [shapeProblem(record, "readings", route.error)],
+    };
   const required = requiredStations(record, route.stations);
   const items: ChecklistItem[] = [];
   for (const { station, own, neededFor } of required) {
     const r = current.get(station.id);
     const why = !own && neededFor.size ? ` (needed for ${[...neededFor].join(", ")})` : "";
-    const base = { check: "readings" as const, key: `readings:${station.id}`, links: [benchLink(record.job.id, station.id)] };
+    const base = {
+      check: "readings" as const,
+      key: `readings:${station.id}`,
+      links: [benchLink(record.job.id, station.id)],
+    };
     if (!r) items.push({ ...base, text: `${station.label}: no reading yet${why}` });
     else if (r.skipped) {
-      items.push({ ...base, text: `${station.label}: skipped${r.skipReason ? ` ("${r.skipReason}")` : ""}; a required station must be measured${why}` });
+      items.push({
+        ...base,
+        text: `${station.label}: skipped${r.skipReason ? ` ("${r.skipReason}")` : ""}; a required station must be measured${why}`,
+      });
     }
   }
   const n = required.length;
-  const summary = n === 0 ? "The spec marks no station as required"
-    : items.length === 0 ? `All ${plural(n, "required station")} have a current reading`
-    : `${n - items.length} of ${plural(n, "required station")} have a current reading; ${items.length} to go`;
+  const summary =
+    n === 0
+      ? "The spec marks no station as required"
+      : items.length === 0
+        ? `All ${plural(n, "required station")} have a current reading`
+        : `${n - items.length} of ${plural(n, "required station")} have a current reading; ${items.length} to go`;
   return { id: "readings", title, ok: items.length === 0, summary, items };
 }
 
 export function torqueCheck(record: JobRecord, current: Map<string, ReadingRow>): ChecklistCheck {
   const title = "Torque records are complete, with the lubricant";
   const route = routeOf(record);
-  if (route.error) return { id: "torque", title, ok: false, summary: "No bench route", items: [shapeProblem(record, "torque", route.error)] };
+  if (route.error)
+    return {
+      id: "torque",
+      title,
+      ok: false,
+      summary: "No bench route",
+      items: [shapeProblem(record, "torque", route.error)],
+    };
   const torque = route.stations.filter((s) => s.torque);
   const items: ChecklistItem[] = [];
   for (const s of torque) {
     const r = current.get(s.id);
     const base = { check: "torque" as const, key: `torque:${s.id}`, links: [benchLink(record.job.id, s.id)] };
     if (!r) items.push({ ...base, text: `${s.label}: no torque record yet` });
-    else if (r.skipped) items.push({ ...base, text: `${s.label}: skipped; every fastener group needs its torque record` });
-    else if (!r.lubricant) items.push({ ...base, text: `${s.label}: no lubricant recorded; enter the torque again with the lubricant used` });
+    else if (r.skipped)
+      items.push({ ...base, text: `${s.label}: skipped; every fastener group needs its torque record` });
+    else if (!r.lubricant)
+      items.push({
+        ...base,
+        text: `${s.label}: no lubricant recorded; enter the torque again with the lubricant used`,
+      });
   }
-  const summary = torque.length === 0 ? "This engine's route has no torque groups"
-    : items.length === 0 ? `All ${plural(torque.length, "fastener group")} have a torque record with the lubricant`
-    : `${torque.length - items.length} of ${plural(torque.length, "fastener group")} complete; ${items.length} to go`;
+  const summary =
+    torque.length === 0
+      ? "This engine's route has no torque groups"
+      : items.length === 0
+        ? `All ${plural(torque.length, "fastener group")} have a torque record with the lubricant`
+        : `${torque.length - items.length} of ${plural(torque.length, "fastener group")} complete; ${items.length} to go`;
   return { id: "torque", title, ok: items.length === 0, summary, items };
 }

@@ -47,7 +47,8 @@ import { createHash } from "node:crypto";
  */
 export const CANONICAL_VERSION = 1;
 
-export type CanonicalValue = string | number | boolean | null | undefined | CanonicalValue[] | { [key: string]: CanonicalValue };
+export type CanonicalValue =
+  string | number | boolean | null | undefined | CanonicalValue[] | { [key: string]: CanonicalValue };
 type Row = { [key: string]: CanonicalValue };
 
 export type ReleaseSnapshot = {
@@ -90,7 +91,9 @@ export function canonicalJson(value: CanonicalValue): string {
   }
   if (Array.isArray(value)) return `[${value.map((v) => (v === undefined ? "null" : canonicalJson(v))).join(",")}]`;
   if (typeof value === "object") {
-    const keys = Object.keys(value).filter((k) => value[k] !== undefined).sort();
+    const keys = Object.keys(value)
+      .filter((k) => value[k] !== undefined)
+      .sort();
     return `{${keys.map((k) => `${JSON.stringify(k)}:${canonicalJson(value[k])}`).join(",")}}`;
   }
   throw new Error(`A canonical document cannot hold a ${typeof value}`);
@@ -138,7 +141,10 @@ export function itemDigests(s: ReleaseSnapshot): ItemDigests {
   return {
     job: sha256Hex(canonicalJson(s.job)),
     release: sha256Hex(canonicalJson(s.release)),
-    readings: per(s.readings), limits: per(s.limits), flags: per(s.flags),
-    dispositions: per(s.dispositions), gauges: per(s.gauges),
+    readings: per(s.readings),
+    limits: per(s.limits),
+    flags: per(s.flags),
+    dispositions: per(s.dispositions),
+    gauges: per(s.gauges),
   };
 }

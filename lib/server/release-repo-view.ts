@@ -13,7 +13,15 @@ import { toReleaseRecord } from "./release-sign";
 
 function counts(record: JobRecord): ReadingCounts {
   const current = [...currentReadings(record.readings).values()];
-  const out: ReadingCounts = { current: current.length, superseded: record.readings.length - current.length, skipped: 0, in_spec: 0, marginal: 0, out_of_spec: 0, unjudged: 0 };
+  const out: ReadingCounts = {
+    current: current.length,
+    superseded: record.readings.length - current.length,
+    skipped: 0,
+    in_spec: 0,
+    marginal: 0,
+    out_of_spec: 0,
+    unjudged: 0,
+  };
   for (const r of current) {
     if (r.skipped) out.skipped += 1;
     else if (r.verdict) out[r.verdict as Verdict] += 1;
@@ -24,10 +32,18 @@ function counts(record: JobRecord): ReadingCounts {
 
 function flagSummary(f: FlagRow, names: Map<number, string>): FlagSummary {
   return {
-    id: f.id, station: stationWords(f.stationId), what: characteristicWords(f.characteristic), verdict: f.verdict,
-    reason: f.reason, state: f.state, disposition: f.disposition ?? null, operation: f.operation ?? null,
-    dispositionReason: f.dispositionReason ?? null, disposedByName: f.disposedBy ? names.get(f.disposedBy) ?? null : null,
-    disposedAt: f.disposedAt ? new Date(f.disposedAt).toISOString() : null, closedAt: f.closedAt ? new Date(f.closedAt).toISOString() : null,
+    id: f.id,
+    station: stationWords(f.stationId),
+    what: characteristicWords(f.characteristic),
+    verdict: f.verdict,
+    reason: f.reason,
+    state: f.state,
+    disposition: f.disposition ?? null,
+    operation: f.operation ?? null,
+    dispositionReason: f.dispositionReason ?? null,
+    disposedByName: f.disposedBy ? (names.get(f.disposedBy) ?? null) : null,
+    disposedAt: f.disposedAt ? new Date(f.disposedAt).toISOString() : null,
+    closedAt: f.closedAt ? new Date(f.closedAt).toISOString() : null,
     value: `${f.value} ${f.unit}`,
   };
 }
@@ -36,7 +52,8 @@ export async function releaseView(actor: Actor, jobId: number): Promise<ReleaseV
   const record = await loadJobRecord(actor.shopId, jobId);
   const releases = await listReleases(jobId);
   const names = await userNames(actor.shopId, [
-    ...record.flags.map((f) => f.disposedBy), ...releases.flatMap((r) => [r.inspectorId, r.voidedBy]),
+    ...record.flags.map((f) => f.disposedBy),
+    ...releases.flatMap((r) => [r.inspectorId, r.voidedBy]),
   ]);
   const checklist = checklistOf(record);
   const { job } = record;
@@ -45,8 +62,14 @@ export async function releaseView(actor: Actor, jobId: number): Promise<ReleaseV
   const latest = standing ?? releases[0] ?? null;
   return {
     job: {
-      id: job.id, code: job.code, title: job.title, status: job.status, lockedAt: job.lockedAt ? new Date(job.lockedAt).toISOString() : null,
-      customer: record.customerName, engine: record.engineDescription, unitSystem: job.unitSystem,
+      id: job.id,
+      code: job.code,
+      title: job.title,
+      status: job.status,
+      lockedAt: job.lockedAt ? new Date(job.lockedAt).toISOString() : null,
+      customer: record.customerName,
+      engine: record.engineDescription,
+      unitSystem: job.unitSystem,
     },
     checklist,
     counts: counts(record),
@@ -72,8 +95,15 @@ export async function releaseJobs(shopId: number): Promise<ReleaseJobSummary[]> 
     const checklist = checklistOf(record);
     const standing = (await listReleases(j.id)).find((r) => !r.voidedAt);
     out.push({
-      id: j.id, code: j.code, title: j.title, status: j.status, customer: j.customer, engine: j.engine, dueDate: j.dueDate,
-      complete: checklist.complete, unmet: checklist.unmet.length,
+      id: j.id,
+      code: j.code,
+      title: j.title,
+      status: j.status,
+      customer: j.customer,
+      engine: j.engine,
+      dueDate: j.dueDate,
+      complete: checklist.complete,
+      unmet: checklist.unmet.length,
       release: standing ? { signedAt: standing.signedAt.toISOString(), hash: standing.hash } : null,
     });
   }

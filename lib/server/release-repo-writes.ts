@@ -13,7 +13,10 @@ const WINDOW_MINUTES = 15;
 const LOCK_AFTER = 5;
 const LOCK_MINUTES = 15;
 
-export async function signerAccount(userId: number, shopId: number): Promise<{ name: string; passwordHash: string } | null> {
+export async function signerAccount(
+  userId: number,
+  shopId: number,
+): Promise<{ name: string; passwordHash: string } | null> {
   getSequelize();
   const u = await User.findOne({ where: { id: userId, shopId, active: true }, attributes: ["name", "passwordHash"] });
   return u ? { name: u.name, passwordHash: u.passwordHash } : null;
@@ -26,9 +29,14 @@ export async function refuseIfThrottled(key: string): Promise<void> {
   const until = row?.lockedUntil?.getTime() ?? 0;
   if (until > Date.now()) {
     const minutes = Math.max(1, Math.ceil((until - Date.now()) / 60_000));
-    throw new AppError("too_many_attempts", `Too many wrong passwords. Try again in ${minutes} min, or sign out and in again.`, undefined, {
-      "Retry-After": String(minutes * 60),
-    });
+    throw new AppError(
+      "too_many_attempts",
+      `Too many wrong passwords. Try again in ${minutes} min, or sign out and in again.`,
+      undefined,
+      {
+        "Retry-After": String(minutes * 60),
+      },
+    );
   }
 }
 
@@ -60,8 +68,14 @@ export async function lockJob(t: Transaction, shopId: number, jobId: number) {
 }
 
 export type NewRelease = {
-  shopId: number; jobId: number; inspectorId: number; signedName: string; signedAt: Date;
-  checklist: JsonValue; hash: string; canonicalVersion: number;
+  shopId: number;
+  jobId: number;
+  inspectorId: number;
+  signedName: string;
+  signedAt: Date;
+  checklist: JsonValue;
+  hash: string;
+  canonicalVersion: number;
 };
 
 export async function insertRelease(t: Transaction, r: NewRelease): Promise<ReleaseRow> {
@@ -78,5 +92,8 @@ export async function setJobReopened(t: Transaction, jobId: number): Promise<voi
 }
 
 export async function voidRelease(t: Transaction, id: number, userId: number, reason: string, at: Date): Promise<void> {
-  await Release.update({ voidedAt: at, voidedBy: userId, voidReason: reason }, { where: { id, voidedAt: null }, transaction: t });
+  await Release.update(
+    { voidedAt: at, voidedBy: userId, voidReason: reason },
+    { where: { id, voidedAt: null }, transaction: t },
+  );
 }

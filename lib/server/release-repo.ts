@@ -1,9 +1,7 @@
 import "server-only";
 import type { InferAttributes, Transaction } from "sequelize";
 import type { EngineShape, SpecLimit } from "@/lib/domain";
-import {
-  Customer, Engine, Flag, FlagDisposition, Instrument, Job, JobLimit, Reading, Release, User,
-} from "@/models";
+import { Customer, Engine, Flag, FlagDisposition, Instrument, Job, JobLimit, Reading, Release, User } from "@/models";
 import { getSequelize } from "./db";
 import { notFound } from "./errors";
 import { toEngineShape, toSpecLimit } from "./job-context";
@@ -41,21 +39,43 @@ const plain = <T>(rows: { get(o: { plain: true }): unknown }[]) => rows.map((r) 
  */
 export async function loadJobRecord(shopId: number, jobId: number, t?: Transaction, lock = false): Promise<JobRecord> {
   getSequelize();
-  const job = await Job.findOne({ where: { id: jobId, shopId }, transaction: t, ...(lock && t ? { lock: t.LOCK.UPDATE } : {}) });
+  const job = await Job.findOne({
+    where: { id: jobId, shopId },
+    transaction: t,
+    ...(lock && t ? { lock: t.LOCK.UPDATE } : {}),
+  });
   if (!job) throw notFound("Job");
   const [engine, customer, limits, readings, flags] = await Promise.all([
     Engine.findByPk(job.engineId, { transaction: t }),
     Customer.findByPk(job.customerId, { transaction: t }),
-    JobLimit.findAll({ where: { jobId }, order: [["sortOrder", "ASC"], ["id", "ASC"]], transaction: t }),
-    Reading.findAll({ where: { jobId, shopId }, order: [["takenAt", "ASC"], ["id", "ASC"]], transaction: t }),
+    JobLimit.findAll({
+      where: { jobId },
+      order: [
+        ["sortOrder", "ASC"],
+        ["id", "ASC"],
+      ],
+      transaction: t,
+    }),
+    Reading.findAll({
+      where: { jobId, shopId },
+      order: [
+        ["takenAt", "ASC"],
+        ["id", "ASC"],
+      ],
+      transaction: t,
+    }),
     Flag.findAll({ where: { jobId, shopId }, order: [["id", "ASC"]], transaction: t }),
   ]);
   if (!engine) throw notFound("Engine");
   const flagIds = flags.map((f) => f.id);
   const instrumentIds = [...new Set(readings.map((r) => r.instrumentId).filter((id): id is number => id !== null))];
   const [dispositions, instruments] = await Promise.all([
-    flagIds.length ? FlagDisposition.findAll({ where: { flagId: flagIds }, order: [["id", "ASC"]], transaction: t }) : [],
-    instrumentIds.length ? Instrument.findAll({ where: { id: instrumentIds, shopId }, order: [["id", "ASC"]], transaction: t }) : [],
+    flagIds.length
+      ? FlagDisposition.findAll({ where: { flagId: flagIds }, order: [["id", "ASC"]], transaction: t })
+      : [],
+    instrumentIds.length
+      ? Instrument.findAll({ where: { id: instrumentIds, shopId }, order: [["id", "ASC"]], transaction: t })
+      : [],
   ]);
   return {
     job: job.get({ plain: true }) as JobRow,
@@ -74,7 +94,14 @@ export async function loadJobRecord(shopId: number, jobId: number, t?: Transacti
 /** Releases of a job, newest first. */
 export async function listReleases(jobId: number, t?: Transaction): Promise<ReleaseRow[]> {
   getSequelize();
-  const rows = await Release.findAll({ where: { jobId }, order: [["signedAt", "DESC"], ["id", "DESC"]], transaction: t });
+  const rows = await Release.findAll({
+    where: { jobId },
+    order: [
+      ["signedAt", "DESC"],
+      ["id", "DESC"],
+    ],
+    transaction: t,
+  });
   return plain<ReleaseRow>(rows);
 }
 

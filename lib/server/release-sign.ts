@@ -13,8 +13,15 @@ import { CANONICAL_VERSION, itemDigests, releaseHash } from "./release-hash";
 import { buildSnapshot, gaugeRecord } from "./release-hash-snapshot";
 import { activeRelease, loadJobRecord, userNames, type ReleaseRow } from "./release-repo";
 import {
-  clearWrongPasswords, insertRelease, lockJob, recordWrongPassword, refuseIfThrottled, setJobReleased,
-  setJobReopened, signerAccount, voidRelease,
+  clearWrongPasswords,
+  insertRelease,
+  lockJob,
+  recordWrongPassword,
+  refuseIfThrottled,
+  setJobReleased,
+  setJobReopened,
+  signerAccount,
+  voidRelease,
 } from "./release-repo-writes";
 
 // The inspector's e-signature (typed full name + password again) and the lead's reopen. Both run
@@ -25,10 +32,17 @@ const normalName = (s: string) => s.trim().replace(/\s+/g, " ").toLocaleLowerCas
 
 export function toReleaseRecord(r: ReleaseRow, names: Map<number, string>): ReleaseRecord {
   return {
-    id: r.id, jobId: r.jobId, status: r.voidedAt ? "void" : "standing", signedName: r.signedName,
-    inspectorName: names.get(r.inspectorId) ?? r.signedName, signedAt: r.signedAt.toISOString(), hash: r.hash,
-    canonicalVersion: r.canonicalVersion, voidedAt: r.voidedAt ? r.voidedAt.toISOString() : null,
-    voidedByName: r.voidedBy ? names.get(r.voidedBy) ?? null : null, voidReason: r.voidReason ?? null,
+    id: r.id,
+    jobId: r.jobId,
+    status: r.voidedAt ? "void" : "standing",
+    signedName: r.signedName,
+    inspectorName: names.get(r.inspectorId) ?? r.signedName,
+    signedAt: r.signedAt.toISOString(),
+    hash: r.hash,
+    canonicalVersion: r.canonicalVersion,
+    voidedAt: r.voidedAt ? r.voidedAt.toISOString() : null,
+    voidedByName: r.voidedBy ? (names.get(r.voidedBy) ?? null) : null,
+    voidReason: r.voidReason ?? null,
   };
 }
 
@@ -60,13 +74,20 @@ export async function signRelease(actor: Actor, jobId: number, input: SignInput)
     const record = await loadJobRecord(actor.shopId, jobId, t, true);
     const { job } = record;
     if (job.status === "released" || job.status === "closed" || job.lockedAt || (await activeRelease(jobId, t))) {
-      throw new AppError("conflict", `Job ${job.code} is already ${job.status === "closed" ? "closed" : "released"}; the lead must reopen it before a new release`);
+      throw new AppError(
+        "conflict",
+        `Job ${job.code} is already ${job.status === "closed" ? "closed" : "released"}; the lead must reopen it before a new release`,
+      );
     }
     const checklist = checklistOf(record);
     if (!checklist.complete) {
-      throw new AppError("conflict", `Job ${job.code} cannot be released yet: ${checklist.unmet.length} item(s) on the checklist still block it`, {
-        checklist: checklist.unmet.slice(0, 50).map((i) => i.text),
-      });
+      throw new AppError(
+        "conflict",
+        `Job ${job.code} cannot be released yet: ${checklist.unmet.length} item(s) on the checklist still block it`,
+        {
+          checklist: checklist.unmet.slice(0, 50).map((i) => i.text),
+        },
+      );
     }
     const signedAt = new Date();
     const gauges = record.instruments.map(gaugeRecord);
@@ -75,17 +96,36 @@ export async function signRelease(actor: Actor, jobId: number, input: SignInput)
     const stored = {
       version: CANONICAL_VERSION,
       checks: checklist.checks.map((c) => ({ id: c.id, title: c.title, summary: c.summary })),
-      gauges, digests: itemDigests(snapshot),
+      gauges,
+      digests: itemDigests(snapshot),
     };
     const release = await insertRelease(t, {
-      shopId: actor.shopId, jobId, inspectorId: actor.userId, signedName, signedAt,
-      checklist: stored as unknown as JsonValue, hash, canonicalVersion: CANONICAL_VERSION,
+      shopId: actor.shopId,
+      jobId,
+      inspectorId: actor.userId,
+      signedName,
+      signedAt,
+      checklist: stored as unknown as JsonValue,
+      hash,
+      canonicalVersion: CANONICAL_VERSION,
     });
     await setJobReleased(t, jobId, signedAt);
     await recordAudit(t, {
-      shopId: actor.shopId, userId: actor.userId, action: "release.sign", entityType: "release", entityId: release.id,
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "release.sign",
+      entityType: "release",
+      entityId: release.id,
       before: { jobId, jobStatus: job.status, lockedAt: null },
-      after: { jobId, jobCode: job.code, jobStatus: "released", lockedAt: signedAt.toISOString(), signedName, signedAt: signedAt.toISOString(), hash },
+      after: {
+        jobId,
+        jobCode: job.code,
+        jobStatus: "released",
+        lockedAt: signedAt.toISOString(),
+        signedName,
+        signedAt: signedAt.toISOString(),
+        hash,
+      },
     });
     await recordChange(t, { shopId: actor.shopId, jobId, entity: "job", entityId: jobId });
     return release;
@@ -99,15 +139,35 @@ export async function reopenRelease(actor: Actor, jobId: number, input: ReopenIn
     const job = await lockJob(t, actor.shopId, jobId);
     const release = await activeRelease(jobId, t);
     if (job.status !== "released" || !release) {
-      throw new AppError("conflict", `Job ${job.code} is not released (it is ${job.status}), so there is nothing to reopen`);
+      throw new AppError(
+        "conflict",
+        `Job ${job.code} is not released (it is ${job.status}), so there is nothing to reopen`,
+      );
     }
     const voidedAt = new Date();
     await voidRelease(t, release.id, actor.userId, input.reason, voidedAt);
     await setJobReopened(t, jobId);
     await recordAudit(t, {
-      shopId: actor.shopId, userId: actor.userId, action: "release.void", entityType: "release", entityId: release.id,
-      before: { jobId, jobStatus: job.status, lockedAt: job.lockedAt?.toISOString() ?? null, releaseStatus: "standing" },
-      after: { jobId, jobCode: job.code, jobStatus: "review", lockedAt: null, releaseStatus: "void", voidReason: input.reason, voidedAt: voidedAt.toISOString() },
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "release.void",
+      entityType: "release",
+      entityId: release.id,
+      before: {
+        jobId,
+        jobStatus: job.status,
+        lockedAt: job.lockedAt?.toISOString() ?? null,
+        releaseStatus: "standing",
+      },
+      after: {
+        jobId,
+        jobCode: job.code,
+        jobStatus: "review",
+        lockedAt: null,
+        releaseStatus: "void",
+        voidReason: input.reason,
+        voidedAt: voidedAt.toISOString(),
+      },
     });
     await recordChange(t, { shopId: actor.shopId, jobId, entity: "job", entityId: jobId });
     return { ...release, voidedAt, voidedBy: actor.userId, voidReason: input.reason };

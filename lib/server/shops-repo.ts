@@ -7,5 +7,7 @@ export type ShopRecord = { id: number; name: string; unitSystem: "in" | "mm"; gu
 export async function findShop(id: number): Promise<ShopRecord | null> {
   getSequelize();
   const s = await Shop.findByPk(id);
-  return s ? { id: s.id, name: s.name, unitSystem: s.unitSystem as "in" | "mm", guardBandPolicy: s.guardBandPolicy } : null;
+  return s
+    ? { id: s.id, name: s.name, unitSystem: s.unitSystem as "in" | "mm", guardBandPolicy: s.guardBandPolicy }
+    : null;
 }

@@ -47,9 +47,14 @@ export async function signIn(email: string, password: string, address: string): 
   const until = await lockedUntil(keys);
   if (until) {
     const minutes = Math.max(1, Math.ceil((until.getTime() - Date.now()) / 60_000));
-    throw new AppError("too_many_attempts", `Too many failed sign-ins. Try again in ${minutes} min or ask your shop admin.`, undefined, {
-      "Retry-After": String(minutes * 60),
-    });
+    throw new AppError(
+      "too_many_attempts",
+      `Too many failed sign-ins. Try again in ${minutes} min or ask your shop admin.`,
+      undefined,
+      {
+        "Retry-After": String(minutes * 60),
+      },
+    );
   }
   const candidates = await findSignInCandidates(email);
   let match: UserRecord | null = null;

@@ -1,6 +1,12 @@
 import "server-only";
 import { fn, col, Op, type Transaction } from "sequelize";
-import { LIMIT_FIELDS, compactLimit, type LimitValueField, type LimitValues, type TemplateValues } from "@/lib/schemas/spec";
+import {
+  LIMIT_FIELDS,
+  compactLimit,
+  type LimitValueField,
+  type LimitValues,
+  type TemplateValues,
+} from "@/lib/schemas/spec";
 import { Job, SpecLimit, SpecTemplate, type JobLimit } from "@/models";
 import type { Actor } from "./access";
 import { recordAudit } from "./audit";
@@ -11,8 +17,15 @@ import { toSpecLimit } from "./job-context";
 // The shop's spec sheet templates. A template edit never reaches a job: jobs keep the
 // snapshot they took when they were created (their limits are edited on the job).
 export type TemplateSummary = {
-  id: number; name: string; engineKind: string; buildKind: string; unitSystem: "in" | "mm";
-  version: number; archived: boolean; limitCount: number; updatedAt: string;
+  id: number;
+  name: string;
+  engineKind: string;
+  buildKind: string;
+  unitSystem: "in" | "mm";
+  version: number;
+  archived: boolean;
+  limitCount: number;
+  updatedAt: string;
 };
 export type TemplateRecord = TemplateValues & { id: number; version: number; archived: boolean; updatedAt: string };
 
@@ -30,38 +43,86 @@ export function limitRow(l: LimitValues, sortOrder: number) {
   const pick = <K extends LimitValueField>(k: K) => (used.has(k) ? (l[k] ?? null) : null);
   const iso = pick("isoClass");
   return {
-    characteristic: l.characteristic, stationPattern: l.stationPattern.trim(), limitType: l.limitType, unit: l.unit,
-    min: pick("min"), max: pick("max"), nominal: pick("nominal"), tolPlus: pick("tolPlus"), tolMinus: pick("tolMinus"),
-    perInchMin: pick("perInchMin"), perInchMax: pick("perInchMax"), isoClass: typeof iso === "string" ? iso.trim() || null : null,
-    required: l.required, gaugeKind: l.gaugeKind ?? null, label: l.label?.trim() || null, sortOrder,
+    characteristic: l.characteristic,
+    stationPattern: l.stationPattern.trim(),
+    limitType: l.limitType,
+    unit: l.unit,
+    min: pick("min"),
+    max: pick("max"),
+    nominal: pick("nominal"),
+    tolPlus: pick("tolPlus"),
+    tolMinus: pick("tolMinus"),
+    perInchMin: pick("perInchMin"),
+    perInchMax: pick("perInchMax"),
+    isoClass: typeof iso === "string" ? iso.trim() || null : null,
+    required: l.required,
+    gaugeKind: l.gaugeKind ?? null,
+    label: l.label?.trim() || null,
+    sortOrder,
   };
 }
 
 export async function listTemplates(shopId: number): Promise<TemplateSummary[]> {
   getSequelize();
-  const rows = await SpecTemplate.findAll({ where: { shopId }, order: [["archived", "ASC"], ["name", "ASC"]] });
+  const rows = await SpecTemplate.findAll({
+    where: { shopId },
+    order: [
+      ["archived", "ASC"],
+      ["name", "ASC"],
+    ],
+  });
   const counts = rows.length
-    ? ((await SpecLimit.findAll({ where: { templateId: { [Op.in]: rows.map((r) => r.id) } }, attributes: ["templateId", [fn("COUNT", col("id")), "n"]], group: ["templateId"], raw: true })) as unknown as { templateId: number; n: number | string }[])
+    ? ((await SpecLimit.findAll({
+        where: { templateId: { [Op.in]: rows.map((r) => r.id) } },
+        attributes: ["templateId", [fn("COUNT", col("id")), "n"]],
+        group: ["templateId"],
+        raw: true,
+      })) as unknown as { templateId: number; n: number | string }[])
     : [];
   const byId = new Map(counts.map((c) => [c.templateId, Number(c.n)]));
   return rows.map((t) => ({
-    id: t.id, name: t.name, engineKind: t.engineKind, buildKind: t.buildKind, unitSystem: t.unitSystem,
-    version: t.version, archived: t.archived, limitCount: byId.get(t.id) ?? 0, updatedAt: t.updatedAt.toISOString(),
+    id: t.id,
+    name: t.name,
+    engineKind: t.engineKind,
+    buildKind: t.buildKind,
+    unitSystem: t.unitSystem,
+    version: t.version,
+    archived: t.archived,
+    limitCount: byId.get(t.id) ?? 0,
+    updatedAt: t.updatedAt.toISOString(),
   }));
 }
 
 async function findOrThrow(shopId: number, id: number, t?: Transaction): Promise<SpecTemplate> {
   getSequelize();
-  const row = await SpecTemplate.findOne({ where: { id, shopId }, transaction: t, ...(t ? { lock: t.LOCK.UPDATE } : {}) });
+  const row = await SpecTemplate.findOne({
+    where: { id, shopId },
+    transaction: t,
+    ...(t ? { lock: t.LOCK.UPDATE } : {}),
+  });
   if (!row) throw notFound("Spec sheet");
   return row;
 }
 
 async function recordOf(row: SpecTemplate, t?: Transaction): Promise<TemplateRecord> {
-  const limits = await SpecLimit.findAll({ where: { templateId: row.id }, order: [["sortOrder", "ASC"], ["id", "ASC"]], transaction: t });
+  const limits = await SpecLimit.findAll({
+    where: { templateId: row.id },
+    order: [
+      ["sortOrder", "ASC"],
+      ["id", "ASC"],
+    ],
+    transaction: t,
+  });
   return {
-    id: row.id, name: row.name, engineKind: row.engineKind, buildKind: row.buildKind, unitSystem: row.unitSystem,
-    notes: row.notes ?? null, limits: limits.map(limitValuesOf), version: row.version, archived: row.archived,
+    id: row.id,
+    name: row.name,
+    engineKind: row.engineKind,
+    buildKind: row.buildKind,
+    unitSystem: row.unitSystem,
+    notes: row.notes ?? null,
+    limits: limits.map(limitValuesOf),
+    version: row.version,
+    archived: row.archived,
     updatedAt: row.updatedAt.toISOString(),
   };
 }
@@ -71,20 +132,38 @@ export async function getTemplate(shopId: number, id: number): Promise<TemplateR
 }
 
 const headerOf = (v: TemplateValues) => ({
-  name: v.name, engineKind: v.engineKind, buildKind: v.buildKind, unitSystem: v.unitSystem, notes: v.notes?.trim() || null,
+  name: v.name,
+  engineKind: v.engineKind,
+  buildKind: v.buildKind,
+  unitSystem: v.unitSystem,
+  notes: v.notes?.trim() || null,
 });
 
 async function writeLimits(t: Transaction, templateId: number, limits: LimitValues[]) {
   await SpecLimit.destroy({ where: { templateId }, transaction: t });
-  await SpecLimit.bulkCreate(limits.map((l, i) => ({ ...limitRow(l, i), templateId })), { transaction: t });
+  await SpecLimit.bulkCreate(
+    limits.map((l, i) => ({ ...limitRow(l, i), templateId })),
+    { transaction: t },
+  );
 }
 
-export async function createTemplate(actor: Actor, v: TemplateValues, action = "spec_template.create"): Promise<TemplateRecord> {
+export async function createTemplate(
+  actor: Actor,
+  v: TemplateValues,
+  action = "spec_template.create",
+): Promise<TemplateRecord> {
   return getSequelize().transaction(async (t) => {
     const row = await SpecTemplate.create({ shopId: actor.shopId, ...headerOf(v) }, { transaction: t });
     await writeLimits(t, row.id, v.limits);
     const after = await recordOf(row, t);
-    await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action, entityType: "spec_template", entityId: row.id, after });
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action,
+      entityType: "spec_template",
+      entityId: row.id,
+      after,
+    });
     return after;
   });
 }
@@ -96,7 +175,15 @@ export async function updateTemplate(actor: Actor, id: number, v: TemplateValues
     await row.update({ ...headerOf(v), version: row.version + 1 }, { transaction: t });
     await writeLimits(t, row.id, v.limits);
     const after = await recordOf(row, t);
-    await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action: "spec_template.update", entityType: "spec_template", entityId: id, before, after });
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "spec_template.update",
+      entityType: "spec_template",
+      entityId: id,
+      before,
+      after,
+    });
     return after;
   });
 }
@@ -107,7 +194,15 @@ export async function setTemplateArchived(actor: Actor, id: number, archived: bo
     const row = await findOrThrow(actor.shopId, id, t);
     const before = { archived: row.archived };
     await row.update({ archived }, { transaction: t });
-    await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action: archived ? "spec_template.archive" : "spec_template.restore", entityType: "spec_template", entityId: id, before, after: { archived } });
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: archived ? "spec_template.archive" : "spec_template.restore",
+      entityType: "spec_template",
+      entityId: id,
+      before,
+      after: { archived },
+    });
     return recordOf(row, t);
   });
 }

@@ -15,11 +15,20 @@ import type { Transaction } from "sequelize";
 // Dates travel as UTC text both ways ('YYYY-MM-DD HH:MM:SS.mmm'): the driver would format and
 // parse them in the Node process's local time zone, while the session runs at +00:00.
 
-type DriverConnection = { query(opts: Record<string, unknown> & { sql: string }, values?: unknown[]): Promise<unknown> };
+type DriverConnection = {
+  query(opts: Record<string, unknown> & { sql: string }, values?: unknown[]): Promise<unknown>;
+};
 export type WriteResult = { affectedRows: number; insertId: number };
 
 // Per-query options override the connection's (Sequelize's typeCast hook would parse each field).
-const OPTIONS = { typeCast: undefined, decimalAsNumber: true, bigIntAsNumber: true, insertIdAsNumber: true, dateStrings: true, checkDuplicate: false };
+const OPTIONS = {
+  typeCast: undefined,
+  decimalAsNumber: true,
+  bigIntAsNumber: true,
+  insertIdAsNumber: true,
+  dateStrings: true,
+  checkDuplicate: false,
+};
 
 function driverOf(t: Transaction): DriverConnection {
   const c = (t as unknown as { connection?: DriverConnection }).connection;
@@ -53,7 +62,11 @@ async function run(t: Transaction, sql: string, values: unknown[]): Promise<unkn
 const param = (v: unknown) => (v === undefined ? null : v instanceof Date ? utcText(v) : v);
 
 /** SELECT rows as plain objects (DECIMAL and BIGINT as numbers, DATETIME as UTC text). */
-export async function sqlRows<T = Record<string, unknown>>(t: Transaction, sql: string, values: unknown[] = []): Promise<T[]> {
+export async function sqlRows<T = Record<string, unknown>>(
+  t: Transaction,
+  sql: string,
+  values: unknown[] = [],
+): Promise<T[]> {
   const rows = (await run(t, sql, values)) as T[];
   return Array.isArray(rows) ? rows : [];
 }

@@ -14,9 +14,13 @@ export function insertSql(table: string, columns: readonly string[], count: numb
 }
 
 /** Inserts `rows` (values in `columns` order); returns the first auto-increment id, if the table has one. */
-export async function insertMany(t: Transaction, table: string, columns: readonly string[], rows: unknown[][]): Promise<number> {
+export async function insertMany(
+  t: Transaction,
+  table: string,
+  columns: readonly string[],
+  rows: unknown[][],
+): Promise<number> {
   if (rows.length === 0) return 0;
   const { insertId } = await sqlWrite(t, insertSql(table, columns, rows.length), rows.flat());
   return insertId;
 }
-

@@ -22,7 +22,15 @@ function client(): S3Client {
 const bucket = () => env().S3_BUCKET;
 
 export async function putObject(key: string, body: Buffer, contentType: string): Promise<void> {
-  await client().send(new PutObjectCommand({ Bucket: bucket(), Key: key, Body: body, ContentType: contentType, ContentLength: body.length }));
+  await client().send(
+    new PutObjectCommand({
+      Bucket: bucket(),
+      Key: key,
+      Body: body,
+      ContentType: contentType,
+      ContentLength: body.length,
+    }),
+  );
 }
 
 export async function deleteObject(key: string): Promise<void> {

@@ -87,7 +87,9 @@ async function changedState(shopId: number, jobIds: number[], rows: ChangeRow[])
   const flagIds = ids("flag").map(Number);
   const limitJobs = [...new Set(rows.filter((r) => r.entity === "job_limits").map((r) => Number(r.jobId)))];
   const [readings, corrections, flags] = await Promise.all([
-    readingsOfJobs(jobIds, readingIds), correctionsOf(readingIds), flagsOfJobs(jobIds, { ids: flagIds }),
+    readingsOfJobs(jobIds, readingIds),
+    correctionsOf(readingIds),
+    flagsOfJobs(jobIds, { ids: flagIds }),
   ]);
   const inputs = await derivedInputs(shopId, [...new Set(flags.filter((f) => f.derivedKey).map((f) => f.jobId))]);
   const limits = [];

@@ -35,7 +35,9 @@ export function tooLarge(size: number | null, max: number): AppError {
 export async function sniffType(buf: Buffer, name: string): Promise<string> {
   const found = await fileTypeFromBuffer(buf);
   if (found && ALLOWED_TYPES[found.mime]) return found.mime;
-  const looks = found ? `looks like ${found.ext.toUpperCase()} (${found.mime})` : "is not a type Tenthwise can recognise";
+  const looks = found
+    ? `looks like ${found.ext.toUpperCase()} (${found.mime})`
+    : "is not a type Tenthwise can recognise";
   throw new AppError("unsupported_media", `"${name}" ${looks}, whatever its name says. Upload ${ALLOWED_WORDS}.`);
 }
 
@@ -54,7 +56,10 @@ export async function makeThumbnail(buf: Buffer, mime: string, name: string): Pr
       .toBuffer();
   } catch {
     if (mime === "image/heic" || mime === "image/heif") return null;
-    throw new AppError("unsupported_media", `"${name}" could not be read as a picture; it may be damaged. Take the photo again.`);
+    throw new AppError(
+      "unsupported_media",
+      `"${name}" could not be read as a picture; it may be damaged. Take the photo again.`,
+    );
   }
 }
 
@@ -62,6 +67,9 @@ export async function makeThumbnail(buf: Buffer, mime: string, name: string): Pr
 export function cleanFileName(raw: string | undefined, fallback: string): string {
   const base = (raw ?? "").split(/[\\/]/).pop() ?? "";
   // eslint-disable-next-line no-control-regex
-  const clean = base.replace(/[\u0000-\u001f\u007f"]/g, "").trim().slice(0, 200);
+  const clean = base
+    .replace(/[\u0000-\u001f\u007f"]/g, "")
+    .trim()
+    .slice(0, 200);
   return clean || fallback;
 }

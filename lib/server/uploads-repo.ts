@@ -23,10 +23,20 @@ export type StoredAttachment = AttachmentView & { shopId: number; objectKey: str
 
 export function reshapeAttachment(a: Attachment): StoredAttachment {
   return {
-    id: a.id, shopId: a.shopId, ownerType: a.ownerType, ownerId: a.ownerId, contentType: a.contentType,
-    sizeBytes: a.sizeBytes, originalName: a.originalName, hasThumb: !!a.thumbKey, objectKey: a.objectKey,
-    thumbKey: a.thumbKey ?? null, url: `/api/attachments/${a.id}`, thumbUrl: a.thumbKey ? `/api/attachments/${a.id}/thumb` : null,
-    uploadedBy: a.uploadedBy, createdAt: a.createdAt.toISOString(),
+    id: a.id,
+    shopId: a.shopId,
+    ownerType: a.ownerType,
+    ownerId: a.ownerId,
+    contentType: a.contentType,
+    sizeBytes: a.sizeBytes,
+    originalName: a.originalName,
+    hasThumb: !!a.thumbKey,
+    objectKey: a.objectKey,
+    thumbKey: a.thumbKey ?? null,
+    url: `/api/attachments/${a.id}`,
+    thumbUrl: a.thumbKey ? `/api/attachments/${a.id}/thumb` : null,
+    uploadedBy: a.uploadedBy,
+    createdAt: a.createdAt.toISOString(),
   };
 }
 
@@ -49,17 +59,31 @@ export async function getAttachmentOrThrow(shopId: number, id: string): Promise<
   return a;
 }
 
-export async function listAttachments(shopId: number, ownerType: AttachmentOwnerType, ownerIds: string[]): Promise<StoredAttachment[]> {
+export async function listAttachments(
+  shopId: number,
+  ownerType: AttachmentOwnerType,
+  ownerIds: string[],
+): Promise<StoredAttachment[]> {
   getSequelize();
   if (ownerIds.length === 0) return [];
-  const rows = await Attachment.findAll({ where: { shopId, ownerType, ownerId: ownerIds }, order: [["createdAt", "ASC"], ["id", "ASC"]] });
+  const rows = await Attachment.findAll({
+    where: { shopId, ownerType, ownerId: ownerIds },
+    order: [
+      ["createdAt", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
   return rows.map(reshapeAttachment);
 }
 
 export type OwnerInfo = { jobId: number | null; locked: boolean; jobCode?: string };
 
 /** The owner, in this shop; 404 for a missing one or another shop's (never say which). */
-export async function findOwnerOrThrow(shopId: number, ownerType: AttachmentOwnerType, ownerId: string): Promise<OwnerInfo> {
+export async function findOwnerOrThrow(
+  shopId: number,
+  ownerType: AttachmentOwnerType,
+  ownerId: string,
+): Promise<OwnerInfo> {
   getSequelize();
   if (ownerType === "instrument") {
     const id = Number(ownerId);
@@ -78,13 +102,20 @@ export async function findOwnerOrThrow(shopId: number, ownerType: AttachmentOwne
   }
   const job = jobId ? await Job.findOne({ where: { id: jobId, shopId } }) : null;
   if (!job) throw notFound("Job");
-  return { jobId: job.id, jobCode: job.code, locked: job.status === "released" || job.status === "closed" || !!job.lockedAt };
+  return {
+    jobId: job.id,
+    jobCode: job.code,
+    locked: job.status === "released" || job.status === "closed" || !!job.lockedAt,
+  };
 }
 
 export function refuseLocked(owner: OwnerInfo): void {
   if (!owner.locked) return;
   const job = owner.jobCode ? `Job ${owner.jobCode}` : "This job";
-  throw new AppError("job_locked", `${job} is released and locked, so no files can be added to it. A lead can reopen it with a reason.`);
+  throw new AppError(
+    "job_locked",
+    `${job} is released and locked, so no files can be added to it. A lead can reopen it with a reason.`,
+  );
 }
 
 export type NewAttachment = Omit<StoredAttachment, "hasThumb" | "url" | "thumbUrl" | "createdAt">;
@@ -92,8 +123,16 @@ export type NewAttachment = Omit<StoredAttachment, "hasThumb" | "url" | "thumbUr
 export async function insertAttachment(t: Transaction, a: NewAttachment): Promise<StoredAttachment> {
   const row = await Attachment.create(
     {
-      id: a.id, shopId: a.shopId, ownerType: a.ownerType, ownerId: a.ownerId, objectKey: a.objectKey, thumbKey: a.thumbKey,
-      contentType: a.contentType, sizeBytes: a.sizeBytes, originalName: a.originalName, uploadedBy: a.uploadedBy,
+      id: a.id,
+      shopId: a.shopId,
+      ownerType: a.ownerType,
+      ownerId: a.ownerId,
+      objectKey: a.objectKey,
+      thumbKey: a.thumbKey,
+      contentType: a.contentType,
+      sizeBytes: a.sizeBytes,
+      originalName: a.originalName,
+      uploadedBy: a.uploadedBy,
     },
     { transaction: t },
   );

@@ -10,8 +10,14 @@ import { AppError, invalid } from "./errors";
 import { deleteObject, putObject } from "./storage";
 import { cleanFileName, makeThumbnail, sniffType, tooLarge } from "./uploads-content";
 import {
-  findAttachmentById, findOwnerOrThrow, insertAttachment, linkCertificate, refuseLocked, toView,
-  type AttachmentView, type StoredAttachment,
+  findAttachmentById,
+  findOwnerOrThrow,
+  insertAttachment,
+  linkCertificate,
+  refuseLocked,
+  toView,
+  type AttachmentView,
+  type StoredAttachment,
 } from "./uploads-repo";
 
 // POST /api/attachments: one file with its owner. A resend with the same clientId (the tablet
@@ -29,13 +35,22 @@ async function readForm(req: Request, max: number): Promise<{ fields: UploadFiel
   try {
     form = await req.formData();
   } catch {
-    throw new AppError("bad_request", "Send the upload as multipart/form-data with the fields file, ownerType, ownerId and clientId");
+    throw new AppError(
+      "bad_request",
+      "Send the upload as multipart/form-data with the fields file, ownerType, ownerId and clientId",
+    );
   }
-  const parsed = uploadFieldsSchema.safeParse({ ownerType: form.get("ownerType"), ownerId: form.get("ownerId"), clientId: form.get("clientId") });
+  const parsed = uploadFieldsSchema.safeParse({
+    ownerType: form.get("ownerType"),
+    ownerId: form.get("ownerId"),
+    clientId: form.get("clientId"),
+  });
   const file = form.get("file");
   if (!parsed.success) throw invalid(parsed.error);
   if (!(file instanceof File) || file.size === 0) {
-    throw new AppError("invalid", "Choose a file to upload", { file: ["Attach the photo or PDF as the field 'file'; it was missing or empty"] });
+    throw new AppError("invalid", "Choose a file to upload", {
+      file: ["Attach the photo or PDF as the field 'file'; it was missing or empty"],
+    });
   }
   return { fields: parsed.data, file };
 }
@@ -43,7 +58,10 @@ async function readForm(req: Request, max: number): Promise<{ fields: UploadFiel
 function checkRole(actor: Actor, fields: UploadFields): void {
   const allowed: readonly string[] = UPLOAD_ROLES[fields.ownerType];
   if (!allowed.includes(actor.role)) {
-    const what = fields.ownerType === "instrument" ? "Gauge certificates are uploaded by the shop admin" : "Job and reading photos are added by a machinist or the lead";
+    const what =
+      fields.ownerType === "instrument"
+        ? "Gauge certificates are uploaded by the shop admin"
+        : "Job and reading photos are added by a machinist or the lead";
     throw new AppError("forbidden", what);
   }
 }
@@ -63,16 +81,39 @@ async function store(actor: Actor, fields: UploadFields, file: File, buf: Buffer
   await putObject(key, buf, mime);
   if (thumb && thumbKey) await putObject(thumbKey, thumb, "image/jpeg");
   const row = {
-    id: fields.clientId, shopId: actor.shopId, ownerType: fields.ownerType, ownerId: fields.ownerId, objectKey: key, thumbKey,
-    contentType: mime, sizeBytes: buf.length, originalName: cleanFileName(file.name, `upload-${fields.clientId.slice(0, 8)}`), uploadedBy: actor.userId,
+    id: fields.clientId,
+    shopId: actor.shopId,
+    ownerType: fields.ownerType,
+    ownerId: fields.ownerId,
+    objectKey: key,
+    thumbKey,
+    contentType: mime,
+    sizeBytes: buf.length,
+    originalName: cleanFileName(file.name, `upload-${fields.clientId.slice(0, 8)}`),
+    uploadedBy: actor.userId,
   };
   try {
     return await getSequelize().transaction(async (t) => {
       const saved = await insertAttachment(t, row);
-      await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action: "attachment.create", entityType: "attachment", entityId: saved.id, after: toView(saved) });
+      await recordAudit(t, {
+        shopId: actor.shopId,
+        userId: actor.userId,
+        action: "attachment.create",
+        entityType: "attachment",
+        entityId: saved.id,
+        after: toView(saved),
+      });
       if (fields.ownerType === "instrument") {
         const link = await linkCertificate(t, actor.shopId, Number(fields.ownerId), saved.id);
-        await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action: "instrument.certificate", entityType: "instrument", entityId: fields.ownerId, before: { certificateAttachmentId: link.before }, after: { certificateAttachmentId: link.after } });
+        await recordAudit(t, {
+          shopId: actor.shopId,
+          userId: actor.userId,
+          action: "instrument.certificate",
+          entityType: "instrument",
+          entityId: fields.ownerId,
+          before: { certificateAttachmentId: link.before },
+          after: { certificateAttachmentId: link.after },
+        });
       }
       return { attachment: toView(saved), created: true };
     });

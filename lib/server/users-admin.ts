@@ -24,7 +24,11 @@ export function temporaryPassword(): string {
 
 function toAdminUser(u: User): AdminUser {
   return {
-    id: u.id, name: u.name, email: u.email, role: u.role, active: u.active,
+    id: u.id,
+    name: u.name,
+    email: u.email,
+    role: u.role,
+    active: u.active,
     lastSignInAt: u.lastSignInAt ? u.lastSignInAt.toISOString() : null,
     createdAt: u.createdAt.toISOString(),
   };
@@ -35,7 +39,13 @@ const auditView = (u: User) => ({ name: u.name, email: u.email, role: u.role, ac
 
 export async function listShopUsers(shopId: number): Promise<AdminUser[]> {
   getSequelize();
-  const rows = await User.findAll({ where: { shopId }, order: [["active", "DESC"], ["name", "ASC"]] });
+  const rows = await User.findAll({
+    where: { shopId },
+    order: [
+      ["active", "DESC"],
+      ["name", "ASC"],
+    ],
+  });
   return rows.map(toAdminUser);
 }
 
@@ -50,12 +60,26 @@ export async function inviteUser(actor: Actor, input: InviteUserInput) {
   return sequelize.transaction(async (t) => {
     const taken = await User.findOne({ where: { shopId: actor.shopId, email: input.email }, transaction: t });
     if (taken) {
-      throw new AppError("conflict", `${input.email} already has an account in this shop${taken.active ? "" : " (deactivated: reactivate it instead)"}`, {
-        email: ["This e-mail already has an account"],
-      });
+      throw new AppError(
+        "conflict",
+        `${input.email} already has an account in this shop${taken.active ? "" : " (deactivated: reactivate it instead)"}`,
+        {
+          email: ["This e-mail already has an account"],
+        },
+      );
     }
-    const user = await User.create({ shopId: actor.shopId, name: input.name, email: input.email, role: input.role, passwordHash }, { transaction: t });
-    await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action: "user.invited", entityType: "user", entityId: user.id, after: auditView(user) });
+    const user = await User.create(
+      { shopId: actor.shopId, name: input.name, email: input.email, role: input.role, passwordHash },
+      { transaction: t },
+    );
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "user.invited",
+      entityType: "user",
+      entityId: user.id,
+      after: auditView(user),
+    });
     return { user: toAdminUser(user), temporaryPassword: password };
   });
 }
@@ -71,7 +95,12 @@ async function lockedUser(actor: Actor, userId: number, t: Transaction): Promise
  * other wait in turn instead of deadlocking) and returns their ids.
  */
 async function lockActiveAdmins(shopId: number, t: Transaction): Promise<number[]> {
-  const admins = await User.findAll({ where: { shopId, role: "admin", active: true }, order: [["id", "ASC"]], transaction: t, lock: t.LOCK.UPDATE });
+  const admins = await User.findAll({
+    where: { shopId, role: "admin", active: true },
+    order: [["id", "ASC"]],
+    transaction: t,
+    lock: t.LOCK.UPDATE,
+  });
   return admins.map((a) => a.id);
 }
 
@@ -98,11 +127,26 @@ export async function updateUser(actor: Actor, userId: number, change: UpdateUse
     const before = auditView(user);
     const actions: string[] = [];
     if (change.role !== undefined && change.role !== user.role) actions.push("user.role_changed");
-    if (change.active !== undefined && change.active !== user.active) actions.push(change.active ? "user.reactivated" : "user.deactivated");
+    if (change.active !== undefined && change.active !== user.active)
+      actions.push(change.active ? "user.reactivated" : "user.deactivated");
     if (!actions.length) return toAdminUser(user);
-    await user.update({ ...(change.role !== undefined ? { role: change.role } : {}), ...(change.active !== undefined ? { active: change.active } : {}) }, { transaction: t });
+    await user.update(
+      {
+        ...(change.role !== undefined ? { role: change.role } : {}),
+        ...(change.active !== undefined ? { active: change.active } : {}),
+      },
+      { transaction: t },
+    );
     for (const action of actions) {
-      await recordAudit(t, { shopId: actor.shopId, userId: actor.userId, action, entityType: "user", entityId: user.id, before, after: auditView(user) });
+      await recordAudit(t, {
+        shopId: actor.shopId,
+        userId: actor.userId,
+        action,
+        entityType: "user",
+        entityId: user.id,
+        before,
+        after: auditView(user),
+      });
     }
     return toAdminUser(user);
   });
@@ -114,12 +158,21 @@ export async function resetPassword(actor: Actor, userId: number) {
   const passwordHash = await hashOf(password);
   return getSequelize().transaction(async (t) => {
     const user = await lockedUser(actor, userId, t);
-    if (!user.active) throw new AppError("conflict", `${user.name}'s account is deactivated; reactivate it before resetting the password`);
+    if (!user.active)
+      throw new AppError(
+        "conflict",
+        `${user.name}'s account is deactivated; reactivate it before resetting the password`,
+      );
     await user.update({ passwordHash, failedAttempts: 0, lockedUntil: null }, { transaction: t });
     await AuthThrottle.destroy({ where: { throttleKey: `email:${user.email.toLowerCase()}` }, transaction: t });
     await recordAudit(t, {
-      shopId: actor.shopId, userId: actor.userId, action: "user.password_reset", entityType: "user", entityId: user.id,
-      before: auditView(user), after: { ...auditView(user), passwordReset: true },
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "user.password_reset",
+      entityType: "user",
+      entityId: user.id,
+      before: auditView(user),
+      after: { ...auditView(user), passwordReset: true },
     });
     return { user: toAdminUser(user), temporaryPassword: password };
   });

@@ -39,5 +39,7 @@ export async function listUsers(shopId: number, opts: { activeOnly?: boolean } =
 
 export async function countActiveAdmins(shopId: number, exceptId?: number) {
   getSequelize();
-  return User.count({ where: { shopId, role: "admin", active: true, ...(exceptId ? { id: { [Op.ne]: exceptId } } : {}) } });
+  return User.count({
+    where: { shopId, role: "admin", active: true, ...(exceptId ? { id: { [Op.ne]: exceptId } } : {}) },
+  });
 }

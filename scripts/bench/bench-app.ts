@@ -18,8 +18,14 @@ type Lib = {
 const lib = (name: string) => `../lib/${name}.mjs`;
 
 export const CHROMIUM_ARGS = [
-  "--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
-  "--disable-background-networking", "--disable-component-update", "--disable-sync",
+  "--headless",
+  "--no-sandbox",
+  "--disable-gpu",
+  "--disable-quic",
+  "--no-first-run",
+  "--disable-background-networking",
+  "--disable-component-update",
+  "--disable-sync",
 ];
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -42,7 +48,11 @@ export async function startApp(): Promise<{ baseUrl: string; stop: () => Promise
   const { ensureBuild } = (await import(lib("build"))) as Lib;
   const { freePort } = (await import(lib("ports"))) as Lib;
   const dataRoot = mkdtempSync(join(tmpdir(), "tenthwise-bench-"));
-  const secrets = { SESSION_SECRET: randomBytes(32).toString("hex"), LINK_SECRET: randomBytes(32).toString("hex"), DB_APP_PASSWORD: randomBytes(12).toString("hex") };
+  const secrets = {
+    SESSION_SECRET: randomBytes(32).toString("hex"),
+    LINK_SECRET: randomBytes(32).toString("hex"),
+    DB_APP_PASSWORD: randomBytes(12).toString("hex"),
+  };
   const [dbPort, smtpPort, s3Port, appPort] = [await freePort(), await freePort(), await freePort(), await freePort()];
   const services = await startServices({ mode: "test", dataRoot, dbPort, smtpPort, s3Port, secrets });
   const baseUrl = `http://127.0.0.1:${appPort}`;
@@ -50,21 +60,34 @@ export async function startApp(): Promise<{ baseUrl: string; stop: () => Promise
   const stop = async () => {
     if (server && server.exitCode === null) {
       server.kill("SIGTERM");
-      await new Promise((r) => { server!.once("exit", r); setTimeout(r, 5000); });
+      await new Promise((r) => {
+        server!.once("exit", r);
+        setTimeout(r, 5000);
+      });
     }
     await services.stop();
     rmSync(dataRoot, { recursive: true, force: true });
   };
   try {
     const env = {
-      ...process.env, ...services.env, NEXT_TELEMETRY_DISABLED: "1", SESSION_SECRET: secrets.SESSION_SECRET,
-      LINK_SECRET: secrets.LINK_SECRET, APP_URL: baseUrl, NOTIFY_INTERVAL_SECONDS: "0",
+      ...process.env,
+      ...services.env,
+      NEXT_TELEMETRY_DISABLED: "1",
+      SESSION_SECRET: secrets.SESSION_SECRET,
+      LINK_SECRET: secrets.LINK_SECRET,
+      APP_URL: baseUrl,
+      NOTIFY_INTERVAL_SECONDS: "0",
     };
-    execFileSync("node", ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts", "--seed"], { stdio: "inherit", env });
+    execFileSync(
+      "node",
+      ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts", "--seed"],
+      { stdio: "inherit", env },
+    );
     // TW_BENCH_DIST_DIR: serve a build made by hand (e.g. with TW_SOURCE_MAPS=1 for profiling).
     const distDir = process.env.TW_BENCH_DIST_DIR || ensureBuild({ perVersion: true });
     server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(appPort), "-H", "127.0.0.1"], {
-      stdio: ["ignore", "ignore", "inherit"], env: { ...env, NODE_ENV: "production", TW_DIST_DIR: distDir },
+      stdio: ["ignore", "ignore", "inherit"],
+      env: { ...env, NODE_ENV: "production", TW_DIST_DIR: distDir },
     });
     await waitForHttp(`${baseUrl}/sign-in`);
     return { baseUrl, stop };

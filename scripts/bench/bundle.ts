@@ -20,7 +20,13 @@ async function scriptsOf(page: Page, go: () => Promise<void>): Promise<Loaded[]>
   const onResponse = async (res: import("playwright-core").Response) => {
     if (res.request().resourceType() !== "script" || seen.has(res.url())) return;
     const body = await res.body().catch(() => null);
-    if (body) seen.set(res.url(), { url: res.url(), raw: body.length, gzip: gzipSync(body).length, late: asked.get(res.url()) ?? true });
+    if (body)
+      seen.set(res.url(), {
+        url: res.url(),
+        raw: body.length,
+        gzip: gzipSync(body).length,
+        late: asked.get(res.url()) ?? true,
+      });
   };
   page.on("request", onRequest);
   page.on("response", onResponse);
@@ -43,7 +49,9 @@ async function main() {
     const ctx = await browser.newContext({ viewport: { width: 1024, height: 768 }, serviceWorkers: "block" });
     const page = await ctx.newPage();
     await signIn(page, app.baseUrl, "rosa@kestrelflats.example", "bench-demo-2026");
-    const { jobs } = (await page.evaluate(async () => (await fetch("/api/bench/jobs")).json())) as { jobs: { id: number; code: string }[] };
+    const { jobs } = (await page.evaluate(async () => (await fetch("/api/bench/jobs")).json())) as {
+      jobs: { id: number; code: string }[];
+    };
     const job = jobs.find((j) => j.code === "KF-2611") ?? jobs[0];
 
     // Each page in a fresh context (no HTTP cache shared), signed in with the same session cookie.
@@ -66,14 +74,27 @@ async function main() {
     const later = bench.filter((b) => b.late);
     const emptyFirst = empty.filter((b) => !b.late);
     const ratio = total(first, "gzip") / total(emptyFirst, "gzip");
-    console.log("\nbench:bundle — first-load JavaScript (scripts asked for before the page is ready), gzipped (zlib default level), Chromium, no service worker\n");
-    console.log(`bench job screen (/bench/job)   ${kb(total(first, "gzip"))} gzip  ${kb(total(first, "raw"))} raw  ${first.length} scripts`);
-    console.log(`empty page (not-found)          ${kb(total(emptyFirst, "gzip"))} gzip  ${kb(total(emptyFirst, "raw"))} raw  ${emptyFirst.length} scripts`);
-    console.log(`ratio                           ${ratio.toFixed(2)}×  target ≤ 1.5× ${ratio <= 1.5 ? "met" : "NOT met"}`);
-    console.log(`loaded after the job screen was ready (sync engine, prefetches): ${kb(total(later, "gzip"))} gzip in ${later.length} scripts; all of it ${(total(bench, "gzip") / total(empty, "gzip")).toFixed(2)}× the empty page's\n`);
+    console.log(
+      "\nbench:bundle — first-load JavaScript (scripts asked for before the page is ready), gzipped (zlib default level), Chromium, no service worker\n",
+    );
+    console.log(
+      `bench job screen (/bench/job)   ${kb(total(first, "gzip"))} gzip  ${kb(total(first, "raw"))} raw  ${first.length} scripts`,
+    );
+    console.log(
+      `empty page (not-found)          ${kb(total(emptyFirst, "gzip"))} gzip  ${kb(total(emptyFirst, "raw"))} raw  ${emptyFirst.length} scripts`,
+    );
+    console.log(
+      `ratio                           ${ratio.toFixed(2)}×  target ≤ 1.5× ${ratio <= 1.5 ? "met" : "NOT met"}`,
+    );
+    console.log(
+      `loaded after the job screen was ready (sync engine, prefetches): ${kb(total(later, "gzip"))} gzip in ${later.length} scripts; all of it ${(total(bench, "gzip") / total(empty, "gzip")).toFixed(2)}× the empty page's\n`,
+    );
     const emptyUrls = new Set(empty.map((e) => new URL(e.url).pathname));
     console.log("largest first-load scripts only the bench loads:");
-    for (const s of first.filter((b) => !emptyUrls.has(new URL(b.url).pathname)).sort((a, b) => b.gzip - a.gzip).slice(0, 8)) {
+    for (const s of first
+      .filter((b) => !emptyUrls.has(new URL(b.url).pathname))
+      .sort((a, b) => b.gzip - a.gzip)
+      .slice(0, 8)) {
       console.log(`  ${kb(s.gzip)}  ${new URL(s.url).pathname}`);
     }
   } finally {

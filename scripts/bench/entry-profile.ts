@@ -14,7 +14,9 @@ async function main() {
     const ctx = await browser.newContext({ viewport: { width: 1024, height: 768 } });
     const page = await ctx.newPage();
     await signIn(page, app.baseUrl, "rosa@kestrelflats.example", "bench-demo-2026");
-    const { jobs } = await page.evaluate(async () => (await fetch("/api/bench/jobs")).json()) as { jobs: { id: number; code: string }[] };
+    const { jobs } = (await page.evaluate(async () => (await fetch("/api/bench/jobs")).json())) as {
+      jobs: { id: number; code: string }[];
+    };
     const job = jobs.find((j) => j.code === "KF-2611") ?? jobs[0];
     await page.goto(`${app.baseUrl}/bench/job?id=${job.id}`);
     await page.getByTestId("job-screen").waitFor();
@@ -23,12 +25,20 @@ async function main() {
     await page.getByTestId("entry").focus();
     const cdp = await ctx.newCDPSession(page);
     await cdp.send("Emulation.setCPUThrottlingRate", { rate: 4 });
-    for (let i = 0; i < 5; i++) { await page.keyboard.type("4.0302"); await page.keyboard.press("Enter"); await page.waitForTimeout(300); }
+    for (let i = 0; i < 5; i++) {
+      await page.keyboard.type("4.0302");
+      await page.keyboard.press("Enter");
+      await page.waitForTimeout(300);
+    }
     await cdp.send("Profiler.enable");
     await cdp.send("Profiler.setSamplingInterval", { interval: 100 });
     const events: unknown[] = [];
     cdp.on("Tracing.dataCollected", (d) => void events.push(...(d.value as unknown[])));
-    await cdp.send("Tracing.start", { categories: "devtools.timeline,blink.user_timing,disabled-by-default-devtools.timeline,disabled-by-default-devtools.timeline.invalidationTracking", transferMode: "ReportEvents" });
+    await cdp.send("Tracing.start", {
+      categories:
+        "devtools.timeline,blink.user_timing,disabled-by-default-devtools.timeline,disabled-by-default-devtools.timeline.invalidationTracking",
+      transferMode: "ReportEvents",
+    });
     await cdp.send("Profiler.start");
     for (let i = 0; i < 20; i++) {
       await page.keyboard.type("4.0302");
@@ -49,4 +59,7 @@ async function main() {
     await app.stop();
   }
 }
-main().catch((e) => { console.error(e); process.exit(1); });
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});

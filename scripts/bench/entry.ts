@@ -46,11 +46,26 @@ document.getElementById("in").addEventListener("keydown", (e) => {
 // In-spec figures for the demo V8's street spec (scripts/seed/demo-specs.ts), by station, so
 // every entry takes the usual path (verdict, then the next station) whatever the seed left open.
 const V8_FIGURES: [RegExp, string][] = [
-  [/^bore\//, "4.0302"], [/^deck\//, "9.0250"], [/^main-brg\//, "2.4515"], [/^main\//, "2.4490"],
-  [/^rod\//, "2.0990"], [/^rod-brg\//, "2.1012"], [/^skirt\//, "4.0285"], [/\/free$/, "2.0000"], [/\/loaded$/, "2.0058"],
-  [/\/top$/, "0.0180"], [/\/second$/, "0.0200"], [/\/(third|oil)$/, "0.0300"], [/^end-play$/, "0.0040"], [/^side\//, "0.0150"],
-  [/^lash\/.*\/int/, "0.0180"], [/^lash\/.*\/exh/, "0.0200"], [/^torque\/main-caps$/, "72"], [/^torque\/head-bolts$/, "67"],
-  [/^torque\/rod-bolts$/, "47"], [/^torque\//, "62"],
+  [/^bore\//, "4.0302"],
+  [/^deck\//, "9.0250"],
+  [/^main-brg\//, "2.4515"],
+  [/^main\//, "2.4490"],
+  [/^rod\//, "2.0990"],
+  [/^rod-brg\//, "2.1012"],
+  [/^skirt\//, "4.0285"],
+  [/\/free$/, "2.0000"],
+  [/\/loaded$/, "2.0058"],
+  [/\/top$/, "0.0180"],
+  [/\/second$/, "0.0200"],
+  [/\/(third|oil)$/, "0.0300"],
+  [/^end-play$/, "0.0040"],
+  [/^side\//, "0.0150"],
+  [/^lash\/.*\/int/, "0.0180"],
+  [/^lash\/.*\/exh/, "0.0200"],
+  [/^torque\/main-caps$/, "72"],
+  [/^torque\/head-bolts$/, "67"],
+  [/^torque\/rod-bolts$/, "47"],
+  [/^torque\//, "62"],
 ];
 
 async function valueFor(page: Page): Promise<string> {
@@ -63,7 +78,15 @@ async function valueFor(page: Page): Promise<string> {
 }
 
 type Sample = { painted: number; committed: number };
-type TraceEvent = { name: string; ph: string; ts: number; dur?: number; pid: number; tid: number; args?: { data?: { type?: string } } };
+type TraceEvent = {
+  name: string;
+  ph: string;
+  ts: number;
+  dur?: number;
+  pid: number;
+  tid: number;
+  args?: { data?: { type?: string } };
+};
 
 /**
  * From the trace: "painted" ends with the first Paint on the page's main thread after the Enter
@@ -102,13 +125,20 @@ async function prepare(page: Page, label: string, values: () => Promise<string>)
     const k = i++;
     await page.keyboard.type(await values());
     await page.keyboard.press("Enter");
-    await page.waitForFunction((n) => {
-      const s = (window as unknown as { __tw: { samples: { seen?: boolean; committed?: boolean }[] } }).__tw.samples[n];
-      return !!(s?.seen && s.committed);
-    }, k, { timeout: 30_000 }).catch(async (err: Error) => {
-      const note = await page.evaluate(() => document.getElementById("tw-entry-note")?.textContent);
-      throw new Error(`${label}: entry ${k + 1} was not saved (${note ?? "no note"}): ${err.message}`);
-    });
+    await page
+      .waitForFunction(
+        (n) => {
+          const s = (window as unknown as { __tw: { samples: { seen?: boolean; committed?: boolean }[] } }).__tw
+            .samples[n];
+          return !!(s?.seen && s.committed);
+        },
+        k,
+        { timeout: 30_000 },
+      )
+      .catch(async (err: Error) => {
+        const note = await page.evaluate(() => document.getElementById("tw-entry-note")?.textContent);
+        throw new Error(`${label}: entry ${k + 1} was not saved (${note ?? "no note"}): ${err.message}`);
+      });
   };
   // Marks the page in the trace, so its events can be told from the other page's.
   const mark = () => page.evaluate((l) => void performance.mark(`tw:page:${l}`), label);
@@ -133,21 +163,26 @@ async function measure(browser: Browser, pages: Awaited<ReturnType<typeof prepar
   await done;
   for (const p of pages) await p.unthrottle();
   // Each page's events by its renderer process, found by the page's own mark.
-  return new Map(pages.map((p) => {
-    const pid = events.find((e) => e.name === `tw:page:${p.label}`)?.pid;
-    return [p.label, fromTrace(events.filter((e) => e.pid === pid)).slice(WARMUP)];
-  }));
+  return new Map(
+    pages.map((p) => {
+      const pid = events.find((e) => e.name === `tw:page:${p.label}`)?.pid;
+      return [p.label, fromTrace(events.filter((e) => e.pid === pid)).slice(WARMUP)];
+    }),
+  );
 }
 
 function summary(samples: Sample[], key: keyof Sample) {
   const xs = samples.map((s) => s[key]).filter((x) => Number.isFinite(x));
-  if (xs.length < samples.length) console.warn(`(${samples.length - xs.length} samples without a ${key} time in the trace)`);
+  if (xs.length < samples.length)
+    console.warn(`(${samples.length - xs.length} samples without a ${key} time in the trace)`);
   return { p50: percentile(xs, 50), p95: percentile(xs, 95) };
 }
 
 async function benchPage(baseUrl: string, page: Page) {
   await signIn(page, baseUrl, "rosa@kestrelflats.example", "bench-demo-2026");
-  const { jobs } = await page.evaluate(async () => (await fetch("/api/bench/jobs")).json()) as { jobs: { id: number; code: string }[] };
+  const { jobs } = (await page.evaluate(async () => (await fetch("/api/bench/jobs")).json())) as {
+    jobs: { id: number; code: string }[];
+  };
   const job = jobs.find((j) => j.code === "KF-2611") ?? jobs[0];
   await page.goto(`${baseUrl}/bench/job?id=${job.id}`);
   await page.getByTestId("job-screen").waitFor();
@@ -158,7 +193,14 @@ async function benchPage(baseUrl: string, page: Page) {
 }
 
 async function barePage(page: Page) {
-  const js = await build({ stdin: { contents: BARE, resolveDir: process.cwd(), loader: "js" }, bundle: true, format: "iife", minify: true, write: false, logLevel: "silent" });
+  const js = await build({
+    stdin: { contents: BARE, resolveDir: process.cwd(), loader: "js" },
+    bundle: true,
+    format: "iife",
+    minify: true,
+    write: false,
+    logLevel: "silent",
+  });
   const html = `<!doctype html><meta charset="utf-8"><input id="in" autofocus><p id="out"></p><script>${js.outputFiles[0].text}</script>`;
   await page.route("http://bare.bench.local/**", (route) => route.fulfill({ contentType: "text/html", body: html }));
   await page.goto("http://bare.bench.local/");
@@ -175,17 +217,31 @@ async function main() {
     const pages = [await benchPage(app.baseUrl, await benchCtx.newPage()), await barePage(await bareCtx.newPage())];
     const samples = await measure(browser, pages);
     const [bench, bare] = [samples.get("bench")!, samples.get("bare")!];
-    if (process.env.TW_BENCH_VERBOSE) bench.forEach((b, i) => console.log(`entry ${i + 1}: bench ${b.painted.toFixed(1)} / ${b.committed.toFixed(1)} ms, bare ${bare[i]?.painted.toFixed(1)} / ${bare[i]?.committed.toFixed(1)} ms`));
+    if (process.env.TW_BENCH_VERBOSE)
+      bench.forEach((b, i) =>
+        console.log(
+          `entry ${i + 1}: bench ${b.painted.toFixed(1)} / ${b.committed.toFixed(1)} ms, bare ${bare[i]?.painted.toFixed(1)} / ${bare[i]?.committed.toFixed(1)} ms`,
+        ),
+      );
     const rows = (["painted", "committed"] as const).map((k) => {
       const b = summary(bench, k);
       const f = summary(bare, k);
-      return { figure: `Enter → ${k === "painted" ? "verdict painted" : "committed in IndexedDB"}`, bench: b, bare: f, ratio: b.p95 / f.p95 };
+      return {
+        figure: `Enter → ${k === "painted" ? "verdict painted" : "committed in IndexedDB"}`,
+        bench: b,
+        bare: f,
+        ratio: b.p95 / f.p95,
+      };
     });
-    console.log(`\nbench:entry — ${ENTRIES} entries each (after ${WARMUP} warm-up), the two pages in turn, Chromium, CPU throttled ${THROTTLE}×, offline; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores\n`);
+    console.log(
+      `\nbench:entry — ${ENTRIES} entries each (after ${WARMUP} warm-up), the two pages in turn, Chromium, CPU throttled ${THROTTLE}×, offline; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores\n`,
+    );
     console.log("figure                           bench p50  bench p95   bare p50   bare p95   p95 ratio  target");
     for (const r of rows) {
       const f = (x: number) => `${x.toFixed(1).padStart(7)} ms`;
-      console.log(`${r.figure.padEnd(32)} ${f(r.bench.p50)} ${f(r.bench.p95)} ${f(r.bare.p50)} ${f(r.bare.p95)}   ${r.ratio.toFixed(2).padStart(6)}×  ≤ 1.25× ${r.ratio <= 1.25 ? "met" : "NOT met"}`);
+      console.log(
+        `${r.figure.padEnd(32)} ${f(r.bench.p50)} ${f(r.bench.p95)} ${f(r.bare.p50)} ${f(r.bare.p95)}   ${r.ratio.toFixed(2).padStart(6)}×  ≤ 1.25× ${r.ratio <= 1.25 ? "met" : "NOT met"}`,
+      );
     }
   } finally {
     await browser.close();

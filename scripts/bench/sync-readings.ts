@@ -7,25 +7,43 @@ import { benchRoute } from "@/lib/domain";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 
 export const V8: EngineShape = {
-  cylinders: 8, layout: "v", mains: 5, valvesPerCylinder: 2, unitSystem: "inch",
-  materials: { block: "greyCastIron" }, nominalSizes: { bore: 4.03 },
+  cylinders: 8,
+  layout: "v",
+  mains: 5,
+  valvesPerCylinder: 2,
+  unitSystem: "inch",
+  materials: { block: "greyCastIron" },
+  nominalSizes: { bore: 4.03 },
 };
 
 // Centre and spread (± in the station's unit), first matching pattern wins. Spreads are chosen so
 // a few percent of values (raw or derived) land out of spec or marginal, as on a real bench.
 const FIGURES: [pattern: RegExp, centre: number, spread: number][] = [
-  [/^bore\//, 4.0302, 0.0002], [/^main-brg\//, 2.4512, 0.0001], [/^main\//, 2.449, 0.0001],
-  [/^rod-brg\//, 2.1012, 0.0001], [/^rod\//, 2.099, 0.0001], [/^skirt\//, 4.0285, 0.0002],
-  [/^ring-gap\/.*\/second$/, 0.021, 0.002], [/^ring-gap\/.*\/oil$/, 0.03, 0.01], [/^ring-gap\//, 0.019, 0.002],
-  [/^side\//, 0.015, 0.003], [/^end-play$/, 0.004, 0.001], [/^bolt\//, 6, 0.0001], [/^deck\//, 9.025, 0.002],
-  [/^lash\/.*\/int$/, 0.018, 0.0015], [/^lash\//, 0.02, 0.0015],
-  [/^torque\/main-caps$/, 72, 2], [/^torque\/head-bolts$/, 67, 2], [/^torque\/rod-bolts$/, 47, 2], [/^torque\//, 62, 2],
+  [/^bore\//, 4.0302, 0.0002],
+  [/^main-brg\//, 2.4512, 0.0001],
+  [/^main\//, 2.449, 0.0001],
+  [/^rod-brg\//, 2.1012, 0.0001],
+  [/^rod\//, 2.099, 0.0001],
+  [/^skirt\//, 4.0285, 0.0002],
+  [/^ring-gap\/.*\/second$/, 0.021, 0.002],
+  [/^ring-gap\/.*\/oil$/, 0.03, 0.01],
+  [/^ring-gap\//, 0.019, 0.002],
+  [/^side\//, 0.015, 0.003],
+  [/^end-play$/, 0.004, 0.001],
+  [/^bolt\//, 6, 0.0001],
+  [/^deck\//, 9.025, 0.002],
+  [/^lash\/.*\/int$/, 0.018, 0.0015],
+  [/^lash\//, 0.02, 0.0015],
+  [/^torque\/main-caps$/, 72, 2],
+  [/^torque\/head-bolts$/, 67, 2],
+  [/^torque\/rod-bolts$/, 47, 2],
+  [/^torque\//, 62, 2],
 ];
 
 /** A deterministic pseudo-random sequence, so every run measures the same figures. */
 function lcg(seed: number) {
   let x = seed >>> 0;
-  return () => ((x = (Math.imul(x, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+  return () => (x = (Math.imul(x, 1664525) + 1013904223) >>> 0) / 2 ** 32;
 }
 
 function valueFor(stationId: string, rnd: () => number): number {
@@ -45,8 +63,14 @@ export function benchReadings(jobIds: number[], count: number, takenAt: string):
     for (const st of stations) {
       if (out.length === count) return out;
       out.push({
-        id: randomUUID(), jobId, stationId: st.id, value: valueFor(st.id, rnd), unit: st.unit, entryMode: "direct",
-        takenAt, ...(st.torque ? { lubricant: "engine-oil" as const } : {}),
+        id: randomUUID(),
+        jobId,
+        stationId: st.id,
+        value: valueFor(st.id, rnd),
+        unit: st.unit,
+        entryMode: "direct",
+        takenAt,
+        ...(st.torque ? { lubricant: "engine-oil" as const } : {}),
       });
     }
   }

@@ -12,26 +12,78 @@ import type { PushReadingInput } from "@/lib/schemas/sync";
 import { STREET_V8_INCH } from "../seed/demo-specs";
 
 const COLUMNS = [
-  "id", "shop_id", "job_id", "station_id", "characteristic", "value_canonical", "value_entered", "unit_entered",
-  "entry_mode", "dial_setting", "dial_deviation", "instrument_id", "part_temp_c", "gauge_temp_c", "lubricant",
-  "skipped", "skip_reason", "note", "taken_by", "taken_at", "received_at", "device_id", "supersedes", "verdict",
-  "verdict_note", "limit_min", "limit_max", "deviation", "created_at", "updated_at",
+  "id",
+  "shop_id",
+  "job_id",
+  "station_id",
+  "characteristic",
+  "value_canonical",
+  "value_entered",
+  "unit_entered",
+  "entry_mode",
+  "dial_setting",
+  "dial_deviation",
+  "instrument_id",
+  "part_temp_c",
+  "gauge_temp_c",
+  "lubricant",
+  "skipped",
+  "skip_reason",
+  "note",
+  "taken_by",
+  "taken_at",
+  "received_at",
+  "device_id",
+  "supersedes",
+  "verdict",
+  "verdict_note",
+  "limit_min",
+  "limit_max",
+  "deviation",
+  "created_at",
+  "updated_at",
 ];
 type Row = Record<string, unknown>;
 
 async function fixture(jobs: number) {
   const sequelize = getSequelize();
   await migrateUp(sequelize);
-  const shop = await Shop.create({ name: "Bench shop (benchmark data)", slug: `bench-${randomUUID().slice(0, 6)}`, unitSystem: "in" });
-  const user = await User.create({ shopId: shop.id, name: "Bench machinist", email: "bench@bench.example", passwordHash: "x", role: "machinist" });
+  const shop = await Shop.create({
+    name: "Bench shop (benchmark data)",
+    slug: `bench-${randomUUID().slice(0, 6)}`,
+    unitSystem: "in",
+  });
+  const user = await User.create({
+    shopId: shop.id,
+    name: "Bench machinist",
+    email: "bench@bench.example",
+    passwordHash: "x",
+    role: "machinist",
+  });
   const customer = await Customer.create({ shopId: shop.id, name: "Bench customer" });
   const engine = await Engine.create({
-    shopId: shop.id, customerId: customer.id, description: "Benchmark V8", cylinders: 8, layout: "v", mains: 5,
-    unitSystem: "in", nominalBore: 4.03, nominalStroke: 3.48, blockMaterial: "greyCastIron",
+    shopId: shop.id,
+    customerId: customer.id,
+    description: "Benchmark V8",
+    cylinders: 8,
+    layout: "v",
+    mains: 5,
+    unitSystem: "in",
+    nominalBore: 4.03,
+    nominalStroke: 3.48,
+    blockMaterial: "greyCastIron",
   });
   const jobIds: number[] = [];
   for (let i = 0; i < jobs; i++) {
-    const job = await Job.create({ shopId: shop.id, customerId: customer.id, engineId: engine.id, code: `B-${i + 1}`, title: `Bench job ${i + 1}`, unitSystem: "in", status: "measuring" });
+    const job = await Job.create({
+      shopId: shop.id,
+      customerId: customer.id,
+      engineId: engine.id,
+      code: `B-${i + 1}`,
+      title: `Bench job ${i + 1}`,
+      unitSystem: "in",
+      status: "measuring",
+    });
     await JobLimit.bulkCreate(STREET_V8_INCH.map((l, k) => ({ ...l, jobId: job.id, sortOrder: k })) as never[]);
     jobIds.push(job.id);
   }
@@ -47,7 +99,11 @@ async function fixture(jobs: number) {
 function traceQueries() {
   const timing = new Map<string, [number, number]>();
   const record = (sql: string, ms: number) => {
-    const key = sql.replace(/^Execut\w+ \([^)]*\): /, "").replace(/\s+/g, " ").replace(/\d+/g, "N").slice(0, 70);
+    const key = sql
+      .replace(/^Execut\w+ \([^)]*\): /, "")
+      .replace(/\s+/g, " ")
+      .replace(/\d+/g, "N")
+      .slice(0, 70);
     const cur = timing.get(key) ?? [0, 0];
     timing.set(key, [cur[0] + 1, cur[1] + ms]);
   };
@@ -58,7 +114,8 @@ function traceQueries() {
     setSqlTrace(record);
   }
   const print = () => {
-    for (const [k, [n, ms]] of [...timing].sort((a, b) => b[1][1] - a[1][1]).slice(0, 20)) console.log(`${ms.toFixed(0).padStart(7)} ms ${String(n).padStart(6)}× ${k}`);
+    for (const [k, [n, ms]] of [...timing].sort((a, b) => b[1][1] - a[1][1]).slice(0, 20))
+      console.log(`${ms.toFixed(0).padStart(7)} ms ${String(n).padStart(6)}× ${k}`);
   };
   return { print };
 }
@@ -76,7 +133,11 @@ export async function setUp(jobs: number) {
       const mine = readings.filter((r) => jobs.indexOf(r.jobId) % clients === c);
       for (let i = 0; i < mine.length; i += batch) {
         const body = JSON.stringify({ deviceId: `bench-tablet-${c}`, readings: mine.slice(i, i + batch) });
-        const req = new Request("http://localhost/api/sync", { method: "POST", headers: { cookie, "content-type": "application/json" }, body });
+        const req = new Request("http://localhost/api/sync", {
+          method: "POST",
+          headers: { cookie, "content-type": "application/json" },
+          body,
+        });
         const res = await POST(req);
         if (res.status !== 200) throw new Error(`POST /api/sync answered ${res.status}: ${await res.text()}`);
         await res.arrayBuffer();
@@ -88,7 +149,10 @@ export async function setUp(jobs: number) {
   /** The handler's stored rows of `from` jobs, as new rows (fresh ids) of the `to` jobs. */
   async function rowsLikeMany(from: number[], to: number[]): Promise<Row[]> {
     const map = new Map(from.map((id, i) => [id, to[i]]));
-    const rows: Row[] = await conn.query(`SELECT ${COLUMNS.join(", ")} FROM readings WHERE job_id IN (?) ORDER BY job_id, taken_at, id`, [from]);
+    const rows: Row[] = await conn.query(
+      `SELECT ${COLUMNS.join(", ")} FROM readings WHERE job_id IN (?) ORDER BY job_id, taken_at, id`,
+      [from],
+    );
     return rows.map((r) => ({ ...r, id: randomUUID(), job_id: map.get(Number(r.job_id)), supersedes: null }));
   }
 
@@ -96,7 +160,10 @@ export async function setUp(jobs: number) {
     if (rows.length === 0) return;
     const tuple = `(${COLUMNS.map(() => "?").join(",")})`;
     const sql = `INSERT INTO readings (${COLUMNS.join(",")}) VALUES ${rows.map(() => tuple).join(",")}`;
-    await conn.query(sql, rows.flatMap((r) => COLUMNS.map((c) => r[c])));
+    await conn.query(
+      sql,
+      rows.flatMap((r) => COLUMNS.map((c) => r[c])),
+    );
   }
 
   const countIn = async (sql: string, ids: number[]) => Number((await conn.query(sql, [ids]))[0].n);

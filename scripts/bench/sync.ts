@@ -14,14 +14,26 @@ const TAKEN_AT = "2026-11-30T08:00:00.000Z";
 
 // Server modules import the "server-only" marker; run again with a tsconfig that maps it to a stub.
 if (!process.env.TW_BENCH_CHILD) {
-  const r = spawnSync(process.execPath, ["node_modules/tsx/dist/cli.mjs", "--tsconfig", "scripts/bench/tsconfig.sync.json", "scripts/bench/sync.ts"], {
-    stdio: "inherit", env: { ...process.env, TW_BENCH_CHILD: "1", NODE_ENV: "production" },
-  });
+  const r = spawnSync(
+    process.execPath,
+    ["node_modules/tsx/dist/cli.mjs", "--tsconfig", "scripts/bench/tsconfig.sync.json", "scripts/bench/sync.ts"],
+    {
+      stdio: "inherit",
+      env: { ...process.env, TW_BENCH_CHILD: "1", NODE_ENV: "production" },
+    },
+  );
   process.exit(r.status ?? 1);
 }
 
 type Services = {
-  startMariaDb(o: { dataDir: string; port: number; database: string; user: string; password: string; throwaway: boolean }): Promise<{ url: string; pid: number; stop(): Promise<void> }>;
+  startMariaDb(o: {
+    dataDir: string;
+    port: number;
+    database: string;
+    user: string;
+    password: string;
+    throwaway: boolean;
+  }): Promise<{ url: string; pid: number; stop(): Promise<void> }>;
   freePort(): Promise<number>;
 };
 
@@ -32,16 +44,38 @@ async function startDb() {
   const { freePort } = (await import(lib("ports"))) as Services;
   const dir = mkdtempSync(join(tmpdir(), "tenthwise-bench-"));
   const password = randomBytes(12).toString("hex");
-  const db = await startMariaDb({ dataDir: join(dir, "mariadb"), port: await freePort(), database: "tenthwise_bench", user: "tenthwise", password, throwaway: true });
-  Object.assign(process.env, { DATABASE_URL: db.url, SESSION_SECRET: randomBytes(32).toString("hex"), DB_POOL_MAX: "10" });
-  return { url: db.url, pid: db.pid, stop: async () => { await db.stop(); rmSync(dir, { recursive: true, force: true }); } };
+  const db = await startMariaDb({
+    dataDir: join(dir, "mariadb"),
+    port: await freePort(),
+    database: "tenthwise_bench",
+    user: "tenthwise",
+    password,
+    throwaway: true,
+  });
+  Object.assign(process.env, {
+    DATABASE_URL: db.url,
+    SESSION_SECRET: randomBytes(32).toString("hex"),
+    DB_POOL_MAX: "10",
+  });
+  return {
+    url: db.url,
+    pid: db.pid,
+    stop: async () => {
+      await db.stop();
+      rmSync(dir, { recursive: true, force: true });
+    },
+  };
 }
 
 const perSec = (n: number, ms: number) => Math.round((n * 1000) / ms);
 
 /** CPU time (ms) used so far by this process and by the MariaDB server: wall clock on a busy machine is noisy. */
 function cpuNow(dbPid: number): { node: number; db: number } {
-  const [utime, stime] = readFileSync(`/proc/${dbPid}/stat`, "utf8").split(") ")[1].split(" ").slice(11, 13).map(Number);
+  const [utime, stime] = readFileSync(`/proc/${dbPid}/stat`, "utf8")
+    .split(") ")[1]
+    .split(" ")
+    .slice(11, 13)
+    .map(Number);
   const u = process.cpuUsage();
   return { node: (u.user + u.system) / 1000, db: ((utime + stime) * 1000) / 100 };
 }
@@ -85,14 +119,29 @@ async function main() {
     const four = await measure(db.pid, () => ctx.pushAll(parallel, BATCH, 4));
 
     const stored = await ctx.countReadings([...oneTablet, ...fourTablets]);
-    if (stored !== readings.length + parallel.length || rows.length !== readings.length) throw new Error(`stored ${stored}, raw ${rows.length}, sent ${readings.length}`);
-    const [h, r, p] = [perSec(readings.length, one.wall), perSec(rows.length, bare.wall), perSec(parallel.length, four.wall)];
+    if (stored !== readings.length + parallel.length || rows.length !== readings.length)
+      throw new Error(`stored ${stored}, raw ${rows.length}, sent ${readings.length}`);
+    const [h, r, p] = [
+      perSec(readings.length, one.wall),
+      perSec(rows.length, bare.wall),
+      perSec(parallel.length, four.wall),
+    ];
     const cpu = (m: typeof one) => `CPU: node ${m.node.toFixed(0)} ms, MariaDB ${m.db.toFixed(0)} ms`;
-    console.log(`bench:sync  ${fmt(readings.length)} readings in batches of ${BATCH} over ${oneTablet.length} V8 jobs (${await ctx.countFlags(oneTablet)} flags opened), ${queries.toFixed(1)} queries per batch; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores`);
-    console.log(`  POST /api/sync, one tablet  : ${fmt(h).padStart(7)} readings/s (${one.wall.toFixed(0)} ms; ${cpu(one)}; readings, verdicts, flags, audit and change feed)`);
-    console.log(`  POST /api/sync, four tablets: ${fmt(p).padStart(7)} readings/s (${four.wall.toFixed(0)} ms; ${cpu(four)})`);
-    console.log(`  raw multi-row INSERT        : ${fmt(r).padStart(7)} readings/s (${bare.wall.toFixed(0)} ms; ${cpu(bare)}; the readings table only)`);
-    console.log(`  ratio handler / raw         : ${(h / r).toFixed(2)} one tablet, ${(p / r).toFixed(2)} four tablets (target ≥ 0.50)`);
+    console.log(
+      `bench:sync  ${fmt(readings.length)} readings in batches of ${BATCH} over ${oneTablet.length} V8 jobs (${await ctx.countFlags(oneTablet)} flags opened), ${queries.toFixed(1)} queries per batch; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores`,
+    );
+    console.log(
+      `  POST /api/sync, one tablet  : ${fmt(h).padStart(7)} readings/s (${one.wall.toFixed(0)} ms; ${cpu(one)}; readings, verdicts, flags, audit and change feed)`,
+    );
+    console.log(
+      `  POST /api/sync, four tablets: ${fmt(p).padStart(7)} readings/s (${four.wall.toFixed(0)} ms; ${cpu(four)})`,
+    );
+    console.log(
+      `  raw multi-row INSERT        : ${fmt(r).padStart(7)} readings/s (${bare.wall.toFixed(0)} ms; ${cpu(bare)}; the readings table only)`,
+    );
+    console.log(
+      `  ratio handler / raw         : ${(h / r).toFixed(2)} one tablet, ${(p / r).toFixed(2)} four tablets (target ≥ 0.50)`,
+    );
     if (process.env.TW_BENCH_TRACE) ctx.printTrace();
     await ctx.close();
   } finally {

@@ -5,7 +5,14 @@ import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, wri
 import { join } from "node:path";
 
 const SOURCES = ["app", "components", "hooks", "lib", "models", "migrations", "public"];
-const FILES = ["package-lock.json", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json", "serwist.config.js"];
+const FILES = [
+  "package-lock.json",
+  "next.config.mjs",
+  "tailwind.config.ts",
+  "postcss.config.mjs",
+  "tsconfig.json",
+  "serwist.config.js",
+];
 const SKIP = /(^|\/)(sw\.js|sw\.js\.map|swe-worker-.*\.js)$/;
 
 function walk(dir, out) {
@@ -29,7 +36,12 @@ function sourceHash() {
 const LOCK = ".next-build.lock";
 
 function alive(pid) {
-  try { process.kill(pid, 0); return true; } catch { return false; }
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 // Two runs on one checkout (npm start and npm test, say) must not build at the same time:
@@ -46,11 +58,16 @@ function withBuildLock(fn) {
       else execSync("sleep 1");
     }
   }
-  try { return fn(); } finally { rmSync(LOCK, { recursive: true, force: true }); }
+  try {
+    return fn();
+  } finally {
+    rmSync(LOCK, { recursive: true, force: true });
+  }
 }
 
 const stampOf = (distDir) => `${distDir}/.tenthwise-source-hash`;
-const current = (distDir, hash) => existsSync(stampOf(distDir)) && readFileSync(stampOf(distDir), "utf8") === hash && existsSync(`${distDir}/BUILD_ID`);
+const current = (distDir, hash) =>
+  existsSync(stampOf(distDir)) && readFileSync(stampOf(distDir), "utf8") === hash && existsSync(`${distDir}/BUILD_ID`);
 
 /**
  * Builds when the sources changed and returns the folder the server must use (as TW_DIST_DIR).
@@ -69,8 +86,11 @@ export function ensureBuild({ force = false, perVersion = false } = {}) {
 
 // Keeps the newest few test builds; older ones are no longer served by any recent run.
 function pruneOldVersions(keep) {
-  const dirs = readdirSync(".next-test").map((d) => `.next-test/${d}`).filter((d) => d !== keep)
-    .map((d) => ({ d, t: statSync(d).mtimeMs })).sort((a, b) => b.t - a.t);
+  const dirs = readdirSync(".next-test")
+    .map((d) => `.next-test/${d}`)
+    .filter((d) => d !== keep)
+    .map((d) => ({ d, t: statSync(d).mtimeMs }))
+    .sort((a, b) => b.t - a.t);
   for (const { d } of dirs.slice(3)) rmSync(d, { recursive: true, force: true });
 }
 
@@ -83,6 +103,7 @@ function build(distDir, force) {
   // git-ignored one and the committed tsconfig.json stays as written.
   writeFileSync("tsconfig.next.json", JSON.stringify({ extends: "./tsconfig.json" }, null, 2));
   execSync("node node_modules/next/dist/bin/next build", { stdio: "inherit", env });
-  if (existsSync("serwist.config.js")) execSync("node node_modules/@serwist/cli/cli.js build", { stdio: "inherit", env });
+  if (existsSync("serwist.config.js"))
+    execSync("node node_modules/@serwist/cli/cli.js build", { stdio: "inherit", env });
   writeFileSync(stampOf(distDir), hash);
 }

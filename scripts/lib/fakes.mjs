@@ -22,7 +22,10 @@ export async function startFakeSmtp({ port, mailDir }) {
       });
     },
   });
-  await new Promise((res, rej) => { server.once("error", rej); server.listen(port, "127.0.0.1", res); });
+  await new Promise((res, rej) => {
+    server.once("error", rej);
+    server.listen(port, "127.0.0.1", res);
+  });
   return { port, mailDir, stop: () => new Promise((res) => server.close(res)) };
 }
 
@@ -30,7 +33,13 @@ export async function startFakeS3({ port, dir, bucket }) {
   const { default: S3rver } = await import("s3rver");
   dir = resolve(dir);
   mkdirSync(dir, { recursive: true });
-  const server = new S3rver({ port, address: "127.0.0.1", directory: dir, silent: true, configureBuckets: [{ name: bucket }] });
+  const server = new S3rver({
+    port,
+    address: "127.0.0.1",
+    directory: dir,
+    silent: true,
+    configureBuckets: [{ name: bucket }],
+  });
   await server.run();
   return { endpoint: `http://127.0.0.1:${port}`, stop: () => server.close() };
 }

@@ -10,8 +10,12 @@ export async function startServices({ mode, dataRoot, dbPort, smtpPort, s3Port, 
   try {
     if (!process.env.DATABASE_URL && !process.env.DB_HOST) {
       const db = await startMariaDb({
-        dataDir: `${dataRoot}/mariadb`, port: dbPort, database: throwaway ? "tenthwise_test" : "tenthwise",
-        user: "tenthwise", password: secrets.DB_APP_PASSWORD, throwaway,
+        dataDir: `${dataRoot}/mariadb`,
+        port: dbPort,
+        database: throwaway ? "tenthwise_test" : "tenthwise",
+        user: "tenthwise",
+        password: secrets.DB_APP_PASSWORD,
+        throwaway,
         // Tests get a second, empty database so the migrations test can run every down and up
         // without touching the seeded one the app and other tests use.
         extraDatabases: throwaway ? ["tenthwise_scratch"] : [],
@@ -30,7 +34,12 @@ export async function startServices({ mode, dataRoot, dbPort, smtpPort, s3Port, 
     if (!process.env.S3_ENDPOINT) {
       const s3 = await startFakeS3({ port: s3Port, dir: `${dataRoot}/s3`, bucket: "tenthwise" });
       stops.push(s3.stop);
-      Object.assign(env, { S3_ENDPOINT: s3.endpoint, S3_BUCKET: "tenthwise", S3_ACCESS_KEY_ID: "S3RVER", S3_SECRET_ACCESS_KEY: "S3RVER" });
+      Object.assign(env, {
+        S3_ENDPOINT: s3.endpoint,
+        S3_BUCKET: "tenthwise",
+        S3_ACCESS_KEY_ID: "S3RVER",
+        S3_SECRET_ACCESS_KEY: "S3RVER",
+      });
     }
   } catch (err) {
     for (const stop of stops.reverse()) await stop().catch(() => {});

@@ -21,7 +21,9 @@ export function ensureSystemPackages(names) {
   const pkgs = missing.map((n) => PACKAGES[n].pkg);
   const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
   if (!isRoot) {
-    console.error(`\nTenthwise needs these Debian packages: ${pkgs.join(" ")}\nInstall them with:\n  sudo apt-get update && sudo apt-get install -y ${pkgs.join(" ")}\n`);
+    console.error(
+      `\nTenthwise needs these Debian packages: ${pkgs.join(" ")}\nInstall them with:\n  sudo apt-get update && sudo apt-get install -y ${pkgs.join(" ")}\n`,
+    );
     process.exit(1);
   }
   console.log(`[tenthwise] installing ${pkgs.join(", ")} with apt-get …`);

@@ -43,12 +43,17 @@ function v8(g: DemoContext["instruments"]): Entry[] {
         const journal = a === "A" ? 2.449 : 2.4491;
         const tight = m === 3 && p === "front" && a === "A";
         mains.push([`main/${m}/${p}/${a}`, journal, { instrumentId: g.mic }]);
-        mains.push([`main-brg/${m}/${p}/${a}`, tight ? 2.4507 : Number((journal + 0.0022).toFixed(4)), { instrumentId: g.dialBore }]);
+        mains.push([
+          `main-brg/${m}/${p}/${a}`,
+          tight ? 2.4507 : Number((journal + 0.0022).toFixed(4)),
+          { instrumentId: g.dialBore },
+        ]);
       }
     }
   }
   return [
-    ...bores, ...mains,
+    ...bores,
+    ...mains,
     ["end-play", 0.0045, { instrumentId: g.indicator }],
     ["torque/main-caps", 72, { unit: "lbf_ft", instrumentId: g.torque, lubricant: "engine-oil" }],
     ["torque/flywheel", 62, { unit: "lbf_ft", instrumentId: g.torque, lubricant: "thread-sealant" }],
@@ -60,7 +65,14 @@ function diesel(g: DemoContext["instruments"]): Entry[] {
   const bore = { top: 104.018, mid: 104.014, bottom: 104.012 };
   // Bore 2 runs large; its top on axis B, 104.033 mm, is 2 µm under the H7 maximum (104.035) and
   // within the gauge's U = 3 µm of it: marginal. Taper and out-of-round stay well inside.
-  const bore2 = { "top/A": 104.028, "mid/A": 104.025, "bottom/A": 104.024, "top/B": 104.033, "mid/B": 104.029, "bottom/B": 104.027 } as Record<string, number>;
+  const bore2 = {
+    "top/A": 104.028,
+    "mid/A": 104.025,
+    "bottom/A": 104.024,
+    "top/B": 104.033,
+    "mid/B": 104.029,
+    "bottom/B": 104.027,
+  } as Record<string, number>;
   for (let c = 1; c <= 4; c++) {
     for (const [d, v] of Object.entries(bore)) {
       for (const a of AXES) {
@@ -82,18 +94,35 @@ function diesel(g: DemoContext["instruments"]): Entry[] {
 
 function six(g: DemoContext["instruments"]): Entry[] {
   return [
-    dial("bore/1/top/A", 3.5925, -0.0002, g.dialBore), dial("bore/1/top/B", 3.5925, -0.0001, g.dialBore),
-    dial("bore/2/top/A", 3.5925, -0.0002, g.dialBore), dial("bore/2/top/B", 3.5925, -0.0003, g.dialBore),
-    ["deck/block/front", 9.381], ["deck/block/rear", 9.379],
+    dial("bore/1/top/A", 3.5925, -0.0002, g.dialBore),
+    dial("bore/1/top/B", 3.5925, -0.0001, g.dialBore),
+    dial("bore/2/top/A", 3.5925, -0.0002, g.dialBore),
+    dial("bore/2/top/B", 3.5925, -0.0003, g.dialBore),
+    ["deck/block/front", 9.381],
+    ["deck/block/rear", 9.379],
   ];
 }
 
-async function push(actor: Parameters<typeof ingestBatch>[0], jobId: number, day: number, device: string, entries: Entry[]) {
+async function push(
+  actor: Parameters<typeof ingestBatch>[0],
+  jobId: number,
+  day: number,
+  device: string,
+  entries: Entry[],
+) {
   const readings = entries.map(([stationId, value, extra], i): PushReadingInput => ({
-    id: randomUUID(), jobId, stationId, value, unit: "in", entryMode: "direct", takenAt: at(day, i * 2), ...extra,
+    id: randomUUID(),
+    jobId,
+    stationId,
+    value,
+    unit: "in",
+    entryMode: "direct",
+    takenAt: at(day, i * 2),
+    ...extra,
   }));
   const reply = await ingestBatch(actor, { deviceId: device, readings });
-  if (reply.status !== 200) throw new Error(`Demo readings for job ${jobId} were refused: ${JSON.stringify(reply.body).slice(0, 800)}`);
+  if (reply.status !== 200)
+    throw new Error(`Demo readings for job ${jobId} were refused: ${JSON.stringify(reply.body).slice(0, 800)}`);
 }
 
 /** Adds the demo readings; returns the context unchanged so seedDemo can end with it. */

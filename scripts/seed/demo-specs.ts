@@ -2,23 +2,66 @@
 // shop values chosen for the demo, not published limits; real limits come from the engine,
 // piston, bearing and fastener makers' instructions.
 type Limit = {
-  characteristic: string; stationPattern: string; limitType: "min_max" | "nominal_tol" | "max_only" | "min_only" | "per_inch" | "iso286";
-  unit: string; min?: number; max?: number; nominal?: number; tolPlus?: number; tolMinus?: number;
-  perInchMin?: number; perInchMax?: number; isoClass?: string; required: boolean; gaugeKind?: string; label?: string;
+  characteristic: string;
+  stationPattern: string;
+  limitType: "min_max" | "nominal_tol" | "max_only" | "min_only" | "per_inch" | "iso286";
+  unit: string;
+  min?: number;
+  max?: number;
+  nominal?: number;
+  tolPlus?: number;
+  tolMinus?: number;
+  perInchMin?: number;
+  perInchMax?: number;
+  isoClass?: string;
+  required: boolean;
+  gaugeKind?: string;
+  label?: string;
 };
 
-const L = (characteristic: string, limitType: Limit["limitType"], unit: string, v: Partial<Limit>, stationPattern = "*"): Limit => ({
-  characteristic, stationPattern, limitType, unit, required: true, ...v,
+const L = (
+  characteristic: string,
+  limitType: Limit["limitType"],
+  unit: string,
+  v: Partial<Limit>,
+  stationPattern = "*",
+): Limit => ({
+  characteristic,
+  stationPattern,
+  limitType,
+  unit,
+  required: true,
+  ...v,
 });
 
 export const STREET_V8_INCH: Limit[] = [
-  L("bore_diameter", "nominal_tol", "in", { nominal: 4.03, tolPlus: 0.0004, tolMinus: 0.0001, gaugeKind: "dial-bore-gauge" }),
+  L("bore_diameter", "nominal_tol", "in", {
+    nominal: 4.03,
+    tolPlus: 0.0004,
+    tolMinus: 0.0001,
+    gaugeKind: "dial-bore-gauge",
+  }),
   L("bore_taper", "max_only", "in", { max: 0.0005 }),
   L("bore_out_of_round", "max_only", "in", { max: 0.0005 }),
-  L("piston_skirt_diameter", "nominal_tol", "in", { nominal: 4.0285, tolPlus: 0.0003, tolMinus: 0.0003, gaugeKind: "micrometer" }),
+  L("piston_skirt_diameter", "nominal_tol", "in", {
+    nominal: 4.0285,
+    tolPlus: 0.0003,
+    tolMinus: 0.0003,
+    gaugeKind: "micrometer",
+  }),
   L("piston_to_wall", "min_max", "in", { min: 0.0012, max: 0.0022 }),
-  L("main_journal_diameter", "nominal_tol", "in", { nominal: 2.449, tolPlus: 0.0005, tolMinus: 0.0005, gaugeKind: "micrometer" }),
-  L("rod_journal_diameter", "nominal_tol", "in", { nominal: 2.099, tolPlus: 0.0005, tolMinus: 0.0005, gaugeKind: "micrometer" }),
+  L("main_journal_diameter", "nominal_tol", "in", {
+    nominal: 2.449,
+    tolPlus: 0.0005,
+    tolMinus: 0.0005,
+    gaugeKind: "micrometer",
+  }),
+  L("rod_journal_diameter", "nominal_tol", "in", {
+    nominal: 2.099,
+    tolPlus: 0.0005,
+    tolMinus: 0.0005,
+    gaugeKind: "micrometer",
+  }),
   L("main_journal_taper", "max_only", "in", { max: 0.0003 }),
   L("main_journal_out_of_round", "max_only", "in", { max: 0.0003 }),
   L("rod_journal_taper", "max_only", "in", { max: 0.0003 }),
@@ -27,7 +70,13 @@ export const STREET_V8_INCH: Limit[] = [
   L("rod_oil_clearance", "min_max", "in", { min: 0.0018, max: 0.0026 }),
   L("ring_end_gap", "min_max", "in", { min: 0.016, max: 0.022, gaugeKind: "feeler" }, "ring-gap/*/top"),
   L("ring_end_gap", "min_max", "in", { min: 0.018, max: 0.025, gaugeKind: "feeler" }, "ring-gap/*/second"),
-  L("ring_end_gap", "min_max", "in", { min: 0.015, max: 0.055, gaugeKind: "feeler", required: false }, "ring-gap/*/oil"),
+  L(
+    "ring_end_gap",
+    "min_max",
+    "in",
+    { min: 0.015, max: 0.055, gaugeKind: "feeler", required: false },
+    "ring-gap/*/oil",
+  ),
   L("rod_side_clearance", "min_max", "in", { min: 0.01, max: 0.02, gaugeKind: "feeler" }),
   L("crank_end_play", "min_max", "in", { min: 0.002, max: 0.006, gaugeKind: "dial-indicator" }),
   L("rod_bolt_stretch", "min_max", "in", { min: 0.0055, max: 0.0062 }),
@@ -45,7 +94,12 @@ export const TRACTOR_DIESEL_MM: Limit[] = [
   L("bore_diameter", "iso286", "mm", { nominal: 104, isoClass: "H7", gaugeKind: "dial-bore-gauge" }),
   L("bore_taper", "max_only", "mm", { max: 0.015 }),
   L("bore_out_of_round", "max_only", "mm", { max: 0.012 }),
-  L("piston_skirt_diameter", "nominal_tol", "mm", { nominal: 103.88, tolPlus: 0.01, tolMinus: 0.01, gaugeKind: "micrometer" }),
+  L("piston_skirt_diameter", "nominal_tol", "mm", {
+    nominal: 103.88,
+    tolPlus: 0.01,
+    tolMinus: 0.01,
+    gaugeKind: "micrometer",
+  }),
   L("piston_to_wall", "min_max", "mm", { min: 0.1, max: 0.16 }),
   L("main_journal_diameter", "min_max", "mm", { min: 84.98, max: 85.0, gaugeKind: "micrometer" }),
   L("rod_journal_diameter", "min_max", "mm", { min: 69.98, max: 70.0, gaugeKind: "micrometer" }),

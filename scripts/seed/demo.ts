@@ -7,7 +7,11 @@ import { Customer, Engine, Instrument, Job, JobLimit, Shop, SpecLimit, SpecTempl
 import { seedDemoReadings } from "./demo-readings";
 import { STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-specs";
 
-type Demo = { shop: string; password: string; accounts: { role: "machinist" | "lead" | "inspector" | "admin"; name: string; email: string }[] };
+type Demo = {
+  shop: string;
+  password: string;
+  accounts: { role: "machinist" | "lead" | "inspector" | "admin"; name: string; email: string }[];
+};
 
 export type DemoContext = {
   shopId: number;
@@ -16,13 +20,34 @@ export type DemoContext = {
   instruments: Record<string, number>;
 };
 
-async function template(shopId: number, name: string, engineKind: string, buildKind: string, unitSystem: "in" | "mm", limits: typeof STREET_V8_INCH) {
-  const t = await SpecTemplate.create({ shopId, name, engineKind, buildKind, unitSystem, notes: "Demo spec sheet (invented figures)." });
+async function template(
+  shopId: number,
+  name: string,
+  engineKind: string,
+  buildKind: string,
+  unitSystem: "in" | "mm",
+  limits: typeof STREET_V8_INCH,
+) {
+  const t = await SpecTemplate.create({
+    shopId,
+    name,
+    engineKind,
+    buildKind,
+    unitSystem,
+    notes: "Demo spec sheet (invented figures).",
+  });
   await SpecLimit.bulkCreate(limits.map((l, i) => ({ ...l, templateId: t.id, sortOrder: i })) as never[]);
   return t;
 }
 
-async function job(shopId: number, customerId: number, engineId: number, t: SpecTemplate, limits: typeof STREET_V8_INCH, fields: { code: string; title: string; unitSystem: "in" | "mm"; dueDate: string; notes: string }) {
+async function job(
+  shopId: number,
+  customerId: number,
+  engineId: number,
+  t: SpecTemplate,
+  limits: typeof STREET_V8_INCH,
+  fields: { code: string; title: string; unitSystem: "in" | "mm"; dueDate: string; notes: string },
+) {
   const j = await Job.create({ shopId, customerId, engineId, templateId: t.id, status: "measuring", ...fields });
   await JobLimit.bulkCreate(limits.map((l, i) => ({ ...l, jobId: j.id, sortOrder: i })) as never[]);
   return j.id;
@@ -31,51 +56,227 @@ async function job(shopId: number, customerId: number, engineId: number, t: Spec
 export async function seedDemo(): Promise<DemoContext> {
   getSequelize();
   const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as Demo;
-  const shop = await Shop.create({ name: demo.shop, slug: "kestrel-flats", unitSystem: "in", email: "desk@kestrelflats.example", phone: "555-0142", address: "4 Quarry Lane, Kestrel Flats" });
+  const shop = await Shop.create({
+    name: demo.shop,
+    slug: "kestrel-flats",
+    unitSystem: "in",
+    email: "desk@kestrelflats.example",
+    phone: "555-0142",
+    address: "4 Quarry Lane, Kestrel Flats",
+  });
   const hash = await bcrypt.hash(demo.password, 10);
   const users: Record<string, number> = {};
-  for (const a of demo.accounts) users[a.role] = (await User.create({ shopId: shop.id, name: a.name, email: a.email, passwordHash: hash, role: a.role })).id;
+  for (const a of demo.accounts)
+    users[a.role] = (
+      await User.create({ shopId: shop.id, name: a.name, email: a.email, passwordHash: hash, role: a.role })
+    ).id;
 
-  const pickup = await Customer.create({ shopId: shop.id, name: "Ottoline Brisk", email: "ottoline@brisk-garage.example", phone: "555-0187", notes: "Restoring a 1970s pickup." });
-  const farm = await Customer.create({ shopId: shop.id, name: "Fenwick Hollow Farm Co-op", email: "workshop@fenwickhollow.example", phone: "555-0133" });
-  const vintage = await Customer.create({ shopId: shop.id, name: "Aurelio Stavros", email: "aurelio.stavros@example.net" });
+  const pickup = await Customer.create({
+    shopId: shop.id,
+    name: "Ottoline Brisk",
+    email: "ottoline@brisk-garage.example",
+    phone: "555-0187",
+    notes: "Restoring a 1970s pickup.",
+  });
+  const farm = await Customer.create({
+    shopId: shop.id,
+    name: "Fenwick Hollow Farm Co-op",
+    email: "workshop@fenwickhollow.example",
+    phone: "555-0133",
+  });
+  const vintage = await Customer.create({
+    shopId: shop.id,
+    name: "Aurelio Stavros",
+    email: "aurelio.stavros@example.net",
+  });
 
   const v8 = await Engine.create({
-    shopId: shop.id, customerId: pickup.id, description: "Carbureted small-block V8, 0.030 in over", cylinders: 8, layout: "v", mains: 5,
-    unitSystem: "in", nominalBore: 4.03, nominalStroke: 3.48, blockMaterial: "greyCastIron", headMaterial: "greyCastIron", pistonMaterial: "aluminium356",
-    blockSerial: "KF-V8-20391", crankSerial: "CR-55120", headSerials: "HD-7712 / HD-7713", fuel: "gasoline",
+    shopId: shop.id,
+    customerId: pickup.id,
+    description: "Carbureted small-block V8, 0.030 in over",
+    cylinders: 8,
+    layout: "v",
+    mains: 5,
+    unitSystem: "in",
+    nominalBore: 4.03,
+    nominalStroke: 3.48,
+    blockMaterial: "greyCastIron",
+    headMaterial: "greyCastIron",
+    pistonMaterial: "aluminium356",
+    blockSerial: "KF-V8-20391",
+    crankSerial: "CR-55120",
+    headSerials: "HD-7712 / HD-7713",
+    fuel: "gasoline",
   });
   const diesel = await Engine.create({
-    shopId: shop.id, customerId: farm.id, description: "Turbo-diesel inline four, tractor", cylinders: 4, layout: "inline", mains: 5,
-    unitSystem: "mm", nominalBore: 104, nominalStroke: 132, blockMaterial: "greyCastIron", headMaterial: "greyCastIron", pistonMaterial: "aluminium319",
-    blockSerial: "TD4-880214", crankSerial: "TDC-30917", headSerials: "TDH-5521", fuel: "diesel",
+    shopId: shop.id,
+    customerId: farm.id,
+    description: "Turbo-diesel inline four, tractor",
+    cylinders: 4,
+    layout: "inline",
+    mains: 5,
+    unitSystem: "mm",
+    nominalBore: 104,
+    nominalStroke: 132,
+    blockMaterial: "greyCastIron",
+    headMaterial: "greyCastIron",
+    pistonMaterial: "aluminium319",
+    blockSerial: "TD4-880214",
+    crankSerial: "TDC-30917",
+    headSerials: "TDH-5521",
+    fuel: "diesel",
   });
   const six = await Engine.create({
-    shopId: shop.id, customerId: vintage.id, description: "Vintage inline six, 0.030 in over", cylinders: 6, layout: "inline", mains: 7,
-    unitSystem: "in", nominalBore: 3.5925, nominalStroke: 3.75, blockMaterial: "greyCastIron", headMaterial: "greyCastIron", pistonMaterial: "aluminium356",
-    blockSerial: "VS6-4471", crankSerial: "VSC-1190", headSerials: "VSH-0388", fuel: "gasoline",
+    shopId: shop.id,
+    customerId: vintage.id,
+    description: "Vintage inline six, 0.030 in over",
+    cylinders: 6,
+    layout: "inline",
+    mains: 7,
+    unitSystem: "in",
+    nominalBore: 3.5925,
+    nominalStroke: 3.75,
+    blockMaterial: "greyCastIron",
+    headMaterial: "greyCastIron",
+    pistonMaterial: "aluminium356",
+    blockSerial: "VS6-4471",
+    crankSerial: "VSC-1190",
+    headSerials: "VSH-0388",
+    fuel: "gasoline",
   });
 
   const tV8 = await template(shop.id, "Street V8, cast iron block", "V8 gasoline", "street", "in", STREET_V8_INCH);
-  const tDiesel = await template(shop.id, "Tractor diesel four (metric)", "Inline-4 diesel", "diesel", "mm", TRACTOR_DIESEL_MM);
-  const tSix = await template(shop.id, "Vintage inline six, mild street", "Inline-6 gasoline", "street", "in", VINTAGE_SIX_INCH);
+  const tDiesel = await template(
+    shop.id,
+    "Tractor diesel four (metric)",
+    "Inline-4 diesel",
+    "diesel",
+    "mm",
+    TRACTOR_DIESEL_MM,
+  );
+  const tSix = await template(
+    shop.id,
+    "Vintage inline six, mild street",
+    "Inline-6 gasoline",
+    "street",
+    "in",
+    VINTAGE_SIX_INCH,
+  );
 
   const jobs = {
-    v8: await job(shop.id, pickup.id, v8.id, tV8, STREET_V8_INCH, { code: "KF-2611", title: "Pickup V8 rebuild", unitSystem: "in", dueDate: "2026-12-18", notes: "Stock rebuild, hydraulic cam swapped for a mild solid cam." }),
-    diesel: await job(shop.id, farm.id, diesel.id, tDiesel, TRACTOR_DIESEL_MM, { code: "KF-2612", title: "Tractor diesel overhaul", unitSystem: "mm", dueDate: "2026-12-11", notes: "Liner-less block, bored to first oversize." }),
-    six: await job(shop.id, vintage.id, six.id, tSix, VINTAGE_SIX_INCH, { code: "KF-2613", title: "Vintage six freshen-up", unitSystem: "in", dueDate: "2027-01-15", notes: "Keep original crank if it cleans up." }),
+    v8: await job(shop.id, pickup.id, v8.id, tV8, STREET_V8_INCH, {
+      code: "KF-2611",
+      title: "Pickup V8 rebuild",
+      unitSystem: "in",
+      dueDate: "2026-12-18",
+      notes: "Stock rebuild, hydraulic cam swapped for a mild solid cam.",
+    }),
+    diesel: await job(shop.id, farm.id, diesel.id, tDiesel, TRACTOR_DIESEL_MM, {
+      code: "KF-2612",
+      title: "Tractor diesel overhaul",
+      unitSystem: "mm",
+      dueDate: "2026-12-11",
+      notes: "Liner-less block, bored to first oversize.",
+    }),
+    six: await job(shop.id, vintage.id, six.id, tSix, VINTAGE_SIX_INCH, {
+      code: "KF-2613",
+      title: "Vintage six freshen-up",
+      unitSystem: "in",
+      dueDate: "2027-01-15",
+      notes: "Keep original crank if it cleans up.",
+    }),
   };
 
   const instruments: Record<string, number> = {};
   const gauges = [
-    { key: "mic", kind: "outside_mic", label: "Outside micrometer 2–3 in", serial: "KF-M23-01", unit: "in", resolution: 0.0001, expandedU: 0.00008, calibratedOn: "2026-05-12", calibrationDue: "2027-05-12" },
-    { key: "mic34", kind: "outside_mic", label: "Outside micrometer 3–4 in", serial: "KF-M34-02", unit: "in", resolution: 0.0001, expandedU: 0.0001, calibratedOn: "2026-05-12", calibrationDue: "2027-05-12" },
-    { key: "dialBore", kind: "bore_gauge_dial", label: "Dial bore gauge 2–6 in", serial: "KF-DB-07", unit: "in", resolution: 0.0001, expandedU: 0.00015, calibratedOn: "2026-03-02", calibrationDue: "2026-12-15" },
-    { key: "micMm", kind: "outside_mic", label: "Outside micrometer 75–100 mm", serial: "KF-MM-11", unit: "mm", resolution: 0.001, expandedU: 0.002, calibratedOn: "2026-07-20", calibrationDue: "2027-07-20" },
-    { key: "boreMm", kind: "bore_gauge_digital", label: "Digital bore gauge 50–160 mm", serial: "KF-DBM-03", unit: "mm", resolution: 0.001, expandedU: 0.003, calibratedOn: "2026-07-20", calibrationDue: "2027-07-20" },
-    { key: "indicator", kind: "dial_indicator", label: "Dial indicator 1 in travel", serial: "KF-DI-04", unit: "in", resolution: 0.0005, expandedU: 0.0004, calibratedOn: "2025-09-01", calibrationDue: "2026-09-01" },
-    { key: "stretch", kind: "stretch_gauge", label: "Rod-bolt stretch gauge", serial: "KF-SG-02", unit: "in", resolution: 0.0001, expandedU: 0.0001, calibratedOn: "2026-04-04", calibrationDue: "2027-04-04" },
-    { key: "torque", kind: "torque_wrench", label: "Click torque wrench 20–150 lbf·ft", serial: "KF-TW-09", unit: "lbf_ft", resolution: 1, expandedU: 2, calibratedOn: "2026-02-10", calibrationDue: "2027-02-10" },
+    {
+      key: "mic",
+      kind: "outside_mic",
+      label: "Outside micrometer 2–3 in",
+      serial: "KF-M23-01",
+      unit: "in",
+      resolution: 0.0001,
+      expandedU: 0.00008,
+      calibratedOn: "2026-05-12",
+      calibrationDue: "2027-05-12",
+    },
+    {
+      key: "mic34",
+      kind: "outside_mic",
+      label: "Outside micrometer 3–4 in",
+      serial: "KF-M34-02",
+      unit: "in",
+      resolution: 0.0001,
+      expandedU: 0.0001,
+      calibratedOn: "2026-05-12",
+      calibrationDue: "2027-05-12",
+    },
+    {
+      key: "dialBore",
+      kind: "bore_gauge_dial",
+      label: "Dial bore gauge 2–6 in",
+      serial: "KF-DB-07",
+      unit: "in",
+      resolution: 0.0001,
+      expandedU: 0.00015,
+      calibratedOn: "2026-03-02",
+      calibrationDue: "2026-12-15",
+    },
+    {
+      key: "micMm",
+      kind: "outside_mic",
+      label: "Outside micrometer 75–100 mm",
+      serial: "KF-MM-11",
+      unit: "mm",
+      resolution: 0.001,
+      expandedU: 0.002,
+      calibratedOn: "2026-07-20",
+      calibrationDue: "2027-07-20",
+    },
+    {
+      key: "boreMm",
+      kind: "bore_gauge_digital",
+      label: "Digital bore gauge 50–160 mm",
+      serial: "KF-DBM-03",
+      unit: "mm",
+      resolution: 0.001,
+      expandedU: 0.003,
+      calibratedOn: "2026-07-20",
+      calibrationDue: "2027-07-20",
+    },
+    {
+      key: "indicator",
+      kind: "dial_indicator",
+      label: "Dial indicator 1 in travel",
+      serial: "KF-DI-04",
+      unit: "in",
+      resolution: 0.0005,
+      expandedU: 0.0004,
+      calibratedOn: "2025-09-01",
+      calibrationDue: "2026-09-01",
+    },
+    {
+      key: "stretch",
+      kind: "stretch_gauge",
+      label: "Rod-bolt stretch gauge",
+      serial: "KF-SG-02",
+      unit: "in",
+      resolution: 0.0001,
+      expandedU: 0.0001,
+      calibratedOn: "2026-04-04",
+      calibrationDue: "2027-04-04",
+    },
+    {
+      key: "torque",
+      kind: "torque_wrench",
+      label: "Click torque wrench 20–150 lbf·ft",
+      serial: "KF-TW-09",
+      unit: "lbf_ft",
+      resolution: 1,
+      expandedU: 2,
+      calibratedOn: "2026-02-10",
+      calibrationDue: "2027-02-10",
+    },
   ];
   for (const { key, ...g } of gauges) instruments[key] = (await Instrument.create({ shopId: shop.id, ...g })).id;
 

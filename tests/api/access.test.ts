@@ -31,7 +31,9 @@ describe("authed()", () => {
     const missing = await call(jobOfMyShop, await asUser(a.users.lead, "GET", "/x"), { jobId: "99999999" });
     expect(other.status).toBe(404);
     expect(other.body).toEqual(missing.body);
-    expect((await call(jobOfMyShop, await asUser(a.users.lead, "GET", "/x"), { jobId: String(a.job.id) })).status).toBe(200);
+    expect((await call(jobOfMyShop, await asUser(a.users.lead, "GET", "/x"), { jobId: String(a.job.id) })).status).toBe(
+      200,
+    );
   });
 
   it("400 on bad JSON, 422 with field errors on a schema failure", async () => {

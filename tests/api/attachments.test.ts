@@ -11,12 +11,16 @@ import { createShop, type TestUser } from "../support/factories";
 import { asUser, call, cookieFor } from "../support/requests";
 
 async function photo(width = 1200, height = 800): Promise<Buffer> {
-  return sharp({ create: { width, height, channels: 3, background: { r: 180, g: 40, b: 30 } } }).jpeg().toBuffer();
+  return sharp({ create: { width, height, channels: 3, background: { r: 180, g: 40, b: 30 } } })
+    .jpeg()
+    .toBuffer();
 }
 
 // The first bytes of a Linux executable (ELF magic, 64-bit, little-endian), padded out.
 const ELF = Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 0x02, 0x01, 0x01, 0x00]), Buffer.alloc(4088, 0x90)]);
-const PDF = Buffer.from("%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\n2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n");
+const PDF = Buffer.from(
+  "%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\n2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n",
+);
 
 type Fields = { ownerType: string; ownerId: string | number; clientId?: string };
 
@@ -38,8 +42,17 @@ async function fetchRaw(handler: typeof download, user: TestUser, id: string) {
 async function addReading(shopId: number, jobId: number, userId: number): Promise<string> {
   const id = randomUUID();
   await Reading.create({
-    id, shopId, jobId, stationId: "bore/1/top/A", characteristic: "bore_diameter", valueCanonical: 102.3627,
-    valueEntered: 4.0300, unitEntered: "in", takenBy: userId, takenAt: new Date(), deviceId: "test-tablet",
+    id,
+    shopId,
+    jobId,
+    stationId: "bore/1/top/A",
+    characteristic: "bore_diameter",
+    valueCanonical: 102.3627,
+    valueEntered: 4.03,
+    unitEntered: "in",
+    takenBy: userId,
+    takenAt: new Date(),
+    deviceId: "test-tablet",
   });
   return id;
 }
@@ -48,10 +61,22 @@ describe("POST /api/attachments", () => {
   it("stores a job photo in S3 under a key we made, with a JPEG preview, and streams both back", async () => {
     const s = await createShop();
     const original = await photo();
-    const res = await post(s.users.machinist, { ownerType: "job", ownerId: s.job.id }, original, "../../etc/passwd.jpg");
+    const res = await post(
+      s.users.machinist,
+      { ownerType: "job", ownerId: s.job.id },
+      original,
+      "../../etc/passwd.jpg",
+    );
     expect(res.status).toBe(201);
     const a = res.body.attachment;
-    expect(a).toMatchObject({ ownerType: "job", ownerId: String(s.job.id), contentType: "image/jpeg", sizeBytes: original.length, hasThumb: true, originalName: "passwd.jpg" });
+    expect(a).toMatchObject({
+      ownerType: "job",
+      ownerId: String(s.job.id),
+      contentType: "image/jpeg",
+      sizeBytes: original.length,
+      hasThumb: true,
+      originalName: "passwd.jpg",
+    });
     const row = await Attachment.findByPk(a.id);
     expect(row!.objectKey).toMatch(new RegExp(`^${s.shop.id}/[0-9a-f-]{36}$`));
     expect(row!.thumbKey).toBe(`${row!.objectKey}-thumb.jpg`);
@@ -85,12 +110,23 @@ describe("POST /api/attachments", () => {
 
   it("refuses an executable renamed .jpg (415) and says what it is", async () => {
     const s = await createShop();
-    const res = await post(s.users.machinist, { ownerType: "job", ownerId: s.job.id }, ELF, "brake-photo.jpg", "image/jpeg");
+    const res = await post(
+      s.users.machinist,
+      { ownerType: "job", ownerId: s.job.id },
+      ELF,
+      "brake-photo.jpg",
+      "image/jpeg",
+    );
     expect(res.status).toBe(415);
     expect(res.body.error.code).toBe("unsupported_media");
     expect(res.body.error.message).toContain("ELF");
     expect(res.body.error.message).toContain("JPEG, PNG, WebP or HEIC");
-    const text = await post(s.users.machinist, { ownerType: "job", ownerId: s.job.id }, Buffer.from("just some words\n".repeat(50)), "x.jpg");
+    const text = await post(
+      s.users.machinist,
+      { ownerType: "job", ownerId: s.job.id },
+      Buffer.from("just some words\n".repeat(50)),
+      "x.jpg",
+    );
     expect(text.status).toBe(415);
     // JPEG magic bytes followed by junk: sniffed as JPEG, but not a picture.
     const broken = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0]), Buffer.alloc(2000, 7)]);
@@ -112,13 +148,36 @@ describe("POST /api/attachments", () => {
   it("attaches photos to a reading, and a certificate PDF to a gauge (admin only)", async () => {
     const s = await createShop();
     const readingId = await addReading(s.shop.id, s.job.id, s.users.machinist.id);
-    const onReading = await post(s.users.machinist, { ownerType: "reading", ownerId: readingId }, await photo(400, 300));
+    const onReading = await post(
+      s.users.machinist,
+      { ownerType: "reading", ownerId: readingId },
+      await photo(400, 300),
+    );
     expect(onReading.status).toBe(201);
-    const listed = await call(list, await asUser(s.users.lead, "GET", `/api/attachments?ownerType=reading&ownerId=${readingId}`));
+    const listed = await call(
+      list,
+      await asUser(s.users.lead, "GET", `/api/attachments?ownerType=reading&ownerId=${readingId}`),
+    );
     expect(listed.body.attachments.map((x: { id: string }) => x.id)).toEqual([onReading.body.attachment.id]);
 
-    expect((await post(s.users.machinist, { ownerType: "instrument", ownerId: s.instrument.id }, PDF, "cert.pdf", "application/pdf")).status).toBe(403);
-    const cert = await post(s.users.admin, { ownerType: "instrument", ownerId: s.instrument.id }, PDF, "cert.pdf", "application/pdf");
+    expect(
+      (
+        await post(
+          s.users.machinist,
+          { ownerType: "instrument", ownerId: s.instrument.id },
+          PDF,
+          "cert.pdf",
+          "application/pdf",
+        )
+      ).status,
+    ).toBe(403);
+    const cert = await post(
+      s.users.admin,
+      { ownerType: "instrument", ownerId: s.instrument.id },
+      PDF,
+      "cert.pdf",
+      "application/pdf",
+    );
     expect(cert.status).toBe(201);
     expect(cert.body.attachment).toMatchObject({ contentType: "application/pdf", hasThumb: false, thumbUrl: null });
     expect((await Instrument.findByPk(s.instrument.id))!.certificateAttachmentId).toBe(cert.body.attachment.id);
@@ -131,7 +190,11 @@ describe("POST /api/attachments", () => {
     expect((await post(null, { ownerType: "job", ownerId: a.job.id }, await photo())).status).toBe(401);
     expect((await post(a.users.inspector, { ownerType: "job", ownerId: a.job.id }, await photo())).status).toBe(403);
     expect((await post(a.users.admin, { ownerType: "job", ownerId: a.job.id }, await photo())).status).toBe(403);
-    const bad = await post(a.users.lead, { ownerType: "engine", ownerId: a.job.id, clientId: "not-a-uuid" }, await photo());
+    const bad = await post(
+      a.users.lead,
+      { ownerType: "engine", ownerId: a.job.id, clientId: "not-a-uuid" },
+      await photo(),
+    );
     expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(["clientId", "ownerType"]);
 

@@ -15,7 +15,9 @@ beforeAll(async () => {
 describe("readings.sync in the audit trail", () => {
   it("lists each reading of the batch on one line, found by the job filter", async () => {
     const bad = reading(s.job.id, "bore/1/top/A", 4.0312);
-    expect((await push(s.users.machinist, [bad, reading(s.job.id, "bore/1/mid/A", 4.0301)], "tablet-3")).status).toBe(200);
+    expect((await push(s.users.machinist, [bad, reading(s.job.id, "bore/1/mid/A", 4.0301)], "tablet-3")).status).toBe(
+      200,
+    );
     const fix = reading(s.job.id, "bore/1/top/A", 4.0302, { supersedes: bad.id, takenAt: later(5) });
     expect((await push(s.users.machinist, [fix], "tablet-3")).status).toBe(200);
 
@@ -23,12 +25,28 @@ describe("readings.sync in the audit trail", () => {
     expect(res.status).toBe(200);
     const [second, first] = res.body.events;
     expect(res.body.total).toBe(2);
-    expect(first).toMatchObject({ entityType: "job", entityId: String(s.job.id), jobCode: s.job.code, userName: s.users.machinist.name, truncated: false });
+    expect(first).toMatchObject({
+      entityType: "job",
+      entityId: String(s.job.id),
+      jobCode: s.job.code,
+      userName: s.users.machinist.name,
+      truncated: false,
+    });
     expect(first.changes).toEqual([
       { path: "device", kind: "added", before: null, after: "tablet-3 · 2 readings" },
       { path: "bore/1/top/A", kind: "added", before: null, after: `4.0312 in · out of spec · reading ${bad.id}` },
-      { path: "bore/1/mid/A", kind: "added", before: null, after: expect.stringMatching(/^4\.0301 in · in spec · reading /) },
+      {
+        path: "bore/1/mid/A",
+        kind: "added",
+        before: null,
+        after: expect.stringMatching(/^4\.0301 in · in spec · reading /),
+      },
     ]);
-    expect(second.changes[1]).toEqual({ path: "bore/1/top/A", kind: "added", before: null, after: `4.0302 in · in spec · reading ${fix.id} (corrects ${bad.id})` });
+    expect(second.changes[1]).toEqual({
+      path: "bore/1/top/A",
+      kind: "added",
+      before: null,
+      after: `4.0302 in · in spec · reading ${fix.id} (corrects ${bad.id})`,
+    });
   });
 });

@@ -23,13 +23,56 @@ beforeAll(async () => {
   other = await createShop();
   await completeJob(s);
   const p = { jobId: String(s.job.id) };
-  expect((await call(sign, await asUser(s.users.inspector, "POST", `/api/release/${s.job.id}`, { fullName: s.users.inspector.name, password: TEST_PASSWORD }), p)).status).toBe(201);
-  expect((await call(reopen, await asUser(s.users.lead, "POST", `/api/release/${s.job.id}/reopen`, { reason: "Main cap torque to be re-checked" }), p)).status).toBe(200);
+  expect(
+    (
+      await call(
+        sign,
+        await asUser(s.users.inspector, "POST", `/api/release/${s.job.id}`, {
+          fullName: s.users.inspector.name,
+          password: TEST_PASSWORD,
+        }),
+        p,
+      )
+    ).status,
+  ).toBe(201);
+  expect(
+    (
+      await call(
+        reopen,
+        await asUser(s.users.lead, "POST", `/api/release/${s.job.id}/reopen`, {
+          reason: "Main cap torque to be re-checked",
+        }),
+        p,
+      )
+    ).status,
+  ).toBe(200);
   // Events of other kinds, written the way other features write them.
   await getSequelize().transaction(async (t) => {
-    await recordAudit(t, { shopId: s.shop.id, userId: s.users.lead.id, action: "job.update", entityType: "job", entityId: s.job.id, before: { title: "Old", dueDate: null }, after: { title: "New", dueDate: "2027-01-04" } });
-    await recordAudit(t, { shopId: s.shop.id, userId: s.users.admin.id, action: "user.invited", entityType: "user", entityId: s.users.machinist.id, after: { name: "Rosa", role: "machinist" } });
-    await recordAudit(t, { shopId: other.shop.id, userId: other.users.lead.id, action: "job.update", entityType: "job", entityId: other.job.id, after: { title: "Not yours" } });
+    await recordAudit(t, {
+      shopId: s.shop.id,
+      userId: s.users.lead.id,
+      action: "job.update",
+      entityType: "job",
+      entityId: s.job.id,
+      before: { title: "Old", dueDate: null },
+      after: { title: "New", dueDate: "2027-01-04" },
+    });
+    await recordAudit(t, {
+      shopId: s.shop.id,
+      userId: s.users.admin.id,
+      action: "user.invited",
+      entityType: "user",
+      entityId: s.users.machinist.id,
+      after: { name: "Rosa", role: "machinist" },
+    });
+    await recordAudit(t, {
+      shopId: other.shop.id,
+      userId: other.users.lead.id,
+      action: "job.update",
+      entityType: "job",
+      entityId: other.job.id,
+      after: { title: "Not yours" },
+    });
   });
 });
 
@@ -37,7 +80,11 @@ describe("GET /api/audit", () => {
   it("filters by job, action, user and entity, newest first, with readable changes", async () => {
     const byJob = await list(`job=${s.job.id}`);
     expect(byJob.status).toBe(200);
-    expect(byJob.body.events.map((e: { action: string }) => e.action)).toEqual(["job.update", "release.void", "release.sign"]);
+    expect(byJob.body.events.map((e: { action: string }) => e.action)).toEqual([
+      "job.update",
+      "release.void",
+      "release.sign",
+    ]);
     expect(byJob.body.events.every((e: { jobCode: string }) => e.jobCode === s.job.code)).toBe(true);
     const update = byJob.body.events[0];
     expect(update.userName).toBe(s.users.lead.name);
@@ -47,10 +94,17 @@ describe("GET /api/audit", () => {
     ]);
     const voided = byJob.body.events[1];
     expect(voided.changes).toContainEqual({ path: "jobStatus", kind: "changed", before: "released", after: "review" });
-    expect(voided.changes).toContainEqual({ path: "voidReason", kind: "added", before: null, after: "Main cap torque to be re-checked" });
+    expect(voided.changes).toContainEqual({
+      path: "voidReason",
+      kind: "added",
+      before: null,
+      after: "Main cap torque to be re-checked",
+    });
 
     expect((await list("action=release.sign")).body.events).toHaveLength(1);
-    expect((await list(`user=${s.users.admin.id}`)).body.events.map((e: { action: string }) => e.action)).toEqual(["user.invited"]);
+    expect((await list(`user=${s.users.admin.id}`)).body.events.map((e: { action: string }) => e.action)).toEqual([
+      "user.invited",
+    ]);
     expect((await list("entity=release")).body.total).toBe(2);
   });
 
@@ -69,7 +123,11 @@ describe("GET /api/audit", () => {
 
   it("never shows another shop's events", async () => {
     const mine = await list("pageSize=100");
-    expect(mine.body.events.some((e: { action: string; entityId: string }) => e.entityId === String(other.job.id) && e.action === "job.update")).toBe(false);
+    expect(
+      mine.body.events.some(
+        (e: { action: string; entityId: string }) => e.entityId === String(other.job.id) && e.action === "job.update",
+      ),
+    ).toBe(false);
     expect((await list(`job=${other.job.id}`)).body.total).toBe(0);
   });
 
@@ -85,7 +143,10 @@ describe("GET /api/audit", () => {
   });
 
   it.each([
-    { role: "lead", status: 200 }, { role: "inspector", status: 200 }, { role: "machinist", status: 403 }, { role: "admin", status: 403 },
+    { role: "lead", status: 200 },
+    { role: "inspector", status: 200 },
+    { role: "machinist", status: 403 },
+    { role: "admin", status: 403 },
   ] as const)("$role gets $status (list and facets)", async ({ role, status }) => {
     expect((await list("", s.users[role])).status).toBe(status);
     expect((await call(facets, await asUser(s.users[role], "GET", "/api/audit/facets"))).status).toBe(status);
@@ -114,9 +175,15 @@ describe("append-only for the app's database user", () => {
   it("gets an error on UPDATE and on DELETE, and the row is unchanged", async () => {
     const row = await AuditEvent.findOne({ where: { shopId: s.shop.id, action: "release.sign" } });
     const id = row!.id;
-    await expect(db.query("UPDATE audit_events SET action = 'release.forged' WHERE id = ?", { replacements: [id] })).rejects.toThrow(APPEND_ONLY_MESSAGE);
-    await expect(db.query("DELETE FROM audit_events WHERE id = ?", { replacements: [id] })).rejects.toThrow(APPEND_ONLY_MESSAGE);
-    await expect(db.query("DELETE FROM audit_events WHERE shop_id = ?", { replacements: [s.shop.id] })).rejects.toThrow(APPEND_ONLY_MESSAGE);
+    await expect(
+      db.query("UPDATE audit_events SET action = 'release.forged' WHERE id = ?", { replacements: [id] }),
+    ).rejects.toThrow(APPEND_ONLY_MESSAGE);
+    await expect(db.query("DELETE FROM audit_events WHERE id = ?", { replacements: [id] })).rejects.toThrow(
+      APPEND_ONLY_MESSAGE,
+    );
+    await expect(db.query("DELETE FROM audit_events WHERE shop_id = ?", { replacements: [s.shop.id] })).rejects.toThrow(
+      APPEND_ONLY_MESSAGE,
+    );
     const again = await AuditEvent.findByPk(id);
     expect(again!.action).toBe("release.sign");
     expect(await AuditEvent.count({ where: { shopId: s.shop.id } })).toBe(4);

@@ -25,7 +25,16 @@ describe("GET /api/bench/jobs", () => {
     const res = await call(LIST, await asUser(s.users.machinist, "GET", "/api/bench/jobs"));
     expect(res.status).toBe(200);
     expect(res.body.jobs).toHaveLength(1);
-    expect(res.body.jobs[0]).toMatchObject({ id: s.job.id, code: s.job.code, status: "measuring", locked: false, lockReason: null, readings: 2, openFlags: 1, engine: "Test V8" });
+    expect(res.body.jobs[0]).toMatchObject({
+      id: s.job.id,
+      code: s.job.code,
+      status: "measuring",
+      locked: false,
+      lockReason: null,
+      readings: 2,
+      openFlags: 1,
+      engine: "Test V8",
+    });
     expect(res.body.jobs[0].stations).toBeGreaterThan(200);
     getSequelize();
     await Job.update({ status: "released", lockedAt: new Date() }, { where: { id: other.job.id } });
@@ -48,10 +57,28 @@ describe("GET /api/bench/jobs/:jobId", () => {
     expect(p.shape).toMatchObject({ cylinders: 8, layout: "v", mains: 5, unitSystem: "inch" });
     expect(p.spec.map((l: { characteristic: string }) => l.characteristic)).toContain("bore_diameter");
     expect(p.route.total).toBe(benchRoute(p.shape).total);
-    expect(p.instruments).toEqual([expect.objectContaining({ id: s.instrument.id, kind: "outside_mic", unit: "in", resolution: 0.0001, expandedU: 0.0001, calibrationDue: "2027-06-01", dialPlusMeansSmaller: true })]);
+    expect(p.instruments).toEqual([
+      expect.objectContaining({
+        id: s.instrument.id,
+        kind: "outside_mic",
+        unit: "in",
+        resolution: 0.0001,
+        expandedU: 0.0001,
+        calibrationDue: "2027-06-01",
+        dialPlusMeansSmaller: true,
+      }),
+    ]);
     expect(p.readings).toHaveLength(2);
-    expect(p.readings.find((r: { stationId: string }) => r.stationId === "bore/1/top/A")).toMatchObject({ stationId: "bore/1/top/A", value: 4.0312, unit: "in", verdict: "out_of_spec", supersededBy: null });
-    expect(p.flags).toEqual([expect.objectContaining({ stationId: "bore/1/top/A", state: "open", stations: ["bore/1/top/A"], revisit: false })]);
+    expect(p.readings.find((r: { stationId: string }) => r.stationId === "bore/1/top/A")).toMatchObject({
+      stationId: "bore/1/top/A",
+      value: 4.0312,
+      unit: "in",
+      verdict: "out_of_spec",
+      supersededBy: null,
+    });
+    expect(p.flags).toEqual([
+      expect.objectContaining({ stationId: "bore/1/top/A", state: "open", stations: ["bore/1/top/A"], revisit: false }),
+    ]);
     expect(p.cursor).toMatch(/^\d+$/);
   });
   it("404 for another shop's job and for junk ids, 401/403 as the list", async () => {

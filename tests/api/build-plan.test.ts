@@ -16,12 +16,29 @@ beforeAll(async () => {
 
 // Test fixture (invented figures).
 const plan = (over: Record<string, unknown> = {}) => ({
-  lengthUnit: "in", bore: 4.03, stroke: 3.48, rodLength: 5.7, compressionHeight: 1.56, pistonTop: "dish", pistonVolumeCc: 5,
-  chamberCc: 64, gasketBore: 4.1, gasketThickness: 0.041, deckHeight: 9.025, intakeLobeLift: 0.3, exhaustLobeLift: 0.31,
-  rockerRatio: 1.5, intakeLash: 0.016, exhaustLash: 0.018, notes: "Mild street build", ...over,
+  lengthUnit: "in",
+  bore: 4.03,
+  stroke: 3.48,
+  rodLength: 5.7,
+  compressionHeight: 1.56,
+  pistonTop: "dish",
+  pistonVolumeCc: 5,
+  chamberCc: 64,
+  gasketBore: 4.1,
+  gasketThickness: 0.041,
+  deckHeight: 9.025,
+  intakeLobeLift: 0.3,
+  exhaustLobeLift: 0.31,
+  rockerRatio: 1.5,
+  intakeLash: 0.016,
+  exhaustLash: 0.018,
+  notes: "Mild street build",
+  ...over,
 });
-const get = async (by: TestUser, id: number | string) => call(GET as never, await asUser(by, "GET", `/api/jobs/${id}/build-plan`), { jobId: String(id) });
-const put = async (by: TestUser, id: number | string, body: unknown) => call(PUT as never, await asUser(by, "PUT", `/api/jobs/${id}/build-plan`, body), { jobId: String(id) });
+const get = async (by: TestUser, id: number | string) =>
+  call(GET as never, await asUser(by, "GET", `/api/jobs/${id}/build-plan`), { jobId: String(id) });
+const put = async (by: TestUser, id: number | string, body: unknown) =>
+  call(PUT as never, await asUser(by, "PUT", `/api/jobs/${id}/build-plan`, body), { jobId: String(id) });
 
 describe("/api/jobs/[jobId]/build-plan", () => {
   it.each(ROLES)("GET as %s", async (role) => {
@@ -41,11 +58,21 @@ describe("/api/jobs/[jobId]/build-plan", () => {
   it("saves the plan with its units and reads it back; audited", async () => {
     const res = await put(a.users.lead, a.job.id, plan({ compressionHeight: 1.55 }));
     expect(res.status).toBe(200);
-    expect(res.body.plan).toMatchObject({ format: "tenthwise.build-plan", version: 1, lengthUnit: "in", volumeUnit: "cc", compressionHeight: 1.55, pistonTop: "dish" });
+    expect(res.body.plan).toMatchObject({
+      format: "tenthwise.build-plan",
+      version: 1,
+      lengthUnit: "in",
+      volumeUnit: "cc",
+      compressionHeight: 1.55,
+      pistonTop: "dish",
+    });
     expect(res.body.engine).toMatchObject({ cylinders: 8 });
     const stored = await Job.findByPk(a.job.id);
     expect(stored?.buildPlan).toMatchObject({ lengthUnit: "in", bore: 4.03 });
-    const e = await AuditEvent.findOne({ where: { action: "job.build_plan", entityId: String(a.job.id) }, order: [["id", "DESC"]] });
+    const e = await AuditEvent.findOne({
+      where: { action: "job.build_plan", entityId: String(a.job.id) },
+      order: [["id", "DESC"]],
+    });
     expect(e?.after).toMatchObject({ compressionHeight: 1.55 });
     expect((await get(a.users.inspector, a.job.id)).body.plan.compressionHeight).toBe(1.55);
   });

@@ -25,8 +25,15 @@ function parseCsv(text: string): string[][] {
       i += 1;
       for (;;) {
         if (i >= text.length) throw new Error("unterminated quoted field");
-        if (text[i] === '"' && text[i + 1] === '"') { field += '"'; i += 2; continue; }
-        if (text[i] === '"') { i += 1; break; }
+        if (text[i] === '"' && text[i + 1] === '"') {
+          field += '"';
+          i += 2;
+          continue;
+        }
+        if (text[i] === '"') {
+          i += 1;
+          break;
+        }
         field += text[i++];
       }
     } else {
@@ -36,7 +43,10 @@ function parseCsv(text: string): string[][] {
       }
     }
     row.push(field);
-    if (text[i] === ",") { i += 1; continue; }
+    if (text[i] === ",") {
+      i += 1;
+      continue;
+    }
     if (text.slice(i, i + 2) !== "\r\n") throw new Error(`expected CRLF at ${i}`);
     i += 2;
     rows.push(row);
@@ -45,27 +55,69 @@ function parseCsv(text: string): string[][] {
   return rows;
 }
 
-async function add(s: TestShop, stationId: string, value: number | null, unit: string, minute: number, extra: Record<string, unknown> = {}) {
+async function add(
+  s: TestShop,
+  stationId: string,
+  value: number | null,
+  unit: string,
+  minute: number,
+  extra: Record<string, unknown> = {},
+) {
   return Reading.create({
-    id: randomUUID(), shopId: s.shop.id, jobId: s.job.id, stationId, characteristic: extra.characteristic as string ?? "bore_diameter",
-    valueEntered: value, valueCanonical: value, unitEntered: unit, takenBy: s.users.machinist.id,
-    takenAt: new Date(Date.UTC(2026, 11, 1, 9, minute)), deviceId: "test", skipped: value === null, ...extra,
+    id: randomUUID(),
+    shopId: s.shop.id,
+    jobId: s.job.id,
+    stationId,
+    characteristic: (extra.characteristic as string) ?? "bore_diameter",
+    valueEntered: value,
+    valueCanonical: value,
+    unitEntered: unit,
+    takenBy: s.users.machinist.id,
+    takenAt: new Date(Date.UTC(2026, 11, 1, 9, minute)),
+    deviceId: "test",
+    skipped: value === null,
+    ...extra,
   });
 }
 
-const csvOf = async (by: TestUser, id: number | string, query = "") => call(GET as never, await asUser(by, "GET", `/api/jobs/${id}/readings.csv${query}`), { jobId: String(id) });
+const csvOf = async (by: TestUser, id: number | string, query = "") =>
+  call(GET as never, await asUser(by, "GET", `/api/jobs/${id}/readings.csv${query}`), { jobId: String(id) });
 
 beforeAll(async () => {
   a = await createShop();
   b = await createShop();
   await User.update({ name: 'Vance, Rosa "Ro"' }, { where: { id: a.users.machinist.id } });
   serial = (await Instrument.findByPk(a.instrument.id))!.serial;
-  const first = await add(a, "bore/1/top/A", 4.0312, "in", 1, { verdict: "out_of_spec", limitMin: 4.0295, limitMax: 4.0305, deviation: 0.0012, instrumentId: a.instrument.id });
-  await add(a, "bore/1/top/A", 4.0301, "in", 2, { supersedes: first.id, verdict: "in_spec", limitMin: 4.0295, limitMax: 4.0305, deviation: 0.0001, instrumentId: a.instrument.id });
-  await add(a, "bore/1/top/B", 102.362, "mm", 3, { verdict: "in_spec", limitMin: 102.3493, limitMax: 102.3747, deviation: 0 }); // 102.362 mm = 4.03 in exactly
+  const first = await add(a, "bore/1/top/A", 4.0312, "in", 1, {
+    verdict: "out_of_spec",
+    limitMin: 4.0295,
+    limitMax: 4.0305,
+    deviation: 0.0012,
+    instrumentId: a.instrument.id,
+  });
+  await add(a, "bore/1/top/A", 4.0301, "in", 2, {
+    supersedes: first.id,
+    verdict: "in_spec",
+    limitMin: 4.0295,
+    limitMax: 4.0305,
+    deviation: 0.0001,
+    instrumentId: a.instrument.id,
+  });
+  await add(a, "bore/1/top/B", 102.362, "mm", 3, {
+    verdict: "in_spec",
+    limitMin: 102.3493,
+    limitMax: 102.3747,
+    deviation: 0,
+  }); // 102.362 mm = 4.03 in exactly
   await add(a, "main-brg/1/front/A", 2.4515, "in", 4, { characteristic: "main_bearing_bore" });
   await add(a, "main/1/front/A", 2.449, "in", 5, { characteristic: "main_journal_diameter" });
-  await add(a, "torque/main-caps", 67, "lbf_ft", 6, { characteristic: "fastener_torque", lubricant: "engine-oil", verdict: "in_spec", limitMin: 65, limitMax: 70 });
+  await add(a, "torque/main-caps", 67, "lbf_ft", 6, {
+    characteristic: "fastener_torque",
+    lubricant: "engine-oil",
+    verdict: "in_spec",
+    limitMin: 65,
+    limitMax: 70,
+  });
 });
 
 describe("GET /api/jobs/[jobId]/readings.csv", () => {
@@ -80,7 +132,9 @@ describe("GET /api/jobs/[jobId]/readings.csv", () => {
 
   it("is UTF-8 with a BOM, CRLF records, units in the header, and parses back", async () => {
     // The raw bytes: Response.text() would drop the BOM while decoding.
-    const res = await GET(await asUser(a.users.inspector, "GET", `/api/jobs/${a.job.id}/readings.csv`), { params: Promise.resolve({ jobId: String(a.job.id) }) });
+    const res = await GET(await asUser(a.users.inspector, "GET", `/api/jobs/${a.job.id}/readings.csv`), {
+      params: Promise.resolve({ jobId: String(a.job.id) }),
+    });
     expect(res.headers.get("content-type")).toMatch(/^text\/csv; charset=utf-8/);
     expect(res.headers.get("content-disposition")).toContain(`${a.job.code}-readings.csv`);
     const bytes = new Uint8Array(await res.arrayBuffer());
@@ -90,15 +144,39 @@ describe("GET /api/jobs/[jobId]/readings.csv", () => {
     const rows = parseCsv(text.slice(1));
     const [header, ...data] = rows;
     expect(header).toEqual([
-      "row", "station", "station (words)", "characteristic", "value (in | lbf·ft)", "unit", "min (in | lbf·ft)", "max (in | lbf·ft)",
-      "verdict", "deviation (in | lbf·ft)", "gauge serial", "taken by", "taken at (UTC, ISO 8601)", "superseded?",
+      "row",
+      "station",
+      "station (words)",
+      "characteristic",
+      "value (in | lbf·ft)",
+      "unit",
+      "min (in | lbf·ft)",
+      "max (in | lbf·ft)",
+      "verdict",
+      "deviation (in | lbf·ft)",
+      "gauge serial",
+      "taken by",
+      "taken at (UTC, ISO 8601)",
+      "superseded?",
     ]);
     expect(data.every((r) => r.length === header.length)).toBe(true);
     const byStation = new Map(data.filter((r) => r[0] === "reading").map((r) => [r[1], r]));
     // Current readings only: the corrected 4.0312 is not in the file, its correction is.
     expect(byStation.get("bore/1/top/A")).toEqual([
-      "reading", "bore/1/top/A", "Cylinder 1 · top of bore · axis A (thrust)", "Cylinder bore diameter", "4.0301", "in", "4.0295", "4.0305",
-      "In spec", "0.0001", serial, 'Vance, Rosa "Ro"', "2026-12-01T09:02:00.000Z", "no",
+      "reading",
+      "bore/1/top/A",
+      "Cylinder 1 · top of bore · axis A (thrust)",
+      "Cylinder bore diameter",
+      "4.0301",
+      "in",
+      "4.0295",
+      "4.0305",
+      "In spec",
+      "0.0001",
+      serial,
+      'Vance, Rosa "Ro"',
+      "2026-12-01T09:02:00.000Z",
+      "no",
     ]);
     expect(byStation.get("bore/1/top/B")?.[4]).toBe("4.03"); // entered in mm, given in the job's inches
     expect(byStation.get("torque/main-caps")?.slice(4, 9)).toEqual(["67", "lbf·ft", "65", "70", "In spec"]);
@@ -108,25 +186,48 @@ describe("GET /api/jobs/[jobId]/readings.csv", () => {
     // Oil clearance = bearing bore − journal (its definition): 2.4515 − 2.4490 = 0.0025 in, on the
     // 0.0015–0.0025 limit's edge; the deviation is from mid-tolerance 0.0020 (hand arithmetic).
     const clearance = data.find((r) => r[0] === "derived" && r[1] === "main-brg/1/front/A");
-    expect(clearance?.slice(3, 10)).toEqual(["Main bearing oil clearance", "0.0025", "in", "0.0015", "0.0025", "In spec", "0.0005"]);
+    expect(clearance?.slice(3, 10)).toEqual([
+      "Main bearing oil clearance",
+      "0.0025",
+      "in",
+      "0.0015",
+      "0.0025",
+      "In spec",
+      "0.0005",
+    ]);
   });
 
   it("with history lists the corrected reading first, marked superseded", async () => {
     const rows = parseCsv((await csvOf(a.users.lead, a.job.id, "?history=1")).body as string); // text() has dropped the BOM
     const atStation = rows.filter((r) => r[1] === "bore/1/top/A");
-    expect(atStation.map((r) => [r[4], r[8], r[13]])).toEqual([["4.0312", "Out of spec", "yes"], ["4.0301", "In spec", "no"]]);
+    expect(atStation.map((r) => [r[4], r[8], r[13]])).toEqual([
+      ["4.0312", "Out of spec", "yes"],
+      ["4.0301", "In spec", "no"],
+    ]);
   });
 });
 
 describe("CSV fields", () => {
   it.each([
-    [0.0000001, "0.0000001"], [1e-7 * 3, "0.0000003"], [4.0301, "4.0301"], [-0.0012, "-0.0012"], [1234567.5, "1234567.5"], [0, "0"], [null, ""],
+    [0.0000001, "0.0000001"],
+    [1e-7 * 3, "0.0000003"],
+    [4.0301, "4.0301"],
+    [-0.0012, "-0.0012"],
+    [1234567.5, "1234567.5"],
+    [0, "0"],
+    [null, ""],
   ])("plainNumber(%s) = %s (no exponent, no locale)", (x, want) => {
     expect(plainNumber(x)).toBe(want);
   });
 
   it.each([
-    ["plain", "plain"], ["a,b", '"a,b"'], ['say "hi"', '"say ""hi"""'], ["two\nlines", '"two\nlines"'], ["=SUM(A1)", "'=SUM(A1)"], ["@cmd", "'@cmd"], [-0.5, "-0.5"],
+    ["plain", "plain"],
+    ["a,b", '"a,b"'],
+    ['say "hi"', '"say ""hi"""'],
+    ["two\nlines", '"two\nlines"'],
+    ["=SUM(A1)", "'=SUM(A1)"],
+    ["@cmd", "'@cmd"],
+    [-0.5, "-0.5"],
   ])("csvField(%j) = %j", (cell, want) => {
     expect(csvField(cell)).toBe(want);
   });

@@ -17,7 +17,13 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 async function download(token: string) {
   const req = new Request(`http://localhost/api/r/${token}/pdf`);
   const res = await customerPdf(req, { params: Promise.resolve({ token }) });
-  return { status: res.status, location: res.headers.get("location"), type: res.headers.get("content-type"), disposition: res.headers.get("content-disposition"), bytes: Buffer.from(await res.arrayBuffer()) };
+  return {
+    status: res.status,
+    location: res.headers.get("location"),
+    type: res.headers.get("content-type"),
+    disposition: res.headers.get("content-disposition"),
+    bytes: Buffer.from(await res.arrayBuffer()),
+  };
 }
 
 describe("customer record links", () => {
@@ -45,7 +51,10 @@ describe("customer record links", () => {
     const check = checkCustomerToken(token);
     expect(check).toMatchObject({ ok: false, reason: "expired", releaseId: job.release!.id });
     const view = await customerView(token);
-    expect(view).toMatchObject({ status: "expired", shop: { name: job.shop.name, phone: "555-0199", email: "desk@test.example" } });
+    expect(view).toMatchObject({
+      status: "expired",
+      shop: { name: job.shop.name, phone: "555-0199", email: "desk@test.example" },
+    });
     const res = await download(token);
     expect(res.status).toBe(303);
     expect(new URL(res.location!).pathname).toBe(`/r/${token}`);
@@ -59,7 +68,10 @@ describe("customer record links", () => {
       [v, String(Number(id) + 1), exp, sig].join("."),
       [v, id, String(Number(exp) + 86_400), sig].join("."),
       [v, id, exp, `${sig.slice(0, -2)}AA`].join("."),
-      [v, id, exp].join("."), "", "r1.1.1.x", "../../etc/passwd",
+      [v, id, exp].join("."),
+      "",
+      "r1.1.1.x",
+      "../../etc/passwd",
     ];
     for (const t of tampered) {
       expect(checkCustomerToken(t)).toEqual({ ok: false, reason: "invalid" });
@@ -72,14 +84,31 @@ describe("customer record links", () => {
     const job = await createRecordJob();
     const token = createCustomerToken(job.release!.id);
     const jobId = String(job.job.id);
-    const ways: Record<string, string>[] = [{ cookie: `tw_session=${token}` }, { authorization: `Bearer ${token}` }, {}];
+    const ways: Record<string, string>[] = [
+      { cookie: `tw_session=${token}` },
+      { authorization: `Bearer ${token}` },
+      {},
+    ];
     for (const headers of ways) {
       const q = `?token=${token}`;
-      const ctx = <P,>(p: P) => ({ params: Promise.resolve(p) });
+      const ctx = <P>(p: P) => ({ params: Promise.resolve(p) });
       expect((await me(new Request(`http://localhost/api/me${q}`, { headers }), ctx({}))).status).toBe(401);
-      expect((await recordPdf(new Request(`http://localhost/api/record/${jobId}/pdf${q}`, { headers }), ctx({ jobId }))).status).toBe(401);
-      expect((await releaseView(new Request(`http://localhost/api/release/${jobId}${q}`, { headers }), ctx({ jobId }))).status).toBe(401);
-      expect((await attachment(new Request(`http://localhost/api/attachments/${job.photoId}${q}`, { headers }), ctx({ id: job.photoId! }))).status).toBe(401);
+      expect(
+        (await recordPdf(new Request(`http://localhost/api/record/${jobId}/pdf${q}`, { headers }), ctx({ jobId })))
+          .status,
+      ).toBe(401);
+      expect(
+        (await releaseView(new Request(`http://localhost/api/release/${jobId}${q}`, { headers }), ctx({ jobId })))
+          .status,
+      ).toBe(401);
+      expect(
+        (
+          await attachment(
+            new Request(`http://localhost/api/attachments/${job.photoId}${q}`, { headers }),
+            ctx({ id: job.photoId! }),
+          )
+        ).status,
+      ).toBe(401);
     }
   });
 });

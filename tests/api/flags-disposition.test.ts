@@ -16,8 +16,20 @@ let b: TestShop;
 
 async function push(shop: TestShop, stationId: string, value: number, supersedes?: string): Promise<string> {
   const id = randomUUID();
-  const reading = { id, jobId: shop.job.id, stationId, value, unit: "in", instrumentId: shop.instrument.id, takenAt: new Date().toISOString(), ...(supersedes ? { supersedes } : {}) };
-  const res = await call(SYNC as never, await asUser(shop.users.machinist, "POST", "/api/sync", { deviceId: "test-tablet", readings: [reading] }));
+  const reading = {
+    id,
+    jobId: shop.job.id,
+    stationId,
+    value,
+    unit: "in",
+    instrumentId: shop.instrument.id,
+    takenAt: new Date().toISOString(),
+    ...(supersedes ? { supersedes } : {}),
+  };
+  const res = await call(
+    SYNC as never,
+    await asUser(shop.users.machinist, "POST", "/api/sync", { deviceId: "test-tablet", readings: [reading] }),
+  );
   expect(res.status, JSON.stringify(res.body)).toBe(200);
   return id;
 }
@@ -82,23 +94,53 @@ describe("bad bodies", () => {
 
 describe("each kind is recorded with who, when and why", () => {
   it.each([
-    ["measure_again", { kind: "measure_again", note: "Gauge may have rocked; re-zero on the ring" }, null, "Gauge may have rocked; re-zero on the ring"],
-    ["machine_again", { kind: "machine_again", operation: "hone", note: "Take 0.0005 in, then re-check" }, "hone", "Take 0.0005 in, then re-check"],
-    ["accept", { kind: "accept", reason: "  Customer accepts: race block, clearance checked with the piston maker  " }, null, "Customer accepts: race block, clearance checked with the piston maker"],
+    [
+      "measure_again",
+      { kind: "measure_again", note: "Gauge may have rocked; re-zero on the ring" },
+      null,
+      "Gauge may have rocked; re-zero on the ring",
+    ],
+    [
+      "machine_again",
+      { kind: "machine_again", operation: "hone", note: "Take 0.0005 in, then re-check" },
+      "hone",
+      "Take 0.0005 in, then re-check",
+    ],
+    [
+      "accept",
+      { kind: "accept", reason: "  Customer accepts: race block, clearance checked with the piston maker  " },
+      null,
+      "Customer accepts: race block, clearance checked with the piston maker",
+    ],
   ])("%s", async (kind, body, operation, why) => {
     const f = await newFlag(a, 3);
     const before = Date.now();
     const res = await dispose(a.users.lead, f.id, body);
     expect(res.status).toBe(201);
-    expect(res.body.flag).toMatchObject({ id: f.id, state: "disposed", disposition: kind, operation, dispositionReason: why, disposedBy: a.users.lead.name, verdict: "out_of_spec" });
+    expect(res.body.flag).toMatchObject({
+      id: f.id,
+      state: "disposed",
+      disposition: kind,
+      operation,
+      dispositionReason: why,
+      disposedBy: a.users.lead.name,
+      verdict: "out_of_spec",
+    });
     const rows = await FlagDisposition.findAll({ where: { flagId: f.id } });
-    expect(rows.map((r) => ({ d: r.disposition, op: r.operation, reason: r.reason, user: r.userId }))).toEqual([{ d: kind, op: operation, reason: why, user: a.users.lead.id }]);
+    expect(rows.map((r) => ({ d: r.disposition, op: r.operation, reason: r.reason, user: r.userId }))).toEqual([
+      { d: kind, op: operation, reason: why, user: a.users.lead.id },
+    ]);
     expect(rows[0].createdAt.getTime()).toBeGreaterThanOrEqual(before - 1000);
-    const audit = await AuditEvent.findOne({ where: { entityType: "flag", entityId: String(f.id), action: `flag.${kind}` } });
+    const audit = await AuditEvent.findOne({
+      where: { entityType: "flag", entityId: String(f.id), action: `flag.${kind}` },
+    });
     expect(audit?.userId).toBe(a.users.lead.id);
     expect(audit?.before).toMatchObject({ state: "open", disposition: null });
     expect(audit?.after).toMatchObject({ state: "disposed", disposition: kind });
-    const change = await SyncChange.findOne({ where: { entity: "flag", entityId: String(f.id), jobId: a.job.id }, order: [["id", "DESC"]] });
+    const change = await SyncChange.findOne({
+      where: { entity: "flag", entityId: String(f.id), jobId: a.job.id },
+      order: [["id", "DESC"]],
+    });
     expect(change).not.toBeNull();
     expect(change!.createdAt.getTime()).toBeGreaterThanOrEqual(rows[0].createdAt.getTime() - 1000);
   });
@@ -112,9 +154,14 @@ describe("each kind is recorded with who, when and why", () => {
   it("a second decision is appended; the first stays in the history", async () => {
     const f = await newFlag(a, 5);
     await dispose(a.users.lead, f.id, { kind: "measure_again" });
-    const res = await dispose(a.users.lead, f.id, { kind: "accept", reason: "Re-measured twice with the master ring; within the maker's service limit" });
+    const res = await dispose(a.users.lead, f.id, {
+      kind: "accept",
+      reason: "Re-measured twice with the master ring; within the maker's service limit",
+    });
     expect(res.body.flag.disposition).toBe("accept");
-    const kinds = (await FlagDisposition.findAll({ where: { flagId: f.id }, order: [["id", "ASC"]] })).map((r) => r.disposition);
+    const kinds = (await FlagDisposition.findAll({ where: { flagId: f.id }, order: [["id", "ASC"]] })).map(
+      (r) => r.disposition,
+    );
     expect(kinds).toEqual(["measure_again", "accept"]);
   });
 });

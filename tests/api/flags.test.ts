@@ -18,38 +18,70 @@ let a: TestShop;
 let b: TestShop;
 let pastDueGauge: number;
 
-type R = { stationId: string; value: number; unit?: string; instrumentId?: number; supersedes?: string; minutesAgo?: number };
+type R = {
+  stationId: string;
+  value: number;
+  unit?: string;
+  instrumentId?: number;
+  supersedes?: string;
+  minutesAgo?: number;
+};
 
 async function push(shop: TestShop, readings: R[]): Promise<string[]> {
   const rows = readings.map((r) => ({
-    id: randomUUID(), jobId: shop.job.id, stationId: r.stationId, value: r.value, unit: r.unit ?? "in",
-    instrumentId: r.instrumentId ?? shop.instrument.id, takenAt: new Date(Date.now() - (r.minutesAgo ?? 0) * 60_000).toISOString(),
+    id: randomUUID(),
+    jobId: shop.job.id,
+    stationId: r.stationId,
+    value: r.value,
+    unit: r.unit ?? "in",
+    instrumentId: r.instrumentId ?? shop.instrument.id,
+    takenAt: new Date(Date.now() - (r.minutesAgo ?? 0) * 60_000).toISOString(),
     ...(r.supersedes ? { supersedes: r.supersedes } : {}),
   }));
-  const res = await call(SYNC as never, await asUser(shop.users.machinist, "POST", "/api/sync", { deviceId: "test-tablet", readings: rows }));
+  const res = await call(
+    SYNC as never,
+    await asUser(shop.users.machinist, "POST", "/api/sync", { deviceId: "test-tablet", readings: rows }),
+  );
   expect(res.status, JSON.stringify(res.body)).toBe(200);
   return rows.map((r) => r.id);
 }
 
 const list = async (by: TestUser, q = "") => call(LIST as never, await asUser(by, "GET", `/api/flags${q}`));
-const detail = async (by: TestUser, id: number | string) => call(DETAIL as never, await asUser(by, "GET", `/api/flags/${id}`), { flagId: String(id) });
-const flagAt = async (shop: TestShop, stationId: string) => (await Flag.findOne({ where: { jobId: shop.job.id, stationId, readingId: { [Op.ne]: null } }, order: [["id", "DESC"]] }))!;
+const detail = async (by: TestUser, id: number | string) =>
+  call(DETAIL as never, await asUser(by, "GET", `/api/flags/${id}`), { flagId: String(id) });
+const flagAt = async (shop: TestShop, stationId: string) =>
+  (await Flag.findOne({
+    where: { jobId: shop.job.id, stationId, readingId: { [Op.ne]: null } },
+    order: [["id", "DESC"]],
+  }))!;
 
 // Cylinder 1: top of axis A 4.0312 in is over the 4.0305 in maximum (nominal 4.03 +0.0005), and
 // gives taper 0.0013 and out-of-round 0.0011 over the 0.001 maximum. Figures invented for the test.
 const CYL1: R[] = [
-  { stationId: "bore/1/top/A", value: 4.0312, minutesAgo: 30 }, { stationId: "bore/1/mid/A", value: 4.03, minutesAgo: 30 },
-  { stationId: "bore/1/bottom/A", value: 4.0299, minutesAgo: 30 }, { stationId: "bore/1/top/B", value: 4.0301, minutesAgo: 30 },
-  { stationId: "bore/1/mid/B", value: 4.03, minutesAgo: 30 }, { stationId: "bore/1/bottom/B", value: 4.03, minutesAgo: 30 },
+  { stationId: "bore/1/top/A", value: 4.0312, minutesAgo: 30 },
+  { stationId: "bore/1/mid/A", value: 4.03, minutesAgo: 30 },
+  { stationId: "bore/1/bottom/A", value: 4.0299, minutesAgo: 30 },
+  { stationId: "bore/1/top/B", value: 4.0301, minutesAgo: 30 },
+  { stationId: "bore/1/mid/B", value: 4.03, minutesAgo: 30 },
+  { stationId: "bore/1/bottom/B", value: 4.03, minutesAgo: 30 },
 ];
 
 beforeAll(async () => {
   a = await createShop();
   b = await createShop();
-  pastDueGauge = (await Instrument.create({
-    shopId: a.shop.id, kind: "bore_gauge_digital", label: "Old bore gauge", serial: `OLD-${randomUUID().slice(0, 6)}`, unit: "in",
-    resolution: 0.0001, expandedU: 0.0001, calibratedOn: "2024-01-01", calibrationDue: "2025-01-01",
-  })).id;
+  pastDueGauge = (
+    await Instrument.create({
+      shopId: a.shop.id,
+      kind: "bore_gauge_digital",
+      label: "Old bore gauge",
+      serial: `OLD-${randomUUID().slice(0, 6)}`,
+      unit: "in",
+      resolution: 0.0001,
+      expandedU: 0.0001,
+      calibratedOn: "2024-01-01",
+      calibrationDue: "2025-01-01",
+    })
+  ).id;
   await push(a, CYL1);
   await push(a, [{ stationId: "bore/2/top/A", value: 4.03045, minutesAgo: 20 }]); // marginal: within U of the maximum
   await push(a, [{ stationId: "bore/3/top/A", value: 4.03, instrumentId: pastDueGauge, minutesAgo: 10 }]);
@@ -68,10 +100,23 @@ describe("GET /api/flags", () => {
 
   it("lists this shop's flags only, with station words, gauge, taker and reason", async () => {
     const res = await list(a.users.lead, "?pageSize=100");
-    const items = res.body.items as { jobId: number; stationId: string; station: string; reason: string; gauge: { label: string } | null; takenBy: string | null; derived: boolean }[];
+    const items = res.body.items as {
+      jobId: number;
+      stationId: string;
+      station: string;
+      reason: string;
+      gauge: { label: string } | null;
+      takenBy: string | null;
+      derived: boolean;
+    }[];
     expect(items.every((i) => i.jobId === a.job.id)).toBe(true);
     const top = items.find((i) => i.stationId === "bore/1/top/A")!;
-    expect(top).toMatchObject({ station: "Cylinder 1 · top of bore · axis A (thrust)", reason: "out_of_spec", derived: false, takenBy: a.users.machinist.name });
+    expect(top).toMatchObject({
+      station: "Cylinder 1 · top of bore · axis A (thrust)",
+      reason: "out_of_spec",
+      derived: false,
+      takenBy: a.users.machinist.name,
+    });
     expect(top.gauge?.label).toBe("Test micrometer");
     expect(items.find((i) => i.stationId === "bore/2/top/A")?.reason).toBe("marginal");
     expect(items.find((i) => i.stationId === "bore/3/top/A")?.reason).toBe("gauge_past_due");
@@ -82,7 +127,9 @@ describe("GET /api/flags", () => {
   it("filters by job, verdict, reason and state", async () => {
     expect((await list(a.users.lead, `?job=${b.job.id}`)).body.total).toBe(0); // another shop's job: nothing, not its flags
     expect((await list(a.users.lead, `?job=${a.job.id}`)).body.total).toBe(5);
-    expect((await list(a.users.lead, "?verdict=marginal")).body.items.map((i: { stationId: string }) => i.stationId)).toEqual(["bore/2/top/A"]);
+    expect(
+      (await list(a.users.lead, "?verdict=marginal")).body.items.map((i: { stationId: string }) => i.stationId),
+    ).toEqual(["bore/2/top/A"]);
     expect((await list(a.users.lead, "?reason=gauge_past_due")).body.total).toBe(1);
     expect((await list(a.users.lead, "?state=closed")).body.total).toBe(0);
     expect((await list(a.users.lead, "?state=all&verdict=")).body.total).toBe(5);
@@ -94,19 +141,37 @@ describe("GET /api/flags", () => {
     expect(p1.body).toMatchObject({ total: 5, page: 1, pageSize: 2, pageCount: 3 });
     expect(p1.body.items).toHaveLength(2);
     expect(p3.body.items).toHaveLength(1);
-    const all = (await list(a.users.lead, "?sort=station&dir=asc")).body.items.map((i: { stationId: string }) => i.stationId);
+    const all = (await list(a.users.lead, "?sort=station&dir=asc")).body.items.map(
+      (i: { stationId: string }) => i.stationId,
+    );
     expect(all).toEqual([...all].sort());
-    expect([...p1.body.items, ...(await list(a.users.lead, "?pageSize=2&page=2&sort=station&dir=asc")).body.items, ...p3.body.items].map((i: { stationId: string }) => i.stationId)).toEqual(all);
-    const byVerdict = (await list(a.users.lead, "?sort=verdict&dir=desc")).body.items.map((i: { verdict: string }) => i.verdict);
+    expect(
+      [
+        ...p1.body.items,
+        ...(await list(a.users.lead, "?pageSize=2&page=2&sort=station&dir=asc")).body.items,
+        ...p3.body.items,
+      ].map((i: { stationId: string }) => i.stationId),
+    ).toEqual(all);
+    const byVerdict = (await list(a.users.lead, "?sort=verdict&dir=desc")).body.items.map(
+      (i: { verdict: string }) => i.verdict,
+    );
     expect(byVerdict.at(-1)).not.toBe("out_of_spec");
     expect(byVerdict[0]).toBe("out_of_spec");
-    const oldestFirst = (await list(a.users.lead, "?sort=age&dir=desc")).body.items.map((i: { createdAt: string }) => i.createdAt);
+    const oldestFirst = (await list(a.users.lead, "?sort=age&dir=desc")).body.items.map(
+      (i: { createdAt: string }) => i.createdAt,
+    );
     expect(oldestFirst).toEqual([...oldestFirst].sort());
   });
 
   it.each([
-    ["pageSize=1000", "pageSize"], ["page=0", "page"], ["sort=colour", "sort"], ["dir=up", "dir"],
-    ["state=pending", "state"], ["job=abc", "job"], ["verdict=bad", "verdict"], ["reason=late", "reason"],
+    ["pageSize=1000", "pageSize"],
+    ["page=0", "page"],
+    ["sort=colour", "sort"],
+    ["dir=up", "dir"],
+    ["state=pending", "state"],
+    ["job=abc", "job"],
+    ["verdict=bad", "verdict"],
+    ["reason=late", "reason"],
   ])("422 for ?%s naming %s", async (q, field) => {
     const res = await list(a.users.lead, `?${q}`);
     expect(res.status).toBe(422);
@@ -129,7 +194,12 @@ describe("GET /api/flags/[flagId]", () => {
     expect(body.job).toMatchObject({ id: a.job.id, locked: false });
     expect(body.stations).toHaveLength(1);
     expect(body.stations[0].readings).toHaveLength(1);
-    expect(body.stations[0].readings[0]).toMatchObject({ value: 4.0312, flagged: true, current: true, verdict: "out_of_spec" });
+    expect(body.stations[0].readings[0]).toMatchObject({
+      value: 4.0312,
+      flagged: true,
+      current: true,
+      verdict: "out_of_spec",
+    });
     const fed = Object.fromEntries(body.derived.map((d: { key: string; value: number }) => [d.key, d.value]));
     // Taper on axis A: 4.0312 − 4.0299; out-of-round at the top: 4.0312 − 4.0301 (boreGeometry).
     expect(fed["bore_taper@bore/1"]).toBeCloseTo(0.0013, 10);
@@ -140,7 +210,9 @@ describe("GET /api/flags/[flagId]", () => {
   it("a derived flag shows the readings of every input station", async () => {
     const f = (await Flag.findOne({ where: { jobId: a.job.id, derivedKey: "bore_taper@bore/1" } }))!;
     const { body } = await detail(a.users.lead, f.id);
-    expect(body.stations.map((s: { stationId: string }) => s.stationId).sort()).toEqual(CYL1.map((r) => r.stationId).sort());
+    expect(body.stations.map((s: { stationId: string }) => s.stationId).sort()).toEqual(
+      CYL1.map((r) => r.stationId).sort(),
+    );
     expect(body.derived).toHaveLength(1);
     expect(body.derived[0]).toMatchObject({ key: "bore_taper@bore/1", verdict: "out_of_spec", max: 0.001 });
   });
@@ -154,14 +226,23 @@ describe("GET /api/flags/[flagId]", () => {
     form.set("ownerType", "reading");
     form.set("ownerId", first);
     form.set("clientId", randomUUID());
-    const up = await call(UPLOAD as never, new Request("http://localhost/api/attachments", { method: "POST", headers: { cookie: await cookieFor(c.users.machinist) }, body: form }));
+    const up = await call(
+      UPLOAD as never,
+      new Request("http://localhost/api/attachments", {
+        method: "POST",
+        headers: { cookie: await cookieFor(c.users.machinist) },
+        body: form,
+      }),
+    );
     expect(up.status).toBe(201);
     const [second] = await push(c, [{ stationId: "bore/4/top/A", value: 4.0301, supersedes: first }]);
     const { body } = await detail(c.users.lead, flag.id);
     const readings = body.stations[0].readings;
     expect(readings.map((r: { id: string }) => r.id)).toEqual([first, second]);
     expect(readings[0]).toMatchObject({ supersededBy: second, current: false, flagged: true });
-    expect(readings[0].photos).toEqual([expect.objectContaining({ name: "bore-note.pdf", url: `/api/attachments/${up.body.attachment.id}` })]);
+    expect(readings[0].photos).toEqual([
+      expect.objectContaining({ name: "bore-note.pdf", url: `/api/attachments/${up.body.attachment.id}` }),
+    ]);
     expect(readings[1]).toMatchObject({ supersedes: first, current: true, flagged: false });
   });
 });

@@ -14,8 +14,15 @@ const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISO
 
 async function register(over: Record<string, unknown>): Promise<number> {
   const body = {
-    kind: "bore_gauge_digital", label: "Bore gauge", serial: `BG-${randomUUID().slice(0, 8)}`, unit: "in", resolution: 0.0001,
-    expandedU: 0.0001, calibratedOn: day(-200), calibrationDue: day(165), ...over,
+    kind: "bore_gauge_digital",
+    label: "Bore gauge",
+    serial: `BG-${randomUUID().slice(0, 8)}`,
+    unit: "in",
+    resolution: 0.0001,
+    expandedU: 0.0001,
+    calibratedOn: day(-200),
+    calibrationDue: day(165),
+    ...over,
   };
   const res = await call(REGISTER as never, await asUser(s.users.admin, "POST", "/api/instruments", body));
   expect(res.status, JSON.stringify(res.body)).toBe(201);
@@ -24,9 +31,15 @@ async function register(over: Record<string, unknown>): Promise<number> {
 
 async function read(stationId: string, value: number, instrumentId: number) {
   const id = randomUUID();
-  const res = await call(SYNC as never, await asUser(s.users.machinist, "POST", "/api/sync", {
-    deviceId: "bench-2", readings: [{ id, jobId: s.job.id, stationId, value, unit: "in", instrumentId, takenAt: new Date().toISOString() }],
-  }));
+  const res = await call(
+    SYNC as never,
+    await asUser(s.users.machinist, "POST", "/api/sync", {
+      deviceId: "bench-2",
+      readings: [
+        { id, jobId: s.job.id, stationId, value, unit: "in", instrumentId, takenAt: new Date().toISOString() },
+      ],
+    }),
+  );
   expect(res.status, JSON.stringify(res.body)).toBe(200);
   return { reading: (await Reading.findByPk(id))!, flag: await Flag.findOne({ where: { readingId: id } }) };
 }

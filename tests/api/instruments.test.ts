@@ -17,8 +17,16 @@ let b: TestShop;
 
 const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
 const gauge = (over: Record<string, unknown> = {}) => ({
-  kind: "bore_gauge_dial", label: "Dial bore gauge 2-6 in", serial: `DB-${randomUUID().slice(0, 8)}`, unit: "in",
-  resolution: 0.0001, expandedU: 0.00015, calibratedOn: day(-300), calibrationDue: day(65), dialPlusMeansSmaller: true, ...over,
+  kind: "bore_gauge_dial",
+  label: "Dial bore gauge 2-6 in",
+  serial: `DB-${randomUUID().slice(0, 8)}`,
+  unit: "in",
+  resolution: 0.0001,
+  expandedU: 0.00015,
+  calibratedOn: day(-300),
+  calibrationDue: day(65),
+  dialPlusMeansSmaller: true,
+  ...over,
 });
 
 beforeAll(async () => {
@@ -26,7 +34,8 @@ beforeAll(async () => {
   b = await createShop();
 });
 
-const register = async (by: TestUser, body: unknown) => call(POST as never, await asUser(by, "POST", "/api/instruments", body));
+const register = async (by: TestUser, body: unknown) =>
+  call(POST as never, await asUser(by, "POST", "/api/instruments", body));
 const patch = async (by: TestUser, id: number | string, body: unknown) =>
   call(PATCH as never, await asUser(by, "PATCH", `/api/instruments/${id}`, body), { instrumentId: String(id) });
 
@@ -51,8 +60,17 @@ describe("POST /api/instruments", () => {
 
   it("stores U at k = 2 and reports the calibration status; audits the registration", async () => {
     const res = await register(a.users.admin, gauge({ calibrationDue: day(10) }));
-    expect(res.body.instrument).toMatchObject({ coverageK: 2, expandedU: 0.00015, status: "due_soon", daysLeft: 10, active: true, certificate: null });
-    const e = await AuditEvent.findOne({ where: { entityType: "instrument", entityId: String(res.body.instrument.id), action: "instrument.registered" } });
+    expect(res.body.instrument).toMatchObject({
+      coverageK: 2,
+      expandedU: 0.00015,
+      status: "due_soon",
+      daysLeft: 10,
+      active: true,
+      certificate: null,
+    });
+    const e = await AuditEvent.findOne({
+      where: { entityType: "instrument", entityId: String(res.body.instrument.id), action: "instrument.registered" },
+    });
     expect(e?.after).toMatchObject({ serial: res.body.instrument.serial, expandedU: 0.00015 });
   });
 
@@ -102,18 +120,29 @@ describe("GET /api/instruments and /api/instruments/[id]", () => {
     const serials = res.body.instruments.map((g: { serial: string }) => g.serial);
     expect(serials.length).toBeGreaterThan(0);
     const other = await call(GET as never, await asUser(b.users.admin, "GET", "/api/instruments"));
-    for (const s of other.body.instruments) expect(res.body.instruments.map((g: { id: number }) => g.id)).not.toContain(s.id);
+    for (const s of other.body.instruments)
+      expect(res.body.instruments.map((g: { id: number }) => g.id)).not.toContain(s.id);
   });
 
   it.each(ROLES)("one as %s; another shop's gauge is 404", async (role) => {
-    const own = await call(GET_ONE as never, await asUser(a.users[role], "GET", `/api/instruments/${a.instrument.id}`), { instrumentId: String(a.instrument.id) });
+    const own = await call(
+      GET_ONE as never,
+      await asUser(a.users[role], "GET", `/api/instruments/${a.instrument.id}`),
+      { instrumentId: String(a.instrument.id) },
+    );
     expect(own.status).toBe(READERS.has(role) ? 200 : 403);
-    const theirs = await call(GET_ONE as never, await asUser(a.users[role], "GET", `/api/instruments/${b.instrument.id}`), { instrumentId: String(b.instrument.id) });
+    const theirs = await call(
+      GET_ONE as never,
+      await asUser(a.users[role], "GET", `/api/instruments/${b.instrument.id}`),
+      { instrumentId: String(b.instrument.id) },
+    );
     expect(theirs.status).toBe(READERS.has(role) ? 404 : 403);
   });
 
   it("422 for an unknown include", async () => {
-    expect((await call(GET as never, await asUser(a.users.admin, "GET", "/api/instruments?include=some"))).status).toBe(422);
+    expect((await call(GET as never, await asUser(a.users.admin, "GET", "/api/instruments?include=some"))).status).toBe(
+      422,
+    );
   });
 });
 
@@ -133,7 +162,9 @@ describe("PATCH /api/instruments/[id]", () => {
     const res = await patch(a.users.admin, id, { expandedU: 0.0002, calibrationDue: day(-1) });
     expect(res.status).toBe(200);
     expect(res.body.instrument).toMatchObject({ expandedU: 0.0002, status: "past_due" });
-    const e = await AuditEvent.findOne({ where: { entityType: "instrument", entityId: String(id), action: "instrument.updated" } });
+    const e = await AuditEvent.findOne({
+      where: { entityType: "instrument", entityId: String(id), action: "instrument.updated" },
+    });
     expect(e?.before).toMatchObject({ expandedU: 0.00015 });
     expect(e?.after).toMatchObject({ expandedU: 0.0002 });
     const bad = await patch(a.users.admin, id, { calibrationDue: day(-400) });
@@ -142,7 +173,11 @@ describe("PATCH /api/instruments/[id]", () => {
     expect((await patch(a.users.admin, id, { unit: "lbf_ft" })).body.error.fields.unit).toBeDefined();
   });
 
-  it.each([["nothing", {}], ["an unknown field", { coverageK: 3 }], ["active as text", { active: "yes" }]])("422 for %s", async (_l, body) => {
+  it.each([
+    ["nothing", {}],
+    ["an unknown field", { coverageK: 3 }],
+    ["active as text", { active: "yes" }],
+  ])("422 for %s", async (_l, body) => {
     expect((await patch(a.users.admin, a.instrument.id, body)).status).toBe(422);
   });
 
@@ -157,11 +192,16 @@ describe("PATCH /api/instruments/[id]", () => {
     const { body } = await register(a.users.admin, gauge());
     const id = body.instrument.id;
     expect((await patch(a.users.admin, id, { active: false })).body.instrument.active).toBe(false);
-    const listed = async (q: string) => (await call(GET as never, await asUser(a.users.lead, "GET", `/api/instruments${q}`))).body.instruments.map((g: { id: number }) => g.id);
+    const listed = async (q: string) =>
+      (await call(GET as never, await asUser(a.users.lead, "GET", `/api/instruments${q}`))).body.instruments.map(
+        (g: { id: number }) => g.id,
+      );
     expect(await listed("")).not.toContain(id);
     expect(await listed("?include=all")).toContain(id);
     expect((await patch(a.users.admin, id, { active: true })).body.instrument.active).toBe(true);
-    const actions = (await AuditEvent.findAll({ where: { entityType: "instrument", entityId: String(id) }, order: [["id", "ASC"]] })).map((e) => e.action);
+    const actions = (
+      await AuditEvent.findAll({ where: { entityType: "instrument", entityId: String(id) }, order: [["id", "ASC"]] })
+    ).map((e) => e.action);
     expect(actions).toEqual(["instrument.registered", "instrument.deactivated", "instrument.reactivated"]);
   });
 });
@@ -170,11 +210,20 @@ describe("calibration certificate (POST /api/attachments, ownerType instrument)"
   async function upload(by: TestUser, ownerId: number) {
     const form = new FormData();
     // A minimal PDF header so the upload's type sniffing sees a PDF.
-    form.set("file", new File([Buffer.from("%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n")], "cert.pdf", { type: "application/pdf" }));
+    form.set(
+      "file",
+      new File([Buffer.from("%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n")], "cert.pdf", {
+        type: "application/pdf",
+      }),
+    );
     form.set("ownerType", "instrument");
     form.set("ownerId", String(ownerId));
     form.set("clientId", randomUUID());
-    const req = new Request("http://localhost/api/attachments", { method: "POST", headers: { cookie: await cookieFor(by) }, body: form });
+    const req = new Request("http://localhost/api/attachments", {
+      method: "POST",
+      headers: { cookie: await cookieFor(by) },
+      body: form,
+    });
     return call(UPLOAD as never, req);
   }
 
@@ -184,7 +233,13 @@ describe("calibration certificate (POST /api/attachments, ownerType instrument)"
     expect((await upload(a.users.lead, id)).status).toBe(403);
     const up = await upload(a.users.admin, id);
     expect(up.status).toBe(201);
-    const res = await call(GET_ONE as never, await asUser(a.users.lead, "GET", `/api/instruments/${id}`), { instrumentId: String(id) });
-    expect(res.body.instrument.certificate).toEqual({ id: up.body.attachment.id, name: "cert.pdf", url: `/api/attachments/${up.body.attachment.id}` });
+    const res = await call(GET_ONE as never, await asUser(a.users.lead, "GET", `/api/instruments/${id}`), {
+      instrumentId: String(id),
+    });
+    expect(res.body.instrument.certificate).toEqual({
+      id: up.body.attachment.id,
+      name: "cert.pdf",
+      url: `/api/attachments/${up.body.attachment.id}`,
+    });
   });
 });

@@ -15,10 +15,15 @@ beforeAll(async () => {
   b = await createShop();
 });
 
-const get = async (by: TestUser, id: number | string) => call(GET as never, await asUser(by, "GET", `/api/jobs/${id}/limits`), { jobId: String(id) });
-const put = async (by: TestUser, id: number | string, body: unknown) => call(PUT as never, await asUser(by, "PUT", `/api/jobs/${id}/limits`, body), { jobId: String(id) });
+const get = async (by: TestUser, id: number | string) =>
+  call(GET as never, await asUser(by, "GET", `/api/jobs/${id}/limits`), { jobId: String(id) });
+const put = async (by: TestUser, id: number | string, body: unknown) =>
+  call(PUT as never, await asUser(by, "PUT", `/api/jobs/${id}/limits`, body), { jobId: String(id) });
 const revision = async (id: number) => (await Job.findByPk(id))!.specRevision;
-const body = async (s: TestShop, limits: unknown[] = [...INCH_LIMITS]) => ({ specRevision: await revision(s.job.id), limits });
+const body = async (s: TestShop, limits: unknown[] = [...INCH_LIMITS]) => ({
+  specRevision: await revision(s.job.id),
+  limits,
+});
 
 describe("/api/jobs/[jobId]/limits", () => {
   it.each(ROLES)("GET as %s", async (role) => {
@@ -48,7 +53,9 @@ describe("/api/jobs/[jobId]/limits", () => {
   });
 
   it("422 without the revision edited from; 400 for a body that is not JSON", async () => {
-    expect((await put(a.users.lead, a.job.id, { limits: [...INCH_LIMITS] })).body.error.fields.specRevision).toBeDefined();
+    expect(
+      (await put(a.users.lead, a.job.id, { limits: [...INCH_LIMITS] })).body.error.fields.specRevision,
+    ).toBeDefined();
     expect((await put(a.users.lead, a.job.id, "{")).status).toBe(400);
   });
 

@@ -19,25 +19,56 @@ beforeAll(async () => {
 });
 
 const engine = (over: Record<string, unknown> = {}) => ({
-  description: "Small-block V8, 0.030 in over", cylinders: 8, layout: "v", mains: 5, valvesPerCylinder: 2, ringsPerPiston: 3,
-  boltsPerRod: 2, nominalBore: 4.03, nominalStroke: 3.48, blockMaterial: "greyCastIron", pistonMaterial: "aluminium356",
-  blockSerial: "BLK-1", crankSerial: null, headSerials: "", fuel: "gasoline", ...over,
+  description: "Small-block V8, 0.030 in over",
+  cylinders: 8,
+  layout: "v",
+  mains: 5,
+  valvesPerCylinder: 2,
+  ringsPerPiston: 3,
+  boltsPerRod: 2,
+  nominalBore: 4.03,
+  nominalStroke: 3.48,
+  blockMaterial: "greyCastIron",
+  pistonMaterial: "aluminium356",
+  blockSerial: "BLK-1",
+  crankSerial: null,
+  headSerials: "",
+  fuel: "gasoline",
+  ...over,
 });
 const body = (s: TestShop, over: Record<string, unknown> = {}) => ({
-  code: `J-${randomUUID().slice(0, 6)}`, title: "Marine V8 freshen-up", customer: { mode: "existing", id: s.customer.id },
-  engine: engine(), unitSystem: "in", templateId: s.template.id, dueDate: "2027-02-01", status: "intake", notes: "", ...over,
+  code: `J-${randomUUID().slice(0, 6)}`,
+  title: "Marine V8 freshen-up",
+  customer: { mode: "existing", id: s.customer.id },
+  engine: engine(),
+  unitSystem: "in",
+  templateId: s.template.id,
+  dueDate: "2027-02-01",
+  status: "intake",
+  notes: "",
+  ...over,
 });
 
-const create = async (by: TestUser | null, b0: unknown) => call(POST as never, await asUser(by, "POST", "/api/jobs", b0));
-const patch = async (by: TestUser, id: number | string, b0: unknown) => call(PATCH as never, await asUser(by, "PATCH", `/api/jobs/${id}`, b0), { jobId: String(id) });
-const one = async (by: TestUser, id: number | string) => call(ONE as never, await asUser(by, "GET", `/api/jobs/${id}`), { jobId: String(id) });
+const create = async (by: TestUser | null, b0: unknown) =>
+  call(POST as never, await asUser(by, "POST", "/api/jobs", b0));
+const patch = async (by: TestUser, id: number | string, b0: unknown) =>
+  call(PATCH as never, await asUser(by, "PATCH", `/api/jobs/${id}`, b0), { jobId: String(id) });
+const one = async (by: TestUser, id: number | string) =>
+  call(ONE as never, await asUser(by, "GET", `/api/jobs/${id}`), { jobId: String(id) });
 
 /** The edit body of an existing job (from its detail), with changes on top. */
 async function editBody(id: number, over: Record<string, unknown> = {}) {
   const d = (await one(a.users.lead, id)).body;
   return {
-    code: d.job.code, title: d.job.title, customer: { mode: "existing", id: d.customer.id }, engine: d.engine, unitSystem: d.job.unitSystem,
-    dueDate: d.job.dueDate ?? "", status: d.job.status, notes: d.job.notes ?? "", ...over,
+    code: d.job.code,
+    title: d.job.title,
+    customer: { mode: "existing", id: d.customer.id },
+    engine: d.engine,
+    unitSystem: d.job.unitSystem,
+    dueDate: d.job.dueDate ?? "",
+    status: d.job.status,
+    notes: d.job.notes ?? "",
+    ...over,
   };
 }
 
@@ -62,9 +93,19 @@ describe("GET /api/jobs (the board)", () => {
     const at = (min: number) => new Date(Date.UTC(2026, 11, 1, 9, min));
     const add = (stationId: string, value: number | null, min: number, extra: Record<string, unknown> = {}) =>
       Reading.create({
-        id: randomUUID(), shopId: s.shop.id, jobId: s.job.id, stationId, characteristic: stationId.startsWith("torque") ? "fastener_torque" : "bore_diameter",
-        valueEntered: value, valueCanonical: value === null ? null : value * 25.4, unitEntered: stationId.startsWith("torque") ? "lbf_ft" : "in",
-        takenBy: s.users.machinist.id, takenAt: at(min), deviceId: "test", skipped: value === null, ...extra,
+        id: randomUUID(),
+        shopId: s.shop.id,
+        jobId: s.job.id,
+        stationId,
+        characteristic: stationId.startsWith("torque") ? "fastener_torque" : "bore_diameter",
+        valueEntered: value,
+        valueCanonical: value === null ? null : value * 25.4,
+        unitEntered: stationId.startsWith("torque") ? "lbf_ft" : "in",
+        takenBy: s.users.machinist.id,
+        takenAt: at(min),
+        deviceId: "test",
+        skipped: value === null,
+        ...extra,
       });
     await add("bore/1/top/A", 4.0301, 1);
     const old = await add("bore/1/top/B", 4.0301, 2);
@@ -86,20 +127,39 @@ describe("POST /api/jobs", () => {
   });
 
   it("snapshots the template's limits into the job, audits it and puts it on the change feed", async () => {
-    const res = await create(a.users.lead, body(a, { customer: { mode: "new", name: "Tamsin Ledger", email: "tamsin@example.net", phone: "" } }));
+    const res = await create(
+      a.users.lead,
+      body(a, { customer: { mode: "new", name: "Tamsin Ledger", email: "tamsin@example.net", phone: "" } }),
+    );
     expect(res.status).toBe(201);
     const id = res.body.id;
     const [limits, template] = await Promise.all([
       JobLimit.findAll({ where: { jobId: id }, order: [["sortOrder", "ASC"]] }),
       SpecLimit.findAll({ where: { templateId: a.template.id }, order: [["sortOrder", "ASC"]] }),
     ]);
-    expect(limits.map((l) => [l.characteristic, l.stationPattern, l.limitType, l.unit, l.nominal, l.min, l.max, l.required]))
-      .toEqual(template.map((l) => [l.characteristic, l.stationPattern, l.limitType, l.unit, l.nominal, l.min, l.max, l.required]));
+    expect(
+      limits.map((l) => [l.characteristic, l.stationPattern, l.limitType, l.unit, l.nominal, l.min, l.max, l.required]),
+    ).toEqual(
+      template.map((l) => [
+        l.characteristic,
+        l.stationPattern,
+        l.limitType,
+        l.unit,
+        l.nominal,
+        l.min,
+        l.max,
+        l.required,
+      ]),
+    );
     expect(limits).toHaveLength(INCH_LIMITS.length);
     const job = await Job.findByPk(id);
     expect(job).toMatchObject({ status: "intake", templateId: a.template.id, specRevision: 1, dueDate: "2027-02-01" });
     const audit = await AuditEvent.findOne({ where: { action: "job.create", entityId: String(id) } });
-    expect(audit?.after).toMatchObject({ templateId: a.template.id, limitCount: INCH_LIMITS.length, engine: { cylinders: 8, blockSerial: "BLK-1", headSerials: null } });
+    expect(audit?.after).toMatchObject({
+      templateId: a.template.id,
+      limitCount: INCH_LIMITS.length,
+      engine: { cylinders: 8, blockSerial: "BLK-1", headSerials: null },
+    });
     expect(await SyncChange.count({ where: { jobId: id, entity: "job" } })).toBe(1);
     const detail = await one(a.users.lead, id);
     expect(detail.body.customer.name).toBe("Tamsin Ledger");
@@ -150,7 +210,11 @@ describe("GET and PATCH /api/jobs/[jobId]", () => {
     expect((await one(a.users[role], a.job.id)).status).toBe(role === "machinist" ? 403 : 200);
   });
 
-  it.each([["another shop's job", () => b.job.id], ["a junk id", () => "abc"], ["no such job", () => 99999999]])("404 for %s", async (_w, id) => {
+  it.each([
+    ["another shop's job", () => b.job.id],
+    ["a junk id", () => "abc"],
+    ["no such job", () => 99999999],
+  ])("404 for %s", async (_w, id) => {
     expect((await one(a.users.lead, id())).status).toBe(404);
     expect((await patch(a.users.lead, id(), { title: "x" })).status).toBe(404);
   });
@@ -173,8 +237,16 @@ describe("GET and PATCH /api/jobs/[jobId]", () => {
       expect(res.status).toBe(200);
       expect(res.body.job.status).toBe(status);
     }
-    const events = await AuditEvent.findAll({ where: { action: "job.status", entityId: String(id) }, order: [["id", "ASC"]] });
-    expect(events.map((e) => [(e.before as { status: string }).status, (e.after as { status: string }).status])).toEqual([["intake", "measuring"], ["measuring", "review"]]);
+    const events = await AuditEvent.findAll({
+      where: { action: "job.status", entityId: String(id) },
+      order: [["id", "ASC"]],
+    });
+    expect(
+      events.map((e) => [(e.before as { status: string }).status, (e.after as { status: string }).status]),
+    ).toEqual([
+      ["intake", "measuring"],
+      ["measuring", "review"],
+    ]);
   });
 
   it("refuses a released job with 409 job_locked", async () => {
@@ -188,7 +260,19 @@ describe("GET and PATCH /api/jobs/[jobId]", () => {
   it("keeps the unit system once readings exist", async () => {
     const res = await patch(a.users.lead, a.job.id, await editBody(a.job.id));
     expect(res.status).toBe(200);
-    await Reading.create({ id: randomUUID(), shopId: a.shop.id, jobId: a.job.id, stationId: "bore/1/top/A", characteristic: "bore_diameter", valueEntered: 4.03, valueCanonical: 102.362, unitEntered: "in", takenBy: a.users.machinist.id, takenAt: new Date(), deviceId: "t" });
+    await Reading.create({
+      id: randomUUID(),
+      shopId: a.shop.id,
+      jobId: a.job.id,
+      stationId: "bore/1/top/A",
+      characteristic: "bore_diameter",
+      valueEntered: 4.03,
+      valueCanonical: 102.362,
+      unitEntered: "in",
+      takenBy: a.users.machinist.id,
+      takenAt: new Date(),
+      deviceId: "t",
+    });
     const refused = await patch(a.users.lead, a.job.id, await editBody(a.job.id, { unitSystem: "mm" }));
     expect(refused.status).toBe(409);
     expect(refused.body.error.fields.unitSystem).toBeDefined();
@@ -203,12 +287,18 @@ describe("/api/customers", () => {
   });
 
   it.each(ROLES)("POST as %s", async (role) => {
-    const res = await call(NEW_CUSTOMER as never, await asUser(a.users[role], "POST", "/api/customers", { name: `C ${role}`, email: "", phone: "555-0100" }));
+    const res = await call(
+      NEW_CUSTOMER as never,
+      await asUser(a.users[role], "POST", "/api/customers", { name: `C ${role}`, email: "", phone: "555-0100" }),
+    );
     expect(res.status).toBe(role === "lead" ? 201 : 403);
   });
 
   it("422 naming the e-mail", async () => {
-    const res = await call(NEW_CUSTOMER as never, await asUser(a.users.lead, "POST", "/api/customers", { name: "X", email: "not-an-email" }));
+    const res = await call(
+      NEW_CUSTOMER as never,
+      await asUser(a.users.lead, "POST", "/api/customers", { name: "X", email: "not-an-email" }),
+    );
     expect(res.status).toBe(422);
     expect(res.body.error.fields.email).toBeDefined();
   });

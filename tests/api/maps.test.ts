@@ -12,11 +12,23 @@ const READERS = new Set(["lead", "inspector"]);
 let a: TestShop;
 let b: TestShop;
 
-const maps = async (by: TestUser, jobId: number | string) => call(GET as never, await asUser(by, "GET", `/api/jobs/${jobId}/maps`), { jobId: String(jobId) });
+const maps = async (by: TestUser, jobId: number | string) =>
+  call(GET as never, await asUser(by, "GET", `/api/jobs/${jobId}/maps`), { jobId: String(jobId) });
 
 async function push(shop: TestShop, readings: { stationId: string; value: number; unit?: string }[]) {
-  const rows = readings.map((r) => ({ id: randomUUID(), jobId: shop.job.id, stationId: r.stationId, value: r.value, unit: r.unit ?? "in", instrumentId: shop.instrument.id, takenAt: new Date().toISOString() }));
-  const res = await call(SYNC as never, await asUser(shop.users.machinist, "POST", "/api/sync", { deviceId: "maps-test", readings: rows }));
+  const rows = readings.map((r) => ({
+    id: randomUUID(),
+    jobId: shop.job.id,
+    stationId: r.stationId,
+    value: r.value,
+    unit: r.unit ?? "in",
+    instrumentId: shop.instrument.id,
+    takenAt: new Date().toISOString(),
+  }));
+  const res = await call(
+    SYNC as never,
+    await asUser(shop.users.machinist, "POST", "/api/sync", { deviceId: "maps-test", readings: rows }),
+  );
   expect(res.status, JSON.stringify(res.body)).toBe(200);
 }
 
@@ -25,8 +37,12 @@ beforeAll(async () => {
   b = await createShop();
   // Invented figures: cylinder 1 leans on axis A (top 4.0312, bottom 4.0299), B stays near 4.0300.
   await push(a, [
-    { stationId: "bore/1/top/A", value: 4.0312 }, { stationId: "bore/1/mid/A", value: 4.03 }, { stationId: "bore/1/bottom/A", value: 4.0299 },
-    { stationId: "bore/1/top/B", value: 4.0301 }, { stationId: "bore/1/mid/B", value: 4.03 }, { stationId: "bore/1/bottom/B", value: 4.03 },
+    { stationId: "bore/1/top/A", value: 4.0312 },
+    { stationId: "bore/1/mid/A", value: 4.03 },
+    { stationId: "bore/1/bottom/A", value: 4.0299 },
+    { stationId: "bore/1/top/B", value: 4.0301 },
+    { stationId: "bore/1/mid/B", value: 4.03 },
+    { stationId: "bore/1/bottom/B", value: 4.03 },
     { stationId: "bore/2/top/A", value: 102.362, unit: "mm" },
   ]);
 });
@@ -41,12 +57,19 @@ describe("GET /api/jobs/[jobId]/maps", () => {
   it("follows the engine: a V8 with 5 mains has 8 bores, 5 mains, 4 crankpins and 4 deck corners", async () => {
     const { body } = await maps(a.users.lead, a.job.id);
     expect(body.unit).toBe("in");
-    expect(body.bores.map((p: { label: string }) => p.label)).toEqual([1, 2, 3, 4, 5, 6, 7, 8].map((n) => `Cylinder ${n}`));
+    expect(body.bores.map((p: { label: string }) => p.label)).toEqual(
+      [1, 2, 3, 4, 5, 6, 7, 8].map((n) => `Cylinder ${n}`),
+    );
     expect(body.mains).toHaveLength(5);
     expect(body.rods).toHaveLength(4);
     expect(body.bores[0].rows.map((r: { at: string }) => r.at)).toEqual(["top", "mid", "bottom"]);
     expect(body.mains[0].rows.map((r: { at: string }) => r.at)).toEqual(["front", "rear"]);
-    expect(body.deck.map((d: { bank: string; corner: string }) => `${d.bank}/${d.corner}`)).toEqual(["left/front", "left/rear", "right/front", "right/rear"]);
+    expect(body.deck.map((d: { bank: string; corner: string }) => `${d.bank}/${d.corner}`)).toEqual([
+      "left/front",
+      "left/rear",
+      "right/front",
+      "right/rear",
+    ]);
   });
 
   it("each figure carries its limits and verdict; taper and out-of-round come from the core", async () => {

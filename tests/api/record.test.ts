@@ -16,8 +16,15 @@ import { pdfText } from "../support/pdf-text";
 import { asUser, call } from "../support/requests";
 
 async function getPdf(user: TestUser | null, jobId: number, query = "") {
-  const res = await GET(await asUser(user, "GET", `/api/record/${jobId}/pdf${query}`), { params: Promise.resolve({ jobId: String(jobId) }) });
-  return { status: res.status, type: res.headers.get("content-type"), disposition: res.headers.get("content-disposition"), bytes: Buffer.from(await res.arrayBuffer()) };
+  const res = await GET(await asUser(user, "GET", `/api/record/${jobId}/pdf${query}`), {
+    params: Promise.resolve({ jobId: String(jobId) }),
+  });
+  return {
+    status: res.status,
+    type: res.headers.get("content-type"),
+    disposition: res.headers.get("content-disposition"),
+    bytes: Buffer.from(await res.arrayBuffer()),
+  };
 }
 
 function hasPdftoppm(): boolean {
@@ -73,20 +80,38 @@ describe("GET /api/record/[jobId]/pdf", () => {
     mkdirSync("tests/artifacts", { recursive: true });
     writeFileSync("tests/artifacts/record.pdf", res.bytes);
     if (hasPdftoppm()) {
-      execFileSync("pdftoppm", ["-png", "-r", "80", "-f", "1", "-l", "2", "tests/artifacts/record.pdf", "tests/artifacts/record-page"]);
+      execFileSync("pdftoppm", [
+        "-png",
+        "-r",
+        "80",
+        "-f",
+        "1",
+        "-l",
+        "2",
+        "tests/artifacts/record.pdf",
+        "tests/artifacts/record-page",
+      ]);
       expect(existsSync("tests/artifacts/record-page-1.png")).toBe(true);
     } else {
-      console.warn("pdftoppm is not installed (poppler-utils): the PDF was written to tests/artifacts/record.pdf but no page was rendered to PNG");
+      console.warn(
+        "pdftoppm is not installed (poppler-utils): the PDF was written to tests/artifacts/record.pdf but no page was rendered to PNG",
+      );
     }
   });
 
   it("marks a voided release VOID, a job never released DRAFT, and a record changed after release", async () => {
     const job = await createRecordJob();
-    await getSequelize().query("UPDATE readings SET value_entered = 4.0304 WHERE id = ?", { replacements: [job.readings["bore/1/mid/A"]], type: QueryTypes.UPDATE });
+    await getSequelize().query("UPDATE readings SET value_entered = 4.0304 WHERE id = ?", {
+      replacements: [job.readings["bore/1/mid/A"]],
+      type: QueryTypes.UPDATE,
+    });
     const changed = await pdfText((await getPdf(job.users.lead, job.job.id)).bytes);
     expect(changed.text).toContain("Changed since release");
 
-    await Release.update({ voidedAt: new Date(), voidedBy: job.users.lead.id, voidReason: "Bore 2 to be honed again after all" }, { where: { id: job.release!.id } });
+    await Release.update(
+      { voidedAt: new Date(), voidedBy: job.users.lead.id, voidReason: "Bore 2 to be honed again after all" },
+      { where: { id: job.release!.id } },
+    );
     const voided = await getPdf(job.users.lead, job.job.id);
     expect(voided.disposition).toContain("-void.pdf");
     const v = await pdfText(voided.bytes);
@@ -102,7 +127,8 @@ describe("GET /api/record/[jobId]/pdf", () => {
   it("lets the lead, inspector and admin of the shop print it; refuses others", async () => {
     const job = await createRecordJob({ photo: false });
     const other = await createShop();
-    for (const role of ["lead", "inspector", "admin"] as const) expect((await getPdf(job.users[role], job.job.id)).status).toBe(200);
+    for (const role of ["lead", "inspector", "admin"] as const)
+      expect((await getPdf(job.users[role], job.job.id)).status).toBe(200);
     expect((await getPdf(job.users.machinist, job.job.id)).status).toBe(403);
     expect((await getPdf(null, job.job.id)).status).toBe(401);
     expect((await getPdf(other.users.lead, job.job.id)).status).toBe(404);
@@ -112,10 +138,18 @@ describe("GET /api/record/[jobId]/pdf", () => {
   it("POST /api/record/[jobId]/send queues the record to the customer again, with words when it cannot", async () => {
     const job = await createRecordJob({ photo: false });
     const other = await createShop();
-    const post = async (user: TestUser, jobId = job.job.id) => call(send, await asUser(user, "POST", `/api/record/${jobId}/send`), { jobId: String(jobId) });
+    const post = async (user: TestUser, jobId = job.job.id) =>
+      call(send, await asUser(user, "POST", `/api/record/${jobId}/send`), { jobId: String(jobId) });
     expect((await post(job.users.inspector)).status).toBe(202);
     expect((await post(job.users.lead)).status).toBe(202);
-    expect(await MailOutbox.count({ where: { shopId: job.shop.id, dedupeKey: { [Op.startsWith]: `build_record:release:${job.release!.id}:again:` } } })).toBe(2);
+    expect(
+      await MailOutbox.count({
+        where: {
+          shopId: job.shop.id,
+          dedupeKey: { [Op.startsWith]: `build_record:release:${job.release!.id}:again:` },
+        },
+      }),
+    ).toBe(2);
     expect((await post(job.users.machinist)).status).toBe(403);
     expect((await post(other.users.lead, job.job.id)).status).toBe(404);
     const draft = await createRecordJob({ release: false, photo: false });
@@ -132,15 +166,47 @@ describe("GET /api/record/[jobId]/pdf", () => {
     // react-pdf 4 drifts fixed footers placed from the bottom on long documents until pdfkit
     // throws "unsupported number" (diegomura/react-pdf#3416); the record places them from the top.
     const row = (i: number): ReadingLine => ({
-      stationId: `bore/${i}`, station: `Station ${i}`, value: "4.0301 in", limits: "4.0295 to 4.0305 in", deviation: "+0.0001",
-      verdict: "in_spec", verdictWords: "In spec", gauge: "G-1", takenBy: "Test machinist", takenAt: "2026-12-01 10:00", notes: i % 9 ? "" : "part at 24 °C", photos: [],
+      stationId: `bore/${i}`,
+      station: `Station ${i}`,
+      value: "4.0301 in",
+      limits: "4.0295 to 4.0305 in",
+      deviation: "+0.0001",
+      verdict: "in_spec",
+      verdictWords: "In spec",
+      gauge: "G-1",
+      takenBy: "Test machinist",
+      takenAt: "2026-12-01 10:00",
+      notes: i % 9 ? "" : "part at 24 °C",
+      photos: [],
     });
     const record: BuildRecord = {
-      generatedAt: "2026-12-01 12:00 UTC", pageSize: "A4", shop: { name: "Long shop", contact: [] }, customer: { name: "C", contact: [] },
-      job: { id: 1, code: "L-1", title: "Long job", status: "review", units: "mm and N·m", specRevision: 1, notes: null }, engine: [], plan: null,
-      sections: [{ id: "bore", label: "Cylinder bores", what: "", rows: Array.from({ length: 320 }, (_, i) => row(i)) }],
-      derived: [], torque: [], flags: [], gauges: [], photos: [], tally: { measured: 320, inSpec: 320, marginal: 0, outOfSpec: 0, skipped: 0, unjudged: 0 },
-      release: null, earlierReleases: [], safety: ["Safety line"],
+      generatedAt: "2026-12-01 12:00 UTC",
+      pageSize: "A4",
+      shop: { name: "Long shop", contact: [] },
+      customer: { name: "C", contact: [] },
+      job: {
+        id: 1,
+        code: "L-1",
+        title: "Long job",
+        status: "review",
+        units: "mm and N·m",
+        specRevision: 1,
+        notes: null,
+      },
+      engine: [],
+      plan: null,
+      sections: [
+        { id: "bore", label: "Cylinder bores", what: "", rows: Array.from({ length: 320 }, (_, i) => row(i)) },
+      ],
+      derived: [],
+      torque: [],
+      flags: [],
+      gauges: [],
+      photos: [],
+      tally: { measured: 320, inSpec: 320, marginal: 0, outOfSpec: 0, skipped: 0, unjudged: 0 },
+      release: null,
+      earlierReleases: [],
+      safety: ["Safety line"],
     };
     const { text, pages } = await pdfText(await renderRecordPdf(record));
     expect(pages).toBeGreaterThan(12);

@@ -10,7 +10,8 @@ import { addFlag, completeJob, fillReadings, pastDueGauge, setPlan } from "./rel
 
 const url = (s: TestShop) => `/api/release/${s.job.id}`;
 const params = (s: TestShop) => ({ jobId: String(s.job.id) });
-const signAs = async (s: TestShop, body: unknown, who = s.users.inspector) => call(sign, await asUser(who, "POST", url(s), body), params(s));
+const signAs = async (s: TestShop, body: unknown, who = s.users.inspector) =>
+  call(sign, await asUser(who, "POST", url(s), body), params(s));
 const goodSignature = (s: TestShop) => ({ fullName: s.users.inspector.name, password: TEST_PASSWORD });
 
 describe("release checklist", () => {
@@ -51,24 +52,53 @@ describe("release checklist", () => {
     });
     await setPlan(s, { lengthUnit: "in", bore: 4.03, stroke: 3.48, pistonTop: "flat" });
     const open = await addFlag(s, "bore/5/top/A");
-    const again = await addFlag(s, "bore/6/top/A", { state: "disposed", disposition: "machine_again", operation: "hone" });
-    await addFlag(s, "bore/7/top/A", { state: "disposed", disposition: "accept", dispositionReason: "Within the piston maker's fit" });
+    const again = await addFlag(s, "bore/6/top/A", {
+      state: "disposed",
+      disposition: "machine_again",
+      operation: "hone",
+    });
+    await addFlag(s, "bore/7/top/A", {
+      state: "disposed",
+      disposition: "accept",
+      dispositionReason: "Within the piston maker's fit",
+    });
     await addFlag(s, "bore/8/top/A", { state: "closed", disposition: "measure_again" });
 
     const list = await releaseChecklist(s.shop.id, s.job.id);
     const keys = list.unmet.map((i) => i.key).sort();
     const planGaps = ["bore", "stroke", "pistonTop"];
-    const planKeys = ["rodLength", "compressionHeight", "chamberCc", "gasketBore", "gasketThickness", "deckHeight", "intakeLobeLift", "exhaustLobeLift", "rockerRatio"];
+    const planKeys = [
+      "rodLength",
+      "compressionHeight",
+      "chamberCc",
+      "gasketBore",
+      "gasketThickness",
+      "deckHeight",
+      "intakeLobeLift",
+      "exhaustLobeLift",
+      "rockerRatio",
+    ];
     expect(planGaps.every((k) => !keys.includes(`plan:${k}`))).toBe(true);
-    expect(keys).toEqual([
-      `flags:${again}`, `flags:${open}`, `gauges:${old}`, ...planKeys.map((k) => `plan:${k}`),
-      "readings:bore/1/top/A", "readings:bore/2/mid/B", "torque:torque/head-bolts",
-    ].sort());
+    expect(keys).toEqual(
+      [
+        `flags:${again}`,
+        `flags:${open}`,
+        `gauges:${old}`,
+        ...planKeys.map((k) => `plan:${k}`),
+        "readings:bore/1/top/A",
+        "readings:bore/2/mid/B",
+        "torque:torque/head-bolts",
+      ].sort(),
+    );
     const text = (key: string) => list.unmet.find((i) => i.key === key)!.text;
-    expect(text("readings:bore/2/mid/B")).toMatch(/skipped \("gauge would not seat"\); a required station must be measured/);
+    expect(text("readings:bore/2/mid/B")).toMatch(
+      /skipped \("gauge would not seat"\); a required station must be measured/,
+    );
     expect(text(`flags:${again}`)).toMatch(/machined again \(hone\).*still blocks release/);
     expect(text(`flags:${open}`)).toMatch(/open, waiting for the lead's decision/);
-    expect(text(`gauges:${old}`)).toMatch(/past its calibration due date \(2025-01-10\) on 1 current reading: Main journal 4/);
+    expect(text(`gauges:${old}`)).toMatch(
+      /past its calibration due date \(2025-01-10\) on 1 current reading: Main journal 4/,
+    );
     expect(text("torque:torque/head-bolts")).toMatch(/no lubricant recorded/);
     expect(list.unmet.find((i) => i.key === `flags:${open}`)!.links[0].href).toBe(`/desk/flags/${open}`);
     expect(list.unmet.find((i) => i.key === `gauges:${old}`)!.links[0].href).toBe("/admin/gauges");
@@ -125,7 +155,8 @@ describe("signing the release", () => {
   it("locks the signer out for a while after five wrong passwords", async () => {
     const s = await createShop();
     await completeJob(s);
-    for (let i = 0; i < 5; i++) expect((await signAs(s, { fullName: s.users.inspector.name, password: `wrong-${i}` })).status).toBe(403);
+    for (let i = 0; i < 5; i++)
+      expect((await signAs(s, { fullName: s.users.inspector.name, password: `wrong-${i}` })).status).toBe(403);
     const locked = await signAs(s, goodSignature(s));
     expect(locked.status).toBe(429);
     expect(locked.body.error.message).toMatch(/Too many wrong passwords. Try again in 15 min/);
@@ -164,7 +195,9 @@ describe("who may do what", () => {
     const s = await createShop();
     await completeJob(s);
     expect((await call(getView, await asUser(s.users[role], "GET", url(s)), params(s))).status).toBe(view);
-    expect((await signAs(s, { fullName: s.users[role].name, password: TEST_PASSWORD }, s.users[role])).status).toBe(expected);
+    expect((await signAs(s, { fullName: s.users[role].name, password: TEST_PASSWORD }, s.users[role])).status).toBe(
+      expected,
+    );
   });
 
   it("401 signed out; 404 for another shop's job, as for one that does not exist", async () => {
@@ -173,10 +206,16 @@ describe("who may do what", () => {
     await completeJob(b);
     expect((await call(getView, await asUser(null, "GET", url(a)), params(a))).status).toBe(401);
     const view = await call(getView, await asUser(a.users.inspector, "GET", url(b)), params(b));
-    const missing = await call(getView, await asUser(a.users.inspector, "GET", "/api/release/99999999"), { jobId: "99999999" });
+    const missing = await call(getView, await asUser(a.users.inspector, "GET", "/api/release/99999999"), {
+      jobId: "99999999",
+    });
     expect(view.status).toBe(404);
     expect(view.body).toEqual(missing.body);
-    const signed = await call(sign, await asUser(a.users.inspector, "POST", url(b), { fullName: a.users.inspector.name, password: TEST_PASSWORD }), params(b));
+    const signed = await call(
+      sign,
+      await asUser(a.users.inspector, "POST", url(b), { fullName: a.users.inspector.name, password: TEST_PASSWORD }),
+      params(b),
+    );
     expect(signed.status).toBe(404);
     expect(await Release.count({ where: { jobId: b.job.id } })).toBe(0);
   });

@@ -5,7 +5,8 @@ import { SIGN_IN_REFUSED } from "@/lib/server/sign-in";
 import { createShop, TEST_PASSWORD } from "../support/factories";
 import { asUser, call } from "../support/requests";
 
-const signIn = (body: unknown, ip = "10.0.0.1") => asUser(null, "POST", "/api/session", body, { "x-forwarded-for": ip });
+const signIn = (body: unknown, ip = "10.0.0.1") =>
+  asUser(null, "POST", "/api/session", body, { "x-forwarded-for": ip });
 
 describe("POST /api/session", () => {
   it("signs in, sets an httpOnly SameSite=Lax cookie and names the role's home", async () => {
@@ -31,7 +32,8 @@ describe("POST /api/session", () => {
 
   it("locks an account after repeated failures, even with the right password", async () => {
     const { users } = await createShop();
-    for (let i = 0; i < 8; i++) await call(POST, await signIn({ email: users.admin.email, password: "guess" + i }, `10.1.0.${i}`));
+    for (let i = 0; i < 8; i++)
+      await call(POST, await signIn({ email: users.admin.email, password: "guess" + i }, `10.1.0.${i}`));
     const res = await call(POST, await signIn({ email: users.admin.email, password: TEST_PASSWORD }, "10.1.1.1"));
     expect(res.status).toBe(429);
     expect(res.body.error.code).toBe("too_many_attempts");

@@ -15,7 +15,9 @@ beforeAll(async () => {
 
 /** Makes every change row of the job older than the settle window, as if 20 s had passed. */
 async function settle(jobId: number) {
-  await getSequelize().query("UPDATE sync_changes SET created_at = created_at - INTERVAL 20 SECOND WHERE job_id = ?", { replacements: [jobId] });
+  await getSequelize().query("UPDATE sync_changes SET created_at = created_at - INTERVAL 20 SECOND WHERE job_id = ?", {
+    replacements: [jobId],
+  });
 }
 
 type Feed = { cursor: string; readings: { id: string }[]; flags: { id: number }[]; jobs: { id: number }[] };
@@ -70,8 +72,13 @@ describe("GET /api/sync", () => {
     const start = (await pull(s.users.machinist, `since=0&jobs=${s.job.id}`)).body.cursor;
     const slow = await sequelize.transaction(); // takes its id first, commits last
     await recordChange(slow, { shopId: s.shop.id, jobId: s.job.id, entity: "reading", entityId: r1.id });
-    await sequelize.transaction((t) => recordChange(t, { shopId: s.shop.id, jobId: s.job.id, entity: "reading", entityId: r2.id }));
-    const [{ hi }] = await sequelize.query<{ hi: number }>("SELECT MAX(id) AS hi FROM sync_changes WHERE job_id = ?", { replacements: [s.job.id], type: "SELECT" as never });
+    await sequelize.transaction((t) =>
+      recordChange(t, { shopId: s.shop.id, jobId: s.job.id, entity: "reading", entityId: r2.id }),
+    );
+    const [{ hi }] = await sequelize.query<{ hi: number }>("SELECT MAX(id) AS hi FROM sync_changes WHERE job_id = ?", {
+      replacements: [s.job.id],
+      type: "SELECT" as never,
+    });
 
     const mid = await pull(s.users.machinist, `since=${start}&jobs=${s.job.id}`);
     expect(mid.body.readings.map((r: { id: string }) => r.id)).toEqual([r2.id]);
@@ -92,19 +99,35 @@ describe("GET /api/sync", () => {
     const sequelize = getSequelize();
     const flag = await Flag.findOne({ where: { jobId: s.job.id, stationId: "bore/3/top/A" } });
     await sequelize.transaction(async (t) => {
-      await flag!.update({ state: "disposed", disposition: "measure_again", disposedBy: s.users.lead.id, disposedAt: new Date() }, { transaction: t });
-      await FlagDisposition.create({ flagId: flag!.id, disposition: "measure_again", userId: s.users.lead.id }, { transaction: t });
+      await flag!.update(
+        { state: "disposed", disposition: "measure_again", disposedBy: s.users.lead.id, disposedAt: new Date() },
+        { transaction: t },
+      );
+      await FlagDisposition.create(
+        { flagId: flag!.id, disposition: "measure_again", userId: s.users.lead.id },
+        { transaction: t },
+      );
       await recordChange(t, { shopId: s.shop.id, jobId: s.job.id, entity: "flag", entityId: flag!.id });
-      await JobLimit.update({ tolPlus: 0.001 }, { where: { jobId: s.job.id, characteristic: "bore_diameter" }, transaction: t });
-      await Job.update({ specRevision: 2, status: "released", lockedAt: new Date("2026-12-20T10:00:00Z") }, { where: { id: s.job.id }, transaction: t });
+      await JobLimit.update(
+        { tolPlus: 0.001 },
+        { where: { jobId: s.job.id, characteristic: "bore_diameter" }, transaction: t },
+      );
+      await Job.update(
+        { specRevision: 2, status: "released", lockedAt: new Date("2026-12-20T10:00:00Z") },
+        { where: { id: s.job.id }, transaction: t },
+      );
       await recordChange(t, { shopId: s.shop.id, jobId: s.job.id, entity: "job_limits", entityId: s.job.id });
       await recordChange(t, { shopId: s.shop.id, jobId: s.job.id, entity: "job", entityId: s.job.id });
     });
     const feed = await pull(s.users.machinist, `since=${cursor}&jobs=${s.job.id},${other.job.id},999999999`);
-    expect(feed.body.flags).toMatchObject([{ id: flag!.id, state: "disposed", disposition: "measure_again", revisit: true, stations: ["bore/3/top/A"] }]);
+    expect(feed.body.flags).toMatchObject([
+      { id: flag!.id, state: "disposed", disposition: "measure_again", revisit: true, stations: ["bore/3/top/A"] },
+    ]);
     expect(feed.body.limits).toHaveLength(1);
     expect(feed.body.limits[0].specRevision).toBe(2);
-    expect(feed.body.limits[0].spec.find((l: { characteristic: string }) => l.characteristic === "bore_diameter").tolPlus).toBe(0.001);
+    expect(
+      feed.body.limits[0].spec.find((l: { characteristic: string }) => l.characteristic === "bore_diameter").tolPlus,
+    ).toBe(0.001);
     expect(feed.body.jobs).toMatchObject([{ id: s.job.id, status: "released", locked: true, specRevision: 2 }]);
     expect(feed.body.jobs[0].lockReason).toMatch(/was released on 20 Dec 2026/);
     expect(feed.body.missing.sort()).toEqual([other.job.id, 999999999].sort());

@@ -13,11 +13,23 @@ import type { TestUser } from "../support/factories";
 
 export const TAKEN_AT = "2026-11-30T09:00:00.000Z";
 
-export function reading(jobId: number, stationId: string, value: number | null, extra: Partial<PushReadingInput> = {}): PushReadingInput {
+export function reading(
+  jobId: number,
+  stationId: string,
+  value: number | null,
+  extra: Partial<PushReadingInput> = {},
+): PushReadingInput {
   const torque = stationId.startsWith("torque/");
   return {
-    id: randomUUID(), jobId, stationId, value, unit: torque ? "lbf_ft" : "in", entryMode: "direct",
-    takenAt: TAKEN_AT, ...(torque ? { lubricant: "engine-oil" } : {}), ...extra,
+    id: randomUUID(),
+    jobId,
+    stationId,
+    value,
+    unit: torque ? "lbf_ft" : "in",
+    entryMode: "direct",
+    takenAt: TAKEN_AT,
+    ...(torque ? { lubricant: "engine-oil" } : {}),
+    ...extra,
   };
 }
 
@@ -48,13 +60,30 @@ export async function footprint(jobId: number, shopId: number) {
 }
 
 export async function flagsOf(jobId: number) {
-  return getSequelize().query<{ id: number; readingId: string | null; derivedKey: string | null; stationId: string; state: string; reason: string; verdict: string; closedByReadingId: string | null; value: string | number }>(
+  return getSequelize().query<{
+    id: number;
+    readingId: string | null;
+    derivedKey: string | null;
+    stationId: string;
+    state: string;
+    reason: string;
+    verdict: string;
+    closedByReadingId: string | null;
+    value: string | number;
+  }>(
     "SELECT id, reading_id AS readingId, derived_key AS derivedKey, station_id AS stationId, state, reason, verdict, closed_by_reading_id AS closedByReadingId, value FROM flags WHERE job_id = ? ORDER BY id",
     { replacements: [jobId], type: QueryTypes.SELECT },
   );
 }
 
-type SyncedEntry = { id: string; stationId: string; value: number | null; unit: string; verdict: string | null; supersedes: string | null };
+type SyncedEntry = {
+  id: string;
+  stationId: string;
+  value: number | null;
+  unit: string;
+  verdict: string | null;
+  supersedes: string | null;
+};
 
 /**
  * The readings listed by the shop's "readings.sync" audit events (one event per job per batch),
@@ -66,10 +95,20 @@ export async function syncedInAudit(shopId: number) {
     { replacements: [shopId], type: QueryTypes.SELECT },
   );
   return rows.flatMap((r) => {
-    const after = (typeof r.after === "string" ? JSON.parse(r.after) : r.after) as { jobId: number; deviceId: string; count: number; readings: SyncedEntry[] };
+    const after = (typeof r.after === "string" ? JSON.parse(r.after) : r.after) as {
+      jobId: number;
+      deviceId: string;
+      count: number;
+      readings: SyncedEntry[];
+    };
     expect(r.entityType).toBe("job");
     expect(Number(r.entityId)).toBe(after.jobId);
     expect(after.count).toBe(after.readings.length);
-    return after.readings.map((e) => ({ ...e, jobId: after.jobId, deviceId: after.deviceId, userId: Number(r.userId) }));
+    return after.readings.map((e) => ({
+      ...e,
+      jobId: after.jobId,
+      deviceId: after.deviceId,
+      userId: Number(r.userId),
+    }));
   });
 }

@@ -19,9 +19,14 @@ beforeAll(async () => {
 });
 
 async function signInWith(email: string, password: string) {
-  return call(SIGN_IN as never, new Request("http://localhost/api/session", {
-    method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email, password }),
-  }));
+  return call(
+    SIGN_IN as never,
+    new Request("http://localhost/api/session", {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ email, password }),
+    }),
+  );
 }
 
 async function invite(by: TestUser, body: unknown) {
@@ -32,7 +37,11 @@ async function patch(by: TestUser, id: number | string, body: unknown) {
   return call(PATCH as never, await asUser(by, "PATCH", `/api/users/${id}`, body), { userId: String(id) });
 }
 
-const fresh = (tag: string) => ({ name: `New ${tag}`, email: `new-${tag}-${Date.now()}@test.example`, role: "machinist" });
+const fresh = (tag: string) => ({
+  name: `New ${tag}`,
+  email: `new-${tag}-${Date.now()}@test.example`,
+  role: "machinist",
+});
 
 describe("GET /api/users", () => {
   it.each(ROLES)("as %s", async (role) => {
@@ -64,7 +73,9 @@ describe("POST /api/users (invite)", () => {
     expect(temporaryPassword).toMatch(/^[a-z2-9]{5}-[a-z2-9]{5}-[a-z2-9]{5}$/);
     expect((await signInWith(body.email, temporaryPassword)).status).toBe(200);
 
-    const audit = await AuditEvent.findAll({ where: { shopId: a.shop.id, entityType: "user", entityId: String(user.id) } });
+    const audit = await AuditEvent.findAll({
+      where: { shopId: a.shop.id, entityType: "user", entityId: String(user.id) },
+    });
     expect(audit.map((e) => e.action)).toEqual(["user.invited"]);
     const row = await User.findByPk(user.id);
     const trail = JSON.stringify(audit.map((e) => e.get({ plain: true })));
@@ -79,7 +90,11 @@ describe("POST /api/users (invite)", () => {
   });
 
   it("allows the same e-mail in another shop", async () => {
-    const res = await invite(b.users.admin, { name: "Same address", email: a.users.inspector.email, role: "inspector" });
+    const res = await invite(b.users.admin, {
+      name: "Same address",
+      email: a.users.inspector.email,
+      role: "inspector",
+    });
     expect(res.status).toBe(201);
   });
 
@@ -125,7 +140,9 @@ describe("PATCH /api/users/[userId]", () => {
     const res = await patch(a.users.admin, body.user.id, { role: "inspector" });
     expect(res.status).toBe(200);
     expect(res.body.user.role).toBe("inspector");
-    const e = await AuditEvent.findOne({ where: { entityType: "user", entityId: String(body.user.id), action: "user.role_changed" } });
+    const e = await AuditEvent.findOne({
+      where: { entityType: "user", entityId: String(body.user.id), action: "user.role_changed" },
+    });
     expect(e?.before).toMatchObject({ role: "machinist" });
     expect(e?.after).toMatchObject({ role: "inspector" });
   });
@@ -143,7 +160,11 @@ describe("PATCH /api/users/[userId]", () => {
 
   it("with two admins: own role 403, own account 409, the other one may be demoted", async () => {
     const c = await createShop();
-    const { body } = await invite(c.users.admin, { name: "Second admin", email: `second-${Date.now()}@test.example`, role: "admin" });
+    const { body } = await invite(c.users.admin, {
+      name: "Second admin",
+      email: `second-${Date.now()}@test.example`,
+      role: "admin",
+    });
     expect((await patch(c.users.admin, c.users.admin.id, { role: "lead" })).status).toBe(403);
     const own = await patch(c.users.admin, c.users.admin.id, { active: false });
     expect(own.status).toBe(409);
@@ -153,9 +174,22 @@ describe("PATCH /api/users/[userId]", () => {
 
   it("two admins switching each other off at once: exactly one succeeds, one admin remains", async () => {
     const c = await createShop();
-    const { body } = await invite(c.users.admin, { name: "Rival admin", email: `rival-${Date.now()}@test.example`, role: "admin" });
-    const rival: TestUser = { id: body.user.id, shopId: c.shop.id, role: "admin", name: "Rival admin", email: body.user.email };
-    const [x, y] = await Promise.all([patch(c.users.admin, rival.id, { active: false }), patch(rival, c.users.admin.id, { active: false })]);
+    const { body } = await invite(c.users.admin, {
+      name: "Rival admin",
+      email: `rival-${Date.now()}@test.example`,
+      role: "admin",
+    });
+    const rival: TestUser = {
+      id: body.user.id,
+      shopId: c.shop.id,
+      role: "admin",
+      name: "Rival admin",
+      email: body.user.email,
+    };
+    const [x, y] = await Promise.all([
+      patch(c.users.admin, rival.id, { active: false }),
+      patch(rival, c.users.admin.id, { active: false }),
+    ]);
     expect([x.status, y.status].sort()).toEqual([200, 409]);
     expect(await User.count({ where: { shopId: c.shop.id, role: "admin", active: true } })).toBe(1);
   });
@@ -166,13 +200,19 @@ describe("PATCH /api/users/[userId]", () => {
     expect((await signInWith(body.user.email, body.temporaryPassword)).status).toBe(401);
     expect((await patch(a.users.admin, body.user.id, { active: true })).status).toBe(200);
     expect((await signInWith(body.user.email, body.temporaryPassword)).status).toBe(200);
-    const actions = (await AuditEvent.findAll({ where: { entityType: "user", entityId: String(body.user.id) }, order: [["id", "ASC"]] })).map((e) => e.action);
+    const actions = (
+      await AuditEvent.findAll({
+        where: { entityType: "user", entityId: String(body.user.id) },
+        order: [["id", "ASC"]],
+      })
+    ).map((e) => e.action);
     expect(actions).toEqual(["user.invited", "user.deactivated", "user.reactivated"]);
   });
 });
 
 describe("POST /api/users/[userId]/password", () => {
-  const reset = async (by: TestUser, id: number) => call(RESET as never, await asUser(by, "POST", `/api/users/${id}/password`), { userId: String(id) });
+  const reset = async (by: TestUser, id: number) =>
+    call(RESET as never, await asUser(by, "POST", `/api/users/${id}/password`), { userId: String(id) });
 
   it.each(ROLES.filter((r) => r !== "admin"))("refuses %s with 403", async (role) => {
     expect((await reset(a.users[role], a.users.machinist.id)).status).toBe(403);
@@ -189,7 +229,9 @@ describe("POST /api/users/[userId]/password", () => {
     expect(res.status).toBe(200);
     expect((await signInWith(target.email, TEST_PASSWORD)).status).toBe(401);
     expect((await signInWith(target.email, res.body.temporaryPassword)).status).toBe(200);
-    const e = await AuditEvent.findOne({ where: { entityType: "user", entityId: String(target.id), action: "user.password_reset" } });
+    const e = await AuditEvent.findOne({
+      where: { entityType: "user", entityId: String(target.id), action: "user.password_reset" },
+    });
     expect(e).not.toBeNull();
     expect(JSON.stringify(e!.get({ plain: true }))).not.toContain(res.body.temporaryPassword);
   });

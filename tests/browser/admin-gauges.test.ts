@@ -20,7 +20,9 @@ const apis: APIRequestContext[] = [];
 async function apiAs(role: string) {
   const ctx = await request.newContext({ baseURL: BASE_URL });
   apis.push(ctx);
-  expect((await ctx.post("/api/session", { data: { email: email(role), password: demo.password } })).status()).toBe(200);
+  expect((await ctx.post("/api/session", { data: { email: email(role), password: demo.password } })).status()).toBe(
+    200,
+  );
   return ctx;
 }
 
@@ -70,12 +72,17 @@ describe("gauges and calibration", () => {
     await form.getByLabel("Calibration due").fill(day(-35));
     await form.getByRole("button", { name: "Register gauge" }).click();
     await expect.poll(() => row().textContent(), WAIT).toMatch(/Past due.*35 days over/s);
-    await admin.getByText(/past the calibration due date/).first().waitFor();
+    await admin
+      .getByText(/past the calibration due date/)
+      .first()
+      .waitFor();
   });
 
   it("takes a calibration certificate upload and shows its link", async () => {
     const pdf = Buffer.from("%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n");
-    await row().getByLabel(/Calibration certificate for/).setInputFiles({ name: "old-gauge-cert.pdf", mimeType: "application/pdf", buffer: pdf });
+    await row()
+      .getByLabel(/Calibration certificate for/)
+      .setInputFiles({ name: "old-gauge-cert.pdf", mimeType: "application/pdf", buffer: pdf });
     await expect.poll(() => row().textContent(), WAIT).toMatch(/Certificate: old-gauge-cert\.pdf/);
     await screenshot(admin, "admin-gauges-past-due");
   });
@@ -89,7 +96,20 @@ describe("gauges and calibration", () => {
     expect(gauge.calibrationDue).toBe(day(-35)); // the tablet has the date to warn with
     // Demo six bore limits 3.5924–3.593 in: 3.5927 is in spec; only the gauge is the problem.
     const res = await rosa.post("/api/sync", {
-      data: { deviceId: "gauge-test", readings: [{ id: randomUUID(), jobId, stationId: "bore/6/bottom/B", value: 3.5927, unit: "in", instrumentId: gauge.id, takenAt: new Date().toISOString() }] },
+      data: {
+        deviceId: "gauge-test",
+        readings: [
+          {
+            id: randomUUID(),
+            jobId,
+            stationId: "bore/6/bottom/B",
+            value: 3.5927,
+            unit: "in",
+            instrumentId: gauge.id,
+            takenAt: new Date().toISOString(),
+          },
+        ],
+      },
     });
     expect(res.status(), await res.text()).toBe(200);
     const lead = await browser.newContext({ baseURL: BASE_URL, viewport: { width: 1440, height: 900 } });

@@ -10,7 +10,6 @@ import { BASE_URL, demo, launchBrowser, newTabletPage, screenshot, signInAs } fr
 const WAIT = { timeout: 15_000 };
 const adminEmail = demo.accounts.find((a) => a.role === "admin")!.email;
 
-
 const NEW_EMAIL = `wendell-${randomUUID().slice(0, 6)}@kestrelflats.example`;
 
 let browser: Browser;

@@ -22,7 +22,8 @@ const pending = (page: Page) => page.getByTestId("sync-badge").getAttribute("dat
 const station = (page: Page) => page.getByTestId("where").getAttribute("data-station");
 
 async function tapValue(page: Page, text: string) {
-  for (const ch of text) await page.getByRole("button", { name: ch === "." ? "Decimal point" : ch, exact: true }).click();
+  for (const ch of text)
+    await page.getByRole("button", { name: ch === "." ? "Decimal point" : ch, exact: true }).click();
   await page.getByRole("button", { name: "Save", exact: true }).click();
 }
 
@@ -107,12 +108,24 @@ describe("bench offline", () => {
       const lead = await (await browser.newContext({ baseURL: process.env.TW_BASE_URL })).newPage();
       await signIn(lead, LEAD, demo.password);
       const pack = await lead.evaluate(async (id) => (await fetch(`/api/bench/jobs/${id}`)).json(), jobId);
-      const flags = (pack.flags as { stationId: string; reason: string; state: string }[]).filter((f) => f.stationId === DECK[2]);
+      const flags = (pack.flags as { stationId: string; reason: string; state: string }[]).filter(
+        (f) => f.stationId === DECK[2],
+      );
       expect(flags).toEqual([expect.objectContaining({ stationId: DECK[2], reason: "out_of_spec", state: "open" })]);
-      const deck = (pack.readings as { stationId: string; supersededBy: string | null; value: number; verdict: string }[]).filter((r) => r.stationId.startsWith("deck/"));
+      const deck = (
+        pack.readings as { stationId: string; supersededBy: string | null; value: number; verdict: string }[]
+      ).filter((r) => r.stationId.startsWith("deck/"));
       expect(deck).toHaveLength(5);
-      expect(deck.filter((r) => r.supersededBy === null).map((r) => [r.stationId, r.value, r.verdict]).sort()).toEqual([
-        [DECK[0], 9.025, "in_spec"], [DECK[1], 9.0255, "in_spec"], [DECK[2], 9.0311, "out_of_spec"], [DECK[3], 9.024, "in_spec"],
+      expect(
+        deck
+          .filter((r) => r.supersededBy === null)
+          .map((r) => [r.stationId, r.value, r.verdict])
+          .sort(),
+      ).toEqual([
+        [DECK[0], 9.025, "in_spec"],
+        [DECK[1], 9.0255, "in_spec"],
+        [DECK[2], 9.0311, "out_of_spec"],
+        [DECK[3], 9.024, "in_spec"],
       ]);
     } finally {
       await browser.close();

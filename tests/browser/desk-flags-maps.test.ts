@@ -9,14 +9,32 @@ import { BASE_URL, demo, demoEmail, launchBrowser, screenshot, signInAs } from "
 const WAIT = { timeout: 15_000 };
 const email = demoEmail;
 
-
 // Demo spec KF-2611: bore 4.0299–4.0304, main 2.4485–2.4495, rod 2.0985–2.0995, deck 9.022–9.028 (in).
 const FIGURES: Record<string, number> = {
-  "bore/3/top/A": 4.0304, "bore/3/mid/A": 4.0301, "bore/3/bottom/A": 4.03, "bore/3/top/B": 4.0302, "bore/3/mid/B": 4.0301, "bore/3/bottom/B": 4.03,
-  "bore/4/top/A": 4.0308, "bore/4/mid/A": 4.0303, "bore/4/bottom/A": 4.03, "bore/4/top/B": 4.0301, "bore/4/mid/B": 4.0301, "bore/4/bottom/B": 4.03,
-  "main/2/front/A": 2.4491, "main/2/front/B": 2.4489, "main/2/rear/A": 2.449, "main/2/rear/B": 2.4486,
-  "rod/2/front/A": 2.0992, "rod/2/front/B": 2.0988, "rod/2/rear/A": 2.099, "rod/2/rear/B": 2.0991,
-  "deck/left/front": 9.025, "deck/left/rear": 9.027, "deck/right/front": 9.024, "deck/right/rear": 9.029,
+  "bore/3/top/A": 4.0304,
+  "bore/3/mid/A": 4.0301,
+  "bore/3/bottom/A": 4.03,
+  "bore/3/top/B": 4.0302,
+  "bore/3/mid/B": 4.0301,
+  "bore/3/bottom/B": 4.03,
+  "bore/4/top/A": 4.0308,
+  "bore/4/mid/A": 4.0303,
+  "bore/4/bottom/A": 4.03,
+  "bore/4/top/B": 4.0301,
+  "bore/4/mid/B": 4.0301,
+  "bore/4/bottom/B": 4.03,
+  "main/2/front/A": 2.4491,
+  "main/2/front/B": 2.4489,
+  "main/2/rear/A": 2.449,
+  "main/2/rear/B": 2.4486,
+  "rod/2/front/A": 2.0992,
+  "rod/2/front/B": 2.0988,
+  "rod/2/rear/A": 2.099,
+  "rod/2/rear/B": 2.0991,
+  "deck/left/front": 9.025,
+  "deck/left/rear": 9.027,
+  "deck/right/front": 9.024,
+  "deck/right/rear": 9.029,
 };
 
 let browser: Browser;
@@ -26,12 +44,22 @@ const apis: APIRequestContext[] = [];
 beforeAll(async () => {
   const rosa = await request.newContext({ baseURL: BASE_URL });
   apis.push(rosa);
-  expect((await rosa.post("/api/session", { data: { email: email("machinist"), password: demo.password } })).status()).toBe(200);
+  expect(
+    (await rosa.post("/api/session", { data: { email: email("machinist"), password: demo.password } })).status(),
+  ).toBe(200);
   const jobs = (await (await rosa.get("/api/bench/jobs")).json()).jobs as { id: number; code: string }[];
   jobId = jobs.find((j) => j.code === "KF-2611")!.id;
   const pack = await (await rosa.get(`/api/bench/jobs/${jobId}`)).json();
   const gauge = pack.instruments.find((g: { serial: string }) => g.serial === "KF-M34-02").id;
-  const readings = Object.entries(FIGURES).map(([stationId, value]) => ({ id: randomUUID(), jobId, stationId, value, unit: "in", instrumentId: gauge, takenAt: new Date().toISOString() }));
+  const readings = Object.entries(FIGURES).map(([stationId, value]) => ({
+    id: randomUUID(),
+    jobId,
+    stationId,
+    value,
+    unit: "in",
+    instrumentId: gauge,
+    takenAt: new Date().toISOString(),
+  }));
   const res = await rosa.post("/api/sync", { data: { deviceId: "maps-test", readings } });
   expect(res.status(), await res.text()).toBe(200);
   browser = await launchBrowser();

@@ -11,7 +11,6 @@ import { BASE_URL, demo, demoEmail, launchBrowser, newTabletPage, screenshot, si
 const WAIT = { timeout: 15_000 };
 const email = demoEmail;
 
-
 let browser: Browser;
 let page: Page;
 let rosa: APIRequestContext;
@@ -22,14 +21,30 @@ const apis: APIRequestContext[] = [];
 async function apiAs(role: string) {
   const ctx = await request.newContext({ baseURL: BASE_URL });
   apis.push(ctx);
-  expect((await ctx.post("/api/session", { data: { email: email(role), password: demo.password } })).status()).toBe(200);
+  expect((await ctx.post("/api/session", { data: { email: email(role), password: demo.password } })).status()).toBe(
+    200,
+  );
   return ctx;
 }
 
 async function send(stationId: string, value: number, supersedes?: string): Promise<string> {
   const id = randomUUID();
   const res = await rosa.post("/api/sync", {
-    data: { deviceId: "desk-flags-test", readings: [{ id, jobId, stationId, value, unit: "in", instrumentId: gaugeId, takenAt: new Date().toISOString(), ...(supersedes ? { supersedes } : {}) }] },
+    data: {
+      deviceId: "desk-flags-test",
+      readings: [
+        {
+          id,
+          jobId,
+          stationId,
+          value,
+          unit: "in",
+          instrumentId: gaugeId,
+          takenAt: new Date().toISOString(),
+          ...(supersedes ? { supersedes } : {}),
+        },
+      ],
+    },
   });
   expect(res.status(), await res.text()).toBe(200);
   return id;
@@ -89,7 +104,11 @@ describe("the lead's flag queue", () => {
     await page.getByRole("button", { name: "Record decision" }).click();
     await expect.poll(() => decisions().textContent(), WAIT).toMatch(/Measure again.*Re-zero on the setting ring/s);
     const pack = await (await rosa.get(`/api/bench/jobs/${jobId}`)).json();
-    expect(pack.flags.find((f: { id: number }) => f.id === id)).toMatchObject({ disposition: "measure_again", revisit: true, stations: [STATIONS.measure] });
+    expect(pack.flags.find((f: { id: number }) => f.id === id)).toMatchObject({
+      disposition: "measure_again",
+      revisit: true,
+      stations: [STATIONS.measure],
+    });
   });
 
   it("machine again: the lead picks an offered operation", async () => {
@@ -106,7 +125,9 @@ describe("the lead's flag queue", () => {
     await page.getByLabel("Accept as is").check();
     await page.getByRole("button", { name: "Record decision" }).click();
     await expect.poll(() => page.getByText(/Write why this value is accepted/).count(), WAIT).toBeGreaterThan(0);
-    await page.getByLabel(/Why is it accepted as it is/).fill("Crank to be ground undersize by the customer's own shop; recorded as received");
+    await page
+      .getByLabel(/Why is it accepted as it is/)
+      .fill("Crank to be ground undersize by the customer's own shop; recorded as received");
     await page.getByRole("button", { name: "Record decision" }).click();
     await expect.poll(() => decisions().textContent(), WAIT).toMatch(/Accepted as is.*Reason: Crank to be ground/s);
     expect(await page.locator('[data-verdict="out_of_spec"]').count()).toBeGreaterThan(0);
@@ -120,7 +141,16 @@ describe("the lead's flag queue", () => {
     const flagged = pack.flags.find((f: { id: number }) => f.id === id).readingId;
     await send(STATIONS.measure, 4.0301, flagged);
     await page.goto(`/desk/flags/${id}`);
-    await expect.poll(() => page.getByRole("note").filter({ hasText: /Closed/ }).count(), WAIT).toBeGreaterThan(0);
+    await expect
+      .poll(
+        () =>
+          page
+            .getByRole("note")
+            .filter({ hasText: /Closed/ })
+            .count(),
+        WAIT,
+      )
+      .toBeGreaterThan(0);
     expect(await decisions().textContent()).toMatch(/Measure again/);
     expect(await page.getByRole("button", { name: "Record decision" }).count()).toBe(0);
     await screenshot(page, "desk-flag-closed");

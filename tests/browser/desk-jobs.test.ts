@@ -7,7 +7,10 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
 
-const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
+const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as {
+  password: string;
+  accounts: { role: string; email: string }[];
+};
 const email = (role: string) => demo.accounts.find((a) => a.role === role)!.email;
 const code = `KF-T${randomUUID().slice(0, 4).toUpperCase()}`;
 

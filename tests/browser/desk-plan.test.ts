@@ -5,17 +5,38 @@
 import { readFileSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { compressionHeight, compressionRatio, cubicInToCc, deckClearanceFor, displacement, rodRatio, valveLift } from "@/lib/domain";
+import {
+  compressionHeight,
+  compressionRatio,
+  cubicInToCc,
+  deckClearanceFor,
+  displacement,
+  rodRatio,
+  valveLift,
+} from "@/lib/domain";
 import { launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
 
-const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
+const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as {
+  password: string;
+  accounts: { role: string; email: string }[];
+};
 const lead = demo.accounts.find((a) => a.role === "lead")!;
 
 // A combination for the demo vintage inline six, KF-2613 (invented test figures, inches and cc).
 // Bore and stroke come pre-filled from the engine's nominal sizes (3.5925 × 3.75 in, six cylinders).
 const PLAN = {
-  rodLength: 6.125, compressionHeight: 1.37, deckHeight: 9.38, chamberCc: 72, dish: 8, gasketBore: 3.65, gasketThickness: 0.039,
-  intakeLobeLift: 0.272, exhaustLobeLift: 0.284, rockerRatio: 1.5, intakeLash: 0.016, exhaustLash: 0.018,
+  rodLength: 6.125,
+  compressionHeight: 1.37,
+  deckHeight: 9.38,
+  chamberCc: 72,
+  dish: 8,
+  gasketBore: 3.65,
+  gasketThickness: 0.039,
+  intakeLobeLift: 0.272,
+  exhaustLobeLift: 0.284,
+  rockerRatio: 1.5,
+  intakeLash: 0.016,
+  exhaustLash: 0.018,
 };
 const BORE = 3.5925;
 const STROKE = 3.75;
@@ -25,20 +46,50 @@ const STROKE = 3.75;
 function expected() {
   const cubicIn = displacement(BORE, STROKE, 6);
   const cc = cubicInToCc(cubicIn);
-  const deck = deckClearanceFor({ deckHeight: PLAN.deckHeight, stroke: STROKE, rodLength: PLAN.rodLength, compressionHeight: PLAN.compressionHeight });
-  const cr = compressionRatio({ lengthUnit: "in", bore: BORE, stroke: STROKE, gasketBore: PLAN.gasketBore, gasketThickness: PLAN.gasketThickness, deckClearance: deck, chamberCc: PLAN.chamberCc, pistonCc: PLAN.dish });
-  const zero = compressionHeight({ deckHeight: PLAN.deckHeight, stroke: STROKE, rodLength: PLAN.rodLength, deckClearance: 0 });
+  const deck = deckClearanceFor({
+    deckHeight: PLAN.deckHeight,
+    stroke: STROKE,
+    rodLength: PLAN.rodLength,
+    compressionHeight: PLAN.compressionHeight,
+  });
+  const cr = compressionRatio({
+    lengthUnit: "in",
+    bore: BORE,
+    stroke: STROKE,
+    gasketBore: PLAN.gasketBore,
+    gasketThickness: PLAN.gasketThickness,
+    deckClearance: deck,
+    chamberCc: PLAN.chamberCc,
+    pistonCc: PLAN.dish,
+  });
+  const zero = compressionHeight({
+    deckHeight: PLAN.deckHeight,
+    stroke: STROKE,
+    rodLength: PLAN.rodLength,
+    deckClearance: 0,
+  });
   const intake = valveLift(PLAN.intakeLobeLift, PLAN.rockerRatio, PLAN.intakeLash);
   const exhaust = valveLift(PLAN.exhaustLobeLift, PLAN.rockerRatio, PLAN.exhaustLash);
   return {
-    "plan-cubic-in": `${cubicIn.toFixed(1)} in³`, "plan-cc": `${cc.toFixed(0)} cc`, "plan-litres": `${(cc / 1000).toFixed(2)} L`,
-    "plan-ratio": `${cr.ratio.toFixed(2)} : 1`, "plan-swept": `${cr.sweptCc.toFixed(2)} cc`, "plan-gasket-cc": `${cr.gasketCc.toFixed(2)} cc`,
-    "plan-deck-cc": `${cr.deckCc.toFixed(2)} cc`, "plan-clearance": `${cr.clearanceCc.toFixed(2)} cc`, "plan-chamber-cc": "72.00 cc", "plan-piston-cc": "8.00 cc",
-    "plan-rod-ratio-value": rodRatio(PLAN.rodLength, STROKE).toFixed(3), "plan-deck-value": `${Math.abs(deck).toFixed(4)} in`,
+    "plan-cubic-in": `${cubicIn.toFixed(1)} in³`,
+    "plan-cc": `${cc.toFixed(0)} cc`,
+    "plan-litres": `${(cc / 1000).toFixed(2)} L`,
+    "plan-ratio": `${cr.ratio.toFixed(2)} : 1`,
+    "plan-swept": `${cr.sweptCc.toFixed(2)} cc`,
+    "plan-gasket-cc": `${cr.gasketCc.toFixed(2)} cc`,
+    "plan-deck-cc": `${cr.deckCc.toFixed(2)} cc`,
+    "plan-clearance": `${cr.clearanceCc.toFixed(2)} cc`,
+    "plan-chamber-cc": "72.00 cc",
+    "plan-piston-cc": "8.00 cc",
+    "plan-rod-ratio-value": rodRatio(PLAN.rodLength, STROKE).toFixed(3),
+    "plan-deck-value": `${Math.abs(deck).toFixed(4)} in`,
     "plan-zero-deck": `${zero.compressionHeight.toFixed(4)} in`,
-    "plan-intake-gross": `${intake.gross.toFixed(3)} in`, "plan-intake-net": `${intake.net.toFixed(3)} in`,
-    "plan-exhaust-gross": `${exhaust.gross.toFixed(3)} in`, "plan-exhaust-net": `${exhaust.net.toFixed(3)} in`,
-    fits: zero.fits, below: deck > 0,
+    "plan-intake-gross": `${intake.gross.toFixed(3)} in`,
+    "plan-intake-net": `${intake.net.toFixed(3)} in`,
+    "plan-exhaust-gross": `${exhaust.gross.toFixed(3)} in`,
+    "plan-exhaust-net": `${exhaust.net.toFixed(3)} in`,
+    fits: zero.fits,
+    below: deck > 0,
   };
 }
 
@@ -59,7 +110,9 @@ async function checkFigures() {
     if (typeof text !== "string") continue;
     await expect.poll(() => page.getByTestId(id).textContent(), { timeout: 10_000 }).toBe(text);
   }
-  expect(await page.getByTestId("plan-fits").textContent()).toContain(want.fits ? "Parts fit the block" : "Parts do not fit");
+  expect(await page.getByTestId("plan-fits").textContent()).toContain(
+    want.fits ? "Parts fit the block" : "Parts do not fit",
+  );
   expect(await page.getByTestId("plan-deck").textContent()).toContain(want.below ? "below the deck" : "above the deck");
 }
 

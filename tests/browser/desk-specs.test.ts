@@ -11,7 +11,10 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
 
-const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; email: string }[] };
+const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as {
+  password: string;
+  accounts: { role: string; email: string }[];
+};
 const lead = demo.accounts.find((a) => a.role === "lead")!;
 
 let browser: Browser;

@@ -9,12 +9,27 @@ import { getSequelize } from "@/lib/server/db";
 import { BASE_URL, launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
 import { prepareInspectorJob } from "./inspector-fixtures";
 
-const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as { password: string; accounts: { role: string; name: string; email: string }[] };
+const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as {
+  password: string;
+  accounts: { role: string; name: string; email: string }[];
+};
 const account = (role: string) => demo.accounts.find((a) => a.role === role)!;
 const LEFT_OUT = ["bore/1/top/A", "deck/block/rear"];
 const PLAN = {
-  lengthUnit: "in", bore: 3.5927, stroke: 3.75, rodLength: 6.5, compressionHeight: 1.675, pistonTop: "dish", pistonVolumeCc: 6,
-  chamberCc: 68, gasketBore: 3.65, gasketThickness: 0.041, deckHeight: 9.38, intakeLobeLift: 0.27, exhaustLobeLift: 0.28, rockerRatio: 1.5,
+  lengthUnit: "in",
+  bore: 3.5927,
+  stroke: 3.75,
+  rodLength: 6.5,
+  compressionHeight: 1.675,
+  pistonTop: "dish",
+  pistonVolumeCc: 6,
+  chamberCc: 68,
+  gasketBore: 3.65,
+  gasketThickness: 0.041,
+  deckHeight: 9.38,
+  intakeLobeLift: 0.27,
+  exhaustLobeLift: 0.28,
+  rockerRatio: 1.5,
 };
 
 let browser: Browser;
@@ -31,7 +46,13 @@ async function apiAs(role: string) {
 }
 
 const reading = (stationId: string, value: number, instrumentId: number) => ({
-  id: randomUUID(), jobId: job.jobId, stationId, value, unit: "in", instrumentId, takenAt: new Date().toISOString(),
+  id: randomUUID(),
+  jobId: job.jobId,
+  stationId,
+  value,
+  unit: "in",
+  instrumentId,
+  takenAt: new Date().toISOString(),
 });
 
 beforeAll(async () => {
@@ -63,21 +84,38 @@ describe("the inspector's path", () => {
   it("sees the prepared job's three blockers, then the machinist and the lead clear them", async () => {
     await page.goto(`/release/${job.jobId}`);
     await expect.poll(() => state().textContent()).toBe("3 items block release");
-    expect(await page.locator('[data-item="readings:bore/1/top/A"]').textContent()).toMatch(/Cylinder 1 · top of bore · axis A \(thrust\): no reading yet/);
+    expect(await page.locator('[data-item="readings:bore/1/top/A"]').textContent()).toMatch(
+      /Cylinder 1 · top of bore · axis A \(thrust\): no reading yet/,
+    );
     expect(await page.locator('[data-item="plan:none"] a').getAttribute("href")).toBe(`/desk/jobs/${job.jobId}/plan`);
     await screenshot(page, "release-blocked");
 
     const rosa = await apiAs("machinist");
-    const pushed = await rosa.post("/api/sync", { data: { deviceId: "bench-tablet-2", readings: [reading("bore/1/top/A", 3.5927, job.gauges.bore), reading("deck/block/rear", 9.389, job.gauges.indicator)] } });
+    const pushed = await rosa.post("/api/sync", {
+      data: {
+        deviceId: "bench-tablet-2",
+        readings: [
+          reading("bore/1/top/A", 3.5927, job.gauges.bore),
+          reading("deck/block/rear", 9.389, job.gauges.indicator),
+        ],
+      },
+    });
     expect(pushed.status()).toBe(200);
     await page.reload();
     await expect.poll(() => state().textContent()).toBe("2 items block release");
     const flagItem = page.locator('[data-check="flags"] [data-item^="flags:"]');
-    expect(await flagItem.textContent()).toMatch(/Deck height at Deck · rear corner \(out of spec\): open, waiting for the lead's decision/);
+    expect(await flagItem.textContent()).toMatch(
+      /Deck height at Deck · rear corner \(out of spec\): open, waiting for the lead's decision/,
+    );
     const flagId = Number((await flagItem.getAttribute("data-item"))!.split(":")[1]);
 
     const dev = await apiAs("lead");
-    const decided = await dev.post(`/api/flags/${flagId}/disposition`, { data: { kind: "accept", reason: "Rear deck 0.005 in over; within the head gasket maker's allowance, customer informed" } });
+    const decided = await dev.post(`/api/flags/${flagId}/disposition`, {
+      data: {
+        kind: "accept",
+        reason: "Rear deck 0.005 in over; within the head gasket maker's allowance, customer informed",
+      },
+    });
     expect(decided.status()).toBe(201);
     expect((await dev.put(`/api/jobs/${job.jobId}/build-plan`, { data: PLAN })).status()).toBe(200);
     await page.reload();
@@ -88,7 +126,9 @@ describe("the inspector's path", () => {
     await page.getByLabel("Your full name").fill(account("inspector").name.toLowerCase());
     await page.getByLabel("Your password").fill("not-my-password");
     await page.getByRole("button", { name: "Sign and release" }).click();
-    await expect.poll(() => page.getByRole("alert").first().textContent()).toMatch(/That password is not right, so nothing was signed/);
+    await expect
+      .poll(() => page.getByRole("alert").first().textContent())
+      .toMatch(/That password is not right, so nothing was signed/);
     expect(await page.getByLabel("Your full name").inputValue()).toBe(account("inspector").name.toLowerCase());
 
     await page.getByLabel("Your password").fill(demo.password);
@@ -96,11 +136,15 @@ describe("the inspector's path", () => {
     await expect.poll(() => page.getByText(/Released and locked since/).count()).toBe(1);
     await expect.poll(() => page.getByTestId("verification").getAttribute("data-status")).toBe("match");
     expect(await page.getByRole("button", { name: "Sign and release" }).count()).toBe(0);
-    expect(await page.locator('[data-release][data-status="standing"]').textContent()).toMatch(new RegExp(`Signed by ${account("inspector").name.toLowerCase()}`));
+    expect(await page.locator('[data-release][data-status="standing"]').textContent()).toMatch(
+      new RegExp(`Signed by ${account("inspector").name.toLowerCase()}`),
+    );
     await screenshot(page, "release-released");
 
     const rosa = await apiAs("machinist");
-    const late = await rosa.post("/api/sync", { data: { deviceId: "bench-tablet-2", readings: [reading("skirt/2", 3.5906, job.gauges.mic)] } });
+    const late = await rosa.post("/api/sync", {
+      data: { deviceId: "bench-tablet-2", readings: [reading("skirt/2", 3.5906, job.gauges.mic)] },
+    });
     expect(late.status()).toBe(409);
     expect((await late.json()).results[0].reason).toMatch(/released .*readings are locked/);
   });
@@ -120,13 +164,17 @@ describe("the inspector's path", () => {
     await screenshot(page, "verify-changed");
     await page.goto(`/release/${job.jobId}`);
     await expect.poll(() => page.getByTestId("verification").getAttribute("data-status")).toBe("changed");
-    expect(await page.getByTestId("verification").textContent()).toMatch(/Reading at Cylinder 3 · middle of bore · axis B \(pin\): changed/);
+    expect(await page.getByTestId("verification").textContent()).toMatch(
+      /Reading at Cylinder 3 · middle of bore · axis B \(pin\): changed/,
+    );
   });
 
   it("finds the release, the decision and the plan in the audit trail", async () => {
     await page.goto(`/audit?job=${job.jobId}`);
     await expect.poll(() => page.locator("[data-action]").count()).toBeGreaterThan(2);
-    const actions = await page.locator("[data-action]").evaluateAll((rows) => rows.map((r) => r.getAttribute("data-action")));
+    const actions = await page
+      .locator("[data-action]")
+      .evaluateAll((rows) => rows.map((r) => r.getAttribute("data-action")));
     expect(actions).toEqual(expect.arrayContaining(["release.sign", "flag.accept", "job.build_plan"]));
     expect(actions[0]).toBe("release.sign");
     await screenshot(page, "audit");
@@ -139,7 +187,9 @@ describe("the inspector's path", () => {
     await page.goto(`/release/${job.jobId}`);
     const voided = page.locator('[data-release][data-status="void"]');
     await expect.poll(() => voided.count()).toBe(1);
-    expect(await voided.getByTestId("void-reason").textContent()).toMatch(new RegExp(`Voided .* by ${account("lead").name}\\. Reason: ${reason}`));
+    expect(await voided.getByTestId("void-reason").textContent()).toMatch(
+      new RegExp(`Voided .* by ${account("lead").name}\\. Reason: ${reason}`),
+    );
     expect(await page.getByText("Released and locked since").count()).toBe(0);
     expect(await page.getByRole("button", { name: "Sign and release" }).count()).toBe(1);
     await screenshot(page, "release-void");

@@ -26,12 +26,17 @@ describe("the customer's record link", () => {
     expect(await context.cookies()).toEqual([]);
     await page.goto(`/r/${token}`);
     await expect.poll(() => page.getByRole("heading", { name: `Build record ${job.job.code}` }).isVisible()).toBe(true);
-    await expect.poll(() => page.getByTestId("release-state").innerText()).toContain(`Signed by ${job.release!.signedName}`);
+    await expect
+      .poll(() => page.getByTestId("release-state").innerText())
+      .toContain(`Signed by ${job.release!.signedName}`);
     expect(await page.getByText(ACCEPT_REASON, { exact: false }).isVisible()).toBe(true);
     expect(await page.locator("[data-verdict=out_of_spec]").count()).toBeGreaterThan(0);
     await screenshot(page, "customer-record");
 
-    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: /Download the full record/ }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent("download"),
+      page.getByRole("link", { name: /Download the full record/ }).click(),
+    ]);
     expect(download.suggestedFilename()).toBe(`build-record-${job.job.code}.pdf`);
     const bytes = readFileSync((await download.path())!);
     expect(bytes.subarray(0, 5).toString()).toBe("%PDF-");
@@ -39,7 +44,10 @@ describe("the customer's record link", () => {
 
     // The page set no session, and the token opens nothing in the app.
     expect((await context.cookies()).map((c) => c.name)).not.toContain("tw_session");
-    const api = await page.evaluate(async (t) => (await fetch(`/api/me?token=${t}`, { headers: { authorization: `Bearer ${t}` } })).status, token);
+    const api = await page.evaluate(
+      async (t) => (await fetch(`/api/me?token=${t}`, { headers: { authorization: `Bearer ${t}` } })).status,
+      token,
+    );
     expect(api).toBe(401);
     await page.goto("/desk");
     expect(new URL(page.url()).pathname).toBe("/sign-in");
@@ -73,10 +81,17 @@ describe("the customer's record link", () => {
     const link = message.getByRole("link", { name: new RegExp(`build-record-${job.job.code}\\.pdf`) });
     expect(await link.isVisible()).toBe(true);
     await screenshot(page, "admin-mail");
-    const pdf = await page.evaluate(async (href) => {
-      const res = await fetch(href);
-      return { status: res.status, type: res.headers.get("content-type"), head: new TextDecoder().decode((await res.arrayBuffer()).slice(0, 5)) };
-    }, (await link.getAttribute("href"))!);
+    const pdf = await page.evaluate(
+      async (href) => {
+        const res = await fetch(href);
+        return {
+          status: res.status,
+          type: res.headers.get("content-type"),
+          head: new TextDecoder().decode((await res.arrayBuffer()).slice(0, 5)),
+        };
+      },
+      (await link.getAttribute("href"))!,
+    );
     expect(pdf).toEqual({ status: 200, type: "application/pdf", head: "%PDF-" });
     await context.close();
   });
@@ -102,12 +117,24 @@ describe("the customer's record link", () => {
       const body = await up.json();
       const thumb = await fetch(body.attachment.thumbUrl);
       const exe = new FormData();
-      exe.set("file", new File([new Uint8Array([0x4d, 0x5a, 0x90, 0, 3, 0, 0, 0, 4, 0, 0, 0, 0xff, 0xff, 0, 0])], "photo.jpg", { type: "image/jpeg" }));
+      exe.set(
+        "file",
+        new File([new Uint8Array([0x4d, 0x5a, 0x90, 0, 3, 0, 0, 0, 4, 0, 0, 0, 0xff, 0xff, 0, 0])], "photo.jpg", {
+          type: "image/jpeg",
+        }),
+      );
       exe.set("ownerType", "job");
       exe.set("ownerId", String(jobId));
       exe.set("clientId", crypto.randomUUID());
       const refused = await fetch("/api/attachments", { method: "POST", body: exe });
-      return { status: up.status, type: body.attachment.contentType, thumb: thumb.status, thumbType: thumb.headers.get("content-type"), refused: refused.status, words: (await refused.json()).error.message };
+      return {
+        status: up.status,
+        type: body.attachment.contentType,
+        thumb: thumb.status,
+        thumbType: thumb.headers.get("content-type"),
+        refused: refused.status,
+        words: (await refused.json()).error.message,
+      };
     }, job.job.id);
     expect(out).toMatchObject({ status: 201, type: "image/png", thumb: 200, thumbType: "image/jpeg", refused: 415 });
     expect(out.words).toContain("photo.jpg");

@@ -49,7 +49,9 @@ describe("sign-in per role", () => {
       await signIn(page, account.email, demo.password);
       expect(new URL(page.url()).pathname).toBe(HOME[account.role].path);
       await expect.poll(() => page.getByTestId("whoami").textContent()).toContain(account.name);
-      await expect.poll(async () => (await page.locator("h1").first().textContent()) ?? "").toMatch(HOME[account.role].heading);
+      await expect
+        .poll(async () => (await page.locator("h1").first().textContent()) ?? "")
+        .toMatch(HOME[account.role].heading);
       await screenshot(page, `home-${account.role}-1024x768`);
       await page.getByRole("button", { name: "Sign out" }).click();
       await page.waitForURL((u) => u.pathname === "/sign-in");

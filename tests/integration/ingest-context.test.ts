@@ -16,7 +16,12 @@ beforeEach(async () => {
 });
 
 const revisionOf = async (jobId: number) =>
-  (await getSequelize().query<{ r: string }>("SELECT CAST(context_revision AS CHAR) AS r FROM jobs WHERE id = ?", { replacements: [jobId], type: QueryTypes.SELECT }))[0].r;
+  (
+    await getSequelize().query<{ r: string }>("SELECT CAST(context_revision AS CHAR) AS r FROM jobs WHERE id = ?", {
+      replacements: [jobId],
+      type: QueryTypes.SELECT,
+    })
+  )[0].r;
 
 describe("the sync server's cached job context", () => {
   it("is kept while nothing changes: a batch does not move the token", async () => {
@@ -42,7 +47,16 @@ describe("the sync server's cached job context", () => {
     await JobLimit.destroy({ where: { jobId: s.job.id, characteristic: "bore_diameter" } });
     const none = await push(s.users.machinist, [reading(s.job.id, "bore/1/mid/A", 4.04)]);
     expect(none.body.results[0].evaluation).toMatchObject({ verdict: null, limitMax: null });
-    await JobLimit.create({ jobId: s.job.id, characteristic: "bore_diameter", stationPattern: "*", limitType: "max_only", unit: "in", max: 4.031, required: true, sortOrder: 9 });
+    await JobLimit.create({
+      jobId: s.job.id,
+      characteristic: "bore_diameter",
+      stationPattern: "*",
+      limitType: "max_only",
+      unit: "in",
+      max: 4.031,
+      required: true,
+      sortOrder: 9,
+    });
     const back = await push(s.users.machinist, [reading(s.job.id, "bore/1/bottom/A", 4.0312)]);
     expect(back.body.results[0]).toMatchObject({ verdict: "out_of_spec", evaluation: { limitMax: 4.031 } });
   });
@@ -57,10 +71,26 @@ describe("the sync server's cached job context", () => {
 
   it("a job on another engine of the shop is judged with its own engine", async () => {
     const four = await Engine.create({
-      shopId: s.shop.id, customerId: s.customer.id, description: "Test four", cylinders: 4, layout: "inline", mains: 5,
-      unitSystem: "in", nominalBore: 3.5, nominalStroke: 3.2, blockMaterial: "greyCastIron",
+      shopId: s.shop.id,
+      customerId: s.customer.id,
+      description: "Test four",
+      cylinders: 4,
+      layout: "inline",
+      mains: 5,
+      unitSystem: "in",
+      nominalBore: 3.5,
+      nominalStroke: 3.2,
+      blockMaterial: "greyCastIron",
     });
-    const job = await Job.create({ shopId: s.shop.id, customerId: s.customer.id, engineId: four.id, code: `F-${four.id}`, title: "Four", unitSystem: "in", status: "measuring" });
+    const job = await Job.create({
+      shopId: s.shop.id,
+      customerId: s.customer.id,
+      engineId: four.id,
+      code: `F-${four.id}`,
+      title: "Four",
+      unitSystem: "in",
+      status: "measuring",
+    });
     const ok = await push(s.users.machinist, [reading(job.id, "bore/1/top/A", 3.5002)]);
     expect(ok.status).toBe(200); // 3.5 in is this engine's bore, far from the V8's 4.03
     const res = await push(s.users.machinist, [reading(job.id, "bore/6/top/A", 3.5002)]);

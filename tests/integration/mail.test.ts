@@ -30,7 +30,7 @@ async function mailsTo(address: string): Promise<ParsedMail[]> {
   const out: ParsedMail[] = [];
   for (const name of readdirSync(MAIL_DIR).filter((n) => n.endsWith(".eml"))) {
     const m = await simpleParser(readFileSync(join(MAIL_DIR, name)));
-    const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(",") : m.to?.text ?? "";
+    const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(",") : (m.to?.text ?? "");
     if (to.includes(address)) out.push(m);
   }
   return out;
@@ -49,8 +49,17 @@ async function waitForMails(address: string, n: number, timeoutMs = 15_000): Pro
 
 async function addFlag(s: TestShop, stationId: string, value: number) {
   return Flag.create({
-    shopId: s.shop.id, jobId: s.job.id, stationId, characteristic: "bore_diameter", value, unit: "in",
-    limitMin: 4.0295, limitMax: 4.0305, deviation: Number((value - 4.03).toFixed(6)), verdict: "out_of_spec", reason: "out_of_spec",
+    shopId: s.shop.id,
+    jobId: s.job.id,
+    stationId,
+    characteristic: "bore_diameter",
+    value,
+    unit: "in",
+    limitMin: 4.0295,
+    limitMax: 4.0305,
+    deviation: Number((value - 4.03).toFixed(6)),
+    verdict: "out_of_spec",
+    reason: "out_of_spec",
   });
 }
 
@@ -89,23 +98,27 @@ describe("mail through the outbox", () => {
     expect(await MailOutbox.count({ where: { shopId: job.shop.id, kind: "build_record" } })).toBe(1);
     // A rolled-back release leaves no mail behind.
     const other = await createRecordJob({ photo: false });
-    await getSequelize().transaction(async (t) => {
-      await enqueueReleaseMail(t, { shopId: other.shop.id, jobId: other.job.id, releaseId: other.release!.id });
-      throw new Error("the signature failed after the mail was queued");
-    }).catch(() => {});
+    await getSequelize()
+      .transaction(async (t) => {
+        await enqueueReleaseMail(t, { shopId: other.shop.id, jobId: other.job.id, releaseId: other.release!.id });
+        throw new Error("the signature failed after the mail was queued");
+      })
+      .catch(() => {});
     expect(await MailOutbox.count({ where: { shopId: other.shop.id } })).toBe(0);
   });
 
   it("sends the leads a digest of new flags, then only the flags since that digest", async () => {
     const s = await createShop();
     await addFlag(s, "bore/3/top/A", 4.0311);
-    await addFlag(s, "bore/4/mid/B", 4.0290);
+    await addFlag(s, "bore/4/mid/B", 4.029);
     await runNotifierOnce();
     await deliverFor(s.shop.id);
     let mails = await waitForMails(s.users.lead.email, 1);
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toBe(`2 new flags to review: ${s.job.code}`);
-    expect(mails[0].text).toContain("Cylinder 3 · top of bore · axis A (thrust): cylinder bore diameter 4.0311 in (limits 4.0295 to 4.0305 in), OUT OF SPEC");
+    expect(mails[0].text).toContain(
+      "Cylinder 3 · top of bore · axis A (thrust): cylinder bore diameter 4.0311 in (limits 4.0295 to 4.0305 in), OUT OF SPEC",
+    );
     expect(mails[0].text).toContain("/desk/flags");
     expect(await mailsTo(s.users.inspector.email)).toHaveLength(0);
 
@@ -130,9 +143,20 @@ describe("mail through the outbox", () => {
       const id = randomUUID();
       await recordChange(null, { shopId: s.shop.id, jobId: s.job.id, entity: "reading", entityId: id });
       await Reading.create({
-        id, shopId: s.shop.id, jobId: s.job.id, stationId: `torque/${group}`, characteristic: "fastener_torque",
-        valueEntered: 68, unitEntered: "lbf_ft", lubricant: "engine-oil", takenBy: s.users.machinist.id, takenAt: new Date(), deviceId: "t",
-        verdict: "in_spec", limitMin: 65, limitMax: 70,
+        id,
+        shopId: s.shop.id,
+        jobId: s.job.id,
+        stationId: `torque/${group}`,
+        characteristic: "fastener_torque",
+        valueEntered: 68,
+        unitEntered: "lbf_ft",
+        lubricant: "engine-oil",
+        takenBy: s.users.machinist.id,
+        takenAt: new Date(),
+        deviceId: "t",
+        verdict: "in_spec",
+        limitMin: 65,
+        limitMax: 70,
       });
     }
     expect((await releaseChecklist(s.shop.id, s.job.id)).complete).toBe(true);
@@ -156,16 +180,31 @@ describe("failed mail", () => {
   it("records the error, retries with a doubling delay, and shows it to the admin", async () => {
     const s = await createShop();
     const later = new Date(Date.now() + 3600_000); // not due for the app's own worker
-    const row = await MailOutbox.create({ shopId: s.shop.id, kind: "flag_digest", toAddress: s.users.lead.email, subject: "Test digest", payload: { text: "Hello" }, nextAttemptAt: later });
+    const row = await MailOutbox.create({
+      shopId: s.shop.id,
+      kind: "flag_digest",
+      toAddress: s.users.lead.email,
+      subject: "Test digest",
+      payload: { text: "Hello" },
+      nextAttemptAt: later,
+    });
     const dead = nodemailer.createTransport({ host: "127.0.0.1", port: 1, connectionTimeout: 2000 });
-    const first = await deliverPendingMail({ now: later, only: [row.id], send: (m) => dead.sendMail({ from: "t@test.example", ...m }) });
+    const first = await deliverPendingMail({
+      now: later,
+      only: [row.id],
+      send: (m) => dead.sendMail({ from: "t@test.example", ...m }),
+    });
     expect(first.failed.map((f) => f.id)).toContain(row.id);
     await row.reload();
     expect(row.sentAt).toBeNull();
     expect(row.attempts).toBe(1);
     expect(row.lastError).toMatch(/Attempt 1 at .*ECONNREFUSED/);
     expect(row.nextAttemptAt.getTime() - later.getTime()).toBe(retryDelaySeconds(1) * 1000);
-    await deliverPendingMail({ now: row.nextAttemptAt, only: [row.id], send: () => Promise.reject(new Error("451 try later")) });
+    await deliverPendingMail({
+      now: row.nextAttemptAt,
+      only: [row.id],
+      send: () => Promise.reject(new Error("451 try later")),
+    });
     await row.reload();
     expect(row.attempts).toBe(2);
     expect(retryDelaySeconds(2)).toBe(2 * retryDelaySeconds(1));
@@ -176,8 +215,16 @@ describe("failed mail", () => {
     expect(listed.body.messages[0].lastError).toContain("451 try later");
     expect((await call(outboxList, await asUser(s.users.lead, "GET", "/api/mail/outbox"))).status).toBe(403);
     const other = await createShop();
-    expect((await call(retry, await asUser(other.users.admin, "POST", `/api/mail/outbox/${row.id}/retry`), { id: String(row.id) })).status).toBe(404);
-    const retried = await call(retry, await asUser(s.users.admin, "POST", `/api/mail/outbox/${row.id}/retry`), { id: String(row.id) });
+    expect(
+      (
+        await call(retry, await asUser(other.users.admin, "POST", `/api/mail/outbox/${row.id}/retry`), {
+          id: String(row.id),
+        })
+      ).status,
+    ).toBe(404);
+    const retried = await call(retry, await asUser(s.users.admin, "POST", `/api/mail/outbox/${row.id}/retry`), {
+      id: String(row.id),
+    });
     expect(retried.status).toBe(200);
     await deliverPendingMail({ only: [row.id] });
     for (let i = 0; i < 40 && !row.sentAt; i++) {

@@ -137,7 +137,9 @@ describe("migrations", () => {
       `SELECT table_name AS name, table_collation AS collation FROM information_schema.tables WHERE table_schema = DATABASE() AND ${IGNORED}`,
     );
     for (const c of collations) expect(c.collation, c.name).toMatch(/^utf8mb4_/);
-    expect(await triggerNames()).toEqual(["audit_events_no_delete", "audit_events_no_update", ...CONTEXT_TRIGGERS].sort());
+    expect(await triggerNames()).toEqual(
+      ["audit_events_no_delete", "audit_events_no_update", ...CONTEXT_TRIGGERS].sort(),
+    );
   });
 
   it("audit_events refuses UPDATE and DELETE, and keeps the row", async () => {

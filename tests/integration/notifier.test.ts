@@ -36,8 +36,16 @@ describe("notifier start-up", () => {
   it("queues a shop's flag digest once, however many passes see it, and reports no errors", async () => {
     const s = await createShop();
     await Flag.create({
-      shopId: s.shop.id, jobId: s.job.id, stationId: "bore/1/top/A", characteristic: "bore_diameter", value: 4.0311, unit: "in",
-      limitMin: 4.0295, limitMax: 4.0305, verdict: "out_of_spec", reason: "out_of_spec",
+      shopId: s.shop.id,
+      jobId: s.job.id,
+      stationId: "bore/1/top/A",
+      characteristic: "bore_diameter",
+      value: 4.0311,
+      unit: "in",
+      limitMin: 4.0295,
+      limitMax: 4.0305,
+      verdict: "out_of_spec",
+      reason: "out_of_spec",
     });
     const first = await runNotifierOnce();
     const second = await runNotifierOnce();

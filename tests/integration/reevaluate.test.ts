@@ -15,22 +15,43 @@ const ids: Record<string, string> = {};
 // (4.0295–4.0305), main oil clearance 0.0015–0.0025 in. No gauge, so U = 0 and no guard band.
 async function add(stationId: string, characteristic: string, value: number, minute: number) {
   const r = await Reading.create({
-    id: randomUUID(), shopId: s.shop.id, jobId: s.job.id, stationId, characteristic, valueEntered: value, valueCanonical: value * 25.4,
-    unitEntered: "in", takenBy: s.users.machinist.id, takenAt: new Date(Date.UTC(2026, 11, 1, 8, minute)), deviceId: "test",
+    id: randomUUID(),
+    shopId: s.shop.id,
+    jobId: s.job.id,
+    stationId,
+    characteristic,
+    valueEntered: value,
+    valueCanonical: value * 25.4,
+    unitEntered: "in",
+    takenBy: s.users.machinist.id,
+    takenAt: new Date(Date.UTC(2026, 11, 1, 8, minute)),
+    deviceId: "test",
   });
   ids[stationId] = r.id;
 }
 
 type Limit = Record<string, unknown> & { characteristic: string };
-const limits = (over: Record<string, Record<string, unknown>> = {}): Limit[] => INCH_LIMITS.map((l) => ({ ...l, ...(over[l.characteristic] ?? {}) }));
+const limits = (over: Record<string, Record<string, unknown>> = {}): Limit[] =>
+  INCH_LIMITS.map((l) => ({ ...l, ...(over[l.characteristic] ?? {}) }));
 
 async function save(list: Limit[]) {
   const job = await Job.findByPk(s.job.id);
-  return call(PUT as never, await asUser(s.users.lead, "PUT", `/api/jobs/${s.job.id}/limits`, { specRevision: job!.specRevision, limits: list }), { jobId: String(s.job.id) });
+  return call(
+    PUT as never,
+    await asUser(s.users.lead, "PUT", `/api/jobs/${s.job.id}/limits`, {
+      specRevision: job!.specRevision,
+      limits: list,
+    }),
+    { jobId: String(s.job.id) },
+  );
 }
 
 const verdictOf = async (station: string) => (await Reading.findByPk(ids[station]))?.verdict;
-const unclosed = async () => (await Flag.findAll({ where: { jobId: s.job.id }, order: [["id", "ASC"]] })).filter((f) => f.state !== "closed").map((f) => f.readingId ? `r:${f.stationId}` : `d:${f.derivedKey}`).sort();
+const unclosed = async () =>
+  (await Flag.findAll({ where: { jobId: s.job.id }, order: [["id", "ASC"]] }))
+    .filter((f) => f.state !== "closed")
+    .map((f) => (f.readingId ? `r:${f.stationId}` : `d:${f.derivedKey}`))
+    .sort();
 
 beforeEach(async () => {
   s = await createShop();
@@ -47,13 +68,20 @@ describe("PUT /api/jobs/[jobId]/limits re-evaluates the job", () => {
     const first = await save(limits());
     expect(first.status).toBe(200);
     expect(first.body.job.specRevision).toBe(2);
-    expect([await verdictOf("bore/1/top/A"), await verdictOf("bore/1/top/B"), await verdictOf("bore/2/top/A")]).toEqual(["in_spec", "in_spec", "out_of_spec"]);
+    expect([await verdictOf("bore/1/top/A"), await verdictOf("bore/1/top/B"), await verdictOf("bore/2/top/A")]).toEqual(
+      ["in_spec", "in_spec", "out_of_spec"],
+    );
     expect(await unclosed()).toEqual(["r:bore/2/top/A"]);
     expect(first.body.result).toMatchObject({ opened: 1, closed: 0 });
 
     // The lead decides to measure it again: the disposition must survive the flag's closing.
     const flag = (await Flag.findOne({ where: { jobId: s.job.id, stationId: "bore/2/top/A" } }))!;
-    await flag.update({ state: "disposed", disposition: "measure_again", disposedBy: s.users.lead.id, disposedAt: new Date() });
+    await flag.update({
+      state: "disposed",
+      disposition: "measure_again",
+      disposedBy: s.users.lead.id,
+      disposedAt: new Date(),
+    });
     await FlagDisposition.create({ flagId: flag.id, disposition: "measure_again", userId: s.users.lead.id });
 
     // 2. Loosen the bore to +0.0008 (max 4.0308): 4.0307 is in, its flag closes.
@@ -68,9 +96,18 @@ describe("PUT /api/jobs/[jobId]/limits re-evaluates the job", () => {
     // 3. Tighten the bore to +0.0001 (max 4.0301) and the clearance to 0.0020: all three bores and the clearance are out.
     const third = await save(limits({ bore_diameter: { tolPlus: 0.0001 }, main_oil_clearance: { max: 0.002 } }));
     expect(third.body.result).toMatchObject({ opened: 4, closed: 0 });
-    expect([await verdictOf("bore/1/top/A"), await verdictOf("bore/1/top/B"), await verdictOf("bore/2/top/A")]).toEqual(["out_of_spec", "out_of_spec", "out_of_spec"]);
-    expect(await unclosed()).toEqual(["d:main_oil_clearance@main-brg/1/front/A", "r:bore/1/top/A", "r:bore/1/top/B", "r:bore/2/top/A"]);
-    const derived = await Flag.findOne({ where: { jobId: s.job.id, derivedKey: "main_oil_clearance@main-brg/1/front/A" } });
+    expect([await verdictOf("bore/1/top/A"), await verdictOf("bore/1/top/B"), await verdictOf("bore/2/top/A")]).toEqual(
+      ["out_of_spec", "out_of_spec", "out_of_spec"],
+    );
+    expect(await unclosed()).toEqual([
+      "d:main_oil_clearance@main-brg/1/front/A",
+      "r:bore/1/top/A",
+      "r:bore/1/top/B",
+      "r:bore/2/top/A",
+    ]);
+    const derived = await Flag.findOne({
+      where: { jobId: s.job.id, derivedKey: "main_oil_clearance@main-brg/1/front/A" },
+    });
     expect(derived).toMatchObject({ value: 0.0025, limitMax: 0.002, verdict: "out_of_spec" });
     expect((await Job.findByPk(s.job.id))!.specRevision).toBe(4);
   });
@@ -78,16 +115,28 @@ describe("PUT /api/jobs/[jobId]/limits re-evaluates the job", () => {
   it("audits every edit with the limits before and after, and puts it on the change feed", async () => {
     await save(limits());
     await save(limits({ bore_diameter: { tolPlus: 0.0008 } }));
-    const events = await AuditEvent.findAll({ where: { action: "job_limits.update", entityId: String(s.job.id) }, order: [["id", "ASC"]] });
+    const events = await AuditEvent.findAll({
+      where: { action: "job_limits.update", entityId: String(s.job.id) },
+      order: [["id", "ASC"]],
+    });
     expect(events).toHaveLength(2);
-    const bore = (x: unknown) => (x as { limits: { characteristic: string; tolPlus?: number }[] }).limits.find((l) => l.characteristic === "bore_diameter")?.tolPlus;
+    const bore = (x: unknown) =>
+      (x as { limits: { characteristic: string; tolPlus?: number }[] }).limits.find(
+        (l) => l.characteristic === "bore_diameter",
+      )?.tolPlus;
     expect([bore(events[1].before), bore(events[1].after)]).toEqual([0.0005, 0.0008]);
     expect(events[1].before).toMatchObject({ specRevision: 2 });
     expect(events[1].after).toMatchObject({ specRevision: 3 });
     expect(events.every((e) => e.userId === s.users.lead.id)).toBe(true);
     // The reading whose verdict flipped has its own re-evaluation event.
-    const flip = await AuditEvent.findOne({ where: { action: "reading.re-evaluate", entityId: ids["bore/2/top/A"] }, order: [["id", "DESC"]] });
-    expect([(flip?.before as { verdict: string }).verdict, (flip?.after as { verdict: string }).verdict]).toEqual(["out_of_spec", "in_spec"]);
+    const flip = await AuditEvent.findOne({
+      where: { action: "reading.re-evaluate", entityId: ids["bore/2/top/A"] },
+      order: [["id", "DESC"]],
+    });
+    expect([(flip?.before as { verdict: string }).verdict, (flip?.after as { verdict: string }).verdict]).toEqual([
+      "out_of_spec",
+      "in_spec",
+    ]);
     expect(await SyncChange.count({ where: { jobId: s.job.id, entity: "job_limits" } })).toBe(2);
   });
 

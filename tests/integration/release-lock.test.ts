@@ -17,12 +17,24 @@ describe("the release lock", () => {
     const s = await createShop();
     await completeJob(s);
     const p = { jobId: String(s.job.id) };
-    const signed = await call(sign, await asUser(s.users.inspector, "POST", `/api/release/${s.job.id}`, { fullName: s.users.inspector.name, password: TEST_PASSWORD }), p);
+    const signed = await call(
+      sign,
+      await asUser(s.users.inspector, "POST", `/api/release/${s.job.id}`, {
+        fullName: s.users.inspector.name,
+        password: TEST_PASSWORD,
+      }),
+      p,
+    );
     expect(signed.status).toBe(201);
 
     const reading = {
-      id: randomUUID(), jobId: s.job.id, stationId: "skirt/1", value: 4.0285, unit: "in",
-      instrumentId: s.instrument.id, takenAt: new Date().toISOString(),
+      id: randomUUID(),
+      jobId: s.job.id,
+      stationId: "skirt/1",
+      value: 4.0285,
+      unit: "in",
+      instrumentId: s.instrument.id,
+      takenAt: new Date().toISOString(),
     };
     const batch = { deviceId: "tablet-after-release", readings: [reading] };
     const refused = await call(sync, await asUser(s.users.machinist, "POST", "/api/sync", batch));
@@ -30,13 +42,21 @@ describe("the release lock", () => {
     expect(refused.body.error.code).toBe("job_locked");
     expect(refused.body.results).toHaveLength(1);
     expect(refused.body.results[0]).toMatchObject({ id: reading.id, status: "rejected", code: "job_locked" });
-    expect(refused.body.results[0].reason).toMatch(new RegExp(`Job ${s.job.code} was released on .*readings are locked`));
+    expect(refused.body.results[0].reason).toMatch(
+      new RegExp(`Job ${s.job.code} was released on .*readings are locked`),
+    );
     expect(await Reading.count({ where: { id: reading.id } })).toBe(0);
 
     const check = await call(verify, await asUser(s.users.inspector, "GET", `/api/release/${s.job.id}/verify`), p);
     expect(check.body.status).toBe("match");
 
-    const reopened = await call(reopen, await asUser(s.users.lead, "POST", `/api/release/${s.job.id}/reopen`, { reason: "Skirt of piston 1 to be measured again" }), p);
+    const reopened = await call(
+      reopen,
+      await asUser(s.users.lead, "POST", `/api/release/${s.job.id}/reopen`, {
+        reason: "Skirt of piston 1 to be measured again",
+      }),
+      p,
+    );
     expect(reopened.status).toBe(200);
     const accepted = await call(sync, await asUser(s.users.machinist, "POST", "/api/sync", batch));
     expect(accepted.status).toBe(200);

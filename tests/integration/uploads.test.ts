@@ -33,28 +33,65 @@ describe("offline photos", () => {
     const s = await createShop();
     const db = new BenchDb(`uploads-${randomUUID()}`);
     const machinist = s.users.machinist;
-    const bytes = await sharp({ create: { width: 900, height: 600, channels: 3, background: { r: 90, g: 90, b: 90 } } }).jpeg().toBuffer();
+    const bytes = await sharp({ create: { width: 900, height: 600, channels: 3, background: { r: 90, g: 90, b: 90 } } })
+      .jpeg()
+      .toBuffer();
     const owner = { jobId: s.job.id, ownerType: "job" as const, ownerId: String(s.job.id) };
-    const photo = await addPhoto(db, new File([new Uint8Array(bytes)], "scored-bore.jpg", { type: "image/jpeg" }), owner, machinist.id);
+    const photo = await addPhoto(
+      db,
+      new File([new Uint8Array(bytes)], "scored-bore.jpg", { type: "image/jpeg" }),
+      owner,
+      machinist.id,
+    );
 
     await expect(uploadPhotos(db, offline, BASE, machinist.id)).rejects.toThrow("No connection");
     expect(await db.photos.get(photo.id)).toMatchObject({ state: "pending" });
     expect(await Attachment.count({ where: { shopId: s.shop.id } })).toBe(0);
 
-    const cookie = (await cookieFor(machinist));
-    expect(await uploadPhotos(db, online(cookie), BASE, machinist.id)).toEqual({ uploaded: 1, waiting: 0, unavailable: false });
+    const cookie = await cookieFor(machinist);
+    expect(await uploadPhotos(db, online(cookie), BASE, machinist.id)).toEqual({
+      uploaded: 1,
+      waiting: 0,
+      unavailable: false,
+    });
     expect(await db.photos.get(photo.id)).toMatchObject({ state: "uploaded", blob: null });
     const stored = await Attachment.findByPk(photo.id);
-    expect(stored).toMatchObject({ shopId: s.shop.id, ownerType: "job", ownerId: String(s.job.id), contentType: "image/jpeg", sizeBytes: bytes.length });
-    const res = await download(await asUser(s.users.lead, "GET", `/api/attachments/${photo.id}`), { params: Promise.resolve({ id: photo.id }) });
+    expect(stored).toMatchObject({
+      shopId: s.shop.id,
+      ownerType: "job",
+      ownerId: String(s.job.id),
+      contentType: "image/jpeg",
+      sizeBytes: bytes.length,
+    });
+    const res = await download(await asUser(s.users.lead, "GET", `/api/attachments/${photo.id}`), {
+      params: Promise.resolve({ id: photo.id }),
+    });
     expect(Buffer.from(await res.arrayBuffer()).equals(bytes)).toBe(true);
 
     // The server stores the second photo but the answer never reaches the tablet; the resend
     // with the same clientId finds the stored one.
-    const second = await addPhoto(db, new File([new Uint8Array(bytes)], "journal.jpg", { type: "image/jpeg" }), owner, machinist.id);
-    await expect(uploadPhotos(db, online(cookie, () => { throw new TypeError("connection reset"); }), BASE, machinist.id)).rejects.toThrow("No connection");
+    const second = await addPhoto(
+      db,
+      new File([new Uint8Array(bytes)], "journal.jpg", { type: "image/jpeg" }),
+      owner,
+      machinist.id,
+    );
+    await expect(
+      uploadPhotos(
+        db,
+        online(cookie, () => {
+          throw new TypeError("connection reset");
+        }),
+        BASE,
+        machinist.id,
+      ),
+    ).rejects.toThrow("No connection");
     expect(await db.photos.get(second.id)).toMatchObject({ state: "pending" });
-    expect(await uploadPhotos(db, online(cookie), BASE, machinist.id)).toEqual({ uploaded: 1, waiting: 0, unavailable: false });
+    expect(await uploadPhotos(db, online(cookie), BASE, machinist.id)).toEqual({
+      uploaded: 1,
+      waiting: 0,
+      unavailable: false,
+    });
     expect(await Attachment.count({ where: { shopId: s.shop.id } })).toBe(2);
     expect(await Attachment.count({ where: { id: second.id } })).toBe(1);
     db.close();

@@ -7,8 +7,14 @@ import { join } from "node:path";
 
 export const BASE_URL = process.env.TW_BASE_URL ?? "http://127.0.0.1:3000";
 export const CHROMIUM_ARGS = [
-  "--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
-  "--disable-background-networking", "--disable-component-update", "--disable-sync",
+  "--headless",
+  "--no-sandbox",
+  "--disable-gpu",
+  "--disable-quic",
+  "--no-first-run",
+  "--disable-background-networking",
+  "--disable-component-update",
+  "--disable-sync",
 ];
 
 export async function launchBrowser(): Promise<Browser> {
@@ -16,14 +22,24 @@ export async function launchBrowser(): Promise<Browser> {
 }
 
 /** A persistent profile (for offline/restart tests): same dir → same IndexedDB and service worker. */
-export async function launchProfile(userDataDir = mkdtempSync(join(tmpdir(), "tw-profile-")), viewport = { width: 1024, height: 768 }) {
+export async function launchProfile(
+  userDataDir = mkdtempSync(join(tmpdir(), "tw-profile-")),
+  viewport = { width: 1024, height: 768 },
+) {
   const context = await chromium.launchPersistentContext(userDataDir, {
-    executablePath: "/usr/bin/chromium", args: CHROMIUM_ARGS, headless: true, viewport, baseURL: BASE_URL,
+    executablePath: "/usr/bin/chromium",
+    args: CHROMIUM_ARGS,
+    headless: true,
+    viewport,
+    baseURL: BASE_URL,
   });
   return { context, userDataDir };
 }
 
-export async function newTabletPage(browser: Browser, viewport = { width: 1024, height: 768 }): Promise<{ context: BrowserContext; page: Page }> {
+export async function newTabletPage(
+  browser: Browser,
+  viewport = { width: 1024, height: 768 },
+): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({ viewport, baseURL: BASE_URL });
   return { context, page: await context.newPage() };
 }

@@ -3,11 +3,23 @@ import { sealSession, SESSION_COOKIE } from "@/lib/server/session";
 import type { TestUser } from "./factories";
 
 export async function cookieFor(user: TestUser): Promise<string> {
-  const sealed = await sealSession({ userId: user.id, shopId: user.shopId, role: user.role, name: user.name, issuedAt: Date.now() });
+  const sealed = await sealSession({
+    userId: user.id,
+    shopId: user.shopId,
+    role: user.role,
+    name: user.name,
+    issuedAt: Date.now(),
+  });
   return `${SESSION_COOKIE}=${sealed}`;
 }
 
-export async function asUser(user: TestUser | null, method: string, url: string, body?: unknown, headers: Record<string, string> = {}): Promise<Request> {
+export async function asUser(
+  user: TestUser | null,
+  method: string,
+  url: string,
+  body?: unknown,
+  headers: Record<string, string> = {},
+): Promise<Request> {
   const h: Record<string, string> = { ...headers };
   if (user) h.cookie = await cookieFor(user);
   let payload: BodyInit | undefined;

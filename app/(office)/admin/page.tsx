@@ -20,8 +20,13 @@ export default async function AdminHome() {
           <ul className="divide-y divide-rule">
             {users.map((u) => (
               <li key={u.id} className="flex justify-between py-2">
-                <span>{u.name} <span className="text-muted">· {u.email}</span></span>
-                <span>{ROLE_WORDS[u.role]}{u.active ? "" : " (inactive)"}</span>
+                <span>
+                  {u.name} <span className="text-muted">· {u.email}</span>
+                </span>
+                <span>
+                  {ROLE_WORDS[u.role]}
+                  {u.active ? "" : " (inactive)"}
+                </span>
               </li>
             ))}
           </ul>

@@ -14,7 +14,10 @@ export default async function AuditPage() {
       <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
         <div>
           <h1 className="text-3xl font-semibold">Audit trail</h1>
-          <p className="text-muted">Every change in the shop, who made it and when, with the values before and after. Entries are never edited or deleted.</p>
+          <p className="text-muted">
+            Every change in the shop, who made it and when, with the values before and after. Entries are never edited
+            or deleted.
+          </p>
         </div>
         <Suspense fallback={<Loading what="the audit trail" />}>
           <AuditBrowser />

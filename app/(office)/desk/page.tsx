@@ -16,7 +16,10 @@ export default async function DeskHome() {
         <div className="flex flex-wrap items-center justify-between gap-3">
           <h1 className="text-3xl font-semibold">Jobs</h1>
           {lead && (
-            <Link href="/desk/jobs/new" className="inline-flex min-h-11 items-center rounded-tool bg-steel px-4 font-semibold text-steel-ink hover:brightness-110">
+            <Link
+              href="/desk/jobs/new"
+              className="inline-flex min-h-11 items-center rounded-tool bg-steel px-4 font-semibold text-steel-ink hover:brightness-110"
+            >
               New job
             </Link>
           )}

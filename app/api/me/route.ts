@@ -4,5 +4,9 @@ import { findShop } from "@/lib/server/shops-repo";
 
 export const GET = authed("any", async ({ actor }) => {
   const shop = await findShop(actor.shopId);
-  return { user: { id: actor.userId, name: actor.name, email: actor.email, role: actor.role }, shop, home: ROLE_HOME[actor.role] };
+  return {
+    user: { id: actor.userId, name: actor.name, email: actor.email, role: actor.role },
+    shop,
+    home: ROLE_HOME[actor.role],
+  };
 });

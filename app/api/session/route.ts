@@ -12,7 +12,13 @@ function clientAddress(req: Request): string {
 export const POST = open(async ({ req }) => {
   const input = await readJson(req, signInSchema);
   const user = await signIn(input.email, input.password, clientAddress(req));
-  const sealed = await sealSession({ userId: user.id, shopId: user.shopId, role: user.role, name: user.name, issuedAt: Date.now() });
+  const sealed = await sealSession({
+    userId: user.id,
+    shopId: user.shopId,
+    role: user.role,
+    name: user.name,
+    issuedAt: Date.now(),
+  });
   return Response.json(
     { user: { id: user.id, name: user.name, role: user.role }, home: ROLE_HOME[user.role] },
     { headers: { "Set-Cookie": sessionCookieHeader(sealed) } },
@@ -20,4 +26,6 @@ export const POST = open(async ({ req }) => {
 });
 
 /** Sign out. */
-export const DELETE = open(async () => new Response(null, { status: 204, headers: { "Set-Cookie": clearSessionCookieHeader() } }));
+export const DELETE = open(
+  async () => new Response(null, { status: 204, headers: { "Set-Cookie": clearSessionCookieHeader() } }),
+);

@@ -18,7 +18,12 @@ async function send(gaugeId: number, file: File): Promise<void> {
     const body = await res.json().catch(() => null);
     const e = body?.error;
     const field = e?.fields ? Object.values(e.fields as Record<string, string[]>)[0]?.[0] : undefined;
-    throw new ApiError(res.status, e?.code ?? "http_error", field ?? e?.message ?? `The server answered ${res.status}`, e?.fields);
+    throw new ApiError(
+      res.status,
+      e?.code ?? "http_error",
+      field ?? e?.message ?? `The server answered ${res.status}`,
+      e?.fields,
+    );
   }
 }
 
@@ -37,7 +42,12 @@ export function CertificateCell({ gauge, canEdit }: { gauge: InstrumentRecord; c
   return (
     <div className="flex flex-col items-start gap-1">
       {gauge.certificate ? (
-        <a href={gauge.certificate.url} target="_blank" rel="noreferrer" className="font-medium text-steel underline underline-offset-2">
+        <a
+          href={gauge.certificate.url}
+          target="_blank"
+          rel="noreferrer"
+          className="font-medium text-steel underline underline-offset-2"
+        >
           Certificate: {gauge.certificate.name}
         </a>
       ) : (
@@ -61,7 +71,11 @@ export function CertificateCell({ gauge, canEdit }: { gauge: InstrumentRecord; c
           />
         </label>
       )}
-      {error && <p role="alert" className="text-sm font-medium text-fail">{error}</p>}
+      {error && (
+        <p role="alert" className="text-sm font-medium text-fail">
+          {error}
+        </p>
+      )}
     </div>
   );
 }

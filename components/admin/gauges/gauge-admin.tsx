@@ -28,11 +28,19 @@ export function GaugeAdmin({ canEdit }: { canEdit: boolean }) {
         </div>
       )}
       {editing && (
-        <GaugeForm key={editing.mode === "edit" ? editing.gauge.id : "new"} gauge={editing.mode === "edit" ? editing.gauge : undefined} onDone={() => setEditing(null)} />
+        <GaugeForm
+          key={editing.mode === "edit" ? editing.gauge.id : "new"}
+          gauge={editing.mode === "edit" ? editing.gauge : undefined}
+          onDone={() => setEditing(null)}
+        />
       )}
       {pastDue > 0 && (
-        <Notice tone="caution" title={`${pastDue} gauge${pastDue === 1 ? " is" : "s are"} past the calibration due date`}>
-          Readings taken with a gauge past due are flagged for the lead. Send it for calibration, then enter the new dates and certificate.
+        <Notice
+          tone="caution"
+          title={`${pastDue} gauge${pastDue === 1 ? " is" : "s are"} past the calibration due date`}
+        >
+          Readings taken with a gauge past due are flagged for the lead. Send it for calibration, then enter the new
+          dates and certificate.
         </Notice>
       )}
       <label className="no-print flex items-center gap-2 text-sm">
@@ -41,8 +49,16 @@ export function GaugeAdmin({ canEdit }: { canEdit: boolean }) {
       </label>
       <section aria-label="Gauges" className="overflow-x-auto rounded-tool border-2 border-rule bg-panel">
         {gauges.isPending && <p className="p-4 text-muted">Loading gauges…</p>}
-        {gauges.isError && <div className="p-4"><Notice tone="error" title="Could not load the gauges">{gauges.error.message}</Notice></div>}
-        {gauges.data && list.length === 0 && <p className="p-4 text-muted">No gauges registered yet.{canEdit ? " Register the first one above." : ""}</p>}
+        {gauges.isError && (
+          <div className="p-4">
+            <Notice tone="error" title="Could not load the gauges">
+              {gauges.error.message}
+            </Notice>
+          </div>
+        )}
+        {gauges.data && list.length === 0 && (
+          <p className="p-4 text-muted">No gauges registered yet.{canEdit ? " Register the first one above." : ""}</p>
+        )}
         {list.length > 0 && (
           <table className="w-full text-left">
             <thead className="bg-paper text-sm text-muted">
@@ -56,14 +72,21 @@ export function GaugeAdmin({ canEdit }: { canEdit: boolean }) {
               </tr>
             </thead>
             <tbody>
-              {list.map((g) => <GaugeRow key={g.id} gauge={g} canEdit={canEdit} onEdit={() => setEditing({ mode: "edit", gauge: g })} />)}
+              {list.map((g) => (
+                <GaugeRow
+                  key={g.id}
+                  gauge={g}
+                  canEdit={canEdit}
+                  onEdit={() => setEditing({ mode: "edit", gauge: g })}
+                />
+              ))}
             </tbody>
           </table>
         )}
       </section>
       <p className="text-sm text-muted">
-        Status: in calibration; due within {DUE_SOON_DAYS} days (the tablet warns too); past due from the day after the due date.
-        U (k = 2) widens the marginal band of every verdict taken with the gauge.
+        Status: in calibration; due within {DUE_SOON_DAYS} days (the tablet warns too); past due from the day after the
+        due date. U (k = 2) widens the marginal band of every verdict taken with the gauge.
       </p>
     </div>
   );

@@ -9,7 +9,15 @@ import { INSTRUMENT_KINDS, INSTRUMENT_UNITS, type InstrumentRecord } from "@/lib
 import { CalibrationTag } from "./calibration-tag";
 import { CertificateCell } from "./certificate-upload";
 
-export function GaugeRow({ gauge, canEdit, onEdit }: { gauge: InstrumentRecord; canEdit: boolean; onEdit: () => void }) {
+export function GaugeRow({
+  gauge,
+  canEdit,
+  onEdit,
+}: {
+  gauge: InstrumentRecord;
+  canEdit: boolean;
+  onEdit: () => void;
+}) {
   const qc = useQueryClient();
   const [error, setError] = useState<string | null>(null);
   const [confirm, setConfirm] = useState(false);
@@ -25,41 +33,78 @@ export function GaugeRow({ gauge, canEdit, onEdit }: { gauge: InstrumentRecord; 
   const unit = INSTRUMENT_UNITS[gauge.unit] ?? gauge.unit;
   const kind = INSTRUMENT_KINDS[gauge.kind]?.label ?? gauge.kind;
   return (
-    <tr className={`border-t-2 border-rule align-top ${gauge.active ? "" : "text-muted"}`} data-testid={`gauge-${gauge.serial}`}>
+    <tr
+      className={`border-t-2 border-rule align-top ${gauge.active ? "" : "text-muted"}`}
+      data-testid={`gauge-${gauge.serial}`}
+    >
       <td className="p-3">
         <div className="font-semibold text-ink">{gauge.label}</div>
-        <div className="text-sm">{kind} · serial <span className="font-mono">{gauge.serial}</span></div>
+        <div className="text-sm">
+          {kind} · serial <span className="font-mono">{gauge.serial}</span>
+        </div>
         {gauge.kind === "bore_gauge_dial" && (
-          <div className="text-xs">{gauge.dialPlusMeansSmaller ? "Plus on the dial = smaller bore" : "Plus on the dial = larger bore"}</div>
+          <div className="text-xs">
+            {gauge.dialPlusMeansSmaller ? "Plus on the dial = smaller bore" : "Plus on the dial = larger bore"}
+          </div>
         )}
       </td>
       <td className="whitespace-nowrap p-3 text-sm tabular">
-        <div>Resolution {gauge.resolution} {unit}</div>
-        <div>U = {gauge.expandedU} {unit} (k = {gauge.coverageK})</div>
+        <div>
+          Resolution {gauge.resolution} {unit}
+        </div>
+        <div>
+          U = {gauge.expandedU} {unit} (k = {gauge.coverageK})
+        </div>
       </td>
       <td className="whitespace-nowrap p-3 text-sm tabular">
         <div>Calibrated {gauge.calibratedOn}</div>
         <div className="font-semibold text-ink">Due {gauge.calibrationDue}</div>
       </td>
       <td className="p-3">
-        {gauge.active ? <CalibrationTag status={gauge.status} daysLeft={gauge.daysLeft} /> : <StatusTag tone="off">Deactivated</StatusTag>}
+        {gauge.active ? (
+          <CalibrationTag status={gauge.status} daysLeft={gauge.daysLeft} />
+        ) : (
+          <StatusTag tone="off">Deactivated</StatusTag>
+        )}
       </td>
-      <td className="p-3"><CertificateCell gauge={gauge} canEdit={canEdit && gauge.active} /></td>
+      <td className="p-3">
+        <CertificateCell gauge={gauge} canEdit={canEdit && gauge.active} />
+      </td>
       {canEdit && (
         <td className="no-print p-3">
           <div className="flex flex-wrap gap-2">
-            {gauge.active && !confirm && <Button tone="quiet" onClick={onEdit}>Edit</Button>}
-            {gauge.active && !confirm && <Button tone="quiet" onClick={() => setConfirm(true)}>Deactivate</Button>}
-            {!gauge.active && <Button tone="quiet" disabled={toggle.isPending} onClick={() => toggle.mutate(true)}>Reactivate</Button>}
+            {gauge.active && !confirm && (
+              <Button tone="quiet" onClick={onEdit}>
+                Edit
+              </Button>
+            )}
+            {gauge.active && !confirm && (
+              <Button tone="quiet" onClick={() => setConfirm(true)}>
+                Deactivate
+              </Button>
+            )}
+            {!gauge.active && (
+              <Button tone="quiet" disabled={toggle.isPending} onClick={() => toggle.mutate(true)}>
+                Reactivate
+              </Button>
+            )}
             {confirm && (
               <>
-                <Button tone="danger" disabled={toggle.isPending} onClick={() => toggle.mutate(false)}>Yes, take it out of use</Button>
-                <Button tone="quiet" onClick={() => setConfirm(false)}>Cancel</Button>
+                <Button tone="danger" disabled={toggle.isPending} onClick={() => toggle.mutate(false)}>
+                  Yes, take it out of use
+                </Button>
+                <Button tone="quiet" onClick={() => setConfirm(false)}>
+                  Cancel
+                </Button>
               </>
             )}
           </div>
           {confirm && <p className="mt-1 text-sm">The tablet stops offering it; readings already taken keep it.</p>}
-          {error && <p role="alert" className="mt-1 text-sm font-medium text-fail">{error}</p>}
+          {error && (
+            <p role="alert" className="mt-1 text-sm font-medium text-fail">
+              {error}
+            </p>
+          )}
         </td>
       )}
     </tr>

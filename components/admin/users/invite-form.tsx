@@ -24,7 +24,9 @@ export function InviteForm({ onIssued }: { onIssued: (i: Issued) => void }) {
   const invite = useMutation({
     mutationFn: (values: InviteUserInput) => api<Issued>("/api/users", { method: "POST", json: values }),
     onSuccess: (issued) => {
-      qc.setQueryData<{ users: AdminUser[] }>(["admin-users"], (old) => (old ? { users: [...old.users, issued.user] } : old));
+      qc.setQueryData<{ users: AdminUser[] }>(["admin-users"], (old) =>
+        old ? { users: [...old.users, issued.user] } : old,
+      );
       void qc.invalidateQueries({ queryKey: ["admin-users"] });
       form.reset({ name: "", email: "", role: form.getValues("role") });
       onIssued(issued);
@@ -36,7 +38,9 @@ export function InviteForm({ onIssued }: { onIssued: (i: Issued) => void }) {
           if (field === "name" || field === "email" || field === "role") form.setError(field, { message: msgs[0] });
         }
       }
-      setServerError(err instanceof ApiError ? err.message : "Could not reach the server. Check the connection and try again.");
+      setServerError(
+        err instanceof ApiError ? err.message : "Could not reach the server. Check the connection and try again.",
+      );
     },
   });
   const onSubmit = form.handleSubmit((values) => {
@@ -45,24 +49,42 @@ export function InviteForm({ onIssued }: { onIssued: (i: Issued) => void }) {
   });
   const errors = form.formState.errors;
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Invite a person" className="flex flex-col gap-4 rounded-tool border-2 border-rule bg-panel p-4">
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      aria-label="Invite a person"
+      className="flex flex-col gap-4 rounded-tool border-2 border-rule bg-panel p-4"
+    >
       <h2 className="text-xl font-semibold">Invite a person</h2>
       {serverError && <Notice tone="error">{serverError}</Notice>}
       <div className="grid gap-4 md:grid-cols-3">
         <TextField label="Name" autoComplete="off" error={errors.name?.message} {...form.register("name")} />
-        <TextField label="E-mail" type="email" autoComplete="off" error={errors.email?.message} {...form.register("email")} />
+        <TextField
+          label="E-mail"
+          type="email"
+          autoComplete="off"
+          error={errors.email?.message}
+          {...form.register("email")}
+        />
         <label className="flex flex-col gap-1.5">
           <span className="font-medium">Role</span>
-          <select className="min-h-12 rounded-tool border-2 border-rule bg-paper px-3 text-lg" {...form.register("role")}>
+          <select
+            className="min-h-12 rounded-tool border-2 border-rule bg-paper px-3 text-lg"
+            {...form.register("role")}
+          >
             {ROLES.map((r) => (
-              <option key={r} value={r}>{ROLE_WORDS[r]}</option>
+              <option key={r} value={r}>
+                {ROLE_WORDS[r]}
+              </option>
             ))}
           </select>
           {errors.role && <span className="text-sm font-medium text-fail">{errors.role.message}</span>}
         </label>
       </div>
       <div>
-        <Button type="submit" disabled={invite.isPending}>{invite.isPending ? "Creating the account…" : "Create account"}</Button>
+        <Button type="submit" disabled={invite.isPending}>
+          {invite.isPending ? "Creating the account…" : "Create account"}
+        </Button>
       </div>
       <p className="text-sm text-muted">The account is created at once with a temporary password, shown to you once.</p>
     </form>

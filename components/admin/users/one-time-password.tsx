@@ -4,7 +4,17 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 
 // Shown once, right after an invite or a reset; the server never sends it again.
-export function OneTimePassword({ name, email, password, onDone }: { name: string; email: string; password: string; onDone: () => void }) {
+export function OneTimePassword({
+  name,
+  email,
+  password,
+  onDone,
+}: {
+  name: string;
+  email: string;
+  password: string;
+  onDone: () => void;
+}) {
   const [copied, setCopied] = useState(false);
   async function copy() {
     try {
@@ -15,17 +25,27 @@ export function OneTimePassword({ name, email, password, onDone }: { name: strin
     }
   }
   return (
-    <section role="status" aria-label="Temporary password" className="flex flex-col gap-3 rounded-tool border-2 border-l-8 border-brass bg-panel p-4">
+    <section
+      role="status"
+      aria-label="Temporary password"
+      className="flex flex-col gap-3 rounded-tool border-2 border-l-8 border-brass bg-panel p-4"
+    >
       <h2 className="text-lg font-semibold">Temporary password for {name}</h2>
       <p className="text-sm text-muted">
-        Sign-in e-mail <span className="font-medium text-ink">{email}</span>. This password is shown once: hand it to {name} in person
-        or read it out, and ask them to sign in now. Tenthwise does not keep it readable and cannot show it again; if it is lost, reset it.
+        Sign-in e-mail <span className="font-medium text-ink">{email}</span>. This password is shown once: hand it to{" "}
+        {name} in person or read it out, and ask them to sign in now. Tenthwise does not keep it readable and cannot
+        show it again; if it is lost, reset it.
       </p>
       <div className="flex flex-wrap items-center gap-3">
-        <code data-testid="temporary-password" className="rounded-tool border-2 border-rule bg-paper px-4 py-2 font-mono text-2xl tracking-wider">
+        <code
+          data-testid="temporary-password"
+          className="rounded-tool border-2 border-rule bg-paper px-4 py-2 font-mono text-2xl tracking-wider"
+        >
           {password}
         </code>
-        <Button tone="quiet" onClick={copy}>{copied ? "Copied" : "Copy"}</Button>
+        <Button tone="quiet" onClick={copy}>
+          {copied ? "Copied" : "Copy"}
+        </Button>
         <Button onClick={onDone}>Done, I have passed it on</Button>
       </div>
     </section>

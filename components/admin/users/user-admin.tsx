@@ -15,17 +15,26 @@ export function UserAdmin({ selfId }: { selfId: number }) {
   return (
     <div className="flex flex-col gap-6">
       {issued && (
-        <OneTimePassword name={issued.user.name} email={issued.user.email} password={issued.temporaryPassword} onDone={() => setIssued(null)} />
+        <OneTimePassword
+          name={issued.user.name}
+          email={issued.user.email}
+          password={issued.temporaryPassword}
+          onDone={() => setIssued(null)}
+        />
       )}
       <InviteForm onIssued={setIssued} />
       <section aria-label="People" className="overflow-x-auto rounded-tool border-2 border-rule bg-panel">
         {users.isPending && <p className="p-4 text-muted">Loading the shop&apos;s people…</p>}
         {users.isError && (
           <div className="p-4">
-            <Notice tone="error" title="Could not load the people">{users.error.message}</Notice>
+            <Notice tone="error" title="Could not load the people">
+              {users.error.message}
+            </Notice>
           </div>
         )}
-        {users.data && users.data.users.length === 0 && <p className="p-4 text-muted">Nobody yet. Invite the first person above.</p>}
+        {users.data && users.data.users.length === 0 && (
+          <p className="p-4 text-muted">Nobody yet. Invite the first person above.</p>
+        )}
         {users.data && users.data.users.length > 0 && (
           <table className="w-full text-left">
             <thead className="bg-paper text-sm text-muted">
@@ -46,7 +55,8 @@ export function UserAdmin({ selfId }: { selfId: number }) {
         )}
       </section>
       <p className="text-sm text-muted">
-        Every change here is written to the audit trail. The shop always keeps at least one active admin, and nobody changes their own role.
+        Every change here is written to the audit trail. The shop always keeps at least one active admin, and nobody
+        changes their own role.
       </p>
     </div>
   );

@@ -10,21 +10,34 @@ import type { AdminUser, UpdateUserInput } from "@/lib/schemas/user";
 import { ROLES, type Role } from "@/models/enums";
 import type { Issued } from "./invite-form";
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : "never");
+const when = (iso: string | null) =>
+  iso ? new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : "never";
 
-export function UserRow({ user, isSelf, onIssued }: { user: AdminUser; isSelf: boolean; onIssued: (i: Issued) => void }) {
+export function UserRow({
+  user,
+  isSelf,
+  onIssued,
+}: {
+  user: AdminUser;
+  isSelf: boolean;
+  onIssued: (i: Issued) => void;
+}) {
   const qc = useQueryClient();
   const [error, setError] = useState<string | null>(null);
   const [confirm, setConfirm] = useState<"deactivate" | "reset" | null>(null);
   const done = (u: AdminUser) => {
-    qc.setQueryData<{ users: AdminUser[] }>(["admin-users"], (old) => (old ? { users: old.users.map((x) => (x.id === u.id ? u : x)) } : old));
+    qc.setQueryData<{ users: AdminUser[] }>(["admin-users"], (old) =>
+      old ? { users: old.users.map((x) => (x.id === u.id ? u : x)) } : old,
+    );
     void qc.invalidateQueries({ queryKey: ["admin-users"] });
     setConfirm(null);
     setError(null);
   };
-  const fail = (err: unknown) => setError(err instanceof ApiError ? err.message : "Could not reach the server; try again.");
+  const fail = (err: unknown) =>
+    setError(err instanceof ApiError ? err.message : "Could not reach the server; try again.");
   const update = useMutation({
-    mutationFn: (change: UpdateUserInput) => api<{ user: AdminUser }>(`/api/users/${user.id}`, { method: "PATCH", json: change }),
+    mutationFn: (change: UpdateUserInput) =>
+      api<{ user: AdminUser }>(`/api/users/${user.id}`, { method: "PATCH", json: change }),
     onSuccess: (r) => done(r.user),
     onError: fail,
   });
@@ -40,7 +53,10 @@ export function UserRow({ user, isSelf, onIssued }: { user: AdminUser; isSelf: b
   return (
     <tr className="border-t-2 border-rule align-top" data-testid={`user-${user.email}`}>
       <td className="p-3">
-        <div className="font-semibold">{user.name}{isSelf && <span className="ml-2 text-sm font-normal text-muted">(you)</span>}</div>
+        <div className="font-semibold">
+          {user.name}
+          {isSelf && <span className="ml-2 text-sm font-normal text-muted">(you)</span>}
+        </div>
         <div className="text-sm text-muted">{user.email}</div>
       </td>
       <td className="p-3">
@@ -52,7 +68,11 @@ export function UserRow({ user, isSelf, onIssued }: { user: AdminUser; isSelf: b
           onChange={(e) => update.mutate({ role: e.target.value as Role })}
           className="min-h-11 rounded-tool border-2 border-rule bg-paper px-2 disabled:opacity-60"
         >
-          {ROLES.map((r) => <option key={r} value={r}>{ROLE_WORDS[r]}</option>)}
+          {ROLES.map((r) => (
+            <option key={r} value={r}>
+              {ROLE_WORDS[r]}
+            </option>
+          ))}
         </select>
         {isSelf && <p className="mt-1 text-xs text-muted">Another admin changes your role.</p>}
       </td>
@@ -62,25 +82,53 @@ export function UserRow({ user, isSelf, onIssued }: { user: AdminUser; isSelf: b
       <td className="p-3 text-sm tabular">{when(user.lastSignInAt)}</td>
       <td className="p-3">
         <div className="flex flex-wrap gap-2">
-          {confirm === null && user.active && !isSelf && <Button tone="quiet" disabled={busy} onClick={() => setConfirm("deactivate")}>Deactivate</Button>}
-          {confirm === null && !user.active && <Button tone="quiet" disabled={busy} onClick={() => update.mutate({ active: true })}>Reactivate</Button>}
-          {confirm === null && user.active && <Button tone="quiet" disabled={busy} onClick={() => setConfirm("reset")}>Reset password</Button>}
+          {confirm === null && user.active && !isSelf && (
+            <Button tone="quiet" disabled={busy} onClick={() => setConfirm("deactivate")}>
+              Deactivate
+            </Button>
+          )}
+          {confirm === null && !user.active && (
+            <Button tone="quiet" disabled={busy} onClick={() => update.mutate({ active: true })}>
+              Reactivate
+            </Button>
+          )}
+          {confirm === null && user.active && (
+            <Button tone="quiet" disabled={busy} onClick={() => setConfirm("reset")}>
+              Reset password
+            </Button>
+          )}
           {confirm === "deactivate" && (
             <>
-              <Button tone="danger" disabled={busy} onClick={() => update.mutate({ active: false })}>Yes, deactivate {user.name}</Button>
-              <Button tone="quiet" onClick={() => setConfirm(null)}>Cancel</Button>
+              <Button tone="danger" disabled={busy} onClick={() => update.mutate({ active: false })}>
+                Yes, deactivate {user.name}
+              </Button>
+              <Button tone="quiet" onClick={() => setConfirm(null)}>
+                Cancel
+              </Button>
             </>
           )}
           {confirm === "reset" && (
             <>
-              <Button tone="accent" disabled={busy} onClick={() => reset.mutate()}>Yes, issue a new password</Button>
-              <Button tone="quiet" onClick={() => setConfirm(null)}>Cancel</Button>
+              <Button tone="accent" disabled={busy} onClick={() => reset.mutate()}>
+                Yes, issue a new password
+              </Button>
+              <Button tone="quiet" onClick={() => setConfirm(null)}>
+                Cancel
+              </Button>
             </>
           )}
         </div>
-        {confirm === "deactivate" && <p className="mt-1 text-sm text-muted">They can no longer sign in; their records stay.</p>}
-        {confirm === "reset" && <p className="mt-1 text-sm text-muted">Their current password stops working at once.</p>}
-        {error && <p role="alert" className="mt-2 text-sm font-medium text-fail">{error}</p>}
+        {confirm === "deactivate" && (
+          <p className="mt-1 text-sm text-muted">They can no longer sign in; their records stay.</p>
+        )}
+        {confirm === "reset" && (
+          <p className="mt-1 text-sm text-muted">Their current password stops working at once.</p>
+        )}
+        {error && (
+          <p role="alert" className="mt-2 text-sm font-medium text-fail">
+            {error}
+          </p>
+        )}
       </td>
     </tr>
   );

@@ -21,16 +21,35 @@ export const SAFETY_NOTICE = [
   "Follow local codes and licensed practice when lifting, cleaning with solvents, assembling and first running the engine.",
 ];
 
-const material = (m: string | null) => (m ? (EXPANSION_COEFFICIENTS as Record<string, { label: string }>)[m]?.label ?? m : "");
+const material = (m: string | null) =>
+  m ? ((EXPANSION_COEFFICIENTS as Record<string, { label: string }>)[m]?.label ?? m) : "";
 
 function engineLines(e: RecordParties["engine"]): Line[] {
-  const layout = e.layout === "v" ? `V${e.cylinders}` : e.layout === "flat" ? `flat ${e.cylinders}` : `inline ${e.cylinders}`;
+  const layout =
+    e.layout === "v" ? `V${e.cylinders}` : e.layout === "flat" ? `flat ${e.cylinders}` : `inline ${e.cylinders}`;
   const rows: [string, string][] = [
     ["Engine", e.description],
     ["Layout", `${layout}, ${e.mains} main bearings${e.fuel ? `, ${e.fuel}` : ""}`],
-    ["Nominal bore and stroke", `${withUnit(e.nominalBore, e.unitSystem)} x ${withUnit(e.nominalStroke, e.unitSystem)}`],
-    ["Block / head / pistons", [material(e.blockMaterial), material(e.headMaterial), material(e.pistonMaterial)].map((x) => x || "-").join(" / ")],
-    ["Serials", [e.blockSerial && `block ${e.blockSerial}`, e.crankSerial && `crank ${e.crankSerial}`, e.headSerials && `heads ${e.headSerials}`].filter(Boolean).join(", ")],
+    [
+      "Nominal bore and stroke",
+      `${withUnit(e.nominalBore, e.unitSystem)} x ${withUnit(e.nominalStroke, e.unitSystem)}`,
+    ],
+    [
+      "Block / head / pistons",
+      [material(e.blockMaterial), material(e.headMaterial), material(e.pistonMaterial)]
+        .map((x) => x || "-")
+        .join(" / "),
+    ],
+    [
+      "Serials",
+      [
+        e.blockSerial && `block ${e.blockSerial}`,
+        e.crankSerial && `crank ${e.crankSerial}`,
+        e.headSerials && `heads ${e.headSerials}`,
+      ]
+        .filter(Boolean)
+        .join(", "),
+    ],
   ];
   return rows.filter(([, v]) => v).map(([label, value]) => ({ label, value }));
 }
@@ -39,13 +58,26 @@ function verifyUrl(jobCode: string, hash: string): string {
   return `${env().APP_URL.replace(/\/$/, "")}/verify?job=${encodeURIComponent(jobCode)}&hash=${hash}`;
 }
 
-async function stamp(r: ReleaseRow, shopId: number, jobCode: string, names: Map<number, string>): Promise<ReleaseStamp> {
+async function stamp(
+  r: ReleaseRow,
+  shopId: number,
+  jobCode: string,
+  names: Map<number, string>,
+): Promise<ReleaseStamp> {
   const check = await verifyRelease(shopId, r.jobId, r.id);
   return {
-    id: r.id, status: r.voidedAt ? "void" : "standing", signedName: r.signedName, inspectorName: names.get(r.inspectorId) ?? r.signedName,
-    signedAt: when(r.signedAt), hash: r.hash, canonicalVersion: r.canonicalVersion, voidedAt: r.voidedAt ? when(r.voidedAt) : null,
-    voidedByName: r.voidedBy ? names.get(r.voidedBy) ?? null : null, voidReason: r.voidReason ?? null,
-    check: { status: check.status, words: check.words }, verifyUrl: verifyUrl(jobCode, r.hash),
+    id: r.id,
+    status: r.voidedAt ? "void" : "standing",
+    signedName: r.signedName,
+    inspectorName: names.get(r.inspectorId) ?? r.signedName,
+    signedAt: when(r.signedAt),
+    hash: r.hash,
+    canonicalVersion: r.canonicalVersion,
+    voidedAt: r.voidedAt ? when(r.voidedAt) : null,
+    voidedByName: r.voidedBy ? (names.get(r.voidedBy) ?? null) : null,
+    voidReason: r.voidReason ?? null,
+    check: { status: check.status, words: check.words },
+    verifyUrl: verifyUrl(jobCode, r.hash),
   };
 }
 
@@ -61,13 +93,22 @@ function pickRelease(releases: ReleaseRow[], releaseId?: number): ReleaseRow | n
 
 const contact = (...xs: (string | null | undefined)[]) => xs.filter((x): x is string => !!x && x.trim() !== "");
 
-export async function loadBuildRecord(shopId: number, jobId: number, opts: { releaseId?: number } = {}): Promise<BuildRecord> {
+export async function loadBuildRecord(
+  shopId: number,
+  jobId: number,
+  opts: { releaseId?: number } = {},
+): Promise<BuildRecord> {
   const record = await loadJobRecord(shopId, jobId);
   const { job } = record;
-  const [parties, releases] = await Promise.all([loadRecordParties(shopId, job.customerId, job.engineId), listReleases(jobId)]);
+  const [parties, releases] = await Promise.all([
+    loadRecordParties(shopId, job.customerId, job.engineId),
+    listReleases(jobId),
+  ]);
   const chosen = pickRelease(releases, opts.releaseId);
   const names = await userNames(shopId, [
-    ...record.readings.map((r) => r.takenBy), ...record.dispositions.map((d) => d.userId), ...record.flags.map((f) => f.disposedBy),
+    ...record.readings.map((r) => r.takenBy),
+    ...record.dispositions.map((d) => d.userId),
+    ...record.flags.map((f) => f.disposedBy),
     ...releases.flatMap((r) => [r.inspectorId, r.voidedBy]),
   ]);
   const { photos, byReading } = await recordPhotos(shopId, jobId, [...currentReadings(record.readings).values()]);
@@ -78,10 +119,19 @@ export async function loadBuildRecord(shopId: number, jobId: number, opts: { rel
     pageSize: parties.shop.unitSystem === "mm" ? "A4" : "LETTER",
     shop: { name: parties.shop.name, contact: contact(parties.shop.address, parties.shop.phone, parties.shop.email) },
     customer: { name: parties.customer.name, contact: contact(parties.customer.phone, parties.customer.email) },
-    job: { id: job.id, code: job.code, title: job.title, status: job.status, units: job.unitSystem === "mm" ? "mm and N·m" : "in and lbf·ft", specRevision: job.specRevision, notes: job.notes ?? null },
+    job: {
+      id: job.id,
+      code: job.code,
+      title: job.title,
+      status: job.status,
+      units: job.unitSystem === "mm" ? "mm and N·m" : "in and lbf·ft",
+      specRevision: job.specRevision,
+      notes: job.notes ?? null,
+    },
     engine: engineLines(parties.engine),
     plan: planOf(job.buildPlan, parties.engine.cylinders),
-    sections, torque,
+    sections,
+    torque,
     derived: derivedLines(record, current),
     flags: flagLines(record, names),
     gauges: gaugeLines(record, current),

@@ -10,8 +10,16 @@ import type { BuildRecord, ReleaseStamp } from "./record-types";
 // stamp with its fingerprint, the tally and the safety notice; the detail follows.
 
 function stateWords(r: BuildRecord): { mark: string; words: string } {
-  if (!r.release) return { mark: "DRAFT", words: "DRAFT: NOT RELEASED. This job has not been signed off by an inspector; figures may still change." };
-  if (r.release.status === "void") return { mark: "VOID", words: `VOID: this release was withdrawn on ${r.release.voidedAt}${r.release.voidedByName ? ` by ${r.release.voidedByName}` : ""}. Reason: ${r.release.voidReason ?? "none given"}. Do not assemble from this record; ask the shop for the current one.` };
+  if (!r.release)
+    return {
+      mark: "DRAFT",
+      words: "DRAFT: NOT RELEASED. This job has not been signed off by an inspector; figures may still change.",
+    };
+  if (r.release.status === "void")
+    return {
+      mark: "VOID",
+      words: `VOID: this release was withdrawn on ${r.release.voidedAt}${r.release.voidedByName ? ` by ${r.release.voidedByName}` : ""}. Reason: ${r.release.voidReason ?? "none given"}. Do not assemble from this record; ask the shop for the current one.`,
+    };
   return { mark: "", words: "RELEASED FOR ASSEMBLY" };
 }
 
@@ -24,7 +32,9 @@ function ReleaseBox({ record }: { record: BuildRecord }) {
       {r ? (
         <View style={{ marginTop: 4 }}>
           <Text>{`Signed by ${r.signedName}${r.inspectorName !== r.signedName ? ` (${r.inspectorName})` : ""}, inspector, on ${r.signedAt}.`}</Text>
-          <Text style={{ marginTop: 3 }}>Fingerprint (SHA-256 of the released readings, limits, decisions and gauges):</Text>
+          <Text style={{ marginTop: 3 }}>
+            Fingerprint (SHA-256 of the released readings, limits, decisions and gauges):
+          </Text>
           <Text style={s.mono}>{r.hash}</Text>
           <Text style={[s.small, { marginTop: 3 }]}>{`Check when this copy was made: ${r.check.words}`}</Text>
           <Text style={[s.small, s.muted]}>{`Anyone can check it again at ${r.verifyUrl}`}</Text>
@@ -43,7 +53,9 @@ function Tally({ record }: { record: BuildRecord }) {
   ];
   return (
     <View style={s.box} wrap={false}>
-      <Text style={s.bold}>{`${plural(t.measured, "station")} measured${t.skipped ? `, ${t.skipped} skipped` : ""}${t.unjudged ? `, ${t.unjudged} with no limit` : ""}; ${plural(record.derived.length, "value")} computed; ${plural(record.flags.length, "flag")}.`}</Text>
+      <Text
+        style={s.bold}
+      >{`${plural(t.measured, "station")} measured${t.skipped ? `, ${t.skipped} skipped` : ""}${t.unjudged ? `, ${t.unjudged} with no limit` : ""}; ${plural(record.derived.length, "value")} computed; ${plural(record.flags.length, "flag")}.`}</Text>
       <View style={[s.row2, { marginTop: 4 }]}>
         {items.map((i) => (
           <View key={i.verdict} style={s.verdict}>
@@ -67,9 +79,14 @@ function Signature({ record }: { record: BuildRecord }) {
           <Text>{`Typed signature of ${r.inspectorName}, inspector, given with their password on ${r.signedAt}.${r.status === "void" ? " THIS RELEASE IS VOID." : ""}`}</Text>
           <Text style={[s.mono, { marginTop: 3 }]}>{`SHA-256 ${r.hash} (record format v${r.canonicalVersion})`}</Text>
         </View>
-      ) : <Text>Not released: no inspector has signed this record.</Text>}
+      ) : (
+        <Text>Not released: no inspector has signed this record.</Text>
+      )}
       {record.earlierReleases.map((e: ReleaseStamp) => (
-        <Text key={e.id} style={[s.small, { marginTop: 3 }]}>{`Earlier release signed by ${e.signedName} on ${e.signedAt}: ${e.status === "void" ? `VOID since ${e.voidedAt}. Reason: ${e.voidReason ?? "none given"}` : "standing"}.`}</Text>
+        <Text
+          key={e.id}
+          style={[s.small, { marginTop: 3 }]}
+        >{`Earlier release signed by ${e.signedName} on ${e.signedAt}: ${e.status === "void" ? `VOID since ${e.voidedAt}. Reason: ${e.voidReason ?? "none given"}` : "standing"}.`}</Text>
       ))}
     </View>
   );
@@ -82,14 +99,38 @@ function Cover({ record }: { record: BuildRecord }) {
       <Text style={s.subtitle}>{`${record.job.code} · ${record.job.title}`}</Text>
       <ReleaseBox record={record} />
       <View style={s.row2}>
-        <View style={[s.col, s.box]}><Text style={s.bold}>Shop</Text><Text>{record.shop.name}</Text>{record.shop.contact.map((c) => <Text key={c}>{c}</Text>)}</View>
-        <View style={[s.col, s.box]}><Text style={s.bold}>Customer</Text><Text>{record.customer.name}</Text>{record.customer.contact.map((c) => <Text key={c}>{c}</Text>)}</View>
+        <View style={[s.col, s.box]}>
+          <Text style={s.bold}>Shop</Text>
+          <Text>{record.shop.name}</Text>
+          {record.shop.contact.map((c) => (
+            <Text key={c}>{c}</Text>
+          ))}
+        </View>
+        <View style={[s.col, s.box]}>
+          <Text style={s.bold}>Customer</Text>
+          <Text>{record.customer.name}</Text>
+          {record.customer.contact.map((c) => (
+            <Text key={c}>{c}</Text>
+          ))}
+        </View>
       </View>
-      <KeyValues lines={[...record.engine, { label: "Units", value: record.job.units }, { label: "Spec sheet revision", value: String(record.job.specRevision) }]} />
-      <View style={{ marginTop: 6 }}><Tally record={record} /></View>
+      <KeyValues
+        lines={[
+          ...record.engine,
+          { label: "Units", value: record.job.units },
+          { label: "Spec sheet revision", value: String(record.job.specRevision) },
+        ]}
+      />
+      <View style={{ marginTop: 6 }}>
+        <Tally record={record} />
+      </View>
       <View style={s.caution} wrap={false}>
         <Text style={s.bold}>SAFETY NOTICE</Text>
-        {record.safety.map((line) => <Text key={line} style={{ marginTop: 2 }}>{line}</Text>)}
+        {record.safety.map((line) => (
+          <Text key={line} style={{ marginTop: 2 }}>
+            {line}
+          </Text>
+        ))}
       </View>
     </View>
   );
@@ -99,13 +140,23 @@ export function RecordDocument({ record }: { record: BuildRecord }) {
   const mark = stateWords(record).mark;
   const fingerprint = record.release ? `fingerprint ${record.release.hash.slice(0, 16)}…` : "not released";
   return (
-    <Document title={`Build record ${record.job.code}`} author={record.shop.name} subject={record.job.title} creator="Tenthwise" producer="Tenthwise">
+    <Document
+      title={`Build record ${record.job.code}`}
+      author={record.shop.name}
+      subject={record.job.title}
+      creator="Tenthwise"
+      producer="Tenthwise"
+    >
       <Page size={record.pageSize} style={s.page} wrap>
         <View style={s.header} fixed>
           <Text>{`Tenthwise build record · ${record.job.code}${mark ? ` · ${mark}` : ""}`}</Text>
           <Text>{record.shop.name}</Text>
         </View>
-        {mark ? <Text style={s.watermark} fixed>{mark}</Text> : null}
+        {mark ? (
+          <Text style={s.watermark} fixed>
+            {mark}
+          </Text>
+        ) : null}
         <Cover record={record} />
         <PlanSection plan={record.plan} />
         <ReadingsSection record={record} />
@@ -117,7 +168,11 @@ export function RecordDocument({ record }: { record: BuildRecord }) {
           <Text>{`Made ${record.generatedAt} · ${fingerprint}`}</Text>
         </View>
         {/* On its own: a render() text inside a View gets no page numbers. */}
-        <Text style={[s.pageNumber, footerTop(record.pageSize)]} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+        <Text
+          style={[s.pageNumber, footerTop(record.pageSize)]}
+          fixed
+          render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`}
+        />
       </Page>
     </Document>
   );

@@ -5,7 +5,11 @@ import type { MeasureUnit, Verdict } from "@/lib/domain";
 
 export const UNIT_WORDS: Record<string, string> = { in: "in", mm: "mm", lbf_ft: "lbf·ft", nm: "N·m" };
 
-export const VERDICT_WORDS: Record<Verdict, string> = { in_spec: "In spec", marginal: "Marginal", out_of_spec: "Out of spec" };
+export const VERDICT_WORDS: Record<Verdict, string> = {
+  in_spec: "In spec",
+  marginal: "Marginal",
+  out_of_spec: "Out of spec",
+};
 
 // Fewest decimals shown: a tenth (0.0001 in) for inch lengths, a micrometre for mm.
 const MIN_DECIMALS: Record<string, number> = { in: 4, mm: 3, lbf_ft: 0, nm: 0, cc: 1 };
@@ -35,7 +39,11 @@ export function signed(x: number | null | undefined, unit: string): string {
   return x! > 0 && !/^0\.?0*$/.test(n) ? `+${n}` : n;
 }
 
-export function limitsText(min: number | null | undefined, max: number | null | undefined, unit: MeasureUnit | string): string {
+export function limitsText(
+  min: number | null | undefined,
+  max: number | null | undefined,
+  unit: MeasureUnit | string,
+): string {
   const lo = num(min, unit);
   const hi = num(max, unit);
   if (lo && hi) return `${lo} to ${hi} ${unitWords(unit)}`;

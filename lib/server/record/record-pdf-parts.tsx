@@ -15,7 +15,9 @@ export function VerdictShape({ verdict, size = 7 }: { verdict: Verdict; size?: n
       {verdict === "in_spec" ? <Circle cx="8" cy="8" r="6.5" fill={c} /> : null}
       {verdict === "marginal" ? <Path d="M8 0.8 L15.2 8 L8 15.2 L0.8 8 Z" fill={c} /> : null}
       {verdict === "out_of_spec" ? <Rect x="1" y="1" width="14" height="14" fill={c} /> : null}
-      {verdict === "out_of_spec" ? <Path d="M4.5 4.5 L11.5 11.5 M11.5 4.5 L4.5 11.5" stroke="#ffffff" strokeWidth={2.4} /> : null}
+      {verdict === "out_of_spec" ? (
+        <Path d="M4.5 4.5 L11.5 11.5 M11.5 4.5 L4.5 11.5" stroke="#ffffff" strokeWidth={2.4} />
+      ) : null}
     </Svg>
   );
 }
@@ -46,14 +48,18 @@ export function Table<T>({ columns, rows, note }: { columns: Column<T>[]; rows: 
     <View style={s.table}>
       <View style={s.th} fixed minPresenceAhead={24}>
         {columns.map((c) => (
-          <Text key={c.title} style={[s.cell, { width: c.width }]}>{c.title}</Text>
+          <Text key={c.title} style={[s.cell, { width: c.width }]}>
+            {c.title}
+          </Text>
         ))}
       </View>
       {rows.map((row, i) => (
         <View key={i} style={s.tr} wrap={false}>
           <View style={s.trCells}>
             {columns.map((c) => (
-              <View key={c.title} style={[s.cell, { width: c.width }]}>{cellContent(c.cell(row))}</View>
+              <View key={c.title} style={[s.cell, { width: c.width }]}>
+                {cellContent(c.cell(row))}
+              </View>
             ))}
           </View>
           {note && note(row) ? <Text style={s.trNote}>{note(row)}</Text> : null}
@@ -78,9 +84,17 @@ export function KeyValues({ lines, labelWidth = 32 }: { lines: Line[]; labelWidt
 
 /** A section heading that is never left alone at the foot of a page. */
 export function Heading({ children }: { children: ReactNode }) {
-  return <Text style={s.h2} minPresenceAhead={90}>{children}</Text>;
+  return (
+    <Text style={s.h2} minPresenceAhead={90}>
+      {children}
+    </Text>
+  );
 }
 
 export function SubHeading({ children }: { children: ReactNode }) {
-  return <Text style={s.h3} minPresenceAhead={80}>{children}</Text>;
+  return (
+    <Text style={s.h3} minPresenceAhead={80}>
+      {children}
+    </Text>
+  );
 }

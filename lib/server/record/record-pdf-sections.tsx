@@ -9,7 +9,10 @@ import type { BuildRecord, DerivedLine, FlagLine, GaugeLine, ReadingLine, Torque
 // The body sections of the record PDF, in the order a builder reads them.
 
 const byWhen = (r: { takenBy: string; takenAt: string }) => (
-  <View><Text>{r.takenBy}</Text><Text style={[s.muted, s.small]}>{r.takenAt}</Text></View>
+  <View>
+    <Text>{r.takenBy}</Text>
+    <Text style={[s.muted, s.small]}>{r.takenAt}</Text>
+  </View>
 );
 
 const READING_COLUMNS: Column<ReadingLine>[] = [
@@ -44,33 +47,78 @@ const TORQUE_COLUMNS: Column<TorqueLine>[] = [
 ];
 
 const FLAG_COLUMNS: Column<FlagLine>[] = [
-  { title: "Flagged", width: "25%", cell: (f) => <View><Text style={s.bold}>{f.what}</Text><Text>{f.station}</Text></View> },
-  { title: "Value", width: "16%", cell: (f) => <View><Text>{f.value}</Text><Text style={[s.muted, s.small]}>{f.limits}</Text></View> },
+  {
+    title: "Flagged",
+    width: "25%",
+    cell: (f) => (
+      <View>
+        <Text style={s.bold}>{f.what}</Text>
+        <Text>{f.station}</Text>
+      </View>
+    ),
+  },
+  {
+    title: "Value",
+    width: "16%",
+    cell: (f) => (
+      <View>
+        <Text>{f.value}</Text>
+        <Text style={[s.muted, s.small]}>{f.limits}</Text>
+      </View>
+    ),
+  },
   { title: "Verdict", width: "12%", cell: (f) => <VerdictMark verdict={f.verdict} words={VERDICT_WORDS[f.verdict]} /> },
-  { title: "Why flagged, and what was decided", width: "47%", cell: (f) => (
-    <View>
-      <Text>{`Flagged: ${f.reason}. ${f.state}.`}</Text>
-      {f.decisions.map((d, i) => <Text key={i} style={s.small}>{`${d.when}${d.who ? `, ${d.who}` : ""}: ${d.words}`}</Text>)}
-    </View>
-  ) },
+  {
+    title: "Why flagged, and what was decided",
+    width: "47%",
+    cell: (f) => (
+      <View>
+        <Text>{`Flagged: ${f.reason}. ${f.state}.`}</Text>
+        {f.decisions.map((d, i) => (
+          <Text key={i} style={s.small}>{`${d.when}${d.who ? `, ${d.who}` : ""}: ${d.words}`}</Text>
+        ))}
+      </View>
+    ),
+  },
 ];
 
 const GAUGE_COLUMNS: Column<GaugeLine>[] = [
   { title: "Gauge", width: "30%", cell: (g) => g.label },
   { title: "Serial", width: "14%", cell: (g) => g.serial },
   { title: "Uncertainty", width: "28%", cell: (g) => g.uncertainty },
-  { title: "Calibration", width: "28%", cell: (g) => <Text style={g.pastDue ? s.bold : {}}>{g.pastDue ? `${g.calibration}: PAST DUE when used` : g.calibration}</Text> },
+  {
+    title: "Calibration",
+    width: "28%",
+    cell: (g) => (
+      <Text style={g.pastDue ? s.bold : {}}>{g.pastDue ? `${g.calibration}: PAST DUE when used` : g.calibration}</Text>
+    ),
+  },
 ];
 
 export function PlanSection({ plan }: { plan: BuildRecord["plan"] }) {
-  if (!plan) return <View><Heading>Build plan</Heading><Text style={s.muted}>No build plan was entered for this job.</Text></View>;
+  if (!plan)
+    return (
+      <View>
+        <Heading>Build plan</Heading>
+        <Text style={s.muted}>No build plan was entered for this job.</Text>
+      </View>
+    );
   return (
     <View>
       <Heading>Build plan</Heading>
       <View style={s.row2}>
-        <View style={s.col}><SubHeading>As planned</SubHeading><KeyValues lines={plan.entered} labelWidth={50} /></View>
-        <View style={s.col}><SubHeading>Figures computed from the plan</SubHeading><KeyValues lines={plan.figures} labelWidth={42} />
-          {plan.problems.map((p) => <Text key={p} style={s.bold}>{p}</Text>)}
+        <View style={s.col}>
+          <SubHeading>As planned</SubHeading>
+          <KeyValues lines={plan.entered} labelWidth={50} />
+        </View>
+        <View style={s.col}>
+          <SubHeading>Figures computed from the plan</SubHeading>
+          <KeyValues lines={plan.figures} labelWidth={42} />
+          {plan.problems.map((p) => (
+            <Text key={p} style={s.bold}>
+              {p}
+            </Text>
+          ))}
         </View>
       </View>
       {plan.notes ? <Text style={{ marginTop: 4 }}>{`Notes: ${plan.notes}`}</Text> : null}
@@ -82,13 +130,23 @@ export function ReadingsSection({ record }: { record: BuildRecord }) {
   return (
     <View>
       <Heading>Bench readings</Heading>
-      <Text style={[s.muted, { marginBottom: 4 }]}>The current reading of each station, as entered, with the limits it was judged against and the deviation from nominal. Corrected and re-measured readings are kept in the shop's history.</Text>
+      <Text style={[s.muted, { marginBottom: 4 }]}>
+        The current reading of each station, as entered, with the limits it was judged against and the deviation from
+        nominal. Corrected and re-measured readings are kept in the shop's history.
+      </Text>
       {record.sections.length === 0 ? <Text>No readings were recorded.</Text> : null}
       {record.sections.map((sec) => (
-        <View key={sec.id}><SubHeading>{sec.label}</SubHeading><Table columns={READING_COLUMNS} rows={sec.rows} note={readingNote} /></View>
+        <View key={sec.id}>
+          <SubHeading>{sec.label}</SubHeading>
+          <Table columns={READING_COLUMNS} rows={sec.rows} note={readingNote} />
+        </View>
       ))}
       <Heading>Derived values</Heading>
-      {record.derived.length === 0 ? <Text>No values could be computed from the readings.</Text> : <Table columns={DERIVED_COLUMNS} rows={record.derived} />}
+      {record.derived.length === 0 ? (
+        <Text>No values could be computed from the readings.</Text>
+      ) : (
+        <Table columns={DERIVED_COLUMNS} rows={record.derived} />
+      )}
     </View>
   );
 }
@@ -98,7 +156,10 @@ export function TorqueSection({ rows }: { rows: TorqueLine[] }) {
     <View>
       <Heading>Fastener torque and lubricant</Heading>
       {rows.length === 0 ? <Text>No torque records.</Text> : <Table columns={TORQUE_COLUMNS} rows={rows} />}
-      <View style={s.caution} wrap={false}><Text style={s.bold}>CAUTION: FASTENERS</Text><Text>{FASTENER_CAUTION}</Text></View>
+      <View style={s.caution} wrap={false}>
+        <Text style={s.bold}>CAUTION: FASTENERS</Text>
+        <Text>{FASTENER_CAUTION}</Text>
+      </View>
     </View>
   );
 }
@@ -107,9 +168,17 @@ export function ReviewSections({ record }: { record: BuildRecord }) {
   return (
     <View>
       <Heading>Flags and decisions</Heading>
-      {record.flags.length === 0 ? <Text>No reading was flagged.</Text> : <Table columns={FLAG_COLUMNS} rows={record.flags} />}
+      {record.flags.length === 0 ? (
+        <Text>No reading was flagged.</Text>
+      ) : (
+        <Table columns={FLAG_COLUMNS} rows={record.flags} />
+      )}
       <Heading>Gauges used</Heading>
-      {record.gauges.length === 0 ? <Text>No gauge was recorded with the readings.</Text> : <Table columns={GAUGE_COLUMNS} rows={record.gauges} />}
+      {record.gauges.length === 0 ? (
+        <Text>No gauge was recorded with the readings.</Text>
+      ) : (
+        <Table columns={GAUGE_COLUMNS} rows={record.gauges} />
+      )}
     </View>
   );
 }
@@ -122,7 +191,11 @@ export function PhotosSection({ record }: { record: BuildRecord }) {
       <View style={s.photoGrid}>
         {record.photos.map((p) => (
           <View key={p.id} style={s.photo} wrap={false}>
-            {p.thumb ? <Image style={s.photoImg} src={{ data: p.thumb, format: "jpg" }} /> : <View style={s.photoImg} />}
+            {p.thumb ? (
+              <Image style={s.photoImg} src={{ data: p.thumb, format: "jpg" }} />
+            ) : (
+              <View style={s.photoImg} />
+            )}
             <Text style={s.small}>{p.caption}</Text>
             <Text style={[s.small, s.muted]}>{p.note}</Text>
           </View>

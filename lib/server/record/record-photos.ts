@@ -19,15 +19,19 @@ export async function recordPhotos(shopId: number, jobId: number, current: Readi
   ]);
   const images = [...ofJob, ...ofReadings].filter((a) => a.contentType.startsWith("image/")).slice(0, MAX_PHOTOS);
   const byReading = new Map<string, string[]>();
-  const photos = await Promise.all(images.map(async (a: StoredAttachment, i): Promise<PhotoLine> => {
-    const n = `Photo ${i + 1}`;
-    const reading = a.ownerType === "reading" ? readingById.get(a.ownerId) : undefined;
-    if (reading) byReading.set(reading.id, [...(byReading.get(reading.id) ?? []), n]);
-    const thumb = a.thumbKey ? await getObjectBuffer(a.thumbKey).catch(() => null) : null;
-    return {
-      id: a.id, caption: `${n}: ${reading ? stationWords(reading.stationId) : "the job"}`, thumb,
-      note: thumb ? a.originalName : `${a.originalName} (no preview; the shop has the full photo)`,
-    };
-  }));
+  const photos = await Promise.all(
+    images.map(async (a: StoredAttachment, i): Promise<PhotoLine> => {
+      const n = `Photo ${i + 1}`;
+      const reading = a.ownerType === "reading" ? readingById.get(a.ownerId) : undefined;
+      if (reading) byReading.set(reading.id, [...(byReading.get(reading.id) ?? []), n]);
+      const thumb = a.thumbKey ? await getObjectBuffer(a.thumbKey).catch(() => null) : null;
+      return {
+        id: a.id,
+        caption: `${n}: ${reading ? stationWords(reading.stationId) : "the job"}`,
+        thumb,
+        note: thumb ? a.originalName : `${a.originalName} (no preview; the shop has the full photo)`,
+      };
+    }),
+  );
   return { photos, byReading };
 }

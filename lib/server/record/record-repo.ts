@@ -8,9 +8,20 @@ export type RecordParties = {
   shop: { name: string; address: string | null; phone: string | null; email: string | null; unitSystem: "in" | "mm" };
   customer: { name: string; email: string | null; phone: string | null };
   engine: {
-    description: string; layout: string; cylinders: number; mains: number; unitSystem: "in" | "mm"; nominalBore: number; nominalStroke: number;
-    blockMaterial: string; headMaterial: string | null; pistonMaterial: string | null;
-    blockSerial: string | null; crankSerial: string | null; headSerials: string | null; fuel: string | null;
+    description: string;
+    layout: string;
+    cylinders: number;
+    mains: number;
+    unitSystem: "in" | "mm";
+    nominalBore: number;
+    nominalStroke: number;
+    blockMaterial: string;
+    headMaterial: string | null;
+    pistonMaterial: string | null;
+    blockSerial: string | null;
+    crankSerial: string | null;
+    headSerials: string | null;
+    fuel: string | null;
   };
 };
 
@@ -23,13 +34,29 @@ export async function loadRecordParties(shopId: number, customerId: number, engi
   ]);
   if (!shop || !engine) throw notFound("Job");
   return {
-    shop: { name: shop.name, address: shop.address ?? null, phone: shop.phone ?? null, email: shop.email ?? null, unitSystem: shop.unitSystem },
+    shop: {
+      name: shop.name,
+      address: shop.address ?? null,
+      phone: shop.phone ?? null,
+      email: shop.email ?? null,
+      unitSystem: shop.unitSystem,
+    },
     customer: { name: customer?.name ?? "", email: customer?.email ?? null, phone: customer?.phone ?? null },
     engine: {
-      description: engine.description, layout: engine.layout, cylinders: engine.cylinders, mains: engine.mains, unitSystem: engine.unitSystem,
-      nominalBore: engine.nominalBore, nominalStroke: engine.nominalStroke, blockMaterial: engine.blockMaterial,
-      headMaterial: engine.headMaterial ?? null, pistonMaterial: engine.pistonMaterial ?? null, blockSerial: engine.blockSerial ?? null,
-      crankSerial: engine.crankSerial ?? null, headSerials: engine.headSerials ?? null, fuel: engine.fuel ?? null,
+      description: engine.description,
+      layout: engine.layout,
+      cylinders: engine.cylinders,
+      mains: engine.mains,
+      unitSystem: engine.unitSystem,
+      nominalBore: engine.nominalBore,
+      nominalStroke: engine.nominalStroke,
+      blockMaterial: engine.blockMaterial,
+      headMaterial: engine.headMaterial ?? null,
+      pistonMaterial: engine.pistonMaterial ?? null,
+      blockSerial: engine.blockSerial ?? null,
+      crankSerial: engine.crankSerial ?? null,
+      headSerials: engine.headSerials ?? null,
+      fuel: engine.fuel ?? null,
     },
   };
 }

@@ -32,13 +32,36 @@ export function flagLines(record: JobRecord, names: Map<number, string>): FlagLi
   return record.flags.map((f) => {
     const history = byFlag.get(f.id) ?? [];
     // Flags decided before dispositions were kept as history still show their latest decision.
-    const rows = history.length ? history : f.disposition ? [{ disposition: f.disposition, operation: f.operation ?? null, reason: f.dispositionReason ?? null, userId: f.disposedBy ?? 0, createdAt: f.disposedAt ?? f.updatedAt }] : [];
-    const decisions: DecisionLine[] = rows.map((d) => ({ when: when(d.createdAt), who: names.get(d.userId) ?? "", words: decisionWords(d) }));
-    if (f.state === "closed" && f.closedAt) decisions.push({ when: when(f.closedAt), who: "", words: "Closed: a newer reading at this station is in spec" });
+    const rows = history.length
+      ? history
+      : f.disposition
+        ? [
+            {
+              disposition: f.disposition,
+              operation: f.operation ?? null,
+              reason: f.dispositionReason ?? null,
+              userId: f.disposedBy ?? 0,
+              createdAt: f.disposedAt ?? f.updatedAt,
+            },
+          ]
+        : [];
+    const decisions: DecisionLine[] = rows.map((d) => ({
+      when: when(d.createdAt),
+      who: names.get(d.userId) ?? "",
+      words: decisionWords(d),
+    }));
+    if (f.state === "closed" && f.closedAt)
+      decisions.push({ when: when(f.closedAt), who: "", words: "Closed: a newer reading at this station is in spec" });
     return {
-      id: f.id, station: stationWords(f.stationId), what: characteristicWords(f.characteristic),
-      value: withUnit(f.value, f.unit), limits: limitsText(f.limitMin, f.limitMax, f.unit), verdict: f.verdict,
-      reason: REASON_WORDS[f.reason] ?? f.reason, state: STATE_WORDS[f.state] ?? f.state, decisions,
+      id: f.id,
+      station: stationWords(f.stationId),
+      what: characteristicWords(f.characteristic),
+      value: withUnit(f.value, f.unit),
+      limits: limitsText(f.limitMin, f.limitMax, f.unit),
+      verdict: f.verdict,
+      reason: REASON_WORDS[f.reason] ?? f.reason,
+      state: STATE_WORDS[f.state] ?? f.state,
+      decisions,
     };
   });
 }
@@ -52,10 +75,22 @@ function uncertaintyWords(g: InstrumentRow): string {
 export function gaugeLines(record: JobRecord, current: ReadingRow[]): GaugeLine[] {
   const used = new Map<number, ReadingRow[]>();
   for (const r of current) if (r.instrumentId) used.set(r.instrumentId, [...(used.get(r.instrumentId) ?? []), r]);
-  return record.instruments.filter((g) => used.has(g.id)).map((g) => {
-    const due = g.calibrationDue ?? null;
-    const pastDue = !!due && (used.get(g.id) ?? []).some((r) => day(r.takenAt) > due);
-    const calibration = g.calibratedOn || due ? `calibrated ${g.calibratedOn ?? "(date not recorded)"}, due ${due ?? "(not set)"}` : "no calibration recorded";
-    return { label: g.label, serial: g.serial, kind: g.kind.replace(/_/g, " "), uncertainty: uncertaintyWords(g), calibration, pastDue };
-  });
+  return record.instruments
+    .filter((g) => used.has(g.id))
+    .map((g) => {
+      const due = g.calibrationDue ?? null;
+      const pastDue = !!due && (used.get(g.id) ?? []).some((r) => day(r.takenAt) > due);
+      const calibration =
+        g.calibratedOn || due
+          ? `calibrated ${g.calibratedOn ?? "(date not recorded)"}, due ${due ?? "(not set)"}`
+          : "no calibration recorded";
+      return {
+        label: g.label,
+        serial: g.serial,
+        kind: g.kind.replace(/_/g, " "),
+        uncertainty: uncertaintyWords(g),
+        calibration,
+        pastDue,
+      };
+    });
 }

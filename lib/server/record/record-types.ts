@@ -62,7 +62,14 @@ export type FlagLine = {
   decisions: DecisionLine[];
 };
 
-export type GaugeLine = { label: string; serial: string; kind: string; uncertainty: string; calibration: string; pastDue: boolean };
+export type GaugeLine = {
+  label: string;
+  serial: string;
+  kind: string;
+  uncertainty: string;
+  calibration: string;
+  pastDue: boolean;
+};
 
 export type PhotoLine = { id: string; caption: string; thumb: Buffer | null; note: string };
 
@@ -73,14 +80,29 @@ export type ReleaseStamp = Omit<ReleaseRecord, "jobId"> & {
   verifyUrl: string;
 };
 
-export type Tally = { measured: number; inSpec: number; marginal: number; outOfSpec: number; skipped: number; unjudged: number };
+export type Tally = {
+  measured: number;
+  inSpec: number;
+  marginal: number;
+  outOfSpec: number;
+  skipped: number;
+  unjudged: number;
+};
 
 export type BuildRecord = {
   generatedAt: string;
   pageSize: "LETTER" | "A4";
   shop: { name: string; contact: string[] };
   customer: { name: string; contact: string[] };
-  job: { id: number; code: string; title: string; status: string; units: string; specRevision: number; notes: string | null };
+  job: {
+    id: number;
+    code: string;
+    title: string;
+    status: string;
+    units: string;
+    specRevision: number;
+    notes: string | null;
+  };
   engine: Line[];
   plan: { entered: Line[]; figures: Line[]; problems: string[]; notes: string | null } | null;
   sections: ReadingSection[];

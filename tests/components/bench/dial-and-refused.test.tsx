@@ -17,7 +17,19 @@ import { makePack } from "../../lib/offline/fake-server";
 configure({ asyncUtilTimeout: 5000 });
 afterEach(cleanup);
 
-const dialGauge: BenchInstrument = { id: 3, kind: "bore_gauge_dial", label: "Dial bore gauge", serial: "DB-1", unit: "in", resolution: 0.0001, expandedU: 0, coverageK: 2, calibrationDue: null, dialPlusMeansSmaller: true, active: true };
+const dialGauge: BenchInstrument = {
+  id: 3,
+  kind: "bore_gauge_dial",
+  label: "Dial bore gauge",
+  serial: "DB-1",
+  unit: "in",
+  resolution: 0.0001,
+  expandedU: 0,
+  coverageK: 2,
+  calibrationDue: null,
+  dialPlusMeansSmaller: true,
+  active: true,
+};
 let n = 0;
 
 async function mount(pack: JobPack, seed?: (db: BenchDb) => Promise<void>) {
@@ -30,7 +42,18 @@ async function mount(pack: JobPack, seed?: (db: BenchDb) => Promise<void>) {
     const prefs = useLiveQuery(() => getJobPrefs(db, pack.job.id), []);
     return readings && prefs ? <JobScreen pack={pack} readings={readings} prefs={prefs} /> : null;
   }
-  render(<BenchProvider value={{ db, engine, deviceId: "tab-test", actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" } }}><Live /></BenchProvider>);
+  render(
+    <BenchProvider
+      value={{
+        db,
+        engine,
+        deviceId: "tab-test",
+        actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" },
+      }}
+    >
+      <Live />
+    </BenchProvider>,
+  );
   const input = (await screen.findByTestId("entry")) as HTMLInputElement;
   await waitFor(() => expect(document.activeElement).toBe(input));
   return { db, input };
@@ -55,7 +78,14 @@ describe("dial bore gauge mode", () => {
     await act(async () => type(input, "-0.0002")); // the needle 2 tenths minus: a bigger bore
     await waitFor(async () => expect(await db.readings.count()).toBe(1));
     const [r] = await db.readings.toArray();
-    expect(r).toMatchObject({ stationId: "bore/1/top/A", entryMode: "dial", dialSetting: 4.03, dialDeviation: -0.0002, value: 4.0302, instrumentId: 3 });
+    expect(r).toMatchObject({
+      stationId: "bore/1/top/A",
+      entryMode: "dial",
+      dialSetting: 4.03,
+      dialDeviation: -0.0002,
+      value: 4.0302,
+      instrumentId: 3,
+    });
     expect(screen.getByTestId("last-entry").textContent).toContain("4.0302");
     // The next station of the group keeps the setting: the next entry is a dial reading at once.
     await act(async () => type(input, "0.0001"));
@@ -68,9 +98,25 @@ describe("a reading the server refused", () => {
   it("is listed with the server's words, and fixing it sends the same reading again", async () => {
     let refusedId = "";
     const { db, input } = await mount(makePack(1), async (db) => {
-      const r = await recordReading(db, { jobId: 1, stationId: "bore/1/top/A", value: 4.0302, unit: "in" }, { deviceId: "tab-test", takenBy: 7 });
+      const r = await recordReading(
+        db,
+        { jobId: 1, stationId: "bore/1/top/A", value: 4.0302, unit: "in" },
+        { deviceId: "tab-test", takenBy: 7 },
+      );
       refusedId = r.id;
-      await applyPushResults(db, [r], [{ index: 0, id: r.id, status: "rejected", code: "invalid", reason: "The gauge was retired before this reading" }]);
+      await applyPushResults(
+        db,
+        [r],
+        [
+          {
+            index: 0,
+            id: r.id,
+            status: "rejected",
+            code: "invalid",
+            reason: "The gauge was retired before this reading",
+          },
+        ],
+      );
     });
     expect((await screen.findByText(/refused by the server/)).textContent).toMatch(/1 reading was refused/);
     expect(screen.getAllByText(/The gauge was retired before this reading/).length).toBeGreaterThan(0);

@@ -31,8 +31,17 @@ beforeEach(async () => {
   db = new BenchDb(`screen-${++n}-${Date.now()}`);
   await savePack(db, pack);
   const engine = { afterEntry: vi.fn(), sync: vi.fn() } as unknown as EngineHandle;
-  bench = { db, engine, deviceId: "tab-test", actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" } };
-  render(<BenchProvider value={bench}><Live /></BenchProvider>);
+  bench = {
+    db,
+    engine,
+    deviceId: "tab-test",
+    actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" },
+  };
+  render(
+    <BenchProvider value={bench}>
+      <Live />
+    </BenchProvider>,
+  );
   const input = await screen.findByTestId("entry");
   await waitFor(() => expect(document.activeElement).toBe(input));
 });
@@ -63,7 +72,15 @@ describe("bench entry", () => {
     await waitFor(() => expect(station()).toBe("bore/1/top/B"));
     await waitFor(async () => expect(await db.outbox.count()).toBe(1));
     const [r] = await db.readings.toArray();
-    expect(r).toMatchObject({ stationId: "bore/1/top/A", value: 4.0302, unit: "in", state: "pending", entryMode: "direct", takenBy: 7, deviceId: "tab-test" });
+    expect(r).toMatchObject({
+      stationId: "bore/1/top/A",
+      value: 4.0302,
+      unit: "in",
+      state: "pending",
+      entryMode: "direct",
+      takenBy: 7,
+      deviceId: "tab-test",
+    });
     expect(bench.engine.afterEntry).toHaveBeenCalled();
     expect((screen.getByTestId("entry") as HTMLInputElement).value).toBe("");
   });
@@ -83,14 +100,16 @@ describe("bench entry", () => {
   });
 
   it("the keypad works the same way, and a bad figure is refused in words with the text kept", async () => {
-    for (const k of ["4", "0", "Decimal point", "3", "0", "2"]) fireEvent.click(screen.getByRole("button", { name: k }));
+    for (const k of ["4", "0", "Decimal point", "3", "0", "2"])
+      fireEvent.click(screen.getByRole("button", { name: k }));
     fireEvent.click(screen.getByRole("button", { name: "Save" }));
     const note = await screen.findByText(/Check the decimal point/);
     expect(note.getAttribute("role")).toBe("alert");
     expect((screen.getByTestId("entry") as HTMLInputElement).value).toBe("40.302");
     expect(await db.readings.count()).toBe(0);
     fireEvent.click(screen.getByRole("button", { name: "Clear" }));
-    for (const k of ["4", "Decimal point", "0", "3", "0", "1"]) fireEvent.click(screen.getByRole("button", { name: k }));
+    for (const k of ["4", "Decimal point", "0", "3", "0", "1"])
+      fireEvent.click(screen.getByRole("button", { name: k }));
     await act(async () => void fireEvent.click(screen.getByRole("button", { name: "Save" })));
     expect(screen.getByTestId("last-entry").getAttribute("data-verdict")).toBe("in_spec");
     await waitFor(async () => expect(await db.readings.count()).toBe(1));

@@ -22,7 +22,14 @@ afterEach(cleanup);
 async function mount() {
   const db = new BenchDb(`update-${Date.now()}-${Math.random()}`);
   render(
-    <BenchProvider value={{ db, engine: {} as EngineHandle, deviceId: "tab-test", actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" } }}>
+    <BenchProvider
+      value={{
+        db,
+        engine: {} as EngineHandle,
+        deviceId: "tab-test",
+        actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" },
+      }}
+    >
       <UpdateBanner />
     </BenchProvider>,
   );
@@ -34,7 +41,11 @@ describe("app update", () => {
   it("is offered only once the outbox is empty, and applied on the machinist's tap", async () => {
     const db = await mount();
     expect(screen.queryByTestId("update-banner")).toBeNull();
-    await recordReading(db, { jobId: 1, stationId: "bore/1/top/A", value: 4.0302, unit: "in" }, { deviceId: "tab-test", takenBy: 7 });
+    await recordReading(
+      db,
+      { jobId: 1, stationId: "bore/1/top/A", value: 4.0302, unit: "in" },
+      { deviceId: "tab-test", takenBy: 7 },
+    );
     act(() => listeners.get("waiting")!({}));
     const banner = await screen.findByTestId("update-banner");
     await waitFor(() => expect(banner.textContent).toMatch(/offered once the 1 waiting reading is sent/));

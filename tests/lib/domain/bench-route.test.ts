@@ -1,14 +1,26 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
-  DEFAULT_TORQUE_GROUPS, SECTION_ORDER, benchRoute, checkEngineShape, rodJournalCount, rodJournalOf,
+  DEFAULT_TORQUE_GROUPS,
+  SECTION_ORDER,
+  benchRoute,
+  checkEngineShape,
+  rodJournalCount,
+  rodJournalOf,
 } from "../../../lib/domain/bench-route";
 import { describeStation, parseStationId } from "../../../lib/domain/stations";
 import type { EngineShape } from "../../../lib/domain/types";
 
 const v8: EngineShape = { cylinders: 8, layout: "v", mains: 5, valvesPerCylinder: 2, unitSystem: "inch" };
 const i4: EngineShape = { cylinders: 4, layout: "inline", mains: 5, valvesPerCylinder: 4, unitSystem: "metric" };
-const flat6: EngineShape = { cylinders: 6, layout: "flat", mains: 8, valvesPerCylinder: 2, unitSystem: "metric", ringsPerPiston: 3 };
+const flat6: EngineShape = {
+  cylinders: 6,
+  layout: "flat",
+  mains: 8,
+  valvesPerCylinder: 2,
+  unitSystem: "metric",
+  ringsPerPiston: 3,
+};
 
 const counts = (e: EngineShape) => Object.fromEntries(benchRoute(e).sections.map((s) => [s.id, s.count]));
 
@@ -18,17 +30,30 @@ describe("a V8 with five mains", () => {
     expect(counts(v8)).toEqual({
       bore: 48, // 8 cylinders × 3 depths × 2 axes
       deck: 4, // 2 banks × front and rear
-      "main-brg": 20, main: 20, // 5 × 2 positions × 2 axes
+      "main-brg": 20,
+      main: 20, // 5 × 2 positions × 2 axes
       rod: 16, // 4 crankpins (two rods a pin) × 2 × 2
       bolt: 32, // 8 rods × 2 bolts × free and loaded
-      "rod-brg": 32, skirt: 8, "ring-gap": 24, "end-play": 1, side: 8, torque: 5, lash: 16,
+      "rod-brg": 32,
+      skirt: 8,
+      "ring-gap": 24,
+      "end-play": 1,
+      side: 8,
+      torque: 5,
+      lash: 16,
     });
     expect(route.total).toBe(234);
   });
   it("keeps bench order: sections in SECTION_ORDER, bores by cylinder then depth then axis", () => {
     expect(route.sections.map((s) => s.id)).toEqual(SECTION_ORDER);
     expect(route.sections[0].stations.slice(0, 7).map((s) => s.id)).toEqual([
-      "bore/1/top/A", "bore/1/top/B", "bore/1/mid/A", "bore/1/mid/B", "bore/1/bottom/A", "bore/1/bottom/B", "bore/2/top/A",
+      "bore/1/top/A",
+      "bore/1/top/B",
+      "bore/1/mid/A",
+      "bore/1/mid/B",
+      "bore/1/bottom/A",
+      "bore/1/bottom/B",
+      "bore/2/top/A",
     ]);
   });
   it("takes every bolt's free length before any torqued length", () => {
@@ -60,7 +85,12 @@ describe("other shapes", () => {
     expect(counts(i4)).toMatchObject({ bore: 24, deck: 2, main: 20, rod: 16, "rod-brg": 16, lash: 16 });
     const stations = route.sections.flatMap((s) => s.stations);
     expect(stations.find((s) => s.section === "deck")?.id).toBe("deck/block/front");
-    expect(stations.filter((s) => s.id.startsWith("lash/1/")).map((s) => s.id)).toEqual(["lash/1/int1", "lash/1/int2", "lash/1/exh1", "lash/1/exh2"]);
+    expect(stations.filter((s) => s.id.startsWith("lash/1/")).map((s) => s.id)).toEqual([
+      "lash/1/int1",
+      "lash/1/int2",
+      "lash/1/exh1",
+      "lash/1/exh2",
+    ]);
     expect(stations.find((s) => s.torque)?.unit).toBe("nm");
     expect(stations.find((s) => s.section === "bore")?.unit).toBe("mm");
   });
@@ -69,7 +99,12 @@ describe("other shapes", () => {
     expect(counts(flat6)).toMatchObject({ rod: 24, deck: 4, main: 32 });
   });
   it("honours bolts per rod, rings per piston and the engine's own torque groups", () => {
-    const e: EngineShape = { ...v8, boltsPerRod: 4, ringsPerPiston: 4, torqueGroups: ["main-caps", "main-cap-side-bolts"] };
+    const e: EngineShape = {
+      ...v8,
+      boltsPerRod: 4,
+      ringsPerPiston: 4,
+      torqueGroups: ["main-caps", "main-cap-side-bolts"],
+    };
     expect(counts(e)).toMatchObject({ bolt: 64, "ring-gap": 32, torque: 2 });
   });
   it("gives only the sections asked for, still in bench order", () => {
@@ -116,10 +151,19 @@ describe("station count follows the engine shape (fast-check)", () => {
     fc.assert(
       fc.property(shape, ({ half, layout, mains, valves, bolts, rings }) => {
         const c = half * 2;
-        const e: EngineShape = { cylinders: c, layout, mains, valvesPerCylinder: valves, boltsPerRod: bolts, ringsPerPiston: rings, unitSystem: "inch" };
+        const e: EngineShape = {
+          cylinders: c,
+          layout,
+          mains,
+          valvesPerCylinder: valves,
+          boltsPerRod: bolts,
+          ringsPerPiston: rings,
+          unitSystem: "inch",
+        };
         const pins = layout === "v" ? c / 2 : c;
         const banks = layout === "inline" ? 1 : 2;
-        const expected = c * 6 + banks * 2 + mains * 4 * 2 + pins * 4 + c * bolts * 2 + c * 4 + c + c * rings + 1 + c + 5 + c * valves;
+        const expected =
+          c * 6 + banks * 2 + mains * 4 * 2 + pins * 4 + c * bolts * 2 + c * 4 + c + c * rings + 1 + c + 5 + c * valves;
         const route = benchRoute(e);
         const ids = route.sections.flatMap((s) => s.stations.map((st) => st.id));
         return route.total === expected && ids.length === expected && new Set(ids).size === expected;

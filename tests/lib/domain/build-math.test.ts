@@ -27,7 +27,13 @@ describe("displacement", () => {
 
 describe("compressionRatio", () => {
   const p19 = {
-    bore: 4.03, stroke: 3.48, chamberCc: 64, pistonCc: 5, gasketBore: 4.1, gasketThickness: 0.039, deckClearance: 0.025,
+    bore: 4.03,
+    stroke: 3.48,
+    chamberCc: 64,
+    pistonCc: 5,
+    gasketBore: 4.1,
+    gasketThickness: 0.039,
+    deckClearance: 0.025,
   };
   it("gives the same result in millimetres as in inches", () => {
     const inch = compressionRatio({ lengthUnit: "in", ...p19 });
@@ -47,7 +53,14 @@ describe("compressionRatio", () => {
   it("a dome (negative cc) and a piston above the deck raise the ratio; mathjs cross-check", () => {
     // Heywood (1988) §2.2, rc = (Vd + Vc)/Vc; volumes computed independently with mathjs units
     const r = compressionRatio({
-      lengthUnit: "mm", bore: 86, stroke: 86, gasketBore: 87, gasketThickness: 1.2, deckClearance: -0.2, chamberCc: 45, pistonCc: -3,
+      lengthUnit: "mm",
+      bore: 86,
+      stroke: 86,
+      gasketBore: 87,
+      gasketThickness: 1.2,
+      deckClearance: -0.2,
+      chamberCc: 45,
+      pistonCc: -3,
     });
     const vs = evaluate("pi/4 * (86 mm)^2 * 86 mm").toNumber("cc");
     const vg = evaluate("pi/4 * (87 mm)^2 * 1.2 mm").toNumber("cc");
@@ -58,7 +71,16 @@ describe("compressionRatio", () => {
     expect(r.gasketCc).toBeCloseTo(vg, 10);
     expect(r.clearanceCc).toBeCloseTo(vc, 10);
     expect(r.ratio).toBeCloseTo((vs + vc) / vc, 10);
-    const dished = compressionRatio({ lengthUnit: "mm", bore: 86, stroke: 86, gasketBore: 87, gasketThickness: 1.2, deckClearance: -0.2, chamberCc: 45, pistonCc: 3 });
+    const dished = compressionRatio({
+      lengthUnit: "mm",
+      bore: 86,
+      stroke: 86,
+      gasketBore: 87,
+      gasketThickness: 1.2,
+      deckClearance: -0.2,
+      chamberCc: 45,
+      pistonCc: 3,
+    });
     expect(r.ratio).toBeGreaterThan(dished.ratio);
   });
   it("refuses a stack-up where the piston would hit the head, and a bad unit", () => {
@@ -87,7 +109,13 @@ describe("rod ratio, compression height and deck clearance", () => {
     expect(none.fits).toBe(false);
     expect(none.compressionHeight).toBe(-0.1);
     expect(none.reason).toMatch(/shorter rod or stroke/);
-    const thin = compressionHeight({ deckHeight: 9.025, stroke: 4.0, rodLength: 6.125, deckClearance: 0.005, minCompressionHeight: 1.0 });
+    const thin = compressionHeight({
+      deckHeight: 9.025,
+      stroke: 4.0,
+      rodLength: 6.125,
+      deckClearance: 0.005,
+      minCompressionHeight: 1.0,
+    });
     expect(thin).toMatchObject({ compressionHeight: 0.895, fits: false });
     expect(thin.reason).toMatch(/below the 1 minimum/);
   });

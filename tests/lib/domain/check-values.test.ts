@@ -5,17 +5,55 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import {
-  boltElongation, boltStretch, boreGeometry, ccToCubicIn, compressionRatio, correctTo20C, cToF, cubicInToCc, displacement,
-  endPlay, fToC, inToMm, iso286Fit, iso286Limits, itGrade, journalGeometry, kpaToPsi, lbfFtToNm, mmToIn, nmToLbfFt,
-  oilClearance, oilClearanceRule, pistonToWall, preloadFromTorque, psiToKpa, readingUncertainty, recommendedPreload,
-  ringGapRule, tensileStressAreaMetric, tensileStressAreaUnified, torqueForPreload, valveLift,
+  boltElongation,
+  boltStretch,
+  boreGeometry,
+  ccToCubicIn,
+  compressionRatio,
+  correctTo20C,
+  cToF,
+  cubicInToCc,
+  displacement,
+  endPlay,
+  fToC,
+  inToMm,
+  iso286Fit,
+  iso286Limits,
+  itGrade,
+  journalGeometry,
+  kpaToPsi,
+  lbfFtToNm,
+  mmToIn,
+  nmToLbfFt,
+  oilClearance,
+  oilClearanceRule,
+  pistonToWall,
+  preloadFromTorque,
+  psiToKpa,
+  readingUncertainty,
+  recommendedPreload,
+  ringGapRule,
+  tensileStressAreaMetric,
+  tensileStressAreaUnified,
+  torqueForPreload,
+  valveLift,
 } from "../../../lib/domain";
 
-interface Quantity { value: number | number[]; unit: string }
+interface Quantity {
+  value: number | number[];
+  unit: string;
+}
 type Inputs = Record<string, unknown>;
 interface CheckCase {
-  id: string; kind: string; inputs: Inputs; expected: Record<string, unknown>;
-  rel_tol?: number; abs_tol?: number; source: string; note: string; arithmetic: string;
+  id: string;
+  kind: string;
+  inputs: Inputs;
+  expected: Record<string, unknown>;
+  rel_tol?: number;
+  abs_tol?: number;
+  source: string;
+  note: string;
+  arithmetic: string;
 }
 type Actual = Record<string, number | number[]>;
 
@@ -34,9 +72,16 @@ const list = (inputs: Inputs, key: string): number[] => (inputs[key] as Quantity
 const unitOf = (u: string) => u.split(" ")[0];
 
 const CONVERSIONS: Record<string, (x: number) => number> = {
-  "in->mm": inToMm, "mm->in": mmToIn, "in^3->cm^3": cubicInToCc, "cm^3->in^3": ccToCubicIn,
-  "lbf*ft->N*m": lbfFtToNm, "N*m->lbf*ft": nmToLbfFt, "psi->kPa": psiToKpa, "kPa->psi": kpaToPsi,
-  "degF->degC": fToC, "degC->degF": cToF,
+  "in->mm": inToMm,
+  "mm->in": mmToIn,
+  "in^3->cm^3": cubicInToCc,
+  "cm^3->in^3": ccToCubicIn,
+  "lbf*ft->N*m": lbfFtToNm,
+  "N*m->lbf*ft": nmToLbfFt,
+  "psi->kPa": psiToKpa,
+  "kPa->psi": kpaToPsi,
+  "degF->degC": fToC,
+  "degC->degF": cToF,
 };
 function conversions(c: CheckCase): Actual {
   const out: Actual = {};
@@ -51,8 +96,14 @@ function conversions(c: CheckCase): Actual {
 
 function geometryOut(g: ReturnType<typeof boreGeometry>): Actual {
   return {
-    taper_A: g.taperA, taper_B: g.taperB, taper: g.taper, oor_by_depth: g.outOfRoundByDepth, oor: g.outOfRound,
-    max_diameter: g.max, min_diameter: g.min, mean_diameter: g.mean,
+    taper_A: g.taperA,
+    taper_B: g.taperB,
+    taper: g.taper,
+    oor_by_depth: g.outOfRoundByDepth,
+    oor: g.outOfRound,
+    max_diameter: g.max,
+    min_diameter: g.min,
+    mean_diameter: g.mean,
   };
 }
 
@@ -69,7 +120,12 @@ function parseMetric(name: string): [number, number] {
 const LBF_IN_PER_LBF_FT = 12; // 1 ft = 12 in (exact)
 
 function thermalPartAndGauge(i: Inputs): Actual {
-  const common = { length: q(i, "reading"), partTempC: q(i, "t_part"), gaugeTempC: q(i, "t_gauge"), alphaGauge: q(i, "alpha_gauge") };
+  const common = {
+    length: q(i, "reading"),
+    partTempC: q(i, "t_part"),
+    gaugeTempC: q(i, "t_gauge"),
+    alphaGauge: q(i, "alpha_gauge"),
+  };
   const l20 = correctTo20C({ ...common, alphaPart: q(i, "alpha_part") });
   const b = correctTo20C({ ...common, length: q(i, "b_reading"), alphaPart: q(i, "b_alpha_part") });
   return { L20: l20, correction: l20 - q(i, "reading"), b_L20: b };
@@ -79,8 +135,11 @@ function gum(i: Inputs): Actual {
   const coeffs = i.sensitivity_coeffs as number[];
   if (coeffs.some((c) => c !== 1)) throw new Error("readingUncertainty assumes sensitivity coefficients of 1");
   const r = readingUncertainty({
-    calibrationU: q(i, "calibration_U_k2"), k: 2, resolution: q(i, "resolution"),
-    repeatSd: q(i, "repeatability_s"), repeatN: q(i, "n_readings"),
+    calibrationU: q(i, "calibration_U_k2"),
+    k: 2,
+    resolution: q(i, "resolution"),
+    repeatSd: q(i, "repeatability_s"),
+    repeatN: q(i, "n_readings"),
   });
   return { u_cal: r.uCal, u_res: r.uRes, u_rep: r.uRep, u_c: r.uc, U_k2: r.U };
 }
@@ -91,8 +150,10 @@ function iso286(i: Inputs): Actual {
   const shaft = iso286Limits(n, i.shaft as string);
   const fit = iso286Fit(n, i.hole as string, i.shaft as string);
   return {
-    hole_limits: [hole.min, hole.max], shaft_limits: [shaft.min, shaft.max],
-    min_clearance: fit.minClearance, max_clearance: fit.maxClearance,
+    hole_limits: [hole.min, hole.max],
+    shaft_limits: [shaft.min, shaft.max],
+    min_clearance: fit.minClearance,
+    max_clearance: fit.maxClearance,
     IT5_IT9_30_50: [5, 6, 7, 8, 9].map((g) => itGrade(q(i, "it_lookup_nominal"), g)),
   };
 }
@@ -103,16 +164,22 @@ const HANDLERS: Record<string, (c: CheckCase) => Actual> = {
   "unit_conversion.torque": conversions,
   "unit_conversion.pressure": conversions,
   "unit_conversion.temperature": conversions,
-  "cylinder_bore.geometry": ({ inputs: i }) => geometryOut(boreGeometry({ axisA: list(i, "axis_A_thrust"), axisB: list(i, "axis_B_pin") })),
-  "crank_journal.geometry": ({ inputs: i }) => geometryOut(journalGeometry({ axisA: list(i, "axis_A"), axisB: list(i, "axis_B_90deg") })),
+  "cylinder_bore.geometry": ({ inputs: i }) =>
+    geometryOut(boreGeometry({ axisA: list(i, "axis_A_thrust"), axisB: list(i, "axis_B_pin") })),
+  "crank_journal.geometry": ({ inputs: i }) =>
+    geometryOut(journalGeometry({ axisA: list(i, "axis_A"), axisB: list(i, "axis_B_90deg") })),
   "clearance.bearing_oil": ({ inputs: i }) => ({
     oil_clearance: oilClearance(q(i, "bearing_id_installed"), q(i, "journal_od")),
     rule_of_thumb_clearance: oilClearanceRule(q(i, "journal_od"), q(i, "rule_in_per_in")),
   }),
   "clearance.piston_to_wall": ({ inputs: i }) => ({ clearance: pistonToWall(q(i, "bore"), q(i, "piston_skirt")) }),
   "clearance.crank_end_play": ({ inputs: i }) => ({ end_play: endPlay(list(i, "dial_readings")) }),
-  "rod_bolt.stretch_measured": ({ inputs: i }) => ({ stretch: boltStretch(q(i, "free_length"), q(i, "loaded_length")) }),
-  "rod_bolt.elongation_predicted": ({ inputs: i }) => ({ delta: boltElongation(q(i, "F"), q(i, "L"), q(i, "A"), q(i, "E")) }),
+  "rod_bolt.stretch_measured": ({ inputs: i }) => ({
+    stretch: boltStretch(q(i, "free_length"), q(i, "loaded_length")),
+  }),
+  "rod_bolt.elongation_predicted": ({ inputs: i }) => ({
+    delta: boltElongation(q(i, "F"), q(i, "L"), q(i, "A"), q(i, "E")),
+  }),
   "rod_bolt.preload_from_torque": ({ inputs: i }) => ({
     F: preloadFromTorque(q(i, "T") * LBF_IN_PER_LBF_FT, q(i, "K"), q(i, "d")),
   }),
@@ -135,11 +202,22 @@ const HANDLERS: Record<string, (c: CheckCase) => Actual> = {
   },
   "engine.compression_ratio": ({ inputs: i }) => {
     const r = compressionRatio({
-      lengthUnit: "in", bore: q(i, "bore"), stroke: q(i, "stroke"), chamberCc: q(i, "chamber"),
-      pistonCc: q(i, "piston_dish_positive"), gasketBore: q(i, "gasket_bore"),
-      gasketThickness: q(i, "gasket_thickness_compressed"), deckClearance: q(i, "deck_clearance_below_deck_positive"),
+      lengthUnit: "in",
+      bore: q(i, "bore"),
+      stroke: q(i, "stroke"),
+      chamberCc: q(i, "chamber"),
+      pistonCc: q(i, "piston_dish_positive"),
+      gasketBore: q(i, "gasket_bore"),
+      gasketThickness: q(i, "gasket_thickness_compressed"),
+      deckClearance: q(i, "deck_clearance_below_deck_positive"),
     });
-    return { swept_per_cyl: r.sweptCc, gasket_volume: r.gasketCc, deck_volume: r.deckCc, clearance_volume: r.clearanceCc, compression_ratio: r.ratio };
+    return {
+      swept_per_cyl: r.sweptCc,
+      gasket_volume: r.gasketCc,
+      deck_volume: r.deckCc,
+      clearance_volume: r.clearanceCc,
+      compression_ratio: r.ratio,
+    };
   },
   "valvetrain.valve_lift": ({ inputs: i }) => {
     const v = valveLift(q(i, "lobe_lift"), q(i, "rocker_ratio"), q(i, "lash"));
@@ -151,7 +229,9 @@ const HANDLERS: Record<string, (c: CheckCase) => Actual> = {
   }),
   "uncertainty.combined_GUM": ({ inputs }) => gum(inputs),
   "iso286.limits_and_fit": ({ inputs }) => iso286(inputs),
-  "rule_of_thumb.ring_gap": ({ inputs: i }) => ({ top_ring_gap_min: ringGapRule(q(i, "bore"), q(i, "factor_in_per_in_of_bore")) }),
+  "rule_of_thumb.ring_gap": ({ inputs: i }) => ({
+    top_ring_gap_min: ringGapRule(q(i, "bore"), q(i, "factor_in_per_in_of_bore")),
+  }),
 };
 
 function expectWithin(actual: number, expected: number, c: CheckCase, label: string): void {

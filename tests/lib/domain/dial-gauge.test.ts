@@ -6,7 +6,9 @@ import { dialDiameter } from "../../../lib/domain/dial-gauge";
 // Reference arithmetic: mathjs BigNumber (a general-purpose decimal library), so the float trap
 // (4.03 - -0.0002 = 4.030200000000001 in binary) cannot hide in the expected values.
 const ref = (setting: number, dial: number, plusSmaller: boolean) =>
-  Number((plusSmaller ? subtract(bignumber(setting), bignumber(dial)) : add(bignumber(setting), bignumber(dial))).toString());
+  Number(
+    (plusSmaller ? subtract(bignumber(setting), bignumber(dial)) : add(bignumber(setting), bignumber(dial))).toString(),
+  );
 
 describe("dial bore gauge: diameter from setting size and dial reading", () => {
   it("plus means smaller (the usual dial bore gauge; common practice, from memory)", () => {
@@ -23,15 +25,28 @@ describe("dial bore gauge: diameter from setting size and dial reading", () => {
   });
   it("matches mathjs BigNumber for any 4-decimal setting and dial reading (property)", () => {
     fc.assert(
-      fc.property(fc.integer({ min: 20000, max: 60000 }), fc.integer({ min: -50, max: 50 }), fc.boolean(), (s, d, plus) => {
-        expect(dialDiameter({ setting: s / 10000, deviation: d / 10000, plusMeansSmaller: plus })).toBe(ref(s / 10000, d / 10000, plus));
-      }),
+      fc.property(
+        fc.integer({ min: 20000, max: 60000 }),
+        fc.integer({ min: -50, max: 50 }),
+        fc.boolean(),
+        (s, d, plus) => {
+          expect(dialDiameter({ setting: s / 10000, deviation: d / 10000, plusMeansSmaller: plus })).toBe(
+            ref(s / 10000, d / 10000, plus),
+          );
+        },
+      ),
     );
   });
   it("refuses figures that cannot be right, saying what to fix", () => {
-    expect(() => dialDiameter({ setting: Number.NaN, deviation: 0.001, plusMeansSmaller: true })).toThrow(/setting size must be a number/);
-    expect(() => dialDiameter({ setting: 4.03, deviation: Number.POSITIVE_INFINITY, plusMeansSmaller: true })).toThrow(/dial reading must be a number/);
+    expect(() => dialDiameter({ setting: Number.NaN, deviation: 0.001, plusMeansSmaller: true })).toThrow(
+      /setting size must be a number/,
+    );
+    expect(() => dialDiameter({ setting: 4.03, deviation: Number.POSITIVE_INFINITY, plusMeansSmaller: true })).toThrow(
+      /dial reading must be a number/,
+    );
     expect(() => dialDiameter({ setting: 0, deviation: 0.001, plusMeansSmaller: true })).toThrow(/above zero/);
-    expect(() => dialDiameter({ setting: 0.001, deviation: 0.002, plusMeansSmaller: true })).toThrow(/give no diameter/);
+    expect(() => dialDiameter({ setting: 0.001, deviation: 0.002, plusMeansSmaller: true })).toThrow(
+      /give no diameter/,
+    );
   });
 });

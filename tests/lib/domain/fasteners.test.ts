@@ -17,7 +17,12 @@ describe("tensile stress areas", () => {
     // Shigley's Mechanical Engineering Design, Table 8-2 (from memory): 1/4-28 0.0364, 5/16-24 0.0580,
     // 7/16-14 0.1063, 1/2-13 0.1419 in²
     // tables round to 3–4 figures (5/16-24 is 0.05807 by the formula), so allow 1e-4 as check value P15 does
-    const table: Array<[number, number, number]> = [[0.25, 28, 0.0364], [0.3125, 24, 0.058], [0.4375, 14, 0.1063], [0.5, 13, 0.1419]];
+    const table: Array<[number, number, number]> = [
+      [0.25, 28, 0.0364],
+      [0.3125, 24, 0.058],
+      [0.4375, 14, 0.1063],
+      [0.5, 13, 0.1419],
+    ];
     for (const [d, n, area] of table) {
       expect(Math.abs(tensileStressAreaUnified(d, n) - area)).toBeLessThanOrEqual(1e-4);
     }
@@ -60,7 +65,13 @@ describe("elongation, stiffness, preload", () => {
         fc.double({ min: 100, max: 50000, noNaN: true }),
         fc.double({ min: 0.5, max: 100, noNaN: true }),
         (force, length) => {
-          const k = boltStiffness({ shankArea: 80, stressArea: 61.2, modulus: 207000, shankLength: 0, threadLength: length });
+          const k = boltStiffness({
+            shankArea: 80,
+            stressArea: 61.2,
+            modulus: 207000,
+            shankLength: 0,
+            threadLength: length,
+          });
           const delta = boltElongation(force, length, 61.2, 207000);
           expect(Math.abs(force / k - delta) / delta).toBeLessThan(1e-12);
         },
@@ -89,7 +100,10 @@ describe("elongation, stiffness, preload", () => {
     const r = recommendedPreload({ stressArea: 0.0878, proofStrength: 120000 });
     expect(r.proofLoad).toBeCloseTo(10536, 9);
     expect(r.preload).toBeCloseTo(7902, 9);
-    expect(recommendedPreload({ stressArea: 0.0878, proofStrength: 120000, fraction: 0.9 }).preload).toBeCloseTo(9482.4, 9);
+    expect(recommendedPreload({ stressArea: 0.0878, proofStrength: 120000, fraction: 0.9 }).preload).toBeCloseTo(
+      9482.4,
+      9,
+    );
     expect(() => recommendedPreload({ stressArea: 0.0878, proofStrength: 120000, fraction: 1.2 })).toThrow(/fraction/);
   });
   it("rejects nonsense inputs with the quantity named", () => {

@@ -56,7 +56,9 @@ describe("invariants (property)", () => {
   const reading = fc.integer({ min: 20000, max: 60000 }).map((n) => n / 10000); // 2.0000–6.0000 in
   const axes = fc
     .integer({ min: 1, max: 6 })
-    .chain((n) => fc.tuple(fc.array(reading, { minLength: n, maxLength: n }), fc.array(reading, { minLength: n, maxLength: n })));
+    .chain((n) =>
+      fc.tuple(fc.array(reading, { minLength: n, maxLength: n }), fc.array(reading, { minLength: n, maxLength: n })),
+    );
 
   it("taper and out-of-round are never negative", () => {
     fc.assert(

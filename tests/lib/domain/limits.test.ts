@@ -5,7 +5,12 @@ import type { SpecLimit } from "../../../lib/domain/types";
 
 const base = { required: true } as const;
 const lim = (l: Partial<SpecLimit>): SpecLimit => ({
-  characteristic: "bore_diameter", stationPattern: "*", limitType: "min_max", unit: "in", ...base, ...l,
+  characteristic: "bore_diameter",
+  stationPattern: "*",
+  limitType: "min_max",
+  unit: "in",
+  ...base,
+  ...l,
 });
 
 describe("station patterns", () => {
@@ -38,7 +43,13 @@ describe("findLimit: the most specific match wins", () => {
   const tops = lim({ stationPattern: "bore/*/top/*", min: 1, max: 2, label: "tops" });
   const cyl3 = lim({ stationPattern: "bore/3/*", min: 1, max: 2, label: "cyl3" });
   const exact = lim({ stationPattern: "bore/3/top/A", min: 1, max: 2, label: "exact" });
-  const other = lim({ characteristic: "piston_skirt_diameter", stationPattern: "bore/3/top/A", min: 1, max: 2, label: "skirt" });
+  const other = lim({
+    characteristic: "piston_skirt_diameter",
+    stationPattern: "bore/3/top/A",
+    min: 1,
+    max: 2,
+    label: "skirt",
+  });
   const spec = [all, bores, tops, cyl3, exact, other];
 
   it("an exact id beats every pattern; characteristic must match", () => {
@@ -74,18 +85,38 @@ describe("resolveLimit: one case per limit type", () => {
   });
   it("max_only and min_only", () => {
     // common practice, from memory: 0.001 in bore taper is a usual service limit
-    expect(resolveLimit(lim({ characteristic: "bore_taper", limitType: "max_only", max: 0.001 }))).toEqual({ unit: "in", max: 0.001 });
+    expect(resolveLimit(lim({ characteristic: "bore_taper", limitType: "max_only", max: 0.001 }))).toEqual({
+      unit: "in",
+      max: 0.001,
+    });
     // P26 ring gap rule 4.030 × 0.0045 = 0.018135 in (common practice) used as a minimum
-    expect(resolveLimit(lim({ characteristic: "ring_end_gap", limitType: "min_only", min: 0.018135 }))).toEqual({ unit: "in", min: 0.018135 });
+    expect(resolveLimit(lim({ characteristic: "ring_end_gap", limitType: "min_only", min: 0.018135 }))).toEqual({
+      unit: "in",
+      min: 0.018135,
+    });
   });
   it("per_inch: 0.001 in per inch on a 2.200 in rod journal is 0.0022 in (common practice)", () => {
-    const l = lim({ characteristic: "rod_oil_clearance", limitType: "per_inch", perInchMin: 0.00075, perInchMax: 0.001 });
-    expect(resolveLimit(l, { diameter: { value: 2.2, unit: "in" } })).toEqual({ unit: "in", min: 0.00165, max: 0.0022 });
+    const l = lim({
+      characteristic: "rod_oil_clearance",
+      limitType: "per_inch",
+      perInchMin: 0.00075,
+      perInchMax: 0.001,
+    });
+    expect(resolveLimit(l, { diameter: { value: 2.2, unit: "in" } })).toEqual({
+      unit: "in",
+      min: 0.00165,
+      max: 0.0022,
+    });
     // P08: 0.001 × 2.0988 = 0.0020988 (common practice)
     expect(resolveLimit(l, { diameter: { value: 2.0988, unit: "in" } }).max).toBe(0.0020988);
   });
   it("per_inch: a journal measured in mm is converted to inches before an inch rule (NIST SP 811 B.8; mathjs)", () => {
-    const l = lim({ characteristic: "rod_oil_clearance", limitType: "per_inch", perInchMin: 0.00075, perInchMax: 0.001 });
+    const l = lim({
+      characteristic: "rod_oil_clearance",
+      limitType: "per_inch",
+      perInchMin: 0.00075,
+      perInchMax: 0.001,
+    });
     const inches = mathUnit(55.88, "mm").toNumber("inch"); // 2.2 in, cross-checked with mathjs
     const r = resolveLimit(l, { diameter: { value: 55.88, unit: "mm" } });
     expect(r.max).toBeCloseTo(0.001 * inches, 12);
@@ -99,8 +130,15 @@ describe("resolveLimit: one case per limit type", () => {
     expect(resolveLimit(l, { diameter: { value: 4.03, unit: "in" } })).toEqual({ unit: "in", min: 0.018135 });
   });
   it("iso286: 50 mm H7 and g6 (ISO 286-1:2010 Table 1, ISO 286-2:2010; check value P25)", () => {
-    expect(resolveLimit(lim({ limitType: "iso286", unit: "mm", nominal: 50, isoClass: "H7" }))).toEqual({ unit: "mm", nominal: 50, min: 50, max: 50.025 });
-    const g6 = resolveLimit(lim({ limitType: "iso286", unit: "mm", isoClass: "g6" }), { nominal: { value: 50, unit: "mm" } });
+    expect(resolveLimit(lim({ limitType: "iso286", unit: "mm", nominal: 50, isoClass: "H7" }))).toEqual({
+      unit: "mm",
+      nominal: 50,
+      min: 50,
+      max: 50.025,
+    });
+    const g6 = resolveLimit(lim({ limitType: "iso286", unit: "mm", isoClass: "g6" }), {
+      nominal: { value: 50, unit: "mm" },
+    });
     expect(g6).toEqual({ unit: "mm", nominal: 50, min: 49.975, max: 49.991 });
   });
   it("iso286 on an inch job: 2 in = 50.8 mm falls in 'over 50 up to 80', IT7 = 30 µm (ISO 286-1:2010 Table 1)", () => {
@@ -130,7 +168,9 @@ describe("resolveLimit says what is missing", () => {
     expect(() => resolveLimit(limit, context)).toThrow(message);
   });
   it("names the limit by its label", () => {
-    expect(() => resolveLimit(lim({ label: "Deck height, street build", min: 1 }))).toThrow(/Deck height, street build/);
+    expect(() => resolveLimit(lim({ label: "Deck height, street build", min: 1 }))).toThrow(
+      /Deck height, street build/,
+    );
   });
 });
 

@@ -5,8 +5,22 @@ import type { EngineShape } from "../../../lib/domain/types";
 // The ranges themselves are common practice, from memory (deliberately wide); these checks test
 // the unit handling, which rests on exact definitions: 1 in = 25.4 mm (NIST SP 811, B.8) and
 // 1 lbf·ft = 1.3558179483314004 N·m (NIST SP 811, B.8: lbf = 4.4482216152605 N, ft = 0.3048 m).
-const v8: EngineShape = { cylinders: 8, layout: "v", mains: 5, valvesPerCylinder: 2, unitSystem: "inch", nominalSizes: { bore: 4.03 } };
-const diesel: EngineShape = { cylinders: 4, layout: "inline", mains: 5, valvesPerCylinder: 2, unitSystem: "metric", nominalSizes: { bore: 104 } };
+const v8: EngineShape = {
+  cylinders: 8,
+  layout: "v",
+  mains: 5,
+  valvesPerCylinder: 2,
+  unitSystem: "inch",
+  nominalSizes: { bore: 4.03 },
+};
+const diesel: EngineShape = {
+  cylinders: 4,
+  layout: "inline",
+  mains: 5,
+  valvesPerCylinder: 2,
+  unitSystem: "metric",
+  nominalSizes: { bore: 104 },
+};
 
 describe("implausibleReason", () => {
   it("accepts ordinary bench figures in either unit", () => {

@@ -1,22 +1,45 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
-  AXES, BORE_DEPTHS, CHARACTERISTICS, JOURNAL_POSITIONS, SECTION_LABELS, describeStation, parseStationId, ringNames, valveNames,
+  AXES,
+  BORE_DEPTHS,
+  CHARACTERISTICS,
+  JOURNAL_POSITIONS,
+  SECTION_LABELS,
+  describeStation,
+  parseStationId,
+  ringNames,
+  valveNames,
 } from "../../../lib/domain/stations";
 
 describe("parseStationId follows the grammar", () => {
   it.each([
     ["bore/3/top/A", { section: "bore", characteristic: "bore_diameter", cylinder: 3, depth: "top", axis: "A" }],
-    ["main/2/front/B", { section: "main", characteristic: "main_journal_diameter", main: 2, position: "front", axis: "B" }],
-    ["rod/4/rear/A", { section: "rod", characteristic: "rod_journal_diameter", journal: 4, position: "rear", axis: "A" }],
-    ["main-brg/5/rear/B", { section: "main-brg", characteristic: "main_bearing_bore", main: 5, position: "rear", axis: "B" }],
-    ["rod-brg/4/rear/A", { section: "rod-brg", characteristic: "rod_bearing_bore", rod: 4, position: "rear", axis: "A" }],
+    [
+      "main/2/front/B",
+      { section: "main", characteristic: "main_journal_diameter", main: 2, position: "front", axis: "B" },
+    ],
+    [
+      "rod/4/rear/A",
+      { section: "rod", characteristic: "rod_journal_diameter", journal: 4, position: "rear", axis: "A" },
+    ],
+    [
+      "main-brg/5/rear/B",
+      { section: "main-brg", characteristic: "main_bearing_bore", main: 5, position: "rear", axis: "B" },
+    ],
+    [
+      "rod-brg/4/rear/A",
+      { section: "rod-brg", characteristic: "rod_bearing_bore", rod: 4, position: "rear", axis: "A" },
+    ],
     ["skirt/7", { section: "skirt", characteristic: "piston_skirt_diameter", cylinder: 7 }],
     ["ring-gap/5/top", { section: "ring-gap", characteristic: "ring_end_gap", cylinder: 5, ring: "top" }],
     ["side/6", { section: "side", characteristic: "rod_side_clearance", rod: 6 }],
     ["end-play", { section: "end-play", characteristic: "crank_end_play" }],
     ["bolt/3/1/free", { section: "bolt", characteristic: "rod_bolt_free_length", rod: 3, bolt: 1, boltState: "free" }],
-    ["bolt/3/2/loaded", { section: "bolt", characteristic: "rod_bolt_loaded_length", rod: 3, bolt: 2, boltState: "loaded" }],
+    [
+      "bolt/3/2/loaded",
+      { section: "bolt", characteristic: "rod_bolt_loaded_length", rod: 3, bolt: 2, boltState: "loaded" },
+    ],
     ["deck/left/front", { section: "deck", characteristic: "deck_height", bank: "left", corner: "front" }],
     ["deck/block/rear", { section: "deck", characteristic: "deck_height", bank: "block", corner: "rear" }],
     ["lash/2/int", { section: "lash", characteristic: "valve_lash", cylinder: 2, valve: "int" }],
@@ -133,12 +156,25 @@ describe("every id built from the grammar parses back to its parts (fast-check)"
   const n = fc.integer({ min: 1, max: 999 });
   it("bores and journals", () => {
     fc.assert(
-      fc.property(n, fc.constantFrom(...BORE_DEPTHS), fc.constantFrom(...AXES), fc.constantFrom(...JOURNAL_POSITIONS), (k, d, a, p) => {
-        const bore = parseStationId(`bore/${k}/${d}/${a}`);
-        const brg = parseStationId(`rod-brg/${k}/${p}/${a}`);
-        return bore.cylinder === k && bore.depth === d && bore.axis === a && brg.rod === k && brg.position === p && brg.axis === a
-          && describeStation(`bore/${k}/${d}/${a}`).startsWith(`Cylinder ${k} · `);
-      }),
+      fc.property(
+        n,
+        fc.constantFrom(...BORE_DEPTHS),
+        fc.constantFrom(...AXES),
+        fc.constantFrom(...JOURNAL_POSITIONS),
+        (k, d, a, p) => {
+          const bore = parseStationId(`bore/${k}/${d}/${a}`);
+          const brg = parseStationId(`rod-brg/${k}/${p}/${a}`);
+          return (
+            bore.cylinder === k &&
+            bore.depth === d &&
+            bore.axis === a &&
+            brg.rod === k &&
+            brg.position === p &&
+            brg.axis === a &&
+            describeStation(`bore/${k}/${d}/${a}`).startsWith(`Cylinder ${k} · `)
+          );
+        },
+      ),
     );
   });
 });

@@ -15,11 +15,15 @@ describe("correctTo20C", () => {
   it("differential form: a steel part with a steel gauge at the same temperature needs no correction", () => {
     // ISO/TR 16015:2003 nominal differential expansion (from memory): L·(αp·Δtp − αg·Δtg) → 0
     fc.assert(
-      fc.property(fc.double({ min: 5, max: 45, noNaN: true }), fc.double({ min: 1, max: 500, noNaN: true }), (t, length) => {
-        const a = EXPANSION_COEFFICIENTS.gaugeSteel.alpha;
-        const l20 = correctTo20C({ length, partTempC: t, alphaPart: a, gaugeTempC: t, alphaGauge: a });
-        expect(Math.abs(l20 - length)).toBeLessThan(1e-12 * length);
-      }),
+      fc.property(
+        fc.double({ min: 5, max: 45, noNaN: true }),
+        fc.double({ min: 1, max: 500, noNaN: true }),
+        (t, length) => {
+          const a = EXPANSION_COEFFICIENTS.gaugeSteel.alpha;
+          const l20 = correctTo20C({ length, partTempC: t, alphaPart: a, gaugeTempC: t, alphaGauge: a });
+          expect(Math.abs(l20 - length)).toBeLessThan(1e-12 * length);
+        },
+      ),
     );
   });
   it("matches the first-order form L·(1 − (αp − αg)·Δt) to within second-order terms", () => {
@@ -30,20 +34,38 @@ describe("correctTo20C", () => {
   });
   it("defaults the gauge to gauge steel when only its temperature is given", () => {
     const withDefault = correctTo20C({ length: 100, partTempC: 25, alphaPart: 11.4e-6, gaugeTempC: 22 });
-    const explicit = correctTo20C({ length: 100, partTempC: 25, alphaPart: 11.4e-6, gaugeTempC: 22, alphaGauge: 11.5e-6 });
+    const explicit = correctTo20C({
+      length: 100,
+      partTempC: 25,
+      alphaPart: 11.4e-6,
+      gaugeTempC: 22,
+      alphaGauge: 11.5e-6,
+    });
     expect(withDefault).toBe(explicit);
   });
   it("catches a coefficient typed in µm/m·K and non-numbers", () => {
     expect(() => correctTo20C({ length: 4, partTempC: 30, alphaPart: 21.5 })).toThrow(/per °C \(e\.g\. 11\.4e-6/);
     expect(() => correctTo20C({ length: 4, partTempC: Number.NaN, alphaPart: 21.5e-6 })).toThrow(/Part temperature/);
-    expect(() => correctTo20C({ length: 4, partTempC: 30, alphaPart: 21.5e-6, gaugeTempC: 30, alphaGauge: 11.5 })).toThrow(/Gauge expansion/);
+    expect(() =>
+      correctTo20C({ length: 4, partTempC: 30, alphaPart: 21.5e-6, gaugeTempC: 30, alphaGauge: 11.5 }),
+    ).toThrow(/Gauge expansion/);
   });
 });
 
 describe("EXPANSION_COEFFICIENTS", () => {
   it("lists the shop's materials, each with a source and a plausible metal coefficient", () => {
     const keys = Object.keys(EXPANSION_COEFFICIENTS);
-    for (const k of ["greyCastIron", "compactedGraphiteIron", "aluminium356", "aluminium319", "forgedPiston2618", "forgedPiston4032", "steel4140", "steel4340", "gaugeSteel"]) {
+    for (const k of [
+      "greyCastIron",
+      "compactedGraphiteIron",
+      "aluminium356",
+      "aluminium319",
+      "forgedPiston2618",
+      "forgedPiston4032",
+      "steel4140",
+      "steel4340",
+      "gaugeSteel",
+    ]) {
       expect(keys).toContain(k);
     }
     for (const entry of Object.values(EXPANSION_COEFFICIENTS)) {

@@ -39,7 +39,9 @@ describe("readingUncertainty", () => {
   it("asks for usable inputs", () => {
     expect(() => readingUncertainty({ calibrationU: -1, resolution: 0.001 })).toThrow(/Calibration uncertainty/);
     expect(() => readingUncertainty({ calibrationU: 0.001, k: 0, resolution: 0.001 })).toThrow(/Coverage factor/);
-    expect(() => readingUncertainty({ calibrationU: 0.001, resolution: 0.001, repeatSd: 1e-4, repeatN: 2.5 })).toThrow(/whole number/);
+    expect(() => readingUncertainty({ calibrationU: 0.001, resolution: 0.001, repeatSd: 1e-4, repeatN: 2.5 })).toThrow(
+      /whole number/,
+    );
   });
 });
 

@@ -10,7 +10,9 @@ interface GuardBandCase {
   inputs: { LSL: { value: number }; USL: { value: number }; U_k2: { value: number }; measured: { value: number[] } };
   expected: { conformance_zone: { value: [number, number] }; state_3: Verdict[] };
 }
-const cases = JSON.parse(readFileSync(new URL("./fixtures/check-values.json", import.meta.url), "utf8")) as { id: string }[];
+const cases = JSON.parse(readFileSync(new URL("./fixtures/check-values.json", import.meta.url), "utf8")) as {
+  id: string;
+}[];
 const p23 = cases.find((c) => c.id === "P23") as unknown as GuardBandCase;
 
 const RANK: Record<Verdict, number> = { in_spec: 0, marginal: 1, out_of_spec: 2 };
@@ -94,7 +96,9 @@ describe("guard band of U (ISO 14253-1:2017, 5.2 conformance and 5.3 non-conform
   it(`${p23.id}: every measured value of the published guard-band case`, () => {
     // ISO 14253-1:2017 + ILAC-G8:09/2019 4.2.3 (from the shared check values; 'conditional fail' → out_of_spec)
     const { LSL, USL, U_k2, measured } = p23.inputs;
-    const got = measured.value.map((value) => verdict({ value, min: LSL.value, max: USL.value, uncertainty: U_k2.value }));
+    const got = measured.value.map((value) =>
+      verdict({ value, min: LSL.value, max: USL.value, uncertainty: U_k2.value }),
+    );
     expect(got).toEqual(p23.expected.state_3);
     const cz = conformanceZone({ min: LSL.value, max: USL.value }, U_k2.value);
     expect([cz.min, cz.max]).toEqual(p23.expected.conformance_zone.value);
@@ -143,9 +147,14 @@ describe("invariants (fast-check)", () => {
   });
   it("a max-only limit behaves as the negated min-only limit", () => {
     fc.assert(
-      fc.property(tenths, tenths, fc.nat(200), (v, m, u) =>
-        verdict({ value: asIn(v), max: asIn(m), uncertainty: asIn(u) }) ===
-        verdict({ value: -asIn(v), min: -asIn(m), uncertainty: asIn(u) })),
+      fc.property(
+        tenths,
+        tenths,
+        fc.nat(200),
+        (v, m, u) =>
+          verdict({ value: asIn(v), max: asIn(m), uncertainty: asIn(u) }) ===
+          verdict({ value: -asIn(v), min: -asIn(m), uncertainty: asIn(u) }),
+      ),
     );
   });
   it("the verdict does not depend on the unit system (1 in = 25.4 mm exactly, NIST SP 811 B.8)", () => {

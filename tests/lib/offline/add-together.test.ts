@@ -8,7 +8,13 @@ import { CTX, bore, freshDb } from "./helpers";
 // The entry's write: a reading and its outbox row in one native transaction, or neither.
 vi.mock("@/lib/offline/ids", () => ({ uuidv4: () => "00000000-0000-4000-8000-000000000001" }));
 
-const OUTBOX = { readingId: "00000000-0000-4000-8000-000000000001", jobId: 1, takenBy: 7, queuedAt: "2026-12-01T08:00:00.000Z", attempts: 0 };
+const OUTBOX = {
+  readingId: "00000000-0000-4000-8000-000000000001",
+  jobId: 1,
+  takenBy: 7,
+  queuedAt: "2026-12-01T08:00:00.000Z",
+  attempts: 0,
+};
 
 describe("addTogether", () => {
   it("stores the reading and its outbox row together", async () => {
@@ -29,10 +35,12 @@ describe("addTogether", () => {
   it("stores neither when a row cannot be stored at all", async () => {
     const db = await freshDb();
     const bad = { id: "x", jobId: 1, state: "pending", oops: () => 1 }; // functions cannot be stored
-    await expect(addTogether(db, [
-      { table: "outbox", row: { ...OUTBOX, readingId: "x" }, key: "x" },
-      { table: "readings", row: bad, key: "x" },
-    ])).rejects.toThrow();
+    await expect(
+      addTogether(db, [
+        { table: "outbox", row: { ...OUTBOX, readingId: "x" }, key: "x" },
+        { table: "readings", row: bad, key: "x" },
+      ]),
+    ).rejects.toThrow();
     expect(await db.outbox.count()).toBe(0);
   });
 
@@ -44,7 +52,13 @@ describe("addTogether", () => {
     try {
       await recordReading(db, bore("bore/1/top/A", 4.0302), CTX);
       await vi.waitFor(() => expect(heard.flat()).toContain(`idb://${db.name}/readings/`));
-      expect(heard.flat()).toEqual(expect.arrayContaining([`idb://${db.name}/outbox/`, `idb://${db.name}/readings/jobId`, `idb://${db.name}/outbox/takenBy`]));
+      expect(heard.flat()).toEqual(
+        expect.arrayContaining([
+          `idb://${db.name}/outbox/`,
+          `idb://${db.name}/readings/jobId`,
+          `idb://${db.name}/outbox/takenBy`,
+        ]),
+      );
     } finally {
       Dexie.on("storagemutated").unsubscribe(listener);
     }

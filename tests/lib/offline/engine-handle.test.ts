@@ -8,9 +8,15 @@ function fakeModule() {
   const calls: string[] = [];
   class SyncEngine {
     constructor(readonly o: unknown) {}
-    start() { calls.push("start"); }
-    afterEntry() { calls.push("afterEntry"); }
-    async sync(reason: string) { calls.push(`sync:${reason}`); }
+    start() {
+      calls.push("start");
+    }
+    afterEntry() {
+      calls.push("afterEntry");
+    }
+    async sync(reason: string) {
+      calls.push(`sync:${reason}`);
+    }
   }
   return { calls, load: vi.fn(async () => ({ SyncEngine }) as unknown as typeof import("@/lib/offline/sync-engine")) };
 }

@@ -5,7 +5,19 @@ import { makePack } from "./fake-server";
 
 const pack = makePack(1);
 const station = (id: string) => pack.route.sections.flatMap((s) => s.stations).find((s) => s.id === id)!;
-const dialGauge: BenchInstrument = { id: 3, kind: "bore_gauge_dial", label: "Dial bore gauge", serial: "X", unit: "in", resolution: 0.0001, expandedU: 0.00015, coverageK: 2, calibrationDue: null, dialPlusMeansSmaller: true, active: true };
+const dialGauge: BenchInstrument = {
+  id: 3,
+  kind: "bore_gauge_dial",
+  label: "Dial bore gauge",
+  serial: "X",
+  unit: "in",
+  resolution: 0.0001,
+  expandedU: 0.00015,
+  coverageK: 2,
+  calibrationDue: null,
+  dialPlusMeansSmaller: true,
+  active: true,
+};
 const mic: BenchInstrument = { ...dialGauge, id: 4, kind: "outside_mic", label: "Outside micrometer" };
 const wrench: BenchInstrument = { ...dialGauge, id: 5, kind: "torque_wrench", label: "Torque wrench", unit: "lbf_ft" };
 
@@ -33,18 +45,51 @@ describe("building a reading", () => {
     expect("error" in slip && slip.error).toMatch(/Check the decimal point/);
   });
   it("dial mode: the diameter from the setting size and the gauge's sign convention", () => {
-    const built = buildReading("-2", { pack, station: station("bore/1/top/A"), instrument: dialGauge, dialSetting: 4.03 });
+    const built = buildReading("-2", {
+      pack,
+      station: station("bore/1/top/A"),
+      instrument: dialGauge,
+      dialSetting: 4.03,
+    });
     expect("error" in built).toBe(true); // -2 in from a 4.03 setting is no bore
-    const ok = buildReading("-0.0002", { pack, station: station("bore/1/top/A"), instrument: dialGauge, dialSetting: 4.03 });
-    expect(ok).toEqual({ reading: { jobId: 1, stationId: "bore/1/top/A", value: 4.0302, unit: "in", entryMode: "dial", dialSetting: 4.03, dialDeviation: -0.0002, instrumentId: 3 } });
-    const larger = buildReading("-0.0002", { pack, station: station("bore/1/top/A"), instrument: { ...dialGauge, dialPlusMeansSmaller: false }, dialSetting: 4.03 });
+    const ok = buildReading("-0.0002", {
+      pack,
+      station: station("bore/1/top/A"),
+      instrument: dialGauge,
+      dialSetting: 4.03,
+    });
+    expect(ok).toEqual({
+      reading: {
+        jobId: 1,
+        stationId: "bore/1/top/A",
+        value: 4.0302,
+        unit: "in",
+        entryMode: "dial",
+        dialSetting: 4.03,
+        dialDeviation: -0.0002,
+        instrumentId: 3,
+      },
+    });
+    const larger = buildReading("-0.0002", {
+      pack,
+      station: station("bore/1/top/A"),
+      instrument: { ...dialGauge, dialPlusMeansSmaller: false },
+      dialSetting: 4.03,
+    });
     expect("reading" in larger && larger.reading.value).toBe(4.0298);
   });
   it("torque needs the lubricant", () => {
     const t = station("torque/main-caps");
-    expect(buildReading("72", { pack, station: t, instrument: wrench })).toEqual({ error: "Pick the lubricant used on the threads before saving the torque" });
+    expect(buildReading("72", { pack, station: t, instrument: wrench })).toEqual({
+      error: "Pick the lubricant used on the threads before saving the torque",
+    });
     const ok = buildReading("72", { pack, station: t, instrument: wrench, lubricant: "moly-paste", supersedes: "abc" });
-    expect("reading" in ok && ok.reading).toMatchObject({ value: 72, unit: "lbf_ft", lubricant: "moly-paste", supersedes: "abc" });
+    expect("reading" in ok && ok.reading).toMatchObject({
+      value: 72,
+      unit: "lbf_ft",
+      lubricant: "moly-paste",
+      supersedes: "abc",
+    });
   });
   it("offers the gauges that suit a station, the usual kind first", () => {
     expect(gaugesFor(station("bore/1/top/A"), [mic, wrench, dialGauge]).map((g) => g.id)).toEqual([3, 4]);

@@ -6,21 +6,60 @@
 import { benchRoute, evaluateReading, type EngineShape, type SpecLimit } from "@/lib/domain";
 import type { BenchFlag, JobPack, PushReadingInput, PushResult, ServerReading, SyncFeed } from "@/lib/schemas/sync";
 
-export const SHAPE: EngineShape = { cylinders: 4, layout: "inline", mains: 5, valvesPerCylinder: 2, unitSystem: "inch", nominalSizes: { bore: 4.03 } };
+export const SHAPE: EngineShape = {
+  cylinders: 4,
+  layout: "inline",
+  mains: 5,
+  valvesPerCylinder: 2,
+  unitSystem: "inch",
+  nominalSizes: { bore: 4.03 },
+};
 export const SPEC: SpecLimit[] = [
-  { characteristic: "bore_diameter", stationPattern: "bore/*", limitType: "nominal_tol", unit: "in", nominal: 4.03, tolPlus: 0.0005, tolMinus: 0.0005, required: true },
+  {
+    characteristic: "bore_diameter",
+    stationPattern: "bore/*",
+    limitType: "nominal_tol",
+    unit: "in",
+    nominal: 4.03,
+    tolPlus: 0.0005,
+    tolMinus: 0.0005,
+    required: true,
+  },
 ];
 
 export function makePack(jobId: number, over: Partial<JobPack["job"]> = {}): JobPack {
   return {
-    job: { id: jobId, code: `T-${jobId}`, title: "Test job", status: "measuring", unitSystem: "in", locked: false, lockedAt: null, lockReason: null, specRevision: 1, dueDate: null, customer: "C", engine: "E", ...over },
-    shape: SHAPE, spec: SPEC, route: benchRoute(SHAPE), instruments: [], readings: [], flags: [], cursor: "0",
+    job: {
+      id: jobId,
+      code: `T-${jobId}`,
+      title: "Test job",
+      status: "measuring",
+      unitSystem: "in",
+      locked: false,
+      lockedAt: null,
+      lockReason: null,
+      specRevision: 1,
+      dueDate: null,
+      customer: "C",
+      engine: "E",
+      ...over,
+    },
+    shape: SHAPE,
+    spec: SPEC,
+    route: benchRoute(SHAPE),
+    instruments: [],
+    readings: [],
+    flags: [],
+    cursor: "0",
   };
 }
 
 type Handler = (url: URL, init: RequestInit) => Promise<Response> | Response;
-const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { "Content-Type": "application/json" } });
-const same = (a: PushReadingInput, b: PushReadingInput) => JSON.stringify({ ...a, entryMode: a.entryMode ?? "direct" }) === JSON.stringify({ ...b, entryMode: b.entryMode ?? "direct" });
+const json = (status: number, body: unknown) =>
+  new Response(JSON.stringify(body), { status, headers: { "Content-Type": "application/json" } });
+const same = (a: PushReadingInput, b: PushReadingInput) =>
+  JSON.stringify({ ...a, entryMode: a.entryMode ?? "direct" }) ===
+  JSON.stringify({ ...b, entryMode: b.entryMode ?? "direct" });
 
 export class FakeServer {
   readonly stored = new Map<string, { sent: PushReadingInput; row: ServerReading }>();
@@ -40,7 +79,14 @@ export class FakeServer {
     const url = new URL(String(input));
     const early = await this.before?.(url, init);
     if (early) return early;
-    const route: Handler | undefined = url.pathname === "/api/sync" ? (init.method === "POST" ? this.push : this.pull) : url.pathname === "/api/attachments" ? this.upload : undefined;
+    const route: Handler | undefined =
+      url.pathname === "/api/sync"
+        ? init.method === "POST"
+          ? this.push
+          : this.pull
+        : url.pathname === "/api/attachments"
+          ? this.upload
+          : undefined;
     if (!route) return json(404, { error: { code: "not_found", message: "No such route" } });
     const res = await route(url, init);
     if (init.method === "POST" && url.pathname === "/api/sync") await this.after?.();
@@ -48,7 +94,8 @@ export class FakeServer {
   };
 
   private check(r: PushReadingInput): { code: "invalid" | "job_locked" | "conflict"; reason: string } | undefined {
-    if (this.locked.has(r.jobId)) return { code: "job_locked", reason: `Job ${r.jobId} is released; readings are locked` };
+    if (this.locked.has(r.jobId))
+      return { code: "job_locked", reason: `Job ${r.jobId} is released; readings are locked` };
     if (!r.skipped && (r.value === undefined || r.value === null)) return { code: "invalid", reason: "Enter a value" };
     const have = this.stored.get(r.id);
     if (have && !same(have.sent, r)) return { code: "conflict", reason: "This id already holds a different reading" };
@@ -56,13 +103,39 @@ export class FakeServer {
   }
 
   private serverRow(r: PushReadingInput): ServerReading {
-    const ev = r.value == null ? undefined : evaluateReading({ stationId: r.stationId, value: r.value, unit: r.unit }, SHAPE, SPEC);
+    const ev =
+      r.value == null
+        ? undefined
+        : evaluateReading({ stationId: r.stationId, value: r.value, unit: r.unit }, SHAPE, SPEC);
     return {
-      id: r.id, jobId: r.jobId, stationId: r.stationId, characteristic: "bore_diameter", value: r.value ?? null, unit: r.unit, valueCanonical: null,
-      entryMode: r.entryMode ?? "direct", dialSetting: r.dialSetting ?? null, dialDeviation: r.dialDeviation ?? null, instrumentId: r.instrumentId ?? null,
-      partTempC: null, gaugeTempC: null, lubricant: null, skipped: !!r.skipped, skipReason: r.skipReason ?? null, note: null,
-      supersedes: r.supersedes ?? null, supersededBy: null, takenAt: r.takenAt, receivedAt: new Date().toISOString(), takenBy: 7, deviceId: "dev",
-      verdict: ev?.verdict ?? null, verdictNote: null, limitMin: ev?.limits?.min ?? null, limitMax: ev?.limits?.max ?? null, deviation: ev?.deviation ?? null,
+      id: r.id,
+      jobId: r.jobId,
+      stationId: r.stationId,
+      characteristic: "bore_diameter",
+      value: r.value ?? null,
+      unit: r.unit,
+      valueCanonical: null,
+      entryMode: r.entryMode ?? "direct",
+      dialSetting: r.dialSetting ?? null,
+      dialDeviation: r.dialDeviation ?? null,
+      instrumentId: r.instrumentId ?? null,
+      partTempC: null,
+      gaugeTempC: null,
+      lubricant: null,
+      skipped: !!r.skipped,
+      skipReason: r.skipReason ?? null,
+      note: null,
+      supersedes: r.supersedes ?? null,
+      supersededBy: null,
+      takenAt: r.takenAt,
+      receivedAt: new Date().toISOString(),
+      takenBy: 7,
+      deviceId: "dev",
+      verdict: ev?.verdict ?? null,
+      verdictNote: null,
+      limitMin: ev?.limits?.min ?? null,
+      limitMax: ev?.limits?.max ?? null,
+      deviation: ev?.deviation ?? null,
     };
   }
 
@@ -74,10 +147,16 @@ export class FakeServer {
     if (problems.some(Boolean)) {
       const results: PushResult[] = readings.map((r, index) => {
         const p = problems[index];
-        return p ? { index, id: r.id, status: "rejected", code: p.code, reason: p.reason } : { index, id: r.id, status: "held" };
+        return p
+          ? { index, id: r.id, status: "rejected", code: p.code, reason: p.reason }
+          : { index, id: r.id, status: "held" };
       });
       const allLocked = problems.every((p) => !p || p.code === "job_locked");
-      return json(allLocked ? 409 : 422, { error: { code: allLocked ? "job_locked" : "invalid", message: "Some readings were refused", fields: {} }, results, cursor: "0" });
+      return json(allLocked ? 409 : 422, {
+        error: { code: allLocked ? "job_locked" : "invalid", message: "Some readings were refused", fields: {} },
+        results,
+        cursor: "0",
+      });
     }
     const results: PushResult[] = readings.map((r, index) => {
       const replay = this.stored.has(r.id);
@@ -86,7 +165,21 @@ export class FakeServer {
         this.changes.push({ id: this.changes.length + 1, readingId: r.id });
       }
       const row = this.stored.get(r.id)!.row;
-      return { index, id: r.id, status: "accepted", replay, verdict: row.verdict, evaluation: { verdict: row.verdict, verdictNote: null, unit: row.unit, limitMin: row.limitMin, limitMax: row.limitMax, deviation: row.deviation } };
+      return {
+        index,
+        id: r.id,
+        status: "accepted",
+        replay,
+        verdict: row.verdict,
+        evaluation: {
+          verdict: row.verdict,
+          verdictNote: null,
+          unit: row.unit,
+          limitMin: row.limitMin,
+          limitMax: row.limitMax,
+          deviation: row.deviation,
+        },
+      };
     });
     return json(200, { results, cursor: String(this.changes.length) });
   };
@@ -96,8 +189,14 @@ export class FakeServer {
     const jobs = (url.searchParams.get("jobs") ?? "").split(",").map(Number);
     const rows = this.changes.filter((c) => c.id > since);
     const feed: SyncFeed = {
-      cursor: String(this.changes.length), more: false, jobs: [], limits: [], missing: [],
-      readings: rows.flatMap((c) => (c.readingId ? [this.stored.get(c.readingId)!.row] : [])).filter((r) => jobs.includes(r.jobId)),
+      cursor: String(this.changes.length),
+      more: false,
+      jobs: [],
+      limits: [],
+      missing: [],
+      readings: rows
+        .flatMap((c) => (c.readingId ? [this.stored.get(c.readingId)!.row] : []))
+        .filter((r) => jobs.includes(r.jobId)),
       flags: rows.flatMap((c) => this.flags.filter((f) => f.id === c.flagId)),
     };
     return json(200, feed);
@@ -106,7 +205,10 @@ export class FakeServer {
   private upload = async (_url: URL, init: RequestInit): Promise<Response> => {
     const form = init.body as FormData;
     if (this.uploadStatus < 300) this.uploads.set(String(form.get("clientId")), form);
-    return json(this.uploadStatus, this.uploadStatus < 300 ? { id: form.get("clientId") } : { error: { code: "x", message: "Upload refused" } });
+    return json(
+      this.uploadStatus,
+      this.uploadStatus < 300 ? { id: form.get("clientId") } : { error: { code: "x", message: "Upload refused" } },
+    );
   };
 
   /** Another tablet's reading, as the feed would carry it. */

@@ -50,6 +50,8 @@ describe("offline photos", () => {
 
   it("refuses a file that is not a picture, saying what to do", async () => {
     const db = await freshDb();
-    await expect(addPhoto(db, new Blob(["x"], { type: "text/plain" }), { jobId: 1, ownerType: "job", ownerId: "1" }, 7)).rejects.toThrow(/not a photo/);
+    await expect(
+      addPhoto(db, new Blob(["x"], { type: "text/plain" }), { jobId: 1, ownerType: "job", ownerId: "1" }, 7),
+    ).rejects.toThrow(/not a photo/);
   });
 });

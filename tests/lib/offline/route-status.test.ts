@@ -7,13 +7,31 @@ const pack = makePack(1);
 let t = 0;
 function reading(stationId: string, value: number | null, extra: Partial<LocalReading> = {}): LocalReading {
   const takenAt = new Date(Date.UTC(2026, 0, 1, 8, 0, t++)).toISOString();
-  return { id: `r${t}`, jobId: 1, stationId, value, unit: "in", entryMode: "direct", skipped: false, takenAt, deviceId: "d", takenBy: 7, state: "pending", updatedAt: takenAt, ...extra };
+  return {
+    id: `r${t}`,
+    jobId: 1,
+    stationId,
+    value,
+    unit: "in",
+    entryMode: "direct",
+    skipped: false,
+    takenAt,
+    deviceId: "d",
+    takenBy: 7,
+    state: "pending",
+    updatedAt: takenAt,
+    ...extra,
+  };
 }
 const stateOf = (views: ReturnType<typeof stationViews>, id: string) => views.find((v) => v.station.id === id)?.state;
 
 describe("route status", () => {
   it("judges each station's current reading with the core (4.0295–4.0305 in the test spec)", () => {
-    const views = stationViews(pack, [reading("bore/1/top/A", 4.0302), reading("bore/1/top/B", 4.0312), reading("bore/1/mid/A", null, { skipped: true, skipReason: "cracked" })]);
+    const views = stationViews(pack, [
+      reading("bore/1/top/A", 4.0302),
+      reading("bore/1/top/B", 4.0312),
+      reading("bore/1/mid/A", null, { skipped: true, skipReason: "cracked" }),
+    ]);
     expect(stateOf(views, "bore/1/top/A")).toBe("in_spec");
     expect(stateOf(views, "bore/1/top/B")).toBe("confirm");
     expect(stateOf(views, "bore/1/mid/A")).toBe("skipped");
@@ -31,15 +49,43 @@ describe("route status", () => {
     expect(stateOf(fixed, "bore/1/top/B")).toBe("in_spec");
   });
   it("a refused reading shows as refused and does not count", () => {
-    const views = stationViews(pack, [reading("bore/1/top/A", 4.0302, { state: "rejected", rejection: { code: "job_locked", reason: "locked" } })]);
+    const views = stationViews(pack, [
+      reading("bore/1/top/A", 4.0302, { state: "rejected", rejection: { code: "job_locked", reason: "locked" } }),
+    ]);
     expect(views.find((v) => v.station.id === "bore/1/top/A")).toMatchObject({ state: "rejected", count: 0 });
   });
   it("stations the lead sent back are marked until a newer reading is taken", () => {
     const old = reading("bore/1/top/A", 4.0312);
-    const flag = { id: 1, jobId: 1, readingId: old.id, derivedKey: null, stationId: "bore/1/top/A", characteristic: "bore_diameter", value: 4.0312, unit: "in", limitMin: 4.0295, limitMax: 4.0305, deviation: 0.0012, verdict: "out_of_spec" as const, reason: "out_of_spec" as const, state: "disposed" as const, disposition: "machine_again" as const, operation: "hone", dispositionReason: null, disposedAt: new Date(Date.UTC(2026, 0, 1, 9)).toISOString(), closedAt: null, createdAt: old.takenAt, stations: ["bore/1/top/A"], revisit: true };
+    const flag = {
+      id: 1,
+      jobId: 1,
+      readingId: old.id,
+      derivedKey: null,
+      stationId: "bore/1/top/A",
+      characteristic: "bore_diameter",
+      value: 4.0312,
+      unit: "in",
+      limitMin: 4.0295,
+      limitMax: 4.0305,
+      deviation: 0.0012,
+      verdict: "out_of_spec" as const,
+      reason: "out_of_spec" as const,
+      state: "disposed" as const,
+      disposition: "machine_again" as const,
+      operation: "hone",
+      dispositionReason: null,
+      disposedAt: new Date(Date.UTC(2026, 0, 1, 9)).toISOString(),
+      closedAt: null,
+      createdAt: old.takenAt,
+      stations: ["bore/1/top/A"],
+      revisit: true,
+    };
     const sentBack = { ...pack, flags: [flag] };
     expect(stateOf(stationViews(sentBack, [old]), "bore/1/top/A")).toBe("revisit");
-    const again = reading("bore/1/top/A", 4.0302, { supersedes: old.id, takenAt: new Date(Date.UTC(2026, 0, 1, 10)).toISOString() });
+    const again = reading("bore/1/top/A", 4.0302, {
+      supersedes: old.id,
+      takenAt: new Date(Date.UTC(2026, 0, 1, 10)).toISOString(),
+    });
     expect(stateOf(stationViews(sentBack, [old, again]), "bore/1/top/A")).toBe("in_spec");
   });
   it("counts progress per section and finds the next open station, wrapping round", () => {

@@ -17,13 +17,22 @@ function engineFor(db: BenchDb, server: FakeServer, extra: Partial<ConstructorPa
 afterEach(() => engines.splice(0).forEach((e) => e.stop()));
 
 const states = async (db: BenchDb) => (await db.readings.toCollection().sortBy("takenAt")).map((r) => r.state);
-const BORES: [string, number][] = [["bore/1/top/A", 4.0302], ["bore/1/top/B", 4.0301], ["bore/1/mid/A", 4.0303], ["bore/1/mid/B", 4.03], ["bore/1/bottom/A", 4.0299]];
+const BORES: [string, number][] = [
+  ["bore/1/top/A", 4.0302],
+  ["bore/1/top/B", 4.0301],
+  ["bore/1/mid/A", 4.0303],
+  ["bore/1/mid/B", 4.03],
+  ["bore/1/bottom/A", 4.0299],
+];
 
 describe("sync engine", () => {
   it("sends pending readings, marks them synced with the server's verdict, and records the success", async () => {
     const db = await freshDb();
     const server = new FakeServer();
-    await enter(db, [["bore/1/top/A", 4.0302], ["bore/1/top/B", 4.0312]]);
+    await enter(db, [
+      ["bore/1/top/A", 4.0302],
+      ["bore/1/top/B", 4.0312],
+    ]);
     await engineFor(db, server).sync("manual");
     expect(await states(db)).toEqual(["synced", "synced"]);
     expect((await db.readings.toArray()).map((r) => r.verdict).sort()).toEqual(["in_spec", "out_of_spec"]);
@@ -40,7 +49,8 @@ describe("sync engine", () => {
     await enter(db, BORES);
     let calls = 0;
     server.before = (url, init) => {
-      if (url.pathname === "/api/sync" && init.method === "POST" && ++calls === 2) throw new TypeError("Failed to fetch");
+      if (url.pathname === "/api/sync" && init.method === "POST" && ++calls === 2)
+        throw new TypeError("Failed to fetch");
     };
     const engine = engineFor(db, server, { batchSize: 2 });
     await engine.sync("manual");
@@ -84,7 +94,10 @@ describe("sync engine", () => {
     server.locked.add(2);
     await engineFor(db, server).sync("manual");
     const bad = await db.readings.get(locked.id);
-    expect(bad).toMatchObject({ state: "rejected", rejection: { code: "job_locked", reason: "Job 2 is released; readings are locked" } });
+    expect(bad).toMatchObject({
+      state: "rejected",
+      rejection: { code: "job_locked", reason: "Job 2 is released; readings are locked" },
+    });
     expect((await db.readings.where("jobId").equals(1).toArray()).map((r) => r.state)).toEqual(["synced", "synced"]);
     expect(server.stored.has(locked.id)).toBe(false);
     expect(await db.outbox.count()).toBe(0);
@@ -101,7 +114,9 @@ describe("sync engine", () => {
     const server = new FakeServer();
     await enter(db, BORES.slice(0, 2));
     server.after = () => db.close(); // the tab dies with the answer in flight
-    await engineFor(db, server).sync("manual").catch(() => undefined);
+    await engineFor(db, server)
+      .sync("manual")
+      .catch(() => undefined);
     expect(server.stored.size).toBe(2);
     server.after = undefined;
     const reopened = new BenchDb(name);
@@ -119,7 +134,10 @@ describe("sync engine", () => {
     server.status = 503;
     const engine = engineFor(db, server, { backoff: { baseMs: 60_000, maxMs: 600_000 } });
     await engine.sync("manual");
-    expect(await getSyncStatus(db)).toMatchObject({ failures: 1, lastError: "The server had a problem (503); trying again shortly" });
+    expect(await getSyncStatus(db)).toMatchObject({
+      failures: 1,
+      lastError: "The server had a problem (503); trying again shortly",
+    });
     await engine.sync("entry");
     await engine.sync("timer");
     expect(server.pushes).toBe(1);
@@ -158,9 +176,16 @@ describe("sync engine", () => {
     const db = await freshDb();
     const server = new FakeServer();
     await enter(db, BORES.slice(0, 2));
-    server.before = (url) => (url.pathname === "/api/sync" ? new Response(JSON.stringify({ error: { code: "unauthorized", message: "Sign in first" } }), { status: 401 }) : undefined);
+    server.before = (url) =>
+      url.pathname === "/api/sync"
+        ? new Response(JSON.stringify({ error: { code: "unauthorized", message: "Sign in first" } }), { status: 401 })
+        : undefined;
     await engineFor(db, server).sync("manual");
-    expect(await getSyncStatus(db)).toMatchObject({ needsAction: true, lastError: "Signed out: sign in again so the tablet can send its readings", failures: 0 });
+    expect(await getSyncStatus(db)).toMatchObject({
+      needsAction: true,
+      lastError: "Signed out: sign in again so the tablet can send its readings",
+      failures: 0,
+    });
     expect(await states(db)).toEqual(["pending", "pending"]);
     expect(await db.outbox.count()).toBe(2);
   });
@@ -168,8 +193,22 @@ describe("sync engine", () => {
   it("pulls other tablets' readings for the jobs it holds, and only those", async () => {
     const db = await freshDb();
     const server = new FakeServer();
-    server.addForeign({ id: "0b6f7f0e-3f4c-4d2a-9a57-6a3e8f1f2a10", jobId: 1, stationId: "bore/2/top/A", value: 4.0304, unit: "in", takenAt: "2026-01-01T10:00:00Z" });
-    server.addForeign({ id: "0b6f7f0e-3f4c-4d2a-9a57-6a3e8f1f2a11", jobId: 8, stationId: "bore/2/top/A", value: 4.0304, unit: "in", takenAt: "2026-01-01T10:00:00Z" });
+    server.addForeign({
+      id: "0b6f7f0e-3f4c-4d2a-9a57-6a3e8f1f2a10",
+      jobId: 1,
+      stationId: "bore/2/top/A",
+      value: 4.0304,
+      unit: "in",
+      takenAt: "2026-01-01T10:00:00Z",
+    });
+    server.addForeign({
+      id: "0b6f7f0e-3f4c-4d2a-9a57-6a3e8f1f2a11",
+      jobId: 8,
+      stationId: "bore/2/top/A",
+      value: 4.0304,
+      unit: "in",
+      takenAt: "2026-01-01T10:00:00Z",
+    });
     await engineFor(db, server).sync("start");
     const rows = await db.readings.toArray();
     expect(rows.map((r) => [r.stationId, r.state, r.deviceId])).toEqual([["bore/2/top/A", "synced", "tab-other"]]);

@@ -2,7 +2,13 @@
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
 import {
-  canonicalJson, canonicalReleaseDocument, decimalString, isoUtc, itemDigests, releaseHash, sha256Hex,
+  canonicalJson,
+  canonicalReleaseDocument,
+  decimalString,
+  isoUtc,
+  itemDigests,
+  releaseHash,
+  sha256Hex,
   type ReleaseSnapshot,
 } from "@/lib/server/release-hash";
 
@@ -10,14 +16,43 @@ import {
 function snapshot(): ReleaseSnapshot {
   return {
     release: { jobId: 7, inspectorId: 3, signedName: "Hanne Test", signedAt: "2026-12-01T14:03:07.250Z" },
-    job: { id: 7, shopId: 1, code: "T-1", customerId: 2, engineId: 4, unitSystem: "in", specRevision: 2, buildPlan: { bore: 4.03, rockerRatio: 1.5, notes: null } },
+    job: {
+      id: 7,
+      shopId: 1,
+      code: "T-1",
+      customerId: 2,
+      engineId: 4,
+      unitSystem: "in",
+      specRevision: 2,
+      buildPlan: { bore: 4.03, rockerRatio: 1.5, notes: null },
+    },
     readings: [
-      { id: "b2c1e0f4-0000-4000-8000-000000000002", stationId: "bore/1/top/A", valueCanonical: "102.362540", supersedes: "a1c1e0f4-0000-4000-8000-000000000001", takenAt: "2026-11-30T09:00:00.000Z", skipped: false },
-      { id: "a1c1e0f4-0000-4000-8000-000000000001", stationId: "bore/1/top/A", valueCanonical: "102.365080", supersedes: null, takenAt: "2026-11-30T08:55:00.000Z", skipped: false },
+      {
+        id: "b2c1e0f4-0000-4000-8000-000000000002",
+        stationId: "bore/1/top/A",
+        valueCanonical: "102.362540",
+        supersedes: "a1c1e0f4-0000-4000-8000-000000000001",
+        takenAt: "2026-11-30T09:00:00.000Z",
+        skipped: false,
+      },
+      {
+        id: "a1c1e0f4-0000-4000-8000-000000000001",
+        stationId: "bore/1/top/A",
+        valueCanonical: "102.365080",
+        supersedes: null,
+        takenAt: "2026-11-30T08:55:00.000Z",
+        skipped: false,
+      },
     ],
-    limits: [{ id: 11, characteristic: "bore_diameter", min: "4.029900", max: "4.030400" }, { id: 10, characteristic: "bore_taper", min: null, max: "0.000500" }],
+    limits: [
+      { id: 11, characteristic: "bore_diameter", min: "4.029900", max: "4.030400" },
+      { id: 10, characteristic: "bore_taper", min: null, max: "0.000500" },
+    ],
     flags: [{ id: 5, state: "closed", disposition: "measure_again" }],
-    dispositions: [{ id: 9, flagId: 5, disposition: "measure_again", reason: null }, { id: 8, flagId: 5, disposition: "measure_again", reason: "re-zero" }],
+    dispositions: [
+      { id: 9, flagId: 5, disposition: "measure_again", reason: null },
+      { id: 8, flagId: 5, disposition: "measure_again", reason: "re-zero" },
+    ],
     gauges: [{ id: 2, serial: "KF-DB-07", resolution: "0.000100", calibrationDue: "2027-05-12" }],
   };
 }
@@ -26,7 +61,12 @@ function snapshot(): ReleaseSnapshot {
 function reordered(s: ReleaseSnapshot): ReleaseSnapshot {
   const flip = (v: unknown): unknown => {
     if (Array.isArray(v)) return v.map(flip).reverse();
-    if (v && typeof v === "object") return Object.fromEntries(Object.entries(v).reverse().map(([k, x]) => [k, flip(x)]));
+    if (v && typeof v === "object")
+      return Object.fromEntries(
+        Object.entries(v)
+          .reverse()
+          .map(([k, x]) => [k, flip(x)]),
+      );
     return v;
   };
   return flip(s) as ReleaseSnapshot;
@@ -41,7 +81,9 @@ describe("sha256Hex", () => {
 
 describe("canonicalJson", () => {
   it("sorts keys, drops undefined, writes no whitespace", () => {
-    expect(canonicalJson({ b: 1, a: [true, null, "x"], c: undefined, A: { z: 0, y: -0 } })).toBe('{"A":{"y":0,"z":0},"a":[true,null,"x"],"b":1}');
+    expect(canonicalJson({ b: 1, a: [true, null, "x"], c: undefined, A: { z: 0, y: -0 } })).toBe(
+      '{"A":{"y":0,"z":0},"a":[true,null,"x"],"b":1}',
+    );
   });
   it("orders keys by UTF-16 code units as RFC 8785 does", () => {
     // RFC 8785, 3.2.3: sorting is by UTF-16 code units, so "\u20ac" (€) sorts before "\ud83d\ude00" (😀)

@@ -11,7 +11,10 @@ import { signInSchema, type SignInInput } from "@/lib/schemas/session";
 
 export function SignInForm({ next }: { next?: string }) {
   const [serverError, setServerError] = useState<string | null>(null);
-  const form = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: "", password: "" } });
+  const form = useForm<SignInInput>({
+    resolver: zodResolver(signInSchema),
+    defaultValues: { email: "", password: "" },
+  });
 
   const onSubmit = form.handleSubmit(async (values) => {
     setServerError(null);
@@ -20,7 +23,9 @@ export function SignInForm({ next }: { next?: string }) {
       window.location.assign(next ?? res.home);
     } catch (err) {
       // Keep what was typed; only the password is cleared after a refusal.
-      setServerError(err instanceof ApiError ? err.message : "Could not reach the server. Check the connection and try again.");
+      setServerError(
+        err instanceof ApiError ? err.message : "Could not reach the server. Check the connection and try again.",
+      );
       form.setValue("password", "");
       form.setFocus("password");
     }
@@ -28,11 +33,28 @@ export function SignInForm({ next }: { next?: string }) {
 
   return (
     // method="post": a tap before hydration must never put the password into the URL.
-    <form method="post" onSubmit={onSubmit} noValidate className="flex flex-col gap-5 rounded-tool border-2 border-rule bg-panel p-6">
+    <form
+      method="post"
+      onSubmit={onSubmit}
+      noValidate
+      className="flex flex-col gap-5 rounded-tool border-2 border-rule bg-panel p-6"
+    >
       <h1 className="text-2xl font-semibold">Sign in</h1>
       {serverError && <Notice tone="error">{serverError}</Notice>}
-      <TextField label="E-mail" type="email" autoComplete="username" error={form.formState.errors.email?.message} {...form.register("email")} />
-      <TextField label="Password" type="password" autoComplete="current-password" error={form.formState.errors.password?.message} {...form.register("password")} />
+      <TextField
+        label="E-mail"
+        type="email"
+        autoComplete="username"
+        error={form.formState.errors.email?.message}
+        {...form.register("email")}
+      />
+      <TextField
+        label="Password"
+        type="password"
+        autoComplete="current-password"
+        error={form.formState.errors.password?.message}
+        {...form.register("password")}
+      />
       <Button type="submit" big disabled={form.formState.isSubmitting}>
         {form.formState.isSubmitting ? "Signing in…" : "Sign in"}
       </Button>

@@ -21,17 +21,24 @@ export default async function MailPage() {
         <section className="rounded-tool border-2 border-rule bg-panel p-4">
           <h2 className="mb-1 text-xl font-semibold">Outgoing mail</h2>
           <p className="mb-3 text-sm text-muted">
-            Build records go to customers on release, flag digests to leads, and ready-for-release notes to inspectors. A message that fails is tried again later, waiting longer each time; a release never waits for mail.
+            Build records go to customers on release, flag digests to leads, and ready-for-release notes to inspectors.
+            A message that fails is tried again later, waiting longer each time; a release never waits for mail.
           </p>
           <OutboxTable rows={outbox} maxAttempts={env().MAIL_MAX_ATTEMPTS} />
         </section>
         <section className="rounded-tool border-2 border-rule bg-panel p-4">
           <h2 className="mb-1 text-xl font-semibold">Local mailbox (development)</h2>
           {files === null ? (
-            <Notice>The local mailbox shows here only when MAIL_DIR is set (npm start sets it to .data/mail). With a real mail server, check the recipients&apos; inboxes.</Notice>
+            <Notice>
+              The local mailbox shows here only when MAIL_DIR is set (npm start sets it to .data/mail). With a real mail
+              server, check the recipients&apos; inboxes.
+            </Notice>
           ) : (
             <>
-              <p className="mb-3 text-sm text-muted">What the local fake mail server received for this shop, newest first. Open a message to read it and its attachments.</p>
+              <p className="mb-3 text-sm text-muted">
+                What the local fake mail server received for this shop, newest first. Open a message to read it and its
+                attachments.
+              </p>
               <Mailbox files={files} />
             </>
           )}

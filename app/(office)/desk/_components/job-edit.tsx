@@ -9,6 +9,11 @@ export function JobEdit({ jobId }: { jobId: number }) {
   const job = useJob(jobId);
   if (job.isPending) return <Loading what="the job" />;
   if (job.isError) return <LoadFailed what="the job" error={job.error} retry={() => job.refetch()} />;
-  if (job.data.job.locked) return <Notice tone="info" title="This job is locked">It is {job.data.job.status}; the inspector must void the release before it can change.</Notice>;
+  if (job.data.job.locked)
+    return (
+      <Notice tone="info" title="This job is locked">
+        It is {job.data.job.status}; the inspector must void the release before it can change.
+      </Notice>
+    );
   return <JobForm job={job.data} />;
 }

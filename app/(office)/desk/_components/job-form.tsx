@@ -17,10 +17,28 @@ import { keys, useTemplates, type JobDetail } from "./queries";
 // spec sheet whose limits the job copies; editing leaves the job's own limits alone.
 // Customer, spec sheet, bore and stroke start empty: the lead must choose or enter them.
 export const NEW_JOB: DefaultValues<JobInput> = {
-  code: "", title: "", customer: { mode: "existing" }, unitSystem: "in", dueDate: "", status: "intake", notes: "",
+  code: "",
+  title: "",
+  customer: { mode: "existing" },
+  unitSystem: "in",
+  dueDate: "",
+  status: "intake",
+  notes: "",
   engine: {
-    description: "", cylinders: 8, layout: "v", mains: 5, valvesPerCylinder: 2, ringsPerPiston: 3, boltsPerRod: 2,
-    blockMaterial: "greyCastIron", headMaterial: null, pistonMaterial: null, blockSerial: "", crankSerial: "", headSerials: "", fuel: null,
+    description: "",
+    cylinders: 8,
+    layout: "v",
+    mains: 5,
+    valvesPerCylinder: 2,
+    ringsPerPiston: 3,
+    boltsPerRod: 2,
+    blockMaterial: "greyCastIron",
+    headMaterial: null,
+    pistonMaterial: null,
+    blockSerial: "",
+    crankSerial: "",
+    headSerials: "",
+    fuel: null,
   },
 };
 
@@ -28,9 +46,22 @@ export const NEW_JOB: DefaultValues<JobInput> = {
 export function editValuesOf(d: JobDetail): Omit<JobInput, "templateId"> {
   const { blockMaterial, ...engine } = d.engine;
   return {
-    code: d.job.code, title: d.job.title, customer: { mode: "existing", id: d.customer.id }, unitSystem: d.job.unitSystem,
-    dueDate: d.job.dueDate ?? "", status: d.job.status as JobValues["status"], notes: d.job.notes ?? "",
-    engine: { ...engine, blockMaterial: blockMaterial as JobValues["engine"]["blockMaterial"], headMaterial: engine.headMaterial as JobValues["engine"]["headMaterial"], pistonMaterial: engine.pistonMaterial as JobValues["engine"]["pistonMaterial"], blockSerial: engine.blockSerial ?? "", crankSerial: engine.crankSerial ?? "", headSerials: engine.headSerials ?? "" },
+    code: d.job.code,
+    title: d.job.title,
+    customer: { mode: "existing", id: d.customer.id },
+    unitSystem: d.job.unitSystem,
+    dueDate: d.job.dueDate ?? "",
+    status: d.job.status as JobValues["status"],
+    notes: d.job.notes ?? "",
+    engine: {
+      ...engine,
+      blockMaterial: blockMaterial as JobValues["engine"]["blockMaterial"],
+      headMaterial: engine.headMaterial as JobValues["engine"]["headMaterial"],
+      pistonMaterial: engine.pistonMaterial as JobValues["engine"]["pistonMaterial"],
+      blockSerial: engine.blockSerial ?? "",
+      crankSerial: engine.crankSerial ?? "",
+      headSerials: engine.headSerials ?? "",
+    },
   };
 }
 
@@ -52,15 +83,23 @@ export function JobForm({ job }: { job?: JobDetail }) {
   const unitsFixed = editing && job.summary.readingCount > 0;
   const save = useMutation({
     mutationFn: (v: JobValues): Promise<JobDetail | { id: number }> =>
-      editing ? api<JobDetail>(`/api/jobs/${job.job.id}`, { method: "PATCH", json: v }) : api<{ id: number }>("/api/jobs", { method: "POST", json: v }),
+      editing
+        ? api<JobDetail>(`/api/jobs/${job.job.id}`, { method: "PATCH", json: v })
+        : api<{ id: number }>("/api/jobs", { method: "POST", json: v }),
     onSuccess: async (res) => {
       if (editing) qc.setQueryData(keys.job(job.job.id), res);
-      await Promise.all([qc.invalidateQueries({ queryKey: keys.jobs }), qc.invalidateQueries({ queryKey: keys.customers })]);
+      await Promise.all([
+        qc.invalidateQueries({ queryKey: keys.jobs }),
+        qc.invalidateQueries({ queryKey: keys.customers }),
+      ]);
       router.push(`/desk/jobs/${editing ? job.job.id : (res as { id: number }).id}`);
     },
     onError: (err) => applyFieldErrors(err, form.setError as never),
   });
-  const { register, formState: { errors } } = form;
+  const {
+    register,
+    formState: { errors },
+  } = form;
   const onTemplate = (id: number) => {
     const t = active.find((x) => x.id === id);
     if (t && !form.getFieldState("unitSystem").isDirty) form.setValue("unitSystem", t.unitSystem);
@@ -73,20 +112,49 @@ export function JobForm({ job }: { job?: JobDetail }) {
         <fieldset className="grid gap-4 rounded-tool border-2 border-rule bg-panel p-4 md:grid-cols-4">
           <legend className="px-1 text-lg font-semibold">Job</legend>
           <Field label="Job code" placeholder="e.g. KF-2614" error={messageOf(errors.code)} {...register("code")} />
-          <Field wrapClass="md:col-span-3" label="Title" placeholder="e.g. Pickup V8 rebuild" error={messageOf(errors.title)} {...register("title")} />
+          <Field
+            wrapClass="md:col-span-3"
+            label="Title"
+            placeholder="e.g. Pickup V8 rebuild"
+            error={messageOf(errors.title)}
+            {...register("title")}
+          />
           {!editing && (
-            <SelectField wrapClass="md:col-span-2" label="Spec sheet" error={messageOf(errors.templateId) ?? (templates.isError ? "Could not load the spec sheets; try again" : undefined)}
-              hint={templates.isPending ? "Loading spec sheets…" : "The job copies this sheet's limits; later edits of the sheet do not change the job"}
-              {...register("templateId", { ...asNumber, onChange: (e) => onTemplate(Number(e.target.value)) })}>
+            <SelectField
+              wrapClass="md:col-span-2"
+              label="Spec sheet"
+              error={
+                messageOf(errors.templateId) ??
+                (templates.isError ? "Could not load the spec sheets; try again" : undefined)
+              }
+              hint={
+                templates.isPending
+                  ? "Loading spec sheets…"
+                  : "The job copies this sheet's limits; later edits of the sheet do not change the job"
+              }
+              {...register("templateId", { ...asNumber, onChange: (e) => onTemplate(Number(e.target.value)) })}
+            >
               <option value="">Pick a spec sheet…</option>
-              {active.map((t) => <option key={t.id} value={t.id}>{t.name} · {t.buildKind} · {t.unitSystem}</option>)}
+              {active.map((t) => (
+                <option key={t.id} value={t.id}>
+                  {t.name} · {t.buildKind} · {t.unitSystem}
+                </option>
+              ))}
             </SelectField>
           )}
-          {editing && <p className="md:col-span-2 text-sm text-muted">Limits copied from <span className="font-semibold text-ink">{job.job.templateName ?? "a sheet since deleted"}</span>; edit them on the job&apos;s limits page.</p>}
+          {editing && (
+            <p className="md:col-span-2 text-sm text-muted">
+              Limits copied from{" "}
+              <span className="font-semibold text-ink">{job.job.templateName ?? "a sheet since deleted"}</span>; edit
+              them on the job&apos;s limits page.
+            </p>
+          )}
           {unitsFixed ? (
             <div className="flex flex-col gap-1 text-sm">
               <span className="font-medium">Units</span>
-              <span className="min-h-11 content-center">{job.job.unitSystem === "mm" ? "Metric (mm, N·m)" : "Inch (in, lbf·ft)"}</span>
+              <span className="min-h-11 content-center">
+                {job.job.unitSystem === "mm" ? "Metric (mm, N·m)" : "Inch (in, lbf·ft)"}
+              </span>
               <span className="text-muted">Fixed: readings were taken in these units</span>
               <input type="hidden" {...register("unitSystem")} />
             </div>
@@ -97,16 +165,30 @@ export function JobForm({ job }: { job?: JobDetail }) {
             </SelectField>
           )}
           <SelectField label="Status" error={messageOf(errors.status)} {...register("status")}>
-            {DESK_STATUSES.map((s) => <option key={s} value={s}>{STATUS_WORDS[s]}</option>)}
+            {DESK_STATUSES.map((s) => (
+              <option key={s} value={s}>
+                {STATUS_WORDS[s]}
+              </option>
+            ))}
           </SelectField>
           <Field label="Due date" type="date" error={messageOf(errors.dueDate)} {...register("dueDate")} />
-          <AreaField wrapClass="md:col-span-3" label="Notes" rows={2} error={messageOf(errors.notes)} {...register("notes")} />
+          <AreaField
+            wrapClass="md:col-span-3"
+            label="Notes"
+            rows={2}
+            error={messageOf(errors.notes)}
+            {...register("notes")}
+          />
         </fieldset>
         <JobFormCustomer />
         <JobFormEngine />
         <div className="flex gap-3">
-          <Button type="submit" big disabled={save.isPending}>{save.isPending ? "Saving…" : editing ? "Save changes" : "Create job"}</Button>
-          <Button type="button" tone="quiet" big onClick={() => router.back()}>Cancel</Button>
+          <Button type="submit" big disabled={save.isPending}>
+            {save.isPending ? "Saving…" : editing ? "Save changes" : "Create job"}
+          </Button>
+          <Button type="button" tone="quiet" big onClick={() => router.back()}>
+            Cancel
+          </Button>
         </div>
       </form>
     </FormProvider>

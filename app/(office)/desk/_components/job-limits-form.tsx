@@ -19,14 +19,22 @@ const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? o
 function LimitsForm({ view }: { view: JobLimitsView }) {
   const qc = useQueryClient();
   const id = view.job.id;
-  const form = useForm<JobLimitsInput, unknown, JobLimitsValues>({ resolver: zodResolver(jobLimitsSchema), defaultValues: { specRevision: view.job.specRevision, limits: view.limits } });
+  const form = useForm<JobLimitsInput, unknown, JobLimitsValues>({
+    resolver: zodResolver(jobLimitsSchema),
+    defaultValues: { specRevision: view.job.specRevision, limits: view.limits },
+  });
   const save = useMutation({
     mutationFn: (v: JobLimitsValues) => api<LimitsSaved>(`/api/jobs/${id}/limits`, { method: "PUT", json: v }),
     onSuccess: async (res) => {
       const { result: _r, ...fresh } = res;
       qc.setQueryData(keys.limits(id), fresh);
       form.reset({ specRevision: res.job.specRevision, limits: res.limits });
-      await Promise.all([qc.invalidateQueries({ queryKey: keys.job(id) }), qc.invalidateQueries({ queryKey: keys.jobs }), qc.invalidateQueries({ queryKey: ["flags"] }), qc.invalidateQueries({ queryKey: ["flag"] })]);
+      await Promise.all([
+        qc.invalidateQueries({ queryKey: keys.job(id) }),
+        qc.invalidateQueries({ queryKey: keys.jobs }),
+        qc.invalidateQueries({ queryKey: ["flags"] }),
+        qc.invalidateQueries({ queryKey: ["flag"] }),
+      ]);
     },
     onError: (err) => applyFieldErrors(err, form.setError as never),
   });
@@ -34,20 +42,37 @@ function LimitsForm({ view }: { view: JobLimitsView }) {
   return (
     <FormProvider {...form}>
       <form noValidate onSubmit={form.handleSubmit((v) => save.mutate(v))} className="flex flex-col gap-5">
-        <Notice title="Saving re-judges the job">Every current reading and computed value of this job is checked again against the limits you save. Flags open for values that fall outside and close for values now in spec; each change is in the audit trail with the limits before and after.</Notice>
+        <Notice title="Saving re-judges the job">
+          Every current reading and computed value of this job is checked again against the limits you save. Flags open
+          for values that fall outside and close for values now in spec; each change is in the audit trail with the
+          limits before and after.
+        </Notice>
         <SpecLimitsEditor lengthUnit={view.job.unitSystem} />
         {/* The outcome sits in the bar that stays on screen, beside the button that caused it. */}
         <div className="sticky bottom-0 flex flex-col gap-2 border-t-2 border-rule bg-paper py-3">
           <ServerError error={save.error} />
-          {form.formState.submitCount > 0 && !form.formState.isValid && <p role="alert" className="font-medium text-fail">Some limits need fixing; each one says what to change.</p>}
+          {form.formState.submitCount > 0 && !form.formState.isValid && (
+            <p role="alert" className="font-medium text-fail">
+              Some limits need fixing; each one says what to change.
+            </p>
+          )}
           {r && !form.formState.isDirty && (
             <p role="status" className="rounded-tool border-2 border-pass bg-pass-soft p-3 font-medium text-ink">
-              Saved as revision {save.data!.job.specRevision}: {plural(r.reevaluated, "reading")} re-judged with a new result, {plural(r.opened, "flag")} opened, {plural(r.closed, "flag")} closed, {plural(r.updated, "flag")} updated.
+              Saved as revision {save.data!.job.specRevision}: {plural(r.reevaluated, "reading")} re-judged with a new
+              result, {plural(r.opened, "flag")} opened, {plural(r.closed, "flag")} closed, {plural(r.updated, "flag")}{" "}
+              updated.
             </p>
           )}
           <div className="flex gap-3">
-            <Button type="submit" big disabled={save.isPending}>{save.isPending ? "Saving and re-judging…" : "Save limits"}</Button>
-            <a href={`/desk/jobs/${id}`} className="inline-flex min-h-16 items-center rounded-tool border-2 border-rule bg-panel px-6 text-lg font-semibold">Back to the job</a>
+            <Button type="submit" big disabled={save.isPending}>
+              {save.isPending ? "Saving and re-judging…" : "Save limits"}
+            </Button>
+            <a
+              href={`/desk/jobs/${id}`}
+              className="inline-flex min-h-16 items-center rounded-tool border-2 border-rule bg-panel px-6 text-lg font-semibold"
+            >
+              Back to the job
+            </a>
           </div>
         </div>
       </form>
@@ -65,9 +90,18 @@ export function JobLimitsEditor({ jobId }: { jobId: number }) {
       <div>
         <span className="font-mono text-sm text-muted">{job.code}</span>
         <h1 className="text-3xl font-semibold">Limits · {job.title}</h1>
-        <p className="text-muted">Revision {job.specRevision}. These are the job&apos;s own limits; the spec sheet it started from is not changed.</p>
+        <p className="text-muted">
+          Revision {job.specRevision}. These are the job&apos;s own limits; the spec sheet it started from is not
+          changed.
+        </p>
       </div>
-      {job.locked ? <Notice title="Locked">This job is {job.status}; its limits cannot change until the inspector voids the release.</Notice> : <LimitsForm view={q.data} />}
+      {job.locked ? (
+        <Notice title="Locked">
+          This job is {job.status}; its limits cannot change until the inspector voids the release.
+        </Notice>
+      ) : (
+        <LimitsForm view={q.data} />
+      )}
     </div>
   );
 }

@@ -18,11 +18,18 @@ const NEXT_STATUS: Record<string, { to: "measuring" | "review"; words: string } 
   intake: { to: "measuring", words: "Start measuring" },
   measuring: { to: "review", words: "Send to review" },
 };
-const materialWords = (m: string | null) => (m ? (EXPANSION_COEFFICIENTS as Record<string, { label: string }>)[m]?.label ?? m : "not recorded");
-const btn = "inline-flex min-h-11 items-center rounded-tool border-2 border-rule bg-panel px-4 font-semibold hover:border-steel";
+const materialWords = (m: string | null) =>
+  m ? ((EXPANSION_COEFFICIENTS as Record<string, { label: string }>)[m]?.label ?? m) : "not recorded";
+const btn =
+  "inline-flex min-h-11 items-center rounded-tool border-2 border-rule bg-panel px-4 font-semibold hover:border-steel";
 
 function Fact({ label, children }: { label: string; children: ReactNode }) {
-  return <div className="flex flex-col"><dt className="text-sm text-muted">{label}</dt><dd className="font-medium">{children}</dd></div>;
+  return (
+    <div className="flex flex-col">
+      <dt className="text-sm text-muted">{label}</dt>
+      <dd className="font-medium">{children}</dd>
+    </div>
+  );
 }
 
 function Facts({ d }: { d: JobDetail }) {
@@ -30,9 +37,23 @@ function Facts({ d }: { d: JobDetail }) {
   const u = d.job.unitSystem;
   return (
     <dl className="grid gap-4 rounded-tool border-2 border-rule bg-panel p-4 sm:grid-cols-2 lg:grid-cols-4">
-      <Fact label="Customer">{d.customer.name}{d.customer.email && <span className="block text-sm text-muted">{d.customer.email}</span>}{d.customer.phone && <span className="block text-sm text-muted">{d.customer.phone}</span>}</Fact>
-      <Fact label="Engine">{e.description}<span className="block text-sm text-muted">{e.cylinders} cylinders, {e.layout === "v" ? "V" : e.layout}, {e.mains} mains, {e.valvesPerCylinder} valves a cylinder</span></Fact>
-      <Fact label="Nominal bore × stroke"><span className="tabular">{e.nominalBore} × {e.nominalStroke} {u}</span></Fact>
+      <Fact label="Customer">
+        {d.customer.name}
+        {d.customer.email && <span className="block text-sm text-muted">{d.customer.email}</span>}
+        {d.customer.phone && <span className="block text-sm text-muted">{d.customer.phone}</span>}
+      </Fact>
+      <Fact label="Engine">
+        {e.description}
+        <span className="block text-sm text-muted">
+          {e.cylinders} cylinders, {e.layout === "v" ? "V" : e.layout}, {e.mains} mains, {e.valvesPerCylinder} valves a
+          cylinder
+        </span>
+      </Fact>
+      <Fact label="Nominal bore × stroke">
+        <span className="tabular">
+          {e.nominalBore} × {e.nominalStroke} {u}
+        </span>
+      </Fact>
       <Fact label="Units">{u === "mm" ? "Metric (mm, N·m)" : "Inch (in, lbf·ft)"}</Fact>
       <Fact label="Materials">
         <span className="block">Block: {materialWords(e.blockMaterial)}</span>
@@ -40,13 +61,30 @@ function Facts({ d }: { d: JobDetail }) {
         <span className="block text-sm text-muted">Pistons: {materialWords(e.pistonMaterial)}</span>
       </Fact>
       <Fact label="Serials">
-        <span className="block text-sm">Block <span className="font-mono">{e.blockSerial ?? "not recorded"}</span></span>
-        <span className="block text-sm">Crank <span className="font-mono">{e.crankSerial ?? "not recorded"}</span></span>
-        <span className="block text-sm">Heads <span className="font-mono">{e.headSerials ?? "not recorded"}</span></span>
+        <span className="block text-sm">
+          Block <span className="font-mono">{e.blockSerial ?? "not recorded"}</span>
+        </span>
+        <span className="block text-sm">
+          Crank <span className="font-mono">{e.crankSerial ?? "not recorded"}</span>
+        </span>
+        <span className="block text-sm">
+          Heads <span className="font-mono">{e.headSerials ?? "not recorded"}</span>
+        </span>
       </Fact>
-      <Fact label="Spec sheet">{d.job.templateName ?? "Template since deleted"}<span className="block text-sm text-muted">{d.job.limitCount} limits on the job · revision {d.job.specRevision}</span></Fact>
+      <Fact label="Spec sheet">
+        {d.job.templateName ?? "Template since deleted"}
+        <span className="block text-sm text-muted">
+          {d.job.limitCount} limits on the job · revision {d.job.specRevision}
+        </span>
+      </Fact>
       <Fact label="Due">{d.job.dueDate ?? "No date"}</Fact>
-      {d.job.notes && <div className="sm:col-span-2 lg:col-span-4"><Fact label="Notes"><span className="whitespace-pre-line">{d.job.notes}</span></Fact></div>}
+      {d.job.notes && (
+        <div className="sm:col-span-2 lg:col-span-4">
+          <Fact label="Notes">
+            <span className="whitespace-pre-line">{d.job.notes}</span>
+          </Fact>
+        </div>
+      )}
     </dl>
   );
 }
@@ -55,7 +93,8 @@ function StatusMove({ d }: { d: JobDetail }) {
   const qc = useQueryClient();
   const next = NEXT_STATUS[d.job.status];
   const move = useMutation({
-    mutationFn: (status: "measuring" | "review") => api<JobDetail>(`/api/jobs/${d.job.id}`, { method: "PATCH", json: { ...editValuesOf(d), status } }),
+    mutationFn: (status: "measuring" | "review") =>
+      api<JobDetail>(`/api/jobs/${d.job.id}`, { method: "PATCH", json: { ...editValuesOf(d), status } }),
     onSuccess: (res) => {
       qc.setQueryData(keys.job(d.job.id), res);
       return qc.invalidateQueries({ queryKey: keys.jobs });
@@ -64,8 +103,18 @@ function StatusMove({ d }: { d: JobDetail }) {
   if (!next) return null;
   return (
     <>
-      <Button onClick={() => move.mutate(next.to)} disabled={move.isPending} title={`Status becomes “${STATUS_WORDS[next.to]}”`}>{move.isPending ? "Saving…" : next.words}</Button>
-      {move.error && <div className="w-full"><ServerError error={move.error} /></div>}
+      <Button
+        onClick={() => move.mutate(next.to)}
+        disabled={move.isPending}
+        title={`Status becomes “${STATUS_WORDS[next.to]}”`}
+      >
+        {move.isPending ? "Saving…" : next.words}
+      </Button>
+      {move.error && (
+        <div className="w-full">
+          <ServerError error={move.error} />
+        </div>
+      )}
     </>
   );
 }
@@ -75,30 +124,53 @@ function Links({ d, canEdit }: { d: JobDetail; canEdit: boolean }) {
   const f = d.flags;
   return (
     <nav aria-label="About this job" className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
-      <Link className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel" href={`/desk/flags?job=${id}`}>
+      <Link
+        className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel"
+        href={`/desk/flags?job=${id}`}
+      >
         <span className="text-lg font-semibold">Flags</span>
-        <span className="text-sm text-muted">{f.open} open · {f.disposed} awaiting re-check · {f.closed} closed</span>
+        <span className="text-sm text-muted">
+          {f.open} open · {f.disposed} awaiting re-check · {f.closed} closed
+        </span>
       </Link>
-      <Link className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel" href={`/desk/jobs/${id}/maps`}>
+      <Link
+        className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel"
+        href={`/desk/jobs/${id}/maps`}
+      >
         <span className="text-lg font-semibold">Bore and journal maps</span>
         <span className="text-sm text-muted">Diameter by depth and axis, taper and out-of-round, deck corners</span>
       </Link>
       {canEdit && (
-        <Link className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel" href={`/desk/jobs/${id}/plan`}>
+        <Link
+          className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel"
+          href={`/desk/jobs/${id}/plan`}
+        >
           <span className="text-lg font-semibold">Build plan</span>
-          <span className="text-sm text-muted">{d.job.hasBuildPlan ? "Displacement, compression, deck and valve lift" : "Not entered yet"}</span>
+          <span className="text-sm text-muted">
+            {d.job.hasBuildPlan ? "Displacement, compression, deck and valve lift" : "Not entered yet"}
+          </span>
         </Link>
       )}
       {canEdit && (
-        <Link className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel" href={`/desk/jobs/${id}/limits`}>
+        <Link
+          className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel"
+          href={`/desk/jobs/${id}/limits`}
+        >
           <span className="text-lg font-semibold">Limits</span>
-          <span className="text-sm text-muted">{d.job.limitCount} limits · revision {d.job.specRevision}{d.job.locked ? " · locked" : ""}</span>
+          <span className="text-sm text-muted">
+            {d.job.limitCount} limits · revision {d.job.specRevision}
+            {d.job.locked ? " · locked" : ""}
+          </span>
         </Link>
       )}
       <div className="flex flex-col gap-1 rounded-tool border-2 border-rule bg-panel p-4">
         <span className="text-lg font-semibold">Export</span>
-        <a className="font-medium text-steel underline" href={`/api/jobs/${id}/readings.csv`} download>Current readings and computed values (CSV)</a>
-        <a className="text-sm text-steel underline" href={`/api/jobs/${id}/readings.csv?history=1`} download>With earlier readings (CSV)</a>
+        <a className="font-medium text-steel underline" href={`/api/jobs/${id}/readings.csv`} download>
+          Current readings and computed values (CSV)
+        </a>
+        <a className="text-sm text-steel underline" href={`/api/jobs/${id}/readings.csv?history=1`} download>
+          With earlier readings (CSV)
+        </a>
       </div>
     </nav>
   );
@@ -116,16 +188,25 @@ export function JobPage({ jobId, canEdit }: { jobId: number; canEdit: boolean })
         <div className="flex flex-col gap-1">
           <span className="font-mono text-sm text-muted">{d.job.code}</span>
           <h1 className="text-3xl font-semibold">{d.job.title}</h1>
-          <span><JobStatusTag status={d.job.status} /></span>
+          <span>
+            <JobStatusTag status={d.job.status} />
+          </span>
         </div>
         {editable && (
           <div className="flex flex-wrap gap-2">
             <StatusMove d={d} />
-            <Link className={btn} href={`/desk/jobs/${jobId}/edit`}>Edit job</Link>
+            <Link className={btn} href={`/desk/jobs/${jobId}/edit`}>
+              Edit job
+            </Link>
           </div>
         )}
       </div>
-      {d.job.locked && <Notice title="Locked">This job is {d.job.status === "closed" ? "closed" : "released"}: its limits, plan and details cannot change until the inspector voids the release.</Notice>}
+      {d.job.locked && (
+        <Notice title="Locked">
+          This job is {d.job.status === "closed" ? "closed" : "released"}: its limits, plan and details cannot change
+          until the inspector voids the release.
+        </Notice>
+      )}
       <Facts d={d} />
       <Links d={d} canEdit={canEdit} />
       <JobSummary summary={d.summary} />

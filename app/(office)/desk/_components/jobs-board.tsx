@@ -25,22 +25,52 @@ const COMPARE: Record<SortKey, (a: BoardJob, b: BoardJob) => number> = {
   flags: (a, b) => a.flags.open - b.flags.open || a.flags.disposed - b.flags.disposed,
 };
 
-function visible(jobs: BoardJob[], filter: Filter, query: string, flagged: boolean, sort: { key: SortKey; asc: boolean }) {
+function visible(
+  jobs: BoardJob[],
+  filter: Filter,
+  query: string,
+  flagged: boolean,
+  sort: { key: SortKey; asc: boolean },
+) {
   const q = query.trim().toLowerCase();
   return jobs
-    .filter((j) => filter === "all" || (filter === "active" ? j.status !== "released" && j.status !== "closed" : j.status === filter))
+    .filter(
+      (j) =>
+        filter === "all" ||
+        (filter === "active" ? j.status !== "released" && j.status !== "closed" : j.status === filter),
+    )
     .filter((j) => !flagged || j.flags.open > 0)
     .filter((j) => !q || [j.code, j.title, j.customer, j.engine].some((s) => s.toLowerCase().includes(q)))
     .sort((a, b) => (sort.asc ? 1 : -1) * (COMPARE[sort.key](a, b) || a.id - b.id));
 }
 
-function SortHeader({ k, label, sort, setSort }: { k: SortKey; label: string; sort: { key: SortKey; asc: boolean }; setSort: (s: { key: SortKey; asc: boolean }) => void }) {
+function SortHeader({
+  k,
+  label,
+  sort,
+  setSort,
+}: {
+  k: SortKey;
+  label: string;
+  sort: { key: SortKey; asc: boolean };
+  setSort: (s: { key: SortKey; asc: boolean }) => void;
+}) {
   const active = sort.key === k;
   return (
-    <th scope="col" aria-sort={active ? (sort.asc ? "ascending" : "descending") : "none"} className="px-3 py-2 text-left">
-      <button type="button" onClick={() => setSort({ key: k, asc: active ? !sort.asc : true })} className="inline-flex min-h-11 items-center gap-1 font-semibold hover:text-steel">
+    <th
+      scope="col"
+      aria-sort={active ? (sort.asc ? "ascending" : "descending") : "none"}
+      className="px-3 py-2 text-left"
+    >
+      <button
+        type="button"
+        onClick={() => setSort({ key: k, asc: active ? !sort.asc : true })}
+        className="inline-flex min-h-11 items-center gap-1 font-semibold hover:text-steel"
+      >
         {label}
-        <span aria-hidden="true" className="text-xs text-muted">{active ? (sort.asc ? "▲" : "▼") : "↕"}</span>
+        <span aria-hidden="true" className="text-xs text-muted">
+          {active ? (sort.asc ? "▲" : "▼") : "↕"}
+        </span>
       </button>
     </th>
   );
@@ -49,7 +79,14 @@ function SortHeader({ k, label, sort, setSort }: { k: SortKey; label: string; so
 function DueCell({ job, today }: { job: BoardJob; today: string }) {
   if (!job.dueDate) return <span className="text-muted">No date</span>;
   const late = job.dueDate < today && job.status !== "released" && job.status !== "closed";
-  return <span className="whitespace-nowrap tabular">{job.dueDate}{late && <span className="ml-2 rounded-tool border border-fail px-1 text-xs font-semibold text-fail">overdue</span>}</span>;
+  return (
+    <span className="whitespace-nowrap tabular">
+      {job.dueDate}
+      {late && (
+        <span className="ml-2 rounded-tool border border-fail px-1 text-xs font-semibold text-fail">overdue</span>
+      )}
+    </span>
+  );
 }
 
 function Row({ j, today }: { j: BoardJob; today: string }) {
@@ -62,11 +99,26 @@ function Row({ j, today }: { j: BoardJob; today: string }) {
         </Link>
       </td>
       <td className="px-3 py-3">{j.customer}</td>
-      <td className="px-3 py-3"><span className="block max-w-64">{j.engine}</span><span className="text-sm text-muted">{j.unitSystem === "in" ? "inch" : "metric"}</span></td>
-      <td className="px-3 py-3"><JobStatusTag status={j.status} /></td>
-      <td className="px-3 py-3">{j.progress ? <JobsProgress {...j.progress} /> : <span className="text-sm text-muted">Closed: record final</span>}</td>
-      <td className="px-3 py-3"><JobsFlagCount {...j.flags} /></td>
-      <td className="px-3 py-3"><DueCell job={j} today={today} /></td>
+      <td className="px-3 py-3">
+        <span className="block max-w-64">{j.engine}</span>
+        <span className="text-sm text-muted">{j.unitSystem === "in" ? "inch" : "metric"}</span>
+      </td>
+      <td className="px-3 py-3">
+        <JobStatusTag status={j.status} />
+      </td>
+      <td className="px-3 py-3">
+        {j.progress ? (
+          <JobsProgress {...j.progress} />
+        ) : (
+          <span className="text-sm text-muted">Closed: record final</span>
+        )}
+      </td>
+      <td className="px-3 py-3">
+        <JobsFlagCount {...j.flags} />
+      </td>
+      <td className="px-3 py-3">
+        <DueCell job={j} today={today} />
+      </td>
     </tr>
   );
 }
@@ -77,7 +129,10 @@ export function JobsBoard({ canCreate }: { canCreate: boolean }) {
   const [query, setQuery] = useState("");
   const [flagged, setFlagged] = useState(false);
   const [sort, setSort] = useState<{ key: SortKey; asc: boolean }>({ key: "due", asc: true });
-  const rows = useMemo(() => visible(board.data ?? [], filter, query, flagged, sort), [board.data, filter, query, flagged, sort]);
+  const rows = useMemo(
+    () => visible(board.data ?? [], filter, query, flagged, sort),
+    [board.data, filter, query, flagged, sort],
+  );
   const today = new Date().toLocaleDateString("en-CA"); // YYYY-MM-DD in the shop's own time zone
 
   if (board.isPending) return <Loading what="the jobs" />;
@@ -85,7 +140,14 @@ export function JobsBoard({ canCreate }: { canCreate: boolean }) {
   if (board.data.length === 0) {
     return (
       <p className="rounded-tool border-2 border-dashed border-rule p-6 text-muted">
-        No jobs yet. {canCreate ? <Link className="font-semibold text-steel underline" href="/desk/jobs/new">Create the first job</Link> : "The lead builder creates them."}
+        No jobs yet.{" "}
+        {canCreate ? (
+          <Link className="font-semibold text-steel underline" href="/desk/jobs/new">
+            Create the first job
+          </Link>
+        ) : (
+          "The lead builder creates them."
+        )}
       </p>
     );
   }
@@ -94,23 +156,55 @@ export function JobsBoard({ canCreate }: { canCreate: boolean }) {
       <div className="flex flex-wrap items-end gap-3">
         <label className="flex flex-col gap-1 text-sm font-medium">
           Search
-          <input type="search" value={query} onChange={(e) => setQuery(e.target.value)} placeholder="Code, title, customer or engine" className="min-h-11 w-72 rounded-tool border-2 border-rule bg-paper px-3 text-base" />
+          <input
+            type="search"
+            value={query}
+            onChange={(e) => setQuery(e.target.value)}
+            placeholder="Code, title, customer or engine"
+            className="min-h-11 w-72 rounded-tool border-2 border-rule bg-paper px-3 text-base"
+          />
         </label>
         <div role="group" aria-label="Status" className="flex flex-wrap gap-1">
           {FILTERS.map(([value, label]) => (
-            <button key={value} type="button" aria-pressed={filter === value} onClick={() => setFilter(value)} className="min-h-11 rounded-tool border-2 border-rule px-3 text-sm font-medium aria-pressed:border-steel aria-pressed:bg-steel aria-pressed:text-steel-ink">
+            <button
+              key={value}
+              type="button"
+              aria-pressed={filter === value}
+              onClick={() => setFilter(value)}
+              className="min-h-11 rounded-tool border-2 border-rule px-3 text-sm font-medium aria-pressed:border-steel aria-pressed:bg-steel aria-pressed:text-steel-ink"
+            >
               {label}
             </button>
           ))}
         </div>
         <label className="flex min-h-11 items-center gap-2 text-sm font-medium">
-          <input type="checkbox" checked={flagged} onChange={(e) => setFlagged(e.target.checked)} className="h-5 w-5 accent-steel" />
+          <input
+            type="checkbox"
+            checked={flagged}
+            onChange={(e) => setFlagged(e.target.checked)}
+            className="h-5 w-5 accent-steel"
+          />
           Only jobs with open flags
         </label>
-        <span className="ml-auto text-sm text-muted" role="status">{rows.length} of {board.data.length} jobs</span>
+        <span className="ml-auto text-sm text-muted" role="status">
+          {rows.length} of {board.data.length} jobs
+        </span>
       </div>
       {rows.length === 0 ? (
-        <p className="rounded-tool border-2 border-dashed border-rule p-6 text-muted">No job matches these filters. <button type="button" className="font-semibold text-steel underline" onClick={() => { setFilter("all"); setQuery(""); setFlagged(false); }}>Show all jobs</button></p>
+        <p className="rounded-tool border-2 border-dashed border-rule p-6 text-muted">
+          No job matches these filters.{" "}
+          <button
+            type="button"
+            className="font-semibold text-steel underline"
+            onClick={() => {
+              setFilter("all");
+              setQuery("");
+              setFlagged(false);
+            }}
+          >
+            Show all jobs
+          </button>
+        </p>
       ) : (
         <div className="overflow-x-auto rounded-tool border-2 border-rule bg-panel">
           <table className="w-full border-collapse text-left">
@@ -118,14 +212,20 @@ export function JobsBoard({ canCreate }: { canCreate: boolean }) {
               <tr>
                 <SortHeader k="code" label="Job" sort={sort} setSort={setSort} />
                 <SortHeader k="customer" label="Customer" sort={sort} setSort={setSort} />
-                <th scope="col" className="px-3 py-2 font-semibold">Engine</th>
+                <th scope="col" className="px-3 py-2 font-semibold">
+                  Engine
+                </th>
                 <SortHeader k="status" label="Status" sort={sort} setSort={setSort} />
                 <SortHeader k="progress" label="Required stations" sort={sort} setSort={setSort} />
                 <SortHeader k="flags" label="Flags" sort={sort} setSort={setSort} />
                 <SortHeader k="due" label="Due" sort={sort} setSort={setSort} />
               </tr>
             </thead>
-            <tbody>{rows.map((j) => <Row key={j.id} j={j} today={today} />)}</tbody>
+            <tbody>
+              {rows.map((j) => (
+                <Row key={j.id} j={j} today={today} />
+              ))}
+            </tbody>
           </table>
         </div>
       )}

@@ -23,10 +23,26 @@ export const keys = {
 
 export type { BoardJob, BuildPlanView, CustomerRecord, JobDetail, JobLimitsView, TemplateRecord, TemplateSummary };
 
-export const useJobBoard = () => useQuery({ queryKey: keys.jobs, queryFn: () => api<{ jobs: BoardJob[] }>("/api/jobs").then((r) => r.jobs) });
-export const useJob = (id: number) => useQuery({ queryKey: keys.job(id), queryFn: () => api<JobDetail>(`/api/jobs/${id}`) });
-export const useCustomers = () => useQuery({ queryKey: keys.customers, queryFn: () => api<{ customers: CustomerRecord[] }>("/api/customers").then((r) => r.customers) });
-export const useTemplates = () => useQuery({ queryKey: keys.specs, queryFn: () => api<{ templates: TemplateSummary[] }>("/api/specs").then((r) => r.templates) });
-export const useTemplate = (id: number) => useQuery({ queryKey: keys.spec(id), queryFn: () => api<{ template: TemplateRecord; jobCount: number }>(`/api/specs/${id}`) });
-export const useJobLimits = (id: number) => useQuery({ queryKey: keys.limits(id), queryFn: () => api<JobLimitsView>(`/api/jobs/${id}/limits`) });
-export const useBuildPlan = (id: number) => useQuery({ queryKey: keys.plan(id), queryFn: () => api<BuildPlanView>(`/api/jobs/${id}/build-plan`) });
+export const useJobBoard = () =>
+  useQuery({ queryKey: keys.jobs, queryFn: () => api<{ jobs: BoardJob[] }>("/api/jobs").then((r) => r.jobs) });
+export const useJob = (id: number) =>
+  useQuery({ queryKey: keys.job(id), queryFn: () => api<JobDetail>(`/api/jobs/${id}`) });
+export const useCustomers = () =>
+  useQuery({
+    queryKey: keys.customers,
+    queryFn: () => api<{ customers: CustomerRecord[] }>("/api/customers").then((r) => r.customers),
+  });
+export const useTemplates = () =>
+  useQuery({
+    queryKey: keys.specs,
+    queryFn: () => api<{ templates: TemplateSummary[] }>("/api/specs").then((r) => r.templates),
+  });
+export const useTemplate = (id: number) =>
+  useQuery({
+    queryKey: keys.spec(id),
+    queryFn: () => api<{ template: TemplateRecord; jobCount: number }>(`/api/specs/${id}`),
+  });
+export const useJobLimits = (id: number) =>
+  useQuery({ queryKey: keys.limits(id), queryFn: () => api<JobLimitsView>(`/api/jobs/${id}/limits`) });
+export const useBuildPlan = (id: number) =>
+  useQuery({ queryKey: keys.plan(id), queryFn: () => api<BuildPlanView>(`/api/jobs/${id}/build-plan`) });

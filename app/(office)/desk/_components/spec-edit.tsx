@@ -12,8 +12,13 @@ export function SpecEdit({ templateId }: { templateId: number }) {
     <>
       <div className="flex flex-wrap items-baseline gap-3">
         <h1 className="text-3xl font-semibold">{q.data.template.name}</h1>
-        <span className="text-muted">version {q.data.template.version}{q.data.template.archived ? " · archived" : ""}</span>
-        <a href={`/api/specs/${templateId}/export`} download className="ml-auto font-medium text-steel underline">Export as a file</a>
+        <span className="text-muted">
+          version {q.data.template.version}
+          {q.data.template.archived ? " · archived" : ""}
+        </span>
+        <a href={`/api/specs/${templateId}/export`} download className="ml-auto font-medium text-steel underline">
+          Export as a file
+        </a>
       </div>
       <SpecTemplateForm template={q.data.template} jobCount={q.data.jobCount} />
     </>

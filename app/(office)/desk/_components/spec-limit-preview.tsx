@@ -36,5 +36,9 @@ export function SpecLimitPreview({ limit }: { limit: LimitInput }) {
     text = null; // not complete yet; the fields say what is missing when saved
   }
   if (!text) return null;
-  return <p className="text-sm text-muted" aria-live="polite">{text}</p>;
+  return (
+    <p className="text-sm text-muted" aria-live="polite">
+      {text}
+    </p>
+  );
 }

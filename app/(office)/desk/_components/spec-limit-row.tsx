@@ -13,15 +13,30 @@ import { SpecLimitPreview } from "./spec-limit-preview";
 type Values = { limits: LimitInput[]; unitSystem?: "in" | "mm" };
 
 const FIELD_WORDS: Record<string, string> = {
-  min: "Minimum", max: "Maximum", nominal: "Nominal size", tolPlus: "Plus tolerance", tolMinus: "Minus tolerance",
-  perInchMin: "Minimum", perInchMax: "Maximum", isoClass: "ISO 286 class",
+  min: "Minimum",
+  max: "Maximum",
+  nominal: "Nominal size",
+  tolPlus: "Plus tolerance",
+  tolMinus: "Minus tolerance",
+  perInchMin: "Minimum",
+  perInchMax: "Maximum",
+  isoClass: "ISO 286 class",
 };
 const GAUGE_WORDS: Record<(typeof GAUGE_KINDS)[number], string> = {
-  micrometer: "Micrometer", "bore-gauge": "Bore gauge", "dial-bore-gauge": "Dial bore gauge", feeler: "Feeler gauge",
-  "dial-indicator": "Dial indicator", "stretch-gauge": "Stretch gauge", "deck-gauge": "Deck gauge", "torque-wrench": "Torque wrench",
+  micrometer: "Micrometer",
+  "bore-gauge": "Bore gauge",
+  "dial-bore-gauge": "Dial bore gauge",
+  feeler: "Feeler gauge",
+  "dial-indicator": "Dial indicator",
+  "stretch-gauge": "Stretch gauge",
+  "deck-gauge": "Deck gauge",
+  "torque-wrench": "Torque wrench",
 };
-const BY_SECTION = Object.values(CHARACTERISTICS).reduce<Record<string, CharacteristicId[]>>((acc, c) => ((acc[c.section] ??= []).push(c.id), acc), {});
-const unitWord = (u?: string) => (u === "lbf_ft" ? "lbf·ft" : u === "nm" ? "N·m" : u ?? "");
+const BY_SECTION = Object.values(CHARACTERISTICS).reduce<Record<string, CharacteristicId[]>>(
+  (acc, c) => ((acc[c.section] ??= []).push(c.id), acc),
+  {},
+);
+const unitWord = (u?: string) => (u === "lbf_ft" ? "lbf·ft" : u === "nm" ? "N·m" : (u ?? ""));
 const empty = { setValueAs: (v: unknown) => (v === "" ? null : v) };
 
 function CharacteristicOptions() {
@@ -29,17 +44,37 @@ function CharacteristicOptions() {
     <>
       {(Object.keys(BY_SECTION) as SectionId[]).map((s) => (
         <optgroup key={s} label={SECTION_LABELS[s]}>
-          {BY_SECTION[s].map((id) => <option key={id} value={id}>{CHARACTERISTICS[id].label}{CHARACTERISTICS[id].derived ? " (computed)" : ""}</option>)}
+          {BY_SECTION[s].map((id) => (
+            <option key={id} value={id}>
+              {CHARACTERISTICS[id].label}
+              {CHARACTERISTICS[id].derived ? " (computed)" : ""}
+            </option>
+          ))}
         </optgroup>
       ))}
     </>
   );
 }
 
-export function SpecLimitRow({ index, count, onMove, onRemove, defaultLengthUnit }: {
-  index: number; count: number; onMove: (from: number, to: number) => void; onRemove: (i: number) => void; defaultLengthUnit: "in" | "mm";
+export function SpecLimitRow({
+  index,
+  count,
+  onMove,
+  onRemove,
+  defaultLengthUnit,
+}: {
+  index: number;
+  count: number;
+  onMove: (from: number, to: number) => void;
+  onRemove: (i: number) => void;
+  defaultLengthUnit: "in" | "mm";
 }) {
-  const { register, setValue, getValues, formState: { errors } } = useFormContext<Values>();
+  const {
+    register,
+    setValue,
+    getValues,
+    formState: { errors },
+  } = useFormContext<Values>();
   const limit = useWatch<Values, `limits.${number}`>({ name: `limits.${index}` }) as LimitInput | undefined;
   const e = (errors.limits?.[index] ?? {}) as Record<string, { message?: string } | undefined>;
   const info = limit?.characteristic ? CHARACTERISTICS[limit.characteristic] : undefined;
@@ -58,42 +93,132 @@ export function SpecLimitRow({ index, count, onMove, onRemove, defaultLengthUnit
   };
 
   return (
-    <li className="flex flex-col gap-3 rounded-tool border-2 border-rule bg-panel p-4" aria-label={`Limit ${index + 1}${info ? `: ${info.label}` : ""}`}>
+    <li
+      className="flex flex-col gap-3 rounded-tool border-2 border-rule bg-panel p-4"
+      aria-label={`Limit ${index + 1}${info ? `: ${info.label}` : ""}`}
+    >
       <div className="grid gap-3 md:grid-cols-12">
-        <SelectField wrapClass="md:col-span-4" label={`Limit ${index + 1} · characteristic`} error={messageOf(e.characteristic)} {...register(`${p}.characteristic`, { onChange: (ev) => onCharacteristic(ev.target.value) })}>
+        <SelectField
+          wrapClass="md:col-span-4"
+          label={`Limit ${index + 1} · characteristic`}
+          error={messageOf(e.characteristic)}
+          {...register(`${p}.characteristic`, { onChange: (ev) => onCharacteristic(ev.target.value) })}
+        >
           <option value="">Pick one…</option>
           <CharacteristicOptions />
         </SelectField>
-        <Field wrapClass="md:col-span-4" label="Stations" className="font-mono" spellCheck={false} autoComplete="off" error={messageOf(e.stationPattern)}
-          hint={info ? <>Written <span className="font-mono">{STATION_FORMS[info.id]}</span>; * for any part</> : "Pick the characteristic to see how its stations are written"}
-          {...register(`${p}.stationPattern`)} />
-        <SelectField wrapClass="md:col-span-3" label="Limit type" error={messageOf(e.limitType)} {...register(`${p}.limitType`)}>
-          {LIMIT_TYPES.map((t) => <option key={t} value={t} disabled={torque && (t === "per_inch" || t === "iso286")}>{LIMIT_TYPE_WORDS[t]}</option>)}
+        <Field
+          wrapClass="md:col-span-4"
+          label="Stations"
+          className="font-mono"
+          spellCheck={false}
+          autoComplete="off"
+          error={messageOf(e.stationPattern)}
+          hint={
+            info ? (
+              <>
+                Written <span className="font-mono">{STATION_FORMS[info.id]}</span>; * for any part
+              </>
+            ) : (
+              "Pick the characteristic to see how its stations are written"
+            )
+          }
+          {...register(`${p}.stationPattern`)}
+        />
+        <SelectField
+          wrapClass="md:col-span-3"
+          label="Limit type"
+          error={messageOf(e.limitType)}
+          {...register(`${p}.limitType`)}
+        >
+          {LIMIT_TYPES.map((t) => (
+            <option key={t} value={t} disabled={torque && (t === "per_inch" || t === "iso286")}>
+              {LIMIT_TYPE_WORDS[t]}
+            </option>
+          ))}
         </SelectField>
         <SelectField wrapClass="md:col-span-1" label="Unit" error={messageOf(e.unit)} {...register(`${p}.unit`)}>
-          {(torque ? ["lbf_ft", "nm"] : ["in", "mm"]).map((u) => <option key={u} value={u}>{u === "lbf_ft" ? "lbf·ft" : u === "nm" ? "N·m" : u}</option>)}
+          {(torque ? ["lbf_ft", "nm"] : ["in", "mm"]).map((u) => (
+            <option key={u} value={u}>
+              {u === "lbf_ft" ? "lbf·ft" : u === "nm" ? "N·m" : u}
+            </option>
+          ))}
         </SelectField>
         {(limit?.limitType ? LIMIT_FIELDS[limit.limitType] : []).map((f) =>
           f === "isoClass" ? (
-            <Field key={f} wrapClass="md:col-span-2" label={FIELD_WORDS[f]} placeholder="H7, g6, js6…" className="font-mono" error={messageOf(e[f])} {...register(`${p}.isoClass`)} />
+            <Field
+              key={f}
+              wrapClass="md:col-span-2"
+              label={FIELD_WORDS[f]}
+              placeholder="H7, g6, js6…"
+              className="font-mono"
+              error={messageOf(e[f])}
+              {...register(`${p}.isoClass`)}
+            />
           ) : (
-            <NumberField key={f} wrapClass="md:col-span-2" label={limit?.limitType === "iso286" ? "Basic size (optional)" : FIELD_WORDS[f]} suffix={f.startsWith("perInch") ? "/ in dia." : unitWord(limit?.unit)}
-              hint={limit?.limitType === "iso286" ? "Empty: the engine's nominal size" : undefined} error={messageOf(e[f])} {...register(`${p}.${f}`, asNumber)} />
+            <NumberField
+              key={f}
+              wrapClass="md:col-span-2"
+              label={limit?.limitType === "iso286" ? "Basic size (optional)" : FIELD_WORDS[f]}
+              suffix={f.startsWith("perInch") ? "/ in dia." : unitWord(limit?.unit)}
+              hint={limit?.limitType === "iso286" ? "Empty: the engine's nominal size" : undefined}
+              error={messageOf(e[f])}
+              {...register(`${p}.${f}`, asNumber)}
+            />
           ),
         )}
-        <SelectField wrapClass="md:col-span-2" label="Gauge expected" error={messageOf(e.gaugeKind)} {...register(`${p}.gaugeKind`, empty)}>
+        <SelectField
+          wrapClass="md:col-span-2"
+          label="Gauge expected"
+          error={messageOf(e.gaugeKind)}
+          {...register(`${p}.gaugeKind`, empty)}
+        >
           <option value="">Any / computed</option>
-          {GAUGE_KINDS.map((g) => <option key={g} value={g}>{GAUGE_WORDS[g]}</option>)}
+          {GAUGE_KINDS.map((g) => (
+            <option key={g} value={g}>
+              {GAUGE_WORDS[g]}
+            </option>
+          ))}
         </SelectField>
-        <Field wrapClass="md:col-span-2" label="Label (optional)" error={messageOf(e.label)} {...register(`${p}.label`)} />
-        <div className="flex items-end md:col-span-2"><CheckField label="Required for release" {...register(`${p}.required`)} /></div>
+        <Field
+          wrapClass="md:col-span-2"
+          label="Label (optional)"
+          error={messageOf(e.label)}
+          {...register(`${p}.label`)}
+        />
+        <div className="flex items-end md:col-span-2">
+          <CheckField label="Required for release" {...register(`${p}.required`)} />
+        </div>
       </div>
       <div className="flex flex-wrap items-center justify-between gap-2">
         {limit ? <SpecLimitPreview limit={limit} /> : <span />}
         <span className="flex gap-1">
-          <button type="button" className="min-h-11 rounded-tool border-2 border-rule px-3 text-sm disabled:opacity-40" disabled={index === 0} onClick={() => onMove(index, index - 1)} aria-label={`Move limit ${index + 1} up`}>Up</button>
-          <button type="button" className="min-h-11 rounded-tool border-2 border-rule px-3 text-sm disabled:opacity-40" disabled={index === count - 1} onClick={() => onMove(index, index + 1)} aria-label={`Move limit ${index + 1} down`}>Down</button>
-          <button type="button" className="min-h-11 rounded-tool border-2 border-fail px-3 text-sm font-semibold text-fail" onClick={() => onRemove(index)} aria-label={`Remove limit ${index + 1}`}>Remove</button>
+          <button
+            type="button"
+            className="min-h-11 rounded-tool border-2 border-rule px-3 text-sm disabled:opacity-40"
+            disabled={index === 0}
+            onClick={() => onMove(index, index - 1)}
+            aria-label={`Move limit ${index + 1} up`}
+          >
+            Up
+          </button>
+          <button
+            type="button"
+            className="min-h-11 rounded-tool border-2 border-rule px-3 text-sm disabled:opacity-40"
+            disabled={index === count - 1}
+            onClick={() => onMove(index, index + 1)}
+            aria-label={`Move limit ${index + 1} down`}
+          >
+            Down
+          </button>
+          <button
+            type="button"
+            className="min-h-11 rounded-tool border-2 border-fail px-3 text-sm font-semibold text-fail"
+            onClick={() => onRemove(index)}
+            aria-label={`Remove limit ${index + 1}`}
+          >
+            Remove
+          </button>
         </span>
       </div>
     </li>

@@ -16,7 +16,8 @@ export default async function FlagsPage() {
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h1 className="text-3xl font-semibold">Flags</h1>
           <p className="text-sm text-muted">
-            Values out of spec, marginal (within the gauge&apos;s uncertainty of a limit), or read with a gauge past its calibration due date.
+            Values out of spec, marginal (within the gauge&apos;s uncertainty of a limit), or read with a gauge past its
+            calibration due date.
             {actor.role === "lead" ? " Open one to decide." : " Read only for inspectors."}
           </p>
         </div>

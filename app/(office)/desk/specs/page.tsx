@@ -17,11 +17,18 @@ export default async function SpecsPage() {
         <div className="flex flex-wrap items-center justify-between gap-3">
           <div>
             <h1 className="text-3xl font-semibold">Spec sheets</h1>
-            <p className="text-muted">Templates per engine type and build. A new job copies one; editing a sheet never changes a job already started.</p>
+            <p className="text-muted">
+              Templates per engine type and build. A new job copies one; editing a sheet never changes a job already
+              started.
+            </p>
           </div>
           <div className="flex gap-2">
-            <Link href="/desk/specs/import" className={`${link} border-2 border-rule bg-panel hover:border-muted`}>Import a file</Link>
-            <Link href="/desk/specs/new" className={`${link} bg-steel text-steel-ink hover:brightness-110`}>New sheet</Link>
+            <Link href="/desk/specs/import" className={`${link} border-2 border-rule bg-panel hover:border-muted`}>
+              Import a file
+            </Link>
+            <Link href="/desk/specs/new" className={`${link} bg-steel text-steel-ink hover:brightness-110`}>
+              New sheet
+            </Link>
           </div>
         </div>
         <SpecList />

@@ -14,7 +14,10 @@ export default async function ReleaseJobPage({ params }: { params: Promise<{ job
     <>
       <AppHeader actor={actor} current={role === "inspector" ? "/release" : undefined} />
       <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
-        <Link href={role === "inspector" ? "/release" : `/desk/jobs/${jobId}`} className="text-sm font-medium text-steel underline">
+        <Link
+          href={role === "inspector" ? "/release" : `/desk/jobs/${jobId}`}
+          className="text-sm font-medium text-steel underline"
+        >
           {role === "inspector" ? "← All blocks for release" : "← Back to the job"}
         </Link>
         <ReleasePage jobId={Number(jobId)} role={role} accountName={actor.name} />

@@ -7,7 +7,9 @@ import { authed, parseId, readJson } from "@/lib/server/route";
 type P = { jobId: string };
 
 /** One job: header, engine, readings summary, flag counts. */
-export const GET = authed<P>(["lead", "admin", "inspector"], async ({ actor, params }) => getJobDetail(actor.shopId, parseId(params.jobId, "Job")));
+export const GET = authed<P>(["lead", "admin", "inspector"], async ({ actor, params }) =>
+  getJobDetail(actor.shopId, parseId(params.jobId, "Job")),
+);
 
 /** Edit the job (not its limits; those have their own route). Refused once released. */
 export const PATCH = authed<P>(["lead"], async ({ req, actor, params }) => {

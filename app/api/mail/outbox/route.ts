@@ -6,7 +6,10 @@ export const GET = authed(["admin"], async ({ actor }) => {
   const rows = await listOutbox(actor.shopId);
   return {
     messages: rows.map(({ payload: _p, dedupeKey: _d, ...m }) => ({
-      ...m, nextAttemptAt: m.nextAttemptAt.toISOString(), sentAt: m.sentAt?.toISOString() ?? null, createdAt: m.createdAt.toISOString(),
+      ...m,
+      nextAttemptAt: m.nextAttemptAt.toISOString(),
+      sentAt: m.sentAt?.toISOString() ?? null,
+      createdAt: m.createdAt.toISOString(),
     })),
   };
 });

@@ -6,7 +6,9 @@ import { authed, parseId, readJson } from "@/lib/server/route";
 type P = { jobId: string };
 
 /** The release page's data: checklist, reading counts, flags, releases (lib/schemas/release.ts). */
-export const GET = authed<P>(["inspector", "lead"], async ({ actor, params }) => releaseView(actor, parseId(params.jobId, "Job")));
+export const GET = authed<P>(["inspector", "lead"], async ({ actor, params }) =>
+  releaseView(actor, parseId(params.jobId, "Job")),
+);
 
 /** The inspector signs: typed full name + password again; only when the checklist is empty. */
 export const POST = authed<P>(["inspector"], async ({ req, actor, params }) => {

@@ -12,5 +12,8 @@ export const POST = authed(["lead", "admin"], async ({ req, actor }) => {
     throw new AppError("payload_too_large", "A spec sheet file is at most 1 MB; check that this is the right file");
   }
   const file = await readJson(req, templateFileSchema);
-  return Response.json({ template: await createTemplate(actor, file.template, "spec_template.import") }, { status: 201 });
+  return Response.json(
+    { template: await createTemplate(actor, file.template, "spec_template.import") },
+    { status: 201 },
+  );
 });

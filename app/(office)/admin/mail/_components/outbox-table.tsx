@@ -16,21 +16,40 @@ function Status({ m, maxAttempts }: { m: OutboxRow; maxAttempts: number }) {
   return (
     <div className="flex flex-col gap-1">
       <p className={`font-semibold ${m.attempts ? "text-fail" : "text-muted"}`}>
-        {gaveUp ? `Not sent: stopped after ${m.attempts} failed attempts` : m.attempts ? `Not sent yet: ${m.attempts} failed attempt${m.attempts > 1 ? "s" : ""}; next try ${at(m.nextAttemptAt)}` : `Waiting to send (due ${at(m.nextAttemptAt)})`}
+        {gaveUp
+          ? `Not sent: stopped after ${m.attempts} failed attempts`
+          : m.attempts
+            ? `Not sent yet: ${m.attempts} failed attempt${m.attempts > 1 ? "s" : ""}; next try ${at(m.nextAttemptAt)}`
+            : `Waiting to send (due ${at(m.nextAttemptAt)})`}
       </p>
-      {m.lastError && <p className="break-words text-sm" data-testid="mail-error">{m.lastError}</p>}
+      {m.lastError && (
+        <p className="break-words text-sm" data-testid="mail-error">
+          {m.lastError}
+        </p>
+      )}
       <RetryButton id={m.id} />
     </div>
   );
 }
 
 export function OutboxTable({ rows, maxAttempts }: { rows: OutboxRow[]; maxAttempts: number }) {
-  if (rows.length === 0) return <p className="text-muted">Nothing has been queued yet. Releases, new flags and jobs ready for release each queue a message here.</p>;
+  if (rows.length === 0)
+    return (
+      <p className="text-muted">
+        Nothing has been queued yet. Releases, new flags and jobs ready for release each queue a message here.
+      </p>
+    );
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm">
         <thead className="border-b-2 border-rule text-muted">
-          <tr><th className="py-2 pr-3">Queued</th><th className="pr-3">What</th><th className="pr-3">To</th><th className="pr-3">Subject</th><th>Status</th></tr>
+          <tr>
+            <th className="py-2 pr-3">Queued</th>
+            <th className="pr-3">What</th>
+            <th className="pr-3">To</th>
+            <th className="pr-3">Subject</th>
+            <th>Status</th>
+          </tr>
         </thead>
         <tbody className="divide-y divide-rule">
           {rows.map((m) => (
@@ -39,7 +58,9 @@ export function OutboxTable({ rows, maxAttempts }: { rows: OutboxRow[]; maxAttem
               <td className="py-2 pr-3">{KIND_WORDS[m.kind] ?? m.kind}</td>
               <td className="py-2 pr-3 break-all">{m.toAddress}</td>
               <td className="py-2 pr-3">{m.subject}</td>
-              <td className="py-2"><Status m={m} maxAttempts={maxAttempts} /></td>
+              <td className="py-2">
+                <Status m={m} maxAttempts={maxAttempts} />
+              </td>
             </tr>
           ))}
         </tbody>

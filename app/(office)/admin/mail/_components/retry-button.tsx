@@ -26,7 +26,11 @@ export function RetryButton({ id }: { id: number }) {
       <Button tone="quiet" onClick={retry} disabled={state !== "idle"}>
         {state === "queued" ? "Queued: sends on the next run" : state === "busy" ? "Queuing…" : "Try again now"}
       </Button>
-      {error && <span role="alert" className="text-sm text-fail">{error}</span>}
+      {error && (
+        <span role="alert" className="text-sm text-fail">
+          {error}
+        </span>
+      )}
     </span>
   );
 }

@@ -13,7 +13,9 @@ export default async function JobDeskPage({ params }: { params: Promise<{ jobId:
     <>
       <AppHeader actor={actor} current="/desk" />
       <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
-        <Link href="/desk" className="text-sm font-medium text-steel underline">← All jobs</Link>
+        <Link href="/desk" className="text-sm font-medium text-steel underline">
+          ← All jobs
+        </Link>
         <JobPage jobId={Number(jobId)} canEdit={actor.role === "lead"} />
       </main>
     </>

@@ -12,7 +12,9 @@ export default async function SpecPage({ params }: { params: Promise<{ templateI
     <>
       <AppHeader actor={actor} current="/desk/specs" />
       <main className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6">
-        <Link href="/desk/specs" className="text-sm font-medium text-steel underline">← All spec sheets</Link>
+        <Link href="/desk/specs" className="text-sm font-medium text-steel underline">
+          ← All spec sheets
+        </Link>
         <SpecEdit templateId={Number(templateId)} />
       </main>
     </>

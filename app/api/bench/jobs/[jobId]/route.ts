@@ -3,4 +3,5 @@ import { authed, parseId } from "@/lib/server/route";
 
 // The job pack the tablet stores to work offline (shape documented in lib/schemas/sync.ts).
 export const GET = authed<{ jobId: string }>(["machinist", "lead"], async ({ actor, params }) =>
-  jobPack(actor, parseId(params.jobId, "Job")));
+  jobPack(actor, parseId(params.jobId, "Job")),
+);

@@ -5,7 +5,9 @@ import { authed, parseId, readJson } from "@/lib/server/route";
 
 type P = { jobId: string };
 
-export const GET = authed<P>(["lead", "admin", "inspector"], async ({ actor, params }) => getBuildPlan(actor.shopId, parseId(params.jobId, "Job")));
+export const GET = authed<P>(["lead", "admin", "inspector"], async ({ actor, params }) =>
+  getBuildPlan(actor.shopId, parseId(params.jobId, "Job")),
+);
 
 /** Save the whole plan (lengths in the job's unit, volumes in cc). */
 export const PUT = authed<P>(["lead"], async ({ req, actor, params }) => {

@@ -6,7 +6,9 @@ import { authed, parseId, readJson } from "@/lib/server/route";
 type P = { jobId: string };
 
 /** The job's own limits (its snapshot of the template, as edited since). */
-export const GET = authed<P>(["lead", "admin", "inspector"], async ({ actor, params }) => getJobLimits(actor.shopId, parseId(params.jobId, "Job")));
+export const GET = authed<P>(["lead", "admin", "inspector"], async ({ actor, params }) =>
+  getJobLimits(actor.shopId, parseId(params.jobId, "Job")),
+);
 
 /**
  * Replace the job's limits: one transaction swaps them, bumps specRevision, re-evaluates every

@@ -9,9 +9,20 @@ export const GET = authed<{ templateId: string }>(["lead", "admin"], async ({ ac
     format: SPEC_FILE_FORMAT,
     version: 1,
     exportedAt: new Date().toISOString(),
-    template: { name: t.name, engineKind: t.engineKind, buildKind: t.buildKind, unitSystem: t.unitSystem, ...(t.notes ? { notes: t.notes } : {}), limits: t.limits },
+    template: {
+      name: t.name,
+      engineKind: t.engineKind,
+      buildKind: t.buildKind,
+      unitSystem: t.unitSystem,
+      ...(t.notes ? { notes: t.notes } : {}),
+      limits: t.limits,
+    },
   };
-  const slug = t.name.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "spec-sheet";
+  const slug =
+    t.name
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "") || "spec-sheet";
   return new Response(`${JSON.stringify(file, null, 2)}\n`, {
     headers: {
       "Content-Type": "application/json; charset=utf-8",

@@ -12,7 +12,9 @@ export default async function JobLimitsPage({ params }: { params: Promise<{ jobI
     <>
       <AppHeader actor={actor} current="/desk" />
       <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
-        <Link href={`/desk/jobs/${jobId}`} className="text-sm font-medium text-steel underline">← Back to the job</Link>
+        <Link href={`/desk/jobs/${jobId}`} className="text-sm font-medium text-steel underline">
+          ← Back to the job
+        </Link>
         <JobLimitsEditor jobId={Number(jobId)} />
       </main>
     </>

@@ -12,7 +12,9 @@ export default async function PlanPage({ params }: { params: Promise<{ jobId: st
     <>
       <AppHeader actor={actor} current="/desk" />
       <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
-        <Link href={`/desk/jobs/${jobId}`} className="text-sm font-medium text-steel underline">← Back to the job</Link>
+        <Link href={`/desk/jobs/${jobId}`} className="text-sm font-medium text-steel underline">
+          ← Back to the job
+        </Link>
         <PlanEditor jobId={Number(jobId)} />
       </main>
     </>

@@ -8,6 +8,13 @@ export const POST = authed<{ id: string }>(["admin"], async ({ actor, params }) 
   const id = parseId(params.id, "Message");
   const row = await retryNow(actor.shopId, id);
   if (!row) throw new AppError("not_found", "No unsent message with this id in your shop's outbox");
-  await recordAudit(null, { shopId: actor.shopId, userId: actor.userId, action: "mail.retry", entityType: "mail_outbox", entityId: id, after: { attempts: 0, nextAttemptAt: row.nextAttemptAt.toISOString() } });
+  await recordAudit(null, {
+    shopId: actor.shopId,
+    userId: actor.userId,
+    action: "mail.retry",
+    entityType: "mail_outbox",
+    entityId: id,
+    after: { attempts: 0, nextAttemptAt: row.nextAttemptAt.toISOString() },
+  });
   return { id: row.id, nextAttemptAt: row.nextAttemptAt.toISOString() };
 });

@@ -10,8 +10,11 @@ export const GET = authed<{ file: string; index: string }>(["admin"], async ({ a
   const name = a.filename.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
   return new Response(new Uint8Array(a.content), {
     headers: {
-      "content-type": a.contentType, "content-length": String(a.content.length), "content-disposition": `inline; filename="${name}"`,
-      "x-content-type-options": "nosniff", "cache-control": "private, no-store",
+      "content-type": a.contentType,
+      "content-length": String(a.content.length),
+      "content-disposition": `inline; filename="${name}"`,
+      "x-content-type-options": "nosniff",
+      "cache-control": "private, no-store",
     },
   });
 });
