@@ -3,9 +3,9 @@
 // never while `next build` runs; startNotifier keeps it to one timer per process.
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
-  const { isBuildPhase } = await import("./lib/server/env");
+  const { isBuildPhase } = await import("@/lib/server/core/env");
   if (isBuildPhase()) return;
-  const { startNotifier } = await import("./lib/server/notifier");
+  const { startNotifier } = await import("@/lib/server/mail/notifier");
   try {
     if (startNotifier()) console.log("[tenthwise] mail notifier started");
   } catch (err) {

@@ -1,5 +1,5 @@
 import { redirect } from "next/navigation";
-import { currentPageActor, ROLE_HOME } from "@/lib/server/access";
+import { currentPageActor, ROLE_HOME } from "@/lib/server/core/access";
 
 export default async function Home() {
   const actor = await currentPageActor();

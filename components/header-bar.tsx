@@ -1,7 +1,7 @@
 import type { ElementType } from "react";
 import { Wordmark } from "@/components/ui/logo";
 import { NAV, ROLE_WORDS } from "@/lib/nav";
-import type { Actor } from "@/lib/server/access";
+import type { Actor } from "@/lib/server/core/access";
 import { SignOutButton } from "./sign-out-button";
 import { ThemeToggle } from "./theme-toggle";
 

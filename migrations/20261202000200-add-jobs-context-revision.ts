@@ -2,7 +2,7 @@
 // server caches about a job could have changed — the job row (status, lock, units, engine), its
 // engine, or any of its limits (job_limits). POST /api/sync keeps each job's context (engine
 // shape, limits, route) in memory and reuses it only while the token read under the job's row
-// lock is unchanged (lib/server/ingest-context.ts), so stale limits never judge a reading.
+// lock is unchanged (lib/server/sync/ingest-context.ts), so stale limits never judge a reading.
 //
 // Triggers, not application code, so no writer (limits edit, template apply, engine edit, release,
 // reopen, a future one) can forget it. The token is UUID_SHORT(): unique for the server's life and

@@ -1,4 +1,4 @@
-// The Sequelize models of Tenthwise. lib/server/db.ts calls initModels(sequelize) once on its
+// The Sequelize models of Tenthwise. lib/server/core/db.ts calls initModels(sequelize) once on its
 // instance; only lib/server/*-repo.ts imports from here, and repos return plain objects.
 //
 // Conventions every model follows:

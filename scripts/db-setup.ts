@@ -1,8 +1,8 @@
 // Migrates the database and, with --seed, seeds the demo scenario when the database is empty.
 // Run by `npm start` and `npm test` (through tsx with the react-server condition, so server
 // modules load outside Next).
-import { getSequelize, closeSequelize } from "@/lib/server/db";
-import { migrateUp } from "@/lib/server/migrate";
+import { getSequelize, closeSequelize } from "@/lib/server/core/db";
+import { migrateUp } from "@/lib/server/core/migrate";
 import { Shop } from "@/models";
 import { seedDemo } from "./seed/demo";
 

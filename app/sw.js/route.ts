@@ -1,6 +1,6 @@
 import { readFile } from "node:fs/promises";
 import { join } from "node:path";
-import { env } from "@/lib/server/env";
+import { env } from "@/lib/server/core/env";
 
 // Serves the service worker that `serwist build` wrote next to THIS server's build
 // (serwist.config.js). A worker in public/ would be shared by every build of the checkout, and a

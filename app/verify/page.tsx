@@ -3,7 +3,7 @@ import { StatusTag } from "@/components/admin/status-tag";
 import { Wordmark } from "@/components/ui/logo";
 import { Notice } from "@/components/ui/notice";
 import { publicVerifySchema, type PublicVerification } from "@/lib/schemas/release";
-import { verifyByHash } from "@/lib/server/release-hash-verify";
+import { verifyByHash } from "@/lib/server/release/hash-verify";
 
 export const metadata = { title: "Verify a build record" };
 

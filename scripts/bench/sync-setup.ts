@@ -3,10 +3,10 @@
 import { randomUUID } from "node:crypto";
 import mariadb from "mariadb";
 import { POST } from "@/app/api/sync/route";
-import { closeSequelize, getSequelize } from "@/lib/server/db";
-import { migrateUp } from "@/lib/server/migrate";
-import { sealSession, SESSION_COOKIE } from "@/lib/server/session";
-import { setSqlTrace } from "@/lib/server/sql-driver";
+import { closeSequelize, getSequelize } from "@/lib/server/core/db";
+import { migrateUp } from "@/lib/server/core/migrate";
+import { sealSession, SESSION_COOKIE } from "@/lib/server/core/session";
+import { setSqlTrace } from "@/lib/server/core/sql-driver";
 import { Customer, Engine, Job, JobLimit, Shop, User } from "@/models";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 import { STREET_V8_INCH } from "../seed/demo-specs";
@@ -93,7 +93,7 @@ async function fixture(jobs: number) {
 
 /**
  * With TW_BENCH_TRACE=1: wall time per kind of SQL statement, from Sequelize's benchmark logging
- * and from the hot path's own driver calls (lib/server/sql-driver.ts). Pipelined statements
+ * and from the hot path's own driver calls (lib/server/core/sql-driver.ts). Pipelined statements
  * overlap, so their times add up to more than the wall clock.
  */
 function traceQueries() {

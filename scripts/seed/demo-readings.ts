@@ -1,5 +1,5 @@
 // DEMO DATA ONLY: invented bench readings for the three invented demo jobs, written through the
-// real ingest (lib/server/ingest.ts), so every verdict and flag is the server's own.
+// real ingest (lib/server/sync/ingest.ts), so every verdict and flag is the server's own.
 //   KF-2611 pickup V8: bores 1–7 and the top of 8 (dial bore gauge), all five mains with their
 //     installed bearing bores, end play and two torque groups. Cylinder 3 tapers past 0.0005 in
 //     (top over size, bottom on the lower limit: marginal with the gauge's U), main 3 front has a
@@ -9,7 +9,7 @@
 //   KF-2613 vintage six: the first two bores at the top only, and the deck.
 import { randomUUID } from "node:crypto";
 import type { PushReadingInput } from "@/lib/schemas/sync";
-import { ingestBatch } from "@/lib/server/ingest";
+import { ingestBatch } from "@/lib/server/sync/ingest";
 import { User } from "@/models";
 import type { DemoContext } from "./demo";
 

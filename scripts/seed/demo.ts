@@ -2,7 +2,7 @@
 // and figure here is made up for the demo.
 import bcrypt from "bcryptjs";
 import { readFileSync } from "node:fs";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { Customer, Engine, Instrument, Job, JobLimit, Shop, SpecLimit, SpecTemplate, User } from "@/models";
 import { seedDemoReadings } from "./demo-readings";
 import { STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-specs";

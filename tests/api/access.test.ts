@@ -1,8 +1,8 @@
 // The shared guard every route handler goes through: roles, shop scoping and the envelope.
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
-import { getJobOrThrow } from "@/lib/server/jobs-repo";
-import { authed, parseId, readJson } from "@/lib/server/route";
+import { getJobOrThrow } from "@/lib/server/jobs/repo";
+import { authed, parseId, readJson } from "@/lib/server/core/route";
 import { createShop } from "../support/factories";
 import { asUser, call } from "../support/requests";
 

@@ -1,7 +1,7 @@
 // GET /api/bench/jobs and GET /api/bench/jobs/:jobId (the tablet's offline job pack).
 import { beforeAll, describe, expect, it } from "vitest";
 import { benchRoute } from "@/lib/domain";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { GET as LIST } from "@/app/api/bench/jobs/route";
 import { GET as PACK } from "@/app/api/bench/jobs/[jobId]/route";
 import { Job } from "@/models";

@@ -4,7 +4,7 @@
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET } from "@/app/api/jobs/[jobId]/readings.csv/route";
-import { csvField, plainNumber } from "@/lib/server/csv-export";
+import { csvField, plainNumber } from "@/lib/server/readings/csv-export";
 import { Instrument, Reading, User } from "@/models";
 import { createShop, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call } from "../support/requests";

@@ -6,12 +6,12 @@ import { Op, QueryTypes } from "sequelize";
 import { describe, expect, it } from "vitest";
 import { GET } from "@/app/api/record/[jobId]/pdf/route";
 import { POST as send } from "@/app/api/record/[jobId]/send/route";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { Customer, MailOutbox, Release } from "@/models";
 import { createShop, type TestUser } from "../support/factories";
 import { ACCEPT_REASON, createRecordJob } from "../support/record-fixtures";
-import { renderRecordPdf } from "@/lib/server/record/record-pdf";
-import type { BuildRecord, ReadingLine } from "@/lib/server/record/record-types";
+import { renderRecordPdf } from "@/lib/server/record/pdf";
+import type { BuildRecord, ReadingLine } from "@/lib/server/record/types";
 import { pdfText } from "../support/pdf-text";
 import { asUser, call } from "../support/requests";
 

@@ -3,8 +3,8 @@
 // build plan. All figures are invented fixtures, not reference values.
 import { randomUUID } from "node:crypto";
 import { benchRoute } from "@/lib/domain";
-import { getSequelize } from "@/lib/server/db";
-import { toEngineShape } from "@/lib/server/job-context";
+import { getSequelize } from "@/lib/server/core/db";
+import { toEngineShape } from "@/lib/server/jobs/context";
 import { Engine, Flag, FlagDisposition, Instrument, Job, Reading } from "@/models";
 import type { TestShop } from "../support/factories";
 

@@ -6,7 +6,7 @@ import { GET as getView, POST as sign } from "@/app/api/release/[jobId]/route";
 import { POST as reopen } from "@/app/api/release/[jobId]/reopen/route";
 import { GET as verify } from "@/app/api/release/[jobId]/verify/route";
 import { GET as publicVerify } from "@/app/api/release/verify/route";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { AuditEvent, Job } from "@/models";
 import { createShop, TEST_PASSWORD, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";

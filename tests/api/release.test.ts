@@ -2,7 +2,7 @@
 // release only when nothing does; the typed name and password; the lock.
 import { describe, expect, it } from "vitest";
 import { GET as getView, POST as sign } from "@/app/api/release/[jobId]/route";
-import { releaseChecklist } from "@/lib/server/release-checklist";
+import { releaseChecklist } from "@/lib/server/release/checklist";
 import { AuditEvent, Job, Release, SyncChange } from "@/models";
 import { createShop, TEST_PASSWORD, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";

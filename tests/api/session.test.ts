@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { DELETE, POST } from "@/app/api/session/route";
 import { GET as me } from "@/app/api/me/route";
-import { SIGN_IN_REFUSED } from "@/lib/server/sign-in";
+import { SIGN_IN_REFUSED } from "@/lib/server/users/sign-in";
 import { createShop, TEST_PASSWORD } from "../support/factories";
 import { asUser, call } from "../support/requests";
 

@@ -5,7 +5,7 @@
 import { randomUUID } from "node:crypto";
 import { QueryTypes } from "sequelize";
 import { expect } from "vitest";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 import { POST, GET } from "@/app/api/sync/route";
 import { asUser, call } from "../support/requests";

@@ -4,7 +4,7 @@
 // INCH_LIMITS of tests/support/factories.ts.
 import { beforeEach, describe, expect, it } from "vitest";
 import { GET as PACK } from "@/app/api/bench/jobs/[jobId]/route";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { JobLimit } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";

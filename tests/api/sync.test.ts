@@ -1,7 +1,7 @@
 // POST /api/sync against the real MariaDB: roles, acceptance, replay, and the all-or-nothing rule.
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { Instrument, Job } from "@/models";
 import { POST } from "@/app/api/sync/route";
 import { createShop, type TestShop } from "../support/factories";

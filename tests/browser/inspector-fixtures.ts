@@ -5,8 +5,8 @@
 // picked inside the demo spec sheet's limits (scripts/seed/demo-specs.ts, VINTAGE_SIX_INCH).
 import { randomUUID } from "node:crypto";
 import { benchRoute, convertLength, convertTorque } from "@/lib/domain";
-import { getSequelize } from "@/lib/server/db";
-import { toEngineShape } from "@/lib/server/job-context";
+import { getSequelize } from "@/lib/server/core/db";
+import { toEngineShape } from "@/lib/server/jobs/context";
 import { Engine, Instrument, Job, JobLimit, Reading, Shop, User } from "@/models";
 
 // Bore 3.5927 and skirt 3.5905 give 0.0022 piston-to-wall; bearing bores sit 0.0022 over their

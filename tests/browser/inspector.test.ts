@@ -5,7 +5,7 @@ import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
 import { request, type APIRequestContext, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { BASE_URL, launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
 import { prepareInspectorJob } from "./inspector-fixtures";
 

@@ -1,15 +1,15 @@
 // After ingest, reconcileJob reads and revisits only what the fresh readings can change
-// (lib/server/flag-reconcile-scope.ts). Checked two ways: the scope itself, from the core's own
+// (lib/server/flags/reconcile-scope.ts). Checked two ways: the scope itself, from the core's own
 // recipes; and equivalence: after any mix of batches, a full reconciliation (every reading, every
 // flag, as a limits edit runs it) finds nothing left to change. Figures are invented fixtures;
 // limits are tests/support/factories.ts INCH_LIMITS (bore 4.03 ± 0.0005 in, taper and
 // out-of-round ≤ 0.001 in, main oil clearance 0.0015–0.0025 in, torque 65–70 lbf·ft).
 import { beforeEach, describe, expect, it } from "vitest";
 import { benchRoute } from "@/lib/domain";
-import { getSequelize } from "@/lib/server/db";
-import { reconcileJob } from "@/lib/server/flag-reconcile";
-import { ingestStations } from "@/lib/server/flag-reconcile-scope";
-import { loadJobContext } from "@/lib/server/job-context";
+import { getSequelize } from "@/lib/server/core/db";
+import { reconcileJob } from "@/lib/server/flags/reconcile";
+import { ingestStations } from "@/lib/server/flags/reconcile-scope";
+import { loadJobContext } from "@/lib/server/jobs/context";
 import { createShop, type TestShop } from "../support/factories";
 import { flagsOf, later, push, reading } from "../api/sync-fixtures";
 

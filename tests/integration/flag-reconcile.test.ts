@@ -4,8 +4,8 @@
 // (in spec, within U of a limit = marginal, beyond = out of spec; lib/domain/verdict.ts).
 import { beforeEach, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
-import { getSequelize } from "@/lib/server/db";
-import { reconcileJob } from "@/lib/server/flag-reconcile";
+import { getSequelize } from "@/lib/server/core/db";
+import { reconcileJob } from "@/lib/server/flags/reconcile";
 import { FlagDisposition, Flag, JobLimit } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { count, flagsOf, push, reading } from "../api/sync-fixtures";

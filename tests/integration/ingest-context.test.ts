@@ -1,11 +1,11 @@
 // POST /api/sync keeps each job's context (engine shape, limits, lock) in memory between batches
-// (lib/server/ingest-context.ts) and reuses it only while jobs.context_revision is unchanged. The
+// (lib/server/sync/ingest-context.ts) and reuses it only while jobs.context_revision is unchanged. The
 // database changes that token on every edit of the job, its engine or its limits (triggers), so
 // these edits go around every app writer on purpose: whoever edits, the next batch sees it.
 // Limits: tests/support/factories.ts INCH_LIMITS (bore 4.03 ± 0.0005 in).
 import { beforeEach, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { Engine, Job, JobLimit } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { push, reading } from "../api/sync-fixtures";

@@ -2,7 +2,7 @@
 // readings every client shares are stored once with one flag.
 import { randomUUID } from "node:crypto";
 import { describe, expect, it } from "vitest";
-import { getSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { Customer, Job, JobLimit } from "@/models";
 import { INCH_LIMITS, createShop } from "../support/factories";
 import { count, flagsOf, push, reading, syncedInAudit } from "../api/sync-fixtures";

@@ -7,7 +7,7 @@
 // server, so no value changes on the way) and put back once the schema is up again.
 import { QueryTypes, Sequelize } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { migrator } from "../../lib/server/migrate";
+import { migrator } from "@/lib/server/core/migrate";
 import { APPEND_ONLY_MESSAGE } from "../../migrations/20261201001000-create-audit-events";
 import { CONTEXT_TRIGGERS } from "../../migrations/20261202000200-add-jobs-context-revision";
 import { MIGRATED_TABLES, migrations } from "../../migrations/index";

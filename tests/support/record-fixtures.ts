@@ -4,11 +4,11 @@
 // Every figure is an invented test fixture, not a reference value.
 import { randomUUID } from "node:crypto";
 import sharp from "sharp";
-import { CANONICAL_VERSION, itemDigests, releaseHash } from "@/lib/server/release-hash";
-import { buildSnapshot, gaugeRecord } from "@/lib/server/release-hash-snapshot";
-import { loadJobRecord } from "@/lib/server/release-repo";
-import { deliverPendingMail } from "@/lib/server/mail-outbox-worker";
-import { putObject } from "@/lib/server/storage";
+import { CANONICAL_VERSION, itemDigests, releaseHash } from "@/lib/server/release/hash";
+import { buildSnapshot, gaugeRecord } from "@/lib/server/release/hash-snapshot";
+import { loadJobRecord } from "@/lib/server/release/repo";
+import { deliverPendingMail } from "@/lib/server/mail/outbox-worker";
+import { putObject } from "@/lib/server/uploads/storage";
 import { Attachment, Flag, FlagDisposition, Job, MailOutbox, Reading, Release, type JsonValue } from "@/models";
 import { createShop, type TestShop } from "./factories";
 

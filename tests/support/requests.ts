@@ -1,5 +1,5 @@
 // Build Requests the way a signed-in browser sends them, and call exported route handlers.
-import { sealSession, SESSION_COOKIE } from "@/lib/server/session";
+import { sealSession, SESSION_COOKIE } from "@/lib/server/core/session";
 import type { TestUser } from "./factories";
 
 export async function cookieFor(user: TestUser): Promise<string> {

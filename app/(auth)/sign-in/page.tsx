@@ -1,6 +1,6 @@
 import { redirect } from "next/navigation";
 import { Wordmark } from "@/components/ui/logo";
-import { currentPageActor, ROLE_HOME } from "@/lib/server/access";
+import { currentPageActor, ROLE_HOME } from "@/lib/server/core/access";
 import { SignInForm } from "./_components/sign-in-form";
 
 export const metadata = { title: "Sign in" };

@@ -1,8 +1,8 @@
 import { AppHeader } from "@/components/app-header";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 import { ROLE_WORDS } from "@/lib/nav";
-import { findShop } from "@/lib/server/shops-repo";
-import { listUsers } from "@/lib/server/users-repo";
+import { findShop } from "@/lib/server/users/shops-repo";
+import { listUsers } from "@/lib/server/users/repo";
 
 export const metadata = { title: "Shop" };
 

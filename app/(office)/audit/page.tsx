@@ -2,7 +2,7 @@ import { Suspense } from "react";
 import { AppHeader } from "@/components/app-header";
 import { AuditBrowser } from "@/components/audit/audit-browser";
 import { Loading } from "@/components/release/query-states";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 
 export const metadata = { title: "Audit trail" };
 

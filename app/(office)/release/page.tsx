@@ -1,6 +1,6 @@
 import { AppHeader } from "@/components/app-header";
 import { ReleaseBoard } from "@/components/release/release-board";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 
 export const metadata = { title: "Release" };
 

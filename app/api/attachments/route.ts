@@ -1,11 +1,11 @@
 import { attachmentListSchema } from "@/lib/schemas/attachment";
-import { invalid } from "@/lib/server/errors";
-import { authed } from "@/lib/server/route";
-import { acceptUpload } from "@/lib/server/uploads";
-import { findOwnerOrThrow, listAttachments, toView } from "@/lib/server/uploads-repo";
+import { invalid } from "@/lib/server/core/errors";
+import { authed } from "@/lib/server/core/route";
+import { acceptUpload } from "@/lib/server/uploads/upload";
+import { findOwnerOrThrow, listAttachments, toView } from "@/lib/server/uploads/repo";
 
 // POST: multipart upload (file, ownerType, ownerId, clientId). 201 when stored, 200 when the
-// same clientId was already stored (an offline resend). Who may upload what: lib/server/uploads.ts.
+// same clientId was already stored (an offline resend). Who may upload what: lib/server/uploads/upload.ts.
 export const POST = authed(["machinist", "lead", "admin"], async ({ req, actor }) => {
   const { attachment, created } = await acceptUpload(actor, req);
   return Response.json({ attachment, created }, { status: created ? 201 : 200 });

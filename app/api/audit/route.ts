@@ -1,7 +1,7 @@
 import { auditQuerySchema } from "@/lib/schemas/audit";
-import { queryAudit } from "@/lib/server/audit-query-repo";
-import { invalid } from "@/lib/server/errors";
-import { authed } from "@/lib/server/route";
+import { queryAudit } from "@/lib/server/log/query-repo";
+import { invalid } from "@/lib/server/core/errors";
+import { authed } from "@/lib/server/core/route";
 
 /** The shop's audit trail, filtered and paged (contract: lib/schemas/audit.ts). */
 export const GET = authed(["lead", "inspector"], async ({ req, actor }) => {

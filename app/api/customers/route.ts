@@ -1,6 +1,6 @@
 import { customerSchema } from "@/lib/schemas/job";
-import { createCustomer, listCustomers } from "@/lib/server/jobs-admin-repo";
-import { authed, readJson } from "@/lib/server/route";
+import { createCustomer, listCustomers } from "@/lib/server/jobs/admin-repo";
+import { authed, readJson } from "@/lib/server/core/route";
 
 export const GET = authed(["lead", "admin"], async ({ actor }) => ({ customers: await listCustomers(actor.shopId) }));
 

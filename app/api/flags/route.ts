@@ -1,6 +1,6 @@
-import { invalid } from "@/lib/server/errors";
-import { listFlags } from "@/lib/server/flags-repo";
-import { authed } from "@/lib/server/route";
+import { invalid } from "@/lib/server/core/errors";
+import { listFlags } from "@/lib/server/flags/repo";
+import { authed } from "@/lib/server/core/route";
 import { flagListQuerySchema } from "@/lib/schemas/flag";
 
 /**

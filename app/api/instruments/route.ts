@@ -1,6 +1,6 @@
-import { invalid } from "@/lib/server/errors";
-import { createInstrument, instrumentListQuery, listInstruments } from "@/lib/server/instruments-repo";
-import { authed, readJson } from "@/lib/server/route";
+import { invalid } from "@/lib/server/core/errors";
+import { createInstrument, instrumentListQuery, listInstruments } from "@/lib/server/gauges/repo";
+import { authed, readJson } from "@/lib/server/core/route";
 import { instrumentSchema } from "@/lib/schemas/instrument";
 
 /** The shop's gauges with calibration status (admin manages; lead and inspector read). ?include=all adds deactivated ones. */

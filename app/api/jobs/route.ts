@@ -1,7 +1,7 @@
 import { jobSchema } from "@/lib/schemas/job";
-import { listJobBoard } from "@/lib/server/jobs-admin-board-repo";
-import { createJob } from "@/lib/server/jobs-admin-repo";
-import { authed, readJson } from "@/lib/server/route";
+import { listJobBoard } from "@/lib/server/jobs/board";
+import { createJob } from "@/lib/server/jobs/admin-repo";
+import { authed, readJson } from "@/lib/server/core/route";
 
 /** The jobs board: every job of the shop with progress and open flags. */
 export const GET = authed(["lead", "admin"], async ({ actor }) => ({ jobs: await listJobBoard(actor.shopId) }));

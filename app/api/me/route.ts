@@ -1,6 +1,6 @@
-import { ROLE_HOME } from "@/lib/server/access";
-import { authed } from "@/lib/server/route";
-import { findShop } from "@/lib/server/shops-repo";
+import { ROLE_HOME } from "@/lib/server/core/access";
+import { authed } from "@/lib/server/core/route";
+import { findShop } from "@/lib/server/users/shops-repo";
 
 export const GET = authed("any", async ({ actor }) => {
   const shop = await findShop(actor.shopId);

@@ -1,5 +1,5 @@
-import { releaseJobs } from "@/lib/server/release-repo-view";
-import { authed } from "@/lib/server/route";
+import { releaseJobs } from "@/lib/server/release/view";
+import { authed } from "@/lib/server/core/route";
 
 /** Jobs with their release readiness (contract: lib/schemas/release.ts). */
 export const GET = authed(["inspector", "lead"], async ({ actor }) => ({ jobs: await releaseJobs(actor.shopId) }));

@@ -1,7 +1,7 @@
-import { ROLE_HOME } from "@/lib/server/access";
-import { open, readJson } from "@/lib/server/route";
-import { clearSessionCookieHeader, sealSession, sessionCookieHeader } from "@/lib/server/session";
-import { signIn } from "@/lib/server/sign-in";
+import { ROLE_HOME } from "@/lib/server/core/access";
+import { open, readJson } from "@/lib/server/core/route";
+import { clearSessionCookieHeader, sealSession, sessionCookieHeader } from "@/lib/server/core/session";
+import { signIn } from "@/lib/server/users/sign-in";
 import { signInSchema } from "@/lib/schemas/session";
 
 function clientAddress(req: Request): string {

@@ -1,6 +1,6 @@
 import { templateSchema } from "@/lib/schemas/spec";
-import { authed, readJson } from "@/lib/server/route";
-import { createTemplate, listTemplates } from "@/lib/server/specs-repo";
+import { authed, readJson } from "@/lib/server/core/route";
+import { createTemplate, listTemplates } from "@/lib/server/specs/repo";
 
 // Spec sheet templates: the admin manages them and the lead owns spec sheets, so both edit.
 export const GET = authed(["lead", "admin"], async ({ actor }) => ({ templates: await listTemplates(actor.shopId) }));

@@ -1,8 +1,8 @@
 import { feedQuerySchema, pushBatchSchema } from "@/lib/schemas/sync";
-import { invalid } from "@/lib/server/errors";
-import { ingestBatch } from "@/lib/server/ingest";
-import { authed, readJson } from "@/lib/server/route";
-import { syncFeed } from "@/lib/server/sync-feed";
+import { invalid } from "@/lib/server/core/errors";
+import { ingestBatch } from "@/lib/server/sync/ingest";
+import { authed, readJson } from "@/lib/server/core/route";
+import { syncFeed } from "@/lib/server/sync/feed";
 
 // The bench sync endpoint; the contract is documented at the top of lib/schemas/sync.ts.
 const BENCH = ["machinist", "lead"] as const;

@@ -1,5 +1,5 @@
-import { authed, readJson } from "@/lib/server/route";
-import { inviteUser, listShopUsers } from "@/lib/server/users-admin";
+import { authed, readJson } from "@/lib/server/core/route";
+import { inviteUser, listShopUsers } from "@/lib/server/users/admin";
 import { inviteUserSchema } from "@/lib/schemas/user";
 
 /** The shop's people (admin). */

@@ -1,6 +1,6 @@
 import { GaugeAdmin } from "@/components/admin/gauges/gauge-admin";
 import { AppHeader } from "@/components/app-header";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 
 export const metadata = { title: "Gauges" };
 

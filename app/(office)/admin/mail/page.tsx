@@ -1,9 +1,9 @@
 import { AppHeader } from "@/components/app-header";
 import { Notice } from "@/components/ui/notice";
-import { requirePageActor } from "@/lib/server/access";
-import { env } from "@/lib/server/env";
-import { listMailFiles } from "@/lib/server/mail-files";
-import { listOutbox } from "@/lib/server/mail-outbox";
+import { requirePageActor } from "@/lib/server/core/access";
+import { env } from "@/lib/server/core/env";
+import { listMailFiles } from "@/lib/server/mail/files";
+import { listOutbox } from "@/lib/server/mail/outbox";
 import { Mailbox } from "./_components/mailbox";
 import { OutboxTable } from "./_components/outbox-table";
 

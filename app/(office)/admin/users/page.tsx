@@ -1,6 +1,6 @@
 import { UserAdmin } from "@/components/admin/users/user-admin";
 import { AppHeader } from "@/components/app-header";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 
 export const metadata = { title: "Users" };
 

@@ -4,7 +4,7 @@ import Link from "next/link";
 import { useMemo, useState } from "react";
 import { JobsFlagCount, JobsProgress } from "@/components/desk/jobs-progress";
 import { JobStatusTag, STATUS_WORDS } from "@/components/job-status";
-import type { JobStatus } from "@/lib/server/jobs-repo";
+import type { JobStatus } from "@/lib/server/jobs/repo";
 import { Loading, LoadFailed } from "./fields";
 import { useJobBoard, type BoardJob } from "./queries";
 

@@ -1,8 +1,8 @@
 import { Suspense } from "react";
 import { AppHeader } from "@/components/app-header";
 import { FlagQueue } from "@/components/flags/flag-queue";
-import { requirePageActor } from "@/lib/server/access";
-import { listJobs } from "@/lib/server/jobs-repo";
+import { requirePageActor } from "@/lib/server/core/access";
+import { listJobs } from "@/lib/server/jobs/repo";
 
 export const metadata = { title: "Flags" };
 

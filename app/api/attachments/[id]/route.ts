@@ -1,6 +1,6 @@
-import { authed } from "@/lib/server/route";
-import { getAttachmentOrThrow } from "@/lib/server/uploads-repo";
-import { streamAttachment } from "@/lib/server/uploads-serve";
+import { authed } from "@/lib/server/core/route";
+import { getAttachmentOrThrow } from "@/lib/server/uploads/repo";
+import { streamAttachment } from "@/lib/server/uploads/serve";
 
 // The stored file, streamed from object storage; 404 for another shop's.
 export const GET = authed<{ id: string }>(["lead", "inspector", "admin"], async ({ actor, params }) => {

@@ -1,5 +1,5 @@
-import { auditFacets } from "@/lib/server/audit-query-repo";
-import { authed } from "@/lib/server/route";
+import { auditFacets } from "@/lib/server/log/query-repo";
+import { authed } from "@/lib/server/core/route";
 
 /** The actions, entities, people and jobs the audit filters can pick from. */
 export const GET = authed(["lead", "inspector"], async ({ actor }) => auditFacets(actor.shopId));

@@ -1,5 +1,5 @@
-import { listBenchJobs } from "@/lib/server/bench-pack";
-import { authed } from "@/lib/server/route";
+import { listBenchJobs } from "@/lib/server/bench/pack";
+import { authed } from "@/lib/server/core/route";
 
 // Open jobs the bench can pick (intake, measuring, review; not locked), soonest due first.
 export const GET = authed(["machinist", "lead"], async ({ actor }) => ({ jobs: await listBenchJobs(actor) }));

@@ -1,5 +1,5 @@
-import { getFlagDetail } from "@/lib/server/flags-repo-detail";
-import { authed, parseId } from "@/lib/server/route";
+import { getFlagDetail } from "@/lib/server/flags/detail";
+import { authed, parseId } from "@/lib/server/core/route";
 
 /** One flag: station history with corrections and photos, derived values it feeds, decisions. */
 export const GET = authed<{ flagId: string }>(["lead", "inspector"], async ({ actor, params }) =>

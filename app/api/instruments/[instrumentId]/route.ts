@@ -1,5 +1,5 @@
-import { getInstrument, updateInstrument } from "@/lib/server/instruments-repo";
-import { authed, parseId, readJson } from "@/lib/server/route";
+import { getInstrument, updateInstrument } from "@/lib/server/gauges/repo";
+import { authed, parseId, readJson } from "@/lib/server/core/route";
 import { instrumentPatchSchema } from "@/lib/schemas/instrument";
 
 type P = { instrumentId: string };

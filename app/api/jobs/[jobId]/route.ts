@@ -1,8 +1,8 @@
 import { jobEditSchema } from "@/lib/schemas/job";
-import { getJobDetail } from "@/lib/server/jobs-admin-detail-repo";
-import { updateJob } from "@/lib/server/jobs-admin-repo";
-import { getJobOrThrow } from "@/lib/server/jobs-repo";
-import { authed, parseId, readJson } from "@/lib/server/route";
+import { getJobDetail } from "@/lib/server/jobs/detail";
+import { updateJob } from "@/lib/server/jobs/admin-repo";
+import { getJobOrThrow } from "@/lib/server/jobs/repo";
+import { authed, parseId, readJson } from "@/lib/server/core/route";
 
 type P = { jobId: string };
 

@@ -1,5 +1,5 @@
-import { listOutbox } from "@/lib/server/mail-outbox";
-import { authed } from "@/lib/server/route";
+import { listOutbox } from "@/lib/server/mail/outbox";
+import { authed } from "@/lib/server/core/route";
 
 // The shop's outgoing mail, newest first, with attempts and the last error; admin only.
 export const GET = authed(["admin"], async ({ actor }) => {

@@ -1,7 +1,7 @@
 import { signSchema } from "@/lib/schemas/release";
-import { releaseView } from "@/lib/server/release-repo-view";
-import { signRelease } from "@/lib/server/release-sign";
-import { authed, parseId, readJson } from "@/lib/server/route";
+import { releaseView } from "@/lib/server/release/view";
+import { signRelease } from "@/lib/server/release/sign";
+import { authed, parseId, readJson } from "@/lib/server/core/route";
 
 type P = { jobId: string };
 

@@ -1,7 +1,7 @@
 import { publicVerifySchema } from "@/lib/schemas/release";
-import { notFound, invalid } from "@/lib/server/errors";
-import { verifyByHash } from "@/lib/server/release-hash-verify";
-import { open } from "@/lib/server/route";
+import { notFound, invalid } from "@/lib/server/core/errors";
+import { verifyByHash } from "@/lib/server/release/hash-verify";
+import { open } from "@/lib/server/core/route";
 
 /**
  * Public: ?hash=<the fingerprint on the build record>[&job=<job code>]. Says only whether the record

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { templateSchema } from "@/lib/schemas/spec";
-import { authed, parseId, readJson } from "@/lib/server/route";
-import { getTemplate, jobsFromTemplate, setTemplateArchived, updateTemplate } from "@/lib/server/specs-repo";
+import { authed, parseId, readJson } from "@/lib/server/core/route";
+import { getTemplate, jobsFromTemplate, setTemplateArchived, updateTemplate } from "@/lib/server/specs/repo";
 
 type P = { templateId: string };
 const idOf = (p: P) => parseId(p.templateId, "Spec sheet");

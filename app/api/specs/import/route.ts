@@ -1,7 +1,7 @@
 import { templateFileSchema } from "@/lib/schemas/spec";
-import { AppError } from "@/lib/server/errors";
-import { authed, readJson } from "@/lib/server/route";
-import { createTemplate } from "@/lib/server/specs-repo";
+import { AppError } from "@/lib/server/core/errors";
+import { authed, readJson } from "@/lib/server/core/route";
+import { createTemplate } from "@/lib/server/specs/repo";
 
 // A sheet of 400 limits (the schema's most) is about 120 kB as JSON; anything far larger is not one.
 const MAX_BYTES = 1_000_000;

@@ -1,5 +1,5 @@
-import { authed, parseId, readJson } from "@/lib/server/route";
-import { updateUser } from "@/lib/server/users-admin";
+import { authed, parseId, readJson } from "@/lib/server/core/route";
+import { updateUser } from "@/lib/server/users/admin";
 import { updateUserSchema } from "@/lib/schemas/user";
 
 /** Change a person's role, or deactivate / reactivate the account (admin). */

@@ -1,4 +1,4 @@
-import type { OutboxRow } from "@/lib/server/mail-outbox";
+import type { OutboxRow } from "@/lib/server/mail/outbox";
 import { RetryButton } from "./retry-button";
 
 // The shop's outgoing mail with what happened to each message, failures in words.

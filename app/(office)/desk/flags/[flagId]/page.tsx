@@ -1,7 +1,7 @@
 import { notFound } from "next/navigation";
 import { AppHeader } from "@/components/app-header";
 import { FlagDetailView } from "@/components/flags/flag-detail";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 
 export const metadata = { title: "Flag" };
 

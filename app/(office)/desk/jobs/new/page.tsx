@@ -1,5 +1,5 @@
 import { AppHeader } from "@/components/app-header";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 import { JobForm } from "../../_components/job-form";
 
 export const metadata = { title: "New job" };

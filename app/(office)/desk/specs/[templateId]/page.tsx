@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { AppHeader } from "@/components/app-header";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 import { SpecEdit } from "../../_components/spec-edit";
 
 export const metadata = { title: "Spec sheet" };

@@ -1,5 +1,5 @@
 import { AppHeader } from "@/components/app-header";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 import { SpecImport } from "../../_components/spec-import";
 
 export const metadata = { title: "Import a spec sheet" };

@@ -1,5 +1,5 @@
-import { jobPack } from "@/lib/server/bench-pack";
-import { authed, parseId } from "@/lib/server/route";
+import { jobPack } from "@/lib/server/bench/pack";
+import { authed, parseId } from "@/lib/server/core/route";
 
 // The job pack the tablet stores to work offline (shape documented in lib/schemas/sync.ts).
 export const GET = authed<{ jobId: string }>(["machinist", "lead"], async ({ actor, params }) =>

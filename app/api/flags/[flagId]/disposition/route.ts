@@ -1,5 +1,5 @@
-import { disposeFlag } from "@/lib/server/flag-disposition";
-import { authed, parseId, readJson } from "@/lib/server/route";
+import { disposeFlag } from "@/lib/server/flags/disposition";
+import { authed, parseId, readJson } from "@/lib/server/core/route";
 import { dispositionSchema } from "@/lib/schemas/flag";
 
 /**

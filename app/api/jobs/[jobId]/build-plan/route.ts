@@ -1,7 +1,7 @@
 import { buildPlanSchema } from "@/lib/schemas/build-plan";
-import { getBuildPlan, saveBuildPlan } from "@/lib/server/build-plan-repo";
-import { getJobOrThrow } from "@/lib/server/jobs-repo";
-import { authed, parseId, readJson } from "@/lib/server/route";
+import { getBuildPlan, saveBuildPlan } from "@/lib/server/jobs/plan";
+import { getJobOrThrow } from "@/lib/server/jobs/repo";
+import { authed, parseId, readJson } from "@/lib/server/core/route";
 
 type P = { jobId: string };
 

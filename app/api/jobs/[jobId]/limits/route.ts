@@ -1,7 +1,7 @@
 import { jobLimitsSchema } from "@/lib/schemas/spec";
-import { getJobOrThrow } from "@/lib/server/jobs-repo";
-import { getJobLimits, replaceJobLimits } from "@/lib/server/reevaluate-repo";
-import { authed, parseId, readJson } from "@/lib/server/route";
+import { getJobOrThrow } from "@/lib/server/jobs/repo";
+import { getJobLimits, replaceJobLimits } from "@/lib/server/jobs/reevaluate";
+import { authed, parseId, readJson } from "@/lib/server/core/route";
 
 type P = { jobId: string };
 

@@ -1,7 +1,7 @@
-import { readingsCsv } from "@/lib/server/csv-export-rows";
-import { authed, parseId } from "@/lib/server/route";
+import { readingsCsv } from "@/lib/server/readings/csv-export-rows";
+import { authed, parseId } from "@/lib/server/core/route";
 
-/** The job's readings and derived values as CSV (format choices in lib/server/csv-export.ts). ?history=1 adds earlier readings. */
+/** The job's readings and derived values as CSV (format choices in lib/server/readings/csv-export.ts). ?history=1 adds earlier readings. */
 export const GET = authed<{ jobId: string }>(["lead", "inspector", "admin"], async ({ req, actor, params }) => {
   const history = new URL(req.url).searchParams.get("history") === "1";
   const { csv, code } = await readingsCsv(actor.shopId, parseId(params.jobId, "Job"), { history });

@@ -1,7 +1,7 @@
-import { checkCustomerToken } from "@/lib/server/customer-link";
-import { customerView } from "@/lib/server/customer-link-repo";
-import { open } from "@/lib/server/route";
-import { pdfResponse, recordFileName, renderRecordPdf } from "@/lib/server/record/record-pdf";
+import { checkCustomerToken } from "@/lib/server/release/customer-link";
+import { customerView } from "@/lib/server/release/customer-link-repo";
+import { open } from "@/lib/server/core/route";
+import { pdfResponse, recordFileName, renderRecordPdf } from "@/lib/server/record/pdf";
 
 // Public: the customer's download of the one record their signed link names. A link that has
 // expired or been altered goes back to /r/<token>, which says so in words and whom to ask.

@@ -1,5 +1,5 @@
-import { buildRecordPdf, pdfResponse } from "@/lib/server/record/record-pdf";
-import { parseId, authed } from "@/lib/server/route";
+import { buildRecordPdf, pdfResponse } from "@/lib/server/record/pdf";
+import { parseId, authed } from "@/lib/server/core/route";
 
 // The build record PDF of a job (?release=<id> for one release, else the standing or latest one;
 // a job not yet released prints as a DRAFT). ?download=1 asks the browser to save it.

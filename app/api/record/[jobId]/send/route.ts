@@ -1,10 +1,10 @@
-import { recordAudit } from "@/lib/server/audit";
-import { getSequelize } from "@/lib/server/db";
-import { AppError } from "@/lib/server/errors";
-import { getJobOrThrow } from "@/lib/server/jobs-repo";
-import { enqueueRecordResend } from "@/lib/server/mail-outbox";
-import { activeRelease } from "@/lib/server/release-repo";
-import { authed, parseId } from "@/lib/server/route";
+import { recordAudit } from "@/lib/server/log/audit";
+import { getSequelize } from "@/lib/server/core/db";
+import { AppError } from "@/lib/server/core/errors";
+import { getJobOrThrow } from "@/lib/server/jobs/repo";
+import { enqueueRecordResend } from "@/lib/server/mail/outbox";
+import { activeRelease } from "@/lib/server/release/repo";
+import { authed, parseId } from "@/lib/server/core/route";
 
 // Sends the standing release's build record to the customer again, with a fresh link (for a
 // customer whose link expired or whose mail went astray). Queued; the notifier delivers it.

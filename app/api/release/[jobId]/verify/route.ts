@@ -1,5 +1,5 @@
-import { verifyRelease } from "@/lib/server/release-hash-verify";
-import { authed, parseId } from "@/lib/server/route";
+import { verifyRelease } from "@/lib/server/release/hash-verify";
+import { authed, parseId } from "@/lib/server/core/route";
 
 /** Recomputes the latest release's hash (or ?release=ID's) from the database now, with what differs. */
 export const GET = authed<{ jobId: string }>(["inspector", "lead", "admin"], async ({ req, actor, params }) => {

@@ -1,6 +1,6 @@
 import { SPEC_FILE_FORMAT, type TemplateFile } from "@/lib/schemas/spec";
-import { authed, parseId } from "@/lib/server/route";
-import { getTemplate } from "@/lib/server/specs-repo";
+import { authed, parseId } from "@/lib/server/core/route";
+import { getTemplate } from "@/lib/server/specs/repo";
 
 /** The template as a "tenthwise.spec-template" version 1 file (format in lib/schemas/spec.ts). */
 export const GET = authed<{ templateId: string }>(["lead", "admin"], async ({ actor, params }) => {

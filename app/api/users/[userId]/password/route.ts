@@ -1,5 +1,5 @@
-import { authed, parseId } from "@/lib/server/route";
-import { resetPassword } from "@/lib/server/users-admin";
+import { authed, parseId } from "@/lib/server/core/route";
+import { resetPassword } from "@/lib/server/users/admin";
 
 /** Reset a password: a new temporary one, returned once in this reply only (admin). */
 export const POST = authed<{ userId: string }>(["admin"], async ({ actor, params }) => {

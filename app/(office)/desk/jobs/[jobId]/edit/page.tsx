@@ -1,5 +1,5 @@
 import { AppHeader } from "@/components/app-header";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 import { JobEdit } from "../../../_components/job-edit";
 
 export const metadata = { title: "Edit job" };

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { AppHeader } from "@/components/app-header";
-import { requirePageActor } from "@/lib/server/access";
+import { requirePageActor } from "@/lib/server/core/access";
 import { PlanEditor } from "../../../_components/plan-editor";
 
 export const metadata = { title: "Build plan" };

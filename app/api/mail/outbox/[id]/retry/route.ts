@@ -1,7 +1,7 @@
-import { recordAudit } from "@/lib/server/audit";
-import { AppError } from "@/lib/server/errors";
-import { retryNow } from "@/lib/server/mail-outbox";
-import { authed, parseId } from "@/lib/server/route";
+import { recordAudit } from "@/lib/server/log/audit";
+import { AppError } from "@/lib/server/core/errors";
+import { retryNow } from "@/lib/server/mail/outbox";
+import { authed, parseId } from "@/lib/server/core/route";
 
 // "Try again now" for a message not yet sent (after the automatic retries gave up, or sooner).
 export const POST = authed<{ id: string }>(["admin"], async ({ actor, params }) => {

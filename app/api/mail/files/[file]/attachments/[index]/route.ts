@@ -1,6 +1,6 @@
-import { AppError } from "@/lib/server/errors";
-import { mailAttachment } from "@/lib/server/mail-files";
-import { authed } from "@/lib/server/route";
+import { AppError } from "@/lib/server/core/errors";
+import { mailAttachment } from "@/lib/server/mail/files";
+import { authed } from "@/lib/server/core/route";
 
 // An attachment (the build record PDF) of a message in the development mailbox; admin only.
 export const GET = authed<{ file: string; index: string }>(["admin"], async ({ actor, params }) => {

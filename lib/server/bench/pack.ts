@@ -1,0 +1,64 @@
+import "server-only";
+import { benchRoute } from "@/lib/domain";
+import type { BenchJobSummary, JobPack } from "@/lib/schemas/sync";
+import type { Actor } from "@/lib/server/core/access";
+import { flagsOfJobs, toBenchFlag } from "@/lib/server/bench/flags-repo";
+import { jobProgress, jobWithNames, namesOf, openBenchJobs, toHeader } from "@/lib/server/bench/jobs-repo";
+import { toEngineShape, loadJobContext } from "@/lib/server/jobs/context";
+import { AppError, notFound } from "@/lib/server/core/errors";
+import { readingsOfJobs, shopInstruments, toServerReading } from "@/lib/server/readings/repo";
+import { derivedInputs, settledCursor } from "@/lib/server/sync/feed";
+
+// What the tablet stores to work a job offline (GET /api/bench/jobs/:id), and the list it picks from.
+
+function routeOf(shape: Parameters<typeof benchRoute>[0], code: string) {
+  try {
+    return benchRoute(shape);
+  } catch (err) {
+    throw new AppError(
+      "bad_request",
+      `Job ${code}'s engine cannot be measured as entered: ${(err as Error).message}. Ask the lead to fix the engine.`,
+    );
+  }
+}
+
+export async function listBenchJobs(actor: Actor): Promise<BenchJobSummary[]> {
+  const jobs = await openBenchJobs(actor.shopId);
+  const progress = await jobProgress(jobs.map((j) => j.id));
+  return jobs.map((j) => {
+    let stations = 0;
+    try {
+      stations = benchRoute(toEngineShape(j.engine!, j.unitSystem)).total;
+    } catch {
+      stations = 0; // the pack explains what is wrong with the engine
+    }
+    return { ...toHeader(j), ...namesOf(j), stations, ...progress.get(j.id)! };
+  });
+}
+
+export async function jobPack(actor: Actor, jobId: number): Promise<JobPack> {
+  // The cursor first: anything that settles after it is sent again by the feed.
+  const cursor = await settledCursor(actor.shopId);
+  const named = await jobWithNames(actor.shopId, jobId);
+  if (!named) throw notFound("Job");
+  const ctx = await loadJobContext(actor.shopId, jobId);
+  const route = routeOf(ctx.shape, ctx.job.code);
+  const [instruments, readings, flags, inputs] = await Promise.all([
+    shopInstruments(actor.shopId),
+    readingsOfJobs([jobId]),
+    flagsOfJobs([jobId], { unclosedOnly: true }),
+    derivedInputs(actor.shopId, [jobId]),
+  ]);
+  const correctedBy = new Map<string, string>();
+  for (const r of readings) if (r.supersedes) correctedBy.set(r.supersedes, r.id);
+  return {
+    job: { ...toHeader(ctx.job), ...namesOf(named) },
+    shape: ctx.shape,
+    spec: ctx.spec,
+    route,
+    instruments: instruments.map(({ shopId: _s, ...i }) => i),
+    readings: readings.map((r) => toServerReading(r, correctedBy.get(r.id) ?? null)),
+    flags: flags.map((f) => toBenchFlag(f, inputs.get(jobId) ?? new Map())),
+    cursor,
+  };
+}

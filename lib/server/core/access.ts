@@ -1,0 +1,52 @@
+import "server-only";
+import { redirect } from "next/navigation";
+import { AppError } from "@/lib/server/core/errors";
+import { getPageSession, sessionFromRequest, type Role, type SessionData } from "@/lib/server/core/session";
+import { findActiveUser } from "@/lib/server/users/repo";
+
+// Who is asking, checked against the database on every request so a deactivated user or a
+// changed role takes effect at once. Every repo call takes `actor.shopId` to scope its query.
+export type Actor = { userId: number; shopId: number; role: Role; name: string; email: string };
+
+export const ROLE_HOME: Record<Role, string> = {
+  machinist: "/bench",
+  lead: "/desk",
+  inspector: "/release",
+  admin: "/admin",
+};
+
+async function actorFrom(session: SessionData | null): Promise<Actor | null> {
+  if (!session) return null;
+  const user = await findActiveUser(session.userId, session.shopId);
+  if (!user) return null;
+  return { userId: user.id, shopId: user.shopId, role: user.role, name: user.name, email: user.email };
+}
+
+export async function actorFromRequest(req: Request): Promise<Actor | null> {
+  return actorFrom(await sessionFromRequest(req));
+}
+
+export function assertRole(actor: Actor, roles: readonly Role[] | "any"): void {
+  if (roles !== "any" && !roles.includes(actor.role)) {
+    throw new AppError("forbidden", `This needs one of these roles: ${roles.join(", ")}`);
+  }
+}
+
+export async function requireActor(req: Request, roles: readonly Role[] | "any" = "any"): Promise<Actor> {
+  const actor = await actorFromRequest(req);
+  if (!actor) throw new AppError("unauthorized", "Sign in first");
+  assertRole(actor, roles);
+  return actor;
+}
+
+/** For pages and layouts: signed out → sign-in page; wrong role → that user's own home. */
+export async function requirePageActor(roles: readonly Role[] | "any" = "any", from?: string): Promise<Actor> {
+  const actor = await actorFrom(await getPageSession());
+  if (!actor) redirect(from ? `/sign-in?next=${encodeURIComponent(from)}` : "/sign-in");
+  if (roles !== "any" && !roles.includes(actor.role)) redirect(ROLE_HOME[actor.role]);
+  return actor;
+}
+
+export async function currentPageActor(): Promise<Actor | null> {
+  return actorFrom(await getPageSession());
+}

@@ -1,0 +1,166 @@
+import "server-only";
+import { UniqueConstraintError, type Transaction } from "sequelize";
+import { z } from "zod";
+import { Attachment, Instrument } from "@/models";
+import {
+  calibrationStatus,
+  instrumentFields,
+  withInstrumentRules,
+  type InstrumentInput,
+  type InstrumentPatch,
+  type InstrumentRecord,
+  type InstrumentUnit,
+} from "@/lib/schemas/instrument";
+import type { Actor } from "@/lib/server/core/access";
+import { recordAudit } from "@/lib/server/log/audit";
+import { getSequelize } from "@/lib/server/core/db";
+import { AppError, invalid, notFound } from "@/lib/server/core/errors";
+
+// The shop's gauges. U is stored at k = 2 (coverageK stays 2: the form asks for U at k = 2).
+const todayUtc = () => new Date().toISOString().slice(0, 10);
+
+function reshape(g: Instrument, today = todayUtc()): InstrumentRecord {
+  const cert = (g as Instrument & { certificate?: Attachment | null }).certificate;
+  const due = g.calibrationDue ?? today;
+  return {
+    id: g.id,
+    kind: g.kind as InstrumentRecord["kind"],
+    label: g.label,
+    serial: g.serial,
+    unit: g.unit as InstrumentUnit,
+    resolution: g.resolution,
+    expandedU: g.expandedU,
+    coverageK: g.coverageK,
+    calibratedOn: g.calibratedOn ?? "",
+    calibrationDue: g.calibrationDue ?? "",
+    dialPlusMeansSmaller: g.dialPlusMeansSmaller,
+    active: g.active,
+    certificate: cert ? { id: cert.id, name: cert.originalName, url: `/api/attachments/${cert.id}` } : null,
+    ...calibrationStatus(due, today),
+  };
+}
+
+const withCertificate = { include: [{ model: Attachment, as: "certificate" }] };
+
+// What the audit keeps: the figures that decide verdicts and flags.
+const auditView = (g: Instrument) => ({
+  kind: g.kind,
+  label: g.label,
+  serial: g.serial,
+  unit: g.unit,
+  resolution: g.resolution,
+  expandedU: g.expandedU,
+  coverageK: g.coverageK,
+  calibratedOn: g.calibratedOn,
+  calibrationDue: g.calibrationDue,
+  dialPlusMeansSmaller: g.dialPlusMeansSmaller,
+  active: g.active,
+});
+
+export async function listInstruments(
+  shopId: number,
+  opts: { includeInactive?: boolean } = {},
+): Promise<InstrumentRecord[]> {
+  getSequelize();
+  const rows = await Instrument.findAll({
+    where: { shopId, ...(opts.includeInactive ? {} : { active: true }) },
+    order: [
+      ["active", "DESC"],
+      ["calibrationDue", "ASC"],
+      ["label", "ASC"],
+    ],
+    ...withCertificate,
+  });
+  const today = todayUtc();
+  return rows.map((g) => reshape(g, today));
+}
+
+async function findOrThrow(shopId: number, id: number, t?: Transaction): Promise<Instrument> {
+  const g = await Instrument.findOne({ where: { id, shopId }, transaction: t, ...withCertificate });
+  if (!g) throw notFound("Gauge");
+  return g;
+}
+
+export async function getInstrument(shopId: number, id: number): Promise<InstrumentRecord> {
+  getSequelize();
+  return reshape(await findOrThrow(shopId, id));
+}
+
+function serialTaken(serial: string): AppError {
+  return new AppError("conflict", `Serial ${serial} is already registered to another gauge in this shop`, {
+    serial: ["Another gauge of this shop has this serial"],
+  });
+}
+
+/** Unique (shop, serial) is enforced by the database; a race or a repeat becomes a 409 with words. */
+async function guardSerial<T>(serial: string, run: () => Promise<T>): Promise<T> {
+  try {
+    return await run();
+  } catch (err) {
+    if (err instanceof UniqueConstraintError) throw serialTaken(serial);
+    throw err;
+  }
+}
+
+export async function createInstrument(actor: Actor, input: InstrumentInput): Promise<InstrumentRecord> {
+  const sequelize = getSequelize();
+  return guardSerial(input.serial, () =>
+    sequelize.transaction(async (t) => {
+      const g = await Instrument.create(
+        { ...input, shopId: actor.shopId, coverageK: 2, active: true },
+        { transaction: t },
+      );
+      await recordAudit(t, {
+        shopId: actor.shopId,
+        userId: actor.userId,
+        action: "instrument.registered",
+        entityType: "instrument",
+        entityId: g.id,
+        after: auditView(g),
+      });
+      return reshape(g);
+    }),
+  );
+}
+
+/** The stored gauge with the edit applied, checked as a whole (unit fits kind, due after calibration). */
+function merged(g: Instrument, patch: InstrumentPatch): InstrumentInput {
+  const { active: _a, ...fields } = patch;
+  const whole = { ...auditView(g), ...fields };
+  const parsed = withInstrumentRules(instrumentFields).safeParse(whole);
+  if (!parsed.success) throw invalid(parsed.error);
+  return parsed.data;
+}
+
+function actionFor(g: Instrument, patch: InstrumentPatch): string {
+  if (patch.active === false && g.active) return "instrument.deactivated";
+  if (patch.active === true && !g.active) return "instrument.reactivated";
+  return "instrument.updated";
+}
+
+export async function updateInstrument(actor: Actor, id: number, patch: InstrumentPatch): Promise<InstrumentRecord> {
+  const sequelize = getSequelize();
+  return guardSerial(patch.serial ?? "", () =>
+    sequelize.transaction(async (t) => {
+      const g = await findOrThrow(actor.shopId, id, t);
+      const next = merged(g, patch);
+      const before = auditView(g);
+      const action = actionFor(g, patch);
+      await g.update({ ...next, ...(patch.active !== undefined ? { active: patch.active } : {}) }, { transaction: t });
+      await recordAudit(t, {
+        shopId: actor.shopId,
+        userId: actor.userId,
+        action,
+        entityType: "instrument",
+        entityId: g.id,
+        before,
+        after: auditView(g),
+      });
+      return reshape(g);
+    }),
+  );
+}
+
+export const instrumentListQuery = z.object({
+  include: z.enum(["active", "all"], { error: "include must be active or all" }).default("active"),
+});

@@ -1,0 +1,95 @@
+import "server-only";
+import { compactLimit, type JobLimitsValues, type LimitValues } from "@/lib/schemas/spec";
+import { Job, JobLimit } from "@/models";
+import type { Actor } from "@/lib/server/core/access";
+import { recordAudit } from "@/lib/server/log/audit";
+import { recordChange } from "@/lib/server/sync/changes";
+import { getSequelize } from "@/lib/server/core/db";
+import { AppError, notFound } from "@/lib/server/core/errors";
+import { reconcileJob } from "@/lib/server/flags/reconcile";
+import { loadJobContext } from "@/lib/server/jobs/context";
+import { assertJobEditable, isJobLocked } from "@/lib/server/jobs/admin-repo";
+import { limitRow } from "@/lib/server/specs/repo";
+
+// A job's own limit snapshot: read it, or replace it and re-evaluate the job's readings and
+// flags against the new limits, all in one transaction (flag-reconcile.ts does the judging).
+export type JobLimitsView = {
+  job: {
+    id: number;
+    code: string;
+    title: string;
+    unitSystem: "in" | "mm";
+    status: string;
+    locked: boolean;
+    specRevision: number;
+  };
+  limits: LimitValues[];
+};
+export type LimitsSaved = JobLimitsView & {
+  result: { reevaluated: number; opened: number; closed: number; updated: number };
+};
+
+export async function getJobLimits(shopId: number, jobId: number): Promise<JobLimitsView> {
+  const { job, spec } = await loadJobContext(shopId, jobId);
+  return {
+    job: {
+      id: job.id,
+      code: job.code,
+      title: job.title,
+      unitSystem: job.unitSystem,
+      status: job.status,
+      locked: isJobLocked(job),
+      specRevision: job.specRevision,
+    },
+    limits: spec.map((l) => compactLimit(l as LimitValues)),
+  };
+}
+
+export async function replaceJobLimits(actor: Actor, jobId: number, v: JobLimitsValues): Promise<LimitsSaved> {
+  const result = await getSequelize().transaction(async (t) => {
+    const job = await Job.findOne({ where: { id: jobId, shopId: actor.shopId }, transaction: t, lock: t.LOCK.UPDATE });
+    if (!job) throw notFound("Job");
+    assertJobEditable(job);
+    if (v.specRevision !== job.specRevision) {
+      throw new AppError(
+        "conflict",
+        `Someone changed these limits since you opened them (now revision ${job.specRevision}); reload the page, then make your change again`,
+        { specRevision: [`Now ${job.specRevision}`] },
+      );
+    }
+    const before = (await loadJobContext(actor.shopId, jobId, t)).spec.map((l) => compactLimit(l as LimitValues));
+    await JobLimit.destroy({ where: { jobId }, transaction: t });
+    await JobLimit.bulkCreate(
+      v.limits.map((l, i) => ({ ...limitRow(l, i), jobId })),
+      { transaction: t },
+    );
+    const from = job.specRevision;
+    const revision = from + 1;
+    await job.update({ specRevision: revision }, { transaction: t });
+    const r = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, cause: "limits_changed" });
+    const after = (await loadJobContext(actor.shopId, jobId, t)).spec.map((l) => compactLimit(l as LimitValues));
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "job_limits.update",
+      entityType: "job",
+      entityId: jobId,
+      before: { specRevision: from, limits: before },
+      after: {
+        specRevision: revision,
+        limits: after,
+        reevaluated: r.reevaluated.length,
+        flagsOpened: r.opened,
+        flagsClosed: r.closed,
+      },
+    });
+    await recordChange(t, { shopId: actor.shopId, jobId, entity: "job_limits", entityId: jobId });
+    return {
+      reevaluated: r.reevaluated.length,
+      opened: r.opened.length,
+      closed: r.closed.length,
+      updated: r.updatedFlags.length,
+    };
+  });
+  return { ...(await getJobLimits(actor.shopId, jobId)), result };
+}

@@ -1,0 +1,149 @@
+import "server-only";
+import { Op, QueryTypes } from "sequelize";
+import { Flag, Job, MailOutbox, Release, Shop, User, type Role } from "@/models";
+import { getSequelize } from "@/lib/server/core/db";
+
+// What the notifier reads: releases not yet mailed, flags since the last digest, jobs that may
+// have become ready, and who receives each kind of mail. Plain objects out.
+
+export type Recipient = { id: number; name: string; email: string };
+
+export async function recipients(shopId: number, role: Role): Promise<Recipient[]> {
+  getSequelize();
+  const users = await User.findAll({ where: { shopId, role, active: true }, order: [["id", "ASC"]] });
+  return users.map((u) => ({ id: u.id, name: u.name, email: u.email }));
+}
+
+/** Standing releases signed since `since` with no build-record mail queued. */
+export async function releasesWithoutMail(since: Date): Promise<{ id: number; shopId: number; jobId: number }[]> {
+  const rows = await getSequelize().query<{ id: number; shop_id: number; job_id: number }>(
+    `SELECT r.id, r.shop_id, r.job_id FROM releases r
+       LEFT JOIN mail_outbox m ON m.dedupe_key = CONCAT('build_record:release:', r.id)
+      WHERE r.voided_at IS NULL AND r.signed_at >= ? AND m.id IS NULL
+      ORDER BY r.id DESC LIMIT 100`,
+    { replacements: [since], type: QueryTypes.SELECT },
+  );
+  return rows.map((r) => ({ id: Number(r.id), shopId: Number(r.shop_id), jobId: Number(r.job_id) }));
+}
+
+export async function shopsWithFlagsSince(since: Date): Promise<number[]> {
+  const rows = await getSequelize().query<{ shop_id: number }>(
+    "SELECT DISTINCT shop_id FROM flags WHERE created_at >= ? ORDER BY shop_id",
+    { replacements: [since], type: QueryTypes.SELECT },
+  );
+  return rows.map((r) => Number(r.shop_id));
+}
+
+/** The highest flag id the shop's last digest covered, and when it was queued; null before the first. */
+export async function lastDigest(shopId: number): Promise<{ maxFlagId: number; at: Date } | null> {
+  getSequelize();
+  const row = await MailOutbox.findOne({ where: { shopId, kind: "flag_digest" }, order: [["id", "DESC"]] });
+  if (!row) return null;
+  const payload = typeof row.payload === "string" ? JSON.parse(row.payload) : row.payload;
+  return { maxFlagId: Number(payload.maxFlagId ?? 0), at: row.createdAt };
+}
+
+export type DigestFlag = {
+  id: number;
+  jobCode: string;
+  stationId: string;
+  characteristic: string;
+  value: number;
+  unit: string;
+  limitMin: number | null;
+  limitMax: number | null;
+  verdict: string;
+  reason: string;
+  state: string;
+};
+
+export async function flagsAfter(
+  shopId: number,
+  after: { id?: number; since?: Date },
+  limit = 200,
+): Promise<DigestFlag[]> {
+  getSequelize();
+  const where =
+    after.id !== undefined ? { shopId, id: { [Op.gt]: after.id } } : { shopId, createdAt: { [Op.gte]: after.since! } };
+  const flags = await Flag.findAll({ where, order: [["id", "ASC"]], limit });
+  const jobs = await Job.findAll({
+    where: { id: [...new Set(flags.map((f) => f.jobId))], shopId },
+    attributes: ["id", "code"],
+  });
+  const code = new Map(jobs.map((j) => [j.id, j.code]));
+  return flags.map((f) => ({
+    id: f.id,
+    jobCode: code.get(f.jobId) ?? "",
+    stationId: f.stationId,
+    characteristic: f.characteristic,
+    value: f.value,
+    unit: f.unit,
+    limitMin: f.limitMin ?? null,
+    limitMax: f.limitMax ?? null,
+    verdict: f.verdict,
+    reason: f.reason,
+    state: f.state,
+  }));
+}
+
+export type OpenJob = { id: number; shopId: number; code: string; title: string; specRevision: number };
+
+const OPEN = "j.status IN ('intake', 'measuring', 'review') AND j.locked_at IS NULL";
+const toOpenJob = (j: {
+  id: number;
+  shop_id: number;
+  code: string;
+  title: string;
+  spec_revision: number;
+}): OpenJob => ({
+  id: Number(j.id),
+  shopId: Number(j.shop_id),
+  code: j.code,
+  title: j.title,
+  specRevision: Number(j.spec_revision),
+});
+
+/**
+ * Open jobs (not released, closed or locked) touched since the cursor: a change in the sync feed
+ * (readings, flags, limits) after `syncId`, or an edit of the job row (plan, status) since `at`.
+ * With no cursor yet, feed changes since `at` count. Also returns the feed's newest id.
+ */
+export async function changedOpenJobs(since: {
+  syncId: number | null;
+  at: Date;
+}): Promise<{ jobs: OpenJob[]; syncId: number }> {
+  const sequelize = getSequelize();
+  const [top] = await sequelize.query<{ m: number | null }>("SELECT MAX(id) AS m FROM sync_changes", {
+    type: QueryTypes.SELECT,
+  });
+  const feed = since.syncId === null ? "created_at >= :at" : "id > :syncId";
+  const rows = await sequelize.query<Parameters<typeof toOpenJob>[0]>(
+    `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j
+      WHERE ${OPEN} AND (j.updated_at >= :at OR j.id IN (SELECT job_id FROM sync_changes WHERE ${feed}))
+      ORDER BY j.id DESC LIMIT 500`,
+    { replacements: { at: since.at, syncId: since.syncId ?? 0 }, type: QueryTypes.SELECT },
+  );
+  return { jobs: rows.map(toOpenJob), syncId: Number(top?.m ?? 0) };
+}
+
+/** The next `limit` open jobs after `afterId`, wrapping round to the lowest id. */
+export async function openJobsAfter(afterId: number, limit: number): Promise<OpenJob[]> {
+  const page = (where: string) =>
+    getSequelize().query<Parameters<typeof toOpenJob>[0]>(
+      `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j WHERE ${OPEN} ${where} ORDER BY j.id LIMIT ${Number(limit)}`,
+      { replacements: [afterId], type: QueryTypes.SELECT },
+    );
+  const rows = await page("AND j.id > ?");
+  if (rows.length < limit && afterId > 0) rows.push(...(await page("AND j.id <= ?")).slice(0, limit - rows.length));
+  return rows.map(toOpenJob);
+}
+
+export async function releaseCount(jobId: number): Promise<number> {
+  getSequelize();
+  return Release.count({ where: { jobId } });
+}
+
+export async function shopName(shopId: number): Promise<string> {
+  getSequelize();
+  return (await Shop.findByPk(shopId))?.name ?? "your shop";
+}

@@ -1,0 +1,154 @@
+import "server-only";
+import {
+  AXES,
+  BORE_DEPTHS,
+  JOURNAL_POSITIONS,
+  cleanDecimal,
+  convertLength,
+  deckBanks,
+  deriveReadings,
+  evaluateReading,
+  lengthUnitOf,
+  limitsFor,
+  parseStationId,
+  rodJournalCount,
+  type DerivedValue,
+  type EngineShape,
+  type LengthUnit,
+  type LimitContext,
+  type NominalSizes,
+  type RawReading,
+  type SpecLimit,
+  type Verdict,
+} from "@/lib/domain";
+import { toRaw } from "@/lib/server/sync/ingest-evaluate";
+import { loadJobContext } from "@/lib/server/jobs/context";
+import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";
+
+// Bore, journal and deck maps of a job: every current figure judged by the core (evaluateReading,
+// 20 °C correction and the gauge's U included), taper and out-of-round from deriveReadings, all
+// expressed in the job's length unit so one chart has one scale.
+
+export type MapPoint = { value: number | null; min: number | null; max: number | null; verdict: Verdict | null };
+export type ProfileRow = { at: string; A: MapPoint; B: MapPoint };
+export type Figure = { value: number | null; max: number | null; verdict: Verdict | null; missing: number };
+export type Profile = { n: number; label: string; rows: ProfileRow[]; taper: Figure; outOfRound: Figure };
+export type DeckCorner = { bank: string; corner: string; point: MapPoint };
+export type JobMaps = {
+  job: { id: number; code: string; title: string };
+  unit: LengthUnit;
+  corrected: boolean;
+  bores: Profile[];
+  mains: Profile[];
+  rods: Profile[];
+  deck: DeckCorner[];
+};
+
+type Judge = (stationId: string) => MapPoint;
+const SIZE: Record<string, keyof NominalSizes> = { bore: "bore", main: "mainJournal", rod: "rodJournal" };
+
+/** The limit at a station not read yet (findLimit/resolveLimit), so the chart still shows its lines. */
+function limitOnly(stationId: string, shape: EngineShape, spec: SpecLimit[], unit: LengthUnit) {
+  const p = parseStationId(stationId);
+  const size = shape.nominalSizes?.[SIZE[p.section] ?? "bore"];
+  const context: LimitContext =
+    size && SIZE[p.section] ? { nominal: { value: size, unit }, diameter: { value: size, unit } } : {};
+  return p.characteristic ? limitsFor(spec, p.characteristic, stationId, context).limits : undefined;
+}
+
+function judgeWith(raws: Map<string, RawReading>, shape: EngineShape, spec: SpecLimit[], unit: LengthUnit): Judge {
+  const all = [...raws.values()];
+  const inUnit = (x: number | undefined, from: string) =>
+    x === undefined ? null : from === unit ? x : cleanDecimal(convertLength(x, from as LengthUnit, unit));
+  return (stationId) => {
+    const raw = raws.get(stationId);
+    if (!raw) {
+      const l = limitOnly(stationId, shape, spec, unit);
+      return { value: null, min: inUnit(l?.min, l?.unit ?? unit), max: inUnit(l?.max, l?.unit ?? unit), verdict: null };
+    }
+    try {
+      const e = evaluateReading(raw, shape, spec, all);
+      const from = e.limits?.unit ?? e.unit;
+      return {
+        value: inUnit(e.value, from),
+        min: inUnit(e.limits?.min, from),
+        max: inUnit(e.limits?.max, from),
+        verdict: e.verdict ?? null,
+      };
+    } catch {
+      return { value: null, min: null, max: null, verdict: null }; // not a figure the core can use: a gap on the map
+    }
+  };
+}
+
+function figureOf(d: DerivedValue | undefined, unit: LengthUnit): Figure {
+  if (!d) return { value: null, max: null, verdict: null, missing: 0 };
+  const from = d.limits?.unit ?? d.unit;
+  const conv = (x: number | undefined) =>
+    x === undefined ? null : from === unit ? x : cleanDecimal(convertLength(x, from as LengthUnit, unit));
+  return { value: conv(d.value), max: conv(d.limits?.max), verdict: d.verdict ?? null, missing: d.missing.length };
+}
+
+function profiles(
+  prefix: "bore" | "main" | "rod",
+  count: number,
+  at: readonly string[],
+  judge: Judge,
+  derived: Map<string, DerivedValue>,
+  unit: LengthUnit,
+): Profile[] {
+  const names = {
+    bore: ["bore_taper", "bore_out_of_round", "Cylinder"],
+    main: ["main_journal_taper", "main_journal_out_of_round", "Main journal"],
+    rod: ["rod_journal_taper", "rod_journal_out_of_round", "Rod journal"],
+  }[prefix];
+  return Array.from({ length: count }, (_, i) => {
+    const n = i + 1;
+    const rows = at.map((spot) => ({
+      at: spot,
+      A: judge(`${prefix}/${n}/${spot}/${AXES[0]}`),
+      B: judge(`${prefix}/${n}/${spot}/${AXES[1]}`),
+    }));
+    return {
+      n,
+      label: `${names[2]} ${n}`,
+      rows,
+      taper: figureOf(derived.get(`${names[0]}@${prefix}/${n}`), unit),
+      outOfRound: figureOf(derived.get(`${names[1]}@${prefix}/${n}`), unit),
+    };
+  });
+}
+
+export async function jobMaps(shopId: number, jobId: number): Promise<JobMaps> {
+  const ctx = await loadJobContext(shopId, jobId);
+  const all = await jobReadings(undefined, jobId);
+  const current = currentReadings(all);
+  const instruments = await findInstruments(
+    undefined,
+    shopId,
+    current.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
+  );
+  const raws = new Map(
+    current.map((r) => [r.stationId, toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined)]),
+  );
+  const unit = lengthUnitOf(ctx.shape);
+  let derived: DerivedValue[] = [];
+  try {
+    derived = deriveReadings([...raws.values()], ctx.shape, ctx.spec);
+  } catch {
+    derived = []; // an engine shape the core refuses: the maps show no taper or out-of-round
+  }
+  const byKey = new Map(derived.map((d) => [d.key, d]));
+  const judge = judgeWith(raws, ctx.shape, ctx.spec, unit);
+  return {
+    job: { id: ctx.job.id, code: ctx.job.code, title: ctx.job.title },
+    unit,
+    corrected: current.some((r) => r.partTempC !== null),
+    bores: profiles("bore", ctx.shape.cylinders, BORE_DEPTHS, judge, byKey, unit),
+    mains: profiles("main", ctx.shape.mains, JOURNAL_POSITIONS, judge, byKey, unit),
+    rods: profiles("rod", rodJournalCount(ctx.shape), JOURNAL_POSITIONS, judge, byKey, unit),
+    deck: deckBanks(ctx.shape.layout).flatMap((bank) =>
+      (["front", "rear"] as const).map((corner) => ({ bank, corner, point: judge(`deck/${bank}/${corner}`) })),
+    ),
+  };
+}

@@ -1,0 +1,340 @@
+import "server-only";
+import { Op, QueryTypes, type Transaction } from "sequelize";
+import { Instrument, decimalToNumber } from "@/models";
+import type { ServerReading } from "@/lib/schemas/sync";
+import { getSequelize } from "@/lib/server/core/db";
+import { sqlRows, sqlWrite, utcDate } from "@/lib/server/core/sql-driver";
+import { insertMany } from "@/lib/server/core/sql-insert";
+import type { InstrumentInfo, ReadingFacts } from "@/lib/server/sync/ingest-evaluate";
+
+// Readings and the gauges they were taken with. Plain objects out; every query scoped by shop or
+// by a job the caller has already checked belongs to the shop.
+
+export type StoredReading = ReadingFacts & {
+  shopId: number;
+  jobId: number;
+  characteristic: string;
+  valueCanonical: number | null;
+  entryMode: "direct" | "dial";
+  dialSetting: number | null;
+  dialDeviation: number | null;
+  skipped: boolean;
+  skipReason: string | null;
+  note: string | null;
+  takenBy: number;
+  receivedAt: Date;
+  deviceId: string;
+  supersedes: string | null;
+  verdict: "in_spec" | "marginal" | "out_of_spec" | null;
+  verdictNote: string | null;
+  limitMin: number | null;
+  limitMax: number | null;
+  deviation: number | null;
+};
+export type NewReading = Omit<StoredReading, "receivedAt"> & { receivedAt: Date };
+
+// Raw SQL for the hot paths of ingest and reconciliation: model instances cost more than the
+// queries here (bench:sync), and these rows only ever travel as plain objects.
+const COLUMNS = `id, shop_id AS shopId, job_id AS jobId, station_id AS stationId, characteristic,
+  value_canonical AS valueCanonical, value_entered AS value, unit_entered AS unit, entry_mode AS entryMode,
+  dial_setting AS dialSetting, dial_deviation AS dialDeviation, instrument_id AS instrumentId,
+  part_temp_c AS partTempC, gauge_temp_c AS gaugeTempC, lubricant, skipped, skip_reason AS skipReason, note,
+  taken_by AS takenBy, taken_at AS takenAt, received_at AS receivedAt, device_id AS deviceId, supersedes,
+  verdict, verdict_note AS verdictNote, limit_min AS limitMin, limit_max AS limitMax, deviation`;
+const DECIMALS = [
+  "valueCanonical",
+  "value",
+  "dialSetting",
+  "dialDeviation",
+  "partTempC",
+  "gaugeTempC",
+  "limitMin",
+  "limitMax",
+  "deviation",
+] as const;
+const ORDER = "ORDER BY taken_at, received_at, id";
+
+function fromRow(row: Record<string, unknown>): StoredReading {
+  const r = row as unknown as StoredReading & Record<string, unknown>;
+  for (const k of DECIMALS) r[k] = decimalToNumber(row[k]);
+  r.jobId = Number(row.jobId);
+  r.shopId = Number(row.shopId);
+  r.instrumentId = row.instrumentId === null ? null : Number(row.instrumentId);
+  r.skipped = !!row.skipped;
+  // Sequelize hands DATETIME back as a Date, the driver path (sql-driver.ts) as UTC text.
+  r.takenAt = utcDate(row.takenAt) as Date;
+  r.receivedAt = utcDate(row.receivedAt) as Date;
+  return r;
+}
+
+/** Inside a transaction on its own driver connection (the sync hot path), else through Sequelize. */
+async function selectReadings(
+  where: string,
+  replacements: unknown[],
+  t?: Transaction,
+  lock = "",
+): Promise<StoredReading[]> {
+  const sql = `SELECT ${COLUMNS} FROM readings WHERE ${where} ${ORDER}${lock}`;
+  const rows = t
+    ? await sqlRows(t, sql, replacements)
+    : await getSequelize().query<Record<string, unknown>>(sql, { replacements, type: QueryTypes.SELECT });
+  return rows.map(fromRow);
+}
+
+/**
+ * Locks the jobs' rows (ascending id, so two batches never wait on each other in a circle) and
+ * returns the ids that belong to the shop. Every writer of a job's readings or flags takes this
+ * lock first, which serialises them per job.
+ */
+export async function lockJobs(t: Transaction, shopId: number, jobIds: number[]): Promise<Set<number>> {
+  return new Set((await lockJobRevisions(t, shopId, jobIds)).keys());
+}
+
+/**
+ * lockJobs, returning each locked job's context_revision (as text: it is a 64-bit token). Read
+ * under the row lock, so it is the latest committed token and cannot change until we commit.
+ */
+export async function lockJobRevisions(t: Transaction, shopId: number, jobIds: number[]): Promise<Map<number, string>> {
+  if (jobIds.length === 0) return new Map();
+  const rows = await sqlRows<{ id: number; revision: string }>(
+    t,
+    "SELECT id, CAST(context_revision AS CHAR) AS revision FROM jobs WHERE shop_id = ? AND id IN (?) ORDER BY id FOR UPDATE",
+    [shopId, [...new Set(jobIds)].sort((a, b) => a - b)],
+  );
+  return new Map(rows.map((r) => [Number(r.id), String(r.revision)]));
+}
+
+/** Readings with these ids in ANY shop: a client id is global, so a clash must be seen to be refused. */
+export async function findReadings(t: Transaction | undefined, ids: string[]): Promise<Map<string, StoredReading>> {
+  if (ids.length === 0) return new Map();
+  const rows = await selectReadings("id IN (?)", [ids], t);
+  return new Map(rows.map((r) => [r.id, r]));
+}
+
+/**
+ * Every reading of a job, oldest first (takenAt, then arrival, then id: the core's "latest wins"
+ * order). `locking`: read the latest committed rows whatever snapshot the caller's transaction
+ * already holds (a limits edit may have read before it locked the job). A transaction whose first
+ * statement locked the job row needs no locking read: its snapshot starts after the lock.
+ */
+export async function jobReadings(t: Transaction | undefined, jobId: number, locking = true): Promise<StoredReading[]> {
+  return selectReadings("job_id = ?", [jobId], t, t && locking ? " LOCK IN SHARE MODE" : "");
+}
+
+const GAUGE_COLUMNS = `g.id AS gId, g.shop_id AS gShopId, g.kind AS gKind, g.label AS gLabel, g.serial AS gSerial,
+  g.unit AS gUnit, g.resolution AS gResolution, g.expanded_u AS gExpandedU, g.coverage_k AS gCoverageK,
+  g.calibration_due AS gCalibrationDue, g.dial_plus_means_smaller AS gDial, g.active AS gActive`;
+const READING_COLUMNS = COLUMNS.split(",")
+  .map((c) => `r.${c.trim()}`)
+  .join(", ");
+
+function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
+  const due = row.gCalibrationDue;
+  return {
+    id: Number(row.gId),
+    shopId: Number(row.gShopId),
+    kind: String(row.gKind),
+    label: String(row.gLabel),
+    serial: String(row.gSerial),
+    unit: String(row.gUnit),
+    resolution: Number(row.gResolution),
+    expandedU: Number(row.gExpandedU),
+    coverageK: Number(row.gCoverageK ?? 2),
+    calibrationDue:
+      due === null || due === undefined
+        ? null
+        : due instanceof Date
+          ? due.toISOString().slice(0, 10)
+          : String(due).slice(0, 10),
+    dialPlusMeansSmaller: !!row.gDial,
+    active: !!row.gActive,
+  };
+}
+
+/**
+ * jobReadings and the shop's gauges they were taken with, in one query (reconciliation's hot path);
+ * with `stations`, only the readings at those stations (a station's current figure depends on its
+ * own readings only: a correction is always taken at the station it corrects).
+ */
+export async function jobReadingsWithGauges(
+  t: Transaction,
+  shopId: number,
+  jobId: number,
+  locking = true,
+  stations?: readonly string[],
+) {
+  if (stations?.length === 0) return { readings: [], instruments: new Map<number, InstrumentInfo>() };
+  const rows = await sqlRows(
+    t,
+    `SELECT ${READING_COLUMNS}, ${GAUGE_COLUMNS} FROM readings r LEFT JOIN instruments g ON g.id = r.instrument_id AND g.shop_id = ?
+      WHERE r.job_id = ?${stations ? " AND r.station_id IN (?)" : ""} ORDER BY r.taken_at, r.received_at, r.id${locking ? " LOCK IN SHARE MODE" : ""}`,
+    stations ? [shopId, jobId, stations] : [shopId, jobId],
+  );
+  const instruments = new Map<number, InstrumentInfo>();
+  for (const row of rows)
+    if (row.gId !== null && row.gId !== undefined && !instruments.has(Number(row.gId)))
+      instruments.set(Number(row.gId), gaugeOf(row));
+  return { readings: rows.map(fromRow), instruments };
+}
+
+/** The station's current figure: the latest reading with a value that no other reading corrects. */
+export function currentReadings(all: StoredReading[]): StoredReading[] {
+  const corrected = new Set(all.map((r) => r.supersedes).filter(Boolean));
+  const latest = new Map<string, StoredReading>();
+  for (const r of all) if (!r.skipped && r.value !== null && !corrected.has(r.id)) latest.set(r.stationId, r);
+  return [...latest.values()];
+}
+
+const INSERT_COLUMNS: [string, keyof NewReading][] = [
+  ["id", "id"],
+  ["shop_id", "shopId"],
+  ["job_id", "jobId"],
+  ["station_id", "stationId"],
+  ["characteristic", "characteristic"],
+  ["value_canonical", "valueCanonical"],
+  ["value_entered", "value"],
+  ["unit_entered", "unit"],
+  ["entry_mode", "entryMode"],
+  ["dial_setting", "dialSetting"],
+  ["dial_deviation", "dialDeviation"],
+  ["instrument_id", "instrumentId"],
+  ["part_temp_c", "partTempC"],
+  ["gauge_temp_c", "gaugeTempC"],
+  ["lubricant", "lubricant"],
+  ["skipped", "skipped"],
+  ["skip_reason", "skipReason"],
+  ["note", "note"],
+  ["taken_by", "takenBy"],
+  ["taken_at", "takenAt"],
+  ["received_at", "receivedAt"],
+  ["device_id", "deviceId"],
+  ["supersedes", "supersedes"],
+  ["verdict", "verdict"],
+  ["verdict_note", "verdictNote"],
+  ["limit_min", "limitMin"],
+  ["limit_max", "limitMax"],
+  ["deviation", "deviation"],
+];
+
+/** One multi-row INSERT; rows must already be in foreign-key order (a correction after its target). */
+export async function insertReadings(t: Transaction, rows: NewReading[]): Promise<void> {
+  const now = new Date();
+  await insertMany(
+    t,
+    "readings",
+    [...INSERT_COLUMNS.map(([c]) => c), "created_at", "updated_at"],
+    rows.map((r) => [...INSERT_COLUMNS.map(([, k]) => r[k]), now, now]),
+  );
+}
+
+export async function updateEvaluation(
+  t: Transaction,
+  id: string,
+  e: Pick<StoredReading, "verdict" | "verdictNote" | "limitMin" | "limitMax" | "deviation">,
+): Promise<void> {
+  await sqlWrite(
+    t,
+    "UPDATE readings SET verdict = ?, verdict_note = ?, limit_min = ?, limit_max = ?, deviation = ?, updated_at = ? WHERE id = ?",
+    [e.verdict, e.verdictNote, e.limitMin, e.limitMax, e.deviation, new Date(), id],
+  );
+}
+
+function toInstrument(i: Instrument): InstrumentInfo {
+  return {
+    id: i.id,
+    shopId: i.shopId,
+    kind: i.kind,
+    label: i.label,
+    serial: i.serial,
+    unit: i.unit,
+    resolution: Number(i.resolution),
+    expandedU: Number(i.expandedU),
+    coverageK: Number(i.coverageK ?? 2),
+    calibrationDue: i.calibrationDue ?? null,
+    dialPlusMeansSmaller: !!i.dialPlusMeansSmaller,
+    active: !!i.active,
+  };
+}
+
+/** The shop's gauges with these ids (other shops' ids are simply absent). */
+export async function findInstruments(
+  t: Transaction | undefined,
+  shopId: number,
+  ids: number[],
+): Promise<Map<number, InstrumentInfo>> {
+  if (ids.length === 0) return new Map();
+  if (t) {
+    const rows = await sqlRows(t, `SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE g.shop_id = ? AND g.id IN (?)`, [
+      shopId,
+      [...new Set(ids)],
+    ]);
+    return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
+  }
+  getSequelize();
+  const rows = await Instrument.findAll({ where: { shopId, id: { [Op.in]: [...new Set(ids)] } } });
+  return new Map(rows.map((i) => [i.id, toInstrument(i)]));
+}
+
+export async function shopInstruments(shopId: number): Promise<InstrumentInfo[]> {
+  getSequelize();
+  const rows = await Instrument.findAll({
+    where: { shopId },
+    order: [
+      ["kind", "ASC"],
+      ["label", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
+  return rows.map(toInstrument);
+}
+
+/** Readings with these ids within the given jobs (the feed's and the pack's view). */
+export async function readingsOfJobs(jobIds: number[], ids?: string[]): Promise<StoredReading[]> {
+  if (jobIds.length === 0 || ids?.length === 0) return [];
+  return ids ? selectReadings("job_id IN (?) AND id IN (?)", [jobIds, ids]) : selectReadings("job_id IN (?)", [jobIds]);
+}
+
+/** For each id, the reading that corrects it (the latest one, when corrected more than once). */
+export async function correctionsOf(ids: string[]): Promise<Map<string, string>> {
+  if (ids.length === 0) return new Map();
+  const rows = await getSequelize().query<{ id: string; supersedes: string }>(
+    "SELECT id, supersedes FROM readings WHERE supersedes IN (?) ORDER BY taken_at, received_at, id",
+    { replacements: [ids], type: QueryTypes.SELECT },
+  );
+  return new Map(rows.map((r) => [r.supersedes, r.id]));
+}
+
+const iso = (d: Date | string) => (d instanceof Date ? d : new Date(d)).toISOString();
+
+export function toServerReading(r: StoredReading, supersededBy: string | null): ServerReading {
+  return {
+    id: r.id,
+    jobId: r.jobId,
+    stationId: r.stationId,
+    characteristic: r.characteristic,
+    value: r.value,
+    unit: r.unit,
+    valueCanonical: r.valueCanonical,
+    entryMode: r.entryMode,
+    dialSetting: r.dialSetting,
+    dialDeviation: r.dialDeviation,
+    instrumentId: r.instrumentId,
+    partTempC: r.partTempC,
+    gaugeTempC: r.gaugeTempC,
+    lubricant: r.lubricant,
+    skipped: r.skipped,
+    skipReason: r.skipReason,
+    note: r.note,
+    supersedes: r.supersedes,
+    supersededBy,
+    takenAt: iso(r.takenAt),
+    receivedAt: iso(r.receivedAt),
+    takenBy: r.takenBy,
+    deviceId: r.deviceId,
+    verdict: r.verdict,
+    verdictNote: r.verdictNote,
+    limitMin: r.limitMin,
+    limitMax: r.limitMax,
+    deviation: r.deviation,
+  };
+}

@@ -1,0 +1,34 @@
+import "server-only";
+import { renderToBuffer } from "@react-pdf/renderer";
+import { loadBuildRecord } from "@/lib/server/record/data";
+import { RecordDocument } from "@/lib/server/record/document";
+import type { BuildRecord } from "@/lib/server/record/types";
+
+// The build record rendered to PDF bytes on the server, and the Response that carries it.
+export async function renderRecordPdf(record: BuildRecord): Promise<Buffer> {
+  return renderToBuffer(<RecordDocument record={record} />);
+}
+
+export function recordFileName(record: Pick<BuildRecord, "job" | "release">): string {
+  const code = record.job.code.replace(/[^A-Za-z0-9._-]+/g, "-");
+  const state = !record.release ? "-draft" : record.release.status === "void" ? "-void" : "";
+  return `build-record-${code}${state}.pdf`;
+}
+
+export async function buildRecordPdf(shopId: number, jobId: number, opts: { releaseId?: number } = {}) {
+  const record = await loadBuildRecord(shopId, jobId, opts);
+  return { record, pdf: await renderRecordPdf(record), fileName: recordFileName(record) };
+}
+
+export function pdfResponse(pdf: Buffer, fileName: string, disposition: "inline" | "attachment" = "inline"): Response {
+  return new Response(new Uint8Array(pdf), {
+    status: 200,
+    headers: {
+      "content-type": "application/pdf",
+      "content-length": String(pdf.length),
+      "content-disposition": `${disposition}; filename="${fileName}"`,
+      "cache-control": "private, no-store",
+      "x-content-type-options": "nosniff",
+    },
+  });
+}

@@ -1,0 +1,96 @@
+import "server-only";
+import { characteristicWords, stationWords } from "@/lib/server/release/checklist-rules";
+import type { DispositionRow, FlagRow, InstrumentRow, JobRecord, ReadingRow } from "@/lib/server/release/repo";
+import { day, limitsText, when, withUnit } from "@/lib/server/record/format";
+import type { DecisionLine, FlagLine, GaugeLine } from "@/lib/server/record/types";
+
+// The reviewed part of the record: every flag with each decision about it (who, when, why), and
+// the gauges the readings were taken with, with their calibration.
+
+const REASON_WORDS: Record<string, string> = {
+  out_of_spec: "outside its limits",
+  marginal: "within the gauge's uncertainty of a limit",
+  gauge_past_due: "taken with a gauge past its calibration due date",
+};
+
+const STATE_WORDS: Record<string, string> = {
+  open: "Open: no decision yet",
+  disposed: "Decided",
+  closed: "Closed by a newer reading in spec",
+};
+
+function decisionWords(d: Pick<DispositionRow, "disposition" | "operation" | "reason">): string {
+  const why = d.reason ? `. Reason: ${d.reason}` : "";
+  if (d.disposition === "accept") return `Accepted as is${why}`;
+  if (d.disposition === "machine_again") return `Machine again${d.operation ? ` (${d.operation})` : ""}${why}`;
+  return `Measure again${why}`;
+}
+
+export function flagLines(record: JobRecord, names: Map<number, string>): FlagLine[] {
+  const byFlag = new Map<number, DispositionRow[]>();
+  for (const d of record.dispositions) byFlag.set(d.flagId, [...(byFlag.get(d.flagId) ?? []), d]);
+  return record.flags.map((f) => {
+    const history = byFlag.get(f.id) ?? [];
+    // Flags decided before dispositions were kept as history still show their latest decision.
+    const rows = history.length
+      ? history
+      : f.disposition
+        ? [
+            {
+              disposition: f.disposition,
+              operation: f.operation ?? null,
+              reason: f.dispositionReason ?? null,
+              userId: f.disposedBy ?? 0,
+              createdAt: f.disposedAt ?? f.updatedAt,
+            },
+          ]
+        : [];
+    const decisions: DecisionLine[] = rows.map((d) => ({
+      when: when(d.createdAt),
+      who: names.get(d.userId) ?? "",
+      words: decisionWords(d),
+    }));
+    if (f.state === "closed" && f.closedAt)
+      decisions.push({ when: when(f.closedAt), who: "", words: "Closed: a newer reading at this station is in spec" });
+    return {
+      id: f.id,
+      station: stationWords(f.stationId),
+      what: characteristicWords(f.characteristic),
+      value: withUnit(f.value, f.unit),
+      limits: limitsText(f.limitMin, f.limitMax, f.unit),
+      verdict: f.verdict,
+      reason: REASON_WORDS[f.reason] ?? f.reason,
+      state: STATE_WORDS[f.state] ?? f.state,
+      decisions,
+    };
+  });
+}
+
+function uncertaintyWords(g: InstrumentRow): string {
+  const k = Number(g.coverageK ?? 2);
+  return `U = ${withUnit(g.expandedU, g.unit)} (k = ${k}), reads to ${withUnit(g.resolution, g.unit)}`;
+}
+
+/** Gauges used for current readings; past due when any of them was taken after the due date. */
+export function gaugeLines(record: JobRecord, current: ReadingRow[]): GaugeLine[] {
+  const used = new Map<number, ReadingRow[]>();
+  for (const r of current) if (r.instrumentId) used.set(r.instrumentId, [...(used.get(r.instrumentId) ?? []), r]);
+  return record.instruments
+    .filter((g) => used.has(g.id))
+    .map((g) => {
+      const due = g.calibrationDue ?? null;
+      const pastDue = !!due && (used.get(g.id) ?? []).some((r) => day(r.takenAt) > due);
+      const calibration =
+        g.calibratedOn || due
+          ? `calibrated ${g.calibratedOn ?? "(date not recorded)"}, due ${due ?? "(not set)"}`
+          : "no calibration recorded";
+      return {
+        label: g.label,
+        serial: g.serial,
+        kind: g.kind.replace(/_/g, " "),
+        uncertainty: uncertaintyWords(g),
+        calibration,
+        pastDue,
+      };
+    });
+}

@@ -1,0 +1,129 @@
+import "server-only";
+import type { InferAttributes, Transaction } from "sequelize";
+import type { EngineShape, SpecLimit } from "@/lib/domain";
+import { Customer, Engine, Flag, FlagDisposition, Instrument, Job, JobLimit, Reading, Release, User } from "@/models";
+import { getSequelize } from "@/lib/server/core/db";
+import { notFound } from "@/lib/server/core/errors";
+import { toEngineShape, toSpecLimit } from "@/lib/server/jobs/context";
+
+// Everything the release checklist, the release hash and the release page read about one job,
+// loaded in a handful of queries and returned as plain objects (numbers for DECIMALs, Dates).
+export type JobRow = InferAttributes<Job>;
+export type ReadingRow = InferAttributes<Reading>;
+export type LimitRow = InferAttributes<JobLimit>;
+export type FlagRow = InferAttributes<Flag>;
+export type DispositionRow = InferAttributes<FlagDisposition>;
+export type InstrumentRow = InferAttributes<Instrument>;
+export type ReleaseRow = InferAttributes<Release>;
+
+export type JobRecord = {
+  job: JobRow;
+  customerName: string;
+  engineDescription: string;
+  shape: EngineShape;
+  spec: SpecLimit[];
+  limits: LimitRow[];
+  readings: ReadingRow[];
+  flags: FlagRow[];
+  dispositions: DispositionRow[];
+  /** The instruments any reading of the job was taken with. */
+  instruments: InstrumentRow[];
+};
+
+const plain = <T>(rows: { get(o: { plain: true }): unknown }[]) => rows.map((r) => r.get({ plain: true }) as T);
+
+/**
+ * A job of this shop with all its readings (current and superseded), limits, flags,
+ * dispositions and gauges; 404 for another shop's job. `lock` takes the job row FOR UPDATE
+ * (inside `t`), so a release and a reading for the same job cannot interleave.
+ */
+export async function loadJobRecord(shopId: number, jobId: number, t?: Transaction, lock = false): Promise<JobRecord> {
+  getSequelize();
+  const job = await Job.findOne({
+    where: { id: jobId, shopId },
+    transaction: t,
+    ...(lock && t ? { lock: t.LOCK.UPDATE } : {}),
+  });
+  if (!job) throw notFound("Job");
+  const [engine, customer, limits, readings, flags] = await Promise.all([
+    Engine.findByPk(job.engineId, { transaction: t }),
+    Customer.findByPk(job.customerId, { transaction: t }),
+    JobLimit.findAll({
+      where: { jobId },
+      order: [
+        ["sortOrder", "ASC"],
+        ["id", "ASC"],
+      ],
+      transaction: t,
+    }),
+    Reading.findAll({
+      where: { jobId, shopId },
+      order: [
+        ["takenAt", "ASC"],
+        ["id", "ASC"],
+      ],
+      transaction: t,
+    }),
+    Flag.findAll({ where: { jobId, shopId }, order: [["id", "ASC"]], transaction: t }),
+  ]);
+  if (!engine) throw notFound("Engine");
+  const flagIds = flags.map((f) => f.id);
+  const instrumentIds = [...new Set(readings.map((r) => r.instrumentId).filter((id): id is number => id !== null))];
+  const [dispositions, instruments] = await Promise.all([
+    flagIds.length
+      ? FlagDisposition.findAll({ where: { flagId: flagIds }, order: [["id", "ASC"]], transaction: t })
+      : [],
+    instrumentIds.length
+      ? Instrument.findAll({ where: { id: instrumentIds, shopId }, order: [["id", "ASC"]], transaction: t })
+      : [],
+  ]);
+  return {
+    job: job.get({ plain: true }) as JobRow,
+    customerName: customer?.name ?? "",
+    engineDescription: engine.description,
+    shape: toEngineShape(engine, job.unitSystem),
+    spec: limits.map(toSpecLimit),
+    limits: plain<LimitRow>(limits),
+    readings: plain<ReadingRow>(readings),
+    flags: plain<FlagRow>(flags),
+    dispositions: plain<DispositionRow>(dispositions),
+    instruments: plain<InstrumentRow>(instruments),
+  };
+}
+
+/** Releases of a job, newest first. */
+export async function listReleases(jobId: number, t?: Transaction): Promise<ReleaseRow[]> {
+  getSequelize();
+  const rows = await Release.findAll({
+    where: { jobId },
+    order: [
+      ["signedAt", "DESC"],
+      ["id", "DESC"],
+    ],
+    transaction: t,
+  });
+  return plain<ReleaseRow>(rows);
+}
+
+export async function activeRelease(jobId: number, t?: Transaction): Promise<ReleaseRow | null> {
+  getSequelize();
+  const row = await Release.findOne({ where: { jobId, voidedAt: null }, order: [["id", "DESC"]], transaction: t });
+  return row ? (row.get({ plain: true }) as ReleaseRow) : null;
+}
+
+export async function findReleaseByHash(hash: string): Promise<(ReleaseRow & { jobCode: string }) | null> {
+  getSequelize();
+  const row = await Release.findOne({ where: { hash }, order: [["id", "DESC"]] });
+  if (!row) return null;
+  const job = await Job.findOne({ where: { id: row.jobId, shopId: row.shopId } });
+  return job ? { ...(row.get({ plain: true }) as ReleaseRow), jobCode: job.code } : null;
+}
+
+/** Display names of users, by id, within a shop. */
+export async function userNames(shopId: number, ids: (number | null | undefined)[]): Promise<Map<number, string>> {
+  getSequelize();
+  const wanted = [...new Set(ids.filter((id): id is number => typeof id === "number"))];
+  if (!wanted.length) return new Map();
+  const users = await User.findAll({ where: { id: wanted, shopId }, attributes: ["id", "name"] });
+  return new Map(users.map((u) => [u.id, u.name]));
+}

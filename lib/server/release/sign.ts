@@ -1,0 +1,176 @@
+import "server-only";
+import bcrypt from "bcryptjs";
+import type { ReleaseRecord, ReopenInput, SignInput } from "@/lib/schemas/release";
+import type { JsonValue } from "@/models";
+import type { Actor } from "@/lib/server/core/access";
+import { recordAudit } from "@/lib/server/log/audit";
+import { recordChange } from "@/lib/server/sync/changes";
+import { getSequelize } from "@/lib/server/core/db";
+import { AppError } from "@/lib/server/core/errors";
+import { getJobOrThrow } from "@/lib/server/jobs/repo";
+import { checklistOf } from "@/lib/server/release/checklist";
+import { CANONICAL_VERSION, itemDigests, releaseHash } from "@/lib/server/release/hash";
+import { buildSnapshot, gaugeRecord } from "@/lib/server/release/hash-snapshot";
+import { activeRelease, loadJobRecord, userNames, type ReleaseRow } from "@/lib/server/release/repo";
+import {
+  clearWrongPasswords,
+  insertRelease,
+  lockJob,
+  recordWrongPassword,
+  refuseIfThrottled,
+  setJobReleased,
+  setJobReopened,
+  signerAccount,
+  voidRelease,
+} from "@/lib/server/release/writes";
+
+// The inspector's e-signature (typed full name + password again) and the lead's reopen. Both run
+// in one transaction with the job row locked, and both are audited and fed to the tablets.
+
+/** Names compared ignoring case and runs of spaces: "hanne  VOSS" signs for "Hanne Voss". */
+const normalName = (s: string) => s.trim().replace(/\s+/g, " ").toLocaleLowerCase("en");
+
+export function toReleaseRecord(r: ReleaseRow, names: Map<number, string>): ReleaseRecord {
+  return {
+    id: r.id,
+    jobId: r.jobId,
+    status: r.voidedAt ? "void" : "standing",
+    signedName: r.signedName,
+    inspectorName: names.get(r.inspectorId) ?? r.signedName,
+    signedAt: r.signedAt.toISOString(),
+    hash: r.hash,
+    canonicalVersion: r.canonicalVersion,
+    voidedAt: r.voidedAt ? r.voidedAt.toISOString() : null,
+    voidedByName: r.voidedBy ? (names.get(r.voidedBy) ?? null) : null,
+    voidReason: r.voidReason ?? null,
+  };
+}
+
+async function checkSigner(actor: Actor, input: SignInput): Promise<string> {
+  const key = `release-sign:${actor.userId}`;
+  await refuseIfThrottled(key);
+  const account = await signerAccount(actor.userId, actor.shopId);
+  if (!account) throw new AppError("unauthorized", "Sign in first");
+  if (normalName(input.fullName) !== normalName(account.name)) {
+    throw new AppError("invalid", "The typed name does not match your account", {
+      fullName: [`Type your full name as it is on your account, "${account.name}" (capital letters do not matter)`],
+    });
+  }
+  if (!(await bcrypt.compare(input.password, account.passwordHash))) {
+    await recordWrongPassword(key);
+    throw new AppError("forbidden", "That password is not right, so nothing was signed", {
+      password: ["Enter the password you sign in with"],
+    });
+  }
+  await clearWrongPasswords(key);
+  return input.fullName.trim().replace(/\s+/g, " ");
+}
+
+/** Signs the release of a job whose checklist is empty, stores its hash, and locks the job. */
+export async function signRelease(actor: Actor, jobId: number, input: SignInput): Promise<ReleaseRecord> {
+  await getJobOrThrow(actor.shopId, jobId); // 404 for another shop's job before anything else
+  const signedName = await checkSigner(actor, input);
+  const row = await getSequelize().transaction(async (t) => {
+    const record = await loadJobRecord(actor.shopId, jobId, t, true);
+    const { job } = record;
+    if (job.status === "released" || job.status === "closed" || job.lockedAt || (await activeRelease(jobId, t))) {
+      throw new AppError(
+        "conflict",
+        `Job ${job.code} is already ${job.status === "closed" ? "closed" : "released"}; the lead must reopen it before a new release`,
+      );
+    }
+    const checklist = checklistOf(record);
+    if (!checklist.complete) {
+      throw new AppError(
+        "conflict",
+        `Job ${job.code} cannot be released yet: ${checklist.unmet.length} item(s) on the checklist still block it`,
+        {
+          checklist: checklist.unmet.slice(0, 50).map((i) => i.text),
+        },
+      );
+    }
+    const signedAt = new Date();
+    const gauges = record.instruments.map(gaugeRecord);
+    const snapshot = buildSnapshot(record, { inspectorId: actor.userId, signedName, signedAt }, gauges);
+    const hash = releaseHash(snapshot);
+    const stored = {
+      version: CANONICAL_VERSION,
+      checks: checklist.checks.map((c) => ({ id: c.id, title: c.title, summary: c.summary })),
+      gauges,
+      digests: itemDigests(snapshot),
+    };
+    const release = await insertRelease(t, {
+      shopId: actor.shopId,
+      jobId,
+      inspectorId: actor.userId,
+      signedName,
+      signedAt,
+      checklist: stored as unknown as JsonValue,
+      hash,
+      canonicalVersion: CANONICAL_VERSION,
+    });
+    await setJobReleased(t, jobId, signedAt);
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "release.sign",
+      entityType: "release",
+      entityId: release.id,
+      before: { jobId, jobStatus: job.status, lockedAt: null },
+      after: {
+        jobId,
+        jobCode: job.code,
+        jobStatus: "released",
+        lockedAt: signedAt.toISOString(),
+        signedName,
+        signedAt: signedAt.toISOString(),
+        hash,
+      },
+    });
+    await recordChange(t, { shopId: actor.shopId, jobId, entity: "job", entityId: jobId });
+    return release;
+  });
+  return toReleaseRecord(row, await userNames(actor.shopId, [row.inspectorId]));
+}
+
+/** The lead reopens a released job: the release is voided (kept, marked VOID) and the job unlocked. */
+export async function reopenRelease(actor: Actor, jobId: number, input: ReopenInput): Promise<ReleaseRecord> {
+  const row = await getSequelize().transaction(async (t) => {
+    const job = await lockJob(t, actor.shopId, jobId);
+    const release = await activeRelease(jobId, t);
+    if (job.status !== "released" || !release) {
+      throw new AppError(
+        "conflict",
+        `Job ${job.code} is not released (it is ${job.status}), so there is nothing to reopen`,
+      );
+    }
+    const voidedAt = new Date();
+    await voidRelease(t, release.id, actor.userId, input.reason, voidedAt);
+    await setJobReopened(t, jobId);
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "release.void",
+      entityType: "release",
+      entityId: release.id,
+      before: {
+        jobId,
+        jobStatus: job.status,
+        lockedAt: job.lockedAt?.toISOString() ?? null,
+        releaseStatus: "standing",
+      },
+      after: {
+        jobId,
+        jobCode: job.code,
+        jobStatus: "review",
+        lockedAt: null,
+        releaseStatus: "void",
+        voidReason: input.reason,
+        voidedAt: voidedAt.toISOString(),
+      },
+    });
+    await recordChange(t, { shopId: actor.shopId, jobId, entity: "job", entityId: jobId });
+    return { ...release, voidedAt, voidedBy: actor.userId, voidReason: input.reason };
+  });
+  return toReleaseRecord(row, await userNames(actor.shopId, [row.inspectorId, row.voidedBy]));
+}

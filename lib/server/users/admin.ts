@@ -1,0 +1,179 @@
+import "server-only";
+import bcrypt from "bcryptjs";
+import { randomInt } from "node:crypto";
+import type { Transaction } from "sequelize";
+import { AuthThrottle, User } from "@/models";
+import type { AdminUser, InviteUserInput, UpdateUserInput } from "@/lib/schemas/user";
+import type { Actor } from "@/lib/server/core/access";
+import { recordAudit } from "@/lib/server/log/audit";
+import { getSequelize } from "@/lib/server/core/db";
+import { AppError, notFound } from "@/lib/server/core/errors";
+
+// The admin's account work: invite, change role, deactivate/reactivate, reset a password.
+// Rules a shop expects: nobody changes their own role or switches their own account off, and
+// the shop always keeps one active admin. Passwords and hashes never reach the audit trail.
+
+// No 0/O, 1/l/I: the admin reads the password out or copies it by hand.
+const ALPHABET = "abcdefghjkmnpqrstuvwxyz23456789";
+
+/** A one-time password shown once, e.g. "kx7m-4qpr-9tzd" (about 74 bits). */
+export function temporaryPassword(): string {
+  const group = () => Array.from({ length: 5 }, () => ALPHABET[randomInt(ALPHABET.length)]).join("");
+  return [group(), group(), group()].join("-");
+}
+
+function toAdminUser(u: User): AdminUser {
+  return {
+    id: u.id,
+    name: u.name,
+    email: u.email,
+    role: u.role,
+    active: u.active,
+    lastSignInAt: u.lastSignInAt ? u.lastSignInAt.toISOString() : null,
+    createdAt: u.createdAt.toISOString(),
+  };
+}
+
+// What the audit keeps of an account: who and what, never the password.
+const auditView = (u: User) => ({ name: u.name, email: u.email, role: u.role, active: u.active });
+
+export async function listShopUsers(shopId: number): Promise<AdminUser[]> {
+  getSequelize();
+  const rows = await User.findAll({
+    where: { shopId },
+    order: [
+      ["active", "DESC"],
+      ["name", "ASC"],
+    ],
+  });
+  return rows.map(toAdminUser);
+}
+
+async function hashOf(password: string): Promise<string> {
+  return bcrypt.hash(password, 10);
+}
+
+export async function inviteUser(actor: Actor, input: InviteUserInput) {
+  const sequelize = getSequelize();
+  const password = temporaryPassword();
+  const passwordHash = await hashOf(password);
+  return sequelize.transaction(async (t) => {
+    const taken = await User.findOne({ where: { shopId: actor.shopId, email: input.email }, transaction: t });
+    if (taken) {
+      throw new AppError(
+        "conflict",
+        `${input.email} already has an account in this shop${taken.active ? "" : " (deactivated: reactivate it instead)"}`,
+        {
+          email: ["This e-mail already has an account"],
+        },
+      );
+    }
+    const user = await User.create(
+      { shopId: actor.shopId, name: input.name, email: input.email, role: input.role, passwordHash },
+      { transaction: t },
+    );
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "user.invited",
+      entityType: "user",
+      entityId: user.id,
+      after: auditView(user),
+    });
+    return { user: toAdminUser(user), temporaryPassword: password };
+  });
+}
+
+async function lockedUser(actor: Actor, userId: number, t: Transaction): Promise<User> {
+  const user = await User.findOne({ where: { id: userId, shopId: actor.shopId }, transaction: t, lock: t.LOCK.UPDATE });
+  if (!user) throw notFound("User");
+  return user;
+}
+
+/**
+ * Locks the shop's active admins (in id order, before the target row, so two admins changing each
+ * other wait in turn instead of deadlocking) and returns their ids.
+ */
+async function lockActiveAdmins(shopId: number, t: Transaction): Promise<number[]> {
+  const admins = await User.findAll({
+    where: { shopId, role: "admin", active: true },
+    order: [["id", "ASC"]],
+    transaction: t,
+    lock: t.LOCK.UPDATE,
+  });
+  return admins.map((a) => a.id);
+}
+
+function checkRules(actor: Actor, user: User, change: UpdateUserInput, admins: number[]): void {
+  const demoted = change.role !== undefined && change.role !== "admin";
+  const losesAdmin = user.role === "admin" && user.active && (demoted || change.active === false);
+  if (losesAdmin && admins.every((id) => id === user.id)) {
+    throw new AppError("conflict", `${user.name} is the shop's last active admin; make someone else an admin first`);
+  }
+  if (user.id !== actor.userId) return;
+  if (change.role !== undefined && change.role !== user.role) {
+    throw new AppError("forbidden", "You cannot change your own role; another admin has to do it");
+  }
+  if (change.active === false) {
+    throw new AppError("conflict", "You cannot deactivate your own account; another admin has to do it");
+  }
+}
+
+export async function updateUser(actor: Actor, userId: number, change: UpdateUserInput): Promise<AdminUser> {
+  return getSequelize().transaction(async (t) => {
+    const admins = await lockActiveAdmins(actor.shopId, t);
+    const user = await lockedUser(actor, userId, t);
+    checkRules(actor, user, change, admins);
+    const before = auditView(user);
+    const actions: string[] = [];
+    if (change.role !== undefined && change.role !== user.role) actions.push("user.role_changed");
+    if (change.active !== undefined && change.active !== user.active)
+      actions.push(change.active ? "user.reactivated" : "user.deactivated");
+    if (!actions.length) return toAdminUser(user);
+    await user.update(
+      {
+        ...(change.role !== undefined ? { role: change.role } : {}),
+        ...(change.active !== undefined ? { active: change.active } : {}),
+      },
+      { transaction: t },
+    );
+    for (const action of actions) {
+      await recordAudit(t, {
+        shopId: actor.shopId,
+        userId: actor.userId,
+        action,
+        entityType: "user",
+        entityId: user.id,
+        before,
+        after: auditView(user),
+      });
+    }
+    return toAdminUser(user);
+  });
+}
+
+/** A new one-time password; also lifts a sign-in lock so the person can get in with it. */
+export async function resetPassword(actor: Actor, userId: number) {
+  const password = temporaryPassword();
+  const passwordHash = await hashOf(password);
+  return getSequelize().transaction(async (t) => {
+    const user = await lockedUser(actor, userId, t);
+    if (!user.active)
+      throw new AppError(
+        "conflict",
+        `${user.name}'s account is deactivated; reactivate it before resetting the password`,
+      );
+    await user.update({ passwordHash, failedAttempts: 0, lockedUntil: null }, { transaction: t });
+    await AuthThrottle.destroy({ where: { throttleKey: `email:${user.email.toLowerCase()}` }, transaction: t });
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "user.password_reset",
+      entityType: "user",
+      entityId: user.id,
+      before: auditView(user),
+      after: { ...auditView(user), passwordReset: true },
+    });
+    return { user: toAdminUser(user), temporaryPassword: password };
+  });
+}
