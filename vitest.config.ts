@@ -16,7 +16,12 @@ export default defineConfig({
         extends: true,
         test: {
           name: "unit",
-          include: ["tests/lib/**/*.test.{ts,tsx}", "tests/components/**/*.test.tsx", "tests/hooks/**/*.test.{ts,tsx}"],
+          include: [
+            "tests/lib/**/*.test.{ts,tsx}",
+            "tests/lint/**/*.test.ts",
+            "tests/components/**/*.test.tsx",
+            "tests/hooks/**/*.test.{ts,tsx}",
+          ],
           environment: "node",
         },
       },

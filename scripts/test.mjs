@@ -9,6 +9,15 @@ import { ensureNodeModules } from "./lib/deps.mjs";
 import { ensureSystemPackages } from "./lib/system.mjs";
 import { freePort } from "./lib/ports.mjs";
 
+const STATIC_CHECKS = [
+  ["type-checking (tsc --noEmit)", ["node_modules/typescript/bin/tsc", "--noEmit", "-p", "."]],
+  ["linting (eslint)", ["node_modules/eslint/bin/eslint.js", "--max-warnings", "0", "."]],
+  [
+    "checking the format (prettier --check)",
+    ["node_modules/prettier/bin/prettier.cjs", "--check", "--log-level", "warn", "."],
+  ],
+];
+
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
 async function waitForHttp(url, timeoutMs = 60_000) {
@@ -97,10 +106,12 @@ async function main() {
     });
     code = await new Promise((r) => vitest.on("exit", (c) => r(c ?? 1)));
     if (process.argv.length <= 2) {
-      // A full run also type-checks the whole tree (the build skips it; see next.config.mjs).
-      console.log("[tenthwise] type-checking (tsc --noEmit) …");
-      const tsc = spawnSync("node", ["node_modules/typescript/bin/tsc", "--noEmit", "-p", "."], { stdio: "inherit" });
-      if (tsc.status !== 0) code = code || 1;
+      // A full run also checks what the build skips (see next.config.mjs): types, lint with the
+      // layout's import boundaries (eslint.config.mjs), and formatting.
+      for (const [what, args] of STATIC_CHECKS) {
+        console.log(`[tenthwise] ${what} …`);
+        if (spawnSync("node", args, { stdio: "inherit" }).status !== 0) code = code || 1;
+      }
     }
   } catch (err) {
     console.error(`[tenthwise] ${err.message}`);

@@ -35,9 +35,9 @@ export function BenchJob() {
     // A job already on the tablet shows from its store first; the refresh (and its code) follows
     // once the screen has settled. A job not on the tablet yet is fetched at once.
     let started = false;
-    const refresh = () =>
-      (started = true) &&
-      Promise.all([import("@/lib/offline/transport"), import("@/lib/offline/packs")])
+    const refresh = () => {
+      started = true;
+      return Promise.all([import("@/lib/offline/transport"), import("@/lib/offline/packs")])
         .then(([{ getJson }, { savePack }]) =>
           getJson<JobPack>(fetch, `/api/bench/jobs/${id}`).then((pack) => savePack(db, pack)),
         )
@@ -54,6 +54,7 @@ export function BenchJob() {
                 : "offline",
           );
         });
+    };
     if (onTablet) cancel = whenSettled(() => void refresh());
     else void refresh();
     return () => {

@@ -15,17 +15,15 @@ export function lazyEngine(
 ): EngineHandle & { start(): Promise<SyncEngine> } {
   let engine: SyncEngine | undefined;
   let starting: Promise<SyncEngine> | undefined;
-  let entryWaiting = false;
   const start = () =>
     (starting ??= load().then(({ SyncEngine: Engine }) => {
       engine = new Engine({ db });
       engine.start(); // syncs at once: that covers any entry made while the code was loading
-      entryWaiting = false;
       return engine;
     }));
   return {
     start,
-    afterEntry: () => (engine ? engine.afterEntry() : void (entryWaiting = true)),
+    afterEntry: () => engine?.afterEntry(),
     sync: (reason) => (engine ? engine.sync(reason) : start().then((e) => e.sync(reason))),
   };
 }

@@ -1,12 +1,10 @@
 // Bore, journal and deck maps of demo job KF-2611 in Chromium, for the lead and the inspector,
 // on screen and as printed. The machinist (rosa) first sends invented readings through POST /api/sync.
 import { randomUUID } from "node:crypto";
-import { request, type APIRequestContext, type Browser, type Page } from "playwright-core";
+import { request, type APIRequestContext, type Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { BASE_URL, demo, demoEmail, launchBrowser, screenshot, signInAs } from "../support/browser";
 
-// Data arrives through TanStack Query after hydration; give the server time on a cold start.
-const WAIT = { timeout: 15_000 };
 const email = demoEmail;
 
 // Demo spec KF-2611: bore 4.0299–4.0304, main 2.4485–2.4495, rod 2.0985–2.0995, deck 9.022–9.028 (in).

@@ -83,7 +83,11 @@ export async function unclosedFlags(t: Transaction, jobId: number, locking = tru
   const sql = locking ? `${UNCLOSED} LOCK IN SHARE MODE` : UNCLOSED;
   // The driver path returns DECIMAL and BIGINT as numbers already (sql-driver.ts).
   const rows = await sqlRows<UnclosedFlag>(t, sql, [jobId]);
-  for (const r of rows) ((r.id = Number(r.id)), (r.jobId = Number(r.jobId)), (r.shopId = Number(r.shopId)));
+  for (const r of rows) {
+    r.id = Number(r.id);
+    r.jobId = Number(r.jobId);
+    r.shopId = Number(r.shopId);
+  }
   return rows;
 }
 

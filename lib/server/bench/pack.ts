@@ -26,7 +26,7 @@ export async function listBenchJobs(actor: Actor): Promise<BenchJobSummary[]> {
   const jobs = await openBenchJobs(actor.shopId);
   const progress = await jobProgress(jobs.map((j) => j.id));
   return jobs.map((j) => {
-    let stations = 0;
+    let stations: number;
     try {
       stations = benchRoute(toEngineShape(j.engine!, j.unitSystem)).total;
     } catch {

@@ -40,12 +40,30 @@ type Row = {
 function where(shopId: number, q: AuditQuery) {
   const parts = ["e.shop_id = :shop"];
   const r: Record<string, unknown> = { shop: shopId };
-  if (q.user) (parts.push("e.user_id = :user"), (r.user = q.user));
-  if (q.action) (parts.push("e.action = :action"), (r.action = q.action));
-  if (q.entity) (parts.push("e.entity_type = :entity"), (r.entity = q.entity));
-  if (q.entityId) (parts.push("e.entity_id = :entityId"), (r.entityId = q.entityId));
-  if (q.from) (parts.push("e.created_at >= :from"), (r.from = `${q.from} 00:00:00.000`));
-  if (q.to) (parts.push("e.created_at < DATE_ADD(:to, INTERVAL 1 DAY)"), (r.to = q.to));
+  if (q.user) {
+    parts.push("e.user_id = :user");
+    r.user = q.user;
+  }
+  if (q.action) {
+    parts.push("e.action = :action");
+    r.action = q.action;
+  }
+  if (q.entity) {
+    parts.push("e.entity_type = :entity");
+    r.entity = q.entity;
+  }
+  if (q.entityId) {
+    parts.push("e.entity_id = :entityId");
+    r.entityId = q.entityId;
+  }
+  if (q.from) {
+    parts.push("e.created_at >= :from");
+    r.from = `${q.from} 00:00:00.000`;
+  }
+  if (q.to) {
+    parts.push("e.created_at < DATE_ADD(:to, INTERVAL 1 DAY)");
+    r.to = q.to;
+  }
   const inner = `SELECT e.id, e.user_id, e.action, e.entity_type, e.entity_id, e.before, e.after, ${AT} AS at, ${JOB_OF_EVENT} AS job_id
     FROM audit_events e WHERE ${parts.join(" AND ")}`;
   if (q.job) r.job = q.job;

@@ -132,7 +132,7 @@ export async function jobMaps(shopId: number, jobId: number): Promise<JobMaps> {
     current.map((r) => [r.stationId, toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined)]),
   );
   const unit = lengthUnitOf(ctx.shape);
-  let derived: DerivedValue[] = [];
+  let derived: DerivedValue[];
   try {
     derived = deriveReadings([...raws.values()], ctx.shape, ctx.spec);
   } catch {

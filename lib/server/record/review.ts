@@ -1,6 +1,6 @@
 import "server-only";
 import { characteristicWords, stationWords } from "@/lib/server/release/checklist-rules";
-import type { DispositionRow, FlagRow, InstrumentRow, JobRecord, ReadingRow } from "@/lib/server/release/repo";
+import type { DispositionRow, InstrumentRow, JobRecord, ReadingRow } from "@/lib/server/release/repo";
 import { day, limitsText, when, withUnit } from "@/lib/server/record/format";
 import type { DecisionLine, FlagLine, GaugeLine } from "@/lib/server/record/types";
 

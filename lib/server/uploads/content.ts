@@ -66,8 +66,8 @@ export async function makeThumbnail(buf: Buffer, mime: string, name: string): Pr
 /** A file name safe to store and to echo in Content-Disposition: no path, no control characters. */
 export function cleanFileName(raw: string | undefined, fallback: string): string {
   const base = (raw ?? "").split(/[\\/]/).pop() ?? "";
-  // eslint-disable-next-line no-control-regex
   const clean = base
+    // eslint-disable-next-line no-control-regex -- control characters are exactly what is removed
     .replace(/[\u0000-\u001f\u007f"]/g, "")
     .trim()
     .slice(0, 200);

@@ -91,7 +91,7 @@ export async function findOwnerOrThrow(
     if (!gauge) throw notFound("Gauge");
     return { jobId: null, locked: false };
   }
-  let jobId: number | null = null;
+  let jobId: number | null;
   if (ownerType === "reading") {
     const reading = /^[0-9a-f-]{36}$/i.test(ownerId) ? await Reading.findOne({ where: { id: ownerId, shopId } }) : null;
     if (!reading) throw notFound("Reading");

@@ -29,7 +29,7 @@ function words(l: LimitInput): string | null {
 }
 
 export function SpecLimitPreview({ limit }: { limit: LimitInput }) {
-  let text: string | null = null;
+  let text: string | null;
   try {
     text = limit.characteristic && limit.limitType ? words(limit) : null;
   } catch {
