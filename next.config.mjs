@@ -3,7 +3,7 @@ const nextConfig = {
   // Test runs build into their own folder per source version (scripts/lib/build.mjs), so a
   // running test server is never rebuilt underneath.
   distDir: process.env.TW_DIST_DIR || ".next",
-  // These packages load drivers and migrations dynamically; bundling them breaks (see STACK.md).
+  // These packages load drivers and migrations dynamically; bundling them breaks (sequelize then looks for pg-hstore).
   serverExternalPackages: ["sequelize", "mariadb", "umzug", "sharp", "@react-pdf/renderer", "nodemailer"],
   poweredByHeader: false,
   // For profiling the bench in a browser (DEVELOPERS.md, "Profiling"): maps minified frames to source.

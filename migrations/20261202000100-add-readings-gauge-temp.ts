@@ -8,6 +8,6 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
 
 export async function down({ context: qi }: MigrationParams): Promise<void> {
   // Plain SQL: QueryInterface.removeColumn first runs an untyped raw SELECT for foreign keys, which
-  // Sequelize 6 cannot read back from mariadb 3.x ("Cannot delete property 'meta'", STACK.md).
+  // Sequelize 6 cannot read back from mariadb 3.x ("Cannot delete property 'meta'").
   await qi.sequelize.query("ALTER TABLE readings DROP COLUMN gauge_temp_c");
 }

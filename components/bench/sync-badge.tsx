@@ -7,7 +7,7 @@ import { getSyncStatus, IDLE_STATUS } from "@/lib/offline/meta";
 import { useDexieQuery } from "@/hooks/use-dexie-query";
 import { useBench } from "./bench-context";
 
-// The sync badge (STYLE habit 11): how many readings wait, when the server last took them, and
+// The sync badge: how many readings wait, when the server last took them, and
 // what went wrong, in words. Colour is never alone: each state has its own word and mark.
 const time = (iso?: string) =>
   iso ? new Date(iso).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" }) : undefined;

@@ -1,6 +1,6 @@
 import { QueryClient, isServer } from "@tanstack/react-query";
 
-// New client per server request, one singleton in the browser (STYLE habit 12).
+// New client per server request, one singleton in the browser.
 function makeQueryClient() {
   return new QueryClient({
     defaultOptions: { queries: { staleTime: 30_000, retry: 1, refetchOnWindowFocus: true } },

@@ -1,4 +1,4 @@
-// The tablet's one database (STYLE habit 10): a typed Dexie singleton. Everything the bench
+// The tablet's one database: a typed Dexie singleton. Everything the bench
 // needs to work with no network lives here: the job packs opened on this device, every reading
 // with its sync state, the outbox of readings the server has not acknowledged, photos taken
 // offline, and small facts (device id, sync cursor, sync status, who is signed in).

@@ -1,4 +1,4 @@
-// The client sync engine (STYLE habit 11): pushes the outbox, pulls what changed, uploads photos.
+// The client sync engine: pushes the outbox, pulls what changed, uploads photos.
 // Triggers: an entry (debounced), the `online` event, app start, a timer, the machinist's tap.
 // One run at a time; a trigger during a run asks for one more run after it. Network errors and
 // 5xx back off exponentially with jitter; an error that needs a person (signed out) is shown in

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import type { GaugeKind } from "@/lib/domain";
 
-// One schema for the gauge form and the instruments routes (STYLE habit 5), plus the
+// One schema for the gauge form and the instruments routes, plus the
 // calibration status words every screen uses.
 
 /** Instrument kinds (our own names), the unit family each reads, and the gauge kind of the spec sheets. */

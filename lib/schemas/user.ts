@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { ROLES } from "@/models/enums";
 
-// One schema per entity, shared by the admin's forms and the route handlers (STYLE habit 5).
+// One schema per entity, shared by the admin's forms and the route handlers.
 const role = z.enum(ROLES, { error: "Choose a role: machinist, lead, inspector or admin" });
 
 export const inviteUserSchema = z.object({

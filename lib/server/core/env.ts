@@ -1,7 +1,7 @@
 import "server-only";
 import { z } from "zod";
 
-// The one place that reads process.env (STYLE habit 1). Everything else imports `env`.
+// The one place that reads process.env. Everything else imports `env`.
 const optionalNumber = z.coerce.number().int().positive().optional();
 
 const schema = z

@@ -1,7 +1,7 @@
 import "server-only";
 import { ZodError } from "zod";
 
-// One error class, one code-to-status table, one converter (STYLE habit 3).
+// One error class, one code-to-status table, one converter.
 export const ERROR_STATUS = {
   bad_json: 400,
   bad_request: 400,

@@ -4,7 +4,7 @@ import { requireActor, type Actor } from "@/lib/server/core/access";
 import { AppError, errorResponse, invalid } from "@/lib/server/core/errors";
 import type { Role } from "@/lib/server/core/session";
 
-// Wrap handlers once instead of repeating try/catch (STYLE habit 4).
+// Wrap handlers once instead of repeating try/catch.
 type RouteContext<P> = { params: Promise<P> };
 type Handler<P> = (ctx: { req: Request; actor: Actor; params: P }) => Promise<Response | unknown>;
 type PublicHandler<P> = (ctx: { req: Request; params: P }) => Promise<Response | unknown>;

@@ -3,7 +3,7 @@ import { sealData, unsealData } from "iron-session";
 import { cookies } from "next/headers";
 import { env } from "@/lib/server/core/env";
 
-// Session type, defaults and options in one module (STYLE habit 7). The cookie is sealed with
+// Session type, defaults and options in one module. The cookie is sealed with
 // iron-session; we seal/unseal ourselves so route handlers read it straight from the Request,
 // which lets tests call exported handlers without a Next request context.
 export const ROLES = ["machinist", "lead", "inspector", "admin"] as const;

@@ -5,7 +5,7 @@ import { Engine, Job, JobLimit } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 
-// The one edge where database rows become the domain core's shapes (STYLE habit 6):
+// The one edge where database rows become the domain core's shapes:
 // Engine → EngineShape, JobLimit → SpecLimit. Sync, re-evaluation, review, release and the
 // build record all go through here.
 type LimitRow = Pick<

@@ -6,7 +6,7 @@ import { SpecList } from "../_components/spec-list";
 export const metadata = { title: "Spec sheets" };
 
 // Lead and admin both edit templates: the admin manages the shop's templates and the lead
-// owns the spec sheets the jobs run on (issue 5).
+// owns the spec sheets the jobs run on.
 export default async function SpecsPage() {
   const actor = await requirePageActor(["lead", "admin"], "/desk/specs");
   const link = "inline-flex min-h-11 items-center rounded-tool px-4 font-semibold";
