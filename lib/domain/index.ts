@@ -17,3 +17,6 @@ export * from "./derive";
 export * from "./dial-gauge";
 export * from "./plausible-range";
 export * from "./gauge-uncertainty";
+export * from "./current-reading";
+export * from "./progress";
+export * from "./job-lock";
