@@ -23,7 +23,8 @@ const limit = (l: Partial<SpecLimit> & Pick<SpecLimit, "characteristic">): SpecL
   ...l,
 });
 let n = 0;
-const reading = (stationId: string, extra: Record<string, unknown> = {}) => ({
+type Row = { id: string; stationId: string; takenAt: string; skipped: boolean; supersedes?: string; state?: string };
+const reading = (stationId: string, extra: Partial<Row> = {}): Row => ({
   id: `r${String(++n).padStart(4, "0")}`,
   stationId,
   takenAt: new Date(Date.UTC(2026, 0, 1, 8, 0, n)).toISOString(),
