@@ -2,6 +2,7 @@ import "server-only";
 import { Op, QueryTypes } from "sequelize";
 import { Flag, Job, MailOutbox, Release, Shop, User, type Role } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
+import { releaseMailKeySql } from "@/lib/server/mail/outbox";
 
 // What the notifier reads: releases not yet mailed, flags since the last digest, jobs that may
 // have become ready, and who receives each kind of mail. Plain objects out.
@@ -14,11 +15,16 @@ export async function recipients(shopId: number, role: Role): Promise<Recipient[
   return users.map((u) => ({ id: u.id, name: u.name, email: u.email }));
 }
 
-/** Standing releases signed since `since` with no build-record mail queued. */
+/**
+ * Standing releases signed since `since` with no build-record mail queued, in one query: the
+ * outbox is joined on the same key the sign transaction queues under (releaseMailKey).
+ */
 export async function releasesWithoutMail(since: Date): Promise<{ id: number; shopId: number; jobId: number }[]> {
-  const rows = await getSequelize().query<{ id: number; shop_id: number; job_id: number }>(
+  const sequelize = getSequelize();
+  const key = releaseMailKeySql("r.id", (text) => sequelize.escape(text));
+  const rows = await sequelize.query<{ id: number; shop_id: number; job_id: number }>(
     `SELECT r.id, r.shop_id, r.job_id FROM releases r
-       LEFT JOIN mail_outbox m ON m.dedupe_key = CONCAT('build_record:release:', r.id)
+       LEFT JOIN mail_outbox m ON m.dedupe_key = ${key}
       WHERE r.voided_at IS NULL AND r.signed_at >= ? AND m.id IS NULL
       ORDER BY r.id DESC LIMIT 100`,
     { replacements: [since], type: QueryTypes.SELECT },

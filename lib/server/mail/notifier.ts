@@ -19,10 +19,12 @@ import {
 import { releaseChecklist } from "@/lib/server/release/checklist";
 
 // The background notifier (started by instrumentation.ts; tests call runNotifierOnce directly).
-// Each run: queue the build record of any release that has no mail yet, a digest of new flags to
-// each shop's leads, and "ready for release" to the inspectors of each job whose checklist turned
-// complete (once per job, spec revision and release round); then deliver what is due. Every step
-// is keyed so two app instances running it at once queue each message only once.
+// Each run: queue a digest of new flags to each shop's leads, and "ready for release" to the
+// inspectors of each job whose checklist turned complete (once per job, spec revision and release
+// round); then deliver what is due. Signing queues the build record itself; the run only catches
+// a release that has none (its customer had no e-mail address at signing, or the release row was
+// written outside signRelease). Every step is keyed so two app instances running it at once queue
+// each message only once.
 const DAY = 86_400_000;
 // Jobs checked each pass besides those that changed: a slow round over every open job, so a
 // change the feed does not show (a gauge's dates corrected) is still noticed.

@@ -75,12 +75,22 @@ export async function enqueueMail(t: Transaction | null, m: NewMail): Promise<bo
   }
 }
 
-export const releaseMailKey = (releaseId: number) => `build_record:release:${releaseId}`;
+// The dedupe key of a release's build-record mail, written once: the sign transaction queues
+// under it, and the notifier's search for releases without their mail builds the same text in SQL.
+const releaseKey = (id: string) => `build_record:release:${id}`;
+export const releaseMailKey = (releaseId: number) => releaseKey(String(releaseId));
+
+/** releaseMailKey over an SQL column of release ids: the key's text around the id, joined by CONCAT. */
+export function releaseMailKeySql(idColumn: string, quote: (text: string) => string): string {
+  const [before, after] = releaseKey("\u0000").split("\u0000");
+  return `CONCAT(${quote(before)}, ${idColumn}, ${quote(after)})`;
+}
 
 /**
- * For the release engineer's sign transaction: queues the build record to the customer (the PDF
- * and the link are made when it is sent). Returns false when the customer has no e-mail address
- * or the release was already queued. The notifier queues any release this was not called for.
+ * Queues the build record to the customer (the PDF and the link are made when it is sent), in
+ * the sign transaction, so it is in the outbox the moment the release is. Returns false when the
+ * customer has no e-mail address or the release was already queued; the notifier tries again
+ * for a release whose customer gets an address later.
  */
 export async function enqueueReleaseMail(
   t: Transaction | null,

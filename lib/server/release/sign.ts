@@ -8,6 +8,7 @@ import { recordChange } from "@/lib/server/sync/changes";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError } from "@/lib/server/core/errors";
 import { getJobOrThrow } from "@/lib/server/jobs/repo";
+import { enqueueReleaseMail } from "@/lib/server/mail/outbox";
 import { checklistOf } from "@/lib/server/release/checklist";
 import { CANONICAL_VERSION, itemDigests, releaseHash } from "@/lib/server/release/hash";
 import { buildSnapshot, gaugeRecord } from "@/lib/server/release/hash-snapshot";
@@ -25,7 +26,8 @@ import {
 } from "@/lib/server/release/writes";
 
 // The inspector's e-signature (typed full name + password again) and the lead's reopen. Both run
-// in one transaction with the job row locked, and both are audited and fed to the tablets.
+// in one transaction with the job row locked, and both are audited and fed to the tablets; the
+// signature also queues the customer's build-record mail in that transaction.
 
 /** Names compared ignoring case and runs of spaces: "hanne  VOSS" signs for "Hanne Voss". */
 const normalName = (s: string) => s.trim().replace(/\s+/g, " ").toLocaleLowerCase("en");
@@ -110,6 +112,8 @@ export async function signRelease(actor: Actor, jobId: number, input: SignInput)
       canonicalVersion: CANONICAL_VERSION,
     });
     await setJobReleased(t, jobId, signedAt);
+    // The customer's build record is queued here, so it stands or falls with the release.
+    await enqueueReleaseMail(t, { shopId: actor.shopId, jobId, releaseId: release.id });
     await recordAudit(t, {
       shopId: actor.shopId,
       userId: actor.userId,
