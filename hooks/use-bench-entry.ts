@@ -1,10 +1,10 @@
 "use client";
 
 import { startTransition, useCallback, useMemo, useRef, useState } from "react";
-import { evaluateReading, type Lubricant, type Station } from "@/lib/domain";
+import { defaultGauge, evaluateReading, isDialBoreGauge, type Lubricant, type Station } from "@/lib/domain";
 import type { JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "@/lib/offline/db";
-import { buildReading, dialGroup, isDialGauge, parseEntry, pickGauge } from "@/lib/offline/entry";
+import { buildReading, dialGroup, parseEntry } from "@/lib/offline/entry";
 import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { gaugeU, usableRaw } from "@/lib/offline/preview";
 import { recordReading, resendReading, type NewReading } from "@/lib/offline/readings";
@@ -29,13 +29,13 @@ interface Args {
 export const gaugeKey = (s: Station) => s.gaugeKind ?? s.characteristic;
 
 export function chosenGauge(station: Station, pack: JobPack, prefs: JobPrefs) {
-  return pickGauge(station, pack.instruments, prefs.gauges[gaugeKey(station)]);
+  return defaultGauge(station.characteristic, pack.instruments, prefs.gauges[gaugeKey(station)]);
 }
 
 function modeOf(station: Station | undefined, pack: JobPack, prefs: JobPrefs, settingFor?: string) {
   const instrument = station ? chosenGauge(station, pack, prefs) : undefined;
   const group = station ? dialGroup(station) : undefined;
-  const dialOn = !!group && prefs.dialMode && isDialGauge(instrument);
+  const dialOn = !!group && prefs.dialMode && isDialBoreGauge(instrument);
   const needSetting = dialOn && (settingFor === group || prefs.dialSettings[group!] === undefined);
   return { instrument, group, dialOn, needSetting };
 }

@@ -1,6 +1,7 @@
 "use client";
 
 import { memo, useCallback, useRef, type RefObject } from "react";
+import { gaugeKey } from "@/hooks/use-bench-entry";
 import type { EntryStore } from "@/hooks/use-entry-store";
 import type { Station } from "@/lib/domain";
 import type { BenchInstrument } from "@/lib/schemas/sync";
@@ -71,10 +72,10 @@ export const EntryPanel = memo(function EntryPanel(p: Props) {
     saveRef.current();
     focus();
   }, [focus]);
-  const gaugeKey = station.gaugeKind ?? station.characteristic;
+  const key = gaugeKey(station);
   const onChoose = useCallback(
-    (id: number) => onPrefs({ gauges: { ...prefs.gauges, [gaugeKey]: id } }),
-    [onPrefs, prefs.gauges, gaugeKey],
+    (id: number) => onPrefs({ gauges: { ...prefs.gauges, [key]: id } }),
+    [onPrefs, prefs.gauges, key],
   );
   const onDial = useCallback((on: boolean) => onPrefs({ dialMode: on }), [onPrefs]);
   const onChangeSetting = useCallback(() => {

@@ -6,7 +6,8 @@ import { Button } from "@/components/ui/button";
 import { chosenGauge, useBenchEntry } from "@/hooks/use-bench-entry";
 import type { JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "@/lib/offline/db";
-import { dialGroup, gaugesFor, isDialGauge } from "@/lib/offline/entry";
+import { gaugesFor, isDialBoreGauge } from "@/lib/domain";
+import { dialGroup } from "@/lib/offline/entry";
 import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { derivedFor } from "@/lib/offline/preview";
 import {
@@ -112,7 +113,10 @@ export const JobScreen = memo(function JobScreen({
         : { jobId, ownerType: "job" as const, ownerId: String(jobId) },
     [jobId, currentId],
   );
-  const gauges = useMemo(() => (view ? gaugesFor(view.station, pack.instruments) : []), [view, pack.instruments]);
+  const gauges = useMemo(
+    () => (view ? gaugesFor(view.station.characteristic, pack.instruments) : []),
+    [view, pack.instruments],
+  );
   // Only the part on screen: the core works out nothing else after each entry.
   const partStation = view?.station.id;
   const shownDerived = useMemo(
@@ -130,7 +134,7 @@ export const JobScreen = memo(function JobScreen({
   const inSection = views.filter((v) => v.station.section === station.section);
   const section = sections.find((s) => s.id === station.section);
 
-  const dialCapable = !!dialGroup(station) && isDialGauge(chosenGauge(station, pack, prefs));
+  const dialCapable = !!dialGroup(station) && isDialBoreGauge(chosenGauge(station, pack, prefs));
   const refused = views.filter((v) => v.state === "rejected");
 
   return (

@@ -15,6 +15,7 @@ import {
   AXES,
   JOURNAL_POSITIONS,
 } from "./stations";
+import { usualGaugeKind } from "./gauges";
 import { EXPANSION_COEFFICIENTS } from "./thermal";
 import type { BenchRoute, EngineShape, LengthUnit, RouteSection, SectionId, Station, TorqueUnit } from "./types";
 
@@ -140,6 +141,7 @@ function stationOf(id: string, engine: EngineShape): Station {
   if (!characteristic) throw new Error(`Station '${id}' names a part, not a place to measure`);
   const info = CHARACTERISTICS[characteristic];
   const torque = info.kind === "torque";
+  const gaugeKind = usualGaugeKind(characteristic);
   return {
     id,
     characteristic,
@@ -148,7 +150,7 @@ function stationOf(id: string, engine: EngineShape): Station {
     kind: info.kind,
     unit: torque ? torqueUnitOf(engine) : lengthUnitOf(engine),
     torque,
-    ...(info.gaugeKind ? { gaugeKind: info.gaugeKind } : {}),
+    ...(gaugeKind ? { gaugeKind } : {}),
   };
 }
 

@@ -20,3 +20,4 @@ export * from "./gauge-uncertainty";
 export * from "./current-reading";
 export * from "./progress";
 export * from "./job-lock";
+export * from "./gauges";

@@ -99,7 +99,7 @@ export interface ParsedStation {
   group?: string;
 }
 
-/** Kinds of instrument a characteristic is usually measured with (our own names). */
+/** Kinds of gauge a spec sheet names (our own names); words and the table of which suits what in gauges.ts. */
 export type GaugeKind =
   | "micrometer"
   | "bore-gauge"
@@ -126,8 +126,6 @@ export interface CharacteristicInfo {
   derived: boolean;
   /** The part it is measured on, when a temperature correction makes sense. */
   part?: EnginePart;
-  /** The instrument usually used (raw characteristics only). */
-  gaugeKind?: GaugeKind;
 }
 
 /** One limit of a job's spec sheet, as the lead builder enters it. */

@@ -1,7 +1,14 @@
 // From what was typed (keypad, keyboard or a gauge's keystrokes) to a reading ready to save,
 // or a message that says what to fix. Nothing here throws at the machinist: every refusal is
 // returned as words, and the typed text stays on screen.
-import { dialDiameter, implausibleReason, type Lubricant, type Station } from "@/lib/domain";
+import {
+  dialDiameter,
+  implausibleReason,
+  isDialBoreGauge,
+  takesDialBoreGauge,
+  type Lubricant,
+  type Station,
+} from "@/lib/domain";
 import type { BenchInstrument, JobPack } from "@/lib/schemas/sync";
 import type { NewReading } from "./readings";
 
@@ -19,14 +26,9 @@ export function parseEntry(text: string, what = "the value"): Parsed {
   return { value: Number(t) };
 }
 
-/** Dial bore gauges and their like: the gauge kinds that read a deviation from a setting size. */
-export function isDialGauge(inst?: BenchInstrument): boolean {
-  return !!inst && /dial/.test(inst.kind) && /bore/.test(inst.kind);
-}
-
-/** Stations measured with a bore gauge, where dial mode applies; one setting size per section. */
+/** Stations a dial bore gauge measures, where dial mode applies; one setting size per section. */
 export function dialGroup(station: Station): string | undefined {
-  return ["bore", "main-brg", "rod-brg"].includes(station.section) ? station.section : undefined;
+  return takesDialBoreGauge(station.characteristic) ? station.section : undefined;
 }
 
 export interface EntryContext {
@@ -44,7 +46,7 @@ export type Built = { reading: NewReading } | { error: string };
 /** The reading the typed text stands for, checked for physical sense before any verdict. */
 export function buildReading(text: string, ctx: EntryContext): Built {
   const { station, pack, instrument } = ctx;
-  const dial = ctx.dialSetting !== undefined && isDialGauge(instrument);
+  const dial = ctx.dialSetting !== undefined && isDialBoreGauge(instrument);
   const parsed = parseEntry(text, dial ? "the dial reading" : "the value");
   if ("error" in parsed) return parsed;
   if (station.torque && !ctx.lubricant)
@@ -76,29 +78,4 @@ export function buildReading(text: string, ctx: EntryContext): Built {
       ...(ctx.supersedes ? { supersedes: ctx.supersedes } : {}),
     },
   };
-}
-
-function kindScore(station: Station, i: BenchInstrument): number {
-  const want = (station.gaugeKind ?? "").replace(/-/g, "_");
-  if (!want) return 1;
-  if (want === "dial_bore_gauge") return /bore/.test(i.kind) ? 0 : 1;
-  if (want === "micrometer") return /mic/.test(i.kind) ? 0 : 1;
-  return i.kind === want || i.kind.startsWith(want) ? 0 : 1;
-}
-
-/** Gauges that suit a station: same kind of quantity, the usual kind first, then the rest. */
-export function gaugesFor(station: Station, instruments: BenchInstrument[]): BenchInstrument[] {
-  const torque = (u: string) => u === "lbf_ft" || u === "nm";
-  const fits = instruments.filter((i) => i.active && torque(i.unit) === station.torque);
-  return [...fits].sort((a, b) => kindScore(station, a) - kindScore(station, b) || a.label.localeCompare(b.label));
-}
-
-/** The gauge picked for this kind of station, else the shop's usual kind for it; never a guess across kinds. */
-export function pickGauge(
-  station: Station,
-  instruments: BenchInstrument[],
-  pickedId?: number,
-): BenchInstrument | undefined {
-  const options = gaugesFor(station, instruments);
-  return options.find((g) => g.id === pickedId) ?? options.find((g) => kindScore(station, g) === 0);
 }

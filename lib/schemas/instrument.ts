@@ -1,24 +1,11 @@
 import { z } from "zod";
-import type { GaugeKind } from "@/lib/domain";
+import { INSTRUMENT_KIND_IDS, INSTRUMENT_KINDS, quantityOfUnit } from "@/lib/domain";
 
 // One schema for the gauge form and the instruments routes, plus the
 // calibration status words every screen uses.
 
-/** Instrument kinds (our own names), the unit family each reads, and the gauge kind of the spec sheets. */
-export const INSTRUMENT_KINDS = {
-  outside_mic: { label: "Outside micrometer", family: "length", gaugeKind: "micrometer" },
-  inside_mic: { label: "Inside micrometer", family: "length", gaugeKind: "bore-gauge" },
-  depth_mic: { label: "Depth micrometer", family: "length", gaugeKind: "deck-gauge" },
-  bore_gauge_dial: { label: "Dial bore gauge", family: "length", gaugeKind: "dial-bore-gauge" },
-  bore_gauge_digital: { label: "Digital bore gauge", family: "length", gaugeKind: "bore-gauge" },
-  dial_indicator: { label: "Dial indicator", family: "length", gaugeKind: "dial-indicator" },
-  feeler: { label: "Feeler gauge set", family: "length", gaugeKind: "feeler" },
-  stretch_gauge: { label: "Rod-bolt stretch gauge", family: "length", gaugeKind: "stretch-gauge" },
-  deck_gauge: { label: "Deck height gauge", family: "length", gaugeKind: "deck-gauge" },
-  torque_wrench: { label: "Torque wrench", family: "torque", gaugeKind: "torque-wrench" },
-} as const satisfies Record<string, { label: string; family: "length" | "torque"; gaugeKind: GaugeKind }>;
-export type InstrumentKind = keyof typeof INSTRUMENT_KINDS;
-export const INSTRUMENT_KIND_IDS = Object.keys(INSTRUMENT_KINDS) as [InstrumentKind, ...InstrumentKind[]];
+// The instrument kinds themselves (what each reads, which spec-sheet gauge kind it is) are the core's
+// table, lib/domain/gauges.ts, which also decides which gauges suit which station.
 
 export const INSTRUMENT_UNITS = { in: "in", mm: "mm", lbf_ft: "lbf·ft", nm: "N·m" } as const;
 export type InstrumentUnit = keyof typeof INSTRUMENT_UNITS;
@@ -72,8 +59,7 @@ const when =
     p.issues.every((i) => !fields.includes(i.path?.[0] as keyof Fields));
 
 const unitFits = (v: Fields) => {
-  const family = INSTRUMENT_KINDS[v.kind].family;
-  return family === "torque" ? v.unit === "lbf_ft" || v.unit === "nm" : v.unit === "in" || v.unit === "mm";
+  return quantityOfUnit(v.unit) === INSTRUMENT_KINDS[v.kind].quantity;
 };
 
 /** Rules across fields, shared by create (whole object) and edit (after merging with what is stored). */

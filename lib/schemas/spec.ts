@@ -32,22 +32,12 @@
 //   iso286       isoClass (H5–H9, f g h js k m n p 5–9); nominal optional (else the engine's size)
 // Unknown fields are refused, so a typo never silently drops a limit.
 import { z } from "zod";
-import { CHARACTERISTICS, iso286Deviations, type CharacteristicId, type GaugeKind } from "@/lib/domain";
+import { CHARACTERISTICS, GAUGE_KINDS, iso286Deviations, type CharacteristicId } from "@/lib/domain";
 import { LIMIT_TYPES, UNIT_SYSTEMS } from "@/models/enums";
 import { stationPatternProblem } from "./spec-pattern";
 
 export const CHARACTERISTIC_IDS = Object.keys(CHARACTERISTICS) as [CharacteristicId, ...CharacteristicId[]];
 export const MEASURE_UNITS = ["in", "mm", "lbf_ft", "nm"] as const;
-export const GAUGE_KINDS = [
-  "micrometer",
-  "bore-gauge",
-  "dial-bore-gauge",
-  "feeler",
-  "dial-indicator",
-  "stretch-gauge",
-  "deck-gauge",
-  "torque-wrench",
-] as const satisfies readonly GaugeKind[];
 export const BUILD_KINDS = ["street", "endurance", "marine", "diesel", "drag", "vintage", "industrial"] as const;
 export const SPEC_FILE_FORMAT = "tenthwise.spec-template";
 

@@ -8,9 +8,8 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { TextField } from "@/components/ui/text-field";
 import { api, ApiError } from "@/lib/client/api";
+import { INSTRUMENT_KIND_IDS, INSTRUMENT_KINDS } from "@/lib/domain";
 import {
-  INSTRUMENT_KIND_IDS,
-  INSTRUMENT_KINDS,
   INSTRUMENT_UNITS,
   instrumentSchema,
   type InstrumentInput,

@@ -5,7 +5,8 @@ import { useState } from "react";
 import { StatusTag } from "@/components/admin/status-tag";
 import { Button } from "@/components/ui/button";
 import { api, ApiError } from "@/lib/client/api";
-import { INSTRUMENT_KINDS, INSTRUMENT_UNITS, type InstrumentRecord } from "@/lib/schemas/instrument";
+import { INSTRUMENT_KINDS } from "@/lib/domain";
+import { INSTRUMENT_UNITS, type InstrumentRecord } from "@/lib/schemas/instrument";
 import { CalibrationTag } from "./calibration-tag";
 import { CertificateCell } from "./certificate-upload";
 

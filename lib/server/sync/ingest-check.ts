@@ -4,14 +4,16 @@ import {
   LUBRICANT_LABELS,
   dialDiameter,
   evaluateReading,
+  gaugeRank,
   implausibleReason,
   parseStationId,
+  quantityOfUnit,
+  type RawCharacteristic,
 } from "@/lib/domain";
 import type { FieldErrors, PushReading, ReadingEvaluation, RejectCode } from "@/lib/schemas/sync";
 import {
   canonicalValue,
   gaugePastDue,
-  quantityOfUnit,
   round6,
   storedEvaluation,
   toRaw,
@@ -121,7 +123,7 @@ export function samePayload(
 function checkGauge(
   item: PushReading,
   bc: BatchContext,
-  kind: string,
+  characteristic: RawCharacteristic,
   add: (f: string, m: string) => void,
 ): InstrumentInfo | undefined {
   if (item.instrumentId === undefined) return undefined;
@@ -131,7 +133,8 @@ function checkGauge(
     return undefined;
   }
   const reads = quantityOfUnit(inst.unit);
-  if (reads && reads !== kind) {
+  if (reads && gaugeRank(inst, characteristic) === undefined) {
+    const kind = CHARACTERISTICS[characteristic].kind;
     add(
       "instrumentId",
       `Gauge '${inst.label}' (${inst.serial}) reads ${reads}; ${item.stationId} needs a ${kind} gauge`,
@@ -201,7 +204,7 @@ function checkFigures(item: PushReading, bc: BatchContext, job: BatchJob, add: (
       `Say which lubricant was on the threads and under the head (${Object.keys(LUBRICANT_LABELS).join(", ")})`,
     );
   }
-  const inst = checkGauge(item, bc, info.kind, add);
+  const inst = checkGauge(item, bc, characteristic, add);
   if (!item.skipped && unitKind === info.kind) {
     const why = implausibleReason(item.stationId, item.value as number, item.unit, job.shape);
     if (why) add("value", why);

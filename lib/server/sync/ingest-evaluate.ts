@@ -50,10 +50,6 @@ export function canonicalValue(value: number, unit: string): number | null {
   return round6(isLength(unit) ? convertUnit(value, unit, "mm") : convertUnit(value, unit, "nm"));
 }
 
-export function quantityOfUnit(unit: string): "length" | "torque" | undefined {
-  return isLength(unit) ? "length" : isTorque(unit) ? "torque" : undefined;
-}
-
 /** The gauge's expanded uncertainty at k = 2, in `unit`; undefined when the units do not mix. */
 export function uncertaintyIn(inst: InstrumentInfo | undefined, unit: string): number | undefined {
   if (!inst || !(inst.expandedU >= 0)) return undefined;

@@ -129,3 +129,18 @@ describe("a reading the server refused", () => {
     expect(await db.outbox.get(refusedId)).toBeTruthy();
   });
 });
+
+describe("the gauge proposed at a station", () => {
+  it("is the outside micrometer on a main journal, with depth, inside and outside micrometers on file", async () => {
+    const mic = (id: number, kind: string, label: string) => ({ ...dialGauge, id, kind, label, serial: `M-${id}` });
+    const instruments = [
+      mic(11, "depth_mic", "Depth micrometer"),
+      mic(12, "inside_mic", "Inside micrometer"),
+      mic(13, "outside_mic", "Outside micrometer"),
+    ];
+    await mount({ ...makePack(1), instruments });
+    fireEvent.click(screen.getByRole("button", { name: /Main journals/ }));
+    await waitFor(() => expect(screen.getByTestId("where").getAttribute("data-station")).toBe("main/1/front/A"));
+    expect(screen.getByText("Gauge: Outside micrometer (M-13)")).toBeTruthy();
+  });
+});

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { BenchInstrument } from "@/lib/schemas/sync";
-import { buildReading, cleanTyped, gaugesFor, parseEntry, pickGauge } from "@/lib/offline/entry";
+import { buildReading, cleanTyped, dialGroup, parseEntry } from "@/lib/offline/entry";
 import { makePack } from "./fake-server";
 
 const pack = makePack(1);
@@ -91,12 +91,11 @@ describe("building a reading", () => {
       supersedes: "abc",
     });
   });
-  it("offers the gauges that suit a station, the usual kind first", () => {
-    expect(gaugesFor(station("bore/1/top/A"), [mic, wrench, dialGauge]).map((g) => g.id)).toEqual([3, 4]);
-    expect(gaugesFor(station("torque/main-caps"), [mic, wrench, dialGauge]).map((g) => g.id)).toEqual([5]);
-    expect(pickGauge(station("bore/1/top/A"), [mic, dialGauge])?.id).toBe(3);
-    expect(pickGauge(station("bore/1/top/A"), [mic, dialGauge], 4)?.id).toBe(4);
-    // No deck gauge on file: nothing is picked for the machinist (a bore gauge is no deck gauge).
-    expect(pickGauge(station("deck/block/front"), [mic, dialGauge])).toBeUndefined();
+  it("groups dial-mode setting sizes by section, only where a dial bore gauge is the usual gauge", () => {
+    expect(dialGroup(station("bore/1/top/A"))).toBe("bore");
+    expect(dialGroup(station("main-brg/1/front/A"))).toBe("main-brg");
+    expect(dialGroup(station("rod-brg/1/rear/B"))).toBe("rod-brg");
+    expect(dialGroup(station("main/1/front/A"))).toBeUndefined();
+    expect(dialGroup(station("deck/block/front"))).toBeUndefined();
   });
 });

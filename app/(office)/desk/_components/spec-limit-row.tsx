@@ -2,9 +2,17 @@
 
 import { useFormContext, useWatch } from "react-hook-form";
 import { Field, NumberField, SelectField, CheckField, asNumber, messageOf } from "./fields";
-import { CHARACTERISTICS, SECTION_LABELS, type CharacteristicId, type SectionId } from "@/lib/domain";
+import {
+  CHARACTERISTICS,
+  GAUGE_KIND_WORDS,
+  GAUGE_KINDS,
+  SECTION_LABELS,
+  usualGaugeKind,
+  type CharacteristicId,
+  type SectionId,
+} from "@/lib/domain";
 import { STATION_FORMS } from "@/lib/schemas/spec-pattern";
-import { GAUGE_KINDS, LIMIT_FIELDS, LIMIT_TYPE_WORDS, type LimitInput } from "@/lib/schemas/spec";
+import { LIMIT_FIELDS, LIMIT_TYPE_WORDS, type LimitInput } from "@/lib/schemas/spec";
 import { LIMIT_TYPES } from "@/models/enums";
 import { SpecLimitPreview } from "./spec-limit-preview";
 
@@ -21,16 +29,6 @@ const FIELD_WORDS: Record<string, string> = {
   perInchMin: "Minimum",
   perInchMax: "Maximum",
   isoClass: "ISO 286 class",
-};
-const GAUGE_WORDS: Record<(typeof GAUGE_KINDS)[number], string> = {
-  micrometer: "Micrometer",
-  "bore-gauge": "Bore gauge",
-  "dial-bore-gauge": "Dial bore gauge",
-  feeler: "Feeler gauge",
-  "dial-indicator": "Dial indicator",
-  "stretch-gauge": "Stretch gauge",
-  "deck-gauge": "Deck gauge",
-  "torque-wrench": "Torque wrench",
 };
 const BY_SECTION = Object.values(CHARACTERISTICS).reduce<Record<string, CharacteristicId[]>>(
   (acc, c) => ((acc[c.section] ??= []).push(c.id), acc),
@@ -89,7 +87,7 @@ export function SpecLimitRow({
     const lengthUnit = unit === "in" || unit === "mm";
     if (c.kind === "torque" && lengthUnit) setValue(`${p}.unit`, defaultLengthUnit === "mm" ? "nm" : "lbf_ft");
     if (c.kind === "length" && !lengthUnit) setValue(`${p}.unit`, defaultLengthUnit);
-    setValue(`${p}.gaugeKind`, c.gaugeKind ?? null);
+    setValue(`${p}.gaugeKind`, usualGaugeKind(id) ?? null);
   };
 
   return (
@@ -176,7 +174,7 @@ export function SpecLimitRow({
           <option value="">Any / computed</option>
           {GAUGE_KINDS.map((g) => (
             <option key={g} value={g}>
-              {GAUGE_WORDS[g]}
+              {GAUGE_KIND_WORDS[g]}
             </option>
           ))}
         </SelectField>
