@@ -1,7 +1,15 @@
 "use client";
 
 import { startTransition, useCallback, useMemo, useRef, useState } from "react";
-import { defaultGauge, evaluateReading, isDialBoreGauge, type Lubricant, type Station } from "@/lib/domain";
+import {
+  defaultGauge,
+  evaluateReading,
+  isDialBoreGauge,
+  jobLock,
+  jobLockReason,
+  type Lubricant,
+  type Station,
+} from "@/lib/domain";
 import type { JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "@/lib/offline/db";
 import { buildReading, dialGroup, parseEntry } from "@/lib/offline/entry";
@@ -112,8 +120,7 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
     if (!view) return;
     const { station } = view;
     const { draft } = store.get();
-    if (pack.job.locked)
-      return store.set({ error: pack.job.lockReason ?? "This job is released; readings are locked" });
+    if (jobLock(pack.job).locked) return store.set({ error: pack.job.lockReason ?? jobLockReason(pack.job)! });
     // The mode worked out for this render, unless a gauge's next reading arrived before the move painted.
     const m = station.id === stationId ? mode : modeOf(station, pack, prefs, settingFor);
     if (m.needSetting) {

@@ -2,6 +2,7 @@
 
 import { lazy, memo, Suspense, useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { FastenerCaution, Notice } from "@/components/ui/notice";
+import { jobLock, jobLockReason } from "@/lib/domain";
 import { Button } from "@/components/ui/button";
 import { chosenGauge, useBenchEntry } from "@/hooks/use-bench-entry";
 import type { JobPack } from "@/lib/schemas/sync";
@@ -78,6 +79,7 @@ export const JobScreen = memo(function JobScreen({
   const moveTo = useCallback((id: string) => setStationId(id), []);
   const entry = useBenchEntry({ pack, views, readings, prefs, stationId, moveTo });
   const view = views.find((v) => v.station.id === stationId) ?? views[0];
+  const lock = jobLock(pack.job);
 
   useEffect(() => {
     if (!sheet) inputRef.current?.focus();
@@ -140,9 +142,12 @@ export const JobScreen = memo(function JobScreen({
   return (
     <main className="mx-auto flex max-w-7xl flex-col gap-3 px-4 py-3" data-testid="job-screen" data-job={pack.job.id}>
       <SectionStrip sections={sections} current={station.section} onPick={pickSection} onAll={openRoute} />
-      {pack.job.locked && (
-        <Notice tone="error" title="This job is released">
-          {pack.job.lockReason ?? "Readings are locked."} New readings cannot be taken.
+      {lock.locked && (
+        <Notice
+          tone="error"
+          title={`This job is ${lock.reason === "closed" || lock.reason === "released" ? lock.reason : "locked"}`}
+        >
+          {pack.job.lockReason ?? jobLockReason(pack.job)} New readings cannot be taken.
         </Notice>
       )}
       {refused.length > 0 && <RefusedNotice views={refused} onFix={jump} />}
@@ -179,13 +184,13 @@ export const JobScreen = memo(function JobScreen({
             prefs={prefs}
             onPrefs={onPrefs}
             inputRef={inputRef}
-            locked={pack.job.locked}
+            locked={lock.locked}
             dialCapable={dialCapable}
           />
         </div>
         <div className="flex flex-col gap-3 [grid-area:more]">
           <div className="grid grid-cols-2 gap-3">
-            <Button big tone="quiet" onClick={() => setSheet("skip")} disabled={pack.job.locked}>
+            <Button big tone="quiet" onClick={() => setSheet("skip")} disabled={lock.locked}>
               Skip…
             </Button>
             <PhotoButton jobId={pack.job.id} owner={photoOwner} />

@@ -233,6 +233,35 @@ describe("POST /api/sync: locked jobs", () => {
   });
 });
 
+describe("POST /api/sync: every clause of the lock rule refuses on its own (jobLock, rule of this product)", () => {
+  // Each case leaves the other clauses open, so dropping any one clause from jobLock fails it.
+  it.each([
+    ["lockedAt set, status still review", { status: "review", lockedAt: new Date("2026-12-12T15:00:00Z") }, "locked"],
+    ["lockedAt set, status measuring", { status: "measuring", lockedAt: new Date("2026-12-12T15:00:00Z") }, "locked"],
+    ["released with no lockedAt", { status: "released", lockedAt: null }, "released"],
+    ["closed with no lockedAt", { status: "closed", lockedAt: null }, "closed"],
+  ] as const)("%s → 409 job_locked, nothing written", async (_what, fields, verb) => {
+    const shop = await createShop();
+    getSequelize();
+    await Job.update(fields, { where: { id: shop.job.id } });
+    const before = await footprint(shop.job.id, shop.shop.id);
+    const res = await push(shop.users.machinist, [reading(shop.job.id, "bore/1/top/A", 4.0301)]);
+    expect(res.status).toBe(409);
+    expect(res.body.results[0]).toMatchObject({ status: "rejected", code: "job_locked" });
+    expect(res.body.results[0].reason).toMatch(new RegExp(`^Job ${shop.job.code} was ${verb}\\b`));
+    expect(await footprint(shop.job.id, shop.shop.id)).toEqual(before);
+  });
+
+  it("the same job with the lock cleared takes the reading (the case above is the lock, not the data)", async () => {
+    const shop = await createShop();
+    getSequelize();
+    await Job.update({ status: "review", lockedAt: null }, { where: { id: shop.job.id } });
+    const res = await push(shop.users.machinist, [reading(shop.job.id, "bore/1/top/A", 4.0301)]);
+    expect(res.status).toBe(200);
+    expect(res.body.results[0].status).toBe("accepted");
+  });
+});
+
 describe("POST /api/sync: bad payloads → 400/422 with field errors and no partial write", () => {
   it("400 when the body is not JSON", async () => {
     const res = await call(

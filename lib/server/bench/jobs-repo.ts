@@ -1,18 +1,16 @@
 import "server-only";
 import { Op, QueryTypes } from "sequelize";
 import { Customer, Engine, Job } from "@/models";
+import { OPEN_JOB_STATUSES, isJobLocked, jobLockReason } from "@/lib/domain";
 import type { BenchJobHeader } from "@/lib/schemas/sync";
 import { getSequelize } from "@/lib/server/core/db";
-import { lockReasonOf } from "@/lib/server/sync/ingest-check";
 
 // Jobs as the tablet sees them: header (status, lock), customer and engine names, and progress.
-
-export const OPEN_STATUSES = ["intake", "measuring", "review"] as const;
 
 type JobWithNames = Job & { customer?: Customer; engine?: Engine };
 
 export function toHeader(j: Job): BenchJobHeader {
-  const lockReason = lockReasonOf(j);
+  const lockReason = jobLockReason(j);
   return {
     id: j.id,
     code: j.code,
@@ -34,17 +32,19 @@ const include = [
   { model: Engine, as: "engine" },
 ];
 
-/** Open, unlocked jobs of the shop, soonest due first, with the engine row for the route. */
+/** Jobs that take readings (jobLock: an open status, no lock), soonest due first, with the engine row. */
 export async function openBenchJobs(shopId: number): Promise<JobWithNames[]> {
   getSequelize();
-  return (await Job.findAll({
-    where: { shopId, status: { [Op.in]: [...OPEN_STATUSES] }, lockedAt: null },
+  // The query narrows by jobLock's clauses; the filter keeps jobLock the one judge.
+  const jobs = (await Job.findAll({
+    where: { shopId, status: { [Op.in]: [...OPEN_JOB_STATUSES] }, lockedAt: null },
     include,
     order: [
       ["dueDate", "ASC"],
       ["id", "ASC"],
     ],
   })) as JobWithNames[];
+  return jobs.filter((j) => !isJobLocked(j));
 }
 
 export async function jobWithNames(shopId: number, jobId: number): Promise<JobWithNames | null> {

@@ -1,5 +1,5 @@
 import "server-only";
-import { deriveReadings, type DerivedValue } from "@/lib/domain";
+import { deriveReadings, isJobLocked, type DerivedValue } from "@/lib/domain";
 import type { DerivedFigure, DispositionEntry, FlagDetail, HistoryReading, Photo } from "@/lib/schemas/flag";
 import { FlagDisposition, User } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
@@ -153,7 +153,7 @@ export async function getFlagDetail(shopId: number, flagId: number): Promise<Fla
       title: job.title,
       status: job.status,
       unitSystem: job.unitSystem,
-      locked: job.status === "released" || job.status === "closed" || !!job.lockedAt,
+      locked: isJobLocked(job),
     },
     stations: stationIds.map((s) => ({ stationId: s, words: stationWords(s), readings: history(s, h) })),
     derived: fed.map(toFigure),

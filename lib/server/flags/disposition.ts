@@ -1,4 +1,5 @@
 import "server-only";
+import { isJobLocked } from "@/lib/domain";
 import type { Transaction } from "sequelize";
 import { DISPOSITION_WORDS, type DispositionInput, type FlagListItem } from "@/lib/schemas/flag";
 import { Flag, FlagDisposition, Job } from "@/models";
@@ -18,7 +19,7 @@ import { lockJobs } from "@/lib/server/readings/repo";
 const when = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ") + " UTC";
 
 function refuseLocked(job: Job): void {
-  if (job.status === "released" || job.status === "closed" || job.lockedAt) {
+  if (isJobLocked(job)) {
     throw new AppError(
       "job_locked",
       `Job ${job.code} is released and locked, so its flags cannot be decided again. Reopen the job (with a reason) first.`,

@@ -1,5 +1,6 @@
 import "server-only";
 import { UniqueConstraintError, type Transaction } from "sequelize";
+import { jobLock } from "@/lib/domain";
 import type { CustomerValues, JobEditValues, JobValues } from "@/lib/schemas/job";
 import { Customer, Engine, Job, JobLimit, Reading, SpecLimit, SpecTemplate } from "@/models";
 import type { Actor } from "@/lib/server/core/access";
@@ -7,7 +8,6 @@ import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
-import { lockReasonOf } from "@/lib/server/sync/ingest-check";
 
 // Creating and editing jobs from the desk. Every write is one transaction with its audit
 // event; a job's status change also goes on the change feed so tablets see it.
@@ -159,21 +159,15 @@ export async function createJob(actor: Actor, v: JobValues): Promise<{ id: numbe
   });
 }
 
-type LockFacts = Pick<Job, "code" | "status" | "lockedAt" | "updatedAt">;
-
-/** Released and closed jobs, and a job under a standing release, are locked (the ingest's own rule). */
-export function isJobLocked(job: LockFacts): boolean {
-  return lockReasonOf(job) !== null;
-}
-
-/** Locked jobs are not edited from the desk (job, limits, build plan). */
-export function assertJobEditable(job: LockFacts): void {
-  if (isJobLocked(job)) {
-    throw new AppError(
-      "job_locked",
-      `This job is ${job.lockedAt && job.status !== "closed" ? "released" : job.status} and locked; the inspector must void the release before it can change`,
-    );
-  }
+/** Locked jobs (jobLock, the rule readings follow too) are not edited from the desk: job, limits, build plan. */
+export function assertJobEditable(job: Pick<Job, "status" | "lockedAt">): void {
+  const lock = jobLock(job);
+  if (!lock.locked) return;
+  const state = lock.reason === "closed" ? "closed" : lock.reason === "status" ? `"${job.status}"` : "released";
+  throw new AppError(
+    "job_locked",
+    `This job is ${state} and locked; a lead must reopen it (with a reason) before it can change`,
+  );
 }
 
 export async function updateJob(actor: Actor, jobId: number, v: JobEditValues): Promise<{ id: number }> {

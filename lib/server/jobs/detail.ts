@@ -1,9 +1,8 @@
 import "server-only";
 import { fn, col } from "sequelize";
-import { benchRoute, deriveReadings, type Verdict } from "@/lib/domain";
+import { benchRoute, deriveReadings, isJobLocked, type Verdict } from "@/lib/domain";
 import { Customer, Flag, SpecTemplate } from "@/models";
 import { loadJobContext, type JobContext } from "@/lib/server/jobs/context";
-import { isJobLocked } from "@/lib/server/jobs/admin-repo";
 import { loadJobReadings, measuredStations, requiredStationIds, type JobReadings } from "@/lib/server/jobs/readings";
 import type { JobStatus } from "@/lib/server/jobs/repo";
 

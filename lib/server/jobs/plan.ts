@@ -1,11 +1,12 @@
 import "server-only";
+import { isJobLocked } from "@/lib/domain";
 import { buildPlanSchema, type BuildPlan } from "@/lib/schemas/build-plan";
 import { Engine, Job, type JsonObject } from "@/models";
 import type { Actor } from "@/lib/server/core/access";
 import { recordAudit } from "@/lib/server/log/audit";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
-import { assertJobEditable, isJobLocked } from "@/lib/server/jobs/admin-repo";
+import { assertJobEditable } from "@/lib/server/jobs/admin-repo";
 
 // The build plan lives on jobs.build_plan as the schema's JSON (units written in).
 export type BuildPlanView = {

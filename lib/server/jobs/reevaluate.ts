@@ -1,4 +1,5 @@
 import "server-only";
+import { isJobLocked } from "@/lib/domain";
 import { compactLimit, type JobLimitsValues, type LimitValues } from "@/lib/schemas/spec";
 import { Job, JobLimit } from "@/models";
 import type { Actor } from "@/lib/server/core/access";
@@ -8,7 +9,7 @@ import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import { reconcileJob } from "@/lib/server/flags/reconcile";
 import { loadJobContext } from "@/lib/server/jobs/context";
-import { assertJobEditable, isJobLocked } from "@/lib/server/jobs/admin-repo";
+import { assertJobEditable } from "@/lib/server/jobs/admin-repo";
 import { limitRow } from "@/lib/server/specs/repo";
 
 // A job's own limit snapshot: read it, or replace it and re-evaluate the job's readings and

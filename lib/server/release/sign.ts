@@ -1,4 +1,5 @@
 import "server-only";
+import { isJobLocked } from "@/lib/domain";
 import bcrypt from "bcryptjs";
 import type { ReleaseRecord, ReopenInput, SignInput } from "@/lib/schemas/release";
 import type { JsonValue } from "@/models";
@@ -75,7 +76,7 @@ export async function signRelease(actor: Actor, jobId: number, input: SignInput)
   const row = await getSequelize().transaction(async (t) => {
     const record = await loadJobRecord(actor.shopId, jobId, t, true);
     const { job } = record;
-    if (job.status === "released" || job.status === "closed" || job.lockedAt || (await activeRelease(jobId, t))) {
+    if (isJobLocked(job) || (await activeRelease(jobId, t))) {
       throw new AppError(
         "conflict",
         `Job ${job.code} is already ${job.status === "closed" ? "closed" : "released"}; the lead must reopen it before a new release`,

@@ -1,5 +1,5 @@
 import "server-only";
-import type { Verdict } from "@/lib/domain";
+import { isJobLocked, type Verdict } from "@/lib/domain";
 import type { FlagSummary, ReadingCounts, ReleaseJobSummary, ReleaseView } from "@/lib/schemas/release";
 import type { Actor } from "@/lib/server/core/access";
 import { listJobs } from "@/lib/server/jobs/repo";
@@ -58,7 +58,7 @@ export async function releaseView(actor: Actor, jobId: number): Promise<ReleaseV
   const checklist = checklistOf(record);
   const { job } = record;
   const standing = releases.find((r) => !r.voidedAt) ?? null;
-  const locked = job.status === "released" || job.status === "closed" || !!job.lockedAt;
+  const locked = isJobLocked(job);
   const latest = standing ?? releases[0] ?? null;
   return {
     job: {

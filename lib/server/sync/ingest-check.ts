@@ -43,21 +43,6 @@ export type Checked =
   | { kind: "replay"; stored: StoredReading }
   | { kind: "rejected"; code: RejectCode; reason: string; errors?: FieldErrors };
 
-const DATE = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
-
-/** Why a job refuses readings, in words, or null when it takes them. */
-export function lockReasonOf(job: {
-  code: string;
-  status: string;
-  lockedAt: Date | null;
-  updatedAt: Date;
-}): string | null {
-  const locked = job.status === "released" || job.status === "closed" || !!job.lockedAt;
-  if (!locked) return null;
-  const verb = job.status === "closed" ? "closed" : job.status === "released" ? "released" : "locked";
-  return `Job ${job.code} was ${verb} on ${DATE.format(job.lockedAt ?? job.updatedAt)}; readings are locked. Ask the lead to reopen it.`;
-}
-
 /** The row this item would be stored as (verdict fields filled in later). */
 export function rowOf(item: PushReading, bc: BatchContext, characteristic: string): NewReading {
   const skipped = !!item.skipped;

@@ -1,8 +1,8 @@
 import "server-only";
 import type { Sequelize, Transaction } from "sequelize";
-import { benchRoute } from "@/lib/domain";
+import { benchRoute, jobLockReason } from "@/lib/domain";
 import { getSequelize } from "@/lib/server/core/db";
-import { lockReasonOf, type BatchJob } from "@/lib/server/sync/ingest-check";
+import type { BatchJob } from "@/lib/server/sync/ingest-check";
 import { loadJobContext, type JobContext } from "@/lib/server/jobs/context";
 
 // Each job's context as POST /api/sync judges readings with it (job, engine shape, limits, route
@@ -59,7 +59,7 @@ export async function batchJobs(
       continue;
     }
     const ctx = (await prefetched.get(id)) ?? (await loadJobContext(shopId, id, t));
-    const job: BatchJob = { ...ctx, routeIds: routeIdsOf(ctx.shape), lockReason: lockReasonOf(ctx.job) };
+    const job: BatchJob = { ...ctx, routeIds: routeIdsOf(ctx.shape), lockReason: jobLockReason(ctx.job) };
     if (cache.size >= MAX_ENTRIES) cache.clear();
     cache.set(id, { shopId, revision, job });
     jobs.set(id, job);

@@ -1,4 +1,5 @@
 import "server-only";
+import { isJobLocked } from "@/lib/domain";
 import type { Transaction } from "sequelize";
 import { Attachment, Instrument, Job, Reading, type AttachmentOwnerType } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
@@ -105,7 +106,7 @@ export async function findOwnerOrThrow(
   return {
     jobId: job.id,
     jobCode: job.code,
-    locked: job.status === "released" || job.status === "closed" || !!job.lockedAt,
+    locked: isJobLocked(job),
   };
 }
 
