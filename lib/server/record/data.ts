@@ -3,8 +3,8 @@ import { EXPANSION_COEFFICIENTS, FASTENER_CAUTION } from "@/lib/domain";
 import { env } from "@/lib/server/core/env";
 import { notFound } from "@/lib/server/core/errors";
 import { currentReadings } from "@/lib/server/release/checklist-rules";
-import { verifyRelease } from "@/lib/server/release/hash-verify";
-import { listReleases, loadJobRecord, userNames, type ReleaseRow } from "@/lib/server/release/repo";
+import { checkRelease } from "@/lib/server/release/hash-verify";
+import { listReleases, loadJobRecord, userNames, type JobRecord, type ReleaseRow } from "@/lib/server/release/repo";
 import { when, withUnit } from "@/lib/server/record/format";
 import { recordPhotos } from "@/lib/server/record/photos";
 import { planOf } from "@/lib/server/record/plan";
@@ -13,7 +13,9 @@ import { loadRecordParties, type RecordParties } from "@/lib/server/record/repo"
 import { flagLines, gaugeLines } from "@/lib/server/record/review";
 import type { BuildRecord, Line, ReleaseStamp } from "@/lib/server/record/types";
 
-// Assembles the build record of one job: everything the PDF and the customer's page print.
+// Assembles the build record of one job: everything the PDF and the customer's page print. The
+// job's record is loaded once and threaded through: the sections, the photos and the check of
+// each printed release all read the same rows.
 
 export const SAFETY_NOTICE = [
   "The figures in this record are what was measured and computed at the bench. They do not replace the fastener or engine maker's instructions: the maker's torque, stretch, lubricant and clearance specifications govern.",
@@ -58,13 +60,9 @@ function verifyUrl(jobCode: string, hash: string): string {
   return `${env().APP_URL.replace(/\/$/, "")}/verify?job=${encodeURIComponent(jobCode)}&hash=${hash}`;
 }
 
-async function stamp(
-  r: ReleaseRow,
-  shopId: number,
-  jobCode: string,
-  names: Map<number, string>,
-): Promise<ReleaseStamp> {
-  const check = await verifyRelease(shopId, r.jobId, r.id);
+/** A release as printed, checked against the record already loaded for this copy. */
+function stamp(r: ReleaseRow, record: JobRecord, names: Map<number, string>): ReleaseStamp {
+  const check = checkRelease(record, r, names);
   return {
     id: r.id,
     status: r.voidedAt ? "void" : "standing",
@@ -77,7 +75,7 @@ async function stamp(
     voidedByName: r.voidedBy ? (names.get(r.voidedBy) ?? null) : null,
     voidReason: r.voidReason ?? null,
     check: { status: check.status, words: check.words },
-    verifyUrl: verifyUrl(jobCode, r.hash),
+    verifyUrl: verifyUrl(record.job.code, r.hash),
   };
 }
 
@@ -137,8 +135,8 @@ export async function loadBuildRecord(
     gauges: gaugeLines(record, current),
     photos,
     tally: tallyOf(current),
-    release: chosen ? await stamp(chosen, shopId, job.code, names) : null,
-    earlierReleases: await Promise.all(earlier.map((r) => stamp(r, shopId, job.code, names))),
+    release: chosen ? stamp(chosen, record, names) : null,
+    earlierReleases: earlier.map((r) => stamp(r, record, names)),
     safety: SAFETY_NOTICE,
   };
 }

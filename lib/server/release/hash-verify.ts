@@ -4,7 +4,14 @@ import { AppError, notFound } from "@/lib/server/core/errors";
 import { characteristicWords, stationWords } from "@/lib/server/release/checklist-rules";
 import { itemDigests, releaseHash, SECTIONS, type ItemDigests, type ReleaseSnapshot } from "@/lib/server/release/hash";
 import { buildSnapshot } from "@/lib/server/release/hash-snapshot";
-import { findReleaseByHash, listReleases, loadJobRecord, userNames, type ReleaseRow } from "@/lib/server/release/repo";
+import {
+  findReleaseByHash,
+  listReleases,
+  loadJobRecord,
+  userNames,
+  type JobRecord,
+  type ReleaseRow,
+} from "@/lib/server/release/repo";
 import { toReleaseRecord } from "@/lib/server/release/sign";
 
 // Verification: rebuild the canonical document from the database as it is NOW (the gauges from
@@ -54,8 +61,8 @@ export function differences(now: ReleaseSnapshot, stored: ItemDigests | undefine
   return out;
 }
 
-async function recompute(release: ReleaseRow) {
-  const record = await loadJobRecord(release.shopId, release.jobId);
+/** The hash of the job's rows now, with the signature and gauges stored in the release. */
+function recompute(record: JobRecord, release: ReleaseRow) {
   const stored = (release.checklist ?? {}) as Stored;
   const snapshot = buildSnapshot(
     record,
@@ -67,33 +74,28 @@ async function recompute(release: ReleaseRow) {
 
 const day = (d: Date) => d.toISOString().replace("T", " ").slice(0, 16) + " UTC";
 
-/** The latest release of a job (or the one asked for), checked against the database now. */
-export async function verifyRelease(shopId: number, jobId: number, releaseId?: number): Promise<Verification> {
-  await loadJobRecord(shopId, jobId); // 404 for another shop's job
-  const releases = await listReleases(jobId);
-  const release = releaseId ? releases.find((r) => r.id === releaseId) : releases[0];
-  if (!release)
-    throw releaseId
-      ? notFound("Release")
-      : new AppError("not_found", "This job has not been released yet, so there is nothing to verify");
-  const names = await userNames(shopId, [release.inspectorId, release.voidedBy]);
-  const record = toReleaseRecord(release, names);
+/**
+ * One release checked against its job's record as already loaded (no queries), so a caller that
+ * has the record (the build record, printing several releases) never loads it again.
+ */
+export function checkRelease(record: JobRecord, release: ReleaseRow, names: Map<number, string>): Verification {
+  const shown = toReleaseRecord(release, names);
   if (release.voidedAt) {
-    const who = record.voidedByName ? ` by ${record.voidedByName}` : "";
+    const who = shown.voidedByName ? ` by ${shown.voidedByName}` : "";
     return {
       status: "void",
       words: `VOID: this release was voided on ${day(release.voidedAt)}${who}. Reason: ${release.voidReason ?? "none given"}. A new release is needed.`,
-      release: record,
+      release: shown,
       recomputedHash: null,
       differences: [],
     };
   }
-  const { snapshot, stored, hash } = await recompute(release);
+  const { snapshot, stored, hash } = recompute(record, release);
   if (hash === release.hash) {
     return {
       status: "match",
       words: `Matches: the record in the database now gives the same fingerprint as the release signed on ${day(release.signedAt)}.`,
-      release: record,
+      release: shown,
       recomputedHash: hash,
       differences: [],
     };
@@ -108,10 +110,22 @@ export async function verifyRelease(shopId: number, jobId: number, releaseId?: n
   return {
     status: "changed",
     words: `Changed since release: the record in the database no longer gives the fingerprint signed on ${day(release.signedAt)}.${what}`,
-    release: record,
+    release: shown,
     recomputedHash: hash,
     differences: diffs,
   };
+}
+
+/** The latest release of a job (or the one asked for), checked against the database now. */
+export async function verifyRelease(shopId: number, jobId: number, releaseId?: number): Promise<Verification> {
+  const record = await loadJobRecord(shopId, jobId); // 404 for another shop's job
+  const releases = await listReleases(jobId);
+  const release = releaseId ? releases.find((r) => r.id === releaseId) : releases[0];
+  if (!release)
+    throw releaseId
+      ? notFound("Release")
+      : new AppError("not_found", "This job has not been released yet, so there is nothing to verify");
+  return checkRelease(record, release, await userNames(shopId, [release.inspectorId, release.voidedBy]));
 }
 
 /**
@@ -134,7 +148,7 @@ export async function verifyByHash(hash: string, jobCode?: string): Promise<Publ
       status: "void",
       words: `Void: this release of job ${release.jobCode} was withdrawn by the shop on ${day(release.voidedAt)}. Ask the shop for the current record.`,
     };
-  const { hash: now } = await recompute(release);
+  const { hash: now } = recompute(await loadJobRecord(release.shopId, release.jobId), release);
   return now === release.hash
     ? {
         ...base,
