@@ -2,6 +2,7 @@
 
 import { startTransition, useCallback, useMemo, useRef, useState } from "react";
 import {
+  coreReading,
   defaultGauge,
   evaluateReading,
   isDialBoreGauge,
@@ -14,7 +15,7 @@ import type { JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "@/lib/offline/db";
 import { buildReading, dialGroup, parseEntry } from "@/lib/offline/entry";
 import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
-import { gaugeU, usableRaw } from "@/lib/offline/preview";
+import { usableRaw } from "@/lib/offline/preview";
 import { recordReading, resendReading, type NewReading } from "@/lib/offline/readings";
 import { nextOpenStation, type StationView } from "@/lib/offline/route-status";
 import { useBench } from "@/components/bench/bench-context";
@@ -143,16 +144,10 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
     if ("error" in built) return store.set({ error: built.error });
     const r = built.reading;
     const saving = write(r, known); // started first: the store works while the verdict is worked out
-    const U = gaugeU(m.instrument, r.unit);
     let ev: ReturnType<typeof evaluateReading> | undefined;
     let note: string | undefined;
     try {
-      ev = evaluateReading(
-        { stationId: r.stationId, value: r.value!, unit: r.unit, ...(U !== undefined ? { uncertainty: U } : {}) },
-        pack.shape,
-        pack.spec,
-        raw,
-      );
+      ev = evaluateReading(coreReading({ ...r, value: r.value! }, m.instrument), pack.shape, pack.spec, raw);
       note = ev.verdict ? undefined : "No limit for this station on the job's spec; the figure is logged";
     } catch (err) {
       note = err instanceof Error ? err.message : String(err);

@@ -7,6 +7,7 @@
 // memory), the first being the one a new limit proposes. A gauge of another kind that reads the
 // same quantity may still be used (the machinist picks it); one that reads another quantity never.
 import { CHARACTERISTICS } from "./stations";
+import { quantityOfUnit } from "./units";
 import type { CharacteristicId, GaugeKind, MeasureUnit, QuantityKind, RawCharacteristic } from "./types";
 
 /** Every gauge kind a spec sheet may name, with the words shown for it. */
@@ -61,11 +62,6 @@ export const USUAL_GAUGES: Readonly<Record<RawCharacteristic, readonly GaugeKind
 /** The gauge kind a new limit proposes for a characteristic (none for a computed one). */
 export function usualGaugeKind(characteristic: CharacteristicId): GaugeKind | undefined {
   return (USUAL_GAUGES as Partial<Record<CharacteristicId, readonly GaugeKind[]>>)[characteristic]?.[0];
-}
-
-/** The quantity a unit measures, or undefined for a unit the core does not know. */
-export function quantityOfUnit(unit: string): QuantityKind | undefined {
-  return unit === "in" || unit === "mm" ? "length" : unit === "lbf_ft" || unit === "nm" ? "torque" : undefined;
 }
 
 /** The gauge kind of a registered instrument kind; undefined for a kind this table does not know. */

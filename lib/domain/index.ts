@@ -21,3 +21,4 @@ export * from "./current-reading";
 export * from "./progress";
 export * from "./job-lock";
 export * from "./gauges";
+export * from "./reading-input";

@@ -11,7 +11,7 @@
 // literal (non-"*") segments, then most segments, then the one listed first on the spec.
 import { iso286Limits } from "./iso286";
 import type { CharacteristicId, Evaluation, LengthUnit, MeasureUnit, ResolvedLimit, SpecLimit } from "./types";
-import { cleanDecimal, convertLength, convertTorque } from "./units";
+import { cleanDecimal, convertLength, convertMeasure } from "./units";
 import { deviationFromNominal, verdict } from "./verdict";
 
 /** What a rule needs beyond the spec sheet, all lengths with their units. */
@@ -191,16 +191,11 @@ export function limitsFor(
   }
 }
 
-const isLength = (u: MeasureUnit): u is LengthUnit => u === "in" || u === "mm";
-
-/** `value` in `to`, or undefined when one is a length and the other a torque. */
+/** `value` in `to` cleaned of float noise, or undefined when one is a length and the other a torque. */
 function convert(value: number, from: MeasureUnit, to: MeasureUnit): number | undefined {
   if (from === to) return value;
-  if (isLength(from) !== isLength(to)) return undefined;
-  const out = isLength(from)
-    ? convertLength(value, from, to as LengthUnit)
-    : convertTorque(value, from, to as "lbf_ft" | "nm");
-  return cleanDecimal(out);
+  const out = convertMeasure(value, from, to);
+  return out === undefined ? undefined : cleanDecimal(out);
 }
 
 /**

@@ -4,7 +4,7 @@
 import Decimal from "decimal.js-light";
 // The unit names live with the shared types (types.ts); re-declaring them here would make
 // index.ts export the same name twice.
-import type { LengthUnit, TorqueUnit } from "./types";
+import type { LengthUnit, QuantityKind, TorqueUnit } from "./types";
 
 /** Millimetres in one inch (exact, international inch of 1959). */
 export const MM_PER_IN = 25.4;
@@ -136,4 +136,19 @@ function requireUnit(unit: string, allowed: readonly string[], name: string): vo
   if (!allowed.includes(unit)) {
     throw new Error(`Unknown ${name} '${String(unit)}'; use one of ${allowed.join(", ")}`);
   }
+}
+
+/** The quantity a unit measures, or undefined for a unit the core does not know. */
+export function quantityOfUnit(unit: string): QuantityKind | undefined {
+  return unit === "in" || unit === "mm" ? "length" : unit === "lbf_ft" || unit === "nm" ? "torque" : undefined;
+}
+
+/** `value` in `from` expressed in `to`; undefined when one is a length and the other a torque (or unknown). */
+export function convertMeasure(value: number, from: string, to: string): number | undefined {
+  if (from === to) return value;
+  const kind = quantityOfUnit(from);
+  if (!kind || kind !== quantityOfUnit(to)) return undefined;
+  return kind === "length"
+    ? convertLength(value, from as LengthUnit, to as LengthUnit)
+    : convertTorque(value, from as TorqueUnit, to as TorqueUnit);
 }

@@ -2,13 +2,11 @@
 // instant verdicts and derived values, all from lib/domain (the same core the server uses; the
 // server's stored verdict replaces the preview once a reading is synced).
 import {
-  convertLength,
+  coreReading,
   deriveReadings,
   evaluateReading,
-  uncertaintyAtK2,
   type DerivedValue,
   type Evaluation,
-  type MeasureUnit,
   type RawReading,
   type Verdict,
 } from "@/lib/domain";
@@ -37,29 +35,13 @@ export function currentByStation(readings: LocalReading[]): Map<string, LocalRea
   return out;
 }
 
-/** The gauge's expanded uncertainty U at k = 2 in the reading's unit, as the server takes it (the certificate's U). */
-export function gaugeU(instrument: BenchInstrument | undefined, unit: MeasureUnit): number | undefined {
-  if (!instrument || !(instrument.expandedU >= 0)) return undefined;
-  const U = uncertaintyAtK2(instrument.expandedU, instrument.coverageK || 2);
-  if (instrument.unit === unit) return U;
-  const lengths = (instrument.unit === "in" || instrument.unit === "mm") && (unit === "in" || unit === "mm");
-  return lengths ? convertLength(U, instrument.unit as "in" | "mm", unit as "in" | "mm") : undefined;
-}
-
+/** The core's input for a kept reading with its gauge's uncertainty; none for a skip. */
 export function toRaw(r: LocalReading, instruments: BenchInstrument[]): RawReading | undefined {
   if (r.skipped || r.value === null) return undefined;
-  const inst = instruments.find((i) => i.id === r.instrumentId);
-  const U = gaugeU(inst, r.unit);
-  return {
-    stationId: r.stationId,
-    value: r.value,
-    unit: r.unit,
-    takenAt: r.takenAt,
-    ...(r.partTempC !== undefined ? { temperatureC: r.partTempC } : {}),
-    ...(r.gaugeTempC !== undefined ? { gaugeTemperatureC: r.gaugeTempC } : {}),
-    ...(U !== undefined ? { uncertainty: U } : {}),
-    ...(r.lubricant ? { lubricant: r.lubricant } : {}),
-  };
+  return coreReading(
+    { ...r, value: r.value },
+    instruments.find((i) => i.id === r.instrumentId),
+  );
 }
 
 /** Raw readings that count for verdicts and derived values: current, not skipped, not refused. */

@@ -144,3 +144,19 @@ describe("the gauge proposed at a station", () => {
     expect(screen.getByText("Gauge: Outside micrometer (M-13)")).toBeTruthy();
   });
 });
+
+describe("a torque entry", () => {
+  it("is judged the moment it is saved, with the lubricant picked", async () => {
+    // Invented limit for the test: 65–70 lbf·ft on every torque group.
+    const torque = { characteristic: "fastener_torque", stationPattern: "*", limitType: "min_max" } as const;
+    const pack = makePack(1);
+    const spec = [...pack.spec, { ...torque, unit: "lbf_ft", min: 65, max: 70, required: true } as const];
+    const { input } = await mount({ ...pack, spec });
+    fireEvent.click(screen.getByRole("button", { name: /Fastener torque/ }));
+    await waitFor(() => expect(screen.getByTestId("where").getAttribute("data-station")).toBe("torque/main-caps"));
+    fireEvent.click(screen.getByRole("button", { name: "Engine oil" }));
+    await waitFor(() => expect(screen.getByRole("button", { name: "Engine oil", pressed: true })).toBeTruthy());
+    await act(async () => type(input, "72"));
+    await waitFor(() => expect(screen.getByTestId("last-entry").getAttribute("data-verdict")).toBe("out_of_spec"));
+  });
+});

@@ -8,7 +8,6 @@ import {
   gaugeRank,
   gaugesFor,
   isDialBoreGauge,
-  quantityOfUnit,
   takesDialBoreGauge,
   usualGaugeKind,
   type RawCharacteristic,
@@ -64,9 +63,6 @@ describe("the table of which gauge suits which characteristic", () => {
     // The quantity comes from the unit the gauge reads, as the gauge form checks it.
     expect(gaugeRank({ kind: "torque_wrench", unit: "nm" }, "fastener_torque")).toBe(0);
     expect(gaugeRank({ kind: "something_new", unit: "mm" }, "deck_height")).toBe(Infinity);
-    expect(quantityOfUnit("mm")).toBe("length");
-    expect(quantityOfUnit("lbf_ft")).toBe("torque");
-    expect(quantityOfUnit("psi")).toBeUndefined();
   });
 });
 
