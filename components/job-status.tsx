@@ -1,4 +1,4 @@
-import type { JobStatus } from "@/lib/server/jobs/repo";
+import type { JobStatus } from "@/lib/domain";
 
 export const STATUS_WORDS: Record<JobStatus, string> = {
   intake: "Intake",

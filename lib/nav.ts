@@ -1,4 +1,4 @@
-import type { Role } from "@/lib/server/core/session";
+import type { Role } from "@/lib/schemas/enums";
 
 // Each role's navigation. The first entry is that role's home (see ROLE_HOME).
 export const NAV: Record<Role, { href: string; label: string }[]> = {

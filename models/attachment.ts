@@ -8,7 +8,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { datetime, enumOf, modelOptions, ref, str, uuidId } from "./columns";
-import { ATTACHMENT_OWNER_TYPES, type AttachmentOwnerType } from "./enums";
+import { ATTACHMENT_OWNER_TYPES, type AttachmentOwnerType } from "@/lib/schemas/enums";
 import type { User } from "./user";
 
 /**

@@ -7,7 +7,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { bigId, datetime, json, modelOptions, ref, str } from "./columns";
-import type { JsonValue } from "./enums";
+import type { JsonValue } from "@/lib/schemas/json";
 import type { User } from "./user";
 
 /**

@@ -8,7 +8,8 @@ import {
   type Sequelize,
 } from "sequelize";
 import { decimal, enumOf, intId, modelOptions, ref, stamps, str } from "./columns";
-import { ENGINE_LAYOUTS, FUELS, UNIT_SYSTEMS, type EngineLayout, type Fuel, type UnitSystem } from "./enums";
+import { ENGINE_LAYOUTS, type EngineLayout } from "@/lib/domain";
+import { FUELS, UNIT_SYSTEMS, type Fuel, type UnitSystem } from "@/lib/schemas/enums";
 import type { Customer } from "./customer";
 
 /** The engine a customer brought in. Nominal bore and stroke are in the engine's unitSystem. */

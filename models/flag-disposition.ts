@@ -7,7 +7,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { datetime, enumOf, intId, modelOptions, ref, str, text } from "./columns";
-import { DISPOSITIONS, type Disposition } from "./enums";
+import { DISPOSITIONS, type Disposition } from "@/lib/schemas/enums";
 import type { Flag } from "./flag";
 import type { User } from "./user";
 

@@ -8,16 +8,15 @@ import {
   type Sequelize,
 } from "sequelize";
 import { datetime, decimal, enumOf, intId, modelOptions, ref, stamps, str, text } from "./columns";
+import { VERDICTS, type Verdict } from "@/lib/domain";
 import {
   DISPOSITIONS,
   FLAG_REASONS,
   FLAG_STATES,
-  VERDICTS,
   type Disposition,
   type FlagReason,
   type FlagState,
-  type Verdict,
-} from "./enums";
+} from "@/lib/schemas/enums";
 import type { FlagDisposition } from "./flag-disposition";
 import type { Job } from "./job";
 import type { Reading } from "./reading";

@@ -1,5 +1,6 @@
 // The Sequelize models of Tenthwise. lib/server/core/db.ts calls initModels(sequelize) once on its
-// instance; only lib/server/*-repo.ts imports from here, and repos return plain objects.
+// instance; in lib/server only each feature's repo.ts imports from here, and repos return plain
+// objects. The value sets of the ENUM columns live in lib/domain/enums.ts and lib/schemas/enums.ts.
 //
 // Conventions every model follows:
 // - camelCase attributes over snake_case columns (`underscored: true`); tables are snake_case plural.
@@ -55,7 +56,6 @@ export {
   User,
 };
 export { decimalToNumber } from "./columns";
-export * from "./enums";
 
 const INITIALISERS = [
   initShop,

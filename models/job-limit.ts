@@ -7,7 +7,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { intId, modelOptions, ref, stamps } from "./columns";
-import type { LimitType } from "./enums";
+import type { LimitType } from "@/lib/domain";
 import { limitAttributes } from "./limit-attributes";
 import type { Job } from "./job";
 

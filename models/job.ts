@@ -7,7 +7,9 @@ import {
   type Sequelize,
 } from "sequelize";
 import { dateOnly, datetime, enumOf, int, intId, json, modelOptions, ref, stamps, str, text } from "./columns";
-import { JOB_STATUSES, UNIT_SYSTEMS, type JobStatus, type JsonObject, type UnitSystem } from "./enums";
+import { JOB_STATUSES, type JobStatus } from "@/lib/domain";
+import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
+import type { JsonObject } from "@/lib/schemas/json";
 import type { Customer } from "./customer";
 import type { Engine } from "./engine";
 import type { JobLimit } from "./job-limit";

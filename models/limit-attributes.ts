@@ -1,7 +1,7 @@
 // The attributes of one spec limit, shared by SpecLimit (a template's) and JobLimit (a job's
 // frozen copy). Values are in `unit`; perInchMin/perInchMax are per unit of diameter.
 import { bool, decimal, enumOf, int, str } from "./columns";
-import { LIMIT_TYPES } from "./enums";
+import { LIMIT_TYPES } from "@/lib/domain";
 
 export function limitAttributes() {
   return {

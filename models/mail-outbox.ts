@@ -6,7 +6,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { datetime, int, intId, json, modelOptions, ref, stamps, str, text } from "./columns";
-import type { JsonObject } from "./enums";
+import type { JsonObject } from "@/lib/schemas/json";
 
 /** A message waiting to be sent (sentAt null) or sent. Failures set lastError and nextAttemptAt. */
 export class MailOutbox extends Model<InferAttributes<MailOutbox>, InferCreationAttributes<MailOutbox>> {

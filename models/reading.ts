@@ -8,7 +8,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { bool, datetime, decimal, enumOf, modelOptions, ref, stamps, str, uuidId } from "./columns";
-import { ENTRY_MODES, VERDICTS, type EntryMode, type Verdict } from "./enums";
+import { ENTRY_MODES, VERDICTS, type EntryMode, type Verdict } from "@/lib/domain";
 import type { Instrument } from "./instrument";
 import type { Job } from "./job";
 import type { User } from "./user";

@@ -8,7 +8,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { datetime, int, intId, json, modelOptions, ref, stamps, str, text } from "./columns";
-import type { JsonValue } from "./enums";
+import type { JsonValue } from "@/lib/schemas/json";
 import type { Job } from "./job";
 import type { User } from "./user";
 

@@ -8,7 +8,7 @@ import {
 } from "sequelize";
 import { enumOf, intId, modelOptions, stamps, str, text } from "./columns";
 import type { User } from "./user";
-import { GUARD_BAND_POLICIES, UNIT_SYSTEMS, type GuardBandPolicy, type UnitSystem } from "./enums";
+import { GUARD_BAND_POLICIES, UNIT_SYSTEMS, type GuardBandPolicy, type UnitSystem } from "@/lib/schemas/enums";
 
 /** A tenant: one machine shop. Every other row belongs to exactly one shop. */
 export class Shop extends Model<InferAttributes<Shop>, InferCreationAttributes<Shop>> {

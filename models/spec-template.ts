@@ -7,7 +7,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { bool, enumOf, int, intId, modelOptions, ref, stamps, str, text } from "./columns";
-import { UNIT_SYSTEMS, type UnitSystem } from "./enums";
+import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
 import type { SpecLimit } from "./spec-limit";
 
 /** A shop's spec sheet for one engine kind and build ('street', 'endurance', 'marine', ...). */

@@ -6,7 +6,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { bigId, datetime, enumOf, modelOptions, ref, str } from "./columns";
-import { SYNC_ENTITIES, type SyncEntity } from "./enums";
+import { SYNC_ENTITIES, type SyncEntity } from "@/lib/schemas/enums";
 
 /** One entry of the change feed; `id` is the cursor of GET /api/sync?since=CURSOR. */
 export class SyncChange extends Model<InferAttributes<SyncChange>, InferCreationAttributes<SyncChange>> {

@@ -7,7 +7,7 @@ import {
   type Sequelize,
 } from "sequelize";
 import { bool, datetime, enumOf, int, intId, modelOptions, ref, stamps, str } from "./columns";
-import { ROLES, type Role } from "./enums";
+import { ROLES, type Role } from "@/lib/schemas/enums";
 import type { Shop } from "./shop";
 
 /** A person who signs in. E-mail is unique per shop (case-insensitive by collation). */

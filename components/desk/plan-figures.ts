@@ -12,12 +12,13 @@ import {
   valveLift,
   type CompressionHeightResult,
   type CompressionRatioResult,
+  type LengthUnit,
 } from "@/lib/domain";
 import { pistonCcOf, type BuildPlan } from "@/lib/schemas/build-plan";
 
 export type Figure<T> = { ok: true; value: T } | { ok: false; why: string };
 
-type PlanValues = Partial<Omit<BuildPlan, "format" | "version" | "volumeUnit">> & { lengthUnit: "in" | "mm" };
+type PlanValues = Partial<Omit<BuildPlan, "format" | "version" | "volumeUnit">> & { lengthUnit: LengthUnit };
 
 const WORDS: Record<string, string> = {
   bore: "the bore",

@@ -1,5 +1,6 @@
 import type { ReactNode } from "react";
 import { Notice } from "@/components/ui/notice";
+import type { LengthUnit } from "@/lib/domain";
 import type { Figure, PlanFigures } from "./plan-figures";
 
 // The build plan's figures as the lead reads them. Rounding is for reading only (the figures
@@ -7,9 +8,9 @@ import type { Figure, PlanFigures } from "./plan-figures";
 export const PLAN_DIGITS = { in: 4, mm: 3, liftIn: 3, liftMm: 2 } as const;
 
 const fmt = (x: number, digits: number) => x.toFixed(digits);
-export const lengthText = (x: number, unit: "in" | "mm") =>
+export const lengthText = (x: number, unit: LengthUnit) =>
   `${fmt(x, unit === "in" ? PLAN_DIGITS.in : PLAN_DIGITS.mm)} ${unit}`;
-export const liftText = (x: number, unit: "in" | "mm") =>
+export const liftText = (x: number, unit: LengthUnit) =>
   `${fmt(x, unit === "in" ? PLAN_DIGITS.liftIn : PLAN_DIGITS.liftMm)} ${unit}`;
 
 function Item<T>({
@@ -57,7 +58,7 @@ function FitVerdict({
 }: {
   f: PlanFigures;
   gasketThickness?: number | null;
-  unit: "in" | "mm";
+  unit: LengthUnit;
 }) {
   if (!f.zeroDeck.ok) return <span className="text-sm text-muted">{f.zeroDeck.why}</span>;
   // Above the deck by at least the gasket's thickness, the crown reaches the head face.
@@ -91,7 +92,7 @@ function FitVerdict({
 
 type Inputs = { gasketThickness?: number | null; chamberCc?: number | null; pistonCc: number };
 
-export function PlanResults({ f, unit, inputs }: { f: PlanFigures; unit: "in" | "mm"; inputs: Inputs }) {
+export function PlanResults({ f, unit, inputs }: { f: PlanFigures; unit: LengthUnit; inputs: Inputs }) {
   return (
     <section
       aria-labelledby="plan-figures"

@@ -1,5 +1,5 @@
 import { DISPOSITION_WORDS, REASON_WORDS, STATE_WORDS } from "@/lib/schemas/flag";
-import type { Disposition, FlagReason, FlagState } from "@/models/enums";
+import type { Disposition, FlagReason, FlagState } from "@/lib/schemas/enums";
 
 // Reason and decision tags: words first, a small outline shape second, never colour alone.
 function ReasonShape({ reason }: { reason: FlagReason }) {

@@ -1,4 +1,5 @@
 import { VerdictBadge } from "@/components/ui/verdict-badge";
+import { VERDICTS } from "@/lib/domain";
 import type { ReadingCounts } from "@/lib/schemas/release";
 
 // The current readings by verdict, plus what is not judged and how much history sits behind them.
@@ -15,7 +16,7 @@ export function ReadingsSummary({ counts }: { counts: ReadingCounts }) {
       </h2>
       <p className="text-sm text-muted">{counts.current} current readings</p>
       <ul className="mt-3 flex flex-wrap gap-3">
-        {(["in_spec", "marginal", "out_of_spec"] as const).map((v) => (
+        {VERDICTS.map((v) => (
           <li key={v} className="flex items-center gap-2" data-count={v}>
             <VerdictBadge verdict={v} />
             <span className="tabular text-lg font-semibold">{counts[v]}</span>

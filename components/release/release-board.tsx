@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { StatusTag } from "@/components/admin/status-tag";
 import { JobStatusTag } from "@/components/job-status";
-import type { JobStatus } from "@/lib/server/jobs/repo";
+import type { JobStatus } from "@/lib/domain";
 import { Empty, LoadFailed, Loading } from "./query-states";
 import { useReleaseJobs } from "./release-queries";
 

@@ -2,7 +2,7 @@
 
 import { JobStatusTag } from "@/components/job-status";
 import { Notice } from "@/components/ui/notice";
-import type { JobStatus } from "@/lib/server/jobs/repo";
+import type { JobStatus } from "@/lib/domain";
 import { ChecklistPanel } from "./checklist-panel";
 import { FlagsList } from "./flags-list";
 import { LoadFailed, Loading } from "./query-states";

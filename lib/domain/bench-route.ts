@@ -17,7 +17,8 @@ import {
 } from "./stations";
 import { usualGaugeKind } from "./gauges";
 import { EXPANSION_COEFFICIENTS } from "./thermal";
-import type { BenchRoute, EngineShape, LengthUnit, RouteSection, SectionId, Station, TorqueUnit } from "./types";
+import type { LengthUnit, TorqueUnit } from "./enums";
+import type { BenchRoute, EngineShape, RouteSection, SectionId, Station } from "./types";
 
 export const SECTION_ORDER: readonly SectionId[] = [
   "bore",

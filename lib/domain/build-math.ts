@@ -2,7 +2,7 @@
 // and spring rate. Volumes follow Heywood, Internal Combustion Engine Fundamentals (1988), §2.2:
 // swept volume π/4·B²·L per cylinder, compression ratio (Vd + Vc)/Vc.
 import { requireFinite, requirePositive } from "./checks";
-import type { LengthUnit } from "./types";
+import type { LengthUnit } from "./enums";
 import { cleanDecimal, decimalDifference, decimalSum } from "./units";
 
 function cylinderVolume(diameter: number, height: number): number {

@@ -26,6 +26,7 @@ import {
   describeStation,
   parseStationId,
 } from "./stations";
+import type { LengthUnit, MeasureUnit } from "./enums";
 import { correctTo20C, EXPANSION_COEFFICIENTS } from "./thermal";
 import type {
   CharacteristicId,
@@ -33,8 +34,6 @@ import type {
   DerivedValue,
   EngineShape,
   Evaluation,
-  LengthUnit,
-  MeasureUnit,
   NominalSizes,
   RawCharacteristic,
   RawReading,

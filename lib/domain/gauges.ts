@@ -8,7 +8,8 @@
 // same quantity may still be used (the machinist picks it); one that reads another quantity never.
 import { CHARACTERISTICS } from "./stations";
 import { quantityOfUnit } from "./units";
-import type { CharacteristicId, GaugeKind, MeasureUnit, QuantityKind, RawCharacteristic } from "./types";
+import type { MeasureUnit } from "./enums";
+import type { CharacteristicId, GaugeKind, QuantityKind, RawCharacteristic } from "./types";
 
 /** Every gauge kind a spec sheet may name, with the words shown for it. */
 export const GAUGE_KIND_WORDS: Readonly<Record<GaugeKind, string>> = {

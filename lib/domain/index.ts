@@ -8,6 +8,7 @@ export * from "./build-math";
 export * from "./thermal";
 export * from "./uncertainty";
 export * from "./iso286";
+export * from "./enums";
 export * from "./types";
 export * from "./verdict";
 export * from "./limits";

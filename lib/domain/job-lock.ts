@@ -7,9 +7,10 @@
 //   (reopening clears lockedAt and the status together);
 // - any status that is not an open one: a status this code does not know takes no readings,
 //   so a new status fails safe.
+import type { JobStatus } from "./enums";
 
 /** The statuses in which a job takes readings (the bench lists only these). */
-export const OPEN_JOB_STATUSES = ["intake", "measuring", "review"] as const;
+export const OPEN_JOB_STATUSES = ["intake", "measuring", "review"] as const satisfies readonly JobStatus[];
 export type OpenJobStatus = (typeof OPEN_JOB_STATUSES)[number];
 
 export type JobLockReason = "closed" | "released" | "locked" | "status";

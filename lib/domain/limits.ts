@@ -10,7 +10,8 @@
 // When several limits of one characteristic match a station, the most specific wins: most
 // literal (non-"*") segments, then most segments, then the one listed first on the spec.
 import { iso286Limits } from "./iso286";
-import type { CharacteristicId, Evaluation, LengthUnit, MeasureUnit, ResolvedLimit, SpecLimit } from "./types";
+import type { LengthUnit, MeasureUnit } from "./enums";
+import type { CharacteristicId, Evaluation, ResolvedLimit, SpecLimit } from "./types";
 import { cleanDecimal, convertLength, convertMeasure } from "./units";
 import { deviationFromNominal, verdict } from "./verdict";
 

@@ -4,7 +4,8 @@
 // single-cylinder engines to large truck, tractor and industrial diesels. Common practice, from
 // memory; they are deliberately wide.
 import { CHARACTERISTICS, parseStationId } from "./stations";
-import type { EngineShape, MeasureUnit, RawCharacteristic } from "./types";
+import type { MeasureUnit } from "./enums";
+import type { EngineShape, RawCharacteristic } from "./types";
 import { cleanDecimal, convertLength, convertTorque, decimalDifference } from "./units";
 
 type Range = { min: number; max: number };

@@ -2,20 +2,13 @@
 // store and send these shapes, so every one is plain JSON data: strings, numbers, booleans,
 // arrays and plain objects only (no Date, no class instances, no functions, no Map).
 // Optional fields are simply left out when unknown; nothing relies on `undefined` surviving JSON.
+import type { EngineLayout, LengthUnit, LimitType, MeasureUnit, Verdict } from "./enums";
 import type { ExpansionMaterial } from "./thermal";
 
-export type LengthUnit = "in" | "mm";
-export type TorqueUnit = "lbf_ft" | "nm";
-/** Any unit a reading or a limit can be written in. */
-export type MeasureUnit = LengthUnit | TorqueUnit;
 /** What kind of quantity a characteristic is; decides which units are allowed. */
 export type QuantityKind = "length" | "torque";
 /** A job's unit system: inch jobs use in and lbf·ft, metric jobs use mm and N·m. */
 export type UnitSystem = "inch" | "metric";
-
-export type Verdict = "in_spec" | "marginal" | "out_of_spec";
-
-export type LimitType = "min_max" | "nominal_tol" | "max_only" | "min_only" | "per_inch" | "iso286";
 
 /** Every characteristic the core knows. Raw ones are entered at the bench; derived ones are computed. */
 export type RawCharacteristic =
@@ -171,7 +164,7 @@ export type PartMaterials = Partial<Record<EnginePart, ExpansionMaterial>>;
 
 export interface EngineShape {
   cylinders: number;
-  layout: "inline" | "v" | "flat";
+  layout: EngineLayout;
   mains: number;
   valvesPerCylinder: number;
   /** Default 2. */

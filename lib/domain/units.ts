@@ -2,9 +2,9 @@
 // (NIST SP 811, Appendix B: 1 in = 25.4 mm, 1 ft = 0.3048 m, 1 lb = 0.45359237 kg,
 // standard gravity g = 9.80665 m/s²), so nothing here is a rounded "shop" factor.
 import Decimal from "decimal.js-light";
-// The unit names live with the shared types (types.ts); re-declaring them here would make
-// index.ts export the same name twice.
-import type { LengthUnit, QuantityKind, TorqueUnit } from "./types";
+// The unit names live once, in enums.ts.
+import type { LengthUnit, TorqueUnit } from "./enums";
+import type { QuantityKind } from "./types";
 
 /** Millimetres in one inch (exact, international inch of 1959). */
 export const MM_PER_IN = 25.4;

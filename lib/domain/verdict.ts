@@ -11,7 +11,8 @@
 // 0.0010000000000003 as a double). Every input is first rounded to 12 significant digits (far
 // finer than any gauge, far coarser than float noise) and compared as exact decimals (decimal.js-light).
 import Decimal from "decimal.js-light";
-import type { MeasureUnit, ResolvedLimit, Verdict } from "./types";
+import type { MeasureUnit, Verdict } from "./enums";
+import type { ResolvedLimit } from "./types";
 
 const D = Decimal.clone({ precision: 40 });
 type Dec = InstanceType<typeof D>;

@@ -4,7 +4,8 @@
 // offline, and small facts (device id, sync cursor, sync status, who is signed in).
 // Rule: nothing is deleted before the server acknowledged it; readings are never deleted at all.
 import Dexie, { type EntityTable } from "dexie";
-import type { Lubricant, MeasureUnit, Verdict } from "@/lib/domain";
+import type { EntryMode, Lubricant, MeasureUnit, Verdict } from "@/lib/domain";
+import type { AttachmentOwnerType } from "@/lib/schemas/enums";
 import type { FieldErrors, JobPack, RejectCode } from "@/lib/schemas/sync";
 
 export type SyncState = "pending" | "synced" | "rejected";
@@ -17,7 +18,7 @@ export interface LocalReading {
   /** In `unit`, as entered (dial mode: the computed diameter); null when skipped. */
   value: number | null;
   unit: MeasureUnit;
-  entryMode: "direct" | "dial";
+  entryMode: EntryMode;
   dialSetting?: number;
   dialDeviation?: number;
   instrumentId?: number;
@@ -69,7 +70,8 @@ export type PhotoState = "pending" | "uploaded" | "rejected";
 export interface PhotoRow {
   id: string;
   jobId: number;
-  ownerType: "job" | "reading";
+  /** The tablet photographs jobs and readings; gauge photos come from the admin screen. */
+  ownerType: Exclude<AttachmentOwnerType, "instrument">;
   ownerId: string;
   /** Cleared once the server holds the file, to give the tablet its space back. */
   blob: Blob | null;

@@ -1,4 +1,5 @@
 // Small facts kept beside the data, each under one key of the meta table.
+import type { Role } from "@/lib/schemas/enums";
 import type { BenchDb } from "./db";
 import { uuidv4 } from "./ids";
 
@@ -8,7 +9,7 @@ export interface DeviceActor {
   shopId: number;
   name: string;
   email: string;
-  role: "machinist" | "lead" | "inspector" | "admin";
+  role: Role;
 }
 
 /** What the sync badge shows; written by the sync engine after every run. */

@@ -9,7 +9,7 @@ export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 
 export interface PhotoOwner {
   jobId: number;
-  ownerType: "job" | "reading";
+  ownerType: PhotoRow["ownerType"];
   ownerId: string;
 }
 

@@ -1,7 +1,7 @@
 // Writing readings on the tablet. Each write puts the reading and its outbox row in ONE
 // transaction (add-together.ts), so a reading is never saved without being queued, nor queued
 // without being saved.
-import type { Lubricant, MeasureUnit } from "@/lib/domain";
+import type { EntryMode, Lubricant, MeasureUnit } from "@/lib/domain";
 import { addTogether } from "./add-together";
 import type { BenchDb, LocalReading, OutboxRow } from "./db";
 import { uuidv4 } from "./ids";
@@ -11,7 +11,7 @@ export interface NewReading {
   stationId: string;
   value: number | null;
   unit: MeasureUnit;
-  entryMode?: "direct" | "dial";
+  entryMode?: EntryMode;
   dialSetting?: number;
   dialDeviation?: number;
   instrumentId?: number;

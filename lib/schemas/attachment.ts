@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ATTACHMENT_OWNER_TYPES } from "@/models/enums";
+import { ATTACHMENT_OWNER_TYPES } from "@/lib/schemas/enums";
 
 // The text fields of an upload (multipart/form-data, next to the `file` part). The clientId is
 // the device's own UUID for this file, so a photo taken offline can be sent again safely.

@@ -4,7 +4,7 @@
 // ratio as a plain ratio. Every figure may be left empty while the plan is being worked out;
 // the page computes what the figures present allow.
 import { z } from "zod";
-import { UNIT_SYSTEMS } from "@/models/enums";
+import { UNIT_SYSTEMS } from "@/lib/schemas/enums";
 
 export const PISTON_TOPS = ["flat", "dish", "dome"] as const;
 

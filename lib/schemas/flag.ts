@@ -1,12 +1,6 @@
 import { z } from "zod";
-import {
-  FLAG_REASONS,
-  VERDICTS,
-  type Disposition,
-  type FlagReason,
-  type FlagState,
-  type Verdict,
-} from "@/models/enums";
+import { VERDICTS, type Verdict } from "@/lib/domain";
+import { FLAG_REASONS, type Disposition, type FlagReason, type FlagState } from "@/lib/schemas/enums";
 
 // The lead's decisions about a flag, and the flag queue's query: one schema for the disposition
 // form and POST /api/flags/[flagId]/disposition, one for the queue's URL and GET /api/flags.

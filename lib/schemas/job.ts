@@ -2,11 +2,11 @@
 // in, the unit system, the template whose limits the job copies, due date and status. The
 // form (react-hook-form) and POST/PATCH /api/jobs check with these same schemas.
 import { z } from "zod";
-import { EXPANSION_COEFFICIENTS, checkEngineShape } from "@/lib/domain";
-import { ENGINE_LAYOUTS, FUELS, UNIT_SYSTEMS } from "@/models/enums";
+import { ENGINE_LAYOUTS, EXPANSION_COEFFICIENTS, OPEN_JOB_STATUSES, checkEngineShape } from "@/lib/domain";
+import { FUELS, UNIT_SYSTEMS } from "@/lib/schemas/enums";
 
-/** Statuses the desk sets; released and closed belong to the release step. */
-export const DESK_STATUSES = ["intake", "measuring", "review"] as const;
+/** Statuses the desk sets: the open ones; released and closed belong to the release step. */
+export const DESK_STATUSES = OPEN_JOB_STATUSES;
 export const MATERIALS = Object.keys(EXPANSION_COEFFICIENTS) as [
   keyof typeof EXPANSION_COEFFICIENTS,
   ...(keyof typeof EXPANSION_COEFFICIENTS)[],

@@ -12,6 +12,7 @@
 // GET  /api/release/verify?hash=…&job=… (public)          → PublicVerification (status, job code, date only)
 import { z } from "zod";
 import type { Verdict } from "@/lib/domain";
+import type { Disposition, FlagReason, FlagState } from "./enums";
 
 export const signSchema = z.object({
   fullName: z
@@ -83,9 +84,9 @@ export type FlagSummary = {
   station: string;
   what: string;
   verdict: Verdict;
-  reason: "out_of_spec" | "marginal" | "gauge_past_due";
-  state: "open" | "disposed" | "closed";
-  disposition: "measure_again" | "machine_again" | "accept" | null;
+  reason: FlagReason;
+  state: FlagState;
+  disposition: Disposition | null;
   operation: string | null;
   dispositionReason: string | null;
   disposedByName: string | null;

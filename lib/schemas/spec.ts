@@ -32,12 +32,18 @@
 //   iso286       isoClass (H5–H9, f g h js k m n p 5–9); nominal optional (else the engine's size)
 // Unknown fields are refused, so a typo never silently drops a limit.
 import { z } from "zod";
-import { CHARACTERISTICS, GAUGE_KINDS, iso286Deviations, type CharacteristicId } from "@/lib/domain";
-import { LIMIT_TYPES, UNIT_SYSTEMS } from "@/models/enums";
+import {
+  CHARACTERISTICS,
+  GAUGE_KINDS,
+  LIMIT_TYPES,
+  MEASURE_UNITS,
+  iso286Deviations,
+  type CharacteristicId,
+} from "@/lib/domain";
+import { UNIT_SYSTEMS } from "@/lib/schemas/enums";
 import { stationPatternProblem } from "./spec-pattern";
 
 export const CHARACTERISTIC_IDS = Object.keys(CHARACTERISTICS) as [CharacteristicId, ...CharacteristicId[]];
-export const MEASURE_UNITS = ["in", "mm", "lbf_ft", "nm"] as const;
 export const BUILD_KINDS = ["street", "endurance", "marine", "diesel", "drag", "vintage", "industrial"] as const;
 export const SPEC_FILE_FORMAT = "tenthwise.spec-template";
 

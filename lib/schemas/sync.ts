@@ -45,13 +45,13 @@
 // GET /api/bench/jobs  (machinist, lead) → { jobs: BenchJobSummary[] } open jobs (intake, measuring, review)
 // GET /api/bench/jobs/:jobId  (machinist, lead) → JobPack, everything the tablet stores to work offline.
 import { z } from "zod";
-import { LUBRICANT_LABELS, parseStationId } from "@/lib/domain";
-import type { BenchRoute, EngineShape, Lubricant, SpecLimit, Verdict } from "@/lib/domain";
+import { ENTRY_MODES, LUBRICANT_LABELS, MEASURE_UNITS, parseStationId } from "@/lib/domain";
+import type { BenchRoute, EngineShape, EntryMode, JobStatus, Lubricant, SpecLimit, Verdict } from "@/lib/domain";
+import type { Disposition, FlagReason, FlagState, UnitSystem } from "./enums";
 
 export const MAX_BATCH = 500;
 /** Feed rows younger than this are re-sent on the next pull (see the cursor above). */
 export const SETTLE_MS = 15_000;
-export const UNITS = ["in", "mm", "lbf_ft", "nm"] as const;
 export const LUBRICANTS = Object.keys(LUBRICANT_LABELS) as [Lubricant, ...Lubricant[]];
 
 const temperature = (what: string) =>
@@ -87,8 +87,8 @@ export const pushReadingSchema = z
       .positive("Job id must be a whole number"),
     stationId,
     value: z.number("Enter the value as a number").finite("Enter the value as a number").nullable().optional(),
-    unit: z.enum(UNITS, "Unit must be in, mm, lbf_ft or nm"),
-    entryMode: z.enum(["direct", "dial"], "Entry mode must be direct or dial").default("direct"),
+    unit: z.enum(MEASURE_UNITS, "Unit must be in, mm, lbf_ft or nm"),
+    entryMode: z.enum(ENTRY_MODES, "Entry mode must be direct or dial").default("direct"),
     dialSetting: z.number("Dial setting must be a number").positive("The setting size must be above zero").optional(),
     dialDeviation: z.number("Dial reading must be a number").finite().optional(),
     instrumentId: z.number("Gauge id must be a number").int().positive().optional(),
@@ -175,7 +175,7 @@ export type ServerReading = {
   unit: string;
   /** mm for lengths, N·m for torque. */
   valueCanonical: number | null;
-  entryMode: "direct" | "dial";
+  entryMode: EntryMode;
   dialSetting: number | null;
   dialDeviation: number | null;
   instrumentId: number | null;
@@ -209,9 +209,9 @@ export type BenchFlag = {
   limitMax: number | null;
   deviation: number | null;
   verdict: Verdict;
-  reason: "out_of_spec" | "marginal" | "gauge_past_due";
-  state: "open" | "disposed" | "closed";
-  disposition: "measure_again" | "machine_again" | "accept" | null;
+  reason: FlagReason;
+  state: FlagState;
+  disposition: Disposition | null;
   operation: string | null;
   dispositionReason: string | null;
   disposedAt: string | null;
@@ -227,8 +227,8 @@ export type BenchJobHeader = {
   id: number;
   code: string;
   title: string;
-  status: "intake" | "measuring" | "review" | "released" | "closed";
-  unitSystem: "in" | "mm";
+  status: JobStatus;
+  unitSystem: UnitSystem;
   locked: boolean;
   lockedAt: string | null;
   /** Why readings are refused, in words; null when open. */

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ROLES } from "@/models/enums";
+import { ROLES } from "@/lib/schemas/enums";
 
 // One schema per entity, shared by the admin's forms and the route handlers.
 const role = z.enum(ROLES, { error: "Choose a role: machinist, lead, inspector or admin" });

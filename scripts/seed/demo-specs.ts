@@ -1,10 +1,12 @@
 // DEMO DATA ONLY. Invented spec sheets for the invented demo shop. The figures are plausible
 // shop values chosen for the demo, not published limits; real limits come from the engine,
 // piston, bearing and fastener makers' instructions.
+import type { LimitType } from "@/lib/domain";
+
 type Limit = {
   characteristic: string;
   stationPattern: string;
-  limitType: "min_max" | "nominal_tol" | "max_only" | "min_only" | "per_inch" | "iso286";
+  limitType: LimitType;
   unit: string;
   min?: number;
   max?: number;

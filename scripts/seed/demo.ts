@@ -2,6 +2,7 @@
 // and figure here is made up for the demo.
 import bcrypt from "bcryptjs";
 import { readFileSync } from "node:fs";
+import type { Role, UnitSystem } from "@/lib/schemas/enums";
 import { getSequelize } from "@/lib/server/core/db";
 import { Customer, Engine, Instrument, Job, JobLimit, Shop, SpecLimit, SpecTemplate, User } from "@/models";
 import { seedDemoReadings } from "./demo-readings";
@@ -10,7 +11,7 @@ import { STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-spec
 type Demo = {
   shop: string;
   password: string;
-  accounts: { role: "machinist" | "lead" | "inspector" | "admin"; name: string; email: string }[];
+  accounts: { role: Role; name: string; email: string }[];
 };
 
 export type DemoContext = {
@@ -25,7 +26,7 @@ async function template(
   name: string,
   engineKind: string,
   buildKind: string,
-  unitSystem: "in" | "mm",
+  unitSystem: UnitSystem,
   limits: typeof STREET_V8_INCH,
 ) {
   const t = await SpecTemplate.create({
@@ -46,7 +47,7 @@ async function job(
   engineId: number,
   t: SpecTemplate,
   limits: typeof STREET_V8_INCH,
-  fields: { code: string; title: string; unitSystem: "in" | "mm"; dueDate: string; notes: string },
+  fields: { code: string; title: string; unitSystem: UnitSystem; dueDate: string; notes: string },
 ) {
   const j = await Job.create({ shopId, customerId, engineId, templateId: t.id, status: "measuring", ...fields });
   await JobLimit.bulkCreate(limits.map((l, i) => ({ ...l, jobId: j.id, sortOrder: i })) as never[]);

@@ -5,11 +5,11 @@ import { GET as LIST, POST } from "@/app/api/specs/route";
 import { GET as ONE, PATCH, PUT } from "@/app/api/specs/[templateId]/route";
 import { GET as EXPORT } from "@/app/api/specs/[templateId]/export/route";
 import { POST as IMPORT } from "@/app/api/specs/import/route";
+import { ROLES } from "@/lib/schemas/enums";
 import { AuditEvent, JobLimit, SpecLimit } from "@/models";
 import { createShop, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call } from "../support/requests";
 
-const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
 const EDITORS = new Set(["lead", "admin"]);
 let a: TestShop;
 let b: TestShop;

@@ -5,7 +5,7 @@ import bcrypt from "bcryptjs";
 import { randomUUID } from "node:crypto";
 import { getSequelize } from "@/lib/server/core/db";
 import { Customer, Engine, Instrument, Job, JobLimit, Shop, SpecLimit, SpecTemplate, User } from "@/models";
-import type { Role } from "@/lib/server/core/session";
+import type { Role } from "@/lib/schemas/enums";
 
 export const TEST_PASSWORD = "test-pass-1234";
 const HASH = bcrypt.hashSync(TEST_PASSWORD, 4);

@@ -9,7 +9,8 @@ import { buildSnapshot, gaugeRecord } from "@/lib/server/release/hash-snapshot";
 import { loadJobRecord } from "@/lib/server/release/repo";
 import { deliverPendingMail } from "@/lib/server/mail/outbox-worker";
 import { putObject } from "@/lib/server/uploads/storage";
-import { Attachment, Flag, FlagDisposition, Job, MailOutbox, Reading, Release, type JsonValue } from "@/models";
+import { Attachment, Flag, FlagDisposition, Job, MailOutbox, Reading, Release } from "@/models";
+import type { JsonValue } from "@/lib/schemas/json";
 import { createShop, type TestShop } from "./factories";
 
 type Fixture = {

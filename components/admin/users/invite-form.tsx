@@ -10,7 +10,7 @@ import { TextField } from "@/components/ui/text-field";
 import { api, ApiError } from "@/lib/client/api";
 import { ROLE_WORDS } from "@/lib/nav";
 import { inviteUserSchema, type AdminUser, type InviteUserInput, type InviteUserValues } from "@/lib/schemas/user";
-import { ROLES } from "@/models/enums";
+import { ROLES } from "@/lib/schemas/enums";
 
 export type Issued = { user: AdminUser; temporaryPassword: string };
 

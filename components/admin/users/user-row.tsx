@@ -7,7 +7,7 @@ import { Button } from "@/components/ui/button";
 import { api, ApiError } from "@/lib/client/api";
 import { ROLE_WORDS } from "@/lib/nav";
 import type { AdminUser, UpdateUserInput } from "@/lib/schemas/user";
-import { ROLES, type Role } from "@/models/enums";
+import { ROLES, type Role } from "@/lib/schemas/enums";
 import type { Issued } from "./invite-form";
 
 const when = (iso: string | null) =>

@@ -1,7 +1,8 @@
 import "server-only";
 import { redirect } from "next/navigation";
 import { AppError } from "@/lib/server/core/errors";
-import { getPageSession, sessionFromRequest, type Role, type SessionData } from "@/lib/server/core/session";
+import type { Role } from "@/lib/schemas/enums";
+import { getPageSession, sessionFromRequest, type SessionData } from "@/lib/server/core/session";
 import { findActiveUser } from "@/lib/server/users/repo";
 
 // Who is asking, checked against the database on every request so a deactivated user or a

@@ -2,7 +2,7 @@ import "server-only";
 import type { ZodType } from "zod";
 import { requireActor, type Actor } from "@/lib/server/core/access";
 import { AppError, errorResponse, invalid } from "@/lib/server/core/errors";
-import type { Role } from "@/lib/server/core/session";
+import type { Role } from "@/lib/schemas/enums";
 
 // Wrap handlers once instead of repeating try/catch.
 type RouteContext<P> = { params: Promise<P> };

@@ -2,12 +2,11 @@ import "server-only";
 import { sealData, unsealData } from "iron-session";
 import { cookies } from "next/headers";
 import { env } from "@/lib/server/core/env";
+import type { Role } from "@/lib/schemas/enums";
 
 // Session type, defaults and options in one module. The cookie is sealed with
 // iron-session; we seal/unseal ourselves so route handlers read it straight from the Request,
 // which lets tests call exported handlers without a Next request context.
-export const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
-export type Role = (typeof ROLES)[number];
 
 export type SessionData = { userId: number; shopId: number; role: Role; name: string; issuedAt: number };
 

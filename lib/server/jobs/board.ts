@@ -5,7 +5,8 @@ import { Customer, Engine, Flag, Job, JobLimit } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
 import { toEngineShape, toSpecLimit } from "@/lib/server/jobs/context";
 import { measuredStations, requiredStationIds } from "@/lib/server/jobs/readings";
-import type { JobStatus, JobSummary } from "@/lib/server/jobs/repo";
+import type { JobStatus } from "@/lib/domain";
+import type { JobSummary } from "@/lib/server/jobs/repo";
 
 // The jobs board: every job of the shop with what the lead scans for at a glance. Progress
 // counts the REQUIRED stations of the engine's bench route, as the release checklist does (a

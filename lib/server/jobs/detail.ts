@@ -4,7 +4,7 @@ import { benchRoute, deriveReadings, isJobLocked, type Verdict } from "@/lib/dom
 import { Customer, Flag, SpecTemplate } from "@/models";
 import { loadJobContext, type JobContext } from "@/lib/server/jobs/context";
 import { loadJobReadings, measuredStations, requiredStationIds, type JobReadings } from "@/lib/server/jobs/readings";
-import type { JobStatus } from "@/lib/server/jobs/repo";
+import type { JobStatus } from "@/lib/domain";
 
 // One job for its desk page: header fields, the engine as entered, and a readings summary per
 // bench section (required stations done, as the release checklist counts them; verdicts of the

@@ -1,7 +1,8 @@
 import "server-only";
 import { isJobLocked } from "@/lib/domain";
 import { buildPlanSchema, type BuildPlan } from "@/lib/schemas/build-plan";
-import { Engine, Job, type JsonObject } from "@/models";
+import { Engine, Job } from "@/models";
+import type { JsonObject } from "@/lib/schemas/json";
 import type { Actor } from "@/lib/server/core/access";
 import { recordAudit } from "@/lib/server/log/audit";
 import { getSequelize } from "@/lib/server/core/db";

@@ -2,14 +2,15 @@ import "server-only";
 import { Customer, Engine, Job } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
+import type { JobStatus } from "@/lib/domain";
+import type { UnitSystem } from "@/lib/schemas/enums";
 
-export type JobStatus = "intake" | "measuring" | "review" | "released" | "closed";
 export type JobSummary = {
   id: number;
   code: string;
   title: string;
   status: JobStatus;
-  unitSystem: "in" | "mm";
+  unitSystem: UnitSystem;
   dueDate: string | null;
   customer: string;
   engine: string;
@@ -20,8 +21,8 @@ function reshape(j: Job & { customer?: Customer; engine?: Engine }): JobSummary 
     id: j.id,
     code: j.code,
     title: j.title,
-    status: j.status as JobStatus,
-    unitSystem: j.unitSystem as "in" | "mm",
+    status: j.status,
+    unitSystem: j.unitSystem,
     dueDate: j.dueDate ?? null,
     customer: j.customer?.name ?? "",
     engine: j.engine?.description ?? "",

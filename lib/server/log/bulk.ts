@@ -1,6 +1,6 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import type { SyncEntity } from "@/models";
+import type { SyncEntity } from "@/lib/schemas/enums";
 import type { AuditInput } from "@/lib/server/log/audit";
 import { insertMany } from "@/lib/server/core/sql-insert";
 

@@ -1,6 +1,7 @@
 import "server-only";
 import { Op, QueryTypes } from "sequelize";
-import { Flag, Job, MailOutbox, Release, Shop, User, type Role } from "@/models";
+import { Flag, Job, MailOutbox, Release, Shop, User } from "@/models";
+import type { Role } from "@/lib/schemas/enums";
 import { getSequelize } from "@/lib/server/core/db";
 import { releaseMailKeySql } from "@/lib/server/mail/outbox";
 

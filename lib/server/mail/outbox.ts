@@ -1,7 +1,8 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
 import { Op, UniqueConstraintError, type Transaction } from "sequelize";
-import { Customer, Job, MailOutbox, type JsonObject } from "@/models";
+import { Customer, Job, MailOutbox } from "@/models";
+import type { JsonObject } from "@/lib/schemas/json";
 import { getSequelize } from "@/lib/server/core/db";
 import { env } from "@/lib/server/core/env";
 

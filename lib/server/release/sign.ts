@@ -2,7 +2,7 @@ import "server-only";
 import { isJobLocked } from "@/lib/domain";
 import bcrypt from "bcryptjs";
 import type { ReleaseRecord, ReopenInput, SignInput } from "@/lib/schemas/release";
-import type { JsonValue } from "@/models";
+import type { JsonValue } from "@/lib/schemas/json";
 import type { Actor } from "@/lib/server/core/access";
 import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";

@@ -1,6 +1,6 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import type { JsonValue } from "@/models";
+import type { JsonValue } from "@/lib/schemas/json";
 import { AuthThrottle, Job, Release, User } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";

@@ -1,6 +1,7 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import { SyncChange, type SyncEntity } from "@/models";
+import { SyncChange } from "@/models";
+import type { SyncEntity } from "@/lib/schemas/enums";
 
 // The change feed behind GET /api/sync?since=CURSOR: one row per changed reading, flag, job
 // limit set or job, written in the transaction of the change.

@@ -1,7 +1,8 @@
 import "server-only";
 import { isJobLocked } from "@/lib/domain";
 import type { Transaction } from "sequelize";
-import { Attachment, Instrument, Job, Reading, type AttachmentOwnerType } from "@/models";
+import { Attachment, Instrument, Job, Reading } from "@/models";
+import type { AttachmentOwnerType } from "@/lib/schemas/enums";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
 

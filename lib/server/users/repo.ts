@@ -2,7 +2,7 @@ import "server-only";
 import { Op } from "sequelize";
 import { User } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
-import type { Role } from "@/lib/server/core/session";
+import type { Role } from "@/lib/schemas/enums";
 
 export type UserRecord = { id: number; shopId: number; name: string; email: string; role: Role; active: boolean };
 

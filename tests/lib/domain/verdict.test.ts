@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { conformanceZone, deviationFromNominal, formatDeviation, verdict } from "../../../lib/domain/verdict";
-import type { Verdict } from "../../../lib/domain/types";
+import type { Verdict } from "../../../lib/domain/enums";
 
 interface GuardBandCase {
   id: string;

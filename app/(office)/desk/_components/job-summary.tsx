@@ -1,12 +1,11 @@
 import { JobsProgress } from "@/components/desk/jobs-progress";
 import { Notice } from "@/components/ui/notice";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
-import type { Verdict } from "@/lib/domain";
+import { VERDICTS, type Verdict } from "@/lib/domain";
 import type { JobDetail } from "./queries";
 
 // The readings summary of a job: per bench section, required stations done and the verdicts
 // of the current readings; then the values computed from them.
-const VERDICTS: Verdict[] = ["in_spec", "marginal", "out_of_spec"];
 
 function Count({ n, verdict }: { n: number; verdict: Verdict }) {
   // The column header carries colour, word and shape; a zero stays quiet.

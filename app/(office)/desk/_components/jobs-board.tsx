@@ -4,15 +4,14 @@ import Link from "next/link";
 import { useMemo, useState } from "react";
 import { JobsFlagCount, JobsProgress } from "@/components/desk/jobs-progress";
 import { JobStatusTag, STATUS_WORDS } from "@/components/job-status";
-import type { JobStatus } from "@/lib/server/jobs/repo";
+import { JOB_STATUSES } from "@/lib/domain";
 import { Loading, LoadFailed } from "./fields";
 import { useJobBoard, type BoardJob } from "./queries";
 
 // The lead's board: every job of the shop, filtered, searched and sorted in the browser (a
 // shop's jobs fit in one answer; the route returns them all with progress and flag counts).
 type SortKey = "due" | "code" | "customer" | "status" | "progress" | "flags";
-const STATUS_ORDER: JobStatus[] = ["intake", "measuring", "review", "released", "closed"];
-const FILTERS = [["active", "Open jobs"], ["all", "All"], ...STATUS_ORDER.map((s) => [s, STATUS_WORDS[s]])] as const;
+const FILTERS = [["active", "Open jobs"], ["all", "All"], ...JOB_STATUSES.map((s) => [s, STATUS_WORDS[s]])] as const;
 type Filter = (typeof FILTERS)[number][0];
 
 const ratio = (j: BoardJob) => (!j.progress ? -2 : j.progress.required ? j.progress.done / j.progress.required : -1);
@@ -20,7 +19,7 @@ const COMPARE: Record<SortKey, (a: BoardJob, b: BoardJob) => number> = {
   due: (a, b) => (a.dueDate ?? "9999").localeCompare(b.dueDate ?? "9999"),
   code: (a, b) => a.code.localeCompare(b.code, undefined, { numeric: true }),
   customer: (a, b) => a.customer.localeCompare(b.customer),
-  status: (a, b) => STATUS_ORDER.indexOf(a.status) - STATUS_ORDER.indexOf(b.status),
+  status: (a, b) => JOB_STATUSES.indexOf(a.status) - JOB_STATUSES.indexOf(b.status),
   progress: (a, b) => ratio(a) - ratio(b),
   flags: (a, b) => a.flags.open - b.flags.open || a.flags.disposed - b.flags.disposed,
 };

@@ -5,20 +5,21 @@ import { Field, NumberField, SelectField, CheckField, asNumber, messageOf } from
 import {
   CHARACTERISTICS,
   GAUGE_KIND_WORDS,
+  LIMIT_TYPES,
   GAUGE_KINDS,
   SECTION_LABELS,
   usualGaugeKind,
   type CharacteristicId,
+  type LengthUnit,
   type SectionId,
 } from "@/lib/domain";
 import { STATION_FORMS } from "@/lib/schemas/spec-pattern";
 import { LIMIT_FIELDS, LIMIT_TYPE_WORDS, type LimitInput } from "@/lib/schemas/spec";
-import { LIMIT_TYPES } from "@/models/enums";
 import { SpecLimitPreview } from "./spec-limit-preview";
 
 // One limit of a spec sheet (a template's or a job's own), edited in place. The value fields
 // shown follow the limit type; a value typed for another type stays in the form until saved.
-type Values = { limits: LimitInput[]; unitSystem?: "in" | "mm" };
+type Values = { limits: LimitInput[]; unitSystem?: LengthUnit };
 
 const FIELD_WORDS: Record<string, string> = {
   min: "Minimum",
@@ -65,7 +66,7 @@ export function SpecLimitRow({
   count: number;
   onMove: (from: number, to: number) => void;
   onRemove: (i: number) => void;
-  defaultLengthUnit: "in" | "mm";
+  defaultLengthUnit: LengthUnit;
 }) {
   const {
     register,

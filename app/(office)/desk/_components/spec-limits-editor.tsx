@@ -3,6 +3,7 @@
 import { useFieldArray, useFormContext } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import type { LengthUnit } from "@/lib/domain";
 import { PATTERN_RULE } from "@/lib/schemas/spec-pattern";
 import type { LimitInput } from "@/lib/schemas/spec";
 import { SpecLimitRow } from "./spec-limit-row";
@@ -11,7 +12,7 @@ import { SpecLimitRow } from "./spec-limit-row";
 // the last tie-break between two equally specific patterns, so it is kept as entered.
 type Values = { limits: LimitInput[] };
 
-export const blankLimit = (unit: "in" | "mm"): LimitInput => ({
+export const blankLimit = (unit: LengthUnit): LimitInput => ({
   characteristic: "" as LimitInput["characteristic"],
   stationPattern: "*",
   limitType: "min_max",
@@ -29,7 +30,7 @@ export const blankLimit = (unit: "in" | "mm"): LimitInput => ({
   label: null,
 });
 
-export function SpecLimitsEditor({ lengthUnit }: { lengthUnit: "in" | "mm" }) {
+export function SpecLimitsEditor({ lengthUnit }: { lengthUnit: LengthUnit }) {
   const {
     control,
     formState: { errors },

@@ -1,0 +1,35 @@
+// The value sets of the ENUM columns and request fields that the measurement core does not need,
+// each declared once as a const array with its union derived from it; the core's own sets
+// (units, verdicts, limit types, layouts, entry modes, job statuses) live in lib/domain/enums.ts.
+// No imports beyond the core, so forms, screens, the tablet and the models share them without
+// pulling in Sequelize. The migrations spell the same lists out literally, because a migration
+// must keep creating what it created when it shipped.
+import { LENGTH_UNITS } from "@/lib/domain";
+
+/** A shop's or a job's unit system, named by its length unit (torque follows: lbf·ft or N·m). */
+export const UNIT_SYSTEMS = LENGTH_UNITS;
+export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
+
+export const GUARD_BAND_POLICIES = ["shrink_by_u", "none"] as const;
+export type GuardBandPolicy = (typeof GUARD_BAND_POLICIES)[number];
+
+export const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const FUELS = ["gasoline", "diesel", "other"] as const;
+export type Fuel = (typeof FUELS)[number];
+
+export const FLAG_REASONS = ["out_of_spec", "marginal", "gauge_past_due"] as const;
+export type FlagReason = (typeof FLAG_REASONS)[number];
+
+export const FLAG_STATES = ["open", "disposed", "closed"] as const;
+export type FlagState = (typeof FLAG_STATES)[number];
+
+export const DISPOSITIONS = ["measure_again", "machine_again", "accept"] as const;
+export type Disposition = (typeof DISPOSITIONS)[number];
+
+export const ATTACHMENT_OWNER_TYPES = ["job", "reading", "instrument"] as const;
+export type AttachmentOwnerType = (typeof ATTACHMENT_OWNER_TYPES)[number];
+
+export const SYNC_ENTITIES = ["reading", "flag", "job_limits", "job"] as const;
+export type SyncEntity = (typeof SYNC_ENTITIES)[number];
