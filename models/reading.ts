@@ -4,20 +4,27 @@ import {
   type CreationOptional,
   type InferAttributes,
   type InferCreationAttributes,
+  type ModelAttributeColumnOptions,
   type NonAttribute,
   type Sequelize,
 } from "sequelize";
 import { bool, datetime, decimal, enumOf, modelOptions, ref, stamps, str, uuidId } from "./columns";
 import { ENTRY_MODES, VERDICTS, type EntryMode, type Verdict } from "@/lib/domain";
+import { READING_COLUMNS, READING_FIELDS, type ReadingField, type StoredReading } from "@/lib/schemas/readings";
 import type { Instrument } from "./instrument";
 import type { Job } from "./job";
 import type { User } from "./user";
 
 /**
  * One bench reading. The id is the tablet's UUID (no default), so a resent batch is an upsert.
- * Corrections are new readings that point at the old one through `supersedes`.
+ * Corrections are new readings that point at the old one through `supersedes`. The fields are
+ * StoredReading's (lib/schemas/readings.ts), which the raw SQL of the sync path shares; `implements`
+ * keeps the two in step.
  */
-export class Reading extends Model<InferAttributes<Reading>, InferCreationAttributes<Reading>> {
+export class Reading
+  extends Model<InferAttributes<Reading>, InferCreationAttributes<Reading>>
+  implements StoredReading
+{
   declare id: string;
   declare shopId: number;
   declare jobId: number;
@@ -25,10 +32,11 @@ export class Reading extends Model<InferAttributes<Reading>, InferCreationAttrib
   declare characteristic: string;
   /** mm for lengths, N·m for torque; null only when skipped. */
   declare valueCanonical: CreationOptional<number | null>;
-  declare valueEntered: CreationOptional<number | null>;
-  declare unitEntered: string;
+  /** The figure as entered, in `unit`. */
+  declare value: CreationOptional<number | null>;
+  declare unit: string;
   declare entryMode: CreationOptional<EntryMode>;
-  /** Dial mode: the size the gauge was zeroed on, and the dial's reading, in unitEntered. */
+  /** Dial mode: the size the gauge was zeroed on, and the dial's reading, in `unit`. */
   declare dialSetting: CreationOptional<number | null>;
   declare dialDeviation: CreationOptional<number | null>;
   declare instrumentId: CreationOptional<number | null>;
@@ -50,7 +58,7 @@ export class Reading extends Model<InferAttributes<Reading>, InferCreationAttrib
   declare verdict: CreationOptional<Verdict | null>;
   /** e.g. 'gauge_past_due'. */
   declare verdictNote: CreationOptional<string | null>;
-  /** The limits as evaluated, and the deviation from nominal, in unitEntered. */
+  /** The limits as evaluated, and the deviation from nominal, in `unit`. */
   declare limitMin: CreationOptional<number | null>;
   declare limitMax: CreationOptional<number | null>;
   declare deviation: CreationOptional<number | null>;
@@ -65,38 +73,39 @@ export class Reading extends Model<InferAttributes<Reading>, InferCreationAttrib
 }
 
 export function initReading(sequelize: Sequelize): void {
-  Reading.init(
-    {
-      id: uuidId(),
-      shopId: ref(),
-      jobId: ref(),
-      stationId: str(64),
-      characteristic: str(48),
-      valueCanonical: decimal("valueCanonical", 14, 6),
-      valueEntered: decimal("valueEntered", 14, 6),
-      unitEntered: str(8),
-      entryMode: enumOf(ENTRY_MODES, false, "direct"),
-      dialSetting: decimal("dialSetting", 14, 6),
-      dialDeviation: decimal("dialDeviation", 14, 6),
-      instrumentId: ref(true),
-      partTempC: { ...decimal("partTempC", 6, 2), field: "part_temp_c" },
-      gaugeTempC: { ...decimal("gaugeTempC", 6, 2), field: "gauge_temp_c" },
-      lubricant: str(64, true),
-      skipped: bool(false),
-      skipReason: str(255, true),
-      note: str(500, true),
-      takenBy: ref(),
-      takenAt: datetime(false),
-      receivedAt: datetime(false, true),
-      deviceId: str(64),
-      supersedes: ref(true, DataTypes.CHAR(36)),
-      verdict: enumOf(VERDICTS, true),
-      verdictNote: str(64, true),
-      limitMin: decimal("limitMin", 14, 6),
-      limitMax: decimal("limitMax", 14, 6),
-      deviation: decimal("deviation", 14, 6),
-      ...stamps(),
-    },
-    modelOptions(sequelize, "readings", "both"),
-  );
+  const attributes: Record<ReadingField, ModelAttributeColumnOptions> = {
+    id: uuidId(),
+    shopId: ref(),
+    jobId: ref(),
+    stationId: str(64),
+    characteristic: str(48),
+    valueCanonical: decimal("valueCanonical", 14, 6),
+    value: decimal("value", 14, 6),
+    unit: str(8),
+    entryMode: enumOf(ENTRY_MODES, false, "direct"),
+    dialSetting: decimal("dialSetting", 14, 6),
+    dialDeviation: decimal("dialDeviation", 14, 6),
+    instrumentId: ref(true),
+    partTempC: decimal("partTempC", 6, 2),
+    gaugeTempC: decimal("gaugeTempC", 6, 2),
+    lubricant: str(64, true),
+    skipped: bool(false),
+    skipReason: str(255, true),
+    note: str(500, true),
+    takenBy: ref(),
+    takenAt: datetime(false),
+    receivedAt: datetime(false, true),
+    deviceId: str(64),
+    supersedes: ref(true, DataTypes.CHAR(36)),
+    verdict: enumOf(VERDICTS, true),
+    verdictNote: str(64, true),
+    limitMin: decimal("limitMin", 14, 6),
+    limitMax: decimal("limitMax", 14, 6),
+    deviation: decimal("deviation", 14, 6),
+  };
+  // Every column named by the shared map, not by `underscored`, so the raw SQL reads the same ones.
+  const mapped = Object.fromEntries(
+    READING_FIELDS.map((k) => [k, { ...attributes[k], field: READING_COLUMNS[k] }]),
+  ) as typeof attributes;
+  Reading.init({ ...mapped, ...stamps() }, modelOptions(sequelize, "readings", "both"));
 }

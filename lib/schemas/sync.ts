@@ -48,6 +48,7 @@ import { z } from "zod";
 import { ENTRY_MODES, LUBRICANT_LABELS, MEASURE_UNITS, parseStationId } from "@/lib/domain";
 import type { BenchRoute, EngineShape, EntryMode, JobStatus, Lubricant, SpecLimit, Verdict } from "@/lib/domain";
 import type { Disposition, FlagReason, FlagState, UnitSystem } from "./enums";
+import type { StoredReading } from "@/lib/schemas/readings";
 
 export const MAX_BATCH = 500;
 /** Feed rows younger than this are re-sent on the next pull (see the cursor above). */
@@ -165,34 +166,13 @@ export type PushErrorReply = {
   cursor: string;
 };
 
-/** A stored reading, as the pack and the feed send it. Dates are ISO strings. */
-export type ServerReading = {
-  id: string;
-  jobId: number;
-  stationId: string;
-  characteristic: string;
-  value: number | null;
-  unit: string;
-  /** mm for lengths, N·m for torque. */
-  valueCanonical: number | null;
-  entryMode: EntryMode;
-  dialSetting: number | null;
-  dialDeviation: number | null;
-  instrumentId: number | null;
-  partTempC: number | null;
-  gaugeTempC: number | null;
-  lubricant: string | null;
-  skipped: boolean;
-  skipReason: string | null;
-  note: string | null;
-  supersedes: string | null;
-  /** The reading that corrects this one, if any: a superseded reading is history, not current. */
-  supersededBy: string | null;
+/** A stored reading, as the pack and the feed send it (no shop). Dates are ISO strings. */
+export type ServerReading = Omit<StoredReading, "shopId" | "takenAt" | "receivedAt"> & {
   takenAt: string;
   receivedAt: string;
-  takenBy: number;
-  deviceId: string;
-} & Omit<ReadingEvaluation, "unit">;
+  /** The reading that corrects this one, if any: a superseded reading is history, not current. */
+  supersededBy: string | null;
+};
 
 /** A flag that is not closed (or, in the feed, any flag's current state). */
 export type BenchFlag = {

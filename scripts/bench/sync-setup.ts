@@ -8,41 +8,11 @@ import { migrateUp } from "@/lib/server/core/migrate";
 import { sealSession, SESSION_COOKIE } from "@/lib/server/core/session";
 import { setSqlTrace } from "@/lib/server/core/sql-driver";
 import { Customer, Engine, Job, JobLimit, Shop, User } from "@/models";
+import { READING_COLUMNS } from "@/lib/schemas/readings";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 import { STREET_V8_INCH } from "../seed/demo-specs";
 
-const COLUMNS = [
-  "id",
-  "shop_id",
-  "job_id",
-  "station_id",
-  "characteristic",
-  "value_canonical",
-  "value_entered",
-  "unit_entered",
-  "entry_mode",
-  "dial_setting",
-  "dial_deviation",
-  "instrument_id",
-  "part_temp_c",
-  "gauge_temp_c",
-  "lubricant",
-  "skipped",
-  "skip_reason",
-  "note",
-  "taken_by",
-  "taken_at",
-  "received_at",
-  "device_id",
-  "supersedes",
-  "verdict",
-  "verdict_note",
-  "limit_min",
-  "limit_max",
-  "deviation",
-  "created_at",
-  "updated_at",
-];
+const COLUMNS = [...Object.values(READING_COLUMNS), "created_at", "updated_at"];
 type Row = Record<string, unknown>;
 
 async function fixture(jobs: number) {

@@ -6,7 +6,8 @@ import { getSequelize } from "@/lib/server/core/db";
 import { getFlagOrThrow, stationWords, toListItem } from "@/lib/server/flags/repo";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { loadJobContext } from "@/lib/server/jobs/context";
-import { currentReadings, findInstruments, jobReadings, type StoredReading } from "@/lib/server/readings/repo";
+import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 import { listAttachments } from "@/lib/server/uploads/repo";
 
 // One flag opened: the readings of its station(s) with the correction chain and photos, the

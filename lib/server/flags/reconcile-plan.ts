@@ -3,7 +3,7 @@ import type { DerivedValue } from "@/lib/domain";
 import type { ReadingEvaluation } from "@/lib/schemas/sync";
 import type { FlagPatch, NewFlag, UnclosedFlag } from "@/lib/server/bench/flags-repo";
 import { round6 } from "@/lib/server/sync/ingest-evaluate";
-import type { StoredReading } from "@/lib/server/readings/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 
 // The pure half of flag reconciliation: from current values and the flags that are not closed,
 // decide which flags to open, update and close. No database here (flag-reconcile.ts writes).

@@ -1,7 +1,7 @@
 import "server-only";
 import { benchRoute, deriveReadings, parseStationId, type DerivedValue, type RawReading } from "@/lib/domain";
 import type { JobContext } from "@/lib/server/jobs/context";
-import type { StoredReading } from "@/lib/server/readings/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 
 // What one reconciliation looks at. After a limits or gauge edit: everything. After ingest (the
 // `fresh` readings): only what the fresh readings can change, which is

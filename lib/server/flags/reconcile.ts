@@ -9,13 +9,8 @@ import { newestInput, planFlags, wantedDerived, wantedRaw, type Closer } from "@
 import { derivedScope, ingestStations, toJudge } from "@/lib/server/flags/reconcile-scope";
 import { gaugePastDue, round6, sameEvaluation, storedEvaluation, toRaw } from "@/lib/server/sync/ingest-evaluate";
 import { loadJobContext, type JobContext } from "@/lib/server/jobs/context";
-import {
-  currentReadings,
-  jobReadingsWithGauges,
-  lockJobs,
-  updateEvaluation,
-  type StoredReading,
-} from "@/lib/server/readings/repo";
+import { currentReadings, jobReadingsWithGauges, lockJobs, updateEvaluation } from "@/lib/server/readings/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 import { settleAll } from "@/lib/server/core/sql-driver";
 
 // The ONE mechanism that keeps a job's stored verdicts and flags in line with its readings and

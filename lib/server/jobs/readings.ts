@@ -9,8 +9,9 @@ import {
   currentReadings as releaseCurrent,
   requiredStations as releaseRequired,
 } from "@/lib/server/release/checklist-rules";
-import type { JobRecord, ReadingRow as ReleaseReadingRow } from "@/lib/server/release/repo";
-import { currentReadings, findInstruments, jobReadings, type StoredReading } from "@/lib/server/readings/repo";
+import type { JobRecord } from "@/lib/server/release/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
+import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";
 import { listUsers } from "@/lib/server/users/repo";
 
 // A job's readings as the desk reads them, through the rules the rest of the server uses:
@@ -34,9 +35,9 @@ export async function measuredStations(shopId: number, jobIds: number[]): Promis
     where: { shopId, jobId: { [Op.in]: jobIds } },
     attributes: ["id", "jobId", "stationId", "supersedes", "skipped", "takenAt", "receivedAt"],
   });
-  const byJob = new Map<number, ReleaseReadingRow[]>();
+  const byJob = new Map<number, StoredReading[]>();
   for (const r of rows)
-    (byJob.get(r.jobId) ?? byJob.set(r.jobId, []).get(r.jobId)!).push(r.get({ plain: true }) as ReleaseReadingRow);
+    (byJob.get(r.jobId) ?? byJob.set(r.jobId, []).get(r.jobId)!).push(r.get({ plain: true }) as StoredReading);
   for (const [jobId, list] of byJob) {
     for (const r of releaseCurrent(list).values()) if (!r.skipped) out.get(jobId)?.add(r.stationId);
   }

@@ -15,7 +15,7 @@ import {
 } from "@/lib/domain";
 import { loadJobContext } from "@/lib/server/jobs/context";
 import { loadJobReadings, type JobReadings } from "@/lib/server/jobs/readings";
-import type { StoredReading } from "@/lib/server/readings/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 import { toCsv, type Cell } from "@/lib/server/readings/csv-export";
 
 // GET /api/jobs/[jobId]/readings.csv: one row per current reading (each station's current

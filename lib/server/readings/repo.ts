@@ -1,62 +1,26 @@
 import "server-only";
 import { Op, QueryTypes, type Transaction } from "sequelize";
 import { Instrument, decimalToNumber } from "@/models";
+import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
 import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize } from "@/lib/server/core/db";
 import { sqlRows, sqlWrite, utcDate } from "@/lib/server/core/sql-driver";
 import { insertMany } from "@/lib/server/core/sql-insert";
-import type { InstrumentInfo, ReadingFacts } from "@/lib/server/sync/ingest-evaluate";
+import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 
 // Readings and the gauges they were taken with. Plain objects out; every query scoped by shop or
 // by a job the caller has already checked belongs to the shop.
 
-export type StoredReading = ReadingFacts & {
-  shopId: number;
-  jobId: number;
-  characteristic: string;
-  valueCanonical: number | null;
-  entryMode: "direct" | "dial";
-  dialSetting: number | null;
-  dialDeviation: number | null;
-  skipped: boolean;
-  skipReason: string | null;
-  note: string | null;
-  takenBy: number;
-  receivedAt: Date;
-  deviceId: string;
-  supersedes: string | null;
-  verdict: "in_spec" | "marginal" | "out_of_spec" | null;
-  verdictNote: string | null;
-  limitMin: number | null;
-  limitMax: number | null;
-  deviation: number | null;
-};
-export type NewReading = Omit<StoredReading, "receivedAt"> & { receivedAt: Date };
-
 // Raw SQL for the hot paths of ingest and reconciliation: model instances cost more than the
-// queries here (bench:sync), and these rows only ever travel as plain objects.
-const COLUMNS = `id, shop_id AS shopId, job_id AS jobId, station_id AS stationId, characteristic,
-  value_canonical AS valueCanonical, value_entered AS value, unit_entered AS unit, entry_mode AS entryMode,
-  dial_setting AS dialSetting, dial_deviation AS dialDeviation, instrument_id AS instrumentId,
-  part_temp_c AS partTempC, gauge_temp_c AS gaugeTempC, lubricant, skipped, skip_reason AS skipReason, note,
-  taken_by AS takenBy, taken_at AS takenAt, received_at AS receivedAt, device_id AS deviceId, supersedes,
-  verdict, verdict_note AS verdictNote, limit_min AS limitMin, limit_max AS limitMax, deviation`;
-const DECIMALS = [
-  "valueCanonical",
-  "value",
-  "dialSetting",
-  "dialDeviation",
-  "partTempC",
-  "gaugeTempC",
-  "limitMin",
-  "limitMax",
-  "deviation",
-] as const;
+// queries here (bench:sync), and these rows only ever travel as plain objects. Columns and field
+// names come from the map the model uses too (lib/schemas/readings.ts).
+const selectList = (table = "") => READING_FIELDS.map((k) => `${table}${READING_COLUMNS[k]} AS ${k}`).join(", ");
+const COLUMNS = selectList();
 const ORDER = "ORDER BY taken_at, received_at, id";
 
 function fromRow(row: Record<string, unknown>): StoredReading {
   const r = row as unknown as StoredReading & Record<string, unknown>;
-  for (const k of DECIMALS) r[k] = decimalToNumber(row[k]);
+  for (const k of READING_DECIMALS) r[k] = decimalToNumber(row[k]);
   r.jobId = Number(row.jobId);
   r.shopId = Number(row.shopId);
   r.instrumentId = row.instrumentId === null ? null : Number(row.instrumentId);
@@ -124,9 +88,7 @@ export async function jobReadings(t: Transaction | undefined, jobId: number, loc
 const GAUGE_COLUMNS = `g.id AS gId, g.shop_id AS gShopId, g.kind AS gKind, g.label AS gLabel, g.serial AS gSerial,
   g.unit AS gUnit, g.resolution AS gResolution, g.expanded_u AS gExpandedU, g.coverage_k AS gCoverageK,
   g.calibration_due AS gCalibrationDue, g.dial_plus_means_smaller AS gDial, g.active AS gActive`;
-const READING_COLUMNS = COLUMNS.split(",")
-  .map((c) => `r.${c.trim()}`)
-  .join(", ");
+const JOINED_COLUMNS = selectList("r.");
 
 function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
   const due = row.gCalibrationDue;
@@ -166,7 +128,7 @@ export async function jobReadingsWithGauges(
   if (stations?.length === 0) return { readings: [], instruments: new Map<number, InstrumentInfo>() };
   const rows = await sqlRows(
     t,
-    `SELECT ${READING_COLUMNS}, ${GAUGE_COLUMNS} FROM readings r LEFT JOIN instruments g ON g.id = r.instrument_id AND g.shop_id = ?
+    `SELECT ${JOINED_COLUMNS}, ${GAUGE_COLUMNS} FROM readings r LEFT JOIN instruments g ON g.id = r.instrument_id AND g.shop_id = ?
       WHERE r.job_id = ?${stations ? " AND r.station_id IN (?)" : ""} ORDER BY r.taken_at, r.received_at, r.id${locking ? " LOCK IN SHARE MODE" : ""}`,
     stations ? [shopId, jobId, stations] : [shopId, jobId],
   );
@@ -185,58 +147,29 @@ export function currentReadings(all: StoredReading[]): StoredReading[] {
   return [...latest.values()];
 }
 
-const INSERT_COLUMNS: [string, keyof NewReading][] = [
-  ["id", "id"],
-  ["shop_id", "shopId"],
-  ["job_id", "jobId"],
-  ["station_id", "stationId"],
-  ["characteristic", "characteristic"],
-  ["value_canonical", "valueCanonical"],
-  ["value_entered", "value"],
-  ["unit_entered", "unit"],
-  ["entry_mode", "entryMode"],
-  ["dial_setting", "dialSetting"],
-  ["dial_deviation", "dialDeviation"],
-  ["instrument_id", "instrumentId"],
-  ["part_temp_c", "partTempC"],
-  ["gauge_temp_c", "gaugeTempC"],
-  ["lubricant", "lubricant"],
-  ["skipped", "skipped"],
-  ["skip_reason", "skipReason"],
-  ["note", "note"],
-  ["taken_by", "takenBy"],
-  ["taken_at", "takenAt"],
-  ["received_at", "receivedAt"],
-  ["device_id", "deviceId"],
-  ["supersedes", "supersedes"],
-  ["verdict", "verdict"],
-  ["verdict_note", "verdictNote"],
-  ["limit_min", "limitMin"],
-  ["limit_max", "limitMax"],
-  ["deviation", "deviation"],
-];
+const INSERT_COLUMNS = [...READING_FIELDS.map((k) => READING_COLUMNS[k]), "created_at", "updated_at"];
 
 /** One multi-row INSERT; rows must already be in foreign-key order (a correction after its target). */
-export async function insertReadings(t: Transaction, rows: NewReading[]): Promise<void> {
+export async function insertReadings(t: Transaction, rows: StoredReading[]): Promise<void> {
   const now = new Date();
   await insertMany(
     t,
     "readings",
-    [...INSERT_COLUMNS.map(([c]) => c), "created_at", "updated_at"],
-    rows.map((r) => [...INSERT_COLUMNS.map(([, k]) => r[k]), now, now]),
+    INSERT_COLUMNS,
+    rows.map((r) => [...READING_FIELDS.map((k) => r[k]), now, now]),
   );
 }
+
+const EVALUATION_FIELDS = ["verdict", "verdictNote", "limitMin", "limitMax", "deviation"] as const;
+const SET_EVALUATION = EVALUATION_FIELDS.map((k) => `${READING_COLUMNS[k]} = ?`).join(", ");
+const UPDATE_EVALUATION = `UPDATE readings SET ${SET_EVALUATION}, updated_at = ? WHERE id = ?`;
 
 export async function updateEvaluation(
   t: Transaction,
   id: string,
-  e: Pick<StoredReading, "verdict" | "verdictNote" | "limitMin" | "limitMax" | "deviation">,
+  e: Pick<StoredReading, (typeof EVALUATION_FIELDS)[number]>,
 ): Promise<void> {
-  await sqlWrite(
-    t,
-    "UPDATE readings SET verdict = ?, verdict_note = ?, limit_min = ?, limit_max = ?, deviation = ?, updated_at = ? WHERE id = ?",
-    [e.verdict, e.verdictNote, e.limitMin, e.limitMax, e.deviation, new Date(), id],
-  );
+  await sqlWrite(t, UPDATE_EVALUATION, [...EVALUATION_FIELDS.map((k) => e[k]), new Date(), id]);
 }
 
 function toInstrument(i: Instrument): InstrumentInfo {
@@ -307,34 +240,6 @@ export async function correctionsOf(ids: string[]): Promise<Map<string, string>>
 const iso = (d: Date | string) => (d instanceof Date ? d : new Date(d)).toISOString();
 
 export function toServerReading(r: StoredReading, supersededBy: string | null): ServerReading {
-  return {
-    id: r.id,
-    jobId: r.jobId,
-    stationId: r.stationId,
-    characteristic: r.characteristic,
-    value: r.value,
-    unit: r.unit,
-    valueCanonical: r.valueCanonical,
-    entryMode: r.entryMode,
-    dialSetting: r.dialSetting,
-    dialDeviation: r.dialDeviation,
-    instrumentId: r.instrumentId,
-    partTempC: r.partTempC,
-    gaugeTempC: r.gaugeTempC,
-    lubricant: r.lubricant,
-    skipped: r.skipped,
-    skipReason: r.skipReason,
-    note: r.note,
-    supersedes: r.supersedes,
-    supersededBy,
-    takenAt: iso(r.takenAt),
-    receivedAt: iso(r.receivedAt),
-    takenBy: r.takenBy,
-    deviceId: r.deviceId,
-    verdict: r.verdict,
-    verdictNote: r.verdictNote,
-    limitMin: r.limitMin,
-    limitMax: r.limitMax,
-    deviation: r.deviation,
-  };
+  const { shopId: _shop, takenAt, receivedAt, ...fields } = r;
+  return { ...fields, supersededBy, takenAt: iso(takenAt), receivedAt: iso(receivedAt) };
 }

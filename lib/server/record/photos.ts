@@ -1,6 +1,6 @@
 import "server-only";
 import { stationWords } from "@/lib/server/release/checklist-rules";
-import type { ReadingRow } from "@/lib/server/release/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 import { getObjectBuffer } from "@/lib/server/uploads/storage";
 import { listAttachments, type StoredAttachment } from "@/lib/server/uploads/repo";
 import type { PhotoLine } from "@/lib/server/record/types";
@@ -11,7 +11,7 @@ const MAX_PHOTOS = 60;
 
 export type RecordPhotos = { photos: PhotoLine[]; byReading: Map<string, string[]> };
 
-export async function recordPhotos(shopId: number, jobId: number, current: ReadingRow[]): Promise<RecordPhotos> {
+export async function recordPhotos(shopId: number, jobId: number, current: StoredReading[]): Promise<RecordPhotos> {
   const readingById = new Map(current.map((r) => [r.id, r]));
   const [ofJob, ofReadings] = await Promise.all([
     listAttachments(shopId, "job", [String(jobId)]),

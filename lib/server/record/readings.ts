@@ -12,7 +12,8 @@ import {
 } from "@/lib/domain";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { characteristicWords, currentReadings, stationWords } from "@/lib/server/release/checklist-rules";
-import type { InstrumentRow, JobRecord, ReadingRow } from "@/lib/server/release/repo";
+import type { InstrumentRow, JobRecord } from "@/lib/server/release/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 import { limitsText, num, signed, stamp, VERDICT_WORDS, withUnit } from "@/lib/server/record/format";
 import type { DerivedLine, ReadingLine, ReadingSection, Tally, TorqueLine } from "@/lib/server/record/types";
 
@@ -40,23 +41,21 @@ export function instrumentInfo(i: InstrumentRow): InstrumentInfo {
 }
 
 /** The gauge's serial; the gauges table of the record gives its name, uncertainty and calibration. */
-function gaugeWords(r: ReadingRow, gauges: Map<number, InstrumentRow>): string {
+function gaugeWords(r: StoredReading, gauges: Map<number, InstrumentRow>): string {
   const g = r.instrumentId ? gauges.get(r.instrumentId) : undefined;
   return g ? g.serial : "";
 }
 
-function verdictWords(r: ReadingRow): string {
+function verdictWords(r: StoredReading): string {
   if (r.skipped) return "Skipped";
   return r.verdict ? VERDICT_WORDS[r.verdict as Verdict] : "No limit";
 }
 
-function readingNotes(r: ReadingRow): string {
+function readingNotes(r: StoredReading): string {
   const notes: string[] = [];
   if (r.skipped) notes.push(r.skipReason ? `skipped: ${r.skipReason}` : "skipped");
   if (r.entryMode === "dial" && r.dialSetting !== null)
-    notes.push(
-      `dial gauge set at ${num(r.dialSetting, r.unitEntered)}, read ${signed(r.dialDeviation, r.unitEntered) || "0"}`,
-    );
+    notes.push(`dial gauge set at ${num(r.dialSetting, r.unit)}, read ${signed(r.dialDeviation, r.unit) || "0"}`);
   if (r.partTempC !== null && r.partTempC !== undefined) notes.push(`part at ${r.partTempC} °C`);
   if (r.verdictNote === "gauge_past_due") notes.push("gauge was past its calibration due date");
   if (r.supersedes) notes.push("corrects an earlier reading");
@@ -64,13 +63,13 @@ function readingNotes(r: ReadingRow): string {
   return notes.join("; ");
 }
 
-function readingLine(r: ReadingRow, gauges: Map<number, InstrumentRow>, look: Lookups): ReadingLine {
+function readingLine(r: StoredReading, gauges: Map<number, InstrumentRow>, look: Lookups): ReadingLine {
   return {
     stationId: r.stationId,
     station: stationWords(r.stationId),
-    value: r.skipped ? "" : withUnit(r.valueEntered, r.unitEntered),
-    limits: r.limitMin !== null || r.limitMax !== null ? limitsText(r.limitMin, r.limitMax, r.unitEntered) : "no limit",
-    deviation: signed(r.deviation, r.unitEntered),
+    value: r.skipped ? "" : withUnit(r.value, r.unit),
+    limits: r.limitMin !== null || r.limitMax !== null ? limitsText(r.limitMin, r.limitMax, r.unit) : "no limit",
+    deviation: signed(r.deviation, r.unit),
     verdict: r.skipped ? null : ((r.verdict as Verdict | null) ?? null),
     verdictWords: verdictWords(r),
     gauge: gaugeWords(r, gauges),
@@ -96,7 +95,7 @@ function stationOrder(record: JobRecord): Map<string, { index: number; section: 
 export function readingSections(
   record: JobRecord,
   look: Lookups,
-): { sections: ReadingSection[]; torque: TorqueLine[]; current: ReadingRow[] } {
+): { sections: ReadingSection[]; torque: TorqueLine[]; current: StoredReading[] } {
   const gauges = new Map(record.instruments.map((g) => [g.id, g]));
   const order = stationOrder(record);
   const current = [...currentReadings(record.readings).values()].sort(
@@ -120,12 +119,12 @@ export function readingSections(
   return { sections: [...sections.values()], torque, current };
 }
 
-function torqueLine(r: ReadingRow, gauges: Map<number, InstrumentRow>, look: Lookups): TorqueLine {
+function torqueLine(r: StoredReading, gauges: Map<number, InstrumentRow>, look: Lookups): TorqueLine {
   const lube = r.lubricant ? (LUBRICANT_LABELS[r.lubricant as Lubricant] ?? r.lubricant) : "not recorded";
   return {
     station: stationWords(r.stationId),
-    value: r.skipped ? "skipped" : withUnit(r.valueEntered, r.unitEntered),
-    limits: r.limitMin !== null || r.limitMax !== null ? limitsText(r.limitMin, r.limitMax, r.unitEntered) : "no limit",
+    value: r.skipped ? "skipped" : withUnit(r.value, r.unit),
+    limits: r.limitMin !== null || r.limitMax !== null ? limitsText(r.limitMin, r.limitMax, r.unit) : "no limit",
     verdict: r.skipped ? null : (r.verdict ?? null),
     verdictWords: verdictWords(r),
     lubricant: lube,
@@ -155,16 +154,11 @@ function derivedLine(d: DerivedValue): DerivedLine {
 }
 
 /** Derived values that have a value (those still missing inputs are left out). */
-export function derivedLines(record: JobRecord, current: ReadingRow[]): DerivedLine[] {
+export function derivedLines(record: JobRecord, current: StoredReading[]): DerivedLine[] {
   const infos = new Map(record.instruments.map((g) => [g.id, instrumentInfo(g)]));
   const raw: RawReading[] = current
-    .filter((r) => !r.skipped && r.valueEntered !== null)
-    .map((r) =>
-      toRaw(
-        { ...r, value: r.valueEntered, unit: r.unitEntered, gaugeTempC: r.gaugeTempC ?? null },
-        r.instrumentId ? infos.get(r.instrumentId) : undefined,
-      ),
-    );
+    .filter((r) => !r.skipped && r.value !== null)
+    .map((r) => toRaw(r, r.instrumentId ? infos.get(r.instrumentId) : undefined));
   try {
     return deriveReadings(raw, record.shape, record.spec)
       .filter((d) => typeof d.value === "number")
@@ -174,7 +168,7 @@ export function derivedLines(record: JobRecord, current: ReadingRow[]): DerivedL
   }
 }
 
-export function tallyOf(current: ReadingRow[]): Tally {
+export function tallyOf(current: StoredReading[]): Tally {
   const t: Tally = { measured: 0, inSpec: 0, marginal: 0, outOfSpec: 0, skipped: 0, unjudged: 0 };
   for (const r of current) {
     if (r.skipped) {

@@ -1,6 +1,7 @@
 import "server-only";
 import { characteristicWords, stationWords } from "@/lib/server/release/checklist-rules";
-import type { DispositionRow, InstrumentRow, JobRecord, ReadingRow } from "@/lib/server/release/repo";
+import type { DispositionRow, InstrumentRow, JobRecord } from "@/lib/server/release/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 import { day, limitsText, when, withUnit } from "@/lib/server/record/format";
 import type { DecisionLine, FlagLine, GaugeLine } from "@/lib/server/record/types";
 
@@ -72,8 +73,8 @@ function uncertaintyWords(g: InstrumentRow): string {
 }
 
 /** Gauges used for current readings; past due when any of them was taken after the due date. */
-export function gaugeLines(record: JobRecord, current: ReadingRow[]): GaugeLine[] {
-  const used = new Map<number, ReadingRow[]>();
+export function gaugeLines(record: JobRecord, current: StoredReading[]): GaugeLine[] {
+  const used = new Map<number, StoredReading[]>();
   for (const r of current) if (r.instrumentId) used.set(r.instrumentId, [...(used.get(r.instrumentId) ?? []), r]);
   return record.instruments
     .filter((g) => used.has(g.id))

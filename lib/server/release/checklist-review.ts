@@ -8,7 +8,8 @@ import {
   plural,
   stationWords,
 } from "@/lib/server/release/checklist-rules";
-import type { FlagRow, InstrumentRow, JobRecord, ReadingRow } from "@/lib/server/release/repo";
+import type { FlagRow, InstrumentRow, JobRecord } from "@/lib/server/release/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 
 // The flags, gauges and build-plan checks of the release checklist. Pure, like the rules file.
 
@@ -69,17 +70,17 @@ export function flagsCheck(record: JobRecord): ChecklistCheck {
 /** The UTC calendar day of a time; a gauge is in calibration through its due date. */
 const dayOf = (t: Date | string) => new Date(t).toISOString().slice(0, 10);
 
-function gaugeProblem(inst: InstrumentRow | undefined, r: ReadingRow): string | null {
+function gaugeProblem(inst: InstrumentRow | undefined, r: StoredReading): string | null {
   if (!inst) return "is not in this shop's gauge list";
   if (!inst.calibrationDue) return "has no calibration due date on file";
   return dayOf(r.takenAt) > inst.calibrationDue ? `was past its calibration due date (${inst.calibrationDue})` : null;
 }
 
-export function gaugesCheck(record: JobRecord, current: Map<string, ReadingRow>): ChecklistCheck {
+export function gaugesCheck(record: JobRecord, current: Map<string, StoredReading>): ChecklistCheck {
   const title = "Every gauge was within calibration when used";
   const instruments = new Map(record.instruments.map((i) => [i.id, i]));
   const used = new Map<number, number>();
-  const bad = new Map<number, { problem: string; readings: ReadingRow[] }>();
+  const bad = new Map<number, { problem: string; readings: StoredReading[] }>();
   for (const r of current.values()) {
     if (r.skipped || r.instrumentId === null || r.instrumentId === undefined) continue;
     used.set(r.instrumentId, (used.get(r.instrumentId) ?? 0) + 1);

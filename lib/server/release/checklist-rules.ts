@@ -1,7 +1,8 @@
 import "server-only";
 import { benchRoute, deriveReadings, describeStation, findLimit, CHARACTERISTICS, type Station } from "@/lib/domain";
 import type { ChecklistCheck, ChecklistItem, ChecklistLink } from "@/lib/schemas/release";
-import type { JobRecord, ReadingRow } from "@/lib/server/release/repo";
+import type { JobRecord } from "@/lib/server/release/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 
 // The readings and torque checks of the release checklist, and the helpers the other checks
 // share. Pure: a JobRecord in, checks out; no database, no clock.
@@ -29,9 +30,9 @@ export const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n ==
  * The current reading of each station: among readings no other reading supersedes, the latest
  * by takenAt (then by server receipt, then id, so the choice never depends on query order).
  */
-export function currentReadings(readings: ReadingRow[]): Map<string, ReadingRow> {
+export function currentReadings(readings: StoredReading[]): Map<string, StoredReading> {
   const superseded = new Set(readings.map((r) => r.supersedes).filter((id): id is string => !!id));
-  const out = new Map<string, ReadingRow>();
+  const out = new Map<string, StoredReading>();
   for (const r of readings) {
     if (superseded.has(r.id)) continue;
     const had = out.get(r.stationId);
@@ -40,7 +41,7 @@ export function currentReadings(readings: ReadingRow[]): Map<string, ReadingRow>
   return out;
 }
 
-function later(a: ReadingRow, b: ReadingRow): boolean {
+function later(a: StoredReading, b: StoredReading): boolean {
   const d = new Date(a.takenAt).getTime() - new Date(b.takenAt).getTime();
   if (d !== 0) return d > 0;
   const e = new Date(a.receivedAt).getTime() - new Date(b.receivedAt).getTime();
@@ -117,7 +118,7 @@ function shapeProblem(record: JobRecord, check: "readings" | "torque", error: st
   };
 }
 
-export function readingsCheck(record: JobRecord, current: Map<string, ReadingRow>): ChecklistCheck {
+export function readingsCheck(record: JobRecord, current: Map<string, StoredReading>): ChecklistCheck {
   const title = "Every required station has a current reading";
   const route = routeOf(record);
   if (route.error)
@@ -156,7 +157,7 @@ export function readingsCheck(record: JobRecord, current: Map<string, ReadingRow
   return { id: "readings", title, ok: items.length === 0, summary, items };
 }
 
-export function torqueCheck(record: JobRecord, current: Map<string, ReadingRow>): ChecklistCheck {
+export function torqueCheck(record: JobRecord, current: Map<string, StoredReading>): ChecklistCheck {
   const title = "Torque records are complete, with the lubricant";
   const route = routeOf(record);
   if (route.error)

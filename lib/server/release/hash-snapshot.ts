@@ -1,13 +1,7 @@
 import "server-only";
 import { decimalString as dec, isoUtc, type CanonicalValue, type ReleaseSnapshot } from "@/lib/server/release/hash";
-import type {
-  DispositionRow,
-  FlagRow,
-  InstrumentRow,
-  JobRecord,
-  LimitRow,
-  ReadingRow,
-} from "@/lib/server/release/repo";
+import type { DispositionRow, FlagRow, InstrumentRow, JobRecord, LimitRow } from "@/lib/server/release/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 
 // From database rows to the records of the canonical release document (rules in release-hash.ts).
 // Each function lists every field of its record; DECIMALs carry their column's scale from the
@@ -17,14 +11,14 @@ import type {
 
 type Rec = { [key: string]: CanonicalValue };
 
-export function readingRecord(r: ReadingRow): Rec & { id: string } {
+export function readingRecord(r: StoredReading): Rec & { id: string } {
   return {
     id: r.id,
     stationId: r.stationId,
     characteristic: r.characteristic,
     valueCanonical: dec(r.valueCanonical, 6),
-    valueEntered: dec(r.valueEntered, 6),
-    unitEntered: r.unitEntered,
+    valueEntered: dec(r.value, 6),
+    unitEntered: r.unit,
     entryMode: r.entryMode,
     dialSetting: dec(r.dialSetting, 6),
     dialDeviation: dec(r.dialDeviation, 6),

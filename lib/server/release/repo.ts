@@ -2,6 +2,7 @@ import "server-only";
 import type { InferAttributes, Transaction } from "sequelize";
 import type { EngineShape, SpecLimit } from "@/lib/domain";
 import { Customer, Engine, Flag, FlagDisposition, Instrument, Job, JobLimit, Reading, Release, User } from "@/models";
+import type { StoredReading } from "@/lib/schemas/readings";
 import { getSequelize } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 import { toEngineShape, toSpecLimit } from "@/lib/server/jobs/context";
@@ -9,7 +10,6 @@ import { toEngineShape, toSpecLimit } from "@/lib/server/jobs/context";
 // Everything the release checklist, the release hash and the release page read about one job,
 // loaded in a handful of queries and returned as plain objects (numbers for DECIMALs, Dates).
 export type JobRow = InferAttributes<Job>;
-export type ReadingRow = InferAttributes<Reading>;
 export type LimitRow = InferAttributes<JobLimit>;
 export type FlagRow = InferAttributes<Flag>;
 export type DispositionRow = InferAttributes<FlagDisposition>;
@@ -23,7 +23,7 @@ export type JobRecord = {
   shape: EngineShape;
   spec: SpecLimit[];
   limits: LimitRow[];
-  readings: ReadingRow[];
+  readings: StoredReading[];
   flags: FlagRow[];
   dispositions: DispositionRow[];
   /** The instruments any reading of the job was taken with. */
@@ -84,7 +84,7 @@ export async function loadJobRecord(shopId: number, jobId: number, t?: Transacti
     shape: toEngineShape(engine, job.unitSystem),
     spec: limits.map(toSpecLimit),
     limits: plain<LimitRow>(limits),
-    readings: plain<ReadingRow>(readings),
+    readings: plain<StoredReading>(readings),
     flags: plain<FlagRow>(flags),
     dispositions: plain<DispositionRow>(dispositions),
     instruments: plain<InstrumentRow>(instruments),

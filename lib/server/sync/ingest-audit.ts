@@ -2,7 +2,7 @@ import "server-only";
 import type { ReadingEvaluation } from "@/lib/schemas/sync";
 import type { Actor } from "@/lib/server/core/access";
 import type { AuditInput } from "@/lib/server/log/audit";
-import type { NewReading } from "@/lib/server/readings/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 
 // The audit trail of POST /api/sync: ONE event per job per batch, action "readings.sync" on the
 // job, listing every new reading of that job exactly once (id, station, value, unit, verdict as
@@ -25,7 +25,7 @@ export type SyncedReading = {
 };
 export type SyncAuditAfter = { jobId: number; deviceId: string; count: number; readings: SyncedReading[] };
 
-function entry(r: NewReading, final: ReadingEvaluation | undefined): SyncedReading {
+function entry(r: StoredReading, final: ReadingEvaluation | undefined): SyncedReading {
   return {
     id: r.id,
     stationId: r.stationId,
@@ -41,7 +41,7 @@ function entry(r: NewReading, final: ReadingEvaluation | undefined): SyncedReadi
 export function syncAudits(
   actor: Actor,
   deviceId: string,
-  fresh: NewReading[],
+  fresh: StoredReading[],
   finals: Map<string, ReadingEvaluation>,
 ): AuditInput[] {
   const byJob = new Map<number, SyncedReading[]>();

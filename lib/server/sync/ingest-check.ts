@@ -20,7 +20,7 @@ import {
   type InstrumentInfo,
 } from "@/lib/server/sync/ingest-evaluate";
 import type { JobContext } from "@/lib/server/jobs/context";
-import type { NewReading, StoredReading } from "@/lib/server/readings/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 
 // The per-reading checks of POST /api/sync, run inside the batch's transaction with the jobs
 // locked, so what is checked is what gets written. Each check says what to fix, by field.
@@ -39,12 +39,12 @@ export type BatchContext = {
   targets: Map<string, Pick<StoredReading, "shopId" | "jobId" | "stationId">>;
 };
 export type Checked =
-  | { kind: "new"; row: NewReading; evaluation: ReadingEvaluation }
+  | { kind: "new"; row: StoredReading; evaluation: ReadingEvaluation }
   | { kind: "replay"; stored: StoredReading }
   | { kind: "rejected"; code: RejectCode; reason: string; errors?: FieldErrors };
 
 /** The row this item would be stored as (verdict fields filled in later). */
-export function rowOf(item: PushReading, bc: BatchContext, characteristic: string): NewReading {
+export function rowOf(item: PushReading, bc: BatchContext, characteristic: string): StoredReading {
   const skipped = !!item.skipped;
   const value = skipped ? null : (item.value ?? null);
   return {

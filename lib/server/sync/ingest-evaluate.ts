@@ -1,5 +1,6 @@
 import "server-only";
 import { convertMeasure, coreReading, quantityOfUnit, type Evaluation, type RawReading } from "@/lib/domain";
+import type { StoredReading } from "@/lib/schemas/readings";
 import type { BenchInstrument, ReadingEvaluation } from "@/lib/schemas/sync";
 
 // The edge between a stored (or incoming) reading and the core's RawReading, shared by ingest and
@@ -10,17 +11,10 @@ import type { BenchInstrument, ReadingEvaluation } from "@/lib/schemas/sync";
 export type InstrumentInfo = BenchInstrument & { shopId: number };
 
 /** What the core needs of a reading, whether it came from the tablet or from the database. */
-export type ReadingFacts = {
-  id: string;
-  stationId: string;
-  value: number | null;
-  unit: string;
-  partTempC: number | null;
-  gaugeTempC: number | null;
-  lubricant: string | null;
-  instrumentId: number | null;
-  takenAt: Date;
-};
+export type ReadingFacts = Pick<
+  StoredReading,
+  "id" | "stationId" | "value" | "unit" | "partTempC" | "gaugeTempC" | "lubricant" | "instrumentId" | "takenAt"
+>;
 
 /** The stored columns are DECIMAL(14,6): round the same way so a recomputation compares equal. */
 export const round6 = (x: number | null | undefined): number | null =>

@@ -19,13 +19,8 @@ import { readForReconcile, reconcileJob, type ReconcileLog } from "@/lib/server/
 import { checkItem, type BatchContext, type Checked } from "@/lib/server/sync/ingest-check";
 import { batchJobs, prefetchJobs } from "@/lib/server/sync/ingest-context";
 import { withDeadlockRetry } from "@/lib/server/sync/ingest-retry";
-import {
-  findInstruments,
-  findReadings,
-  insertReadings,
-  lockJobRevisions,
-  type NewReading,
-} from "@/lib/server/readings/repo";
+import { findInstruments, findReadings, insertReadings, lockJobRevisions } from "@/lib/server/readings/repo";
+import type { StoredReading } from "@/lib/schemas/readings";
 import { settleAll } from "@/lib/server/core/sql-driver";
 import { lastChangeId } from "@/lib/server/sync/feed";
 
@@ -121,10 +116,10 @@ function checkAll(parsed: Parsed[], bc: BatchContext): Outcome[] {
 }
 
 /** New rows ordered so a correction follows the reading it corrects (the foreign key is checked row by row). */
-function insertOrder(rows: NewReading[]): NewReading[] {
+function insertOrder(rows: StoredReading[]): StoredReading[] {
   const pending = new Map(rows.map((r) => [r.id, r]));
-  const out: NewReading[] = [];
-  const visit = (r: NewReading) => {
+  const out: StoredReading[] = [];
+  const visit = (r: StoredReading) => {
     if (!pending.delete(r.id)) return;
     const target = r.supersedes ? pending.get(r.supersedes) : undefined;
     if (target) visit(target);
@@ -134,7 +129,7 @@ function insertOrder(rows: NewReading[]): NewReading[] {
   return out;
 }
 
-function evaluationOf(c: { row: NewReading }, final: ReadingEvaluation | undefined): ReadingEvaluation {
+function evaluationOf(c: { row: StoredReading }, final: ReadingEvaluation | undefined): ReadingEvaluation {
   const r = c.row;
   return (
     final ?? {
@@ -154,7 +149,7 @@ function evaluationOf(c: { row: NewReading }, final: ReadingEvaluation | undefin
  * server runs them in order, so the reads see the new rows. Only reads ever follow a write in a
  * pipeline: after a deadlock, a queued write would run outside the rolled-back transaction.
  */
-async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: NewReading[]) {
+async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: StoredReading[]) {
   const jobIds = [...new Set(fresh.map((r) => r.jobId))].sort((a, b) => a - b);
   const log: ReconcileLog = {
     audits: [],
