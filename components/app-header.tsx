@@ -1,5 +1,5 @@
 import Link from "next/link";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { HeaderBar } from "./header-bar";
 
 export function AppHeader({ actor, current }: { actor: Actor; current?: string }) {

@@ -1,7 +1,7 @@
 import type { ElementType } from "react";
 import { Wordmark } from "@/components/ui/logo";
 import { NAV, ROLE_WORDS } from "@/lib/nav";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { SignOutButton } from "./sign-out-button";
 import { ThemeToggle } from "./theme-toggle";
 

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import type { Role } from "./enums";
 
 export const signInSchema = z.object({
   email: z.string().trim().min(1, "Enter your e-mail").email("Enter an e-mail like name@shop.com").max(191),
@@ -6,3 +7,6 @@ export const signInSchema = z.object({
 });
 
 export type SignInInput = z.infer<typeof signInSchema>;
+
+/** Who is asking: the signed-in user as the server checked them on this request. */
+export type Actor = { userId: number; shopId: number; role: Role; name: string; email: string };

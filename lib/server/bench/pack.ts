@@ -1,7 +1,7 @@
 import "server-only";
 import { benchRoute } from "@/lib/domain";
 import type { BenchJobSummary, JobPack } from "@/lib/schemas/sync";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { flagsOfJobs, toBenchFlag } from "@/lib/server/bench/flags-repo";
 import { jobProgress, jobWithNames, namesOf, openBenchJobs, toHeader } from "@/lib/server/bench/jobs-repo";
 import { toEngineShape, loadJobContext } from "@/lib/server/jobs/context";

@@ -2,12 +2,12 @@ import "server-only";
 import { redirect } from "next/navigation";
 import { AppError } from "@/lib/server/core/errors";
 import type { Role } from "@/lib/schemas/enums";
+import type { Actor } from "@/lib/schemas/session";
 import { getPageSession, sessionFromRequest, type SessionData } from "@/lib/server/core/session";
 import { findActiveUser } from "@/lib/server/users/repo";
 
-// Who is asking, checked against the database on every request so a deactivated user or a
-// changed role takes effect at once. Every repo call takes `actor.shopId` to scope its query.
-export type Actor = { userId: number; shopId: number; role: Role; name: string; email: string };
+// Who is asking (Actor, lib/schemas/session.ts), checked against the database on every request so a
+// deactivated user or a changed role takes effect at once. Every repo call takes `actor.shopId`.
 
 export const ROLE_HOME: Record<Role, string> = {
   machinist: "/bench",

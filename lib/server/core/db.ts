@@ -1,15 +1,19 @@
 import "server-only";
 import { Sequelize } from "sequelize";
-import { initModels } from "@/models";
+import { initModels, type Models } from "@/models";
 import { databaseConfig, env } from "@/lib/server/core/env";
+
+// The core's repo: the one Sequelize instance and the model classes bound to it. Outside the
+// feature repos (lib/server/<feature>/repo.ts) this is the only file that imports models/, because
+// binding the classes to the instance is what it is for.
 
 // One Sequelize instance per process, kept on globalThis so dev hot reloads don't leak pools.
 const holder = globalThis as unknown as { __tenthwiseSequelize?: Sequelize };
 
-export function getSequelize(): Sequelize {
+function instance(): Sequelize {
   if (!holder.__tenthwiseSequelize) {
     const cfg = databaseConfig();
-    const sequelize = new Sequelize(cfg.database, cfg.username, cfg.password, {
+    holder.__tenthwiseSequelize = new Sequelize(cfg.database, cfg.username, cfg.password, {
       host: cfg.host,
       port: cfg.port,
       dialect: "mariadb",
@@ -19,12 +23,27 @@ export function getSequelize(): Sequelize {
       timezone: "+00:00",
       define: { underscored: true },
     });
-    holder.__tenthwiseSequelize = sequelize;
   }
-  // Next bundles server code per route, so one process can hold several copies of the model
-  // classes; each copy must be bound to the shared instance. initModels is a no-op when done.
-  initModels(holder.__tenthwiseSequelize);
   return holder.__tenthwiseSequelize;
+}
+
+/**
+ * The model classes, bound to the shared instance. Next bundles server code per route, so one
+ * process can hold several copies of the classes; each copy is bound on its first use here
+ * (initModels only returns them once done). Repos take their classes from this call.
+ */
+export function models(): Models {
+  return initModels(instance());
+}
+
+/**
+ * The shared instance, for transactions and raw SQL. The models are bound to it here too, so the
+ * scripts and tests that use the classes directly find them ready.
+ */
+export function getSequelize(): Sequelize {
+  const sequelize = instance();
+  initModels(sequelize);
+  return sequelize;
 }
 
 export async function closeSequelize(): Promise<void> {

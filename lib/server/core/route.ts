@@ -1,6 +1,7 @@
 import "server-only";
 import type { ZodType } from "zod";
-import { requireActor, type Actor } from "@/lib/server/core/access";
+import { requireActor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { AppError, errorResponse, invalid } from "@/lib/server/core/errors";
 import type { Role } from "@/lib/schemas/enums";
 

@@ -3,7 +3,7 @@ import { isJobLocked } from "@/lib/domain";
 import type { Transaction } from "sequelize";
 import { DISPOSITION_WORDS, type DispositionInput, type FlagListItem } from "@/lib/schemas/flag";
 import { Flag, FlagDisposition, Job } from "@/models";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";
 import { getSequelize } from "@/lib/server/core/db";

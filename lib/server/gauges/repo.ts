@@ -11,7 +11,7 @@ import {
   type InstrumentRecord,
   type InstrumentUnit,
 } from "@/lib/schemas/instrument";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, invalid, notFound } from "@/lib/server/core/errors";

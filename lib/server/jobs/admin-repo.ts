@@ -3,7 +3,7 @@ import { UniqueConstraintError, type Transaction } from "sequelize";
 import { jobLock } from "@/lib/domain";
 import type { CustomerValues, JobEditValues, JobValues } from "@/lib/schemas/job";
 import { Customer, Engine, Job, JobLimit, Reading, SpecLimit, SpecTemplate } from "@/models";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";
 import { getSequelize } from "@/lib/server/core/db";

@@ -3,7 +3,7 @@ import { isJobLocked } from "@/lib/domain";
 import { buildPlanSchema, type BuildPlan } from "@/lib/schemas/build-plan";
 import { Engine, Job } from "@/models";
 import type { JsonObject } from "@/lib/schemas/json";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";

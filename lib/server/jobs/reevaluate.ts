@@ -2,7 +2,7 @@ import "server-only";
 import { isJobLocked } from "@/lib/domain";
 import { compactLimit, type JobLimitsValues, type LimitValues } from "@/lib/schemas/spec";
 import { Job, JobLimit } from "@/models";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";
 import { getSequelize } from "@/lib/server/core/db";

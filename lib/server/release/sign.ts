@@ -3,7 +3,7 @@ import { isJobLocked } from "@/lib/domain";
 import bcrypt from "bcryptjs";
 import type { ReleaseRecord, ReopenInput, SignInput } from "@/lib/schemas/release";
 import type { JsonValue } from "@/lib/schemas/json";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";
 import { getSequelize } from "@/lib/server/core/db";

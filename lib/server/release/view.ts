@@ -1,7 +1,7 @@
 import "server-only";
 import { isJobLocked, type Verdict } from "@/lib/domain";
 import type { FlagSummary, ReadingCounts, ReleaseJobSummary, ReleaseView } from "@/lib/schemas/release";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { listJobs } from "@/lib/server/jobs/repo";
 import { checklistOf } from "@/lib/server/release/checklist";
 import { characteristicWords, currentReadings, stationWords } from "@/lib/server/release/checklist-rules";

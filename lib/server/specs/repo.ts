@@ -8,7 +8,7 @@ import {
   type TemplateValues,
 } from "@/lib/schemas/spec";
 import { Job, SpecLimit, SpecTemplate, type JobLimit } from "@/models";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { getSequelize } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";

@@ -1,6 +1,6 @@
 import "server-only";
 import type { ReadingEvaluation } from "@/lib/schemas/sync";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import type { AuditInput } from "@/lib/server/log/audit";
 import type { StoredReading } from "@/lib/schemas/readings";
 

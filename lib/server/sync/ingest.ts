@@ -10,7 +10,7 @@ import {
   type PushResult,
   type ReadingEvaluation,
 } from "@/lib/schemas/sync";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { recordAudits, recordChanges } from "@/lib/server/log/bulk";
 import { syncAudits } from "@/lib/server/sync/ingest-audit";
 import { getSequelize } from "@/lib/server/core/db";

@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { UniqueConstraintError } from "sequelize";
 import { uploadFieldsSchema, type UploadFields } from "@/lib/schemas/attachment";
-import type { Actor } from "@/lib/server/core/access";
+import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { getSequelize } from "@/lib/server/core/db";
 import { env } from "@/lib/server/core/env";
