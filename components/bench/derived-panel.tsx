@@ -8,17 +8,6 @@ import { figure, UNIT_WORDS } from "./units";
 // Derived values for the part being measured (taper and out-of-round of this bore, its
 // piston-to-wall, the oil clearance at this bearing point, this bolt's stretch), live from the
 // core as soon as their inputs exist, with verdicts.
-function partOf(stationId: string): string {
-  const seg = stationId.split("/");
-  if (seg[0] === "bolt") return seg.slice(0, 3).join("/");
-  return seg.slice(0, 2).join("/");
-}
-
-/** Which stations' derived values the panel shows for `stationId`: those of the same part. */
-export function onSamePart(stationId: string): (input: string) => boolean {
-  const part = partOf(stationId);
-  return (input) => partOf(input) === part;
-}
 
 /** Where on the part a value applies ("front end · axis A"), without the part's name again. */
 function where(d: DerivedValue): string {

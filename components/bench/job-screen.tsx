@@ -7,7 +7,7 @@ import { Button } from "@/components/ui/button";
 import { chosenGauge, useBenchEntry } from "@/hooks/use-bench-entry";
 import type { JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "@/lib/offline/db";
-import { gaugesFor, isDialBoreGauge } from "@/lib/domain";
+import { gaugesFor, isDialBoreGauge, onSamePart } from "@/lib/domain";
 import { dialGroup } from "@/lib/offline/entry";
 import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { derivedFor } from "@/lib/offline/preview";
@@ -19,7 +19,7 @@ import {
   type StationView,
 } from "@/lib/offline/route-status";
 import { useBench } from "./bench-context";
-import { DerivedPanel, onSamePart } from "./derived-panel";
+import { DerivedPanel } from "./derived-panel";
 import { EntryPanel } from "./entry-panel";
 import { LastEntryCard } from "./last-entry";
 import { LubricantPicker } from "./lubricant-picker";

@@ -188,12 +188,19 @@ function contextFor(characteristic: CharacteristicId, engine: EngineShape, measu
 const joinNotes = (...notes: (string | undefined)[]): string | undefined =>
   notes.filter(Boolean).join("; ") || undefined;
 
-function boreMean(
-  cylinder: number | undefined,
-  readings: Map<string, Prepared>,
-  engine: EngineShape,
-): number | undefined {
-  const values = BORE_DEPTHS.flatMap((d) => AXES.map((a) => readings.get(`bore/${cylinder}/${d}/${a}`)))
+/**
+ * Stations whose readings the limit at `stationId` reads: a ring gap's limit may scale with its
+ * cylinder's bore (per inch of diameter), taken as the mean of that bore's readings.
+ */
+export function limitInputs(stationId: string): string[] {
+  const station = parseStationId(stationId);
+  if (station.characteristic !== "ring_end_gap") return [];
+  return BORE_DEPTHS.flatMap((d) => AXES.map((a) => `bore/${station.cylinder}/${d}/${a}`));
+}
+
+function boreMean(stations: string[], readings: Map<string, Prepared>, engine: EngineShape): number | undefined {
+  const values = stations
+    .map((id) => readings.get(id))
     .filter((p): p is Prepared => p !== undefined)
     .map((p) => toEngineUnit(p, engine));
   return values.length ? cleanDecimal(values.reduce((s, v) => s + v, 0) / values.length) : undefined;
@@ -237,12 +244,9 @@ export function evaluateReading(
       `Station '${reading.stationId}' is not on this engine's route (${engine.cylinders} cylinders, ${engine.mains} mains)`,
     );
   }
-  const station = parseStationId(reading.stationId);
-  const boreReadings = readings.filter((r) => r?.stationId?.startsWith(`bore/${station.cylinder}/`));
-  const bore =
-    p.characteristic === "ring_end_gap"
-      ? boreMean(station.cylinder, prepareAll(boreReadings, engine).ok, engine)
-      : undefined;
+  const sizeFrom = new Set(limitInputs(reading.stationId));
+  const sizeReadings = sizeFrom.size ? readings.filter((r) => sizeFrom.has(r?.stationId)) : [];
+  const bore = sizeFrom.size ? boreMean([...sizeFrom], prepareAll(sizeReadings, engine).ok, engine) : undefined;
   const found = limitsFor(spec, p.characteristic, reading.stationId, contextFor(p.characteristic, engine, bore));
   const base: Evaluation = found.limits
     ? judge(p.value, p.unit, p.uncertainty, found.limits)
@@ -346,7 +350,7 @@ function derive(
   const unit = lengthUnitOf(engine);
   const missing = inputs.filter((id) => !ok.has(id));
   const head = {
-    key: `${characteristic}@${stationId}`,
+    key: derivedKey(characteristic, stationId),
     characteristic,
     stationId,
     label: `${CHARACTERISTICS[characteristic].label} · ${describeStation(stationId)}`,
@@ -382,6 +386,24 @@ function derive(
     ...(corrections.length ? { corrections } : {}),
     ...(note ? { note } : {}),
   };
+}
+
+const derivedKey = (characteristic: DerivedCharacteristic, stationId: string) => `${characteristic}@${stationId}`;
+
+// Recipes depend only on the engine's shape; keyed by its JSON, like the route above.
+const inputsCache = new Map<string, ReadonlyMap<string, readonly string[]>>();
+
+/** Each derived value's key (`${characteristic}@${stationId}`) with the stations it is computed from. */
+export function derivedInputs(engine: EngineShape): ReadonlyMap<string, readonly string[]> {
+  const key = JSON.stringify(engine);
+  let inputs = inputsCache.get(key);
+  if (!inputs) {
+    checkEngineShape(engine);
+    if (inputsCache.size > 50) inputsCache.clear();
+    inputs = new Map(recipes(engine).map((r) => [derivedKey(r.characteristic, r.stationId), r.inputs]));
+    inputsCache.set(key, inputs);
+  }
+  return inputs;
 }
 
 export interface DeriveOptions {

@@ -23,3 +23,4 @@ export * from "./progress";
 export * from "./job-lock";
 export * from "./gauges";
 export * from "./reading-input";
+export * from "./reach";

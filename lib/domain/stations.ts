@@ -236,6 +236,25 @@ export function parseStationId(id: string): ParsedStation {
   return out as unknown as ParsedStation;
 }
 
+// The bench asks after every entry for each input of the part's recipes: parse each id once.
+const parts = new Map<string, string>();
+
+/**
+ * The part a station is on ("bore/3/top/A" → "bore/3", "bolt/2/1/free" → "bolt/2/1"): the id the
+ * grammar gives the part's derived values where it has one, else the section and its first segment.
+ */
+export function partOf(id: string): string {
+  let part = parts.get(id);
+  if (part === undefined) {
+    const { section } = parseStationId(id);
+    const segments = id.split("/");
+    part = segments.slice(0, 1 + (GRAMMAR[section].partLength ?? 1)).join("/");
+    if (parts.size > 5000) parts.clear();
+    parts.set(id, part);
+  }
+  return part;
+}
+
 const DEPTH_WORDS: Record<BoreDepth, string> = { top: "top of bore", mid: "middle of bore", bottom: "bottom of bore" };
 const BORE_AXIS: Record<Axis, string> = { A: "axis A (thrust)", B: "axis B (pin)" };
 const BEARING_AXIS: Record<Axis, string> = { A: "axis A (square to cap joint)", B: "axis B (90° from A)" };

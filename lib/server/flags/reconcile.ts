@@ -214,7 +214,7 @@ export async function reconcileJob(
   // Past due is a fact of the moment of measurement: once stored, a later recalibration of the
   // gauge (a new due date) must not clear it.
   const past = current.map((r) => r.verdictNote === "gauge_past_due" || gaugePastDue(inst(r), r.takenAt));
-  const evals = evaluateCurrent(ctx, current, raws, past, toJudge(current, o.fresh));
+  const evals = evaluateCurrent(ctx, current, raws, past, toJudge(ctx, o.fresh));
   const log: ReconcileLog = o.log ?? { audits: [], changes: [] };
   const reevaluated = await storeEvaluations(t, o, current, evals, log);
 
