@@ -20,7 +20,7 @@ async function add(stationId: string, characteristic: string, value: number, min
     jobId: s.job.id,
     stationId,
     characteristic,
-    value: value,
+    value,
     valueCanonical: value * 25.4,
     unit: "in",
     takenBy: s.users.machinist.id,
