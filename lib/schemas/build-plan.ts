@@ -4,7 +4,7 @@
 // ratio as a plain ratio. Every figure may be left empty while the plan is being worked out;
 // the page computes what the figures present allow.
 import { z } from "zod";
-import { UNIT_SYSTEMS } from "@/lib/schemas/enums";
+import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
 
 export const PISTON_TOPS = ["flat", "dish", "dome"] as const;
 
@@ -84,3 +84,10 @@ export function pistonCcOf(plan: Pick<BuildPlan, "pistonTop" | "pistonVolumeCc">
   const v = plan.pistonVolumeCc ?? 0;
   return plan.pistonTop === "dish" ? v : plan.pistonTop === "dome" ? -v : 0;
 }
+
+/** GET /api/jobs/:id/build-plan: the stored plan (null when none or no longer valid) and what it needs of the job. */
+export type BuildPlanView = {
+  plan: BuildPlan | null;
+  job: { id: number; code: string; title: string; unitSystem: UnitSystem; locked: boolean };
+  engine: { cylinders: number; nominalBore: number; nominalStroke: number; description: string };
+};

@@ -2,8 +2,17 @@
 // in, the unit system, the template whose limits the job copies, due date and status. The
 // form (react-hook-form) and POST/PATCH /api/jobs check with these same schemas.
 import { z } from "zod";
-import { ENGINE_LAYOUTS, EXPANSION_COEFFICIENTS, OPEN_JOB_STATUSES, checkEngineShape } from "@/lib/domain";
-import { FUELS, UNIT_SYSTEMS } from "@/lib/schemas/enums";
+import {
+  ENGINE_LAYOUTS,
+  EXPANSION_COEFFICIENTS,
+  OPEN_JOB_STATUSES,
+  checkEngineShape,
+  type EngineLayout,
+  type JobStatus,
+  type Verdict,
+} from "@/lib/domain";
+import { FUELS, UNIT_SYSTEMS, type Fuel, type UnitSystem } from "@/lib/schemas/enums";
+import type { LimitValues } from "./spec";
 
 /** Statuses the desk sets: the open ones; released and closed belong to the release step. */
 export const DESK_STATUSES = OPEN_JOB_STATUSES;
@@ -132,3 +141,103 @@ export type JobEditValues = z.output<typeof jobEditSchema>;
 
 export const customerSchema = z.strictObject(customerPickSchema.options[1].omit({ mode: true }).shape);
 export type CustomerValues = z.output<typeof customerSchema>;
+
+// What the desk's job routes answer (GET /api/jobs, /api/jobs/:id, /api/jobs/:id/limits, /api/customers).
+
+export type CustomerRecord = { id: number; name: string; email: string | null; phone: string | null };
+
+export type JobSummary = {
+  id: number;
+  code: string;
+  title: string;
+  status: JobStatus;
+  unitSystem: UnitSystem;
+  dueDate: string | null;
+  customer: string;
+  engine: string;
+};
+
+/** A row of the jobs board; progress is null for a closed job (its record is final). */
+export type BoardJob = JobSummary & {
+  progress: { done: number; required: number } | null;
+  flags: { open: number; disposed: number };
+  updatedAt: string;
+};
+
+export type VerdictCounts = Record<Verdict, number>;
+
+export type SectionSummary = {
+  id: string;
+  label: string;
+  stations: number;
+  measured: number;
+  required: number;
+  requiredDone: number;
+  verdicts: VerdictCounts;
+};
+
+export type JobDetail = {
+  job: {
+    id: number;
+    code: string;
+    title: string;
+    status: JobStatus;
+    unitSystem: UnitSystem;
+    dueDate: string | null;
+    notes: string | null;
+    specRevision: number;
+    locked: boolean;
+    templateId: number | null;
+    templateName: string | null;
+    limitCount: number;
+    hasBuildPlan: boolean;
+    createdAt: string;
+    updatedAt: string;
+  };
+  customer: CustomerRecord;
+  engine: {
+    description: string;
+    cylinders: number;
+    layout: EngineLayout;
+    mains: number;
+    valvesPerCylinder: number;
+    ringsPerPiston: number;
+    boltsPerRod: number;
+    nominalBore: number;
+    nominalStroke: number;
+    blockMaterial: string;
+    headMaterial: string | null;
+    pistonMaterial: string | null;
+    blockSerial: string | null;
+    crankSerial: string | null;
+    headSerials: string | null;
+    fuel: Fuel | null;
+  };
+  flags: { open: number; disposed: number; closed: number };
+  summary: {
+    readingCount: number;
+    currentCount: number;
+    /** Empty, with routeError saying why, when the core cannot lay out the engine's route. */
+    sections: SectionSummary[];
+    derived: VerdictCounts & { pending: number };
+    routeError: string | null;
+  };
+};
+
+/** A job's own limit snapshot, as the limits page edits it. */
+export type JobLimitsView = {
+  job: {
+    id: number;
+    code: string;
+    title: string;
+    unitSystem: UnitSystem;
+    status: JobStatus;
+    locked: boolean;
+    specRevision: number;
+  };
+  limits: LimitValues[];
+};
+
+export type LimitsSaved = JobLimitsView & {
+  result: { reevaluated: number; opened: number; closed: number; updated: number };
+};

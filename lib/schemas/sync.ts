@@ -46,7 +46,7 @@
 // GET /api/bench/jobs/:jobId  (machinist, lead) → JobPack, everything the tablet stores to work offline.
 import { z } from "zod";
 import { ENTRY_MODES, LUBRICANT_LABELS, MEASURE_UNITS, parseStationId } from "@/lib/domain";
-import type { BenchRoute, EngineShape, EntryMode, JobStatus, Lubricant, SpecLimit, Verdict } from "@/lib/domain";
+import type { BenchRoute, EngineShape, JobStatus, Lubricant, SpecLimit, Verdict } from "@/lib/domain";
 import type { Disposition, FlagReason, FlagState, UnitSystem } from "./enums";
 import type { StoredReading } from "@/lib/schemas/readings";
 

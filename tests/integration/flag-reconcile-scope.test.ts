@@ -9,7 +9,7 @@ import { benchRoute } from "@/lib/domain";
 import { getSequelize } from "@/lib/server/core/db";
 import { reconcileJob } from "@/lib/server/flags/reconcile";
 import { ingestStations } from "@/lib/server/flags/reconcile-scope";
-import { loadJobContext } from "@/lib/server/jobs/context";
+import { loadJobContext } from "@/lib/server/jobs/repo";
 import { createShop, type TestShop } from "../support/factories";
 import { flagsOf, later, push, reading } from "../api/sync-fixtures";
 

@@ -1,5 +1,5 @@
 import { customerSchema } from "@/lib/schemas/job";
-import { createCustomer, listCustomers } from "@/lib/server/jobs/admin-repo";
+import { createCustomer, listCustomers } from "@/lib/server/job-edit/repo";
 import { authed, readJson } from "@/lib/server/core/route";
 
 export const GET = authed(["lead", "admin"], async ({ actor }) => ({ customers: await listCustomers(actor.shopId) }));

@@ -1,6 +1,6 @@
 import { jobSchema } from "@/lib/schemas/job";
 import { listJobBoard } from "@/lib/server/jobs/board";
-import { createJob } from "@/lib/server/jobs/admin-repo";
+import { createJob } from "@/lib/server/job-edit/repo";
 import { authed, readJson } from "@/lib/server/core/route";
 
 /** The jobs board: every job of the shop with progress and open flags. */

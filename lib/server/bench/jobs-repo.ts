@@ -4,12 +4,13 @@ import { Customer, Engine, Job } from "@/models";
 import { OPEN_JOB_STATUSES, isJobLocked, jobLockReason } from "@/lib/domain";
 import type { BenchJobHeader } from "@/lib/schemas/sync";
 import { getSequelize } from "@/lib/server/core/db";
+import type { JobRow } from "@/lib/server/jobs/repo";
 
 // Jobs as the tablet sees them: header (status, lock), customer and engine names, and progress.
 
 type JobWithNames = Job & { customer?: Customer; engine?: Engine };
 
-export function toHeader(j: Job): BenchJobHeader {
+export function toHeader(j: JobRow): BenchJobHeader {
   const lockReason = jobLockReason(j);
   return {
     id: j.id,

@@ -5,7 +5,7 @@ import { FlagDisposition, User } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
 import { getFlagOrThrow, stationWords, toListItem } from "@/lib/server/flags/repo";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
-import { loadJobContext } from "@/lib/server/jobs/context";
+import { loadJobContext } from "@/lib/server/jobs/repo";
 import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { listAttachments } from "@/lib/server/uploads/repo";

@@ -8,7 +8,8 @@ import { recordAudits, recordChanges, type ChangeInput } from "@/lib/server/log/
 import { newestInput, planFlags, wantedDerived, wantedRaw, type Closer } from "@/lib/server/flags/reconcile-plan";
 import { derivedScope, ingestStations, toJudge } from "@/lib/server/flags/reconcile-scope";
 import { gaugePastDue, round6, sameEvaluation, storedEvaluation, toRaw } from "@/lib/server/sync/ingest-evaluate";
-import { loadJobContext, type JobContext } from "@/lib/server/jobs/context";
+import type { JobContext } from "@/lib/server/jobs/context";
+import { loadJobContext } from "@/lib/server/jobs/repo";
 import { currentReadings, jobReadingsWithGauges, lockJobs, updateEvaluation } from "@/lib/server/readings/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { settleAll } from "@/lib/server/core/sql-driver";

@@ -1,15 +1,13 @@
 import "server-only";
-import { Op, literal, type Transaction } from "sequelize";
 import { EXPANSION_COEFFICIENTS, type EngineShape, type SpecLimit } from "@/lib/domain";
-import { Engine, Job, JobLimit } from "@/models";
-import { getSequelize } from "@/lib/server/core/db";
-import { notFound } from "@/lib/server/core/errors";
+import type { UnitSystem } from "@/lib/schemas/enums";
+import type { EngineRow, JobLimitRow, JobRow } from "@/lib/server/jobs/repo";
 
 // The one edge where database rows become the domain core's shapes:
 // Engine → EngineShape, JobLimit → SpecLimit. Sync, re-evaluation, review, release and the
 // build record all go through here.
 type LimitRow = Pick<
-  JobLimit,
+  JobLimitRow,
   | "characteristic"
   | "stationPattern"
   | "limitType"
@@ -48,7 +46,20 @@ export function toSpecLimit(row: LimitRow): SpecLimit {
   return out as unknown as SpecLimit;
 }
 
-export function toEngineShape(engine: Engine, jobUnitSystem: "in" | "mm"): EngineShape {
+type EngineFields = Pick<
+  EngineRow,
+  | "cylinders"
+  | "layout"
+  | "mains"
+  | "valvesPerCylinder"
+  | "boltsPerRod"
+  | "ringsPerPiston"
+  | "blockMaterial"
+  | "pistonMaterial"
+  | "nominalBore"
+>;
+
+export function toEngineShape(engine: EngineFields, jobUnitSystem: UnitSystem): EngineShape {
   const materials: EngineShape["materials"] = {};
   if (isMaterial(engine.blockMaterial)) materials.block = engine.blockMaterial;
   if (isMaterial(engine.pistonMaterial)) materials.pistons = engine.pistonMaterial;
@@ -65,30 +76,5 @@ export function toEngineShape(engine: Engine, jobUnitSystem: "in" | "mm"): Engin
   };
 }
 
-export type JobContext = { job: Job; engine: Engine; shape: EngineShape; spec: SpecLimit[] };
-
-/** A job of this shop with its engine shape and its own limit snapshot; 404 for any other shop. */
-export async function loadJobContext(shopId: number, jobId: number, t?: Transaction): Promise<JobContext> {
-  getSequelize();
-  // All three at once (inside a transaction they share its connection and go out in one round
-  // trip); the engine is found through this shop's job, so nothing of another shop is read.
-  // (Op.eq is needed: a bare literal as a where value becomes the whole condition.)
-  const engineOfJob = literal(
-    `(SELECT engine_id FROM jobs WHERE id = ${Number(jobId)} AND shop_id = ${Number(shopId)})`,
-  );
-  const [job, engine, limits] = await Promise.all([
-    Job.findOne({ where: { id: jobId, shopId }, transaction: t }),
-    Engine.findOne({ where: { id: { [Op.eq]: engineOfJob } }, transaction: t }),
-    JobLimit.findAll({
-      where: { jobId },
-      order: [
-        ["sortOrder", "ASC"],
-        ["id", "ASC"],
-      ],
-      transaction: t,
-    }),
-  ]);
-  if (!job) throw notFound("Job");
-  if (!engine) throw notFound("Engine");
-  return { job, engine, shape: toEngineShape(engine, job.unitSystem), spec: limits.map(toSpecLimit) };
-}
+/** A job of this shop with its engine, the engine's shape and the job's own limit snapshot (repo.ts loads it). */
+export type JobContext = { job: JobRow; engine: EngineRow; shape: EngineShape; spec: SpecLimit[] };

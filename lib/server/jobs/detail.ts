@@ -1,26 +1,14 @@
 import "server-only";
-import { fn, col } from "sequelize";
-import { benchRoute, deriveReadings, isJobLocked, type Verdict } from "@/lib/domain";
-import { Customer, Flag, SpecTemplate } from "@/models";
-import { loadJobContext, type JobContext } from "@/lib/server/jobs/context";
+import { benchRoute, deriveReadings, isJobLocked } from "@/lib/domain";
+import type { JobDetail, SectionSummary, VerdictCounts } from "@/lib/schemas/job";
+import type { JobContext } from "@/lib/server/jobs/context";
 import { loadJobReadings, measuredStations, requiredStationIds, type JobReadings } from "@/lib/server/jobs/readings";
-import type { JobStatus } from "@/lib/domain";
+import { findCustomer, flagCountsByJob, loadJobContext, templateName } from "@/lib/server/jobs/repo";
 
 // One job for its desk page: header fields, the engine as entered, and a readings summary per
 // bench section (required stations done, as the release checklist counts them; verdicts of the
 // current values) plus the verdicts of the derived values.
-type Counts = Record<Verdict, number>;
-const zero = (): Counts => ({ in_spec: 0, marginal: 0, out_of_spec: 0 });
-
-export type SectionSummary = {
-  id: string;
-  label: string;
-  stations: number;
-  measured: number;
-  required: number;
-  requiredDone: number;
-  verdicts: Counts;
-};
+const zero = (): VerdictCounts => ({ in_spec: 0, marginal: 0, out_of_spec: 0 });
 
 function sectionsOf(ctx: JobContext, readings: JobReadings, done: Set<string>): SectionSummary[] {
   const byStation = new Map(readings.current.map((r) => [r.stationId, r]));
@@ -61,41 +49,29 @@ function summarise(ctx: JobContext, readings: JobReadings, done: Set<string>) {
   }
 }
 
-async function flagCounts(shopId: number, jobId: number) {
-  const rows = (await Flag.findAll({
-    where: { shopId, jobId },
-    attributes: ["state", [fn("COUNT", col("id")), "n"]],
-    group: ["state"],
-    raw: true,
-  })) as unknown as { state: string; n: number | string }[];
-  const out = { open: 0, disposed: 0, closed: 0 };
-  for (const r of rows) out[r.state as keyof typeof out] = Number(r.n);
-  return out;
-}
-
-export async function getJobDetail(shopId: number, jobId: number) {
+export async function getJobDetail(shopId: number, jobId: number): Promise<JobDetail> {
   const ctx = await loadJobContext(shopId, jobId);
   const { job, engine } = ctx;
   const [customer, template, readings, measured, flags] = await Promise.all([
-    Customer.findByPk(job.customerId),
-    job.templateId ? SpecTemplate.findByPk(job.templateId, { attributes: ["id", "name"] }) : null,
+    findCustomer(job.customerId),
+    templateName(job.templateId),
     loadJobReadings(shopId, jobId),
     measuredStations(shopId, [jobId]),
-    flagCounts(shopId, jobId),
+    flagCountsByJob(shopId, [jobId]),
   ]);
   return {
     job: {
       id: job.id,
       code: job.code,
       title: job.title,
-      status: job.status as JobStatus,
+      status: job.status,
       unitSystem: job.unitSystem,
       dueDate: job.dueDate ?? null,
       notes: job.notes ?? null,
       specRevision: job.specRevision,
       locked: isJobLocked(job),
       templateId: job.templateId ?? null,
-      templateName: template?.name ?? null,
+      templateName: template,
       limitCount: ctx.spec.length,
       hasBuildPlan: !!job.buildPlan,
       createdAt: job.createdAt.toISOString(),
@@ -125,9 +101,7 @@ export async function getJobDetail(shopId: number, jobId: number) {
       headSerials: engine.headSerials ?? null,
       fuel: engine.fuel ?? null,
     },
-    flags,
+    flags: flags.get(jobId)!,
     summary: summarise(ctx, readings, measured.get(jobId) ?? new Set()),
   };
 }
-
-export type JobDetail = Awaited<ReturnType<typeof getJobDetail>>;

@@ -1,20 +1,15 @@
 import "server-only";
 import { isJobLocked } from "@/lib/domain";
-import { buildPlanSchema, type BuildPlan } from "@/lib/schemas/build-plan";
-import { Engine, Job } from "@/models";
+import { buildPlanSchema, type BuildPlan, type BuildPlanView } from "@/lib/schemas/build-plan";
 import type { JsonObject } from "@/lib/schemas/json";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { getSequelize } from "@/lib/server/core/db";
-import { AppError, notFound } from "@/lib/server/core/errors";
-import { assertJobEditable } from "@/lib/server/jobs/admin-repo";
+import { AppError } from "@/lib/server/core/errors";
+import { assertJobEditable } from "@/lib/server/jobs/editable";
+import { getEngineOrThrow, getJobOrThrow, lockJobOrThrow, saveJobBuildPlan } from "@/lib/server/jobs/repo";
 
 // The build plan lives on jobs.build_plan as the schema's JSON (units written in).
-export type BuildPlanView = {
-  plan: BuildPlan | null;
-  job: { id: number; code: string; title: string; unitSystem: "in" | "mm"; locked: boolean };
-  engine: { cylinders: number; nominalBore: number; nominalStroke: number; description: string };
-};
 
 /** A stored plan read back through the schema, so an old or hand-edited value never reaches the page unchecked. */
 function parseStored(raw: unknown): BuildPlan | null {
@@ -24,11 +19,8 @@ function parseStored(raw: unknown): BuildPlan | null {
 }
 
 export async function getBuildPlan(shopId: number, jobId: number): Promise<BuildPlanView> {
-  getSequelize();
-  const job = await Job.findOne({ where: { id: jobId, shopId } });
-  if (!job) throw notFound("Job");
-  const engine = await Engine.findByPk(job.engineId);
-  if (!engine) throw notFound("Engine");
+  const job = await getJobOrThrow(shopId, jobId);
+  const engine = await getEngineOrThrow(job.engineId);
   return {
     plan: parseStored(job.buildPlan),
     job: { id: job.id, code: job.code, title: job.title, unitSystem: job.unitSystem, locked: isJobLocked(job) },
@@ -43,23 +35,21 @@ export async function getBuildPlan(shopId: number, jobId: number): Promise<Build
 
 export async function saveBuildPlan(actor: Actor, jobId: number, plan: BuildPlan): Promise<void> {
   await getSequelize().transaction(async (t) => {
-    const job = await Job.findOne({ where: { id: jobId, shopId: actor.shopId }, transaction: t, lock: t.LOCK.UPDATE });
-    if (!job) throw notFound("Job");
+    const job = await lockJobOrThrow(t, actor.shopId, jobId);
     assertJobEditable(job);
     if (plan.lengthUnit !== job.unitSystem) {
       throw new AppError("invalid", "Some fields need fixing", {
         lengthUnit: [`This job is in ${job.unitSystem}; enter the plan in ${job.unitSystem}`],
       });
     }
-    const before = job.buildPlan;
-    await job.update({ buildPlan: plan as unknown as JsonObject }, { transaction: t });
+    await saveJobBuildPlan(t, jobId, plan as unknown as JsonObject);
     await recordAudit(t, {
       shopId: actor.shopId,
       userId: actor.userId,
       action: "job.build_plan",
       entityType: "job",
       entityId: jobId,
-      before,
+      before: job.buildPlan,
       after: plan,
     });
   });

@@ -1,8 +1,5 @@
 import "server-only";
-import { Op } from "sequelize";
 import type { RawReading, Station } from "@/lib/domain";
-import { Reading } from "@/models";
-import { getSequelize } from "@/lib/server/core/db";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import type { JobContext } from "@/lib/server/jobs/context";
 import {
@@ -12,6 +9,7 @@ import {
 import type { JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";
+import { readingChains } from "@/lib/server/jobs/repo";
 import { listUsers } from "@/lib/server/users/repo";
 
 // A job's readings as the desk reads them, through the rules the rest of the server uses:
@@ -28,16 +26,10 @@ export function requiredStationIds(ctx: Pick<JobContext, "spec" | "shape">, stat
 
 /** Per job, the stations whose current reading (release rule) is a measured value, not a skip. */
 export async function measuredStations(shopId: number, jobIds: number[]): Promise<Map<number, Set<string>>> {
-  getSequelize();
   const out = new Map<number, Set<string>>(jobIds.map((id) => [id, new Set()]));
-  if (!jobIds.length) return out;
-  const rows = await Reading.findAll({
-    where: { shopId, jobId: { [Op.in]: jobIds } },
-    attributes: ["id", "jobId", "stationId", "supersedes", "skipped", "takenAt", "receivedAt"],
-  });
   const byJob = new Map<number, StoredReading[]>();
-  for (const r of rows)
-    (byJob.get(r.jobId) ?? byJob.set(r.jobId, []).get(r.jobId)!).push(r.get({ plain: true }) as StoredReading);
+  for (const r of await readingChains(shopId, jobIds))
+    (byJob.get(r.jobId) ?? byJob.set(r.jobId, []).get(r.jobId)!).push(r as StoredReading);
   for (const [jobId, list] of byJob) {
     for (const r of releaseCurrent(list).values()) if (!r.skipped) out.get(jobId)?.add(r.stationId);
   }

@@ -1,35 +1,19 @@
 import "server-only";
 import { isJobLocked } from "@/lib/domain";
+import type { JobLimitsView, LimitsSaved } from "@/lib/schemas/job";
 import { compactLimit, type JobLimitsValues, type LimitValues } from "@/lib/schemas/spec";
-import { Job, JobLimit } from "@/models";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";
 import { getSequelize } from "@/lib/server/core/db";
-import { AppError, notFound } from "@/lib/server/core/errors";
+import { AppError } from "@/lib/server/core/errors";
 import { reconcileJob } from "@/lib/server/flags/reconcile";
-import { loadJobContext } from "@/lib/server/jobs/context";
-import { assertJobEditable } from "@/lib/server/jobs/admin-repo";
+import { assertJobEditable } from "@/lib/server/jobs/editable";
+import { loadJobContext, lockJobOrThrow, replaceJobLimitRows } from "@/lib/server/jobs/repo";
 import { limitRow } from "@/lib/server/specs/repo";
 
 // A job's own limit snapshot: read it, or replace it and re-evaluate the job's readings and
 // flags against the new limits, all in one transaction (flag-reconcile.ts does the judging).
-export type JobLimitsView = {
-  job: {
-    id: number;
-    code: string;
-    title: string;
-    unitSystem: "in" | "mm";
-    status: string;
-    locked: boolean;
-    specRevision: number;
-  };
-  limits: LimitValues[];
-};
-export type LimitsSaved = JobLimitsView & {
-  result: { reevaluated: number; opened: number; closed: number; updated: number };
-};
-
 export async function getJobLimits(shopId: number, jobId: number): Promise<JobLimitsView> {
   const { job, spec } = await loadJobContext(shopId, jobId);
   return {
@@ -48,8 +32,7 @@ export async function getJobLimits(shopId: number, jobId: number): Promise<JobLi
 
 export async function replaceJobLimits(actor: Actor, jobId: number, v: JobLimitsValues): Promise<LimitsSaved> {
   const result = await getSequelize().transaction(async (t) => {
-    const job = await Job.findOne({ where: { id: jobId, shopId: actor.shopId }, transaction: t, lock: t.LOCK.UPDATE });
-    if (!job) throw notFound("Job");
+    const job = await lockJobOrThrow(t, actor.shopId, jobId);
     assertJobEditable(job);
     if (v.specRevision !== job.specRevision) {
       throw new AppError(
@@ -59,14 +42,9 @@ export async function replaceJobLimits(actor: Actor, jobId: number, v: JobLimits
       );
     }
     const before = (await loadJobContext(actor.shopId, jobId, t)).spec.map((l) => compactLimit(l as LimitValues));
-    await JobLimit.destroy({ where: { jobId }, transaction: t });
-    await JobLimit.bulkCreate(
-      v.limits.map((l, i) => ({ ...limitRow(l, i), jobId })),
-      { transaction: t },
-    );
     const from = job.specRevision;
     const revision = from + 1;
-    await job.update({ specRevision: revision }, { transaction: t });
+    await replaceJobLimitRows(t, jobId, v.limits.map(limitRow), revision);
     const r = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, cause: "limits_changed" });
     const after = (await loadJobContext(actor.shopId, jobId, t)).spec.map((l) => compactLimit(l as LimitValues));
     await recordAudit(t, {

@@ -1,38 +1,36 @@
 import "server-only";
-import { Customer, Engine, Job } from "@/models";
-import { getSequelize } from "@/lib/server/core/db";
+import { Op, col, fn, literal, type InferAttributes, type Transaction } from "sequelize";
+import type { JobStatus, SpecLimit } from "@/lib/domain";
+import { FLAG_STATES, type FlagState } from "@/lib/schemas/enums";
+import type { JobSummary } from "@/lib/schemas/job";
+import type { JsonObject } from "@/lib/schemas/json";
+import type { StoredReading } from "@/lib/schemas/readings";
+import type { Customer, Engine, Job, JobLimit } from "@/models";
+import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
-import type { JobStatus } from "@/lib/domain";
-import type { UnitSystem } from "@/lib/schemas/enums";
+import { toEngineShape, toSpecLimit, type JobContext } from "@/lib/server/jobs/context";
 
-export type JobSummary = {
-  id: number;
-  code: string;
-  title: string;
-  status: JobStatus;
-  unitSystem: UnitSystem;
-  dueDate: string | null;
-  customer: string;
-  engine: string;
-};
+// The jobs feature's only door to the database: jobs, their engines, their own limit snapshots
+// and the counts the desk shows. Plain objects out; every query is scoped by the shop.
 
-function reshape(j: Job & { customer?: Customer; engine?: Engine }): JobSummary {
-  return {
-    id: j.id,
-    code: j.code,
-    title: j.title,
-    status: j.status,
-    unitSystem: j.unitSystem,
-    dueDate: j.dueDate ?? null,
-    customer: j.customer?.name ?? "",
-    engine: j.engine?.description ?? "",
-  };
-}
+export type JobRow = InferAttributes<Job>;
+export type EngineRow = InferAttributes<Engine>;
+export type JobLimitRow = InferAttributes<JobLimit>;
+export type CustomerRow = InferAttributes<Customer>;
+/** A job with its customer's name and its engine, as the board lists them. */
+export type JobWithParties = JobRow & { customerName: string; engine: EngineRow | null };
+export type FlagCounts = Record<FlagState, number>;
 
-export async function listJobs(shopId: number, statuses?: JobStatus[]): Promise<JobSummary[]> {
-  getSequelize();
+const plain = <T extends object>(row: { get(o: { plain: true }): T }): T => row.get({ plain: true });
+const LIMIT_ORDER: [string, string][] = [
+  ["sortOrder", "ASC"],
+  ["id", "ASC"],
+];
+
+async function jobsWithNames(shopId: number, statuses?: readonly JobStatus[]): Promise<JobWithParties[]> {
+  const { Customer, Engine, Job } = models();
   const rows = await Job.findAll({
-    where: { shopId, ...(statuses ? { status: statuses } : {}) },
+    where: { shopId, ...(statuses ? { status: [...statuses] } : {}) },
     include: [
       { model: Customer, as: "customer" },
       { model: Engine, as: "engine" },
@@ -42,13 +40,140 @@ export async function listJobs(shopId: number, statuses?: JobStatus[]): Promise<
       ["id", "ASC"],
     ],
   });
-  return rows.map((r) => reshape(r as Job & { customer?: Customer; engine?: Engine }));
+  return rows.map((j) => {
+    const { customer, engine, ...job } = plain<JobRow & { customer?: CustomerRow; engine?: EngineRow }>(j);
+    return { ...job, customerName: customer?.name ?? "", engine: engine ?? null };
+  });
 }
 
+/** Every job of the shop, soonest due first (all of them, or those in `statuses`). */
+export async function listJobs(shopId: number, statuses?: readonly JobStatus[]): Promise<JobSummary[]> {
+  return (await jobsWithNames(shopId, statuses)).map((j) => ({
+    id: j.id,
+    code: j.code,
+    title: j.title,
+    status: j.status,
+    unitSystem: j.unitSystem,
+    dueDate: j.dueDate ?? null,
+    customer: j.customerName,
+    engine: j.engine?.description ?? "",
+  }));
+}
+
+/** The board's rows: every job with its customer's name and its engine. */
+export const listJobsWithParties = (shopId: number) => jobsWithNames(shopId);
+
 /** A job of this shop, or a 404 that never reveals whether another shop has it. */
-export async function getJobOrThrow(shopId: number, jobId: number) {
-  getSequelize();
-  const job = await Job.findOne({ where: { id: jobId, shopId } });
+export async function getJobOrThrow(shopId: number, jobId: number, t?: Transaction): Promise<JobRow> {
+  const job = await models().Job.findOne({ where: { id: jobId, shopId }, transaction: t });
   if (!job) throw notFound("Job");
-  return job;
+  return plain<JobRow>(job);
+}
+
+/** The job's row locked for an edit inside `t` (writers of one job queue behind each other). */
+export async function lockJobOrThrow(t: Transaction, shopId: number, jobId: number): Promise<JobRow> {
+  const job = await models().Job.findOne({ where: { id: jobId, shopId }, transaction: t, lock: t.LOCK.UPDATE });
+  if (!job) throw notFound("Job");
+  return plain<JobRow>(job);
+}
+
+export async function getEngineOrThrow(engineId: number, t?: Transaction): Promise<EngineRow> {
+  const engine = await models().Engine.findByPk(engineId, { transaction: t });
+  if (!engine) throw notFound("Engine");
+  return plain<EngineRow>(engine);
+}
+
+/** A job of this shop with its engine shape and its own limit snapshot; 404 for any other shop. */
+export async function loadJobContext(shopId: number, jobId: number, t?: Transaction): Promise<JobContext> {
+  const { Engine, Job, JobLimit } = models();
+  // All three at once (inside a transaction they share its connection and go out in one round
+  // trip); the engine is found through this shop's job, so nothing of another shop is read.
+  // (Op.eq is needed: a bare literal as a where value becomes the whole condition.)
+  const engineOfJob = literal(
+    `(SELECT engine_id FROM jobs WHERE id = ${Number(jobId)} AND shop_id = ${Number(shopId)})`,
+  );
+  const [job, engine, limits] = await Promise.all([
+    Job.findOne({ where: { id: jobId, shopId }, transaction: t }),
+    Engine.findOne({ where: { id: { [Op.eq]: engineOfJob } }, transaction: t }),
+    JobLimit.findAll({ where: { jobId }, order: LIMIT_ORDER, transaction: t }),
+  ]);
+  if (!job) throw notFound("Job");
+  if (!engine) throw notFound("Engine");
+  const engineRow = plain<EngineRow>(engine);
+  return {
+    job: plain<JobRow>(job),
+    engine: engineRow,
+    shape: toEngineShape(engineRow, job.unitSystem),
+    spec: limits.map(toSpecLimit),
+  };
+}
+
+/** Each job's own limits in spec order (jobs of the caller's shop only). */
+export async function jobSpecs(jobIds: number[]): Promise<Map<number, SpecLimit[]>> {
+  const specs = new Map<number, SpecLimit[]>(jobIds.map((id) => [id, []]));
+  if (!jobIds.length) return specs;
+  const limits = await models().JobLimit.findAll({ where: { jobId: { [Op.in]: jobIds } }, order: LIMIT_ORDER });
+  for (const l of limits) specs.get(l.jobId)!.push(toSpecLimit(l));
+  return specs;
+}
+
+/** Replaces a job's limit snapshot and moves its spec revision on, inside `t`. */
+export async function replaceJobLimitRows(
+  t: Transaction,
+  jobId: number,
+  rows: Omit<JobLimitRow, "id" | "jobId" | "createdAt" | "updatedAt">[],
+  specRevision: number,
+): Promise<void> {
+  const { Job, JobLimit } = models();
+  await JobLimit.destroy({ where: { jobId }, transaction: t });
+  await JobLimit.bulkCreate(
+    rows.map((r) => ({ ...r, jobId })),
+    { transaction: t },
+  );
+  await Job.update({ specRevision }, { where: { id: jobId }, transaction: t });
+}
+
+export async function saveJobBuildPlan(t: Transaction, jobId: number, plan: JsonObject): Promise<void> {
+  await models().Job.update({ buildPlan: plan }, { where: { id: jobId }, transaction: t });
+}
+
+/** Flags of each job by state (jobs of `shopId` only; only the `states` asked for are counted). */
+export async function flagCountsByJob(
+  shopId: number,
+  jobIds: number[],
+  states: readonly FlagState[] = FLAG_STATES,
+): Promise<Map<number, FlagCounts>> {
+  const out = new Map<number, FlagCounts>(jobIds.map((id) => [id, { open: 0, disposed: 0, closed: 0 }]));
+  if (!jobIds.length) return out;
+  const rows = (await models().Flag.findAll({
+    where: { shopId, jobId: { [Op.in]: jobIds }, state: { [Op.in]: [...states] } },
+    attributes: ["jobId", "state", [fn("COUNT", col("id")), "n"]],
+    group: ["jobId", "state"],
+    raw: true,
+  })) as unknown as { jobId: number; state: keyof FlagCounts; n: number | string }[];
+  for (const r of rows) out.get(r.jobId)![r.state] = Number(r.n);
+  return out;
+}
+
+/** The fields the current-reading rule needs, of every reading of these jobs (of `shopId`). */
+export async function readingChains(
+  shopId: number,
+  jobIds: number[],
+): Promise<Pick<StoredReading, "id" | "jobId" | "stationId" | "supersedes" | "skipped" | "takenAt" | "receivedAt">[]> {
+  if (!jobIds.length) return [];
+  const rows = await models().Reading.findAll({
+    where: { shopId, jobId: { [Op.in]: jobIds } },
+    attributes: ["id", "jobId", "stationId", "supersedes", "skipped", "takenAt", "receivedAt"],
+  });
+  return rows.map((r) => plain<StoredReading>(r));
+}
+
+export async function findCustomer(customerId: number): Promise<CustomerRow | null> {
+  const c = await models().Customer.findByPk(customerId);
+  return c ? plain<CustomerRow>(c) : null;
+}
+
+export async function templateName(templateId: number | null): Promise<string | null> {
+  if (!templateId) return null;
+  return (await models().SpecTemplate.findByPk(templateId, { attributes: ["id", "name"] }))?.name ?? null;
 }

@@ -13,7 +13,7 @@ import {
   type TorqueUnit,
   type Verdict,
 } from "@/lib/domain";
-import { loadJobContext } from "@/lib/server/jobs/context";
+import { loadJobContext } from "@/lib/server/jobs/repo";
 import { loadJobReadings, type JobReadings } from "@/lib/server/jobs/readings";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { toCsv, type Cell } from "@/lib/server/readings/csv-export";

@@ -22,7 +22,7 @@ import {
   type Verdict,
 } from "@/lib/domain";
 import { toRaw } from "@/lib/server/sync/ingest-evaluate";
-import { loadJobContext } from "@/lib/server/jobs/context";
+import { loadJobContext } from "@/lib/server/jobs/repo";
 import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";
 
 // Bore, journal and deck maps of a job: every current figure judged by the core (evaluateReading,

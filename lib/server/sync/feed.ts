@@ -5,7 +5,7 @@ import { SETTLE_MS, type SyncFeed } from "@/lib/schemas/sync";
 import { flagsOfJobs, toBenchFlag } from "@/lib/server/bench/flags-repo";
 import { jobHeaders } from "@/lib/server/bench/jobs-repo";
 import { getSequelize } from "@/lib/server/core/db";
-import { loadJobContext } from "@/lib/server/jobs/context";
+import { loadJobContext } from "@/lib/server/jobs/repo";
 import { correctionsOf, readingsOfJobs, toServerReading } from "@/lib/server/readings/repo";
 
 // GET /api/sync: the change feed (sync_changes) turned into the current state of what changed.

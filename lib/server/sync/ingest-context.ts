@@ -3,7 +3,8 @@ import type { Sequelize, Transaction } from "sequelize";
 import { benchRoute, jobLockReason } from "@/lib/domain";
 import { getSequelize } from "@/lib/server/core/db";
 import type { BatchJob } from "@/lib/server/sync/ingest-check";
-import { loadJobContext, type JobContext } from "@/lib/server/jobs/context";
+import type { JobContext } from "@/lib/server/jobs/context";
+import { loadJobContext } from "@/lib/server/jobs/repo";
 
 // Each job's context as POST /api/sync judges readings with it (job, engine shape, limits, route
 // station ids, lock reason), kept in memory between batches. A tablet sends a job's readings in

@@ -7,7 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { api } from "@/lib/client/api";
 import { jobLimitsSchema, type JobLimitsInput, type JobLimitsValues } from "@/lib/schemas/spec";
-import type { LimitsSaved } from "@/lib/server/jobs/reevaluate";
+import type { LimitsSaved } from "@/lib/schemas/job";
 import { Loading, LoadFailed, ServerError, applyFieldErrors } from "./fields";
 import { keys, useJobLimits, type JobLimitsView } from "./queries";
 import { SpecLimitsEditor } from "./spec-limits-editor";

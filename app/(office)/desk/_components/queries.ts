@@ -2,12 +2,9 @@
 
 import { useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/client/api";
-import type { BuildPlanView } from "@/lib/server/jobs/plan";
-import type { JobDetail } from "@/lib/server/jobs/detail";
-import type { BoardJob } from "@/lib/server/jobs/board";
-import type { CustomerRecord } from "@/lib/server/jobs/admin-repo";
+import type { BuildPlanView } from "@/lib/schemas/build-plan";
+import type { BoardJob, CustomerRecord, JobDetail, JobLimitsView } from "@/lib/schemas/job";
 import type { TemplateRecord, TemplateSummary } from "@/lib/server/specs/repo";
-import type { JobLimitsView } from "@/lib/server/jobs/reevaluate";
 
 // Query keys and fetchers of the desk screens, in one place so every mutation knows what to
 // update or invalidate.

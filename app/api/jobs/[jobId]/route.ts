@@ -1,6 +1,6 @@
 import { jobEditSchema } from "@/lib/schemas/job";
 import { getJobDetail } from "@/lib/server/jobs/detail";
-import { updateJob } from "@/lib/server/jobs/admin-repo";
+import { updateJob } from "@/lib/server/job-edit/repo";
 import { getJobOrThrow } from "@/lib/server/jobs/repo";
 import { authed, parseId, readJson } from "@/lib/server/core/route";
 

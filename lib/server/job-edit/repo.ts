@@ -1,19 +1,20 @@
 import "server-only";
 import { UniqueConstraintError, type Transaction } from "sequelize";
-import { jobLock } from "@/lib/domain";
-import type { CustomerValues, JobEditValues, JobValues } from "@/lib/schemas/job";
-import { Customer, Engine, Job, JobLimit, Reading, SpecLimit, SpecTemplate } from "@/models";
+import type { UnitSystem } from "@/lib/schemas/enums";
+import type { CustomerRecord, CustomerValues, JobEditValues, JobValues } from "@/lib/schemas/job";
 import type { Actor } from "@/lib/schemas/session";
+import type { Customer } from "@/models";
 import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";
-import { getSequelize } from "@/lib/server/core/db";
+import { getSequelize, models } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
+import { assertJobEditable } from "@/lib/server/jobs/editable";
 
-// Creating and editing jobs from the desk. Every write is one transaction with its audit
-// event; a job's status change also goes on the change feed so tablets see it.
+// Creating and editing jobs and customers from the desk: the feature's only door to the
+// database. Every write is one transaction with its audit event; a job's status change also goes
+// on the change feed so tablets see it.
 const blank = (s: string | null | undefined) => (s === undefined || s === null || s.trim() === "" ? null : s.trim());
 
-export type CustomerRecord = { id: number; name: string; email: string | null; phone: string | null };
 const reshapeCustomer = (c: Customer): CustomerRecord => ({
   id: c.id,
   name: c.name,
@@ -22,12 +23,11 @@ const reshapeCustomer = (c: Customer): CustomerRecord => ({
 });
 
 export async function listCustomers(shopId: number): Promise<CustomerRecord[]> {
-  getSequelize();
-  return (await Customer.findAll({ where: { shopId }, order: [["name", "ASC"]] })).map(reshapeCustomer);
+  return (await models().Customer.findAll({ where: { shopId }, order: [["name", "ASC"]] })).map(reshapeCustomer);
 }
 
 async function insertCustomer(t: Transaction, actor: Actor, v: CustomerValues): Promise<Customer> {
-  const c = await Customer.create(
+  const c = await models().Customer.create(
     { shopId: actor.shopId, name: v.name.trim(), email: blank(v.email), phone: blank(v.phone) },
     { transaction: t },
   );
@@ -48,7 +48,7 @@ export async function createCustomer(actor: Actor, v: CustomerValues): Promise<C
 
 async function customerFor(t: Transaction, actor: Actor, pick: JobValues["customer"]): Promise<Customer> {
   if (pick.mode === "new") return insertCustomer(t, actor, pick);
-  const c = await Customer.findOne({ where: { id: pick.id, shopId: actor.shopId }, transaction: t });
+  const c = await models().Customer.findOne({ where: { id: pick.id, shopId: actor.shopId }, transaction: t });
   if (!c)
     throw new AppError("invalid", "Some fields need fixing", {
       "customer.id": ["That customer is not in this shop; pick one from the list"],
@@ -56,7 +56,7 @@ async function customerFor(t: Transaction, actor: Actor, pick: JobValues["custom
   return c;
 }
 
-function engineFields(e: JobValues["engine"], unitSystem: "in" | "mm") {
+function engineFields(e: JobValues["engine"], unitSystem: UnitSystem) {
   return {
     description: e.description,
     cylinders: e.cylinders,
@@ -100,6 +100,7 @@ function duplicateCode(err: unknown, code: string): never {
 
 /** Copies the template's limits into the job's own snapshot, in the template's order. */
 async function snapshotLimits(t: Transaction, templateId: number, jobId: number): Promise<number> {
+  const { JobLimit, SpecLimit } = models();
   const limits = await SpecLimit.findAll({
     where: { templateId },
     order: [
@@ -119,7 +120,7 @@ async function snapshotLimits(t: Transaction, templateId: number, jobId: number)
 }
 
 export async function createJob(actor: Actor, v: JobValues): Promise<{ id: number }> {
-  getSequelize();
+  const { Engine, Job, SpecTemplate } = models();
   return getSequelize().transaction(async (t) => {
     const template = await SpecTemplate.findOne({
       where: { id: v.templateId, shopId: actor.shopId, archived: false },
@@ -159,19 +160,8 @@ export async function createJob(actor: Actor, v: JobValues): Promise<{ id: numbe
   });
 }
 
-/** Locked jobs (jobLock, the rule readings follow too) are not edited from the desk: job, limits, build plan. */
-export function assertJobEditable(job: Pick<Job, "status" | "lockedAt">): void {
-  const lock = jobLock(job);
-  if (!lock.locked) return;
-  const state = lock.reason === "closed" ? "closed" : lock.reason === "status" ? `"${job.status}"` : "released";
-  throw new AppError(
-    "job_locked",
-    `This job is ${state} and locked; a lead must reopen it (with a reason) before it can change`,
-  );
-}
-
 export async function updateJob(actor: Actor, jobId: number, v: JobEditValues): Promise<{ id: number }> {
-  getSequelize();
+  const { Engine, Job, Reading } = models();
   return getSequelize().transaction(async (t) => {
     const job = await Job.findOne({ where: { id: jobId, shopId: actor.shopId }, transaction: t, lock: t.LOCK.UPDATE });
     if (!job) throw notFound("Job");
