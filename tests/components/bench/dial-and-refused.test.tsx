@@ -1,21 +1,22 @@
 // @vitest-environment jsdom
 import "fake-indexeddb/auto";
-import { act, cleanup, configure, fireEvent, render, screen, waitFor } from "@testing-library/react";
-import { useLiveQuery } from "dexie-react-hooks";
+import { act, cleanup, configure, fireEvent, screen, waitFor } from "@testing-library/react";
 import { afterEach, describe, expect, it, vi } from "vitest";
-import { BenchProvider } from "@/components/bench/bench-context";
-import { JobScreen } from "@/components/bench/job-screen";
-import { BenchDb } from "@/lib/offline/db";
+import type { BenchDb } from "@/lib/offline/db";
 import { getJobPrefs } from "@/lib/offline/meta";
 import { applyPushResults } from "@/lib/offline/outbox";
-import { savePack } from "@/lib/offline/packs";
-import { readingsOfJob, recordReading } from "@/lib/offline/readings";
+import { recordReading } from "@/lib/offline/readings";
 import type { BenchInstrument, JobPack } from "@/lib/schemas/sync";
-import type { EngineHandle } from "@/lib/offline/engine-handle";
 import { makePack } from "../../lib/offline/fake-server";
+import { mountBenchJob } from "./bench-job-harness";
 
+// The job id comes from the address bar (/bench/job?id=1), which the harness sets.
+vi.mock("next/navigation", () => ({ useSearchParams: () => new URLSearchParams(window.location.search) }));
 configure({ asyncUtilTimeout: 5000 });
-afterEach(cleanup);
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+});
 
 const dialGauge: BenchInstrument = {
   id: 3,
@@ -30,32 +31,8 @@ const dialGauge: BenchInstrument = {
   dialPlusMeansSmaller: true,
   active: true,
 };
-let n = 0;
-
 async function mount(pack: JobPack, seed?: (db: BenchDb) => Promise<void>) {
-  const db = new BenchDb(`dial-${++n}-${Date.now()}`);
-  await savePack(db, pack);
-  await seed?.(db);
-  const engine = { afterEntry: vi.fn(), sync: vi.fn() } as unknown as EngineHandle;
-  function Live() {
-    const readings = useLiveQuery(() => readingsOfJob(db, pack.job.id), []);
-    const prefs = useLiveQuery(() => getJobPrefs(db, pack.job.id), []);
-    return readings && prefs ? <JobScreen pack={pack} readings={readings} prefs={prefs} /> : null;
-  }
-  render(
-    <BenchProvider
-      value={{
-        db,
-        engine,
-        deviceId: "tab-test",
-        actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" },
-      }}
-    >
-      <Live />
-    </BenchProvider>,
-  );
-  const input = (await screen.findByTestId("entry")) as HTMLInputElement;
-  await waitFor(() => expect(document.activeElement).toBe(input));
+  const { db, input } = await mountBenchJob(pack, { seed });
   return { db, input };
 }
 

@@ -1,51 +1,25 @@
 // @vitest-environment jsdom
-import "fake-indexeddb/auto";
-import { act, cleanup, fireEvent, render, screen, waitFor } from "@testing-library/react";
-import { useLiveQuery } from "dexie-react-hooks";
+import { act, cleanup, configure, fireEvent, screen, waitFor } from "@testing-library/react";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
-import { configure } from "@testing-library/react";
-import { BenchProvider, type Bench } from "@/components/bench/bench-context";
-import { JobScreen } from "@/components/bench/job-screen";
-import { BenchDb } from "@/lib/offline/db";
-import { getJobPrefs } from "@/lib/offline/meta";
-import { savePack } from "@/lib/offline/packs";
-import { readingsOfJob } from "@/lib/offline/readings";
-import type { EngineHandle } from "@/lib/offline/engine-handle";
+import type { Bench } from "@/components/bench/bench-context";
+import type { BenchDb } from "@/lib/offline/db";
+import type { ServerReading } from "@/lib/schemas/sync";
 import { makePack } from "../../lib/offline/fake-server";
+import { mountBenchJob } from "./bench-job-harness";
 
+// The job id comes from the address bar (/bench/job?id=1), which the harness sets.
+vi.mock("next/navigation", () => ({ useSearchParams: () => new URLSearchParams(window.location.search) }));
 configure({ asyncUtilTimeout: 5000 }); // Dexie commits under a loaded test run can take a while
 
 // The test spec: bore 4.0300 +0.0005/-0.0005 in (fake-server.ts), no gauge on file (no guard band).
 const pack = makePack(1);
 let db: BenchDb;
 let bench: Bench;
-let n = 0;
 
-function Live() {
-  const readings = useLiveQuery(() => readingsOfJob(db, 1), []);
-  const prefs = useLiveQuery(() => getJobPrefs(db, 1), []);
-  return readings && prefs ? <JobScreen pack={pack} readings={readings} prefs={prefs} /> : null;
-}
-
-beforeEach(async () => {
-  db = new BenchDb(`screen-${++n}-${Date.now()}`);
-  await savePack(db, pack);
-  const engine = { afterEntry: vi.fn(), sync: vi.fn() } as unknown as EngineHandle;
-  bench = {
-    db,
-    engine,
-    deviceId: "tab-test",
-    actor: { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" },
-  };
-  render(
-    <BenchProvider value={bench}>
-      <Live />
-    </BenchProvider>,
-  );
-  const input = await screen.findByTestId("entry");
-  await waitFor(() => expect(document.activeElement).toBe(input));
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
 });
-afterEach(cleanup);
 
 /** What a gauge sends: one keystroke per character into the focused field, then Enter. */
 function gaugeTypes(text: string) {
@@ -60,10 +34,17 @@ function gaugeTypes(text: string) {
 }
 
 const station = () => screen.getByTestId("where").getAttribute("data-station");
+/** The current section's progress in the strip ("3 of 16"), counted from the readings in Dexie. */
+const progress = () => screen.getByRole("button", { current: "step" }).lastElementChild?.textContent ?? "";
 
 describe("bench entry", () => {
+  beforeEach(async () => {
+    ({ db, bench } = await mountBenchJob(pack));
+  });
+
   it("gauge keystrokes + Enter save the reading, show the verdict at once and move on with no tap", async () => {
     expect(station()).toBe("bore/1/top/A");
+    expect(progress()).toMatch(/^0 of \d+/);
     await act(async () => gaugeTypes("4.0302"));
     const last = screen.getByTestId("last-entry");
     expect(last.getAttribute("data-verdict")).toBe("in_spec");
@@ -82,6 +63,7 @@ describe("bench entry", () => {
       deviceId: "tab-test",
     });
     expect(bench.engine.afterEntry).toHaveBeenCalled();
+    await waitFor(() => expect(progress()).toMatch(/^1 of \d+/)); // the route re-read the stored reading
     expect((screen.getByTestId("entry") as HTMLInputElement).value).toBe("");
   });
 
@@ -127,5 +109,64 @@ describe("bench entry", () => {
     await waitFor(() => expect(station()).toBe("bore/1/top/B"));
     const [r] = await db.readings.toArray();
     expect(r).toMatchObject({ skipped: true, skipReason: "Not on this engine", value: null });
+  });
+});
+
+describe("the pack refresh once the screen has settled", () => {
+  it("a limit the lead tightened meanwhile judges the next entry", async () => {
+    // Invented limit for the test: the lead narrowed the bore to ±0.0001 in on the server.
+    const tightened = { ...pack.spec[0], tolPlus: 0.0001, tolMinus: 0.0001 };
+    const serverPack = { ...pack, job: { ...pack.job, specRevision: 2 }, spec: [tightened] };
+    const { server, db } = await mountBenchJob(pack, { serverPack });
+    await waitFor(async () => expect((await db.jobs.get(1))?.pack.spec[0].tolPlus).toBe(0.0001));
+    expect(server).toHaveBeenCalledWith("/api/bench/jobs/1", expect.anything());
+    await act(async () => gaugeTypes("4.0302"));
+    expect(screen.getByTestId("last-entry").getAttribute("data-verdict")).toBe("out_of_spec");
+  });
+
+  it("a reading another tablet took arrives with the pack and counts at once", async () => {
+    const theirs: ServerReading = {
+      id: "0b6f7f0e-3f4c-4d2a-9a57-6a3e8f1f2a20",
+      jobId: 1,
+      stationId: "bore/2/top/A",
+      characteristic: "bore_diameter",
+      value: 4.0301,
+      unit: "in",
+      valueCanonical: 102.36454, // 4.0301 in × 25.4 mm/in (NIST SP 811, B.8, exact)
+      entryMode: "direct",
+      dialSetting: null,
+      dialDeviation: null,
+      instrumentId: null,
+      partTempC: null,
+      gaugeTempC: null,
+      lubricant: null,
+      skipped: false,
+      skipReason: null,
+      note: null,
+      supersedes: null,
+      supersededBy: null,
+      takenAt: "2026-12-01T08:00:00.000Z",
+      receivedAt: "2026-12-01T08:00:01.000Z",
+      takenBy: 8,
+      deviceId: "tab-other",
+      verdict: "in_spec",
+      verdictNote: null,
+      limitMin: 4.0295,
+      limitMax: 4.0305,
+      deviation: 0.0001,
+    };
+    const { db } = await mountBenchJob(pack, { serverPack: { ...pack, readings: [theirs] } });
+    expect(progress()).toMatch(/^0 of \d+/);
+    await waitFor(() => expect(progress()).toMatch(/^1 of \d+/));
+    expect(await db.readings.get(theirs.id)).toMatchObject({ state: "synced", deviceId: "tab-other" });
+  });
+
+  it("a job released meanwhile turns read-only, saying why", async () => {
+    const lockReason = "Job T-1 was released on 1 Dec 2026; readings are locked. Ask the lead to reopen it.";
+    const released = { status: "released", locked: true, lockedAt: "2026-12-01T09:00:00.000Z", lockReason } as const;
+    await mountBenchJob(pack, { serverPack: { ...pack, job: { ...pack.job, ...released } } });
+    expect((await screen.findByText(/This job is released/)).closest("[role]")?.textContent).toContain(lockReason);
+    expect((screen.getByTestId("entry") as HTMLInputElement).disabled).toBe(true);
+    expect(screen.getByRole("button", { name: "Save" })).toHaveProperty("disabled", true);
   });
 });
