@@ -1,8 +1,6 @@
 import "server-only";
-import { Op, type Transaction } from "sequelize";
-import { Flag } from "@/models";
+import type { Transaction } from "sequelize";
 import type { BenchFlag } from "@/lib/schemas/sync";
-import { getSequelize } from "@/lib/server/core/db";
 import { sqlRows, sqlWrite } from "@/lib/server/core/sql-driver";
 import { insertMany } from "@/lib/server/core/sql-insert";
 
@@ -47,8 +45,6 @@ export type FlagPatch = Partial<
     | "closedByReadingId"
   >
 >;
-
-const plain = (f: Flag): FlagRow => f.get({ plain: true }) as unknown as FlagRow;
 
 const UNCLOSED = `SELECT id, shop_id AS shopId, job_id AS jobId, reading_id AS readingId, derived_key AS derivedKey,
   station_id AS stationId, characteristic, value, unit, limit_min AS limitMin, limit_max AS limitMax, deviation,
@@ -138,23 +134,6 @@ export async function updateFlag(t: Transaction, id: number, patch: FlagPatch): 
   const keys = (Object.keys(patch) as (keyof FlagPatch)[]).filter((k) => patch[k] !== undefined);
   const sets = [...keys.map((k) => `${PATCH_COLUMNS[k]} = ?`), "updated_at = ?"];
   await sqlWrite(t, `UPDATE flags SET ${sets.join(", ")} WHERE id = ?`, [...keys.map((k) => patch[k]), new Date(), id]);
-}
-
-export async function flagsOfJobs(
-  jobIds: number[],
-  opts: { ids?: number[]; unclosedOnly?: boolean } = {},
-): Promise<FlagRow[]> {
-  if (jobIds.length === 0 || opts.ids?.length === 0) return [];
-  getSequelize();
-  const rows = await Flag.findAll({
-    where: {
-      jobId: { [Op.in]: jobIds },
-      ...(opts.ids ? { id: { [Op.in]: opts.ids } } : {}),
-      ...(opts.unclosedOnly ? { state: { [Op.ne]: "closed" } } : {}),
-    },
-    order: [["id", "ASC"]],
-  });
-  return rows.map(plain);
 }
 
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);

@@ -1,14 +1,16 @@
 import "server-only";
 import { Op, QueryTypes } from "sequelize";
-import { Customer, Engine, Job } from "@/models";
 import { OPEN_JOB_STATUSES, isJobLocked, jobLockReason } from "@/lib/domain";
 import type { BenchJobHeader } from "@/lib/schemas/sync";
-import { getSequelize } from "@/lib/server/core/db";
-import type { JobRow } from "@/lib/server/jobs/repo";
+import type { Flag } from "@/models";
+import { getSequelize, models } from "@/lib/server/core/db";
+import type { FlagRow } from "@/lib/server/bench/flags-repo";
+import type { EngineRow, JobRow } from "@/lib/server/jobs/repo";
 
-// Jobs as the tablet sees them: header (status, lock), customer and engine names, and progress.
+// The bench feature's door to the database: jobs as the tablet sees them (header with status and
+// lock, customer and engine names, progress) and their flags. Plain objects out.
 
-type JobWithNames = Job & { customer?: Customer; engine?: Engine };
+type JobWithNames = JobRow & { customer?: { name: string }; engine?: EngineRow };
 
 export function toHeader(j: JobRow): BenchJobHeader {
   const lockReason = jobLockReason(j);
@@ -28,37 +30,36 @@ export function toHeader(j: JobRow): BenchJobHeader {
 
 export const namesOf = (j: JobWithNames) => ({ customer: j.customer?.name ?? "", engine: j.engine?.description ?? "" });
 
-const include = [
-  { model: Customer, as: "customer" },
-  { model: Engine, as: "engine" },
+const include = () => [
+  { model: models().Customer, as: "customer" },
+  { model: models().Engine, as: "engine" },
 ];
+const plainJob = (j: { get(o: { plain: true }): object }) => j.get({ plain: true }) as JobWithNames;
 
 /** Jobs that take readings (jobLock: an open status, no lock), soonest due first, with the engine row. */
 export async function openBenchJobs(shopId: number): Promise<JobWithNames[]> {
-  getSequelize();
   // The query narrows by jobLock's clauses; the filter keeps jobLock the one judge.
-  const jobs = (await Job.findAll({
+  const jobs = await models().Job.findAll({
     where: { shopId, status: { [Op.in]: [...OPEN_JOB_STATUSES] }, lockedAt: null },
-    include,
+    include: include(),
     order: [
       ["dueDate", "ASC"],
       ["id", "ASC"],
     ],
-  })) as JobWithNames[];
-  return jobs.filter((j) => !isJobLocked(j));
+  });
+  return jobs.map(plainJob).filter((j) => !isJobLocked(j));
 }
 
 export async function jobWithNames(shopId: number, jobId: number): Promise<JobWithNames | null> {
-  getSequelize();
-  return (await Job.findOne({ where: { id: jobId, shopId }, include })) as JobWithNames | null;
+  const job = await models().Job.findOne({ where: { id: jobId, shopId }, include: include() });
+  return job ? plainJob(job) : null;
 }
 
 /** Headers of the shop's jobs among `ids` (other shops' ids are simply absent). */
 export async function jobHeaders(shopId: number, ids: number[]): Promise<BenchJobHeader[]> {
   if (ids.length === 0) return [];
-  getSequelize();
-  const rows = await Job.findAll({ where: { shopId, id: { [Op.in]: ids } }, order: [["id", "ASC"]] });
-  return rows.map(toHeader);
+  const rows = await models().Job.findAll({ where: { shopId, id: { [Op.in]: ids } }, order: [["id", "ASC"]] });
+  return rows.map((j) => toHeader(j.get({ plain: true })));
 }
 
 /** Per job: stations with a figure, and flags not closed. */
@@ -76,4 +77,21 @@ export async function jobProgress(jobIds: number[]): Promise<Map<number, { readi
   for (const r of readings) out.get(Number(r.jobId))!.readings = Number(r.n);
   for (const r of flags) out.get(Number(r.jobId))!.openFlags = Number(r.n);
   return out;
+}
+
+/** Flags of these jobs (ids the caller has checked are the shop's), oldest first. */
+export async function flagsOfJobs(
+  jobIds: number[],
+  opts: { ids?: number[]; unclosedOnly?: boolean } = {},
+): Promise<FlagRow[]> {
+  if (jobIds.length === 0 || opts.ids?.length === 0) return [];
+  const rows = await models().Flag.findAll({
+    where: {
+      jobId: { [Op.in]: jobIds },
+      ...(opts.ids ? { id: { [Op.in]: opts.ids } } : {}),
+      ...(opts.unclosedOnly ? { state: { [Op.ne]: "closed" } } : {}),
+    },
+    order: [["id", "ASC"]],
+  });
+  return rows.map((f: Flag) => f.get({ plain: true }) as unknown as FlagRow);
 }
