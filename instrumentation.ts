@@ -5,7 +5,7 @@ export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
   const { isBuildPhase } = await import("@/lib/server/core/env");
   if (isBuildPhase()) return;
-  const { startNotifier } = await import("@/lib/server/mail/notifier");
+  const { startNotifier } = await import("@/lib/server/notify/notifier");
   try {
     if (startNotifier()) console.log("[tenthwise] mail notifier started");
   } catch (err) {

@@ -7,7 +7,7 @@ import { GET as recordPdf } from "@/app/api/record/[jobId]/pdf/route";
 import { GET as attachment } from "@/app/api/attachments/[id]/route";
 import { GET as releaseView } from "@/app/api/release/[jobId]/route";
 import { checkCustomerToken, createCustomerToken } from "@/lib/server/release/customer-link";
-import { customerView } from "@/lib/server/release/customer-link-repo";
+import { customerView } from "@/lib/server/release/customer-view";
 import { Shop } from "@/models";
 import { pdfText } from "../support/pdf-text";
 import { createRecordJob } from "../support/record-fixtures";

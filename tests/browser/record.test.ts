@@ -4,7 +4,7 @@ import { readFileSync } from "node:fs";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createCustomerToken } from "@/lib/server/release/customer-link";
-import { runNotifierOnce } from "@/lib/server/mail/notifier";
+import { runNotifierOnce } from "@/lib/server/notify/notifier";
 import { launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
 import { TEST_PASSWORD } from "../support/factories";
 import { pdfText } from "../support/pdf-text";

@@ -15,7 +15,7 @@ import { getSequelize } from "@/lib/server/core/db";
 import { listMailFiles } from "@/lib/server/mail/files";
 import { enqueueReleaseMail } from "@/lib/server/mail/outbox";
 import { deliverPendingMail, retryDelaySeconds } from "@/lib/server/mail/outbox-worker";
-import { runNotifierOnce } from "@/lib/server/mail/notifier";
+import { runNotifierOnce } from "@/lib/server/notify/notifier";
 import { releaseChecklist } from "@/lib/server/release/checklist";
 import { Flag, Job, JobLimit, MailOutbox, Reading } from "@/models";
 import { createShop, type TestShop } from "../support/factories";

@@ -2,7 +2,7 @@
 // during `next build`, one timer per process; and one pass that finds nothing sends nothing.
 import { afterEach, describe, expect, it } from "vitest";
 import { register } from "@/instrumentation";
-import { notifierRunning, runNotifierOnce, startNotifier, stopNotifier } from "@/lib/server/mail/notifier";
+import { notifierRunning, runNotifierOnce, startNotifier, stopNotifier } from "@/lib/server/notify/notifier";
 import { Flag, MailOutbox } from "@/models";
 import { createShop } from "../support/factories";
 

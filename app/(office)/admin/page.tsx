@@ -1,8 +1,7 @@
 import { AppHeader } from "@/components/app-header";
 import { requirePageActor } from "@/lib/server/core/access";
 import { ROLE_WORDS } from "@/lib/nav";
-import { findShop } from "@/lib/server/users/shops-repo";
-import { listUsers } from "@/lib/server/users/repo";
+import { findShop, listUsers } from "@/lib/server/users/repo";
 
 export const metadata = { title: "Shop" };
 

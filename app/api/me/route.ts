@@ -1,6 +1,6 @@
 import { ROLE_HOME } from "@/lib/server/core/access";
 import { authed } from "@/lib/server/core/route";
-import { findShop } from "@/lib/server/users/shops-repo";
+import { findShop } from "@/lib/server/users/repo";
 
 export const GET = authed("any", async ({ actor }) => {
   const shop = await findShop(actor.shopId);

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { LinkProblem } from "@/components/record/link-problem";
 import { RecordSummary } from "@/components/record/record-summary";
 import { Wordmark } from "@/components/ui/logo";
-import { customerView } from "@/lib/server/release/customer-link-repo";
+import { customerView } from "@/lib/server/release/customer-view";
 
 // The customer's view of their build record, opened from the e-mailed link: no account, no
 // navigation into the app, nothing but this one record and its PDF.

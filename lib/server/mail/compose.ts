@@ -1,7 +1,7 @@
 import "server-only";
 import { checkCustomerToken, createCustomerToken, customerLinkUrl } from "@/lib/server/release/customer-link";
 import { textToHtml, type OutgoingMail } from "@/lib/server/mail/send";
-import type { OutboxRow } from "@/lib/server/mail/outbox";
+import type { OutboxRow } from "@/lib/server/mail/repo";
 import { day } from "@/lib/server/record/format";
 import { buildRecordPdf } from "@/lib/server/record/pdf";
 import type { BuildRecord } from "@/lib/server/record/types";

@@ -3,21 +3,11 @@ import { readdir, readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { env } from "@/lib/server/core/env";
 import { AppError, notFound } from "@/lib/server/core/errors";
+import type { MailFile } from "@/lib/schemas/mail";
 
 // The development mailbox: the .eml files the local fake SMTP server saved in MAIL_DIR, read
 // with mailparser, for the admin mail page. Only messages Tenthwise sent for this shop (the
 // X-Tenthwise-Shop header) are shown, so one shop's admin never reads another shop's mail.
-export type MailAttachmentInfo = { index: number; filename: string; contentType: string; size: number };
-export type MailFile = {
-  file: string;
-  to: string;
-  subject: string;
-  date: string | null;
-  kind: string | null;
-  attachments: MailAttachmentInfo[];
-  text: string;
-};
-
 const FILE_NAME = /^[A-Za-z0-9._-]+\.eml$/;
 const SCAN_LIMIT = 300;
 

@@ -2,7 +2,7 @@ import "server-only";
 import { env } from "@/lib/server/core/env";
 import { sendMail, type OutgoingMail } from "@/lib/server/mail/send";
 import { composeMail } from "@/lib/server/mail/compose";
-import { claimDue, markFailed, markSent } from "@/lib/server/mail/outbox";
+import { claimDue, markFailed, markSent } from "@/lib/server/mail/repo";
 
 // Delivers due outbox messages. A failure (mail server down, a record that cannot be rendered)
 // is written on the row with the next try time, doubling from MAIL_RETRY_BASE_SECONDS up to six

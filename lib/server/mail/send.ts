@@ -3,7 +3,7 @@ import nodemailer, { type Transporter } from "nodemailer";
 import { env } from "@/lib/server/core/env";
 
 // Outgoing mail over SMTP (the local fake in development and tests, any SMTP server in
-// production). Only the outbox worker calls sendMail; everything else enqueues (mail-outbox.ts).
+// production). Only the outbox worker calls sendMail; everything else enqueues (outbox.ts).
 export type OutgoingMail = {
   to: string;
   subject: string;

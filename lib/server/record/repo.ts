@@ -1,6 +1,5 @@
 import "server-only";
-import { Customer, Engine, Shop } from "@/models";
-import { getSequelize } from "@/lib/server/core/db";
+import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 
 // The parties of a build record: the shop, the customer and the engine, as plain objects.
@@ -26,7 +25,7 @@ export type RecordParties = {
 };
 
 export async function loadRecordParties(shopId: number, customerId: number, engineId: number): Promise<RecordParties> {
-  getSequelize();
+  const { Customer, Engine, Shop } = models();
   const [shop, customer, engine] = await Promise.all([
     Shop.findByPk(shopId),
     Customer.findOne({ where: { id: customerId, shopId } }),

@@ -15,7 +15,7 @@ import {
 import { toReleaseRecord } from "@/lib/server/release/sign";
 
 // Verification: rebuild the canonical document from the database as it is NOW (the gauges from
-// the snapshot stored at signing, see release-hash.ts) and compare its hash with the one signed.
+// the snapshot stored at signing, see hash.ts) and compare its hash with the one signed.
 
 type Stored = { gauges?: ReleaseSnapshot["gauges"]; digests?: ItemDigests };
 

@@ -18,7 +18,7 @@ import { createHash } from "node:crypto";
  *   flags         every flag of the job, with its latest disposition
  *   dispositions  every disposition decision of those flags (the full history)
  *   gauges        every instrument any of those readings was taken with, as it stood at signing
- * Field lists per record: READING_FIELDS, LIMIT_FIELDS, … in release-hash-snapshot.ts; every
+ * Field lists per record: readingRecord, limitRecord, … in hash-snapshot.ts; every
  * listed field is always present (null when the database has none).
  *
  * Rules:

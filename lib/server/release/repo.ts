@@ -1,9 +1,10 @@
 import "server-only";
 import type { InferAttributes, Transaction } from "sequelize";
 import type { EngineShape, SpecLimit } from "@/lib/domain";
-import { Customer, Engine, Flag, FlagDisposition, Instrument, Job, JobLimit, Reading, Release, User } from "@/models";
+import type { Flag, FlagDisposition, Instrument, Job, JobLimit, Release } from "@/models";
+import type { JsonValue } from "@/lib/schemas/json";
 import type { StoredReading } from "@/lib/schemas/readings";
-import { getSequelize } from "@/lib/server/core/db";
+import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 import { toEngineShape, toSpecLimit } from "@/lib/server/jobs/context";
 
@@ -38,7 +39,7 @@ const plain = <T>(rows: { get(o: { plain: true }): unknown }[]) => rows.map((r) 
  * (inside `t`), so a release and a reading for the same job cannot interleave.
  */
 export async function loadJobRecord(shopId: number, jobId: number, t?: Transaction, lock = false): Promise<JobRecord> {
-  getSequelize();
+  const { Customer, Engine, Flag, FlagDisposition, Instrument, Job, JobLimit, Reading } = models();
   const job = await Job.findOne({
     where: { id: jobId, shopId },
     transaction: t,
@@ -93,7 +94,7 @@ export async function loadJobRecord(shopId: number, jobId: number, t?: Transacti
 
 /** Releases of a job, newest first. */
 export async function listReleases(jobId: number, t?: Transaction): Promise<ReleaseRow[]> {
-  getSequelize();
+  const { Release } = models();
   const rows = await Release.findAll({
     where: { jobId },
     order: [
@@ -106,13 +107,13 @@ export async function listReleases(jobId: number, t?: Transaction): Promise<Rele
 }
 
 export async function activeRelease(jobId: number, t?: Transaction): Promise<ReleaseRow | null> {
-  getSequelize();
+  const { Release } = models();
   const row = await Release.findOne({ where: { jobId, voidedAt: null }, order: [["id", "DESC"]], transaction: t });
   return row ? (row.get({ plain: true }) as ReleaseRow) : null;
 }
 
 export async function findReleaseByHash(hash: string): Promise<(ReleaseRow & { jobCode: string }) | null> {
-  getSequelize();
+  const { Job, Release } = models();
   const row = await Release.findOne({ where: { hash }, order: [["id", "DESC"]] });
   if (!row) return null;
   const job = await Job.findOne({ where: { id: row.jobId, shopId: row.shopId } });
@@ -121,9 +122,60 @@ export async function findReleaseByHash(hash: string): Promise<(ReleaseRow & { j
 
 /** Display names of users, by id, within a shop. */
 export async function userNames(shopId: number, ids: (number | null | undefined)[]): Promise<Map<number, string>> {
-  getSequelize();
+  const { User } = models();
   const wanted = [...new Set(ids.filter((id): id is number => typeof id === "number"))];
   if (!wanted.length) return new Map();
   const users = await User.findAll({ where: { id: wanted, shopId }, attributes: ["id", "name"] });
   return new Map(users.map((u) => [u.id, u.name]));
+}
+
+/** Where a customer's link points: the release's shop and job, or null for no such release. */
+export async function findReleaseOwner(id: number): Promise<{ id: number; shopId: number; jobId: number } | null> {
+  const { Release } = models();
+  const r = await Release.findByPk(id);
+  return r ? { id: r.id, shopId: r.shopId, jobId: r.jobId } : null;
+}
+
+/** The job row, locked FOR UPDATE inside `t`; 404 for another shop's job. */
+export async function lockJob(t: Transaction, shopId: number, jobId: number) {
+  const { Job } = models();
+  const job = await Job.findOne({ where: { id: jobId, shopId }, transaction: t, lock: t.LOCK.UPDATE });
+  if (!job) throw notFound("Job");
+  return { id: job.id, code: job.code, status: job.status, lockedAt: job.lockedAt };
+}
+
+export type NewRelease = {
+  shopId: number;
+  jobId: number;
+  inspectorId: number;
+  signedName: string;
+  signedAt: Date;
+  /** What the release keeps beside its hash: the checks, the gauges as they stood, item digests. */
+  checklist: object;
+  hash: string;
+  canonicalVersion: number;
+};
+
+export async function insertRelease(t: Transaction, r: NewRelease): Promise<ReleaseRow> {
+  const { Release } = models();
+  const row = await Release.create({ ...r, checklist: r.checklist as JsonValue }, { transaction: t });
+  return row.get({ plain: true }) as ReleaseRow;
+}
+
+export async function setJobReleased(t: Transaction, jobId: number, at: Date): Promise<void> {
+  const { Job } = models();
+  await Job.update({ status: "released", lockedAt: at }, { where: { id: jobId }, transaction: t });
+}
+
+export async function setJobReopened(t: Transaction, jobId: number): Promise<void> {
+  const { Job } = models();
+  await Job.update({ status: "review", lockedAt: null }, { where: { id: jobId }, transaction: t });
+}
+
+export async function voidRelease(t: Transaction, id: number, userId: number, reason: string, at: Date): Promise<void> {
+  const { Release } = models();
+  await Release.update(
+    { voidedAt: at, voidedBy: userId, voidReason: reason },
+    { where: { id, voidedAt: null }, transaction: t },
+  );
 }

@@ -1,8 +1,6 @@
 import "server-only";
 import { isJobLocked } from "@/lib/domain";
-import bcrypt from "bcryptjs";
 import type { ReleaseRecord, ReopenInput, SignInput } from "@/lib/schemas/release";
-import type { JsonValue } from "@/lib/schemas/json";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";
@@ -13,25 +11,22 @@ import { enqueueReleaseMail } from "@/lib/server/mail/outbox";
 import { checklistOf } from "@/lib/server/release/checklist";
 import { CANONICAL_VERSION, itemDigests, releaseHash } from "@/lib/server/release/hash";
 import { buildSnapshot, gaugeRecord } from "@/lib/server/release/hash-snapshot";
-import { activeRelease, loadJobRecord, userNames, type ReleaseRow } from "@/lib/server/release/repo";
 import {
-  clearWrongPasswords,
+  activeRelease,
   insertRelease,
+  loadJobRecord,
   lockJob,
-  recordWrongPassword,
-  refuseIfThrottled,
   setJobReleased,
   setJobReopened,
-  signerAccount,
+  userNames,
   voidRelease,
-} from "@/lib/server/release/writes";
+  type ReleaseRow,
+} from "@/lib/server/release/repo";
+import { checkSigner } from "@/lib/server/release/signer";
 
 // The inspector's e-signature (typed full name + password again) and the lead's reopen. Both run
 // in one transaction with the job row locked, and both are audited and fed to the tablets; the
 // signature also queues the customer's build-record mail in that transaction.
-
-/** Names compared ignoring case and runs of spaces: "hanne  VOSS" signs for "Hanne Voss". */
-const normalName = (s: string) => s.trim().replace(/\s+/g, " ").toLocaleLowerCase("en");
 
 export function toReleaseRecord(r: ReleaseRow, names: Map<number, string>): ReleaseRecord {
   return {
@@ -47,26 +42,6 @@ export function toReleaseRecord(r: ReleaseRow, names: Map<number, string>): Rele
     voidedByName: r.voidedBy ? (names.get(r.voidedBy) ?? null) : null,
     voidReason: r.voidReason ?? null,
   };
-}
-
-async function checkSigner(actor: Actor, input: SignInput): Promise<string> {
-  const key = `release-sign:${actor.userId}`;
-  await refuseIfThrottled(key);
-  const account = await signerAccount(actor.userId, actor.shopId);
-  if (!account) throw new AppError("unauthorized", "Sign in first");
-  if (normalName(input.fullName) !== normalName(account.name)) {
-    throw new AppError("invalid", "The typed name does not match your account", {
-      fullName: [`Type your full name as it is on your account, "${account.name}" (capital letters do not matter)`],
-    });
-  }
-  if (!(await bcrypt.compare(input.password, account.passwordHash))) {
-    await recordWrongPassword(key);
-    throw new AppError("forbidden", "That password is not right, so nothing was signed", {
-      password: ["Enter the password you sign in with"],
-    });
-  }
-  await clearWrongPasswords(key);
-  return input.fullName.trim().replace(/\s+/g, " ");
 }
 
 /** Signs the release of a job whose checklist is empty, stores its hash, and locks the job. */
@@ -108,7 +83,7 @@ export async function signRelease(actor: Actor, jobId: number, input: SignInput)
       inspectorId: actor.userId,
       signedName,
       signedAt,
-      checklist: stored as unknown as JsonValue,
+      checklist: stored,
       hash,
       canonicalVersion: CANONICAL_VERSION,
     });

@@ -2,12 +2,22 @@ import "server-only";
 import bcrypt from "bcryptjs";
 import { randomInt } from "node:crypto";
 import type { Transaction } from "sequelize";
-import { AuthThrottle, User } from "@/models";
 import type { AdminUser, InviteUserInput, UpdateUserInput } from "@/lib/schemas/user";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
+import {
+  clearThrottle,
+  createAccount,
+  findAccountByEmail,
+  listAccounts,
+  lockAccount,
+  lockActiveAdmins,
+  setPassword,
+  updateAccount,
+  type AccountRow,
+} from "@/lib/server/users/repo";
 
 // The admin's account work: invite, change role, deactivate/reactivate, reset a password.
 // Rules a shop expects: nobody changes their own role or switches their own account off, and
@@ -22,7 +32,7 @@ export function temporaryPassword(): string {
   return [group(), group(), group()].join("-");
 }
 
-function toAdminUser(u: User): AdminUser {
+function toAdminUser(u: AccountRow): AdminUser {
   return {
     id: u.id,
     name: u.name,
@@ -35,18 +45,10 @@ function toAdminUser(u: User): AdminUser {
 }
 
 // What the audit keeps of an account: who and what, never the password.
-const auditView = (u: User) => ({ name: u.name, email: u.email, role: u.role, active: u.active });
+const auditView = (u: AccountRow) => ({ name: u.name, email: u.email, role: u.role, active: u.active });
 
 export async function listShopUsers(shopId: number): Promise<AdminUser[]> {
-  getSequelize();
-  const rows = await User.findAll({
-    where: { shopId },
-    order: [
-      ["active", "DESC"],
-      ["name", "ASC"],
-    ],
-  });
-  return rows.map(toAdminUser);
+  return (await listAccounts(shopId)).map(toAdminUser);
 }
 
 async function hashOf(password: string): Promise<string> {
@@ -54,11 +56,10 @@ async function hashOf(password: string): Promise<string> {
 }
 
 export async function inviteUser(actor: Actor, input: InviteUserInput) {
-  const sequelize = getSequelize();
   const password = temporaryPassword();
   const passwordHash = await hashOf(password);
-  return sequelize.transaction(async (t) => {
-    const taken = await User.findOne({ where: { shopId: actor.shopId, email: input.email }, transaction: t });
+  return getSequelize().transaction(async (t) => {
+    const taken = await findAccountByEmail(t, actor.shopId, input.email);
     if (taken) {
       throw new AppError(
         "conflict",
@@ -68,10 +69,13 @@ export async function inviteUser(actor: Actor, input: InviteUserInput) {
         },
       );
     }
-    const user = await User.create(
-      { shopId: actor.shopId, name: input.name, email: input.email, role: input.role, passwordHash },
-      { transaction: t },
-    );
+    const user = await createAccount(t, {
+      shopId: actor.shopId,
+      name: input.name,
+      email: input.email,
+      role: input.role,
+      passwordHash,
+    });
     await recordAudit(t, {
       shopId: actor.shopId,
       userId: actor.userId,
@@ -84,27 +88,13 @@ export async function inviteUser(actor: Actor, input: InviteUserInput) {
   });
 }
 
-async function lockedUser(actor: Actor, userId: number, t: Transaction): Promise<User> {
-  const user = await User.findOne({ where: { id: userId, shopId: actor.shopId }, transaction: t, lock: t.LOCK.UPDATE });
+async function lockedUser(actor: Actor, userId: number, t: Transaction): Promise<AccountRow> {
+  const user = await lockAccount(t, actor.shopId, userId);
   if (!user) throw notFound("User");
   return user;
 }
 
-/**
- * Locks the shop's active admins (in id order, before the target row, so two admins changing each
- * other wait in turn instead of deadlocking) and returns their ids.
- */
-async function lockActiveAdmins(shopId: number, t: Transaction): Promise<number[]> {
-  const admins = await User.findAll({
-    where: { shopId, role: "admin", active: true },
-    order: [["id", "ASC"]],
-    transaction: t,
-    lock: t.LOCK.UPDATE,
-  });
-  return admins.map((a) => a.id);
-}
-
-function checkRules(actor: Actor, user: User, change: UpdateUserInput, admins: number[]): void {
+function checkRules(actor: Actor, user: AccountRow, change: UpdateUserInput, admins: number[]): void {
   const demoted = change.role !== undefined && change.role !== "admin";
   const losesAdmin = user.role === "admin" && user.active && (demoted || change.active === false);
   if (losesAdmin && admins.every((id) => id === user.id)) {
@@ -121,7 +111,7 @@ function checkRules(actor: Actor, user: User, change: UpdateUserInput, admins: n
 
 export async function updateUser(actor: Actor, userId: number, change: UpdateUserInput): Promise<AdminUser> {
   return getSequelize().transaction(async (t) => {
-    const admins = await lockActiveAdmins(actor.shopId, t);
+    const admins = await lockActiveAdmins(t, actor.shopId);
     const user = await lockedUser(actor, userId, t);
     checkRules(actor, user, change, admins);
     const before = auditView(user);
@@ -130,13 +120,12 @@ export async function updateUser(actor: Actor, userId: number, change: UpdateUse
     if (change.active !== undefined && change.active !== user.active)
       actions.push(change.active ? "user.reactivated" : "user.deactivated");
     if (!actions.length) return toAdminUser(user);
-    await user.update(
-      {
-        ...(change.role !== undefined ? { role: change.role } : {}),
-        ...(change.active !== undefined ? { active: change.active } : {}),
-      },
-      { transaction: t },
-    );
+    const fields = {
+      ...(change.role !== undefined ? { role: change.role } : {}),
+      ...(change.active !== undefined ? { active: change.active } : {}),
+    };
+    await updateAccount(t, user.id, fields);
+    const after = { ...user, ...fields };
     for (const action of actions) {
       await recordAudit(t, {
         shopId: actor.shopId,
@@ -145,10 +134,10 @@ export async function updateUser(actor: Actor, userId: number, change: UpdateUse
         entityType: "user",
         entityId: user.id,
         before,
-        after: auditView(user),
+        after: auditView(after),
       });
     }
-    return toAdminUser(user);
+    return toAdminUser(after);
   });
 }
 
@@ -163,8 +152,8 @@ export async function resetPassword(actor: Actor, userId: number) {
         "conflict",
         `${user.name}'s account is deactivated; reactivate it before resetting the password`,
       );
-    await user.update({ passwordHash, failedAttempts: 0, lockedUntil: null }, { transaction: t });
-    await AuthThrottle.destroy({ where: { throttleKey: `email:${user.email.toLowerCase()}` }, transaction: t });
+    await setPassword(t, user.id, passwordHash);
+    await clearThrottle([`email:${user.email.toLowerCase()}`], t);
     await recordAudit(t, {
       shopId: actor.shopId,
       userId: actor.userId,

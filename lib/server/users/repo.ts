@@ -1,35 +1,56 @@
 import "server-only";
-import { Op } from "sequelize";
-import { User } from "@/models";
-import { getSequelize } from "@/lib/server/core/db";
+import { Op, type Transaction } from "sequelize";
+import type { User } from "@/models";
+import { models } from "@/lib/server/core/db";
 import type { Role } from "@/lib/schemas/enums";
 
+// Accounts, the shop itself, and the wrong-password throttle (auth_throttle rows, so every app
+// instance sees the same count), as plain objects.
+
 export type UserRecord = { id: number; shopId: number; name: string; email: string; role: Role; active: boolean };
+/** An account as the admin's pages show it. */
+export type AccountRow = UserRecord & { lastSignInAt: Date | null; createdAt: Date };
 
 function reshape(u: User): UserRecord {
   return { id: u.id, shopId: u.shopId, name: u.name, email: u.email, role: u.role as Role, active: u.active };
 }
 
+const account = (u: User): AccountRow => ({
+  ...reshape(u),
+  lastSignInAt: u.lastSignInAt ?? null,
+  createdAt: u.createdAt,
+});
+
 export async function findActiveUser(id: number, shopId: number): Promise<UserRecord | null> {
-  getSequelize();
+  const { User } = models();
   const u = await User.findOne({ where: { id, shopId, active: true } });
   return u ? reshape(u) : null;
 }
 
 /** Active accounts with this e-mail in any shop (e-mail is unique per shop, not globally). */
 export async function findSignInCandidates(email: string) {
-  getSequelize();
+  const { User } = models();
   const users = await User.findAll({ where: { email: email.toLowerCase(), active: true }, limit: 10 });
   return users.map((u) => ({ ...reshape(u), passwordHash: u.passwordHash }));
 }
 
+/** The name and password hash an e-signature is checked against; null for an inactive account. */
+export async function findSigner(
+  userId: number,
+  shopId: number,
+): Promise<{ name: string; passwordHash: string } | null> {
+  const { User } = models();
+  const u = await User.findOne({ where: { id: userId, shopId, active: true }, attributes: ["name", "passwordHash"] });
+  return u ? { name: u.name, passwordHash: u.passwordHash } : null;
+}
+
 export async function markSignedIn(id: number) {
-  getSequelize();
+  const { User } = models();
   await User.update({ lastSignInAt: new Date() }, { where: { id } });
 }
 
 export async function listUsers(shopId: number, opts: { activeOnly?: boolean } = {}) {
-  getSequelize();
+  const { User } = models();
   const users = await User.findAll({
     where: { shopId, ...(opts.activeOnly ? { active: true } : {}) },
     order: [["name", "ASC"]],
@@ -38,8 +59,124 @@ export async function listUsers(shopId: number, opts: { activeOnly?: boolean } =
 }
 
 export async function countActiveAdmins(shopId: number, exceptId?: number) {
-  getSequelize();
+  const { User } = models();
   return User.count({
     where: { shopId, role: "admin", active: true, ...(exceptId ? { id: { [Op.ne]: exceptId } } : {}) },
   });
+}
+
+/** The admin's list: active accounts first, then by name. */
+export async function listAccounts(shopId: number): Promise<AccountRow[]> {
+  const { User } = models();
+  const rows = await User.findAll({
+    where: { shopId },
+    order: [
+      ["active", "DESC"],
+      ["name", "ASC"],
+    ],
+  });
+  return rows.map(account);
+}
+
+export async function findAccountByEmail(t: Transaction, shopId: number, email: string): Promise<AccountRow | null> {
+  const { User } = models();
+  const u = await User.findOne({ where: { shopId, email }, transaction: t });
+  return u ? account(u) : null;
+}
+
+export type NewAccount = { shopId: number; name: string; email: string; role: Role; passwordHash: string };
+
+export async function createAccount(t: Transaction, a: NewAccount): Promise<AccountRow> {
+  const { User } = models();
+  return account(await User.create(a, { transaction: t }));
+}
+
+/** One account of the shop, locked FOR UPDATE inside `t`; null when the shop has no such account. */
+export async function lockAccount(t: Transaction, shopId: number, userId: number): Promise<AccountRow | null> {
+  const { User } = models();
+  const u = await User.findOne({ where: { id: userId, shopId }, transaction: t, lock: t.LOCK.UPDATE });
+  return u ? account(u) : null;
+}
+
+/**
+ * Locks the shop's active admins (in id order, before the target row, so two admins changing each
+ * other wait in turn instead of deadlocking) and returns their ids.
+ */
+export async function lockActiveAdmins(t: Transaction, shopId: number): Promise<number[]> {
+  const { User } = models();
+  const admins = await User.findAll({
+    where: { shopId, role: "admin", active: true },
+    order: [["id", "ASC"]],
+    transaction: t,
+    lock: t.LOCK.UPDATE,
+  });
+  return admins.map((a) => a.id);
+}
+
+export async function updateAccount(t: Transaction, id: number, change: { role?: Role; active?: boolean }) {
+  const { User } = models();
+  await User.update(change, { where: { id }, transaction: t });
+}
+
+/** A new password also clears the account's own failure count and lock. */
+export async function setPassword(t: Transaction, id: number, passwordHash: string): Promise<void> {
+  const { User } = models();
+  await User.update({ passwordHash, failedAttempts: 0, lockedUntil: null }, { where: { id }, transaction: t });
+}
+
+export type ShopRecord = { id: number; name: string; unitSystem: "in" | "mm"; guardBandPolicy: string };
+
+export async function findShop(id: number): Promise<ShopRecord | null> {
+  const { Shop } = models();
+  const s = await Shop.findByPk(id);
+  return s
+    ? { id: s.id, name: s.name, unitSystem: s.unitSystem as "in" | "mm", guardBandPolicy: s.guardBandPolicy }
+    : null;
+}
+
+export type ShopContact = { name: string; email: string | null; phone: string | null };
+
+export async function findShopContact(id: number): Promise<ShopContact | null> {
+  const { Shop } = models();
+  const shop = await Shop.findByPk(id);
+  return shop ? { name: shop.name, email: shop.email ?? null, phone: shop.phone ?? null } : null;
+}
+
+/** How many failures within how long lock a key, and for how long. */
+export type ThrottlePolicy = { windowMinutes: number; lockAfter: number; lockMinutes: number };
+
+/** The latest time any of these keys is locked until, while that is still ahead; else null. */
+export async function throttledUntil(keys: string[]): Promise<Date | null> {
+  const { AuthThrottle } = models();
+  const rows = await AuthThrottle.findAll({ where: { throttleKey: keys } });
+  const now = Date.now();
+  const locks = rows.map((r) => r.lockedUntil?.getTime() ?? 0).filter((t) => t > now);
+  return locks.length ? new Date(Math.max(...locks)) : null;
+}
+
+/**
+ * Counts one failure on each key (outside any transaction, so a rollback cannot undo the count),
+ * starting over when the key's window has passed; returns the highest count.
+ */
+export async function countFailure(keys: string[], policy: ThrottlePolicy): Promise<number> {
+  const { AuthThrottle } = models();
+  let worst = 0;
+  const now = new Date();
+  for (const key of keys) {
+    const [row] = await AuthThrottle.findOrCreate({
+      where: { throttleKey: key },
+      defaults: { throttleKey: key, failures: 0, windowStartedAt: now, lockedUntil: null },
+    });
+    const fresh = now.getTime() - row.windowStartedAt.getTime() > policy.windowMinutes * 60_000;
+    const failures = fresh ? 1 : row.failures + 1;
+    const lock = failures >= policy.lockAfter ? new Date(now.getTime() + policy.lockMinutes * 60_000) : row.lockedUntil;
+    await row.update({ failures, windowStartedAt: fresh ? now : row.windowStartedAt, lockedUntil: lock });
+    worst = Math.max(worst, failures);
+  }
+  return worst;
+}
+
+export async function clearThrottle(keys: string[], t?: Transaction): Promise<void> {
+  const { AuthThrottle } = models();
+  await AuthThrottle.destroy({ where: { throttleKey: keys }, transaction: t });
 }

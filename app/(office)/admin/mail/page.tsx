@@ -3,7 +3,7 @@ import { Notice } from "@/components/ui/notice";
 import { requirePageActor } from "@/lib/server/core/access";
 import { env } from "@/lib/server/core/env";
 import { listMailFiles } from "@/lib/server/mail/files";
-import { listOutbox } from "@/lib/server/mail/outbox";
+import { listOutbox } from "@/lib/server/mail/repo";
 import { Mailbox } from "./_components/mailbox";
 import { OutboxTable } from "./_components/outbox-table";
 

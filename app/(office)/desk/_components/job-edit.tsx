@@ -12,7 +12,8 @@ export function JobEdit({ jobId }: { jobId: number }) {
   if (job.data.job.locked)
     return (
       <Notice tone="info" title="This job is locked">
-        It is {job.data.job.status}; the inspector must void the release before it can change.
+        It is {job.data.job.status}; a lead must reopen it on its release page (which voids the release) before it can
+        change.
       </Notice>
     );
   return <JobForm job={job.data} />;

@@ -97,7 +97,8 @@ export function JobLimitsEditor({ jobId }: { jobId: number }) {
       </div>
       {job.locked ? (
         <Notice title="Locked">
-          This job is {job.status}; its limits cannot change until the inspector voids the release.
+          This job is {job.status}; its limits cannot change until a lead reopens it on its release page, which voids
+          the release.
         </Notice>
       ) : (
         <LimitsForm view={q.data} />

@@ -204,7 +204,7 @@ export function JobPage({ jobId, canEdit }: { jobId: number; canEdit: boolean })
       {d.job.locked && (
         <Notice title="Locked">
           This job is {d.job.status === "closed" ? "closed" : "released"}: its limits, plan and details cannot change
-          until the inspector voids the release.
+          until a lead reopens it on its release page, which voids the release.
         </Notice>
       )}
       <Facts d={d} />

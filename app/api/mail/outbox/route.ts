@@ -1,4 +1,4 @@
-import { listOutbox } from "@/lib/server/mail/outbox";
+import { listOutbox } from "@/lib/server/mail/repo";
 import { authed } from "@/lib/server/core/route";
 
 // The shop's outgoing mail, newest first, with attempts and the last error; admin only.

@@ -1,4 +1,4 @@
-import type { MailFile } from "@/lib/server/mail/files";
+import type { MailFile } from "@/lib/schemas/mail";
 
 // The development mailbox: what the local fake SMTP server received, newest first.
 const kb = (n: number) =>

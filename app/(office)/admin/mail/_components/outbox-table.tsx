@@ -1,8 +1,8 @@
-import type { OutboxRow } from "@/lib/server/mail/outbox";
+import type { MailKind, OutboxMessage } from "@/lib/schemas/mail";
 import { RetryButton } from "./retry-button";
 
 // The shop's outgoing mail with what happened to each message, failures in words.
-const KIND_WORDS: Record<string, string> = {
+const KIND_WORDS: Record<MailKind, string> = {
   build_record: "Build record to customer",
   flag_digest: "New flags, to a lead",
   ready_for_release: "Ready for release, to an inspector",
@@ -10,7 +10,7 @@ const KIND_WORDS: Record<string, string> = {
 
 const at = (d: Date) => `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
 
-function Status({ m, maxAttempts }: { m: OutboxRow; maxAttempts: number }) {
+function Status({ m, maxAttempts }: { m: OutboxMessage; maxAttempts: number }) {
   if (m.sentAt) return <p className="font-semibold text-pass">Sent {at(m.sentAt)}</p>;
   const gaveUp = m.attempts >= maxAttempts;
   return (
@@ -32,7 +32,7 @@ function Status({ m, maxAttempts }: { m: OutboxRow; maxAttempts: number }) {
   );
 }
 
-export function OutboxTable({ rows, maxAttempts }: { rows: OutboxRow[]; maxAttempts: number }) {
+export function OutboxTable({ rows, maxAttempts }: { rows: OutboxMessage[]; maxAttempts: number }) {
   if (rows.length === 0)
     return (
       <p className="text-muted">

@@ -1,5 +1,5 @@
 import { checkCustomerToken } from "@/lib/server/release/customer-link";
-import { customerView } from "@/lib/server/release/customer-link-repo";
+import { customerView } from "@/lib/server/release/customer-view";
 import { open } from "@/lib/server/core/route";
 import { pdfResponse, recordFileName, renderRecordPdf } from "@/lib/server/record/pdf";
 

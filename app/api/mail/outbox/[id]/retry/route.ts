@@ -1,6 +1,6 @@
 import { recordAudit } from "@/lib/server/log/audit";
 import { AppError } from "@/lib/server/core/errors";
-import { retryNow } from "@/lib/server/mail/outbox";
+import { retryNow } from "@/lib/server/mail/repo";
 import { authed, parseId } from "@/lib/server/core/route";
 
 // "Try again now" for a message not yet sent (after the automatic retries gave up, or sooner).

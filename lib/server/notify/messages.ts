@@ -1,7 +1,7 @@
 import "server-only";
 import type { ReleaseChecklist } from "@/lib/schemas/release";
 import { env } from "@/lib/server/core/env";
-import type { DigestFlag, OpenJob } from "@/lib/server/mail/notifier-repo";
+import type { DigestFlag, OpenJob } from "@/lib/server/notify/repo";
 import { characteristicWords, stationWords } from "@/lib/server/release/checklist-rules";
 import { limitsText, plural, VERDICT_WORDS, when, withUnit } from "@/lib/server/record/format";
 

@@ -1,17 +1,17 @@
 import "server-only";
 import { Op, QueryTypes } from "sequelize";
-import { Flag, Job, MailOutbox, Release, Shop, User } from "@/models";
+import { getSequelize, models } from "@/lib/server/core/db";
 import type { Role } from "@/lib/schemas/enums";
-import { getSequelize } from "@/lib/server/core/db";
 import { releaseMailKeySql } from "@/lib/server/mail/outbox";
 
 // What the notifier reads: releases not yet mailed, flags since the last digest, jobs that may
-// have become ready, and who receives each kind of mail. Plain objects out.
+// have become ready, and who receives each kind of mail. Plain objects out. (The notifier is
+// the mail feature's background half; its queries are kept apart from the outbox's.)
 
 export type Recipient = { id: number; name: string; email: string };
 
 export async function recipients(shopId: number, role: Role): Promise<Recipient[]> {
-  getSequelize();
+  const { User } = models();
   const users = await User.findAll({ where: { shopId, role, active: true }, order: [["id", "ASC"]] });
   return users.map((u) => ({ id: u.id, name: u.name, email: u.email }));
 }
@@ -43,7 +43,7 @@ export async function shopsWithFlagsSince(since: Date): Promise<number[]> {
 
 /** The highest flag id the shop's last digest covered, and when it was queued; null before the first. */
 export async function lastDigest(shopId: number): Promise<{ maxFlagId: number; at: Date } | null> {
-  getSequelize();
+  const { MailOutbox } = models();
   const row = await MailOutbox.findOne({ where: { shopId, kind: "flag_digest" }, order: [["id", "DESC"]] });
   if (!row) return null;
   const payload = typeof row.payload === "string" ? JSON.parse(row.payload) : row.payload;
@@ -69,7 +69,7 @@ export async function flagsAfter(
   after: { id?: number; since?: Date },
   limit = 200,
 ): Promise<DigestFlag[]> {
-  getSequelize();
+  const { Flag, Job } = models();
   const where =
     after.id !== undefined ? { shopId, id: { [Op.gt]: after.id } } : { shopId, createdAt: { [Op.gte]: after.since! } };
   const flags = await Flag.findAll({ where, order: [["id", "ASC"]], limit });
@@ -146,11 +146,11 @@ export async function openJobsAfter(afterId: number, limit: number): Promise<Ope
 }
 
 export async function releaseCount(jobId: number): Promise<number> {
-  getSequelize();
+  const { Release } = models();
   return Release.count({ where: { jobId } });
 }
 
 export async function shopName(shopId: number): Promise<string> {
-  getSequelize();
+  const { Shop } = models();
   return (await Shop.findByPk(shopId))?.name ?? "your shop";
 }

@@ -1,9 +1,10 @@
 import "server-only";
 import { getSequelize } from "@/lib/server/core/db";
 import { env } from "@/lib/server/core/env";
-import { enqueueMail, enqueueReleaseMail, queuedWithPrefix } from "@/lib/server/mail/outbox";
+import { enqueueReleaseMail } from "@/lib/server/mail/outbox";
+import { enqueueMail, queuedWithPrefix } from "@/lib/server/mail/repo";
 import { deliverPendingMail, type DeliveryReport } from "@/lib/server/mail/outbox-worker";
-import { digestMessage, readyMessage } from "@/lib/server/mail/notifier-messages";
+import { digestMessage, readyMessage } from "@/lib/server/notify/messages";
 import {
   changedOpenJobs,
   flagsAfter,
@@ -15,7 +16,7 @@ import {
   shopName,
   shopsWithFlagsSince,
   type OpenJob,
-} from "@/lib/server/mail/notifier-repo";
+} from "@/lib/server/notify/repo";
 import { releaseChecklist } from "@/lib/server/release/checklist";
 
 // The background notifier (started by instrumentation.ts; tests call runNotifierOnce directly).
