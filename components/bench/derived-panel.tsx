@@ -2,8 +2,8 @@
 
 import { memo } from "react";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
-import { formatDeviation, type DerivedValue } from "@/lib/domain";
-import { figure, UNIT_WORDS } from "./units";
+import { formatDeviation, UNIT_WORDS, type DerivedValue } from "@/lib/domain";
+import { figure } from "./units";
 
 // Derived values for the part being measured (taper and out-of-round of this bore, its
 // piston-to-wall, the oil clearance at this bearing point, this bolt's stretch), live from the

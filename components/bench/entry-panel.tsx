@@ -3,13 +3,13 @@
 import { memo, useCallback, useRef, type RefObject } from "react";
 import { gaugeKey } from "@/hooks/use-bench-entry";
 import type { EntryStore } from "@/hooks/use-entry-store";
-import type { Station } from "@/lib/domain";
+import { UNIT_WORDS, type Station } from "@/lib/domain";
 import type { BenchInstrument } from "@/lib/schemas/sync";
 import type { JobPrefs } from "@/lib/offline/meta";
 import { EntryField } from "./entry-field";
 import { GaugeRow } from "./gauge-row";
 import { applyKey, Keypad, type PadKey } from "./keypad";
-import { figure, UNIT_WORDS } from "./units";
+import { figure } from "./units";
 
 // The entry half of the bench: the value large with its unit and the gauge in use, the glove
 // keypad right under it, then the gauge and dial-mode controls.

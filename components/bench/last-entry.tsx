@@ -1,9 +1,9 @@
 "use client";
 
 import { VerdictBadge } from "@/components/ui/verdict-badge";
-import { formatDeviation } from "@/lib/domain";
+import { formatDeviation, UNIT_WORDS } from "@/lib/domain";
 import { useEntryField, type EntryStore } from "@/hooks/use-entry-store";
-import { figure, UNIT_WORDS } from "./units";
+import { figure } from "./units";
 
 // The answer to the entry just made, painted at once: verdict (colour, word and shape) and how
 // far from nominal in the shop's words (tenths or µm). Out of spec on a first reading asks for

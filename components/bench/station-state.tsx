@@ -1,13 +1,12 @@
 import { VerdictShape } from "@/components/ui/verdict-badge";
+import { VERDICT_WORDS } from "@/lib/domain";
 import type { StationState } from "@/lib/offline/route-status";
 
 // How a station's state looks on the route: a word, a colour and a shape, never colour alone.
 // The three verdicts reuse the verdict shapes (dot, diamond, crossed square).
 export const STATE_WORDS: Record<StationState, string> = {
   todo: "To do",
-  in_spec: "In spec",
-  marginal: "Marginal",
-  out_of_spec: "Out of spec",
+  ...VERDICT_WORDS,
   no_limit: "Logged",
   skipped: "Skipped",
   rejected: "Refused",

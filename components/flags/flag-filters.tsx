@@ -2,7 +2,7 @@
 
 import { REASON_WORDS } from "@/lib/schemas/flag";
 import type { FlagListQuery } from "@/lib/schemas/flag";
-import { VERDICT_WORDS } from "@/components/ui/verdict-badge";
+import { VERDICT_WORDS } from "@/lib/domain";
 
 export type JobOption = { id: number; code: string; title: string };
 type Filters = Pick<FlagListQuery, "state" | "job" | "verdict" | "reason">;

@@ -1,4 +1,4 @@
-import { DISPOSITION_WORDS, REASON_WORDS, STATE_WORDS } from "@/lib/schemas/flag";
+import { DISPOSITION_WORDS, REASON_TAG_WORDS, REASON_WORDS, STATE_WORDS } from "@/lib/schemas/flag";
 import type { Disposition, FlagReason, FlagState } from "@/lib/schemas/enums";
 
 // Reason and decision tags: words first, a small outline shape second, never colour alone.
@@ -20,7 +20,7 @@ function ReasonShape({ reason }: { reason: FlagReason }) {
 }
 
 export function ReasonTag({ reason }: { reason: FlagReason }) {
-  const short = reason === "marginal" ? "Marginal" : REASON_WORDS[reason];
+  const short = REASON_TAG_WORDS[reason];
   return (
     <span
       className="inline-flex items-center gap-1.5 text-sm font-medium"

@@ -1,9 +1,8 @@
-import { formatDeviation, type MeasureUnit } from "@/lib/domain";
+import { formatDeviation, unitWords, type MeasureUnit } from "@/lib/domain";
 
 // How figures read on the desk: inch work to the tenth (0.0001 in), metric to the µm, torque
 // to the unit; one more digit only when the figure has it (a gauge reading 0.00005 in).
 const DIGITS: Record<string, [number, number]> = { in: [4, 5], mm: [3, 4], lbf_ft: [0, 1], nm: [0, 1] };
-export const UNIT_WORDS: Record<string, string> = { in: "in", mm: "mm", lbf_ft: "lbf·ft", nm: "N·m" };
 
 export function figure(x: number | null | undefined, unit: string): string {
   if (x === null || x === undefined || !Number.isFinite(x)) return "—";
@@ -14,10 +13,10 @@ export function figure(x: number | null | undefined, unit: string): string {
 }
 
 export const withUnit = (x: number | null | undefined, unit: string) =>
-  x === null || x === undefined ? "—" : `${figure(x, unit)} ${UNIT_WORDS[unit] ?? unit}`;
+  x === null || x === undefined ? "—" : `${figure(x, unit)} ${unitWords(unit)}`;
 
 export function limitsText(min: number | null, max: number | null, unit: string): string {
-  const u = UNIT_WORDS[unit] ?? unit;
+  const u = unitWords(unit);
   if (min !== null && max !== null) return `${figure(min, unit)} – ${figure(max, unit)} ${u}`;
   if (max !== null) return `at most ${figure(max, unit)} ${u}`;
   if (min !== null) return `at least ${figure(min, unit)} ${u}`;

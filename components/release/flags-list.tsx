@@ -1,10 +1,10 @@
 import Link from "next/link";
 import { StatusTag, type StatusTone } from "@/components/admin/status-tag";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
+import { REASON_TAG_WORDS } from "@/lib/schemas/flag";
 import type { FlagSummary } from "@/lib/schemas/release";
 
 // The job's flags with the lead's decisions: what was out, what was decided, by whom and why.
-const REASON = { out_of_spec: "Out of spec", marginal: "Marginal", gauge_past_due: "Gauge past due" } as const;
 const when = (iso: string | null) => (iso ? new Date(iso).toISOString().slice(0, 10) : "");
 
 function decision(f: FlagSummary): { tone: StatusTone; words: string; detail: string | null } {
@@ -57,7 +57,9 @@ export function FlagsList({ flags }: { flags: FlagSummary[] }) {
                     <td className="tabular py-2 pr-3 font-mono">{f.value}</td>
                     <td className="whitespace-nowrap py-2 pr-3">
                       <VerdictBadge verdict={f.verdict} size="sm" />
-                      {f.reason !== f.verdict && <span className="block text-xs text-muted">{REASON[f.reason]}</span>}
+                      {f.reason !== f.verdict && (
+                        <span className="block text-xs text-muted">{REASON_TAG_WORDS[f.reason]}</span>
+                      )}
                     </td>
                     <td className="py-2">
                       <StatusTag tone={d.tone}>{d.words}</StatusTag>

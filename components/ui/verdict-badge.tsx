@@ -1,13 +1,7 @@
-import type { Verdict } from "@/lib/domain";
+import { VERDICT_WORDS, type Verdict } from "@/lib/domain";
 
 // Each verdict has a colour, a word and a shape, so it reads in black and white and for
 // colour-blind users: a round dot in spec, a diamond when marginal, a square cross when out.
-export const VERDICT_WORDS: Record<Verdict, string> = {
-  in_spec: "In spec",
-  marginal: "Marginal",
-  out_of_spec: "Out of spec",
-};
-
 const TONE: Record<Verdict, string> = {
   in_spec: "bg-pass-soft text-pass border-pass",
   marginal: "bg-watch-soft text-watch border-watch",

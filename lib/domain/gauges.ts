@@ -65,6 +65,12 @@ export function usualGaugeKind(characteristic: CharacteristicId): GaugeKind | un
   return (USUAL_GAUGES as Partial<Record<CharacteristicId, readonly GaugeKind[]>>)[characteristic]?.[0];
 }
 
+/** The name shown for a registered instrument kind; a kind this table does not know, as stored but spaced. */
+export function instrumentKindWords(instrumentKind: string): string {
+  const known = (INSTRUMENT_KINDS as Record<string, { label: string } | undefined>)[instrumentKind];
+  return known?.label ?? instrumentKind.replace(/_/g, " ");
+}
+
 /** The gauge kind of a registered instrument kind; undefined for a kind this table does not know. */
 export function gaugeKindOf(instrumentKind: string): GaugeKind | undefined {
   return (INSTRUMENT_KINDS as Record<string, { gaugeKind: GaugeKind } | undefined>)[instrumentKind]?.gaugeKind;

@@ -24,3 +24,4 @@ export * from "./job-lock";
 export * from "./gauges";
 export * from "./reading-input";
 export * from "./reach";
+export * from "./words";

@@ -13,6 +13,7 @@
 import Decimal from "decimal.js-light";
 import type { MeasureUnit, Verdict } from "./enums";
 import type { ResolvedLimit } from "./types";
+import { UNIT_WORDS } from "./words";
 
 const D = Decimal.clone({ precision: 40 });
 type Dec = InstanceType<typeof D>;
@@ -109,8 +110,8 @@ export function deviationFromNominal(
 const STEP: Record<MeasureUnit, { per: string; singular: string; plural: string }> = {
   in: { per: "0.0001", singular: "tenth", plural: "tenths" }, // a tenth of a thousandth of an inch
   mm: { per: "0.001", singular: "µm", plural: "µm" },
-  lbf_ft: { per: "1", singular: "lbf·ft", plural: "lbf·ft" },
-  nm: { per: "1", singular: "N·m", plural: "N·m" },
+  lbf_ft: { per: "1", singular: UNIT_WORDS.lbf_ft, plural: UNIT_WORDS.lbf_ft },
+  nm: { per: "1", singular: UNIT_WORDS.nm, plural: UNIT_WORDS.nm },
 };
 
 /**

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { VERDICTS, type Verdict } from "@/lib/domain";
+import { VERDICT_WORDS, VERDICTS, type Verdict } from "@/lib/domain";
 import { FLAG_REASONS, type Disposition, type FlagReason, type FlagState } from "@/lib/schemas/enums";
 
 // The lead's decisions about a flag, and the flag queue's query: one schema for the disposition
@@ -56,10 +56,17 @@ export const DISPOSITION_WORDS: Record<Disposition, string> = {
   accept: "Accepted as is",
 };
 
-export const REASON_WORDS: Record<FlagReason, string> = {
-  out_of_spec: "Out of spec",
-  marginal: "Marginal (within U of a limit)",
+/** Why a flag was raised, short (a tag, a list cell): a verdict's own words, or the gauge's state. */
+export const REASON_TAG_WORDS: Record<FlagReason, string> = {
+  out_of_spec: VERDICT_WORDS.out_of_spec,
+  marginal: VERDICT_WORDS.marginal,
   gauge_past_due: "Gauge past calibration due",
+};
+
+/** Why a flag was raised, with what marginal means (filters, a tag's tooltip). */
+export const REASON_WORDS: Record<FlagReason, string> = {
+  ...REASON_TAG_WORDS,
+  marginal: `${VERDICT_WORDS.marginal} (within U of a limit)`,
 };
 
 export const STATE_WORDS: Record<FlagState, string> = { open: "Open", disposed: "Decided", closed: "Closed" };

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { INSTRUMENT_KIND_IDS, INSTRUMENT_KINDS, quantityOfUnit } from "@/lib/domain";
+import { INSTRUMENT_KIND_IDS, INSTRUMENT_KINDS, MEASURE_UNITS, quantityOfUnit, type MeasureUnit } from "@/lib/domain";
 
 // One schema for the gauge form and the instruments routes, plus the
 // calibration status words every screen uses.
@@ -7,9 +7,8 @@ import { INSTRUMENT_KIND_IDS, INSTRUMENT_KINDS, quantityOfUnit } from "@/lib/dom
 // The instrument kinds themselves (what each reads, which spec-sheet gauge kind it is) are the core's
 // table, lib/domain/gauges.ts, which also decides which gauges suit which station.
 
-export const INSTRUMENT_UNITS = { in: "in", mm: "mm", lbf_ft: "lbf·ft", nm: "N·m" } as const;
-export type InstrumentUnit = keyof typeof INSTRUMENT_UNITS;
-const UNIT_IDS = Object.keys(INSTRUMENT_UNITS) as [InstrumentUnit, ...InstrumentUnit[]];
+/** A gauge reads in one of the units readings are written in (words: UNIT_WORDS in lib/domain). */
+export type InstrumentUnit = MeasureUnit;
 
 const date = (what: string) =>
   z
@@ -39,7 +38,7 @@ export const instrumentFields = z.object({
     .trim()
     .min(1, "Enter the serial number engraved on the gauge")
     .max(64, "Keep the serial under 64 characters"),
-  unit: z.enum(UNIT_IDS, { error: "Choose the unit the gauge reads: in, mm, lbf·ft or N·m" }),
+  unit: z.enum(MEASURE_UNITS, { error: "Choose the unit the gauge reads: in, mm, lbf·ft or N·m" }),
   resolution: positive("Resolution"),
   expandedU: z
     .number({ error: "Expanded uncertainty U must be a number" })

@@ -8,9 +8,8 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { TextField } from "@/components/ui/text-field";
 import { api, ApiError } from "@/lib/client/api";
-import { INSTRUMENT_KIND_IDS, INSTRUMENT_KINDS } from "@/lib/domain";
+import { INSTRUMENT_KIND_IDS, INSTRUMENT_KINDS, UNIT_WORDS, unitWords } from "@/lib/domain";
 import {
-  INSTRUMENT_UNITS,
   instrumentSchema,
   type InstrumentInput,
   type InstrumentRecord,
@@ -129,7 +128,7 @@ export function GaugeForm({ gauge, onDone }: { gauge?: InstrumentRecord; onDone:
         <label className="flex flex-col gap-1.5">
           <span className="font-medium">Unit it reads</span>
           <select className={select} {...form.register("unit")}>
-            {Object.entries(INSTRUMENT_UNITS).map(([u, w]) => (
+            {Object.entries(UNIT_WORDS).map(([u, w]) => (
               <option key={u} value={u}>
                 {w}
               </option>
@@ -138,7 +137,7 @@ export function GaugeForm({ gauge, onDone }: { gauge?: InstrumentRecord; onDone:
           {e.unit && <span className="text-sm font-medium text-fail">{e.unit.message}</span>}
         </label>
         <TextField
-          label={`Resolution (${INSTRUMENT_UNITS[unit] ?? unit})`}
+          label={`Resolution (${unitWords(unit)})`}
           inputMode="decimal"
           type="number"
           step="any"
@@ -147,7 +146,7 @@ export function GaugeForm({ gauge, onDone }: { gauge?: InstrumentRecord; onDone:
           {...form.register("resolution", num)}
         />
         <TextField
-          label={`Expanded uncertainty U, k = 2 (${INSTRUMENT_UNITS[unit] ?? unit})`}
+          label={`Expanded uncertainty U, k = 2 (${unitWords(unit)})`}
           type="number"
           step="any"
           inputMode="decimal"

@@ -5,8 +5,8 @@ import { useState } from "react";
 import { StatusTag } from "@/components/admin/status-tag";
 import { Button } from "@/components/ui/button";
 import { api, ApiError } from "@/lib/client/api";
-import { INSTRUMENT_KINDS } from "@/lib/domain";
-import { INSTRUMENT_UNITS, type InstrumentRecord } from "@/lib/schemas/instrument";
+import { instrumentKindWords, unitWords } from "@/lib/domain";
+import type { InstrumentRecord } from "@/lib/schemas/instrument";
 import { CalibrationTag } from "./calibration-tag";
 import { CertificateCell } from "./certificate-upload";
 
@@ -31,8 +31,8 @@ export function GaugeRow({
     },
     onError: (err) => setError(err instanceof ApiError ? err.message : "Could not reach the server; try again."),
   });
-  const unit = INSTRUMENT_UNITS[gauge.unit] ?? gauge.unit;
-  const kind = INSTRUMENT_KINDS[gauge.kind]?.label ?? gauge.kind;
+  const unit = unitWords(gauge.unit);
+  const kind = instrumentKindWords(gauge.kind);
   return (
     <tr
       className={`border-t-2 border-rule align-top ${gauge.active ? "" : "text-muted"}`}

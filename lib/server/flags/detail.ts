@@ -1,9 +1,9 @@
 import "server-only";
-import { deriveReadings, isJobLocked, type DerivedValue } from "@/lib/domain";
+import { deriveReadings, isJobLocked, type DerivedValue, stationWords } from "@/lib/domain";
 import type { DerivedFigure, DispositionEntry, FlagDetail, HistoryReading, Photo } from "@/lib/schemas/flag";
 import { FlagDisposition, User } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
-import { getFlagOrThrow, stationWords, toListItem } from "@/lib/server/flags/repo";
+import { getFlagOrThrow, toListItem } from "@/lib/server/flags/repo";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";

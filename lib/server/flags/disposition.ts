@@ -1,5 +1,5 @@
 import "server-only";
-import { isJobLocked } from "@/lib/domain";
+import { isJobLocked, stationWords } from "@/lib/domain";
 import type { Transaction } from "sequelize";
 import { DISPOSITION_WORDS, type DispositionInput, type FlagListItem } from "@/lib/schemas/flag";
 import { Flag, FlagDisposition, Job } from "@/models";
@@ -8,7 +8,7 @@ import { recordAudit } from "@/lib/server/log/audit";
 import { recordChange } from "@/lib/server/sync/changes";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
-import { getFlagOrThrow, stationWords, toListItem } from "@/lib/server/flags/repo";
+import { getFlagOrThrow, toListItem } from "@/lib/server/flags/repo";
 import { lockJobs } from "@/lib/server/readings/repo";
 
 // The lead's decision on a flag: measure again, machine again (with the operation) or accept

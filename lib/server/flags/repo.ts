@@ -1,22 +1,12 @@
 import "server-only";
 import { Op, type Order, type WhereOptions } from "sequelize";
-import { CHARACTERISTICS, describeStation, type CharacteristicId } from "@/lib/domain";
+import { characteristicWords, stationWords } from "@/lib/domain";
 import type { FlagListItem, FlagListQuery, FlagPage, GaugeRef } from "@/lib/schemas/flag";
 import { Flag, Instrument, Job, Reading, User } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 
 // The lead's flag queue across jobs: filtered, sorted and paginated in the database.
-
-export function stationWords(id: string): string {
-  try {
-    return describeStation(id);
-  } catch {
-    return id; // a station id the catalogue no longer knows: show it as stored
-  }
-}
-
-export const characteristicLabel = (c: string) => CHARACTERISTICS[c as CharacteristicId]?.label ?? c.replace(/_/g, " ");
 
 export const gaugeRef = (g: Instrument | null | undefined): GaugeRef | null =>
   g ? { id: g.id, label: g.label, serial: g.serial, calibrationDue: g.calibrationDue ?? null } : null;
@@ -38,7 +28,7 @@ export function toListItem(f: Loaded): FlagListItem {
     stationId: f.stationId,
     station: stationWords(f.stationId),
     characteristic: f.characteristic,
-    characteristicLabel: characteristicLabel(f.characteristic),
+    characteristicLabel: characteristicWords(f.characteristic),
     derived: !f.readingId,
     value: f.value,
     unit: f.unit,

@@ -1,4 +1,5 @@
 import "server-only";
+import { verdictInText } from "@/lib/domain";
 import type { AuditChange } from "@/lib/schemas/audit";
 import { diffJson } from "@/lib/server/log/query-diff";
 import { SYNC_ACTION, type SyncAuditAfter } from "@/lib/server/sync/ingest-audit";
@@ -7,8 +8,6 @@ import { SYNC_ACTION, type SyncAuditAfter } from "@/lib/server/sync/ingest-audit
 // fields (audit-query-diff.ts). A sync upload ("readings.sync", one event per job per batch, up to
 // a whole batch of readings) would flatten to several lines per reading and be cut short, so it is
 // listed one line per reading instead: station → "value unit · verdict · reading id (corrects …)".
-
-const VERDICT_WORDS: Record<string, string> = { in_spec: "in spec", marginal: "marginal", out_of_spec: "out of spec" };
 
 function syncChanges(after: SyncAuditAfter): AuditChange[] {
   const head: AuditChange = {
@@ -21,7 +20,7 @@ function syncChanges(after: SyncAuditAfter): AuditChange[] {
     head,
     ...after.readings.map((r): AuditChange => {
       const figure = r.skipped || r.value === null ? "skipped" : `${r.value} ${r.unit}`;
-      const verdict = r.verdict ? (VERDICT_WORDS[r.verdict] ?? r.verdict) : "no verdict";
+      const verdict = r.verdict ? verdictInText(r.verdict) : "no verdict";
       const corrects = r.supersedes ? ` (corrects ${r.supersedes})` : "";
       return {
         path: r.stationId,

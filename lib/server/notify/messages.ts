@@ -1,9 +1,9 @@
 import "server-only";
+import { characteristicWords, stationWords, VERDICT_WORDS } from "@/lib/domain";
 import type { ReleaseChecklist } from "@/lib/schemas/release";
 import { env } from "@/lib/server/core/env";
 import type { DigestFlag, OpenJob } from "@/lib/server/notify/repo";
-import { characteristicWords, stationWords } from "@/lib/server/release/checklist-rules";
-import { limitsText, plural, VERDICT_WORDS, when, withUnit } from "@/lib/server/record/format";
+import { limitsText, plural, when, withUnit } from "@/lib/server/record/format";
 
 // The words of the flag digest (to leads) and the "ready for release" note (to inspectors).
 const MAX_LISTED = 40;

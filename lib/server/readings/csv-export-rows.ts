@@ -4,14 +4,14 @@ import {
   cleanDecimal,
   convertLength,
   convertTorque,
+  characteristicWords,
   deriveReadings,
-  describeStation,
-  CHARACTERISTICS,
-  type CharacteristicId,
+  stationWords,
+  UNIT_WORDS,
+  VERDICT_WORDS,
   type LengthUnit,
   type MeasureUnit,
   type TorqueUnit,
-  type Verdict,
 } from "@/lib/domain";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { loadJobReadings, type JobReadings } from "@/lib/server/jobs/readings";
@@ -24,8 +24,6 @@ import { toCsv, type Cell } from "@/lib/server/readings/csv-export";
 // marked superseded? "yes" (corrected, measured again, or a skip). Values, limits and deviations are in the job's units (the header says which:
 // lengths in in or mm, torque in lbf·ft or N·m) and the unit column names the row's own unit.
 // Verdicts, limits and deviations of readings are the server's stored ones.
-const UNIT_WORDS: Record<MeasureUnit, string> = { in: "in", mm: "mm", lbf_ft: "lbf·ft", nm: "N·m" };
-const VERDICT_TEXT: Record<Verdict, string> = { in_spec: "In spec", marginal: "Marginal", out_of_spec: "Out of spec" };
 
 type Units = { length: LengthUnit; torque: TorqueUnit };
 
@@ -45,24 +43,17 @@ function readingRow(r: StoredReading, units: Units, ctx: { current: Set<string>;
   const to = converter(units);
   const unit = r.unit as MeasureUnit;
   const rowUnit = isTorqueUnit(unit) ? units.torque : units.length;
-  const label = CHARACTERISTICS[r.characteristic as CharacteristicId]?.label ?? r.characteristic;
-  let words = "";
-  try {
-    words = describeStation(r.stationId);
-  } catch {
-    /* an id the core no longer knows: leave the words out */
-  }
   const gauge = r.instrumentId ? ctx.data.instruments.get(r.instrumentId)?.serial : null;
   return [
     "reading",
     r.stationId,
-    words,
-    label,
+    stationWords(r.stationId),
+    characteristicWords(r.characteristic),
     r.skipped ? null : to(r.value, unit),
     UNIT_WORDS[rowUnit],
     to(r.limitMin, unit),
     to(r.limitMax, unit),
-    r.skipped ? "Skipped" : r.verdict ? VERDICT_TEXT[r.verdict] : "",
+    r.skipped ? "Skipped" : r.verdict ? VERDICT_WORDS[r.verdict] : "",
     to(r.deviation, unit),
     gauge,
     ctx.data.takers.get(r.takenBy) ?? "",
@@ -91,13 +82,13 @@ export async function readingsCsv(shopId: number, jobId: number, opts: { history
       .map((d) => [
         "derived",
         d.stationId,
-        describeStation(d.stationId),
-        CHARACTERISTICS[d.characteristic].label,
+        stationWords(d.stationId),
+        characteristicWords(d.characteristic),
         to(d.value, d.unit),
         UNIT_WORDS[units.length],
         d.limits ? to(d.limits.min, d.limits.unit) : null,
         d.limits ? to(d.limits.max, d.limits.unit) : null,
-        d.verdict ? VERDICT_TEXT[d.verdict] : "",
+        d.verdict ? VERDICT_WORDS[d.verdict] : "",
         to(d.deviation, d.unit),
         "",
         "",

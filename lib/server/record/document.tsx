@@ -1,5 +1,6 @@
 import "server-only";
 import { Document, Page, Text, View } from "@react-pdf/renderer";
+import { verdictInText } from "@/lib/domain";
 import { plural } from "@/lib/server/record/format";
 import { Heading, KeyValues, VerdictShape } from "@/lib/server/record/pdf-parts";
 import {
@@ -53,9 +54,9 @@ function ReleaseBox({ record }: { record: BuildRecord }) {
 function Tally({ record }: { record: BuildRecord }) {
   const t = record.tally;
   const items = [
-    { verdict: "in_spec" as const, n: t.inSpec, words: "in spec" },
-    { verdict: "marginal" as const, n: t.marginal, words: "marginal" },
-    { verdict: "out_of_spec" as const, n: t.outOfSpec, words: "out of spec (see decisions)" },
+    { verdict: "in_spec" as const, n: t.inSpec, words: verdictInText("in_spec") },
+    { verdict: "marginal" as const, n: t.marginal, words: verdictInText("marginal") },
+    { verdict: "out_of_spec" as const, n: t.outOfSpec, words: `${verdictInText("out_of_spec")} (see decisions)` },
   ];
   return (
     <View style={s.box} wrap={false}>

@@ -1,22 +1,10 @@
 import "server-only";
 // How the build record writes figures. Plain ASCII signs and words ("to", "max", "-") so the
 // text survives any PDF font and any mail client; the unit is always written out.
-import type { MeasureUnit, Verdict } from "@/lib/domain";
-
-export const UNIT_WORDS: Record<string, string> = { in: "in", mm: "mm", lbf_ft: "lbf·ft", nm: "N·m" };
-
-export const VERDICT_WORDS: Record<Verdict, string> = {
-  in_spec: "In spec",
-  marginal: "Marginal",
-  out_of_spec: "Out of spec",
-};
+import { unitWords, type MeasureUnit } from "@/lib/domain";
 
 // Fewest decimals shown: a tenth (0.0001 in) for inch lengths, a micrometre for mm.
 const MIN_DECIMALS: Record<string, number> = { in: 4, mm: 3, lbf_ft: 0, nm: 0, cc: 1 };
-
-export function unitWords(unit: string): string {
-  return UNIT_WORDS[unit] ?? unit;
-}
 
 /** A figure with at least its unit's usual decimals and at most six, trailing zeros trimmed past those. */
 export function num(x: number | null | undefined, unit: string): string {

@@ -1,7 +1,6 @@
 import "server-only";
 import { Image, Text, View } from "@react-pdf/renderer";
-import { FASTENER_CAUTION } from "@/lib/domain";
-import { VERDICT_WORDS } from "@/lib/server/record/format";
+import { FASTENER_CAUTION, VERDICT_WORDS } from "@/lib/domain";
 import { Heading, KeyValues, SubHeading, Table, VerdictMark, type Column } from "@/lib/server/record/pdf-parts";
 import { s } from "@/lib/server/record/pdf-styles";
 import type { BuildRecord, DerivedLine, FlagLine, GaugeLine, ReadingLine, TorqueLine } from "@/lib/server/record/types";

@@ -1,5 +1,5 @@
 import "server-only";
-import { stationWords } from "@/lib/server/release/checklist-rules";
+import { stationWords } from "@/lib/domain";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { getObjectBuffer } from "@/lib/server/uploads/storage";
 import { listAttachments, type StoredAttachment } from "@/lib/server/uploads/repo";

@@ -9,12 +9,15 @@ import {
   type Verdict,
   type RawReading,
   type SectionId,
+  characteristicWords,
+  stationWords,
+  VERDICT_WORDS,
 } from "@/lib/domain";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
-import { characteristicWords, currentReadings, stationWords } from "@/lib/server/release/checklist-rules";
+import { currentReadings } from "@/lib/server/release/checklist-rules";
 import type { InstrumentRow, JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
-import { limitsText, num, signed, stamp, VERDICT_WORDS, withUnit } from "@/lib/server/record/format";
+import { limitsText, num, signed, stamp, withUnit } from "@/lib/server/record/format";
 import type { DerivedLine, ReadingLine, ReadingSection, Tally, TorqueLine } from "@/lib/server/record/types";
 
 // The measured part of the record: each current reading by bench section (torque apart, with its

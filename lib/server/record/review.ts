@@ -1,5 +1,5 @@
 import "server-only";
-import { characteristicWords, stationWords } from "@/lib/server/release/checklist-rules";
+import { characteristicWords, instrumentKindWords, stationWords } from "@/lib/domain";
 import type { DispositionRow, InstrumentRow, JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { day, limitsText, when, withUnit } from "@/lib/server/record/format";
@@ -88,7 +88,7 @@ export function gaugeLines(record: JobRecord, current: StoredReading[]): GaugeLi
       return {
         label: g.label,
         serial: g.serial,
-        kind: g.kind.replace(/_/g, " "),
+        kind: instrumentKindWords(g.kind),
         uncertainty: uncertaintyWords(g),
         calibration,
         pastDue,

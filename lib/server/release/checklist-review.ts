@@ -1,21 +1,15 @@
 import "server-only";
+import { characteristicWords, stationWords, verdictInText } from "@/lib/domain";
 import { buildPlanSchema } from "@/lib/schemas/build-plan";
 import type { ChecklistCheck, ChecklistItem, ChecklistLink } from "@/lib/schemas/release";
-import {
-  benchLink,
-  characteristicWords,
-  derivedInputs,
-  plural,
-  stationWords,
-} from "@/lib/server/release/checklist-rules";
+import { benchLink, derivedInputs, plural } from "@/lib/server/release/checklist-rules";
 import type { FlagRow, InstrumentRow, JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 
 // The flags, gauges and build-plan checks of the release checklist. Pure, like the rules file.
 
-const VERDICT_WORDS = { in_spec: "in spec", marginal: "marginal", out_of_spec: "out of spec" } as const;
 const REASON_WORDS = {
-  out_of_spec: "out of spec",
+  out_of_spec: verdictInText("out_of_spec"),
   marginal: "marginal (inside the limits by less than the gauge's uncertainty)",
   gauge_past_due: "taken with a gauge past its calibration due date",
 } as const;
@@ -30,7 +24,7 @@ function flagStations(record: JobRecord, f: FlagRow): string[] {
 
 function flagItem(record: JobRecord, f: FlagRow): ChecklistItem | null {
   const what = `${characteristicWords(f.characteristic)} at ${stationWords(f.stationId)}`;
-  const reason = REASON_WORDS[f.reason] ?? VERDICT_WORDS[f.verdict] ?? f.reason;
+  const reason = REASON_WORDS[f.reason] ?? (f.verdict ? verdictInText(f.verdict) : f.reason);
   if (f.state === "closed" || (f.state === "disposed" && f.disposition === "accept")) return null;
   if (f.state === "disposed" && (f.disposition === "measure_again" || f.disposition === "machine_again")) {
     const sent =

@@ -1,5 +1,5 @@
 import "server-only";
-import { benchRoute, deriveReadings, describeStation, findLimit, CHARACTERISTICS, type Station } from "@/lib/domain";
+import { benchRoute, characteristicWords, deriveReadings, findLimit, type Station } from "@/lib/domain";
 import type { ChecklistCheck, ChecklistItem, ChecklistLink } from "@/lib/schemas/release";
 import type { JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
@@ -11,18 +11,6 @@ export const benchLink = (jobId: number, stationId: string): ChecklistLink => ({
   label: "Open on the bench",
   href: `/bench/${jobId}?station=${encodeURIComponent(stationId)}`,
 });
-
-export function stationWords(id: string): string {
-  try {
-    return describeStation(id);
-  } catch {
-    return id;
-  }
-}
-
-export function characteristicWords(id: string): string {
-  return (CHARACTERISTICS as Record<string, { label: string } | undefined>)[id]?.label ?? id.replace(/_/g, " ");
-}
 
 export const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 

@@ -1,7 +1,7 @@
 import "server-only";
+import { characteristicWords, stationWords } from "@/lib/domain";
 import type { Difference, PublicVerification, Verification } from "@/lib/schemas/release";
 import { AppError, notFound } from "@/lib/server/core/errors";
-import { characteristicWords, stationWords } from "@/lib/server/release/checklist-rules";
 import { itemDigests, releaseHash, SECTIONS, type ItemDigests, type ReleaseSnapshot } from "@/lib/server/release/hash";
 import { buildSnapshot } from "@/lib/server/release/hash-snapshot";
 import {

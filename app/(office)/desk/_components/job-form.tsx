@@ -6,6 +6,7 @@ import { useRouter } from "next/navigation";
 import { FormProvider, useForm, type DefaultValues } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { api } from "@/lib/client/api";
+import { LENGTH_UNITS, UNIT_SYSTEM_WORDS } from "@/lib/domain";
 import { DESK_STATUSES, jobEditSchema, jobSchema, type JobInput, type JobValues } from "@/lib/schemas/job";
 import { STATUS_WORDS } from "@/components/job-status";
 import { AreaField, Field, SelectField, ServerError, applyFieldErrors, asNumber, messageOf } from "./fields";
@@ -152,16 +153,17 @@ export function JobForm({ job }: { job?: JobDetail }) {
           {unitsFixed ? (
             <div className="flex flex-col gap-1 text-sm">
               <span className="font-medium">Units</span>
-              <span className="min-h-11 content-center">
-                {job.job.unitSystem === "mm" ? "Metric (mm, N·m)" : "Inch (in, lbf·ft)"}
-              </span>
+              <span className="min-h-11 content-center">{UNIT_SYSTEM_WORDS[job.job.unitSystem]}</span>
               <span className="text-muted">Fixed: readings were taken in these units</span>
               <input type="hidden" {...register("unitSystem")} />
             </div>
           ) : (
             <SelectField label="Units" error={messageOf(errors.unitSystem)} {...register("unitSystem")}>
-              <option value="in">Inch (in, lbf·ft)</option>
-              <option value="mm">Metric (mm, N·m)</option>
+              {LENGTH_UNITS.map((u) => (
+                <option key={u} value={u}>
+                  {UNIT_SYSTEM_WORDS[u]}
+                </option>
+              ))}
             </SelectField>
           )}
           <SelectField label="Status" error={messageOf(errors.status)} {...register("status")}>

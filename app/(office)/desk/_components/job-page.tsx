@@ -6,7 +6,7 @@ import type { ReactNode } from "react";
 import { JobStatusTag, STATUS_WORDS } from "@/components/job-status";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { EXPANSION_COEFFICIENTS } from "@/lib/domain";
+import { EXPANSION_COEFFICIENTS, UNIT_SYSTEM_WORDS } from "@/lib/domain";
 import { api } from "@/lib/client/api";
 import { Loading, LoadFailed, ServerError } from "./fields";
 import { editValuesOf } from "./job-form";
@@ -54,7 +54,7 @@ function Facts({ d }: { d: JobDetail }) {
           {e.nominalBore} × {e.nominalStroke} {u}
         </span>
       </Fact>
-      <Fact label="Units">{u === "mm" ? "Metric (mm, N·m)" : "Inch (in, lbf·ft)"}</Fact>
+      <Fact label="Units">{UNIT_SYSTEM_WORDS[u]}</Fact>
       <Fact label="Materials">
         <span className="block">Block: {materialWords(e.blockMaterial)}</span>
         <span className="block text-sm text-muted">Head: {materialWords(e.headMaterial)}</span>

@@ -1,11 +1,10 @@
 "use client";
 
-import { resolveLimit, type SpecLimit } from "@/lib/domain";
+import { resolveLimit, unitWords, type SpecLimit } from "@/lib/domain";
 import { compactLimit, type LimitInput, type LimitValues } from "@/lib/schemas/spec";
 
 // What the limit comes to, worked out by the core (resolveLimit) as the lead types, so a
 // slip such as a swapped tolerance shows before it is saved.
-const unitWords = (u: string) => (u === "lbf_ft" ? "lbf·ft" : u === "nm" ? "N·m" : u);
 
 function words(l: LimitInput): string | null {
   if (l.limitType === "per_inch") {

@@ -8,6 +8,7 @@ import {
   LIMIT_TYPES,
   GAUGE_KINDS,
   SECTION_LABELS,
+  unitWords,
   usualGaugeKind,
   type CharacteristicId,
   type LengthUnit,
@@ -35,7 +36,6 @@ const BY_SECTION = Object.values(CHARACTERISTICS).reduce<Record<string, Characte
   (acc, c) => ((acc[c.section] ??= []).push(c.id), acc),
   {},
 );
-const unitWord = (u?: string) => (u === "lbf_ft" ? "lbf·ft" : u === "nm" ? "N·m" : (u ?? ""));
 const empty = { setValueAs: (v: unknown) => (v === "" ? null : v) };
 
 function CharacteristicOptions() {
@@ -139,7 +139,7 @@ export function SpecLimitRow({
         <SelectField wrapClass="md:col-span-1" label="Unit" error={messageOf(e.unit)} {...register(`${p}.unit`)}>
           {(torque ? ["lbf_ft", "nm"] : ["in", "mm"]).map((u) => (
             <option key={u} value={u}>
-              {u === "lbf_ft" ? "lbf·ft" : u === "nm" ? "N·m" : u}
+              {unitWords(u)}
             </option>
           ))}
         </SelectField>
@@ -159,7 +159,7 @@ export function SpecLimitRow({
               key={f}
               wrapClass="md:col-span-2"
               label={limit?.limitType === "iso286" ? "Basic size (optional)" : FIELD_WORDS[f]}
-              suffix={f.startsWith("perInch") ? "/ in dia." : unitWord(limit?.unit)}
+              suffix={f.startsWith("perInch") ? "/ in dia." : unitWords(limit?.unit ?? "")}
               hint={limit?.limitType === "iso286" ? "Empty: the engine's nominal size" : undefined}
               error={messageOf(e[f])}
               {...register(`${p}.${f}`, asNumber)}

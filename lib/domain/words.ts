@@ -1,0 +1,43 @@
+// The words shown for units, verdicts, stations and characteristics. The bench, the desk, the
+// release checklist, the build record, the CSV export and the mails all take them from here, so a
+// figure reads the same on every screen and on paper.
+import type { LengthUnit, MeasureUnit, Verdict } from "./enums";
+import { CHARACTERISTICS, describeStation } from "./stations";
+
+/** A unit as written after a figure. */
+export const UNIT_WORDS: Readonly<Record<MeasureUnit, string>> = { in: "in", mm: "mm", lbf_ft: "lbf·ft", nm: "N·m" };
+
+/** A unit as written after a figure; one the core does not know, as stored. */
+export function unitWords(unit: string): string {
+  return (UNIT_WORDS as Record<string, string | undefined>)[unit] ?? unit;
+}
+
+/** A unit system, named by its length unit as jobs and shops store it. */
+export const UNIT_SYSTEM_WORDS: Readonly<Record<LengthUnit, string>> = {
+  in: `Inch (${UNIT_WORDS.in}, ${UNIT_WORDS.lbf_ft})`,
+  mm: `Metric (${UNIT_WORDS.mm}, ${UNIT_WORDS.nm})`,
+};
+
+/** A verdict on its own (a badge, a table cell, a column of the CSV). */
+export const VERDICT_WORDS: Readonly<Record<Verdict, string>> = {
+  in_spec: "In spec",
+  marginal: "Marginal",
+  out_of_spec: "Out of spec",
+};
+
+/** A verdict inside a line of text ("… · in spec · …"). */
+export const verdictInText = (verdict: Verdict): string => VERDICT_WORDS[verdict].toLowerCase();
+
+/** Words for a station ("Cylinder 3 · top of bore · axis A (thrust)"); an id the catalogue no longer knows, as stored. */
+export function stationWords(id: string): string {
+  try {
+    return describeStation(id);
+  } catch {
+    return id;
+  }
+}
+
+/** A characteristic's name; an id the catalogue no longer knows, with spaces for its underscores. */
+export function characteristicWords(id: string): string {
+  return (CHARACTERISTICS as Record<string, { label: string } | undefined>)[id]?.label ?? id.replace(/_/g, " ");
+}
