@@ -1,10 +1,9 @@
 import { Wordmark } from "@/components/ui/logo";
 import { Notice } from "@/components/ui/notice";
+import type { ShopContact } from "@/lib/schemas/user";
 
 // What a customer sees when a record link has expired or is not one of ours, and whom to ask.
-export type LinkProblemProps =
-  | { kind: "expired"; expiredOn: string; shop: { name: string; email: string | null; phone: string | null } | null }
-  | { kind: "invalid" };
+export type LinkProblemProps = { kind: "expired"; expiredOn: string; shop: ShopContact | null } | { kind: "invalid" };
 
 export function LinkProblem(props: LinkProblemProps) {
   const shop = props.kind === "expired" ? props.shop : null;

@@ -1,6 +1,6 @@
 import { FastenerCaution, Notice } from "@/components/ui/notice";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
-import type { BuildRecord } from "@/lib/server/record/types";
+import type { BuildRecord } from "@/lib/schemas/record";
 
 // The customer's summary of a build record (the PDF has every figure): who, what, the release,
 // the tally by verdict, each decision on something outside its limits, the torque records.

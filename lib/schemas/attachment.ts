@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ATTACHMENT_OWNER_TYPES } from "@/lib/schemas/enums";
+import { ATTACHMENT_OWNER_TYPES, type AttachmentOwnerType } from "@/lib/schemas/enums";
 
 // The text fields of an upload (multipart/form-data, next to the `file` part). The clientId is
 // the device's own UUID for this file, so a photo taken offline can be sent again safely.
@@ -19,3 +19,18 @@ export const attachmentListSchema = z.object({
   ownerType: z.enum(ATTACHMENT_OWNER_TYPES, { error: "ownerType must be job, reading or instrument" }),
   ownerId: z.string().trim().min(1, "Give the ownerId").max(36),
 });
+
+/** A stored file as the API shows it (no storage keys, no shop id). */
+export type AttachmentView = {
+  id: string;
+  ownerType: AttachmentOwnerType;
+  ownerId: string;
+  contentType: string;
+  sizeBytes: number;
+  originalName: string;
+  hasThumb: boolean;
+  url: string;
+  thumbUrl: string | null;
+  uploadedBy: number;
+  createdAt: string;
+};

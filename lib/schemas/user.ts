@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ROLES } from "@/lib/schemas/enums";
+import { ROLES, type UnitSystem } from "@/lib/schemas/enums";
 
 // One schema per entity, shared by the admin's forms and the route handlers.
 const role = z.enum(ROLES, { error: "Choose a role: machinist, lead, inspector or admin" });
@@ -43,3 +43,9 @@ export type AdminUser = {
   lastSignInAt: string | null;
   createdAt: string;
 };
+
+/** The shop as GET /api/me gives it. */
+export type ShopRecord = { id: number; name: string; unitSystem: UnitSystem; guardBandPolicy: string };
+
+/** Whom a customer asks about their record (shown when a record link has expired). */
+export type ShopContact = { name: string; email: string | null; phone: string | null };

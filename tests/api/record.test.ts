@@ -11,7 +11,7 @@ import { Customer, MailOutbox, Release } from "@/models";
 import { createShop, type TestUser } from "../support/factories";
 import { ACCEPT_REASON, createRecordJob } from "../support/record-fixtures";
 import { renderRecordPdf } from "@/lib/server/record/pdf";
-import type { BuildRecord, ReadingLine } from "@/lib/server/record/types";
+import type { BuildRecord, ReadingLine } from "@/lib/schemas/record";
 import { pdfText } from "../support/pdf-text";
 import { asUser, call } from "../support/requests";
 

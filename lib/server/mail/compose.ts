@@ -4,7 +4,7 @@ import { textToHtml, type OutgoingMail } from "@/lib/server/mail/send";
 import type { OutboxRow } from "@/lib/server/mail/repo";
 import { day } from "@/lib/server/record/format";
 import { buildRecordPdf } from "@/lib/server/record/pdf";
-import type { BuildRecord } from "@/lib/server/record/types";
+import type { BuildRecord } from "@/lib/schemas/record";
 
 // Turns an outbox row into the message that goes out. The build record is rendered when it is
 // sent (not inside the release transaction), and its customer link is made then, so the link's

@@ -11,7 +11,7 @@ import { planOf } from "@/lib/server/record/plan";
 import { derivedLines, readingSections, tallyOf } from "@/lib/server/record/readings";
 import { loadRecordParties, type RecordParties } from "@/lib/server/record/repo";
 import { flagLines, gaugeLines } from "@/lib/server/record/review";
-import type { BuildRecord, Line, ReleaseStamp } from "@/lib/server/record/types";
+import type { BuildRecord, Line, ReleaseStamp } from "@/lib/schemas/record";
 
 // Assembles the build record of one job: everything the PDF and the customer's page print. The
 // job's record is loaded once and threaded through: the sections, the photos and the check of

@@ -11,7 +11,7 @@ import {
   TorqueSection,
 } from "@/lib/server/record/pdf-sections";
 import { footerTop, s, VERDICT_COLOUR } from "@/lib/server/record/pdf-styles";
-import type { BuildRecord, ReleaseStamp } from "@/lib/server/record/types";
+import type { BuildRecord, ReleaseStamp } from "@/lib/schemas/record";
 
 // The build record as a PDF document (our own layout). Page one carries who, what, the release
 // stamp with its fingerprint, the tally and the safety notice; the detail follows.

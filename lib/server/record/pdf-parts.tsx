@@ -2,7 +2,7 @@ import "server-only";
 import { Path, Rect, Circle, Svg, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import type { Verdict } from "@/lib/domain";
-import type { Line } from "@/lib/server/record/types";
+import type { Line } from "@/lib/schemas/record";
 import { s, VERDICT_COLOUR } from "@/lib/server/record/pdf-styles";
 
 // Small building blocks of the record PDF: the verdict mark (the app's shapes: a round dot in

@@ -3,7 +3,7 @@ import { Image, Text, View } from "@react-pdf/renderer";
 import { FASTENER_CAUTION, VERDICT_WORDS } from "@/lib/domain";
 import { Heading, KeyValues, SubHeading, Table, VerdictMark, type Column } from "@/lib/server/record/pdf-parts";
 import { s } from "@/lib/server/record/pdf-styles";
-import type { BuildRecord, DerivedLine, FlagLine, GaugeLine, ReadingLine, TorqueLine } from "@/lib/server/record/types";
+import type { BuildRecord, DerivedLine, FlagLine, GaugeLine, ReadingLine, TorqueLine } from "@/lib/schemas/record";
 
 // The body sections of the record PDF, in the order a builder reads them.
 

@@ -2,7 +2,7 @@ import "server-only";
 import { renderToBuffer } from "@react-pdf/renderer";
 import { loadBuildRecord } from "@/lib/server/record/data";
 import { RecordDocument } from "@/lib/server/record/document";
-import type { BuildRecord } from "@/lib/server/record/types";
+import type { BuildRecord } from "@/lib/schemas/record";
 
 // The build record rendered to PDF bytes on the server, and the Response that carries it.
 export async function renderRecordPdf(record: BuildRecord): Promise<Buffer> {

@@ -3,7 +3,7 @@ import { stationWords } from "@/lib/domain";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { getObjectBuffer } from "@/lib/server/uploads/storage";
 import { listAttachments, type StoredAttachment } from "@/lib/server/uploads/repo";
-import type { PhotoLine } from "@/lib/server/record/types";
+import type { PhotoLine } from "@/lib/schemas/record";
 
 // Photos of the job and of its current readings, as thumbnails fetched from object storage.
 // A photo whose preview is missing (HEIC, or storage lost it) is still listed, in words.

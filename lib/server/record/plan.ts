@@ -2,7 +2,7 @@ import "server-only";
 import { compressionRatio, cubicInToCc, deckClearanceFor, displacement, rodRatio, valveLift } from "@/lib/domain";
 import { buildPlanSchema, pistonCcOf, type BuildPlan } from "@/lib/schemas/build-plan";
 import { num, withUnit } from "@/lib/server/record/format";
-import type { BuildRecord, Line } from "@/lib/server/record/types";
+import type { BuildRecord, Line } from "@/lib/schemas/record";
 
 // The build plan as entered by the lead, and the figures the core computes from it. A figure
 // whose inputs are missing is left out; one the core refuses is listed with the core's words.

@@ -18,7 +18,7 @@ import { currentReadings } from "@/lib/server/release/checklist-rules";
 import type { InstrumentRow, JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { limitsText, num, signed, stamp, withUnit } from "@/lib/server/record/format";
-import type { DerivedLine, ReadingLine, ReadingSection, Tally, TorqueLine } from "@/lib/server/record/types";
+import type { DerivedLine, ReadingLine, ReadingSection, Tally, TorqueLine } from "@/lib/schemas/record";
 
 // The measured part of the record: each current reading by bench section (torque apart, with its
 // lubricant), and every derived value the core computes from them. Verdicts, limits and

@@ -3,7 +3,7 @@ import { characteristicWords, instrumentKindWords, stationWords } from "@/lib/do
 import type { DispositionRow, InstrumentRow, JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { day, limitsText, when, withUnit } from "@/lib/server/record/format";
-import type { DecisionLine, FlagLine, GaugeLine } from "@/lib/server/record/types";
+import type { DecisionLine, FlagLine, GaugeLine } from "@/lib/schemas/record";
 
 // The reviewed part of the record: every flag with each decision about it (who, when, why), and
 // the gauges the readings were taken with, with their calibration.

@@ -2,8 +2,9 @@ import "server-only";
 import { checkCustomerToken } from "@/lib/server/release/customer-link";
 import { findReleaseOwner } from "@/lib/server/release/repo";
 import { loadBuildRecord } from "@/lib/server/record/data";
-import type { BuildRecord } from "@/lib/server/record/types";
-import { findShopContact, type ShopContact } from "@/lib/server/users/repo";
+import type { BuildRecord } from "@/lib/schemas/record";
+import { findShopContact } from "@/lib/server/users/repo";
+import type { ShopContact } from "@/lib/schemas/user";
 
 // What a customer's link opens: the record of the one release it names, or why it cannot.
 export type CustomerView =

@@ -1,26 +1,13 @@
 import "server-only";
 import { isJobLocked } from "@/lib/domain";
 import type { Transaction } from "sequelize";
-import { Attachment, Instrument, Job, Reading } from "@/models";
+import type { Attachment } from "@/models";
+import type { AttachmentView } from "@/lib/schemas/attachment";
 import type { AttachmentOwnerType } from "@/lib/schemas/enums";
-import { getSequelize } from "@/lib/server/core/db";
+import { models } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
 
 // Attachment rows, and the ownership checks that keep one shop's files away from another's.
-export type AttachmentView = {
-  id: string;
-  ownerType: AttachmentOwnerType;
-  ownerId: string;
-  contentType: string;
-  sizeBytes: number;
-  originalName: string;
-  hasThumb: boolean;
-  url: string;
-  thumbUrl: string | null;
-  uploadedBy: number;
-  createdAt: string;
-};
-
 export type StoredAttachment = AttachmentView & { shopId: number; objectKey: string; thumbKey: string | null };
 
 export function reshapeAttachment(a: Attachment): StoredAttachment {
@@ -50,7 +37,7 @@ export function toView(a: StoredAttachment): AttachmentView {
 
 /** Any shop's attachment with this id (ids are client UUIDs, unique across shops). */
 export async function findAttachmentById(id: string, t?: Transaction): Promise<StoredAttachment | null> {
-  getSequelize();
+  const { Attachment } = models();
   const a = await Attachment.findByPk(id, { transaction: t });
   return a ? reshapeAttachment(a) : null;
 }
@@ -66,7 +53,7 @@ export async function listAttachments(
   ownerType: AttachmentOwnerType,
   ownerIds: string[],
 ): Promise<StoredAttachment[]> {
-  getSequelize();
+  const { Attachment } = models();
   if (ownerIds.length === 0) return [];
   const rows = await Attachment.findAll({
     where: { shopId, ownerType, ownerId: ownerIds },
@@ -86,7 +73,7 @@ export async function findOwnerOrThrow(
   ownerType: AttachmentOwnerType,
   ownerId: string,
 ): Promise<OwnerInfo> {
-  getSequelize();
+  const { Instrument, Job, Reading } = models();
   if (ownerType === "instrument") {
     const id = Number(ownerId);
     const gauge = Number.isInteger(id) && id > 0 ? await Instrument.findOne({ where: { id, shopId } }) : null;
@@ -123,6 +110,7 @@ export function refuseLocked(owner: OwnerInfo): void {
 export type NewAttachment = Omit<StoredAttachment, "hasThumb" | "url" | "thumbUrl" | "createdAt">;
 
 export async function insertAttachment(t: Transaction, a: NewAttachment): Promise<StoredAttachment> {
+  const { Attachment } = models();
   const row = await Attachment.create(
     {
       id: a.id,
@@ -143,6 +131,7 @@ export async function insertAttachment(t: Transaction, a: NewAttachment): Promis
 
 /** A gauge's calibration certificate is the latest certificate uploaded for it. */
 export async function linkCertificate(t: Transaction, shopId: number, instrumentId: number, attachmentId: string) {
+  const { Instrument } = models();
   const gauge = await Instrument.findOne({ where: { id: instrumentId, shopId }, transaction: t });
   if (!gauge) throw notFound("Gauge");
   const before = gauge.certificateAttachmentId ?? null;

@@ -1,7 +1,7 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
 import { UniqueConstraintError } from "sequelize";
-import { uploadFieldsSchema, type UploadFields } from "@/lib/schemas/attachment";
+import { uploadFieldsSchema, type AttachmentView, type UploadFields } from "@/lib/schemas/attachment";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/audit";
 import { getSequelize } from "@/lib/server/core/db";
@@ -16,7 +16,6 @@ import {
   linkCertificate,
   refuseLocked,
   toView,
-  type AttachmentView,
   type StoredAttachment,
 } from "@/lib/server/uploads/repo";
 

@@ -3,6 +3,7 @@ import { Op, type Transaction } from "sequelize";
 import type { User } from "@/models";
 import { models } from "@/lib/server/core/db";
 import type { Role } from "@/lib/schemas/enums";
+import type { ShopContact, ShopRecord } from "@/lib/schemas/user";
 
 // Accounts, the shop itself, and the wrong-password throttle (auth_throttle rows, so every app
 // instance sees the same count), as plain objects.
@@ -124,17 +125,11 @@ export async function setPassword(t: Transaction, id: number, passwordHash: stri
   await User.update({ passwordHash, failedAttempts: 0, lockedUntil: null }, { where: { id }, transaction: t });
 }
 
-export type ShopRecord = { id: number; name: string; unitSystem: "in" | "mm"; guardBandPolicy: string };
-
 export async function findShop(id: number): Promise<ShopRecord | null> {
   const { Shop } = models();
   const s = await Shop.findByPk(id);
-  return s
-    ? { id: s.id, name: s.name, unitSystem: s.unitSystem as "in" | "mm", guardBandPolicy: s.guardBandPolicy }
-    : null;
+  return s ? { id: s.id, name: s.name, unitSystem: s.unitSystem, guardBandPolicy: s.guardBandPolicy } : null;
 }
-
-export type ShopContact = { name: string; email: string | null; phone: string | null };
 
 export async function findShopContact(id: number): Promise<ShopContact | null> {
   const { Shop } = models();
