@@ -6,7 +6,7 @@ import { GET as audit } from "@/app/api/audit/route";
 import { GET as facets } from "@/app/api/audit/facets/route";
 import { POST as sign } from "@/app/api/release/[jobId]/route";
 import { POST as reopen } from "@/app/api/release/[jobId]/reopen/route";
-import { recordAudit } from "@/lib/server/log/audit";
+import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { APPEND_ONLY_MESSAGE } from "@/migrations/20261201001000-create-audit-events";
 import { AuditEvent } from "@/models";

@@ -9,15 +9,15 @@ import { getSequelize } from "@/lib/server/core/db";
 import { notifierRunning, runNotifierOnce } from "@/lib/server/notify/notifier";
 import { releasesWithoutMail } from "@/lib/server/notify/repo";
 import { releaseMailKey, releaseMailKeySql } from "@/lib/server/mail/outbox";
-import { recordChange } from "@/lib/server/sync/changes";
+import { recordChange } from "@/lib/server/sync/repo";
 import { Job, MailOutbox, Release } from "@/models";
 import { createShop, TEST_PASSWORD, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";
 import { completeJob } from "./release-fixtures";
 
 // recordChange runs after the mail is queued in the sign transaction; one test makes it fail.
-vi.mock("@/lib/server/sync/changes", async (importOriginal) => {
-  const real = await importOriginal<typeof import("@/lib/server/sync/changes")>();
+vi.mock("@/lib/server/sync/repo", async (importOriginal) => {
+  const real = await importOriginal<typeof import("@/lib/server/sync/repo")>();
   return { ...real, recordChange: vi.fn(real.recordChange) };
 });
 

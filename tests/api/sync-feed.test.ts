@@ -1,7 +1,7 @@
 // GET /api/sync?since=CURSOR&jobs=…: two tablets converge; the cursor never skips a late commit.
 import { beforeAll, describe, expect, it } from "vitest";
 import { getSequelize } from "@/lib/server/core/db";
-import { recordChange } from "@/lib/server/sync/changes";
+import { recordChange } from "@/lib/server/sync/repo";
 import { Flag, FlagDisposition, Job, JobLimit } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { later, pull, push, reading } from "./sync-fixtures";

@@ -10,7 +10,7 @@ import { describe, expect, it } from "vitest";
 import { GET as outboxList } from "@/app/api/mail/outbox/route";
 import { POST as retry } from "@/app/api/mail/outbox/[id]/retry/route";
 import { checkCustomerToken } from "@/lib/server/release/customer-link";
-import { recordChange } from "@/lib/server/sync/changes";
+import { recordChange } from "@/lib/server/sync/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { listMailFiles } from "@/lib/server/mail/files";
 import { enqueueReleaseMail } from "@/lib/server/mail/outbox";

@@ -1,5 +1,5 @@
 import { auditQuerySchema } from "@/lib/schemas/audit";
-import { queryAudit } from "@/lib/server/log/query-repo";
+import { queryAudit } from "@/lib/server/log/query";
 import { invalid } from "@/lib/server/core/errors";
 import { authed } from "@/lib/server/core/route";
 

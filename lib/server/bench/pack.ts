@@ -8,7 +8,8 @@ import { toEngineShape } from "@/lib/server/jobs/context";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import { readingsOfJobs, shopInstruments, toServerReading } from "@/lib/server/readings/repo";
-import { derivedInputs, settledCursor } from "@/lib/server/sync/feed";
+import { derivedInputs } from "@/lib/server/sync/feed";
+import { settledCursor } from "@/lib/server/sync/repo";
 
 // What the tablet stores to work a job offline (GET /api/bench/jobs/:id), and the list it picks from.
 

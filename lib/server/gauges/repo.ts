@@ -12,7 +12,7 @@ import {
   type InstrumentUnit,
 } from "@/lib/schemas/instrument";
 import type { Actor } from "@/lib/schemas/session";
-import { recordAudit } from "@/lib/server/log/audit";
+import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, invalid, notFound } from "@/lib/server/core/errors";
 

@@ -3,7 +3,7 @@ import { isJobLocked } from "@/lib/domain";
 import { buildPlanSchema, type BuildPlan, type BuildPlanView } from "@/lib/schemas/build-plan";
 import type { JsonObject } from "@/lib/schemas/json";
 import type { Actor } from "@/lib/schemas/session";
-import { recordAudit } from "@/lib/server/log/audit";
+import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError } from "@/lib/server/core/errors";
 import { assertJobEditable } from "@/lib/server/jobs/editable";

@@ -9,7 +9,7 @@ import {
 } from "@/lib/schemas/spec";
 import { Job, SpecLimit, SpecTemplate, type JobLimit } from "@/models";
 import type { Actor } from "@/lib/schemas/session";
-import { recordAudit } from "@/lib/server/log/audit";
+import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 import { toSpecLimit } from "@/lib/server/jobs/context";

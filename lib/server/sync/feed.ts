@@ -1,12 +1,11 @@
 import "server-only";
-import { QueryTypes, type Transaction } from "sequelize";
 import { deriveReadings } from "@/lib/domain";
 import { SETTLE_MS, type SyncFeed } from "@/lib/schemas/sync";
 import { toBenchFlag } from "@/lib/server/bench/flags-repo";
 import { flagsOfJobs, jobHeaders } from "@/lib/server/bench/repo";
-import { getSequelize } from "@/lib/server/core/db";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { correctionsOf, readingsOfJobs, toServerReading } from "@/lib/server/readings/repo";
+import { CHANGE_PAGE, changesSince, ownedJobIds, type ChangeRow } from "@/lib/server/sync/repo";
 
 // GET /api/sync: the change feed (sync_changes) turned into the current state of what changed.
 //
@@ -15,45 +14,6 @@ import { correctionsOf, readingsOfJobs, toServerReading } from "@/lib/server/rea
 // therefore only moves over rows older than SETTLE_MS (no sync transaction stays open that long
 // after writing its change rows); newer rows are sent as well but sent again next time, and the
 // tablet upserts by id. A change is never skipped, at the cost of a small overlap.
-
-const PAGE = 1000;
-
-type ChangeRow = { id: number | string; jobId: number; entity: string; entityId: string; createdAt: Date | string };
-
-/** The highest change id of these jobs visible to `t` (the push reply's informational cursor). */
-export async function lastChangeId(t: Transaction | undefined, jobIds: number[]): Promise<string> {
-  if (jobIds.length === 0) return "0";
-  const [row] = await getSequelize().query<{ id: number | string | null }>(
-    "SELECT MAX(id) AS id FROM sync_changes WHERE job_id IN (?)",
-    { replacements: [jobIds], type: QueryTypes.SELECT, transaction: t },
-  );
-  return String(row?.id ?? 0);
-}
-
-/** The newest settled change of the shop: a job pack read after it is at least that fresh. */
-export async function settledCursor(shopId: number): Promise<string> {
-  const [row] = await getSequelize().query<{ id: number | string }>(
-    "SELECT id FROM sync_changes WHERE shop_id = ? AND created_at < ? ORDER BY id DESC LIMIT 1",
-    { replacements: [shopId, new Date(Date.now() - SETTLE_MS)], type: QueryTypes.SELECT },
-  );
-  return String(row?.id ?? 0);
-}
-
-async function ownedJobIds(shopId: number, ids: number[]): Promise<number[]> {
-  const rows = await getSequelize().query<{ id: number }>(
-    "SELECT id FROM jobs WHERE shop_id = ? AND id IN (?) ORDER BY id",
-    { replacements: [shopId, ids], type: QueryTypes.SELECT },
-  );
-  return rows.map((r) => Number(r.id));
-}
-
-async function changesSince(jobIds: number[], since: string): Promise<ChangeRow[]> {
-  return getSequelize().query<ChangeRow>(
-    `SELECT id, job_id AS jobId, entity, entity_id AS entityId, created_at AS createdAt
-       FROM sync_changes WHERE job_id IN (?) AND id > ? ORDER BY id LIMIT ${PAGE}`,
-    { replacements: [jobIds, since], type: QueryTypes.SELECT },
-  );
-}
 
 /** Moves over the settled prefix of the rows only (see the top of this file). */
 function advance(since: string, rows: ChangeRow[]): string {
@@ -112,5 +72,5 @@ export async function syncFeed(shopId: number, since: string, jobIds: number[]):
   const cursor = advance(since, rows);
   // Read after the change rows, so the state is at least as new as every row listed.
   const [jobs, state] = await Promise.all([jobHeaders(shopId, owned), changedState(shopId, owned, rows)]);
-  return { cursor, more: rows.length === PAGE && cursor !== since, jobs, ...state, missing };
+  return { cursor, more: rows.length === CHANGE_PAGE && cursor !== since, jobs, ...state, missing };
 }

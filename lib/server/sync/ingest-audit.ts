@@ -1,7 +1,7 @@
 import "server-only";
 import type { ReadingEvaluation } from "@/lib/schemas/sync";
 import type { Actor } from "@/lib/schemas/session";
-import type { AuditInput } from "@/lib/server/log/audit";
+import type { AuditInput } from "@/lib/server/log/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 
 // The audit trail of POST /api/sync: ONE event per job per batch, action "readings.sync" on the

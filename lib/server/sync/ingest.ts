@@ -11,7 +11,8 @@ import {
   type ReadingEvaluation,
 } from "@/lib/schemas/sync";
 import type { Actor } from "@/lib/schemas/session";
-import { recordAudits, recordChanges } from "@/lib/server/log/bulk";
+import { recordAudits } from "@/lib/server/log/repo";
+import { recordChanges } from "@/lib/server/sync/repo";
 import { syncAudits } from "@/lib/server/sync/ingest-audit";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, fieldErrors } from "@/lib/server/core/errors";
@@ -22,7 +23,7 @@ import { withDeadlockRetry } from "@/lib/server/sync/ingest-retry";
 import { findInstruments, findReadings, insertReadings, lockJobRevisions } from "@/lib/server/readings/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { settleAll } from "@/lib/server/core/sql-driver";
-import { lastChangeId } from "@/lib/server/sync/feed";
+import { lastChangeId } from "@/lib/server/sync/repo";
 
 // POST /api/sync: one batch, one transaction, all or nothing (the rule is documented in
 // lib/schemas/sync.ts). Steps: parse each item; lock the batch's jobs; check every item against

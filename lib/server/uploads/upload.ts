@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { UniqueConstraintError } from "sequelize";
 import { uploadFieldsSchema, type AttachmentView, type UploadFields } from "@/lib/schemas/attachment";
 import type { Actor } from "@/lib/schemas/session";
-import { recordAudit } from "@/lib/server/log/audit";
+import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { env } from "@/lib/server/core/env";
 import { AppError, invalid } from "@/lib/server/core/errors";

@@ -4,7 +4,7 @@ import { randomInt } from "node:crypto";
 import type { Transaction } from "sequelize";
 import type { AdminUser, InviteUserInput, UpdateUserInput } from "@/lib/schemas/user";
 import type { Actor } from "@/lib/schemas/session";
-import { recordAudit } from "@/lib/server/log/audit";
+import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import {

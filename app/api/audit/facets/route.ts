@@ -1,4 +1,4 @@
-import { auditFacets } from "@/lib/server/log/query-repo";
+import { auditFacets } from "@/lib/server/log/query";
 import { authed } from "@/lib/server/core/route";
 
 /** The actions, entities, people and jobs the audit filters can pick from. */

@@ -1,4 +1,4 @@
-import { recordAudit } from "@/lib/server/log/audit";
+import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError } from "@/lib/server/core/errors";
 import { getJobOrThrow } from "@/lib/server/jobs/repo";

@@ -1,4 +1,4 @@
-import { recordAudit } from "@/lib/server/log/audit";
+import { recordAudit } from "@/lib/server/log/repo";
 import { AppError } from "@/lib/server/core/errors";
 import { retryNow } from "@/lib/server/mail/repo";
 import { authed, parseId } from "@/lib/server/core/route";

@@ -1,9 +1,66 @@
 import "server-only";
-import { QueryTypes } from "sequelize";
-import type { AuditEventView, AuditFacets, AuditPage, AuditQuery } from "@/lib/schemas/audit";
-import { Job, User } from "@/models";
-import { eventChanges } from "@/lib/server/log/query-summary";
-import { getSequelize } from "@/lib/server/core/db";
+import { QueryTypes, type Transaction } from "sequelize";
+import type { AuditQuery } from "@/lib/schemas/audit";
+import { getSequelize, models } from "@/lib/server/core/db";
+import { insertMany } from "@/lib/server/core/sql-insert";
+
+// The audit trail's one door to the database: writing events (one, or many in one INSERT) and
+// reading them back filtered and paged. Plain objects out.
+//
+// Every change is an append-only audit event written in the same transaction as the change
+// itself, so the trail can never disagree with the data. The table refuses UPDATE and DELETE.
+export type AuditInput = {
+  shopId: number;
+  userId: number | null;
+  action: string;
+  entityType: string;
+  entityId: string | number;
+  before?: unknown;
+  after?: unknown;
+};
+
+const plain = (v: unknown) => (v === undefined ? null : JSON.parse(JSON.stringify(v)));
+
+export async function recordAudit(t: Transaction | null, e: AuditInput): Promise<void> {
+  await models().AuditEvent.create(
+    {
+      shopId: e.shopId,
+      userId: e.userId,
+      action: e.action,
+      entityType: e.entityType,
+      entityId: String(e.entityId),
+      before: plain(e.before),
+      after: plain(e.after),
+    },
+    { transaction: t ?? undefined },
+  );
+}
+
+const json = (v: unknown) => (v === undefined || v === null ? null : JSON.stringify(v));
+
+/**
+ * recordAudit for many events at once: the same rows, written by one multi-row INSERT inside the
+ * caller's transaction. A batch of 100 readings would otherwise cost 100 round trips (bench:sync).
+ */
+export async function recordAudits(t: Transaction, events: AuditInput[]): Promise<void> {
+  if (events.length === 0) return;
+  const now = new Date();
+  await insertMany(
+    t,
+    "audit_events",
+    ["shop_id", "user_id", "action", "entity_type", "entity_id", "before", "after", "created_at"],
+    events.map((e) => [
+      e.shopId,
+      e.userId,
+      e.action,
+      e.entityType,
+      String(e.entityId),
+      json(e.before),
+      json(e.after),
+      now,
+    ]),
+  );
+}
 
 // Reads of the append-only audit trail, filtered and paged in the database. Events carry an
 // entity, not a job, so each event's job is worked out in SQL: the job itself, the job of a
@@ -25,7 +82,7 @@ END AS UNSIGNED)`;
 // Milliseconds, in UTC (the connection's time zone is +00:00), as ISO 8601.
 const AT = `CONCAT(DATE_FORMAT(e.created_at, '%Y-%m-%dT%H:%i:%s.'), LPAD(FLOOR(MICROSECOND(e.created_at) / 1000), 3, '0'), 'Z')`;
 
-type Row = {
+export type AuditRow = {
   id: number | string | bigint;
   user_id: number | null;
   action: string;
@@ -70,32 +127,24 @@ function where(shopId: number, q: AuditQuery) {
   return { sql: `FROM (${inner}) x${q.job ? " WHERE x.job_id = :job" : ""}`, replacements: r };
 }
 
-const parse = (v: unknown) => {
-  if (typeof v !== "string") return v ?? null;
-  try {
-    return JSON.parse(v);
-  } catch {
-    return v;
-  }
-};
+/** One page of the shop's events matching `q`, newest first, and how many match in all. */
+export async function auditRows(shopId: number, q: AuditQuery): Promise<{ total: number; rows: AuditRow[] }> {
+  const sequelize = getSequelize();
+  const { sql, replacements } = where(shopId, q);
+  const [{ n }] = await sequelize.query<{ n: number | string | bigint }>(`SELECT COUNT(*) AS n ${sql}`, {
+    type: QueryTypes.SELECT,
+    replacements,
+  });
+  const rows = await sequelize.query<AuditRow>(`SELECT x.* ${sql} ORDER BY x.id DESC LIMIT :limit OFFSET :offset`, {
+    type: QueryTypes.SELECT,
+    replacements: { ...replacements, limit: q.pageSize, offset: (q.page - 1) * q.pageSize },
+  });
+  return { total: Number(n), rows };
+}
 
-async function namesAndCodes(shopId: number, rows: Row[]) {
-  const userIds = [
-    ...new Set(
-      rows
-        .map((r) => r.user_id)
-        .filter((x): x is number => x !== null)
-        .map(Number),
-    ),
-  ];
-  const jobIds = [
-    ...new Set(
-      rows
-        .map((r) => r.job_id)
-        .filter((x) => x !== null && Number(x) > 0)
-        .map(Number),
-    ),
-  ];
+/** Names of these users and codes of these jobs, of this shop only. */
+export async function namesAndCodes(shopId: number, userIds: number[], jobIds: number[]) {
+  const { Job, User } = models();
   const [users, jobs] = await Promise.all([
     userIds.length ? User.findAll({ where: { id: userIds, shopId }, attributes: ["id", "name"] }) : [],
     jobIds.length ? Job.findAll({ where: { id: jobIds, shopId }, attributes: ["id", "code"] }) : [],
@@ -103,42 +152,9 @@ async function namesAndCodes(shopId: number, rows: Row[]) {
   return { users: new Map(users.map((u) => [u.id, u.name])), jobs: new Map(jobs.map((j) => [j.id, j.code])) };
 }
 
-/** One page of the shop's audit trail, newest first, with before/after as a list of changes. */
-export async function queryAudit(shopId: number, q: AuditQuery): Promise<AuditPage> {
-  const sequelize = getSequelize();
-  const { sql, replacements } = where(shopId, q);
-  const [{ n }] = await sequelize.query<{ n: number | string | bigint }>(`SELECT COUNT(*) AS n ${sql}`, {
-    type: QueryTypes.SELECT,
-    replacements,
-  });
-  const total = Number(n);
-  const rows = await sequelize.query<Row>(`SELECT x.* ${sql} ORDER BY x.id DESC LIMIT :limit OFFSET :offset`, {
-    type: QueryTypes.SELECT,
-    replacements: { ...replacements, limit: q.pageSize, offset: (q.page - 1) * q.pageSize },
-  });
-  const { users, jobs } = await namesAndCodes(shopId, rows);
-  const events: AuditEventView[] = rows.map((r) => {
-    const jobId = r.job_id !== null && Number(r.job_id) > 0 && jobs.has(Number(r.job_id)) ? Number(r.job_id) : null;
-    const { changes, truncated } = eventChanges(r.action, parse(r.before), parse(r.after));
-    return {
-      id: Number(r.id),
-      at: r.at,
-      userId: r.user_id === null ? null : Number(r.user_id),
-      userName: r.user_id === null ? null : (users.get(Number(r.user_id)) ?? null),
-      action: r.action,
-      entityType: r.entity_type,
-      entityId: r.entity_id,
-      jobId,
-      jobCode: jobId ? (jobs.get(jobId) ?? null) : null,
-      changes,
-      truncated,
-    };
-  });
-  return { events, page: q.page, pageSize: q.pageSize, total, pages: Math.max(1, Math.ceil(total / q.pageSize)) };
-}
-
 /** The values the audit filters can take in this shop. */
-export async function auditFacets(shopId: number): Promise<AuditFacets> {
+export async function auditFacetRows(shopId: number) {
+  const { Job, User } = models();
   const sequelize = getSequelize();
   const distinct = (col: "action" | "entity_type") =>
     sequelize.query<{ v: string }>(`SELECT DISTINCT ${col} AS v FROM audit_events WHERE shop_id = :shop ORDER BY v`, {
