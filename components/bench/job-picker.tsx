@@ -14,6 +14,8 @@ type Item = {
   code: string;
   title: string;
   sub: string;
+  /** Required stations done, as the server last counted them (lib/domain/progress.ts). */
+  progress?: { done: number; required: number } | null;
   status: string;
   onTablet: boolean;
   pending: number;
@@ -63,7 +65,8 @@ export function JobPicker() {
         id: j.id,
         code: j.code,
         title: j.title,
-        sub: `${j.customer} · ${j.engine} · ${j.readings} of ${j.stations} stations${j.openFlags ? ` · ${j.openFlags} open flags` : ""}`,
+        sub: `${j.customer} · ${j.engine}${j.openFlags ? ` · ${j.openFlags} open flags` : ""}`,
+        progress: j.progress,
         status: j.status,
         onTablet: onTablet.has(j.id),
         pending: pending.get(j.id) ?? 0,
@@ -109,6 +112,18 @@ export function JobPicker() {
               </span>
               <span className="text-xl font-semibold">{j.title}</span>
               <span className="text-sm text-muted">{j.sub}</span>
+              {j.progress && (
+                <span
+                  className="text-sm tabular text-muted"
+                  data-testid="required-progress"
+                  data-done={j.progress.done}
+                  data-required={j.progress.required}
+                >
+                  {j.progress.required
+                    ? `${j.progress.done} of ${j.progress.required} required stations done`
+                    : "No required stations"}
+                </span>
+              )}
               <span
                 className={`text-sm font-semibold ${j.onTablet ? "text-pass" : "text-muted"}`}
                 data-testid="on-tablet"

@@ -14,7 +14,7 @@ import { derivedFor } from "@/lib/offline/preview";
 import {
   nextOpenStation,
   OPEN_STATES,
-  sectionProgress,
+  routeProgress,
   stationViews,
   type StationView,
 } from "@/lib/offline/route-status";
@@ -72,7 +72,8 @@ export const JobScreen = memo(function JobScreen({
 }) {
   const { db } = useBench();
   const views = useMemo(() => stationViews(pack, readings), [pack, readings]);
-  const sections = useMemo(() => sectionProgress(pack, views), [pack, views]);
+  const progress = useMemo(() => routeProgress(pack, views), [pack, views]);
+  const sections = progress.sections;
   const [stationId, setStationId] = useState(() => nextOpenStation(views) ?? views[0]?.station.id ?? "");
   const [sheet, setSheet] = useState<"route" | "skip" | null>(null);
   const inputRef = useRef<HTMLInputElement>(null);
@@ -155,7 +156,12 @@ export const JobScreen = memo(function JobScreen({
         <div className="flex flex-col gap-3 [grid-area:where]">
           <p className="truncate text-sm text-muted">
             <span className="font-semibold text-ink">{pack.job.title}</span> ·{" "}
-            <span className="font-mono">{pack.job.code}</span> · {pack.job.engine}
+            <span className="font-mono">{pack.job.code}</span> · {pack.job.engine} ·{" "}
+            <span data-testid="required-progress" data-done={progress.done} data-required={progress.required}>
+              {progress.required
+                ? `${progress.done} of ${progress.required} required stations done`
+                : "no required stations"}
+            </span>
           </p>
           <StationHeader
             view={view}

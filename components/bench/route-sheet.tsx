@@ -1,6 +1,6 @@
 "use client";
 
-import type { SectionProgress, StationView } from "@/lib/offline/route-status";
+import { sectionCount, type SectionProgress, type StationView } from "@/lib/offline/route-status";
 import { STATE_TONE, STATE_WORDS, StateShape } from "./station-state";
 
 // Every station of the job, by section, to jump to any of them. Big tiles (≥ 64 px), each with
@@ -43,10 +43,7 @@ export function RouteSheet({
         {sections.map((s) => (
           <section key={s.id} className="mb-6">
             <h3 className="mb-2 text-lg font-semibold">
-              {s.label}{" "}
-              <span className="text-muted">
-                · {s.done} of {s.total}
-              </span>
+              {s.label} <span className="text-muted">· {sectionCount(s)}</span>
             </h3>
             <ul className="grid grid-cols-[repeat(auto-fill,minmax(7.5rem,1fr))] gap-3">
               {views

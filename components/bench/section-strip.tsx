@@ -1,7 +1,7 @@
 "use client";
 
 import { memo } from "react";
-import type { SectionProgress } from "@/lib/offline/route-status";
+import { sectionCount, type SectionProgress } from "@/lib/offline/route-status";
 
 // Progress per section, always in view; a tap jumps to the section's first open station.
 export const SectionStrip = memo(function SectionStrip({
@@ -33,11 +33,13 @@ export const SectionStrip = memo(function SectionStrip({
             onClick={() => onPick(s.id)}
             aria-current={s.id === current ? "step" : undefined}
             data-section={s.id}
+            data-done={s.done}
+            data-required={s.required}
             className={`flex min-h-16 shrink-0 flex-col items-start justify-center rounded-tool border-2 px-3 text-left aria-[current=step]:border-steel aria-[current=step]:bg-panel ${complete ? "border-pass" : "border-rule"}`}
           >
             <span className="text-sm font-semibold leading-tight">{s.label}</span>
             <span className="text-sm tabular text-muted">
-              {s.done} of {s.total}
+              {sectionCount(s)}
               {complete ? " · done" : ""}
             </span>
           </button>

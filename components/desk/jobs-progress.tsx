@@ -1,10 +1,20 @@
 // Progress of a job's required stations: a bar and the figures in words, so it reads without
 // colour. Used on the jobs board and the job page.
 export function JobsProgress({ done, required }: { done: number; required: number }) {
-  if (required === 0) return <span className="text-sm text-muted">No required stations</span>;
+  const figures = { "data-testid": "required-progress", "data-done": done, "data-required": required };
+  if (required === 0)
+    return (
+      <span className="text-sm text-muted" {...figures}>
+        No required stations
+      </span>
+    );
   const pct = Math.round((done / required) * 100);
   return (
-    <span className="flex min-w-40 flex-col gap-1" title={`${done} of ${required} required stations measured`}>
+    <span
+      className="flex min-w-40 flex-col gap-1"
+      title={`${done} of ${required} required stations measured`}
+      {...figures}
+    >
       <span className="text-sm tabular">
         <span className="font-semibold">{done}</span> of {required} · {pct}%
       </span>

@@ -70,7 +70,14 @@ function Check({ check, n }: { check: ChecklistCheck; n: number }) {
         <StatusTag tone={check.ok ? "good" : "bad"}>{check.ok ? "Complete" : "Blocking"}</StatusTag>
         <span className="font-semibold">{check.title}</span>
       </div>
-      <p className="pl-6 text-sm text-muted">{check.summary}</p>
+      <p
+        className="pl-6 text-sm text-muted"
+        data-testid={check.progress ? "required-progress" : undefined}
+        data-done={check.progress?.done}
+        data-required={check.progress?.required}
+      >
+        {check.summary}
+      </p>
       {check.id === "readings" && check.items.length > FOLD && <Sections items={check.items} />}
       {check.items.length > 0 && !(check.id === "readings" && check.items.length > FOLD) && (
         <ul className="ml-6 flex flex-col gap-1.5 border-l-4 border-fail pl-3">

@@ -51,6 +51,21 @@ export function supersededIds<R extends ChainedReading>(
   return out;
 }
 
+/**
+ * For each reading another one replaces, the id of the reading that replaces it (the later by
+ * time taken then id, when two readings name the same one): what the tablet and the flag page
+ * show as "corrected by".
+ */
+export function correctedBy<R extends ChainedReading>(readings: readonly R[]): Map<string, string> {
+  const by = new Map<string, R>();
+  for (const r of readings) {
+    if (!r.supersedes) continue;
+    const had = by.get(r.supersedes);
+    if (!had || takenLater(r, had)) by.set(r.supersedes, r);
+  }
+  return new Map([...by].map(([id, r]) => [id, r.id]));
+}
+
 /** The current reading of each station that has one, skips included, keyed by station id. */
 export function currentReadings<R extends ChainedReading>(
   readings: readonly R[],

@@ -3,6 +3,7 @@
 // server's stored verdict replaces the preview once a reading is synced).
 import {
   coreReading,
+  currentReadings,
   deriveReadings,
   evaluateReading,
   type DerivedValue,
@@ -13,27 +14,11 @@ import {
 import type { BenchInstrument, JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "./db";
 
-/** Ids of readings another (non-rejected) reading corrects, or the server says are corrected. */
-export function supersededIds(readings: LocalReading[]): Set<string> {
-  const out = new Set<string>();
-  for (const r of readings) {
-    if (r.supersedes && r.state !== "rejected") out.add(r.supersedes);
-    if (r.supersededBy) out.add(r.id);
-  }
-  return out;
-}
+/** A reading the server refused was never stored: it replaces nothing, though it stays on screen. */
+export const TABLET_CHAIN = { replaces: (r: LocalReading) => r.state !== "rejected" };
 
-/** The latest reading per station that nothing supersedes (rejected ones included, to show them). */
-export function currentByStation(readings: LocalReading[]): Map<string, LocalReading> {
-  const gone = supersededIds(readings);
-  const out = new Map<string, LocalReading>();
-  for (const r of readings) {
-    if (gone.has(r.id)) continue;
-    const prev = out.get(r.stationId);
-    if (!prev || prev.takenAt <= r.takenAt) out.set(r.stationId, r);
-  }
-  return out;
-}
+/** The current reading per station (lib/domain's rule); a refused one can be current, to show why. */
+export const currentByStation = (readings: LocalReading[]) => currentReadings(readings, TABLET_CHAIN);
 
 /** The core's input for a kept reading with its gauge's uncertainty; none for a skip. */
 export function toRaw(r: LocalReading, instruments: BenchInstrument[]): RawReading | undefined {

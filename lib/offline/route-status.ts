@@ -1,6 +1,13 @@
 // Where the machinist stands on a job's route: the state of every station, progress per
 // section, and which station comes next. Pure: job pack and readings in, views out.
-import type { Station, Verdict } from "@/lib/domain";
+import {
+  requiredProgress,
+  requiredStationIds,
+  type RequiredProgress,
+  type SectionCounts,
+  type Station,
+  type Verdict,
+} from "@/lib/domain";
 import type { BenchFlag, JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "./db";
 import { currentByStation, previewReading, usableRaw } from "./preview";
@@ -73,21 +80,30 @@ export function stationViews(pack: JobPack, readings: LocalReading[]): StationVi
   });
 }
 
-export interface SectionProgress {
-  id: string;
-  label: string;
-  done: number;
-  total: number;
+/** Required-station counts (lib/domain/progress.ts), with the stations still waiting for the machinist. */
+export interface SectionProgress extends SectionCounts {
   open: number;
 }
+export type RouteProgress = Omit<RequiredProgress, "sections"> & { sections: SectionProgress[] };
 
-export function sectionProgress(pack: JobPack, views: StationView[]): SectionProgress[] {
-  return pack.route.sections.map((s) => {
-    const mine = views.filter((v) => v.station.section === s.id);
-    const open = mine.filter((v) => OPEN_STATES.includes(v.state)).length;
-    return { id: s.id, label: s.label, done: mine.length - open, total: mine.length, open };
-  });
+// The required stations depend only on the pack's engine and spec: worked out once per pack.
+const requiredOf = new WeakMap<JobPack, Set<string>>();
+
+/** The job's required-station progress, counted as the desk and the release checklist count it. */
+export function routeProgress(pack: JobPack, views: StationView[]): RouteProgress {
+  let required = requiredOf.get(pack);
+  if (!required) requiredOf.set(pack, (required = requiredStationIds(pack.shape, pack.spec, pack.route)));
+  const current = new Map(views.flatMap((v) => (v.current ? [[v.station.id, v.current] as const] : [])));
+  const p = requiredProgress(pack.route, required, current);
+  const open = new Map<string, number>();
+  for (const v of views)
+    if (OPEN_STATES.includes(v.state)) open.set(v.station.section, (open.get(v.station.section) ?? 0) + 1);
+  return { ...p, sections: p.sections.map((s) => ({ ...s, open: open.get(s.id) ?? 0 })) };
 }
+
+/** A section's count in words: required stations done, or figures taken where none is required. */
+export const sectionCount = (s: SectionCounts): string =>
+  s.required ? `${s.done} of ${s.required} required` : `${s.measured} of ${s.stations} measured`;
 
 /** The next station after `fromId` that still needs the machinist, in route order (wrapping). */
 export function nextOpenStation(views: StationView[], fromId?: string): string | undefined {

@@ -55,6 +55,8 @@ export type ChecklistCheck = {
   ok: boolean;
   /** What is complete (or how far), in words. */
   summary: string;
+  /** The readings check only: required stations done (lib/domain/progress.ts), as the desk counts them. */
+  progress?: { done: number; required: number };
   items: ChecklistItem[];
 };
 export type ReleaseChecklist = { jobId: number; complete: boolean; checks: ChecklistCheck[]; unmet: ChecklistItem[] };

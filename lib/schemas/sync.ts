@@ -220,8 +220,8 @@ export type BenchJobHeader = {
 export type BenchJobSummary = BenchJobHeader & {
   customer: string;
   engine: string;
-  readings: number;
-  stations: number;
+  /** Required stations done (lib/domain/progress.ts); null for a job with no engine. */
+  progress: { done: number; required: number } | null;
   openFlags: number;
 };
 

@@ -31,11 +31,11 @@ describe("GET /api/bench/jobs", () => {
       status: "measuring",
       locked: false,
       lockReason: null,
-      readings: 2,
+      // Both readings are at required bore stations; 93 required on the factory V8 (the board agrees, jobs.test.ts).
+      progress: { done: 2, required: 93 },
       openFlags: 1,
       engine: "Test V8",
     });
-    expect(res.body.jobs[0].stations).toBeGreaterThan(200);
     getSequelize();
     await Job.update({ status: "released", lockedAt: new Date() }, { where: { id: other.job.id } });
     const theirs = await call(LIST, await asUser(other.users.lead, "GET", "/api/bench/jobs"));

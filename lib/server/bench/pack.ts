@@ -1,10 +1,10 @@
 import "server-only";
-import { benchRoute } from "@/lib/domain";
+import { benchRoute, correctedBy } from "@/lib/domain";
 import type { BenchJobSummary, JobPack } from "@/lib/schemas/sync";
 import type { Actor } from "@/lib/schemas/session";
 import { toBenchFlag } from "@/lib/server/bench/flags-repo";
-import { flagsOfJobs, jobProgress, jobWithNames, namesOf, openBenchJobs, toHeader } from "@/lib/server/bench/repo";
-import { toEngineShape } from "@/lib/server/jobs/context";
+import { flagsOfJobs, jobWithNames, namesOf, openBenchJobs, openFlagCounts, toHeader } from "@/lib/server/bench/repo";
+import { progressOfJobs } from "@/lib/server/jobs/readings";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import { readingsOfJobs, shopInstruments, toServerReading } from "@/lib/server/readings/repo";
@@ -26,16 +26,18 @@ function routeOf(shape: Parameters<typeof benchRoute>[0], code: string) {
 
 export async function listBenchJobs(actor: Actor): Promise<BenchJobSummary[]> {
   const jobs = await openBenchJobs(actor.shopId);
-  const progress = await jobProgress(jobs.map((j) => j.id));
-  return jobs.map((j) => {
-    let stations: number;
-    try {
-      stations = benchRoute(toEngineShape(j.engine!, j.unitSystem)).total;
-    } catch {
-      stations = 0; // the pack explains what is wrong with the engine
-    }
-    return { ...toHeader(j), ...namesOf(j), stations, ...progress.get(j.id)! };
-  });
+  // Required-station progress as the desk board counts it (lib/domain/progress.ts); an engine
+  // that cannot be laid out shows 0 of 0 and its pack explains what is wrong.
+  const [progress, flags] = await Promise.all([
+    progressOfJobs(actor.shopId, jobs),
+    openFlagCounts(jobs.map((j) => j.id)),
+  ]);
+  return jobs.map((j) => ({
+    ...toHeader(j),
+    ...namesOf(j),
+    progress: progress.get(j.id) ?? null,
+    openFlags: flags.get(j.id) ?? 0,
+  }));
 }
 
 export async function jobPack(actor: Actor, jobId: number): Promise<JobPack> {
@@ -51,15 +53,14 @@ export async function jobPack(actor: Actor, jobId: number): Promise<JobPack> {
     flagsOfJobs([jobId], { unclosedOnly: true }),
     derivedInputs(actor.shopId, [jobId]),
   ]);
-  const correctedBy = new Map<string, string>();
-  for (const r of readings) if (r.supersedes) correctedBy.set(r.supersedes, r.id);
+  const corrections = correctedBy(readings);
   return {
     job: { ...toHeader(ctx.job), ...namesOf(named) },
     shape: ctx.shape,
     spec: ctx.spec,
     route,
     instruments: instruments.map(({ shopId: _s, ...i }) => i),
-    readings: readings.map((r) => toServerReading(r, correctedBy.get(r.id) ?? null)),
+    readings: readings.map((r) => toServerReading(r, corrections.get(r.id) ?? null)),
     flags: flags.map((f) => toBenchFlag(f, inputs.get(jobId) ?? new Map())),
     cursor,
   };

@@ -8,7 +8,7 @@ import type { FlagRow } from "@/lib/server/bench/flags-repo";
 import type { EngineRow, JobRow } from "@/lib/server/jobs/repo";
 
 // The bench feature's door to the database: jobs as the tablet sees them (header with status and
-// lock, customer and engine names, progress) and their flags. Plain objects out.
+// lock, customer and engine names) with their open flag counts, and their flags. Plain objects out.
 
 type JobWithNames = JobRow & { customer?: { name: string }; engine?: EngineRow };
 
@@ -62,20 +62,15 @@ export async function jobHeaders(shopId: number, ids: number[]): Promise<BenchJo
   return rows.map((j) => toHeader(j.get({ plain: true })));
 }
 
-/** Per job: stations with a figure, and flags not closed. */
-export async function jobProgress(jobIds: number[]): Promise<Map<number, { readings: number; openFlags: number }>> {
-  const out = new Map(jobIds.map((id) => [id, { readings: 0, openFlags: 0 }]));
+/** Per job, its flags not closed. */
+export async function openFlagCounts(jobIds: number[]): Promise<Map<number, number>> {
+  const out = new Map(jobIds.map((id) => [id, 0]));
   if (jobIds.length === 0) return out;
-  const q = (sql: string) =>
-    getSequelize().query<{ jobId: number; n: number }>(sql, { replacements: [jobIds], type: QueryTypes.SELECT });
-  const [readings, flags] = await Promise.all([
-    q(
-      "SELECT job_id AS jobId, COUNT(DISTINCT station_id) AS n FROM readings WHERE job_id IN (?) AND skipped = 0 GROUP BY job_id",
-    ),
-    q("SELECT job_id AS jobId, COUNT(*) AS n FROM flags WHERE job_id IN (?) AND state <> 'closed' GROUP BY job_id"),
-  ]);
-  for (const r of readings) out.get(Number(r.jobId))!.readings = Number(r.n);
-  for (const r of flags) out.get(Number(r.jobId))!.openFlags = Number(r.n);
+  const rows = await getSequelize().query<{ jobId: number; n: number }>(
+    "SELECT job_id AS jobId, COUNT(*) AS n FROM flags WHERE job_id IN (?) AND state <> 'closed' GROUP BY job_id",
+    { replacements: [jobIds], type: QueryTypes.SELECT },
+  );
+  for (const r of rows) out.set(Number(r.jobId), Number(r.n));
   return out;
 }
 

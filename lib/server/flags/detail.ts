@@ -1,12 +1,12 @@
 import "server-only";
-import { deriveReadings, isJobLocked, type DerivedValue, stationWords } from "@/lib/domain";
+import { correctedBy, currentValues, deriveReadings, isJobLocked, stationWords, type DerivedValue } from "@/lib/domain";
 import type { DerivedFigure, DispositionEntry, FlagDetail, HistoryReading, Photo } from "@/lib/schemas/flag";
 import { FlagDisposition, User } from "@/models";
 import { getSequelize } from "@/lib/server/core/db";
 import { getFlagOrThrow, toListItem } from "@/lib/server/flags/repo";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { loadJobContext } from "@/lib/server/jobs/repo";
-import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";
+import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { listAttachments } from "@/lib/server/uploads/repo";
 
@@ -58,7 +58,7 @@ type HistoryInput = {
 };
 
 function history(stationId: string, h: HistoryInput): HistoryReading[] {
-  const correctedBy = new Map(h.all.filter((r) => r.supersedes).map((r) => [r.supersedes as string, r.id]));
+  const corrections = correctedBy(h.all);
   return h.all
     .filter((r) => r.stationId === stationId)
     .map((r) => {
@@ -76,7 +76,7 @@ function history(stationId: string, h: HistoryInput): HistoryReading[] {
         takenBy: h.names.get(r.takenBy) ?? null,
         gauge: g ? { id: g.id, label: g.label, serial: g.serial, calibrationDue: g.calibrationDue } : null,
         supersedes: r.supersedes,
-        supersededBy: correctedBy.get(r.id) ?? null,
+        supersededBy: corrections.get(r.id) ?? null,
         current: h.current.has(r.id),
         flagged: r.id === h.flaggedId,
         photos: h.photos.get(r.id) ?? [],
@@ -118,7 +118,7 @@ export async function getFlagDetail(shopId: number, flagId: number): Promise<Fla
   const f = await getFlagOrThrow(shopId, flagId);
   const ctx = await loadJobContext(shopId, f.jobId);
   const all = await jobReadings(undefined, f.jobId);
-  const current = currentReadings(all);
+  const current = currentValues(all);
   const instruments = await findInstruments(
     undefined,
     shopId,

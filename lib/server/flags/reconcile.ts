@@ -1,6 +1,6 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import { evaluateReading, type RawReading } from "@/lib/domain";
+import { currentValues, evaluateReading, type RawReading } from "@/lib/domain";
 import type { ReadingEvaluation } from "@/lib/schemas/sync";
 import type { AuditInput } from "@/lib/server/log/repo";
 import { createFlags, unclosedFlags, updateFlag, type NewFlag, type UnclosedFlag } from "@/lib/server/bench/flags-repo";
@@ -11,16 +11,16 @@ import { derivedScope, ingestStations, toJudge } from "@/lib/server/flags/reconc
 import { gaugePastDue, round6, sameEvaluation, storedEvaluation, toRaw } from "@/lib/server/sync/ingest-evaluate";
 import type { JobContext } from "@/lib/server/jobs/context";
 import { loadJobContext } from "@/lib/server/jobs/repo";
-import { currentReadings, jobReadingsWithGauges, lockJobs, updateEvaluation } from "@/lib/server/readings/repo";
+import { jobReadingsWithGauges, lockJobs, updateEvaluation } from "@/lib/server/readings/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { settleAll } from "@/lib/server/core/sql-driver";
 
 // The ONE mechanism that keeps a job's stored verdicts and flags in line with its readings and
 // limits. Ingest calls it after writing readings; a limits edit calls it after changing job_limits.
 //
-// Inside the caller's transaction it: locks the job row; takes each station's current reading (the
-// latest by takenAt that no other reading corrects; skipped entries carry no value and are passed
-// over); re-evaluates it with lib/domain and stores the verdict when it changed; derives taper,
+// Inside the caller's transaction it: locks the job row; takes each station's current value (the
+// shared rule, lib/domain/current-reading.ts: a station whose current reading is a skip has none);
+// re-evaluates it with lib/domain and stores the verdict when it changed; derives taper,
 // out-of-round, clearances and stretch; then makes the flags match (flag-reconcile-plan.ts). With
 // `fresh` (ingest) it reads, judges and revisits only what the new readings can change
 // (flag-reconcile-scope.ts); without it, everything:
@@ -210,7 +210,7 @@ export async function reconcileJob(
     ctx = await loadJobContext(o.shopId, o.jobId, t);
   }
   const { readings, instruments, flags } = await (input ?? readForReconcile(t, o, ctx));
-  const current = currentReadings(readings);
+  const current = currentValues(readings);
   const inst = (r: StoredReading) => (r.instrumentId ? instruments.get(r.instrumentId) : undefined);
   const raws = current.map((r) => toRaw(r, inst(r)));
   // Past due is a fact of the moment of measurement: once stored, a later recalibration of the

@@ -1,44 +1,51 @@
 import "server-only";
-import { benchRoute, deriveReadings, isJobLocked } from "@/lib/domain";
+import {
+  benchRoute,
+  currentReadings,
+  deriveReadings,
+  hasValue,
+  isJobLocked,
+  requiredProgress,
+  requiredStationIds,
+} from "@/lib/domain";
 import type { JobDetail, SectionSummary, VerdictCounts } from "@/lib/schemas/job";
 import type { JobContext } from "@/lib/server/jobs/context";
-import { loadJobReadings, measuredStations, requiredStationIds, type JobReadings } from "@/lib/server/jobs/readings";
+import { loadJobReadings, type JobReadings } from "@/lib/server/jobs/readings";
 import { findCustomer, flagCountsByJob, loadJobContext, templateName } from "@/lib/server/jobs/repo";
 
 // One job for its desk page: header fields, the engine as entered, and a readings summary per
-// bench section (required stations done, as the release checklist counts them; verdicts of the
-// current values) plus the verdicts of the derived values.
+// bench section (required stations done by lib/domain's progress rule, as the bench, the board
+// and the release checklist count them; verdicts of the current values) plus the derived values.
 const zero = (): VerdictCounts => ({ in_spec: 0, marginal: 0, out_of_spec: 0 });
 
-function sectionsOf(ctx: JobContext, readings: JobReadings, done: Set<string>): SectionSummary[] {
-  const byStation = new Map(readings.current.map((r) => [r.stationId, r]));
-  return benchRoute(ctx.shape).sections.map((s) => {
-    const required = requiredStationIds(ctx, s.stations);
+function sectionsOf(ctx: JobContext, readings: JobReadings): SectionSummary[] {
+  const route = benchRoute(ctx.shape);
+  const current = currentReadings(readings.all);
+  const progress = requiredProgress(route, requiredStationIds(ctx.shape, ctx.spec, route), current);
+  return route.sections.map((s, i) => {
+    const counts = progress.sections[i];
     const verdicts = zero();
-    let measured = 0;
     for (const st of s.stations) {
-      const r = byStation.get(st.id);
-      if (!r) continue;
-      measured += 1;
-      if (r.verdict) verdicts[r.verdict] += 1;
+      const r = current.get(st.id);
+      if (r && hasValue(r) && r.verdict) verdicts[r.verdict] += 1;
     }
     return {
       id: s.id,
       label: s.label,
-      stations: s.count,
-      measured,
-      required: required.length,
-      requiredDone: required.filter((id) => done.has(id)).length,
+      stations: counts.stations,
+      measured: counts.measured,
+      required: counts.required,
+      requiredDone: counts.done,
       verdicts,
     };
   });
 }
 
-function summarise(ctx: JobContext, readings: JobReadings, done: Set<string>) {
+function summarise(ctx: JobContext, readings: JobReadings) {
   const base = { readingCount: readings.all.length, currentCount: readings.current.length };
   const derived = { ...zero(), pending: 0 };
   try {
-    const sections = sectionsOf(ctx, readings, done);
+    const sections = sectionsOf(ctx, readings);
     for (const d of deriveReadings(readings.raws, ctx.shape, ctx.spec)) {
       if (d.verdict) derived[d.verdict] += 1;
       else if (d.missing.length && d.limits) derived.pending += 1;
@@ -52,11 +59,10 @@ function summarise(ctx: JobContext, readings: JobReadings, done: Set<string>) {
 export async function getJobDetail(shopId: number, jobId: number): Promise<JobDetail> {
   const ctx = await loadJobContext(shopId, jobId);
   const { job, engine } = ctx;
-  const [customer, template, readings, measured, flags] = await Promise.all([
+  const [customer, template, readings, flags] = await Promise.all([
     findCustomer(job.customerId),
     templateName(job.templateId),
     loadJobReadings(shopId, jobId),
-    measuredStations(shopId, [jobId]),
     flagCountsByJob(shopId, [jobId]),
   ]);
   return {
@@ -102,6 +108,6 @@ export async function getJobDetail(shopId: number, jobId: number): Promise<JobDe
       fuel: engine.fuel ?? null,
     },
     flags: flags.get(jobId)!,
-    summary: summarise(ctx, readings, measured.get(jobId) ?? new Set()),
+    summary: summarise(ctx, readings),
   };
 }

@@ -1,44 +1,52 @@
 import "server-only";
-import type { RawReading, Station } from "@/lib/domain";
+import { benchRoute, currentReadings, currentValues, requiredProgress, requiredStationIds } from "@/lib/domain";
+import type { RawReading } from "@/lib/domain";
+import type { UnitSystem } from "@/lib/schemas/enums";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
-import type { JobContext } from "@/lib/server/jobs/context";
-import {
-  currentReadings as releaseCurrent,
-  requiredStations as releaseRequired,
-} from "@/lib/server/release/checklist-rules";
-import type { JobRecord } from "@/lib/server/release/repo";
+import { toEngineShape } from "@/lib/server/jobs/context";
 import type { StoredReading } from "@/lib/schemas/readings";
-import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";
-import { readingChains } from "@/lib/server/jobs/repo";
+import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
+import { jobSpecs, readingChains, type EngineRow } from "@/lib/server/jobs/repo";
 import { listUsers } from "@/lib/server/users/repo";
 
-// A job's readings as the desk reads them, through the rules the rest of the server uses:
-// - progress toward release follows the release checklist (release-checklist-rules.ts): the
-//   required stations (own required limit, or an input of a required derived value) and the
-//   current reading of each (a skip counts as not measured);
-// - values, verdicts and derived values follow flag reconciliation (readings-repo currentReadings,
-//   ingest-evaluate toRaw), so the desk, the CSV and the flags never disagree.
+// A job's readings as the desk and the bench list read them, through the rules in lib/domain:
+// the current reading of each station (current-reading.ts) and required-station progress
+// (progress.ts), the same functions the tablet and the release checklist call.
 
-/** The release checklist's required stations of a route (it reads only the spec and the shape). */
-export function requiredStationIds(ctx: Pick<JobContext, "spec" | "shape">, stations: Station[]): string[] {
-  return releaseRequired({ spec: ctx.spec, shape: ctx.shape } as JobRecord, stations).map((r) => r.station.id);
-}
+export type Progress = { done: number; required: number };
 
-/** Per job, the stations whose current reading (release rule) is a measured value, not a skip. */
-export async function measuredStations(shopId: number, jobIds: number[]): Promise<Map<number, Set<string>>> {
-  const out = new Map<number, Set<string>>(jobIds.map((id) => [id, new Set()]));
-  const byJob = new Map<number, StoredReading[]>();
-  for (const r of await readingChains(shopId, jobIds))
-    (byJob.get(r.jobId) ?? byJob.set(r.jobId, []).get(r.jobId)!).push(r as StoredReading);
-  for (const [jobId, list] of byJob) {
-    for (const r of releaseCurrent(list).values()) if (!r.skipped) out.get(jobId)?.add(r.stationId);
+/**
+ * Required-station progress of each job with an engine (jobs without one are absent). An engine
+ * the core cannot lay out has no route: 0 of 0, and the job page says why.
+ */
+export async function progressOfJobs(
+  shopId: number,
+  jobs: { id: number; unitSystem: UnitSystem; engine?: EngineRow | null }[],
+): Promise<Map<number, Progress>> {
+  const withEngine = jobs.filter((j) => j.engine);
+  const ids = withEngine.map((j) => j.id);
+  const out = new Map<number, Progress>();
+  if (!ids.length) return out;
+  const [specs, chains] = await Promise.all([jobSpecs(ids), readingChains(shopId, ids)]);
+  const byJob = new Map<number, typeof chains>(ids.map((id) => [id, []]));
+  for (const r of chains) byJob.get(r.jobId)?.push(r);
+  for (const j of withEngine) {
+    try {
+      const shape = toEngineShape(j.engine!, j.unitSystem);
+      const route = benchRoute(shape);
+      const required = requiredStationIds(shape, specs.get(j.id)!, route);
+      const p = requiredProgress(route, required, currentReadings(byJob.get(j.id)!));
+      out.set(j.id, { done: p.done, required: p.required });
+    } catch {
+      out.set(j.id, { done: 0, required: 0 });
+    }
   }
   return out;
 }
 
 export type JobReadings = {
   all: StoredReading[];
-  /** The current value of each station (reconciliation's rule). */
+  /** The current readings that carry a figure (lib/domain currentValues). */
   current: StoredReading[];
   /** `current` in the core's shape, with gauge U and temperatures, for deriveReadings. */
   raws: RawReading[];
@@ -48,7 +56,7 @@ export type JobReadings = {
 
 export async function loadJobReadings(shopId: number, jobId: number): Promise<JobReadings> {
   const all = await jobReadings(undefined, jobId);
-  const current = currentReadings(all);
+  const current = currentValues(all);
   const [instruments, users] = await Promise.all([
     findInstruments(
       undefined,

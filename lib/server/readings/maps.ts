@@ -5,6 +5,7 @@ import {
   JOURNAL_POSITIONS,
   cleanDecimal,
   convertLength,
+  currentValues,
   deckBanks,
   deriveReadings,
   evaluateReading,
@@ -23,7 +24,7 @@ import {
 } from "@/lib/domain";
 import { toRaw } from "@/lib/server/sync/ingest-evaluate";
 import { loadJobContext } from "@/lib/server/jobs/repo";
-import { currentReadings, findInstruments, jobReadings } from "@/lib/server/readings/repo";
+import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
 
 // Bore, journal and deck maps of a job: every current figure judged by the core (evaluateReading,
 // 20 °C correction and the gauge's U included), taper and out-of-round from deriveReadings, all
@@ -122,7 +123,7 @@ function profiles(
 export async function jobMaps(shopId: number, jobId: number): Promise<JobMaps> {
   const ctx = await loadJobContext(shopId, jobId);
   const all = await jobReadings(undefined, jobId);
-  const current = currentReadings(all);
+  const current = currentValues(all);
   const instruments = await findInstruments(
     undefined,
     shopId,

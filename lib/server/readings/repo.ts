@@ -1,6 +1,7 @@
 import "server-only";
 import { Op, QueryTypes, type Transaction } from "sequelize";
 import { Instrument, decimalToNumber } from "@/models";
+import { correctedBy } from "@/lib/domain";
 import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
 import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize } from "@/lib/server/core/db";
@@ -139,14 +140,6 @@ export async function jobReadingsWithGauges(
   return { readings: rows.map(fromRow), instruments };
 }
 
-/** The station's current figure: the latest reading with a value that no other reading corrects. */
-export function currentReadings(all: StoredReading[]): StoredReading[] {
-  const corrected = new Set(all.map((r) => r.supersedes).filter(Boolean));
-  const latest = new Map<string, StoredReading>();
-  for (const r of all) if (!r.skipped && r.value !== null && !corrected.has(r.id)) latest.set(r.stationId, r);
-  return [...latest.values()];
-}
-
 const INSERT_COLUMNS = [...READING_FIELDS.map((k) => READING_COLUMNS[k]), "created_at", "updated_at"];
 
 /** One multi-row INSERT; rows must already be in foreign-key order (a correction after its target). */
@@ -227,14 +220,14 @@ export async function readingsOfJobs(jobIds: number[], ids?: string[]): Promise<
   return ids ? selectReadings("job_id IN (?) AND id IN (?)", [jobIds, ids]) : selectReadings("job_id IN (?)", [jobIds]);
 }
 
-/** For each id, the reading that corrects it (the latest one, when corrected more than once). */
+/** For each id, the reading that corrects it (lib/domain's correctedBy picks one when several do). */
 export async function correctionsOf(ids: string[]): Promise<Map<string, string>> {
   if (ids.length === 0) return new Map();
-  const rows = await getSequelize().query<{ id: string; supersedes: string }>(
-    "SELECT id, supersedes FROM readings WHERE supersedes IN (?) ORDER BY taken_at, received_at, id",
+  const rows = await getSequelize().query<{ id: string; stationId: string; supersedes: string; takenAt: Date }>(
+    "SELECT id, station_id AS stationId, supersedes, taken_at AS takenAt FROM readings WHERE supersedes IN (?)",
     { replacements: [ids], type: QueryTypes.SELECT },
   );
-  return new Map(rows.map((r) => [r.supersedes, r.id]));
+  return correctedBy(rows);
 }
 
 const iso = (d: Date | string) => (d instanceof Date ? d : new Date(d)).toISOString();

@@ -1,8 +1,7 @@
 import "server-only";
-import { EXPANSION_COEFFICIENTS, FASTENER_CAUTION } from "@/lib/domain";
+import { EXPANSION_COEFFICIENTS, FASTENER_CAUTION, currentReadings } from "@/lib/domain";
 import { env } from "@/lib/server/core/env";
 import { notFound } from "@/lib/server/core/errors";
-import { currentReadings } from "@/lib/server/release/checklist-rules";
 import { checkRelease } from "@/lib/server/release/hash-verify";
 import { listReleases, loadJobRecord, userNames, type JobRecord, type ReleaseRow } from "@/lib/server/release/repo";
 import { when, withUnit } from "@/lib/server/record/format";

@@ -1,6 +1,7 @@
 import "server-only";
 import {
   benchRoute,
+  currentReadings,
   deriveReadings,
   LUBRICANT_LABELS,
   SECTION_LABELS,
@@ -14,7 +15,6 @@ import {
   VERDICT_WORDS,
 } from "@/lib/domain";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
-import { currentReadings } from "@/lib/server/release/checklist-rules";
 import type { InstrumentRow, JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { limitsText, num, signed, stamp, withUnit } from "@/lib/server/record/format";

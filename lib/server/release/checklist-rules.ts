@@ -1,5 +1,13 @@
 import "server-only";
-import { benchRoute, characteristicWords, deriveReadings, findLimit, type Station } from "@/lib/domain";
+import {
+  benchRoute,
+  characteristicWords,
+  deriveReadings,
+  requiredProgress,
+  requiredStations,
+  type BenchRoute,
+  type Station,
+} from "@/lib/domain";
 import type { ChecklistCheck, ChecklistItem, ChecklistLink } from "@/lib/schemas/release";
 import type { JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
@@ -14,40 +22,20 @@ export const benchLink = (jobId: number, stationId: string): ChecklistLink => ({
 
 export const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
-/**
- * The current reading of each station: among readings no other reading supersedes, the latest
- * by takenAt (then by server receipt, then id, so the choice never depends on query order).
- */
-export function currentReadings(readings: StoredReading[]): Map<string, StoredReading> {
-  const superseded = new Set(readings.map((r) => r.supersedes).filter((id): id is string => !!id));
-  const out = new Map<string, StoredReading>();
-  for (const r of readings) {
-    if (superseded.has(r.id)) continue;
-    const had = out.get(r.stationId);
-    if (!had || later(r, had)) out.set(r.stationId, r);
-  }
-  return out;
-}
-
-function later(a: StoredReading, b: StoredReading): boolean {
-  const d = new Date(a.takenAt).getTime() - new Date(b.takenAt).getTime();
-  if (d !== 0) return d > 0;
-  const e = new Date(a.receivedAt).getTime() - new Date(b.receivedAt).getTime();
-  return e !== 0 ? e > 0 : a.id > b.id;
-}
-
 // Route and derived-value recipes depend only on the record's shape and spec; several checks
 // ask for them, so each is worked out once per record.
-const routes = new WeakMap<object, { stations: Station[]; error?: string }>();
+type Route = { route?: BenchRoute; stations: Station[]; error?: string };
+const routes = new WeakMap<object, Route>();
 type Recipes = Map<string, { characteristic: string; stationId: string; inputs: string[] }>;
 const recipes = new WeakMap<object, { shape: object; value: Recipes }>();
 
 /** The engine's bench route as a flat list, or the reason it cannot be built. */
-export function routeOf(record: Pick<JobRecord, "shape">): { stations: Station[]; error?: string } {
+export function routeOf(record: Pick<JobRecord, "shape">): Route {
   let out = routes.get(record.shape);
   if (!out) {
     try {
-      out = { stations: benchRoute(record.shape).sections.flatMap((s) => s.stations) };
+      const route = benchRoute(record.shape);
+      out = { route, stations: route.sections.flatMap((s) => s.stations) };
     } catch (err) {
       out = { stations: [], error: err instanceof Error ? err.message : String(err) };
     }
@@ -70,33 +58,6 @@ export function derivedInputs(record: Pick<JobRecord, "shape" | "spec">): Recipe
   return value;
 }
 
-/** `own`: the station's own characteristic is required; else `neededFor` names the derived values that need it. */
-type Required = { station: Station; own: boolean; neededFor: Set<string> };
-
-/**
- * Required stations: those whose own characteristic has a `required` limit there, and the inputs
- * of every derived value with a required limit (oil clearance needs both the bearing bore and
- * the journal, stretch needs both bolt lengths) — else a required clearance could go unmeasured.
- */
-export function requiredStations(record: Pick<JobRecord, "shape" | "spec">, stations: Station[]): Required[] {
-  const byId = new Map(stations.map((s) => [s.id, s]));
-  const need = new Map<string, Required>();
-  const add = (id: string, why?: string) => {
-    const station = byId.get(id);
-    if (!station) return;
-    const entry = need.get(id) ?? { station, own: false, neededFor: new Set<string>() };
-    if (why) entry.neededFor.add(why);
-    else entry.own = true;
-    need.set(id, entry);
-  };
-  for (const s of stations) if (findLimit(record.spec, s.characteristic, s.id)?.required) add(s.id);
-  for (const d of derivedInputs(record).values()) {
-    const limit = findLimit(record.spec, d.characteristic as never, d.stationId);
-    if (limit?.required) for (const id of d.inputs) add(id, characteristicWords(d.characteristic).toLowerCase());
-  }
-  return stations.filter((s) => need.has(s.id)).map((s) => need.get(s.id)!);
-}
-
 function shapeProblem(record: JobRecord, check: "readings" | "torque", error: string): ChecklistItem {
   return {
     check,
@@ -117,11 +78,14 @@ export function readingsCheck(record: JobRecord, current: Map<string, StoredRead
       summary: "No bench route",
       items: [shapeProblem(record, "readings", route.error)],
     };
-  const required = requiredStations(record, route.stations);
+  // Required and done as the rest of the product counts them (lib/domain/progress.ts).
+  const required = requiredStations(record.shape, record.spec, route.stations);
+  const progress = requiredProgress(route.route!, new Set(required.map((r) => r.station.id)), current);
   const items: ChecklistItem[] = [];
   for (const { station, own, neededFor } of required) {
     const r = current.get(station.id);
-    const why = !own && neededFor.size ? ` (needed for ${[...neededFor].join(", ")})` : "";
+    const words = [...neededFor].map((c) => characteristicWords(c).toLowerCase());
+    const why = !own && words.length ? ` (needed for ${words.join(", ")})` : "";
     const base = {
       check: "readings" as const,
       key: `readings:${station.id}`,
@@ -135,14 +99,14 @@ export function readingsCheck(record: JobRecord, current: Map<string, StoredRead
       });
     }
   }
-  const n = required.length;
+  const { required: n, done } = progress;
   const summary =
     n === 0
       ? "The spec marks no station as required"
-      : items.length === 0
+      : done === n
         ? `All ${plural(n, "required station")} have a current reading`
-        : `${n - items.length} of ${plural(n, "required station")} have a current reading; ${items.length} to go`;
-  return { id: "readings", title, ok: items.length === 0, summary, items };
+        : `${done} of ${plural(n, "required station")} have a current reading; ${n - done} to go`;
+  return { id: "readings", title, ok: items.length === 0, summary, progress: { done, required: n }, items };
 }
 
 export function torqueCheck(record: JobRecord, current: Map<string, StoredReading>): ChecklistCheck {

@@ -1,7 +1,8 @@
 import "server-only";
 import type { Transaction } from "sequelize";
+import { currentReadings } from "@/lib/domain";
 import type { ReleaseChecklist } from "@/lib/schemas/release";
-import { currentReadings, readingsCheck, torqueCheck } from "@/lib/server/release/checklist-rules";
+import { readingsCheck, torqueCheck } from "@/lib/server/release/checklist-rules";
 import { flagsCheck, gaugesCheck, planCheck } from "@/lib/server/release/checklist-review";
 import { loadJobRecord, type JobRecord } from "@/lib/server/release/repo";
 

@@ -1,10 +1,9 @@
 import "server-only";
-import { isJobLocked, type Verdict, characteristicWords, stationWords } from "@/lib/domain";
+import { characteristicWords, currentReadings, isJobLocked, stationWords, type Verdict } from "@/lib/domain";
 import type { FlagSummary, ReadingCounts, ReleaseJobSummary, ReleaseView } from "@/lib/schemas/release";
 import type { Actor } from "@/lib/schemas/session";
 import { listJobs } from "@/lib/server/jobs/repo";
 import { checklistOf } from "@/lib/server/release/checklist";
-import { currentReadings } from "@/lib/server/release/checklist-rules";
 import { listReleases, loadJobRecord, userNames, type FlagRow, type JobRecord } from "@/lib/server/release/repo";
 import { toReleaseRecord } from "@/lib/server/release/sign";
 

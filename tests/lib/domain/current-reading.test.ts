@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
+  correctedBy,
   currentReadings,
   currentValues,
   hasValue,
@@ -99,6 +100,14 @@ describe("current reading of each station (rule of this product)", () => {
     expect(values).toEqual([refused]);
     // Without the option the link counts and the earlier figure is history.
     expect(supersededIds([a, refused])).toEqual(new Set([a.id]));
+  });
+
+  it("correctedBy: each replaced reading with the reading that replaces it, the later when two do", () => {
+    const a = r("main/2/rear/B", "2026-01-01T08:00:00Z");
+    const b = r("main/2/rear/B", "2026-01-01T08:01:00Z", { supersedes: a.id });
+    const c = r("main/2/rear/B", "2026-01-01T08:03:00Z", { supersedes: a.id }); // a second tablet
+    const d = r("main/2/rear/B", "2026-01-01T08:04:00Z", { supersedes: c.id });
+    expect(Object.fromEntries(correctedBy([c, d, a, b]))).toEqual({ [a.id]: c.id, [c.id]: d.id });
   });
 
   it("hasValue: a skip or a missing figure carries no value", () => {

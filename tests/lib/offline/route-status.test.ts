@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { LocalReading } from "@/lib/offline/db";
-import { nextOpenStation, sectionProgress, stationViews } from "@/lib/offline/route-status";
+import { nextOpenStation, routeProgress, sectionCount, stationViews } from "@/lib/offline/route-status";
 import { makePack } from "./fake-server";
 
 const pack = makePack(1);
@@ -88,13 +88,28 @@ describe("route status", () => {
     });
     expect(stateOf(stationViews(sentBack, [old, again]), "bore/1/top/A")).toBe("in_spec");
   });
-  it("counts progress per section and finds the next open station, wrapping round", () => {
+  it("counts required-station progress per section and finds the next open station, wrapping round", () => {
     const views = stationViews(pack, [reading("bore/1/top/A", 4.0302), reading("bore/1/top/B", 4.0302)]);
-    const bores = sectionProgress(pack, views).find((s) => s.id === "bore")!;
-    expect(bores).toMatchObject({ done: 2, total: 24, open: 22, label: "Cylinder bores" });
+    const bores = routeProgress(pack, views).sections.find((s) => s.id === "bore")!;
+    expect(bores).toMatchObject({ done: 2, required: 24, stations: 24, open: 22, label: "Cylinder bores" });
+    expect(sectionCount(bores)).toBe("2 of 24 required");
+    const deck = routeProgress(pack, views).sections.find((s) => s.id === "deck")!;
+    expect(sectionCount(deck)).toBe("0 of 2 measured"); // the test spec requires no deck station
     expect(nextOpenStation(views, "bore/1/top/A")).toBe("bore/1/mid/A");
     expect(nextOpenStation(views)).toBe("bore/1/mid/A");
     const last = views[views.length - 1].station.id;
     expect(nextOpenStation(views, last)).toBe("bore/1/mid/A");
+  });
+  it("the job screen counts as the desk does: a skip is not done, nor is a refused reading; pending counts", () => {
+    const views = stationViews(pack, [
+      reading("bore/1/top/A", 4.0302),
+      reading("bore/1/top/B", null, { skipped: true, skipReason: "cracked" }),
+      reading("bore/1/mid/A", 4.0302, { state: "rejected", rejection: { code: "job_locked", reason: "locked" } }),
+      reading("bore/1/mid/B", 4.0302, { state: "synced" }),
+    ]);
+    const p = routeProgress(pack, views);
+    expect([p.done, p.required]).toEqual([2, 24]);
+    // The skip is not waiting for the machinist (not open), yet not done toward release.
+    expect(p.sections.find((s) => s.id === "bore")).toMatchObject({ done: 2, open: 21 });
   });
 });
