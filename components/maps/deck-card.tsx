@@ -3,7 +3,7 @@
 import { CartesianGrid, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
 import { figure, limitsText, withUnit } from "@/components/flags/format";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
-import type { DeckCorner } from "@/lib/server/readings/maps";
+import type { DeckCorner } from "@/lib/schemas/readings";
 import { limitLines, LIMIT, LINE_A, LINE_B, MUTED, RoundDot, scaleOf, SquareDot } from "./chart-parts";
 
 // Deck height at each corner: one line per bank (left solid/round, right dashed/square), front

@@ -4,7 +4,7 @@ import { useQuery } from "@tanstack/react-query";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { api } from "@/lib/client/api";
-import type { JobMaps, Profile } from "@/lib/server/readings/maps";
+import type { JobMaps, Profile } from "@/lib/schemas/readings";
 import { Legend } from "./chart-parts";
 import { DeckCard } from "./deck-card";
 import { ProfileCard } from "./profile-card";

@@ -3,7 +3,7 @@
 import { CartesianGrid, Line, LineChart, ReferenceLine, Tooltip, XAxis, YAxis } from "recharts";
 import { figure, limitsText, withUnit } from "@/components/flags/format";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
-import type { Figure, Profile } from "@/lib/server/readings/maps";
+import type { Figure, Profile } from "@/lib/schemas/readings";
 import { limitLines, LIMIT, LINE_A, LINE_B, MUTED, RoundDot, scaleOf, SquareDot } from "./chart-parts";
 
 // One bore or journal: diameter at each depth (or end) on both axes against the limit lines.

@@ -1,4 +1,4 @@
-import type { EntryMode, Verdict } from "@/lib/domain";
+import type { EntryMode, LengthUnit, Verdict } from "@/lib/domain";
 
 // A reading as the readings table stores it, under one set of field names used everywhere on the
 // server: the Sequelize model (models/reading.ts), the raw SQL of the sync hot path
@@ -94,3 +94,19 @@ export const READING_DECIMALS = [
   "limitMax",
   "deviation",
 ] as const satisfies readonly ReadingField[];
+
+// GET /api/jobs/:id/maps: bore, journal and deck maps of a job, every figure in the job's length unit.
+export type MapPoint = { value: number | null; min: number | null; max: number | null; verdict: Verdict | null };
+export type ProfileRow = { at: string; A: MapPoint; B: MapPoint };
+export type Figure = { value: number | null; max: number | null; verdict: Verdict | null; missing: number };
+export type Profile = { n: number; label: string; rows: ProfileRow[]; taper: Figure; outOfRound: Figure };
+export type DeckCorner = { bank: string; corner: string; point: MapPoint };
+export type JobMaps = {
+  job: { id: number; code: string; title: string };
+  unit: LengthUnit;
+  corrected: boolean;
+  bores: Profile[];
+  mains: Profile[];
+  rods: Profile[];
+  deck: DeckCorner[];
+};

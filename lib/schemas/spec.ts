@@ -40,7 +40,7 @@ import {
   iso286Deviations,
   type CharacteristicId,
 } from "@/lib/domain";
-import { UNIT_SYSTEMS } from "@/lib/schemas/enums";
+import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
 import { stationPatternProblem } from "./spec-pattern";
 
 export const CHARACTERISTIC_IDS = Object.keys(CHARACTERISTICS) as [CharacteristicId, ...CharacteristicId[]];
@@ -191,6 +191,21 @@ export const templateSchema = z.strictObject({
 
 export type TemplateInput = z.input<typeof templateSchema>;
 export type TemplateValues = z.output<typeof templateSchema>;
+
+/** GET /api/specs: one line of the shop's spec sheets. */
+export type TemplateSummary = {
+  id: number;
+  name: string;
+  engineKind: string;
+  buildKind: string;
+  unitSystem: UnitSystem;
+  version: number;
+  archived: boolean;
+  limitCount: number;
+  updatedAt: string;
+};
+/** GET /api/specs/:id: a spec sheet with its limits, as the editor and the export use it. */
+export type TemplateRecord = TemplateValues & { id: number; version: number; archived: boolean; updatedAt: string };
 
 export const templateFileSchema = z.strictObject({
   format: z.literal(SPEC_FILE_FORMAT, {

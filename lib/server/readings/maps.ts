@@ -20,8 +20,8 @@ import {
   type NominalSizes,
   type RawReading,
   type SpecLimit,
-  type Verdict,
 } from "@/lib/domain";
+import type { Figure, JobMaps, MapPoint, Profile } from "@/lib/schemas/readings";
 import { toRaw } from "@/lib/server/sync/ingest-evaluate";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
@@ -29,21 +29,6 @@ import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
 // Bore, journal and deck maps of a job: every current figure judged by the core (evaluateReading,
 // 20 °C correction and the gauge's U included), taper and out-of-round from deriveReadings, all
 // expressed in the job's length unit so one chart has one scale.
-
-export type MapPoint = { value: number | null; min: number | null; max: number | null; verdict: Verdict | null };
-export type ProfileRow = { at: string; A: MapPoint; B: MapPoint };
-export type Figure = { value: number | null; max: number | null; verdict: Verdict | null; missing: number };
-export type Profile = { n: number; label: string; rows: ProfileRow[]; taper: Figure; outOfRound: Figure };
-export type DeckCorner = { bank: string; corner: string; point: MapPoint };
-export type JobMaps = {
-  job: { id: number; code: string; title: string };
-  unit: LengthUnit;
-  corrected: boolean;
-  bores: Profile[];
-  mains: Profile[];
-  rods: Profile[];
-  deck: DeckCorner[];
-};
 
 type Judge = (stationId: string) => MapPoint;
 const SIZE: Record<string, keyof NominalSizes> = { bore: "bore", main: "mainJournal", rod: "rodJournal" };

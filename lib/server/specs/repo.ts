@@ -5,29 +5,20 @@ import {
   compactLimit,
   type LimitValueField,
   type LimitValues,
+  type TemplateRecord,
+  type TemplateSummary,
   type TemplateValues,
 } from "@/lib/schemas/spec";
-import { Job, SpecLimit, SpecTemplate, type JobLimit } from "@/models";
+import type { JobLimit, SpecLimit, SpecTemplate } from "@/models";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
-import { getSequelize } from "@/lib/server/core/db";
+import { getSequelize, models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 import { toSpecLimit } from "@/lib/server/jobs/context";
 
-// The shop's spec sheet templates. A template edit never reaches a job: jobs keep the
-// snapshot they took when they were created (their limits are edited on the job).
-export type TemplateSummary = {
-  id: number;
-  name: string;
-  engineKind: string;
-  buildKind: string;
-  unitSystem: "in" | "mm";
-  version: number;
-  archived: boolean;
-  limitCount: number;
-  updatedAt: string;
-};
-export type TemplateRecord = TemplateValues & { id: number; version: number; archived: boolean; updatedAt: string };
+// The shop's spec sheet templates: the feature's one door to the database, plain objects out.
+// A template edit never reaches a job: jobs keep the snapshot they took when they were created
+// (their limits are edited on the job).
 
 /** A stored limit (template or job) as the schema's values, with empty fields left out. */
 export function limitValuesOf(row: SpecLimit | JobLimit): LimitValues {
@@ -63,7 +54,7 @@ export function limitRow(l: LimitValues, sortOrder: number) {
 }
 
 export async function listTemplates(shopId: number): Promise<TemplateSummary[]> {
-  getSequelize();
+  const { SpecLimit, SpecTemplate } = models();
   const rows = await SpecTemplate.findAll({
     where: { shopId },
     order: [
@@ -94,8 +85,7 @@ export async function listTemplates(shopId: number): Promise<TemplateSummary[]> 
 }
 
 async function findOrThrow(shopId: number, id: number, t?: Transaction): Promise<SpecTemplate> {
-  getSequelize();
-  const row = await SpecTemplate.findOne({
+  const row = await models().SpecTemplate.findOne({
     where: { id, shopId },
     transaction: t,
     ...(t ? { lock: t.LOCK.UPDATE } : {}),
@@ -105,7 +95,7 @@ async function findOrThrow(shopId: number, id: number, t?: Transaction): Promise
 }
 
 async function recordOf(row: SpecTemplate, t?: Transaction): Promise<TemplateRecord> {
-  const limits = await SpecLimit.findAll({
+  const limits = await models().SpecLimit.findAll({
     where: { templateId: row.id },
     order: [
       ["sortOrder", "ASC"],
@@ -140,6 +130,7 @@ const headerOf = (v: TemplateValues) => ({
 });
 
 async function writeLimits(t: Transaction, templateId: number, limits: LimitValues[]) {
+  const { SpecLimit } = models();
   await SpecLimit.destroy({ where: { templateId }, transaction: t });
   await SpecLimit.bulkCreate(
     limits.map((l, i) => ({ ...limitRow(l, i), templateId })),
@@ -153,7 +144,7 @@ export async function createTemplate(
   action = "spec_template.create",
 ): Promise<TemplateRecord> {
   return getSequelize().transaction(async (t) => {
-    const row = await SpecTemplate.create({ shopId: actor.shopId, ...headerOf(v) }, { transaction: t });
+    const row = await models().SpecTemplate.create({ shopId: actor.shopId, ...headerOf(v) }, { transaction: t });
     await writeLimits(t, row.id, v.limits);
     const after = await recordOf(row, t);
     await recordAudit(t, {
@@ -209,6 +200,5 @@ export async function setTemplateArchived(actor: Actor, id: number, archived: bo
 
 /** How many jobs started from this template (shown so nobody expects an edit to reach them). */
 export async function jobsFromTemplate(shopId: number, id: number): Promise<number> {
-  getSequelize();
-  return Job.count({ where: { shopId, templateId: id } });
+  return models().Job.count({ where: { shopId, templateId: id } });
 }

@@ -4,7 +4,7 @@ import { useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/client/api";
 import type { BuildPlanView } from "@/lib/schemas/build-plan";
 import type { BoardJob, CustomerRecord, JobDetail, JobLimitsView } from "@/lib/schemas/job";
-import type { TemplateRecord, TemplateSummary } from "@/lib/server/specs/repo";
+import type { TemplateRecord, TemplateSummary } from "@/lib/schemas/spec";
 
 // Query keys and fetchers of the desk screens, in one place so every mutation knows what to
 // update or invalidate.
