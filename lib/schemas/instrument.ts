@@ -131,3 +131,8 @@ export type InstrumentRecord = Fields & {
   status: CalibrationStatus;
   daysLeft: number;
 };
+
+/** GET /api/instruments?include=active|all */
+export const instrumentListQuery = z.object({
+  include: z.enum(["active", "all"], { error: "include must be active or all" }).default("active"),
+});

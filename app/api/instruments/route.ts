@@ -1,7 +1,7 @@
 import { invalid } from "@/lib/server/core/errors";
-import { createInstrument, instrumentListQuery, listInstruments } from "@/lib/server/gauges/repo";
+import { createInstrument, listInstruments } from "@/lib/server/gauges/repo";
 import { authed, readJson } from "@/lib/server/core/route";
-import { instrumentSchema } from "@/lib/schemas/instrument";
+import { instrumentListQuery, instrumentSchema } from "@/lib/schemas/instrument";
 
 /** The shop's gauges with calibration status (admin manages; lead and inspector read). ?include=all adds deactivated ones. */
 export const GET = authed(["admin", "lead", "inspector"], async ({ req, actor }) => {

@@ -1,7 +1,6 @@
 import "server-only";
 import { UniqueConstraintError, type Transaction } from "sequelize";
-import { z } from "zod";
-import { Attachment, Instrument } from "@/models";
+import type { Attachment, Instrument } from "@/models";
 import {
   calibrationStatus,
   instrumentFields,
@@ -13,10 +12,11 @@ import {
 } from "@/lib/schemas/instrument";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
-import { getSequelize } from "@/lib/server/core/db";
+import { getSequelize, models } from "@/lib/server/core/db";
 import { AppError, invalid, notFound } from "@/lib/server/core/errors";
 
-// The shop's gauges. U is stored at k = 2 (coverageK stays 2: the form asks for U at k = 2).
+// The shop's gauges: the feature's one door to the database, plain objects out.
+// U is stored at k = 2 (coverageK stays 2: the form asks for U at k = 2).
 const todayUtc = () => new Date().toISOString().slice(0, 10);
 
 function reshape(g: Instrument, today = todayUtc()): InstrumentRecord {
@@ -40,7 +40,7 @@ function reshape(g: Instrument, today = todayUtc()): InstrumentRecord {
   };
 }
 
-const withCertificate = { include: [{ model: Attachment, as: "certificate" }] };
+const withCertificate = () => ({ include: [{ model: models().Attachment, as: "certificate" }] });
 
 // What the audit keeps: the figures that decide verdicts and flags.
 const auditView = (g: Instrument) => ({
@@ -61,28 +61,26 @@ export async function listInstruments(
   shopId: number,
   opts: { includeInactive?: boolean } = {},
 ): Promise<InstrumentRecord[]> {
-  getSequelize();
-  const rows = await Instrument.findAll({
+  const rows = await models().Instrument.findAll({
     where: { shopId, ...(opts.includeInactive ? {} : { active: true }) },
     order: [
       ["active", "DESC"],
       ["calibrationDue", "ASC"],
       ["label", "ASC"],
     ],
-    ...withCertificate,
+    ...withCertificate(),
   });
   const today = todayUtc();
   return rows.map((g) => reshape(g, today));
 }
 
 async function findOrThrow(shopId: number, id: number, t?: Transaction): Promise<Instrument> {
-  const g = await Instrument.findOne({ where: { id, shopId }, transaction: t, ...withCertificate });
+  const g = await models().Instrument.findOne({ where: { id, shopId }, transaction: t, ...withCertificate() });
   if (!g) throw notFound("Gauge");
   return g;
 }
 
 export async function getInstrument(shopId: number, id: number): Promise<InstrumentRecord> {
-  getSequelize();
   return reshape(await findOrThrow(shopId, id));
 }
 
@@ -106,7 +104,7 @@ export async function createInstrument(actor: Actor, input: InstrumentInput): Pr
   const sequelize = getSequelize();
   return guardSerial(input.serial, () =>
     sequelize.transaction(async (t) => {
-      const g = await Instrument.create(
+      const g = await models().Instrument.create(
         { ...input, shopId: actor.shopId, coverageK: 2, active: true },
         { transaction: t },
       );
@@ -160,7 +158,3 @@ export async function updateInstrument(actor: Actor, id: number, patch: Instrume
     }),
   );
 }
-
-export const instrumentListQuery = z.object({
-  include: z.enum(["active", "all"], { error: "include must be active or all" }).default("active"),
-});
