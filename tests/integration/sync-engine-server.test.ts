@@ -76,7 +76,7 @@ async function storedIds(jobId: number): Promise<string[]> {
 const sorted = (ids: string[]) => [...ids].sort();
 
 describe("sync engine against the real handler", () => {
-  it("a refused reading holds the rest (422): the held ones go again at once, the refused one waits with the server's words", async () => {
+  it("422: one refused reading holds the rest; the held go again, the refused keeps the server's words", async () => {
     const { db, server, enter, engine } = await tablet([shop.job.id]);
     const good = await enter(shop.job.id, [
       ["bore/1/top/A", 4.0302],
@@ -108,7 +108,7 @@ describe("sync engine against the real handler", () => {
     expect(await storedIds(shop.job.id)).toEqual(sorted([...good, slip].map((r) => r.id)));
   });
 
-  it("a job released behind the tablet's back (409): its readings are refused as locked, the others' go through", async () => {
+  it("409: a job released behind the tablet's back refuses its readings as locked; the others go through", async () => {
     const other = await anotherJob(shop);
     const { db, server, enter, engine } = await tablet([shop.job.id, other]);
     const open = await enter(shop.job.id, [
