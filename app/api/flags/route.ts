@@ -1,5 +1,5 @@
 import { invalid } from "@/lib/server/core/errors";
-import { listFlags } from "@/lib/server/flags/repo";
+import { listFlags } from "@/lib/server/flags/list";
 import { authed } from "@/lib/server/core/route";
 import { flagListQuerySchema } from "@/lib/schemas/flag";
 

@@ -1,9 +1,8 @@
 import "server-only";
 import { correctedBy, currentValues, deriveReadings, isJobLocked, stationWords, type DerivedValue } from "@/lib/domain";
 import type { DerivedFigure, DispositionEntry, FlagDetail, HistoryReading, Photo } from "@/lib/schemas/flag";
-import { FlagDisposition, User } from "@/models";
-import { getSequelize } from "@/lib/server/core/db";
-import { getFlagOrThrow, toListItem } from "@/lib/server/flags/repo";
+import { toListItem } from "@/lib/server/flags/list";
+import { dispositionRows, getFlagOrThrow, userNames } from "@/lib/server/flags/repo";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
@@ -40,12 +39,6 @@ function toFigure(d: DerivedValue): DerivedFigure {
     verdict: d.verdict ?? null,
     missing: d.missing,
   };
-}
-
-async function namesOf(ids: number[]): Promise<Map<number, string>> {
-  if (!ids.length) return new Map();
-  const users = await User.findAll({ where: { id: [...new Set(ids)] }, attributes: ["id", "name"] });
-  return new Map(users.map((u) => [u.id, u.name]));
 }
 
 type HistoryInput = {
@@ -95,15 +88,7 @@ async function photosOf(shopId: number, readingIds: string[]): Promise<Map<strin
 }
 
 async function dispositionsOf(flagId: number): Promise<DispositionEntry[]> {
-  const rows = await FlagDisposition.findAll({
-    where: { flagId },
-    include: [{ model: User, as: "user", attributes: ["id", "name"] }],
-    order: [
-      ["createdAt", "ASC"],
-      ["id", "ASC"],
-    ],
-  });
-  return rows.map((d) => ({
+  return (await dispositionRows(flagId)).map((d) => ({
     id: d.id,
     disposition: d.disposition,
     operation: d.operation ?? null,
@@ -114,7 +99,6 @@ async function dispositionsOf(flagId: number): Promise<DispositionEntry[]> {
 }
 
 export async function getFlagDetail(shopId: number, flagId: number): Promise<FlagDetail> {
-  getSequelize();
   const f = await getFlagOrThrow(shopId, flagId);
   const ctx = await loadJobContext(shopId, f.jobId);
   const all = await jobReadings(undefined, f.jobId);
@@ -129,7 +113,7 @@ export async function getFlagDetail(shopId: number, flagId: number): Promise<Fla
   const stationIds = f.readingId ? [f.stationId] : (own?.inputs ?? []);
   const atStations = all.filter((r) => stationIds.includes(r.stationId));
   const [names, photos, dispositions] = await Promise.all([
-    namesOf(atStations.map((r) => r.takenBy)),
+    userNames(atStations.map((r) => r.takenBy)),
     photosOf(
       shopId,
       atStations.map((r) => r.id),

@@ -2,13 +2,14 @@ import "server-only";
 import { isJobLocked, stationWords } from "@/lib/domain";
 import type { Transaction } from "sequelize";
 import { DISPOSITION_WORDS, type DispositionInput, type FlagListItem } from "@/lib/schemas/flag";
-import { Flag, FlagDisposition, Job } from "@/models";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
 import { recordChange } from "@/lib/server/sync/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
-import { getFlagOrThrow, toListItem } from "@/lib/server/flags/repo";
+import { toListItem } from "@/lib/server/flags/list";
+import { decisionTarget, getFlagOrThrow, recordDecision, type StoredFlag } from "@/lib/server/flags/repo";
+import type { JobRow } from "@/lib/server/jobs/repo";
 import { lockJobs } from "@/lib/server/readings/repo";
 
 // The lead's decision on a flag: measure again, machine again (with the operation) or accept
@@ -18,7 +19,7 @@ import { lockJobs } from "@/lib/server/readings/repo";
 
 const when = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ") + " UTC";
 
-function refuseLocked(job: Job): void {
+function refuseLocked(job: JobRow): void {
   if (isJobLocked(job)) {
     throw new AppError(
       "job_locked",
@@ -27,7 +28,7 @@ function refuseLocked(job: Job): void {
   }
 }
 
-function refuseClosed(flag: Flag): void {
+function refuseClosed(flag: StoredFlag): void {
   if (flag.state !== "closed") return;
   const at = flag.closedAt ? ` on ${when(flag.closedAt)}` : "";
   const by = flag.closedByReadingId ? " by a newer reading at the station" : " after the limits changed";
@@ -44,7 +45,7 @@ function fieldsOf(input: DispositionInput): { operation: string | null; reason: 
   return { operation: null, reason: input.note ?? null };
 }
 
-const auditView = (f: Flag) => ({
+const auditView = (f: StoredFlag) => ({
   state: f.state,
   disposition: f.disposition,
   operation: f.operation,
@@ -59,28 +60,19 @@ async function decide(t: Transaction, actor: Actor, flagId: number, jobId: numbe
   // Same lock order as reconciliation (job row, then its flags), so the two never deadlock and a
   // reading arriving now either closes the flag before this decision or after it, never during.
   await lockJobs(t, actor.shopId, [jobId]);
-  const job = await Job.findOne({ where: { id: jobId, shopId: actor.shopId }, transaction: t });
-  const flag = await Flag.findOne({ where: { id: flagId, shopId: actor.shopId }, transaction: t, lock: t.LOCK.UPDATE });
-  if (!job || !flag) throw notFound("Flag");
+  const target = await decisionTarget(t, actor.shopId, jobId, flagId);
+  if (!target) throw notFound("Flag");
+  const { job, flag } = target;
   refuseLocked(job);
   refuseClosed(flag);
   const before = auditView(flag);
   const { operation, reason } = fieldsOf(input);
-  const row = await FlagDisposition.create(
-    { flagId, disposition: input.kind, operation, reason, userId: actor.userId },
-    { transaction: t },
-  );
-  await flag.update(
-    {
-      state: "disposed",
-      disposition: input.kind,
-      operation,
-      dispositionReason: reason,
-      disposedBy: actor.userId,
-      disposedAt: row.createdAt,
-    },
-    { transaction: t },
-  );
+  const decided = await recordDecision(t, flag, {
+    disposition: input.kind,
+    operation,
+    reason,
+    userId: actor.userId,
+  });
   await recordAudit(t, {
     shopId: actor.shopId,
     userId: actor.userId,
@@ -89,14 +81,14 @@ async function decide(t: Transaction, actor: Actor, flagId: number, jobId: numbe
     entityId: flag.id,
     before,
     after: {
-      ...auditView(flag),
-      dispositionId: row.id,
+      ...auditView(decided.flag),
+      dispositionId: decided.dispositionId,
       station: stationWords(flag.stationId),
       words: DISPOSITION_WORDS[input.kind],
     },
   });
   await recordChange(t, { shopId: actor.shopId, jobId, entity: "flag", entityId: flag.id });
-  return row.id;
+  return decided.dispositionId;
 }
 
 export async function disposeFlag(

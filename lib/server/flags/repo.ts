@@ -1,69 +1,47 @@
 import "server-only";
-import { Op, type Order, type WhereOptions } from "sequelize";
-import { characteristicWords, stationWords } from "@/lib/domain";
-import type { FlagListItem, FlagListQuery, FlagPage, GaugeRef } from "@/lib/schemas/flag";
-import { Flag, Instrument, Job, Reading, User } from "@/models";
-import { getSequelize } from "@/lib/server/core/db";
+import { Op, type InferAttributes, type Order, type Transaction, type WhereOptions } from "sequelize";
+import type { Disposition } from "@/lib/schemas/enums";
+import type { FlagListQuery } from "@/lib/schemas/flag";
+import type { Flag, FlagDisposition, Instrument, Job, Reading, User } from "@/models";
+import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 
-// The lead's flag queue across jobs: filtered, sorted and paginated in the database.
+// The lead's flags: the feature's one door to the database. The queue is filtered, sorted and
+// paginated in the database; a decision appends its history row and sets the flag's latest one.
+// Plain objects out.
 
-export const gaugeRef = (g: Instrument | null | undefined): GaugeRef | null =>
-  g ? { id: g.id, label: g.label, serial: g.serial, calibrationDue: g.calibrationDue ?? null } : null;
-
-const iso = (d: Date | null | undefined) => (d ? new Date(d).toISOString() : null);
-
-type Loaded = Flag & {
-  job?: Job;
-  disposer?: User | null;
-  reading?: (Reading & { instrument?: Instrument | null; taker?: User }) | null;
+export type StoredFlag = InferAttributes<Flag>;
+type Named = Pick<InferAttributes<User>, "id" | "name">;
+/** A flag with its job, its reading's gauge and taker, and who decided it last. */
+export type LoadedFlag = StoredFlag & {
+  job?: Pick<InferAttributes<Job>, "id" | "code" | "title" | "status" | "unitSystem" | "lockedAt">;
+  disposer?: Named | null;
+  reading?:
+    | (Pick<InferAttributes<Reading>, "id" | "takenAt" | "instrumentId" | "takenBy"> & {
+        instrument?: Pick<InferAttributes<Instrument>, "id" | "label" | "serial" | "calibrationDue"> | null;
+        taker?: Named;
+      })
+    | null;
 };
 
-export function toListItem(f: Loaded): FlagListItem {
-  return {
-    id: f.id,
-    jobId: f.jobId,
-    jobCode: f.job?.code ?? "",
-    jobTitle: f.job?.title ?? "",
-    stationId: f.stationId,
-    station: stationWords(f.stationId),
-    characteristic: f.characteristic,
-    characteristicLabel: characteristicWords(f.characteristic),
-    derived: !f.readingId,
-    value: f.value,
-    unit: f.unit,
-    limitMin: f.limitMin ?? null,
-    limitMax: f.limitMax ?? null,
-    deviation: f.deviation ?? null,
-    verdict: f.verdict,
-    reason: f.reason,
-    state: f.state,
-    disposition: f.disposition ?? null,
-    operation: f.operation ?? null,
-    dispositionReason: f.dispositionReason ?? null,
-    disposedBy: f.disposer?.name ?? null,
-    disposedAt: iso(f.disposedAt),
-    closedAt: iso(f.closedAt),
-    gauge: gaugeRef(f.reading?.instrument),
-    takenBy: f.reading?.taker?.name ?? null,
-    takenAt: iso(f.reading?.takenAt),
-    createdAt: iso(f.createdAt) as string,
-  };
-}
+const plain = <T>(row: { get(o: { plain: true }): object }) => row.get({ plain: true }) as T;
 
-export const flagIncludes = [
-  { model: Job, as: "job", attributes: ["id", "code", "title", "status", "unitSystem", "lockedAt"] },
-  { model: User, as: "disposer", attributes: ["id", "name"] },
-  {
-    model: Reading,
-    as: "reading",
-    attributes: ["id", "takenAt", "instrumentId", "takenBy"],
-    include: [
-      { model: Instrument, as: "instrument", attributes: ["id", "label", "serial", "calibrationDue"] },
-      { model: User, as: "taker", attributes: ["id", "name"] },
-    ],
-  },
-];
+const flagIncludes = () => {
+  const { Instrument, Job, Reading, User } = models();
+  return [
+    { model: Job, as: "job", attributes: ["id", "code", "title", "status", "unitSystem", "lockedAt"] },
+    { model: User, as: "disposer", attributes: ["id", "name"] },
+    {
+      model: Reading,
+      as: "reading",
+      attributes: ["id", "takenAt", "instrumentId", "takenBy"],
+      include: [
+        { model: Instrument, as: "instrument", attributes: ["id", "label", "serial", "calibrationDue"] },
+        { model: User, as: "taker", attributes: ["id", "name"] },
+      ],
+    },
+  ];
+};
 
 const STATES: Record<FlagListQuery["state"], string[] | null> = {
   open: ["open"],
@@ -91,7 +69,7 @@ function orderOf(q: FlagListQuery): Order {
   const by: Record<FlagListQuery["sort"], Order> = {
     age: [["createdAt", flip]],
     job: [
-      [{ model: Job, as: "job" }, "code", dir],
+      [{ model: models().Job, as: "job" }, "code", dir],
       ["stationId", "ASC"],
     ],
     station: [["stationId", dir]],
@@ -114,32 +92,84 @@ function orderOf(q: FlagListQuery): Order {
   return [...(by[q.sort] as unknown[]), ["id", "ASC"]] as Order;
 }
 
-export async function listFlags(shopId: number, q: FlagListQuery): Promise<FlagPage> {
-  getSequelize();
+/** One page of the shop's flags matching `q`, and how many match in all. */
+export async function flagPage(shopId: number, q: FlagListQuery): Promise<{ total: number; rows: LoadedFlag[] }> {
+  const { Flag } = models();
   const where = whereOf(shopId, q);
   const [total, rows] = await Promise.all([
     Flag.count({ where }),
     Flag.findAll({
       where,
-      include: flagIncludes,
+      include: flagIncludes(),
       order: orderOf(q),
       limit: q.pageSize,
       offset: (q.page - 1) * q.pageSize,
     }),
   ]);
-  return {
-    items: rows.map((r) => toListItem(r as Loaded)),
-    total,
-    page: q.page,
-    pageSize: q.pageSize,
-    pageCount: Math.max(1, Math.ceil(total / q.pageSize)),
-  };
+  return { total, rows: rows.map((r) => plain<LoadedFlag>(r)) };
 }
 
 /** A flag of this shop with its job, gauge, taker and disposer; 404 for any other shop's. */
-export async function getFlagOrThrow(shopId: number, flagId: number): Promise<Loaded & { job: Job }> {
-  getSequelize();
-  const f = await Flag.findOne({ where: { id: flagId, shopId }, include: flagIncludes });
-  if (!f || !(f as Loaded).job) throw notFound("Flag");
-  return f as Loaded & { job: Job };
+export async function getFlagOrThrow(
+  shopId: number,
+  flagId: number,
+): Promise<LoadedFlag & { job: NonNullable<LoadedFlag["job"]> }> {
+  const f = await models().Flag.findOne({ where: { id: flagId, shopId }, include: flagIncludes() });
+  const loaded = f ? plain<LoadedFlag>(f) : null;
+  if (!loaded?.job) throw notFound("Flag");
+  return loaded as LoadedFlag & { job: NonNullable<LoadedFlag["job"]> };
+}
+
+/** Names of these users, by id. */
+export async function userNames(ids: number[]): Promise<Map<number, string>> {
+  if (!ids.length) return new Map();
+  const users = await models().User.findAll({ where: { id: [...new Set(ids)] }, attributes: ["id", "name"] });
+  return new Map(users.map((u) => [u.id, u.name]));
+}
+
+/** Every decision taken on a flag, oldest first, with the name of who took it. */
+export async function dispositionRows(
+  flagId: number,
+): Promise<(InferAttributes<FlagDisposition> & { user?: Named })[]> {
+  const { FlagDisposition, User } = models();
+  const rows = await FlagDisposition.findAll({
+    where: { flagId },
+    include: [{ model: User, as: "user", attributes: ["id", "name"] }],
+    order: [
+      ["createdAt", "ASC"],
+      ["id", "ASC"],
+    ],
+  });
+  return rows.map((d) => plain(d));
+}
+
+/**
+ * The job and the flag a decision is about, read inside `t` once the caller holds the job row's
+ * lock; the flag's row is locked too. Null when either is not this shop's.
+ */
+export async function decisionTarget(t: Transaction, shopId: number, jobId: number, flagId: number) {
+  const { Flag, Job } = models();
+  const job = await Job.findOne({ where: { id: jobId, shopId }, transaction: t });
+  const flag = await Flag.findOne({ where: { id: flagId, shopId }, transaction: t, lock: t.LOCK.UPDATE });
+  return job && flag ? { job: plain<InferAttributes<Job>>(job), flag: plain<StoredFlag>(flag) } : null;
+}
+
+/** Appends a decision to the flag's history and makes it the flag's latest; returns the flag as it now is. */
+export async function recordDecision(
+  t: Transaction,
+  flag: StoredFlag,
+  d: { disposition: Disposition; operation: string | null; reason: string | null; userId: number },
+): Promise<{ dispositionId: number; flag: StoredFlag }> {
+  const { Flag, FlagDisposition } = models();
+  const row = await FlagDisposition.create({ flagId: flag.id, ...d }, { transaction: t });
+  const patch = {
+    state: "disposed" as const,
+    disposition: d.disposition,
+    operation: d.operation,
+    dispositionReason: d.reason,
+    disposedBy: d.userId,
+    disposedAt: row.createdAt,
+  };
+  await Flag.update(patch, { where: { id: flag.id }, transaction: t });
+  return { dispositionId: row.id, flag: { ...flag, ...patch } };
 }
