@@ -1,4 +1,4 @@
-// Dispositions meet reconciliation (lib/server/flags/reconcile.ts, run by POST /api/sync): a newer
+// Dispositions meet reconciliation (lib/server/reconcile/reconcile.ts, run by POST /api/sync): a newer
 // in-spec reading closes a decided flag and keeps its history; the tablet sees "measure again"
 // through the job pack and the change feed; an acceptance stays on the record.
 import { randomUUID } from "node:crypto";

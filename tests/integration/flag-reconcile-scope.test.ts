@@ -1,5 +1,5 @@
 // After ingest, reconcileJob reads and revisits only what the fresh readings can change
-// (lib/server/flags/reconcile-scope.ts). Checked two ways: the scope itself, from the core's own
+// (lib/server/reconcile/scope.ts). Checked two ways: the scope itself, from the core's own
 // recipes; and equivalence: after any mix of batches, a full reconciliation (every reading, every
 // flag, as a limits edit runs it) finds nothing left to change. Figures are invented fixtures;
 // limits are tests/support/factories.ts INCH_LIMITS (bore 4.03 ± 0.0005 in, taper and
@@ -7,8 +7,8 @@
 import { beforeEach, describe, expect, it } from "vitest";
 import { benchRoute } from "@/lib/domain";
 import { getSequelize } from "@/lib/server/core/db";
-import { reconcileJob } from "@/lib/server/flags/reconcile";
-import { ingestStations } from "@/lib/server/flags/reconcile-scope";
+import { reconcileJob } from "@/lib/server/reconcile/reconcile";
+import { ingestStations } from "@/lib/server/reconcile/scope";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { createShop, type TestShop } from "../support/factories";
 import { flagsOf, later, push, reading } from "../api/sync-fixtures";

@@ -5,7 +5,7 @@
 import { beforeEach, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
 import { getSequelize } from "@/lib/server/core/db";
-import { reconcileJob } from "@/lib/server/flags/reconcile";
+import { reconcileJob } from "@/lib/server/reconcile/reconcile";
 import { FlagDisposition, Flag, JobLimit } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { count, flagsOf, push, reading } from "../api/sync-fixtures";

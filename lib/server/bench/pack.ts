@@ -2,7 +2,7 @@ import "server-only";
 import { benchRoute, correctedBy } from "@/lib/domain";
 import type { BenchJobSummary, JobPack } from "@/lib/schemas/sync";
 import type { Actor } from "@/lib/schemas/session";
-import { toBenchFlag } from "@/lib/server/bench/flags-repo";
+import { toBenchFlag } from "@/lib/server/bench/flag-view";
 import { flagsOfJobs, jobWithNames, namesOf, openBenchJobs, openFlagCounts, toHeader } from "@/lib/server/bench/repo";
 import { progressOfJobs } from "@/lib/server/jobs/readings";
 import { loadJobContext } from "@/lib/server/jobs/repo";

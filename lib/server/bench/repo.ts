@@ -4,7 +4,7 @@ import { OPEN_JOB_STATUSES, isJobLocked, jobLockReason } from "@/lib/domain";
 import type { BenchJobHeader } from "@/lib/schemas/sync";
 import type { Flag } from "@/models";
 import { getSequelize, models } from "@/lib/server/core/db";
-import type { FlagRow } from "@/lib/server/bench/flags-repo";
+import type { FlagRow } from "@/lib/server/reconcile/repo";
 import type { EngineRow, JobRow } from "@/lib/server/jobs/repo";
 
 // The bench feature's door to the database: jobs as the tablet sees them (header with status and

@@ -15,7 +15,7 @@ import { lockJobs } from "@/lib/server/readings/repo";
 // The lead's decision on a flag: measure again, machine again (with the operation) or accept
 // (with a written reason). Each decision appends a FlagDisposition row (the history) and sets the
 // flag's latest decision; the tablet sees it through the change feed, and a measure/machine-again
-// puts the station back on the route until a newer reading closes the flag (flag-reconcile.ts).
+// puts the station back on the route until a newer reading closes the flag (reconcile/reconcile.ts).
 
 const when = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ") + " UTC";
 

@@ -7,13 +7,13 @@ import { recordAudit } from "@/lib/server/log/repo";
 import { recordChange } from "@/lib/server/sync/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError } from "@/lib/server/core/errors";
-import { reconcileJob } from "@/lib/server/flags/reconcile";
+import { reconcileJob } from "@/lib/server/reconcile/reconcile";
 import { assertJobEditable } from "@/lib/server/jobs/editable";
 import { loadJobContext, lockJobOrThrow, replaceJobLimitRows } from "@/lib/server/jobs/repo";
 import { limitRow } from "@/lib/server/specs/repo";
 
 // A job's own limit snapshot: read it, or replace it and re-evaluate the job's readings and
-// flags against the new limits, all in one transaction (flag-reconcile.ts does the judging).
+// flags against the new limits, all in one transaction (reconcile/reconcile.ts does the judging).
 export async function getJobLimits(shopId: number, jobId: number): Promise<JobLimitsView> {
   const { job, spec } = await loadJobContext(shopId, jobId);
   return {

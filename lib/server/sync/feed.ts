@@ -1,7 +1,7 @@
 import "server-only";
 import { deriveReadings } from "@/lib/domain";
 import { SETTLE_MS, type SyncFeed } from "@/lib/schemas/sync";
-import { toBenchFlag } from "@/lib/server/bench/flags-repo";
+import { toBenchFlag } from "@/lib/server/bench/flag-view";
 import { flagsOfJobs, jobHeaders } from "@/lib/server/bench/repo";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { correctionsOf, readingsOfJobs, toServerReading } from "@/lib/server/readings/repo";

@@ -16,7 +16,7 @@ import { recordChanges } from "@/lib/server/sync/repo";
 import { syncAudits } from "@/lib/server/sync/ingest-audit";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, fieldErrors } from "@/lib/server/core/errors";
-import { readForReconcile, reconcileJob, type ReconcileLog } from "@/lib/server/flags/reconcile";
+import { readForReconcile, reconcileJob, type ReconcileLog } from "@/lib/server/reconcile/reconcile";
 import { checkItem, type BatchContext, type Checked } from "@/lib/server/sync/ingest-check";
 import { batchJobs, prefetchJobs } from "@/lib/server/sync/ingest-context";
 import { withDeadlockRetry } from "@/lib/server/sync/ingest-retry";
@@ -181,7 +181,7 @@ async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: Stor
     for (const [id, e] of res.evaluations) if (o.fresh.has(id)) finals.set(id, e);
   }
   log.audits.unshift(...syncAudits(actor, bc.deviceId, fresh, finals));
-  // One after the other: a write never waits in a pipeline behind another (flag-reconcile.ts says why).
+  // One after the other: a write never waits in a pipeline behind another (reconcile/reconcile.ts says why).
   await recordAudits(t, log.audits);
   return { finals, cursor: await recordChanges(t, log.changes) };
 }

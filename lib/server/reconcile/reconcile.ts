@@ -3,11 +3,11 @@ import type { Transaction } from "sequelize";
 import { currentValues, evaluateReading, type RawReading } from "@/lib/domain";
 import type { ReadingEvaluation } from "@/lib/schemas/sync";
 import type { AuditInput } from "@/lib/server/log/repo";
-import { createFlags, unclosedFlags, updateFlag, type NewFlag, type UnclosedFlag } from "@/lib/server/bench/flags-repo";
+import { createFlags, unclosedFlags, updateFlag, type NewFlag, type UnclosedFlag } from "@/lib/server/reconcile/repo";
 import { recordAudits } from "@/lib/server/log/repo";
 import { recordChanges, type ChangeInput } from "@/lib/server/sync/repo";
-import { newestInput, planFlags, wantedDerived, wantedRaw, type Closer } from "@/lib/server/flags/reconcile-plan";
-import { derivedScope, ingestStations, toJudge } from "@/lib/server/flags/reconcile-scope";
+import { newestInput, planFlags, wantedDerived, wantedRaw, type Closer } from "@/lib/server/reconcile/plan";
+import { derivedScope, ingestStations, toJudge } from "@/lib/server/reconcile/scope";
 import { gaugePastDue, round6, sameEvaluation, storedEvaluation, toRaw } from "@/lib/server/sync/ingest-evaluate";
 import type { JobContext } from "@/lib/server/jobs/context";
 import { loadJobContext } from "@/lib/server/jobs/repo";
@@ -21,9 +21,9 @@ import { settleAll } from "@/lib/server/core/sql-driver";
 // Inside the caller's transaction it: locks the job row; takes each station's current value (the
 // shared rule, lib/domain/current-reading.ts: a station whose current reading is a skip has none);
 // re-evaluates it with lib/domain and stores the verdict when it changed; derives taper,
-// out-of-round, clearances and stretch; then makes the flags match (flag-reconcile-plan.ts). With
+// out-of-round, clearances and stretch; then makes the flags match (plan.ts). With
 // `fresh` (ingest) it reads, judges and revisits only what the new readings can change
-// (flag-reconcile-scope.ts); without it, everything:
+// (scope.ts); without it, everything:
 //   - a value (raw or derived) that is out_of_spec, marginal, or read with a gauge past its due date
 //     (raw only) gets one flag, unless an open or disposed flag for that same value exists;
 //   - an open or disposed flag is closed when its value is no longer current (a newer reading at the

@@ -4,8 +4,9 @@ import type { BenchFlag } from "@/lib/schemas/sync";
 import { sqlRows, sqlWrite } from "@/lib/server/core/sql-driver";
 import { insertMany } from "@/lib/server/core/sql-insert";
 
-// Flags as the bench and the reconciler see them. The lead's desk (dispositions) has its own
-// repo; this one only opens, re-evaluates and closes flags, and reads them for the tablet.
+// The reconciler's one door to the database: flags as the bench and the reconciler see them,
+// opened, re-evaluated and closed in raw SQL on the transaction's own connection (the sync hot
+// path, bench:sync). The lead's decisions go through flags/repo.ts.
 
 export type FlagRow = Omit<BenchFlag, "stations" | "revisit" | "disposedAt" | "closedAt" | "createdAt"> & {
   shopId: number;
@@ -134,35 +135,4 @@ export async function updateFlag(t: Transaction, id: number, patch: FlagPatch): 
   const keys = (Object.keys(patch) as (keyof FlagPatch)[]).filter((k) => patch[k] !== undefined);
   const sets = [...keys.map((k) => `${PATCH_COLUMNS[k]} = ?`), "updated_at = ?"];
   await sqlWrite(t, `UPDATE flags SET ${sets.join(", ")} WHERE id = ?`, [...keys.map((k) => patch[k]), new Date(), id]);
-}
-
-const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
-
-/** `inputs` maps a derived key to the stations it is computed from (deriveReadings' recipe). */
-export function toBenchFlag(f: FlagRow, inputs: Map<string, string[]>): BenchFlag {
-  const stations = f.derivedKey ? (inputs.get(f.derivedKey) ?? [f.stationId]) : [f.stationId];
-  return {
-    id: f.id,
-    jobId: f.jobId,
-    readingId: f.readingId,
-    derivedKey: f.derivedKey,
-    stationId: f.stationId,
-    characteristic: f.characteristic,
-    value: f.value,
-    unit: f.unit,
-    limitMin: f.limitMin,
-    limitMax: f.limitMax,
-    deviation: f.deviation,
-    verdict: f.verdict,
-    reason: f.reason,
-    state: f.state,
-    disposition: f.disposition,
-    operation: f.operation,
-    dispositionReason: f.dispositionReason,
-    disposedAt: iso(f.disposedAt),
-    closedAt: iso(f.closedAt),
-    createdAt: iso(f.createdAt) as string,
-    stations,
-    revisit: f.state === "disposed" && (f.disposition === "measure_again" || f.disposition === "machine_again"),
-  };
 }

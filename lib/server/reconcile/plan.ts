@@ -1,12 +1,12 @@
 import "server-only";
 import type { DerivedValue } from "@/lib/domain";
 import type { ReadingEvaluation } from "@/lib/schemas/sync";
-import type { FlagPatch, NewFlag, UnclosedFlag } from "@/lib/server/bench/flags-repo";
+import type { FlagPatch, NewFlag, UnclosedFlag } from "@/lib/server/reconcile/repo";
 import { round6 } from "@/lib/server/sync/ingest-evaluate";
 import type { StoredReading } from "@/lib/schemas/readings";
 
 // The pure half of flag reconciliation: from current values and the flags that are not closed,
-// decide which flags to open, update and close. No database here (flag-reconcile.ts writes).
+// decide which flags to open, update and close. No database here (reconcile.ts writes).
 
 /** The reading that replaces a value, and the value now standing there. */
 export type Closer = { id: string | null; value: number | null };
