@@ -10,7 +10,7 @@
 import { randomUUID } from "node:crypto";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 import { ingestBatch } from "@/lib/server/sync/ingest";
-import { User } from "@/models";
+import { models } from "@/lib/server/core/db";
 import type { DemoContext } from "./demo";
 
 type Entry = [stationId: string, value: number, extra?: Partial<PushReadingInput>];
@@ -127,7 +127,7 @@ async function push(
 
 /** Adds the demo readings; returns the context unchanged so seedDemo can end with it. */
 export async function seedDemoReadings(ctx: DemoContext): Promise<DemoContext> {
-  const rosa = await User.findByPk(ctx.users.machinist);
+  const rosa = await models().User.findByPk(ctx.users.machinist);
   if (!rosa) throw new Error("The demo machinist is missing; seed the people first");
   const actor = { userId: rosa.id, shopId: ctx.shopId, role: "machinist" as const, name: rosa.name, email: rosa.email };
   await push(actor, ctx.jobs.v8, 24, "demo-tablet-1", v8(ctx.instruments));

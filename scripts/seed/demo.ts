@@ -3,8 +3,7 @@
 import bcrypt from "bcryptjs";
 import { readFileSync } from "node:fs";
 import type { Role, UnitSystem } from "@/lib/schemas/enums";
-import { getSequelize } from "@/lib/server/core/db";
-import { Customer, Engine, Instrument, Job, JobLimit, Shop, SpecLimit, SpecTemplate, User } from "@/models";
+import { models } from "@/lib/server/core/db";
 import { seedDemoReadings } from "./demo-readings";
 import { STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-specs";
 
@@ -29,6 +28,7 @@ async function template(
   unitSystem: UnitSystem,
   limits: typeof STREET_V8_INCH,
 ) {
+  const { SpecLimit, SpecTemplate } = models();
   const t = await SpecTemplate.create({
     shopId,
     name,
@@ -45,17 +45,18 @@ async function job(
   shopId: number,
   customerId: number,
   engineId: number,
-  t: SpecTemplate,
+  t: { id: number },
   limits: typeof STREET_V8_INCH,
   fields: { code: string; title: string; unitSystem: UnitSystem; dueDate: string; notes: string },
 ) {
+  const { Job, JobLimit } = models();
   const j = await Job.create({ shopId, customerId, engineId, templateId: t.id, status: "measuring", ...fields });
   await JobLimit.bulkCreate(limits.map((l, i) => ({ ...l, jobId: j.id, sortOrder: i })) as never[]);
   return j.id;
 }
 
 export async function seedDemo(): Promise<DemoContext> {
-  getSequelize();
+  const { Customer, Engine, Instrument, Shop, User } = models();
   const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as Demo;
   const shop = await Shop.create({
     name: demo.shop,

@@ -1,10 +1,10 @@
 import "server-only";
 import { Op, QueryTypes, type Transaction } from "sequelize";
-import { Instrument, decimalToNumber } from "@/models";
+import { decimalToNumber, type Instrument } from "@/models";
 import { correctedBy } from "@/lib/domain";
 import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
 import type { ServerReading } from "@/lib/schemas/sync";
-import { getSequelize } from "@/lib/server/core/db";
+import { getSequelize, models } from "@/lib/server/core/db";
 import { sqlRows, sqlWrite, utcDate } from "@/lib/server/core/sql-driver";
 import { insertMany } from "@/lib/server/core/sql-insert";
 import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
@@ -196,14 +196,12 @@ export async function findInstruments(
     ]);
     return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
   }
-  getSequelize();
-  const rows = await Instrument.findAll({ where: { shopId, id: { [Op.in]: [...new Set(ids)] } } });
+  const rows = await models().Instrument.findAll({ where: { shopId, id: { [Op.in]: [...new Set(ids)] } } });
   return new Map(rows.map((i) => [i.id, toInstrument(i)]));
 }
 
 export async function shopInstruments(shopId: number): Promise<InstrumentInfo[]> {
-  getSequelize();
-  const rows = await Instrument.findAll({
+  const rows = await models().Instrument.findAll({
     where: { shopId },
     order: [
       ["kind", "ASC"],
