@@ -1,6 +1,6 @@
 // The build record as the PDF and the customer's page print it: plain data, every figure
 // already written out with its unit, so both layouts show the same words.
-import type { ReleaseRecord } from "@/lib/schemas/release";
+import type { ReleaseRecord, VerificationStatus } from "@/lib/schemas/release";
 import type { Verdict } from "@/lib/domain";
 
 export type Line = { label: string; value: string };
@@ -76,7 +76,7 @@ export type PhotoLine = { id: string; caption: string; thumb: Buffer | null; not
 /** A release as the record prints it: the release page's view plus the live check. */
 export type ReleaseStamp = Omit<ReleaseRecord, "jobId"> & {
   /** Whether the database still gives the signed fingerprint, in words, when this copy was made. */
-  check: { status: "match" | "changed" | "void"; words: string };
+  check: { status: VerificationStatus; words: string };
   verifyUrl: string;
 };
 

@@ -61,7 +61,9 @@ export type ChecklistCheck = {
 };
 export type ReleaseChecklist = { jobId: number; complete: boolean; checks: ChecklistCheck[]; unmet: ChecklistItem[] };
 
-export type ReleaseStatus = "standing" | "void";
+/** A release stands until a lead reopens the job, which voids it (kept, marked VOID). */
+export const RELEASE_STATUSES = ["standing", "void"] as const;
+export type ReleaseStatus = (typeof RELEASE_STATUSES)[number];
 export type ReleaseRecord = {
   id: number;
   jobId: number;
@@ -129,8 +131,11 @@ export type ReleaseJobSummary = {
   release: { signedAt: string; hash: string } | null;
 };
 
-export type Difference = { section: string; id: string; label: string; change: "changed" | "added" | "removed" };
-export type VerificationStatus = "match" | "changed" | "void";
+export const RECORD_CHANGES = ["changed", "added", "removed"] as const;
+export type Difference = { section: string; id: string; label: string; change: (typeof RECORD_CHANGES)[number] };
+/** What checking a release against the database now finds. */
+export const VERIFICATION_STATUSES = ["match", "changed", "void"] as const;
+export type VerificationStatus = (typeof VERIFICATION_STATUSES)[number];
 export type Verification = {
   status: VerificationStatus;
   words: string;
