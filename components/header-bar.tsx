@@ -8,7 +8,9 @@ import { ThemeToggle } from "./theme-toggle";
 // The header every signed-in screen shares. `link` is what its links are made of: the office pages
 // pass next/link (client navigation with prefetch); the bench, an offline shell, passes plain
 // anchors, so leaving it is a full page load and the router's link code stays out of its first load.
-export function HeaderBar({ actor, current, link: A }: { actor: Actor; current?: string; link: ElementType }) {
+type Props = { actor: Pick<Actor, "name" | "role">; current?: string; link: ElementType };
+
+export function HeaderBar({ actor, current, link: A }: Props) {
   return (
     <header className="no-print border-b-2 border-rule bg-panel">
       <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">

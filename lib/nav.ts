@@ -34,3 +34,18 @@ export const ROLE_WORDS: Record<Role, string> = {
   inspector: "Inspector",
   admin: "Shop admin",
 };
+
+/** The request header proxy.ts sets on office pages: their path, for the sign-in page to lead back to. */
+export const PAGE_PATH_HEADER = "x-tenthwise-page";
+
+/**
+ * The navigation entry a path belongs to: the longest entry the path is under. An inspector opens a
+ * job's maps from the release page, so those count as Release for them.
+ */
+export function currentNav(role: Role, path: string): string | undefined {
+  const under = (href: string) => path === href || path.startsWith(`${href}/`);
+  const hit = NAV[role].filter((n) => under(n.href)).sort((a, b) => b.href.length - a.href.length)[0];
+  if (hit) return hit.href;
+  if (role === "inspector" && path.startsWith("/desk/jobs/")) return "/release";
+  return undefined;
+}

@@ -1,5 +1,4 @@
 import { Suspense } from "react";
-import { AppHeader } from "@/components/app-header";
 import { AuditBrowser } from "@/components/audit/audit-browser";
 import { Loading } from "@/components/release/query-states";
 import { requirePageActor } from "@/lib/server/core/access";
@@ -7,22 +6,19 @@ import { requirePageActor } from "@/lib/server/core/access";
 export const metadata = { title: "Audit trail" };
 
 export default async function AuditPage() {
-  const actor = await requirePageActor(["lead", "inspector"], "/audit");
+  await requirePageActor(["lead", "inspector"]);
   return (
-    <>
-      <AppHeader actor={actor} current="/audit" />
-      <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
-        <div>
-          <h1 className="text-3xl font-semibold">Audit trail</h1>
-          <p className="text-muted">
-            Every change in the shop, who made it and when, with the values before and after. Entries are never edited
-            or deleted.
-          </p>
-        </div>
-        <Suspense fallback={<Loading what="the audit trail" />}>
-          <AuditBrowser />
-        </Suspense>
-      </main>
-    </>
+    <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
+      <div>
+        <h1 className="text-3xl font-semibold">Audit trail</h1>
+        <p className="text-muted">
+          Every change in the shop, who made it and when, with the values before and after. Entries are never edited or
+          deleted.
+        </p>
+      </div>
+      <Suspense fallback={<Loading what="the audit trail" />}>
+        <AuditBrowser />
+      </Suspense>
+    </main>
   );
 }

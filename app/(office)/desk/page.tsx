@@ -1,5 +1,4 @@
 import Link from "next/link";
-import { AppHeader } from "@/components/app-header";
 import { requirePageActor } from "@/lib/server/core/access";
 import { JobsBoard } from "./_components/jobs-board";
 
@@ -7,25 +6,22 @@ export const metadata = { title: "Jobs" };
 
 // The lead's home; the admin may read it.
 export default async function DeskHome() {
-  const actor = await requirePageActor(["lead", "admin"], "/desk");
+  const actor = await requirePageActor(["lead", "admin"]);
   const lead = actor.role === "lead";
   return (
-    <>
-      <AppHeader actor={actor} current="/desk" />
-      <main className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6">
-        <div className="flex flex-wrap items-center justify-between gap-3">
-          <h1 className="text-3xl font-semibold">Jobs</h1>
-          {lead && (
-            <Link
-              href="/desk/jobs/new"
-              className="inline-flex min-h-11 items-center rounded-tool bg-steel px-4 font-semibold text-steel-ink hover:brightness-110"
-            >
-              New job
-            </Link>
-          )}
-        </div>
-        <JobsBoard canCreate={lead} />
-      </main>
-    </>
+    <main className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1 className="text-3xl font-semibold">Jobs</h1>
+        {lead && (
+          <Link
+            href="/desk/jobs/new"
+            className="inline-flex min-h-11 items-center rounded-tool bg-steel px-4 font-semibold text-steel-ink hover:brightness-110"
+          >
+            New job
+          </Link>
+        )}
+      </div>
+      <JobsBoard canCreate={lead} />
+    </main>
   );
 }

@@ -1,5 +1,8 @@
 import "server-only";
+import { headers } from "next/headers";
 import { redirect } from "next/navigation";
+import { cache } from "react";
+import { PAGE_PATH_HEADER } from "@/lib/nav";
 import { AppError } from "@/lib/server/core/errors";
 import type { Role } from "@/lib/schemas/enums";
 import type { Actor } from "@/lib/schemas/session";
@@ -40,14 +43,19 @@ export async function requireActor(req: Request, roles: readonly Role[] | "any" 
   return actor;
 }
 
-/** For pages and layouts: signed out → sign-in page; wrong role → that user's own home. */
-export async function requirePageActor(roles: readonly Role[] | "any" = "any", from?: string): Promise<Actor> {
-  const actor = await actorFrom(await getPageSession());
-  if (!actor) redirect(from ? `/sign-in?next=${encodeURIComponent(from)}` : "/sign-in");
+/** Who is signed in for this page request, looked up once however many layouts and pages ask. */
+export const currentPageActor = cache(async (): Promise<Actor | null> => actorFrom(await getPageSession()));
+
+/**
+ * For pages and layouts: signed out → the sign-in page, which leads back to the page asked for
+ * (proxy.ts hands on its path, because a layout cannot see the URL); wrong role → that user's own home.
+ */
+export async function requirePageActor(roles: readonly Role[] | "any" = "any"): Promise<Actor> {
+  const actor = await currentPageActor();
+  if (!actor) {
+    const from = (await headers()).get(PAGE_PATH_HEADER);
+    redirect(from ? `/sign-in?next=${encodeURIComponent(from)}` : "/sign-in");
+  }
   if (roles !== "any" && !roles.includes(actor.role)) redirect(ROLE_HOME[actor.role]);
   return actor;
-}
-
-export async function currentPageActor(): Promise<Actor | null> {
-  return actorFrom(await getPageSession());
 }

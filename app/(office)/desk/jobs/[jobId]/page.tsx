@@ -1,5 +1,4 @@
 import Link from "next/link";
-import { AppHeader } from "@/components/app-header";
 import { requirePageActor } from "@/lib/server/core/access";
 import { JobPage } from "../../_components/job-page";
 
@@ -8,16 +7,13 @@ export const metadata = { title: "Job" };
 // The lead works the job here; the admin may read it.
 export default async function JobDeskPage({ params }: { params: Promise<{ jobId: string }> }) {
   const { jobId } = await params;
-  const actor = await requirePageActor(["lead", "admin"], `/desk/jobs/${jobId}`);
+  const actor = await requirePageActor(["lead", "admin"]);
   return (
-    <>
-      <AppHeader actor={actor} current="/desk" />
-      <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
-        <Link href="/desk" className="text-sm font-medium text-steel underline">
-          ← All jobs
-        </Link>
-        <JobPage jobId={Number(jobId)} canEdit={actor.role === "lead"} />
-      </main>
-    </>
+    <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
+      <Link href="/desk" className="text-sm font-medium text-steel underline">
+        ← All jobs
+      </Link>
+      <JobPage jobId={Number(jobId)} canEdit={actor.role === "lead"} />
+    </main>
   );
 }

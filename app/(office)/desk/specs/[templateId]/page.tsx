@@ -1,5 +1,4 @@
 import Link from "next/link";
-import { AppHeader } from "@/components/app-header";
 import { requirePageActor } from "@/lib/server/core/access";
 import { SpecEdit } from "../../_components/spec-edit";
 
@@ -7,16 +6,13 @@ export const metadata = { title: "Spec sheet" };
 
 export default async function SpecPage({ params }: { params: Promise<{ templateId: string }> }) {
   const { templateId } = await params;
-  const actor = await requirePageActor(["lead", "admin"], `/desk/specs/${templateId}`);
+  await requirePageActor(["lead", "admin"]);
   return (
-    <>
-      <AppHeader actor={actor} current="/desk/specs" />
-      <main className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6">
-        <Link href="/desk/specs" className="text-sm font-medium text-steel underline">
-          ← All spec sheets
-        </Link>
-        <SpecEdit templateId={Number(templateId)} />
-      </main>
-    </>
+    <main className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6">
+      <Link href="/desk/specs" className="text-sm font-medium text-steel underline">
+        ← All spec sheets
+      </Link>
+      <SpecEdit templateId={Number(templateId)} />
+    </main>
   );
 }

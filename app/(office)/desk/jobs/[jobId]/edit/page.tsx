@@ -1,4 +1,3 @@
-import { AppHeader } from "@/components/app-header";
 import { requirePageActor } from "@/lib/server/core/access";
 import { JobEdit } from "../../../_components/job-edit";
 
@@ -6,14 +5,11 @@ export const metadata = { title: "Edit job" };
 
 export default async function EditJobPage({ params }: { params: Promise<{ jobId: string }> }) {
   const { jobId } = await params;
-  const actor = await requirePageActor(["lead"], `/desk/jobs/${jobId}/edit`);
+  await requirePageActor(["lead"]);
   return (
-    <>
-      <AppHeader actor={actor} current="/desk" />
-      <main className="mx-auto flex max-w-5xl flex-col gap-6 px-4 py-6">
-        <h1 className="text-3xl font-semibold">Edit job</h1>
-        <JobEdit jobId={Number(jobId)} />
-      </main>
-    </>
+    <main className="mx-auto flex max-w-5xl flex-col gap-6 px-4 py-6">
+      <h1 className="text-3xl font-semibold">Edit job</h1>
+      <JobEdit jobId={Number(jobId)} />
+    </main>
   );
 }

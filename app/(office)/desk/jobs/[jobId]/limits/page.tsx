@@ -1,5 +1,4 @@
 import Link from "next/link";
-import { AppHeader } from "@/components/app-header";
 import { requirePageActor } from "@/lib/server/core/access";
 import { JobLimitsEditor } from "../../../_components/job-limits-form";
 
@@ -7,16 +6,13 @@ export const metadata = { title: "Job limits" };
 
 export default async function JobLimitsPage({ params }: { params: Promise<{ jobId: string }> }) {
   const { jobId } = await params;
-  const actor = await requirePageActor(["lead"], `/desk/jobs/${jobId}/limits`);
+  await requirePageActor(["lead"]);
   return (
-    <>
-      <AppHeader actor={actor} current="/desk" />
-      <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
-        <Link href={`/desk/jobs/${jobId}`} className="text-sm font-medium text-steel underline">
-          ← Back to the job
-        </Link>
-        <JobLimitsEditor jobId={Number(jobId)} />
-      </main>
-    </>
+    <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
+      <Link href={`/desk/jobs/${jobId}`} className="text-sm font-medium text-steel underline">
+        ← Back to the job
+      </Link>
+      <JobLimitsEditor jobId={Number(jobId)} />
+    </main>
   );
 }

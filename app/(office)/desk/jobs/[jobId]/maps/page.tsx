@@ -1,5 +1,4 @@
 import { notFound } from "next/navigation";
-import { AppHeader } from "@/components/app-header";
 import { MapsView } from "@/components/maps/maps-view";
 import { requirePageActor } from "@/lib/server/core/access";
 
@@ -7,15 +6,12 @@ export const metadata = { title: "Maps" };
 
 export default async function MapsPage({ params }: { params: Promise<{ jobId: string }> }) {
   const { jobId } = await params;
-  const actor = await requirePageActor(["lead", "inspector"], `/desk/jobs/${jobId}/maps`);
+  await requirePageActor(["lead", "inspector"]);
   const id = Number(jobId);
   if (!Number.isInteger(id) || id <= 0) notFound();
   return (
-    <>
-      <AppHeader actor={actor} current={actor.role === "lead" ? "/desk" : "/release"} />
-      <main className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6 print:max-w-none print:px-0">
-        <MapsView jobId={id} />
-      </main>
-    </>
+    <main className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6 print:max-w-none print:px-0">
+      <MapsView jobId={id} />
+    </main>
   );
 }
