@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { requirePageActor } from "@/lib/server/core/access";
-import { JobsBoard } from "./_components/jobs-board";
+import { JobsBoard } from "@/components/desk/jobs-board";
 
 export const metadata = { title: "Jobs" };
 

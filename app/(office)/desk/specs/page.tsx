@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { requirePageActor } from "@/lib/server/core/access";
-import { SpecList } from "../_components/spec-list";
+import { SpecList } from "@/components/desk/spec-list";
 
 export const metadata = { title: "Spec sheets" };
 

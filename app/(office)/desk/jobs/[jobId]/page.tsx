@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { requirePageActor } from "@/lib/server/core/access";
-import { JobPage } from "../../_components/job-page";
+import { JobPage } from "@/components/desk/job-page";
 
 export const metadata = { title: "Job" };
 

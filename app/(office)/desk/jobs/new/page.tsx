@@ -1,5 +1,5 @@
 import { requirePageActor } from "@/lib/server/core/access";
-import { JobForm } from "../../_components/job-form";
+import { JobForm } from "@/components/desk/job-form";
 
 export const metadata = { title: "New job" };
 

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { requirePageActor } from "@/lib/server/core/access";
-import { SpecEdit } from "../../_components/spec-edit";
+import { SpecEdit } from "@/components/desk/spec-edit";
 
 export const metadata = { title: "Spec sheet" };
 

@@ -1,5 +1,5 @@
 import { requirePageActor } from "@/lib/server/core/access";
-import { SpecImport } from "../../_components/spec-import";
+import { SpecImport } from "@/components/desk/spec-import";
 
 export const metadata = { title: "Import a spec sheet" };
 

@@ -1,5 +1,5 @@
 import { requirePageActor } from "@/lib/server/core/access";
-import { SpecTemplateForm } from "../../_components/spec-template-form";
+import { SpecTemplateForm } from "@/components/desk/spec-template-form";
 
 export const metadata = { title: "New spec sheet" };
 

@@ -1,5 +1,5 @@
 import { requirePageActor } from "@/lib/server/core/access";
-import { JobEdit } from "../../../_components/job-edit";
+import { JobEdit } from "@/components/desk/job-edit";
 
 export const metadata = { title: "Edit job" };
 

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { requirePageActor } from "@/lib/server/core/access";
-import { JobLimitsEditor } from "../../../_components/job-limits-form";
+import { JobLimitsEditor } from "@/components/desk/job-limits-form";
 
 export const metadata = { title: "Job limits" };
 

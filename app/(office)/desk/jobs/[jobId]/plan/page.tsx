@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { requirePageActor } from "@/lib/server/core/access";
-import { PlanEditor } from "../../../_components/plan-editor";
+import { PlanEditor } from "@/components/desk/plan-editor";
 
 export const metadata = { title: "Build plan" };
 
