@@ -29,6 +29,11 @@ describe("sign-in per role", () => {
     await page.goto("/desk");
     expect(new URL(page.url()).pathname).toBe("/sign-in");
     await screenshot(page, "sign-in-1024x768");
+    // From a deeper office page, the sign-in page is told where to lead back to.
+    await page.goto("/desk/specs?sort=name");
+    const url = new URL(page.url());
+    expect(url.pathname).toBe("/sign-in");
+    expect(url.searchParams.get("next")).toBe("/desk/specs?sort=name");
     await context.close();
   });
 
