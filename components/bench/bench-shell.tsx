@@ -3,6 +3,7 @@
 import { useEffect, useState, type ReactNode } from "react";
 import { HeaderBar } from "@/components/header-bar";
 import { Notice } from "@/components/ui/notice";
+import { BENCH_ROLES } from "@/lib/schemas/enums";
 import { getBenchDb } from "@/lib/offline/db";
 import { ensureDeviceId, getMeta, setMeta, type DeviceActor } from "@/lib/offline/meta";
 import { lazyEngine } from "@/lib/offline/engine-handle";
@@ -16,8 +17,6 @@ import { BenchBar } from "./bench-bar";
 // only ever served by signed-in API routes.
 type Boot =
   { kind: "loading" } | { kind: "ready"; bench: Bench } | { kind: "unknown" } | { kind: "failed"; message: string };
-
-const BENCH_ROLES = ["machinist", "lead"];
 
 async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> {
   const ctl = new AbortController();
@@ -57,7 +56,7 @@ async function boot(): Promise<Boot> {
   const actor = answer === "offline" ? await getMeta<DeviceActor>(db, "actor") : answer;
   if (!actor) return { kind: "unknown" };
   if (answer !== "offline") await setMeta(db, "actor", actor);
-  if (!BENCH_ROLES.includes(actor.role)) {
+  if (!(BENCH_ROLES as readonly string[]).includes(actor.role)) {
     window.location.assign("/");
     return { kind: "loading" };
   }

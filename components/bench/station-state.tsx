@@ -1,5 +1,5 @@
 import { VerdictShape } from "@/components/ui/verdict-badge";
-import { VERDICT_WORDS } from "@/lib/domain";
+import { VERDICT_WORDS, isVerdict } from "@/lib/domain";
 import type { StationState } from "@/lib/offline/route-status";
 
 // How a station's state looks on the route: a word, a colour and a shape, never colour alone.
@@ -27,8 +27,7 @@ export const STATE_TONE: Record<StationState, string> = {
 };
 
 export function StateShape({ state, size = 14 }: { state: StationState; size?: number }) {
-  if (state === "in_spec" || state === "marginal" || state === "out_of_spec")
-    return <VerdictShape verdict={state} size={size} />;
+  if (isVerdict(state)) return <VerdictShape verdict={state} size={size} />;
   if (state === "confirm") return <VerdictShape verdict="out_of_spec" size={size} />;
   const common = {
     width: size,

@@ -6,7 +6,7 @@ import type { ReactNode } from "react";
 import { JobStatusTag, STATUS_WORDS } from "@/components/job-status";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { EXPANSION_COEFFICIENTS, UNIT_SYSTEM_WORDS } from "@/lib/domain";
+import { EXPANSION_COEFFICIENTS, UNIT_SYSTEM_WORDS, type OpenJobStatus } from "@/lib/domain";
 import { api } from "@/lib/client/api";
 import { Loading, LoadFailed, ServerError } from "./fields";
 import { editValuesOf } from "./job-form";
@@ -14,7 +14,9 @@ import { JobSummary } from "./job-summary";
 import { keys, useJob, type JobDetail } from "./queries";
 
 // The job's desk page: who and what, where it stands, and the way to everything else about it.
-const NEXT_STATUS: Record<string, { to: "measuring" | "review"; words: string } | undefined> = {
+/** The desk moves a job forward through the open statuses; release is the inspector's step. */
+type NextStatus = Exclude<OpenJobStatus, "intake">;
+const NEXT_STATUS: Record<string, { to: NextStatus; words: string } | undefined> = {
   intake: { to: "measuring", words: "Start measuring" },
   measuring: { to: "review", words: "Send to review" },
 };
@@ -93,7 +95,7 @@ function StatusMove({ d }: { d: JobDetail }) {
   const qc = useQueryClient();
   const next = NEXT_STATUS[d.job.status];
   const move = useMutation({
-    mutationFn: (status: "measuring" | "review") =>
+    mutationFn: (status: NextStatus) =>
       api<JobDetail>(`/api/jobs/${d.job.id}`, { method: "PATCH", json: { ...editValuesOf(d), status } }),
     onSuccess: (res) => {
       qc.setQueryData(keys.job(d.job.id), res);

@@ -5,7 +5,9 @@ import { Field, NumberField, SelectField, CheckField, asNumber, messageOf } from
 import {
   CHARACTERISTICS,
   GAUGE_KIND_WORDS,
+  LENGTH_UNITS,
   LIMIT_TYPES,
+  TORQUE_UNITS,
   GAUGE_KINDS,
   SECTION_LABELS,
   unitWords,
@@ -137,7 +139,7 @@ export function SpecLimitRow({
           ))}
         </SelectField>
         <SelectField wrapClass="md:col-span-1" label="Unit" error={messageOf(e.unit)} {...register(`${p}.unit`)}>
-          {(torque ? ["lbf_ft", "nm"] : ["in", "mm"]).map((u) => (
+          {(torque ? TORQUE_UNITS : LENGTH_UNITS).map((u) => (
             <option key={u} value={u}>
               {unitWords(u)}
             </option>

@@ -2,7 +2,8 @@
 
 import { REASON_WORDS } from "@/lib/schemas/flag";
 import type { FlagListQuery } from "@/lib/schemas/flag";
-import { VERDICT_WORDS } from "@/lib/domain";
+import { VERDICT_WORDS, VERDICTS } from "@/lib/domain";
+import { FLAG_REASONS } from "@/lib/schemas/enums";
 
 export type JobOption = { id: number; code: string; title: string };
 type Filters = Pick<FlagListQuery, "state" | "job" | "verdict" | "reason">;
@@ -65,7 +66,7 @@ export function FlagFilters({
           onChange={(e) => onChange({ verdict: (e.target.value || undefined) as Filters["verdict"] })}
         >
           <option value="">Any verdict</option>
-          {(["out_of_spec", "marginal", "in_spec"] as const).map((v) => (
+          {[...VERDICTS].reverse().map((v) => (
             <option key={v} value={v}>
               {VERDICT_WORDS[v]}
             </option>
@@ -80,7 +81,7 @@ export function FlagFilters({
           onChange={(e) => onChange({ reason: (e.target.value || undefined) as Filters["reason"] })}
         >
           <option value="">Any reason</option>
-          {(["out_of_spec", "marginal", "gauge_past_due"] as const).map((r) => (
+          {FLAG_REASONS.map((r) => (
             <option key={r} value={r}>
               {REASON_WORDS[r]}
             </option>

@@ -17,7 +17,7 @@ import {
 } from "./stations";
 import { usualGaugeKind } from "./gauges";
 import { EXPANSION_COEFFICIENTS } from "./thermal";
-import type { LengthUnit, TorqueUnit } from "./enums";
+import { ENGINE_LAYOUTS, type LengthUnit, type TorqueUnit } from "./enums";
 import type { BenchRoute, EngineShape, RouteSection, SectionId, Station } from "./types";
 
 export const SECTION_ORDER: readonly SectionId[] = [
@@ -76,7 +76,7 @@ export function checkEngineShape(engine: EngineShape): void {
   if (engine === null || typeof engine !== "object")
     throw new Error("An engine shape is needed (cylinders, layout, mains…)");
   whole(engine.cylinders, "Cylinders", 1, 16);
-  if (!["inline", "v", "flat"].includes(engine.layout)) {
+  if (!(ENGINE_LAYOUTS as readonly string[]).includes(engine.layout)) {
     throw new Error(`Layout must be inline, v or flat; got '${String(engine.layout)}'`);
   }
   if (engine.layout !== "inline" && engine.cylinders % 2 !== 0) {

@@ -26,7 +26,7 @@ import {
   describeStation,
   parseStationId,
 } from "./stations";
-import type { LengthUnit, MeasureUnit } from "./enums";
+import { LENGTH_UNITS, TORQUE_UNITS, type LengthUnit, type MeasureUnit } from "./enums";
 import { correctTo20C, EXPANSION_COEFFICIENTS } from "./thermal";
 import type {
   CharacteristicId,
@@ -59,7 +59,7 @@ const MAY_BE_ZERO = new Set<CharacteristicId>(["ring_end_gap", "rod_side_clearan
 function checkReading(reading: RawReading, characteristic: RawCharacteristic): void {
   const id = reading.stationId;
   const { kind, label } = CHARACTERISTICS[characteristic];
-  const units = kind === "length" ? ["in", "mm"] : ["lbf_ft", "nm"];
+  const units: readonly string[] = kind === "length" ? LENGTH_UNITS : TORQUE_UNITS;
   if (!units.includes(reading.unit))
     throw new Error(`${id} takes a ${kind} in ${units.join(" or ")}; got unit '${String(reading.unit)}'`);
   if (typeof reading.value !== "number" || !Number.isFinite(reading.value))

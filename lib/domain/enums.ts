@@ -14,6 +14,7 @@ export type MeasureUnit = (typeof MEASURE_UNITS)[number];
 
 export const VERDICTS = ["in_spec", "marginal", "out_of_spec"] as const;
 export type Verdict = (typeof VERDICTS)[number];
+export const isVerdict = (s: string): s is Verdict => (VERDICTS as readonly string[]).includes(s);
 
 export const LIMIT_TYPES = ["min_max", "nominal_tol", "max_only", "min_only", "per_inch", "iso286"] as const;
 export type LimitType = (typeof LIMIT_TYPES)[number];

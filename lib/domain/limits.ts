@@ -10,7 +10,7 @@
 // When several limits of one characteristic match a station, the most specific wins: most
 // literal (non-"*") segments, then most segments, then the one listed first on the spec.
 import { iso286Limits } from "./iso286";
-import type { LengthUnit, MeasureUnit } from "./enums";
+import { MEASURE_UNITS, type LengthUnit, type MeasureUnit } from "./enums";
 import type { CharacteristicId, Evaluation, ResolvedLimit, SpecLimit } from "./types";
 import { cleanDecimal, convertLength, convertMeasure } from "./units";
 import { deviationFromNominal, verdict } from "./verdict";
@@ -153,7 +153,7 @@ function resolveIso286(limit: SpecLimit, context: LimitContext): ResolvedLimit {
 
 /** Turns a spec limit into plain numbers in the limit's unit; throws saying what is missing. */
 export function resolveLimit(limit: SpecLimit, context: LimitContext = {}): ResolvedLimit {
-  if (!["in", "mm", "lbf_ft", "nm"].includes(limit.unit)) {
+  if (!(MEASURE_UNITS as readonly string[]).includes(limit.unit)) {
     throw new Error(`Limit '${nameOf(limit)}' has unknown unit '${String(limit.unit)}'; use in, mm, lbf_ft or nm`);
   }
   switch (limit.limitType) {

@@ -3,7 +3,7 @@
 // standard gravity g = 9.80665 m/s²), so nothing here is a rounded "shop" factor.
 import Decimal from "decimal.js-light";
 // The unit names live once, in enums.ts.
-import type { LengthUnit, TorqueUnit } from "./enums";
+import { LENGTH_UNITS, TORQUE_UNITS, type LengthUnit, type TorqueUnit } from "./enums";
 import type { QuantityKind } from "./types";
 
 /** Millimetres in one inch (exact, international inch of 1959). */
@@ -113,8 +113,8 @@ export function cToF(celsius: number): number {
 }
 
 export function convertLength(value: number, from: LengthUnit, to: LengthUnit): number {
-  requireUnit(from, ["in", "mm"], "length unit");
-  requireUnit(to, ["in", "mm"], "length unit");
+  requireUnit(from, LENGTH_UNITS, "length unit");
+  requireUnit(to, LENGTH_UNITS, "length unit");
   if (from === to) {
     requireFinite(value, "length");
     return value;
@@ -123,8 +123,8 @@ export function convertLength(value: number, from: LengthUnit, to: LengthUnit): 
 }
 
 export function convertTorque(value: number, from: TorqueUnit, to: TorqueUnit): number {
-  requireUnit(from, ["lbf_ft", "nm"], "torque unit");
-  requireUnit(to, ["lbf_ft", "nm"], "torque unit");
+  requireUnit(from, TORQUE_UNITS, "torque unit");
+  requireUnit(to, TORQUE_UNITS, "torque unit");
   if (from === to) {
     requireFinite(value, "torque");
     return value;
@@ -140,7 +140,8 @@ function requireUnit(unit: string, allowed: readonly string[], name: string): vo
 
 /** The quantity a unit measures, or undefined for a unit the core does not know. */
 export function quantityOfUnit(unit: string): QuantityKind | undefined {
-  return unit === "in" || unit === "mm" ? "length" : unit === "lbf_ft" || unit === "nm" ? "torque" : undefined;
+  const of = (units: readonly string[]) => units.includes(unit);
+  return of(LENGTH_UNITS) ? "length" : of(TORQUE_UNITS) ? "torque" : undefined;
 }
 
 /** `value` in `from` expressed in `to`; undefined when one is a length and the other a torque (or unknown). */

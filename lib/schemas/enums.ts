@@ -4,7 +4,8 @@
 // No imports beyond the core, so forms, screens, the tablet and the models share them without
 // pulling in Sequelize. The migrations spell the same lists out literally, because a migration
 // must keep creating what it created when it shipped.
-import { LENGTH_UNITS } from "@/lib/domain";
+// The core's enums file alone, not the core's index: the tablet's first screen imports this file.
+import { LENGTH_UNITS } from "@/lib/domain/enums";
 
 /** A shop's or a job's unit system, named by its length unit (torque follows: lbf·ft or N·m). */
 export const UNIT_SYSTEMS = LENGTH_UNITS;
@@ -15,6 +16,9 @@ export type GuardBandPolicy = (typeof GUARD_BAND_POLICIES)[number];
 
 export const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
 export type Role = (typeof ROLES)[number];
+
+/** The roles that work at the bench: the tablet's screens, its job packs and the sync endpoint. */
+export const BENCH_ROLES = ["machinist", "lead"] as const satisfies readonly Role[];
 
 export const FUELS = ["gasoline", "diesel", "other"] as const;
 export type Fuel = (typeof FUELS)[number];

@@ -3,6 +3,7 @@
 // build plan. All figures are invented fixtures, not reference values.
 import { randomUUID } from "node:crypto";
 import { benchRoute } from "@/lib/domain";
+import type { FlagState } from "@/lib/schemas/enums";
 import { getSequelize } from "@/lib/server/core/db";
 import { toEngineShape } from "@/lib/server/jobs/context";
 import { Engine, Flag, FlagDisposition, Instrument, Job, Reading } from "@/models";
@@ -107,7 +108,7 @@ export async function addFlag(
   shop: TestShop,
   stationId: string,
   fields: Partial<{
-    state: "open" | "disposed" | "closed";
+    state: FlagState;
     disposition: "measure_again" | "machine_again" | "accept";
     operation: string;
     dispositionReason: string;

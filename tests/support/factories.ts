@@ -5,7 +5,7 @@ import bcrypt from "bcryptjs";
 import { randomUUID } from "node:crypto";
 import { getSequelize } from "@/lib/server/core/db";
 import { Customer, Engine, Instrument, Job, JobLimit, Shop, SpecLimit, SpecTemplate, User } from "@/models";
-import type { Role } from "@/lib/schemas/enums";
+import type { Role, UnitSystem } from "@/lib/schemas/enums";
 
 export const TEST_PASSWORD = "test-pass-1234";
 const HASH = bcrypt.hashSync(TEST_PASSWORD, 4);
@@ -52,7 +52,7 @@ export const INCH_LIMITS = [
   },
 ] as const;
 
-export async function createShop(opts: { unitSystem?: "in" | "mm"; name?: string } = {}) {
+export async function createShop(opts: { unitSystem?: UnitSystem; name?: string } = {}) {
   getSequelize();
   const tag = randomUUID().slice(0, 8);
   const unitSystem = opts.unitSystem ?? "in";

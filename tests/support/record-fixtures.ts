@@ -10,6 +10,7 @@ import { loadJobRecord } from "@/lib/server/release/repo";
 import { deliverPendingMail } from "@/lib/server/mail/outbox-worker";
 import { putObject } from "@/lib/server/uploads/storage";
 import { Attachment, Flag, FlagDisposition, Job, MailOutbox, Reading, Release } from "@/models";
+import type { Verdict } from "@/lib/domain";
 import type { JsonValue } from "@/lib/schemas/json";
 import { createShop, type TestShop } from "./factories";
 
@@ -17,7 +18,7 @@ type Fixture = {
   station: string;
   value: number;
   unit?: string;
-  verdict: "in_spec" | "marginal" | "out_of_spec";
+  verdict: Verdict;
   min: number;
   max: number;
   nominal?: number;

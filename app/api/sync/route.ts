@@ -1,3 +1,4 @@
+import { BENCH_ROLES } from "@/lib/schemas/enums";
 import { feedQuerySchema, pushBatchSchema } from "@/lib/schemas/sync";
 import { invalid } from "@/lib/server/core/errors";
 import { ingestBatch } from "@/lib/server/sync/ingest";
@@ -5,15 +6,14 @@ import { authed, readJson } from "@/lib/server/core/route";
 import { syncFeed } from "@/lib/server/sync/feed";
 
 // The bench sync endpoint; the contract is documented at the top of lib/schemas/sync.ts.
-const BENCH = ["machinist", "lead"] as const;
 
-export const POST = authed(BENCH, async ({ req, actor }) => {
+export const POST = authed(BENCH_ROLES, async ({ req, actor }) => {
   const batch = await readJson(req, pushBatchSchema);
   const reply = await ingestBatch(actor, batch);
   return Response.json(reply.body, { status: reply.status });
 });
 
-export const GET = authed(BENCH, async ({ req, actor }) => {
+export const GET = authed(BENCH_ROLES, async ({ req, actor }) => {
   const q = new URL(req.url).searchParams;
   const parsed = feedQuerySchema.safeParse({ since: q.get("since") ?? undefined, jobs: q.get("jobs") ?? undefined });
   if (!parsed.success) throw invalid(parsed.error, "Fix the query: since=CURSOR&jobs=1,2,3");

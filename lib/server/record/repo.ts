@@ -1,17 +1,18 @@
 import "server-only";
+import type { UnitSystem } from "@/lib/schemas/enums";
 import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 
 // The parties of a build record: the shop, the customer and the engine, as plain objects.
 export type RecordParties = {
-  shop: { name: string; address: string | null; phone: string | null; email: string | null; unitSystem: "in" | "mm" };
+  shop: { name: string; address: string | null; phone: string | null; email: string | null; unitSystem: UnitSystem };
   customer: { name: string; email: string | null; phone: string | null };
   engine: {
     description: string;
     layout: string;
     cylinders: number;
     mains: number;
-    unitSystem: "in" | "mm";
+    unitSystem: UnitSystem;
     nominalBore: number;
     nominalStroke: number;
     blockMaterial: string;
