@@ -15,11 +15,14 @@ function recordText(record: BuildRecord, link: string, expires: Date): string {
   const contact = record.shop.contact.length ? ` (${record.shop.contact.join(", ")})` : "";
   return [
     `Hello ${record.customer.name || "there"},`,
-    `${record.shop.name} has signed off the build record of your engine: job ${record.job.code}, ${record.job.title}. ` +
+    `${record.shop.name} has signed off the build record of your engine: ` +
+      `job ${record.job.code}, ${record.job.title}. ` +
       `It was released for assembly by ${r.signedName} on ${r.signedAt}.`,
-    `The record is attached as a PDF: every measurement with its limits and verdict, the decisions on anything outside the limits, the torque records and the signature.`,
+    "The record is attached as a PDF: every measurement with its limits and verdict, the decisions on anything " +
+      "outside the limits, the torque records and the signature.",
     `You can also view and download it here, without an account (the link works until ${day(expires)}):\n${link}`,
-    `The record's fingerprint is ${r.hash}. Anyone can check that the shop's record still matches it at:\n${r.verifyUrl}`,
+    `The record's fingerprint is ${r.hash}. ` +
+      `Anyone can check that the shop's record still matches it at:\n${r.verifyUrl}`,
     `Safety: ${record.safety[0]} ${record.safety[2]}`,
     `Questions about the record go to ${record.shop.name}${contact}.`,
   ].join("\n\n");

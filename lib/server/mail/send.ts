@@ -58,5 +58,6 @@ export function textToHtml(text: string): string {
       .join("<br>");
     return `<p>${lines}</p>`;
   });
-  return `<div style="font-family:Helvetica,Arial,sans-serif;font-size:15px;line-height:1.45;color:#141b26">${paragraphs.join("\n")}</div>`;
+  const style = "font-family:Helvetica,Arial,sans-serif;font-size:15px;line-height:1.45;color:#141b26";
+  return `<div style="${style}">${paragraphs.join("\n")}</div>`;
 }

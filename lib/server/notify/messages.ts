@@ -23,8 +23,10 @@ const appUrl = (path: string) => `${env().APP_URL.replace(/\/$/, "")}${path}`;
 function flagLine(f: DigestFlag): string {
   const verdict = (VERDICT_WORDS as Record<string, string>)[f.verdict] ?? f.verdict;
   return (
-    `- ${f.jobCode} · ${stationWords(f.stationId)}: ${characteristicWords(f.characteristic).toLowerCase()} ${withUnit(f.value, f.unit)} ` +
-    `(limits ${limitsText(f.limitMin, f.limitMax, f.unit)}), ${verdict.toUpperCase()}, ${REASON[f.reason] ?? f.reason}; ${STATE[f.state] ?? f.state}.`
+    `- ${f.jobCode} · ${stationWords(f.stationId)}: ` +
+    `${characteristicWords(f.characteristic).toLowerCase()} ${withUnit(f.value, f.unit)} ` +
+    `(limits ${limitsText(f.limitMin, f.limitMax, f.unit)}), ${verdict.toUpperCase()}, ` +
+    `${REASON[f.reason] ?? f.reason}; ${STATE[f.state] ?? f.state}.`
   );
 }
 
@@ -35,14 +37,18 @@ export function digestMessage(
 ): { subject: string; text: string } {
   const jobs = [...new Set(flags.map((f) => f.jobCode))];
   const listed = flags.slice(0, MAX_LISTED).map(flagLine);
+  const firstJobs = `${jobs.slice(0, 4).join(", ")}${jobs.length > 4 ? ", …" : ""}`;
+  const sinceWhen = since ? `since the last digest (${when(since)})` : "in the last day";
   if (flags.length > MAX_LISTED) listed.push(`- and ${flags.length - MAX_LISTED} more on the flag queue.`);
   const text = [
-    `${plural(flags.length, "new flag")} at ${shop} ${since ? `since the last digest (${when(since)})` : "in the last day"}, on ${plural(jobs.length, "job")}: ${jobs.join(", ")}.`,
+    `${plural(flags.length, "new flag")} at ${shop} ${sinceWhen}, ` +
+      `on ${plural(jobs.length, "job")}: ${jobs.join(", ")}.`,
     listed.join("\n"),
-    `Decide each one (measure again, machine again, or accept with a reason) on the flag queue:\n${appUrl("/desk/flags")}`,
+    "Decide each one (measure again, machine again, or accept with a reason) on the flag queue:\n" +
+      appUrl("/desk/flags"),
   ].join("\n\n");
   return {
-    subject: `${plural(flags.length, "new flag")} to review: ${jobs.slice(0, 4).join(", ")}${jobs.length > 4 ? ", …" : ""}`,
+    subject: `${plural(flags.length, "new flag")} to review: ${firstJobs}`,
     text,
   };
 }

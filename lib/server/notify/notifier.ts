@@ -108,7 +108,10 @@ async function readyFor(job: OpenJob): Promise<number> {
 
 const passState = () => (memory.__tenthwiseNotifierState ??= { syncId: null, lastPassAt: null, robin: 0, backlog: [] });
 
-/** Open jobs whose checklist may have turned complete: just changed first, then last pass's leftovers, then the round. */
+/**
+ * Open jobs whose checklist may have turned complete: just changed first, then last pass's
+ * leftovers, then the round.
+ */
 async function jobsToCheck(startedAt: Date): Promise<OpenJob[]> {
   const st = passState();
   // A few seconds of overlap: a change committed while the last pass ran is not missed.

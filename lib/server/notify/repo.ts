@@ -137,7 +137,8 @@ export async function changedOpenJobs(since: {
 export async function openJobsAfter(afterId: number, limit: number): Promise<OpenJob[]> {
   const page = (where: string) =>
     getSequelize().query<Parameters<typeof toOpenJob>[0]>(
-      `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j WHERE ${OPEN} ${where} ORDER BY j.id LIMIT ${Number(limit)}`,
+      `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j
+        WHERE ${OPEN} ${where} ORDER BY j.id LIMIT ${Number(limit)}`,
       { replacements: [afterId], type: QueryTypes.SELECT },
     );
   const rows = await page("AND j.id > ?");

@@ -7,8 +7,8 @@ import { flagsCheck, gaugesCheck, planCheck } from "@/lib/server/release/checkli
 import { loadJobRecord, type JobRecord } from "@/lib/server/release/repo";
 
 // What still stands between a job and its release, in words, each with a link to fix it, and
-// what is already complete. Computed on the server from the database alone (five queries, no
-// writes), so the mail notifier can call it on a timer and the inspector's page on every view.
+// what is already complete. Computed on the server from the job's record alone (read in a few
+// queries, no writes), so the notifier can call it on a timer and the inspector's page on every view.
 
 /** The checklist from an already loaded record (pure). */
 export function checklistOf(record: JobRecord): ReleaseChecklist {

@@ -5,7 +5,8 @@ import type { StoredReading } from "@/lib/schemas/readings";
 
 // From database rows to the records of the canonical release document (rules in hash.ts).
 // Each function lists every field of its record; DECIMALs carry their column's scale from the
-// migrations (readings/flags/limits DECIMAL(14,6), part_temp_c and gauge_temp_c (6,2), instruments (12,6), k (4,2)).
+// migrations (readings/flags/limits DECIMAL(14,6), part_temp_c and gauge_temp_c (6,2),
+// instruments (12,6), k (4,2)).
 // Left out on purpose: created_at/updated_at/received_at (bookkeeping, not what was measured)
 // and a job's title and notes (wording the office may tidy after release).
 

@@ -84,7 +84,9 @@ export function checkRelease(record: JobRecord, release: ReleaseRow, names: Map<
     const who = shown.voidedByName ? ` by ${shown.voidedByName}` : "";
     return {
       status: "void",
-      words: `VOID: this release was voided on ${day(release.voidedAt)}${who}. Reason: ${release.voidReason ?? "none given"}. A new release is needed.`,
+      words:
+        `VOID: this release was voided on ${day(release.voidedAt)}${who}. ` +
+        `Reason: ${release.voidReason ?? "none given"}. A new release is needed.`,
       release: shown,
       recomputedHash: null,
       differences: [],
@@ -94,7 +96,9 @@ export function checkRelease(record: JobRecord, release: ReleaseRow, names: Map<
   if (hash === release.hash) {
     return {
       status: "match",
-      words: `Matches: the record in the database now gives the same fingerprint as the release signed on ${day(release.signedAt)}.`,
+      words:
+        "Matches: the record in the database now gives the same fingerprint as the release signed on " +
+        `${day(release.signedAt)}.`,
       release: shown,
       recomputedHash: hash,
       differences: [],
@@ -109,7 +113,9 @@ export function checkRelease(record: JobRecord, release: ReleaseRow, names: Map<
     : "";
   return {
     status: "changed",
-    words: `Changed since release: the record in the database no longer gives the fingerprint signed on ${day(release.signedAt)}.${what}`,
+    words:
+      "Changed since release: the record in the database no longer gives the fingerprint signed on " +
+      `${day(release.signedAt)}.${what}`,
     release: shown,
     recomputedHash: hash,
     differences: diffs,
@@ -146,18 +152,24 @@ export async function verifyByHash(hash: string, jobCode?: string): Promise<Publ
     return {
       ...base,
       status: "void",
-      words: `Void: this release of job ${release.jobCode} was withdrawn by the shop on ${day(release.voidedAt)}. Ask the shop for the current record.`,
+      words:
+        `Void: this release of job ${release.jobCode} was withdrawn by the shop on ${day(release.voidedAt)}. ` +
+        "Ask the shop for the current record.",
     };
   const { hash: now } = recompute(await loadJobRecord(release.shopId, release.jobId), release);
   return now === release.hash
     ? {
         ...base,
         status: "match",
-        words: `Matches: the shop's record of job ${release.jobCode} is unchanged since it was released on ${day(release.signedAt)}.`,
+        words:
+          `Matches: the shop's record of job ${release.jobCode} is unchanged since it was released on ` +
+          `${day(release.signedAt)}.`,
       }
     : {
         ...base,
         status: "changed",
-        words: `Changed since release: the shop's record of job ${release.jobCode} no longer matches what was released on ${day(release.signedAt)}. Ask the shop.`,
+        words:
+          `Changed since release: the shop's record of job ${release.jobCode} no longer matches what was ` +
+          `released on ${day(release.signedAt)}. Ask the shop.`,
       };
 }

@@ -27,7 +27,8 @@ export function tooLarge(size: number | null, max: number): AppError {
   const what = size ? `The file is ${formatBytes(size)}; the` : "The";
   return new AppError(
     "payload_too_large",
-    `${what} largest file Tenthwise accepts is ${formatBytes(max)}. Take the photo at a lower resolution or send a smaller PDF.`,
+    `${what} largest file Tenthwise accepts is ${formatBytes(max)}. ` +
+      "Take the photo at a lower resolution or send a smaller PDF.",
   );
 }
 

@@ -63,7 +63,8 @@ export async function inviteUser(actor: Actor, input: InviteUserInput) {
     if (taken) {
       throw new AppError(
         "conflict",
-        `${input.email} already has an account in this shop${taken.active ? "" : " (deactivated: reactivate it instead)"}`,
+        `${input.email} already has an account in this shop` +
+          (taken.active ? "" : " (deactivated: reactivate it instead)"),
         {
           email: ["This e-mail already has an account"],
         },

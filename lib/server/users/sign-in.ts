@@ -11,7 +11,8 @@ import {
 } from "@/lib/server/users/repo";
 
 // Wrong password and unknown user get the same words. Failures are counted per e-mail and per
-// address: after SLOW_AFTER the reply is delayed, after POLICY.lockAfter within the window the key is locked for POLICY.lockMinutes.
+// address: after SLOW_AFTER the reply is delayed; after POLICY.lockAfter within the window the
+// key is locked for POLICY.lockMinutes.
 export const SIGN_IN_REFUSED = "That e-mail and password do not match an active account";
 const SLOW_AFTER = 3;
 const POLICY = { windowMinutes: 15, lockAfter: 8, lockMinutes: 15 };
