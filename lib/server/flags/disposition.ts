@@ -23,7 +23,8 @@ function refuseLocked(job: JobRow): void {
   if (isJobLocked(job)) {
     throw new AppError(
       "job_locked",
-      `Job ${job.code} is released and locked, so its flags cannot be decided again. Reopen the job (with a reason) first.`,
+      `Job ${job.code} is released and locked, so its flags cannot be decided again. ` +
+        "Reopen the job (with a reason) first.",
     );
   }
 }
@@ -34,7 +35,8 @@ function refuseClosed(flag: StoredFlag): void {
   const by = flag.closedByReadingId ? " by a newer reading at the station" : " after the limits changed";
   throw new AppError(
     "conflict",
-    `This flag was closed${at}${by}; there is nothing left to decide. Its history stays on record; a new flag opens if the value needs attention again.`,
+    `This flag was closed${at}${by}; there is nothing left to decide. Its history stays on record; ` +
+      "a new flag opens if the value needs attention again.",
   );
 }
 

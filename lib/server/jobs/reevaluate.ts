@@ -37,7 +37,8 @@ export async function replaceJobLimits(actor: Actor, jobId: number, v: JobLimits
     if (v.specRevision !== job.specRevision) {
       throw new AppError(
         "conflict",
-        `Someone changed these limits since you opened them (now revision ${job.specRevision}); reload the page, then make your change again`,
+        `Someone changed these limits since you opened them (now revision ${job.specRevision}); ` +
+          "reload the page, then make your change again",
         { specRevision: [`Now ${job.specRevision}`] },
       );
     }

@@ -71,16 +71,19 @@ const JOB_OF_EVENT = `CAST(CASE e.entity_type
   WHEN 'job_limits' THEN e.entity_id
   WHEN 'reading' THEN (SELECT r.job_id FROM readings r WHERE r.id = e.entity_id AND r.shop_id = e.shop_id)
   WHEN 'flag' THEN (SELECT f.job_id FROM flags f WHERE f.id = CAST(e.entity_id AS UNSIGNED) AND f.shop_id = e.shop_id)
-  WHEN 'release' THEN (SELECT rl.job_id FROM releases rl WHERE rl.id = CAST(e.entity_id AS UNSIGNED) AND rl.shop_id = e.shop_id)
+  WHEN 'release' THEN (SELECT rl.job_id FROM releases rl
+    WHERE rl.id = CAST(e.entity_id AS UNSIGNED) AND rl.shop_id = e.shop_id)
   WHEN 'attachment' THEN CASE JSON_VALUE(e.after, '$.ownerType')
     WHEN 'job' THEN JSON_VALUE(e.after, '$.ownerId')
-    WHEN 'reading' THEN (SELECT r2.job_id FROM readings r2 WHERE r2.id = JSON_VALUE(e.after, '$.ownerId') AND r2.shop_id = e.shop_id)
+    WHEN 'reading' THEN (SELECT r2.job_id FROM readings r2
+      WHERE r2.id = JSON_VALUE(e.after, '$.ownerId') AND r2.shop_id = e.shop_id)
     END
   ELSE COALESCE(JSON_VALUE(e.after, '$.jobId'), JSON_VALUE(e.before, '$.jobId'))
 END AS UNSIGNED)`;
 
 // Milliseconds, in UTC (the connection's time zone is +00:00), as ISO 8601.
-const AT = `CONCAT(DATE_FORMAT(e.created_at, '%Y-%m-%dT%H:%i:%s.'), LPAD(FLOOR(MICROSECOND(e.created_at) / 1000), 3, '0'), 'Z')`;
+const AT = `CONCAT(DATE_FORMAT(e.created_at, '%Y-%m-%dT%H:%i:%s.'),
+  LPAD(FLOOR(MICROSECOND(e.created_at) / 1000), 3, '0'), 'Z')`;
 
 export type AuditRow = {
   id: number | string | bigint;
@@ -121,7 +124,8 @@ function where(shopId: number, q: AuditQuery) {
     parts.push("e.created_at < DATE_ADD(:to, INTERVAL 1 DAY)");
     r.to = q.to;
   }
-  const inner = `SELECT e.id, e.user_id, e.action, e.entity_type, e.entity_id, e.before, e.after, ${AT} AS at, ${JOB_OF_EVENT} AS job_id
+  const inner = `SELECT e.id, e.user_id, e.action, e.entity_type, e.entity_id, e.before, e.after,
+      ${AT} AS at, ${JOB_OF_EVENT} AS job_id
     FROM audit_events e WHERE ${parts.join(" AND ")}`;
   if (q.job) r.job = q.job;
   return { sql: `FROM (${inner}) x${q.job ? " WHERE x.job_id = :job" : ""}`, replacements: r };
