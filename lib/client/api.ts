@@ -1,3 +1,5 @@
+import type { FieldErrors } from "@/lib/schemas/errors";
+
 // Browser fetch helper: JSON in, JSON out, and our error envelope turned into an ApiError
 // whose message says what to fix and whose `fields` map field errors for forms.
 export class ApiError extends Error {
@@ -5,7 +7,7 @@ export class ApiError extends Error {
     readonly status: number,
     readonly code: string,
     message: string,
-    readonly fields?: Record<string, string[]>,
+    readonly fields?: FieldErrors,
   ) {
     super(message);
   }

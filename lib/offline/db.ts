@@ -6,7 +6,8 @@
 import Dexie, { type EntityTable } from "dexie";
 import type { EntryMode, Lubricant, MeasureUnit, Verdict } from "@/lib/domain";
 import type { AttachmentOwnerType } from "@/lib/schemas/enums";
-import type { FieldErrors, JobPack, RejectCode } from "@/lib/schemas/sync";
+import type { FieldErrors } from "@/lib/schemas/errors";
+import type { JobPack, RejectCode } from "@/lib/schemas/sync";
 
 export type SyncState = "pending" | "synced" | "rejected";
 

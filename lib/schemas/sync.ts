@@ -48,6 +48,7 @@ import { z } from "zod";
 import { ENTRY_MODES, LUBRICANT_LABELS, MEASURE_UNITS, parseStationId } from "@/lib/domain";
 import type { BenchRoute, EngineShape, JobStatus, Lubricant, SpecLimit, Verdict } from "@/lib/domain";
 import type { Disposition, FlagReason, FlagState, UnitSystem } from "./enums";
+import type { FieldErrors } from "./errors";
 import type { StoredReading } from "@/lib/schemas/readings";
 
 export const MAX_BATCH = 500;
@@ -133,7 +134,6 @@ export const pushBatchSchema = z.object({
 });
 export type PushBatch = { deviceId: string; readings: PushReadingInput[] };
 
-export type FieldErrors = Record<string, string[]>;
 export type RejectCode = "invalid" | "not_found" | "job_locked" | "conflict";
 
 /** The verdict as the server stored it; limits and deviation are in `unit` (the unit entered). */

@@ -1,5 +1,6 @@
 import "server-only";
 import { ZodError } from "zod";
+import type { FieldErrors } from "@/lib/schemas/errors";
 
 // One error class, one code-to-status table, one converter.
 export const ERROR_STATUS = {
@@ -18,7 +19,6 @@ export const ERROR_STATUS = {
 } as const;
 
 export type ErrorCode = keyof typeof ERROR_STATUS;
-export type FieldErrors = Record<string, string[]>;
 
 export class AppError extends Error {
   constructor(

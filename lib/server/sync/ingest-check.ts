@@ -10,7 +10,8 @@ import {
   quantityOfUnit,
   type RawCharacteristic,
 } from "@/lib/domain";
-import type { FieldErrors, PushReading, ReadingEvaluation, RejectCode } from "@/lib/schemas/sync";
+import type { FieldErrors } from "@/lib/schemas/errors";
+import type { PushReading, ReadingEvaluation, RejectCode } from "@/lib/schemas/sync";
 import {
   canonicalValue,
   gaugePastDue,

@@ -3,13 +3,13 @@ import type { Transaction } from "sequelize";
 import {
   MAX_BATCH,
   pushReadingSchema,
-  type FieldErrors,
   type PushErrorReply,
   type PushReading,
   type PushReply,
   type PushResult,
   type ReadingEvaluation,
 } from "@/lib/schemas/sync";
+import type { FieldErrors } from "@/lib/schemas/errors";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudits } from "@/lib/server/log/repo";
 import { recordChanges } from "@/lib/server/sync/repo";

@@ -1,0 +1,6 @@
+/**
+ * What a refused request says about its fields: each field's path (e.g. "readings.3.value") with
+ * what to fix there, in words. Error replies carry it as `error.fields`; forms show it beside
+ * the field, and the tablet keeps it beside the reading it refused.
+ */
+export type FieldErrors = Record<string, string[]>;
