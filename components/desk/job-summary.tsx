@@ -63,7 +63,13 @@ export function JobSummary({ summary }: { summary: JobDetail["summary"] }) {
           </thead>
           <tbody>
             {summary.sections.map((s) => (
-              <tr key={s.id} className="border-t border-rule">
+              <tr
+                key={s.id}
+                className="border-t border-rule"
+                data-section={s.id}
+                data-done={s.requiredDone}
+                data-required={s.required}
+              >
                 <th scope="row" className="px-3 py-2 text-left font-medium">
                   {s.label}
                 </th>
