@@ -6,7 +6,7 @@ import { GET as BOARD, POST } from "@/app/api/jobs/route";
 import { GET as ONE, PATCH } from "@/app/api/jobs/[jobId]/route";
 import { GET as CUSTOMERS, POST as NEW_CUSTOMER } from "@/app/api/customers/route";
 import { AuditEvent, Job, JobLimit, Reading, SpecLimit, SyncChange } from "@/models";
-import { createShop, INCH_LIMITS, type TestShop, type TestUser } from "../support/factories";
+import { createShop, insertReading, INCH_LIMITS, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call } from "../support/requests";
 
 const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
@@ -90,23 +90,8 @@ describe("GET /api/jobs (the board)", () => {
     // main bearing bores and main journals (5 mains × 2 ends × 2 axes = 20 each): 93 in all.
     // Bore taper and out-of-round need the bore stations already counted.
     const s = await createShop();
-    const at = (min: number) => new Date(Date.UTC(2026, 11, 1, 9, min));
     const add = (stationId: string, value: number | null, min: number, extra: Record<string, unknown> = {}) =>
-      Reading.create({
-        id: randomUUID(),
-        shopId: s.shop.id,
-        jobId: s.job.id,
-        stationId,
-        characteristic: stationId.startsWith("torque") ? "fastener_torque" : "bore_diameter",
-        value: value,
-        valueCanonical: value === null ? null : value * 25.4,
-        unit: stationId.startsWith("torque") ? "lbf_ft" : "in",
-        takenBy: s.users.machinist.id,
-        takenAt: at(min),
-        deviceId: "test",
-        skipped: value === null,
-        ...extra,
-      });
+      insertReading(s, stationId, value, min, extra);
     await add("bore/1/top/A", 4.0301, 1);
     const old = await add("bore/1/top/B", 4.0301, 2);
     await add("bore/1/top/B", 4.0302, 3, { supersedes: old.id });

@@ -2,7 +2,6 @@
 // board, the tablet's job list, the job page and the release checklist must give, for the same
 // job, the figures the domain function gives from the job's rows. Checked on the demo jobs and
 // on a factory job whose readings exercise corrections, skips, two tablets and ties.
-import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { jobProgress } from "@/lib/domain";
 import { getSequelize } from "@/lib/server/core/db";
@@ -12,7 +11,7 @@ import { GET as DETAIL } from "@/app/api/jobs/[jobId]/route";
 import { GET as BENCH } from "@/app/api/bench/jobs/route";
 import { GET as RELEASE } from "@/app/api/release/[jobId]/route";
 import { Job, Reading, Shop, User } from "@/models";
-import { createShop, type TestShop, type TestUser } from "../support/factories";
+import { createShop, insertReading, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call } from "../support/requests";
 
 type Figures = { done: number; required: number };
@@ -71,23 +70,8 @@ describe("required-station progress: every screen gives the domain's figures", (
     let s: TestShop;
     beforeAll(async () => {
       s = await createShop();
-      const at = (min: number) => new Date(Date.UTC(2026, 11, 1, 9, min));
       const add = (stationId: string, value: number | null, min: number, extra: Record<string, unknown> = {}) =>
-        Reading.create({
-          id: randomUUID(),
-          shopId: s.shop.id,
-          jobId: s.job.id,
-          stationId,
-          characteristic: "bore_diameter",
-          value,
-          valueCanonical: value === null ? null : value * 25.4,
-          unit: "in",
-          takenBy: s.users.machinist.id,
-          takenAt: at(min),
-          deviceId: "test",
-          skipped: value === null,
-          ...extra,
-        });
+        insertReading(s, stationId, value, min, extra);
       await add("bore/1/top/A", 4.0301, 1); // done
       const old = await add("bore/1/top/B", 4.0301, 2);
       await add("bore/1/top/B", 4.0302, 3, { supersedes: old.id }); // corrected: done once

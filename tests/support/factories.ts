@@ -4,7 +4,7 @@
 import bcrypt from "bcryptjs";
 import { randomUUID } from "node:crypto";
 import { getSequelize } from "@/lib/server/core/db";
-import { Customer, Engine, Instrument, Job, JobLimit, Shop, SpecLimit, SpecTemplate, User } from "@/models";
+import { Customer, Engine, Instrument, Job, JobLimit, Reading, Shop, SpecLimit, SpecTemplate, User } from "@/models";
 import type { Role, UnitSystem } from "@/lib/schemas/enums";
 
 export const TEST_PASSWORD = "test-pass-1234";
@@ -127,3 +127,32 @@ export async function createShop(opts: { unitSystem?: UnitSystem; name?: string 
 }
 
 export type TestShop = Awaited<ReturnType<typeof createShop>>;
+
+/**
+ * A reading written straight to the table, with no ingest and no verdict, for tests of the rules
+ * that count readings (current reading, progress). Taken `min` minutes after 09:00 UTC, 1 Dec 2026.
+ */
+export function insertReading(
+  s: TestShop,
+  stationId: string,
+  value: number | null,
+  min: number,
+  extra: Record<string, unknown> = {},
+) {
+  const torque = stationId.startsWith("torque");
+  return Reading.create({
+    id: randomUUID(),
+    shopId: s.shop.id,
+    jobId: s.job.id,
+    stationId,
+    characteristic: torque ? "fastener_torque" : "bore_diameter",
+    value,
+    valueCanonical: value === null || torque ? value : value * 25.4,
+    unit: torque ? "lbf_ft" : "in",
+    takenBy: s.users.machinist.id,
+    takenAt: new Date(Date.UTC(2026, 11, 1, 9, min)),
+    deviceId: "test",
+    skipped: value === null,
+    ...extra,
+  });
+}
