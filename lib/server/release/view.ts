@@ -1,5 +1,12 @@
 import "server-only";
-import { characteristicWords, currentReadings, isJobLocked, stationWords, type Verdict } from "@/lib/domain";
+import {
+  JOB_STATUSES,
+  characteristicWords,
+  currentReadings,
+  isJobLocked,
+  stationWords,
+  type Verdict,
+} from "@/lib/domain";
 import type { FlagSummary, ReadingCounts, ReleaseJobSummary, ReleaseView } from "@/lib/schemas/release";
 import type { Actor } from "@/lib/schemas/session";
 import { listJobs } from "@/lib/server/jobs/repo";
@@ -87,7 +94,10 @@ export async function releaseView(actor: Actor, jobId: number): Promise<ReleaseV
 
 /** Jobs an inspector looks at, each with whether it is ready, what blocks it, and its release. */
 export async function releaseJobs(shopId: number): Promise<ReleaseJobSummary[]> {
-  const jobs = await listJobs(shopId, ["intake", "measuring", "review", "released"]);
+  const jobs = await listJobs(
+    shopId,
+    JOB_STATUSES.filter((s) => s !== "closed"),
+  );
   const out: ReleaseJobSummary[] = [];
   for (const j of jobs) {
     const record = await loadJobRecord(shopId, j.id);

@@ -2,6 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { UniqueConstraintError } from "sequelize";
 import { uploadFieldsSchema, type AttachmentView, type UploadFields } from "@/lib/schemas/attachment";
+import { BENCH_ROLES } from "@/lib/schemas/enums";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
@@ -21,7 +22,7 @@ import {
 
 // POST /api/attachments: one file with its owner. A resend with the same clientId (the tablet
 // retrying a photo taken offline) returns the attachment already stored, never a duplicate.
-const UPLOAD_ROLES = { job: ["machinist", "lead"], reading: ["machinist", "lead"], instrument: ["admin"] } as const;
+const UPLOAD_ROLES = { job: BENCH_ROLES, reading: BENCH_ROLES, instrument: ["admin"] } as const;
 // Room for the multipart boundaries and the text fields around the file.
 const MULTIPART_SLACK = 64 * 1024;
 
