@@ -35,29 +35,6 @@ import { SpecTemplate, initSpecTemplate } from "./spec-template";
 import { SyncChange, initSyncChange } from "./sync-change";
 import { User, initUser } from "./user";
 
-/** Every model class, as core/db.ts's models() hands them to the repos. */
-const MODELS = {
-  Attachment,
-  AuditEvent,
-  AuthThrottle,
-  Customer,
-  Engine,
-  Flag,
-  FlagDisposition,
-  Instrument,
-  Job,
-  JobLimit,
-  MailOutbox,
-  Reading,
-  Release,
-  Shop,
-  SpecLimit,
-  SpecTemplate,
-  SyncChange,
-  User,
-};
-export type Models = typeof MODELS;
-
 export {
   Attachment,
   AuditEvent,
@@ -104,15 +81,14 @@ const INITIALISERS = [
 let boundTo: Sequelize | null = null;
 
 /**
- * Binds every model to `sequelize`, defines the associations and returns the classes. Calling it
- * again with the same instance only returns them; with another instance it rebinds (Model.init
- * clears the associations, so they are defined afresh).
+ * Binds every model to `sequelize` and defines the associations. Calling it again with the same
+ * instance does nothing; with another instance it rebinds (Model.init clears the associations,
+ * so they are defined afresh).
  */
-export function initModels(sequelize: Sequelize): Models {
-  if (boundTo === sequelize) return MODELS;
+export function initModels(sequelize: Sequelize): void {
+  if (boundTo === sequelize) return;
   boundTo = null;
   for (const init of INITIALISERS) init(sequelize);
   associate();
   boundTo = sequelize;
-  return MODELS;
 }

@@ -176,13 +176,11 @@ export type SectionSummary = {
   verdicts: VerdictCounts;
 };
 
+/** What every job screen heads with. */
+type JobHeading = Pick<JobSummary, "id" | "code" | "title" | "status" | "unitSystem">;
+
 export type JobDetail = {
-  job: {
-    id: number;
-    code: string;
-    title: string;
-    status: JobStatus;
-    unitSystem: UnitSystem;
+  job: JobHeading & {
     dueDate: string | null;
     notes: string | null;
     specRevision: number;
@@ -226,12 +224,7 @@ export type JobDetail = {
 
 /** A job's own limit snapshot, as the limits page edits it. */
 export type JobLimitsView = {
-  job: {
-    id: number;
-    code: string;
-    title: string;
-    unitSystem: UnitSystem;
-    status: JobStatus;
+  job: JobHeading & {
     locked: boolean;
     specRevision: number;
   };

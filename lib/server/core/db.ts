@@ -1,6 +1,6 @@
 import "server-only";
 import { Sequelize } from "sequelize";
-import { initModels, type Models } from "@/models";
+import * as modelClasses from "@/models";
 import { databaseConfig, env } from "@/lib/server/core/env";
 
 // The core's repo: the one Sequelize instance and the model classes bound to it. Outside the
@@ -30,10 +30,11 @@ function instance(): Sequelize {
 /**
  * The model classes, bound to the shared instance. Next bundles server code per route, so one
  * process can hold several copies of the classes; each copy is bound on its first use here
- * (initModels only returns them once done). Repos take their classes from this call.
+ * (initModels does nothing once done). Repos take their classes from this call.
  */
-export function models(): Models {
-  return initModels(instance());
+export function models(): typeof modelClasses {
+  modelClasses.initModels(instance());
+  return modelClasses;
 }
 
 /**
@@ -42,7 +43,7 @@ export function models(): Models {
  */
 export function getSequelize(): Sequelize {
   const sequelize = instance();
-  initModels(sequelize);
+  modelClasses.initModels(sequelize);
   return sequelize;
 }
 

@@ -1,7 +1,7 @@
 import "server-only";
 import type { BoardJob } from "@/lib/schemas/job";
 import { progressOfJobs } from "@/lib/server/jobs/readings";
-import { flagCountsByJob, listJobsWithParties } from "@/lib/server/jobs/repo";
+import { flagCountsByJob, listJobsWithParties, summaryOf } from "@/lib/server/jobs/repo";
 
 // The jobs board: every job of the shop with what the lead scans for at a glance. Progress is
 // required-station progress as lib/domain/progress.ts defines it (the bench, the job page and the
@@ -19,14 +19,7 @@ export async function listJobBoard(shopId: number): Promise<BoardJob[]> {
     flagCountsByJob(shopId, ids, ["open", "disposed"]),
   ]);
   return jobs.map((j) => ({
-    id: j.id,
-    code: j.code,
-    title: j.title,
-    status: j.status,
-    unitSystem: j.unitSystem,
-    dueDate: j.dueDate ?? null,
-    customer: j.customerName,
-    engine: j.engine?.description ?? "",
+    ...summaryOf(j),
     progress: progress.get(j.id) ?? null,
     flags: { open: flags.get(j.id)!.open, disposed: flags.get(j.id)!.disposed },
     updatedAt: j.updatedAt.toISOString(),

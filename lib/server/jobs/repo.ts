@@ -46,18 +46,20 @@ async function jobsWithNames(shopId: number, statuses?: readonly JobStatus[]): P
   });
 }
 
+export const summaryOf = (j: JobWithParties): JobSummary => ({
+  id: j.id,
+  code: j.code,
+  title: j.title,
+  status: j.status,
+  unitSystem: j.unitSystem,
+  dueDate: j.dueDate ?? null,
+  customer: j.customerName,
+  engine: j.engine?.description ?? "",
+});
+
 /** Every job of the shop, soonest due first (all of them, or those in `statuses`). */
 export async function listJobs(shopId: number, statuses?: readonly JobStatus[]): Promise<JobSummary[]> {
-  return (await jobsWithNames(shopId, statuses)).map((j) => ({
-    id: j.id,
-    code: j.code,
-    title: j.title,
-    status: j.status,
-    unitSystem: j.unitSystem,
-    dueDate: j.dueDate ?? null,
-    customer: j.customerName,
-    engine: j.engine?.description ?? "",
-  }));
+  return (await jobsWithNames(shopId, statuses)).map(summaryOf);
 }
 
 /** The board's rows: every job with its customer's name and its engine. */

@@ -50,25 +50,7 @@ export type FlagPatch = Partial<
 const UNCLOSED = `SELECT id, shop_id AS shopId, job_id AS jobId, reading_id AS readingId, derived_key AS derivedKey,
   station_id AS stationId, characteristic, value, unit, limit_min AS limitMin, limit_max AS limitMax, deviation,
   verdict, reason, state, disposition FROM flags WHERE job_id = ? AND state <> 'closed' ORDER BY id`;
-export type UnclosedFlag = Pick<
-  FlagRow,
-  | "id"
-  | "shopId"
-  | "jobId"
-  | "readingId"
-  | "derivedKey"
-  | "stationId"
-  | "characteristic"
-  | "value"
-  | "unit"
-  | "limitMin"
-  | "limitMax"
-  | "deviation"
-  | "verdict"
-  | "reason"
-  | "state"
-  | "disposition"
->;
+export type UnclosedFlag = NewFlag & Pick<FlagRow, "id" | "state" | "disposition">;
 
 /**
  * Flags of the job that are open or disposed. Every writer of a job's flags holds the job row's lock,
