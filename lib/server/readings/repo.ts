@@ -1,13 +1,13 @@
 import "server-only";
 import { Op, QueryTypes, type Transaction } from "sequelize";
-import { decimalToNumber, type Instrument } from "@/models";
+import { decimalToNumber } from "@/models";
 import { correctedBy } from "@/lib/domain";
 import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
 import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { sqlRows, sqlWrite, utcDate } from "@/lib/server/core/sql-driver";
 import { insertMany } from "@/lib/server/core/sql-insert";
-import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
+import { instrumentInfo, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 
 // Readings and the gauges they were taken with. Plain objects out; every query scoped by shop or
 // by a job the caller has already checked belongs to the shop.
@@ -165,23 +165,6 @@ export async function updateEvaluation(
   await sqlWrite(t, UPDATE_EVALUATION, [...EVALUATION_FIELDS.map((k) => e[k]), new Date(), id]);
 }
 
-function toInstrument(i: Instrument): InstrumentInfo {
-  return {
-    id: i.id,
-    shopId: i.shopId,
-    kind: i.kind,
-    label: i.label,
-    serial: i.serial,
-    unit: i.unit,
-    resolution: Number(i.resolution),
-    expandedU: Number(i.expandedU),
-    coverageK: Number(i.coverageK ?? 2),
-    calibrationDue: i.calibrationDue ?? null,
-    dialPlusMeansSmaller: !!i.dialPlusMeansSmaller,
-    active: !!i.active,
-  };
-}
-
 /** The shop's gauges with these ids (other shops' ids are simply absent). */
 export async function findInstruments(
   t: Transaction | undefined,
@@ -197,7 +180,7 @@ export async function findInstruments(
     return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
   }
   const rows = await models().Instrument.findAll({ where: { shopId, id: { [Op.in]: [...new Set(ids)] } } });
-  return new Map(rows.map((i) => [i.id, toInstrument(i)]));
+  return new Map(rows.map((i) => [i.id, instrumentInfo(i)]));
 }
 
 export async function shopInstruments(shopId: number): Promise<InstrumentInfo[]> {
@@ -209,7 +192,7 @@ export async function shopInstruments(shopId: number): Promise<InstrumentInfo[]>
       ["id", "ASC"],
     ],
   });
-  return rows.map(toInstrument);
+  return rows.map(instrumentInfo);
 }
 
 /** Readings with these ids within the given jobs (the feed's and the pack's view). */

@@ -14,7 +14,7 @@ import {
   stationWords,
   VERDICT_WORDS,
 } from "@/lib/domain";
-import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
+import { instrumentInfo, toRaw } from "@/lib/server/sync/ingest-evaluate";
 import type { InstrumentRow, JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { limitsText, num, signed, stamp, withUnit } from "@/lib/server/record/format";
@@ -25,23 +25,6 @@ import type { DerivedLine, ReadingLine, ReadingSection, Tally, TorqueLine } from
 // deviations of readings are the server's stored ones (what the flags were raised from).
 
 export type Lookups = { names: Map<number, string>; photosByReading: Map<string, string[]> };
-
-export function instrumentInfo(i: InstrumentRow): InstrumentInfo {
-  return {
-    id: i.id,
-    shopId: i.shopId,
-    kind: i.kind,
-    label: i.label,
-    serial: i.serial,
-    unit: i.unit,
-    resolution: Number(i.resolution),
-    expandedU: Number(i.expandedU),
-    coverageK: Number(i.coverageK ?? 2),
-    calibrationDue: i.calibrationDue ?? null,
-    dialPlusMeansSmaller: !!i.dialPlusMeansSmaller,
-    active: !!i.active,
-  };
-}
 
 /** The gauge's serial; the gauges table of the record gives its name, uncertainty and calibration. */
 function gaugeWords(r: StoredReading, gauges: Map<number, InstrumentRow>): string {

@@ -10,6 +10,34 @@ import type { BenchInstrument, ReadingEvaluation } from "@/lib/schemas/sync";
 /** A gauge as the server checks readings against it: the tablet's view plus its shop. */
 export type InstrumentInfo = BenchInstrument & { shopId: number };
 
+/** A gauge row as stored (DECIMAL columns may come back as text, flags as 0/1). */
+type StoredInstrument = Pick<InstrumentInfo, "id" | "shopId" | "kind" | "label" | "serial" | "unit"> & {
+  resolution: unknown;
+  expandedU: unknown;
+  coverageK?: unknown;
+  calibrationDue?: string | null;
+  dialPlusMeansSmaller?: unknown;
+  active?: unknown;
+};
+
+/** The one conversion of a stored gauge into what the evaluation needs (k = 2 when none was given). */
+export function instrumentInfo(i: StoredInstrument): InstrumentInfo {
+  return {
+    id: i.id,
+    shopId: i.shopId,
+    kind: i.kind,
+    label: i.label,
+    serial: i.serial,
+    unit: i.unit,
+    resolution: Number(i.resolution),
+    expandedU: Number(i.expandedU),
+    coverageK: Number(i.coverageK ?? 2),
+    calibrationDue: i.calibrationDue ?? null,
+    dialPlusMeansSmaller: !!i.dialPlusMeansSmaller,
+    active: !!i.active,
+  };
+}
+
 /** What the core needs of a reading, whether it came from the tablet or from the database. */
 export type ReadingFacts = Pick<
   StoredReading,
