@@ -3,9 +3,10 @@
 //
 // Two names for a gauge: the instrument kind a shop registers ("outside_mic") and the gauge kind a
 // spec sheet names ("micrometer"). INSTRUMENT_KINDS says which gauge kind each instrument is;
-// USUAL_GAUGES says which gauge kinds usually measure each characteristic (common practice, from
-// memory), the first being the one a new limit proposes. A gauge of another kind that reads the
-// same quantity may still be used (the machinist picks it); one that reads another quantity never.
+// USUAL_GAUGES says which gauge kinds measure each characteristic (common practice, from memory),
+// the first being the one a new limit proposes. A reading is taken with a gauge of one of those
+// kinds, never another (an outside micrometer cannot measure a bore); gauge-range.ts adds the
+// measuring range and the words that say which gauge to pick.
 import { CHARACTERISTICS } from "./stations";
 import { quantityOfUnit } from "./units";
 import type { MeasureUnit } from "./enums";
@@ -51,8 +52,8 @@ export const USUAL_GAUGES: Readonly<Record<RawCharacteristic, readonly GaugeKind
   rod_bearing_bore: BORE,
   piston_skirt_diameter: ["micrometer"],
   ring_end_gap: ["feeler"],
-  rod_side_clearance: ["feeler"],
-  crank_end_play: ["dial-indicator"],
+  rod_side_clearance: ["feeler", "dial-indicator"],
+  crank_end_play: ["dial-indicator", "feeler"],
   rod_bolt_free_length: ["stretch-gauge"],
   rod_bolt_loaded_length: ["stretch-gauge"],
   deck_height: ["deck-gauge"],
@@ -84,15 +85,19 @@ export interface GaugeFacts {
 }
 
 /**
- * How a gauge suits a characteristic: 0, 1, … its place among the usual kinds; Infinity for a gauge
- * of another kind that reads the same quantity (allowed, never proposed); undefined when it reads
- * another quantity (a torque wrench on a bore), which is refused.
+ * How a gauge suits a characteristic: 0, 1, … its place among the kinds that measure it; undefined
+ * when it is of another kind (an outside micrometer on a bore) or reads another quantity, which is
+ * refused.
  */
 export function gaugeRank(gauge: GaugeFacts, characteristic: RawCharacteristic): number | undefined {
   if (quantityOfUnit(gauge.unit) !== CHARACTERISTICS[characteristic].kind) return undefined;
   const at = USUAL_GAUGES[characteristic].indexOf(gaugeKindOf(gauge.kind) as GaugeKind);
-  return at < 0 ? Infinity : at;
+  return at < 0 ? undefined : at;
 }
+
+/** True when the gauge is of a kind that measures the characteristic (and reads its quantity). */
+export const gaugeSuits = (gauge: GaugeFacts, characteristic: RawCharacteristic): boolean =>
+  gaugeRank(gauge, characteristic) !== undefined;
 
 /** True when the gauge is a dial bore gauge: it reads a deviation from a setting size. */
 export const isDialBoreGauge = (gauge: GaugeFacts | undefined): boolean =>
@@ -104,7 +109,7 @@ export const takesDialBoreGauge = (characteristic: RawCharacteristic): boolean =
 
 type Offered = GaugeFacts & { label: string; active: boolean };
 
-/** The active gauges that can measure a characteristic: the usual kinds first (table order), then by name. */
+/** The active gauges that can measure a characteristic, in the table's order of kinds, then by name. */
 export function gaugesFor<G extends Offered>(characteristic: RawCharacteristic, gauges: readonly G[]): G[] {
   const ranked = gauges.flatMap((g) => {
     const rank = g.active ? gaugeRank(g, characteristic) : undefined;
@@ -114,15 +119,12 @@ export function gaugesFor<G extends Offered>(characteristic: RawCharacteristic, 
   return ranked.map((r) => r.g);
 }
 
-/**
- * The gauge to use: the one the machinist picked for this kind of station when it suits, else the
- * first of the usual kinds; never a guess of another kind.
- */
+/** The gauge to use: the one the machinist picked for this kind of station when it suits, else the first offered. */
 export function defaultGauge<G extends Offered & { id: number }>(
   characteristic: RawCharacteristic,
   gauges: readonly G[],
   pickedId?: number,
 ): G | undefined {
   const options = gaugesFor(characteristic, gauges);
-  return options.find((g) => g.id === pickedId) ?? options.find((g) => gaugeRank(g, characteristic)! < Infinity);
+  return options.find((g) => g.id === pickedId) ?? options[0];
 }

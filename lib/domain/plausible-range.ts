@@ -7,6 +7,7 @@ import { CHARACTERISTICS, parseStationId } from "./stations";
 import type { MeasureUnit } from "./enums";
 import type { EngineShape, RawCharacteristic } from "./types";
 import { cleanDecimal, convertLength, convertTorque, decimalDifference } from "./units";
+import { unitWords } from "./words";
 
 type Range = { min: number; max: number };
 /** Lengths in mm, torque in N·m. Gaps and clearances may be zero. */
@@ -60,7 +61,10 @@ export function implausibleReason(
   const name = info.label.split(",")[0].toLowerCase();
   const v = canonical(value, unit);
   if (v < range.min || v > range.max) {
-    return `${value} ${unit} cannot be a ${name}: a real one is ${rangeWords(range, info.kind)}. Check the decimal point and the unit`;
+    return (
+      `${value} ${unitWords(unit)} cannot be a ${name}: a real one is ${rangeWords(range, info.kind)}. ` +
+      "Check the decimal point and the unit"
+    );
   }
   const nominal = engine?.nominalSizes?.bore;
   if (nominal && (characteristic === "bore_diameter" || characteristic === "piston_skirt_diameter")) {

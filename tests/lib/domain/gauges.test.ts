@@ -6,6 +6,7 @@ import {
   USUAL_GAUGES,
   defaultGauge,
   gaugeRank,
+  gaugeSuits,
   gaugesFor,
   isDialBoreGauge,
   takesDialBoreGauge,
@@ -16,7 +17,7 @@ import {
 // Which gauge measures what is shop practice (common practice, from memory): a journal or a skirt
 // with an outside micrometer; a bore with a bore gauge, dial or digital, or an inside micrometer; a
 // deck height with a deck gauge or a depth micrometer; gaps with feelers; end play with a dial
-// indicator; bolt stretch with a stretch gauge; torque with a torque wrench.
+// indicator or feelers; bolt stretch with a stretch gauge; torque with a torque wrench.
 type G = { id: number; kind: string; label: string; unit: string; active: boolean };
 let next = 1;
 const gauge = (kind: keyof typeof INSTRUMENT_KINDS, over: Partial<G> = {}): G => ({
@@ -52,17 +53,20 @@ describe("the table of which gauge suits which characteristic", () => {
   it("maps every instrument kind to a gauge kind a spec sheet can name", () => {
     for (const k of Object.values(INSTRUMENT_KINDS)) expect(GAUGE_KINDS).toContain(k.gaugeKind);
   });
-  it("ranks the usual kinds in table order, others of the quantity after, and refuses the other quantity", () => {
+  it("ranks the kinds that measure a characteristic in table order and refuses every other kind", () => {
     expect(gaugeRank(dialBore, "bore_diameter")).toBe(0);
     expect(gaugeRank(digitalBore, "bore_diameter")).toBe(1);
     expect(gaugeRank(insideMic, "bore_diameter")).toBe(1);
-    expect(gaugeRank(outsideMic, "bore_diameter")).toBe(Infinity);
+    // An outside micrometer cannot reach into a bore: same quantity, wrong kind (common practice).
+    expect(gaugeRank(outsideMic, "bore_diameter")).toBeUndefined();
+    expect(gaugeSuits(outsideMic, "bore_diameter")).toBe(false);
     expect(gaugeRank(wrench, "bore_diameter")).toBeUndefined();
     expect(gaugeRank(outsideMic, "fastener_torque")).toBeUndefined();
     expect(gaugeRank(wrench, "fastener_torque")).toBe(0);
     // The quantity comes from the unit the gauge reads, as the gauge form checks it.
     expect(gaugeRank({ kind: "torque_wrench", unit: "nm" }, "fastener_torque")).toBe(0);
-    expect(gaugeRank({ kind: "something_new", unit: "mm" }, "deck_height")).toBe(Infinity);
+    expect(gaugeRank({ kind: "torque_wrench", unit: "in" }, "fastener_torque")).toBeUndefined();
+    expect(gaugeRank({ kind: "something_new", unit: "mm" }, "deck_height")).toBeUndefined();
   });
 });
 
@@ -73,26 +77,21 @@ describe("the gauge proposed at a station", () => {
     expect(defaultGauge("rod_journal_diameter", [depthMic, insideMic, outsideMic])?.kind).toBe("outside_mic");
     expect(defaultGauge("piston_skirt_diameter", [insideMic, depthMic, outsideMic])?.kind).toBe("outside_mic");
   });
-  it("lists the gauges of the station's quantity, the usual kinds first, then by name", () => {
-    expect(gaugesFor("main_journal_diameter", everyGauge).map((g) => g.kind)).toEqual([
-      "outside_mic",
-      "deck_gauge",
-      "depth_mic",
+  it("lists only the gauges of a kind that measures the station, in table order, then by name", () => {
+    expect(gaugesFor("main_journal_diameter", everyGauge).map((g) => g.kind)).toEqual(["outside_mic"]);
+    expect(gaugesFor("bore_diameter", everyGauge).map((g) => g.kind)).toEqual([
       "bore_gauge_dial",
       "bore_gauge_digital",
       "inside_mic",
     ]);
-    expect(
-      gaugesFor("bore_diameter", everyGauge)
-        .map((g) => g.kind)
-        .slice(0, 3),
-    ).toEqual(["bore_gauge_dial", "bore_gauge_digital", "inside_mic"]);
+    expect(gaugesFor("deck_height", everyGauge).map((g) => g.kind)).toEqual(["deck_gauge", "depth_mic"]);
     expect(gaugesFor("fastener_torque", everyGauge).map((g) => g.kind)).toEqual(["torque_wrench"]);
     expect(gaugesFor("main_journal_diameter", [{ ...outsideMic, active: false }])).toEqual([]);
   });
   it("keeps the machinist's pick when it suits, and never proposes another kind", () => {
     expect(defaultGauge("bore_diameter", [outsideMic, dialBore])?.id).toBe(dialBore.id);
-    expect(defaultGauge("bore_diameter", [outsideMic, dialBore], outsideMic.id)?.id).toBe(outsideMic.id);
+    expect(defaultGauge("bore_diameter", [digitalBore, dialBore], digitalBore.id)?.id).toBe(digitalBore.id);
+    expect(defaultGauge("bore_diameter", [outsideMic, dialBore], outsideMic.id)?.id).toBe(dialBore.id);
     expect(defaultGauge("bore_diameter", [outsideMic, dialBore], wrench.id)?.id).toBe(dialBore.id);
     expect(defaultGauge("bore_diameter", [outsideMic, digitalBore])?.id).toBe(digitalBore.id);
     expect(defaultGauge("deck_height", [outsideMic, dialBore])).toBeUndefined();
