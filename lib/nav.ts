@@ -25,6 +25,7 @@ export const NAV: Record<Role, { href: string; label: string }[]> = {
     { href: "/desk", label: "Jobs" },
     { href: "/desk/specs", label: "Spec sheets" },
     { href: "/admin/mail", label: "Mail" },
+    { href: "/audit", label: "Audit" },
   ],
 };
 

@@ -15,6 +15,7 @@ import * as createSyncChanges from "./20261201001100-create-sync-changes";
 import * as createMailOutbox from "./20261201001200-create-mail-outbox";
 import * as addReadingsGaugeTemp from "./20261202000100-add-readings-gauge-temp";
 import * as addJobsContextRevision from "./20261202000200-add-jobs-context-revision";
+import * as createUserSessions from "./20261203050000-create-user-sessions";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -38,6 +39,7 @@ export const migrations: Migration[] = [
   step("20261201001200-create-mail-outbox", createMailOutbox),
   step("20261202000100-add-readings-gauge-temp", addReadingsGaugeTemp),
   step("20261202000200-add-jobs-context-revision", addJobsContextRevision),
+  step("20261203050000-create-user-sessions", createUserSessions),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */
@@ -60,4 +62,5 @@ export const MIGRATED_TABLES = [
   "audit_events",
   "sync_changes",
   "mail_outbox",
+  "user_sessions",
 ] as const;

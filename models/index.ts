@@ -34,6 +34,7 @@ import { SpecLimit, initSpecLimit } from "./spec-limit";
 import { SpecTemplate, initSpecTemplate } from "./spec-template";
 import { SyncChange, initSyncChange } from "./sync-change";
 import { User, initUser } from "./user";
+import { UserSession, initUserSession } from "./user-session";
 
 export {
   Attachment,
@@ -54,6 +55,7 @@ export {
   SpecTemplate,
   SyncChange,
   User,
+  UserSession,
 };
 export { decimalToNumber } from "./columns";
 
@@ -76,6 +78,7 @@ const INITIALISERS = [
   initAuditEvent,
   initSyncChange,
   initMailOutbox,
+  initUserSession,
 ];
 
 let boundTo: Sequelize | null = null;

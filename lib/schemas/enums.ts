@@ -20,6 +20,13 @@ export type Role = (typeof ROLES)[number];
 /** The roles that work at the bench: the tablet's screens, its job packs and the sync endpoint. */
 export const BENCH_ROLES = ["machinist", "lead"] as const satisfies readonly Role[];
 
+/** The roles that read the audit trail: the lead and inspector for their work, the admin for accounts. */
+export const AUDIT_ROLES = ["lead", "inspector", "admin"] as const satisfies readonly Role[];
+
+/** Why a signed-in session ended (user_sessions.ended_reason). */
+export const SESSION_END_REASONS = ["signed_out", "replaced", "password_reset", "role_changed", "deactivated"] as const;
+export type SessionEndReason = (typeof SESSION_END_REASONS)[number];
+
 export const FUELS = ["gasoline", "diesel", "other"] as const;
 export type Fuel = (typeof FUELS)[number];
 

@@ -9,4 +9,20 @@ export const signInSchema = z.object({
 export type SignInInput = z.infer<typeof signInSchema>;
 
 /** Who is asking: the signed-in user as the server checked them on this request. */
-export type Actor = { userId: number; shopId: number; role: Role; name: string; email: string };
+export type Actor = {
+  userId: number;
+  shopId: number;
+  role: Role;
+  name: string;
+  email: string;
+  /** The sign-in this request came with; absent for an actor made outside a request (scripts, tests). */
+  sessionId?: string;
+};
+
+/** A tablet reporting a sign-out it made offline names the session it ended. */
+export const signOutSchema = z.object({
+  sessionId: z
+    .string()
+    .regex(/^[0-9a-f]{32}$/, "A session id is 32 hexadecimal characters")
+    .optional(),
+});

@@ -5,7 +5,8 @@ import mariadb from "mariadb";
 import { POST } from "@/app/api/sync/route";
 import { closeSequelize, getSequelize } from "@/lib/server/core/db";
 import { migrateUp } from "@/lib/server/core/migrate";
-import { sealSession, SESSION_COOKIE } from "@/lib/server/core/session";
+import { SESSION_COOKIE } from "@/lib/server/core/session";
+import { openSession } from "@/lib/server/sessions/lifecycle";
 import { setSqlTrace } from "@/lib/server/core/sql-driver";
 import { Customer, Engine, Job, JobLimit, Shop, User } from "@/models";
 import { READING_COLUMNS } from "@/lib/schemas/readings";
@@ -57,7 +58,7 @@ async function fixture(jobs: number) {
     await JobLimit.bulkCreate(STREET_V8_INCH.map((l, k) => ({ ...l, jobId: job.id, sortOrder: k })) as never[]);
     jobIds.push(job.id);
   }
-  const cookie = `${SESSION_COOKIE}=${await sealSession({ userId: user.id, shopId: shop.id, role: "machinist", name: user.name, issuedAt: Date.now() })}`;
+  const cookie = `${SESSION_COOKIE}=${(await openSession({ id: user.id, shopId: shop.id, role: "machinist", name: user.name })).cookie}`;
   return { jobIds, cookie };
 }
 

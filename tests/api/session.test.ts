@@ -68,6 +68,76 @@ describe("POST /api/session", () => {
   });
 });
 
+describe("sessions end on the server", () => {
+  const cookieOf = (res: { headers: Headers }) => (res.headers.get("set-cookie") ?? "").split(";")[0];
+  const meWith = async (cookie: string) => call(me, new Request("http://localhost/api/me", { headers: { cookie } }));
+  const signOut = async (cookie: string, body?: unknown) =>
+    call(
+      DELETE,
+      new Request("http://localhost/api/session", {
+        method: "DELETE",
+        headers: body ? { cookie, "content-type": "application/json" } : { cookie },
+        body: body ? JSON.stringify(body) : undefined,
+      }),
+    );
+
+  it("refuses a cookie kept after signing out (a copy of it no longer works)", async () => {
+    const { users } = await createShop();
+    const cookie = cookieOf(await call(POST, await signIn({ email: users.machinist.email, password: TEST_PASSWORD })));
+    expect((await meWith(cookie)).status).toBe(200);
+    expect((await signOut(cookie)).status).toBe(204);
+    expect((await meWith(cookie)).status).toBe(401);
+  });
+
+  it("ends a session named by a tablet that signed out offline, and keeps the next person's cookie", async () => {
+    const { users } = await createShop();
+    const first = await call(POST, await signIn({ email: users.machinist.email, password: TEST_PASSWORD }, "10.2.0.1"));
+    const second = await call(POST, await signIn({ email: users.lead.email, password: TEST_PASSWORD }, "10.2.0.2"));
+    const res = await signOut(cookieOf(second), { sessionId: first.body.sessionId });
+    expect(res.status).toBe(204);
+    expect(res.headers.get("set-cookie")).toBeNull();
+    expect((await meWith(cookieOf(first))).status).toBe(401);
+    expect((await meWith(cookieOf(second))).status).toBe(200);
+  });
+
+  it("refuses a session id that is not one with words", async () => {
+    const res = await signOut("", { sessionId: "../../etc" });
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields.sessionId).toEqual(["A session id is 32 hexadecimal characters"]);
+  });
+
+  it("ends the session a browser still carried when someone else signs in on it", async () => {
+    const { users } = await createShop();
+    const a = await call(POST, await signIn({ email: users.machinist.email, password: TEST_PASSWORD }, "10.2.1.1"));
+    const b = await call(
+      POST,
+      await asUser(
+        null,
+        "POST",
+        "/api/session",
+        { email: users.lead.email, password: TEST_PASSWORD },
+        {
+          cookie: cookieOf(a),
+          "x-forwarded-for": "10.2.1.2",
+        },
+      ),
+    );
+    expect(b.status).toBe(200);
+    expect((await meWith(cookieOf(a))).status).toBe(401);
+    const who = await meWith(cookieOf(b));
+    expect(who.body.user.id).toBe(users.lead.id);
+    expect(who.body.sessionId).toBe(b.body.sessionId);
+  });
+
+  it("refuses a cookie sealed without a session (from before sessions had rows)", async () => {
+    const { users } = await createShop();
+    const { sealSession, SESSION_COOKIE } = await import("@/lib/server/core/session");
+    const old = { userId: users.lead.id, shopId: users.lead.shopId, role: "lead", name: "x", issuedAt: Date.now() };
+    const sealed = await sealSession(old as never);
+    expect((await meWith(`${SESSION_COOKIE}=${sealed}`)).status).toBe(401);
+  });
+});
+
 describe("GET /api/me", () => {
   it("is 401 with the envelope when signed out", async () => {
     const res = await call(me, await asUser(null, "GET", "/api/me"));

@@ -5,9 +5,10 @@ import { GET, POST } from "@/app/api/users/route";
 import { PATCH } from "@/app/api/users/[userId]/route";
 import { POST as RESET } from "@/app/api/users/[userId]/password/route";
 import { POST as SIGN_IN } from "@/app/api/session/route";
+import { GET as ME } from "@/app/api/me/route";
 import { AuditEvent, User } from "@/models";
 import { createShop, TEST_PASSWORD, type TestShop, type TestUser } from "../support/factories";
-import { asUser, call } from "../support/requests";
+import { asUser, call, cookieFor } from "../support/requests";
 
 const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
 let a: TestShop;
@@ -190,7 +191,11 @@ describe("PATCH /api/users/[userId]", () => {
       patch(c.users.admin, rival.id, { active: false }),
       patch(rival, c.users.admin.id, { active: false }),
     ]);
-    expect([x.status, y.status].sort()).toEqual([200, 409]);
+    // The loser is refused either inside the transaction (409) or, when the winner committed before
+    // the loser's request was checked, as already switched off with their sessions ended (401).
+    const [won, lost] = [x.status, y.status].sort();
+    expect(won).toBe(200);
+    expect([401, 409]).toContain(lost);
     expect(await User.count({ where: { shopId: c.shop.id, role: "admin", active: true } })).toBe(1);
   });
 
@@ -207,6 +212,62 @@ describe("PATCH /api/users/[userId]", () => {
       })
     ).map((e) => e.action);
     expect(actions).toEqual(["user.invited", "user.deactivated", "user.reactivated"]);
+  });
+});
+
+describe("changing an account ends its other sessions", () => {
+  const meAs = async (cookie: string) =>
+    call(ME as never, new Request("http://localhost/api/me", { headers: { cookie } }));
+  const reset = async (by: TestUser, id: number, cookie?: string) =>
+    call(
+      RESET as never,
+      await asUser(cookie ? null : by, "POST", `/api/users/${id}/password`, undefined, { cookie: cookie ?? "" }),
+      {
+        userId: String(id),
+      },
+    );
+
+  it("a role change signs the person out everywhere; the audit says how many sessions ended", async () => {
+    const { body } = await invite(a.users.admin, fresh("role-out"));
+    const tablet = await cookieFor({ ...body.user, shopId: a.shop.id });
+    const office = await cookieFor({ ...body.user, shopId: a.shop.id });
+    expect((await meAs(tablet)).status).toBe(200);
+    expect((await patch(a.users.admin, body.user.id, { role: "lead" })).status).toBe(200);
+    expect((await meAs(tablet)).status).toBe(401);
+    expect((await meAs(office)).status).toBe(401);
+    const e = await AuditEvent.findOne({
+      where: { entityType: "user", entityId: String(body.user.id), action: "user.role_changed" },
+    });
+    expect(e?.after).toMatchObject({ role: "lead", sessionsEnded: 2 });
+  });
+
+  it("a password reset ends the person's sessions; the new password opens a fresh one", async () => {
+    const { body } = await invite(a.users.admin, fresh("reset-out"));
+    const before = await cookieFor({ ...body.user, shopId: a.shop.id });
+    const res = await reset(a.users.admin, body.user.id);
+    expect(res.status).toBe(200);
+    expect((await meAs(before)).status).toBe(401);
+    const again = await signInWith(body.user.email, res.body.temporaryPassword);
+    expect(again.status).toBe(200);
+    expect((await meAs((again.headers.get("set-cookie") ?? "").split(";")[0])).status).toBe(200);
+  });
+
+  it("an admin resetting their own password keeps the session they use and ends their others", async () => {
+    const admin = a.users.admin;
+    const using = await cookieFor(admin);
+    const elsewhere = await cookieFor(admin);
+    const res = await reset(admin, admin.id, using);
+    expect(res.status).toBe(200);
+    expect((await meAs(using)).status).toBe(200);
+    expect((await meAs(elsewhere)).status).toBe(401);
+  });
+
+  it("a reactivation does not bring an ended session back", async () => {
+    const { body } = await invite(a.users.admin, fresh("off-on"));
+    const cookie = await cookieFor({ ...body.user, shopId: a.shop.id });
+    await patch(a.users.admin, body.user.id, { active: false });
+    await patch(a.users.admin, body.user.id, { active: true });
+    expect((await meAs(cookie)).status).toBe(401);
   });
 });
 

@@ -1,16 +1,12 @@
 // Build Requests the way a signed-in browser sends them, and call exported route handlers.
-import { sealSession, SESSION_COOKIE } from "@/lib/server/core/session";
+import { SESSION_COOKIE } from "@/lib/server/core/session";
+import { openSession } from "@/lib/server/sessions/lifecycle";
 import type { TestUser } from "./factories";
 
+/** A cookie for a fresh sign-in of `user` (a live user_sessions row, as the sign-in route opens). */
 export async function cookieFor(user: TestUser): Promise<string> {
-  const sealed = await sealSession({
-    userId: user.id,
-    shopId: user.shopId,
-    role: user.role,
-    name: user.name,
-    issuedAt: Date.now(),
-  });
-  return `${SESSION_COOKIE}=${sealed}`;
+  const { cookie } = await openSession(user);
+  return `${SESSION_COOKIE}=${cookie}`;
 }
 
 export async function asUser(

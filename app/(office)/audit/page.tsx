@@ -2,11 +2,12 @@ import { Suspense } from "react";
 import { AuditBrowser } from "@/components/audit/audit-browser";
 import { Loading } from "@/components/release/query-states";
 import { requirePageActor } from "@/lib/server/core/access";
+import { AUDIT_ROLES } from "@/lib/schemas/enums";
 
 export const metadata = { title: "Audit trail" };
 
 export default async function AuditPage() {
-  await requirePageActor(["lead", "inspector"]);
+  await requirePageActor(AUDIT_ROLES);
   return (
     <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
       <div>

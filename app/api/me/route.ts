@@ -8,5 +8,7 @@ export const GET = authed("any", async ({ actor }) => {
     user: { id: actor.userId, name: actor.name, email: actor.email, role: actor.role },
     shop,
     home: ROLE_HOME[actor.role],
+    // A tablet remembers which sign-in it holds, to end it on the server after signing out offline.
+    sessionId: actor.sessionId ?? null,
   };
 });

@@ -7,10 +7,12 @@ import { AppError } from "@/lib/server/core/errors";
 import type { Role } from "@/lib/schemas/enums";
 import type { Actor } from "@/lib/schemas/session";
 import { getPageSession, sessionFromRequest, type SessionData } from "@/lib/server/core/session";
+import { isSessionLive } from "@/lib/server/sessions/repo";
 import { findActiveUser } from "@/lib/server/users/repo";
 
 // Who is asking (Actor, lib/schemas/session.ts), checked against the database on every request so a
-// deactivated user or a changed role takes effect at once. Every repo call takes `actor.shopId`.
+// deactivated user or an ended session (signed out, password reset, role changed) takes effect at
+// once. Every repo call takes `actor.shopId`.
 
 export const ROLE_HOME: Record<Role, string> = {
   machinist: "/bench",
@@ -21,9 +23,13 @@ export const ROLE_HOME: Record<Role, string> = {
 
 async function actorFrom(session: SessionData | null): Promise<Actor | null> {
   if (!session) return null;
-  const user = await findActiveUser(session.userId, session.shopId);
-  if (!user) return null;
-  return { userId: user.id, shopId: user.shopId, role: user.role, name: user.name, email: user.email };
+  const [user, live] = await Promise.all([
+    findActiveUser(session.userId, session.shopId),
+    isSessionLive(session.sessionId, session.userId),
+  ]);
+  if (!user || !live) return null;
+  const { id: userId, shopId, role, name, email } = user;
+  return { userId, shopId, role, name, email, sessionId: session.sessionId };
 }
 
 export async function actorFromRequest(req: Request): Promise<Actor | null> {

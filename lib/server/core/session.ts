@@ -8,11 +8,19 @@ import type { Role } from "@/lib/schemas/enums";
 // iron-session; we seal/unseal ourselves so route handlers read it straight from the Request,
 // which lets tests call exported handlers without a Next request context.
 
-export type SessionData = { userId: number; shopId: number; role: Role; name: string; issuedAt: number };
+/** `sessionId` names the user_sessions row; a cookie sealed before sessions had rows has none and is refused. */
+export type SessionData = {
+  sessionId: string;
+  userId: number;
+  shopId: number;
+  role: Role;
+  name: string;
+  issuedAt: number;
+};
 
 export const SESSION_COOKIE = "tw_session";
 
-function ttlSeconds() {
+export function ttlSeconds() {
   return Math.round(env().SESSION_TTL_HOURS * 3600);
 }
 
@@ -24,7 +32,9 @@ export async function unsealSession(sealed: string | undefined): Promise<Session
   if (!sealed) return null;
   try {
     const data = await unsealData<Partial<SessionData>>(sealed, { password: env().SESSION_SECRET, ttl: ttlSeconds() });
-    return typeof data.userId === "number" && typeof data.shopId === "number" ? (data as SessionData) : null;
+    const complete =
+      typeof data.sessionId === "string" && typeof data.userId === "number" && typeof data.shopId === "number";
+    return complete ? (data as SessionData) : null;
   } catch {
     return null;
   }

@@ -5,6 +5,7 @@ import type { Transaction } from "sequelize";
 import type { AdminUser, InviteUserInput, UpdateUserInput } from "@/lib/schemas/user";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
+import { endUserSessionRows } from "@/lib/server/sessions/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import {
@@ -19,7 +20,8 @@ import {
   type AccountRow,
 } from "@/lib/server/users/repo";
 
-// The admin's account work: invite, change role, deactivate/reactivate, reset a password.
+// The admin's account work: invite, change role, deactivate/reactivate, reset a password (the last
+// three end the person's open sessions).
 // Rules a shop expects: nobody changes their own role or switches their own account off, and
 // the shop always keeps one active admin. Passwords and hashes never reach the audit trail.
 
@@ -110,6 +112,16 @@ function checkRules(actor: Actor, user: AccountRow, change: UpdateUserInput, adm
   }
 }
 
+/**
+ * A new role or a switched-off account ends every session the person has open, so nobody keeps
+ * working under the old rights: they sign in again (or not at all). Answers how many ended.
+ */
+async function endSessionsFor(t: Transaction, user: AccountRow, change: UpdateUserInput): Promise<number> {
+  if (change.active === false && user.active) return endUserSessionRows(t, user.id, "deactivated");
+  if (change.role !== undefined && change.role !== user.role) return endUserSessionRows(t, user.id, "role_changed");
+  return 0;
+}
+
 export async function updateUser(actor: Actor, userId: number, change: UpdateUserInput): Promise<AdminUser> {
   return getSequelize().transaction(async (t) => {
     const admins = await lockActiveAdmins(t, actor.shopId);
@@ -126,6 +138,7 @@ export async function updateUser(actor: Actor, userId: number, change: UpdateUse
       ...(change.active !== undefined ? { active: change.active } : {}),
     };
     await updateAccount(t, user.id, fields);
+    const sessionsEnded = await endSessionsFor(t, user, change);
     const after = { ...user, ...fields };
     for (const action of actions) {
       await recordAudit(t, {
@@ -135,7 +148,7 @@ export async function updateUser(actor: Actor, userId: number, change: UpdateUse
         entityType: "user",
         entityId: user.id,
         before,
-        after: auditView(after),
+        after: { ...auditView(after), ...(sessionsEnded ? { sessionsEnded } : {}) },
       });
     }
     return toAdminUser(after);
@@ -155,6 +168,10 @@ export async function resetPassword(actor: Actor, userId: number) {
       );
     await setPassword(t, user.id, passwordHash);
     await clearThrottle([`email:${user.email.toLowerCase()}`], t);
+    // Whoever knew the old password may be signed in with it: their sessions end (an admin resetting
+    // their own keeps the one they are using).
+    const keep = user.id === actor.userId ? actor.sessionId : undefined;
+    const sessionsEnded = await endUserSessionRows(t, user.id, "password_reset", keep);
     await recordAudit(t, {
       shopId: actor.shopId,
       userId: actor.userId,
@@ -162,7 +179,7 @@ export async function resetPassword(actor: Actor, userId: number) {
       entityType: "user",
       entityId: user.id,
       before: auditView(user),
-      after: { ...auditView(user), passwordReset: true },
+      after: { ...auditView(user), passwordReset: true, sessionsEnded },
     });
     return { user: toAdminUser(user), temporaryPassword: password };
   });
