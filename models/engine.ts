@@ -27,6 +27,9 @@ export class Engine extends Model<InferAttributes<Engine>, InferCreationAttribut
   declare unitSystem: UnitSystem;
   declare nominalBore: number;
   declare nominalStroke: number;
+  /** Standard (design) journal sizes, when known; a job's finished sizes are judged as over or under them. */
+  declare nominalMainJournal: CreationOptional<number | null>;
+  declare nominalRodJournal: CreationOptional<number | null>;
   /** e.g. 'grey_cast_iron', 'cgi', 'aluminium'. */
   declare blockMaterial: string;
   declare headMaterial: CreationOptional<string | null>;
@@ -65,6 +68,8 @@ export function initEngine(sequelize: Sequelize): void {
       unitSystem: enumOf(UNIT_SYSTEMS),
       nominalBore: decimal("nominalBore", 10, 4, false),
       nominalStroke: decimal("nominalStroke", 10, 4, false),
+      nominalMainJournal: decimal("nominalMainJournal", 10, 4),
+      nominalRodJournal: decimal("nominalRodJournal", 10, 4),
       blockMaterial: str(32),
       headMaterial: str(32, true),
       pistonMaterial: str(32, true),

@@ -6,7 +6,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from "sequelize";
-import { dateOnly, datetime, enumOf, int, intId, json, modelOptions, ref, stamps, str, text } from "./columns";
+import { dateOnly, datetime, decimal, enumOf, int, intId, json, modelOptions, ref, stamps, str, text } from "./columns";
 import { JOB_STATUSES, type JobStatus } from "@/lib/domain";
 import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
 import type { JsonObject } from "@/lib/schemas/json";
@@ -32,6 +32,10 @@ export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job
   declare dueDate: CreationOptional<string | null>;
   declare notes: CreationOptional<string | null>;
   declare buildPlan: CreationOptional<JsonObject | null>;
+  /** The sizes the job machines to, in its unitSystem (job-size limits follow them); null when not stated. */
+  declare finishedBore: CreationOptional<number | null>;
+  declare finishedMainJournal: CreationOptional<number | null>;
+  declare finishedRodJournal: CreationOptional<number | null>;
   /** Bumped on every edit of the job's limits. */
   declare specRevision: CreationOptional<number>;
   /** Set while a release stands; readings for a locked job are refused. */
@@ -60,6 +64,9 @@ export function initJob(sequelize: Sequelize): void {
       dueDate: dateOnly(),
       notes: text(),
       buildPlan: json(true),
+      finishedBore: decimal("finishedBore", 10, 5),
+      finishedMainJournal: decimal("finishedMainJournal", 10, 5),
+      finishedRodJournal: decimal("finishedRodJournal", 10, 5),
       specRevision: int(1),
       lockedAt: datetime(true),
       ...stamps(),

@@ -1,30 +1,66 @@
 "use client";
 
-import { resolveLimit, unitWords, type SpecLimit } from "@/lib/domain";
+import {
+  JOB_SIZE_OF,
+  JOB_SIZE_WORDS,
+  SIZE_OF,
+  resolveLimit,
+  unitWords,
+  type CharacteristicId,
+  type SpecLimit,
+} from "@/lib/domain";
 import { compactLimit, type LimitInput, type LimitValues } from "@/lib/schemas/spec";
 
 // What the limit comes to, worked out by the core (resolveLimit) as the lead types, so a
-// slip such as a swapped tolerance shows before it is saved.
+// slip such as a swapped tolerance shows before it is saved. A minimum and maximum on a clearance
+// reads as the clearance window a shop talks about; limits that follow the job say which size.
+
+/** Gaps between two parts, whose limits a shop calls a clearance window. */
+const CLEARANCES = new Set<CharacteristicId>([
+  "main_oil_clearance",
+  "rod_oil_clearance",
+  "piston_to_wall",
+  "rod_side_clearance",
+  "crank_end_play",
+  "ring_end_gap",
+]);
+
+const num = (x: unknown) => (typeof x === "number" && Number.isFinite(x) ? x : null);
+
+function perInchWords(l: LimitInput): string | null {
+  const [lo, hi] = [num(l.perInchMin), num(l.perInchMax)];
+  if (lo === null && hi === null) return null;
+  const size = l.characteristic ? SIZE_OF[l.characteristic] : undefined;
+  const of = size ? `of the job's ${JOB_SIZE_WORDS[size]}` : "of diameter";
+  const per = `${unitWords(l.unit)} per ${l.unit === "mm" ? "mm" : "inch"} ${of}`;
+  const head = CLEARANCES.has(l.characteristic) ? "Clearance window" : "Scales with the diameter";
+  if (lo === null) return `${head}: up to ${hi} ${per}`;
+  if (hi === null) return `${head}: ${lo} ${per} or more`;
+  return `${head}: ${lo} to ${hi} ${per}`;
+}
+
+function jobSizeWords(l: LimitInput): string | null {
+  const size = l.characteristic ? JOB_SIZE_OF[l.characteristic] : undefined;
+  const [plus, minus] = [num(l.tolPlus), num(l.tolMinus)];
+  if (!size || plus === null || minus === null || plus < 0 || minus < 0) return null;
+  const u = unitWords(l.unit);
+  return `Accepts each job's ${JOB_SIZE_WORDS[size]} −${minus} / +${plus} ${u}`;
+}
 
 function words(l: LimitInput): string | null {
-  if (l.limitType === "per_inch") {
-    const parts = [l.perInchMin, l.perInchMax].map((x) => (typeof x === "number" && Number.isFinite(x) ? x : null));
-    if (parts.every((x) => x === null)) return null;
-    const per = `${unitWords(l.unit)} per ${l.unit === "mm" ? "mm" : "inch"} of diameter`;
-    if (parts[0] === null) return `Scales with the diameter: up to ${parts[1]} ${per}`;
-    if (parts[1] === null) return `Scales with the diameter: ${parts[0]} ${per} or more`;
-    return `Scales with the diameter: ${parts[0]} to ${parts[1]} ${per}`;
-  }
+  if (l.limitType === "per_inch") return perInchWords(l);
+  if (l.limitType === "job_size_tol") return jobSizeWords(l);
   if (l.limitType === "iso286" && (l.nominal === null || l.nominal === undefined)) {
-    return l.isoClass ? `ISO 286 ${l.isoClass} at the engine's nominal size` : null;
+    return l.isoClass ? `ISO 286 ${l.isoClass} on the job's finished size (else the engine's nominal size)` : null;
   }
   const clean = compactLimit(l as LimitValues) as unknown as SpecLimit;
   const r = resolveLimit(clean);
   const u = unitWords(r.unit);
   const nominal = r.nominal !== undefined ? ` (nominal ${r.nominal})` : "";
+  const window = CLEARANCES.has(l.characteristic) ? "Clearance window: " : "Accepts ";
   if (r.min === undefined) return `Accepts up to ${r.max} ${u}`;
   if (r.max === undefined) return `Accepts ${r.min} ${u} or more`;
-  return `Accepts ${r.min} to ${r.max} ${u}${nominal}`;
+  return `${window}${r.min} to ${r.max} ${u}${nominal}`;
 }
 
 export function SpecLimitPreview({ limit }: { limit: LimitInput }) {

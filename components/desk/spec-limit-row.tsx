@@ -9,11 +9,13 @@ import {
   LIMIT_TYPES,
   TORQUE_UNITS,
   GAUGE_KINDS,
+  JOB_SIZE_OF,
   SECTION_LABELS,
   unitWords,
   usualGaugeKind,
   type CharacteristicId,
   type LengthUnit,
+  type LimitType,
   type SectionId,
 } from "@/lib/domain";
 import { STATION_FORMS } from "@/lib/schemas/spec-pattern";
@@ -81,6 +83,11 @@ export function SpecLimitRow({
   const info = limit?.characteristic ? CHARACTERISTICS[limit.characteristic] : undefined;
   const torque = info?.kind === "torque";
   const p = `limits.${index}` as const;
+  // Torque takes plain figures only; a job states its own size only for bores and journals.
+  const suits = (t: LimitType) =>
+    t === "job_size_tol"
+      ? !!limit?.characteristic && !!JOB_SIZE_OF[limit.characteristic]
+      : !torque || (t !== "per_inch" && t !== "iso286");
 
   // A new characteristic brings its usual gauge and a unit of the right kind.
   const onCharacteristic = (id: CharacteristicId) => {
@@ -133,7 +140,7 @@ export function SpecLimitRow({
           {...register(`${p}.limitType`)}
         >
           {LIMIT_TYPES.map((t) => (
-            <option key={t} value={t} disabled={torque && (t === "per_inch" || t === "iso286")}>
+            <option key={t} value={t} disabled={!suits(t)}>
               {LIMIT_TYPE_WORDS[t]}
             </option>
           ))}
@@ -162,7 +169,7 @@ export function SpecLimitRow({
               wrapClass="md:col-span-2"
               label={limit?.limitType === "iso286" ? "Basic size (optional)" : FIELD_WORDS[f]}
               suffix={f.startsWith("perInch") ? "/ in dia." : unitWords(limit?.unit ?? "")}
-              hint={limit?.limitType === "iso286" ? "Empty: the engine's nominal size" : undefined}
+              hint={limit?.limitType === "iso286" ? "Empty: the job's finished size" : undefined}
               error={messageOf(e[f])}
               {...register(`${p}.${f}`, asNumber)}
             />

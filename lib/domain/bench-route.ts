@@ -64,9 +64,14 @@ function checkOptions(engine: EngineShape): void {
       );
     }
   }
-  for (const [size, value] of Object.entries(engine.nominalSizes ?? {})) {
-    if (typeof value !== "number" || !Number.isFinite(value) || value <= 0) {
-      throw new Error(`Nominal ${size} size must be a number above zero; got ${String(value)}`);
+  for (const [kind, sizes] of [
+    ["Nominal", engine.nominalSizes],
+    ["Finished", engine.finishedSizes],
+  ] as const) {
+    for (const [size, value] of Object.entries(sizes ?? {})) {
+      if (typeof value !== "number" || !Number.isFinite(value) || value <= 0) {
+        throw new Error(`${kind} ${size} size must be a number above zero; got ${String(value)}`);
+      }
     }
   }
 }

@@ -16,7 +16,8 @@
 import { benchRoute, checkEngineShape, lengthUnitOf, rodJournalCount, rodJournalOf } from "./bench-route";
 import { boltStretch, oilClearance, pistonToWall } from "./clearances";
 import { boreGeometry, journalGeometry } from "./geometry";
-import { judge, limitsFor, type LimitContext } from "./limits";
+import { limitContextFor } from "./job-sizes";
+import { judge, limitsFor } from "./limits";
 import {
   AXES,
   BORE_DEPTHS,
@@ -34,7 +35,6 @@ import type {
   DerivedValue,
   EngineShape,
   Evaluation,
-  NominalSizes,
   RawCharacteristic,
   RawReading,
   SpecLimit,
@@ -153,38 +153,6 @@ function latestByStation(readings: RawReading[]): Map<string, RawReading> {
   return latest;
 }
 
-// Which nominal size a characteristic's per-inch rule or ISO 286 class refers to.
-const SIZE_OF: Partial<Record<CharacteristicId, keyof NominalSizes>> = {
-  bore_diameter: "bore",
-  piston_skirt_diameter: "bore",
-  ring_end_gap: "bore",
-  piston_to_wall: "bore",
-  bore_taper: "bore",
-  bore_out_of_round: "bore",
-  main_journal_diameter: "mainJournal",
-  main_bearing_bore: "mainJournal",
-  main_oil_clearance: "mainJournal",
-  main_journal_taper: "mainJournal",
-  main_journal_out_of_round: "mainJournal",
-  rod_journal_diameter: "rodJournal",
-  rod_bearing_bore: "rodJournal",
-  rod_oil_clearance: "rodJournal",
-  rod_journal_taper: "rodJournal",
-  rod_journal_out_of_round: "rodJournal",
-};
-
-/** Limit context: a measured diameter when there is one, else the engine's nominal size. */
-function contextFor(characteristic: CharacteristicId, engine: EngineShape, measured?: number): LimitContext {
-  const unit = lengthUnitOf(engine);
-  const size = SIZE_OF[characteristic];
-  const nominal = size ? engine.nominalSizes?.[size] : undefined;
-  const diameter = measured ?? nominal;
-  return {
-    ...(diameter !== undefined ? { diameter: { value: diameter, unit } } : {}),
-    ...(nominal !== undefined ? { nominal: { value: nominal, unit } } : {}),
-  };
-}
-
 const joinNotes = (...notes: (string | undefined)[]): string | undefined =>
   notes.filter(Boolean).join("; ") || undefined;
 
@@ -247,7 +215,7 @@ export function evaluateReading(
   const sizeFrom = new Set(limitInputs(reading.stationId));
   const sizeReadings = sizeFrom.size ? readings.filter((r) => sizeFrom.has(r?.stationId)) : [];
   const bore = sizeFrom.size ? boreMean([...sizeFrom], prepareAll(sizeReadings, engine).ok, engine) : undefined;
-  const found = limitsFor(spec, p.characteristic, reading.stationId, contextFor(p.characteristic, engine, bore));
+  const found = limitsFor(spec, p.characteristic, reading.stationId, limitContextFor(p.characteristic, engine, bore));
   const base: Evaluation = found.limits
     ? judge(p.value, p.unit, p.uncertainty, found.limits)
     : { value: p.value, unit: p.unit };
@@ -366,7 +334,7 @@ function derive(
     : recipe.diameterInput !== undefined
       ? values[recipe.diameterInput]
       : cleanDecimal(values.reduce((s, v) => s + v, 0) / values.length);
-  const found = limitsFor(spec, characteristic, stationId, contextFor(characteristic, engine, measured));
+  const found = limitsFor(spec, characteristic, stationId, limitContextFor(characteristic, engine, measured));
   if (missing.length) {
     const note = joinNotes(unusable, found.note);
     return { ...head, ...(found.limits ? { limits: found.limits } : {}), ...(note ? { note } : {}) };

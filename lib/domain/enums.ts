@@ -16,7 +16,15 @@ export const VERDICTS = ["in_spec", "marginal", "out_of_spec"] as const;
 export type Verdict = (typeof VERDICTS)[number];
 export const isVerdict = (s: string): s is Verdict => (VERDICTS as readonly string[]).includes(s);
 
-export const LIMIT_TYPES = ["min_max", "nominal_tol", "max_only", "min_only", "per_inch", "iso286"] as const;
+export const LIMIT_TYPES = [
+  "min_max",
+  "nominal_tol",
+  "max_only",
+  "min_only",
+  "per_inch",
+  "iso286",
+  "job_size_tol",
+] as const;
 export type LimitType = (typeof LIMIT_TYPES)[number];
 
 export const ENGINE_LAYOUTS = ["inline", "v", "flat"] as const;

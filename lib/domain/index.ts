@@ -12,6 +12,7 @@ export * from "./enums";
 export * from "./types";
 export * from "./verdict";
 export * from "./limits";
+export * from "./job-sizes";
 export * from "./stations";
 export * from "./bench-route";
 export * from "./derive";

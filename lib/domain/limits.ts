@@ -10,6 +10,7 @@
 // When several limits of one characteristic match a station, the most specific wins: most
 // literal (non-"*") segments, then most segments, then the one listed first on the spec.
 import { iso286Limits } from "./iso286";
+import { JOB_SIZE_OF, JOB_SIZE_WORDS } from "./job-sizes";
 import { MEASURE_UNITS, type LengthUnit, type MeasureUnit } from "./enums";
 import type { CharacteristicId, Evaluation, ResolvedLimit, SpecLimit } from "./types";
 import { cleanDecimal, convertLength, convertMeasure } from "./units";
@@ -19,8 +20,10 @@ import { deviationFromNominal, verdict } from "./verdict";
 export interface LimitContext {
   /** The diameter a per-inch rule scales with (the journal for oil clearance, the bore for ring gap). */
   diameter?: { value: number; unit: LengthUnit };
-  /** The ISO 286 basic size when the limit itself gives no nominal. */
+  /** The engine's design size: the ISO 286 basic size when neither the limit nor the job gives one. */
   nominal?: { value: number; unit: LengthUnit };
+  /** The job's finished size (job-sizes.ts): a job-size tolerance's nominal, an ISO 286 basic size. */
+  jobSize?: { value: number; unit: LengthUnit };
 }
 
 function splitPattern(pattern: string): string[] {
@@ -101,8 +104,7 @@ function lengthUnitOf(limit: SpecLimit): LengthUnit {
   return limit.unit;
 }
 
-function resolveNominalTol(limit: SpecLimit): ResolvedLimit {
-  const nominal = need(limit, "nominal", "nominal size");
+function resolveNominalTol(limit: SpecLimit, nominal = need(limit, "nominal", "nominal size")): ResolvedLimit {
   const plus = need(limit, "tolPlus", "plus tolerance");
   const minus = need(limit, "tolMinus", "minus tolerance");
   if (plus < 0 || minus < 0) {
@@ -111,6 +113,23 @@ function resolveNominalTol(limit: SpecLimit): ResolvedLimit {
     );
   }
   return { unit: limit.unit, nominal, min: cleanDecimal(nominal - minus), max: cleanDecimal(nominal + plus) };
+}
+
+// A tolerance around the size the job states, e.g. "finished bore +0.0000/+0.0005 in".
+function resolveJobSizeTol(limit: SpecLimit, context: LimitContext): ResolvedLimit {
+  const unit = lengthUnitOf(limit);
+  const size = JOB_SIZE_OF[limit.characteristic];
+  if (!size) {
+    throw new Error(
+      `Limit '${nameOf(limit)}' follows the job's finished size, which a job states only for bores and ` +
+        "main and rod journals; use nominal ± tolerances or a clearance window here",
+    );
+  }
+  const stated = context.jobSize;
+  if (!stated || !Number.isFinite(stated.value) || stated.value <= 0) {
+    throw new Error(`Limit '${nameOf(limit)}' follows the job's ${JOB_SIZE_WORDS[size]}; enter it on the job`);
+  }
+  return resolveNominalTol(limit, cleanDecimal(convertLength(stated.value, stated.unit, unit)));
 }
 
 function resolvePerInch(limit: SpecLimit, context: LimitContext): ResolvedLimit {
@@ -141,9 +160,12 @@ function resolveIso286(limit: SpecLimit, context: LimitContext): ResolvedLimit {
   const unit = lengthUnitOf(limit);
   if (!limit.isoClass)
     throw new Error(`Limit '${nameOf(limit)}' is ISO 286 but has no tolerance class (e.g. H7, g6); enter one`);
-  const given = limit.nominal !== undefined ? { value: limit.nominal, unit } : context.nominal;
+  // The limit's own nominal, else the job's finished size, else the engine's design size.
+  const given = limit.nominal !== undefined ? { value: limit.nominal, unit } : (context.jobSize ?? context.nominal);
   if (!given || !Number.isFinite(given.value)) {
-    throw new Error(`Limit '${nameOf(limit)}' is ISO 286 and needs a nominal size; enter it on the limit or the job`);
+    throw new Error(
+      `Limit '${nameOf(limit)}' is ISO 286 and needs a nominal size; enter it on the limit or a finished size on the job`,
+    );
   }
   const nominalMm = cleanDecimal(convertLength(given.value, given.unit, "mm"));
   const mm = iso286Limits(nominalMm, limit.isoClass);
@@ -169,9 +191,12 @@ export function resolveLimit(limit: SpecLimit, context: LimitContext = {}): Reso
       return resolvePerInch(limit, context);
     case "iso286":
       return resolveIso286(limit, context);
+    case "job_size_tol":
+      return resolveJobSizeTol(limit, context);
     default:
       throw new Error(
-        `Limit '${nameOf(limit)}' has unknown type '${String(limit.limitType)}'; use min_max, nominal_tol, max_only, min_only, per_inch or iso286`,
+        `Limit '${nameOf(limit)}' has unknown type '${String(limit.limitType)}'; ` +
+          "use min_max, nominal_tol, max_only, min_only, per_inch, iso286 or job_size_tol",
       );
   }
 }

@@ -152,7 +152,7 @@ export interface ResolvedLimit {
   nominal?: number;
 }
 
-/** Nominal (design) sizes of an engine, in the engine's length unit. */
+/** Sizes of an engine (design) or of a job (finished), in the engine's length unit. */
 export interface NominalSizes {
   bore?: number;
   mainJournal?: number;
@@ -180,6 +180,11 @@ export interface EngineShape {
   torqueGroups?: string[];
   materials?: PartMaterials;
   nominalSizes?: NominalSizes;
+  /**
+   * The sizes this job machines to (a bore after overboring, a journal after undersize grinding),
+   * as the job states them; job-size limits and per-inch rules follow them (job-sizes.ts).
+   */
+  finishedSizes?: NominalSizes;
 }
 
 /** One figure entered at the bench. */

@@ -17,6 +17,7 @@
 //         { "characteristic": "bore_diameter",  // an id of lib/domain CHARACTERISTICS
 //           "stationPattern": "*",              // station ids with * (see spec-pattern.ts)
 //           "limitType": "nominal_tol",         // min_max | nominal_tol | max_only | min_only | per_inch | iso286
+//                                               // | job_size_tol
 //           "unit": "in",                       // in | mm for lengths, lbf_ft | nm for torque
 //           "nominal": 4.03, "tolPlus": 0.0004, "tolMinus": 0.0001,
 //           "required": true,                   // must be measured before release
@@ -29,7 +30,15 @@
 //   min_max      min and max (min ≤ max)          max_only   max          min_only   min
 //   nominal_tol  nominal, tolPlus, tolMinus (tolerances as sizes ≥ 0; the minus one is subtracted)
 //   per_inch     perInchMin and/or perInchMax: the limit per inch of diameter (also mm per mm)
-//   iso286       isoClass (H5–H9, f g h js k m n p 5–9); nominal optional (else the engine's size)
+//   iso286       isoClass (H5–H9, f g h js k m n p 5–9); nominal optional (else the job's finished
+//                size for that characteristic, else the engine's size)
+//   job_size_tol tolPlus, tolMinus (sizes ≥ 0) around the size the job states, not a fixed nominal:
+//                bore_diameter → the job's finished bore, main_journal_diameter → its finished main
+//                journal, rod_journal_diameter → its finished rod journal (lib/domain/job-sizes.ts).
+//                "finished bore +0.0000/+0.0005 in" is tolPlus 0.0005, tolMinus 0.
+// A clearance window (oil clearance, piston-to-wall, side clearance, end play, ring gap) is min_max
+// on the derived clearance, or per_inch for one that scales with the job's finished bore or journal.
+// Version 1 files written before job_size_tol existed read the same; the type is only added.
 // Unknown fields are refused, so a typo never silently drops a limit.
 import { z } from "zod";
 import {
@@ -38,6 +47,8 @@ import {
   LIMIT_TYPES,
   MEASURE_UNITS,
   iso286Deviations,
+  JOB_SIZE_OF,
+  JOB_SIZE_WORDS,
   type CharacteristicId,
 } from "@/lib/domain";
 import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
@@ -54,6 +65,7 @@ export const LIMIT_TYPE_WORDS: Record<(typeof LIMIT_TYPES)[number], string> = {
   min_only: "Minimum only",
   per_inch: "Per inch of diameter",
   iso286: "ISO 286 class",
+  job_size_tol: "Job's finished size ± tolerances",
 };
 
 /** The value fields each limit type uses; the others are cleared when a limit is stored. */
@@ -64,8 +76,18 @@ export const LIMIT_FIELDS = {
   min_only: ["min"],
   per_inch: ["perInchMin", "perInchMax"],
   iso286: ["isoClass", "nominal"],
+  job_size_tol: ["tolPlus", "tolMinus"],
 } as const satisfies Record<(typeof LIMIT_TYPES)[number], readonly string[]>;
 export type LimitValueField = (typeof LIMIT_FIELDS)[keyof typeof LIMIT_FIELDS][number];
+
+type AddIssue = (path: string, message: string) => void;
+function tolerances(l: { tolPlus?: number | null; tolMinus?: number | null }, add: AddIssue): void {
+  for (const k of ["tolPlus", "tolMinus"] as const) {
+    const v = l[k];
+    if (typeof v !== "number") add(k, `Enter the ${k === "tolPlus" ? "plus" : "minus"} tolerance (0 if none)`);
+    else if (v < 0) add(k, "Enter the tolerance as a size (0 or more); the minus one is subtracted for you");
+  }
+}
 
 const num = (what: string) => z.number({ error: `Enter the ${what} as a number` });
 const optNum = (what: string) => num(what).nullish();
@@ -115,11 +137,20 @@ export const limitSchema = z
         break;
       case "nominal_tol":
         if (!has(l.nominal)) add("nominal", "Enter the nominal size");
-        for (const k of ["tolPlus", "tolMinus"] as const) {
-          if (!has(l[k])) add(k, `Enter the ${k === "tolPlus" ? "plus" : "minus"} tolerance (0 if none)`);
-          else if (l[k]! < 0) add(k, "Enter the tolerance as a size (0 or more); the minus one is subtracted for you");
-        }
+        tolerances(l, add);
         break;
+      case "job_size_tol": {
+        const size = JOB_SIZE_OF[l.characteristic];
+        if (!size)
+          add(
+            "limitType",
+            `A job states its size only for bores and main and rod journals; for ${info.label.toLowerCase()} ` +
+              "pick nominal ± tolerances or minimum and maximum",
+          );
+        else if (!lengthUnit) add("unit", `The ${JOB_SIZE_WORDS[size]} is a length: use in or mm`);
+        tolerances(l, add);
+        break;
+      }
       case "per_inch":
         if (info.kind === "torque") add("limitType", "A per-inch rule is for lengths, not torque; pick another type");
         if (!has(l.perInchMin) && !has(l.perInchMax))
@@ -140,7 +171,7 @@ export const limitSchema = z
           }
         }
         if (has(l.nominal) && l.nominal! <= 0)
-          add("nominal", "The nominal size is above zero (or leave it empty to use the engine's)");
+          add("nominal", "The nominal size is above zero (or leave it empty to use the job's finished size)");
         break;
     }
   });

@@ -30,7 +30,7 @@ export async function routeStations(shop: TestShop) {
   getSequelize();
   const job = await Job.findByPk(shop.job.id);
   const engine = await Engine.findByPk(job!.engineId);
-  return benchRoute(toEngineShape(engine!, job!.unitSystem)).sections.flatMap((s) => s.stations);
+  return benchRoute(toEngineShape(engine!, job!)).sections.flatMap((s) => s.stations);
 }
 
 type ReadingOverrides = Partial<{

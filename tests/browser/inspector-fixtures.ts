@@ -106,7 +106,7 @@ export async function prepareInspectorJob(leaveOut: string[]) {
     }),
   );
   const g = await gauges(shop.id, tag);
-  const stations = benchRoute(toEngineShape(engine, "in"))
+  const stations = benchRoute(toEngineShape(engine, { unitSystem: "in" }))
     .sections.flatMap((s) => s.stations)
     .filter((s) => !leaveOut.includes(s.id));
   const takenAt = new Date(Date.now() - 3_600_000);

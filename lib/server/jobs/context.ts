@@ -1,10 +1,9 @@
 import "server-only";
-import { EXPANSION_COEFFICIENTS, type EngineShape, type SpecLimit } from "@/lib/domain";
-import type { UnitSystem } from "@/lib/schemas/enums";
+import { EXPANSION_COEFFICIENTS, type EngineShape, type NominalSizes, type SpecLimit } from "@/lib/domain";
 import type { EngineRow, JobLimitRow, JobRow } from "@/lib/server/jobs/repo";
 
 // The one edge where database rows become the domain core's shapes:
-// Engine → EngineShape, JobLimit → SpecLimit. Sync, re-evaluation, review, release and the
+// Engine (+ the job's units and finished sizes) → EngineShape, JobLimit → SpecLimit. Sync, re-evaluation, review, release and the
 // build record all go through here.
 type LimitRow = Pick<
   JobLimitRow,
@@ -57,9 +56,23 @@ type EngineFields = Pick<
   | "blockMaterial"
   | "pistonMaterial"
   | "nominalBore"
+  | "nominalMainJournal"
+  | "nominalRodJournal"
 >;
+type JobFields = Pick<JobRow, "unitSystem"> &
+  Partial<Pick<JobRow, "finishedBore" | "finishedMainJournal" | "finishedRodJournal">>;
 
-export function toEngineShape(engine: EngineFields, jobUnitSystem: UnitSystem): EngineShape {
+/** Sizes the row states, with the empty ones left out (the core treats absent as "not stated"). */
+function sizes(bore: number | null | undefined, main: number | null | undefined, rod: number | null | undefined) {
+  const out: NominalSizes = {};
+  if (typeof bore === "number" && bore > 0) out.bore = bore;
+  if (typeof main === "number" && main > 0) out.mainJournal = main;
+  if (typeof rod === "number" && rod > 0) out.rodJournal = rod;
+  return out;
+}
+
+/** The job's engine as the core sees it, with the job's units and the finished sizes it states. */
+export function toEngineShape(engine: EngineFields, job: JobFields): EngineShape {
   const materials: EngineShape["materials"] = {};
   if (isMaterial(engine.blockMaterial)) materials.block = engine.blockMaterial;
   if (isMaterial(engine.pistonMaterial)) materials.pistons = engine.pistonMaterial;
@@ -70,9 +83,10 @@ export function toEngineShape(engine: EngineFields, jobUnitSystem: UnitSystem): 
     valvesPerCylinder: engine.valvesPerCylinder,
     boltsPerRod: engine.boltsPerRod,
     ringsPerPiston: engine.ringsPerPiston,
-    unitSystem: jobUnitSystem === "mm" ? "metric" : "inch",
+    unitSystem: job.unitSystem === "mm" ? "metric" : "inch",
     materials,
-    nominalSizes: { bore: engine.nominalBore },
+    nominalSizes: sizes(engine.nominalBore, engine.nominalMainJournal, engine.nominalRodJournal),
+    finishedSizes: sizes(job.finishedBore, job.finishedMainJournal, job.finishedRodJournal),
   };
 }
 

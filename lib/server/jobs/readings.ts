@@ -32,7 +32,7 @@ export async function progressOfJobs(
   for (const r of chains) byJob.get(r.jobId)?.push(r);
   for (const j of withEngine) {
     try {
-      const shape = toEngineShape(j.engine!, j.unitSystem);
+      const shape = toEngineShape(j.engine!, j);
       const route = benchRoute(shape);
       const required = requiredStationIds(shape, specs.get(j.id)!, route);
       const p = requiredProgress(route, required, currentReadings(byJob.get(j.id)!));

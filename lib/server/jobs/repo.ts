@@ -105,7 +105,7 @@ export async function loadJobContext(shopId: number, jobId: number, t?: Transact
   return {
     job: plain<JobRow>(job),
     engine: engineRow,
-    shape: toEngineShape(engineRow, job.unitSystem),
+    shape: toEngineShape(engineRow, job),
     spec: limits.map(toSpecLimit),
   };
 }

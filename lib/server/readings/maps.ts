@@ -10,14 +10,13 @@ import {
   deriveReadings,
   evaluateReading,
   lengthUnitOf,
+  limitContextFor,
   limitsFor,
   parseStationId,
   rodJournalCount,
   type DerivedValue,
   type EngineShape,
   type LengthUnit,
-  type LimitContext,
-  type NominalSizes,
   type RawReading,
   type SpecLimit,
 } from "@/lib/domain";
@@ -31,15 +30,12 @@ import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
 // expressed in the job's length unit so one chart has one scale.
 
 type Judge = (stationId: string) => MapPoint;
-const SIZE: Record<string, keyof NominalSizes> = { bore: "bore", main: "mainJournal", rod: "rodJournal" };
-
 /** The limit at a station not read yet (findLimit/resolveLimit), so the chart still shows its lines. */
-function limitOnly(stationId: string, shape: EngineShape, spec: SpecLimit[], unit: LengthUnit) {
+function limitOnly(stationId: string, shape: EngineShape, spec: SpecLimit[]) {
   const p = parseStationId(stationId);
-  const size = shape.nominalSizes?.[SIZE[p.section] ?? "bore"];
-  const context: LimitContext =
-    size && SIZE[p.section] ? { nominal: { value: size, unit }, diameter: { value: size, unit } } : {};
-  return p.characteristic ? limitsFor(spec, p.characteristic, stationId, context).limits : undefined;
+  return p.characteristic
+    ? limitsFor(spec, p.characteristic, stationId, limitContextFor(p.characteristic, shape)).limits
+    : undefined;
 }
 
 function judgeWith(raws: Map<string, RawReading>, shape: EngineShape, spec: SpecLimit[], unit: LengthUnit): Judge {
@@ -49,7 +45,7 @@ function judgeWith(raws: Map<string, RawReading>, shape: EngineShape, spec: Spec
   return (stationId) => {
     const raw = raws.get(stationId);
     if (!raw) {
-      const l = limitOnly(stationId, shape, spec, unit);
+      const l = limitOnly(stationId, shape, spec);
       return { value: null, min: inUnit(l?.min, l?.unit ?? unit), max: inUnit(l?.max, l?.unit ?? unit), verdict: null };
     }
     try {

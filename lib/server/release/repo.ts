@@ -82,7 +82,7 @@ export async function loadJobRecord(shopId: number, jobId: number, t?: Transacti
     job: job.get({ plain: true }) as JobRow,
     customerName: customer?.name ?? "",
     engineDescription: engine.description,
-    shape: toEngineShape(engine, job.unitSystem),
+    shape: toEngineShape(engine, job),
     spec: limits.map(toSpecLimit),
     limits: plain<LimitRow>(limits),
     readings: plain<StoredReading>(readings),
