@@ -4,6 +4,7 @@ import { Loading, LoadFailed } from "./fields";
 import { JobForm } from "./job-form";
 import { useJob } from "./queries";
 import { Notice } from "@/components/ui/notice";
+import { lockedJobWords } from "@/lib/domain";
 
 export function JobEdit({ jobId }: { jobId: number }) {
   const job = useJob(jobId);
@@ -12,8 +13,7 @@ export function JobEdit({ jobId }: { jobId: number }) {
   if (job.data.job.locked)
     return (
       <Notice tone="info" title="This job is locked">
-        It is {job.data.job.status}; a lead must reopen it on its release page (which voids the release) before it can
-        change.
+        {lockedJobWords(job.data.job, "its details")}
       </Notice>
     );
   return <JobForm job={job.data} />;

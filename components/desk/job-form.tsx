@@ -176,7 +176,7 @@ export function JobForm({ job }: { job?: JobDetail }) {
           <Field label="Due date" type="date" error={messageOf(errors.dueDate)} {...register("dueDate")} />
           <AreaField
             wrapClass="md:col-span-3"
-            label="Notes"
+            label="Notes (for the shop; never on the customer's record)"
             rows={2}
             error={messageOf(errors.notes)}
             {...register("notes")}

@@ -5,6 +5,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { FormProvider, useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { lockedJobWords } from "@/lib/domain";
 import { api } from "@/lib/client/api";
 import { jobLimitsSchema, type JobLimitsInput, type JobLimitsValues } from "@/lib/schemas/spec";
 import type { LimitsSaved } from "@/lib/schemas/job";
@@ -95,14 +96,7 @@ export function JobLimitsEditor({ jobId }: { jobId: number }) {
           changed.
         </p>
       </div>
-      {job.locked ? (
-        <Notice title="Locked">
-          This job is {job.status}; its limits cannot change until a lead reopens it on its release page, which voids
-          the release.
-        </Notice>
-      ) : (
-        <LimitsForm view={q.data} />
-      )}
+      {job.locked ? <Notice title="Locked">{lockedJobWords(job, "its limits")}</Notice> : <LimitsForm view={q.data} />}
     </div>
   );
 }

@@ -5,11 +5,11 @@ import Link from "next/link";
 import type { ReactNode } from "react";
 import { JobStatusTag, STATUS_WORDS } from "@/components/job-status";
 import { Button } from "@/components/ui/button";
-import { Notice } from "@/components/ui/notice";
 import { EXPANSION_COEFFICIENTS, UNIT_SYSTEM_WORDS, type OpenJobStatus } from "@/lib/domain";
 import { api } from "@/lib/client/api";
 import { Loading, LoadFailed, ServerError } from "./fields";
 import { editValuesOf } from "./job-form";
+import { JobLockPanel } from "./job-lock-panel";
 import { JobSummary } from "./job-summary";
 import { keys, useJob, type JobDetail } from "./queries";
 
@@ -178,7 +178,8 @@ function Links({ d, canEdit }: { d: JobDetail; canEdit: boolean }) {
   );
 }
 
-export function JobPage({ jobId, canEdit }: { jobId: number; canEdit: boolean }) {
+export function JobPage({ jobId, role }: { jobId: number; role: string }) {
+  const canEdit = role === "lead";
   const job = useJob(jobId);
   if (job.isPending) return <Loading what="the job" />;
   if (job.isError) return <LoadFailed what="the job" error={job.error} retry={() => job.refetch()} />;
@@ -203,12 +204,7 @@ export function JobPage({ jobId, canEdit }: { jobId: number; canEdit: boolean })
           </div>
         )}
       </div>
-      {d.job.locked && (
-        <Notice title="Locked">
-          This job is {d.job.status === "closed" ? "closed" : "released"}: its limits, plan and details cannot change
-          until a lead reopens it on its release page, which voids the release.
-        </Notice>
-      )}
+      <JobLockPanel d={d} role={role} />
       <Facts d={d} />
       <Links d={d} canEdit={canEdit} />
       <JobSummary summary={d.summary} />

@@ -7,6 +7,7 @@ import { planFigures } from "@/components/desk/plan-figures";
 import { PlanResults } from "@/components/desk/plan-results";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { lockedJobWords } from "@/lib/domain";
 import { api } from "@/lib/client/api";
 import { buildPlanSchema, pistonCcOf, type BuildPlan, type BuildPlanInput } from "@/lib/schemas/build-plan";
 import {
@@ -208,9 +209,7 @@ export function PlanEditor({ jobId }: { jobId: number }) {
           volumes in cc
         </p>
       </div>
-      {q.data.job.locked && (
-        <Notice title="Locked">The job is released; its plan is part of the signed record and cannot change.</Notice>
-      )}
+      {q.data.job.locked && <Notice title="Locked">{lockedJobWords(q.data.job, "its build plan")}</Notice>}
       <PlanForm view={q.data} />
     </div>
   );

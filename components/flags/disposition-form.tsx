@@ -118,12 +118,14 @@ export function DispositionForm({ flagId }: { flagId: number }) {
       {kind === "accept" ? (
         <label className="flex flex-col gap-1.5">
           <span className="font-medium">Why is it accepted as it is? (required)</span>
+          <span className="text-sm text-muted">Printed on the customer&apos;s record beside the value.</span>
           <textarea className={`${area} ${e.reason ? "border-fail" : "border-rule"}`} {...form.register("reason")} />
           {e.reason && <span className="text-sm font-medium text-fail">{e.reason.message}</span>}
         </label>
       ) : (
         <label className="flex flex-col gap-1.5">
           <span className="font-medium">Note for the machinist (optional)</span>
+          <span className="text-sm text-muted">It stays in the shop: never printed on the customer&apos;s record.</span>
           <textarea className={`${area} ${e.note ? "border-fail" : "border-rule"}`} {...form.register("note")} />
           {e.note && <span className="text-sm font-medium text-fail">{e.note.message}</span>}
         </label>

@@ -3,6 +3,7 @@
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { Notice } from "@/components/ui/notice";
+import { lockedJobWords } from "@/lib/domain";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
 import { api } from "@/lib/client/api";
 import type { FlagDetail as Detail } from "@/lib/schemas/flag";
@@ -93,7 +94,7 @@ export function FlagDetailView({ flagId, canDecide }: { flagId: number; canDecid
         </Notice>
       )}
       {f.state !== "closed" && d.job.locked && (
-        <Notice title="Job locked">This job is released and locked; reopen it before changing a decision.</Notice>
+        <Notice title="Job locked">{lockedJobWords(d.job, "its decisions")}</Notice>
       )}
       <FlagHistory stations={d.stations} />
       <DerivedFed derived={d.derived} isDerived={f.derived} />

@@ -8,18 +8,25 @@ function ReleaseState({ record }: { record: BuildRecord }) {
   const r = record.release!;
   if (r.status === "void") {
     return (
-      <Notice tone="error" title="VOID: this release was withdrawn">
-        Withdrawn on {r.voidedAt}
-        {r.voidedByName ? ` by ${r.voidedByName}` : ""}. Reason: {r.voidReason ?? "none given"}. Do not assemble from
-        this record; ask {record.shop.name} for the current one.
-      </Notice>
+      <div className="flex flex-col gap-2 rounded-tool border-4 border-fail bg-panel p-4" data-testid="release-state">
+        <p className="text-5xl font-black tracking-widest text-fail">VOID</p>
+        <p className="text-xl font-semibold">This record was withdrawn on {r.voidedAt}: the shop reopened the job.</p>
+        <p>Reason: {r.voidReason ?? "none given"}.</p>
+        <p className="font-semibold">
+          Do not assemble the engine from this record. When the job is released again, {record.shop.name} sends a new
+          record.
+        </p>
+        <p className="text-sm text-muted">
+          It was signed by {r.inspectorName}, inspector, on {r.signedAt}.
+        </p>
+      </div>
     );
   }
   return (
     <div className="rounded-tool border-4 border-steel bg-panel p-4" data-testid="release-state">
       <p className="text-xl font-semibold">Released for assembly</p>
       <p>
-        Signed by {r.signedName}, inspector, on {r.signedAt}.
+        Signed by {r.inspectorName}, inspector, on {r.signedAt}.
       </p>
       <p className="mt-2 text-sm text-muted">
         Fingerprint (SHA-256): <span className="break-all font-mono">{r.hash}</span>

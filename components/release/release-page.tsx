@@ -2,7 +2,7 @@
 
 import { JobStatusTag } from "@/components/job-status";
 import { Notice } from "@/components/ui/notice";
-import type { JobStatus } from "@/lib/domain";
+import { lockWayOut, type JobStatus } from "@/lib/domain";
 import { ChecklistPanel } from "./checklist-panel";
 import { FlagsList } from "./flags-list";
 import { LoadFailed, Loading } from "./query-states";
@@ -57,8 +57,8 @@ export function ReleasePage({
       </header>
       {v.job.lockedAt && (
         <Notice title={`Released and locked since ${v.job.lockedAt.slice(0, 10)}`}>
-          Readings sent for this job are refused at sync; the tablet keeps them, marked with the reason. Only the lead
-          can reopen the job, with a reason, which voids this release.
+          Readings sent for this job are refused at sync; the tablet keeps them, marked with the reason.{" "}
+          {lockWayOut("released")}
         </Notice>
       )}
       <div className="grid gap-4 lg:grid-cols-3">

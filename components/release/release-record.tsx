@@ -61,10 +61,7 @@ function Entry({ r, verifyHref }: { r: ReleaseRecord; verifyHref: string }) {
       <div className="flex items-start justify-between gap-3">
         <div className="flex flex-wrap items-center gap-2">
           <StatusTag tone={isVoid ? "off" : "good"}>{isVoid ? "VOID" : "Released"}</StatusTag>
-          <span className="font-semibold">Signed by {r.signedName}</span>
-          {r.signedName.toLowerCase() !== r.inspectorName.toLowerCase() && (
-            <span className="text-sm text-muted">(account: {r.inspectorName})</span>
-          )}
+          <span className="font-semibold">Signed by {r.inspectorName}</span>
           <span className="text-sm text-muted">{stamp(r.signedAt)}</span>
         </div>
         {isVoid && (

@@ -9,9 +9,19 @@ import { ApiError } from "@/lib/client/api";
 import { reopenSchema, type ReopenInput } from "@/lib/schemas/release";
 import { useReopen } from "./release-queries";
 
-// The lead reopens a released job. The reason goes on the record beside the word VOID; the job
-// goes back to review and needs a new release.
-export function ReopenForm({ jobId, jobCode }: { jobId: number; jobCode: string }) {
+// The lead reopens a released job, on the release page or the job page (one form, one route, the
+// core's reopen rule). The reason goes on the record beside the word VOID; the job goes back to
+// review and needs a new release; a customer who was sent the record is told by e-mail.
+export function ReopenForm({
+  jobId,
+  jobCode,
+  onReopened,
+}: {
+  jobId: number;
+  jobCode: string;
+  /** What else on screen to refresh (the job page's own queries). */
+  onReopened?: () => unknown;
+}) {
   const id = useId();
   const reopen = useReopen(jobId);
   const [problem, setProblem] = useState<string | null>(null);
@@ -23,6 +33,7 @@ export function ReopenForm({ jobId, jobCode }: { jobId: number; jobCode: string 
     try {
       await reopen.mutateAsync(values);
       form.reset();
+      await onReopened?.();
     } catch (err) {
       if (err instanceof ApiError && err.fields?.reason) form.setError("reason", { message: err.fields.reason[0] });
       setProblem(
@@ -38,7 +49,8 @@ export function ReopenForm({ jobId, jobCode }: { jobId: number; jobCode: string 
       </h2>
       <p className="text-sm">
         Reopening voids the standing release. It stays on the record marked VOID with your reason, the readings unlock,
-        and the inspector must release again.
+        and the inspector must release again. A customer who was sent the record gets an e-mail saying it is void and
+        that a new one follows.
       </p>
       {problem && <Notice tone="error">{problem}</Notice>}
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">

@@ -22,6 +22,7 @@ export * from "./gauge-uncertainty";
 export * from "./current-reading";
 export * from "./progress";
 export * from "./job-lock";
+export * from "./reopen";
 export * from "./gauges";
 export * from "./gauge-range";
 export * from "./reading-input";

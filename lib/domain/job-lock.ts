@@ -43,8 +43,31 @@ export function jobLockReason(job: JobLockFacts & { code: string; updatedAt?: Da
   const lock = jobLock(job);
   if (!lock.locked) return null;
   if (lock.reason === "status")
-    return `Job ${job.code} has the status "${job.status}", which takes no readings. Ask the lead to set it to ${OPEN_JOB_STATUSES.join(", ")}.`;
+    return `Job ${job.code} has the status "${job.status}", which takes no readings. ${lockWayOut(lock.reason)}`;
   const when = job.lockedAt ?? job.updatedAt;
   const on = when ? ` on ${DATE.format(new Date(when))}` : "";
-  return `Job ${job.code} was ${lock.reason}${on}; readings are locked. Ask the lead to reopen it.`;
+  return `Job ${job.code} was ${lock.reason}${on}; readings are locked. ${lockWayOut(lock.reason)}`;
+}
+
+/**
+ * What lifts a lock, in the words every screen and refusal uses (rule of this product): only a
+ * standing release is undone, by a lead reopening the job with a reason, from the job page or the
+ * release page; a closed job is final.
+ */
+export function lockWayOut(reason: JobLockReason): string {
+  if (reason === "closed") return "A closed job is final and is not reopened.";
+  if (reason === "status") return `A lead can set it back to ${OPEN_JOB_STATUSES.join(", ")}.`;
+  return "Only a lead can reopen it, with a reason, from the job page or the release page; that voids the release.";
+}
+
+/**
+ * What a desk screen says about a locked job, from a view's status and locked flag (views carry
+ * no lock date): "This job is released: its limits cannot change. Only a lead can reopen it…".
+ * Null when the job is not locked.
+ */
+export function lockedJobWords(job: { status: string; locked: boolean; code?: string }, what: string): string | null {
+  if (!job.locked) return null;
+  const reason = jobLock({ status: job.status, lockedAt: null }).reason ?? "locked";
+  const state = reason === "closed" ? "closed" : reason === "status" ? `“${job.status}”` : "released";
+  return `${job.code ? `Job ${job.code}` : "This job"} is ${state}: ${what} cannot change. ${lockWayOut(reason)}`;
 }

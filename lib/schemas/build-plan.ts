@@ -88,6 +88,6 @@ export function pistonCcOf(plan: Pick<BuildPlan, "pistonTop" | "pistonVolumeCc">
 /** GET /api/jobs/:id/build-plan: the stored plan (null when none or no longer valid) and what it needs of the job. */
 export type BuildPlanView = {
   plan: BuildPlan | null;
-  job: { id: number; code: string; title: string; unitSystem: UnitSystem; locked: boolean };
+  job: { id: number; code: string; title: string; status: string; unitSystem: UnitSystem; locked: boolean };
   engine: { cylinders: number; nominalBore: number; nominalStroke: number; description: string };
 };

@@ -185,6 +185,9 @@ export type JobDetail = {
     notes: string | null;
     specRevision: number;
     locked: boolean;
+    lockedAt: string | null;
+    /** A release that is not void: what a lead's reopen would void (lib/domain/reopen.ts). */
+    hasStandingRelease: boolean;
     templateId: number | null;
     templateName: string | null;
     limitCount: number;

@@ -101,7 +101,6 @@ export type BuildRecord = {
     status: string;
     units: string;
     specRevision: number;
-    notes: string | null;
   };
   engine: Line[];
   plan: { entered: Line[]; figures: Line[]; problems: string[]; notes: string | null } | null;

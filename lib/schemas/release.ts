@@ -68,7 +68,10 @@ export type ReleaseRecord = {
   id: number;
   jobId: number;
   status: ReleaseStatus;
-  signedName: string;
+  /**
+   * The signer's registered name (the users table), which every screen and the record print; the
+   * name as typed for the e-signature is kept in the release's audit event.
+   */
   inspectorName: string;
   signedAt: string;
   hash: string;

@@ -209,6 +209,8 @@ describe("POST /api/attachments", () => {
     await Job.update({ status: "released", lockedAt: new Date() }, { where: { id: a.job.id } });
     const locked = await post(a.users.machinist, { ownerType: "job", ownerId: a.job.id }, await photo());
     expect(locked.status).toBe(409);
-    expect(locked.body.error.message).toContain("released and locked");
+    expect(locked.body.error.message).toContain(
+      "is released: its photos and files cannot change. Only a lead can reopen it",
+    );
   });
 });

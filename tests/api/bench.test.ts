@@ -94,6 +94,8 @@ describe("GET /api/bench/jobs/:jobId", () => {
     const res = await pack(other.users.machinist, String(other.job.id));
     expect(res.status).toBe(200);
     expect(res.body.job).toMatchObject({ status: "released", locked: true });
-    expect(res.body.job.lockReason).toMatch(/readings are locked\. Ask the lead to reopen it\./);
+    expect(res.body.job.lockReason).toMatch(
+      /readings are locked\. Only a lead can reopen it, with a reason, from the job page or the release page/,
+    );
   });
 });

@@ -191,7 +191,6 @@ describe("GET /api/record/[jobId]/pdf", () => {
         status: "review",
         units: "mm and N·m",
         specRevision: 1,
-        notes: null,
       },
       engine: [],
       plan: null,

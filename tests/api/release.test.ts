@@ -170,17 +170,18 @@ describe("signing the release", () => {
     const { release } = res.body;
     expect(release.status).toBe("standing");
     expect(release.hash).toMatch(/^[0-9a-f]{64}$/);
-    expect(release.signedName).toBe(s.users.inspector.name.toUpperCase());
+    expect(release.inspectorName).toBe(s.users.inspector.name); // the registered name, not as typed
     const job = await Job.findByPk(s.job.id);
     expect(job!.status).toBe("released");
     expect(job!.lockedAt!.toISOString()).toBe(release.signedAt);
     const audit = await AuditEvent.findOne({ where: { shopId: s.shop.id, action: "release.sign" } });
     expect(audit!.entityId).toBe(String(release.id));
     expect((audit!.after as Record<string, unknown>).hash).toBe(release.hash);
+    expect((audit!.after as Record<string, unknown>).typedSignature).toBe(s.users.inspector.name.toUpperCase());
     expect(await SyncChange.count({ where: { jobId: s.job.id, entity: "job" } })).toBe(1);
     const again = await signAs(s, goodSignature(s));
     expect(again.status).toBe(409);
-    expect(again.body.error.message).toMatch(/already released; the lead must reopen it/);
+    expect(again.body.error.message).toMatch(/already released\. Only a lead can reopen it/);
   });
 });
 

@@ -1,6 +1,7 @@
 // POST /api/sync against the real MariaDB: roles, acceptance, replay, and the all-or-nothing rule.
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
+import { lockWayOut } from "@/lib/domain";
 import { getSequelize } from "@/lib/server/core/db";
 import { Instrument, Job } from "@/models";
 import { POST } from "@/app/api/sync/route";
@@ -223,7 +224,7 @@ describe("POST /api/sync: locked jobs", () => {
     const res = await push(shop.users.machinist, [reading(shop.job.id, "bore/1/mid/A", 4.0301)]);
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe("job_locked");
-    const reason = `Job ${shop.job.code} was released on 12 Dec 2026; readings are locked. Ask the lead to reopen it.`;
+    const reason = `Job ${shop.job.code} was released on 12 Dec 2026; readings are locked. ${lockWayOut("released")}`;
     expect(res.body.results[0]).toMatchObject({ status: "rejected", code: "job_locked", reason });
     expect(res.body.error.message).toContain(reason);
     expect(await footprint(shop.job.id, shop.shop.id)).toEqual(before);

@@ -1,5 +1,5 @@
 import "server-only";
-import { isJobLocked, stationWords } from "@/lib/domain";
+import { isJobLocked, lockedJobWords, stationWords } from "@/lib/domain";
 import type { Transaction } from "sequelize";
 import { DISPOSITION_WORDS, type DispositionInput, type FlagListItem } from "@/lib/schemas/flag";
 import type { Actor } from "@/lib/schemas/session";
@@ -20,13 +20,8 @@ import { lockJobs } from "@/lib/server/readings/repo";
 const when = (d: Date) => d.toISOString().slice(0, 16).replace("T", " ") + " UTC";
 
 function refuseLocked(job: JobRow): void {
-  if (isJobLocked(job)) {
-    throw new AppError(
-      "job_locked",
-      `Job ${job.code} is released and locked, so its flags cannot be decided again. ` +
-        "Reopen the job (with a reason) first.",
-    );
-  }
+  const words = lockedJobWords({ ...job, locked: isJobLocked(job) }, "the decisions on its flags");
+  if (words) throw new AppError("job_locked", words);
 }
 
 function refuseClosed(flag: StoredFlag): void {

@@ -11,6 +11,7 @@ import {
 import type { JobDetail, SectionSummary, VerdictCounts } from "@/lib/schemas/job";
 import type { JobContext } from "@/lib/server/jobs/context";
 import { loadJobReadings, type JobReadings } from "@/lib/server/jobs/readings";
+import { activeRelease } from "@/lib/server/release/repo";
 import { findCustomer, flagCountsByJob, loadJobContext, templateName } from "@/lib/server/jobs/repo";
 
 // One job for its desk page: header fields, the engine as entered, and a readings summary per
@@ -59,11 +60,12 @@ function summarise(ctx: JobContext, readings: JobReadings) {
 export async function getJobDetail(shopId: number, jobId: number): Promise<JobDetail> {
   const ctx = await loadJobContext(shopId, jobId);
   const { job, engine } = ctx;
-  const [customer, template, readings, flags] = await Promise.all([
+  const [customer, template, readings, flags, standing] = await Promise.all([
     findCustomer(job.customerId),
     templateName(job.templateId),
     loadJobReadings(shopId, jobId),
     flagCountsByJob(shopId, [jobId]),
+    activeRelease(jobId),
   ]);
   return {
     job: {
@@ -76,6 +78,8 @@ export async function getJobDetail(shopId: number, jobId: number): Promise<JobDe
       notes: job.notes ?? null,
       specRevision: job.specRevision,
       locked: isJobLocked(job),
+      lockedAt: job.lockedAt ? new Date(job.lockedAt).toISOString() : null,
+      hasStandingRelease: !!standing,
       templateId: job.templateId ?? null,
       templateName: template,
       limitCount: ctx.spec.length,

@@ -23,7 +23,14 @@ export async function getBuildPlan(shopId: number, jobId: number): Promise<Build
   const engine = await getEngineOrThrow(job.engineId);
   return {
     plan: parseStored(job.buildPlan),
-    job: { id: job.id, code: job.code, title: job.title, unitSystem: job.unitSystem, locked: isJobLocked(job) },
+    job: {
+      id: job.id,
+      code: job.code,
+      title: job.title,
+      status: job.status,
+      unitSystem: job.unitSystem,
+      locked: isJobLocked(job),
+    },
     engine: {
       cylinders: engine.cylinders,
       nominalBore: engine.nominalBore,

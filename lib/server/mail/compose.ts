@@ -17,7 +17,7 @@ function recordText(record: BuildRecord, link: string, expires: Date): string {
     `Hello ${record.customer.name || "there"},`,
     `${record.shop.name} has signed off the build record of your engine: ` +
       `job ${record.job.code}, ${record.job.title}. ` +
-      `It was released for assembly by ${r.signedName} on ${r.signedAt}.`,
+      `It was released for assembly by ${r.inspectorName} on ${r.signedAt}.`,
     "The record is attached as a PDF: every measurement with its limits and verdict, the decisions on anything " +
       "outside the limits, the torque records and the signature.",
     `You can also view and download it here, without an account (the link works until ${day(expires)}):\n${link}`,

@@ -75,6 +75,38 @@ export async function recordAddressee(
   return { code: job.code, title: job.title, email: customer?.email || null };
 }
 
+/**
+ * The addresses a message was queued to under `key` or one of its follow-ups (`key:…`, e.g. a
+ * resend), oldest first; empty when nothing was queued under it.
+ */
+export async function addressesQueuedUnder(t: Transaction | null, key: string): Promise<string[]> {
+  const { MailOutbox } = models();
+  const rows = await MailOutbox.findAll({
+    where: { [Op.or]: [{ dedupeKey: key }, { dedupeKey: { [Op.startsWith]: `${key}:` } }] },
+    attributes: ["toAddress"],
+    order: [["id", "ASC"]],
+    transaction: t ?? undefined,
+  });
+  return [...new Set(rows.map((r) => r.toAddress))];
+}
+
+/** The names a mail to a job's customer is written with: the customer's and the shop's, with its contact. */
+export async function mailParties(
+  t: Transaction | null,
+  shopId: number,
+  jobId: number,
+): Promise<{ customerName: string; shopName: string; shopContact: string[] } | null> {
+  const { Customer, Job, Shop } = models();
+  const job = await Job.findOne({ where: { id: jobId, shopId }, transaction: t ?? undefined });
+  if (!job) return null;
+  const [customer, shop] = await Promise.all([
+    Customer.findOne({ where: { id: job.customerId, shopId }, transaction: t ?? undefined }),
+    Shop.findByPk(shopId, { transaction: t ?? undefined }),
+  ]);
+  const contact = [shop?.phone, shop?.email].filter((x): x is string => !!x && x.trim() !== "");
+  return { customerName: customer?.name ?? "", shopName: shop?.name ?? "", shopContact: contact };
+}
+
 /** Whether any message with this dedupe key prefix was queued (e.g. one job's "ready" mails). */
 export async function queuedWithPrefix(prefix: string): Promise<boolean> {
   const { MailOutbox } = models();

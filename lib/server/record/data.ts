@@ -65,7 +65,6 @@ function stamp(r: ReleaseRow, record: JobRecord, names: Map<number, string>): Re
   return {
     id: r.id,
     status: r.voidedAt ? "void" : "standing",
-    signedName: r.signedName,
     inspectorName: names.get(r.inspectorId) ?? r.signedName,
     signedAt: when(r.signedAt),
     hash: r.hash,
@@ -123,7 +122,6 @@ export async function loadBuildRecord(
       status: job.status,
       units: job.unitSystem === "mm" ? "mm and N·m" : "in and lbf·ft",
       specRevision: job.specRevision,
-      notes: job.notes ?? null,
     },
     engine: engineLines(parties.engine),
     plan: planOf(job.buildPlan, parties.engine.cylinders),

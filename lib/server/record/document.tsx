@@ -25,7 +25,10 @@ function stateWords(r: BuildRecord): { mark: string; words: string } {
   if (r.release.status === "void")
     return {
       mark: "VOID",
-      words: `VOID: this release was withdrawn on ${r.release.voidedAt}${r.release.voidedByName ? ` by ${r.release.voidedByName}` : ""}. Reason: ${r.release.voidReason ?? "none given"}. Do not assemble from this record; ask the shop for the current one.`,
+      words:
+        `VOID: this release was withdrawn on ${r.release.voidedAt}${r.release.voidedByName ? ` by ${r.release.voidedByName}` : ""}. ` +
+        `Reason: ${r.release.voidReason ?? "none given"}. Do not assemble from this record. ` +
+        "When the job is released again, the shop sends a new record.",
     };
   return { mark: "", words: "RELEASED FOR ASSEMBLY" };
 }
@@ -38,7 +41,7 @@ function ReleaseBox({ record }: { record: BuildRecord }) {
       <Text style={[s.bold, { fontSize: r?.status === "standing" ? 13 : 11 }]}>{state.words}</Text>
       {r ? (
         <View style={{ marginTop: 4 }}>
-          <Text>{`Signed by ${r.signedName}${r.inspectorName !== r.signedName ? ` (${r.inspectorName})` : ""}, inspector, on ${r.signedAt}.`}</Text>
+          <Text>{`Signed by ${r.inspectorName}, inspector, on ${r.signedAt}.`}</Text>
           <Text style={{ marginTop: 3 }}>
             Fingerprint (SHA-256 of the released readings, limits, decisions and gauges):
           </Text>
@@ -82,8 +85,8 @@ function Signature({ record }: { record: BuildRecord }) {
       <Heading>Release</Heading>
       {r ? (
         <View>
-          <Text style={s.signLine}>{r.signedName}</Text>
-          <Text>{`Typed signature of ${r.inspectorName}, inspector, given with their password on ${r.signedAt}.${r.status === "void" ? " THIS RELEASE IS VOID." : ""}`}</Text>
+          <Text style={s.signLine}>{r.inspectorName}</Text>
+          <Text>{`E-signature of ${r.inspectorName}, inspector, given with their password on ${r.signedAt}.${r.status === "void" ? " THIS RELEASE IS VOID." : ""}`}</Text>
           <Text style={[s.mono, { marginTop: 3 }]}>{`SHA-256 ${r.hash} (record format v${r.canonicalVersion})`}</Text>
         </View>
       ) : (
@@ -93,7 +96,7 @@ function Signature({ record }: { record: BuildRecord }) {
         <Text
           key={e.id}
           style={[s.small, { marginTop: 3 }]}
-        >{`Earlier release signed by ${e.signedName} on ${e.signedAt}: ${e.status === "void" ? `VOID since ${e.voidedAt}. Reason: ${e.voidReason ?? "none given"}` : "standing"}.`}</Text>
+        >{`Earlier release signed by ${e.inspectorName} on ${e.signedAt}: ${e.status === "void" ? `VOID since ${e.voidedAt}. Reason: ${e.voidReason ?? "none given"}` : "standing"}.`}</Text>
       ))}
     </View>
   );

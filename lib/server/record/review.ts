@@ -20,11 +20,15 @@ const STATE_WORDS: Record<string, string> = {
   closed: "Closed by a newer reading in spec",
 };
 
+/**
+ * A decision as the customer reads it. An acceptance prints its reason (why the value is fit to
+ * use); a measure- or machine-again keeps its words in the shop: they are the lead's note to the
+ * machinist at the bench, never part of the customer's record.
+ */
 function decisionWords(d: Pick<DispositionRow, "disposition" | "operation" | "reason">): string {
-  const why = d.reason ? `. Reason: ${d.reason}` : "";
-  if (d.disposition === "accept") return `Accepted as is${why}`;
-  if (d.disposition === "machine_again") return `Machine again${d.operation ? ` (${d.operation})` : ""}${why}`;
-  return `Measure again${why}`;
+  if (d.disposition === "accept") return `Accepted as is${d.reason ? `. Reason: ${d.reason}` : ""}`;
+  if (d.disposition === "machine_again") return `Machine again${d.operation ? ` (${d.operation})` : ""}`;
+  return "Measure again";
 }
 
 export function flagLines(record: JobRecord, names: Map<number, string>): FlagLine[] {

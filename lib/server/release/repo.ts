@@ -121,11 +121,15 @@ export async function findReleaseByHash(hash: string): Promise<(ReleaseRow & { j
 }
 
 /** Display names of users, by id, within a shop. */
-export async function userNames(shopId: number, ids: (number | null | undefined)[]): Promise<Map<number, string>> {
+export async function userNames(
+  shopId: number,
+  ids: (number | null | undefined)[],
+  t?: Transaction,
+): Promise<Map<number, string>> {
   const { User } = models();
   const wanted = [...new Set(ids.filter((id): id is number => typeof id === "number"))];
   if (!wanted.length) return new Map();
-  const users = await User.findAll({ where: { id: wanted, shopId }, attributes: ["id", "name"] });
+  const users = await User.findAll({ where: { id: wanted, shopId }, attributes: ["id", "name"], transaction: t });
   return new Map(users.map((u) => [u.id, u.name]));
 }
 

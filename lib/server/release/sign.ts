@@ -1,5 +1,5 @@
 import "server-only";
-import { isJobLocked } from "@/lib/domain";
+import { isJobLocked, lockWayOut, reopenRefusal } from "@/lib/domain";
 import type { ReleaseRecord, ReopenInput, SignInput } from "@/lib/schemas/release";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
@@ -8,6 +8,7 @@ import { getSequelize } from "@/lib/server/core/db";
 import { AppError } from "@/lib/server/core/errors";
 import { getJobOrThrow } from "@/lib/server/jobs/repo";
 import { enqueueReleaseMail } from "@/lib/server/mail/outbox";
+import { enqueueVoidMail } from "@/lib/server/mail/void-mail";
 import { checklistOf } from "@/lib/server/release/checklist";
 import { CANONICAL_VERSION, itemDigests, releaseHash } from "@/lib/server/release/hash";
 import { buildSnapshot, gaugeRecord } from "@/lib/server/release/hash-snapshot";
@@ -26,14 +27,14 @@ import { checkSigner } from "@/lib/server/release/signer";
 
 // The inspector's e-signature (typed full name + password again) and the lead's reopen. Both run
 // in one transaction with the job row locked, and both are audited and fed to the tablets; the
-// signature also queues the customer's build-record mail in that transaction.
+// signature queues the customer's build-record mail in that transaction, the reopen the notice
+// that the record they were sent is void.
 
 export function toReleaseRecord(r: ReleaseRow, names: Map<number, string>): ReleaseRecord {
   return {
     id: r.id,
     jobId: r.jobId,
     status: r.voidedAt ? "void" : "standing",
-    signedName: r.signedName,
     inspectorName: names.get(r.inspectorId) ?? r.signedName,
     signedAt: r.signedAt.toISOString(),
     hash: r.hash,
@@ -54,7 +55,8 @@ export async function signRelease(actor: Actor, jobId: number, input: SignInput)
     if (isJobLocked(job) || (await activeRelease(jobId, t))) {
       throw new AppError(
         "conflict",
-        `Job ${job.code} is already ${job.status === "closed" ? "closed" : "released"}; the lead must reopen it before a new release`,
+        `Job ${job.code} is already ${job.status === "closed" ? "closed" : "released"}. ` +
+          lockWayOut(job.status === "closed" ? "closed" : "released"),
       );
     }
     const checklist = checklistOf(record);
@@ -102,7 +104,8 @@ export async function signRelease(actor: Actor, jobId: number, input: SignInput)
         jobCode: job.code,
         jobStatus: "released",
         lockedAt: signedAt.toISOString(),
-        signedName,
+        // What the inspector typed as the e-signature; screens and records print the account's name.
+        typedSignature: signedName,
         signedAt: signedAt.toISOString(),
         hash,
       },
@@ -118,15 +121,22 @@ export async function reopenRelease(actor: Actor, jobId: number, input: ReopenIn
   const row = await getSequelize().transaction(async (t) => {
     const job = await lockJob(t, actor.shopId, jobId);
     const release = await activeRelease(jobId, t);
-    if (job.status !== "released" || !release) {
-      throw new AppError(
-        "conflict",
-        `Job ${job.code} is not released (it is ${job.status}), so there is nothing to reopen`,
-      );
-    }
+    const refusal = reopenRefusal(actor.role, { ...job, hasStandingRelease: !!release });
+    if (refusal || !release) throw new AppError(refusal?.code ?? "conflict", refusal?.message ?? "No release");
     const voidedAt = new Date();
     await voidRelease(t, release.id, actor.userId, input.reason, voidedAt);
     await setJobReopened(t, jobId);
+    const signer = (await userNames(actor.shopId, [release.inspectorId], t)).get(release.inspectorId);
+    const mailed = await enqueueVoidMail(t, {
+      shopId: actor.shopId,
+      jobId,
+      releaseId: release.id,
+      hash: release.hash,
+      signedAt: release.signedAt,
+      signerName: signer ?? release.signedName,
+      reason: input.reason,
+      voidedAt,
+    });
     await recordAudit(t, {
       shopId: actor.shopId,
       userId: actor.userId,
@@ -147,6 +157,7 @@ export async function reopenRelease(actor: Actor, jobId: number, input: ReopenIn
         releaseStatus: "void",
         voidReason: input.reason,
         voidedAt: voidedAt.toISOString(),
+        customerNotified: mailed > 0,
       },
     });
     await recordChange(t, { shopId: actor.shopId, jobId, entity: "job", entityId: jobId });

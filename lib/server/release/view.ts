@@ -1,6 +1,7 @@
 import "server-only";
 import {
   JOB_STATUSES,
+  canReopen,
   characteristicWords,
   currentReadings,
   isJobLocked,
@@ -83,7 +84,7 @@ export async function releaseView(actor: Actor, jobId: number): Promise<ReleaseV
     releases: releases.map((r) => toReleaseRecord(r, names)),
     can: {
       sign: actor.role === "inspector" && checklist.complete && !locked && !standing,
-      reopen: actor.role === "lead" && job.status === "released" && !!standing,
+      reopen: canReopen(actor.role, { ...job, hasStandingRelease: !!standing }),
     },
     links: {
       pdf: `/api/record/${job.id}/pdf`,

@@ -1,5 +1,5 @@
 import "server-only";
-import { isJobLocked } from "@/lib/domain";
+import { isJobLocked, lockedJobWords } from "@/lib/domain";
 import type { Transaction } from "sequelize";
 import type { Attachment } from "@/models";
 import type { AttachmentView } from "@/lib/schemas/attachment";
@@ -65,7 +65,7 @@ export async function listAttachments(
   return rows.map(reshapeAttachment);
 }
 
-export type OwnerInfo = { jobId: number | null; locked: boolean; jobCode?: string };
+export type OwnerInfo = { jobId: number | null; locked: boolean; jobCode?: string; status?: string };
 
 /** The owner, in this shop; 404 for a missing one or another shop's (never say which). */
 export async function findOwnerOrThrow(
@@ -94,17 +94,15 @@ export async function findOwnerOrThrow(
   return {
     jobId: job.id,
     jobCode: job.code,
+    status: job.status,
     locked: isJobLocked(job),
   };
 }
 
 export function refuseLocked(owner: OwnerInfo): void {
   if (!owner.locked) return;
-  const job = owner.jobCode ? `Job ${owner.jobCode}` : "This job";
-  throw new AppError(
-    "job_locked",
-    `${job} is released and locked, so no files can be added to it. A lead can reopen it with a reason.`,
-  );
+  const job = { code: owner.jobCode, status: owner.status ?? "released", locked: true };
+  throw new AppError("job_locked", lockedJobWords(job, "its photos and files")!);
 }
 
 export type NewAttachment = Omit<StoredAttachment, "hasThumb" | "url" | "thumbUrl" | "createdAt">;

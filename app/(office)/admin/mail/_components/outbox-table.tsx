@@ -4,6 +4,7 @@ import { RetryButton } from "./retry-button";
 // The shop's outgoing mail with what happened to each message, failures in words.
 const KIND_WORDS: Record<MailKind, string> = {
   build_record: "Build record to customer",
+  record_voided: "Record voided, to customer",
   flag_digest: "New flags, to a lead",
   ready_for_release: "Ready for release, to an inspector",
 };

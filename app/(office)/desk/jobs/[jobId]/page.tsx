@@ -13,7 +13,7 @@ export default async function JobDeskPage({ params }: { params: Promise<{ jobId:
       <Link href="/desk" className="text-sm font-medium text-steel underline">
         ← All jobs
       </Link>
-      <JobPage jobId={Number(jobId)} canEdit={actor.role === "lead"} />
+      <JobPage jobId={Number(jobId)} role={actor.role} />
     </main>
   );
 }
