@@ -1,11 +1,12 @@
 "use client";
 
-import { useEffect, useState, type ReactNode } from "react";
+import { lazy, Suspense, useEffect, useState, type ReactNode } from "react";
 import { HeaderBar } from "@/components/header-bar";
 import { Notice } from "@/components/ui/notice";
 import { BENCH_ROLES } from "@/lib/schemas/enums";
 import { getBenchDb } from "@/lib/offline/db";
-import { ensureDeviceId, getMeta, setMeta, type DeviceActor } from "@/lib/offline/meta";
+import { ensureDeviceId, getMeta, type DeviceActor } from "@/lib/offline/meta";
+import { endedSessions, rememberActor, reportEndedSessions } from "@/lib/offline/sign-out";
 import { lazyEngine } from "@/lib/offline/engine-handle";
 import { BenchProvider, type Bench } from "./bench-context";
 import { whenSettled } from "@/hooks/use-after-paint";
@@ -13,10 +14,15 @@ import { BenchBar } from "./bench-bar";
 
 // The bench is a client shell (precached by the service worker), so it opens with no network.
 // Who is measuring comes from /api/me when the server answers, else from the last answer kept
-// on the tablet: offline, the machinist is never bounced to the sign-in page. Data is still
-// only ever served by signed-in API routes.
+// on the tablet: offline, the machinist is never bounced to the sign-in page. After a sign-out
+// nobody is kept, so the shell draws the sign-in screen instead (lib/offline/sign-out.ts); a
+// session signed out here is never taken up again, even if the server has not heard yet. Data is
+// still only ever served by signed-in API routes.
+// Its form code loads only when the tablet is locked, never on the bench's first load.
+const SignInScreen = lazy(() => import("@/components/sign-in-screen").then((m) => ({ default: m.SignInScreen })));
+
 type Boot =
-  { kind: "loading" } | { kind: "ready"; bench: Bench } | { kind: "unknown" } | { kind: "failed"; message: string };
+  { kind: "loading" } | { kind: "ready"; bench: Bench } | { kind: "locked" } | { kind: "failed"; message: string };
 
 async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> {
   const ctl = new AbortController();
@@ -28,6 +34,7 @@ async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> 
     const me = (await res.json()) as {
       user: { id: number; name: string; email: string; role: DeviceActor["role"] };
       shop: { id: number } | null;
+      sessionId: string | null;
     };
     return {
       userId: me.user.id,
@@ -35,6 +42,7 @@ async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> 
       name: me.user.name,
       email: me.user.email,
       role: me.user.role,
+      ...(me.sessionId ? { sessionId: me.sessionId } : {}),
     };
   } catch {
     return "offline";
@@ -48,14 +56,20 @@ let engine: ReturnType<typeof lazyEngine> | undefined;
 async function boot(): Promise<Boot> {
   const db = getBenchDb();
   const deviceId = await ensureDeviceId(db);
+  await reportEndedSessions(db);
   const answer = await whoIsSignedIn();
+  // Signed out here while the server could not hear it: that session is never taken up again.
+  if (typeof answer === "object" && (await endedSessions(db)).includes(answer.sessionId ?? ""))
+    return { kind: "locked" };
   if (answer === "signed-out") {
+    // The server ended the session (signed out elsewhere, password reset, role change): forget it here too.
+    await db.meta.delete("actor");
     window.location.assign(`/sign-in?next=${encodeURIComponent(window.location.pathname + window.location.search)}`);
     return { kind: "loading" };
   }
   const actor = answer === "offline" ? await getMeta<DeviceActor>(db, "actor") : answer;
-  if (!actor) return { kind: "unknown" };
-  if (answer !== "offline") await setMeta(db, "actor", actor);
+  if (!actor) return { kind: "locked" };
+  if (answer !== "offline") await rememberActor(db, actor);
   if (!(BENCH_ROLES as readonly string[]).includes(actor.role)) {
     window.location.assign("/");
     return { kind: "loading" };
@@ -91,14 +105,15 @@ export function BenchShell({ children }: { children: ReactNode }) {
       </BenchProvider>
     );
   }
+  if (state.kind === "locked")
+    return (
+      <Suspense fallback={null}>
+        <SignInScreen next={window.location.pathname + window.location.search} />
+      </Suspense>
+    );
   return (
     <main className="mx-auto flex max-w-3xl flex-col gap-4 px-4 py-10" aria-busy={state.kind === "loading"}>
       {state.kind === "loading" && <p className="text-lg text-muted">Opening the bench…</p>}
-      {state.kind === "unknown" && (
-        <Notice tone="error" title="This tablet does not know who is measuring yet">
-          Connect to the shop network and sign in once; after that the bench opens with or without a network.
-        </Notice>
-      )}
       {state.kind === "failed" && (
         <Notice tone="error" title="The bench could not open its storage">
           {state.message}. Check that this browser allows site data (private mode blocks it), then reload.

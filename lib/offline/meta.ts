@@ -10,6 +10,8 @@ export interface DeviceActor {
   name: string;
   email: string;
   role: Role;
+  /** The server's session this tablet holds for them (ended on the server after a sign-out here). */
+  sessionId?: string;
 }
 
 /** What the sync badge shows; written by the sync engine after every run. */

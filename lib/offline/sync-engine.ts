@@ -155,7 +155,7 @@ export class SyncEngine {
     for (;;) {
       const batch = await nextBatch(this.db, userId, size, refusedNow);
       if (batch.readings.length === 0) return;
-      const answer = await pushBatch(this.fetchFn, this.base, deviceId, batch.payload);
+      const answer = await pushBatch(this.fetchFn, this.base, deviceId, batch.payload, userId);
       if (answer.kind === "too_large") {
         if (size === 1) throw new ActionError(413, "A single reading is too large for the server");
         size = Math.max(1, Math.floor(size / 2));

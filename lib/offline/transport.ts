@@ -1,6 +1,7 @@
 // HTTP for the sync engine: every call has a timeout (a hung request on bad Wi-Fi must not block
 // the one sync run forever) and every answer is sorted into what the engine does next.
 import type { PushErrorReply, PushReply, PushResult, SyncFeed } from "@/lib/schemas/sync";
+import { TAKEN_BY_HEADER } from "@/lib/schemas/sync-headers";
 
 export type Fetch = typeof fetch;
 
@@ -45,15 +46,17 @@ function refuse(res: Response, json: Record<string, unknown> | null, what: strin
 
 export type PushAnswer = { kind: "results"; results: PushResult[] } | { kind: "too_large" };
 
+/** Sends readings taken by `takenBy`; the server refuses them under anyone else's session. */
 export async function pushBatch(
   fetchFn: Fetch,
   base: string,
   deviceId: string,
   readings: unknown[],
+  takenBy: number,
 ): Promise<PushAnswer> {
   const res = await send(fetchFn, `${base}/api/sync`, {
     method: "POST",
-    headers: { "Content-Type": "application/json" },
+    headers: { "Content-Type": "application/json", [TAKEN_BY_HEADER]: String(takenBy) },
     body: JSON.stringify({ deviceId, readings }),
   });
   const json = await body(res);

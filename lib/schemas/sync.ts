@@ -4,6 +4,9 @@
 //   200 { results: PushResult[], cursor }      every reading was stored (or already was: replay)
 //   400 bad_json                               the body is not JSON
 //   401 unauthorized / 403 forbidden           signed out / another role (inspector, admin)
+//   409 conflict, no `results`                 header TAKEN_BY_HEADER names someone other than the
+//                                              signed-in user (the browser was signed in as someone else
+//                                              since): nothing written; sign in as that person to send
 //   413 payload_too_large                      more than MAX_BATCH readings: split the batch and send again
 //   422 invalid, no `results`                  the batch itself is malformed (not an object, no deviceId,
 //                                              readings not an array): `error.fields` says where
@@ -51,6 +54,7 @@ import type { Disposition, FlagReason, FlagState, UnitSystem } from "./enums";
 import type { FieldErrors } from "./errors";
 import type { StoredReading } from "@/lib/schemas/readings";
 
+export { TAKEN_BY_HEADER } from "./sync-headers";
 export const MAX_BATCH = 500;
 /** Feed rows younger than this are re-sent on the next pull (see the cursor above). */
 export const SETTLE_MS = 15_000;

@@ -6,11 +6,13 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { TextField } from "@/components/ui/text-field";
+import { useOnline } from "@/hooks/use-online";
 import { api, ApiError } from "@/lib/client/api";
 import { signInSchema, type SignInInput } from "@/lib/schemas/session";
 
 export function SignInForm({ next }: { next?: string }) {
   const [serverError, setServerError] = useState<string | null>(null);
+  const online = useOnline();
   const form = useForm<SignInInput>({
     resolver: zodResolver(signInSchema),
     defaultValues: { email: "", password: "" },
@@ -40,6 +42,14 @@ export function SignInForm({ next }: { next?: string }) {
       className="flex flex-col gap-5 rounded-tool border-2 border-rule bg-panel p-6"
     >
       <h1 className="text-2xl font-semibold">Sign in</h1>
+      {!online && (
+        <div data-testid="sign-in-offline">
+          <Notice title="This device is offline">
+            Signing in needs the shop&apos;s server. Connect to the shop network, then sign in. Readings already entered
+            stay on this tablet.
+          </Notice>
+        </div>
+      )}
       {serverError && <Notice tone="error">{serverError}</Notice>}
       <TextField
         label="E-mail"
