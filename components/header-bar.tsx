@@ -10,20 +10,29 @@ import { ThemeToggle } from "./theme-toggle";
 // anchors, so leaving it is a full page load and the router's link code stays out of its first load.
 type Props = { actor: Pick<Actor, "name" | "role">; current?: string; link: ElementType };
 
+// Every link is a 44 px target. An office navigation of more than a few entries takes a row of its
+// own below 1280 px, under the mark and the account, so on a tablet it stays one row and never wraps.
+const navLink = [
+  "inline-flex min-h-11 items-center whitespace-nowrap rounded-tool px-3 font-medium text-muted hover:text-ink",
+  "aria-[current=page]:bg-steel aria-[current=page]:text-steel-ink",
+].join(" ");
+const ownRow = "order-last w-full xl:order-none xl:w-auto";
+
 export function HeaderBar({ actor, current, link: A }: Props) {
+  const nav = NAV[actor.role];
   return (
     <header className="no-print border-b-2 border-rule bg-panel">
       <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
-        <A href={NAV[actor.role][0].href} aria-label="Tenthwise home">
+        <A href={nav[0].href} aria-label="Tenthwise home" className="inline-flex min-h-11 items-center">
           <Wordmark />
         </A>
-        <nav aria-label="Main" className="flex flex-wrap gap-1">
-          {NAV[actor.role].map((item) => (
+        <nav aria-label="Main" className={`flex flex-nowrap gap-1 ${nav.length > 3 ? ownRow : ""}`}>
+          {nav.map((item) => (
             <A
               key={item.href}
               href={item.href}
               aria-current={current === item.href ? "page" : undefined}
-              className="rounded-tool px-3 py-2 font-medium text-muted hover:text-ink aria-[current=page]:bg-steel aria-[current=page]:text-steel-ink"
+              className={navLink}
             >
               {item.label}
             </A>

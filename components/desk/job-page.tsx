@@ -25,9 +25,10 @@ const materialWords = (m: string | null) =>
 const btn =
   "inline-flex min-h-11 items-center rounded-tool border-2 border-rule bg-panel px-4 font-semibold hover:border-steel";
 
-function Fact({ label, children }: { label: string; children: ReactNode }) {
+// A dl may hold only dt/dd groups, each group in one div: a wider fact takes its span itself.
+function Fact({ label, children, className = "" }: { label: string; children: ReactNode; className?: string }) {
   return (
-    <div className="flex flex-col">
+    <div className={`flex flex-col ${className}`}>
       <dt className="text-sm text-muted">{label}</dt>
       <dd className="font-medium">{children}</dd>
     </div>
@@ -81,11 +82,9 @@ function Facts({ d }: { d: JobDetail }) {
       </Fact>
       <Fact label="Due">{d.job.dueDate ?? "No date"}</Fact>
       {d.job.notes && (
-        <div className="sm:col-span-2 lg:col-span-4">
-          <Fact label="Notes">
-            <span className="whitespace-pre-line">{d.job.notes}</span>
-          </Fact>
-        </div>
+        <Fact label="Notes" className="sm:col-span-2 lg:col-span-4">
+          <span className="whitespace-pre-line">{d.job.notes}</span>
+        </Fact>
       )}
     </dl>
   );

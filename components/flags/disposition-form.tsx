@@ -89,6 +89,7 @@ export function DispositionForm({ flagId }: { flagId: number }) {
   const e = form.formState.errors;
   return (
     <form
+      id="decide"
       noValidate
       aria-label="Decide"
       onSubmit={form.handleSubmit((v) => {

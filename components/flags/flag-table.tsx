@@ -3,7 +3,8 @@
 import { flexRender, type Table } from "@tanstack/react-table";
 import type { FlagListItem } from "@/lib/schemas/flag";
 
-// The queue's table: headers sort on the server (the queue turns a click into ?sort=&dir=).
+// The queue's table: headers sort on the server (the queue turns a click into ?sort=&dir=). A
+// column's meta.className hides it below its screen width (flag-columns.tsx).
 function SortMark({ dir }: { dir: false | "asc" | "desc" }) {
   if (!dir)
     return (
@@ -16,14 +17,15 @@ function SortMark({ dir }: { dir: false | "asc" | "desc" }) {
 
 export function FlagTable({ table }: { table: Table<FlagListItem> }) {
   return (
-    <table className="w-full min-w-[72rem] text-left" data-testid="flag-table">
+    <table className="w-full text-left" data-testid="flag-table">
       <thead className="bg-paper text-sm text-muted">
         {table.getHeaderGroups().map((hg) => (
           <tr key={hg.id}>
             {hg.headers.map((h) => (
               <th
                 key={h.id}
-                className="p-2 font-semibold"
+                scope="col"
+                className={`p-2 font-semibold ${h.column.columnDef.meta?.className ?? ""}`}
                 aria-sort={
                   h.column.getIsSorted() ? (h.column.getIsSorted() === "asc" ? "ascending" : "descending") : undefined
                 }
@@ -48,7 +50,7 @@ export function FlagTable({ table }: { table: Table<FlagListItem> }) {
         {table.getRowModel().rows.map((row) => (
           <tr key={row.id} className="border-t-2 border-rule align-top hover:bg-paper" data-flag-id={row.original.id}>
             {row.getVisibleCells().map((cell) => (
-              <td key={cell.id} className="p-2">
+              <td key={cell.id} className={`p-2 ${cell.column.columnDef.meta?.className ?? ""}`}>
                 {flexRender(cell.column.columnDef.cell, cell.getContext())}
               </td>
             ))}
