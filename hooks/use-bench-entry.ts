@@ -1,6 +1,6 @@
 "use client";
 
-import { startTransition, useCallback, useMemo, useRef, useState } from "react";
+import { startTransition, useCallback, useEffect, useMemo, useRef, useState } from "react";
 import {
   coreReading,
   defaultGauge,
@@ -19,6 +19,7 @@ import { usableRaw } from "@/lib/offline/preview";
 import { recordReading, resendReading, type NewReading } from "@/lib/offline/readings";
 import { nextOpenStation, type StationView } from "@/lib/offline/route-status";
 import { useBench } from "@/components/bench/bench-context";
+import { asksBeforeCorrecting, correctionQuestion } from "@/components/bench/correction";
 import { afterPaint } from "./use-after-paint";
 import { createEntryStore, type LastEntry } from "./use-entry-store";
 
@@ -55,18 +56,31 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
   const [settingFor, setSettingFor] = useState<string>();
   const seq = useRef(0);
   // Set at Enter, shown after the paint; until then the next entry already goes there.
+  // Kept until the move has rendered, so a figure a gauge sends meanwhile never lands on the old station.
   const pendingMove = useRef<string | null>(null);
+  useEffect(() => {
+    if (pendingMove.current === stationId) pendingMove.current = null;
+  }, [stationId]);
   // What was saved at each station before the live query caught up: keeps supersedes and the
   // confirm rule right even when a gauge sends the next reading within milliseconds.
   const justSaved = useRef(new Map<string, { id: string; count: number }>());
+  // The station the machinist asked to measure again, and the correction last asked about.
+  const measuringAgain = useRef<string | null>(null);
+  const asked = useRef<{ stationId: string; draft: string } | null>(null);
   const raw = useMemo(() => usableRaw(readings, pack.instruments), [readings, pack.instruments]);
   const mode = modeOf(views.find((v) => v.station.id === stationId)?.station, pack, prefs, settingFor);
 
+  const savedAhead = useCallback(
+    (stationId: string) => {
+      const saved = justSaved.current.get(stationId);
+      return saved && !readings.some((r) => r.id === saved.id) ? saved : undefined;
+    },
+    [readings],
+  );
   const latest = useCallback(
     (v: StationView) => {
-      const saved = justSaved.current.get(v.station.id);
-      if (saved && !readings.some((r) => r.id === saved.id))
-        return { id: saved.id, count: saved.count, rejected: undefined };
+      const saved = savedAhead(v.station.id);
+      if (saved) return { id: saved.id, count: saved.count, rejected: undefined };
       const cur = v.current;
       return {
         id: cur && cur.state !== "rejected" ? cur.id : undefined,
@@ -74,7 +88,7 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
         rejected: cur?.state === "rejected" ? cur.id : undefined,
       };
     },
-    [readings],
+    [savedAhead],
   );
 
   const write = useCallback(
@@ -89,15 +103,16 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
 
   const finish = useCallback(
     (entry: Omit<LastEntry, "seq">, saving: Promise<unknown>, typed: string) => {
-      store.set({ last: { ...entry, seq: ++seq.current }, draft: "", error: undefined });
+      store.set({ last: { ...entry, seq: ++seq.current }, draft: "", error: undefined, ask: undefined });
       if (!entry.stayed) {
         // Shown once the verdict has painted and the write has committed, so neither waits on it.
-        const next = nextOpenStation(views, entry.stationId) ?? entry.stationId;
+        // A station saved moments ago that the live query does not show yet is done, not open.
+        const shown = views.filter((v) => v.station.id === entry.stationId || !savedAhead(v.station.id));
+        const next = nextOpenStation(shown, entry.stationId) ?? entry.stationId;
         pendingMove.current = next;
         const painted = new Promise<void>((r) => afterPaint(r));
         void Promise.all([painted, saving.catch(() => undefined)]).then(() => {
           if (pendingMove.current !== next) return;
-          pendingMove.current = null;
           startTransition(() => moveTo(next));
         });
       }
@@ -113,7 +128,7 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
           }),
       );
     },
-    [engine, moveTo, views, store],
+    [engine, moveTo, views, store, savedAhead],
   );
 
   const save = useCallback(() => {
@@ -143,6 +158,19 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
     });
     if ("error" in built) return store.set({ error: built.error });
     const r = built.reading;
+    const question = {
+      view,
+      keptId: known.id,
+      last: store.get().last,
+      measuringAgain: measuringAgain.current === station.id,
+    };
+    const answered = asked.current?.stationId === station.id && asked.current.draft === draft;
+    if (!answered && asksBeforeCorrecting(question)) {
+      asked.current = { stationId: station.id, draft };
+      return store.set({ ask: correctionQuestion(question, station, r.value!), error: undefined });
+    }
+    asked.current = null;
+    measuringAgain.current = null;
     const saving = write(r, known); // started first: the store works while the verdict is worked out
     let ev: ReturnType<typeof evaluateReading> | undefined;
     let note: string | undefined;
@@ -202,8 +230,14 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
     [views, stationId, pack.job.id, finish, write, latest],
   );
 
-  /** A jump by the machinist wins over a move still waiting for the paint. */
-  const cancelMove = useCallback(() => void (pendingMove.current = null), []);
+  /** A jump by the machinist wins over a move still waiting for the paint; a question asked is dropped. */
+  const cancelMove = useCallback(() => {
+    pendingMove.current = null;
+    asked.current = null;
+    if (store.get().ask) store.set({ ask: undefined });
+  }, [store]);
+  /** "Measure again": the next figure at this station is the correction asked for. */
+  const measureAgain = useCallback((id: string) => void (measuringAgain.current = id), []);
   const askSetting = useCallback(() => setSettingFor(mode.group), [mode.group]);
-  return { store, save, skip, cancelMove, askSetting, ...mode };
+  return { store, save, skip, cancelMove, measureAgain, askSetting, ...mode };
 }

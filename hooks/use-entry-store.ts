@@ -24,6 +24,8 @@ export interface LastEntry {
 export interface EntryState {
   draft: string;
   error?: string;
+  /** A question the next Save answers (a correction of a kept reading); cleared by typing. */
+  ask?: string;
   last?: LastEntry;
 }
 

@@ -23,8 +23,13 @@ export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryFiel
   ref,
 ) {
   const error = useEntryField(store, "error");
+  const ask = useEntryField(store, "ask");
   const input = useRef<HTMLInputElement>(null);
   useImperativeHandle(ref, () => input.current!, []);
+  // Asked before a correction: the figure is selected, so a gauge's next figure replaces it.
+  useEffect(() => {
+    if (ask && document.activeElement === input.current) input.current?.select();
+  }, [ask]);
   // The text lives in the store and is written straight into the input (not re-rendered by
   // React): a keystroke, a keypad tap or an Enter costs one DOM write, not a render.
   useEffect(() => {
@@ -35,7 +40,7 @@ export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryFiel
     show();
     return store.subscribe(show);
   }, [store]);
-  const onChange = (draft: string) => store.set({ draft, error: undefined });
+  const onChange = (draft: string) => store.set({ draft, error: undefined, ask: undefined });
   function onKeyDown(e: KeyboardEvent<HTMLInputElement>) {
     if (e.key === "Enter") {
       e.preventDefault();
@@ -78,10 +83,11 @@ export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryFiel
       </div>
       <p
         id="tw-entry-note"
-        className={`min-h-6 text-base leading-snug ${error ? "font-semibold text-fail" : "text-muted"}`}
-        role={error ? "alert" : undefined}
+        className={`min-h-6 text-base leading-snug ${error ? "font-semibold text-fail" : ask ? "font-semibold" : "text-muted"}`}
+        role={error || ask ? "alert" : undefined}
+        data-testid="entry-note"
       >
-        {error ?? hint}
+        {error ?? ask ?? hint}
       </p>
     </div>
   );

@@ -61,7 +61,7 @@ export const EntryPanel = memo(function EntryPanel(p: Props) {
   const focus = useCallback(() => inputRef.current?.focus(), [inputRef]);
   const onKey = useCallback(
     (k: PadKey) => {
-      store.set({ draft: applyKey(store.get().draft, k), error: undefined });
+      store.set({ draft: applyKey(store.get().draft, k), error: undefined, ask: undefined });
       focus();
     },
     [store, focus],

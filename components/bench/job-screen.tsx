@@ -5,25 +5,21 @@ import { FastenerCaution, Notice } from "@/components/ui/notice";
 import { jobLock, jobLockReason } from "@/lib/domain";
 import { Button } from "@/components/ui/button";
 import { chosenGauge, useBenchEntry } from "@/hooks/use-bench-entry";
+import { useGaugeKeys } from "@/hooks/use-gauge-keys";
 import type { JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "@/lib/offline/db";
 import { gaugesFor, isDialBoreGauge, onSamePart } from "@/lib/domain";
 import { dialGroup } from "@/lib/offline/entry";
 import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { derivedFor } from "@/lib/offline/preview";
-import {
-  nextOpenStation,
-  OPEN_STATES,
-  routeProgress,
-  stationViews,
-  type StationView,
-} from "@/lib/offline/route-status";
+import { nextOpenStation, OPEN_STATES, routeProgress, stationViews } from "@/lib/offline/route-status";
 import { useBench } from "./bench-context";
 import { DerivedPanel } from "./derived-panel";
 import { EntryPanel } from "./entry-panel";
 import { LastEntryCard } from "./last-entry";
 import { LubricantPicker } from "./lubricant-picker";
 import { PhotoButton } from "./photo-button";
+import { RefusedNotice } from "./refused-notice";
 import { SectionStrip } from "./section-strip";
 import { StationHeader } from "./station-header";
 
@@ -40,27 +36,6 @@ const GRID = [
   "landscape:md:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] landscape:md:grid-rows-[auto_auto_1fr] landscape:md:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
 ].join(" ");
 
-function RefusedNotice({ views, onFix }: { views: StationView[]; onFix: (id: string) => void }) {
-  return (
-    <Notice
-      tone="error"
-      title={`${views.length} reading${views.length === 1 ? " was" : "s were"} refused by the server`}
-    >
-      <ul className="mt-1 flex flex-col gap-2">
-        {views.map((v) => (
-          <li key={v.station.id} className="flex flex-wrap items-center gap-3">
-            <span>
-              {v.station.label}: {v.current?.rejection?.reason}
-            </span>
-            <Button tone="quiet" onClick={() => onFix(v.station.id)}>
-              Fix it
-            </Button>
-          </li>
-        ))}
-      </ul>
-    </Notice>
-  );
-}
 export const JobScreen = memo(function JobScreen({
   pack,
   readings,
@@ -79,6 +54,14 @@ export const JobScreen = memo(function JobScreen({
   const inputRef = useRef<HTMLInputElement>(null);
   const moveTo = useCallback((id: string) => setStationId(id), []);
   const entry = useBenchEntry({ pack, views, readings, prefs, stationId, moveTo });
+  const sheetNow = useRef(sheet);
+  sheetNow.current = sheet;
+  const refocus = useGaugeKeys({
+    input: inputRef,
+    store: entry.store,
+    typingSheetOpen: () => sheetNow.current === "skip",
+    closeOtherSheet: () => setSheet((open) => (open === "route" ? null : open)),
+  });
   const view = views.find((v) => v.station.id === stationId) ?? views[0];
   const lock = jobLock(pack.job);
 
@@ -90,7 +73,7 @@ export const JobScreen = memo(function JobScreen({
   // keep their DOM): the Enter-to-verdict time is what bench:entry measures.
   const jobId = pack.job.id;
   const onPrefs = useCallback((patch: Partial<JobPrefs>) => void patchJobPrefs(db, jobId, patch), [db, jobId]);
-  const { cancelMove } = entry;
+  const { cancelMove, measureAgain } = entry;
   const jump = useCallback(
     (id: string) => {
       cancelMove();
@@ -98,6 +81,13 @@ export const JobScreen = memo(function JobScreen({
       setSheet(null);
     },
     [cancelMove],
+  );
+  const again = useCallback(
+    (id: string) => {
+      measureAgain(id);
+      jump(id);
+    },
+    [measureAgain, jump],
   );
   const pickSection = useCallback(
     (sid: string) => {
@@ -141,7 +131,12 @@ export const JobScreen = memo(function JobScreen({
   const refused = views.filter((v) => v.state === "rejected");
 
   return (
-    <main className="mx-auto flex max-w-7xl flex-col gap-3 px-4 py-3" data-testid="job-screen" data-job={pack.job.id}>
+    <main
+      className="mx-auto flex max-w-7xl flex-col gap-3 px-4 py-3"
+      data-testid="job-screen"
+      data-job={pack.job.id}
+      onClick={refocus}
+    >
       <SectionStrip sections={sections} current={station.section} onPick={pickSection} onAll={openRoute} />
       {lock.locked && (
         <Notice
@@ -174,7 +169,7 @@ export const JobScreen = memo(function JobScreen({
           {station.section === "bolt" && <FastenerCaution />}
         </div>
         <div className="[grid-area:last]">
-          <LastEntryCard store={entry.store} onAgain={jump} />
+          <LastEntryCard store={entry.store} onAgain={again} />
         </div>
         <div className="[grid-area:entry]">
           <EntryPanel
@@ -199,7 +194,7 @@ export const JobScreen = memo(function JobScreen({
             <Button big tone="quiet" onClick={() => setSheet("skip")} disabled={lock.locked}>
               Skip…
             </Button>
-            <PhotoButton jobId={pack.job.id} owner={photoOwner} />
+            <PhotoButton jobId={pack.job.id} owner={photoOwner} onDone={refocus} />
           </div>
           <DerivedPanel values={shownDerived} />
         </div>

@@ -7,7 +7,16 @@ import { useBench } from "./bench-context";
 
 // A photo from the tablet's camera (a scored bore, a spun bearing), kept on the tablet until
 // the server has it. Attached to the station's current reading, else to the job.
-export const PhotoButton = memo(function PhotoButton({ owner, jobId }: { owner: PhotoOwner; jobId: number }) {
+export const PhotoButton = memo(function PhotoButton({
+  owner,
+  jobId,
+  onDone,
+}: {
+  owner: PhotoOwner;
+  jobId: number;
+  /** After the camera has closed: the entry field takes the focus back. */
+  onDone: () => void;
+}) {
   const { db, engine, actor } = useBench();
   const [error, setError] = useState<string>();
   const [waiting] = useDexieQuery(
@@ -25,6 +34,7 @@ export const PhotoButton = memo(function PhotoButton({ owner, jobId }: { owner: 
   async function onFile(e: ChangeEvent<HTMLInputElement>) {
     const file = e.target.files?.[0];
     e.target.value = "";
+    onDone();
     if (!file) return;
     try {
       const { addPhoto } = await import("@/lib/offline/photos");

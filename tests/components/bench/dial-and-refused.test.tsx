@@ -68,7 +68,7 @@ describe("dial bore gauge mode", () => {
     await act(async () => type(input, "0.0001"));
     await waitFor(async () => expect(await db.readings.count()).toBe(2));
     expect((await db.readings.toCollection().sortBy("takenAt")).at(-1)?.value).toBe(4.0299);
-  });
+  }, 20_000);
 });
 
 describe("a reading the server refused", () => {
