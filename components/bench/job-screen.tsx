@@ -135,6 +135,7 @@ export const JobScreen = memo(function JobScreen({
       className="mx-auto flex max-w-7xl flex-col gap-3 px-4 py-3"
       data-testid="job-screen"
       data-job={pack.job.id}
+      data-spec-revision={pack.job.specRevision}
       onClick={refocus}
     >
       <SectionStrip sections={sections} current={station.section} onPick={pickSection} onAll={openRoute} />

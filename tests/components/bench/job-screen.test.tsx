@@ -120,6 +120,8 @@ describe("the pack refresh once the screen has settled", () => {
     const { server, db } = await mountBenchJob(pack, { serverPack });
     await waitFor(async () => expect((await db.jobs.get(1))?.pack.spec[0].tolPlus).toBe(0.0001));
     expect(server).toHaveBeenCalledWith("/api/bench/jobs/1", expect.anything());
+    // The screen has the refreshed pack (not only the store), so the next entry is judged by it.
+    await waitFor(() => expect(screen.getByTestId("job-screen").getAttribute("data-spec-revision")).toBe("2"));
     await act(async () => gaugeTypes("4.0302"));
     expect(screen.getByTestId("last-entry").getAttribute("data-verdict")).toBe("out_of_spec");
   });
