@@ -2,19 +2,22 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useEffect, useRef } from "react";
 import { FormProvider, useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { lockedJobWords } from "@/lib/domain";
 import { api } from "@/lib/client/api";
 import { jobLimitsSchema, type JobLimitsInput, type JobLimitsValues } from "@/lib/schemas/spec";
-import type { LimitsSaved } from "@/lib/schemas/job";
+import type { LimitsPreview, LimitsSaved } from "@/lib/schemas/job";
+import { ChangeConfirm } from "./change-confirm";
 import { Loading, LoadFailed, ServerError, applyFieldErrors } from "./fields";
 import { keys, useJobLimits, type JobLimitsView } from "./queries";
 import { SpecLimitsEditor } from "./spec-limits-editor";
 
 // The job's own limits. Saving re-judges every current reading and derived value of the job on
-// the server, in the same transaction, and opens or closes flags to match.
+// the server, in the same transaction, and opens or closes flags to match. Before it saves, the
+// lead reads what the save will do (the server's preview) and confirms it.
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 function LimitsForm({ view }: { view: JobLimitsView }) {
@@ -24,10 +27,23 @@ function LimitsForm({ view }: { view: JobLimitsView }) {
     resolver: zodResolver(jobLimitsSchema),
     defaultValues: { specRevision: view.job.specRevision, limits: view.limits },
   });
+  const pending = useRef<JobLimitsValues | null>(null);
+  const preview = useMutation({
+    mutationFn: (v: JobLimitsValues) =>
+      api<LimitsPreview>(`/api/jobs/${id}/limits/preview`, { method: "POST", json: v }),
+    onError: (err) => applyFieldErrors(err, form.setError as never),
+  });
+  // Any edit after the preview makes it stale: the lead checks again.
+  const resetPreview = preview.reset;
+  useEffect(() => {
+    const sub = form.watch(() => resetPreview());
+    return () => sub.unsubscribe();
+  }, [form, resetPreview]);
   const save = useMutation({
     mutationFn: (v: JobLimitsValues) => api<LimitsSaved>(`/api/jobs/${id}/limits`, { method: "PUT", json: v }),
+    onSettled: () => preview.reset(),
     onSuccess: async (res) => {
-      const { result: _r, ...fresh } = res;
+      const { result: _r, consequences: _c, ...fresh } = res;
       qc.setQueryData(keys.limits(id), fresh);
       form.reset({ specRevision: res.job.specRevision, limits: res.limits });
       await Promise.all([
@@ -42,7 +58,15 @@ function LimitsForm({ view }: { view: JobLimitsView }) {
   const r = save.data?.result;
   return (
     <FormProvider {...form}>
-      <form noValidate onSubmit={form.handleSubmit((v) => save.mutate(v))} className="flex flex-col gap-5">
+      <form
+        noValidate
+        onSubmit={form.handleSubmit((v) => {
+          pending.current = v;
+          save.reset();
+          preview.mutate(v);
+        })}
+        className="flex flex-col gap-5"
+      >
         <Notice title="Saving re-judges the job">
           Every current reading and computed value of this job is checked again against the limits you save. Flags open
           for values that fall outside and close for values now in spec; each change is in the audit trail with the
@@ -51,7 +75,7 @@ function LimitsForm({ view }: { view: JobLimitsView }) {
         <SpecLimitsEditor lengthUnit={view.job.unitSystem} />
         {/* The outcome sits in the bar that stays on screen, beside the button that caused it. */}
         <div className="sticky bottom-0 flex flex-col gap-2 border-t-2 border-rule bg-paper py-3">
-          <ServerError error={save.error} />
+          <ServerError error={save.error ?? preview.error} />
           {form.formState.submitCount > 0 && !form.formState.isValid && (
             <p role="alert" className="font-medium text-fail">
               Some limits need fixing; each one says what to change.
@@ -64,9 +88,18 @@ function LimitsForm({ view }: { view: JobLimitsView }) {
               updated.
             </p>
           )}
+          {preview.data && pending.current && (
+            <ChangeConfirm
+              what="Saving these limits"
+              preview={preview.data}
+              saving={save.isPending}
+              onConfirm={(n) => save.mutate({ ...pending.current!, confirmedFlagsOpened: n })}
+              onCancel={() => preview.reset()}
+            />
+          )}
           <div className="flex gap-3">
-            <Button type="submit" big disabled={save.isPending}>
-              {save.isPending ? "Saving and re-judging…" : "Save limits"}
+            <Button type="submit" big disabled={save.isPending || preview.isPending || !!preview.data}>
+              {preview.isPending ? "Working out what it changes…" : "Save limits"}
             </Button>
             <a
               href={`/desk/jobs/${id}`}

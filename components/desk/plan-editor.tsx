@@ -2,13 +2,16 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
 import { useForm, useWatch, type UseFormRegister, type FieldErrors } from "react-hook-form";
 import { planFigures } from "@/components/desk/plan-figures";
+import { PlanFitWarnings } from "@/components/desk/plan-fit";
 import { PlanResults } from "@/components/desk/plan-results";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { lockedJobWords } from "@/lib/domain";
 import { api } from "@/lib/client/api";
+import { planFitWarnings } from "@/lib/domain";
 import { buildPlanSchema, pistonCcOf, type BuildPlan, type BuildPlanInput } from "@/lib/schemas/build-plan";
 import {
   AreaField,
@@ -109,9 +112,18 @@ function PlanForm({ view }: { view: BuildPlanView }) {
   } = form;
   const f = { register, errors };
   const piston = values.pistonTop ?? "flat";
+  const pistonCc = pistonCcOf({ pistonTop: piston, pistonVolumeCc: values.pistonVolumeCc });
+  // Parts that do not fit are a warning, not a refusal: shown as the lead types, asked once more on save.
+  const warnings = planFitWarnings({ ...values, lengthUnit: unit, pistonCc });
+  const [askFit, setAskFit] = useState<BuildPlan | null>(null);
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_26rem]">
-      <form noValidate onSubmit={form.handleSubmit((p) => save.mutate(p))} className="flex flex-col gap-5">
+      <form
+        noValidate
+        onSubmit={form.handleSubmit((p) => (warnings.length ? setAskFit(p) : save.mutate(p)))}
+        onChange={() => setAskFit(null)}
+        className="flex flex-col gap-5"
+      >
         <input type="hidden" {...register("lengthUnit")} />
         <fieldset
           disabled={view.job.locked}
@@ -129,7 +141,7 @@ function PlanForm({ view }: { view: BuildPlanView }) {
           className="grid gap-4 rounded-tool border-2 border-rule bg-panel p-4 sm:grid-cols-2"
         >
           <legend className="px-1 text-lg font-semibold">Volumes and gasket</legend>
-          <Num k="chamberCc" label="Chamber volume" unit="cc" {...f} />
+          <Num k="chamberCc" label="Chamber volume" unit="cc" hint="0 for a flat head or a bowl in the piston" {...f} />
           <SelectField label="Piston top" error={messageOf(errors.pistonTop)} {...register("pistonTop")}>
             <option value="flat">Flat top (0 cc)</option>
             <option value="dish">Dish (adds volume)</option>
@@ -166,6 +178,16 @@ function PlanForm({ view }: { view: BuildPlanView }) {
             {...register("notes")}
           />
         </fieldset>
+        <PlanFitWarnings
+          warnings={warnings}
+          asking={!!askFit}
+          saving={save.isPending}
+          onSave={() => {
+            if (askFit) save.mutate(askFit);
+            setAskFit(null);
+          }}
+          onCancel={() => setAskFit(null)}
+        />
         <ServerError error={save.error} />
         {save.isSuccess && !isDirty && (
           <p role="status" className="font-medium text-pass">
@@ -187,7 +209,7 @@ function PlanForm({ view }: { view: BuildPlanView }) {
           inputs={{
             gasketThickness: values.gasketThickness,
             chamberCc: values.chamberCc,
-            pistonCc: pistonCcOf({ pistonTop: piston, pistonVolumeCc: values.pistonVolumeCc }),
+            pistonCc,
           }}
         />
       </div>

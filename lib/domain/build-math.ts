@@ -1,6 +1,8 @@
 // Engine build arithmetic: displacement, compression ratio, rod ratio, deck stack-up, valve lift
 // and spring rate. Volumes follow Heywood, Internal Combustion Engine Fundamentals (1988), §2.2:
-// swept volume π/4·B²·L per cylinder, compression ratio (Vd + Vc)/Vc.
+// swept volume π/4·B²·L per cylinder, compression ratio (Vd + Vc)/Vc. A flat head (0 cc chamber)
+// is allowed: a diesel with its combustion bowl in the piston, or a flat-head engine, keeps its
+// clearance volume in the piston, the gasket and the deck, and the formula stands as it is.
 import { requireFinite, requirePositive } from "./checks";
 import type { LengthUnit } from "./enums";
 import { cleanDecimal, decimalDifference, decimalSum } from "./units";
@@ -54,7 +56,8 @@ export function compressionRatio(input: CompressionRatioInput): CompressionRatio
   requireFinite(gasketThickness, "Gasket thickness");
   if (gasketThickness < 0) throw new Error("Gasket thickness cannot be negative");
   requireFinite(deckClearance, "Deck clearance");
-  requirePositive(chamberCc, "Chamber volume");
+  requireFinite(chamberCc, "Chamber volume");
+  if (chamberCc < 0) throw new Error("Chamber volume cannot be negative; enter 0 for a flat head");
   requireFinite(pistonCc, "Piston dish/dome volume");
   // Deck volume uses the bore (the piston's own cylinder); gasket volume uses the gasket bore.
   const sweptCc = cylinderVolume(bore * cm, stroke * cm);

@@ -4,6 +4,7 @@
 // ratio as a plain ratio. Every figure may be left empty while the plan is being worked out;
 // the page computes what the figures present allow.
 import { z } from "zod";
+import { planFigureProblems } from "@/lib/domain";
 import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
 
 export const PISTON_TOPS = ["flat", "dish", "dome"] as const;
@@ -42,7 +43,7 @@ export const buildPlanSchema = z
     pistonVolumeCc: cc("dish or dome volume"),
     chamberCc: z
       .number({ error: "Enter the chamber volume in cc" })
-      .positive("The chamber volume is above zero")
+      .min(0, "The chamber volume is 0 or more (0 for a flat head, or a diesel with its bowl in the piston)")
       .max(5000, "Check the chamber volume: it is too large")
       .nullish(),
     gasketBore: length("gasket bore"),
@@ -74,6 +75,8 @@ export const buildPlanSchema = z
         message: "The gasket bore is smaller than the bore; check both (a gasket bore is usually a little larger)",
       });
     }
+    // Every size a real engine's, in the plan's unit (the core's ranges).
+    for (const x of planFigureProblems(p)) ctx.addIssue({ code: "custom", path: [x.field], message: x.message });
   });
 
 export type BuildPlanInput = z.input<typeof buildPlanSchema>;

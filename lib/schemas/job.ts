@@ -4,9 +4,11 @@
 import { z } from "zod";
 import {
   ENGINE_LAYOUTS,
+  type Consequences,
   EXPANSION_COEFFICIENTS,
   OPEN_JOB_STATUSES,
   checkEngineShape,
+  engineSizeProblems,
   type EngineLayout,
   type JobStatus,
   type Verdict,
@@ -112,7 +114,7 @@ const isoDate = z
     "That date does not exist",
   );
 
-export const jobSchema = z.strictObject({
+const jobFields = z.strictObject({
   code: z
     .string()
     .trim()
@@ -132,8 +134,15 @@ export const jobSchema = z.strictObject({
   notes: text(4000, "notes"),
 });
 
+/** The engine's sizes are real ones in the job's unit (a 40 in bore is a slipped decimal point). */
+function plausibleSizes(j: { engine: z.output<typeof engineSchema>; unitSystem: UnitSystem }, ctx: z.RefinementCtx) {
+  for (const p of engineSizeProblems(j.engine, j.unitSystem))
+    ctx.addIssue({ code: "custom", path: ["engine", p.field], message: p.message });
+}
+
+export const jobSchema = jobFields.superRefine(plausibleSizes);
 /** Editing keeps the job's own limits (edit them on the limits page), so no template. */
-export const jobEditSchema = jobSchema.omit({ templateId: true });
+export const jobEditSchema = jobFields.omit({ templateId: true }).superRefine(plausibleSizes);
 
 export type JobInput = z.input<typeof jobSchema>;
 export type JobValues = z.output<typeof jobSchema>;
@@ -236,4 +245,8 @@ export type JobLimitsView = {
 
 export type LimitsSaved = JobLimitsView & {
   result: { reevaluated: number; opened: number; closed: number; updated: number };
+  consequences: Consequences;
 };
+
+/** POST /api/jobs/:id/limits/preview: what saving would do, counted by saving and rolling back. */
+export type LimitsPreview = { consequences: Consequences; words: string; wide: boolean };

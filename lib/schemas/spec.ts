@@ -49,6 +49,7 @@ import {
   iso286Deviations,
   JOB_SIZE_OF,
   JOB_SIZE_WORDS,
+  limitFigureProblems,
   type CharacteristicId,
 } from "@/lib/domain";
 import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
@@ -174,6 +175,8 @@ export const limitSchema = z
           add("nominal", "The nominal size is above zero (or leave it empty to use the job's finished size)");
         break;
     }
+    // Every figure a real value of the characteristic could have, in its unit (the core's ranges).
+    for (const p of limitFigureProblems(l)) add(p.field, p.message);
   });
 
 export type LimitInput = z.input<typeof limitSchema>;
@@ -199,10 +202,19 @@ export const limitListSchema = z
     });
   });
 
-/** PUT /api/jobs/[jobId]/limits: the job's whole limit set, and the revision it was edited from. */
+/**
+ * PUT /api/jobs/[jobId]/limits: the job's whole limit set, and the revision it was edited from.
+ * POST …/limits/preview takes the same body and answers what saving it would do. A change that
+ * opens more than a handful of flags (isWideChange) is saved only with that number confirmed.
+ */
 export const jobLimitsSchema = z.strictObject({
   specRevision: z.number({ error: "Send the revision you edited (specRevision)" }).int().positive(),
   limits: limitListSchema,
+  confirmedFlagsOpened: z
+    .number({ error: "Send the number of flags you confirmed as a number" })
+    .int()
+    .min(0)
+    .nullish(),
 });
 export type JobLimitsInput = z.input<typeof jobLimitsSchema>;
 export type JobLimitsValues = z.output<typeof jobLimitsSchema>;

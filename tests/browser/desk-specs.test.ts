@@ -43,6 +43,13 @@ async function setBoreClass(cls: string) {
   await field.waitFor();
   await field.fill(cls);
   await page.getByRole("button", { name: "Save limits" }).click();
+  // The consequences come first (tests/browser/desk-limits-confirm.test.ts checks them); a wide
+  // change asks for the number of flags it opens.
+  const said = await page.getByTestId("change-consequences").textContent({ timeout: 30_000 });
+  const opens = /opens (\d+) flags?/.exec(said ?? "")?.[1];
+  const ask = page.getByLabel(/Type \d+ to confirm/);
+  if (await ask.count()) await ask.fill(opens ?? "");
+  await page.getByRole("button", { name: "Confirm and save" }).click();
   const status = page.getByRole("status").filter({ hasText: "Saved as revision" });
   await status.waitFor({ timeout: 30_000 });
   return status.textContent();

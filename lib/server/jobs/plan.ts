@@ -1,5 +1,5 @@
 import "server-only";
-import { isJobLocked } from "@/lib/domain";
+import { isJobLocked, planFigureProblems } from "@/lib/domain";
 import { buildPlanSchema, type BuildPlan, type BuildPlanView } from "@/lib/schemas/build-plan";
 import type { JsonObject } from "@/lib/schemas/json";
 import type { Actor } from "@/lib/schemas/session";
@@ -7,6 +7,7 @@ import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError } from "@/lib/server/core/errors";
 import { assertJobEditable } from "@/lib/server/jobs/editable";
+import { toEngineShape } from "@/lib/server/jobs/context";
 import { getEngineOrThrow, getJobOrThrow, lockJobOrThrow, saveJobBuildPlan } from "@/lib/server/jobs/repo";
 
 // The build plan lives on jobs.build_plan as the schema's JSON (units written in).
@@ -48,6 +49,13 @@ export async function saveBuildPlan(actor: Actor, jobId: number, plan: BuildPlan
       throw new AppError("invalid", "Some fields need fixing", {
         lengthUnit: [`This job is in ${job.unitSystem}; enter the plan in ${job.unitSystem}`],
       });
+    }
+    // The schema checked each size alone; the bore is also checked against this engine's own.
+    const engine = await getEngineOrThrow(job.engineId);
+    const problems = planFigureProblems(plan, toEngineShape(engine, job.unitSystem));
+    if (problems.length) {
+      const fields = Object.fromEntries(problems.map((p) => [p.field, [p.message]]));
+      throw new AppError("invalid", "Some fields need fixing", fields);
     }
     await saveJobBuildPlan(t, jobId, plan as unknown as JsonObject);
     await recordAudit(t, {

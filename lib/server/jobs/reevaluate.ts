@@ -1,6 +1,16 @@
 import "server-only";
-import { isJobLocked } from "@/lib/domain";
-import type { JobLimitsView, LimitsSaved } from "@/lib/schemas/job";
+import type { Transaction } from "sequelize";
+import {
+  benchRoute,
+  consequenceWords,
+  isJobLocked,
+  isWideChange,
+  limitEngineProblems,
+  requiredStationIds,
+  requiredStationsAffected,
+  type Consequences,
+} from "@/lib/domain";
+import type { JobLimitsView, LimitsPreview, LimitsSaved } from "@/lib/schemas/job";
 import { compactLimit, type JobLimitsValues, type LimitValues } from "@/lib/schemas/spec";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
@@ -9,6 +19,7 @@ import { getSequelize } from "@/lib/server/core/db";
 import { AppError } from "@/lib/server/core/errors";
 import { reconcileJob } from "@/lib/server/reconcile/reconcile";
 import { assertJobEditable } from "@/lib/server/jobs/editable";
+import type { JobContext } from "@/lib/server/jobs/context";
 import { loadJobContext, lockJobOrThrow, replaceJobLimitRows } from "@/lib/server/jobs/repo";
 import { limitRow } from "@/lib/server/specs/repo";
 
@@ -30,46 +41,110 @@ export async function getJobLimits(shopId: number, jobId: number): Promise<JobLi
   };
 }
 
-export async function replaceJobLimits(actor: Actor, jobId: number, v: JobLimitsValues): Promise<LimitsSaved> {
-  const result = await getSequelize().transaction(async (t) => {
-    const job = await lockJobOrThrow(t, actor.shopId, jobId);
-    assertJobEditable(job);
-    if (v.specRevision !== job.specRevision) {
-      throw new AppError(
-        "conflict",
-        `Someone changed these limits since you opened them (now revision ${job.specRevision}); ` +
-          "reload the page, then make your change again",
-        { specRevision: [`Now ${job.specRevision}`] },
-      );
-    }
-    const before = (await loadJobContext(actor.shopId, jobId, t)).spec.map((l) => compactLimit(l as LimitValues));
-    const from = job.specRevision;
-    const revision = from + 1;
-    await replaceJobLimitRows(t, jobId, v.limits.map(limitRow), revision);
-    const r = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, cause: "limits_changed" });
-    const after = (await loadJobContext(actor.shopId, jobId, t)).spec.map((l) => compactLimit(l as LimitValues));
-    await recordAudit(t, {
-      shopId: actor.shopId,
-      userId: actor.userId,
-      action: "job_limits.update",
-      entityType: "job",
-      entityId: jobId,
-      before: { specRevision: from, limits: before },
-      after: {
-        specRevision: revision,
-        limits: after,
-        reevaluated: r.reevaluated.length,
-        flagsOpened: r.opened,
-        flagsClosed: r.closed,
-      },
-    });
-    await recordChange(t, { shopId: actor.shopId, jobId, entity: "job_limits", entityId: jobId });
-    return {
-      reevaluated: r.reevaluated.length,
-      opened: r.opened.length,
-      closed: r.closed.length,
-      updated: r.updatedFlags.length,
-    };
+type Applied = { result: LimitsSaved["result"]; consequences: Consequences };
+
+/** The required stations of the job as it stands in this transaction (none when it has no route). */
+function requiredNow(ctx: JobContext): Set<string> {
+  try {
+    return requiredStationIds(ctx.shape, ctx.spec, benchRoute(ctx.shape));
+  } catch {
+    return new Set();
+  }
+}
+
+/** Bore and skirt limits near the engine's nominal bore, as readings are (422 on the field). */
+function assertNearEngine(ctx: JobContext, v: JobLimitsValues) {
+  const fields: Record<string, string[]> = {};
+  v.limits.forEach((l, i) => {
+    for (const p of limitEngineProblems(l, ctx.shape)) (fields[`limits.${i}.${p.field}`] ??= []).push(p.message);
   });
-  return { ...(await getJobLimits(actor.shopId, jobId)), result };
+  if (Object.keys(fields).length) throw new AppError("invalid", "Some limits need fixing", fields);
+}
+
+/** The save itself, inside the caller's transaction: swap the limits, re-judge, audit; counts what it did. */
+async function applyLimits(t: Transaction, actor: Actor, jobId: number, v: JobLimitsValues): Promise<Applied> {
+  const job = await lockJobOrThrow(t, actor.shopId, jobId);
+  assertJobEditable(job);
+  if (v.specRevision !== job.specRevision) {
+    throw new AppError(
+      "conflict",
+      `Someone changed these limits since you opened them (now revision ${job.specRevision}); ` +
+        "reload the page, then make your change again",
+      { specRevision: [`Now ${job.specRevision}`] },
+    );
+  }
+  const ctxBefore = await loadJobContext(actor.shopId, jobId, t);
+  assertNearEngine(ctxBefore, v);
+  const before = ctxBefore.spec.map((l) => compactLimit(l as LimitValues));
+  const from = job.specRevision;
+  const revision = from + 1;
+  await replaceJobLimitRows(t, jobId, v.limits.map(limitRow), revision);
+  const r = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, cause: "limits_changed" });
+  const ctxAfter = await loadJobContext(actor.shopId, jobId, t);
+  const after = ctxAfter.spec.map((l) => compactLimit(l as LimitValues));
+  await recordAudit(t, {
+    shopId: actor.shopId,
+    userId: actor.userId,
+    action: "job_limits.update",
+    entityType: "job",
+    entityId: jobId,
+    before: { specRevision: from, limits: before },
+    after: {
+      specRevision: revision,
+      limits: after,
+      reevaluated: r.reevaluated.length,
+      flagsOpened: r.opened,
+      flagsClosed: r.closed,
+    },
+  });
+  await recordChange(t, { shopId: actor.shopId, jobId, entity: "job_limits", entityId: jobId });
+  const consequences: Consequences = {
+    flagsOpened: r.opened.length,
+    flagsClosed: r.closed.length,
+    verdictsChanged: r.verdictChangedStations.length,
+    requiredStations: requiredStationsAffected(requiredNow(ctxBefore), requiredNow(ctxAfter), r.verdictChangedStations),
+  };
+  const result = {
+    reevaluated: r.reevaluated.length,
+    opened: r.opened.length,
+    closed: r.closed.length,
+    updated: r.updatedFlags.length,
+  };
+  return { result, consequences };
+}
+
+/** Thrown to roll a preview back once its counts are known. */
+class PreviewDone extends Error {
+  constructor(readonly applied: Applied) {
+    super("preview rolled back");
+  }
+}
+
+/** What saving these limits would do, counted by the very same save, rolled back. */
+export async function previewJobLimits(actor: Actor, jobId: number, v: JobLimitsValues): Promise<LimitsPreview> {
+  try {
+    await getSequelize().transaction(async (t) => {
+      throw new PreviewDone(await applyLimits(t, actor, jobId, v));
+    });
+  } catch (err) {
+    if (!(err instanceof PreviewDone)) throw err;
+    const c = err.applied.consequences;
+    return { consequences: c, words: consequenceWords(c), wide: isWideChange(c) };
+  }
+  throw new Error("unreachable: a preview always rolls back");
+}
+
+export async function replaceJobLimits(actor: Actor, jobId: number, v: JobLimitsValues): Promise<LimitsSaved> {
+  const applied = await getSequelize().transaction(async (t) => {
+    const a = await applyLimits(t, actor, jobId, v);
+    // A wide change is saved only when the lead confirmed the very number it opens (rolls back otherwise).
+    if (isWideChange(a.consequences) && v.confirmedFlagsOpened !== a.consequences.flagsOpened) {
+      const words = consequenceWords(a.consequences);
+      throw new AppError("conflict", `This change ${words}. Confirm by typing ${a.consequences.flagsOpened}`, {
+        confirmedFlagsOpened: [`Type ${a.consequences.flagsOpened} to confirm the flags this change opens`],
+      });
+    }
+    return a;
+  });
+  return { ...(await getJobLimits(actor.shopId, jobId)), ...applied };
 }

@@ -62,6 +62,8 @@ export type ReconcileResult = {
   closed: number[];
   updatedFlags: number[];
   reevaluated: string[];
+  /** Stations whose current reading's verdict changed (fresh readings aside). */
+  verdictChangedStations: string[];
 };
 /** What a reconciliation reads: the readings in scope with their gauges, and the unclosed flags in scope. */
 export type ReconcileInput = Awaited<ReturnType<typeof jobReadingsWithGauges>> & { flags: UnclosedFlag[] };
@@ -97,7 +99,7 @@ function evaluateCurrent(
 // a deadlock, InnoDB rolls the transaction back and a write already queued behind it would run
 // (and commit) on its own. Reads may follow a write in a pipeline (sql-driver.ts).
 
-/** Stores changed verdicts; returns the re-evaluated ids that were not fresh. */
+/** Stores changed evaluations; returns the re-evaluated ids that were not fresh, and where the verdict moved. */
 async function storeEvaluations(
   t: Transaction,
   o: ReconcileOptions,
@@ -106,12 +108,14 @@ async function storeEvaluations(
   log: ReconcileLog,
 ) {
   const changed: string[] = [];
+  const verdictMoved: string[] = [];
   for (const [i, r] of current.entries()) {
     const { unit: _u, ...e } = evals[i];
     if (sameEvaluation(r, e)) continue;
     await updateEvaluation(t, r.id, e);
     if (o.fresh?.has(r.id)) continue;
     changed.push(r.id);
+    if (r.verdict !== e.verdict) verdictMoved.push(r.stationId);
     const before = {
       verdict: r.verdict,
       verdictNote: r.verdictNote,
@@ -130,7 +134,7 @@ async function storeEvaluations(
     });
     log.changes.push({ shopId: o.shopId, jobId: o.jobId, entity: "reading", entityId: r.id, deviceId: o.deviceId });
   }
-  return changed;
+  return { changed, verdictMoved };
 }
 
 async function syncFlags(
@@ -218,7 +222,7 @@ export async function reconcileJob(
   const past = current.map((r) => r.verdictNote === "gauge_past_due" || gaugePastDue(inst(r), r.takenAt));
   const evals = evaluateCurrent(ctx, current, raws, past, toJudge(ctx, o.fresh));
   const log: ReconcileLog = o.log ?? { audits: [], changes: [] };
-  const reevaluated = await storeEvaluations(t, o, current, evals, log);
+  const { changed: reevaluated, verdictMoved } = await storeEvaluations(t, o, current, evals, log);
 
   const wanted = new Map<string, NewFlag>();
   const byStation = new Map(current.map((r) => [r.stationId, r]));
@@ -246,5 +250,6 @@ export async function reconcileJob(
     await recordAudits(t, log.audits);
     await recordChanges(t, log.changes);
   }
-  return { evaluations: new Map(current.map((r, i) => [r.id, evals[i]])), reevaluated, ...result };
+  const evaluations = new Map(current.map((r, i) => [r.id, evals[i]]));
+  return { evaluations, reevaluated, verdictChangedStations: verdictMoved, ...result };
 }

@@ -1,0 +1,156 @@
+// Plausibility of the figures a person types outside the bench: a spec limit, a job's engine sizes
+// and a build plan. The same ranges as readings (plausible-range.ts), so a limit can never ask for
+// a value no reading could have, and a slipped decimal point is refused where it is typed.
+import { CHARACTERISTICS } from "./stations";
+import type { LengthUnit, LimitType, MeasureUnit } from "./enums";
+import {
+  canonical,
+  farFromNominalBore,
+  figureProblem,
+  plausibleRange,
+  rangeWords,
+  type Range,
+} from "./plausible-range";
+import type { CharacteristicId, EngineShape } from "./types";
+import { cleanDecimal } from "./units";
+
+/** A refusal on one field of a form, in words that say what to fix. */
+export type FieldProblem = { field: string; message: string };
+
+/** The figures of one limit, as the spec sheet and the job's limits write them. */
+export type LimitFigures = {
+  characteristic: CharacteristicId;
+  unit: MeasureUnit;
+  limitType: LimitType;
+  min?: number | null;
+  max?: number | null;
+  nominal?: number | null;
+  tolPlus?: number | null;
+  tolMinus?: number | null;
+  perInchMin?: number | null;
+  perInchMax?: number | null;
+};
+
+/**
+ * A limit per inch of diameter (also mm per mm): ring gaps run about 0.003–0.007 and oil
+ * clearances about 0.001 per inch (common practice, from memory); 0.02 is far above any of them.
+ */
+export const PER_INCH_RANGE: Range = { min: 0, max: 0.02 };
+
+const num = (v: number | null | undefined): v is number => typeof v === "number" && Number.isFinite(v);
+const suitsKind = (l: LimitFigures) =>
+  (CHARACTERISTICS[l.characteristic].kind === "length") === (l.unit === "in" || l.unit === "mm");
+
+/** Every figure of the limit inside its characteristic's plausible range, in its unit. */
+export function limitFigureProblems(l: LimitFigures): FieldProblem[] {
+  if (!CHARACTERISTICS[l.characteristic] || !suitsKind(l)) return []; // the schema names those
+  const out: FieldProblem[] = [];
+  const check = (field: string, value: number | null | undefined) => {
+    const why = num(value) ? figureProblem(l.characteristic, value, l.unit) : undefined;
+    if (why) out.push({ field, message: why });
+  };
+  if (l.limitType === "min_max" || l.limitType === "min_only") check("min", l.min);
+  if (l.limitType === "min_max" || l.limitType === "max_only") check("max", l.max);
+  if (l.limitType === "iso286" && num(l.nominal) && l.nominal > 0) check("nominal", l.nominal);
+  if (l.limitType === "nominal_tol" && num(l.nominal)) {
+    const before = out.length;
+    check("nominal", l.nominal);
+    if (out.length === before) toleranceProblems(l, l.nominal, out);
+  }
+  if (l.limitType === "per_inch") {
+    for (const field of ["perInchMin", "perInchMax"] as const) {
+      const v = l[field];
+      if (num(v) && v > PER_INCH_RANGE.max)
+        out.push({
+          field,
+          message:
+            `${v} per inch of diameter is far more than any real limit (at most ${PER_INCH_RANGE.max}); ` +
+            "check the decimal point",
+        });
+    }
+  }
+  return out;
+}
+
+function toleranceProblems(l: LimitFigures, nominal: number, out: FieldProblem[]) {
+  const range = plausibleRange(l.characteristic);
+  const kind = CHARACTERISTICS[l.characteristic].kind;
+  const edges = [
+    ["tolMinus", l.tolMinus, -1],
+    ["tolPlus", l.tolPlus, 1],
+  ] as const;
+  for (const [field, tol, sign] of edges) {
+    if (!num(tol) || tol < 0) continue; // the schema refuses a negative tolerance
+    const edge = canonical(nominal + sign * tol, l.unit);
+    if (edge >= range.min && edge <= range.max) continue;
+    const side = sign < 0 ? "lower" : "upper";
+    out.push({
+      field,
+      message:
+        `This tolerance puts the ${side} limit at ${cleanDecimal(nominal + sign * tol)} ${l.unit}, outside a real ` +
+        `${CHARACTERISTICS[l.characteristic].label.toLowerCase()} (${rangeWords(range, kind)}); check it`,
+    });
+  }
+}
+
+/** Bore and skirt limits near the engine's nominal bore, as readings are. */
+export function limitEngineProblems(
+  l: LimitFigures,
+  engine: Pick<EngineShape, "unitSystem" | "nominalSizes">,
+): FieldProblem[] {
+  if (l.characteristic !== "bore_diameter" && l.characteristic !== "piston_skirt_diameter") return [];
+  if (l.unit !== "in" && l.unit !== "mm") return [];
+  const fields =
+    l.limitType === "nominal_tol" || l.limitType === "iso286" ? (["nominal"] as const) : (["min", "max"] as const);
+  const out: FieldProblem[] = [];
+  for (const field of fields) {
+    const v = l[field];
+    const why = num(v) ? farFromNominalBore(v, l.unit, engine) : undefined;
+    if (why) out.push({ field, message: why });
+  }
+  return out;
+}
+
+/**
+ * Engine and build-plan sizes that are not measured at a station, in mm (common practice, from
+ * memory; deliberately wide, from small single-cylinder engines to big industrial diesels).
+ */
+export const SIZE_RANGES = {
+  stroke: { min: 20, max: 600 },
+  rodLength: { min: 50, max: 1500 },
+  compressionHeight: { min: 5, max: 300 },
+  gasketThickness: { min: 0, max: 5 },
+  lobeLift: { min: 0, max: 30 },
+} as const satisfies Record<string, Range>;
+export type SizeKind = keyof typeof SIZE_RANGES;
+
+const SIZE_WORDS: Record<SizeKind, string> = {
+  stroke: "stroke",
+  rodLength: "rod length",
+  compressionHeight: "piston compression height",
+  gasketThickness: "gasket thickness",
+  lobeLift: "lobe lift",
+};
+
+/** Why a size cannot be real (outside SIZE_RANGES), or undefined. */
+export function sizeProblem(kind: SizeKind, value: number, unit: LengthUnit): string | undefined {
+  const range = SIZE_RANGES[kind];
+  const v = canonical(value, unit);
+  if (v >= range.min && v <= range.max) return undefined;
+  const words = rangeWords(range, "length");
+  return `${value} ${unit} cannot be a ${SIZE_WORDS[kind]}: a real one is ${words}. Check the decimal point and the unit`;
+}
+
+/** A job's engine as typed: the nominal bore a real bore, the nominal stroke a real stroke. */
+export function engineSizeProblems(
+  e: { nominalBore?: number | null; nominalStroke?: number | null },
+  unit: LengthUnit,
+): FieldProblem[] {
+  const out: FieldProblem[] = [];
+  const bore =
+    num(e.nominalBore) && e.nominalBore > 0 ? figureProblem("bore_diameter", e.nominalBore, unit) : undefined;
+  if (bore) out.push({ field: "nominalBore", message: bore });
+  const stroke = num(e.nominalStroke) && e.nominalStroke > 0 ? sizeProblem("stroke", e.nominalStroke, unit) : undefined;
+  if (stroke) out.push({ field: "nominalStroke", message: stroke });
+  return out;
+}
