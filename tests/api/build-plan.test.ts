@@ -35,6 +35,12 @@ const plan = (over: Record<string, unknown> = {}) => ({
   notes: "Mild street build",
   ...over,
 });
+const IN_MM = Object.fromEntries(
+  (["bore", "stroke", "rodLength", "compressionHeight", "gasketBore", "gasketThickness", "deckHeight"] as const).map(
+    (k) => [k, Number(((plan()[k] as number) * 25.4).toFixed(3))],
+  ),
+);
+const IN_MM_LIFTS = { intakeLobeLift: 7.62, exhaustLobeLift: 7.874, intakeLash: 0.406, exhaustLash: 0.457 };
 const get = async (by: TestUser, id: number | string) =>
   call(GET as never, await asUser(by, "GET", `/api/jobs/${id}/build-plan`), { jobId: String(id) });
 const put = async (by: TestUser, id: number | string, body: unknown) =>
@@ -90,7 +96,8 @@ describe("/api/jobs/[jobId]/build-plan", () => {
     ["a gasket bore under the bore", { gasketBore: 4.0 }, "gasketBore"],
     ["negative lash", { intakeLash: -0.001 }, "intakeLash"],
     ["a rocker ratio of 0", { rockerRatio: 0 }, "rockerRatio"],
-    ["mm on an inch job", { lengthUnit: "mm" }, "lengthUnit"],
+    // The same plan in mm (× 25.4), so only the unit rule refuses it.
+    ["mm on an inch job", { lengthUnit: "mm", ...IN_MM, ...IN_MM_LIFTS }, "lengthUnit"],
     ["a piston top we do not know", { pistonTop: "pop-up" }, "pistonTop"],
     ["an unknown field", { camDuration: 270 }, "_"],
   ])("422 for %s, naming %s", async (_w, over, field) => {

@@ -258,7 +258,14 @@ describe("GET and PATCH /api/jobs/[jobId]", () => {
       takenAt: new Date(),
       deviceId: "t",
     });
-    const refused = await patch(a.users.lead, a.job.id, await editBody(a.job.id, { unitSystem: "mm" }));
+    // The engine's sizes in mm too (4.03 in = 102.362 mm, 3.48 in = 88.392 mm), so only the unit rule refuses.
+    const d = (await one(a.users.lead, a.job.id)).body;
+    const engineMm = { ...d.engine, nominalBore: 102.362, nominalStroke: 88.392 };
+    const refused = await patch(
+      a.users.lead,
+      a.job.id,
+      await editBody(a.job.id, { unitSystem: "mm", engine: engineMm }),
+    );
     expect(refused.status).toBe(409);
     expect(refused.body.error.fields.unitSystem).toBeDefined();
   });

@@ -135,7 +135,8 @@ describe("GET and POST /api/specs", () => {
           stationPattern,
           limitType: "max_only",
           unit: torque ? "lbf_ft" : "in",
-          max: torque ? 20 : 0.02,
+          // Plausible maxima (plausible-range.ts): a deck height is a height, the rest are small gaps.
+          max: torque ? 20 : characteristic === "deck_height" ? 9.03 : 0.002,
           required: false,
         },
       ]),
