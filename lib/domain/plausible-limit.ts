@@ -4,6 +4,7 @@
 import { CHARACTERISTICS } from "./stations";
 import type { LengthUnit, LimitType, MeasureUnit } from "./enums";
 import {
+  NOMINAL_BORE_SLACK,
   canonical,
   farFromNominalBore,
   figureProblem,
@@ -11,7 +12,7 @@ import {
   rangeWords,
   type Range,
 } from "./plausible-range";
-import type { CharacteristicId, EngineShape } from "./types";
+import type { CharacteristicId, EngineShape, NominalSizes } from "./types";
 import { cleanDecimal } from "./units";
 
 /** A refusal on one field of a form, in words that say what to fix. */
@@ -152,5 +153,72 @@ export function engineSizeProblems(
   if (bore) out.push({ field: "nominalBore", message: bore });
   const stroke = num(e.nominalStroke) && e.nominalStroke > 0 ? sizeProblem("stroke", e.nominalStroke, unit) : undefined;
   if (stroke) out.push({ field: "nominalStroke", message: stroke });
+  return out;
+}
+
+/**
+ * A tolerance around the job's own size (job_size_tol) is thousandths of an inch; one over 1 mm
+ * (0.039 in) is a slipped decimal point (common practice, from memory).
+ */
+export const JOB_SIZE_TOLERANCE_MAX_MM = 1;
+
+/** The tolerances of a job_size_tol limit: no larger than a real one. */
+export function jobSizeToleranceProblems(l: LimitFigures): FieldProblem[] {
+  if (l.limitType !== "job_size_tol" || (l.unit !== "in" && l.unit !== "mm")) return [];
+  const out: FieldProblem[] = [];
+  for (const field of ["tolPlus", "tolMinus"] as const) {
+    const v = l[field];
+    if (num(v) && v > 0 && canonical(v, l.unit) > JOB_SIZE_TOLERANCE_MAX_MM)
+      out.push({
+        field,
+        message:
+          `${v} ${l.unit} is far wider than a tolerance on a finished size (at most ` +
+          `${rangeWords({ min: 0, max: JOB_SIZE_TOLERANCE_MAX_MM }, "length")}); check the decimal point and the unit`,
+      });
+  }
+  return out;
+}
+
+const SIZE_CHARACTERISTIC: Record<keyof NominalSizes, CharacteristicId> = {
+  bore: "bore_diameter",
+  mainJournal: "main_journal_diameter",
+  rodJournal: "rod_journal_diameter",
+};
+const SIZE_NAMES: Record<keyof NominalSizes, string> = {
+  bore: "bore",
+  mainJournal: "main journal size",
+  rodJournal: "rod journal size",
+};
+
+/**
+ * A job's finished sizes (in `unit`): each a real one, and within NOMINAL_BORE_SLACK of the
+ * engine's design size when the engine states it (an overbore or an undersize grind is a few
+ * hundredths of an inch, never a tenth of the size).
+ */
+export function finishedSizeProblems(
+  finished: NominalSizes,
+  unit: LengthUnit,
+  nominal: NominalSizes = {},
+): { size: keyof NominalSizes; message: string }[] {
+  const out: { size: keyof NominalSizes; message: string }[] = [];
+  for (const size of Object.keys(SIZE_CHARACTERISTIC) as (keyof NominalSizes)[]) {
+    const v = finished[size];
+    if (!num(v) || v <= 0) continue;
+    const real = figureProblem(SIZE_CHARACTERISTIC[size], v, unit);
+    if (real) {
+      out.push({ size, message: real });
+      continue;
+    }
+    const design = nominal[size];
+    if (!num(design) || design <= 0) continue;
+    const diff = Math.abs(canonical(v, unit) - canonical(design, unit));
+    if (diff > NOMINAL_BORE_SLACK * canonical(design, unit) + 1e-9)
+      out.push({
+        size,
+        message:
+          `${v} ${unit} is more than ${NOMINAL_BORE_SLACK * 100}% away from the engine's ${design} ${unit} ` +
+          `${SIZE_NAMES[size]}. Check the decimal point and the unit`,
+      });
+  }
   return out;
 }

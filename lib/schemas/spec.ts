@@ -49,6 +49,7 @@ import {
   iso286Deviations,
   JOB_SIZE_OF,
   JOB_SIZE_WORDS,
+  jobSizeToleranceProblems,
   limitFigureProblems,
   type CharacteristicId,
 } from "@/lib/domain";
@@ -176,7 +177,7 @@ export const limitSchema = z
         break;
     }
     // Every figure a real value of the characteristic could have, in its unit (the core's ranges).
-    for (const p of limitFigureProblems(l)) add(p.field, p.message);
+    for (const p of [...limitFigureProblems(l), ...jobSizeToleranceProblems(l)]) add(p.field, p.message);
   });
 
 export type LimitInput = z.input<typeof limitSchema>;

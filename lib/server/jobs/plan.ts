@@ -52,7 +52,7 @@ export async function saveBuildPlan(actor: Actor, jobId: number, plan: BuildPlan
     }
     // The schema checked each size alone; the bore is also checked against this engine's own.
     const engine = await getEngineOrThrow(job.engineId);
-    const problems = planFigureProblems(plan, toEngineShape(engine, job.unitSystem));
+    const problems = planFigureProblems(plan, toEngineShape(engine, job));
     if (problems.length) {
       const fields = Object.fromEntries(problems.map((p) => [p.field, [p.message]]));
       throw new AppError("invalid", "Some fields need fixing", fields);

@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
 import {
   engineSizeProblems,
+  finishedSizeProblems,
+  jobSizeToleranceProblems,
   limitEngineProblems,
   limitFigureProblems,
   type LimitFigures,
@@ -120,5 +122,23 @@ describe("engineSizeProblems", () => {
   it("accepts a small-block V8 in inches and a tractor diesel in mm", () => {
     expect(engineSizeProblems({ nominalBore: 4.03, nominalStroke: 3.48 }, "in")).toEqual([]);
     expect(engineSizeProblems({ nominalBore: 104, nominalStroke: 132 }, "mm")).toEqual([]);
+  });
+});
+
+describe("a job's finished sizes and the tolerances around them", () => {
+  it("accepts a 0.030 in overbore and a 0.010 in undersize grind", () => {
+    const nominal = { bore: 4.0, mainJournal: 2.45, rodJournal: 2.1 };
+    expect(finishedSizeProblems({ bore: 4.03, mainJournal: 2.44, rodJournal: 2.09 }, "in", nominal)).toEqual([]);
+  });
+  it("refuses a finished bore far from the engine's, and a journal typed in mm on an inch job", () => {
+    const p = finishedSizeProblems({ bore: 4.6, rodJournal: 53.3 }, "in", { bore: 4.0, rodJournal: 2.1 });
+    expect(p.map((x) => x.size)).toEqual(["bore", "rodJournal"]);
+    expect(p[0].message).toMatch(/more than 10% away from the engine's 4 in bore/);
+    expect(p[1].message).toMatch(/53.3 in cannot be a rod journal diameter/);
+  });
+  it("refuses a finished-size tolerance wider than 1 mm (0.0394 in)", () => {
+    const l = { characteristic: "bore_diameter", unit: "in", limitType: "job_size_tol" } as const;
+    expect(jobSizeToleranceProblems({ ...l, tolPlus: 0.0005, tolMinus: 0 })).toEqual([]);
+    expect(jobSizeToleranceProblems({ ...l, tolPlus: 0.05, tolMinus: 0 }).map((p) => p.field)).toEqual(["tolPlus"]);
   });
 });
