@@ -5,7 +5,7 @@ import { EXPANSION_COEFFICIENTS } from "@/lib/domain";
 import { MATERIALS, type JobInput } from "@/lib/schemas/job";
 import { Field, NumberField, SelectField, asNumber, messageOf } from "./fields";
 
-// The engine as it came in: shape (what the bench route is built from), nominal sizes,
+// The engine as it came in: shape (what the bench route is built from), standard (nominal) sizes,
 // materials (for the 20 °C correction) and serials.
 function MaterialOptions({ optional }: { optional?: boolean }) {
   return (
@@ -72,6 +72,20 @@ export function JobFormEngine() {
         suffix={unit}
         error={messageOf(e?.nominalStroke)}
         {...register("engine.nominalStroke", asNumber)}
+      />
+      <NumberField
+        label="Standard main journal"
+        suffix={unit}
+        hint="Optional; the crank's size before any grinding"
+        error={messageOf(e?.nominalMainJournal)}
+        {...register("engine.nominalMainJournal", asNumber)}
+      />
+      <NumberField
+        label="Standard rod journal"
+        suffix={unit}
+        hint="Optional"
+        error={messageOf(e?.nominalRodJournal)}
+        {...register("engine.nominalRodJournal", asNumber)}
       />
       <SelectField label="Block material" error={messageOf(e?.blockMaterial)} {...register("engine.blockMaterial")}>
         <MaterialOptions />

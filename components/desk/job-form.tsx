@@ -12,11 +12,13 @@ import { STATUS_WORDS } from "@/components/job-status";
 import { AreaField, Field, SelectField, ServerError, applyFieldErrors, asNumber, messageOf } from "./fields";
 import { JobFormCustomer } from "./job-form-customer";
 import { JobFormEngine } from "./job-form-engine";
+import { JobFormSizes } from "./job-form-sizes";
 import { keys, useTemplates, type JobDetail } from "./queries";
 
 // Create or edit a job with the one shared schema (lib/schemas/job.ts). Creating picks the
 // spec sheet whose limits the job copies; editing leaves the job's own limits alone.
-// Customer, spec sheet, bore and stroke start empty: the lead must choose or enter them.
+// Customer, spec sheet, bore and stroke start empty: the lead must choose or enter them; the
+// finished sizes follow the engine's until the lead states the job's own.
 export const NEW_JOB: DefaultValues<JobInput> = {
   code: "",
   title: "",
@@ -40,7 +42,10 @@ export const NEW_JOB: DefaultValues<JobInput> = {
     crankSerial: "",
     headSerials: "",
     fuel: null,
+    nominalMainJournal: null,
+    nominalRodJournal: null,
   },
+  finishedSizes: { bore: null, mainJournal: null, rodJournal: null },
 };
 
 /** The edit form's values from a job's detail (also used for quick status moves). */
@@ -62,6 +67,12 @@ export function editValuesOf(d: JobDetail): Omit<JobInput, "templateId"> {
       blockSerial: engine.blockSerial ?? "",
       crankSerial: engine.crankSerial ?? "",
       headSerials: engine.headSerials ?? "",
+    },
+    // A size the job has not stated yet starts from the build plan's bore, else the engine's size.
+    finishedSizes: {
+      bore: d.job.finishedSizes.bore ?? d.job.planBore ?? d.engine.nominalBore,
+      mainJournal: d.job.finishedSizes.mainJournal ?? d.engine.nominalMainJournal,
+      rodJournal: d.job.finishedSizes.rodJournal ?? d.engine.nominalRodJournal,
     },
   };
 }
@@ -184,6 +195,7 @@ export function JobForm({ job }: { job?: JobDetail }) {
         </fieldset>
         <JobFormCustomer />
         <JobFormEngine />
+        <JobFormSizes planBore={job?.job.planBore} />
         <div className="flex gap-3">
           <Button type="submit" big disabled={save.isPending}>
             {save.isPending ? "Saving…" : editing ? "Save changes" : "Create job"}

@@ -10,6 +10,7 @@ import { api } from "@/lib/client/api";
 import { Loading, LoadFailed, ServerError } from "./fields";
 import { editValuesOf } from "./job-form";
 import { JobLockPanel } from "./job-lock-panel";
+import { JobFinishedSizes } from "./job-finished-sizes";
 import { JobSummary } from "./job-summary";
 import { keys, useJob, type JobDetail } from "./queries";
 
@@ -56,6 +57,9 @@ function Facts({ d }: { d: JobDetail }) {
         <span className="tabular">
           {e.nominalBore} × {e.nominalStroke} {u}
         </span>
+      </Fact>
+      <Fact label="Finished sizes">
+        <JobFinishedSizes d={d} />
       </Fact>
       <Fact label="Units">{UNIT_SYSTEM_WORDS[u]}</Fact>
       <Fact label="Materials">

@@ -48,7 +48,7 @@ function startValues(v: BuildPlanView): BuildPlanInput {
   if (v.plan) return v.plan;
   return {
     lengthUnit: v.job.unitSystem,
-    bore: v.engine.nominalBore,
+    bore: v.job.finishedBore ?? v.engine.nominalBore,
     stroke: v.engine.nominalStroke,
     pistonTop: "flat",
     rodLength: null,

@@ -91,6 +91,15 @@ export function pistonCcOf(plan: Pick<BuildPlan, "pistonTop" | "pistonVolumeCc">
 /** GET /api/jobs/:id/build-plan: the stored plan (null when none or no longer valid) and what it needs of the job. */
 export type BuildPlanView = {
   plan: BuildPlan | null;
-  job: { id: number; code: string; title: string; status: string; unitSystem: UnitSystem; locked: boolean };
+  /** finishedBore: the bore the job machines to, which a new plan starts from (else the engine's). */
+  job: {
+    id: number;
+    code: string;
+    title: string;
+    status: string;
+    unitSystem: UnitSystem;
+    locked: boolean;
+    finishedBore: number | null;
+  };
   engine: { cylinders: number; nominalBore: number; nominalStroke: number; description: string };
 };

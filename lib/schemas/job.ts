@@ -14,6 +14,7 @@ import {
   type Verdict,
 } from "@/lib/domain";
 import { FUELS, UNIT_SYSTEMS, type Fuel, type UnitSystem } from "@/lib/schemas/enums";
+import { engineJournalFields, finishedSizesSchema, type FinishedSizes } from "./job-sizes";
 import type { LimitValues } from "./spec";
 
 /** Statuses the desk sets: the open ones; released and closed belong to the release step. */
@@ -73,6 +74,7 @@ export const engineSchema = z
     boltsPerRod: whole("bolts per rod", 1, 4),
     nominalBore: size("nominal bore"),
     nominalStroke: size("nominal stroke"),
+    ...engineJournalFields,
     blockMaterial: material("block"),
     headMaterial: material("head").nullish(),
     pistonMaterial: material("piston").nullish(),
@@ -132,6 +134,8 @@ const jobFields = z.strictObject({
   dueDate: z.union([z.literal(""), isoDate]).nullish(),
   status: z.enum(DESK_STATUSES, { error: "Pick intake, measuring or review" }),
   notes: text(4000, "notes"),
+  /** Left out: on create, the bore is taken as the engine's nominal; on edit, the stored sizes stay. */
+  finishedSizes: finishedSizesSchema.optional(),
 });
 
 /** The engine's sizes are real ones in the job's unit (a 40 in bore is a slipped decimal point). */
@@ -201,6 +205,9 @@ export type JobDetail = {
     templateName: string | null;
     limitCount: number;
     hasBuildPlan: boolean;
+    finishedSizes: FinishedSizes;
+    /** The build plan's bore in the job's units, when the plan gives one (the form offers it). */
+    planBore: number | null;
     createdAt: string;
     updatedAt: string;
   };
@@ -215,6 +222,8 @@ export type JobDetail = {
     boltsPerRod: number;
     nominalBore: number;
     nominalStroke: number;
+    nominalMainJournal: number | null;
+    nominalRodJournal: number | null;
     blockMaterial: string;
     headMaterial: string | null;
     pistonMaterial: string | null;

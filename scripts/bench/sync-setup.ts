@@ -54,6 +54,9 @@ async function fixture(jobs: number) {
       title: `Bench job ${i + 1}`,
       unitSystem: "in",
       status: "measuring",
+      finishedBore: 4.03,
+      finishedMainJournal: 2.449,
+      finishedRodJournal: 2.099,
     });
     await JobLimit.bulkCreate(STREET_V8_INCH.map((l, k) => ({ ...l, jobId: job.id, sortOrder: k })) as never[]);
     jobIds.push(job.id);

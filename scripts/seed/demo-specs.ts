@@ -1,6 +1,8 @@
 // DEMO DATA ONLY. Invented spec sheets for the invented demo shop. The figures are plausible
 // shop values chosen for the demo, not published limits; real limits come from the engine,
 // piston, bearing and fastener makers' instructions.
+// Bores and journals follow each job's finished sizes (job_size_tol, or ISO 286 without a
+// nominal), so one sheet serves every overbore and undersize; the demo jobs state their sizes.
 import type { LimitType } from "@/lib/domain";
 
 type Limit = {
@@ -37,11 +39,11 @@ const L = (
 });
 
 export const STREET_V8_INCH: Limit[] = [
-  L("bore_diameter", "nominal_tol", "in", {
-    nominal: 4.03,
+  L("bore_diameter", "job_size_tol", "in", {
     tolPlus: 0.0004,
     tolMinus: 0.0001,
     gaugeKind: "dial-bore-gauge",
+    label: "Finished bore −0.0001/+0.0004",
   }),
   L("bore_taper", "max_only", "in", { max: 0.0005 }),
   L("bore_out_of_round", "max_only", "in", { max: 0.0005 }),
@@ -52,18 +54,8 @@ export const STREET_V8_INCH: Limit[] = [
     gaugeKind: "micrometer",
   }),
   L("piston_to_wall", "min_max", "in", { min: 0.0012, max: 0.0022 }),
-  L("main_journal_diameter", "nominal_tol", "in", {
-    nominal: 2.449,
-    tolPlus: 0.0005,
-    tolMinus: 0.0005,
-    gaugeKind: "micrometer",
-  }),
-  L("rod_journal_diameter", "nominal_tol", "in", {
-    nominal: 2.099,
-    tolPlus: 0.0005,
-    tolMinus: 0.0005,
-    gaugeKind: "micrometer",
-  }),
+  L("main_journal_diameter", "job_size_tol", "in", { tolPlus: 0.0005, tolMinus: 0.0005, gaugeKind: "micrometer" }),
+  L("rod_journal_diameter", "job_size_tol", "in", { tolPlus: 0.0005, tolMinus: 0.0005, gaugeKind: "micrometer" }),
   L("main_journal_taper", "max_only", "in", { max: 0.0003 }),
   L("main_journal_out_of_round", "max_only", "in", { max: 0.0003 }),
   L("rod_journal_taper", "max_only", "in", { max: 0.0003 }),
@@ -93,7 +85,7 @@ export const STREET_V8_INCH: Limit[] = [
 ];
 
 export const TRACTOR_DIESEL_MM: Limit[] = [
-  L("bore_diameter", "iso286", "mm", { nominal: 104, isoClass: "H7", gaugeKind: "dial-bore-gauge" }),
+  L("bore_diameter", "iso286", "mm", { isoClass: "H7", gaugeKind: "dial-bore-gauge", label: "Finished bore H7" }),
   L("bore_taper", "max_only", "mm", { max: 0.015 }),
   L("bore_out_of_round", "max_only", "mm", { max: 0.012 }),
   L("piston_skirt_diameter", "nominal_tol", "mm", {
@@ -103,8 +95,8 @@ export const TRACTOR_DIESEL_MM: Limit[] = [
     gaugeKind: "micrometer",
   }),
   L("piston_to_wall", "min_max", "mm", { min: 0.1, max: 0.16 }),
-  L("main_journal_diameter", "min_max", "mm", { min: 84.98, max: 85.0, gaugeKind: "micrometer" }),
-  L("rod_journal_diameter", "min_max", "mm", { min: 69.98, max: 70.0, gaugeKind: "micrometer" }),
+  L("main_journal_diameter", "job_size_tol", "mm", { tolPlus: 0, tolMinus: 0.02, gaugeKind: "micrometer" }),
+  L("rod_journal_diameter", "job_size_tol", "mm", { tolPlus: 0, tolMinus: 0.02, gaugeKind: "micrometer" }),
   L("main_journal_taper", "max_only", "mm", { max: 0.008 }),
   L("main_journal_out_of_round", "max_only", "mm", { max: 0.008 }),
   L("rod_journal_taper", "max_only", "mm", { max: 0.008 }),
@@ -127,12 +119,26 @@ export const TRACTOR_DIESEL_MM: Limit[] = [
   L("fastener_torque", "min_max", "nm", { min: 200, max: 220, gaugeKind: "torque-wrench" }, "torque/damper"),
 ];
 
+/** The sizes each demo job states, in its units (invented demo figures). */
+export const DEMO_SIZES = {
+  v8: {
+    engine: { nominalBore: 4.0, nominalMainJournal: 2.449, nominalRodJournal: 2.099 },
+    job: { finishedBore: 4.03, finishedMainJournal: 2.449, finishedRodJournal: 2.099 },
+  },
+  diesel: {
+    engine: { nominalBore: 103.5, nominalMainJournal: 85.0, nominalRodJournal: 70.0 },
+    job: { finishedBore: 104.0, finishedMainJournal: 85.0, finishedRodJournal: 70.0 },
+  },
+  six: {
+    engine: { nominalBore: 3.5625, nominalMainJournal: 2.4985, nominalRodJournal: 2.1235 },
+    job: { finishedBore: 3.5925, finishedMainJournal: 2.4985, finishedRodJournal: 2.1235 },
+  },
+} as const;
+
 export const VINTAGE_SIX_INCH: Limit[] = STREET_V8_INCH.map((l) => {
   const over: Record<string, Partial<Limit>> = {
-    bore_diameter: { nominal: 3.5925, tolPlus: 0.0005, tolMinus: 0.0001 },
+    bore_diameter: { tolPlus: 0.0005, tolMinus: 0.0001, label: "Finished bore −0.0001/+0.0005" },
     piston_skirt_diameter: { nominal: 3.5905, tolPlus: 0.0003, tolMinus: 0.0003 },
-    main_journal_diameter: { nominal: 2.4985, tolPlus: 0.0005, tolMinus: 0.0005 },
-    rod_journal_diameter: { nominal: 2.1235, tolPlus: 0.0005, tolMinus: 0.0005 },
     deck_height: { nominal: 9.38, tolPlus: 0.004, tolMinus: 0.004 },
     piston_to_wall: { min: 0.0015, max: 0.0025 },
   };

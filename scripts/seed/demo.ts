@@ -5,7 +5,7 @@ import { readFileSync } from "node:fs";
 import type { Role, UnitSystem } from "@/lib/schemas/enums";
 import { models } from "@/lib/server/core/db";
 import { seedDemoReadings } from "./demo-readings";
-import { STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-specs";
+import { DEMO_SIZES, STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-specs";
 
 type Demo = {
   shop: string;
@@ -41,13 +41,15 @@ async function template(
   return t;
 }
 
+type FinishedSizes = { finishedBore: number; finishedMainJournal: number; finishedRodJournal: number };
+
 async function job(
   shopId: number,
   customerId: number,
   engineId: number,
   t: { id: number },
   limits: typeof STREET_V8_INCH,
-  fields: { code: string; title: string; unitSystem: UnitSystem; dueDate: string; notes: string },
+  fields: { code: string; title: string; unitSystem: UnitSystem; dueDate: string; notes: string } & FinishedSizes,
 ) {
   const { Job, JobLimit } = models();
   const j = await Job.create({ shopId, customerId, engineId, templateId: t.id, status: "measuring", ...fields });
@@ -100,7 +102,7 @@ export async function seedDemo(): Promise<DemoContext> {
     layout: "v",
     mains: 5,
     unitSystem: "in",
-    nominalBore: 4.03,
+    ...DEMO_SIZES.v8.engine,
     nominalStroke: 3.48,
     blockMaterial: "greyCastIron",
     headMaterial: "greyCastIron",
@@ -118,7 +120,7 @@ export async function seedDemo(): Promise<DemoContext> {
     layout: "inline",
     mains: 5,
     unitSystem: "mm",
-    nominalBore: 104,
+    ...DEMO_SIZES.diesel.engine,
     nominalStroke: 132,
     blockMaterial: "greyCastIron",
     headMaterial: "greyCastIron",
@@ -136,7 +138,7 @@ export async function seedDemo(): Promise<DemoContext> {
     layout: "inline",
     mains: 7,
     unitSystem: "in",
-    nominalBore: 3.5925,
+    ...DEMO_SIZES.six.engine,
     nominalStroke: 3.75,
     blockMaterial: "greyCastIron",
     headMaterial: "greyCastIron",
@@ -168,6 +170,7 @@ export async function seedDemo(): Promise<DemoContext> {
   const jobs = {
     v8: await job(shop.id, pickup.id, v8.id, tV8, STREET_V8_INCH, {
       code: "KF-2611",
+      ...DEMO_SIZES.v8.job,
       title: "Pickup V8 rebuild",
       unitSystem: "in",
       dueDate: "2026-12-18",
@@ -175,6 +178,7 @@ export async function seedDemo(): Promise<DemoContext> {
     }),
     diesel: await job(shop.id, farm.id, diesel.id, tDiesel, TRACTOR_DIESEL_MM, {
       code: "KF-2612",
+      ...DEMO_SIZES.diesel.job,
       title: "Tractor diesel overhaul",
       unitSystem: "mm",
       dueDate: "2026-12-11",
@@ -182,6 +186,7 @@ export async function seedDemo(): Promise<DemoContext> {
     }),
     six: await job(shop.id, vintage.id, six.id, tSix, VINTAGE_SIX_INCH, {
       code: "KF-2613",
+      ...DEMO_SIZES.six.job,
       title: "Vintage six freshen-up",
       unitSystem: "in",
       dueDate: "2027-01-15",

@@ -23,7 +23,8 @@ const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as {
 const lead = demo.accounts.find((a) => a.role === "lead")!;
 
 // A combination for the demo vintage inline six, KF-2613 (invented test figures, inches and cc).
-// Bore and stroke come pre-filled from the engine's nominal sizes (3.5925 × 3.75 in, six cylinders).
+// Bore and stroke come pre-filled from the job's finished bore and the engine's stroke (3.5925 × 3.75 in,
+// six cylinders).
 const PLAN = {
   rodLength: 6.125,
   compressionHeight: 1.37,
@@ -176,7 +177,7 @@ describe("the lead's build plan", () => {
     await page.goto("/desk/specs");
     await page.getByRole("link", { name: "Vintage inline six, mild street" }).click();
     await page.getByRole("heading", { name: "Vintage inline six, mild street" }).waitFor();
-    await page.getByText("Accepts 3.5924 to 3.593 in (nominal 3.5925)").waitFor();
+    await page.getByText("Accepts each job's finished bore −0.0001 / +0.0005 in").first().waitFor();
     await page.screenshot({ path: "tests/artifacts/desk-spec-sheet.png" }); // the top of a long sheet
   });
 });

@@ -97,6 +97,9 @@ export async function prepareInspectorJob(leaveOut: string[]) {
     unitSystem: "in",
     status: "review",
     notes: "Prepared by the inspector browser test.",
+    finishedBore: six.finishedBore,
+    finishedMainJournal: six.finishedMainJournal,
+    finishedRodJournal: six.finishedRodJournal,
   });
   const limits = await JobLimit.findAll({ where: { jobId: six.id } });
   await JobLimit.bulkCreate(

@@ -9,6 +9,7 @@ import { recordChange } from "@/lib/server/sync/repo";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import { assertJobEditable } from "@/lib/server/jobs/editable";
+import { rejudgeOnSizeChange, sizeColumns, sizesOf } from "@/lib/server/job-edit/sizes";
 
 // Creating and editing jobs and customers from the desk: the feature's only door to the
 // database. Every write is one transaction with its audit event; a job's status change also goes
@@ -68,6 +69,8 @@ function engineFields(e: JobValues["engine"], unitSystem: UnitSystem) {
     unitSystem,
     nominalBore: e.nominalBore,
     nominalStroke: e.nominalStroke,
+    nominalMainJournal: e.nominalMainJournal ?? null,
+    nominalRodJournal: e.nominalRodJournal ?? null,
     blockMaterial: e.blockMaterial,
     headMaterial: e.headMaterial ?? null,
     pistonMaterial: e.pistonMaterial ?? null,
@@ -135,8 +138,16 @@ export async function createJob(actor: Actor, v: JobValues): Promise<{ id: numbe
       { shopId: actor.shopId, customerId: customer.id, ...engineFields(v.engine, v.unitSystem) },
       { transaction: t },
     );
+    const sizes = sizeColumns(v, v.engine);
     const job = await Job.create(
-      { shopId: actor.shopId, customerId: customer.id, engineId: engine.id, templateId: template.id, ...jobFields(v) },
+      {
+        shopId: actor.shopId,
+        customerId: customer.id,
+        engineId: engine.id,
+        templateId: template.id,
+        ...jobFields(v),
+        ...sizes,
+      },
       { transaction: t },
     ).catch((err) => duplicateCode(err, v.code));
     const limitCount = await snapshotLimits(t, template.id, job.id);
@@ -148,6 +159,7 @@ export async function createJob(actor: Actor, v: JobValues): Promise<{ id: numbe
       entityId: job.id,
       after: {
         ...jobFields(v),
+        ...sizes,
         customerId: customer.id,
         engine: engineFields(v.engine, v.unitSystem),
         templateId: template.id,
@@ -174,16 +186,19 @@ export async function updateJob(actor: Actor, jobId: number, v: JobEditValues): 
       });
     }
     const customer = await customerFor(t, actor, v.customer);
+    const sizesBefore = sizesOf(job, engine);
+    const sizes = sizeColumns(v, v.engine, sizesBefore);
     const before = {
       ...jobFields(job as unknown as JobEditValues),
+      ...sizeColumns({} as JobEditValues, engine, sizesBefore),
       customerId: job.customerId,
       engine: engineFields(engine as unknown as JobValues["engine"], engine.unitSystem),
     };
     await engine.update({ ...engineFields(v.engine, v.unitSystem), customerId: customer.id }, { transaction: t });
     await job
-      .update({ ...jobFields(v), customerId: customer.id }, { transaction: t })
+      .update({ ...jobFields(v), ...sizes, customerId: customer.id }, { transaction: t })
       .catch((err) => duplicateCode(err, v.code));
-    const after = { ...jobFields(v), customerId: customer.id, engine: engineFields(v.engine, v.unitSystem) };
+    const after = { ...jobFields(v), ...sizes, customerId: customer.id, engine: engineFields(v.engine, v.unitSystem) };
     await recordAudit(t, {
       shopId: actor.shopId,
       userId: actor.userId,
@@ -193,6 +208,7 @@ export async function updateJob(actor: Actor, jobId: number, v: JobEditValues): 
       before,
       after,
     });
+    await rejudgeOnSizeChange(t, actor, job.id, sizesBefore, sizesOf(job, engine));
     await recordChange(t, { shopId: actor.shopId, jobId: job.id, entity: "job", entityId: job.id });
     return { id: job.id };
   });

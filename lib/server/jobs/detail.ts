@@ -12,6 +12,7 @@ import type { JobDetail, SectionSummary, VerdictCounts } from "@/lib/schemas/job
 import type { JobContext } from "@/lib/server/jobs/context";
 import { loadJobReadings, type JobReadings } from "@/lib/server/jobs/readings";
 import { activeRelease } from "@/lib/server/release/repo";
+import { parseStoredPlan } from "@/lib/server/jobs/plan";
 import { findCustomer, flagCountsByJob, loadJobContext, templateName } from "@/lib/server/jobs/repo";
 
 // One job for its desk page: header fields, the engine as entered, and a readings summary per
@@ -84,6 +85,12 @@ export async function getJobDetail(shopId: number, jobId: number): Promise<JobDe
       templateName: template,
       limitCount: ctx.spec.length,
       hasBuildPlan: !!job.buildPlan,
+      finishedSizes: {
+        bore: job.finishedBore ?? null,
+        mainJournal: job.finishedMainJournal ?? null,
+        rodJournal: job.finishedRodJournal ?? null,
+      },
+      planBore: parseStoredPlan(job.buildPlan)?.bore ?? null,
       createdAt: job.createdAt.toISOString(),
       updatedAt: job.updatedAt.toISOString(),
     },
@@ -103,6 +110,8 @@ export async function getJobDetail(shopId: number, jobId: number): Promise<JobDe
       boltsPerRod: engine.boltsPerRod,
       nominalBore: engine.nominalBore,
       nominalStroke: engine.nominalStroke,
+      nominalMainJournal: engine.nominalMainJournal ?? null,
+      nominalRodJournal: engine.nominalRodJournal ?? null,
       blockMaterial: engine.blockMaterial,
       headMaterial: engine.headMaterial ?? null,
       pistonMaterial: engine.pistonMaterial ?? null,

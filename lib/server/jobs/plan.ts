@@ -13,7 +13,7 @@ import { getEngineOrThrow, getJobOrThrow, lockJobOrThrow, saveJobBuildPlan } fro
 // The build plan lives on jobs.build_plan as the schema's JSON (units written in).
 
 /** A stored plan read back through the schema, so an old or hand-edited value never reaches the page unchecked. */
-function parseStored(raw: unknown): BuildPlan | null {
+export function parseStoredPlan(raw: unknown): BuildPlan | null {
   if (!raw) return null;
   const parsed = buildPlanSchema.safeParse(raw);
   return parsed.success ? parsed.data : null;
@@ -23,7 +23,7 @@ export async function getBuildPlan(shopId: number, jobId: number): Promise<Build
   const job = await getJobOrThrow(shopId, jobId);
   const engine = await getEngineOrThrow(job.engineId);
   return {
-    plan: parseStored(job.buildPlan),
+    plan: parseStoredPlan(job.buildPlan),
     job: {
       id: job.id,
       code: job.code,
@@ -31,6 +31,7 @@ export async function getBuildPlan(shopId: number, jobId: number): Promise<Build
       status: job.status,
       unitSystem: job.unitSystem,
       locked: isJobLocked(job),
+      finishedBore: job.finishedBore ?? null,
     },
     engine: {
       cylinders: engine.cylinders,
