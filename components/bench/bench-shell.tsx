@@ -51,6 +51,10 @@ async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> 
   }
 }
 
+/** Where to come back to after signing in: this bench page (offline, any other page opens as the bench shell). */
+const benchPath = () =>
+  window.location.pathname.startsWith("/bench") ? window.location.pathname + window.location.search : undefined;
+
 let engine: ReturnType<typeof lazyEngine> | undefined;
 
 async function boot(): Promise<Boot> {
@@ -108,7 +112,7 @@ export function BenchShell({ children }: { children: ReactNode }) {
   if (state.kind === "locked")
     return (
       <Suspense fallback={null}>
-        <SignInScreen next={window.location.pathname + window.location.search} />
+        <SignInScreen next={benchPath()} />
       </Suspense>
     );
   return (

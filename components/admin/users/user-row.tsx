@@ -74,7 +74,9 @@ export function UserRow({
             </option>
           ))}
         </select>
-        {isSelf && <p className="mt-1 text-xs text-muted">Another admin changes your role.</p>}
+        <p className="mt-1 text-xs text-muted">
+          {isSelf ? "Another admin changes your role." : "A new role signs them out on every device."}
+        </p>
       </td>
       <td className="p-3">
         {user.active ? <StatusTag tone="good">Active</StatusTag> : <StatusTag tone="off">Deactivated</StatusTag>}
@@ -119,10 +121,16 @@ export function UserRow({
           )}
         </div>
         {confirm === "deactivate" && (
-          <p className="mt-1 text-sm text-muted">They can no longer sign in; their records stay.</p>
+          <p className="mt-1 text-sm text-muted">
+            They are signed out on every device and can no longer sign in; their records stay.
+          </p>
         )}
         {confirm === "reset" && (
-          <p className="mt-1 text-sm text-muted">Their current password stops working at once.</p>
+          <p className="mt-1 text-sm text-muted">
+            {isSelf
+              ? "Your current password stops working at once, and your other devices are signed out."
+              : "Their current password stops working at once, and they are signed out on every device."}
+          </p>
         )}
         {error && (
           <p role="alert" className="mt-2 text-sm font-medium text-fail">

@@ -1,0 +1,151 @@
+// Two machinists on one shared tablet, in Chromium with the service worker: Rosa logs readings with
+// no network and signs out with no network (the bench locks at once and says how many of hers wait);
+// back online a second machinist signs in on the same tablet, works, and his session never sends
+// Rosa's readings; Rosa signs in again and hers go out, stored as hers. No earlier session lingers:
+// each signed-out cookie is refused by the server afterwards. Invented names.
+import { randomUUID } from "node:crypto";
+import type { Browser, BrowserContext, Page } from "playwright-core";
+import { afterAll, describe, expect, it } from "vitest";
+import { demo, demoEmail, launchBrowser, launchProfile, screenshot, signIn, signInAs } from "../support/browser";
+
+const ROSA = demoEmail("machinist");
+const IVO = { name: "Ivo Marchetti", email: `ivo-${randomUUID().slice(0, 6)}@kestrelflats.example` };
+// Demo V8 (KF-2611) deck height stations (scripts/seed/demo-specs.ts, invented demo data).
+const DECK = ["deck/left/front", "deck/left/rear", "deck/right/front", "deck/right/rear"];
+const WAIT = { timeout: 30_000 };
+
+let context: BrowserContext | undefined;
+let browser: Browser | undefined;
+afterAll(async () => {
+  await context?.close().catch(() => undefined);
+  await browser?.close().catch(() => undefined);
+});
+
+type PackReading = { stationId: string; takenBy: number };
+const pending = (page: Page) => page.getByTestId("sync-badge").getAttribute("data-pending");
+const station = (page: Page) => page.getByTestId("where").getAttribute("data-station");
+
+async function tapValue(page: Page, text: string) {
+  for (const ch of text)
+    await page.getByRole("button", { name: ch === "." ? "Decimal point" : ch, exact: true }).click();
+  await page.getByRole("button", { name: "Save", exact: true }).click();
+}
+
+/** Deck readings the server holds for the job, asked with whatever session the page holds now. */
+async function deckOnServer(page: Page, jobId: string): Promise<PackReading[]> {
+  const pack = await page.evaluate(async (id) => (await fetch(`/api/bench/jobs/${id}`)).json(), jobId);
+  return (pack.readings as PackReading[]).filter((r) => r.stationId.startsWith("deck/"));
+}
+
+async function sessionCookie(ctx: BrowserContext): Promise<string> {
+  const c = (await ctx.cookies()).find((k) => k.name === "tw_session");
+  if (!c) throw new Error("No session cookie");
+  return `${c.name}=${c.value}`;
+}
+
+/** What the server says about a cookie now, from a browser that holds nothing else. */
+async function meStatus(cookie: string): Promise<number> {
+  const other = await browser!.newContext({ baseURL: process.env.TW_BASE_URL });
+  try {
+    return (await other.request.get("/api/me", { headers: { cookie } })).status();
+  } finally {
+    await other.close();
+  }
+}
+
+async function signInOnLockScreen(page: Page, email: string, password: string) {
+  await page.getByTestId("sign-in").waitFor();
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((u) => u.pathname.startsWith("/bench"), WAIT);
+}
+
+describe("a shared tablet", () => {
+  it("signs out offline, keeps each person's readings for their own next sign-in, and leaves no session", async () => {
+    browser = await launchBrowser();
+    const office = await (await browser.newContext({ baseURL: process.env.TW_BASE_URL })).newPage();
+    await signInAs(office, demoEmail("admin"));
+    const invited = await office.context().request.post("/api/users", { data: { ...IVO, role: "machinist" } });
+    expect(invited.status()).toBe(201);
+    const ivo = (await invited.json()) as { user: { id: number }; temporaryPassword: string };
+
+    context = (await launchProfile()).context;
+    const page = context.pages()[0] ?? (await context.newPage());
+    await signIn(page, ROSA, demo.password);
+    const card = page.locator("a[data-job]", { hasText: "KF-2611" });
+    await card.getByTestId("on-tablet").filter({ hasText: "Ready offline" }).waitFor(WAIT);
+    const jobId = (await card.getAttribute("data-job"))!;
+    await page.waitForFunction(() => navigator.serviceWorker?.controller !== null, undefined, { timeout: 60_000 });
+    const rosaId = ((await page.evaluate(async () => (await fetch("/api/me")).json())) as { user: { id: number } }).user
+      .id;
+    const deckBefore = (await deckOnServer(page, jobId)).length;
+    const rosaCookie = await sessionCookie(context);
+
+    // Rosa logs two deck heights with no network.
+    await card.click();
+    await page.getByTestId("job-screen").waitFor();
+    await context.setOffline(true);
+    await page.locator("[data-section=deck]").click();
+    await expect.poll(() => station(page)).toBe(DECK[0]);
+    await tapValue(page, "9.025");
+    await expect.poll(() => station(page)).toBe(DECK[1]);
+    await tapValue(page, "9.026");
+    await expect.poll(() => pending(page)).toBe("2");
+
+    // She signs out, still offline: the bench locks behind the sign-in screen and says what waits.
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.getByTestId("sign-in").waitFor(WAIT);
+    const notice = page.getByTestId("signed-out-notice");
+    expect(await notice.getAttribute("data-waiting")).toBe("2");
+    expect(await notice.textContent()).toContain("2 readings by Rosa Calloway wait on this tablet");
+    expect(await page.getByTestId("sign-in-offline").count()).toBe(1);
+    expect(await page.getByTestId("job-screen").count()).toBe(0);
+    expect(await page.getByTestId("whoami").count()).toBe(0);
+    await screenshot(page, "shared-tablet-locked-offline-1024x768");
+    // Opening the bench again offline, from the cache, still shows only the sign-in screen.
+    await page.goto(`/bench/job?id=${jobId}`);
+    await page.getByTestId("sign-in").waitFor(WAIT);
+    expect(await page.getByTestId("job-screen").count()).toBe(0);
+
+    // Back online, Ivo signs in on the same tablet and saves one reading of his own.
+    await context.setOffline(false);
+    await signInOnLockScreen(page, IVO.email, ivo.temporaryPassword);
+    await expect.poll(() => page.getByTestId("whoami").textContent(), WAIT).toContain(IVO.name);
+    expect(await meStatus(rosaCookie)).toBe(401);
+    await page.goto(`/bench/job?id=${jobId}`);
+    await page.getByTestId("job-screen").waitFor();
+    await page.locator("[data-section=deck]").click();
+    // Rosa's two readings are on this tablet too, so the section opens at the next station.
+    await expect.poll(() => station(page)).toBe(DECK[2]);
+    await tapValue(page, "9.024");
+    await expect.poll(() => pending(page), WAIT).toBe("0");
+    await expect.poll(() => page.getByTestId("sync-badge").textContent(), WAIT).toContain("All sent");
+    expect(await page.getByTestId("sync-badge").textContent()).toContain("2 by another person wait for their sign-in");
+    const afterIvo = await deckOnServer(page, jobId);
+    expect(afterIvo.length).toBe(deckBefore + 1);
+    expect(afterIvo.filter((r) => r.takenBy === rosaId && DECK.slice(0, 2).includes(r.stationId))).toEqual([]);
+    expect(afterIvo.filter((r) => r.takenBy === ivo.user.id).map((r) => r.stationId)).toEqual([DECK[2]]);
+    const ivoCookie = await sessionCookie(context);
+
+    // Ivo signs out online; Rosa signs in again and her two readings go out as hers.
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.waitForURL((u) => u.pathname.startsWith("/sign-in"), WAIT);
+    await page.getByTestId("waiting-here").filter({ hasText: "Rosa Calloway: 2 readings" }).waitFor(WAIT);
+    expect(await meStatus(ivoCookie)).toBe(401);
+    await signInOnLockScreen(page, ROSA, demo.password);
+    await page.getByTestId("sync-badge").waitFor(WAIT);
+    await expect.poll(() => page.getByTestId("sync-badge").textContent(), WAIT).toContain("All sent");
+    const final = await deckOnServer(page, jobId);
+    expect(final.length).toBe(deckBefore + 3);
+    expect(
+      final
+        .filter((r) => r.takenBy === rosaId)
+        .map((r) => r.stationId)
+        .filter((s) => DECK.slice(0, 2).includes(s))
+        .sort(),
+    ).toEqual(DECK.slice(0, 2));
+    expect(await page.getByTestId("sync-badge").textContent()).not.toContain("another person");
+    expect(await meStatus(rosaCookie)).toBe(401);
+  });
+});
