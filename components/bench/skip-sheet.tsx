@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { SKIP_REASON_MAX, skipReasonProblem } from "@/lib/schemas/text-limits";
 
 // Skipping a station always needs a reason; the usual ones are one tap, anything else is typed.
 const REASONS = [
@@ -22,8 +23,12 @@ export function SkipSheet({
 }) {
   const [other, setOther] = useState("");
   const [error, setError] = useState<string>();
+  // Counted as typed and refused in words when too long; never cut short without a word.
+  const length = other.trim().length;
   function skipOther() {
-    if (!other.trim()) return setError("Type why the station is skipped, or pick one of the reasons above");
+    if (!length) return setError("Type why the station is skipped, or pick one of the reasons above");
+    const problem = skipReasonProblem(other);
+    if (problem) return setError(problem);
     onSkip(other.trim());
   }
   return (
@@ -47,15 +52,27 @@ export function SkipSheet({
             </button>
           ))}
         </div>
-        <label className="flex flex-col gap-1.5">
-          <span className="font-medium">Another reason</span>
-          <input
-            value={other}
-            onChange={(e) => setOther(e.target.value)}
-            maxLength={255}
-            className="min-h-16 rounded-tool border-2 border-rule bg-panel px-3 text-lg"
-          />
-        </label>
+        <div className="flex flex-col gap-1">
+          <label className="flex flex-col gap-1.5">
+            <span className="font-medium">Another reason</span>
+            <input
+              value={other}
+              onChange={(e) => {
+                setOther(e.target.value);
+                setError(undefined);
+              }}
+              aria-invalid={length > SKIP_REASON_MAX || undefined}
+              aria-describedby="tw-skip-count"
+              className="min-h-16 rounded-tool border-2 border-rule bg-panel px-3 text-lg"
+            />
+          </label>
+          <span
+            id="tw-skip-count"
+            className={`text-sm ${length > SKIP_REASON_MAX ? "font-semibold text-fail" : "text-muted"}`}
+          >
+            {length} of {SKIP_REASON_MAX} characters
+          </span>
+        </div>
         {error && (
           <p className="font-semibold text-fail" role="alert">
             {error}

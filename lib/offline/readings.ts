@@ -2,6 +2,7 @@
 // transaction (add-together.ts), so a reading is never saved without being queued, nor queued
 // without being saved.
 import type { EntryMode, Lubricant, MeasureUnit } from "@/lib/domain";
+import { skipReasonProblem } from "@/lib/schemas/text-limits";
 import { addTogether } from "./add-together";
 import type { BenchDb, LocalReading, OutboxRow } from "./db";
 import { uuidv4 } from "./ids";
@@ -31,7 +32,8 @@ export interface WriteContext {
 
 function checkNew(input: NewReading): void {
   if (input.skipped) {
-    if (!input.skipReason?.trim()) throw new Error("Say why the station is skipped");
+    const problem = skipReasonProblem(input.skipReason ?? "");
+    if (problem) throw new Error(problem);
     return;
   }
   if (typeof input.value !== "number" || !Number.isFinite(input.value))

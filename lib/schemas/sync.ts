@@ -53,6 +53,7 @@ import type { BenchRoute, EngineShape, JobStatus, Lubricant, SpecLimit, Verdict 
 import type { Disposition, FlagReason, FlagState, UnitSystem } from "./enums";
 import type { FieldErrors } from "./errors";
 import type { StoredReading } from "@/lib/schemas/readings";
+import { SKIP_REASON_MAX, skipReasonTooLong } from "./text-limits";
 
 export { TAKEN_BY_HEADER } from "./sync-headers";
 export const MAX_BATCH = 500;
@@ -102,7 +103,11 @@ export const pushReadingSchema = z
     gaugeTempC: temperature("Gauge temperature").optional(),
     lubricant: z.enum(LUBRICANTS, `Lubricant must be one of ${LUBRICANTS.join(", ")}`).optional(),
     skipped: z.boolean().optional(),
-    skipReason: z.string().trim().max(255, "Keep the skip reason under 255 characters").optional(),
+    skipReason: z
+      .string()
+      .trim()
+      .max(SKIP_REASON_MAX, { error: (iss) => skipReasonTooLong(String(iss.input ?? "").trim().length) })
+      .optional(),
     supersedes: z.uuid("supersedes must be the id of the reading this one corrects").optional(),
     note: z.string().max(500, "Keep the note under 500 characters").optional(),
     takenAt: z.iso.datetime({ offset: true, message: "takenAt must be an ISO date-time such as 2026-12-01T09:30:00Z" }),
