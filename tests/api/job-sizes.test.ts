@@ -7,6 +7,7 @@ import { randomUUID } from "node:crypto";
 import { QueryTypes } from "sequelize";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST } from "@/app/api/jobs/route";
+import { POST as IMPORT } from "@/app/api/specs/import/route";
 import { GET as ONE, PATCH } from "@/app/api/jobs/[jobId]/route";
 import { getSequelize } from "@/lib/server/core/db";
 import { AuditEvent, Instrument, SpecLimit, SpecTemplate } from "@/models";
@@ -194,5 +195,31 @@ describe("finished sizes on create and edit", () => {
     expect(res.status).toBe(422);
     expect(res.body.error.fields["finishedSizes.bore"][0]).toContain("above zero");
     expect((await one(id)).body.job.finishedSizes.bore).toBe(4.04);
+  });
+});
+
+describe("the spec template file accepts a job-size limit (format version 1)", () => {
+  const file = (limits: unknown[]) => ({
+    format: "tenthwise.spec-template",
+    version: 1,
+    template: { name: "Follows the job", engineKind: "V8 gasoline", buildKind: "street", unitSystem: "in", limits },
+  });
+  const bore = { characteristic: "bore_diameter", stationPattern: "*", limitType: "job_size_tol", unit: "in" };
+  const send = async (b: unknown) => call(IMPORT as never, await asUser(a.users.lead, "POST", "/api/specs/import", b));
+
+  it("imports a finished-bore tolerance as it was written", async () => {
+    const res = await send(file([{ ...bore, tolPlus: 0.0005, tolMinus: 0, required: true }]));
+    expect(res.status).toBe(201);
+    expect(res.body.template.limits).toEqual([{ ...bore, tolPlus: 0.0005, tolMinus: 0, required: true }]);
+  });
+
+  it.each([
+    ["on a piston skirt, which is the piston maker's size", { characteristic: "piston_skirt_diameter" }, "limitType"],
+    ["without its minus tolerance", { tolMinus: null }, "tolMinus"],
+    ["with a negative tolerance", { tolPlus: -0.0005 }, "tolPlus"],
+  ])("refuses one %s (422 naming %s)", async (_what, over, field) => {
+    const res = await send(file([{ ...bore, tolPlus: 0.0005, tolMinus: 0, required: true, ...over }]));
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields[`template.limits.0.${field}`]?.[0]).toEqual(expect.any(String));
   });
 });

@@ -43,9 +43,14 @@ describe("jobs on the desk", () => {
     expect(await page.getByLabel("Title").inputValue()).toBe("Marine V8 rebuild");
     await screenshot(page, "desk-job-new");
     await page.getByLabel("Cylinders").fill("8");
+    // The finished bore followed the nominal bore as it was typed; this job is bored 0.030 in over.
+    expect(await page.getByLabel("Finished bore").inputValue()).toBe("4.03");
+    await page.getByLabel("Finished bore").fill("4.06");
+    await page.getByText("0.030 in oversize against the engine's 4.03 in").waitFor();
     await page.getByRole("button", { name: "Create job" }).click();
     await page.waitForURL(/\/desk\/jobs\/\d+$/);
     await page.getByRole("heading", { name: "Marine V8 rebuild" }).waitFor();
+    await page.getByText("4.06 in · 0.030 in oversize").waitFor();
     expect(await page.getByText("Halvard Quay Boatworks").count()).toBeGreaterThan(0);
     expect(await page.getByText(/limits on the job · revision 1/).textContent()).toMatch(/^\d+ limits/);
   });
