@@ -6,7 +6,7 @@ import { useEffect, useRef } from "react";
 import { FormProvider, useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { lockedJobWords } from "@/lib/domain";
+import { JOB_SIZES, JOB_SIZE_WORDS, lockedJobWords } from "@/lib/domain";
 import { api } from "@/lib/client/api";
 import { jobLimitsSchema, type JobLimitsInput, type JobLimitsValues } from "@/lib/schemas/spec";
 import type { LimitsPreview, LimitsSaved } from "@/lib/schemas/job";
@@ -18,6 +18,24 @@ import { SpecLimitsEditor } from "./spec-limits-editor";
 // The job's own limits. Saving re-judges every current reading and derived value of the job on
 // the server, in the same transaction, and opens or closes flags to match. Before it saves, the
 // lead reads what the save will do (the server's preview) and confirms it.
+/** The sizes limits that follow the job resolve from, and where to change them. */
+function JobSizesLine({ view }: { view: JobLimitsView }) {
+  const u = view.job.unitSystem;
+  const parts = JOB_SIZES.map((size) => {
+    const v = view.job.finishedSizes[size];
+    return `${JOB_SIZE_WORDS[size].replace(/ size$/, "")} ${v === null ? "not stated" : `${v} ${u}`}`;
+  });
+  return (
+    <p className="text-sm">
+      Limits that follow the job use its {parts.join(", ")}.{" "}
+      <a href={`/desk/jobs/${view.job.id}/edit`} className="font-semibold underline">
+        Change them on the job
+      </a>
+      .
+    </p>
+  );
+}
+
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 function LimitsForm({ view }: { view: JobLimitsView }) {
@@ -72,6 +90,7 @@ function LimitsForm({ view }: { view: JobLimitsView }) {
           for values that fall outside and close for values now in spec; each change is in the audit trail with the
           limits before and after.
         </Notice>
+        <JobSizesLine view={view} />
         <SpecLimitsEditor lengthUnit={view.job.unitSystem} />
         {/* The outcome sits in the bar that stays on screen, beside the button that caused it. */}
         <div className="sticky bottom-0 flex flex-col gap-2 border-t-2 border-rule bg-paper py-3">

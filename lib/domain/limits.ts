@@ -144,7 +144,8 @@ function resolvePerInch(limit: SpecLimit, context: LimitContext): ResolvedLimit 
   const d = context.diameter;
   if (!d || !Number.isFinite(d.value) || d.value <= 0) {
     throw new Error(
-      `Limit '${nameOf(limit)}' is per inch of diameter and needs that diameter; measure it or enter the nominal size on the job`,
+      `Limit '${nameOf(limit)}' is per inch of diameter and needs that diameter; ` +
+        "measure it or enter the finished size on the job",
     );
   }
   // "Per inch of diameter" is a ratio (in per in = mm per mm), so the diameter only has to be
@@ -164,7 +165,8 @@ function resolveIso286(limit: SpecLimit, context: LimitContext): ResolvedLimit {
   const given = limit.nominal !== undefined ? { value: limit.nominal, unit } : (context.jobSize ?? context.nominal);
   if (!given || !Number.isFinite(given.value)) {
     throw new Error(
-      `Limit '${nameOf(limit)}' is ISO 286 and needs a nominal size; enter it on the limit or a finished size on the job`,
+      `Limit '${nameOf(limit)}' is ISO 286 and needs a nominal size; ` +
+        "enter it on the limit or a finished size on the job",
     );
   }
   const nominalMm = cleanDecimal(convertLength(given.value, given.unit, "mm"));

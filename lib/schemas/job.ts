@@ -248,6 +248,8 @@ export type JobLimitsView = {
   job: JobHeading & {
     locked: boolean;
     specRevision: number;
+    /** What limits that follow the job resolve from. */
+    finishedSizes: FinishedSizes;
   };
   limits: LimitValues[];
 };

@@ -93,7 +93,8 @@ async function editBody(id: number, over: Record<string, unknown> = {}) {
 
 async function stored(jobId: number) {
   return getSequelize().query<{ station: string; verdict: string | null; min: string; max: string }>(
-    "SELECT station_id AS station, verdict, limit_min AS min, limit_max AS max FROM readings WHERE job_id = ? ORDER BY station_id",
+    "SELECT station_id AS station, verdict, limit_min AS min, limit_max AS max " +
+      "FROM readings WHERE job_id = ? ORDER BY station_id",
     { replacements: [jobId], type: QueryTypes.SELECT },
   );
 }

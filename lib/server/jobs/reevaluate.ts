@@ -36,6 +36,11 @@ export async function getJobLimits(shopId: number, jobId: number): Promise<JobLi
       status: job.status,
       locked: isJobLocked(job),
       specRevision: job.specRevision,
+      finishedSizes: {
+        bore: job.finishedBore ?? null,
+        mainJournal: job.finishedMainJournal ?? null,
+        rodJournal: job.finishedRodJournal ?? null,
+      },
     },
     limits: spec.map((l) => compactLimit(l as LimitValues)),
   };

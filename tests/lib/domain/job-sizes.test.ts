@@ -39,7 +39,8 @@ describe("job_size_tol: a tolerance around the size the job states (plain arithm
       max: 2.089,
     });
   });
-  it("a job in mm with a sheet in inches: 102.362 mm = 4.03 in (1 in = 25.4 mm exactly, NIST SP 811 B.8; mathjs)", () => {
+  // 1 in = 25.4 mm exactly (NIST SP 811 B.8), cross-checked with mathjs
+  it("a job in mm with a sheet in inches: 102.362 mm = 4.03 in", () => {
     const r = resolveLimit(lim({ tolPlus: 0.0005, tolMinus: 0 }), { jobSize: { value: 102.362, unit: "mm" } });
     expect(r.nominal).toBeCloseTo(mathUnit(102.362, "mm").toNumber("inch"), 12);
     expect(r).toEqual({ unit: "in", nominal: 4.03, min: 4.03, max: 4.0305 });
@@ -61,7 +62,8 @@ describe("job_size_tol: a tolerance around the size the job states (plain arithm
 });
 
 describe("ISO 286 on the job's size", () => {
-  it("H7 without a nominal takes the finished bore, not the engine's (ISO 286-1:2010 Table 1, IT7 80–120 mm = 35 µm)", () => {
+  // ISO 286-1:2010 Table 1: IT7 over 80 up to 120 mm = 35 µm; H: lower deviation 0
+  it("H7 without a nominal takes the finished bore, not the engine's", () => {
     const l = lim({ limitType: "iso286", unit: "mm", isoClass: "H7" });
     const r = resolveLimit(l, { jobSize: { value: 104.5, unit: "mm" }, nominal: { value: 104, unit: "mm" } });
     expect(r).toEqual({ unit: "mm", nominal: 104.5, min: 104.5, max: 104.535 });
