@@ -4,65 +4,68 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { useOnline } from "@/hooks/use-online";
 import { getSyncStatus, IDLE_STATUS } from "@/lib/offline/meta";
+import { connectionOf, CONNECTION_WORDS, waitingWords } from "@/lib/offline/sync-state";
 import { useDexieQuery } from "@/hooks/use-dexie-query";
 import { useBench } from "./bench-context";
+import { SyncMark } from "./sync-mark";
 
-// The sync badge: how many readings wait, when the server last took them, and
-// what went wrong, in words. Colour is never alone: each state has its own word and mark.
+// The sync badge: what waits to be sent (readings and photos), whether the server is reachable
+// (from the sync engine's last run, not only the device's network), when it last took them, and
+// what went wrong, in words. Colour is never alone: each state has its own word and mark. Its
+// size never changes (the pill is one width, the words keep their lines), so nothing below it
+// moves under a finger when readings queue or an error shows.
 const time = (iso?: string) =>
   iso ? new Date(iso).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" }) : undefined;
 
-function Mark({ tone }: { tone: "ok" | "wait" | "bad" }) {
-  if (tone === "ok")
-    return (
-      <svg width="18" height="18" viewBox="0 0 18 18" aria-hidden="true">
-        <path d="M3 9.5 7.2 13.5 15 4.5" fill="none" stroke="currentColor" strokeWidth="3" strokeLinecap="round" />
-      </svg>
-    );
-  if (tone === "wait")
-    return (
-      <svg width="18" height="18" viewBox="0 0 18 18" aria-hidden="true">
-        <circle cx="9" cy="9" r="7" fill="none" stroke="currentColor" strokeWidth="2.5" />
-        <path d="M9 5v4.5l3 2" fill="none" stroke="currentColor" strokeWidth="2.5" strokeLinecap="round" />
-      </svg>
-    );
-  return (
-    <svg width="18" height="18" viewBox="0 0 18 18" aria-hidden="true">
-      <path d="M9 1.5 17 16H1Z" fill="currentColor" />
-      <path d="M9 6.5v4.5M9 13.3v.2" stroke="white" strokeWidth="2.2" strokeLinecap="round" />
-    </svg>
-  );
-}
+// On a phone the words take their own row under the pill and the button; wider, one row.
+const LAYOUT = [
+  "grid grid-cols-[auto_minmax(0,1fr)] items-center gap-x-4 gap-y-1 [grid-template-areas:'pill_send'_'info_info']",
+  "sm:grid-cols-[auto_minmax(0,1fr)_auto] sm:[grid-template-areas:'pill_info_send']",
+].join(" ");
+const PILL = "inline-flex min-h-11 w-40 items-center gap-2 rounded-full border-2 px-4 font-semibold [grid-area:pill]";
+
+const TONE_CLASS = {
+  ok: "border-pass bg-pass-soft text-pass",
+  wait: "border-watch bg-watch-soft text-watch",
+  bad: "border-fail bg-fail-soft text-fail",
+} as const;
 
 export function SyncBadge() {
   const { db, engine, actor } = useBench();
   const online = useOnline();
   const [tapped, setTapped] = useState(false);
   // One read for the whole badge (it re-runs after each commit on these tables).
-  const [{ pending, others, refused, status }] = useDexieQuery(
+  const [{ pending, photos, others, refused, status }] = useDexieQuery(
     db,
-    ["outbox", "readings", "meta"],
+    ["outbox", "readings", "photos", "meta"],
     () =>
-      db.transaction("r", db.outbox, db.readings, db.meta, async () => {
-        const [mine, all, rejected, st] = await Promise.all([
+      db.transaction("r", [db.outbox, db.readings, db.photos, db.meta], async () => {
+        const [mine, all, rejected, waitingPhotos, st] = await Promise.all([
           db.outbox.where("takenBy").equals(actor.userId).count(),
           db.outbox.count(),
           db.readings.where("state").equals("rejected").count(),
+          db.photos.where("state").equals("pending").toArray(),
           getSyncStatus(db),
         ]);
-        return { pending: mine, others: all - mine, refused: rejected, status: st };
+        const myPhotos = waitingPhotos.filter((p) => p.takenBy === actor.userId).length;
+        const othersWaiting = all - mine + waitingPhotos.length - myPhotos;
+        return { pending: mine, photos: myPhotos, others: othersWaiting, refused: rejected, status: st };
       }),
     [actor.userId],
-    { pending: 0, others: 0, refused: 0, status: IDLE_STATUS },
+    { pending: 0, photos: 0, others: 0, refused: 0, status: IDLE_STATUS },
   );
-  const tone = status.lastError && (status.needsAction || pending > 0) ? "bad" : pending > 0 ? "wait" : "ok";
-  const toneClass =
-    tone === "ok"
-      ? "border-pass bg-pass-soft text-pass"
-      : tone === "wait"
-        ? "border-watch bg-watch-soft text-watch"
-        : "border-fail bg-fail-soft text-fail";
-  const head = status.running ? "Sending…" : pending > 0 ? `${pending} waiting to send` : "All sent";
+  const waiting = pending + photos;
+  const connection = connectionOf(online, status);
+  const tone = status.lastError && (status.needsAction || waiting > 0) ? "bad" : waiting > 0 ? "wait" : "ok";
+  const head = status.running ? "Sending…" : waiting > 0 ? `${waiting} to send` : "All sent";
+  const nextTry = status.nextAttemptAt && !status.needsAction ? ` (next try ${time(status.nextAttemptAt)})` : "";
+  const problems = [
+    waitingWords(pending, photos),
+    status.lastError ? `${status.lastError}${nextTry}` : "",
+    refused > 0 ? `${refused} refused by the server: open the job to fix` : "",
+    others > 0 ? `${others} by another person wait for their sign-in` : "",
+  ].filter(Boolean);
+  const signIn = status.needsAction && status.lastError?.startsWith("Signed out");
 
   async function sendNow() {
     setTapped(true);
@@ -71,37 +74,38 @@ export function SyncBadge() {
 
   return (
     <div
-      className="flex flex-wrap items-center gap-x-4 gap-y-1"
+      className={LAYOUT}
       data-testid="sync-badge"
       data-pending={pending}
+      data-photos={photos}
       data-refused={refused}
+      data-connection={connection}
       role="status"
       aria-live="polite"
     >
-      <span className={`inline-flex min-h-11 items-center gap-2 rounded-full border-2 px-4 font-semibold ${toneClass}`}>
-        <Mark tone={tone} />
-        {head}
+      <span className={`${PILL} ${TONE_CLASS[tone]}`}>
+        <SyncMark tone={tone} />
+        <span className="truncate">{head}</span>
       </span>
-      <span className="text-sm text-muted">
-        {online ? "Online" : "Offline · kept on this tablet"}
-        {status.lastSuccessAt ? ` · last sent ${time(status.lastSuccessAt)}` : " · nothing sent yet"}
-      </span>
-      {status.lastError && (
-        <span className="text-sm font-medium text-fail">
-          {status.lastError}
-          {status.nextAttemptAt && !status.needsAction ? ` (next try ${time(status.nextAttemptAt)})` : ""}
+      <div className="flex min-w-0 flex-col text-sm leading-5 [grid-area:info]">
+        <span className="truncate text-muted" data-testid="sync-connection">
+          {CONNECTION_WORDS[connection]}
+          {status.lastSuccessAt ? ` · last sent ${time(status.lastSuccessAt)}` : " · nothing sent yet"}
         </span>
-      )}
-      {status.needsAction && status.lastError?.startsWith("Signed out") && (
-        <a className="font-semibold text-steel underline" href={`/sign-in?next=${encodeURIComponent("/bench")}`}>
-          Sign in again
-        </a>
-      )}
-      {refused > 0 && (
-        <span className="text-sm font-semibold text-fail">{refused} refused by the server: open the job to fix</span>
-      )}
-      {others > 0 && <span className="text-sm text-muted">{others} by another person wait for their sign-in</span>}
-      <Button tone="quiet" big onClick={sendNow} disabled={tapped || !online} className="ml-auto">
+        {/* Two lines kept for the rest, filled or not, so the bar's height never changes. */}
+        <span className={`line-clamp-2 h-10 ${tone === "bad" ? "font-medium text-fail" : "text-muted"}`}>
+          {problems.join(" · ")}
+          {signIn && (
+            <>
+              {" "}
+              <a className="font-semibold text-steel underline" href={`/sign-in?next=${encodeURIComponent("/bench")}`}>
+                Sign in again
+              </a>
+            </>
+          )}
+        </span>
+      </div>
+      <Button tone="quiet" big onClick={sendNow} disabled={tapped || !online} className="[grid-area:send]">
         Send now
       </Button>
     </div>

@@ -14,9 +14,17 @@ export interface DeviceActor {
   sessionId?: string;
 }
 
+/**
+ * How the last run ended: everything sent, the server not reached (no connection, a timeout), the
+ * server answering with an error (5xx), a refusal that needs a person, or a fault on the tablet.
+ */
+export const SYNC_OUTCOMES = ["sent", "unreachable", "server_error", "refused", "failed"] as const;
+export type SyncOutcome = (typeof SYNC_OUTCOMES)[number];
+
 /** What the sync badge shows; written by the sync engine after every run. */
 export interface SyncStatus {
   running: boolean;
+  lastOutcome?: SyncOutcome;
   lastAttemptAt?: string;
   lastSuccessAt?: string;
   /** In words, for the machinist; absent after a clean run. */

@@ -110,6 +110,7 @@ export class SyncEngine {
       const photos = await uploadPhotos(this.db, this.fetchFn, this.base, actor.userId);
       await patchSyncStatus(this.db, {
         running: false,
+        lastOutcome: "sent",
         lastSuccessAt: this.opts.now().toISOString(),
         failures: 0,
         nextAttemptAt: undefined,
@@ -127,6 +128,7 @@ export class SyncEngine {
     if (err instanceof ActionError) {
       await patchSyncStatus(this.db, {
         running: false,
+        lastOutcome: "refused",
         lastError: err.message,
         needsAction: true,
         nextAttemptAt: undefined,
@@ -139,6 +141,7 @@ export class SyncEngine {
       err instanceof TransientError ? err.message : `Sync stopped: ${err instanceof Error ? err.message : String(err)}`;
     await patchSyncStatus(this.db, {
       running: false,
+      lastOutcome: err instanceof TransientError ? err.reach : "failed",
       failures,
       lastError: message,
       needsAction: false,

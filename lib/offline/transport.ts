@@ -5,8 +5,15 @@ import { TAKEN_BY_HEADER } from "@/lib/schemas/sync-headers";
 
 export type Fetch = typeof fetch;
 
-/** Worth retrying later, with backoff: no network, a timeout, or a 5xx. */
-export class TransientError extends Error {}
+/** Worth retrying later, with backoff: no network, a timeout (the server not reached), or a 5xx. */
+export class TransientError extends Error {
+  constructor(
+    message: string,
+    readonly reach: "unreachable" | "server_error",
+  ) {
+    super(message);
+  }
+}
 /** Needs a person: signed out, wrong role, or a request the server cannot take as sent. */
 export class ActionError extends Error {
   constructor(
@@ -25,7 +32,7 @@ async function send(fetchFn: Fetch, url: string, init: RequestInit): Promise<Res
   try {
     return await fetchFn(url, { ...init, signal: ctl.signal, credentials: "same-origin", cache: "no-store" });
   } catch {
-    throw new TransientError("No connection to the server");
+    throw new TransientError("No connection to the server", "unreachable");
   } finally {
     clearTimeout(timer);
   }
@@ -36,7 +43,8 @@ async function body(res: Response): Promise<Record<string, unknown> | null> {
 }
 
 function refuse(res: Response, json: Record<string, unknown> | null, what: string): never {
-  if (res.status >= 500) throw new TransientError(`The server had a problem (${res.status}); trying again shortly`);
+  if (res.status >= 500)
+    throw new TransientError(`The server had a problem (${res.status}); trying again shortly`, "server_error");
   if (res.status === 401) throw new ActionError(401, "Signed out: sign in again so the tablet can send its readings");
   if (res.status === 403)
     throw new ActionError(403, "This account cannot send bench readings; sign in as a machinist or lead");
