@@ -34,25 +34,28 @@ async function settle(page: Page, path: string) {
   await page.waitForFunction(() => !document.querySelector("[aria-busy=true]"), null, { timeout: 15_000 });
 }
 
-/** Audits each path in both themes on one signed-in page; returns every finding with its screen. */
-async function audit(page: Page, paths: string[]): Promise<string[]> {
+/** A fresh 1024×768 tablet page in one theme, signed in as the role (or nobody). */
+async function tablet(role: string | null, theme: (typeof THEMES)[number]) {
+  const { context, page } = await newTabletPage(browser, { width: 1024, height: 768 });
+  // The theme is what the toggle remembers on the device, read by the page before it paints.
+  await context.addInitScript((t) => localStorage.setItem("tw-theme", t), theme);
+  if (role) await signInAs(page, demoEmail(role));
+  return { context, page };
+}
+
+/** Audits each path in both themes; returns every finding with its theme and screen. */
+async function audit(role: string | null, paths: (page: Page) => Promise<string[]>): Promise<string[]> {
   const all: string[] = [];
   for (const theme of THEMES) {
-    await page.evaluate((t) => localStorage.setItem("tw-theme", t), theme);
-    for (const path of paths) {
+    const { context, page } = await tablet(role, theme);
+    for (const path of await paths(page)) {
       await settle(page, path);
       expect(await page.evaluate(() => document.documentElement.classList.contains("dim"))).toBe(theme === "dim");
       for (const f of await findings(page)) all.push(`${theme} ${path}: ${f}`);
     }
+    await context.close();
   }
   return all;
-}
-
-async function signedIn(role: string) {
-  const { context, page } = await newTabletPage(browser, { width: 1024, height: 768 });
-  await signInAs(page, demoEmail(role));
-  await page.goto("/sign-in"); // any page of ours, so localStorage belongs to the app's origin
-  return { context, page };
 }
 
 const get = async <T>(page: Page, url: string) => (await (await page.context().request.get(url)).json()) as T;
@@ -65,57 +68,66 @@ async function demoJobAndFlag(page: Page) {
   return { job, flag };
 }
 
+// Two themes of up to fourteen screens each: longer than a browser test's usual three minutes.
+const LONG = 900_000;
+
 describe("accessibility audit (axe-core, WCAG 2.2 AA), bright and dim", () => {
-  it("sign-in and the customer's record link", async () => {
-    const { context, page } = await newTabletPage(browser, { width: 1024, height: 768 });
+  it("sign-in and the customer's record link", { timeout: LONG }, async () => {
     const record = await createRecordJob();
     const token = createCustomerToken(record.release!.id);
-    await page.goto("/sign-in");
-    expect(await audit(page, ["/sign-in", `/r/${token}`])).toEqual([]);
-    await context.close();
+    expect(await audit(null, async () => ["/sign-in", `/r/${token}`])).toEqual([]);
   });
 
-  it("the lead's screens", async () => {
-    const { context, page } = await signedIn("lead");
-    const { job, flag } = await demoJobAndFlag(page);
-    const spec = (await get<{ templates: { id: number }[] }>(page, "/api/specs")).templates[0].id;
-    const paths = [
+  it("the lead's screens", { timeout: LONG }, async () => {
+    const paths = async (page: Page) => {
+      const { job, flag } = await demoJobAndFlag(page);
+      const spec = (await get<{ templates: { id: number }[] }>(page, "/api/specs")).templates[0].id;
+      return [
+        "/desk",
+        "/desk/jobs/new",
+        `/desk/jobs/${job}`,
+        `/desk/jobs/${job}/edit`,
+        `/desk/jobs/${job}/limits`,
+        `/desk/jobs/${job}/plan`,
+        `/desk/jobs/${job}/maps`,
+        "/desk/specs",
+        `/desk/specs/${spec}`,
+        "/desk/specs/new",
+        "/desk/specs/import",
+        "/desk/flags",
+        `/desk/flags/${flag}`,
+        "/audit",
+      ];
+    };
+    expect(await audit("lead", paths)).toEqual([]);
+  });
+
+  it("the inspector's screens", { timeout: LONG }, async () => {
+    const paths = async (page: Page) => {
+      const { job, flag } = await demoJobAndFlag(page);
+      return ["/release", `/release/${job}`, "/desk/flags", `/desk/flags/${flag}`, "/admin/gauges", "/audit"];
+    };
+    expect(await audit("inspector", paths)).toEqual([]);
+  });
+
+  it("the admin's screens", { timeout: LONG }, async () => {
+    const paths = async () => [
+      "/admin",
+      "/admin/users",
+      "/admin/gauges",
+      "/admin/mail",
       "/desk",
-      "/desk/jobs/new",
-      `/desk/jobs/${job}`,
-      `/desk/jobs/${job}/edit`,
-      `/desk/jobs/${job}/limits`,
-      `/desk/jobs/${job}/plan`,
-      `/desk/jobs/${job}/maps`,
       "/desk/specs",
-      `/desk/specs/${spec}`,
-      "/desk/specs/new",
-      "/desk/specs/import",
-      "/desk/flags",
-      `/desk/flags/${flag}`,
       "/audit",
     ];
-    expect(await audit(page, paths)).toEqual([]);
-    await context.close();
+    expect(await audit("admin", paths)).toEqual([]);
   });
 
-  it("the inspector's screens", async () => {
-    const { context, page } = await signedIn("inspector");
-    const { job } = await demoJobAndFlag(page);
-    expect(await audit(page, ["/release", `/release/${job}`, "/desk/flags", "/admin/gauges", "/audit"])).toEqual([]);
-    await context.close();
-  });
-
-  it("the admin's screens", async () => {
-    const { context, page } = await signedIn("admin");
-    expect(await audit(page, ["/admin", "/admin/users", "/admin/gauges", "/admin/mail", "/desk/specs"])).toEqual([]);
-    await context.close();
-  });
-
-  it("the machinist's bench: job list and job screen", async () => {
-    const { context, page } = await signedIn("machinist");
-    const jobs = (await get<{ jobs: { id: number }[] }>(page, "/api/bench/jobs")).jobs;
-    expect(await audit(page, ["/bench", `/bench/job?id=${jobs[0].id}`])).toEqual([]);
-    await context.close();
+  it("the machinist's bench: job list and job screen", { timeout: LONG }, async () => {
+    const paths = async (page: Page) => {
+      const jobs = (await get<{ jobs: { id: number }[] }>(page, "/api/bench/jobs")).jobs;
+      return ["/bench", `/bench/job?id=${jobs[0].id}`];
+    };
+    expect(await audit("machinist", paths)).toEqual([]);
   });
 });
