@@ -32,7 +32,8 @@ export function FoldedDetail({ flag }: { flag: FlagListItem }) {
         {deviationText(flag.deviation, flag.unit)}
       </span>
       <span>
-        <GaugeText flag={flag} /> · {takenBy(flag)}, {takenWhen(flag)}
+        <GaugeText flag={flag} />
+        {flag.derived ? "" : ` · ${takenBy(flag)}`}, {takenWhen(flag)}
       </span>
     </span>
   );

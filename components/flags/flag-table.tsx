@@ -33,7 +33,7 @@ export function FlagTable({ table }: { table: Table<FlagListItem> }) {
                 {h.column.getCanSort() ? (
                   <button
                     type="button"
-                    className="inline-flex min-h-11 items-center gap-1 hover:text-ink"
+                    className="inline-flex min-h-11 min-w-11 items-center gap-1 hover:text-ink"
                     onClick={h.column.getToggleSortingHandler()}
                   >
                     {flexRender(h.column.columnDef.header, h.getContext())} <SortMark dir={h.column.getIsSorted()} />

@@ -14,7 +14,7 @@ export function Button({
   className = "",
   ...props
 }: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: Tone; big?: boolean }) {
-  const size = big ? "min-h-16 px-6 text-lg" : "min-h-11 px-4 text-base";
+  const size = big ? "min-h-16 min-w-16 px-6 text-lg" : "min-h-11 min-w-11 px-4 text-base";
   return (
     <button
       {...props}

@@ -43,7 +43,7 @@ export function GaugeAdmin({ canEdit }: { canEdit: boolean }) {
           dates and certificate.
         </Notice>
       )}
-      <label className="no-print flex items-center gap-2 text-sm">
+      <label className="no-print flex min-h-11 items-center gap-2 text-sm">
         <input type="checkbox" checked={showAll} onChange={(e) => setShowAll(e.target.checked)} className="h-5 w-5" />
         Show deactivated gauges too
       </label>
