@@ -7,7 +7,9 @@ export function AuditChanges({ changes, truncated }: { changes: AuditChange[]; t
     <ul className="flex flex-col gap-0.5">
       {changes.map((c) => (
         <li key={c.path} className="break-words" data-kind={c.kind}>
-          <span className="font-mono text-xs text-muted">{c.path}</span>{" "}
+          <span className="text-sm text-muted" title={c.path}>
+            {c.label}:
+          </span>{" "}
           {c.kind === "added" && (
             <span>
               <span className="sr-only">set to </span>

@@ -124,10 +124,10 @@ export const flagColumns = [
       </span>
     ),
   }),
-  col.accessor("createdAt", {
+  col.accessor("judgedAt", {
     id: "age",
     header: "Age",
-    cell: ({ row }) => <span className="tabular whitespace-nowrap text-sm">{age(row.original.createdAt)}</span>,
+    cell: ({ row }) => <span className="tabular whitespace-nowrap text-sm">{age(row.original.judgedAt)}</span>,
   }),
   col.accessor("state", {
     id: "state",

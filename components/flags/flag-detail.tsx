@@ -38,8 +38,9 @@ function Summary({ d }: { d: Detail }) {
       </Fact>
       <Fact label="Gauge calibration due">{f.gauge?.calibrationDue ?? "—"}</Fact>
       <Fact label="Taken">{f.takenBy ? `${f.takenBy} · ${when(f.takenAt)}` : "—"}</Fact>
-      <Fact label="Flag raised">
-        {when(f.createdAt)} ({age(f.createdAt)} ago)
+      <Fact label="Age">
+        {age(f.judgedAt)}, from {f.takenAt ? "the reading" : "when the computed value was flagged"}
+        <span className="block text-sm text-muted">Flag raised {when(f.createdAt)}</span>
       </Fact>
     </dl>
   );

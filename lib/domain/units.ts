@@ -3,7 +3,7 @@
 // standard gravity g = 9.80665 m/s²), so nothing here is a rounded "shop" factor.
 import Decimal from "decimal.js-light";
 // The unit names live once, in enums.ts.
-import { LENGTH_UNITS, TORQUE_UNITS, type LengthUnit, type TorqueUnit } from "./enums";
+import { LENGTH_UNITS, TORQUE_UNITS, type LengthUnit, type MeasureUnit, type TorqueUnit } from "./enums";
 import type { QuantityKind } from "./types";
 
 /** Millimetres in one inch (exact, international inch of 1959). */
@@ -40,6 +40,30 @@ export function cleanDecimal(x: number): number {
   if (!Number.isFinite(x)) return x;
   const rounded = Number(x.toPrecision(12));
   return rounded === 0 ? 0 : rounded; // never hand back -0
+}
+
+/**
+ * The step each unit's figures are shown and exported to (common practice): inch work to the
+ * tenth (0.0001 in), metric work to the micrometre (0.001 mm), torque to the whole unit.
+ */
+export const DISPLAY_RESOLUTION: Readonly<Record<MeasureUnit, string>> = {
+  in: "0.0001",
+  mm: "0.001",
+  lbf_ft: "1",
+  nm: "1",
+};
+
+/**
+ * A figure rounded to its unit's display resolution by plain decimal rounding (to the nearest
+ * step, a half away from zero), on the figure as written after cleanDecimal: a limit computed as
+ * 0.00045 × 4.0817 = 0.001836765 in is shown 0.0018 in.
+ */
+export function roundToResolution(x: number, unit: MeasureUnit): number {
+  const step = DISPLAY_RESOLUTION[unit];
+  if (!step) throw new Error(`Unknown unit '${String(unit)}'; use ${Object.keys(DISPLAY_RESOLUTION).join(", ")}`);
+  const places = step.includes(".") ? step.split(".")[1].length : 0;
+  const rounded = toDecimal(x, "Figure").toDecimalPlaces(places, Decimal.ROUND_HALF_UP).toNumber();
+  return rounded === 0 ? 0 : rounded;
 }
 
 function toDecimal(x: number, name: string): Decimal {

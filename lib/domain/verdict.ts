@@ -13,6 +13,7 @@
 import Decimal from "decimal.js-light";
 import type { MeasureUnit, Verdict } from "./enums";
 import type { ResolvedLimit } from "./types";
+import { DISPLAY_RESOLUTION } from "./units";
 import { UNIT_WORDS } from "./words";
 
 const D = Decimal.clone({ precision: 40 });
@@ -108,10 +109,10 @@ export function deviationFromNominal(
 }
 
 const STEP: Record<MeasureUnit, { per: string; singular: string; plural: string }> = {
-  in: { per: "0.0001", singular: "tenth", plural: "tenths" }, // a tenth of a thousandth of an inch
-  mm: { per: "0.001", singular: "µm", plural: "µm" },
-  lbf_ft: { per: "1", singular: UNIT_WORDS.lbf_ft, plural: UNIT_WORDS.lbf_ft },
-  nm: { per: "1", singular: UNIT_WORDS.nm, plural: UNIT_WORDS.nm },
+  in: { per: DISPLAY_RESOLUTION.in, singular: "tenth", plural: "tenths" }, // a tenth of a thousandth of an inch
+  mm: { per: DISPLAY_RESOLUTION.mm, singular: "µm", plural: "µm" },
+  lbf_ft: { per: DISPLAY_RESOLUTION.lbf_ft, singular: UNIT_WORDS.lbf_ft, plural: UNIT_WORDS.lbf_ft },
+  nm: { per: DISPLAY_RESOLUTION.nm, singular: UNIT_WORDS.nm, plural: UNIT_WORDS.nm },
 };
 
 /**

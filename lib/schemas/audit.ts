@@ -46,6 +46,8 @@ export type AuditQueryInput = z.input<typeof auditQuerySchema>;
 
 export type AuditChange = {
   path: string;
+  /** The path in words ("Limits › #3 › Maximum"), what the audit screen shows. */
+  label: string;
   kind: "added" | "removed" | "changed";
   before: string | null;
   after: string | null;

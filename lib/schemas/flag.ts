@@ -156,6 +156,11 @@ export type FlagListItem = {
   takenBy: string | null;
   takenAt: string | null;
   createdAt: string;
+  /**
+   * What the flag's age counts from: when the reading it judges was taken (a computed value's
+   * flag, which judges no one reading, counts from when it was raised). The queue sorts by it.
+   */
+  judgedAt: string;
 };
 
 export type FlagPage = { items: FlagListItem[]; total: number; page: number; pageSize: number; pageCount: number };

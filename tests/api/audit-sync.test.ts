@@ -7,6 +7,8 @@ import { createShop, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";
 import { later, push, reading } from "./sync-fixtures";
 
+const TOP_A = "Cylinder 1 · top of bore · axis A (thrust)";
+
 let s: TestShop;
 beforeAll(async () => {
   s = await createShop();
@@ -33,10 +35,17 @@ describe("readings.sync in the audit trail", () => {
       truncated: false,
     });
     expect(first.changes).toEqual([
-      { path: "device", kind: "added", before: null, after: "tablet-3 · 2 readings" },
-      { path: "bore/1/top/A", kind: "added", before: null, after: `4.0312 in · out of spec · reading ${bad.id}` },
+      { path: "device", label: "Tablet", kind: "added", before: null, after: "tablet-3 · 2 readings" },
+      {
+        path: "bore/1/top/A",
+        label: TOP_A,
+        kind: "added",
+        before: null,
+        after: `4.0312 in · out of spec · reading ${bad.id}`,
+      },
       {
         path: "bore/1/mid/A",
+        label: "Cylinder 1 · middle of bore · axis A (thrust)",
         kind: "added",
         before: null,
         after: expect.stringMatching(/^4\.0301 in · in spec · reading /),
@@ -44,6 +53,7 @@ describe("readings.sync in the audit trail", () => {
     ]);
     expect(second.changes[1]).toEqual({
       path: "bore/1/top/A",
+      label: TOP_A,
       kind: "added",
       before: null,
       after: `4.0302 in · in spec · reading ${fix.id} (corrects ${bad.id})`,

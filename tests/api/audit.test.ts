@@ -89,13 +89,20 @@ describe("GET /api/audit", () => {
     const update = byJob.body.events[0];
     expect(update.userName).toBe(s.users.lead.name);
     expect(update.changes).toEqual([
-      { path: "title", kind: "changed", before: "Old", after: "New" },
-      { path: "dueDate", kind: "changed", before: "null", after: "2027-01-04" },
+      { path: "title", label: "Title", kind: "changed", before: "Old", after: "New" },
+      { path: "dueDate", label: "Due date", kind: "changed", before: "null", after: "2027-01-04" },
     ]);
     const voided = byJob.body.events[1];
-    expect(voided.changes).toContainEqual({ path: "jobStatus", kind: "changed", before: "released", after: "review" });
+    expect(voided.changes).toContainEqual({
+      path: "jobStatus",
+      label: "Job status",
+      kind: "changed",
+      before: "released",
+      after: "review",
+    });
     expect(voided.changes).toContainEqual({
       path: "voidReason",
+      label: "Reason for voiding",
       kind: "added",
       before: null,
       after: "Main cap torque to be re-checked",

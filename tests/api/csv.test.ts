@@ -5,7 +5,7 @@ import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET } from "@/app/api/jobs/[jobId]/readings.csv/route";
 import { csvField, plainNumber } from "@/lib/server/readings/csv-export";
-import { Instrument, Reading, User } from "@/models";
+import { Flag, Instrument, Reading, User } from "@/models";
 import { createShop, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call } from "../support/requests";
 
@@ -118,6 +118,42 @@ beforeAll(async () => {
     limitMin: 65,
     limitMax: 70,
   });
+  // A gap limit given per inch of bore and resolved on a 4.0817 in bore carries float noise:
+  // 0.004 × 4.0817 and 0.0055 × 4.0817 (invented figures for the test).
+  const gap = await add(a, "ring-gap/1/top", 0.0152, "in", 7, {
+    characteristic: "ring_end_gap",
+    verdict: "out_of_spec",
+    limitMin: 0.004 * 4.0817,
+    limitMax: 0.0055 * 4.0817,
+  });
+  await add(a, "ring-gap/1/second", null, "in", 8, {
+    characteristic: "ring_end_gap",
+    skipReason: "Second rings not in yet, on order",
+  });
+  const flag = {
+    shopId: a.shop.id,
+    jobId: a.job.id,
+    unit: "in",
+    verdict: "out_of_spec",
+    reason: "out_of_spec",
+  } as const;
+  await Flag.create({
+    ...flag,
+    readingId: first.id,
+    stationId: "bore/1/top/A",
+    characteristic: "bore_diameter",
+    value: 4.0312,
+    state: "closed",
+    disposition: "machine_again",
+    operation: "Hone to size",
+  });
+  await Flag.create({
+    ...flag,
+    readingId: gap.id,
+    stationId: gap.stationId,
+    characteristic: "ring_end_gap",
+    value: 0.0152,
+  });
 });
 
 describe("GET /api/jobs/[jobId]/readings.csv", () => {
@@ -158,6 +194,9 @@ describe("GET /api/jobs/[jobId]/readings.csv", () => {
       "taken by",
       "taken at (UTC, ISO 8601)",
       "superseded?",
+      "lubricant",
+      "skip reason",
+      "decision",
     ]);
     expect(data.every((r) => r.length === header.length)).toBe(true);
     const byStation = new Map(data.filter((r) => r[0] === "reading").map((r) => [r[1], r]));
@@ -177,9 +216,19 @@ describe("GET /api/jobs/[jobId]/readings.csv", () => {
       'Vance, Rosa "Ro"',
       "2026-12-01T09:02:00.000Z",
       "no",
+      "",
+      "",
+      "",
     ]);
     expect(byStation.get("bore/1/top/B")?.[4]).toBe("4.03"); // entered in mm, given in the job's inches
     expect(byStation.get("torque/main-caps")?.slice(4, 9)).toEqual(["67", "lbf·ft", "65", "70", "In spec"]);
+    expect(byStation.get("torque/main-caps")?.[14]).toBe("Engine oil");
+    expect(byStation.get("ring-gap/1/second")?.slice(8, 9)).toEqual(["Skipped"]);
+    expect(byStation.get("ring-gap/1/second")?.[15]).toBe("Second rings not in yet, on order");
+    // Limits to the inch's display resolution, a tenth (plain decimal rounding):
+    // 0.004 × 4.0817 = 0.0163268 → 0.0163; 0.0055 × 4.0817 = 0.02244935 → 0.0224 (hand arithmetic).
+    expect(byStation.get("ring-gap/1/top")?.slice(6, 8)).toEqual(["0.0163", "0.0224"]);
+    expect(byStation.get("ring-gap/1/top")?.[16]).toBe("Flagged, no decision yet");
     // A label with a comma, and a name with a comma and quotes, are quoted (RFC 4180 §2.6, §2.7).
     expect(text).toContain('"Main bearing bore, shells in and caps torqued"');
     expect(text).toContain('"Vance, Rosa ""Ro"""');
@@ -200,9 +249,9 @@ describe("GET /api/jobs/[jobId]/readings.csv", () => {
   it("with history lists the corrected reading first, marked superseded", async () => {
     const rows = parseCsv((await csvOf(a.users.lead, a.job.id, "?history=1")).body as string); // text() has dropped the BOM
     const atStation = rows.filter((r) => r[1] === "bore/1/top/A");
-    expect(atStation.map((r) => [r[4], r[8], r[13]])).toEqual([
-      ["4.0312", "Out of spec", "yes"],
-      ["4.0301", "In spec", "no"],
+    expect(atStation.map((r) => [r[4], r[8], r[13], r[16]])).toEqual([
+      ["4.0312", "Out of spec", "yes", "Machine again (Hone to size)"],
+      ["4.0301", "In spec", "no", ""],
     ]);
   });
 });

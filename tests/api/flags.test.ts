@@ -158,7 +158,7 @@ describe("GET /api/flags", () => {
     expect(byVerdict.at(-1)).not.toBe("out_of_spec");
     expect(byVerdict[0]).toBe("out_of_spec");
     const oldestFirst = (await list(a.users.lead, "?sort=age&dir=desc")).body.items.map(
-      (i: { createdAt: string }) => i.createdAt,
+      (i: { judgedAt: string }) => i.judgedAt,
     );
     expect(oldestFirst).toEqual([...oldestFirst].sort());
   });

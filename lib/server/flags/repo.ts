@@ -1,5 +1,5 @@
 import "server-only";
-import { Op, type InferAttributes, type Order, type Transaction, type WhereOptions } from "sequelize";
+import { Op, literal, type InferAttributes, type Order, type Transaction, type WhereOptions } from "sequelize";
 import type { Disposition } from "@/lib/schemas/enums";
 import type { FlagListQuery } from "@/lib/schemas/flag";
 import type { Flag, FlagDisposition, Instrument, Job, Reading, User } from "@/models";
@@ -64,10 +64,12 @@ function whereOf(shopId: number, q: FlagListQuery): WhereOptions {
 
 function orderOf(q: FlagListQuery): Order {
   const dir = q.dir === "asc" ? "ASC" : "DESC";
-  // Age grows as createdAt falls: the oldest flag has the largest age.
+  // Age counts from the judged reading's time (the flag's own time for a computed value, which has
+  // no one reading), as toListItem's judgedAt; it grows as that time falls.
   const flip = dir === "ASC" ? "DESC" : "ASC";
+  const judgedAt = literal("COALESCE(`reading`.`taken_at`, `Flag`.`created_at`)");
   const by: Record<FlagListQuery["sort"], Order> = {
-    age: [["createdAt", flip]],
+    age: [[judgedAt, flip]],
     job: [
       [{ model: models().Job, as: "job" }, "code", dir],
       ["stationId", "ASC"],
@@ -172,4 +174,19 @@ export async function recordDecision(
   };
   await Flag.update(patch, { where: { id: flag.id }, transaction: t });
   return { dispositionId: row.id, flag: { ...flag, ...patch } };
+}
+
+export type FlagDecisionRow = Pick<
+  StoredFlag,
+  "id" | "readingId" | "derivedKey" | "state" | "disposition" | "operation"
+>;
+
+/** Every flag of a job with its latest decision, oldest first (the readings CSV's decision column). */
+export async function jobFlagDecisions(shopId: number, jobId: number): Promise<FlagDecisionRow[]> {
+  const rows = await models().Flag.findAll({
+    where: { shopId, jobId },
+    attributes: ["id", "readingId", "derivedKey", "state", "disposition", "operation"],
+    order: [["id", "ASC"]],
+  });
+  return rows.map((f) => plain<FlagDecisionRow>(f));
 }

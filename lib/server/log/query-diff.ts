@@ -1,5 +1,6 @@
 import "server-only";
 import type { AuditChange } from "@/lib/schemas/audit";
+import { pathWords } from "@/lib/server/log/field-words";
 
 // Before/after of an audit event as a readable list of changed fields: nested objects flattened
 // to dotted paths ("limits.0.max"), values as short text. Pure.
@@ -37,7 +38,7 @@ export function diffJson(before: unknown, after: unknown): { changes: AuditChang
     const is = b.get(path);
     if (was === is) continue;
     const kind = was === undefined ? "added" : is === undefined ? "removed" : "changed";
-    changes.push({ path, kind, before: was ?? null, after: is ?? null });
+    changes.push({ path, label: pathWords(path), kind, before: was ?? null, after: is ?? null });
   }
   return { changes: changes.slice(0, MAX_CHANGES), truncated: changes.length > MAX_CHANGES };
 }

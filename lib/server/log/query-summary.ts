@@ -1,5 +1,5 @@
 import "server-only";
-import { verdictInText } from "@/lib/domain";
+import { stationWords, verdictInText } from "@/lib/domain";
 import type { AuditChange } from "@/lib/schemas/audit";
 import { diffJson } from "@/lib/server/log/query-diff";
 import { SYNC_ACTION, type SyncAuditAfter } from "@/lib/server/sync/ingest-audit";
@@ -12,6 +12,7 @@ import { SYNC_ACTION, type SyncAuditAfter } from "@/lib/server/sync/ingest-audit
 function syncChanges(after: SyncAuditAfter): AuditChange[] {
   const head: AuditChange = {
     path: "device",
+    label: "Tablet",
     kind: "added",
     before: null,
     after: `${after.deviceId} · ${after.count} reading${after.count === 1 ? "" : "s"}`,
@@ -24,6 +25,7 @@ function syncChanges(after: SyncAuditAfter): AuditChange[] {
       const corrects = r.supersedes ? ` (corrects ${r.supersedes})` : "";
       return {
         path: r.stationId,
+        label: stationWords(r.stationId),
         kind: "added",
         before: null,
         after: `${figure} · ${verdict} · reading ${r.id}${corrects}`,

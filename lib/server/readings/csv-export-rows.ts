@@ -5,27 +5,40 @@ import {
   convertLength,
   convertTorque,
   characteristicWords,
+  currentReadings,
   deriveReadings,
+  LUBRICANT_LABELS,
+  roundToResolution,
   stationWords,
   UNIT_WORDS,
   VERDICT_WORDS,
   type LengthUnit,
+  type Lubricant,
   type MeasureUnit,
   type TorqueUnit,
 } from "@/lib/domain";
+import type { Disposition } from "@/lib/schemas/enums";
+import { DISPOSITION_WORDS } from "@/lib/schemas/flag";
+import { jobFlagDecisions, type FlagDecisionRow } from "@/lib/server/flags/repo";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { loadJobReadings, type JobReadings } from "@/lib/server/jobs/readings";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { toCsv, type Cell } from "@/lib/server/readings/csv-export";
 
 // GET /api/jobs/[jobId]/readings.csv: one row per current reading (each station's current
-// value, the rule flag reconciliation uses) and per derived value that has a value, in bench
+// reading by the core's rule, a skip included) and per derived value that has a value, in bench
 // order. With history, every other reading is listed before the current one of its station and
-// marked superseded? "yes" (corrected, measured again, or a skip). Values, limits and deviations are in the job's units (the header says which:
-// lengths in in or mm, torque in lbf·ft or N·m) and the unit column names the row's own unit.
-// Verdicts, limits and deviations of readings are the server's stored ones.
+// marked superseded? "yes" (corrected, measured again, or a skip). Values, limits and deviations
+// are in the job's units (the header says which: lengths in in or mm, torque in lbf·ft or N·m)
+// and the unit column names the row's own unit.
+// Verdicts, limits and deviations of readings are the server's stored ones; limits are written to
+// the unit's display resolution (the core's roundToResolution), so a limit computed from a size
+// (ring gap per inch of bore) reads 0.0018, not 0.001836765. The format is documented in csv-export.ts.
 
 type Units = { length: LengthUnit; torque: TorqueUnit };
+type Decisions = { byReading: Map<string, FlagDecisionRow>; byDerived: Map<string, FlagDecisionRow> };
+
+const isTorqueUnit = (u: MeasureUnit) => u === "lbf_ft" || u === "nm";
 
 function converter(units: Units) {
   return (x: number | null | undefined, from: MeasureUnit): number | null => {
@@ -37,10 +50,39 @@ function converter(units: Units) {
   };
 }
 
-const isTorqueUnit = (u: MeasureUnit) => u === "lbf_ft" || u === "nm";
-
-function readingRow(r: StoredReading, units: Units, ctx: { current: Set<string>; data: JobReadings }): Cell[] {
+/** A limit in the job's unit, rounded to that unit's display resolution. */
+function limitOf(units: Units) {
   const to = converter(units);
+  return (x: number | null | undefined, from: MeasureUnit): number | null => {
+    const v = to(x, from);
+    return v === null ? null : roundToResolution(v, isTorqueUnit(from) ? units.torque : units.length);
+  };
+}
+
+/** The latest decision on a flag in words: "Machine again (hone)", or where the flag stands without one. */
+function decisionWords(f: FlagDecisionRow | undefined): string {
+  if (!f) return "";
+  if (f.disposition)
+    return `${DISPOSITION_WORDS[f.disposition as Disposition]}${f.operation ? ` (${f.operation})` : ""}`;
+  return f.state === "closed" ? "Flag closed, no decision" : "Flagged, no decision yet";
+}
+
+function decisionsOf(flags: FlagDecisionRow[]): Decisions {
+  const byReading = new Map<string, FlagDecisionRow>();
+  const byDerived = new Map<string, FlagDecisionRow>();
+  // Oldest first, so a computed value's latest flag wins.
+  for (const f of flags) {
+    if (f.readingId) byReading.set(f.readingId, f);
+    else if (f.derivedKey) byDerived.set(f.derivedKey, f);
+  }
+  return { byReading, byDerived };
+}
+
+type RowContext = { current: Set<string>; data: JobReadings; decisions: Decisions };
+
+function readingRow(r: StoredReading, units: Units, ctx: RowContext): Cell[] {
+  const to = converter(units);
+  const limit = limitOf(units);
   const unit = r.unit as MeasureUnit;
   const rowUnit = isTorqueUnit(unit) ? units.torque : units.length;
   const gauge = r.instrumentId ? ctx.data.instruments.get(r.instrumentId)?.serial : null;
@@ -51,24 +93,30 @@ function readingRow(r: StoredReading, units: Units, ctx: { current: Set<string>;
     characteristicWords(r.characteristic),
     r.skipped ? null : to(r.value, unit),
     UNIT_WORDS[rowUnit],
-    to(r.limitMin, unit),
-    to(r.limitMax, unit),
+    limit(r.limitMin, unit),
+    limit(r.limitMax, unit),
     r.skipped ? "Skipped" : r.verdict ? VERDICT_WORDS[r.verdict] : "",
     to(r.deviation, unit),
     gauge,
     ctx.data.takers.get(r.takenBy) ?? "",
     r.takenAt.toISOString(),
     ctx.current.has(r.id) ? "no" : "yes",
+    r.lubricant ? (LUBRICANT_LABELS[r.lubricant as Lubricant] ?? r.lubricant) : "",
+    r.skipped ? (r.skipReason ?? "") : "",
+    decisionWords(ctx.decisions.byReading.get(r.id)),
   ];
 }
 
 export async function readingsCsv(shopId: number, jobId: number, opts: { history?: boolean } = {}) {
   const ctx = await loadJobContext(shopId, jobId);
-  const data = await loadJobReadings(shopId, jobId);
-  const current = new Set(data.current.map((r) => r.id));
+  const [data, flags] = await Promise.all([loadJobReadings(shopId, jobId), jobFlagDecisions(shopId, jobId)]);
+  const decisions = decisionsOf(flags);
+  // Each station's current reading, a skip included (a skip is a reading: its row carries the reason).
+  const current = new Set([...currentReadings(data.all).values()].map((r) => r.id));
   const units: Units =
     ctx.job.unitSystem === "mm" ? { length: "mm", torque: "nm" } : { length: "in", torque: "lbf_ft" };
   const to = converter(units);
+  const limit = limitOf(units);
   let order = new Map<string, number>();
   let derivedRows: Cell[][] = [];
   try {
@@ -86,14 +134,17 @@ export async function readingsCsv(shopId: number, jobId: number, opts: { history
         characteristicWords(d.characteristic),
         to(d.value, d.unit),
         UNIT_WORDS[units.length],
-        d.limits ? to(d.limits.min, d.limits.unit) : null,
-        d.limits ? to(d.limits.max, d.limits.unit) : null,
+        d.limits ? limit(d.limits.min, d.limits.unit) : null,
+        d.limits ? limit(d.limits.max, d.limits.unit) : null,
         d.verdict ? VERDICT_WORDS[d.verdict] : "",
         to(d.deviation, d.unit),
         "",
         "",
         "",
         "",
+        "",
+        "",
+        decisionWords(decisions.byDerived.get(d.key)),
       ]);
   } catch {
     // An engine the core cannot lay out: readings still export, in the order they were taken.
@@ -119,9 +170,12 @@ export async function readingsCsv(shopId: number, jobId: number, opts: { history
     "taken by",
     "taken at (UTC, ISO 8601)",
     "superseded?",
+    "lubricant",
+    "skip reason",
+    "decision",
   ];
   return {
-    csv: toCsv(header, [...picked.map((r) => readingRow(r, units, { current, data })), ...derivedRows]),
+    csv: toCsv(header, [...picked.map((r) => readingRow(r, units, { current, data, decisions })), ...derivedRows]),
     code: ctx.job.code,
   };
 }

@@ -11,6 +11,16 @@ import "server-only";
 // - Dates and times in ISO 8601 UTC (2026-12-01T09:30:00.000Z).
 // - Text cells that begin with = + - @ (or a tab or CR) get a leading apostrophe, so a
 //   spreadsheet never runs a cell as a formula (OWASP "CSV injection"); numbers are untouched.
+//
+// The readings export (csv-export-rows.ts), one row per reading or computed value, columns in
+// this order: row ("reading" or "derived"), station (id), station (words), characteristic,
+// value, unit, min, max, verdict, deviation, gauge serial, taken by, taken at (UTC, ISO 8601),
+// superseded? ("yes"/"no"), lubricant (torque readings, in words), skip reason (skipped
+// readings), decision (the latest decision on the row's flag: "Measure again", "Machine again
+// (operation)", "Accepted as is", or "Flagged, no decision yet" / "Flag closed, no decision").
+// Figures are in the job's units (named in the headers); min and max are rounded to the unit's
+// display resolution (0.0001 in, 0.001 mm, 1 lbf·ft, 1 N·m: the core's roundToResolution, plain
+// decimal rounding, a half away from zero), values and deviations are written as stored.
 export const BOM = "\uFEFF";
 
 export type Cell = string | number | null | undefined;
