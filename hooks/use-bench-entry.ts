@@ -8,6 +8,7 @@ import {
   isDialBoreGauge,
   jobLock,
   jobLockReason,
+  LUBRICANT_LABELS,
   type Lubricant,
   type Station,
 } from "@/lib/domain";
@@ -190,6 +191,7 @@ export function useBenchEntry({ pack, views, readings, prefs, stationId, moveTo 
         verdict: ev?.verdict,
         deviation: ev?.deviation,
         deviationUnit: ev?.unit,
+        ...(r.lubricant ? { lubricant: LUBRICANT_LABELS[r.lubricant] } : {}),
         note,
         stayed,
       },

@@ -17,6 +17,8 @@ export interface LastEntry {
   deviation?: number;
   deviationUnit?: MeasureUnit;
   note?: string;
+  /** Torque entries: the lubricant, in words. */
+  lubricant?: string;
   skipped?: boolean;
   stayed: boolean;
 }

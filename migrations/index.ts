@@ -16,6 +16,7 @@ import * as createMailOutbox from "./20261201001200-create-mail-outbox";
 import * as addReadingsGaugeTemp from "./20261202000100-add-readings-gauge-temp";
 import * as addJobsContextRevision from "./20261202000200-add-jobs-context-revision";
 import * as addJobsFinishedSizes from "./20261203010000-add-jobs-finished-sizes";
+import * as addInstrumentsRange from "./20261203030000-add-instruments-range";
 import * as createUserSessions from "./20261203050000-create-user-sessions";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
@@ -41,6 +42,7 @@ export const migrations: Migration[] = [
   step("20261202000100-add-readings-gauge-temp", addReadingsGaugeTemp),
   step("20261202000200-add-jobs-context-revision", addJobsContextRevision),
   step("20261203010000-add-jobs-finished-sizes", addJobsFinishedSizes),
+  step("20261203030000-add-instruments-range", addInstrumentsRange),
   step("20261203050000-create-user-sessions", createUserSessions),
 ];
 

@@ -21,6 +21,9 @@ export class Instrument extends Model<InferAttributes<Instrument>, InferCreation
   declare unit: string;
   declare resolution: number;
   declare expandedU: number;
+  /** The measuring range in `unit`; null on a gauge registered before ranges were kept. */
+  declare rangeMin: CreationOptional<number | null>;
+  declare rangeMax: CreationOptional<number | null>;
   declare coverageK: CreationOptional<number>;
   /** 'YYYY-MM-DD'. */
   declare calibratedOn: CreationOptional<string | null>;
@@ -47,6 +50,8 @@ export function initInstrument(sequelize: Sequelize): void {
       unit: str(8),
       resolution: decimal("resolution", 12, 6, false),
       expandedU: { ...decimal("expandedU", 12, 6, false), field: "expanded_u" },
+      rangeMin: { ...decimal("rangeMin", 12, 6), field: "range_min" },
+      rangeMax: { ...decimal("rangeMax", 12, 6), field: "range_max" },
       coverageK: { ...decimal("coverageK", 4, 2, false), field: "coverage_k", defaultValue: 2 },
       calibratedOn: dateOnly(),
       calibrationDue: dateOnly(),

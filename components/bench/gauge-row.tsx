@@ -1,6 +1,7 @@
 "use client";
 
 import { memo, useState } from "react";
+import { gaugeRangeWords, unitWords } from "@/lib/domain";
 import type { BenchInstrument } from "@/lib/schemas/sync";
 
 // Picking the gauge (it sets the guard band and, for a dial bore gauge, the sign convention) and,
@@ -83,7 +84,8 @@ export const GaugeRow = memo(function GaugeRow({
               >
                 <span className="block font-semibold">{g.label}</span>
                 <span className="block text-sm">
-                  {g.serial} · reads {g.resolution} {g.unit}
+                  {g.serial} · reads {g.resolution} {unitWords(g.unit)}
+                  {gaugeRangeWords(g) ? ` · measures ${gaugeRangeWords(g)}` : ""}
                   {pastDue(g) ? " · calibration past due" : ""}
                 </span>
               </button>

@@ -48,6 +48,11 @@ export function LastEntryCard({ store, onAgain }: { store: EntryStore; onAgain: 
           </button>
         )}
       </div>
+      {last.lubricant && (
+        <p className="text-base" data-testid="last-lubricant">
+          Lubricant: <strong>{last.lubricant}</strong>
+        </p>
+      )}
       {last.note && <p className="text-sm text-muted">{last.note}</p>}
       {last.stayed && (
         <p className="rounded-tool border-l-4 border-fail bg-fail-soft p-3 font-semibold text-fail" role="alert">

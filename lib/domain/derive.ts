@@ -29,6 +29,7 @@ import {
 } from "./stations";
 import { LENGTH_UNITS, TORQUE_UNITS, type LengthUnit, type MeasureUnit } from "./enums";
 import { correctTo20C, EXPANSION_COEFFICIENTS } from "./thermal";
+import { stationWords, unitWords } from "./words";
 import type {
   CharacteristicId,
   DerivedCharacteristic,
@@ -57,11 +58,14 @@ interface Prepared {
 const MAY_BE_ZERO = new Set<CharacteristicId>(["ring_end_gap", "rod_side_clearance", "crank_end_play", "valve_lash"]);
 
 function checkReading(reading: RawReading, characteristic: RawCharacteristic): void {
-  const id = reading.stationId;
+  // In words (the tablet shows these): the station as a person names it, units as written.
+  const id = stationWords(reading.stationId);
   const { kind, label } = CHARACTERISTICS[characteristic];
   const units: readonly string[] = kind === "length" ? LENGTH_UNITS : TORQUE_UNITS;
   if (!units.includes(reading.unit))
-    throw new Error(`${id} takes a ${kind} in ${units.join(" or ")}; got unit '${String(reading.unit)}'`);
+    throw new Error(
+      `${id} takes a ${kind} in ${units.map(unitWords).join(" or ")}; got unit '${String(reading.unit)}'`,
+    );
   if (typeof reading.value !== "number" || !Number.isFinite(reading.value))
     throw new Error(`${id}: the value must be a number; re-enter it`);
   const zeroOk = MAY_BE_ZERO.has(characteristic);
@@ -75,7 +79,8 @@ function checkReading(reading: RawReading, characteristic: RawCharacteristic): v
     throw new Error(`${id}: uncertainty U must be zero or more; got ${String(u)}`);
   }
   if (kind === "torque" && !(reading.lubricant && reading.lubricant in LUBRICANT_LABELS)) {
-    throw new Error(`${id}: say which lubricant was used (${Object.keys(LUBRICANT_LABELS).join(", ")})`);
+    const words = Object.values(LUBRICANT_LABELS).map((l) => l.toLowerCase());
+    throw new Error(`${id}: say which lubricant was used (${words.join(", ")})`);
   }
 }
 

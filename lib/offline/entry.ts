@@ -3,6 +3,7 @@
 // returned as words, and the typed text stays on screen.
 import {
   dialDiameter,
+  gaugeRefusal,
   implausibleReason,
   isDialBoreGauge,
   takesDialBoreGauge,
@@ -65,6 +66,10 @@ export function buildReading(text: string, ctx: EntryContext): Built {
   }
   const why = implausibleReason(station.id, value, station.unit, pack.shape);
   if (why) return { error: why };
+  // The same rule and words as the server's check at upload: a gauge that measures the station
+  // and whose range holds the value, or which one to pick.
+  const wrongGauge = gaugeRefusal({ stationId: station.id, value, unit: station.unit }, instrument, pack.instruments);
+  if (wrongGauge) return { error: wrongGauge };
   return {
     reading: {
       jobId: pack.job.id,

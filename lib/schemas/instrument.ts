@@ -1,5 +1,12 @@
 import { z } from "zod";
-import { INSTRUMENT_KIND_IDS, INSTRUMENT_KINDS, MEASURE_UNITS, quantityOfUnit, type MeasureUnit } from "@/lib/domain";
+import {
+  INSTRUMENT_KIND_IDS,
+  INSTRUMENT_KINDS,
+  MEASURE_UNITS,
+  gaugeRangeProblem,
+  quantityOfUnit,
+  type MeasureUnit,
+} from "@/lib/domain";
 
 // One schema for the gauge form and the instruments routes, plus the
 // calibration status words every screen uses.
@@ -25,6 +32,10 @@ const positive = (what: string) =>
     .finite(`${what} must be a number`)
     .positive(`${what} must be above zero`);
 
+const rangeEnd = (what: string) => z.number({ error: `Enter ${what} as a number` }).finite(`Enter ${what} as a number`);
+/** The range as stored and merged on an edit: a gauge registered before ranges were kept has none. */
+const storedRangeEnd = (what: string) => rangeEnd(what).nullable();
+
 /** The fields of a gauge as the admin enters them; U is the expanded uncertainty at k = 2. */
 export const instrumentFields = z.object({
   kind: z.enum(INSTRUMENT_KIND_IDS, { error: "Choose what kind of gauge this is" }),
@@ -44,6 +55,9 @@ export const instrumentFields = z.object({
     .number({ error: "Expanded uncertainty U must be a number" })
     .finite("Expanded uncertainty U must be a number")
     .min(0, "Expanded uncertainty U cannot be negative"),
+  // The measuring range in the gauge's unit; null only on a gauge registered before ranges were kept.
+  rangeMin: storedRangeEnd("the start of the measuring range"),
+  rangeMax: storedRangeEnd("the top of the measuring range"),
   calibratedOn: date("calibration"),
   calibrationDue: date("calibration due"),
   dialPlusMeansSmaller: z.boolean({ error: "Say whether plus on the dial means a smaller bore" }),
@@ -61,6 +75,15 @@ const unitFits = (v: Fields) => {
   return quantityOfUnit(v.unit) === INSTRUMENT_KINDS[v.kind].quantity;
 };
 
+/** The core's plausibility of the range (gaugeRangeProblem), on the field it names. */
+const rangeProblem = (v: Fields) =>
+  v.rangeMin === null || v.rangeMax === null ? undefined : gaugeRangeProblem(v.kind, v.unit, v.rangeMin, v.rangeMax);
+const rangeRule = (field: "rangeMin" | "rangeMax") => ({
+  path: [field],
+  error: (issue: { input?: unknown }) => rangeProblem(issue.input as Fields)?.message,
+  when: when("kind", "unit", "rangeMin", "rangeMax"),
+});
+
 /** Rules across fields, shared by create (whole object) and edit (after merging with what is stored). */
 export function withInstrumentRules<S extends z.ZodType<Fields>>(schema: S): S {
   return schema
@@ -69,6 +92,13 @@ export function withInstrumentRules<S extends z.ZodType<Fields>>(schema: S): S {
       message: "The unit must fit the kind: a torque wrench reads lbf·ft or N·m, every other gauge in or mm",
       when: when("kind", "unit"),
     })
+    .refine((v) => (v.rangeMin === null) === (v.rangeMax === null), {
+      path: ["rangeMax"],
+      message: "Enter both ends of the measuring range",
+      when: when("rangeMin", "rangeMax"),
+    })
+    .refine((v) => rangeProblem(v)?.field !== "rangeMin", rangeRule("rangeMin"))
+    .refine((v) => rangeProblem(v)?.field !== "rangeMax", rangeRule("rangeMax"))
     .refine((v) => v.calibrationDue > v.calibratedOn, {
       path: ["calibrationDue"],
       message: "The due date must come after the calibration date",
@@ -81,9 +111,18 @@ export function withInstrumentRules<S extends z.ZodType<Fields>>(schema: S): S {
     }) as S;
 }
 
+/** A gauge registered or edited now states its range (what it reads: 20–150 lbf·ft, 4–5 in). */
+const newRange = {
+  rangeMin: rangeEnd("the start of the measuring range"),
+  rangeMax: rangeEnd("the top of the measuring range"),
+};
+
 /** Registering: most dial bore gauges read plus for a smaller bore, so that is the default. */
 export const instrumentSchema = withInstrumentRules(
-  instrumentFields.extend({ dialPlusMeansSmaller: instrumentFields.shape.dialPlusMeansSmaller.default(true) }),
+  instrumentFields.extend({
+    dialPlusMeansSmaller: instrumentFields.shape.dialPlusMeansSmaller.default(true),
+    ...newRange,
+  }),
 );
 
 /**
@@ -93,6 +132,8 @@ export const instrumentSchema = withInstrumentRules(
 export const instrumentPatchSchema = instrumentFields
   .partial()
   .extend({
+    rangeMin: newRange.rangeMin.optional(),
+    rangeMax: newRange.rangeMax.optional(),
     active: z.boolean({ error: "active must be true or false" }).optional(),
   })
   .strict()
@@ -101,6 +142,8 @@ export const instrumentPatchSchema = instrumentFields
 export type InstrumentValues = z.input<typeof instrumentSchema>;
 export type InstrumentInput = z.output<typeof instrumentSchema>;
 export type InstrumentPatch = z.output<typeof instrumentPatchSchema>;
+/** A gauge's fields as stored (an edit is checked as a whole after merging with them). */
+export type InstrumentFields = Fields;
 
 export type CalibrationStatus = "in_calibration" | "due_soon" | "past_due";
 export const DUE_SOON_DAYS = 30;

@@ -20,7 +20,8 @@
 //       held      it was fine but not written because another reading in the batch was refused:
 //                 send it again (alone or with the others fixed) — the all-or-nothing rule below.
 //   Rule: the server checks EVERY reading (shape, job of this shop, job not locked, station on the
-//   engine's route, unit, physical range, lubricant on torque, gauge, dial arithmetic, id conflicts)
+//   engine's route, unit, physical range, lubricant on torque, gauge (named, of a suitable kind, its
+//   range holding the value: code wrong_gauge when only that is wrong), dial arithmetic, id conflicts)
 //   inside one transaction, and writes only when all pass; otherwise it rolls back and answers 422/409.
 //   A reading for another shop's job gets code not_found ("Job 42 not found"), same as a missing job.
 //   Verdicts are recomputed on the server with lib/domain; the tablet's preview is never trusted.
@@ -143,7 +144,9 @@ export const pushBatchSchema = z.object({
 });
 export type PushBatch = { deviceId: string; readings: PushReadingInput[] };
 
-export type RejectCode = "invalid" | "not_found" | "job_locked" | "conflict";
+/** wrong_gauge: only the gauge is refused (none named, a kind that cannot measure the station, or its
+ * range does not hold the value); the reason says which gauge to pick. */
+export type RejectCode = "invalid" | "not_found" | "job_locked" | "conflict" | "wrong_gauge";
 
 /** The verdict as the server stored it; limits and deviation are in `unit` (the unit entered). */
 export type ReadingEvaluation = {
@@ -244,6 +247,9 @@ export type BenchInstrument = {
   /** Expanded uncertainty U (k = coverageK, normally 2), in `unit`. */
   expandedU: number;
   coverageK: number;
+  /** The measuring range in `unit`; null (or absent) on a gauge registered before ranges were kept. */
+  rangeMin?: number | null;
+  rangeMax?: number | null;
   calibrationDue: string | null;
   dialPlusMeansSmaller: boolean;
   active: boolean;

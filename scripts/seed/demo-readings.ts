@@ -98,8 +98,8 @@ function six(g: DemoContext["instruments"]): Entry[] {
     dial("bore/1/top/B", 3.5925, -0.0001, g.dialBore),
     dial("bore/2/top/A", 3.5925, -0.0002, g.dialBore),
     dial("bore/2/top/B", 3.5925, -0.0003, g.dialBore),
-    ["deck/block/front", 9.381],
-    ["deck/block/rear", 9.379],
+    ["deck/block/front", 9.381, { instrumentId: g.deck }],
+    ["deck/block/rear", 9.379, { instrumentId: g.deck }],
   ];
 }
 

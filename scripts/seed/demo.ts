@@ -4,6 +4,7 @@ import bcrypt from "bcryptjs";
 import { readFileSync } from "node:fs";
 import type { Role, UnitSystem } from "@/lib/schemas/enums";
 import { models } from "@/lib/server/core/db";
+import { DEMO_GAUGES } from "./demo-gauges";
 import { seedDemoReadings } from "./demo-readings";
 import { DEMO_SIZES, STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-specs";
 
@@ -195,97 +196,7 @@ export async function seedDemo(): Promise<DemoContext> {
   };
 
   const instruments: Record<string, number> = {};
-  const gauges = [
-    {
-      key: "mic",
-      kind: "outside_mic",
-      label: "Outside micrometer 2–3 in",
-      serial: "KF-M23-01",
-      unit: "in",
-      resolution: 0.0001,
-      expandedU: 0.00008,
-      calibratedOn: "2026-05-12",
-      calibrationDue: "2027-05-12",
-    },
-    {
-      key: "mic34",
-      kind: "outside_mic",
-      label: "Outside micrometer 3–4 in",
-      serial: "KF-M34-02",
-      unit: "in",
-      resolution: 0.0001,
-      expandedU: 0.0001,
-      calibratedOn: "2026-05-12",
-      calibrationDue: "2027-05-12",
-    },
-    {
-      key: "dialBore",
-      kind: "bore_gauge_dial",
-      label: "Dial bore gauge 2–6 in",
-      serial: "KF-DB-07",
-      unit: "in",
-      resolution: 0.0001,
-      expandedU: 0.00015,
-      calibratedOn: "2026-03-02",
-      calibrationDue: "2026-12-15",
-    },
-    {
-      key: "micMm",
-      kind: "outside_mic",
-      label: "Outside micrometer 75–100 mm",
-      serial: "KF-MM-11",
-      unit: "mm",
-      resolution: 0.001,
-      expandedU: 0.002,
-      calibratedOn: "2026-07-20",
-      calibrationDue: "2027-07-20",
-    },
-    {
-      key: "boreMm",
-      kind: "bore_gauge_digital",
-      label: "Digital bore gauge 50–160 mm",
-      serial: "KF-DBM-03",
-      unit: "mm",
-      resolution: 0.001,
-      expandedU: 0.003,
-      calibratedOn: "2026-07-20",
-      calibrationDue: "2027-07-20",
-    },
-    {
-      key: "indicator",
-      kind: "dial_indicator",
-      label: "Dial indicator 1 in travel",
-      serial: "KF-DI-04",
-      unit: "in",
-      resolution: 0.0005,
-      expandedU: 0.0004,
-      calibratedOn: "2025-09-01",
-      calibrationDue: "2026-09-01",
-    },
-    {
-      key: "stretch",
-      kind: "stretch_gauge",
-      label: "Rod-bolt stretch gauge",
-      serial: "KF-SG-02",
-      unit: "in",
-      resolution: 0.0001,
-      expandedU: 0.0001,
-      calibratedOn: "2026-04-04",
-      calibrationDue: "2027-04-04",
-    },
-    {
-      key: "torque",
-      kind: "torque_wrench",
-      label: "Click torque wrench 20–150 lbf·ft",
-      serial: "KF-TW-09",
-      unit: "lbf_ft",
-      resolution: 1,
-      expandedU: 2,
-      calibratedOn: "2026-02-10",
-      calibrationDue: "2027-02-10",
-    },
-  ];
-  for (const { key, ...g } of gauges) instruments[key] = (await Instrument.create({ shopId: shop.id, ...g })).id;
+  for (const { key, ...g } of DEMO_GAUGES) instruments[key] = (await Instrument.create({ shopId: shop.id, ...g })).id;
 
   return seedDemoReadings({ shopId: shop.id, users, jobs, instruments });
 }

@@ -57,17 +57,20 @@ describe("GET /api/bench/jobs/:jobId", () => {
     expect(p.shape).toMatchObject({ cylinders: 8, layout: "v", mains: 5, unitSystem: "inch" });
     expect(p.spec.map((l: { characteristic: string }) => l.characteristic)).toContain("bore_diameter");
     expect(p.route.total).toBe(benchRoute(p.shape).total);
-    expect(p.instruments).toEqual([
+    expect(p.instruments).toHaveLength(Object.keys(s.gauges).length + 1);
+    expect(p.instruments).toContainEqual(
       expect.objectContaining({
         id: s.instrument.id,
-        kind: "outside_mic",
+        kind: "bore_gauge_digital",
         unit: "in",
         resolution: 0.0001,
         expandedU: 0.0001,
+        rangeMin: 2,
+        rangeMax: 6,
         calibrationDue: "2027-06-01",
         dialPlusMeansSmaller: true,
       }),
-    ]);
+    );
     expect(p.readings).toHaveLength(2);
     expect(p.readings.find((r: { stationId: string }) => r.stationId === "bore/1/top/A")).toMatchObject({
       stationId: "bore/1/top/A",

@@ -20,6 +20,8 @@ async function register(over: Record<string, unknown>): Promise<number> {
     unit: "in",
     resolution: 0.0001,
     expandedU: 0.0001,
+    // 2–6 in, 50–155 mm: a bore gauge's usual span (common practice); 155 mm ≈ 6.1 in.
+    ...(over.unit === "mm" ? { rangeMin: 50, rangeMax: 155 } : { rangeMin: 2, rangeMax: 6 }),
     calibratedOn: day(-200),
     calibrationDue: day(165),
     ...over,

@@ -6,7 +6,7 @@ import { GET, POST } from "@/app/api/instruments/route";
 import { GET as GET_ONE, PATCH } from "@/app/api/instruments/[instrumentId]/route";
 import { POST as UPLOAD } from "@/app/api/attachments/route";
 import { calibrationStatus } from "@/lib/schemas/instrument";
-import { AuditEvent } from "@/models";
+import { AuditEvent, Instrument } from "@/models";
 import { createShop, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call, cookieFor } from "../support/requests";
 
@@ -23,6 +23,8 @@ const gauge = (over: Record<string, unknown> = {}) => ({
   unit: "in",
   resolution: 0.0001,
   expandedU: 0.00015,
+  rangeMin: 2,
+  rangeMax: 6,
   calibratedOn: day(-300),
   calibrationDue: day(65),
   dialPlusMeansSmaller: true,
@@ -101,10 +103,32 @@ describe("POST /api/instruments", () => {
     ["a date that does not exist", { calibratedOn: "2026-02-30" }, "calibratedOn"],
     ["a date in another format", { calibrationDue: "12/01/2027" }, "calibrationDue"],
     ["due before calibrated", { calibratedOn: day(0), calibrationDue: day(-1) }, "calibrationDue"],
+    ["no measuring range", { rangeMin: undefined, rangeMax: undefined }, "rangeMin"],
+    ["a range top as text", { rangeMax: "6" }, "rangeMax"],
+    ["a range that starts below zero", { rangeMin: -1 }, "rangeMin"],
+    ["a range whose top is below its start", { rangeMin: 6, rangeMax: 2 }, "rangeMax"],
+    // The core's plausible ranges (common practice): no engine station is above 1200 mm (47.2 in).
+    ["a range past any engine size", { rangeMax: 600 }, "rangeMax"],
   ])("422 for %s", async (_label, over, field) => {
     const res = await register(a.users.admin, gauge(over));
     expect(res.status).toBe(422);
     expect(res.body.error.fields[field]?.[0]).toBeTruthy();
+  });
+
+  it("refuses a 20–1500 lbf·ft wrench in words and keeps the figures; stores a 20–150 lbf·ft one", async () => {
+    const wrench = { kind: "torque_wrench", unit: "lbf_ft", resolution: 1, expandedU: 2, rangeMin: 20 };
+    // 1500 lbf·ft is 2034 N·m (1 lbf·ft = 1.355818 N·m, NIST SP 811, B.8): within the core's 3000 N·m.
+    // 2500 lbf·ft is 3390 N·m: more than any engine fastener (the core's plausible ranges, common practice).
+    const bad = await register(a.users.admin, gauge({ ...wrench, rangeMax: 2500 }));
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.fields.rangeMax[0]).toMatch(/^2500 lbf·ft is more than any engine station measures/);
+    const ok = await register(a.users.admin, gauge({ ...wrench, rangeMax: 150 }));
+    expect(ok.status).toBe(201);
+    expect(ok.body.instrument).toMatchObject({ rangeMin: 20, rangeMax: 150, unit: "lbf_ft" });
+    const e = await AuditEvent.findOne({
+      where: { entityType: "instrument", entityId: String(ok.body.instrument.id), action: "instrument.registered" },
+    });
+    expect(e?.after).toMatchObject({ rangeMin: 20, rangeMax: 150 });
   });
 
   it("400 when the body is not JSON", async () => {
@@ -171,6 +195,27 @@ describe("PATCH /api/instruments/[id]", () => {
     expect(bad.status).toBe(422);
     expect(bad.body.error.fields.calibrationDue).toBeDefined();
     expect((await patch(a.users.admin, id, { unit: "lbf_ft" })).body.error.fields.unit).toBeDefined();
+    const range = await patch(a.users.admin, id, { rangeMin: 7 });
+    expect(range.status).toBe(422);
+    expect(range.body.error.fields.rangeMax[0]).toBe("The top of the range must be above its start (7 in)");
+    expect((await patch(a.users.admin, id, { rangeMin: 3, rangeMax: 7 })).body.instrument).toMatchObject({
+      rangeMin: 3,
+      rangeMax: 7,
+    });
+    expect((await patch(a.users.admin, id, { rangeMax: null })).status).toBe(422);
+  });
+
+  it("a gauge registered before ranges were kept can still be switched off, and takes a range on edit", async () => {
+    const { body } = await register(a.users.admin, gauge());
+    const id = body.instrument.id;
+    await Instrument.update({ rangeMin: null, rangeMax: null }, { where: { id } });
+    const off = await patch(a.users.admin, id, { active: false });
+    expect(off.status).toBe(200);
+    expect(off.body.instrument).toMatchObject({ active: false, rangeMin: null, rangeMax: null });
+    expect((await patch(a.users.admin, id, { rangeMin: 2 })).body.error.fields.rangeMax[0]).toBe(
+      "Enter both ends of the measuring range",
+    );
+    expect((await patch(a.users.admin, id, { rangeMin: 2, rangeMax: 6 })).status).toBe(200);
   });
 
   it.each([

@@ -67,7 +67,7 @@ describe("GET /api/record/[jobId]/pdf", () => {
     expect(text).toContain("0.0250 in (piston below the deck");
     expect(text).toContain("Static compression ratio");
     // The gauge, the photo, the signature, the hash and its check, and the safety notice.
-    expect(text).toContain("Test micrometer");
+    expect(text).toContain("Test bore gauge");
     expect(text).toContain("Photo 1: the job");
     expect(text).toContain("RELEASED FOR ASSEMBLY");
     expect(text).toContain(`Signed by ${job.release!.signedName}`);

@@ -9,7 +9,7 @@ import { getSequelize } from "@/lib/server/core/db";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 import { POST, GET } from "@/app/api/sync/route";
 import { asUser, call } from "../support/requests";
-import type { TestUser } from "../support/factories";
+import { gaugeFor, type TestUser } from "../support/factories";
 
 export const TAKEN_AT = "2026-11-30T09:00:00.000Z";
 
@@ -36,8 +36,25 @@ export function reading(
 /** Takes later than TAKEN_AT by `minutes`, so a newer reading wins its station. */
 export const later = (minutes: number) => new Date(Date.parse(TAKEN_AT) + minutes * 60_000).toISOString();
 
+/**
+ * Sends a batch as the tablet does. A reading with a value that names no gauge (no `instrumentId`
+ * key at all) gets the test shop's gauge for its station, as the tablet proposes one; a test of the
+ * refusal sets `instrumentId: undefined`.
+ */
 export async function push(user: TestUser | null, readings: unknown, deviceId: unknown = "tablet-test") {
-  return call(POST, await asUser(user, "POST", "/api/sync", { deviceId, readings }));
+  const withGauges = Array.isArray(readings) && user ? readings.map((r) => withGauge(user.shopId, r)) : readings;
+  return call(POST, await asUser(user, "POST", "/api/sync", { deviceId, readings: withGauges }));
+}
+
+function withGauge(shopId: number, r: unknown): unknown {
+  if (!r || typeof r !== "object" || "instrumentId" in r) return r;
+  const { stationId, skipped } = r as { stationId?: unknown; skipped?: unknown };
+  if (skipped || typeof stationId !== "string") return r;
+  try {
+    return { ...r, instrumentId: gaugeFor(shopId, stationId) };
+  } catch {
+    return r; // a station id the test sends to be refused
+  }
 }
 
 export async function pull(user: TestUser | null, query: string) {

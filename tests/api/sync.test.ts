@@ -193,7 +193,7 @@ describe("POST /api/sync: gauges past their calibration due date", () => {
     getSequelize();
     const old = await Instrument.create({
       shopId: a.shop.id,
-      kind: "outside_mic",
+      kind: "bore_gauge_digital",
       label: "Old mic",
       serial: `OLD-${randomUUID().slice(0, 6)}`,
       unit: "in",
@@ -339,7 +339,7 @@ describe("POST /api/sync: bad payloads → 400/422 with field errors and no part
       (j) => reading(j, "bore/1/top/B", 4.03, { unit: "lbf_ft" }),
       "unit",
       "invalid",
-      /use in or mm, not lbf_ft/,
+      /use in or mm, not lbf·ft/,
     ],
     [
       "torque without its lubricant",
@@ -359,7 +359,7 @@ describe("POST /api/sync: bad payloads → 400/422 with field errors and no part
       "a gauge of another shop",
       (j) => reading(j, "bore/1/top/B", 4.03, { instrumentId: b.instrument.id }),
       "instrumentId",
-      "invalid",
+      "wrong_gauge",
       /No gauge/,
     ],
     [

@@ -60,6 +60,7 @@ describe("gauges and calibration", () => {
     await expect.poll(() => form.textContent(), WAIT).toMatch(/Resolution must be a number/);
     expect(await form.textContent()).toMatch(/due date must come after the calibration date/);
     expect(await form.textContent()).toMatch(/Expanded uncertainty U must be a number/);
+    expect(await form.textContent()).toMatch(/Enter the start of the measuring range as a number/);
     expect(await form.getByLabel("Serial number").inputValue()).toBe(SERIAL);
   });
 
@@ -68,6 +69,12 @@ describe("gauges and calibration", () => {
     await form.getByLabel("Kind").selectOption("bore_gauge_digital");
     await form.getByLabel(/^Resolution/).fill("0.0001");
     await form.getByLabel(/^Expanded uncertainty U/).fill("0.00012");
+    // A range that could not be a bore gauge's (a slipped decimal point) is refused beside its field.
+    await form.getByLabel(/^Measures from/).fill("2");
+    await form.getByLabel(/^Measures up to/).fill("600");
+    await form.getByRole("button", { name: "Register gauge" }).click();
+    await expect.poll(() => form.textContent(), WAIT).toMatch(/600 in is more than any engine station measures/);
+    await form.getByLabel(/^Measures up to/).fill("6");
     await form.getByLabel("Calibrated on").fill(day(-400));
     await form.getByLabel("Calibration due").fill(day(-35));
     await form.getByRole("button", { name: "Register gauge" }).click();

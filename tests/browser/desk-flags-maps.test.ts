@@ -48,14 +48,17 @@ beforeAll(async () => {
   const jobs = (await (await rosa.get("/api/bench/jobs")).json()).jobs as { id: number; code: string }[];
   jobId = jobs.find((j) => j.code === "KF-2611")!.id;
   const pack = await (await rosa.get(`/api/bench/jobs/${jobId}`)).json();
-  const gauge = pack.instruments.find((g: { serial: string }) => g.serial === "KF-M34-02").id;
+  // Demo gauges (scripts/seed/demo-gauges.ts): each station gets one of a kind that measures it.
+  const serial = (id: string) =>
+    id.startsWith("bore") ? "KF-DB-07" : id.startsWith("deck") ? "KF-DH-08" : "KF-M23-01";
+  const gauge = (id: string) => pack.instruments.find((g: { serial: string }) => g.serial === serial(id)).id;
   const readings = Object.entries(FIGURES).map(([stationId, value]) => ({
     id: randomUUID(),
     jobId,
     stationId,
     value,
     unit: "in",
-    instrumentId: gauge,
+    instrumentId: gauge(stationId),
     takenAt: new Date().toISOString(),
   }));
   const res = await rosa.post("/api/sync", { data: { deviceId: "maps-test", readings } });

@@ -15,7 +15,10 @@ let browser: Browser;
 let page: Page;
 let rosa: APIRequestContext;
 let jobId: number;
-let gaugeId: number;
+let gauges: { serial: string; id: number }[];
+// Demo gauges (scripts/seed/demo-gauges.ts): the dial bore gauge for bores, the 2–3 in micrometer for journals.
+const gaugeFor = (stationId: string) =>
+  gauges.find((g) => g.serial === (stationId.startsWith("bore") ? "KF-DB-07" : "KF-M23-01"))!.id;
 const apis: APIRequestContext[] = [];
 
 async function apiAs(role: string) {
@@ -39,7 +42,7 @@ async function send(stationId: string, value: number, supersedes?: string): Prom
           stationId,
           value,
           unit: "in",
-          instrumentId: gaugeId,
+          instrumentId: gaugeFor(stationId),
           takenAt: new Date().toISOString(),
           ...(supersedes ? { supersedes } : {}),
         },
@@ -58,7 +61,7 @@ beforeAll(async () => {
   const jobs = (await (await rosa.get("/api/bench/jobs")).json()).jobs as { id: number; code: string }[];
   jobId = jobs.find((j) => j.code === "KF-2611")!.id;
   const pack = await (await rosa.get(`/api/bench/jobs/${jobId}`)).json();
-  gaugeId = pack.instruments.find((g: { serial: string }) => g.serial === "KF-M34-02").id;
+  gauges = pack.instruments;
   await send(STATIONS.measure, 4.0312);
   await send(STATIONS.machine, 4.0296);
   await send(STATIONS.accept, 2.4478);

@@ -30,7 +30,7 @@ const GAUGE_OF: Record<string, string> = {
   bore_diameter: "bore",
   main_bearing_bore: "bore",
   rod_bearing_bore: "bore",
-  deck_height: "indicator",
+  deck_height: "deck",
   crank_end_play: "indicator",
   rod_bolt_free_length: "stretch",
   rod_bolt_loaded_length: "stretch",
@@ -69,6 +69,7 @@ async function gauges(shopId: number, tag: string) {
     mic: (await make("outside_mic", "Outside micrometer", "in", 0.0001, 0.00008)).id,
     indicator: (await make("dial_indicator", "Dial indicator", "in", 0.0001, 0.0002)).id,
     stretch: (await make("stretch_gauge", "Stretch gauge", "in", 0.0001, 0.0001)).id,
+    deck: (await make("deck_gauge", "Deck height gauge", "in", 0.0005, 0.0005)).id,
     feeler: (await make("feeler", "Feeler set", "in", 0.001, 0.0005)).id,
     torque: (await make("torque_wrench", "Torque wrench", "lbf_ft", 1, 2)).id,
   };

@@ -96,7 +96,7 @@ describe("the inspector's path", () => {
         deviceId: "bench-tablet-2",
         readings: [
           reading("bore/1/top/A", 3.5927, job.gauges.bore),
-          reading("deck/block/rear", 9.389, job.gauges.indicator),
+          reading("deck/block/rear", 9.389, job.gauges.deck),
         ],
       },
     });

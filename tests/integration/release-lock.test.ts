@@ -8,7 +8,7 @@ import { POST as reopen } from "@/app/api/release/[jobId]/reopen/route";
 import { GET as verify } from "@/app/api/release/[jobId]/verify/route";
 import { POST as sync } from "@/app/api/sync/route";
 import { Reading } from "@/models";
-import { createShop, TEST_PASSWORD } from "../support/factories";
+import { createShop, gaugeFor, TEST_PASSWORD } from "../support/factories";
 import { asUser, call } from "../support/requests";
 import { completeJob } from "../api/release-fixtures";
 
@@ -33,7 +33,7 @@ describe("the release lock", () => {
       stationId: "skirt/1",
       value: 4.0285,
       unit: "in",
-      instrumentId: s.instrument.id,
+      instrumentId: gaugeFor(s.shop.id, "skirt/1"),
       takenAt: new Date().toISOString(),
     };
     const batch = { deviceId: "tablet-after-release", readings: [reading] };

@@ -13,7 +13,7 @@ import { getJson } from "@/lib/offline/transport";
 import { MAX_BATCH, type JobPack } from "@/lib/schemas/sync";
 import { getSequelize } from "@/lib/server/core/db";
 import { Job, JobLimit } from "@/models";
-import { createShop, INCH_LIMITS, type TestShop } from "../support/factories";
+import { createShop, INCH_LIMITS, type TestShop, gaugeFor } from "../support/factories";
 import { handlerFetch } from "../support/handler-fetch";
 
 const BASE = "http://localhost";
@@ -54,10 +54,11 @@ async function tablet(jobIds: number[]) {
   });
   for (const id of jobIds) await savePack(db, await getJson<JobPack>(server.fetch, `${BASE}/api/bench/jobs/${id}`));
   const ctx = { deviceId: "tab-engine-test", takenBy: user.id };
+  const gauge = (stationId: string) => gaugeFor(user.shopId, stationId);
   const enter = async (jobId: number, values: [string, number][]) => {
     const out = [];
     for (const [stationId, value] of values)
-      out.push(await recordReading(db, { jobId, stationId, value, unit: "in" }, ctx));
+      out.push(await recordReading(db, { jobId, stationId, value, unit: "in", instrumentId: gauge(stationId) }, ctx));
     return out;
   };
   const engine = (batchSize?: number) =>

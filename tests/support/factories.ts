@@ -6,6 +6,7 @@ import { randomUUID } from "node:crypto";
 import { getSequelize } from "@/lib/server/core/db";
 import { Customer, Engine, Instrument, Job, JobLimit, Reading, Shop, SpecLimit, SpecTemplate, User } from "@/models";
 import type { Role, UnitSystem } from "@/lib/schemas/enums";
+import { parseStationId, usualGaugeKind, type GaugeKind } from "@/lib/domain";
 
 export const TEST_PASSWORD = "test-pass-1234";
 const HASH = bcrypt.hashSync(TEST_PASSWORD, 4);
@@ -106,15 +107,18 @@ export async function createShop(opts: { unitSystem?: UnitSystem; name?: string 
   for (const [i, l] of INCH_LIMITS.entries()) await JobLimit.create({ ...l, jobId: job.id, sortOrder: i });
   const instrument = await Instrument.create({
     shopId: shop.id,
-    kind: "outside_mic",
-    label: "Test micrometer",
-    serial: `MIC-${tag}`,
+    kind: "bore_gauge_digital",
+    label: "Test bore gauge",
+    serial: `BG-${tag}`,
     unit: "in",
     resolution: 0.0001,
     expandedU: 0.0001,
+    rangeMin: 2,
+    rangeMax: 6,
     calibratedOn: "2026-06-01",
     calibrationDue: "2027-06-01",
   });
+  const gauges = await createGaugeKit(shop.id, tag);
   return {
     shop: { id: shop.id, name: shop.name },
     users,
@@ -122,11 +126,67 @@ export async function createShop(opts: { unitSystem?: UnitSystem; name?: string 
     engine: { id: engine.id },
     template: { id: template.id },
     job: { id: job.id, code: job.code },
+    /** The shop's bore gauge (2–6 in), the gauge most tests read bores with. */
     instrument: { id: instrument.id },
+    gauges,
   };
 }
 
 export type TestShop = Awaited<ReturnType<typeof createShop>>;
+
+// One gauge of each kind a test station needs (invented test gauges), proposed for a reading that
+// names none (sync-fixtures push). No range on file and U = 0, so they hold any figure and add no
+// guard band: a test's verdicts stay those of its figures. `instrument` (above) is the one with a U.
+const KIT = {
+  bore: ["bore_gauge_digital", "Kit bore gauge"],
+  mic: ["outside_mic", "Kit micrometer"],
+  feeler: ["feeler", "Kit feeler set"],
+  indicator: ["dial_indicator", "Kit dial indicator"],
+  stretch: ["stretch_gauge", "Kit stretch gauge"],
+  deck: ["deck_gauge", "Kit deck gauge"],
+  torque: ["torque_wrench", "Kit torque wrench"],
+} as const;
+export type GaugeKit = Record<keyof typeof KIT, number>;
+const kits = new Map<number, GaugeKit>();
+const KIT_OF_KIND: Record<GaugeKind, keyof GaugeKit> = {
+  micrometer: "mic",
+  "bore-gauge": "bore",
+  "dial-bore-gauge": "bore",
+  feeler: "feeler",
+  "dial-indicator": "indicator",
+  "stretch-gauge": "stretch",
+  "deck-gauge": "deck",
+  "torque-wrench": "torque",
+};
+
+async function createGaugeKit(shopId: number, tag: string): Promise<GaugeKit> {
+  const kit = {} as GaugeKit;
+  for (const [key, [kind, label]] of Object.entries(KIT)) {
+    const torque = kind === "torque_wrench";
+    const g = await Instrument.create({
+      shopId,
+      kind,
+      label,
+      serial: `KIT-${key.toUpperCase()}-${tag}`,
+      unit: torque ? "lbf_ft" : "in",
+      resolution: torque ? 1 : 0.0001,
+      expandedU: 0,
+      calibratedOn: "2026-06-01",
+      calibrationDue: "2027-06-01",
+    });
+    kit[key as keyof GaugeKit] = g.id;
+  }
+  kits.set(shopId, kit);
+  return kit;
+}
+
+/** The test shop's gauge of a kind that measures the station (the bore gauge for bores, and so on). */
+export function gaugeFor(shopId: number, stationId: string): number {
+  const kit = kits.get(shopId);
+  if (!kit) throw new Error(`Shop ${shopId} was not made by createShop; name the gauge yourself`);
+  const kind = usualGaugeKind(parseStationId(stationId).characteristic ?? "bore_diameter");
+  return kit[KIT_OF_KIND[kind ?? "micrometer"]];
+}
 
 /**
  * A reading written straight to the table, with no ingest and no verdict, for tests of the rules

@@ -23,6 +23,8 @@ const FIELDS = [
   "unit",
   "resolution",
   "expandedU",
+  "rangeMin",
+  "rangeMax",
   "calibratedOn",
   "calibrationDue",
   "dialPlusMeansSmaller",
@@ -38,12 +40,27 @@ function initial(g?: InstrumentRecord): InstrumentValues {
       unit: "in",
       resolution: Number.NaN,
       expandedU: Number.NaN,
+      rangeMin: Number.NaN,
+      rangeMax: Number.NaN,
       calibratedOn: "",
       calibrationDue: "",
       dialPlusMeansSmaller: true,
     };
   const { kind, label, serial, unit, resolution, expandedU, calibratedOn, calibrationDue, dialPlusMeansSmaller } = g;
-  return { kind, label, serial, unit, resolution, expandedU, calibratedOn, calibrationDue, dialPlusMeansSmaller };
+  // A gauge registered before ranges were kept shows empty range fields, which the admin fills in.
+  const range = { rangeMin: g.rangeMin ?? Number.NaN, rangeMax: g.rangeMax ?? Number.NaN };
+  return {
+    kind,
+    label,
+    serial,
+    unit,
+    resolution,
+    expandedU,
+    ...range,
+    calibratedOn,
+    calibrationDue,
+    dialPlusMeansSmaller,
+  };
 }
 
 /** Only for dial bore gauges: which way the dial reads, so the tablet turns a dial reading into a diameter. */
@@ -153,6 +170,24 @@ export function GaugeForm({ gauge, onDone }: { gauge?: InstrumentRecord; onDone:
           hint="From the calibration certificate (about 95 %). If it states another k, enter U × 2 ÷ k."
           error={e.expandedU?.message}
           {...form.register("expandedU", num)}
+        />
+        <TextField
+          label={`Measures from (${unitWords(unit)})`}
+          type="number"
+          step="any"
+          inputMode="decimal"
+          hint="The smallest size or torque it reads, e.g. 4 for a 4–5 in micrometer"
+          error={e.rangeMin?.message}
+          {...form.register("rangeMin", num)}
+        />
+        <TextField
+          label={`Measures up to (${unitWords(unit)})`}
+          type="number"
+          step="any"
+          inputMode="decimal"
+          hint="The largest it reads, e.g. 150 for a 20–150 lbf·ft torque wrench"
+          error={e.rangeMax?.message}
+          {...form.register("rangeMax", num)}
         />
         <TextField
           label="Calibrated on"

@@ -5,7 +5,7 @@ import { useState } from "react";
 import { StatusTag } from "@/components/admin/status-tag";
 import { Button } from "@/components/ui/button";
 import { api, ApiError } from "@/lib/client/api";
-import { instrumentKindWords, unitWords } from "@/lib/domain";
+import { gaugeRangeWords, instrumentKindWords, unitWords } from "@/lib/domain";
 import type { InstrumentRecord } from "@/lib/schemas/instrument";
 import { CalibrationTag } from "./calibration-tag";
 import { CertificateCell } from "./certificate-upload";
@@ -56,6 +56,11 @@ export function GaugeRow({
         <div>
           U = {gauge.expandedU} {unit} (k = {gauge.coverageK})
         </div>
+        {gauge.rangeMin !== null ? (
+          <div>Measures {gaugeRangeWords(gauge)}</div>
+        ) : (
+          <div className="font-semibold text-fail">No measuring range on file: edit to add it</div>
+        )}
       </td>
       <td className="whitespace-nowrap p-3 text-sm tabular">
         <div>Calibrated {gauge.calibratedOn}</div>

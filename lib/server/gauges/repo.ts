@@ -5,6 +5,7 @@ import {
   calibrationStatus,
   instrumentFields,
   withInstrumentRules,
+  type InstrumentFields,
   type InstrumentInput,
   type InstrumentPatch,
   type InstrumentRecord,
@@ -31,6 +32,8 @@ function reshape(g: Instrument, today = todayUtc()): InstrumentRecord {
     resolution: g.resolution,
     expandedU: g.expandedU,
     coverageK: g.coverageK,
+    rangeMin: g.rangeMin ?? null,
+    rangeMax: g.rangeMax ?? null,
     calibratedOn: g.calibratedOn ?? "",
     calibrationDue: g.calibrationDue ?? "",
     dialPlusMeansSmaller: g.dialPlusMeansSmaller,
@@ -51,6 +54,8 @@ const auditView = (g: Instrument) => ({
   resolution: g.resolution,
   expandedU: g.expandedU,
   coverageK: g.coverageK,
+  rangeMin: g.rangeMin ?? null,
+  rangeMax: g.rangeMax ?? null,
   calibratedOn: g.calibratedOn,
   calibrationDue: g.calibrationDue,
   dialPlusMeansSmaller: g.dialPlusMeansSmaller,
@@ -122,7 +127,7 @@ export async function createInstrument(actor: Actor, input: InstrumentInput): Pr
 }
 
 /** The stored gauge with the edit applied, checked as a whole (unit fits kind, due after calibration). */
-function merged(g: Instrument, patch: InstrumentPatch): InstrumentInput {
+function merged(g: Instrument, patch: InstrumentPatch): InstrumentFields {
   const { active: _a, ...fields } = patch;
   const whole = { ...auditView(g), ...fields };
   const parsed = withInstrumentRules(instrumentFields).safeParse(whole);

@@ -7,7 +7,7 @@ import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { sqlRows, sqlWrite, utcDate } from "@/lib/server/core/sql-driver";
 import { insertMany } from "@/lib/server/core/sql-insert";
-import { instrumentInfo, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
+import { instrumentInfo, orNull, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 
 // Readings and the gauges they were taken with. Plain objects out; every query scoped by shop or
 // by a job the caller has already checked belongs to the shop.
@@ -88,6 +88,7 @@ export async function jobReadings(t: Transaction | undefined, jobId: number, loc
 
 const GAUGE_COLUMNS = `g.id AS gId, g.shop_id AS gShopId, g.kind AS gKind, g.label AS gLabel, g.serial AS gSerial,
   g.unit AS gUnit, g.resolution AS gResolution, g.expanded_u AS gExpandedU, g.coverage_k AS gCoverageK,
+  g.range_min AS gRangeMin, g.range_max AS gRangeMax,
   g.calibration_due AS gCalibrationDue, g.dial_plus_means_smaller AS gDial, g.active AS gActive`;
 const JOINED_COLUMNS = selectList("r.");
 
@@ -103,6 +104,8 @@ function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
     resolution: Number(row.gResolution),
     expandedU: Number(row.gExpandedU),
     coverageK: Number(row.gCoverageK ?? 2),
+    rangeMin: orNull(row.gRangeMin),
+    rangeMax: orNull(row.gRangeMax),
     calibrationDue:
       due === null || due === undefined
         ? null
@@ -181,6 +184,17 @@ export async function findInstruments(
   }
   const rows = await models().Instrument.findAll({ where: { shopId, id: { [Op.in]: [...new Set(ids)] } } });
   return new Map(rows.map((i) => [i.id, instrumentInfo(i)]));
+}
+
+/**
+ * Every gauge of the shop, read in the batch's transaction: the readings name some, and a refusal
+ * names the ones to pick instead.
+ */
+export async function batchInstruments(t: Transaction, shopId: number): Promise<Map<number, InstrumentInfo>> {
+  const rows = await sqlRows(t, `SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE g.shop_id = ? ORDER BY g.label`, [
+    shopId,
+  ]);
+  return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
 }
 
 export async function shopInstruments(shopId: number): Promise<InstrumentInfo[]> {

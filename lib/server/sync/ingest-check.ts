@@ -4,11 +4,11 @@ import {
   LUBRICANT_LABELS,
   dialDiameter,
   evaluateReading,
-  gaugeRank,
+  gaugeRefusal,
   implausibleReason,
   parseStationId,
   quantityOfUnit,
-  type RawCharacteristic,
+  unitWords,
 } from "@/lib/domain";
 import type { FieldErrors } from "@/lib/schemas/errors";
 import type { PushReading, ReadingEvaluation, RejectCode } from "@/lib/schemas/sync";
@@ -106,28 +106,21 @@ export function samePayload(
   );
 }
 
-function checkGauge(
-  item: PushReading,
-  bc: BatchContext,
-  characteristic: RawCharacteristic,
-  add: (f: string, m: string) => void,
-): InstrumentInfo | undefined {
-  if (item.instrumentId === undefined) return undefined;
-  const inst = bc.instruments.get(item.instrumentId);
-  if (!inst) {
+/**
+ * The gauge a reading names: of this shop, of a kind that measures the station, its range holding
+ * the value (the core's gaugeRefusal, the tablet's words). A skip names none and needs none.
+ */
+function checkGauge(item: PushReading, bc: BatchContext, add: (f: string, m: string) => void) {
+  const inst = item.instrumentId === undefined ? undefined : bc.instruments.get(item.instrumentId);
+  if (item.instrumentId !== undefined && !inst) {
     add("instrumentId", `No gauge with id ${item.instrumentId} in this shop; pick one from the gauge list`);
     return undefined;
   }
-  const reads = quantityOfUnit(inst.unit);
-  if (reads && gaugeRank(inst, characteristic) === undefined) {
-    const kind = CHARACTERISTICS[characteristic].kind;
-    add(
-      "instrumentId",
-      `Gauge '${inst.label}' (${inst.serial}) reads ${reads}; ${item.stationId} needs a ${kind} gauge`,
-    );
-    return undefined;
-  }
-  return inst;
+  if (item.skipped || typeof item.value !== "number") return inst;
+  const use = { stationId: item.stationId, value: item.value, unit: item.unit };
+  const why = gaugeRefusal(use, inst, [...bc.instruments.values()]);
+  if (why) add("instrumentId", why);
+  return why ? undefined : inst;
 }
 
 function checkDial(item: PushReading, inst: InstrumentInfo | undefined, add: (f: string, m: string) => void) {
@@ -181,19 +174,24 @@ function checkFigures(item: PushReading, bc: BatchContext, job: BatchJob, add: (
   if (unitKind !== info.kind) {
     add(
       "unit",
-      `${info.label} is a ${info.kind}: use ${info.kind === "length" ? "in or mm" : "lbf_ft or nm"}, not ${item.unit}`,
+      `${info.label} is a ${info.kind}: use ${info.kind === "length" ? "in or mm" : "lbf·ft or N·m"}, ` +
+        `not ${unitWords(item.unit)}`,
     );
   }
   if (info.kind === "torque" && !item.lubricant && !item.skipped) {
     add(
       "lubricant",
-      `Say which lubricant was on the threads and under the head (${Object.keys(LUBRICANT_LABELS).join(", ")})`,
+      `Say which lubricant was on the threads and under the head (${Object.values(LUBRICANT_LABELS).join(", ")})`,
     );
   }
-  const inst = checkGauge(item, bc, characteristic, add);
-  if (!item.skipped && unitKind === info.kind) {
-    const why = implausibleReason(item.stationId, item.value as number, item.unit, job.shape);
+  let inst: InstrumentInfo | undefined;
+  if (unitKind === info.kind) {
+    // A figure that cannot be real is fixed first; which gauge holds it is asked after.
+    const why = item.skipped
+      ? undefined
+      : implausibleReason(item.stationId, item.value as number, item.unit, job.shape);
     if (why) add("value", why);
+    else inst = checkGauge(item, bc, add);
   }
   checkDial(item, inst, add);
   checkCorrection(item, bc, job, add);
@@ -233,10 +231,11 @@ export function checkItem(item: PushReading, bc: BatchContext): Checked {
     }
   }
   if (Object.keys(errors).length) {
-    const reason = Object.entries(errors)
-      .map(([f, m]) => `${f}: ${m.join("; ")}`)
-      .join(". ");
-    return { kind: "rejected", code: "invalid", reason, errors };
+    // In words only: the tablet shows the reason as it is (field names stay in `errors`).
+    const reason = Object.values(errors).flat().join("; ");
+    // Only the gauge is wrong: its own code, so the tablet can say "pick another gauge".
+    const code = Object.keys(errors).join() === "instrumentId" ? "wrong_gauge" : "invalid";
+    return { kind: "rejected", code, reason, errors };
   }
   const { unit: _u, ...verdictFields } = evaluation;
   return { kind: "new", row: { ...row, ...verdictFields }, evaluation };

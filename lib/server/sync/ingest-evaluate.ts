@@ -15,10 +15,15 @@ type StoredInstrument = Pick<InstrumentInfo, "id" | "shopId" | "kind" | "label" 
   resolution: unknown;
   expandedU: unknown;
   coverageK?: unknown;
+  rangeMin?: unknown;
+  rangeMax?: unknown;
   calibrationDue?: string | null;
   dialPlusMeansSmaller?: unknown;
   active?: unknown;
 };
+
+/** A DECIMAL column that may be empty, as a number or null. */
+export const orNull = (x: unknown): number | null => (x === null || x === undefined ? null : Number(x));
 
 /** The one conversion of a stored gauge into what the evaluation needs (k = 2 when none was given). */
 export function instrumentInfo(i: StoredInstrument): InstrumentInfo {
@@ -32,6 +37,8 @@ export function instrumentInfo(i: StoredInstrument): InstrumentInfo {
     resolution: Number(i.resolution),
     expandedU: Number(i.expandedU),
     coverageK: Number(i.coverageK ?? 2),
+    rangeMin: orNull(i.rangeMin),
+    rangeMax: orNull(i.rangeMax),
     calibrationDue: i.calibrationDue ?? null,
     dialPlusMeansSmaller: !!i.dialPlusMeansSmaller,
     active: !!i.active,

@@ -20,7 +20,7 @@ import { readForReconcile, reconcileJob, type ReconcileLog } from "@/lib/server/
 import { checkItem, type BatchContext, type Checked } from "@/lib/server/sync/ingest-check";
 import { batchJobs, prefetchJobs } from "@/lib/server/sync/ingest-context";
 import { withDeadlockRetry } from "@/lib/server/sync/ingest-retry";
-import { findInstruments, findReadings, insertReadings, lockJobRevisions } from "@/lib/server/readings/repo";
+import { batchInstruments, findReadings, insertReadings, lockJobRevisions } from "@/lib/server/readings/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { settleAll } from "@/lib/server/core/sql-driver";
 import { lastChangeId } from "@/lib/server/sync/repo";
@@ -63,11 +63,7 @@ async function batchContext(
       actor.shopId,
       items.map((i) => i.jobId),
     ),
-    findInstruments(
-      t,
-      actor.shopId,
-      items.flatMap((i) => (i.instrumentId ? [i.instrumentId] : [])),
-    ),
+    batchInstruments(t, actor.shopId),
     // One lookup for both: ids already stored (replays, conflicts) and the readings corrected.
     findReadings(t, [...new Set([...items.map((i) => i.id), ...supersedes])]),
   ]);

@@ -362,7 +362,7 @@ describe("evaluateReading", () => {
     [at("bore/9/top/A", 4.03), /not on this engine's route/],
     [at("bore/1", 4.03), /names a part/],
     [at("bore/1/top/C", 4.03), /axis must be A \| B/],
-    [at("torque/main-caps", 65), /takes a torque in lbf_ft or nm/],
+    [at("torque/main-caps", 65), /^Torque · main caps takes a torque in lbf·ft or N·m/],
     [{ stationId: "bore/1/top/A", value: 4.03, unit: "lbf_ft" as const }, /takes a length in in or mm/],
     [at("bore/1/top/A", 0), /above zero/],
     [at("bore/1/top/A", Number.NaN), /must be a number/],

@@ -18,7 +18,7 @@ const dialGauge: BenchInstrument = {
   dialPlusMeansSmaller: true,
   active: true,
 };
-const mic: BenchInstrument = { ...dialGauge, id: 4, kind: "outside_mic", label: "Outside micrometer" };
+const boreGauge: BenchInstrument = { ...dialGauge, id: 4, kind: "bore_gauge_digital", label: "Digital bore gauge" };
 const wrench: BenchInstrument = { ...dialGauge, id: 5, kind: "torque_wrench", label: "Torque wrench", unit: "lbf_ft" };
 
 describe("typed entries", () => {
@@ -38,7 +38,7 @@ describe("typed entries", () => {
 
 describe("building a reading", () => {
   it("direct entry, checked for physical sense (a slipped decimal point)", () => {
-    expect(buildReading("4.0302", { pack, station: station("bore/1/top/A"), instrument: mic })).toEqual({
+    expect(buildReading("4.0302", { pack, station: station("bore/1/top/A"), instrument: boreGauge })).toEqual({
       reading: { jobId: 1, stationId: "bore/1/top/A", value: 4.0302, unit: "in", entryMode: "direct", instrumentId: 4 },
     });
     const slip = buildReading("40.302", { pack, station: station("bore/1/top/A") });
@@ -89,6 +89,24 @@ describe("building a reading", () => {
       unit: "lbf_ft",
       lubricant: "moly-paste",
       supersedes: "abc",
+    });
+  });
+  it("refuses before storing a gauge whose range does not hold the value, or none, and says which to pick", () => {
+    // Invented test wrenches: 20–150 lbf·ft and 100–600 lbf·ft (common sizes, common practice).
+    const small = { ...wrench, label: "Click wrench", serial: "TW-1", rangeMin: 20, rangeMax: 150 };
+    const big = { ...wrench, id: 6, label: "Big wrench", serial: "TW-2", rangeMin: 100, rangeMax: 600 };
+    const t = station("torque/main-caps");
+    const ctx = { pack: { ...pack, instruments: [small, big] }, station: t, lubricant: "engine-oil" as const };
+    expect(buildReading("210", { ...ctx, instrument: small })).toEqual({
+      error:
+        "'Click wrench' (TW-1) reads 20–150 lbf·ft; 210 lbf·ft is outside its range. " +
+        "Pick a torque wrench whose range holds 210 lbf·ft: 'Big wrench' (TW-2) 100–600 lbf·ft",
+    });
+    expect(buildReading("210", { ...ctx, instrument: big })).toHaveProperty("reading.instrumentId", 6);
+    expect(buildReading("4.0302", { pack: { ...pack, instruments: [] }, station: station("bore/1/top/A") })).toEqual({
+      error:
+        "No gauge is named for this reading. Pick a dial bore gauge or bore gauge whose range holds 4.0302 in: " +
+        "none on file holds it, so ask the admin to register one under Gauges",
     });
   });
   it("groups dial-mode setting sizes by section, only where a dial bore gauge is the usual gauge", () => {

@@ -4,7 +4,15 @@
 // It checks far less than the real server; it exists to drive the client engine through the
 // replies it must handle. Its verdicts come from lib/domain, like the real one's.
 import { benchRoute, evaluateReading, type EngineShape, type SpecLimit } from "@/lib/domain";
-import type { BenchFlag, JobPack, PushReadingInput, PushResult, ServerReading, SyncFeed } from "@/lib/schemas/sync";
+import type {
+  BenchFlag,
+  BenchInstrument,
+  JobPack,
+  PushReadingInput,
+  PushResult,
+  ServerReading,
+  SyncFeed,
+} from "@/lib/schemas/sync";
 
 export const SHAPE: EngineShape = {
   cylinders: 4,
@@ -27,6 +35,33 @@ export const SPEC: SpecLimit[] = [
   },
 ];
 
+/** A test shop's gauges, one of each kind a station needs (invented); only the bore gauge has a range. */
+export const BENCH_GAUGES: BenchInstrument[] = (
+  [
+    [21, "bore_gauge_digital", "Test bore gauge", "in", [2, 6]],
+    [22, "outside_mic", "Test micrometer", "in", null],
+    [23, "feeler", "Test feeler set", "in", null],
+    [24, "dial_indicator", "Test dial indicator", "in", null],
+    [25, "stretch_gauge", "Test stretch gauge", "in", null],
+    [26, "deck_gauge", "Test deck gauge", "in", null],
+    [27, "torque_wrench", "Test torque wrench", "lbf_ft", null],
+  ] as const
+).map(([id, kind, label, unit, range]) => ({
+  id,
+  kind,
+  label,
+  serial: `T-${id}`,
+  unit,
+  resolution: unit === "lbf_ft" ? 1 : 0.0001,
+  expandedU: 0,
+  coverageK: 2,
+  rangeMin: range?.[0] ?? null,
+  rangeMax: range?.[1] ?? null,
+  calibrationDue: null,
+  dialPlusMeansSmaller: true,
+  active: true,
+}));
+
 export function makePack(jobId: number, over: Partial<JobPack["job"]> = {}): JobPack {
   return {
     job: {
@@ -47,7 +82,7 @@ export function makePack(jobId: number, over: Partial<JobPack["job"]> = {}): Job
     shape: SHAPE,
     spec: SPEC,
     route: benchRoute(SHAPE),
-    instruments: [],
+    instruments: BENCH_GAUGES,
     readings: [],
     flags: [],
     cursor: "0",
