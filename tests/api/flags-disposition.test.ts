@@ -7,7 +7,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { POST as DISPOSE } from "@/app/api/flags/[flagId]/disposition/route";
 import { POST as SYNC } from "@/app/api/sync/route";
 import { AuditEvent, Flag, FlagDisposition, Job, SyncChange } from "@/models";
-import { createShop, gaugeFor, type TestShop, type TestUser } from "../support/factories";
+import { createShop, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call } from "../support/requests";
 
 const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
@@ -22,7 +22,7 @@ async function push(shop: TestShop, stationId: string, value: number, supersedes
     stationId,
     value,
     unit: "in",
-    instrumentId: gaugeFor(shop.shop.id, stationId),
+    instrumentId: shop.instrument.id,
     takenAt: new Date().toISOString(),
     ...(supersedes ? { supersedes } : {}),
   };

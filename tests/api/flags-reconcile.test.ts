@@ -8,7 +8,7 @@ import { GET as DETAIL } from "@/app/api/flags/[flagId]/route";
 import { GET as PACK } from "@/app/api/bench/jobs/[jobId]/route";
 import { GET as FEED, POST as SYNC } from "@/app/api/sync/route";
 import { Flag, FlagDisposition } from "@/models";
-import { createShop, gaugeFor, type TestShop } from "../support/factories";
+import { createShop, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";
 
 let s: TestShop;
@@ -26,7 +26,7 @@ async function push(
     stationId,
     value,
     unit: "in",
-    instrumentId: gaugeFor(s.shop.id, stationId),
+    instrumentId: s.instrument.id,
     takenAt,
     ...(opts.supersedes ? { supersedes: opts.supersedes } : {}),
   };

@@ -9,7 +9,7 @@ import { POST as UPLOAD } from "@/app/api/attachments/route";
 import { POST as SYNC } from "@/app/api/sync/route";
 import { Op } from "sequelize";
 import { Flag, Instrument } from "@/models";
-import { createShop, gaugeFor, type TestShop, type TestUser } from "../support/factories";
+import { createShop, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call, cookieFor } from "../support/requests";
 
 const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
@@ -34,7 +34,7 @@ async function push(shop: TestShop, readings: R[]): Promise<string[]> {
     stationId: r.stationId,
     value: r.value,
     unit: r.unit ?? "in",
-    instrumentId: r.instrumentId ?? gaugeFor(shop.shop.id, r.stationId),
+    instrumentId: r.instrumentId ?? shop.instrument.id,
     takenAt: new Date(Date.now() - (r.minutesAgo ?? 0) * 60_000).toISOString(),
     ...(r.supersedes ? { supersedes: r.supersedes } : {}),
   }));

@@ -4,7 +4,7 @@ import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET } from "@/app/api/jobs/[jobId]/maps/route";
 import { POST as SYNC } from "@/app/api/sync/route";
-import { createShop, gaugeFor, type TestShop, type TestUser } from "../support/factories";
+import { createShop, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call } from "../support/requests";
 
 const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
@@ -22,7 +22,7 @@ async function push(shop: TestShop, readings: { stationId: string; value: number
     stationId: r.stationId,
     value: r.value,
     unit: r.unit ?? "in",
-    instrumentId: gaugeFor(shop.shop.id, r.stationId),
+    instrumentId: shop.instrument.id,
     takenAt: new Date().toISOString(),
   }));
   const res = await call(
