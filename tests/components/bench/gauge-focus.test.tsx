@@ -17,7 +17,7 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-// Two bore gauges on file, one of them a dial bore gauge (invented test gauges).
+// Two bore gauges on file, one of them a dial bore gauge, and a wrench (invented test gauges).
 const gauge = (id: number, kind: string, label: string): BenchInstrument => ({
   id,
   kind,
@@ -31,7 +31,13 @@ const gauge = (id: number, kind: string, label: string): BenchInstrument => ({
   dialPlusMeansSmaller: true,
   active: true,
 });
-const instruments = [gauge(3, "bore_gauge_dial", "Dial bore gauge"), gauge(4, "bore_gauge_digital", "Digital bore")];
+// A torque needs a torque wrench (a reading names a gauge that can measure its station).
+const wrench = { ...gauge(5, "torque_wrench", "Torque wrench"), unit: "lbf_ft", resolution: 1 };
+const instruments = [
+  gauge(3, "bore_gauge_dial", "Dial bore gauge"),
+  gauge(4, "bore_gauge_digital", "Digital bore"),
+  wrench,
+];
 // Invented limit for the test: 65–70 lbf·ft on every torque group.
 const torque = {
   characteristic: "fastener_torque",
