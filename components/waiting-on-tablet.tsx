@@ -6,7 +6,7 @@ import type { SignOutNotice, WaitingPerson } from "@/lib/offline/sign-out";
 
 // Beside the sign-in form on a shared tablet: who just signed out, and whose readings still wait
 // here. They go out only under their own person's next session. Also tells the server about a
-// sign-out made offline, now that a page has loaded.
+// sign-out made offline, as soon as this screen loads with a network or the network comes back.
 type Seen = { notice: SignOutNotice | null; people: WaitingPerson[] };
 
 const count = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;
@@ -16,6 +16,14 @@ function what(p: { readings: number; photos: number }): string {
   return parts.filter(Boolean).join(" and ");
 }
 
+async function reportNow(): Promise<void> {
+  const [{ getBenchDb }, { reportEndedSessions }] = await Promise.all([
+    import("@/lib/offline/db"),
+    import("@/lib/offline/sign-out"),
+  ]);
+  await reportEndedSessions(getBenchDb());
+}
+
 async function look(): Promise<Seen> {
   const [{ getBenchDb }, off, { getMeta }] = await Promise.all([
     import("@/lib/offline/db"),
@@ -23,7 +31,6 @@ async function look(): Promise<Seen> {
     import("@/lib/offline/meta"),
   ]);
   const db = getBenchDb();
-  void off.reportEndedSessions(db);
   const [notice, people] = await Promise.all([getMeta<SignOutNotice>(db, off.NOTICE), off.waitingByPerson(db)]);
   return { notice: notice ?? null, people };
 }
@@ -32,11 +39,18 @@ export function WaitingOnTablet() {
   const [seen, setSeen] = useState<Seen | null>(null);
   useEffect(() => {
     let live = true;
+    // No storage (private mode): nothing can wait here.
     look().then(
       (s) => live && setSeen(s),
       () => undefined,
-    ); // no storage: nothing can wait here
-    return () => void (live = false);
+    );
+    const report = () => void reportNow().catch(() => undefined); // kept for the next try
+    report();
+    window.addEventListener("online", report);
+    return () => {
+      live = false;
+      window.removeEventListener("online", report);
+    };
   }, []);
   if (!seen) return null;
   const { notice, people } = seen;

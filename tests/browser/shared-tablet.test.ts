@@ -108,11 +108,12 @@ describe("a shared tablet", () => {
     await page.getByTestId("sign-in").waitFor(WAIT);
     expect(await page.getByTestId("job-screen").count()).toBe(0);
 
-    // Back online, Ivo signs in on the same tablet and saves one reading of his own.
+    // Back online, the locked tablet ends Rosa's session on the server by itself.
     await context.setOffline(false);
+    await expect.poll(() => meStatus(rosaCookie), WAIT).toBe(401);
+    // Ivo signs in on the same tablet and saves one reading of his own.
     await signInOnLockScreen(page, IVO.email, ivo.temporaryPassword);
     await expect.poll(() => page.getByTestId("whoami").textContent(), WAIT).toContain(IVO.name);
-    expect(await meStatus(rosaCookie)).toBe(401);
     await page.goto(`/bench/job?id=${jobId}`);
     await page.getByTestId("job-screen").waitFor();
     await page.locator("[data-section=deck]").click();
