@@ -13,7 +13,7 @@ import { SyncEngine } from "@/lib/offline/sync-engine";
 import { getJson, type Fetch } from "@/lib/offline/transport";
 import type { JobPack } from "@/lib/schemas/sync";
 import { getSequelize } from "@/lib/server/core/db";
-import { createShop, type TestShop, type TestUser } from "../support/factories";
+import { createShop, gaugeFor, type TestShop, type TestUser } from "../support/factories";
 import { handlerFetch } from "../support/handler-fetch";
 
 const BASE = "http://localhost";
@@ -28,6 +28,15 @@ const actorOf = (u: TestUser): DeviceActor => ({
   name: u.name,
   email: u.email,
   role: u.role,
+});
+
+/** A bore reading on the shop's job with the shop's bore gauge (a reading names a suitable gauge). */
+const bore = (stationId: string, value: number) => ({
+  jobId: shop.job.id,
+  stationId,
+  value,
+  unit: "in" as const,
+  instrumentId: gaugeFor(shop.shop.id, stationId),
 });
 
 async function takers(jobId: number): Promise<Record<string, number>> {
@@ -50,8 +59,8 @@ describe("a shared tablet against the real server", () => {
 
     await rememberActor(db, actorOf(rosa));
     const ctx = { deviceId: "tab-shared", takenBy: rosa.id };
-    await recordReading(db, { jobId: shop.job.id, stationId: "bore/1/top/A", value: 4.0302, unit: "in" }, ctx);
-    await recordReading(db, { jobId: shop.job.id, stationId: "bore/1/top/B", value: 4.0301, unit: "in" }, ctx);
+    await recordReading(db, bore("bore/1/top/A", 4.0302), ctx);
+    await recordReading(db, bore("bore/1/top/B", 4.0301), ctx);
 
     // Another tab signed this browser in as Dev while the tablet still believed Rosa was measuring:
     // the server refuses the push, nothing is written, and her readings stay queued.
@@ -66,11 +75,7 @@ describe("a shared tablet against the real server", () => {
     // Rosa signs out; Dev signs in and works: only his reading goes, under his name.
     await lockDevice(db);
     await rememberActor(db, actorOf(dev));
-    await recordReading(
-      db,
-      { jobId: shop.job.id, stationId: "bore/2/top/A", value: 4.0303, unit: "in" },
-      { deviceId: "tab-shared", takenBy: dev.id },
-    );
+    await recordReading(db, bore("bore/2/top/A", 4.0303), { deviceId: "tab-shared", takenBy: dev.id });
     const devs = engine(asDev.fetch);
     await devs.sync("manual");
     devs.stop();
