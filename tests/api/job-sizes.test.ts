@@ -8,6 +8,8 @@ import { QueryTypes } from "sequelize";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST } from "@/app/api/jobs/route";
 import { POST as IMPORT } from "@/app/api/specs/import/route";
+import { GET as PACK } from "@/app/api/bench/jobs/[jobId]/route";
+import { evaluateReading } from "@/lib/domain";
 import { GET as ONE, PATCH } from "@/app/api/jobs/[jobId]/route";
 import { getSequelize } from "@/lib/server/core/db";
 import { AuditEvent, Instrument, SpecLimit, SpecTemplate } from "@/models";
@@ -162,6 +164,14 @@ describe("a job from the demo sheet with its own finished bore", () => {
     expect(res.status).toBe(200);
     expect(res.body.job.finishedSizes.bore).toBe(4.03);
     expect(await AuditEvent.count({ where: { action: "job_sizes.update", entityId: String(jobId) } })).toBe(1);
+  });
+
+  it("the tablet's pack carries the sizes, so its offline verdict agrees with the server's", async () => {
+    const req = await asUser(a.users.machinist, "GET", `/api/bench/jobs/${jobId}`);
+    const pack = (await call(PACK as never, req, { jobId: String(jobId) })).body;
+    expect(pack.shape.finishedSizes).toEqual({ bore: 4.03, mainJournal: 2.449, rodJournal: 2.099 });
+    const offline = evaluateReading({ stationId: "bore/4/top/A", value: 4.0302, unit: "in" }, pack.shape, pack.spec);
+    expect(offline).toMatchObject({ verdict: "in_spec", limits: { min: 4.0299, max: 4.0304 } });
   });
 
   it("a later reading is judged with the new size at once (no stale cached limits)", async () => {
