@@ -8,6 +8,8 @@ import { Button } from "@/components/ui/button";
 import { api } from "@/lib/client/api";
 import { LENGTH_UNITS, UNIT_SYSTEM_WORDS } from "@/lib/domain";
 import { DESK_STATUSES, jobEditSchema, jobSchema, type JobInput, type JobValues } from "@/lib/schemas/job";
+import { ChangeConfirm } from "./change-confirm";
+import { useEditPreview } from "./job-edit-preview";
 import { STATUS_WORDS } from "@/components/job-status";
 import { AreaField, Field, SelectField, ServerError, applyFieldErrors, asNumber, messageOf } from "./fields";
 import { JobFormCustomer } from "./job-form-customer";
@@ -108,6 +110,12 @@ export function JobForm({ job }: { job?: JobDetail }) {
     },
     onError: (err) => applyFieldErrors(err, form.setError as never),
   });
+  const { confirming, setConfirming, preview } = useEditPreview(job, save.mutate, form.setError as never);
+  const submit = (v: JobValues) => {
+    save.reset();
+    if (editing) preview.mutate(v);
+    else save.mutate(v);
+  };
   const {
     register,
     formState: { errors },
@@ -119,8 +127,13 @@ export function JobForm({ job }: { job?: JobDetail }) {
 
   return (
     <FormProvider {...form}>
-      <form noValidate onSubmit={form.handleSubmit((v) => save.mutate(v))} className="flex flex-col gap-5">
-        <ServerError error={save.error} />
+      <form
+        noValidate
+        onSubmit={form.handleSubmit(submit)}
+        onChange={() => setConfirming(null)}
+        className="flex flex-col gap-5"
+      >
+        <ServerError error={save.error ?? preview.error} />
         <fieldset className="grid gap-4 rounded-tool border-2 border-rule bg-panel p-4 md:grid-cols-4">
           <legend className="px-1 text-lg font-semibold">Job</legend>
           <Field label="Job code" placeholder="e.g. KF-2614" error={messageOf(errors.code)} {...register("code")} />
@@ -196,8 +209,17 @@ export function JobForm({ job }: { job?: JobDetail }) {
         <JobFormCustomer />
         <JobFormEngine />
         <JobFormSizes planBore={job?.job.planBore} />
+        {confirming && (
+          <ChangeConfirm
+            what="Saving this job"
+            preview={confirming.preview}
+            saving={save.isPending}
+            onConfirm={(n) => save.mutate({ ...confirming.values, confirmedFlagsOpened: n } as JobValues)}
+            onCancel={() => setConfirming(null)}
+          />
+        )}
         <div className="flex gap-3">
-          <Button type="submit" big disabled={save.isPending}>
+          <Button type="submit" big disabled={save.isPending || preview.isPending || !!confirming}>
             {save.isPending ? "Saving…" : editing ? "Save changes" : "Create job"}
           </Button>
           <Button type="button" tone="quiet" big onClick={() => router.back()}>

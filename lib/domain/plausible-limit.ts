@@ -144,7 +144,12 @@ export function sizeProblem(kind: SizeKind, value: number, unit: LengthUnit): st
 
 /** A job's engine as typed: the nominal bore a real bore, the nominal stroke a real stroke. */
 export function engineSizeProblems(
-  e: { nominalBore?: number | null; nominalStroke?: number | null },
+  e: {
+    nominalBore?: number | null;
+    nominalStroke?: number | null;
+    nominalMainJournal?: number | null;
+    nominalRodJournal?: number | null;
+  },
   unit: LengthUnit,
 ): FieldProblem[] {
   const out: FieldProblem[] = [];
@@ -153,6 +158,15 @@ export function engineSizeProblems(
   if (bore) out.push({ field: "nominalBore", message: bore });
   const stroke = num(e.nominalStroke) && e.nominalStroke > 0 ? sizeProblem("stroke", e.nominalStroke, unit) : undefined;
   if (stroke) out.push({ field: "nominalStroke", message: stroke });
+  const journals = [
+    ["nominalMainJournal", "main_journal_diameter"],
+    ["nominalRodJournal", "rod_journal_diameter"],
+  ] as const;
+  for (const [field, c] of journals) {
+    const v = e[field];
+    const why = num(v) && v > 0 ? figureProblem(c, v, unit) : undefined;
+    if (why) out.push({ field, message: why });
+  }
   return out;
 }
 

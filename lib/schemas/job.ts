@@ -9,6 +9,7 @@ import {
   OPEN_JOB_STATUSES,
   checkEngineShape,
   engineSizeProblems,
+  finishedSizeProblems,
   type EngineLayout,
   type JobStatus,
   type Verdict,
@@ -138,15 +139,47 @@ const jobFields = z.strictObject({
   finishedSizes: finishedSizesSchema.optional(),
 });
 
-/** The engine's sizes are real ones in the job's unit (a 40 in bore is a slipped decimal point). */
-function plausibleSizes(j: { engine: z.output<typeof engineSchema>; unitSystem: UnitSystem }, ctx: z.RefinementCtx) {
-  for (const p of engineSizeProblems(j.engine, j.unitSystem))
+type SizedJob = {
+  engine: z.output<typeof engineSchema>;
+  unitSystem: UnitSystem;
+  finishedSizes?: z.output<typeof finishedSizesSchema>;
+};
+/**
+ * The engine's sizes and the job's finished sizes are real ones in the job's unit (a 40 in bore is
+ * a slipped decimal point), and each finished size is near the engine's design size.
+ */
+function plausibleSizes(j: SizedJob, ctx: z.RefinementCtx) {
+  const e = j.engine;
+  for (const p of engineSizeProblems(e, j.unitSystem))
     ctx.addIssue({ code: "custom", path: ["engine", p.field], message: p.message });
+  const design = {
+    bore: e.nominalBore,
+    mainJournal: e.nominalMainJournal ?? undefined,
+    rodJournal: e.nominalRodJournal ?? undefined,
+  };
+  const given = j.finishedSizes ?? {};
+  const finished = {
+    bore: given.bore ?? undefined,
+    mainJournal: given.mainJournal ?? undefined,
+    rodJournal: given.rodJournal ?? undefined,
+  };
+  for (const p of finishedSizeProblems(finished, j.unitSystem, design))
+    ctx.addIssue({ code: "custom", path: ["finishedSizes", p.size], message: p.message });
 }
 
 export const jobSchema = jobFields.superRefine(plausibleSizes);
 /** Editing keeps the job's own limits (edit them on the limits page), so no template. */
-export const jobEditSchema = jobFields.omit({ templateId: true }).superRefine(plausibleSizes);
+export const jobEditSchema = jobFields
+  .omit({ templateId: true })
+  .extend({
+    /** POST /api/jobs/:id/preview says how many flags a size change opens; a wide one is saved with that number. */
+    confirmedFlagsOpened: z
+      .number({ error: "Send the number of flags you confirmed as a number" })
+      .int()
+      .min(0)
+      .nullish(),
+  })
+  .superRefine(plausibleSizes);
 
 export type JobInput = z.input<typeof jobSchema>;
 export type JobValues = z.output<typeof jobSchema>;
@@ -259,5 +292,9 @@ export type LimitsSaved = JobLimitsView & {
   consequences: Consequences;
 };
 
-/** POST /api/jobs/:id/limits/preview: what saving would do, counted by saving and rolling back. */
-export type LimitsPreview = { consequences: Consequences; words: string; wide: boolean };
+/**
+ * POST /api/jobs/:id/limits/preview and /api/jobs/:id/preview: what saving would do, counted by
+ * saving and rolling back; `wide` when saving asks for the number of flags it opens.
+ */
+export type ChangePreview = { consequences: Consequences; words: string; wide: boolean };
+export type LimitsPreview = ChangePreview;

@@ -69,6 +69,13 @@ describe("plausible figures", () => {
     );
   });
 
+  it("refuses a finished bore far from the engine's nominal, on the field", async () => {
+    const res = await newJob({ finishedSizes: { bore: 4.6 } });
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields["finishedSizes.bore"][0]).toMatch(/10% away from the engine's 4.03 in bore/);
+    expect((await newJob({ finishedSizes: { bore: 4.06 } })).status).toBe(201);
+  });
+
   it("refuses a spec sheet with a negative taper maximum or a bore in mm on an inch sheet", async () => {
     const limits = INCH_LIMITS.map((l) => ({ ...l }));
     const res = await call(

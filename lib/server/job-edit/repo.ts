@@ -1,7 +1,8 @@
 import "server-only";
 import { UniqueConstraintError, type Transaction } from "sequelize";
 import type { UnitSystem } from "@/lib/schemas/enums";
-import type { CustomerRecord, CustomerValues, JobEditValues, JobValues } from "@/lib/schemas/job";
+import type { Consequences } from "@/lib/domain";
+import type { ChangePreview, CustomerRecord, CustomerValues, JobEditValues, JobValues } from "@/lib/schemas/job";
 import type { Actor } from "@/lib/schemas/session";
 import type { Customer } from "@/models";
 import { recordAudit } from "@/lib/server/log/repo";
@@ -10,6 +11,8 @@ import { getSequelize, models } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import { assertJobEditable } from "@/lib/server/jobs/editable";
 import { rejudgeOnSizeChange, sizeColumns, sizesOf } from "@/lib/server/job-edit/sizes";
+import { assertConfirmed, countConsequences, previewChange } from "@/lib/server/jobs/consequences";
+import { loadJobContext } from "@/lib/server/jobs/repo";
 
 // Creating and editing jobs and customers from the desk: the feature's only door to the
 // database. Every write is one transaction with its audit event; a job's status change also goes
@@ -172,44 +175,56 @@ export async function createJob(actor: Actor, v: JobValues): Promise<{ id: numbe
   });
 }
 
+/** What saving this edit would do (a changed finished size re-judges), counted by the very edit, rolled back. */
+export function previewJobEdit(actor: Actor, jobId: number, v: JobEditValues): Promise<ChangePreview> {
+  return previewChange((t) => applyJobEdit(t, actor, jobId, v));
+}
+
+/** Saves the edit; one that opens more than a handful of flags needs that number confirmed (409 otherwise). */
 export async function updateJob(actor: Actor, jobId: number, v: JobEditValues): Promise<{ id: number }> {
-  const { Engine, Job, Reading } = models();
   return getSequelize().transaction(async (t) => {
-    const job = await Job.findOne({ where: { id: jobId, shopId: actor.shopId }, transaction: t, lock: t.LOCK.UPDATE });
-    if (!job) throw notFound("Job");
-    assertJobEditable(job);
-    const engine = await Engine.findByPk(job.engineId, { transaction: t });
-    if (!engine) throw notFound("Engine");
-    if (v.unitSystem !== job.unitSystem && (await Reading.count({ where: { jobId }, transaction: t })) > 0) {
-      throw new AppError("conflict", "This job already has readings, so its unit system stays as it is", {
-        unitSystem: [`Readings were taken in ${job.unitSystem}; keep ${job.unitSystem}`],
-      });
-    }
-    const customer = await customerFor(t, actor, v.customer);
-    const sizesBefore = sizesOf(job, engine);
-    const sizes = sizeColumns(v, v.engine, sizesBefore);
-    const before = {
-      ...jobFields(job as unknown as JobEditValues),
-      ...sizeColumns({} as JobEditValues, engine, sizesBefore),
-      customerId: job.customerId,
-      engine: engineFields(engine as unknown as JobValues["engine"], engine.unitSystem),
-    };
-    await engine.update({ ...engineFields(v.engine, v.unitSystem), customerId: customer.id }, { transaction: t });
-    await job
-      .update({ ...jobFields(v), ...sizes, customerId: customer.id }, { transaction: t })
-      .catch((err) => duplicateCode(err, v.code));
-    const after = { ...jobFields(v), ...sizes, customerId: customer.id, engine: engineFields(v.engine, v.unitSystem) };
-    await recordAudit(t, {
-      shopId: actor.shopId,
-      userId: actor.userId,
-      action: before.status !== v.status ? "job.status" : "job.update",
-      entityType: "job",
-      entityId: job.id,
-      before,
-      after,
-    });
-    await rejudgeOnSizeChange(t, actor, job.id, sizesBefore, sizesOf(job, engine));
-    await recordChange(t, { shopId: actor.shopId, jobId: job.id, entity: "job", entityId: job.id });
-    return { id: job.id };
+    assertConfirmed(await applyJobEdit(t, actor, jobId, v), v.confirmedFlagsOpened);
+    return { id: jobId };
   });
+}
+
+async function applyJobEdit(t: Transaction, actor: Actor, jobId: number, v: JobEditValues): Promise<Consequences> {
+  const { Engine, Job, Reading } = models();
+  const job = await Job.findOne({ where: { id: jobId, shopId: actor.shopId }, transaction: t, lock: t.LOCK.UPDATE });
+  if (!job) throw notFound("Job");
+  assertJobEditable(job);
+  const contextBefore = await loadJobContext(actor.shopId, jobId, t);
+  const engine = await Engine.findByPk(job.engineId, { transaction: t });
+  if (!engine) throw notFound("Engine");
+  if (v.unitSystem !== job.unitSystem && (await Reading.count({ where: { jobId }, transaction: t })) > 0) {
+    throw new AppError("conflict", "This job already has readings, so its unit system stays as it is", {
+      unitSystem: [`Readings were taken in ${job.unitSystem}; keep ${job.unitSystem}`],
+    });
+  }
+  const customer = await customerFor(t, actor, v.customer);
+  const sizesBefore = sizesOf(job, engine);
+  const sizes = sizeColumns(v, v.engine, sizesBefore);
+  const before = {
+    ...jobFields(job as unknown as JobEditValues),
+    ...sizeColumns({} as JobEditValues, engine, sizesBefore),
+    customerId: job.customerId,
+    engine: engineFields(engine as unknown as JobValues["engine"], engine.unitSystem),
+  };
+  await engine.update({ ...engineFields(v.engine, v.unitSystem), customerId: customer.id }, { transaction: t });
+  await job
+    .update({ ...jobFields(v), ...sizes, customerId: customer.id }, { transaction: t })
+    .catch((err) => duplicateCode(err, v.code));
+  const after = { ...jobFields(v), ...sizes, customerId: customer.id, engine: engineFields(v.engine, v.unitSystem) };
+  await recordAudit(t, {
+    shopId: actor.shopId,
+    userId: actor.userId,
+    action: before.status !== v.status ? "job.status" : "job.update",
+    entityType: "job",
+    entityId: job.id,
+    before,
+    after,
+  });
+  const rejudged = await rejudgeOnSizeChange(t, actor, job.id, sizesBefore, sizesOf(job, engine));
+  await recordChange(t, { shopId: actor.shopId, jobId: job.id, entity: "job", entityId: job.id });
+  return countConsequences(t, contextBefore, rejudged);
 }

@@ -5,7 +5,7 @@ import type { JobEditValues, JobValues } from "@/lib/schemas/job";
 import type { FinishedSizes } from "@/lib/schemas/job-sizes";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
-import { reconcileJob } from "@/lib/server/reconcile/reconcile";
+import { reconcileJob, type ReconcileResult } from "@/lib/server/reconcile/reconcile";
 
 // A job's finished sizes (and the engine's design sizes they fall back to) are what job-size
 // limits, ISO 286 classes and per-inch rules resolve from, so changing one re-judges the job's
@@ -74,7 +74,7 @@ export async function rejudgeOnSizeChange(
   jobId: number,
   before: LimitSizes,
   after: LimitSizes,
-): Promise<{ reevaluated: number; opened: number; closed: number } | null> {
+): Promise<ReconcileResult | null> {
   if (same(before, after)) return null;
   const r = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, cause: "sizes_changed" });
   const result = { reevaluated: r.reevaluated.length, opened: r.opened.length, closed: r.closed.length };
@@ -87,5 +87,5 @@ export async function rejudgeOnSizeChange(
     before,
     after: { ...after, reevaluated: result.reevaluated, flagsOpened: r.opened, flagsClosed: r.closed },
   });
-  return result;
+  return r;
 }

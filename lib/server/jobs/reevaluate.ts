@@ -1,15 +1,6 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import {
-  benchRoute,
-  consequenceWords,
-  isJobLocked,
-  isWideChange,
-  limitEngineProblems,
-  requiredStationIds,
-  requiredStationsAffected,
-  type Consequences,
-} from "@/lib/domain";
+import { isJobLocked, limitEngineProblems, type Consequences } from "@/lib/domain";
 import type { JobLimitsView, LimitsPreview, LimitsSaved } from "@/lib/schemas/job";
 import { compactLimit, type JobLimitsValues, type LimitValues } from "@/lib/schemas/spec";
 import type { Actor } from "@/lib/schemas/session";
@@ -20,6 +11,7 @@ import { AppError } from "@/lib/server/core/errors";
 import { reconcileJob } from "@/lib/server/reconcile/reconcile";
 import { assertJobEditable } from "@/lib/server/jobs/editable";
 import type { JobContext } from "@/lib/server/jobs/context";
+import { assertConfirmed, countConsequences, previewChange } from "@/lib/server/jobs/consequences";
 import { loadJobContext, lockJobOrThrow, replaceJobLimitRows } from "@/lib/server/jobs/repo";
 import { limitRow } from "@/lib/server/specs/repo";
 
@@ -47,15 +39,6 @@ export async function getJobLimits(shopId: number, jobId: number): Promise<JobLi
 }
 
 type Applied = { result: LimitsSaved["result"]; consequences: Consequences };
-
-/** The required stations of the job as it stands in this transaction (none when it has no route). */
-function requiredNow(ctx: JobContext): Set<string> {
-  try {
-    return requiredStationIds(ctx.shape, ctx.spec, benchRoute(ctx.shape));
-  } catch {
-    return new Set();
-  }
-}
 
 /** Bore and skirt limits near the engine's nominal bore, as readings are (422 on the field). */
 function assertNearEngine(ctx: JobContext, v: JobLimitsValues) {
@@ -85,8 +68,8 @@ async function applyLimits(t: Transaction, actor: Actor, jobId: number, v: JobLi
   const revision = from + 1;
   await replaceJobLimitRows(t, jobId, v.limits.map(limitRow), revision);
   const r = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, cause: "limits_changed" });
-  const ctxAfter = await loadJobContext(actor.shopId, jobId, t);
-  const after = ctxAfter.spec.map((l) => compactLimit(l as LimitValues));
+  const consequences = await countConsequences(t, ctxBefore, r);
+  const after = (await loadJobContext(actor.shopId, jobId, t)).spec.map((l) => compactLimit(l as LimitValues));
   await recordAudit(t, {
     shopId: actor.shopId,
     userId: actor.userId,
@@ -103,12 +86,6 @@ async function applyLimits(t: Transaction, actor: Actor, jobId: number, v: JobLi
     },
   });
   await recordChange(t, { shopId: actor.shopId, jobId, entity: "job_limits", entityId: jobId });
-  const consequences: Consequences = {
-    flagsOpened: r.opened.length,
-    flagsClosed: r.closed.length,
-    verdictsChanged: r.verdictChangedStations.length,
-    requiredStations: requiredStationsAffected(requiredNow(ctxBefore), requiredNow(ctxAfter), r.verdictChangedStations),
-  };
   const result = {
     reevaluated: r.reevaluated.length,
     opened: r.opened.length,
@@ -118,37 +95,15 @@ async function applyLimits(t: Transaction, actor: Actor, jobId: number, v: JobLi
   return { result, consequences };
 }
 
-/** Thrown to roll a preview back once its counts are known. */
-class PreviewDone extends Error {
-  constructor(readonly applied: Applied) {
-    super("preview rolled back");
-  }
-}
-
 /** What saving these limits would do, counted by the very same save, rolled back. */
-export async function previewJobLimits(actor: Actor, jobId: number, v: JobLimitsValues): Promise<LimitsPreview> {
-  try {
-    await getSequelize().transaction(async (t) => {
-      throw new PreviewDone(await applyLimits(t, actor, jobId, v));
-    });
-  } catch (err) {
-    if (!(err instanceof PreviewDone)) throw err;
-    const c = err.applied.consequences;
-    return { consequences: c, words: consequenceWords(c), wide: isWideChange(c) };
-  }
-  throw new Error("unreachable: a preview always rolls back");
+export function previewJobLimits(actor: Actor, jobId: number, v: JobLimitsValues): Promise<LimitsPreview> {
+  return previewChange(async (t) => (await applyLimits(t, actor, jobId, v)).consequences);
 }
 
 export async function replaceJobLimits(actor: Actor, jobId: number, v: JobLimitsValues): Promise<LimitsSaved> {
   const applied = await getSequelize().transaction(async (t) => {
     const a = await applyLimits(t, actor, jobId, v);
-    // A wide change is saved only when the lead confirmed the very number it opens (rolls back otherwise).
-    if (isWideChange(a.consequences) && v.confirmedFlagsOpened !== a.consequences.flagsOpened) {
-      const words = consequenceWords(a.consequences);
-      throw new AppError("conflict", `This change ${words}. Confirm by typing ${a.consequences.flagsOpened}`, {
-        confirmedFlagsOpened: [`Type ${a.consequences.flagsOpened} to confirm the flags this change opens`],
-      });
-    }
+    assertConfirmed(a.consequences, v.confirmedFlagsOpened);
     return a;
   });
   return { ...(await getJobLimits(actor.shopId, jobId)), ...applied };

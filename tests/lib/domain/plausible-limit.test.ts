@@ -119,6 +119,10 @@ describe("engineSizeProblems", () => {
     expect(p.map((x) => x.field)).toEqual(["nominalBore", "nominalStroke"]);
     expect(p[0].message).toMatch(/40 in cannot be a cylinder bore diameter/);
   });
+  it("refuses a standard journal size typed in mm on an inch job", () => {
+    const p = engineSizeProblems({ nominalBore: 4, nominalStroke: 3.48, nominalMainJournal: 62.2 }, "in");
+    expect(p.map((x) => x.field)).toEqual(["nominalMainJournal"]);
+  });
   it("accepts a small-block V8 in inches and a tractor diesel in mm", () => {
     expect(engineSizeProblems({ nominalBore: 4.03, nominalStroke: 3.48 }, "in")).toEqual([]);
     expect(engineSizeProblems({ nominalBore: 104, nominalStroke: 132 }, "mm")).toEqual([]);
