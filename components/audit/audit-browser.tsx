@@ -56,7 +56,10 @@ function Table({ data }: { data: AuditPage }) {
               </td>
               <td className="whitespace-nowrap p-2">
                 {e.jobId ? (
-                  <Link className="font-mono text-steel underline" href={`/release/${e.jobId}`}>
+                  <Link
+                    className="inline-flex min-h-11 items-center font-mono text-steel underline"
+                    href={`/release/${e.jobId}`}
+                  >
                     {e.jobCode}
                   </Link>
                 ) : (

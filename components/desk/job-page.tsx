@@ -170,10 +170,18 @@ function Links({ d, canEdit }: { d: JobDetail; canEdit: boolean }) {
       )}
       <div className="flex flex-col gap-1 rounded-tool border-2 border-rule bg-panel p-4">
         <span className="text-lg font-semibold">Export</span>
-        <a className="font-medium text-steel underline" href={`/api/jobs/${id}/readings.csv`} download>
+        <a
+          className="inline-flex min-h-11 items-center font-medium text-steel underline"
+          href={`/api/jobs/${id}/readings.csv`}
+          download
+        >
           Current readings and computed values (CSV)
         </a>
-        <a className="text-sm text-steel underline" href={`/api/jobs/${id}/readings.csv?history=1`} download>
+        <a
+          className="inline-flex min-h-11 items-center text-sm text-steel underline"
+          href={`/api/jobs/${id}/readings.csv?history=1`}
+          download
+        >
           With earlier readings (CSV)
         </a>
       </div>

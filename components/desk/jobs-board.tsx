@@ -64,7 +64,7 @@ function SortHeader({
       <button
         type="button"
         onClick={() => setSort({ key: k, asc: active ? !sort.asc : true })}
-        className="inline-flex min-h-11 items-center gap-1 font-semibold hover:text-steel"
+        className="inline-flex min-h-11 min-w-11 items-center gap-1 font-semibold hover:text-steel"
       >
         {label}
         <span aria-hidden="true" className="text-xs text-muted">

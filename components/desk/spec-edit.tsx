@@ -16,7 +16,11 @@ export function SpecEdit({ templateId }: { templateId: number }) {
           version {q.data.template.version}
           {q.data.template.archived ? " · archived" : ""}
         </span>
-        <a href={`/api/specs/${templateId}/export`} download className="ml-auto font-medium text-steel underline">
+        <a
+          href={`/api/specs/${templateId}/export`}
+          download
+          className="ml-auto inline-flex min-h-11 items-center font-medium text-steel underline"
+        >
           Export as a file
         </a>
       </div>

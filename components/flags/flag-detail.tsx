@@ -60,7 +60,10 @@ export function FlagDetailView({ flagId, canDecide }: { flagId: number; canDecid
   return (
     <div className="flex flex-col gap-6">
       <div className="flex flex-col gap-2">
-        <Link href={`/desk/flags?job=${d.job.id}`} className="no-print text-sm text-steel underline">
+        <Link
+          href={`/desk/flags?job=${d.job.id}`}
+          className="no-print inline-flex min-h-11 items-center self-start text-sm text-steel underline"
+        >
           ← Flags of job {d.job.code}
         </Link>
         <p className="font-mono text-sm text-muted">

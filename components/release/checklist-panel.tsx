@@ -16,7 +16,11 @@ function Item({ item }: { item: ChecklistItem }) {
     <li className="flex flex-wrap items-baseline gap-x-3 text-sm" data-item={item.key}>
       <span>{item.text}</span>
       {item.links.map((l) => (
-        <Link key={l.href} href={l.href} className="whitespace-nowrap font-medium text-steel underline">
+        <Link
+          key={l.href}
+          href={l.href}
+          className="inline-flex min-h-11 items-center whitespace-nowrap font-medium text-steel underline"
+        >
           {l.label}
         </Link>
       ))}
@@ -40,7 +44,7 @@ function Sections({ items }: { items: ChecklistItem[] }) {
       {bySection(items).map(([section, group]) => (
         <li key={section}>
           <details>
-            <summary className="min-h-8 cursor-pointer text-sm font-medium">
+            <summary className="min-h-11 cursor-pointer py-2.5 text-sm font-medium">
               {SECTION_LABELS[section as SectionId] ?? section}: {group.length}{" "}
               {group.length === 1 ? "station" : "stations"}
             </summary>

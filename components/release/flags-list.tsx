@@ -46,7 +46,10 @@ export function FlagsList({ flags }: { flags: FlagSummary[] }) {
                 return (
                   <tr key={f.id} className="border-b border-rule align-top" data-flag={f.id}>
                     <td className="py-2 pr-3">
-                      <Link className="font-mono font-medium text-steel underline" href={`/desk/flags/${f.id}`}>
+                      <Link
+                        className="inline-flex min-h-11 min-w-11 items-center font-mono font-medium text-steel underline"
+                        href={`/desk/flags/${f.id}`}
+                      >
                         #{f.id}
                       </Link>
                     </td>

@@ -13,7 +13,7 @@ export default async function ReleaseJobPage({ params }: { params: Promise<{ job
     <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
       <Link
         href={role === "inspector" ? "/release" : `/desk/jobs/${jobId}`}
-        className="text-sm font-medium text-steel underline"
+        className="inline-flex min-h-11 items-center self-start text-sm font-medium text-steel underline"
       >
         {role === "inspector" ? "← All blocks for release" : "← Back to the job"}
       </Link>

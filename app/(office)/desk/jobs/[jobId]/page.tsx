@@ -10,7 +10,10 @@ export default async function JobDeskPage({ params }: { params: Promise<{ jobId:
   const actor = await requirePageActor(["lead", "admin"]);
   return (
     <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
-      <Link href="/desk" className="text-sm font-medium text-steel underline">
+      <Link
+        href="/desk"
+        className="inline-flex min-h-11 items-center self-start text-sm font-medium text-steel underline"
+      >
         ← All jobs
       </Link>
       <JobPage jobId={Number(jobId)} role={actor.role} />

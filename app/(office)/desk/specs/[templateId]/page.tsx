@@ -9,7 +9,10 @@ export default async function SpecPage({ params }: { params: Promise<{ templateI
   await requirePageActor(["lead", "admin"]);
   return (
     <main className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6">
-      <Link href="/desk/specs" className="text-sm font-medium text-steel underline">
+      <Link
+        href="/desk/specs"
+        className="inline-flex min-h-11 items-center self-start text-sm font-medium text-steel underline"
+      >
         ← All spec sheets
       </Link>
       <SpecEdit templateId={Number(templateId)} />

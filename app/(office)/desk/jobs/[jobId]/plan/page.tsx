@@ -9,7 +9,10 @@ export default async function PlanPage({ params }: { params: Promise<{ jobId: st
   await requirePageActor(["lead"]);
   return (
     <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-6">
-      <Link href={`/desk/jobs/${jobId}`} className="text-sm font-medium text-steel underline">
+      <Link
+        href={`/desk/jobs/${jobId}`}
+        className="inline-flex min-h-11 items-center self-start text-sm font-medium text-steel underline"
+      >
         ← Back to the job
       </Link>
       <PlanEditor jobId={Number(jobId)} />
