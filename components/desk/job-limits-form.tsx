@@ -13,6 +13,7 @@ import type { LimitsPreview, LimitsSaved } from "@/lib/schemas/job";
 import { ChangeConfirm } from "./change-confirm";
 import { Loading, LoadFailed, ServerError, applyFieldErrors } from "./fields";
 import { keys, useJobLimits, type JobLimitsView } from "./queries";
+import { JobSizesContext } from "./job-sizes-context";
 import { SpecLimitsEditor } from "./spec-limits-editor";
 
 // The job's own limits. Saving re-judges every current reading and derived value of the job on
@@ -91,7 +92,9 @@ function LimitsForm({ view }: { view: JobLimitsView }) {
           limits before and after.
         </Notice>
         <JobSizesLine view={view} />
-        <SpecLimitsEditor lengthUnit={view.job.unitSystem} />
+        <JobSizesContext.Provider value={{ sizes: view.job.finishedSizes, unit: view.job.unitSystem }}>
+          <SpecLimitsEditor lengthUnit={view.job.unitSystem} />
+        </JobSizesContext.Provider>
         {/* The outcome sits in the bar that stays on screen, beside the button that caused it. */}
         <div className="sticky bottom-0 flex flex-col gap-2 border-t-2 border-rule bg-paper py-3">
           <ServerError error={save.error ?? preview.error} />

@@ -1,5 +1,6 @@
 "use client";
 
+import { useContext, type ContextType } from "react";
 import {
   JOB_SIZE_OF,
   JOB_SIZE_WORDS,
@@ -10,6 +11,7 @@ import {
   type SpecLimit,
 } from "@/lib/domain";
 import { compactLimit, type LimitInput, type LimitValues } from "@/lib/schemas/spec";
+import { JobSizesContext } from "./job-sizes-context";
 
 // What the limit comes to, worked out by the core (resolveLimit) as the lead types, so a
 // slip such as a swapped tolerance shows before it is saved. A minimum and maximum on a clearance
@@ -63,10 +65,34 @@ function words(l: LimitInput): string | null {
   return `${window}${r.min} to ${r.max} ${u}${nominal}`;
 }
 
+/** On a job's own limits page: what a limit that follows the job comes to with this job's size. */
+function onThisJob(l: LimitInput, job: ContextType<typeof JobSizesContext>): string | null {
+  const follows =
+    l.limitType === "job_size_tol" ||
+    l.limitType === "per_inch" ||
+    (l.limitType === "iso286" && (l.nominal === null || l.nominal === undefined));
+  const size = l.characteristic ? SIZE_OF[l.characteristic] : undefined;
+  const value = size && job ? job.sizes[size] : null;
+  if (!follows || !size || !job || value === null) return null;
+  const stated = { value, unit: job.unit };
+  const r = resolveLimit(compactLimit(l as LimitValues) as unknown as SpecLimit, { jobSize: stated, diameter: stated });
+  const u = unitWords(r.unit);
+  const range =
+    r.min === undefined
+      ? `up to ${r.max} ${u}`
+      : r.max === undefined
+        ? `${r.min} ${u} or more`
+        : `${r.min} to ${r.max} ${u}`;
+  return `On this job (${JOB_SIZE_WORDS[size]} ${value} ${unitWords(job.unit)}): ${range}`;
+}
+
 export function SpecLimitPreview({ limit }: { limit: LimitInput }) {
+  const job = useContext(JobSizesContext);
   let text: string | null;
+  let here: string | null = null;
   try {
     text = limit.characteristic && limit.limitType ? words(limit) : null;
+    here = text ? onThisJob(limit, job) : null;
   } catch {
     text = null; // not complete yet; the fields say what is missing when saved
   }
@@ -74,6 +100,7 @@ export function SpecLimitPreview({ limit }: { limit: LimitInput }) {
   return (
     <p className="text-sm text-muted" aria-live="polite">
       {text}
+      {here && <span className="block font-medium text-ink">{here}</span>}
     </p>
   );
 }
