@@ -7,7 +7,7 @@ import type { FlagState } from "@/lib/schemas/enums";
 import { getSequelize } from "@/lib/server/core/db";
 import { toEngineShape } from "@/lib/server/jobs/context";
 import { Engine, Flag, FlagDisposition, Instrument, Job, Reading } from "@/models";
-import type { TestShop } from "../support/factories";
+import { gaugeFor, type TestShop } from "../support/factories";
 
 export const COMPLETE_PLAN = {
   lengthUnit: "in",
@@ -37,7 +37,7 @@ type ReadingOverrides = Partial<{
   skipped: boolean;
   skipReason: string;
   lubricant: string | null;
-  instrumentId: number;
+  instrumentId: number | null;
   takenAt: Date;
   valueCanonical: number;
 }>;
@@ -62,7 +62,7 @@ export async function fillReadings(
       valueCanonical: o.skipped ? null : (o.valueCanonical ?? (s.torque ? 94.9 : 50.8)),
       value: o.skipped ? null : s.torque ? 70 : 2,
       unit: s.unit,
-      instrumentId: o.instrumentId ?? shop.instrument.id,
+      instrumentId: o.instrumentId === undefined ? gaugeFor(shop.shop.id, s.id) : o.instrumentId,
       lubricant: s.torque ? (o.lubricant === undefined ? "engine-oil" : o.lubricant) : null,
       skipped: o.skipped ?? false,
       skipReason: o.skipReason ?? null,

@@ -3,7 +3,8 @@
 import { describe, expect, it } from "vitest";
 import { GET as getView, POST as sign } from "@/app/api/release/[jobId]/route";
 import { releaseChecklist } from "@/lib/server/release/checklist";
-import { AuditEvent, Job, Release, SyncChange } from "@/models";
+import { getSequelize } from "@/lib/server/core/db";
+import { AuditEvent, Instrument, Job, Release, SyncChange } from "@/models";
 import { createShop, TEST_PASSWORD, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";
 import { addFlag, completeJob, fillReadings, pastDueGauge, setPlan } from "./release-fixtures";
@@ -47,7 +48,7 @@ describe("release checklist", () => {
       overrides: {
         "bore/2/mid/B": { skipped: true, skipReason: "gauge would not seat" },
         "torque/head-bolts": { lubricant: null },
-        "main/4/front/A": { instrumentId: old },
+        "bore/4/top/A": { instrumentId: old },
       },
     });
     await setPlan(s, { lengthUnit: "in", bore: 4.03, stroke: 3.48, pistonTop: "flat" });
@@ -97,7 +98,7 @@ describe("release checklist", () => {
     expect(text(`flags:${again}`)).toMatch(/machined again \(hone\).*still blocks release/);
     expect(text(`flags:${open}`)).toMatch(/open, waiting for the lead's decision/);
     expect(text(`gauges:${old}`)).toMatch(
-      /past its calibration due date \(2025-01-10\) on 1 current reading: Main journal 4/,
+      /past its calibration due date \(2025-01-10\) on 1 current reading: Cylinder 4/,
     );
     expect(text("torque:torque/head-bolts")).toMatch(/no lubricant recorded/);
     expect(list.unmet.find((i) => i.key === `flags:${open}`)!.links[0].href).toBe(`/desk/flags/${open}`);
@@ -105,6 +106,43 @@ describe("release checklist", () => {
     expect(list.unmet.find((i) => i.key === "plan:rockerRatio")!.links[0].href).toBe(`/desk/jobs/${s.job.id}/plan`);
     const flags = list.checks.find((c) => c.id === "flags")!;
     expect(flags.summary).toBe("2 flags still blocking; 1 closed, 1 accepted");
+  });
+
+  it("counts every reading's gauge: none, a kind that cannot measure the station, a range that misses", async () => {
+    const s = await createShop();
+    getSequelize();
+    // An invented 20–50 lbf·ft wrench: the 70 lbf·ft fixture torque is past its top.
+    const small = await Instrument.create({
+      shopId: s.shop.id,
+      kind: "torque_wrench",
+      label: "Small wrench",
+      serial: `SW-${s.job.code}`,
+      unit: "lbf_ft",
+      resolution: 1,
+      expandedU: 1,
+      rangeMin: 20,
+      rangeMax: 50,
+      calibratedOn: "2026-06-01",
+      calibrationDue: "2027-06-01",
+    });
+    await fillReadings(s, {
+      overrides: {
+        "bore/1/top/A": { instrumentId: null },
+        "bore/2/top/A": { instrumentId: s.gauges.mic },
+        "torque/main-caps": { instrumentId: small.id },
+      },
+    });
+    const gauges = (await releaseChecklist(s.shop.id, s.job.id)).checks.find((c) => c.id === "gauges")!;
+    expect(gauges.ok).toBe(false);
+    expect(gauges.summary).toBe("231 of 234 readings have a suitable gauge in calibration; 3 do not");
+    const text = Object.fromEntries(gauges.items.map((i) => [i.key, i.text]));
+    expect(text["gauges:none"]).toMatch(/^No gauge is recorded on 1 current reading: Cylinder 1 · top of bore/);
+    expect(text[`gauges:kind:${s.gauges.mic}`]).toMatch(
+      /^Kit micrometer \(serial KIT-MIC-\w+\) is an outside micrometer, which cannot measure these stations on 1/,
+    );
+    expect(text[`gauges:range:${small.id}`]).toMatch(
+      /^Small wrench \(serial SW-[\w-]+\) reads 20–50 lbf·ft; values outside that range on 1 current reading: Torque/,
+    );
   });
 
   it("reports complete when everything is in, and says what is complete", async () => {
@@ -116,7 +154,7 @@ describe("release checklist", () => {
     expect(list.checks.map((c) => c.summary)).toEqual([
       "All 93 required stations have a current reading",
       "No flags on this job",
-      "1 gauge used on 234 readings, all within calibration when used",
+      "All 234 readings have a suitable gauge in calibration (7 gauges used)",
       "All 5 fastener groups have a torque record with the lubricant",
       "The build plan is filled in",
     ]);

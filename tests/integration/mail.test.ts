@@ -151,6 +151,7 @@ describe("mail through the outbox", () => {
         value: 68,
         unit: "lbf_ft",
         lubricant: "engine-oil",
+        instrumentId: s.gauges.torque,
         takenBy: s.users.machinist.id,
         takenAt: new Date(),
         deviceId: "t",

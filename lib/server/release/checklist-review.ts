@@ -3,10 +3,9 @@ import { characteristicWords, stationWords, verdictInText } from "@/lib/domain";
 import { buildPlanSchema } from "@/lib/schemas/build-plan";
 import type { ChecklistCheck, ChecklistItem, ChecklistLink } from "@/lib/schemas/release";
 import { benchLink, derivedInputs, plural } from "@/lib/server/release/checklist-rules";
-import type { FlagRow, InstrumentRow, JobRecord } from "@/lib/server/release/repo";
-import type { StoredReading } from "@/lib/schemas/readings";
+import type { FlagRow, JobRecord } from "@/lib/server/release/repo";
 
-// The flags, gauges and build-plan checks of the release checklist. Pure, like the rules file.
+// The flags and build-plan checks of the release checklist (the gauges check: checklist-gauges.ts). Pure, like the rules file.
 
 const REASON_WORDS = {
   out_of_spec: verdictInText("out_of_spec"),
@@ -59,54 +58,6 @@ export function flagsCheck(record: JobRecord): ChecklistCheck {
         ? `${[closed ? `${plural(closed, "flag")} closed by an in-spec reading` : "", accepted ? `${accepted} accepted with a reason` : ""].filter(Boolean).join(", ")}; none open`
         : `${plural(items.length, "flag")} still blocking; ${closed} closed, ${accepted} accepted`;
   return { id: "flags", title, ok: items.length === 0, summary, items };
-}
-
-/** The UTC calendar day of a time; a gauge is in calibration through its due date. */
-const dayOf = (t: Date | string) => new Date(t).toISOString().slice(0, 10);
-
-function gaugeProblem(inst: InstrumentRow | undefined, r: StoredReading): string | null {
-  if (!inst) return "is not in this shop's gauge list";
-  if (!inst.calibrationDue) return "has no calibration due date on file";
-  return dayOf(r.takenAt) > inst.calibrationDue ? `was past its calibration due date (${inst.calibrationDue})` : null;
-}
-
-export function gaugesCheck(record: JobRecord, current: Map<string, StoredReading>): ChecklistCheck {
-  const title = "Every gauge was within calibration when used";
-  const instruments = new Map(record.instruments.map((i) => [i.id, i]));
-  const used = new Map<number, number>();
-  const bad = new Map<number, { problem: string; readings: StoredReading[] }>();
-  for (const r of current.values()) {
-    if (r.skipped || r.instrumentId === null || r.instrumentId === undefined) continue;
-    used.set(r.instrumentId, (used.get(r.instrumentId) ?? 0) + 1);
-    const problem = gaugeProblem(instruments.get(r.instrumentId), r);
-    if (!problem) continue;
-    const entry = bad.get(r.instrumentId) ?? { problem, readings: [] };
-    entry.readings.push(r);
-    bad.set(r.instrumentId, entry);
-  }
-  const items: ChecklistItem[] = [...bad.entries()].map(([id, { problem, readings }]) => {
-    const inst = instruments.get(id);
-    const name = inst ? `${inst.label} (serial ${inst.serial})` : `Gauge #${id}`;
-    const where = readings
-      .slice(0, 3)
-      .map((r) => stationWords(r.stationId))
-      .join("; ");
-    const more = readings.length > 3 ? ` and ${readings.length - 3} more` : "";
-    return {
-      check: "gauges",
-      key: `gauges:${id}`,
-      text: `${name} ${problem} on ${plural(readings.length, "current reading")}: ${where}${more}. Measure again with a gauge in calibration, or correct the gauge's dates if they are wrong`,
-      links: [{ label: "Gauges", href: "/admin/gauges" }, benchLink(record.job.id, readings[0].stationId)],
-    };
-  });
-  const readings = [...used.values()].reduce((a, b) => a + b, 0);
-  const summary =
-    used.size === 0
-      ? "No gauge is recorded on the current readings"
-      : items.length === 0
-        ? `${plural(used.size, "gauge")} used on ${plural(readings, "reading")}, all within calibration when used`
-        : `${items.length} of ${plural(used.size, "gauge")} used were not within calibration`;
-  return { id: "gauges", title, ok: items.length === 0, summary, items };
 }
 
 /** The plan fields a release needs, in words. Lash and notes are optional. */

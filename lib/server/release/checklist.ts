@@ -3,7 +3,8 @@ import type { Transaction } from "sequelize";
 import { currentReadings } from "@/lib/domain";
 import type { ReleaseChecklist } from "@/lib/schemas/release";
 import { readingsCheck, torqueCheck } from "@/lib/server/release/checklist-rules";
-import { flagsCheck, gaugesCheck, planCheck } from "@/lib/server/release/checklist-review";
+import { flagsCheck, planCheck } from "@/lib/server/release/checklist-review";
+import { gaugesCheck } from "@/lib/server/release/checklist-gauges";
 import { loadJobRecord, type JobRecord } from "@/lib/server/release/repo";
 
 // What still stands between a job and its release, in words, each with a link to fix it, and
