@@ -67,7 +67,8 @@ function orderOf(q: FlagListQuery): Order {
   // Age counts from the judged reading's time (the flag's own time for a computed value, which has
   // no one reading), as toListItem's judgedAt; it grows as that time falls.
   const flip = dir === "ASC" ? "DESC" : "ASC";
-  const judgedAt = literal("COALESCE(`reading`.`taken_at`, `Flag`.`created_at`)");
+  // The query aliases the flags table by the model's name, which the production build minifies: ask for it.
+  const judgedAt = literal(`COALESCE(\`reading\`.\`taken_at\`, \`${models().Flag.name}\`.\`created_at\`)`);
   const by: Record<FlagListQuery["sort"], Order> = {
     age: [[judgedAt, flip]],
     job: [
