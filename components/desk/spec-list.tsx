@@ -38,7 +38,10 @@ function Row({ t }: { t: TemplateSummary }) {
   return (
     <tr className="border-t border-rule">
       <td className="px-3 py-3">
-        <Link href={`/desk/specs/${t.id}`} className="font-semibold text-steel underline-offset-2 hover:underline">
+        <Link
+          href={`/desk/specs/${t.id}`}
+          className="inline-flex min-h-11 items-center font-semibold text-steel underline-offset-2 hover:underline"
+        >
           {t.name}
         </Link>
         {t.archived && <span className="ml-2 rounded-tool border border-rule px-1 text-xs">archived</span>}
