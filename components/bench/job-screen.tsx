@@ -52,8 +52,19 @@ export const JobScreen = memo(function JobScreen({
   const [stationId, setStationId] = useState(() => nextOpenStation(views) ?? views[0]?.station.id ?? "");
   const [sheet, setSheet] = useState<"route" | "skip" | null>(null);
   const inputRef = useRef<HTMLInputElement>(null);
-  const moveTo = useCallback((id: string) => setStationId(id), []);
+  // A job fetched just now can open before its readings have arrived: until the machinist (or an
+  // entry) moves, the screen follows the first open station, never a measured one.
+  const moved = useRef(false);
+  useEffect(() => {
+    const first = moved.current ? undefined : nextOpenStation(views);
+    if (first) setStationId(first);
+  }, [views]);
+  const moveTo = useCallback((id: string) => {
+    moved.current = true;
+    setStationId(id);
+  }, []);
   const entry = useBenchEntry({ pack, views, readings, prefs, stationId, moveTo });
+  useEffect(() => entry.store.subscribe(() => void (entry.store.get().last && (moved.current = true))), [entry.store]);
   const sheetNow = useRef(sheet);
   sheetNow.current = sheet;
   const refocus = useGaugeKeys({
@@ -77,6 +88,7 @@ export const JobScreen = memo(function JobScreen({
   const jump = useCallback(
     (id: string) => {
       cancelMove();
+      moved.current = true;
       setStationId(id);
       setSheet(null);
     },
