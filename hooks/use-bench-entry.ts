@@ -5,6 +5,7 @@ import {
   coreReading,
   defaultGauge,
   evaluateReading,
+  expectedFigure,
   isDialBoreGauge,
   jobLock,
   jobLockReason,
@@ -40,7 +41,8 @@ interface Args {
 export const gaugeKey = (s: Station) => s.gaugeKind ?? s.characteristic;
 
 export function chosenGauge(station: Station, pack: JobPack, prefs: JobPrefs) {
-  return defaultGauge(station.characteristic, pack.instruments, prefs.gauges[gaugeKey(station)]);
+  const expected = expectedFigure(pack.spec, station.id, pack.shape);
+  return defaultGauge(station.characteristic, pack.instruments, prefs.gauges[gaugeKey(station)], expected);
 }
 
 function modeOf(station: Station | undefined, pack: JobPack, prefs: JobPrefs, settingFor?: string) {

@@ -107,24 +107,15 @@ export const isDialBoreGauge = (gauge: GaugeFacts | undefined): boolean =>
 export const takesDialBoreGauge = (characteristic: RawCharacteristic): boolean =>
   USUAL_GAUGES[characteristic].includes("dial-bore-gauge");
 
-type Offered = GaugeFacts & { label: string; active: boolean };
+/** A gauge the tablet may offer: what it is, its name, whether it is in use. */
+export type OfferedGauge = GaugeFacts & { label: string; active: boolean };
 
 /** The active gauges that can measure a characteristic, in the table's order of kinds, then by name. */
-export function gaugesFor<G extends Offered>(characteristic: RawCharacteristic, gauges: readonly G[]): G[] {
+export function gaugesFor<G extends OfferedGauge>(characteristic: RawCharacteristic, gauges: readonly G[]): G[] {
   const ranked = gauges.flatMap((g) => {
     const rank = g.active ? gaugeRank(g, characteristic) : undefined;
     return rank === undefined ? [] : [{ g, rank }];
   });
   ranked.sort((a, b) => (a.rank === b.rank ? a.g.label.localeCompare(b.g.label) : a.rank < b.rank ? -1 : 1));
   return ranked.map((r) => r.g);
-}
-
-/** The gauge to use: the one the machinist picked for this kind of station when it suits, else the first offered. */
-export function defaultGauge<G extends Offered & { id: number }>(
-  characteristic: RawCharacteristic,
-  gauges: readonly G[],
-  pickedId?: number,
-): G | undefined {
-  const options = gaugesFor(characteristic, gauges);
-  return options.find((g) => g.id === pickedId) ?? options[0];
 }

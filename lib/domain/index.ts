@@ -28,6 +28,7 @@ export * from "./job-lock";
 export * from "./reopen";
 export * from "./gauges";
 export * from "./gauge-range";
+export * from "./gauge-pick";
 export * from "./reading-input";
 export * from "./reach";
 export * from "./words";

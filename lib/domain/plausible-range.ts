@@ -10,7 +10,10 @@ import { cleanDecimal, convertLength, convertTorque, decimalDifference } from ".
 import { unitWords } from "./words";
 
 export type Range = { min: number; max: number };
-/** Lengths in mm, torque in N·m. Gaps and clearances may be zero. */
+/**
+ * Lengths in mm, torque in N·m. Gaps and clearances may be zero; a torque may not (the smallest
+ * engine fasteners, M5 and M6 screws, take a few N·m: common practice, from memory).
+ */
 export const PLAUSIBLE_RANGES: Readonly<Record<RawCharacteristic, Range>> = {
   bore_diameter: { min: 20, max: 400 },
   piston_skirt_diameter: { min: 20, max: 400 },
@@ -25,7 +28,7 @@ export const PLAUSIBLE_RANGES: Readonly<Record<RawCharacteristic, Range>> = {
   rod_bolt_loaded_length: { min: 10, max: 300 },
   deck_height: { min: 50, max: 1200 },
   valve_lash: { min: 0, max: 2 },
-  fastener_torque: { min: 0, max: 3000 },
+  fastener_torque: { min: 1, max: 3000 },
 };
 
 /**

@@ -49,6 +49,10 @@ describe("implausibleReason", () => {
     expect(implausibleReason("torque/damper", 2212, "lbf_ft", v8)).toBeUndefined(); // 2999.07 N·m
     expect(implausibleReason("torque/damper", 2213, "lbf_ft", v8)).toMatch(/fastener torque/);
   });
+  it("a torque of 0 is no reading (common practice: even M5 screws take a few N·m)", () => {
+    expect(implausibleReason("torque/main-caps", 0, "lbf_ft", v8)).toMatch(/fastener torque/);
+    expect(implausibleReason("torque/main-caps", 1, "nm", v8)).toBeUndefined();
+  });
   it("a bore more than 10% from the engine's nominal bore is a slip (4.53 in on a 4.03 in V8)", () => {
     expect(implausibleReason("bore/2/mid/B", 4.53, "in", v8)).toMatch(/10% away from this engine's 4.03 in bore/);
     expect(implausibleReason("skirt/2", 93.6, "mm", diesel)).toBeUndefined(); // 9.9% under 104 mm
