@@ -115,8 +115,8 @@ describe("gauge keystrokes after every tap on the bench", () => {
     await send();
 
     await page.getByRole("button", { name: "All stations" }).click();
-    await page.locator('[role=dialog] [data-station="deck/right/rear"]').click();
-    await expect.poll(() => station(page)).toBe("deck/right/rear");
+    await page.locator('[role=dialog] [data-station="ring-gap/8/oil"]').click();
+    await expect.poll(() => station(page)).toBe("ring-gap/8/oil");
     await send();
 
     await page.getByRole("button", { name: "Skip…" }).click();

@@ -56,7 +56,7 @@ describe("the confirmation before a limit change", () => {
     expect(await serverState()).toEqual(before);
     // Keep editing: the panel goes, the class typed stays.
     await page.getByRole("button", { name: "Keep editing" }).click();
-    expect(await said.count()).toBe(0);
+    await expect.poll(() => said.count()).toBe(0);
     expect(await page.getByLabel("ISO 286 class").inputValue()).toBe("H6");
   });
 

@@ -10,8 +10,9 @@ import { demo, demoEmail, launchBrowser, launchProfile, screenshot, signIn, sign
 
 const ROSA = demoEmail("machinist");
 const IVO = { name: "Ivo Marchetti", email: `ivo-${randomUUID().slice(0, 6)}@kestrelflats.example` };
-// Demo V8 (KF-2611) deck height stations (scripts/seed/demo-specs.ts, invented demo data).
-const DECK = ["deck/left/front", "deck/left/rear", "deck/right/front", "deck/right/rear"];
+// Demo V8 (KF-2611) piston skirts, 4.0285 in nominal (scripts/seed/demo-specs.ts, invented demo data):
+// a section no other browser test logs, so the order the files run in does not matter.
+const SKIRTS = ["skirt/1", "skirt/2", "skirt/3"];
 const WAIT = { timeout: 30_000 };
 
 let context: BrowserContext | undefined;
@@ -31,10 +32,10 @@ async function tapValue(page: Page, text: string) {
   await page.getByRole("button", { name: "Save", exact: true }).click();
 }
 
-/** Deck readings the server holds for the job, asked with whatever session the page holds now. */
-async function deckOnServer(page: Page, jobId: string): Promise<PackReading[]> {
+/** Skirt readings the server holds for the job, asked with whatever session the page holds now. */
+async function skirtsOnServer(page: Page, jobId: string): Promise<PackReading[]> {
   const pack = await page.evaluate(async (id) => (await fetch(`/api/bench/jobs/${id}`)).json(), jobId);
-  return (pack.readings as PackReading[]).filter((r) => r.stationId.startsWith("deck/"));
+  return (pack.readings as PackReading[]).filter((r) => r.stationId.startsWith("skirt/"));
 }
 
 async function sessionCookie(ctx: BrowserContext): Promise<string> {
@@ -79,18 +80,18 @@ describe("a shared tablet", () => {
     await page.waitForFunction(() => navigator.serviceWorker?.controller !== null, undefined, { timeout: 60_000 });
     const rosaId = ((await page.evaluate(async () => (await fetch("/api/me")).json())) as { user: { id: number } }).user
       .id;
-    const deckBefore = (await deckOnServer(page, jobId)).length;
+    const skirtsBefore = (await skirtsOnServer(page, jobId)).length;
     const rosaCookie = await sessionCookie(context);
 
-    // Rosa logs two deck heights with no network.
+    // Rosa measures two skirts with no network.
     await card.click();
     await page.getByTestId("job-screen").waitFor();
     await context.setOffline(true);
-    await page.locator("[data-section=deck]").click();
-    await expect.poll(() => station(page)).toBe(DECK[0]);
-    await tapValue(page, "9.025");
-    await expect.poll(() => station(page)).toBe(DECK[1]);
-    await tapValue(page, "9.026");
+    await page.locator("[data-section=skirt]").click();
+    await expect.poll(() => station(page)).toBe(SKIRTS[0]);
+    await tapValue(page, "4.0285");
+    await expect.poll(() => station(page)).toBe(SKIRTS[1]);
+    await tapValue(page, "4.0286");
     await expect.poll(() => pending(page)).toBe("2");
 
     // She signs out, still offline: the bench locks behind the sign-in screen and says what waits.
@@ -116,17 +117,17 @@ describe("a shared tablet", () => {
     await expect.poll(() => page.getByTestId("whoami").textContent(), WAIT).toContain(IVO.name);
     await page.goto(`/bench/job?id=${jobId}`);
     await page.getByTestId("job-screen").waitFor();
-    await page.locator("[data-section=deck]").click();
+    await page.locator("[data-section=skirt]").click();
     // Rosa's two readings are on this tablet too, so the section opens at the next station.
-    await expect.poll(() => station(page)).toBe(DECK[2]);
-    await tapValue(page, "9.024");
+    await expect.poll(() => station(page)).toBe(SKIRTS[2]);
+    await tapValue(page, "4.0284");
     await expect.poll(() => pending(page), WAIT).toBe("0");
     await expect.poll(() => page.getByTestId("sync-badge").textContent(), WAIT).toContain("All sent");
     expect(await page.getByTestId("sync-badge").textContent()).toContain("2 by another person wait for their sign-in");
-    const afterIvo = await deckOnServer(page, jobId);
-    expect(afterIvo.length).toBe(deckBefore + 1);
-    expect(afterIvo.filter((r) => r.takenBy === rosaId && DECK.slice(0, 2).includes(r.stationId))).toEqual([]);
-    expect(afterIvo.filter((r) => r.takenBy === ivo.user.id).map((r) => r.stationId)).toEqual([DECK[2]]);
+    const afterIvo = await skirtsOnServer(page, jobId);
+    expect(afterIvo.length).toBe(skirtsBefore + 1);
+    expect(afterIvo.filter((r) => r.takenBy === rosaId && SKIRTS.slice(0, 2).includes(r.stationId))).toEqual([]);
+    expect(afterIvo.filter((r) => r.takenBy === ivo.user.id).map((r) => r.stationId)).toEqual([SKIRTS[2]]);
     const ivoCookie = await sessionCookie(context);
 
     // Ivo signs out online; Rosa signs in again and her two readings go out as hers.
@@ -137,15 +138,15 @@ describe("a shared tablet", () => {
     await signInOnLockScreen(page, ROSA, demo.password);
     await page.getByTestId("sync-badge").waitFor(WAIT);
     await expect.poll(() => page.getByTestId("sync-badge").textContent(), WAIT).toContain("All sent");
-    const final = await deckOnServer(page, jobId);
-    expect(final.length).toBe(deckBefore + 3);
+    const final = await skirtsOnServer(page, jobId);
+    expect(final.length).toBe(skirtsBefore + 3);
     expect(
       final
         .filter((r) => r.takenBy === rosaId)
         .map((r) => r.stationId)
-        .filter((s) => DECK.slice(0, 2).includes(s))
+        .filter((s) => SKIRTS.slice(0, 2).includes(s))
         .sort(),
-    ).toEqual(DECK.slice(0, 2));
+    ).toEqual(SKIRTS.slice(0, 2));
     expect(await page.getByTestId("sync-badge").textContent()).not.toContain("another person");
     expect(await meStatus(rosaCookie)).toBe(401);
   });
