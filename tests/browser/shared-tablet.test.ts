@@ -121,6 +121,9 @@ describe("a shared tablet", () => {
     // Rosa's two readings are on this tablet too, so the section opens at the next station.
     await expect.poll(() => station(page)).toBe(SKIRTS[2]);
     await tapValue(page, "4.0284");
+    // Stored on the tablet first (the route moves on), then sent: a badge at 0 alone could be the old one.
+    await expect.poll(() => station(page)).not.toBe(SKIRTS[2]);
+    await expect.poll(async () => (await skirtsOnServer(page, jobId)).length, WAIT).toBe(skirtsBefore + 1);
     await expect.poll(() => pending(page), WAIT).toBe("0");
     await expect.poll(() => page.getByTestId("sync-badge").textContent(), WAIT).toContain("All sent");
     expect(await page.getByTestId("sync-badge").textContent()).toContain("2 by another person wait for their sign-in");
@@ -137,6 +140,7 @@ describe("a shared tablet", () => {
     expect(await meStatus(ivoCookie)).toBe(401);
     await signInOnLockScreen(page, ROSA, demo.password);
     await page.getByTestId("sync-badge").waitFor(WAIT);
+    await expect.poll(async () => (await skirtsOnServer(page, jobId)).length, WAIT).toBe(skirtsBefore + 3);
     await expect.poll(() => page.getByTestId("sync-badge").textContent(), WAIT).toContain("All sent");
     const final = await skirtsOnServer(page, jobId);
     expect(final.length).toBe(skirtsBefore + 3);
