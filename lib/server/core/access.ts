@@ -4,6 +4,8 @@ import { redirect } from "next/navigation";
 import { cache } from "react";
 import { PAGE_PATH_HEADER } from "@/lib/nav";
 import { AppError } from "@/lib/server/core/errors";
+import { classifyDbError } from "@/lib/server/core/db-errors";
+import { DB_UNAVAILABLE_DIGEST } from "@/lib/schemas/errors";
 import type { Role } from "@/lib/schemas/enums";
 import type { Actor } from "@/lib/schemas/session";
 import { getPageSession, sessionFromRequest, type SessionData } from "@/lib/server/core/session";
@@ -50,7 +52,20 @@ export async function requireActor(req: Request, roles: readonly Role[] | "any" 
 }
 
 /** Who is signed in for this page request, looked up once however many layouts and pages ask. */
-export const currentPageActor = cache(async (): Promise<Actor | null> => actorFrom(await getPageSession()));
+export const currentPageActor = cache(async (): Promise<Actor | null> => {
+  try {
+    return await actorFrom(await getPageSession());
+  } catch (err) {
+    throw asPageError(err);
+  }
+});
+
+/** A database outage as the error the page's error screen recognises (app/error.tsx). */
+export function asPageError(err: unknown): unknown {
+  if (classifyDbError(err)?.kind !== "outage") return err;
+  console.error(JSON.stringify({ at: new Date().toISOString(), app: "tenthwise", event: "db_unavailable_page" }));
+  return Object.assign(new Error("The server cannot reach its database"), { digest: DB_UNAVAILABLE_DIGEST });
+}
 
 /**
  * For pages and layouts: signed out → the sign-in page, which leads back to the page asked for
