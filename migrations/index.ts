@@ -18,6 +18,7 @@ import * as addJobsContextRevision from "./20261202000200-add-jobs-context-revis
 import * as addJobsFinishedSizes from "./20261203010000-add-jobs-finished-sizes";
 import * as addInstrumentsRange from "./20261203030000-add-instruments-range";
 import * as createUserSessions from "./20261203050000-create-user-sessions";
+import * as createLinkTokens from "./20261203150000-create-link-tokens";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -44,6 +45,7 @@ export const migrations: Migration[] = [
   step("20261203010000-add-jobs-finished-sizes", addJobsFinishedSizes),
   step("20261203030000-add-instruments-range", addInstrumentsRange),
   step("20261203050000-create-user-sessions", createUserSessions),
+  step("20261203150000-create-link-tokens", createLinkTokens),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */
@@ -67,4 +69,5 @@ export const MIGRATED_TABLES = [
   "sync_changes",
   "mail_outbox",
   "user_sessions",
+  "link_tokens",
 ] as const;

@@ -26,6 +26,7 @@ import { FlagDisposition, initFlagDisposition } from "./flag-disposition";
 import { Instrument, initInstrument } from "./instrument";
 import { Job, initJob } from "./job";
 import { JobLimit, initJobLimit } from "./job-limit";
+import { LinkToken, initLinkToken } from "./link-token";
 import { MailOutbox, initMailOutbox } from "./mail-outbox";
 import { Reading, initReading } from "./reading";
 import { Release, initRelease } from "./release";
@@ -47,6 +48,7 @@ export {
   Instrument,
   Job,
   JobLimit,
+  LinkToken,
   MailOutbox,
   Reading,
   Release,
@@ -79,6 +81,7 @@ const INITIALISERS = [
   initSyncChange,
   initMailOutbox,
   initUserSession,
+  initLinkToken,
 ];
 
 let boundTo: Sequelize | null = null;

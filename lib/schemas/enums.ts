@@ -27,6 +27,10 @@ export const AUDIT_ROLES = ["lead", "inspector", "admin"] as const satisfies rea
 export const SESSION_END_REASONS = ["signed_out", "replaced", "password_reset", "role_changed", "deactivated"] as const;
 export type SessionEndReason = (typeof SESSION_END_REASONS)[number];
 
+/** What a one-time link sent by e-mail is for (link_tokens.purpose). */
+export const LINK_PURPOSES = ["verify_email", "set_password", "reset_password"] as const;
+export type LinkPurpose = (typeof LINK_PURPOSES)[number];
+
 export const FUELS = ["gasoline", "diesel", "other"] as const;
 export type Fuel = (typeof FUELS)[number];
 

@@ -13,6 +13,7 @@ export const ERROR_STATUS = {
   not_found: 404,
   conflict: 409,
   job_locked: 409,
+  gone: 410,
   payload_too_large: 413,
   unsupported_media: 415,
   invalid: 422,
