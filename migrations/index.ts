@@ -19,6 +19,8 @@ import * as addJobsFinishedSizes from "./20261203010000-add-jobs-finished-sizes"
 import * as addInstrumentsRange from "./20261203030000-add-instruments-range";
 import * as createUserSessions from "./20261203050000-create-user-sessions";
 import * as createLinkTokens from "./20261203150000-create-link-tokens";
+import * as addLimitsCommonPractice from "./20261203140000-add-limits-common-practice";
+import * as addShopsActivatedAt from "./20261203140010-add-shops-activated-at";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -46,6 +48,8 @@ export const migrations: Migration[] = [
   step("20261203030000-add-instruments-range", addInstrumentsRange),
   step("20261203050000-create-user-sessions", createUserSessions),
   step("20261203150000-create-link-tokens", createLinkTokens),
+  step("20261203140000-add-limits-common-practice", addLimitsCommonPractice),
+  step("20261203140010-add-shops-activated-at", addShopsActivatedAt),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */

@@ -36,6 +36,7 @@ export class JobLimit extends Model<InferAttributes<JobLimit>, InferCreationAttr
   declare gaugeKind: CreationOptional<string | null>;
   declare label: CreationOptional<string | null>;
   declare sortOrder: CreationOptional<number>;
+  declare commonPractice: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 

@@ -21,5 +21,7 @@ export function limitAttributes() {
     gaugeKind: str(32, true),
     label: str(120, true),
     sortOrder: int(0),
+    /** A starter sheet's typical value, not yet replaced by the maker's figure (lib/server/shops). */
+    commonPractice: bool(false),
   };
 }

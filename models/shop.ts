@@ -6,7 +6,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from "sequelize";
-import { enumOf, intId, modelOptions, stamps, str, text } from "./columns";
+import { datetime, enumOf, intId, modelOptions, stamps, str, text } from "./columns";
 import type { User } from "./user";
 import { GUARD_BAND_POLICIES, UNIT_SYSTEMS, type GuardBandPolicy, type UnitSystem } from "@/lib/schemas/enums";
 
@@ -20,6 +20,8 @@ export class Shop extends Model<InferAttributes<Shop>, InferCreationAttributes<S
   declare email: CreationOptional<string | null>;
   declare phone: CreationOptional<string | null>;
   declare address: CreationOptional<string | null>;
+  /** Empty while a shop started from the public page waits for its admin to confirm the e-mail. */
+  declare activatedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -37,6 +39,7 @@ export function initShop(sequelize: Sequelize): void {
       email: str(255, true),
       phone: str(40, true),
       address: text(),
+      activatedAt: datetime(true),
       ...stamps(),
     },
     modelOptions(sequelize, "shops", "both"),

@@ -33,6 +33,7 @@ export class SpecLimit extends Model<InferAttributes<SpecLimit>, InferCreationAt
   declare gaugeKind: CreationOptional<string | null>;
   declare label: CreationOptional<string | null>;
   declare sortOrder: CreationOptional<number>;
+  declare commonPractice: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 

@@ -2,7 +2,7 @@
 
 import { lazy, memo, Suspense, useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { FastenerCaution, Notice } from "@/components/ui/notice";
-import { jobLock, jobLockReason } from "@/lib/domain";
+import { findLimit, jobLock, jobLockReason } from "@/lib/domain";
 import { Button } from "@/components/ui/button";
 import { chosenGauge, useBenchEntry } from "@/hooks/use-bench-entry";
 import { useGaugeKeys } from "@/hooks/use-gauge-keys";
@@ -177,6 +177,7 @@ export const JobScreen = memo(function JobScreen({
             index={inSection.indexOf(view) + 1}
             of={inSection.length}
             shape={pack.shape}
+            commonPractice={!!findLimit(pack.spec, station.characteristic, station.id)?.commonPractice}
           />
           {station.torque && <LubricantPicker value={prefs.lubricant} onPick={pickLubricant} />}
           {station.section === "bolt" && <FastenerCaution />}

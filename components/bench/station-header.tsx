@@ -1,7 +1,7 @@
 "use client";
 
 import { memo } from "react";
-import { parseStationId, type EngineShape } from "@/lib/domain";
+import { COMMON_PRACTICE_WORDS, parseStationId, type EngineShape } from "@/lib/domain";
 import type { StationView } from "@/lib/offline/route-status";
 import { StationDiagram } from "./station-diagram";
 import { StateTag } from "./station-state";
@@ -13,12 +13,15 @@ export const StationHeader = memo(function StationHeader({
   index,
   of,
   shape,
+  commonPractice,
 }: {
   view: StationView;
   sectionLabel: string;
   index: number;
   of: number;
   shape: EngineShape;
+  /** The station's limit is a starter sheet's typical figure (the lead has not replaced it). */
+  commonPractice: boolean;
 }) {
   const p = parseStationId(view.station.id);
   return (
@@ -36,6 +39,11 @@ export const StationHeader = memo(function StationHeader({
         <StateTag state={view.state} />
       </p>
       <h2 className="text-2xl font-bold leading-tight">{view.station.label}</h2>
+      {commonPractice && (
+        <p className="rounded-tool border-l-4 border-watch bg-watch-soft p-2 text-sm" data-testid="common-practice">
+          Limit: {COMMON_PRACTICE_WORDS}
+        </p>
+      )}
       {view.revisit && (
         <p className="rounded-tool border-l-4 border-brass bg-watch-soft p-2 text-base font-semibold">
           Sent back by the lead:{" "}

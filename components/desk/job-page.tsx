@@ -5,7 +5,7 @@ import Link from "next/link";
 import type { ReactNode } from "react";
 import { JobStatusTag, STATUS_WORDS } from "@/components/job-status";
 import { Button } from "@/components/ui/button";
-import { EXPANSION_COEFFICIENTS, UNIT_SYSTEM_WORDS, type OpenJobStatus } from "@/lib/domain";
+import { COMMON_PRACTICE_WORDS, EXPANSION_COEFFICIENTS, UNIT_SYSTEM_WORDS, type OpenJobStatus } from "@/lib/domain";
 import { api } from "@/lib/client/api";
 import { Loading, LoadFailed, ServerError } from "./fields";
 import { editValuesOf } from "./job-form";
@@ -83,6 +83,11 @@ function Facts({ d }: { d: JobDetail }) {
         <span className="block text-sm text-muted">
           {d.job.limitCount} limits on the job · revision {d.job.specRevision}
         </span>
+        {d.job.commonPracticeCount > 0 && (
+          <span className="mt-1 block rounded-tool border-l-4 border-watch bg-watch-soft p-2 text-sm">
+            {d.job.commonPracticeCount} of them: {COMMON_PRACTICE_WORDS.toLowerCase()}
+          </span>
+        )}
       </Fact>
       <Fact label="Due">{d.job.dueDate ?? "No date"}</Fact>
       {d.job.notes && (

@@ -21,6 +21,7 @@ import {
 import { STATION_FORMS } from "@/lib/schemas/spec-pattern";
 import { LIMIT_FIELDS, LIMIT_TYPE_WORDS, type LimitInput } from "@/lib/schemas/spec";
 import { SpecLimitPreview } from "./spec-limit-preview";
+import { CommonPracticeMark } from "./common-practice-mark";
 
 // One limit of a spec sheet (a template's or a job's own), edited in place. The value fields
 // shown follow the limit type; a value typed for another type stays in the form until saved.
@@ -198,6 +199,9 @@ export function SpecLimitRow({
           <CheckField label="Required for release" {...register(`${p}.required`)} />
         </div>
       </div>
+      {limit?.commonPractice && (
+        <CommonPracticeMark onConfirm={() => setValue(`${p}.commonPractice`, false, { shouldDirty: true })} />
+      )}
       <div className="flex flex-wrap items-center justify-between gap-2">
         {limit ? <SpecLimitPreview limit={limit} /> : <span />}
         <span className="flex gap-1">

@@ -1,6 +1,7 @@
 import { FastenerCaution, Notice } from "@/components/ui/notice";
 import { VerdictBadge } from "@/components/ui/verdict-badge";
 import type { BuildRecord } from "@/lib/schemas/record";
+import { COMMON_PRACTICE_WORDS } from "@/lib/domain";
 
 // The customer's summary of a build record (the PDF has every figure): who, what, the release,
 // the tally by verdict, each decision on something outside its limits, the torque records.
@@ -118,6 +119,11 @@ export function RecordSummary({ record }: { record: BuildRecord }) {
           </ul>
           <FastenerCaution />
         </section>
+      )}
+      {record.commonPractice.length > 0 && (
+        <Notice tone="caution" title="Limits at typical figures">
+          {COMMON_PRACTICE_WORDS}: {record.commonPractice.join("; ")}.
+        </Notice>
       )}
       <Notice tone="caution" title="Safety">
         {record.safety.map((line) => (

@@ -142,6 +142,8 @@ export interface SpecLimit {
   required: boolean;
   gaugeKind?: GaugeKind;
   label?: string;
+  /** A starter sheet's typical figure, not yet replaced by the maker's (COMMON_PRACTICE_WORDS). */
+  commonPractice?: boolean;
 }
 
 /** A limit turned into plain numbers, in `unit` (the SpecLimit's unit). */

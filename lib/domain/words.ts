@@ -41,3 +41,9 @@ export function stationWords(id: string): string {
 export function characteristicWords(id: string): string {
   return (CHARACTERISTICS as Record<string, { label: string } | undefined>)[id]?.label ?? id.replace(/_/g, " ");
 }
+
+/**
+ * The mark on a starter sheet's limit (and a job limit copied from it) until the lead edits its
+ * figures: the spec editor, the job page, the bench and the build record all show these words.
+ */
+export const COMMON_PRACTICE_WORDS = "Common practice — replace with the engine or part maker's specification";

@@ -237,6 +237,8 @@ export type JobDetail = {
     templateId: number | null;
     templateName: string | null;
     limitCount: number;
+    /** Limits still at a starter sheet's typical figures (COMMON_PRACTICE_WORDS). */
+    commonPracticeCount: number;
     hasBuildPlan: boolean;
     finishedSizes: FinishedSizes;
     /** The build plan's bore in the job's units, when the plan gives one (the form offers it). */

@@ -115,4 +115,6 @@ export type BuildRecord = {
   release: ReleaseStamp | null;
   earlierReleases: ReleaseStamp[];
   safety: string[];
+  /** The job's limits still at a starter sheet's typical figures, in words (COMMON_PRACTICE_WORDS). */
+  commonPractice: string[];
 };

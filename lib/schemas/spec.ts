@@ -22,7 +22,9 @@
 //           "nominal": 4.03, "tolPlus": 0.0004, "tolMinus": 0.0001,
 //           "required": true,                   // must be measured before release
 //           "gaugeKind": "dial-bore-gauge",     // optional: the instrument kind expected
-//           "label": "Bore, finished size" }    // optional
+//           "label": "Bore, finished size",     // optional
+//           "commonPractice": true }            // optional: a typical figure, not the maker's (see
+//                                               // lib/schemas/common-practice.ts for when it stays)
 //       ]
 //     }
 //   }
@@ -115,6 +117,7 @@ export const limitSchema = z
     required: z.boolean({ error: "Say whether the limit is required" }),
     gaugeKind: z.enum(GAUGE_KINDS, { error: "Pick a gauge kind from the list" }).nullish(),
     label: z.string().trim().max(120, "Keep the label to 120 characters").nullish(),
+    commonPractice: z.boolean({ error: "commonPractice is true or false" }).nullish(),
   })
   .superRefine((l, ctx) => {
     const add = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });

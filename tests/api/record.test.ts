@@ -206,6 +206,7 @@ describe("GET /api/record/[jobId]/pdf", () => {
       release: null,
       earlierReleases: [],
       safety: ["Safety line"],
+      commonPractice: [],
     };
     const { text, pages } = await pdfText(await renderRecordPdf(record));
     expect(pages).toBeGreaterThan(12);

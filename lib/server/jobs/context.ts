@@ -22,6 +22,7 @@ type LimitRow = Pick<
   | "required"
   | "gaugeKind"
   | "label"
+  | "commonPractice"
 >;
 
 const isMaterial = (m: string | null | undefined): m is keyof typeof EXPANSION_COEFFICIENTS =>
@@ -42,6 +43,7 @@ export function toSpecLimit(row: LimitRow): SpecLimit {
   if (row.isoClass) out.isoClass = row.isoClass;
   if (row.gaugeKind) out.gaugeKind = row.gaugeKind;
   if (row.label) out.label = row.label;
+  if (row.commonPractice) out.commonPractice = true;
   return out as unknown as SpecLimit;
 }
 

@@ -84,6 +84,7 @@ export async function getJobDetail(shopId: number, jobId: number): Promise<JobDe
       templateId: job.templateId ?? null,
       templateName: template,
       limitCount: ctx.spec.length,
+      commonPracticeCount: ctx.spec.filter((l) => l.commonPractice).length,
       hasBuildPlan: !!job.buildPlan,
       finishedSizes: {
         bore: job.finishedBore ?? null,

@@ -3,6 +3,7 @@ import type { Transaction } from "sequelize";
 import { isJobLocked, limitEngineProblems, type Consequences } from "@/lib/domain";
 import type { JobLimitsView, LimitsPreview, LimitsSaved } from "@/lib/schemas/job";
 import { compactLimit, type JobLimitsValues, type LimitValues } from "@/lib/schemas/spec";
+import { commonPracticeMarks } from "@/lib/schemas/common-practice";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
 import { recordChange } from "@/lib/server/sync/repo";
@@ -66,7 +67,13 @@ async function applyLimits(t: Transaction, actor: Actor, jobId: number, v: JobLi
   const before = ctxBefore.spec.map((l) => compactLimit(l as LimitValues));
   const from = job.specRevision;
   const revision = from + 1;
-  await replaceJobLimitRows(t, jobId, v.limits.map(limitRow), revision);
+  const marks = commonPracticeMarks(v.limits, before);
+  await replaceJobLimitRows(
+    t,
+    jobId,
+    v.limits.map((l, i) => limitRow(l, i, marks[i])),
+    revision,
+  );
   const r = await reconcileJob(t, { shopId: actor.shopId, jobId, userId: actor.userId, cause: "limits_changed" });
   const consequences = await countConsequences(t, ctxBefore, r);
   const after = (await loadJobContext(actor.shopId, jobId, t)).spec.map((l) => compactLimit(l as LimitValues));

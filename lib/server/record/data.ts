@@ -1,5 +1,11 @@
 import "server-only";
-import { EXPANSION_COEFFICIENTS, FASTENER_CAUTION, currentReadings } from "@/lib/domain";
+import {
+  EXPANSION_COEFFICIENTS,
+  FASTENER_CAUTION,
+  characteristicWords,
+  currentReadings,
+  type SpecLimit,
+} from "@/lib/domain";
 import { env } from "@/lib/server/core/env";
 import { notFound } from "@/lib/server/core/errors";
 import { checkRelease } from "@/lib/server/release/hash-verify";
@@ -77,6 +83,13 @@ function stamp(r: ReleaseRow, record: JobRecord, names: Map<number, string>): Re
   };
 }
 
+/** Limits still at a starter sheet's typical figures, each as its characteristic and stations. */
+function commonPracticeLines(spec: SpecLimit[]): string[] {
+  return spec
+    .filter((l) => l.commonPractice)
+    .map((l) => characteristicWords(l.characteristic) + (l.stationPattern === "*" ? "" : ` (${l.stationPattern})`));
+}
+
 /** The release to print: the one asked for, else the standing one, else the latest (void). */
 function pickRelease(releases: ReleaseRow[], releaseId?: number): ReleaseRow | null {
   if (releaseId !== undefined) {
@@ -135,5 +148,6 @@ export async function loadBuildRecord(
     release: chosen ? stamp(chosen, record, names) : null,
     earlierReleases: earlier.map((r) => stamp(r, record, names)),
     safety: SAFETY_NOTICE,
+    commonPractice: commonPracticeLines(record.spec),
   };
 }

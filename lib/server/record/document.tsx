@@ -1,6 +1,6 @@
 import "server-only";
 import { Document, Page, Text, View } from "@react-pdf/renderer";
-import { verdictInText } from "@/lib/domain";
+import { COMMON_PRACTICE_WORDS, verdictInText } from "@/lib/domain";
 import { plural } from "@/lib/server/record/format";
 import { Heading, KeyValues, VerdictShape } from "@/lib/server/record/pdf-parts";
 import {
@@ -134,6 +134,14 @@ function Cover({ record }: { record: BuildRecord }) {
       <View style={{ marginTop: 6 }}>
         <Tally record={record} />
       </View>
+      {record.commonPractice.length > 0 && (
+        <View style={s.caution} wrap={false}>
+          <Text style={s.bold}>LIMITS AT TYPICAL FIGURES</Text>
+          <Text style={{ marginTop: 2 }}>
+            {COMMON_PRACTICE_WORDS}: {record.commonPractice.join("; ")}.
+          </Text>
+        </View>
+      )}
       <View style={s.caution} wrap={false}>
         <Text style={s.bold}>SAFETY NOTICE</Text>
         {record.safety.map((line) => (

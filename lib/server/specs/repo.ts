@@ -15,6 +15,7 @@ import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 import { toSpecLimit } from "@/lib/server/jobs/context";
+import { commonPracticeMarks } from "@/lib/schemas/common-practice";
 
 // The shop's spec sheet templates: the feature's one door to the database, plain objects out.
 // A template edit never reaches a job: jobs keep the snapshot they took when they were created
@@ -29,7 +30,7 @@ export function limitValuesOf(row: SpecLimit | JobLimit): LimitValues {
  * The columns of one limit row from schema values. Only the fields of the limit's own type are
  * kept (a figure left over from another type would read as part of the limit); the rest are NULL.
  */
-export function limitRow(l: LimitValues, sortOrder: number) {
+export function limitRow(l: LimitValues, sortOrder: number, commonPractice: boolean) {
   const used = new Set<string>(LIMIT_FIELDS[l.limitType]);
   const pick = <K extends LimitValueField>(k: K) => (used.has(k) ? (l[k] ?? null) : null);
   const iso = pick("isoClass");
@@ -50,6 +51,7 @@ export function limitRow(l: LimitValues, sortOrder: number) {
     gaugeKind: l.gaugeKind ?? null,
     label: l.label?.trim() || null,
     sortOrder,
+    commonPractice,
   };
 }
 
@@ -129,11 +131,13 @@ const headerOf = (v: TemplateValues) => ({
   notes: v.notes?.trim() || null,
 });
 
-async function writeLimits(t: Transaction, templateId: number, limits: LimitValues[]) {
+/** Replaces a sheet's limits; `previous` (null for a new sheet) decides which keep their mark. */
+async function writeLimits(t: Transaction, templateId: number, limits: LimitValues[], previous: LimitValues[] | null) {
   const { SpecLimit } = models();
+  const marks = commonPracticeMarks(limits, previous);
   await SpecLimit.destroy({ where: { templateId }, transaction: t });
   await SpecLimit.bulkCreate(
-    limits.map((l, i) => ({ ...limitRow(l, i), templateId })),
+    limits.map((l, i) => ({ ...limitRow(l, i, marks[i]), templateId })),
     { transaction: t },
   );
 }
@@ -145,7 +149,7 @@ export async function createTemplate(
 ): Promise<TemplateRecord> {
   return getSequelize().transaction(async (t) => {
     const row = await models().SpecTemplate.create({ shopId: actor.shopId, ...headerOf(v) }, { transaction: t });
-    await writeLimits(t, row.id, v.limits);
+    await writeLimits(t, row.id, v.limits, null);
     const after = await recordOf(row, t);
     await recordAudit(t, {
       shopId: actor.shopId,
@@ -164,7 +168,7 @@ export async function updateTemplate(actor: Actor, id: number, v: TemplateValues
     const row = await findOrThrow(actor.shopId, id, t);
     const before = await recordOf(row, t);
     await row.update({ ...headerOf(v), version: row.version + 1 }, { transaction: t });
-    await writeLimits(t, row.id, v.limits);
+    await writeLimits(t, row.id, v.limits, before.limits);
     const after = await recordOf(row, t);
     await recordAudit(t, {
       shopId: actor.shopId,
