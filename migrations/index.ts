@@ -18,9 +18,9 @@ import * as addJobsContextRevision from "./20261202000200-add-jobs-context-revis
 import * as addJobsFinishedSizes from "./20261203010000-add-jobs-finished-sizes";
 import * as addInstrumentsRange from "./20261203030000-add-instruments-range";
 import * as createUserSessions from "./20261203050000-create-user-sessions";
-import * as createLinkTokens from "./20261203150000-create-link-tokens";
 import * as addLimitsCommonPractice from "./20261203140000-add-limits-common-practice";
 import * as addShopsActivatedAt from "./20261203140010-add-shops-activated-at";
+import * as createLinkTokens from "./20261203150000-create-link-tokens";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -47,9 +47,9 @@ export const migrations: Migration[] = [
   step("20261203010000-add-jobs-finished-sizes", addJobsFinishedSizes),
   step("20261203030000-add-instruments-range", addInstrumentsRange),
   step("20261203050000-create-user-sessions", createUserSessions),
-  step("20261203150000-create-link-tokens", createLinkTokens),
   step("20261203140000-add-limits-common-practice", addLimitsCommonPractice),
   step("20261203140010-add-shops-activated-at", addShopsActivatedAt),
+  step("20261203150000-create-link-tokens", createLinkTokens),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */
