@@ -13,6 +13,7 @@ import { build } from "esbuild";
 import { cpus, loadavg } from "node:os";
 import type { Browser, Page } from "playwright-core";
 import { launch, percentile, signIn, startApp } from "./bench-app";
+import { demoV8Figure } from "../seed/demo-figures";
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const ENTRIES = Number(process.env.TW_BENCH_ENTRIES ?? 45);
@@ -43,38 +44,13 @@ document.getElementById("in").addEventListener("keydown", (e) => {
   db.table("rows").add({ id: n + "-" + Math.random(), v, at: Date.now() }).then(() => performance.mark("tw:reading-committed"));
 });`;
 
-// In-spec figures for the demo V8's street spec (scripts/seed/demo-specs.ts), by station, so
-// every entry takes the usual path (verdict, then the next station) whatever the seed left open.
-const V8_FIGURES: [RegExp, string][] = [
-  [/^bore\//, "4.0302"],
-  [/^deck\//, "9.0250"],
-  [/^main-brg\//, "2.4515"],
-  [/^main\//, "2.4490"],
-  [/^rod\//, "2.0990"],
-  [/^rod-brg\//, "2.1012"],
-  [/^skirt\//, "4.0285"],
-  [/\/free$/, "2.0000"],
-  [/\/loaded$/, "2.0058"],
-  [/\/top$/, "0.0180"],
-  [/\/second$/, "0.0200"],
-  [/\/(third|oil)$/, "0.0300"],
-  [/^end-play$/, "0.0040"],
-  [/^side\//, "0.0150"],
-  [/^lash\/.*\/int/, "0.0180"],
-  [/^lash\/.*\/exh/, "0.0200"],
-  [/^torque\/main-caps$/, "72"],
-  [/^torque\/head-bolts$/, "67"],
-  [/^torque\/rod-bolts$/, "47"],
-  [/^torque\//, "62"],
-];
-
 async function valueFor(page: Page): Promise<string> {
   const station = (await page.getByTestId("where").getAttribute("data-station")) ?? "";
   if (station.startsWith("torque/")) {
     await page.getByRole("button", { name: "Engine oil" }).click(); // torque needs its lubricant
     await page.getByTestId("entry").focus();
   }
-  return V8_FIGURES.find(([re]) => re.test(station))?.[1] ?? "4.0302";
+  return demoV8Figure(station);
 }
 
 type Sample = { painted: number; committed: number };

@@ -8,6 +8,7 @@
 import type { BrowserContext, Page } from "playwright-core";
 import { afterAll, describe, expect, it } from "vitest";
 import { BASE_URL, demo, launchBrowser, screenshot, signIn } from "../support/browser";
+import { demoV8Figure } from "../../scripts/seed/demo-figures";
 
 const ROSA = "rosa@kestrelflats.example";
 let context: BrowserContext | undefined;
@@ -41,32 +42,6 @@ async function gaugeSends(page: Page, text: string, reading = true) {
   else await expect.poll(() => page.getByTestId("entry").inputValue()).toBe("");
 }
 
-// Figures a gauge would send at each station of the demo V8 (invented demo data, as in
-// scripts/bench/entry.ts), so every figure passes the plausibility check wherever the route is.
-const FIGURES: [RegExp, string][] = [
-  [/^bore\//, "4.0302"],
-  [/^deck\//, "9.0251"],
-  [/^main-brg\//, "2.4515"],
-  [/^main\//, "2.4490"],
-  [/^rod\//, "2.0990"],
-  [/^rod-brg\//, "2.1012"],
-  [/^skirt\//, "4.0285"],
-  [/\/free$/, "2.0000"],
-  [/\/loaded$/, "2.0058"],
-  [/\/top$/, "0.0180"],
-  [/\/second$/, "0.0200"],
-  [/\/(third|oil)$/, "0.0300"],
-  [/^end-play$/, "0.0040"],
-  [/^side\//, "0.0150"],
-  [/^lash\/.*\/int/, "0.0180"],
-  [/^lash\/.*\/exh/, "0.0200"],
-  [/^torque\/main-caps$/, "72"],
-  [/^torque\/head-bolts$/, "67"],
-  [/^torque\/rod-bolts$/, "47"],
-  [/^torque\//, "62"],
-];
-const figureFor = (stationId: string) => FIGURES.find(([re]) => re.test(stationId))![1];
-
 type ServerReading = { stationId: string; value: number | null; takenBy: number };
 async function serverReadings(page: Page, jobId: string): Promise<ServerReading[]> {
   return page.evaluate(async (id) => (await (await fetch(`/api/bench/jobs/${id}`)).json()).readings, jobId);
@@ -97,7 +72,7 @@ describe("gauge keystrokes after every tap on the bench", () => {
     const typed: string[] = [];
     /** The gauge sends the usual figure for the station on screen; a dial reading is given as such. */
     const send = async (dialReading?: string) => {
-      const text = dialReading ?? figureFor((await station(page))!);
+      const text = dialReading ?? demoV8Figure((await station(page))!);
       typed.push(text);
       await gaugeSends(page, text);
     };
