@@ -88,3 +88,23 @@ export async function applyPushResults(
 export async function waitingForOthers(db: BenchDb, userId: number): Promise<number> {
   return db.outbox.filter((r) => r.takenBy !== userId).count();
 }
+
+/**
+ * Readings the server will never take as sent: kept on the tablet, marked refused with the server's
+ * words (the bench shows them and offers the fix), and out of the outbox until fixed and resent.
+ */
+export async function markRefused(
+  db: BenchDb,
+  refused: { id: string; rejection: NonNullable<LocalReading["rejection"]> }[],
+  now = new Date(),
+): Promise<void> {
+  const at = now.toISOString();
+  await db.transaction("rw", db.readings, db.outbox, async () => {
+    for (const { id, rejection } of refused) {
+      const local = await db.readings.get(id);
+      if (!local) continue;
+      await db.readings.put({ ...local, state: "rejected", rejection, updatedAt: at });
+      await db.outbox.delete(id);
+    }
+  });
+}

@@ -1,14 +1,17 @@
 // The client sync engine: pushes the outbox, pulls what changed, uploads photos.
 // Triggers: an entry (debounced), the `online` event, app start, a timer, the machinist's tap.
-// One run at a time; a trigger during a run asks for one more run after it. Network errors and
-// 5xx back off exponentially with jitter; an error that needs a person (signed out) is shown in
-// words and retried only on the next trigger. Entry never waits for any of this.
+// One run at a time; a trigger during a run asks for one more run after it. Network errors, 5xx
+// and 429 back off exponentially with jitter (never sooner than the server's Retry-After); an error
+// that needs a person (signed out) is shown in words and retried only on the next trigger. A batch
+// the server will never take (refusal.ts) is never resent as it was: the readings it names are
+// marked refused and the others go at once. Entry never waits for any of this.
 import type { BenchDb } from "./db";
 import { backoffDelay, DEFAULT_BACKOFF, type BackoffRule } from "./backoff";
 import { ensureDeviceId, getMeta, getSyncStatus, patchSyncStatus, type DeviceActor } from "./meta";
-import { applyPushResults, BATCH_SIZE, nextBatch } from "./outbox";
+import { applyPushResults, BATCH_SIZE, markRefused, nextBatch } from "./outbox";
 import { applyFeed, heldJobIds } from "./packs";
 import { uploadPhotos } from "./photos";
+import { errorsByReading, rejectionOf } from "./refusal";
 import { ActionError, pullFeed, pushBatch, TransientError, type Fetch } from "./transport";
 
 export type SyncReason = "entry" | "online" | "start" | "timer" | "manual";
@@ -136,7 +139,9 @@ export class SyncEngine {
       return;
     }
     const failures = (await getSyncStatus(this.db)).failures + 1;
-    const delay = backoffDelay(failures, this.opts.backoff, this.opts.random);
+    // The server's Retry-After (a database restart, a throttle) is a floor under our own backoff.
+    const serverWait = err instanceof TransientError ? (err.retryAfterMs ?? 0) : 0;
+    const delay = Math.max(serverWait, backoffDelay(failures, this.opts.backoff, this.opts.random));
     const message =
       err instanceof TransientError ? err.message : `Sync stopped: ${err instanceof Error ? err.message : String(err)}`;
     await patchSyncStatus(this.db, {
@@ -154,14 +159,35 @@ export class SyncEngine {
   private async pushAll(userId: number): Promise<void> {
     const deviceId = await ensureDeviceId(this.db);
     let size = this.opts.batchSize;
+    // Readings still to send one at a time after a refusal that named none of them.
+    let singles = 0;
     const refusedNow = new Set<string>();
     for (;;) {
-      const batch = await nextBatch(this.db, userId, size, refusedNow);
+      const batch = await nextBatch(this.db, userId, singles > 0 ? 1 : size, refusedNow);
       if (batch.readings.length === 0) return;
+      if (singles > 0) singles--;
       const answer = await pushBatch(this.fetchFn, this.base, deviceId, batch.payload, userId);
-      if (answer.kind === "too_large") {
-        if (size === 1) throw new ActionError(413, "A single reading is too large for the server");
-        size = Math.max(1, Math.floor(size / 2));
+      if (answer.kind === "too_large" && batch.readings.length > 1) {
+        size = Math.max(1, Math.floor(batch.readings.length / 2));
+        continue;
+      }
+      if (answer.kind !== "results") {
+        const refusal =
+          answer.kind === "too_large"
+            ? { code: "payload_too_large", message: "This reading is too large for the server", fields: {} }
+            : answer;
+        const pinned = errorsByReading(refusal.fields, batch.readings.length);
+        if (pinned.size === 0 && batch.readings.length > 1) {
+          singles = batch.readings.length;
+          continue;
+        }
+        const refused = batch.readings.flatMap((r, i) =>
+          pinned.size === 0 || pinned.has(i)
+            ? [{ id: r.id, rejection: rejectionOf(refusal.code, refusal.message, pinned.get(i)) }]
+            : [],
+        );
+        await markRefused(this.db, refused, this.opts.now());
+        refused.forEach((r) => refusedNow.add(r.id));
         continue;
       }
       const outcome = await applyPushResults(this.db, batch.readings, answer.results, this.opts.now());

@@ -2,14 +2,19 @@
 // the one sync run forever) and every answer is sorted into what the engine does next.
 import type { PushErrorReply, PushReply, PushResult, SyncFeed } from "@/lib/schemas/sync";
 import { TAKEN_BY_HEADER } from "@/lib/schemas/sync-headers";
+import type { FieldErrors } from "@/lib/schemas/errors";
 
 export type Fetch = typeof fetch;
 
-/** Worth retrying later, with backoff: no network, a timeout (the server not reached), or a 5xx. */
+/**
+ * Worth retrying later, with backoff: no network, a timeout (the server not reached), a 5xx (503 while
+ * the server cannot reach its database), or 429. `retryAfterMs` is the server's own Retry-After.
+ */
 export class TransientError extends Error {
   constructor(
     message: string,
     readonly reach: "unreachable" | "server_error",
+    readonly retryAfterMs?: number,
   ) {
     super(message);
   }
@@ -42,9 +47,24 @@ async function body(res: Response): Promise<Record<string, unknown> | null> {
   return (await res.json().catch(() => null)) as Record<string, unknown> | null;
 }
 
+/** Retry-After in seconds (the only form the server sends), as ms; undefined when absent or odd. */
+export function retryAfterMs(res: Response): number | undefined {
+  const s = Number(res.headers.get("Retry-After"));
+  return Number.isFinite(s) && s > 0 ? Math.min(s, 3600) * 1000 : undefined;
+}
+
 function refuse(res: Response, json: Record<string, unknown> | null, what: string): never {
+  const wait = retryAfterMs(res);
+  if (res.status === 503)
+    throw new TransientError(
+      "The server cannot reach its database just now; trying again shortly",
+      "server_error",
+      wait,
+    );
+  if (res.status === 429)
+    throw new TransientError("The server asks the tablet to wait; trying again shortly", "server_error", wait);
   if (res.status >= 500)
-    throw new TransientError(`The server had a problem (${res.status}); trying again shortly`, "server_error");
+    throw new TransientError(`The server had a problem (${res.status}); trying again shortly`, "server_error", wait);
   if (res.status === 401) throw new ActionError(401, "Signed out: sign in again so the tablet can send its readings");
   if (res.status === 403)
     throw new ActionError(403, "This account cannot send bench readings; sign in as a machinist or lead");
@@ -52,7 +72,17 @@ function refuse(res: Response, json: Record<string, unknown> | null, what: strin
   throw new ActionError(res.status, `${what}: ${err?.message ?? `the server answered ${res.status}`}`);
 }
 
-export type PushAnswer = { kind: "results"; results: PushResult[] } | { kind: "too_large" };
+/**
+ * What a push came back with: per-reading results; "too large" (split and send again); or a refusal
+ * of the batch as a whole that sending it again unchanged will never turn (400, 413 of one reading,
+ * 415, 422 without per-reading results), with the server's words and field errors.
+ */
+export type PushAnswer =
+  | { kind: "results"; results: PushResult[] }
+  | { kind: "too_large" }
+  | { kind: "refused"; status: number; code: string; message: string; fields: FieldErrors };
+
+const PERMANENT = new Set([400, 413, 415, 422]);
 
 /** Sends readings taken by `takenBy`; the server refuses them under anyone else's session. */
 export async function pushBatch(
@@ -72,6 +102,16 @@ export async function pushBatch(
   if (res.status === 413) return { kind: "too_large" };
   const results = (json as PushErrorReply | null)?.results;
   if ((res.status === 422 || res.status === 409) && Array.isArray(results)) return { kind: "results", results };
+  if (PERMANENT.has(res.status)) {
+    const err = (json?.error ?? {}) as { code?: string; message?: string; fields?: FieldErrors };
+    return {
+      kind: "refused",
+      status: res.status,
+      code: err.code ?? String(res.status),
+      message: err.message ?? `The server refused the readings (${res.status})`,
+      fields: err.fields ?? {},
+    };
+  }
   refuse(res, json, "Sending readings failed");
 }
 

@@ -131,12 +131,12 @@ describe("sync engine", () => {
     const db = await freshDb();
     const server = new FakeServer();
     await enter(db, BORES.slice(0, 1));
-    server.status = 503;
+    server.status = 502;
     const engine = engineFor(db, server, { backoff: { baseMs: 60_000, maxMs: 600_000 } });
     await engine.sync("manual");
     expect(await getSyncStatus(db)).toMatchObject({
       failures: 1,
-      lastError: "The server had a problem (503); trying again shortly",
+      lastError: "The server had a problem (502); trying again shortly",
     });
     await engine.sync("entry");
     await engine.sync("timer");
