@@ -5,6 +5,9 @@ export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
   const { isBuildPhase } = await import("@/lib/server/core/env");
   if (isBuildPhase()) return;
+  // Each request's socket address, for the client address behind TRUSTED_PROXIES.
+  const { installPeerStamp } = await import("@/lib/server/core/peer-address");
+  installPeerStamp();
   const { startNotifier } = await import("@/lib/server/notify/notifier");
   try {
     if (startNotifier()) console.log("[tenthwise] mail notifier started");

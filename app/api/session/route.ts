@@ -1,13 +1,10 @@
+import { clientAddress } from "@/lib/server/core/client-address";
 import { ROLE_HOME } from "@/lib/server/core/access";
 import { open, readJson } from "@/lib/server/core/route";
 import { sessionCookieHeader, sessionFromRequest } from "@/lib/server/core/session";
 import { closeSession, openSession } from "@/lib/server/sessions/lifecycle";
 import { signIn } from "@/lib/server/users/sign-in";
 import { signInSchema, signOutSchema } from "@/lib/schemas/session";
-
-function clientAddress(req: Request): string {
-  return req.headers.get("x-forwarded-for")?.split(",")[0]?.trim() || req.headers.get("x-real-ip") || "local";
-}
 
 /**
  * Sign in: sets the sealed session cookie and says where this role's home is. A session this browser

@@ -1,8 +1,23 @@
 import "server-only";
 import { z } from "zod";
+import { parseProxyList, type ProxyList } from "@/lib/server/core/ip";
 
 // The one place that reads process.env. Everything else imports `env`.
 const optionalNumber = z.coerce.number().int().positive().optional();
+
+// Proxies whose X-Forwarded-For is believed (lib/server/core/client-address.ts); empty: none.
+const trustedProxies = z
+  .string()
+  .default("")
+  .transform((text, ctx): ProxyList => {
+    const parsed = parseProxyList(text);
+    if ("list" in parsed) return parsed;
+    ctx.addIssue({
+      code: "custom",
+      message: `"${parsed.bad}" is not an IP address or network; list addresses or CIDR networks, comma-separated`,
+    });
+    return z.NEVER;
+  });
 
 const schema = z
   .object({
@@ -18,6 +33,7 @@ const schema = z
     DB_USER: z.string().optional(),
     DB_PASSWORD: z.string().optional(),
     DB_POOL_MAX: z.coerce.number().int().positive().default(10),
+    TRUSTED_PROXIES: trustedProxies,
     SESSION_SECRET: z.string().min(32, "SESSION_SECRET must be at least 32 characters"),
     SESSION_TTL_HOURS: z.coerce.number().positive().default(12),
     LINK_SECRET: z.string().min(32, "LINK_SECRET must be at least 32 characters").optional(),
