@@ -3,36 +3,24 @@ import bcrypt from "bcryptjs";
 import type { SignInput } from "@/lib/schemas/release";
 import type { Actor } from "@/lib/schemas/session";
 import { AppError } from "@/lib/server/core/errors";
-import { clearThrottle, countFailure, findSigner, throttledUntil } from "@/lib/server/users/repo";
+import { clearLimits, countOne, limit, refuseWhileLocked } from "@/lib/server/throttle/throttle";
+import { findSigner } from "@/lib/server/users/repo";
 
 // The e-signature's check: the signer types their full name and their password again. Wrong
 // passwords are counted per signer (kept in auth_throttle like sign-in's, so every app instance
 // sees the same count); five in a quarter of an hour lock signing for a quarter of an hour.
-const POLICY = { windowMinutes: 15, lockAfter: 5, lockMinutes: 15 };
+const RULE = { windowMinutes: 15, limit: 5, lockMinutes: 15 };
 
 /** Names compared ignoring case and runs of spaces: "hanne  VOSS" signs for "Hanne Voss". */
 const normalName = (s: string) => s.trim().replace(/\s+/g, " ").toLocaleLowerCase("en");
 
-/** 429 while this key is locked out after repeated wrong passwords. */
-async function refuseIfThrottled(key: string): Promise<void> {
-  const until = (await throttledUntil([key]))?.getTime() ?? 0;
-  if (until > Date.now()) {
-    const minutes = Math.max(1, Math.ceil((until - Date.now()) / 60_000));
-    throw new AppError(
-      "too_many_attempts",
-      `Too many wrong passwords. Try again in ${minutes} min, or sign out and in again.`,
-      undefined,
-      {
-        "Retry-After": String(minutes * 60),
-      },
-    );
-  }
-}
+const waitWords = (minutes: number) =>
+  `Too many wrong passwords. Try again in ${minutes} min, or sign out and in again.`;
 
 /** The name as signed (spaces tidied), once the typed name and the password are the account's. */
 export async function checkSigner(actor: Actor, input: SignInput): Promise<string> {
-  const key = `release-sign:${actor.userId}`;
-  await refuseIfThrottled(key);
+  const signing = limit(`release-sign:${actor.userId}`, RULE);
+  await refuseWhileLocked([signing], waitWords);
   const account = await findSigner(actor.userId, actor.shopId);
   if (!account) throw new AppError("unauthorized", "Sign in first");
   if (normalName(input.fullName) !== normalName(account.name)) {
@@ -41,11 +29,11 @@ export async function checkSigner(actor: Actor, input: SignInput): Promise<strin
     });
   }
   if (!(await bcrypt.compare(input.password, account.passwordHash))) {
-    await countFailure([key], POLICY);
+    await countOne([signing]);
     throw new AppError("forbidden", "That password is not right, so nothing was signed", {
       password: ["Enter the password you sign in with"],
     });
   }
-  await clearThrottle([key]);
+  await clearLimits([signing.key]);
   return input.fullName.trim().replace(/\s+/g, " ");
 }

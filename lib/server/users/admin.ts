@@ -8,8 +8,8 @@ import { recordAudit } from "@/lib/server/log/repo";
 import { endUserSessionRows } from "@/lib/server/sessions/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
+import { liftSignInLocks } from "@/lib/server/users/sign-in";
 import {
-  clearThrottle,
   createAccount,
   findAccountByEmail,
   listAccounts,
@@ -167,7 +167,7 @@ export async function resetPassword(actor: Actor, userId: number) {
         `${user.name}'s account is deactivated; reactivate it before resetting the password`,
       );
     await setPassword(t, user.id, passwordHash);
-    await clearThrottle([`email:${user.email.toLowerCase()}`], t);
+    await liftSignInLocks(user.email, t);
     // Whoever knew the old password may be signed in with it: their sessions end (an admin resetting
     // their own keeps the one they are using).
     const keep = user.id === actor.userId ? actor.sessionId : undefined;

@@ -5,8 +5,7 @@ import { models } from "@/lib/server/core/db";
 import type { Role } from "@/lib/schemas/enums";
 import type { ShopContact, ShopRecord } from "@/lib/schemas/user";
 
-// Accounts, the shop itself, and the wrong-password throttle (auth_throttle rows, so every app
-// instance sees the same count), as plain objects.
+// Accounts and the shop itself, as plain objects (the sign-in throttle's counters: lib/server/throttle).
 
 export type UserRecord = { id: number; shopId: number; name: string; email: string; role: Role; active: boolean };
 /** An account as the admin's pages show it. */
@@ -135,43 +134,4 @@ export async function findShopContact(id: number): Promise<ShopContact | null> {
   const { Shop } = models();
   const shop = await Shop.findByPk(id);
   return shop ? { name: shop.name, email: shop.email ?? null, phone: shop.phone ?? null } : null;
-}
-
-/** How many failures within how long lock a key, and for how long. */
-export type ThrottlePolicy = { windowMinutes: number; lockAfter: number; lockMinutes: number };
-
-/** The latest time any of these keys is locked until, while that is still ahead; else null. */
-export async function throttledUntil(keys: string[]): Promise<Date | null> {
-  const { AuthThrottle } = models();
-  const rows = await AuthThrottle.findAll({ where: { throttleKey: keys } });
-  const now = Date.now();
-  const locks = rows.map((r) => r.lockedUntil?.getTime() ?? 0).filter((t) => t > now);
-  return locks.length ? new Date(Math.max(...locks)) : null;
-}
-
-/**
- * Counts one failure on each key (outside any transaction, so a rollback cannot undo the count),
- * starting over when the key's window has passed; returns the highest count.
- */
-export async function countFailure(keys: string[], policy: ThrottlePolicy): Promise<number> {
-  const { AuthThrottle } = models();
-  let worst = 0;
-  const now = new Date();
-  for (const key of keys) {
-    const [row] = await AuthThrottle.findOrCreate({
-      where: { throttleKey: key },
-      defaults: { throttleKey: key, failures: 0, windowStartedAt: now, lockedUntil: null },
-    });
-    const fresh = now.getTime() - row.windowStartedAt.getTime() > policy.windowMinutes * 60_000;
-    const failures = fresh ? 1 : row.failures + 1;
-    const lock = failures >= policy.lockAfter ? new Date(now.getTime() + policy.lockMinutes * 60_000) : row.lockedUntil;
-    await row.update({ failures, windowStartedAt: fresh ? now : row.windowStartedAt, lockedUntil: lock });
-    worst = Math.max(worst, failures);
-  }
-  return worst;
-}
-
-export async function clearThrottle(keys: string[], t?: Transaction): Promise<void> {
-  const { AuthThrottle } = models();
-  await AuthThrottle.destroy({ where: { throttleKey: keys }, transaction: t });
 }

@@ -1,55 +1,48 @@
 import "server-only";
 import bcrypt from "bcryptjs";
+import type { Transaction } from "sequelize";
 import { AppError } from "@/lib/server/core/errors";
-import {
-  clearThrottle,
-  countFailure,
-  findSignInCandidates,
-  markSignedIn,
-  throttledUntil,
-  type UserRecord,
-} from "@/lib/server/users/repo";
+import { clearLimits, clearLimitsStartingWith, countOne, tooManyAttempts } from "@/lib/server/throttle/throttle";
+import { findSignInCandidates, markSignedIn, type UserRecord } from "@/lib/server/users/repo";
+import { accountKeys, named, readSignInCounts, shutOutUntil, signInLimits } from "@/lib/server/users/sign-in-limits";
 
-// Wrong password and unknown user get the same words. Failures are counted per e-mail and per
-// address: after SLOW_AFTER the reply is delayed; after POLICY.lockAfter within the window the
-// key is locked for POLICY.lockMinutes.
+// Wrong password and unknown user get the same words, the same work (a bcrypt compare) and the same
+// counting, so no answer tells whether an e-mail has an account. The limits: sign-in-limits.ts.
 export const SIGN_IN_REFUSED = "That e-mail and password do not match an active account";
-const SLOW_AFTER = 3;
-const POLICY = { windowMinutes: 15, lockAfter: 8, lockMinutes: 15 };
 // A real hash of a random string, compared when no user matches so timing does not reveal it.
 const DUMMY_HASH = "$2b$10$bvKUzmgPTBI2tlqKXg4njuJXa2RrBAtLFCawRkjpRVxnDL7r4TmvW";
 
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+const waitWords = (minutes: number) =>
+  `Too many failed sign-ins from here. Try again in ${minutes} min, or ask your shop admin to reset your password.`;
 
-export async function signIn(email: string, password: string, address: string): Promise<UserRecord> {
-  const keys = [`email:${email.toLowerCase()}`, `ip:${address}`];
-  const until = await throttledUntil(keys);
-  if (until) {
-    const minutes = Math.max(1, Math.ceil((until.getTime() - Date.now()) / 60_000));
-    throw new AppError(
-      "too_many_attempts",
-      `Too many failed sign-ins. Try again in ${minutes} min or ask your shop admin.`,
-      undefined,
-      {
-        "Retry-After": String(minutes * 60),
-      },
-    );
-  }
+async function matching(email: string, password: string): Promise<UserRecord | null> {
   const candidates = await findSignInCandidates(email);
-  let match: UserRecord | null = null;
-  for (const c of candidates) {
-    if (await bcrypt.compare(password, c.passwordHash)) {
-      match = c;
-      break;
-    }
-  }
   if (!candidates.length) await bcrypt.compare(password, DUMMY_HASH);
+  for (const c of candidates) if (await bcrypt.compare(password, c.passwordHash)) return c;
+  return null;
+}
+
+/** Signs in from `address` (clientAddress of the request), or refuses with 401 or 429. */
+export async function signIn(email: string, password: string, address: string): Promise<UserRecord> {
+  const limits = signInLimits(email, address);
+  const before = shutOutUntil(await readSignInCounts(email, address));
+  if (before) throw tooManyAttempts(before, waitWords);
+  const match = await matching(email, password);
   if (!match) {
-    const failures = await countFailure(keys, POLICY);
-    if (failures > SLOW_AFTER) await sleep(Math.min(4000, (failures - SLOW_AFTER) * 500));
+    const after = named(await countOne(limits));
+    if (after.address.lockedUntil) throw tooManyAttempts(after.address.lockedUntil, waitWords);
     throw new AppError("unauthorized", SIGN_IN_REFUSED);
   }
-  await clearThrottle([keys[0]]);
+  // This address's own mistakes on this e-mail are forgiven; the e-mail's count from everywhere and
+  // the address's count over all e-mails stay, so signing in to one's own account resets no attack.
+  await clearLimits([limits[0].key]);
   await markSignedIn(match.id);
   return match;
+}
+
+/** A new password lifts every sign-in lock on the e-mail, so its owner gets in from anywhere. */
+export async function liftSignInLocks(email: string, t?: Transaction): Promise<void> {
+  const keys = accountKeys(email);
+  await clearLimits([keys.account], t);
+  await clearLimitsStartingWith(keys.pairPrefix, t);
 }
