@@ -40,6 +40,7 @@ export default tseslint.config(
       ".next/**",
       ".next-*/**",
       ".data/**",
+      "backups/**",
       "public/sw.js",
       "public/swe-worker-*.js",
       "next-env.d.ts",

@@ -67,6 +67,8 @@ const schema = z
     MAIL_RETRY_BASE_SECONDS: z.coerce.number().positive().default(60),
     MAIL_MAX_ATTEMPTS: z.coerce.number().int().positive().default(8),
     LINK_TTL_DAYS: z.coerce.number().positive().default(30),
+    // Where `npm run backup` puts its dated folders (relative to the working directory, or absolute).
+    BACKUP_DIR: z.string().min(1).default("backups"),
     // The build folder this server runs from (next.config.mjs distDir); /sw.js serves the
     // service worker built with that very build, so its precache list matches what is served.
     TW_DIST_DIR: z.string().min(1).default(".next"),

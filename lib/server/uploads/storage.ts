@@ -6,7 +6,8 @@ import { env } from "@/lib/server/core/env";
 // always made by us (`<shopId>/<uuid>`), never taken from a request.
 const holder = globalThis as unknown as { __tenthwiseS3?: S3Client };
 
-function client(): S3Client {
+/** The one S3 client on the app's settings (backups use it for their bucket too). */
+export function s3Client(): S3Client {
   if (!holder.__tenthwiseS3) {
     const e = env();
     holder.__tenthwiseS3 = new S3Client({
@@ -22,7 +23,7 @@ function client(): S3Client {
 const bucket = () => env().S3_BUCKET;
 
 export async function putObject(key: string, body: Buffer, contentType: string): Promise<void> {
-  await client().send(
+  await s3Client().send(
     new PutObjectCommand({
       Bucket: bucket(),
       Key: key,
@@ -34,7 +35,7 @@ export async function putObject(key: string, body: Buffer, contentType: string):
 }
 
 export async function deleteObject(key: string): Promise<void> {
-  await client().send(new DeleteObjectCommand({ Bucket: bucket(), Key: key }));
+  await s3Client().send(new DeleteObjectCommand({ Bucket: bucket(), Key: key }));
 }
 
 export type StoredObject = { stream: ReadableStream; length?: number };
@@ -42,7 +43,7 @@ export type StoredObject = { stream: ReadableStream; length?: number };
 /** The object as a web stream for a Response, or null when the store does not have it. */
 export async function getObjectStream(key: string): Promise<StoredObject | null> {
   try {
-    const out = await client().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
+    const out = await s3Client().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
     if (!out.Body) return null;
     return { stream: out.Body.transformToWebStream(), length: out.ContentLength };
   } catch (err) {
@@ -54,7 +55,7 @@ export async function getObjectStream(key: string): Promise<StoredObject | null>
 /** The whole object in memory (thumbnails for the build record), or null when missing. */
 export async function getObjectBuffer(key: string): Promise<Buffer | null> {
   try {
-    const out = await client().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
+    const out = await s3Client().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
     if (!out.Body) return null;
     return Buffer.from(await out.Body.transformToByteArray());
   } catch (err) {
