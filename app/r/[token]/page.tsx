@@ -3,6 +3,7 @@ import { LinkProblem } from "@/components/record/link-problem";
 import { RecordSummary } from "@/components/record/record-summary";
 import { Wordmark } from "@/components/ui/logo";
 import { customerView } from "@/lib/server/release/customer-view";
+import { asPageError } from "@/lib/server/core/access";
 
 // The customer's view of their build record, opened from the e-mailed link: no account, no
 // navigation into the app, nothing but this one record and its PDF.
@@ -17,7 +18,10 @@ const day = (d: Date) => d.toISOString().slice(0, 10);
 
 export default async function CustomerRecordPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const view = await customerView(token);
+  // An outage reads as the calm "cannot reach its database" screen (app/error.tsx), not a crash.
+  const view = await customerView(token).catch((err: unknown) => {
+    throw asPageError(err);
+  });
   if (view.status === "invalid") return <LinkProblem kind="invalid" />;
   if (view.status === "expired") return <LinkProblem kind="expired" expiredOn={day(view.expiredAt)} shop={view.shop} />;
   const { record } = view;

@@ -14,7 +14,10 @@ export type DbFailure =
   | { kind: "outage"; errno?: number; code?: string; reason: string }
   | { kind: "constraint"; errno?: number; table?: string; column?: string; field: string; words: string };
 
-type DriverError = { errno?: number; code?: string; sqlMessage?: string; message?: string };
+type DriverError = { errno?: number; code?: string; sqlMessage?: string; message?: string; sql?: string };
+
+/** The table an INSERT or UPDATE writes, for messages that name only the column ("at row 1"). */
+const WRITTEN_TABLE = /^\s*(?:INSERT\s+(?:IGNORE\s+)?INTO|REPLACE\s+INTO|UPDATE)\s+`?(\w+)`?/i;
 
 // MariaDB server errnos (and the mariadb driver's own, 45xxx) that mean "no usable connection".
 const OUTAGE_ERRNOS = new Set([
@@ -102,9 +105,10 @@ export function columnInMessage(message: string): { table?: string; column?: str
   if (dotted) return { table: unquote(dotted[2]), column: unquote(dotted[3]) };
   const plain = /(?:for column|Column) [`'"]([^`'"]+)[`'"]/.exec(message);
   if (plain) return { column: plain[1] };
-  // CHECK failures name the constraint; a column's own check (JSON_VALID) is named after the column.
+  // CHECK failures name the constraint, and a column's own check (JSON_VALID) is named after it.
   const check = /CONSTRAINT [`'"]([^`'"]+)[`'"] failed for [`'"][^`'"]+[`'"]\.[`'"]([^`'"]+)[`'"]/.exec(message);
-  if (check) return { table: check[2], column: check[1] };
+  // MariaDB names a column's own check "<table>.<column>" (JSON columns' JSON_VALID among them).
+  if (check) return { table: check[2], column: check[1].split(".").pop() };
   const fk = /\(`[^`]+`\.`([^`]+)`, CONSTRAINT `[^`]+` FOREIGN KEY \(`([^`]+)`/.exec(message);
   if (fk) return { table: fk[1], column: fk[2] };
   return {};
@@ -126,7 +130,8 @@ export function classifyDbError(err: unknown, table?: string): DbFailure | null 
     const fkFields = (links[0] as { fields?: string[] | Record<string, unknown> }).fields;
     const column =
       where.column ?? (Array.isArray(fkFields) ? fkFields[0] : fkFields ? Object.keys(fkFields)[0] : undefined);
-    const tableName = where.table ?? (links[0] as { table?: string }).table ?? table;
+    const sql = links.find((e) => typeof e.sql === "string")?.sql ?? "";
+    const tableName = where.table ?? table ?? WRITTEN_TABLE.exec(sql)?.[1];
     return {
       kind: "constraint",
       errno: driver.errno,
