@@ -17,6 +17,7 @@ export * from "./stations";
 export * from "./bench-route";
 export * from "./derive";
 export * from "./dial-gauge";
+export * from "./stored-figures";
 export * from "./plausible-range";
 export * from "./plausible-limit";
 export * from "./plan-checks";

@@ -6,6 +6,8 @@ import {
   gaugeRefusal,
   implausibleReason,
   isDialBoreGauge,
+  READING_PRECISION,
+  storedFigureProblem,
   takesDialBoreGauge,
   type Lubricant,
   type Station,
@@ -24,7 +26,10 @@ export function parseEntry(text: string, what = "the value"): Parsed {
   const t = cleanTyped(text.trim());
   if (t === "") return { error: `Type ${what} first` };
   if (!/^[+-]?(\d+\.?\d*|\.\d+)$/.test(t)) return { error: `'${text}' is not a number; type ${what} like 4.0302` };
-  return { value: Number(t) };
+  const value = Number(t);
+  // A value, a setting size and a dial reading are all kept to the same places: the server refuses more.
+  const problem = storedFigureProblem(value, READING_PRECISION.value, what[0].toUpperCase() + what.slice(1));
+  return problem ? { error: problem } : { value };
 }
 
 /** Stations a dial bore gauge measures, where dial mode applies; one setting size per section. */

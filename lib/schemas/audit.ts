@@ -6,6 +6,7 @@
 //   attachments, limits, and any event whose before/after names the job (jobId).
 // GET /api/audit/facets   (lead, inspector) → AuditFacets: the values the filters can take.
 import { z } from "zod";
+import { storedText } from "./stored-text";
 
 const blank = (v: unknown) => (v === "" || v === null ? undefined : v);
 const id = (what: string) =>
@@ -19,7 +20,7 @@ const id = (what: string) =>
   );
 const day = (what: string) => z.preprocess(blank, z.iso.date(`${what} must be a date like 2026-12-01`).optional());
 const word = (max: number, what: string) =>
-  z.preprocess(blank, z.string().trim().max(max, `${what} is at most ${max} characters`).optional());
+  z.preprocess(blank, storedText(what).trim().max(max, `${what} is at most ${max} characters`).optional());
 
 export const auditQuerySchema = z
   .object({

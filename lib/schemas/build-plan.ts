@@ -4,6 +4,7 @@
 // ratio as a plain ratio. Every figure may be left empty while the plan is being worked out;
 // the page computes what the figures present allow.
 import { z } from "zod";
+import { storedText } from "./stored-text";
 import { planFigureProblems } from "@/lib/domain";
 import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
 
@@ -58,7 +59,7 @@ export const buildPlanSchema = z
       .nullish(),
     intakeLash: gap("intake lash"),
     exhaustLash: gap("exhaust lash"),
-    notes: z.string().max(2000, "Keep notes to 2000 characters").nullish(),
+    notes: storedText("The notes").max(2000, "Keep notes to 2000 characters").nullish(),
   })
   .superRefine((p, ctx) => {
     if (p.pistonTop !== "flat" && (p.pistonVolumeCc === null || p.pistonVolumeCc === undefined)) {

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { storedText } from "./stored-text";
 import { VERDICT_WORDS, VERDICTS, type Verdict } from "@/lib/domain";
 import { FLAG_REASONS, type Disposition, type FlagReason, type FlagState } from "@/lib/schemas/enums";
 
@@ -16,8 +17,7 @@ export const MACHINE_OPERATIONS = [
   "resize rod big end",
 ] as const;
 
-const note = z
-  .string({ error: "The note must be text" })
+const note = storedText("The note", "The note must be text")
   .trim()
   .max(1000, "Keep the note under 1000 characters")
   .optional()
@@ -29,8 +29,7 @@ export const dispositionSchema = z.discriminatedUnion(
     z.object({ kind: z.literal("measure_again"), note }),
     z.object({
       kind: z.literal("machine_again"),
-      operation: z
-        .string({ error: "Name the operation, e.g. hone, grind undersize or align-hone" })
+      operation: storedText("The operation", "Name the operation, e.g. hone, grind undersize or align-hone")
         .trim()
         .min(1, "Name the operation, e.g. hone, grind undersize or align-hone")
         .max(120, "Keep the operation under 120 characters"),
@@ -38,8 +37,7 @@ export const dispositionSchema = z.discriminatedUnion(
     }),
     z.object({
       kind: z.literal("accept"),
-      reason: z
-        .string({ error: "Write why this value is accepted as it is" })
+      reason: storedText("The reason", "Write why this value is accepted as it is")
         .trim()
         .min(1, "Write why this value is accepted as it is: an acceptance without a reason is not recorded")
         .max(2000, "Keep the reason under 2000 characters"),

@@ -7,6 +7,7 @@ import {
   quantityOfUnit,
   type MeasureUnit,
 } from "@/lib/domain";
+import { storedText } from "./stored-text";
 
 // One schema for the gauge form and the instruments routes, plus the
 // calibration status words every screen uses.
@@ -39,13 +40,11 @@ const storedRangeEnd = (what: string) => rangeEnd(what).nullable();
 /** The fields of a gauge as the admin enters them; U is the expanded uncertainty at k = 2. */
 export const instrumentFields = z.object({
   kind: z.enum(INSTRUMENT_KIND_IDS, { error: "Choose what kind of gauge this is" }),
-  label: z
-    .string({ error: "Give the gauge a name people recognise" })
+  label: storedText("The gauge's name", "Give the gauge a name people recognise")
     .trim()
     .min(1, "Give the gauge a name people recognise")
     .max(120, "Keep the name under 120 characters"),
-  serial: z
-    .string({ error: "Enter the serial number engraved on the gauge" })
+  serial: storedText("The serial", "Enter the serial number engraved on the gauge")
     .trim()
     .min(1, "Enter the serial number engraved on the gauge")
     .max(64, "Keep the serial under 64 characters"),

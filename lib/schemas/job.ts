@@ -16,6 +16,7 @@ import {
 } from "@/lib/domain";
 import { FUELS, UNIT_SYSTEMS, type Fuel, type UnitSystem } from "@/lib/schemas/enums";
 import { engineJournalFields, finishedSizesSchema, type FinishedSizes } from "./job-sizes";
+import { storedText } from "./stored-text";
 import type { LimitValues } from "./spec";
 
 /** Statuses the desk sets: the open ones; released and closed belong to the release step. */
@@ -25,7 +26,11 @@ export const MATERIALS = Object.keys(EXPANSION_COEFFICIENTS) as [
   ...(keyof typeof EXPANSION_COEFFICIENTS)[],
 ];
 
-const text = (max: number, what: string) => z.string().trim().max(max, `Keep ${what} to ${max} characters`).nullish();
+const text = (max: number, what: string) =>
+  storedText(`${what[0].toUpperCase()}${what.slice(1)}`)
+    .trim()
+    .max(max, `Keep ${what} to ${max} characters`)
+    .nullish();
 const whole = (what: string, lo: number, hi: number) =>
   z
     .number({ error: `Enter the ${what} as a whole number` })
@@ -50,9 +55,12 @@ export const customerPickSchema = z.discriminatedUnion(
     }),
     z.object({
       mode: z.literal("new"),
-      name: z.string().trim().min(1, "Enter the customer's name").max(160, "Keep the name to 160 characters"),
+      name: storedText("The customer's name")
+        .trim()
+        .min(1, "Enter the customer's name")
+        .max(160, "Keep the name to 160 characters"),
       email: z
-        .union([z.literal(""), z.string().trim().email("Enter an e-mail like name@example.com").max(255)])
+        .union([z.literal(""), storedText("The e-mail").trim().email("Enter an e-mail like name@example.com").max(255)])
         .nullish(),
       phone: text(40, "the phone number"),
     }),
@@ -62,8 +70,7 @@ export const customerPickSchema = z.discriminatedUnion(
 
 export const engineSchema = z
   .strictObject({
-    description: z
-      .string()
+    description: storedText("The engine's description")
       .trim()
       .min(1, "Describe the engine, e.g. small-block V8, 0.030 in over")
       .max(255, "Keep it to 255 characters"),
@@ -118,13 +125,12 @@ const isoDate = z
   );
 
 const jobFields = z.strictObject({
-  code: z
-    .string()
+  code: storedText("The job code")
     .trim()
     .min(1, "Give the job a code, e.g. KF-2614")
     .max(24, "Keep the code to 24 characters")
     .regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, "Use letters, digits, dots and dashes in the code"),
-  title: z.string().trim().min(1, "Give the job a title").max(160, "Keep the title to 160 characters"),
+  title: storedText("The title").trim().min(1, "Give the job a title").max(160, "Keep the title to 160 characters"),
   customer: customerPickSchema,
   engine: engineSchema,
   unitSystem: z.enum(UNIT_SYSTEMS, { error: "Pick inch or metric" }),

@@ -13,10 +13,10 @@
 import { z } from "zod";
 import type { Verdict } from "@/lib/domain";
 import type { Disposition, FlagReason, FlagState } from "./enums";
+import { storedText } from "./stored-text";
 
 export const signSchema = z.object({
-  fullName: z
-    .string("Type your full name")
+  fullName: storedText("Your name", "Type your full name")
     .trim()
     .min(1, "Type your full name as it is on your account")
     .max(160, "That name is too long"),
@@ -28,8 +28,7 @@ export const signSchema = z.object({
 export type SignInput = z.infer<typeof signSchema>;
 
 export const reopenSchema = z.object({
-  reason: z
-    .string("Say why the job is reopened")
+  reason: storedText("The reason", "Say why the job is reopened")
     .trim()
     .min(10, "Say why the job is reopened, in a sentence (10 characters or more)")
     .max(2000, "Keep the reason to 2000 characters"),
@@ -43,7 +42,7 @@ export const publicVerifySchema = z.object({
     .trim()
     .toLowerCase()
     .regex(HASH_PATTERN, "The fingerprint is 64 characters, 0-9 and a-f, as printed on the build record"),
-  job: z.string().trim().max(24, "A job code is at most 24 characters").optional(),
+  job: storedText("The job code").trim().max(24, "A job code is at most 24 characters").optional(),
 });
 
 export type CheckId = "readings" | "flags" | "gauges" | "torque" | "plan";

@@ -1,8 +1,13 @@
 import { z } from "zod";
+import { storedText } from "./stored-text";
 import type { Role } from "./enums";
 
 export const signInSchema = z.object({
-  email: z.string().trim().min(1, "Enter your e-mail").email("Enter an e-mail like name@shop.com").max(191),
+  email: storedText("The e-mail")
+    .trim()
+    .min(1, "Enter your e-mail")
+    .email("Enter an e-mail like name@shop.com")
+    .max(191),
   password: z.string().min(1, "Enter your password").max(200, "That password is too long"),
 });
 

@@ -43,6 +43,7 @@
 // Version 1 files written before job_size_tol existed read the same; the type is only added.
 // Unknown fields are refused, so a typo never silently drops a limit.
 import { z } from "zod";
+import { storedText } from "./stored-text";
 import {
   CHARACTERISTICS,
   GAUGE_KINDS,
@@ -99,8 +100,7 @@ const optNum = (what: string) => num(what).nullish();
 export const limitSchema = z
   .strictObject({
     characteristic: z.enum(CHARACTERISTIC_IDS, { error: "Pick a characteristic from the list" }),
-    stationPattern: z
-      .string()
+    stationPattern: storedText("The station pattern")
       .trim()
       .min(1, "Enter a station pattern; * means every station")
       .max(64, "Keep the pattern to 64 characters"),
@@ -113,10 +113,10 @@ export const limitSchema = z
     tolMinus: optNum("minus tolerance"),
     perInchMin: optNum("minimum per inch"),
     perInchMax: optNum("maximum per inch"),
-    isoClass: z.string().trim().max(8, "An ISO 286 class is short, e.g. H7 or g6").nullish(),
+    isoClass: storedText("The ISO 286 class").trim().max(8, "An ISO 286 class is short, e.g. H7 or g6").nullish(),
     required: z.boolean({ error: "Say whether the limit is required" }),
     gaugeKind: z.enum(GAUGE_KINDS, { error: "Pick a gauge kind from the list" }).nullish(),
-    label: z.string().trim().max(120, "Keep the label to 120 characters").nullish(),
+    label: storedText("The label").trim().max(120, "Keep the label to 120 characters").nullish(),
     commonPractice: z.boolean({ error: "commonPractice is true or false" }).nullish(),
   })
   .superRefine((l, ctx) => {
@@ -224,15 +224,20 @@ export type JobLimitsInput = z.input<typeof jobLimitsSchema>;
 export type JobLimitsValues = z.output<typeof jobLimitsSchema>;
 
 export const templateSchema = z.strictObject({
-  name: z.string().trim().min(1, "Give the sheet a name").max(160, "Keep the name to 160 characters"),
-  engineKind: z
-    .string()
+  name: storedText("The sheet's name")
+    .trim()
+    .min(1, "Give the sheet a name")
+    .max(160, "Keep the name to 160 characters"),
+  engineKind: storedText("The engine kind")
     .trim()
     .min(1, "Say which engine it is for, e.g. V8 gasoline")
     .max(64, "Keep it to 64 characters"),
-  buildKind: z.string().trim().min(1, "Say which build, e.g. street or marine").max(32, "Keep it to 32 characters"),
+  buildKind: storedText("The build")
+    .trim()
+    .min(1, "Say which build, e.g. street or marine")
+    .max(32, "Keep it to 32 characters"),
   unitSystem: z.enum(UNIT_SYSTEMS, { error: "Pick in or mm" }),
-  notes: z.string().max(2000, "Keep notes to 2000 characters").nullish(),
+  notes: storedText("The notes").max(2000, "Keep notes to 2000 characters").nullish(),
   limits: limitListSchema,
 });
 
@@ -259,7 +264,7 @@ export const templateFileSchema = z.strictObject({
     error: `This is not a Tenthwise spec template file: "format" must be "${SPEC_FILE_FORMAT}"`,
   }),
   version: z.literal(1, { error: "This file's version is not one this Tenthwise reads; it reads version 1" }),
-  exportedAt: z.string().max(40).optional(),
+  exportedAt: storedText("exportedAt").max(40).optional(),
   template: templateSchema,
 });
 

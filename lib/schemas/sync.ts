@@ -27,6 +27,13 @@
 //   Verdicts are recomputed on the server with lib/domain; the tablet's preview is never trusted.
 //   Same id + same payload = no-op (accepted, replay). Same id + different payload = rejected `conflict`
 //   (a correction is a NEW reading with `supersedes: <old id>`; nothing is ever overwritten).
+//   Canonical form (what is stored, and what a resend is compared in, so an exact resend is a replay):
+//     text (deviceId, note, skipReason): line ends LF, Unicode NFC; refused (`invalid`, by field) when it
+//       holds a lone surrogate or a control character other than tab and line feed;
+//     figures: kept exactly, never rounded: refused when they carry more places than their column keeps
+//       (value, dialSetting, dialDeviation 6; partTempC, gaugeTempC 2) or reach 10^8 (temperatures: the
+//       -30..150 °C range), in every entry mode (READING_PRECISION in lib/domain/stored-figures.ts);
+//     takenAt: to the millisecond, between the years 1970 and 9000.
 //   `cursor` in push replies is informational (the newest change-feed id of the batch's jobs after the
 //   write); never replace your pull cursor with it, or you may skip other devices' changes.
 //   Each result also carries `index` (its position in the batch); `id` is null only when the item had no
@@ -49,24 +56,42 @@
 // GET /api/bench/jobs  (machinist, lead) → { jobs: BenchJobSummary[] } open jobs (intake, measuring, review)
 // GET /api/bench/jobs/:jobId  (machinist, lead) → JobPack, everything the tablet stores to work offline.
 import { z } from "zod";
-import { ENTRY_MODES, LUBRICANT_LABELS, MEASURE_UNITS, parseStationId } from "@/lib/domain";
-import type { BenchRoute, EngineShape, JobStatus, Lubricant, SpecLimit, Verdict } from "@/lib/domain";
-import type { Disposition, FlagReason, FlagState, UnitSystem } from "./enums";
+import {
+  ENTRY_MODES,
+  LUBRICANT_LABELS,
+  MEASURE_UNITS,
+  READING_PRECISION,
+  parseStationId,
+  storedFigureProblem,
+} from "@/lib/domain";
+import type { Lubricant, Verdict } from "@/lib/domain";
 import type { FieldErrors } from "./errors";
-import type { StoredReading } from "@/lib/schemas/readings";
 import { SKIP_REASON_MAX, skipReasonTooLong } from "./text-limits";
+import { storedText } from "./stored-text";
 
 export { TAKEN_BY_HEADER } from "./sync-headers";
+export type * from "./sync-pack";
 export const MAX_BATCH = 500;
 /** Feed rows younger than this are re-sent on the next pull (see the cursor above). */
 export const SETTLE_MS = 15_000;
 export const LUBRICANTS = Object.keys(LUBRICANT_LABELS) as [Lubricant, ...Lubricant[]];
 
-const temperature = (what: string) =>
+/** A figure refused when its column cannot keep it exactly (lib/domain/stored-figures.ts). */
+const kept = (field: keyof typeof READING_PRECISION, what: string) => (x: number, ctx: z.RefinementCtx) => {
+  const problem = storedFigureProblem(x, READING_PRECISION[field], what);
+  if (problem) ctx.addIssue({ code: "custom", message: problem });
+};
+
+const temperature = (field: "partTempC" | "gaugeTempC", what: string) =>
   z
     .number(`${what} must be a number in °C`)
     .min(-30, `${what} below -30 °C cannot be right; check it`)
-    .max(150, `${what} above 150 °C cannot be right; let the part cool and measure again`);
+    .max(150, `${what} above 150 °C cannot be right; let the part cool and measure again`)
+    .superRefine(kept(field, what));
+
+// The earliest and latest takenAt the readings table keeps (DATETIME holds years 1000 to 9999).
+const TAKEN_FROM = Date.UTC(1970, 0, 1);
+const TAKEN_UNTIL = Date.UTC(9000, 0, 1);
 
 const stationId = z
   .string("Pick a station")
@@ -94,24 +119,41 @@ export const pushReadingSchema = z
       .int("Job id must be a whole number")
       .positive("Job id must be a whole number"),
     stationId,
-    value: z.number("Enter the value as a number").finite("Enter the value as a number").nullable().optional(),
+    value: z
+      .number("Enter the value as a number")
+      .finite("Enter the value as a number")
+      .superRefine(kept("value", "The value"))
+      .nullable()
+      .optional(),
     unit: z.enum(MEASURE_UNITS, "Unit must be in, mm, lbf_ft or nm"),
     entryMode: z.enum(ENTRY_MODES, "Entry mode must be direct or dial").default("direct"),
-    dialSetting: z.number("Dial setting must be a number").positive("The setting size must be above zero").optional(),
-    dialDeviation: z.number("Dial reading must be a number").finite().optional(),
+    // Checked in every entry mode: a direct reading that carries them stores them too.
+    dialSetting: z
+      .number("Dial setting must be a number")
+      .positive("The setting size must be above zero")
+      .superRefine(kept("dialSetting", "The setting size"))
+      .optional(),
+    dialDeviation: z
+      .number("Dial reading must be a number")
+      .finite("Dial reading must be a number")
+      .superRefine(kept("dialDeviation", "The dial reading"))
+      .optional(),
     instrumentId: z.number("Gauge id must be a number").int().positive().optional(),
-    partTempC: temperature("Part temperature").optional(),
-    gaugeTempC: temperature("Gauge temperature").optional(),
+    partTempC: temperature("partTempC", "Part temperature").optional(),
+    gaugeTempC: temperature("gaugeTempC", "Gauge temperature").optional(),
     lubricant: z.enum(LUBRICANTS, `Lubricant must be one of ${LUBRICANTS.join(", ")}`).optional(),
     skipped: z.boolean().optional(),
-    skipReason: z
-      .string()
+    skipReason: storedText("The skip reason")
       .trim()
       .max(SKIP_REASON_MAX, { error: (iss) => skipReasonTooLong(String(iss.input ?? "").trim().length) })
       .optional(),
     supersedes: z.uuid("supersedes must be the id of the reading this one corrects").optional(),
-    note: z.string().max(500, "Keep the note under 500 characters").optional(),
-    takenAt: z.iso.datetime({ offset: true, message: "takenAt must be an ISO date-time such as 2026-12-01T09:30:00Z" }),
+    note: storedText("The note").max(500, "Keep the note under 500 characters").optional(),
+    takenAt: z.iso
+      .datetime({ offset: true, message: "takenAt must be an ISO date-time such as 2026-12-01T09:30:00Z" })
+      .refine((at) => Date.parse(at) >= TAKEN_FROM && Date.parse(at) < TAKEN_UNTIL, {
+        message: "takenAt must lie between the years 1970 and 9000; check the tablet's clock",
+      }),
   })
   .superRefine((r, ctx) => {
     const add = (path: string, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
@@ -134,8 +176,7 @@ export type PushReadingInput = z.input<typeof pushReadingSchema>;
 
 /** The batch envelope: items are checked one by one (pushReadingSchema) so each gets its own result. */
 export const pushBatchSchema = z.object({
-  deviceId: z
-    .string("deviceId is needed (the tablet's id)")
+  deviceId: storedText("deviceId", "deviceId is needed (the tablet's id)")
     .trim()
     .min(1, "deviceId is needed (the tablet's id)")
     .max(64, "deviceId is too long (64 characters at most)"),
@@ -176,107 +217,6 @@ export type PushErrorReply = {
   error: { code: "invalid" | "job_locked"; message: string; fields: FieldErrors };
   results: PushResult[];
   cursor: string;
-};
-
-/** A stored reading, as the pack and the feed send it (no shop). Dates are ISO strings. */
-export type ServerReading = Omit<StoredReading, "shopId" | "takenAt" | "receivedAt"> & {
-  takenAt: string;
-  receivedAt: string;
-  /** The reading that corrects this one, if any: a superseded reading is history, not current. */
-  supersededBy: string | null;
-};
-
-/** A flag that is not closed (or, in the feed, any flag's current state). */
-export type BenchFlag = {
-  id: number;
-  jobId: number;
-  readingId: string | null;
-  /** `${characteristic}@${stationId}` of a derived value (e.g. main_oil_clearance@main-brg/2/front/A). */
-  derivedKey: string | null;
-  stationId: string;
-  characteristic: string;
-  value: number;
-  unit: string;
-  limitMin: number | null;
-  limitMax: number | null;
-  deviation: number | null;
-  verdict: Verdict;
-  reason: FlagReason;
-  state: FlagState;
-  disposition: Disposition | null;
-  operation: string | null;
-  dispositionReason: string | null;
-  disposedAt: string | null;
-  closedAt: string | null;
-  createdAt: string;
-  /** Stations to measure again for this flag (a derived value's inputs); mark them on the route. */
-  stations: string[];
-  /** True when the lead sent these stations back to the bench (measure again / machine again) and it is not closed. */
-  revisit: boolean;
-};
-
-export type BenchJobHeader = {
-  id: number;
-  code: string;
-  title: string;
-  status: JobStatus;
-  unitSystem: UnitSystem;
-  locked: boolean;
-  lockedAt: string | null;
-  /** Why readings are refused, in words; null when open. */
-  lockReason: string | null;
-  specRevision: number;
-  dueDate: string | null;
-};
-
-export type BenchJobSummary = BenchJobHeader & {
-  customer: string;
-  engine: string;
-  /** Required stations done (lib/domain/progress.ts); null for a job with no engine. */
-  progress: { done: number; required: number } | null;
-  openFlags: number;
-};
-
-export type BenchInstrument = {
-  id: number;
-  kind: string;
-  label: string;
-  serial: string;
-  unit: string;
-  resolution: number;
-  /** Expanded uncertainty U (k = coverageK, normally 2), in `unit`. */
-  expandedU: number;
-  coverageK: number;
-  /** The measuring range in `unit`; null (or absent) on a gauge registered before ranges were kept. */
-  rangeMin?: number | null;
-  rangeMax?: number | null;
-  calibrationDue: string | null;
-  dialPlusMeansSmaller: boolean;
-  active: boolean;
-};
-
-export type JobPack = {
-  job: BenchJobHeader & { customer: string; engine: string };
-  shape: EngineShape;
-  spec: SpecLimit[];
-  route: BenchRoute;
-  instruments: BenchInstrument[];
-  /** Every reading of the job, history included (supersededBy set on corrected ones). */
-  readings: ServerReading[];
-  /** Flags that are not closed, with their latest disposition. */
-  flags: BenchFlag[];
-  cursor: string;
-};
-
-export type SyncFeed = {
-  cursor: string;
-  more: boolean;
-  jobs: BenchJobHeader[];
-  limits: { jobId: number; specRevision: number; spec: SpecLimit[] }[];
-  readings: ServerReading[];
-  flags: BenchFlag[];
-  /** Job ids asked for that this shop does not have (or no longer has). */
-  missing: number[];
 };
 
 export const feedQuerySchema = z.object({

@@ -1,17 +1,16 @@
 import { z } from "zod";
 import { ROLES, type UnitSystem } from "@/lib/schemas/enums";
+import { storedText } from "./stored-text";
 
 // One schema per entity, shared by the admin's forms and the route handlers.
 const role = z.enum(ROLES, { error: "Choose a role: machinist, lead, inspector or admin" });
 
 export const inviteUserSchema = z.object({
-  name: z
-    .string({ error: "Enter the person's name" })
+  name: storedText("The name", "Enter the person's name")
     .trim()
     .min(1, "Enter the person's name")
     .max(120, "Keep the name under 120 characters"),
-  email: z
-    .string({ error: "Enter an e-mail address" })
+  email: storedText("The e-mail", "Enter an e-mail address")
     .trim()
     .min(1, "Enter an e-mail address")
     .email("Enter an e-mail like name@shop.com")

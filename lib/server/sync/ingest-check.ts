@@ -2,6 +2,8 @@ import "server-only";
 import {
   CHARACTERISTICS,
   LUBRICANT_LABELS,
+  READING_PRECISION,
+  columnFigure,
   dialDiameter,
   evaluateReading,
   gaugeRefusal,
@@ -94,14 +96,21 @@ const PAYLOAD = [
 ] as const;
 const NUMBERS = ["value", "dialSetting", "dialDeviation", "partTempC", "gaugeTempC"] as const;
 
-/** True when a resent reading carries the same figures as the stored one (who sent it does not matter). */
+const sameFigure = (k: (typeof NUMBERS)[number], a: number | null, b: number | null) =>
+  a === null || b === null ? a === b : columnFigure(a, READING_PRECISION[k]) === columnFigure(b, READING_PRECISION[k]);
+
+/**
+ * True when a resent reading carries the same figures as the stored one (who sent it does not
+ * matter), compared in the stored form: text is canonical already (the schema made it so), figures
+ * as their columns keep them, times to the millisecond.
+ */
 export function samePayload(
   a: Pick<StoredReading, (typeof PAYLOAD)[number] | (typeof NUMBERS)[number] | "takenAt">,
   b: typeof a,
 ): boolean {
   return (
     PAYLOAD.every((k) => (a[k] ?? null) === (b[k] ?? null)) &&
-    NUMBERS.every((k) => round6(a[k]) === round6(b[k])) &&
+    NUMBERS.every((k) => sameFigure(k, a[k] ?? null, b[k] ?? null)) &&
     a.takenAt.getTime() === b.takenAt.getTime()
   );
 }

@@ -2,6 +2,7 @@ import "server-only";
 import { fileTypeFromBuffer } from "file-type";
 import sharp from "sharp";
 import { AppError } from "@/lib/server/core/errors";
+import { canonicalText } from "@/lib/schemas/canonical-text";
 
 // What a file really is, from its bytes (never from its name or the browser's Content-Type),
 // and a small JPEG preview for photos. JPEG because the PDF library embeds only JPEG and PNG.
@@ -64,13 +65,15 @@ export async function makeThumbnail(buf: Buffer, mime: string, name: string): Pr
   }
 }
 
-/** A file name safe to store and to echo in Content-Disposition: no path, no control characters. */
+/**
+ * A file name safe to store and to echo in Content-Disposition: no path, no control characters, in
+ * the stored text form (lib/schemas/canonical-text.ts), cut at 200 characters, never inside one.
+ */
 export function cleanFileName(raw: string | undefined, fallback: string): string {
   const base = (raw ?? "").split(/[\\/]/).pop() ?? "";
-  const clean = base
+  const clean = canonicalText(base.toWellFormed())
     // eslint-disable-next-line no-control-regex -- control characters are exactly what is removed
-    .replace(/[\u0000-\u001f\u007f"]/g, "")
-    .trim()
-    .slice(0, 200);
-  return clean || fallback;
+    .replace(/[\u0000-\u001f\u007f-\u009f"]/g, "")
+    .trim();
+  return [...clean].slice(0, 200).join("").trim() || fallback;
 }

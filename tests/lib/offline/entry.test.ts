@@ -33,6 +33,16 @@ describe("typed entries", () => {
     expect(parseEntry("")).toEqual({ error: "Type the value first" });
     expect(parseEntry("4..03")).toEqual({ error: "'4..03' is not a number; type the value like 4.0302" });
     expect(parseEntry(".")).toHaveProperty("error");
+    // The server keeps 6 decimal places of a value, a setting size and a dial reading (DECIMAL(14,6)):
+    // the tablet refuses more as it is typed, with the server's words, so it never queues a refusal.
+    expect(parseEntry("104.0180005")).toEqual({
+      error: "The value keeps 6 decimal places: 104.0180005 has 7; round it to 6 places",
+    });
+    expect(parseEntry("104.018001")).toEqual({ value: 104.018001 });
+    expect(parseEntry("100000000", "the dial reading")).toEqual({
+      error:
+        "The dial reading must lie between -99999999.999999 and 99999999.999999; 100000000 cannot be right, check it",
+    });
   });
 });
 
