@@ -5,6 +5,7 @@ import mariadb from "mariadb";
 import { POST } from "@/app/api/sync/route";
 import { closeSequelize, getSequelize } from "@/lib/server/core/db";
 import { migrateUp } from "@/lib/server/core/migrate";
+import { appOrigin } from "@/lib/server/core/origin";
 import { SESSION_COOKIE } from "@/lib/server/core/session";
 import { openSession } from "@/lib/server/sessions/lifecycle";
 import { setSqlTrace } from "@/lib/server/core/sql-driver";
@@ -109,7 +110,8 @@ export async function setUp(jobs: number) {
         const body = JSON.stringify({ deviceId: `bench-tablet-${c}`, readings: mine.slice(i, i + batch) });
         const req = new Request("http://localhost/api/sync", {
           method: "POST",
-          headers: { cookie, "content-type": "application/json" },
+          // As the tablet's page sends it: its own origin, a JSON body.
+          headers: { cookie, origin: appOrigin(), "content-type": "application/json" },
           body,
         });
         const res = await POST(req);

@@ -8,7 +8,7 @@ import { GET as download } from "@/app/api/attachments/[id]/route";
 import { GET as thumb } from "@/app/api/attachments/[id]/thumb/route";
 import { Attachment, Instrument, Job, Reading } from "@/models";
 import { createShop, type TestUser } from "../support/factories";
-import { asUser, call, cookieFor } from "../support/requests";
+import { asUser, call, cookieFor, pageRequest } from "../support/requests";
 
 async function photo(width = 1200, height = 800): Promise<Buffer> {
   return sharp({ create: { width, height, channels: 3, background: { r: 180, g: 40, b: 30 } } })
@@ -31,7 +31,7 @@ async function post(user: TestUser | null, fields: Fields, bytes: Buffer, name =
   form.set("ownerId", String(fields.ownerId));
   form.set("clientId", fields.clientId ?? randomUUID());
   const headers: Record<string, string> = user ? { cookie: await cookieFor(user) } : {};
-  return call(upload, new Request("http://localhost/api/attachments", { method: "POST", headers, body: form }));
+  return call(upload, pageRequest("/api/attachments", { method: "POST", headers, body: form }));
 }
 
 async function fetchRaw(handler: typeof download, user: TestUser, id: string) {

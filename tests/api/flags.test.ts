@@ -10,7 +10,7 @@ import { POST as SYNC } from "@/app/api/sync/route";
 import { Op } from "sequelize";
 import { Flag, Instrument } from "@/models";
 import { createShop, type TestShop, type TestUser } from "../support/factories";
-import { asUser, call, cookieFor } from "../support/requests";
+import { asUser, call, cookieFor, pageRequest } from "../support/requests";
 
 const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
 const READERS = new Set(["lead", "inspector"]);
@@ -228,7 +228,7 @@ describe("GET /api/flags/[flagId]", () => {
     form.set("clientId", randomUUID());
     const up = await call(
       UPLOAD as never,
-      new Request("http://localhost/api/attachments", {
+      pageRequest("/api/attachments", {
         method: "POST",
         headers: { cookie: await cookieFor(c.users.machinist) },
         body: form,

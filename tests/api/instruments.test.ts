@@ -8,7 +8,7 @@ import { POST as UPLOAD } from "@/app/api/attachments/route";
 import { calibrationStatus } from "@/lib/schemas/instrument";
 import { AuditEvent, Instrument } from "@/models";
 import { createShop, type TestShop, type TestUser } from "../support/factories";
-import { asUser, call, cookieFor } from "../support/requests";
+import { asUser, call, cookieFor, pageRequest } from "../support/requests";
 
 const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
 const READERS = new Set(["admin", "lead", "inspector"]);
@@ -264,7 +264,7 @@ describe("calibration certificate (POST /api/attachments, ownerType instrument)"
     form.set("ownerType", "instrument");
     form.set("ownerId", String(ownerId));
     form.set("clientId", randomUUID());
-    const req = new Request("http://localhost/api/attachments", {
+    const req = pageRequest("/api/attachments", {
       method: "POST",
       headers: { cookie: await cookieFor(by) },
       body: form,

@@ -3,7 +3,7 @@ import { DELETE, POST } from "@/app/api/session/route";
 import { GET as me } from "@/app/api/me/route";
 import { SIGN_IN_REFUSED } from "@/lib/server/users/sign-in";
 import { createShop, TEST_PASSWORD } from "../support/factories";
-import { asUser, call } from "../support/requests";
+import { asUser, call, pageRequest } from "../support/requests";
 
 // No trusted proxy here: every request is from the same unknown address (the throttle's own
 // rules, with addresses, are in sign-in-throttle.test.ts).
@@ -74,7 +74,7 @@ describe("sessions end on the server", () => {
   const signOut = async (cookie: string, body?: unknown) =>
     call(
       DELETE,
-      new Request("http://localhost/api/session", {
+      pageRequest("/api/session", {
         method: "DELETE",
         headers: body ? { cookie, "content-type": "application/json" } : { cookie },
         body: body ? JSON.stringify(body) : undefined,

@@ -8,7 +8,7 @@ import { POST as SIGN_IN } from "@/app/api/session/route";
 import { GET as ME } from "@/app/api/me/route";
 import { AuditEvent, User } from "@/models";
 import { createShop, TEST_PASSWORD, type TestShop, type TestUser } from "../support/factories";
-import { asUser, call, cookieFor } from "../support/requests";
+import { asUser, call, cookieFor, pageRequest } from "../support/requests";
 
 const ROLES = ["machinist", "lead", "inspector", "admin"] as const;
 let a: TestShop;
@@ -22,7 +22,7 @@ beforeAll(async () => {
 async function signInWith(email: string, password: string) {
   return call(
     SIGN_IN as never,
-    new Request("http://localhost/api/session", {
+    pageRequest("/api/session", {
       method: "POST",
       headers: { "content-type": "application/json" },
       body: JSON.stringify({ email, password }),

@@ -4,7 +4,7 @@
 import { randomUUID } from "node:crypto";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, demo, launchBrowser, newTabletPage, screenshot, signInAs } from "../support/browser";
+import { BASE_URL, demo, launchBrowser, newTabletPage, screenshot, sendJson, signInAs } from "../support/browser";
 
 // Data arrives through TanStack Query after hydration; give the server time on a cold start.
 const WAIT = { timeout: 15_000 };
@@ -29,7 +29,7 @@ const row = (email: string) => page.getByTestId(`user-${email}`);
 
 async function canSignIn(email: string, password: string): Promise<boolean> {
   const ctx = await browser.newContext({ baseURL: BASE_URL });
-  const res = await ctx.request.post("/api/session", { data: { email, password } });
+  const res = await sendJson(ctx.request, "POST", "/api/session", { email, password });
   await ctx.close();
   return res.status() === 200;
 }

@@ -6,7 +6,16 @@
 import { randomUUID } from "node:crypto";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, describe, expect, it } from "vitest";
-import { demo, demoEmail, launchBrowser, launchProfile, screenshot, signIn, signInAs } from "../support/browser";
+import {
+  demo,
+  demoEmail,
+  launchBrowser,
+  launchProfile,
+  screenshot,
+  sendJson,
+  signIn,
+  signInAs,
+} from "../support/browser";
 
 const ROSA = demoEmail("machinist");
 const IVO = { name: "Ivo Marchetti", email: `ivo-${randomUUID().slice(0, 6)}@kestrelflats.example` };
@@ -67,7 +76,7 @@ describe("a shared tablet", () => {
     browser = await launchBrowser();
     const office = await (await browser.newContext({ baseURL: process.env.TW_BASE_URL })).newPage();
     await signInAs(office, demoEmail("admin"));
-    const invited = await office.context().request.post("/api/users", { data: { ...IVO, role: "machinist" } });
+    const invited = await sendJson(office.context().request, "POST", "/api/users", { ...IVO, role: "machinist" });
     expect(invited.status()).toBe(201);
     const ivo = (await invited.json()) as { user: { id: number }; temporaryPassword: string };
 

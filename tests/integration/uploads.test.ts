@@ -11,14 +11,14 @@ import { addPhoto, uploadPhotos } from "@/lib/offline/photos";
 import type { Fetch } from "@/lib/offline/transport";
 import { Attachment } from "@/models";
 import { createShop } from "../support/factories";
-import { asUser, cookieFor } from "../support/requests";
+import { asUser, cookieFor, pageRequest } from "../support/requests";
 
 const BASE = "http://localhost";
 
 /** The app's upload route as the tablet's fetch, with the machinist's session cookie. */
 function online(cookie: string, after?: () => void): Fetch {
   return (async (url: string | URL | Request, init?: RequestInit) => {
-    const res = await POST(new Request(String(url), { method: init?.method, body: init?.body, headers: { cookie } }));
+    const res = await POST(pageRequest(String(url), { method: init?.method, body: init?.body, headers: { cookie } }));
     after?.();
     return res;
   }) as Fetch;

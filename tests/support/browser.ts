@@ -1,5 +1,5 @@
 // Headless Debian Chromium through playwright-core, with the flags this machine needs.
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { chromium, type APIRequestContext, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { readFileSync } from "node:fs";
 import { mkdtempSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -64,10 +64,26 @@ export const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8"
 export const demoEmail = (role: string) => demo.accounts.find((a) => a.role === role)!.email;
 
 /**
+ * A change sent straight to the API (not from a page), with the Origin a browser puts on a page's
+ * own POST; the server refuses a change that does not name one of its own pages.
+ */
+export function sendJson(
+  request: APIRequestContext,
+  method: "POST" | "PUT" | "PATCH" | "DELETE",
+  url: string,
+  data: unknown,
+) {
+  return request.fetch(url, { method, data, headers: { origin: new URL(BASE_URL).origin } });
+}
+
+/**
  * Signs the page's context in through the API (the sign-in form itself is tested in
  * sign-in.test.ts), so a test never races the form's hydration. Throws unless it worked.
  */
 export async function signInAs(page: Page, address: string) {
-  const res = await page.context().request.post("/api/session", { data: { email: address, password: demo.password } });
+  const res = await sendJson(page.context().request, "POST", "/api/session", {
+    email: address,
+    password: demo.password,
+  });
   if (res.status() !== 200) throw new Error(`Sign-in as ${address} answered ${res.status()}`);
 }

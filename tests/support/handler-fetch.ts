@@ -5,7 +5,7 @@ import { GET as getPack } from "@/app/api/bench/jobs/[jobId]/route";
 import { GET as pullFeed, POST as pushBatch } from "@/app/api/sync/route";
 import type { Fetch } from "@/lib/offline/transport";
 import type { TestUser } from "./factories";
-import { cookieFor } from "./requests";
+import { cookieFor, pageRequest } from "./requests";
 
 export type Exchange = { method: string; path: string; status: number; sent?: number };
 
@@ -18,7 +18,7 @@ export function handlerFetch(user: TestUser): { fetch: Fetch; log: Exchange[]; p
     // options mean nothing to a handler called in-process.
     const headers = new Headers(init.headers);
     headers.set("cookie", await cookieFor(user));
-    const req = new Request(url, { method, headers, body: init.body ?? undefined });
+    const req = pageRequest(url, { method, headers, body: init.body ?? undefined });
     const pack = url.pathname.match(/^\/api\/bench\/jobs\/(\d+)$/);
     let res: Response;
     if (url.pathname === "/api/sync" && method === "POST") res = await pushBatch(req);

@@ -1,4 +1,7 @@
 // Build Requests the way a signed-in browser sends them, and call exported route handlers.
+// Every test request is built here (pageRequest), so each carries what a browser on one of the
+// app's own pages sends: a change names the page's origin in Origin, as browsers do on every POST.
+import { appOrigin } from "@/lib/server/core/origin";
 import { SESSION_COOKIE } from "@/lib/server/core/session";
 import { openSession } from "@/lib/server/sessions/lifecycle";
 import type { TestUser } from "./factories";
@@ -7,6 +10,18 @@ import type { TestUser } from "./factories";
 export async function cookieFor(user: TestUser): Promise<string> {
   const { cookie } = await openSession(user);
   return `${SESSION_COOKIE}=${cookie}`;
+}
+
+/**
+ * A Request as a browser on one of the app's pages sends it: a change (any method but GET and
+ * HEAD) carries the app's Origin unless `init.headers` names another; an empty Origin sends none.
+ */
+export function pageRequest(url: string | URL, init: RequestInit = {}): Request {
+  const headers = new Headers(init.headers);
+  const method = (init.method ?? "GET").toUpperCase();
+  if (!headers.has("origin") && method !== "GET" && method !== "HEAD") headers.set("origin", appOrigin());
+  if (headers.get("origin") === "") headers.delete("origin");
+  return new Request(new URL(url, "http://localhost"), { ...init, method, headers });
 }
 
 export async function asUser(
@@ -24,7 +39,7 @@ export async function asUser(
     payload = JSON.stringify(body);
     h["content-type"] = "application/json";
   }
-  return new Request(new URL(url, "http://localhost"), { method, headers: h, body: payload });
+  return pageRequest(url, { method, headers: h, body: payload });
 }
 
 // Route handlers type their params per route; the helper accepts any of them.

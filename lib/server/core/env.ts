@@ -23,6 +23,24 @@ const schema = z
   .object({
     NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
     APP_URL: z.string().url().default("http://localhost:3000"),
+    // Further origins whose pages may send changes (a reverse proxy's public address), comma-separated;
+    // APP_URL's own origin is always allowed (lib/server/core/origin.ts).
+    ALLOWED_ORIGINS: z
+      .string()
+      .default("")
+      .transform((list, ctx) => {
+        const origins: string[] = [];
+        for (const item of list
+          .split(",")
+          .map((s) => s.trim())
+          .filter(Boolean)) {
+          const origin = URL.canParse(item) ? new URL(item).origin : "null";
+          if (origin === "null" || origin !== item.replace(/\/$/, "").toLowerCase()) {
+            ctx.addIssue({ code: "custom", message: `"${item}" is not an origin like https://tenthwise.example.com` });
+          } else origins.push(origin);
+        }
+        return origins;
+      }),
     DATABASE_URL: z
       .string()
       .regex(/^mariadb:\/\//, "DATABASE_URL must start with mariadb://")

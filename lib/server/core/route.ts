@@ -3,9 +3,12 @@ import type { ZodType } from "zod";
 import { requireActor } from "@/lib/server/core/access";
 import type { Actor } from "@/lib/schemas/session";
 import { AppError, errorResponse, invalid } from "@/lib/server/core/errors";
+import { requireOwnOrigin } from "@/lib/server/core/origin";
 import type { Role } from "@/lib/schemas/enums";
 
-// Wrap handlers once instead of repeating try/catch.
+// Wrap handlers once instead of repeating try/catch. Every route goes through one of these two, so
+// every state-changing request meets the origin check before anything else (tests/api/origin.test.ts
+// finds a route that does not).
 type RouteContext<P> = { params: Promise<P> };
 type Handler<P> = (ctx: { req: Request; actor: Actor; params: P }) => Promise<Response | unknown>;
 type PublicHandler<P> = (ctx: { req: Request; params: P }) => Promise<Response | unknown>;
@@ -19,6 +22,7 @@ function toResponse(result: unknown): Response {
 export function authed<P = Record<string, string>>(roles: readonly Role[] | "any", fn: Handler<P>) {
   return async (req: Request, ctx?: RouteContext<P>): Promise<Response> => {
     try {
+      requireOwnOrigin(req);
       const actor = await requireActor(req, roles);
       const params = ((await ctx?.params) ?? {}) as P;
       return toResponse(await fn({ req, actor, params }));
@@ -31,6 +35,7 @@ export function authed<P = Record<string, string>>(roles: readonly Role[] | "any
 export function open<P = Record<string, string>>(fn: PublicHandler<P>) {
   return async (req: Request, ctx?: RouteContext<P>): Promise<Response> => {
     try {
+      requireOwnOrigin(req);
       const params = ((await ctx?.params) ?? {}) as P;
       return toResponse(await fn({ req, params }));
     } catch (err) {
@@ -39,8 +44,19 @@ export function open<P = Record<string, string>>(fn: PublicHandler<P>) {
   };
 }
 
-/** 400 on JSON that does not parse, 422 with field errors when the schema refuses it. */
+// application/json, with or without parameters (charset). A text/plain body is what a page on any
+// site can send without asking first, so it is refused rather than parsed.
+const JSON_TYPE = /^application\/json\s*(;|$)/i;
+
+/** 415 unless the body is declared JSON, 400 on JSON that does not parse, 422 when the schema refuses it. */
 export async function readJson<T>(req: Request, schema: ZodType<T>): Promise<T> {
+  const type = req.headers.get("content-type");
+  if (!JSON_TYPE.test(type ?? "")) {
+    throw new AppError(
+      "unsupported_media",
+      `Send the body as JSON with the header Content-Type: application/json (this request said ${type || "nothing"})`,
+    );
+  }
   let body: unknown;
   try {
     body = await req.json();
