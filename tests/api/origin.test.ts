@@ -105,7 +105,7 @@ describe("JSON bodies", () => {
     ["no type at all", ""],
   ])("refuses a body sent as %s with 415", async (_, type) => {
     const { POST } = await import("@/app/api/sync/route");
-    const headers = type ? { "content-type": type } : {};
+    const headers = { "content-type": type };
     const res = await call(POST, await asUser(shop.users.machinist, "POST", "/api/sync", batch(), headers));
     expect(res.status).toBe(415);
     expect(res.body.error.code).toBe("unsupported_media");

@@ -14,13 +14,14 @@ export async function cookieFor(user: TestUser): Promise<string> {
 
 /**
  * A Request as a browser on one of the app's pages sends it: a change (any method but GET and
- * HEAD) carries the app's Origin unless `init.headers` names another; an empty Origin sends none.
+ * HEAD) carries the app's Origin unless `init.headers` names another. A header given as "" is
+ * not sent at all (a request with no Origin, a body with no type).
  */
 export function pageRequest(url: string | URL, init: RequestInit = {}): Request {
   const headers = new Headers(init.headers);
   const method = (init.method ?? "GET").toUpperCase();
   if (!headers.has("origin") && method !== "GET" && method !== "HEAD") headers.set("origin", appOrigin());
-  if (headers.get("origin") === "") headers.delete("origin");
+  for (const [name, value] of [...headers]) if (value === "") headers.delete(name);
   return new Request(new URL(url, "http://localhost"), { ...init, method, headers });
 }
 
@@ -33,11 +34,11 @@ export async function asUser(
 ): Promise<Request> {
   const h: Record<string, string> = { ...headers };
   if (user) h.cookie = await cookieFor(user);
+  // A body goes as JSON (a string as it is, to send malformed JSON) unless `headers` names a type.
   let payload: BodyInit | undefined;
-  if (typeof body === "string") payload = body;
-  else if (body !== undefined) {
-    payload = JSON.stringify(body);
-    h["content-type"] = "application/json";
+  if (body !== undefined) {
+    payload = typeof body === "string" ? body : JSON.stringify(body);
+    h["content-type"] ??= "application/json";
   }
   return pageRequest(url, { method, headers: h, body: payload });
 }
