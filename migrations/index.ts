@@ -18,6 +18,7 @@ import * as addJobsContextRevision from "./20261202000200-add-jobs-context-revis
 import * as addJobsFinishedSizes from "./20261203010000-add-jobs-finished-sizes";
 import * as addInstrumentsRange from "./20261203030000-add-instruments-range";
 import * as createUserSessions from "./20261203050000-create-user-sessions";
+import * as addAttachmentsClientId from "./20261203130000-add-attachments-client-id";
 import * as addLimitsCommonPractice from "./20261203140000-add-limits-common-practice";
 import * as addShopsActivatedAt from "./20261203140010-add-shops-activated-at";
 import * as createLinkTokens from "./20261203150000-create-link-tokens";
@@ -47,6 +48,7 @@ export const migrations: Migration[] = [
   step("20261203010000-add-jobs-finished-sizes", addJobsFinishedSizes),
   step("20261203030000-add-instruments-range", addInstrumentsRange),
   step("20261203050000-create-user-sessions", createUserSessions),
+  step("20261203130000-add-attachments-client-id", addAttachmentsClientId),
   step("20261203140000-add-limits-common-practice", addLimitsCommonPractice),
   step("20261203140010-add-shops-activated-at", addShopsActivatedAt),
   step("20261203150000-create-link-tokens", createLinkTokens),

@@ -102,10 +102,44 @@ describe("POST /api/attachments", () => {
     expect(again.status).toBe(200);
     expect(again.body.created).toBe(false);
     expect(again.body.attachment.id).toBe(first.body.attachment.id);
-    expect(await Attachment.count({ where: { id: clientId } })).toBe(1);
+    expect(await Attachment.count({ where: { clientId } })).toBe(1);
     // The same clientId for a different owner is a device bug, not a resend.
     const misused = await post(s.users.machinist, { ownerType: "job", ownerId: s.job.id + 1, clientId }, await photo());
     expect(misused.status).toBe(409);
+  });
+
+  it("answers another shop's clientId like a fresh one, and stores nothing across shops", async () => {
+    const a = await createShop();
+    const b = await createShop();
+    const used = randomUUID();
+    const theirs = await post(
+      b.users.machinist,
+      { ownerType: "job", ownerId: b.job.id, clientId: used },
+      await photo(),
+    );
+    const fresh = await post(a.users.machinist, { ownerType: "job", ownerId: a.job.id }, await photo());
+    const reused = await post(
+      a.users.machinist,
+      { ownerType: "job", ownerId: a.job.id, clientId: used },
+      await photo(),
+    );
+    // The same answer as a fresh clientId gets: 201, created, an id of the server's own.
+    expect([theirs.status, fresh.status, reused.status]).toEqual([201, 201, 201]);
+    expect(reused.body.created).toBe(fresh.body.created);
+    expect(Object.keys(reused.body.attachment).sort()).toEqual(Object.keys(fresh.body.attachment).sort());
+    expect(reused.body.attachment.id).not.toBe(used);
+    expect(reused.body.attachment.id).not.toBe(theirs.body.attachment.id);
+    // Each shop has its own file under that clientId; the other shop's is untouched and still its own.
+    const rows = await Attachment.findAll({ where: { clientId: used }, order: [["shopId", "ASC"]] });
+    expect(rows.map((r) => [r.shopId, r.ownerId])).toEqual([
+      [a.shop.id, String(a.job.id)],
+      [b.shop.id, String(b.job.id)],
+    ]);
+    expect((await fetchRaw(download, a.users.lead, theirs.body.attachment.id)).status).toBe(404);
+    expect((await fetchRaw(download, b.users.lead, theirs.body.attachment.id)).status).toBe(200);
+    // A resend in the other shop is still that shop's replay.
+    const again = await post(b.users.machinist, { ownerType: "job", ownerId: b.job.id, clientId: used }, await photo());
+    expect([again.status, again.body.attachment.id]).toEqual([200, theirs.body.attachment.id]);
   });
 
   it("refuses an executable renamed .jpg (415) and says what it is", async () => {

@@ -178,6 +178,7 @@ export async function addJobPhoto(s: TestShop): Promise<string> {
   await Attachment.create({
     id,
     shopId: s.shop.id,
+    clientId: id,
     ownerType: "job",
     ownerId: String(s.job.id),
     objectKey: key,

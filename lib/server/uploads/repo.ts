@@ -8,12 +8,18 @@ import { models } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
 
 // Attachment rows, and the ownership checks that keep one shop's files away from another's.
-export type StoredAttachment = AttachmentView & { shopId: number; objectKey: string; thumbKey: string | null };
+export type StoredAttachment = AttachmentView & {
+  shopId: number;
+  clientId: string;
+  objectKey: string;
+  thumbKey: string | null;
+};
 
 export function reshapeAttachment(a: Attachment): StoredAttachment {
   return {
     id: a.id,
     shopId: a.shopId,
+    clientId: a.clientId,
     ownerType: a.ownerType,
     ownerId: a.ownerId,
     contentType: a.contentType,
@@ -31,14 +37,21 @@ export function reshapeAttachment(a: Attachment): StoredAttachment {
 
 /** The public view: no storage keys, no shop id. */
 export function toView(a: StoredAttachment): AttachmentView {
-  const { shopId: _s, objectKey: _o, thumbKey: _t, ...view } = a;
+  const { shopId: _s, clientId: _c, objectKey: _o, thumbKey: _t, ...view } = a;
   return view;
 }
 
-/** Any shop's attachment with this id (ids are client UUIDs, unique across shops). */
+/** Any shop's attachment with this id (the server's own UUID). */
 export async function findAttachmentById(id: string, t?: Transaction): Promise<StoredAttachment | null> {
   const { Attachment } = models();
   const a = await Attachment.findByPk(id, { transaction: t });
+  return a ? reshapeAttachment(a) : null;
+}
+
+/** This shop's attachment sent under the device's `clientId`; another shop's is never seen. */
+export async function findByClientId(shopId: number, clientId: string): Promise<StoredAttachment | null> {
+  const { Attachment } = models();
+  const a = await Attachment.findOne({ where: { shopId, clientId } });
   return a ? reshapeAttachment(a) : null;
 }
 
@@ -113,6 +126,7 @@ export async function insertAttachment(t: Transaction, a: NewAttachment): Promis
     {
       id: a.id,
       shopId: a.shopId,
+      clientId: a.clientId,
       ownerType: a.ownerType,
       ownerId: a.ownerId,
       objectKey: a.objectKey,

@@ -11,7 +11,7 @@ import { AppError, invalid } from "@/lib/server/core/errors";
 import { deleteObject, putObject } from "@/lib/server/uploads/storage";
 import { cleanFileName, makeThumbnail, sniffType, tooLarge } from "@/lib/server/uploads/content";
 import {
-  findAttachmentById,
+  findByClientId,
   findOwnerOrThrow,
   insertAttachment,
   linkCertificate,
@@ -21,7 +21,9 @@ import {
 } from "@/lib/server/uploads/repo";
 
 // POST /api/attachments: one file with its owner. A resend with the same clientId (the tablet
-// retrying a photo taken offline) returns the attachment already stored, never a duplicate.
+// retrying a photo taken offline) returns the attachment already stored, never a duplicate. The
+// clientId is looked up in the actor's shop only, and the stored file gets an id of the server's:
+// a clientId another shop has used is answered like a fresh one and tells nothing of that shop.
 const UPLOAD_ROLES = { job: BENCH_ROLES, reading: BENCH_ROLES, instrument: ["admin"] } as const;
 // Room for the multipart boundaries and the text fields around the file.
 const MULTIPART_SLACK = 64 * 1024;
@@ -66,10 +68,10 @@ function checkRole(actor: Actor, fields: UploadFields): void {
   }
 }
 
-/** The earlier upload with this clientId, when it is the same shop's and the same owner's. */
-function sameUpload(existing: StoredAttachment, actor: Actor, fields: UploadFields): AttachmentView {
+/** The shop's earlier upload with this clientId, when it is for the same owner. */
+function sameUpload(existing: StoredAttachment, fields: UploadFields): AttachmentView {
   const sameOwner = existing.ownerType === fields.ownerType && existing.ownerId === fields.ownerId;
-  if (existing.shopId !== actor.shopId || !sameOwner) {
+  if (!sameOwner) {
     throw new AppError("conflict", "This clientId was already used for another file; make a new UUID for each file");
   }
   return toView(existing);
@@ -81,8 +83,9 @@ async function store(actor: Actor, fields: UploadFields, file: File, buf: Buffer
   await putObject(key, buf, mime);
   if (thumb && thumbKey) await putObject(thumbKey, thumb, "image/jpeg");
   const row = {
-    id: fields.clientId,
+    id: randomUUID(),
     shopId: actor.shopId,
+    clientId: fields.clientId,
     ownerType: fields.ownerType,
     ownerId: fields.ownerId,
     objectKey: key,
@@ -120,8 +123,8 @@ async function store(actor: Actor, fields: UploadFields, file: File, buf: Buffer
   } catch (err) {
     // Two sends of the same photo raced; the other one won. Drop our copy, return theirs.
     await Promise.allSettled([deleteObject(key), ...(thumbKey ? [deleteObject(thumbKey)] : [])]);
-    const existing = err instanceof UniqueConstraintError ? await findAttachmentById(fields.clientId) : null;
-    if (existing) return { attachment: sameUpload(existing, actor, fields), created: false };
+    const existing = err instanceof UniqueConstraintError ? await findByClientId(actor.shopId, fields.clientId) : null;
+    if (existing) return { attachment: sameUpload(existing, fields), created: false };
     throw err;
   }
 }
@@ -130,8 +133,8 @@ export async function acceptUpload(actor: Actor, req: Request): Promise<UploadRe
   const max = env().UPLOAD_MAX_BYTES;
   const { fields, file } = await readForm(req, max);
   checkRole(actor, fields);
-  const existing = await findAttachmentById(fields.clientId);
-  if (existing) return { attachment: sameUpload(existing, actor, fields), created: false };
+  const existing = await findByClientId(actor.shopId, fields.clientId);
+  if (existing) return { attachment: sameUpload(existing, fields), created: false };
   const owner = await findOwnerOrThrow(actor.shopId, fields.ownerType, fields.ownerId);
   refuseLocked(owner);
   if (file.size > max) throw tooLarge(file.size, max);
