@@ -9,7 +9,9 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
   await qi.addColumn("attachments", "client_id", { type: DataTypes.CHAR(36), allowNull: true });
   await qi.sequelize.query("UPDATE attachments SET client_id = id");
   await qi.sequelize.query("ALTER TABLE attachments MODIFY client_id CHAR(36) NOT NULL");
-  await qi.addIndex("attachments", ["shop_id", "client_id"], {
+  // client_id first: an index led by shop_id would take over the shop_id foreign key's own index,
+  // and down could then not drop it.
+  await qi.addIndex("attachments", ["client_id", "shop_id"], {
     name: "attachments_shop_client_unique",
     unique: true,
   });
