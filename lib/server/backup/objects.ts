@@ -18,11 +18,11 @@ import { objectFile, type ObjectEntry } from "./manifest";
 export type Store = { client: S3Client; bucket: string };
 
 // Pages of the store's own size (no MaxKeys: the local fake fails on a page cut short by one).
-async function* listKeys(store: Store): AsyncGenerator<string> {
+async function* listObjects(store: Store): AsyncGenerator<{ key: string; size: number }> {
   let token: string | undefined;
   do {
     const page = await store.client.send(new ListObjectsV2Command({ Bucket: store.bucket, ContinuationToken: token }));
-    for (const o of page.Contents ?? []) if (o.Key) yield o.Key;
+    for (const o of page.Contents ?? []) if (o.Key) yield { key: o.Key, size: o.Size ?? -1 };
     token = page.IsTruncated ? page.NextContinuationToken : undefined;
   } while (token);
 }
@@ -41,14 +41,14 @@ export async function checkBucket(store: Store): Promise<void> {
 }
 
 export async function storeIsEmpty(store: Store): Promise<boolean> {
-  for await (const _key of listKeys(store)) return false;
+  for await (const _object of listObjects(store)) return false;
   return true;
 }
 
 /** Copies every object of the bucket into `<folder>/objects/…`, returning what the manifest lists. */
 export async function copyObjectsOut(store: Store, folder: string): Promise<ObjectEntry[]> {
   const entries: ObjectEntry[] = [];
-  for await (const key of listKeys(store)) {
+  for await (const { key } of listObjects(store)) {
     const out = await store.client.send(new GetObjectCommand({ Bucket: store.bucket, Key: key }));
     if (!out.Body) throw new Error(`The store returned no content for object ${key}`);
     const file = objectFile(key, sha256Of(key));
@@ -73,9 +73,20 @@ export async function copyObjectsIn(store: Store, folder: string, items: ObjectE
   }
 }
 
+async function heldSizes(store: Store): Promise<Map<string, number>> {
+  const held = new Map<string, number>();
+  for await (const o of listObjects(store)) held.set(o.key, o.size);
+  return held;
+}
+
+/** The backup's objects the store does not hold at their backed-up size, after a restore. */
+export async function objectsNotIntact(store: Store, items: ObjectEntry[]): Promise<string[]> {
+  const held = await heldSizes(store);
+  return items.filter((o) => held.get(o.key) !== o.bytes).map((o) => o.key);
+}
+
 /** The keys of `wanted` the store does not hold. */
 export async function missingKeys(store: Store, wanted: string[]): Promise<string[]> {
-  const held = new Set<string>();
-  for await (const key of listKeys(store)) held.add(key);
+  const held = await heldSizes(store);
   return wanted.filter((k) => !held.has(k));
 }

@@ -4,7 +4,7 @@ import { loadDump, type DbConfig } from "./database";
 import { attachmentKeys, emptyDatabase, rowCounts, tablesWithRows, type RowCounts } from "./db-state";
 import { verifyFolder } from "./files";
 import type { BackupManifest } from "./manifest";
-import { checkBucket, copyObjectsIn, missingKeys, storeIsEmpty, type Store } from "./objects";
+import { checkBucket, copyObjectsIn, missingKeys, objectsNotIntact, storeIsEmpty, type Store } from "./objects";
 
 export type RestoreOptions = {
   folder: string;
@@ -78,6 +78,12 @@ export async function restoreBackup(opts: RestoreOptions): Promise<RestoreResult
   }
   say(`Putting ${manifest.objects.count} object(s) back into bucket ${opts.store.bucket} …`);
   await copyObjectsIn(opts.store, opts.folder, manifest.objects.items);
+  const damaged = await objectsNotIntact(opts.store, manifest.objects.items);
+  if (damaged.length)
+    throw new Error(
+      `${damaged.length} object(s) did not arrive in bucket ${opts.store.bucket} at their backed-up size ` +
+        `(first: ${damaged[0]}). Check the store, then run the restore again with --force.`,
+    );
 
   return {
     manifest,

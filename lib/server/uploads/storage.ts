@@ -15,6 +15,9 @@ export function s3Client(): S3Client {
       ...(e.S3_ENDPOINT ? { endpoint: e.S3_ENDPOINT } : {}),
       forcePathStyle: e.S3_FORCE_PATH_STYLE,
       credentials: { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY },
+      // Checksums only where S3 requires them: with a streamed body (a restore) the SDK would
+      // otherwise send aws-chunked trailers, which S3-compatible stores (s3rver) keep as the content.
+      requestChecksumCalculation: "WHEN_REQUIRED",
     });
   }
   return holder.__tenthwiseS3;
