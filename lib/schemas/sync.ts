@@ -85,8 +85,8 @@ const kept = (field: keyof typeof READING_PRECISION, what: string) => (x: number
 const temperature = (field: "partTempC" | "gaugeTempC", what: string) =>
   z
     .number(`${what} must be a number in °C`)
-    .min(-30, `${what} below -30 °C cannot be right; check it`)
-    .max(150, `${what} above 150 °C cannot be right; let the part cool and measure again`)
+    .min(-30, { message: `${what} below -30 °C cannot be right; check it`, abort: true })
+    .max(150, { message: `${what} above 150 °C cannot be right; let the part cool and measure again`, abort: true })
     .superRefine(kept(field, what));
 
 // The earliest and latest takenAt the readings table keeps (DATETIME holds years 1000 to 9999).
@@ -113,7 +113,8 @@ const stationId = z
 /** One reading as the tablet queues it. `value` is in `unit`, exactly as entered (or the dial's diameter). */
 export const pushReadingSchema = z
   .object({
-    id: z.uuidv4("The reading id must be a UUID v4 made on the tablet"),
+    // Ids in their canonical (lower-case) spelling: the database compares them case-blind.
+    id: z.uuidv4("The reading id must be a UUID v4 made on the tablet").toLowerCase(),
     jobId: z
       .number("Job id must be a number")
       .int("Job id must be a whole number")
@@ -147,7 +148,7 @@ export const pushReadingSchema = z
       .trim()
       .max(SKIP_REASON_MAX, { error: (iss) => skipReasonTooLong(String(iss.input ?? "").trim().length) })
       .optional(),
-    supersedes: z.uuid("supersedes must be the id of the reading this one corrects").optional(),
+    supersedes: z.uuid("supersedes must be the id of the reading this one corrects").toLowerCase().optional(),
     note: storedText("The note").max(500, "Keep the note under 500 characters").optional(),
     takenAt: z.iso
       .datetime({ offset: true, message: "takenAt must be an ISO date-time such as 2026-12-01T09:30:00Z" })

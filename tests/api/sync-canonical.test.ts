@@ -161,6 +161,20 @@ describe("POST /api/sync: the fuzzed batches of issue 12", () => {
     expect(again.status).toBe(200);
     expect(again.body.results[0]).toMatchObject({ status: "accepted", replay: true });
   });
+
+  it("takes an id in capitals as the same reading: a replay, one row, a correction's target", async () => {
+    const r = { ...valid(), stationId: "bore/3/top/A" };
+    expect((await push(a.users.machinist, [r])).status).toBe(200);
+    const upper = await push(a.users.machinist, [{ ...r, id: r.id.toUpperCase() }]);
+    expect(upper.status).toBe(200);
+    expect(upper.body.results[0]).toMatchObject({ status: "accepted", replay: true, id: r.id });
+    const s = { ...valid(), stationId: "bore/3/mid/A" };
+    const both = await push(a.users.machinist, [{ ...s, id: s.id.toUpperCase() }, s]);
+    expect(both.status).toBe(200);
+    expect(await stored([s.id])).toBe(1);
+    const fix = { ...valid(), stationId: "bore/3/top/A", value: 4.0303, supersedes: r.id.toUpperCase() };
+    expect((await push(a.users.machinist, [fix])).status).toBe(200);
+  });
 });
 
 describe("POST /api/sync with hostile input (property)", () => {

@@ -73,7 +73,9 @@ async function batchContext(
     actor.shopId,
     items.map((i) => i.jobId),
   );
-  const [revisions, instruments, known] = await reads;
+  const [revisions, instruments, found] = await reads;
+  // Keyed by the canonical (lower-case) id: a row stored before ids were made canonical is still found.
+  const known = new Map([...found].map(([id, r]) => [id.toLowerCase(), r]));
   const jobs = await batchJobs(t, actor.shopId, revisions, prefetched);
   const existing = new Map(items.flatMap((i) => (known.has(i.id) ? [[i.id, known.get(i.id)!] as const] : [])));
   const targets = new Map<string, { shopId: number; jobId: number; stationId: string }>(

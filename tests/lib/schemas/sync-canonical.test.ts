@@ -137,7 +137,7 @@ describe("the sync schema's stored form", () => {
     ]);
   });
 
-  it("stores the device id and the note composed (NFC), line ends as LF", () => {
+  it("stores the device id and the note composed (NFC), line ends as LF, ids in lower case", () => {
     expect(pushBatchSchema.parse({ deviceId: " tablet-e\u0301 ", readings: [] }).deviceId).toBe("tablet-\u00e9");
     const r = pushReadingSchema.parse({
       id: "6f1c2a8e-3b4d-4e5f-8a9b-0c1d2e3f4a5b",
@@ -149,5 +149,15 @@ describe("the sync schema's stored form", () => {
       takenAt: "2026-12-03T08:00:00Z",
     });
     expect(r.note).toBe("honed\ncheck \u00e9");
+    // RFC 9562, section 4: a UUID is written in lower case and read in either case.
+    const upper = pushReadingSchema.parse({
+      ...r,
+      id: "6F1C2A8E-3B4D-4E5F-8A9B-0C1D2E3F4A5B",
+      supersedes: "7F1C2A8E-3B4D-4E5F-8A9B-0C1D2E3F4A5B",
+    });
+    expect([upper.id, upper.supersedes]).toEqual([
+      "6f1c2a8e-3b4d-4e5f-8a9b-0c1d2e3f4a5b",
+      "7f1c2a8e-3b4d-4e5f-8a9b-0c1d2e3f4a5b",
+    ]);
   });
 });
