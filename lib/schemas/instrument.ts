@@ -8,6 +8,7 @@ import {
   type MeasureUnit,
 } from "@/lib/domain";
 import { storedText } from "./stored-text";
+import { GAUGE_FIGURE_PRECISION, keptBy } from "./stored-figure";
 
 // One schema for the gauge form and the instruments routes, plus the
 // calibration status words every screen uses.
@@ -33,7 +34,11 @@ const positive = (what: string) =>
     .finite(`${what} must be a number`)
     .positive(`${what} must be above zero`);
 
-const rangeEnd = (what: string) => z.number({ error: `Enter ${what} as a number` }).finite(`Enter ${what} as a number`);
+const rangeEnd = (what: string) =>
+  z
+    .number({ error: `Enter ${what} as a number` })
+    .finite(`Enter ${what} as a number`)
+    .superRefine(keptBy(GAUGE_FIGURE_PRECISION, `${what[0].toUpperCase()}${what.slice(1)}`));
 /** The range as stored and merged on an edit: a gauge registered before ranges were kept has none. */
 const storedRangeEnd = (what: string) => rangeEnd(what).nullable();
 
@@ -49,11 +54,12 @@ export const instrumentFields = z.object({
     .min(1, "Enter the serial number engraved on the gauge")
     .max(64, "Keep the serial under 64 characters"),
   unit: z.enum(MEASURE_UNITS, { error: "Choose the unit the gauge reads: in, mm, lbf·ft or N·m" }),
-  resolution: positive("Resolution"),
+  resolution: positive("Resolution").superRefine(keptBy(GAUGE_FIGURE_PRECISION, "Resolution")),
   expandedU: z
     .number({ error: "Expanded uncertainty U must be a number" })
     .finite("Expanded uncertainty U must be a number")
-    .min(0, "Expanded uncertainty U cannot be negative"),
+    .min(0, "Expanded uncertainty U cannot be negative")
+    .superRefine(keptBy(GAUGE_FIGURE_PRECISION, "Expanded uncertainty U")),
   // The measuring range in the gauge's unit; null only on a gauge registered before ranges were kept.
   rangeMin: storedRangeEnd("the start of the measuring range"),
   rangeMax: storedRangeEnd("the top of the measuring range"),

@@ -4,15 +4,17 @@
 // left empty; one that is given must be a size above zero. Whether a size is plausible for the
 // engine is a separate check.
 import { z } from "zod";
-import { JOB_SIZE_WORDS, type JobSize } from "@/lib/domain";
+import { JOB_SIZE_WORDS, type ColumnPrecision, type JobSize } from "@/lib/domain";
+import { ENGINE_SIZE_PRECISION, FINISHED_SIZE_PRECISION, keptBy } from "./stored-figure";
 
-const optionalSize = (what: string) =>
+const optionalSize = (what: string, precision: ColumnPrecision) =>
   z
     .number({ error: `Enter the ${what} as a number, or leave it empty` })
     .positive(`The ${what} is a size above zero; enter it or leave it empty`)
     .max(10000, `Check the ${what}: it is too large`)
+    .superRefine(keptBy(precision, `The ${what}`))
     .nullish();
-const finishedSize = (size: JobSize) => optionalSize(JOB_SIZE_WORDS[size]);
+const finishedSize = (size: JobSize) => optionalSize(JOB_SIZE_WORDS[size], FINISHED_SIZE_PRECISION);
 
 export const finishedSizesSchema = z.strictObject({
   bore: finishedSize("bore"),
@@ -26,6 +28,6 @@ export type FinishedSizes = Record<JobSize, number | null>;
 
 /** The engine's standard journal sizes, when known (a finished journal is over or under them). */
 export const engineJournalFields = {
-  nominalMainJournal: optionalSize("standard main journal size"),
-  nominalRodJournal: optionalSize("standard rod journal size"),
+  nominalMainJournal: optionalSize("standard main journal size", ENGINE_SIZE_PRECISION),
+  nominalRodJournal: optionalSize("standard rod journal size", ENGINE_SIZE_PRECISION),
 };

@@ -17,6 +17,7 @@ import {
 import { FUELS, UNIT_SYSTEMS, type Fuel, type UnitSystem } from "@/lib/schemas/enums";
 import { engineJournalFields, finishedSizesSchema, type FinishedSizes } from "./job-sizes";
 import { storedText } from "./stored-text";
+import { ENGINE_SIZE_PRECISION, keptBy } from "./stored-figure";
 import type { LimitValues } from "./spec";
 
 /** Statuses the desk sets: the open ones; released and closed belong to the release step. */
@@ -41,7 +42,8 @@ const size = (what: string) =>
   z
     .number({ error: `Enter the ${what} as a number` })
     .positive(`The ${what} is above zero`)
-    .max(10000, `Check the ${what}: it is too large`);
+    .max(10000, `Check the ${what}: it is too large`)
+    .superRefine(keptBy(ENGINE_SIZE_PRECISION, `The ${what}`));
 const material = (what: string) => z.enum(MATERIALS, { error: `Pick the ${what} material from the list` });
 
 // Plain (not strict) objects: the form keeps what was typed for the other choice, and the

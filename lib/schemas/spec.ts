@@ -58,6 +58,7 @@ import {
 } from "@/lib/domain";
 import { UNIT_SYSTEMS, type UnitSystem } from "@/lib/schemas/enums";
 import { stationPatternProblem } from "./spec-pattern";
+import { LIMIT_PRECISION, keptBy } from "./stored-figure";
 
 export const CHARACTERISTIC_IDS = Object.keys(CHARACTERISTICS) as [CharacteristicId, ...CharacteristicId[]];
 export const BUILD_KINDS = ["street", "endurance", "marine", "diesel", "drag", "vintage", "industrial"] as const;
@@ -94,7 +95,8 @@ function tolerances(l: { tolPlus?: number | null; tolMinus?: number | null }, ad
   }
 }
 
-const num = (what: string) => z.number({ error: `Enter the ${what} as a number` });
+const num = (what: string) =>
+  z.number({ error: `Enter the ${what} as a number` }).superRefine(keptBy(LIMIT_PRECISION, `The ${what}`));
 const optNum = (what: string) => num(what).nullish();
 
 export const limitSchema = z
