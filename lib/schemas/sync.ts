@@ -10,7 +10,11 @@
 //   413 payload_too_large                      more than MAX_BATCH readings: split the batch and send again
 //   422 invalid, no `results`                  the batch itself is malformed (not an object, no deviceId,
 //                                              readings not an array): `error.fields` says where
-//                                              (keys "_", "deviceId", "readings")
+//                                              (keys "_", "deviceId", "readings"), or the database refused
+//                                              a value the schema let through (a field name, or "_"):
+//                                              NOTHING was written; send the readings one at a time
+//   503 unavailable + Retry-After (s)          the server cannot reach its database: nothing written; send
+//                                              again no sooner than `error.retryAfter` seconds (429 likewise)
 //   422 invalid + `results`                    one or more readings were refused. NOTHING was written.
 //   409 job_locked + `results`                 same, and every refused reading is for a released/closed job
 //     Error replies carry `{ error: { code, message, fields }, results, cursor }`; fields are keyed
