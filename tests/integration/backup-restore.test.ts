@@ -17,7 +17,7 @@ import { verifyRelease } from "@/lib/server/release/hash-verify";
 import { s3Client } from "@/lib/server/uploads/storage";
 import { migrations } from "@/migrations";
 import { Attachment } from "@/models";
-import { createRecordJob, type RecordJob } from "../support/record-fixtures";
+import { addJobPhoto, createRecordJob, type RecordJob } from "../support/record-fixtures";
 
 function dbFromUrl(url: string): DbConfig {
   const u = new URL(url);
@@ -138,6 +138,44 @@ describe("a restored backup", () => {
       expect((await verify(jobs[0].shop.id, jobs[0].job.id)).status).toBe("changed");
       await query(target, "UPDATE readings SET value_entered = value_entered - 0.001 WHERE id = ?", [reading]);
     });
+  });
+});
+
+describe("a backup taken while photos are being added", () => {
+  it("names no photo it lacks: the dump comes first, the objects after it", async () => {
+    let adding = true;
+    const added: string[] = [];
+    const adder = (async () => {
+      while (adding) added.push(await addJobPhoto(jobs[0]));
+    })();
+    const store = { client: s3Client(), bucket: env().S3_BUCKET };
+    const during = await mkdtemp(join(tmpdir(), "tw-backups-during-"));
+    try {
+      await new Promise((r) => setTimeout(r, 300));
+      const taken = await takeBackup({
+        db: source(),
+        store,
+        into: during,
+        app: { name: "tenthwise", version: "test" },
+      });
+      adding = false;
+      await adder;
+      const second = `tw-restore-${randomUUID().slice(0, 8)}`;
+      await s3Client().send(new CreateBucketCommand({ Bucket: second }));
+      const restored = await restoreBackup({
+        folder: taken.folder,
+        db: target,
+        store: { ...store, bucket: second },
+        force: true,
+        knownMigrations,
+      });
+      expect(added.length).toBeGreaterThan(0);
+      expect(restored.missingObjects).toEqual([]);
+    } finally {
+      adding = false;
+      await adder;
+      await rm(during, { recursive: true, force: true });
+    }
   });
 });
 
