@@ -20,7 +20,10 @@ export class Shop extends Model<InferAttributes<Shop>, InferCreationAttributes<S
   declare email: CreationOptional<string | null>;
   declare phone: CreationOptional<string | null>;
   declare address: CreationOptional<string | null>;
-  /** Empty while a shop started from the public page waits for its admin to confirm the e-mail. */
+  /**
+   * Empty while a shop started from the public page waits for its admin to confirm the e-mail; a
+   * shop made any other way (the command, the demo, tests) is open from the start.
+   */
   declare activatedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -39,7 +42,7 @@ export function initShop(sequelize: Sequelize): void {
       email: str(255, true),
       phone: str(40, true),
       address: text(),
-      activatedAt: datetime(true),
+      activatedAt: datetime(true, true),
       ...stamps(),
     },
     modelOptions(sequelize, "shops", "both"),

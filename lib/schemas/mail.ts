@@ -1,7 +1,13 @@
 // The mail feature's shared words: what kinds of message the outbox holds, and what the admin's
 // mail page shows of the outbox and of the development mailbox.
 
-export const MAIL_KINDS = ["build_record", "record_voided", "flag_digest", "ready_for_release"] as const;
+export const MAIL_KINDS = [
+  "build_record",
+  "record_voided",
+  "flag_digest",
+  "ready_for_release",
+  "shop_verification",
+] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 
 /** A message of the outbox as the admin's mail page shows it (GET /api/mail/outbox: times as ISO text). */

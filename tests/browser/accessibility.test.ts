@@ -75,7 +75,9 @@ describe("accessibility audit (axe-core, WCAG 2.2 AA), bright and dim", () => {
   it("sign-in and the customer's record link", { timeout: LONG }, async () => {
     const record = await createRecordJob();
     const token = createCustomerToken(record.release!.id);
-    expect(await audit(null, async () => ["/sign-in", `/r/${token}`])).toEqual([]);
+    expect(
+      await audit(null, async () => ["/sign-in", "/start", "/start/confirm/not-a-real-token", `/r/${token}`]),
+    ).toEqual([]);
   });
 
   it("the lead's screens", { timeout: LONG }, async () => {

@@ -1,6 +1,7 @@
 import { redirect } from "next/navigation";
 import { SignInScreen } from "@/components/sign-in-screen";
 import { currentPageActor, ROLE_HOME } from "@/lib/server/core/access";
+import { publicSignUpOpen } from "@/lib/server/shops/signup";
 
 export const metadata = { title: "Sign in" };
 
@@ -9,5 +10,5 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   if (actor) redirect(ROLE_HOME[actor.role]);
   const { next } = await searchParams;
   const safeNext = next && next.startsWith("/") && !next.startsWith("//") ? next : undefined;
-  return <SignInScreen next={safeNext} />;
+  return <SignInScreen next={safeNext} startShop={publicSignUpOpen()} />;
 }

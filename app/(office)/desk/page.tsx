@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { requirePageActor } from "@/lib/server/core/access";
 import { JobsBoard } from "@/components/desk/jobs-board";
+import { FirstJobGuide } from "@/components/desk/first-job-guide";
 
 export const metadata = { title: "Jobs" };
 
@@ -21,6 +22,7 @@ export default async function DeskHome() {
           </Link>
         )}
       </div>
+      <FirstJobGuide role={actor.role} />
       <JobsBoard canCreate={lead} />
     </main>
   );

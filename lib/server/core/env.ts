@@ -87,6 +87,9 @@ const schema = z
     LINK_TTL_DAYS: z.coerce.number().positive().default(30),
     // Where `npm run backup` puts its dated folders (relative to the working directory, or absolute).
     BACKUP_DIR: z.string().min(1).default("backups"),
+    // Whether anyone may start a shop from the public page (/start); "off" for a host that makes
+    // shops itself with `npm run shop:create`.
+    PUBLIC_SIGNUP: z.enum(["on", "off"], { error: 'PUBLIC_SIGNUP is "on" or "off"' }).default("on"),
     // The build folder this server runs from (next.config.mjs distDir); /sw.js serves the
     // service worker built with that very build, so its precache list matches what is served.
     TW_DIST_DIR: z.string().min(1).default(".next"),

@@ -5,6 +5,7 @@ import type { OutboxRow } from "@/lib/server/mail/repo";
 import { day } from "@/lib/server/record/format";
 import { buildRecordPdf } from "@/lib/server/record/pdf";
 import type { BuildRecord } from "@/lib/schemas/record";
+import { composeShopVerification, SHOP_MAIL_KIND } from "@/lib/server/shops/verify-mail";
 
 // Turns an outbox row into the message that goes out. The build record is rendered when it is
 // sent (not inside the release transaction), and its customer link is made then, so the link's
@@ -47,7 +48,12 @@ async function composeBuildRecord(row: OutboxRow): Promise<OutgoingMail> {
 }
 
 export async function composeMail(row: OutboxRow): Promise<OutgoingMail> {
-  const base = row.kind === "build_record" ? await composeBuildRecord(row) : composeWritten(row);
+  const base =
+    row.kind === "build_record"
+      ? await composeBuildRecord(row)
+      : row.kind === SHOP_MAIL_KIND
+        ? await composeShopVerification(row)
+        : composeWritten(row);
   return {
     ...base,
     headers: {

@@ -5,6 +5,7 @@ import { AppError } from "@/lib/server/core/errors";
 import { clearLimits, clearLimitsStartingWith, countOne, tooManyAttempts } from "@/lib/server/throttle/throttle";
 import { findSignInCandidates, markSignedIn, type UserRecord } from "@/lib/server/users/repo";
 import { accountKeys, named, readSignInCounts, shutOutUntil, signInLimits } from "@/lib/server/users/sign-in-limits";
+import { assertShopOpen } from "@/lib/server/shops/signup";
 
 // Wrong password and unknown user get the same words, the same work (a bcrypt compare) and the same
 // counting, so no answer tells whether an e-mail has an account. The limits: sign-in-limits.ts.
@@ -33,6 +34,7 @@ export async function signIn(email: string, password: string, address: string): 
     if (after.address.lockedUntil) throw tooManyAttempts(after.address.lockedUntil, waitWords);
     throw new AppError("unauthorized", SIGN_IN_REFUSED);
   }
+  await assertShopOpen(match);
   // This address's own mistakes on this e-mail are forgiven; the e-mail's count from everywhere and
   // the address's count over all e-mails stay, so signing in to one's own account resets no attack.
   await clearLimits([limits[0].key]);

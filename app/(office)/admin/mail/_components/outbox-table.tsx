@@ -7,6 +7,7 @@ const KIND_WORDS: Record<MailKind, string> = {
   record_voided: "Record voided, to customer",
   flag_digest: "New flags, to a lead",
   ready_for_release: "Ready for release, to an inspector",
+  shop_verification: "E-mail confirmation for a new shop",
 };
 
 const at = (d: Date) => `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
