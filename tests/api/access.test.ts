@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import { z } from "zod";
 import { getJobOrThrow } from "@/lib/server/jobs/repo";
 import { authed, parseId, readJson } from "@/lib/server/core/route";
-import { createShop } from "../support/factories";
+import { createShop, insertReading } from "../support/factories";
 import { asUser, call } from "../support/requests";
 
 const adminOnly = authed(["admin"], async ({ actor }) => ({ shopId: actor.shopId }));
@@ -45,5 +45,35 @@ describe("authed()", () => {
     expect(invalid.status).toBe(422);
     expect(invalid.body.error.fields.name).toEqual(["Give the gauge a name"]);
     expect(invalid.body.error.fields.count).toBeDefined();
+  });
+});
+
+describe("shops started with createShop stay apart", () => {
+  it("ticks the first-job guide from the caller's shop only, for leads and admins", async () => {
+    const { createShop: createRealShop } = await import("@/lib/server/shops/create-shop");
+    const { GET: GUIDE } = await import("@/app/api/shops/guide/route");
+    const { User } = await import("@/models");
+    const busy = await createShop();
+    await insertReading(busy, "bore/1/top/A", 4.0302, 0);
+    const tag = Math.random().toString(36).slice(2, 10);
+    const made = await createRealShop({
+      shopName: `Apart Machine ${tag}`,
+      unitSystem: "in",
+      adminName: "Ida Apart",
+      email: `ida-${tag}@apart.example`,
+      passwordHash: "x",
+      activatedAt: new Date(),
+      via: "command",
+    });
+    const admin = (await User.findByPk(made.adminId))!;
+    const fresh = { id: admin.id, shopId: admin.shopId, role: "admin" as const, name: admin.name, email: admin.email };
+    const own = await call(GUIDE, await asUser(fresh, "GET", "/api/shops/guide"));
+    expect(own.status).toBe(200);
+    expect(own.body).toEqual({ done: { gauge: false, sheet: false, job: false, bench: false }, firstJobId: null });
+    const other = await call(GUIDE, await asUser(busy.users.lead, "GET", "/api/shops/guide"));
+    expect(other.body.done).toMatchObject({ job: true, bench: true });
+    expect(other.body.firstJobId).not.toBeNull();
+    expect((await call(GUIDE, await asUser(busy.users.machinist, "GET", "/api/shops/guide"))).status).toBe(403);
+    expect((await call(GUIDE, await asUser(null, "GET", "/api/shops/guide"))).status).toBe(401);
   });
 });

@@ -14,7 +14,9 @@ const run = promisify(execFile);
 
 async function shopCreate(args: string[]) {
   try {
-    const { stdout } = await run("node", ["scripts/with-services.mjs", "scripts/shop-create.ts", ...args], { env: process.env });
+    const { stdout } = await run("node", ["scripts/with-services.mjs", "scripts/shop-create.ts", ...args], {
+      env: process.env,
+    });
     return { code: 0, out: stdout };
   } catch (err) {
     const e = err as { code: number; stdout: string; stderr: string };
