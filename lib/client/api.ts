@@ -8,6 +8,8 @@ export class ApiError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: FieldErrors,
+    /** Seconds the server asked to wait (503 while it cannot reach its database, 429). */
+    readonly retryAfter?: number,
   ) {
     super(message);
   }
@@ -30,6 +32,7 @@ export async function api<T>(url: string, init: RequestInit & { json?: unknown }
       e?.code ?? "http_error",
       e?.message ?? `The server answered ${res.status}`,
       e?.fields,
+      typeof e?.retryAfter === "number" ? e.retryAfter : undefined,
     );
   }
   return body as T;
