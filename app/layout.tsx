@@ -1,5 +1,7 @@
 import type { Metadata, Viewport } from "next";
+import { headers } from "next/headers";
 import localFont from "next/font/local";
+import { NONCE_HEADER } from "@/lib/security-headers";
 import { Providers } from "./providers";
 import "./globals.css";
 
@@ -32,11 +34,14 @@ export const viewport: Viewport = {
 // Applies the saved theme before first paint so the dim bench theme does not flash.
 const themeScript = `try{if(localStorage.getItem("tw-theme")==="dim")document.documentElement.classList.add("dim")}catch(e){}`;
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+// Reading the request renders every page per request, which the script nonce needs (a page
+// prerendered at build time could not carry one; see proxy.ts and lib/security-headers.ts).
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  const nonce = (await headers()).get(NONCE_HEADER) ?? undefined;
   return (
     <html lang="en" className={`${sans.variable} ${mono.variable}`} suppressHydrationWarning>
       <head>
-        <script dangerouslySetInnerHTML={{ __html: themeScript }} />
+        <script nonce={nonce} dangerouslySetInnerHTML={{ __html: themeScript }} />
       </head>
       <body className="min-h-dvh antialiased">
         <Providers>{children}</Providers>

@@ -1,7 +1,7 @@
 /// <reference lib="webworker" />
 // The Tenthwise service worker (built by `serwist build`, configurator mode; see serwist.config.js).
-// The bench is a client shell: its pages are prerendered HTML, precached with every script and
-// style they need, so after one visit the bench opens with no network, cold or after a restart.
+// The bench is a client shell: its pages are precached HTML (serwist.config.js lists them), with
+// every script and style they need, so after one visit the bench opens with no network, cold or after a restart.
 // Data never lives here: readings are in IndexedDB (lib/offline) and /api/* is never cached, so
 // a stale answer can never pass for the server's.
 import type { PrecacheEntry, SerwistGlobalConfig } from "serwist";

@@ -9,8 +9,6 @@ import { Legend } from "./chart-parts";
 import { DeckCard } from "./deck-card";
 import { ProfileCard } from "./profile-card";
 
-const PRINT_TOKENS = `@media print { :root, .dim { --c-paper: 255 255 255; --c-panel: 255 255 255; --c-ink: 0 0 0; --c-muted: 60 60 60; --c-rule: 150 150 150; --c-steel: 40 40 40; } }`;
-
 function Section({
   title,
   note,
@@ -52,9 +50,9 @@ export function MapsView({ jobId }: { jobId: number }) {
   const m = q.data;
   const unit = m.unit === "mm" ? "mm" : "in";
   return (
-    <div className="flex flex-col gap-8">
-      {/* On paper the dim theme's light ink would vanish: print always uses the bright tokens. */}
-      <style>{PRINT_TOKENS}</style>
+    // On paper the charts' lines print in near-black (app/globals.css, [data-print="maps"]); the
+    // page's policy runs no inline <style>, so the rule lives with the other print rules.
+    <div className="flex flex-col gap-8" data-print="maps">
       <div className="flex flex-wrap items-start justify-between gap-4">
         <div className="flex flex-col gap-1">
           <p className="font-mono text-sm text-muted">{m.job.code}</p>

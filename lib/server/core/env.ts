@@ -142,4 +142,7 @@ export function databaseConfig() {
 /** True while `next build` runs (Next sets NEXT_PHASE); background work must not start then. */
 export const isBuildPhase = () => process.env.NEXT_PHASE === "phase-production-build";
 
+/** Served over https in production: the cookie is Secure, browsers are told to keep to https (HSTS). */
+export const servedOverHttps = () => env().NODE_ENV === "production" && env().APP_URL.startsWith("https:");
+
 export const linkSecret = () => env().LINK_SECRET ?? `${env().SESSION_SECRET}:customer-links`;

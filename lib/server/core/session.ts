@@ -1,7 +1,7 @@
 import "server-only";
 import { sealData, unsealData } from "iron-session";
 import { cookies } from "next/headers";
-import { env } from "@/lib/server/core/env";
+import { env, servedOverHttps } from "@/lib/server/core/env";
 import type { Role } from "@/lib/schemas/enums";
 
 // Session type, defaults and options in one module. The cookie is sealed with
@@ -42,7 +42,7 @@ export async function unsealSession(sealed: string | undefined): Promise<Session
 
 export function sessionCookieHeader(value: string, maxAge = ttlSeconds()): string {
   const parts = [`${SESSION_COOKIE}=${value}`, "Path=/", "HttpOnly", "SameSite=Lax", `Max-Age=${maxAge}`];
-  if (env().NODE_ENV === "production" && env().APP_URL.startsWith("https:")) parts.push("Secure");
+  if (servedOverHttps()) parts.push("Secure");
   return parts.join("; ");
 }
 
