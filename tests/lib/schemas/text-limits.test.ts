@@ -35,6 +35,18 @@ describe("skip reason length", () => {
     expect(skipReasonProblem("   ")).toBe("Say why the station is skipped");
   });
 
+  it("refuses on the tablet, in the server's words, text the server cannot store", () => {
+    const reason = "worn\u0000";
+    const words = skipReasonProblem(reason);
+    expect(words).toBe(
+      "The skip reason holds an invisible control character (U+0000) at character 5, which cannot be stored; " +
+        "delete it (tabs and line breaks are fine)",
+    );
+    expect(pushReadingSchema.safeParse(skip(reason)).error?.issues[0].message).toBe(words);
+    // Counted as stored: 255 composed letters typed decomposed (Unicode Standard Annex #15, NFC) fit.
+    expect(skipReasonProblem("e\u0301".repeat(255))).toBeUndefined();
+  });
+
   it("is refused by the tablet's store before anything is written", async () => {
     const db = new BenchDb(`skip-limit-${Date.now()}`);
     const ctx = { deviceId: "tab-test", takenBy: 7 };
