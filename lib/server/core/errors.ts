@@ -62,7 +62,7 @@ export const OUTAGE_RETRY_AFTER_S = 5;
 export function unavailable(): AppError {
   return new AppError(
     "unavailable",
-    "The server cannot reach its database just now; try again in a moment (nothing was saved)",
+    "The server cannot reach its database just now; try again in a moment",
     undefined,
     { "Retry-After": String(OUTAGE_RETRY_AFTER_S) },
   );
