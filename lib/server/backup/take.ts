@@ -35,14 +35,22 @@ export type BackupOptions = {
  * always a finished backup.
  */
 export async function takeBackup(opts: BackupOptions): Promise<{ folder: string; manifest: BackupManifest }> {
-  const say = opts.say ?? (() => undefined);
   const started = opts.now ?? new Date();
   const folder = join(opts.into, backupFolderName(started));
   if (existsSync(folder)) throw new Error(`${folder} already exists; wait a second and run the backup again`);
   const partial = `${folder}.partial`;
   await rm(partial, { recursive: true, force: true });
   await mkdir(partial, { recursive: true, mode: 0o700 });
+  try {
+    return await writeBackup(opts, started, partial, folder);
+  } catch (err) {
+    await rm(partial, { recursive: true, force: true }); // a failed backup leaves nothing that looks like one
+    throw err;
+  }
+}
 
+async function writeBackup(opts: BackupOptions, started: Date, partial: string, folder: string) {
+  const say = opts.say ?? (() => undefined);
   await checkBucket(opts.store);
   const migrations = await migrationsApplied(opts.db);
   say(`Dumping the database ${opts.db.database} (one consistent snapshot) …`);
