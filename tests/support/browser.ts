@@ -72,8 +72,9 @@ export function sendJson(
   method: "POST" | "PUT" | "PATCH" | "DELETE",
   url: string,
   data: unknown,
+  headers: Record<string, string> = {},
 ) {
-  return request.fetch(url, { method, data, headers: { origin: new URL(BASE_URL).origin } });
+  return request.fetch(url, { method, data, headers: { ...headers, origin: new URL(BASE_URL).origin } });
 }
 
 /**

@@ -1,4 +1,5 @@
 import "server-only";
+import { createHash } from "node:crypto";
 import { AppError } from "@/lib/server/core/errors";
 import {
   clearKeys,
@@ -18,7 +19,13 @@ import {
 export type { ThrottleCount, ThrottleRule };
 export type Limit = Counted;
 
-export const limit = (key: string, rule: ThrottleRule): Limit => ({ key, rule });
+// auth_throttle.throttle_key holds 191 characters; a longer key is kept by its SHA-256 (callers that
+// clear by prefix keep their keys short, as sign-in does with long e-mails).
+const KEY_MAX = 191;
+const fitted = (key: string) =>
+  key.length <= KEY_MAX ? key : `${key.slice(0, 40)}#${createHash("sha256").update(key).digest("hex")}`;
+
+export const limit = (key: string, rule: ThrottleRule): Limit => ({ key: fitted(key), rule });
 
 /** Each limit's events in its window and its lock while ahead, in the order given. */
 export const readLimits = (limits: Limit[]) => readCounts(limits);

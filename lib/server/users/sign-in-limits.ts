@@ -1,4 +1,5 @@
 import "server-only";
+import { createHash } from "node:crypto";
 import { addressBucket } from "@/lib/server/core/ip";
 import { limit, readLimits, type ThrottleCount } from "@/lib/server/throttle/throttle";
 
@@ -22,7 +23,11 @@ export const SIGN_IN_RULES = {
 
 export type SignInCounts = { pair: ThrottleCount; account: ThrottleCount; address: ThrottleCount };
 
-const norm = (email: string) => email.trim().toLowerCase();
+/** The e-mail as keys hold it: lower-case; a long one by its SHA-256, so every key fits its column. */
+function norm(email: string): string {
+  const lower = email.trim().toLowerCase();
+  return lower.length <= 100 ? lower : `sha256:${createHash("sha256").update(lower).digest("hex")}`;
+}
 
 /** The three counters one sign-in attempt touches. */
 export function signInLimits(email: string, address: string) {
