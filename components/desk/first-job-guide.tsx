@@ -32,13 +32,17 @@ function stepsFor(role: Role, firstJobId: number | null): Record<GuideStep, Step
       title: "Create a job",
       what: "Name the customer and the engine, state the finished sizes, and choose the sheet the job copies.",
       href: admin ? "/admin/users" : "/desk/jobs/new",
-      action: admin ? "A lead creates jobs: invite one in People" : "New job",
+      action: admin ? "A lead creates jobs: invite one in Users" : "New job",
     },
     bench: {
       title: "Open it on the bench",
       what: "On the tablet, sign in as a machinist or the lead, open the job and log its first reading.",
-      href: firstJobId ? `/bench/${firstJobId}` : "/bench",
-      action: firstJobId ? "Open the job on the bench" : "Open the bench",
+      href: admin ? null : firstJobId ? `/bench/${firstJobId}` : "/bench",
+      action: admin
+        ? "A machinist or the lead does this on the bench"
+        : firstJobId
+          ? "Open the job on the bench"
+          : "Open the bench",
     },
   };
 }
