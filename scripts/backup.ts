@@ -23,7 +23,7 @@ async function main() {
   const pkg = JSON.parse(readFileSync("package.json", "utf8")) as { name: string; version: string };
   const started = Date.now();
   const { folder, manifest } = await takeBackup({
-    db: databaseConfig(),
+    db: databaseConfig("owner"),
     store: { client: s3Client(), bucket: env().S3_BUCKET },
     into,
     app: { name: pkg.name, version: pkg.version },

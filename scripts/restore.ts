@@ -13,7 +13,7 @@ async function main() {
   if (positionals.length !== 1) throw new Error(`Name one backup folder. ${USAGE}`);
   const result = await restoreBackup({
     folder: positionals[0],
-    db: databaseConfig(),
+    db: databaseConfig("owner"),
     store: { client: s3Client(), bucket: env().S3_BUCKET },
     force: values.force ?? false,
     knownMigrations: migrations.map((m) => m.name),

@@ -3,6 +3,7 @@
 import { spawn, execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import { ensureNodeModules } from "./lib/deps.mjs";
+import { withoutOwnerAccount } from "./lib/db-accounts.mjs";
 import { ensureSystemPackages } from "./lib/system.mjs";
 import { portIsFree } from "./lib/ports.mjs";
 import { localSecrets } from "./lib/secrets.mjs";
@@ -63,9 +64,11 @@ async function main() {
       { stdio: "inherit", env: appEnv },
     );
     ensureBuild();
+    // The web server gets the app's database account only; the owner's is for db-setup.
+    const serverEnv = withoutOwnerAccount(appEnv);
     server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(PORT), "-H", "0.0.0.0"], {
       stdio: "inherit",
-      env: appEnv,
+      env: serverEnv,
     });
     server.on("exit", (code) => {
       if (!stopping) shutdown(code ?? 1);

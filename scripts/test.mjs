@@ -6,6 +6,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { randomBytes } from "node:crypto";
 import { ensureNodeModules } from "./lib/deps.mjs";
+import { withoutOwnerAccount } from "./lib/db-accounts.mjs";
 import { ensureSystemPackages } from "./lib/system.mjs";
 import { freePort } from "./lib/ports.mjs";
 
@@ -44,6 +45,7 @@ async function main() {
     SESSION_SECRET: randomBytes(32).toString("hex"),
     LINK_SECRET: randomBytes(32).toString("hex"),
     DB_APP_PASSWORD: randomBytes(12).toString("hex"),
+    DB_OWNER_PASSWORD: randomBytes(12).toString("hex"),
   };
   const [dbPort, smtpPort, s3Port, appPort] = [await freePort(), await freePort(), await freePort(), await freePort()];
   const services = await startServices({ mode: "test", dataRoot, dbPort, smtpPort, s3Port, secrets });
@@ -94,9 +96,11 @@ async function main() {
     const needsApp = args.length === 0 || args.some((a) => a.includes("browser"));
     if (needsApp) {
       const distDir = ensureBuild({ perVersion: true });
+      // The app runs with its own database account only; tests that tamper use the owner's.
+      const serverEnv = withoutOwnerAccount(env);
       server = spawn("node", ["node_modules/next/dist/bin/next", "start", "-p", String(appPort), "-H", "127.0.0.1"], {
         stdio: ["ignore", "ignore", "inherit"],
-        env: { ...env, NODE_ENV: "production", TW_DIST_DIR: distDir },
+        env: { ...serverEnv, NODE_ENV: "production", TW_DIST_DIR: distDir },
       });
       await waitForHttp(`${baseUrl}/sign-in`);
     }

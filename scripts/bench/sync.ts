@@ -29,11 +29,12 @@ type Services = {
   startMariaDb(o: {
     dataDir: string;
     port: number;
-    database: string;
-    user: string;
-    password: string;
+    databases: string[];
+    accountStatements: string[];
     throwaway: boolean;
-  }): Promise<{ url: string; pid: number; stop(): Promise<void> }>;
+  }): Promise<{ urlFor(d: string, a: { user: string; password: string }): string; pid: number; stop(): Promise<void> }>;
+  accountStatements(p: { databases: string[]; ownerPassword: string; appPassword: string }): string[];
+  accountsEnv(db: unknown, database: string, p: { ownerPassword: string; appPassword: string }): Record<string, string>;
   freePort(): Promise<number>;
 };
 
@@ -42,23 +43,28 @@ async function startDb() {
   const lib = (name: string) => `../lib/${name}.mjs`;
   const { startMariaDb } = (await import(lib("mariadb"))) as Services;
   const { freePort } = (await import(lib("ports"))) as Services;
+  const { accountStatements, accountsEnv } = (await import(lib("db-accounts"))) as Services;
   const dir = mkdtempSync(join(tmpdir(), "tenthwise-bench-"));
-  const password = randomBytes(12).toString("hex");
+  const passwords = { ownerPassword: randomBytes(12).toString("hex"), appPassword: randomBytes(12).toString("hex") };
+  const databases = ["tenthwise_bench"];
   const db = await startMariaDb({
     dataDir: join(dir, "mariadb"),
     port: await freePort(),
-    database: "tenthwise_bench",
-    user: "tenthwise",
-    password,
+    databases,
+    accountStatements: accountStatements({ databases, ...passwords }),
     throwaway: true,
   });
+  // One process builds the fixture and measures: it runs as the owner (migrations and fixture
+  // rows); the app account's table rights do not change what the measured SQL costs.
+  const { DB_OWNER_USER, DB_OWNER_PASSWORD } = accountsEnv(db, databases[0], passwords);
+  const url = db.urlFor(databases[0], { user: DB_OWNER_USER, password: DB_OWNER_PASSWORD });
   Object.assign(process.env, {
-    DATABASE_URL: db.url,
+    DATABASE_URL: url,
     SESSION_SECRET: randomBytes(32).toString("hex"),
     DB_POOL_MAX: "10",
   });
   return {
-    url: db.url,
+    url,
     pid: db.pid,
     stop: async () => {
       await db.stop();

@@ -1,6 +1,7 @@
 // Brings up everything the app needs locally (MariaDB and the fakes) unless the environment
 // points at real services. Returns the env for the app and one stop() for all of it.
 import { attachMariaDb, startMariaDb } from "./mariadb.mjs";
+import { accountStatements, accountsEnv, OWNER_USER } from "./db-accounts.mjs";
 import { attachFakeS3, startFakeS3, startFakeSmtp } from "./fakes.mjs";
 import { portIsFree } from "./ports.mjs";
 
@@ -12,24 +13,30 @@ export async function startServices({ mode, dataRoot, dbPort, smtpPort, s3Port, 
   const throwaway = mode === "test";
   try {
     if (!process.env.DATABASE_URL && !process.env.DB_HOST) {
+      const database = throwaway ? "tenthwise_test" : "tenthwise";
+      // Tests get a second, empty database so the migrations test can run every down and up
+      // without touching the seeded one the app and other tests use, and a third, empty one
+      // the backup test restores into.
+      const databases = [database, ...(throwaway ? ["tenthwise_scratch", "tenthwise_restore"] : [])];
+      const passwords = { ownerPassword: secrets.DB_OWNER_PASSWORD, appPassword: secrets.DB_APP_PASSWORD };
       const start = reuse && !(await portIsFree(dbPort)) ? attachMariaDb : startMariaDb;
       const db = await start({
         dataDir: `${dataRoot}/mariadb`,
         port: dbPort,
-        database: throwaway ? "tenthwise_test" : "tenthwise",
-        user: "tenthwise",
-        password: secrets.DB_APP_PASSWORD,
+        databases,
+        accountStatements: accountStatements({ databases, ...passwords }),
         throwaway,
-        // Tests get a second, empty database so the migrations test can run every down and up
-        // without touching the seeded one the app and other tests use, and a third, empty one
-        // the backup test restores into.
-        extraDatabases: throwaway ? ["tenthwise_scratch", "tenthwise_restore"] : [],
       });
       stops.push(db.stop);
-      env.DATABASE_URL = db.url;
+      Object.assign(env, accountsEnv(db, database, passwords));
       env.TW_DB_SOCKET = db.socket;
-      if (throwaway) env.TW_SCRATCH_DATABASE_URL = db.urlFor("tenthwise_scratch");
-      if (throwaway) env.TW_RESTORE_DATABASE_URL = db.urlFor("tenthwise_restore");
+      if (throwaway) {
+        // The migrations test drops and builds tables there, and a restore loads a whole schema:
+        // only the owner may.
+        const owner = { user: OWNER_USER, password: passwords.ownerPassword };
+        env.TW_SCRATCH_DATABASE_URL = db.urlFor("tenthwise_scratch", owner);
+        env.TW_RESTORE_DATABASE_URL = db.urlFor("tenthwise_restore", owner);
+      }
       console.log(`[tenthwise] MariaDB ready on 127.0.0.1:${dbPort}${throwaway ? " (throwaway)" : ""}`);
     }
     if (!process.env.SMTP_HOST && !reuse) {

@@ -1,15 +1,12 @@
 // The audit trail: filterable and paged through GET /api/audit, before/after as readable
-// changes, and append-only for the database user the app runs as.
-import { QueryTypes, Sequelize } from "sequelize";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+// changes. (That the app's database account cannot rewrite it: tests/integration/db-rights.test.ts.)
+import { beforeAll, describe, expect, it } from "vitest";
 import { GET as audit } from "@/app/api/audit/route";
 import { GET as facets } from "@/app/api/audit/facets/route";
 import { POST as sign } from "@/app/api/release/[jobId]/route";
 import { POST as reopen } from "@/app/api/release/[jobId]/reopen/route";
 import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize } from "@/lib/server/core/db";
-import { APPEND_ONLY_MESSAGE } from "@/migrations/20261201001000-create-audit-events";
-import { AuditEvent } from "@/models";
 import { createShop, TEST_PASSWORD, type TestShop } from "../support/factories";
 import { asUser, call } from "../support/requests";
 import { completeJob } from "./release-fixtures";
@@ -165,48 +162,5 @@ describe("GET /api/audit", () => {
     expect(res.body.entities).toEqual(["job", "release", "user"]);
     expect(res.body.jobs).toEqual([{ id: s.job.id, code: s.job.code, title: expect.any(String) }]);
     expect(res.body.users).toHaveLength(4);
-  });
-});
-
-describe("append-only for the app's database user", () => {
-  // A connection of its own on DATABASE_URL, the user the app runs as (not the app's pool).
-  const db = new Sequelize(process.env.DATABASE_URL!, { dialect: "mariadb", logging: false });
-  afterAll(() => db.close());
-
-  it("runs as the app's user", async () => {
-    const [{ who }] = await db.query<{ who: string }>("SELECT CURRENT_USER() AS who", { type: QueryTypes.SELECT });
-    const expected = decodeURIComponent(new URL(process.env.DATABASE_URL!).username);
-    expect(who.split("@")[0]).toBe(expected);
-  });
-
-  it("gets an error on UPDATE and on DELETE, and the row is unchanged", async () => {
-    const row = await AuditEvent.findOne({ where: { shopId: s.shop.id, action: "release.sign" } });
-    const id = row!.id;
-    await expect(
-      db.query("UPDATE audit_events SET action = 'release.forged' WHERE id = ?", { replacements: [id] }),
-    ).rejects.toThrow(APPEND_ONLY_MESSAGE);
-    await expect(db.query("DELETE FROM audit_events WHERE id = ?", { replacements: [id] })).rejects.toThrow(
-      APPEND_ONLY_MESSAGE,
-    );
-    await expect(db.query("DELETE FROM audit_events WHERE shop_id = ?", { replacements: [s.shop.id] })).rejects.toThrow(
-      APPEND_ONLY_MESSAGE,
-    );
-    const again = await AuditEvent.findByPk(id);
-    expect(again!.action).toBe("release.sign");
-    expect(await AuditEvent.count({ where: { shopId: s.shop.id } })).toBe(4);
-  });
-
-  // The limit, stated honestly: this same user runs the migrations, so it holds ALL PRIVILEGES on
-  // its schema (TRIGGER and DROP included) but no GRANT OPTION. It cannot REVOKE from itself, so
-  // no migration can take those rights away; someone with that user's password could drop the
-  // triggers first. Closing that needs a separate owner account for migrations (see the report).
-  it("cannot change its own grants, which is why append-only rests on the triggers", async () => {
-    const dbName = decodeURIComponent(new URL(process.env.DATABASE_URL!).pathname.slice(1));
-    await expect(db.query(`REVOKE TRIGGER ON \`${dbName}\`.* FROM CURRENT_USER()`)).rejects.toThrow(/Access denied/);
-    const triggers = await db.query<{ name: string }>(
-      "SELECT trigger_name AS name FROM information_schema.triggers WHERE trigger_schema = DATABASE() AND event_object_table = 'audit_events' ORDER BY name",
-      { type: QueryTypes.SELECT },
-    );
-    expect(triggers.map((t) => t.name)).toEqual(["audit_events_no_delete", "audit_events_no_update"]);
   });
 });

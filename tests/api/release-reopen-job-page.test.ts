@@ -9,10 +9,11 @@ import { POST as reopen } from "@/app/api/release/[jobId]/reopen/route";
 import { canReopen } from "@/lib/domain";
 import type { JobDetail } from "@/lib/schemas/job";
 import { releaseMailKey } from "@/lib/server/mail/outbox";
-import { AuditEvent, Customer, Job, MailOutbox } from "@/models";
+import { AuditEvent, Job, MailOutbox } from "@/models";
 import { createShop, TEST_PASSWORD, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call } from "../support/requests";
 import { completeJob } from "./release-fixtures";
+import { asOwner } from "../support/owner-db";
 
 const params = (s: TestShop) => ({ jobId: String(s.job.id) });
 const REASON = "Rod bearing clearance to be checked again with new shells";
@@ -104,7 +105,7 @@ describe("the customer is told when a record they were sent is voided", () => {
   it("queues nothing when the customer was never sent the record (no e-mail address)", async () => {
     const s = await createShop();
     const job = await Job.findByPk(s.job.id);
-    await Customer.update({ email: null }, { where: { id: job!.customerId } });
+    await asOwner("UPDATE customers SET email = NULL WHERE id = ?", [job!.customerId]);
     await completeJob(s);
     const release = await signAs(s);
     expect((await reopenAs(s, s.users.lead)).status).toBe(200);

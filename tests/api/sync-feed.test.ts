@@ -2,9 +2,10 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { getSequelize } from "@/lib/server/core/db";
 import { recordChange } from "@/lib/server/sync/repo";
-import { Flag, FlagDisposition, Job, JobLimit } from "@/models";
+import { Flag, FlagDisposition, Job } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { later, pull, push, reading } from "./sync-fixtures";
+import { asOwner } from "../support/owner-db";
 
 let s: TestShop;
 let other: TestShop;
@@ -15,9 +16,7 @@ beforeAll(async () => {
 
 /** Makes every change row of the job older than the settle window, as if 20 s had passed. */
 async function settle(jobId: number) {
-  await getSequelize().query("UPDATE sync_changes SET created_at = created_at - INTERVAL 20 SECOND WHERE job_id = ?", {
-    replacements: [jobId],
-  });
+  await asOwner("UPDATE sync_changes SET created_at = created_at - INTERVAL 20 SECOND WHERE job_id = ?", [jobId]);
 }
 
 type Feed = { cursor: string; readings: { id: string }[]; flags: { id: number }[]; jobs: { id: number }[] };
@@ -98,6 +97,10 @@ describe("GET /api/sync", () => {
     const cursor = (await pull(s.users.machinist, `since=0&jobs=${s.job.id}`)).body.cursor;
     const sequelize = getSequelize();
     const flag = await Flag.findOne({ where: { jobId: s.job.id, stationId: "bore/3/top/A" } });
+    // The limit change as the owner, just before: the app itself replaces limits, it never updates one.
+    await asOwner("UPDATE job_limits SET tol_plus = 0.001 WHERE job_id = ? AND characteristic = 'bore_diameter'", [
+      s.job.id,
+    ]);
     await sequelize.transaction(async (t) => {
       await flag!.update(
         { state: "disposed", disposition: "measure_again", disposedBy: s.users.lead.id, disposedAt: new Date() },
@@ -108,10 +111,6 @@ describe("GET /api/sync", () => {
         { transaction: t },
       );
       await recordChange(t, { shopId: s.shop.id, jobId: s.job.id, entity: "flag", entityId: flag!.id });
-      await JobLimit.update(
-        { tolPlus: 0.001 },
-        { where: { jobId: s.job.id, characteristic: "bore_diameter" }, transaction: t },
-      );
       await Job.update(
         { specRevision: 2, status: "released", lockedAt: new Date("2026-12-20T10:00:00Z") },
         { where: { id: s.job.id }, transaction: t },

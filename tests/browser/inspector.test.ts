@@ -5,9 +5,9 @@ import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
 import { request, type APIRequestContext, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { getSequelize } from "@/lib/server/core/db";
 import { BASE_URL, launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
 import { prepareInspectorJob } from "./inspector-fixtures";
+import { asOwner } from "../support/owner-db";
 
 const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8")) as {
   password: string;
@@ -155,9 +155,9 @@ describe("the inspector's path", () => {
     await page.waitForURL(/\/verify\?/);
     expect(await page.getByTestId("public-verification").getAttribute("data-status")).toBe("match");
     await screenshot(page, "verify-match");
-    await getSequelize().query(
+    await asOwner(
       "UPDATE readings SET value_canonical = value_canonical + 0.0025 WHERE job_id = ? AND station_id = 'bore/3/mid/B'",
-      { replacements: [job.jobId] },
+      [job.jobId],
     );
     await page.reload();
     expect(await page.getByTestId("public-verification").getAttribute("data-status")).toBe("changed");

@@ -6,9 +6,10 @@ import { beforeEach, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
 import { getSequelize } from "@/lib/server/core/db";
 import { reconcileJob } from "@/lib/server/reconcile/reconcile";
-import { FlagDisposition, Flag, JobLimit } from "@/models";
+import { FlagDisposition, Flag } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { count, flagsOf, push, reading } from "../api/sync-fixtures";
+import { asOwner } from "../support/owner-db";
 
 let s: TestShop;
 beforeEach(async () => {
@@ -17,11 +18,16 @@ beforeEach(async () => {
 
 /** Edits one limit of the job and reconciles, in one transaction, as a limits edit does. */
 async function editLimit(characteristic: string, patch: Record<string, number>) {
-  const sequelize = getSequelize();
-  return sequelize.transaction(async (t) => {
-    await JobLimit.update(patch, { where: { jobId: s.job.id, characteristic }, transaction: t });
-    return reconcileJob(t, { shopId: s.shop.id, jobId: s.job.id, userId: s.users.lead.id, cause: "limits-edit" });
-  });
+  // As the owner, before the app's transaction: the app itself replaces limits, it never updates one.
+  const columns = Object.keys(patch).map((k) => `\`${k.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`)}\` = ?`);
+  await asOwner(`UPDATE job_limits SET ${columns.join(", ")} WHERE job_id = ? AND characteristic = ?`, [
+    ...Object.values(patch),
+    s.job.id,
+    characteristic,
+  ]);
+  return getSequelize().transaction((t) =>
+    reconcileJob(t, { shopId: s.shop.id, jobId: s.job.id, userId: s.users.lead.id, cause: "limits-edit" }),
+  );
 }
 
 const verdictOf = async (id: string) =>

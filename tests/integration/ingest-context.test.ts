@@ -9,6 +9,7 @@ import { getSequelize } from "@/lib/server/core/db";
 import { Engine, Job, JobLimit } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { push, reading } from "../api/sync-fixtures";
+import { asOwner } from "../support/owner-db";
 
 let s: TestShop;
 beforeEach(async () => {
@@ -36,7 +37,9 @@ describe("the sync server's cached job context", () => {
     const first = await push(s.users.machinist, [reading(s.job.id, "bore/1/top/A", 4.0303)]);
     expect(first.body.results[0].verdict).toBe("in_spec"); // max 4.0305
     const before = await revisionOf(s.job.id);
-    await JobLimit.update({ tolPlus: 0.0002 }, { where: { jobId: s.job.id, characteristic: "bore_diameter" } });
+    await asOwner("UPDATE job_limits SET tol_plus = 0.0002 WHERE job_id = ? AND characteristic = 'bore_diameter'", [
+      s.job.id,
+    ]);
     expect(await revisionOf(s.job.id)).not.toBe(before);
     const second = await push(s.users.machinist, [reading(s.job.id, "bore/2/top/A", 4.0303)]);
     expect(second.body.results[0]).toMatchObject({ verdict: "out_of_spec", evaluation: { limitMax: 4.0302 } }); // 4.03 + 0.0002

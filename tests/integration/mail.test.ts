@@ -17,11 +17,12 @@ import { enqueueReleaseMail } from "@/lib/server/mail/outbox";
 import { deliverPendingMail, retryDelaySeconds } from "@/lib/server/mail/outbox-worker";
 import { runNotifierOnce } from "@/lib/server/notify/notifier";
 import { releaseChecklist } from "@/lib/server/release/checklist";
-import { Flag, Job, JobLimit, MailOutbox, Reading } from "@/models";
+import { Flag, Job, MailOutbox, Reading } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { pdfText } from "../support/pdf-text";
 import { BUILD_PLAN, createRecordJob, deliverFor } from "../support/record-fixtures";
 import { asUser, call } from "../support/requests";
+import { asOwner } from "../support/owner-db";
 
 const MAIL_DIR = process.env.MAIL_DIR!;
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -135,7 +136,7 @@ describe("mail through the outbox", () => {
 
   it("tells the inspectors when a job's checklist turns complete, once per spec revision", async () => {
     const s = await createShop();
-    await JobLimit.update({ required: false }, { where: { jobId: s.job.id } });
+    await asOwner("UPDATE job_limits SET required = 0 WHERE job_id = ?", [s.job.id]);
     await Job.update({ buildPlan: BUILD_PLAN, status: "review" }, { where: { id: s.job.id } });
     await runNotifierOnce();
     expect(await mailsTo(s.users.inspector.email)).toHaveLength(0); // torque records still missing

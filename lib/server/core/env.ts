@@ -50,6 +50,13 @@ const schema = z
     DB_NAME: z.string().optional(),
     DB_USER: z.string().optional(),
     DB_PASSWORD: z.string().optional(),
+    // The schema's owner, for migrations and seeding only (same host and database as the app).
+    // Unset: db-setup migrates as the app's account, as before the two accounts existed.
+    DB_OWNER_USER: z
+      .string()
+      .optional()
+      .transform((v) => v || undefined),
+    DB_OWNER_PASSWORD: z.string().optional(),
     DB_POOL_MAX: z.coerce.number().int().positive().default(10),
     TRUSTED_PROXIES: trustedProxies,
     SESSION_SECRET: z.string().min(32, "SESSION_SECRET must be at least 32 characters"),
@@ -118,7 +125,20 @@ export function env(): Env {
   return cached;
 }
 
-export function databaseConfig() {
+export type DbAccountKind = "app" | "owner";
+
+/** True when a separate owner account runs migrations (see lib/server/core/db-rights.ts). */
+export const hasOwnerAccount = () => Boolean(env().DB_OWNER_USER);
+
+/** Where and as whom to connect: the app's account, or the schema owner's when one is set. */
+export function databaseConfig(kind: DbAccountKind = "app") {
+  const base = appDatabaseConfig();
+  const e = env();
+  if (kind === "app" || !e.DB_OWNER_USER) return base;
+  return { ...base, username: e.DB_OWNER_USER, password: e.DB_OWNER_PASSWORD ?? "" };
+}
+
+function appDatabaseConfig() {
   const e = env();
   if (e.DATABASE_URL) {
     const u = new URL(e.DATABASE_URL);
