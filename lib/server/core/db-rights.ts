@@ -17,8 +17,9 @@ const updateOf = (...columns: string[]): TableRight => `UPDATE (${columns.join("
 
 /** What the app does to each table (its repos and raw SQL); a new table must say it here. */
 export const APP_TABLE_RIGHTS: Record<MigratedTable, readonly TableRight[]> = {
-  // Shops are started by public sign-up and `npm run shop:create`, which run as the app.
-  shops: ["SELECT", "INSERT"],
+  // Shops are started by public sign-up and `npm run shop:create`, which run as the app, and
+  // activated once their e-mail is confirmed.
+  shops: ["SELECT", "INSERT", "UPDATE"],
   users: ["SELECT", "INSERT", "UPDATE"],
   // The sign-in throttle counts failures and forgets them on success.
   auth_throttle: ["SELECT", "INSERT", "UPDATE", "DELETE"],
@@ -45,6 +46,8 @@ export const APP_TABLE_RIGHTS: Record<MigratedTable, readonly TableRight[]> = {
   sync_changes: ["SELECT", "INSERT"],
   mail_outbox: ["SELECT", "INSERT", "UPDATE"],
   user_sessions: ["SELECT", "INSERT", "UPDATE", "DELETE"],
+  // One-time links are marked used or replaced, never deleted (their hashes stay as the record).
+  link_tokens: ["SELECT", "INSERT", "UPDATE"],
 };
 
 /** A MariaDB account: 'user'@'host'. */
