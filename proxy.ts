@@ -3,7 +3,7 @@ import { PAGE_PATH_HEADER } from "@/lib/nav";
 import { NONCE_HEADER, newNonce, securityHeaders } from "@/lib/security-headers";
 import { env, servedOverHttps } from "@/lib/server/core/env";
 
-const OFFICE_PAGE = /^\/(desk|release|admin|audit)(\/|$)/;
+const OFFICE_PAGE = /^\/(desk|release|admin|audit|account)(\/|$)/;
 
 // Runs on every request (no matcher), so pages, API answers, static files, errors and 404s all
 // carry the security headers. Each request gets a fresh script nonce: Next reads it from the

@@ -39,9 +39,16 @@ export function HeaderBar({ actor, current, link: A }: Props) {
           ))}
         </nav>
         <div className="ml-auto flex items-center gap-3">
-          <span className="text-sm text-muted" data-testid="whoami">
-            <span className="font-semibold text-ink">{actor.name}</span> · {ROLE_WORDS[actor.role]}
-          </span>
+          <A
+            href="/account"
+            title="Your account: password, sign out everywhere"
+            className="inline-flex min-h-11 items-center rounded-tool px-1 text-sm text-muted hover:text-ink"
+          >
+            <span data-testid="whoami">
+              <span className="font-semibold text-ink underline underline-offset-4">{actor.name}</span> ·{" "}
+              {ROLE_WORDS[actor.role]}
+            </span>
+          </A>
           <ThemeToggle />
           <SignOutButton />
         </div>

@@ -21,8 +21,12 @@ export function SignInForm({ next }: { next?: string }) {
   const onSubmit = form.handleSubmit(async (values) => {
     setServerError(null);
     try {
-      const res = await api<{ home: string }>("/api/session", { method: "POST", json: values });
-      window.location.assign(next ?? res.home);
+      const res = await api<{ home: string; mustChangePassword: boolean }>("/api/session", {
+        method: "POST",
+        json: values,
+      });
+      // A temporary password is changed before anything else, wherever the person was heading.
+      window.location.assign(res.mustChangePassword ? res.home : (next ?? res.home));
     } catch (err) {
       // Keep what was typed; only the password is cleared after a refusal.
       setServerError(
@@ -68,6 +72,12 @@ export function SignInForm({ next }: { next?: string }) {
       <Button type="submit" big disabled={form.formState.isSubmitting}>
         {form.formState.isSubmitting ? "Signing in…" : "Sign in"}
       </Button>
+      <a
+        href="/forgot-password"
+        className="inline-flex min-h-11 items-center self-start font-medium text-steel underline underline-offset-4"
+      >
+        Forgot your password?
+      </a>
     </form>
   );
 }

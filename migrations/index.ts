@@ -22,6 +22,7 @@ import * as addAttachmentsClientId from "./20261203130000-add-attachments-client
 import * as addLimitsCommonPractice from "./20261203140000-add-limits-common-practice";
 import * as addShopsActivatedAt from "./20261203140010-add-shops-activated-at";
 import * as createLinkTokens from "./20261203150000-create-link-tokens";
+import * as addUsersMustChangePassword from "./20261203150100-add-users-must-change-password";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -52,6 +53,7 @@ export const migrations: Migration[] = [
   step("20261203140000-add-limits-common-practice", addLimitsCommonPractice),
   step("20261203140010-add-shops-activated-at", addShopsActivatedAt),
   step("20261203150000-create-link-tokens", createLinkTokens),
+  step("20261203150100-add-users-must-change-password", addUsersMustChangePassword),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */

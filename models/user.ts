@@ -22,6 +22,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare failedAttempts: CreationOptional<number>;
   declare lockedUntil: CreationOptional<Date | null>;
   declare lastSignInAt: CreationOptional<Date | null>;
+  /** Set with a temporary password from an admin; the person must choose their own before working. */
+  declare mustChangePassword: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -41,6 +43,7 @@ export function initUser(sequelize: Sequelize): void {
       failedAttempts: int(0),
       lockedUntil: datetime(true),
       lastSignInAt: datetime(true),
+      mustChangePassword: bool(false),
       ...stamps(),
     },
     modelOptions(sequelize, "users", "both"),

@@ -24,7 +24,7 @@ const SignInScreen = lazy(() => import("@/components/sign-in-screen").then((m) =
 type Boot =
   { kind: "loading" } | { kind: "ready"; bench: Bench } | { kind: "locked" } | { kind: "failed"; message: string };
 
-async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> {
+async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline" | "must-change"> {
   const ctl = new AbortController();
   const timer = setTimeout(() => ctl.abort(), 6000);
   try {
@@ -35,7 +35,9 @@ async function whoIsSignedIn(): Promise<DeviceActor | "signed-out" | "offline"> 
       user: { id: number; name: string; email: string; role: DeviceActor["role"] };
       shop: { id: number } | null;
       sessionId: string | null;
+      mustChangePassword?: boolean;
     };
+    if (me.mustChangePassword) return "must-change";
     return {
       userId: me.user.id,
       shopId: me.shop?.id ?? 0,
@@ -65,6 +67,11 @@ async function boot(): Promise<Boot> {
   // Signed out here while the server could not hear it: that session is never taken up again.
   if (typeof answer === "object" && (await endedSessions(db)).includes(answer.sessionId ?? ""))
     return { kind: "locked" };
+  if (answer === "must-change") {
+    // A temporary password from an admin: the account screen first (the server refuses the rest).
+    window.location.assign("/account");
+    return { kind: "loading" };
+  }
   if (answer === "signed-out") {
     // The server ended the session (signed out elsewhere, password reset, role change): forget it here too.
     await db.meta.delete("actor");

@@ -24,7 +24,15 @@ export const BENCH_ROLES = ["machinist", "lead"] as const satisfies readonly Rol
 export const AUDIT_ROLES = ["lead", "inspector", "admin"] as const satisfies readonly Role[];
 
 /** Why a signed-in session ended (user_sessions.ended_reason). */
-export const SESSION_END_REASONS = ["signed_out", "replaced", "password_reset", "role_changed", "deactivated"] as const;
+export const SESSION_END_REASONS = [
+  "signed_out",
+  "replaced",
+  "password_reset",
+  "role_changed",
+  "deactivated",
+  "password_changed",
+  "signed_out_everywhere",
+] as const;
 export type SessionEndReason = (typeof SESSION_END_REASONS)[number];
 
 /** What a one-time link sent by e-mail is for (link_tokens.purpose). */

@@ -7,6 +7,8 @@ export const MAIL_KINDS = [
   "flag_digest",
   "ready_for_release",
   "shop_verification",
+  "invitation",
+  "password_reset",
 ] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 

@@ -22,6 +22,8 @@ export type Actor = {
   email: string;
   /** The sign-in this request came with; absent for an actor made outside a request (scripts, tests). */
   sessionId?: string;
+  /** Signed in with a temporary password from an admin: only the change of password is open. */
+  mustChangePassword?: boolean;
 };
 
 /** A tablet reporting a sign-out it made offline names the session it ended. */

@@ -4,6 +4,7 @@ import bcrypt from "bcryptjs";
 import { readFileSync } from "node:fs";
 import type { Role, UnitSystem } from "@/lib/schemas/enums";
 import { models } from "@/lib/server/core/db";
+import { BCRYPT_COST } from "@/lib/server/passwords/hash";
 import { DEMO_GAUGES } from "./demo-gauges";
 import { seedDemoReadings } from "./demo-readings";
 import { DEMO_SIZES, STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-specs";
@@ -69,7 +70,7 @@ export async function seedDemo(): Promise<DemoContext> {
     phone: "555-0142",
     address: "4 Quarry Lane, Kestrel Flats",
   });
-  const hash = await bcrypt.hash(demo.password, 10);
+  const hash = await bcrypt.hash(demo.password, BCRYPT_COST);
   const users: Record<string, number> = {};
   for (const a of demo.accounts)
     users[a.role] = (

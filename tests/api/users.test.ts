@@ -6,7 +6,8 @@ import { PATCH } from "@/app/api/users/[userId]/route";
 import { POST as RESET } from "@/app/api/users/[userId]/password/route";
 import { POST as SIGN_IN } from "@/app/api/session/route";
 import { GET as ME } from "@/app/api/me/route";
-import { AuditEvent, User } from "@/models";
+import bcrypt from "bcryptjs";
+import { AuditEvent, MailOutbox, User } from "@/models";
 import { createShop, TEST_PASSWORD, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call, cookieFor, pageRequest } from "../support/requests";
 
@@ -65,14 +66,15 @@ describe("POST /api/users (invite)", () => {
     expect((await invite(a.users[role], fresh(role))).status).toBe(403);
   });
 
-  it("creates the account with a temporary password that signs in once shown, and audits no secret", async () => {
+  it("creates the account, queues the invitation, shows no password, and audits no secret", async () => {
     const body = { ...fresh("ok"), email: `Mixed.Case-${Date.now()}@Test.Example` };
     const res = await invite(a.users.admin, body);
     expect(res.status).toBe(201);
-    const { user, temporaryPassword } = res.body;
+    const { user } = res.body;
     expect(user).toMatchObject({ name: body.name, email: body.email.toLowerCase(), role: "machinist", active: true });
-    expect(temporaryPassword).toMatch(/^[a-z2-9]{5}-[a-z2-9]{5}-[a-z2-9]{5}$/);
-    expect((await signInWith(body.email, temporaryPassword)).status).toBe(200);
+    expect(res.body.invitationSentTo).toBe(body.email.toLowerCase());
+    expect(res.body.temporaryPassword).toBeUndefined();
+    expect(await MailOutbox.count({ where: { toAddress: body.email.toLowerCase(), kind: "invitation" } })).toBe(1);
 
     const audit = await AuditEvent.findAll({
       where: { shopId: a.shop.id, entityType: "user", entityId: String(user.id) },
@@ -80,7 +82,6 @@ describe("POST /api/users (invite)", () => {
     expect(audit.map((e) => e.action)).toEqual(["user.invited"]);
     const row = await User.findByPk(user.id);
     const trail = JSON.stringify(audit.map((e) => e.get({ plain: true })));
-    expect(trail).not.toContain(temporaryPassword);
     expect(trail).not.toContain(row!.passwordHash);
   });
 
@@ -201,10 +202,11 @@ describe("PATCH /api/users/[userId]", () => {
 
   it("a deactivated person cannot sign in, and signs in again once reactivated", async () => {
     const { body } = await invite(a.users.admin, fresh("off"));
+    await User.update({ passwordHash: bcrypt.hashSync(TEST_PASSWORD, 4) }, { where: { id: body.user.id } });
     expect((await patch(a.users.admin, body.user.id, { active: false })).status).toBe(200);
-    expect((await signInWith(body.user.email, body.temporaryPassword)).status).toBe(401);
+    expect((await signInWith(body.user.email, TEST_PASSWORD)).status).toBe(401);
     expect((await patch(a.users.admin, body.user.id, { active: true })).status).toBe(200);
-    expect((await signInWith(body.user.email, body.temporaryPassword)).status).toBe(200);
+    expect((await signInWith(body.user.email, TEST_PASSWORD)).status).toBe(200);
     const actions = (
       await AuditEvent.findAll({
         where: { entityType: "user", entityId: String(body.user.id) },
@@ -289,7 +291,8 @@ describe("POST /api/users/[userId]/password", () => {
     const res = await reset(a.users.admin, target.id);
     expect(res.status).toBe(200);
     expect((await signInWith(target.email, TEST_PASSWORD)).status).toBe(401);
-    expect((await signInWith(target.email, res.body.temporaryPassword)).status).toBe(200);
+    const signedIn = await signInWith(target.email, res.body.temporaryPassword);
+    expect([signedIn.status, signedIn.body.mustChangePassword]).toEqual([200, true]);
     const e = await AuditEvent.findOne({
       where: { entityType: "user", entityId: String(target.id), action: "user.password_reset" },
     });

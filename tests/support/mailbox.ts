@@ -17,7 +17,9 @@ export async function mailsTo(address: string): Promise<ParsedMail[]> {
     const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(",") : (m.to?.text ?? "");
     if (to.toLowerCase().includes(address.toLowerCase())) out.push(m);
   }
-  return out;
+  // In the order they were queued (the outbox id), which file names and Date (to the second) miss.
+  const order = (m: ParsedMail) => Number(m.headers.get("x-tenthwise-outbox-id") ?? 0);
+  return out.sort((a, b) => order(a) - order(b));
 }
 
 /** The messages to an address once `n` have arrived, oldest first. */
@@ -37,4 +39,12 @@ export function linkToken(mail: ParsedMail, page: string): string {
   const found = [...(mail.text ?? "").matchAll(new RegExp(`${page}/([A-Za-z0-9_-]+)`, "g"))];
   if (!found.length) throw new Error(`No ${page} link in "${mail.subject}"`);
   return found[found.length - 1][1];
+}
+
+/** The whole link to `page` in a message and its token, e.g. linkIn(m, "/set-password"). */
+export function linkIn(mail: ParsedMail, page: string): { url: string; token: string } {
+  const escaped = page.replace(/[.*+?^${}()|[\]\\/]/g, "\\$&");
+  const found = (mail.text ?? "").match(new RegExp(`https?://\\S+${escaped}/([A-Za-z0-9_-]+)`));
+  if (!found) throw new Error(`No ${page} link in "${mail.subject}":\n${mail.text}`);
+  return { url: found[0], token: found[1] };
 }

@@ -1,5 +1,5 @@
 import { clientAddress } from "@/lib/server/core/client-address";
-import { ROLE_HOME } from "@/lib/server/core/access";
+import { homeFor } from "@/lib/server/core/access";
 import { open, readJson } from "@/lib/server/core/route";
 import { sessionCookieHeader, sessionFromRequest } from "@/lib/server/core/session";
 import { closeSession, openSession } from "@/lib/server/sessions/lifecycle";
@@ -18,7 +18,8 @@ export const POST = open(async ({ req }) => {
     {
       user: { id: user.id, name: user.name, role: user.role },
       sessionId: session.sessionId,
-      home: ROLE_HOME[user.role],
+      home: homeFor(user),
+      mustChangePassword: user.mustChangePassword,
     },
     { headers: { "Set-Cookie": sessionCookieHeader(session.cookie) } },
   );

@@ -12,9 +12,12 @@ import { ROLE_WORDS } from "@/lib/nav";
 import { inviteUserSchema, type AdminUser, type InviteUserInput, type InviteUserValues } from "@/lib/schemas/user";
 import { ROLES } from "@/lib/schemas/enums";
 
+/** A temporary password an admin's reset made, shown once. */
 export type Issued = { user: AdminUser; temporaryPassword: string };
+/** An invitation on its way: the person chooses their password from the e-mailed link. */
+export type Invited = { user: AdminUser; invitationSentTo: string };
 
-export function InviteForm({ onIssued }: { onIssued: (i: Issued) => void }) {
+export function InviteForm({ onInvited }: { onInvited: (i: Invited) => void }) {
   const qc = useQueryClient();
   const [serverError, setServerError] = useState<string | null>(null);
   const form = useForm<InviteUserValues, unknown, InviteUserInput>({
@@ -22,14 +25,14 @@ export function InviteForm({ onIssued }: { onIssued: (i: Issued) => void }) {
     defaultValues: { name: "", email: "", role: "machinist" },
   });
   const invite = useMutation({
-    mutationFn: (values: InviteUserInput) => api<Issued>("/api/users", { method: "POST", json: values }),
-    onSuccess: (issued) => {
+    mutationFn: (values: InviteUserInput) => api<Invited>("/api/users", { method: "POST", json: values }),
+    onSuccess: (invited) => {
       qc.setQueryData<{ users: AdminUser[] }>(["admin-users"], (old) =>
-        old ? { users: [...old.users, issued.user] } : old,
+        old ? { users: [...old.users, invited.user] } : old,
       );
       void qc.invalidateQueries({ queryKey: ["admin-users"] });
       form.reset({ name: "", email: "", role: form.getValues("role") });
-      onIssued(issued);
+      onInvited(invited);
     },
     onError: (err) => {
       // Keep what was typed; point at the field the server refused.
@@ -83,10 +86,13 @@ export function InviteForm({ onIssued }: { onIssued: (i: Issued) => void }) {
       </div>
       <div>
         <Button type="submit" disabled={invite.isPending}>
-          {invite.isPending ? "Creating the account…" : "Create account"}
+          {invite.isPending ? "Sending the invitation…" : "Send invitation"}
         </Button>
       </div>
-      <p className="text-sm text-muted">The account is created at once with a temporary password, shown to you once.</p>
+      <p className="text-sm text-muted">
+        They get an e-mail with a link that works once, for three days, where they choose their own password. Nobody
+        else sees it, you included.
+      </p>
     </form>
   );
 }

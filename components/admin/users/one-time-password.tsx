@@ -32,9 +32,9 @@ export function OneTimePassword({
     >
       <h2 className="text-lg font-semibold">Temporary password for {name}</h2>
       <p className="text-sm text-muted">
-        Sign-in e-mail <span className="font-medium text-ink">{email}</span>. This password is shown once: hand it to{" "}
-        {name} in person or read it out, and ask them to sign in now. Tenthwise does not keep it readable and cannot
-        show it again; if it is lost, reset it.
+        Sign-in e-mail <span className="font-medium text-ink">{email}</span>. Shown once: hand it to {name} in person or
+        read it out, and ask them to sign in now. It works for that one sign-in; Tenthwise then asks them to choose
+        their own. It is not kept readable and cannot be shown again; if it is lost, reset it.
       </p>
       <div className="flex flex-wrap items-center gap-3">
         <code

@@ -5,12 +5,17 @@ import { useState } from "react";
 import { Notice } from "@/components/ui/notice";
 import { api } from "@/lib/client/api";
 import type { AdminUser } from "@/lib/schemas/user";
-import { InviteForm, type Issued } from "./invite-form";
+import { InviteForm, type Invited, type Issued } from "./invite-form";
 import { OneTimePassword } from "./one-time-password";
 import { UserRow } from "./user-row";
 
 export function UserAdmin({ selfId }: { selfId: number }) {
   const [issued, setIssued] = useState<Issued | null>(null);
+  const [invited, setInvited] = useState<Invited | null>(null);
+  const onInvited = (i: Invited) => {
+    setIssued(null);
+    setInvited(i);
+  };
   const users = useQuery({ queryKey: ["admin-users"], queryFn: () => api<{ users: AdminUser[] }>("/api/users") });
   return (
     <div className="flex flex-col gap-6">
@@ -22,7 +27,15 @@ export function UserAdmin({ selfId }: { selfId: number }) {
           onDone={() => setIssued(null)}
         />
       )}
-      <InviteForm onIssued={setIssued} />
+      {invited && (
+        <div data-testid="invitation-sent">
+          <Notice title={`Invitation sent to ${invited.invitationSentTo}`}>
+            {invited.user.name} chooses a password from the link in the message. If it does not arrive, check the Mail
+            page, or send it again from the list below.
+          </Notice>
+        </div>
+      )}
+      <InviteForm onInvited={onInvited} />
       <section aria-label="People" className="overflow-x-auto rounded-tool border-2 border-rule bg-panel">
         {users.isPending && <p className="p-4 text-muted">Loading the shop&apos;s people…</p>}
         {users.isError && (
@@ -48,7 +61,7 @@ export function UserAdmin({ selfId }: { selfId: number }) {
             </thead>
             <tbody>
               {users.data.users.map((u) => (
-                <UserRow key={u.id} user={u} isSelf={u.id === selfId} onIssued={setIssued} />
+                <UserRow key={u.id} user={u} isSelf={u.id === selfId} onIssued={setIssued} onInvited={onInvited} />
               ))}
             </tbody>
           </table>

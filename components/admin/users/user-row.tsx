@@ -8,7 +8,7 @@ import { api, ApiError } from "@/lib/client/api";
 import { ROLE_WORDS } from "@/lib/nav";
 import type { AdminUser, UpdateUserInput } from "@/lib/schemas/user";
 import { ROLES, type Role } from "@/lib/schemas/enums";
-import type { Issued } from "./invite-form";
+import type { Invited, Issued } from "./invite-form";
 
 const when = (iso: string | null) =>
   iso ? new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : "never";
@@ -17,10 +17,12 @@ export function UserRow({
   user,
   isSelf,
   onIssued,
+  onInvited,
 }: {
   user: AdminUser;
   isSelf: boolean;
   onIssued: (i: Issued) => void;
+  onInvited: (i: Invited) => void;
 }) {
   const qc = useQueryClient();
   const [error, setError] = useState<string | null>(null);
@@ -49,7 +51,15 @@ export function UserRow({
     },
     onError: fail,
   });
-  const busy = update.isPending || reset.isPending;
+  const resend = useMutation({
+    mutationFn: () => api<Invited>(`/api/users/${user.id}/invitation`, { method: "POST" }),
+    onSuccess: (r) => {
+      done(r.user);
+      onInvited(r);
+    },
+    onError: fail,
+  });
+  const busy = update.isPending || reset.isPending || resend.isPending;
   return (
     <tr className="border-t-2 border-rule align-top" data-testid={`user-${user.email}`}>
       <td className="p-3">
@@ -94,6 +104,11 @@ export function UserRow({
               Reactivate
             </Button>
           )}
+          {confirm === null && user.active && !isSelf && !user.lastSignInAt && (
+            <Button tone="quiet" disabled={busy} onClick={() => resend.mutate()}>
+              Send invitation again
+            </Button>
+          )}
           {confirm === null && user.active && (
             <Button tone="quiet" disabled={busy} onClick={() => setConfirm("reset")}>
               Reset password
@@ -129,7 +144,8 @@ export function UserRow({
           <p className="mt-1 text-sm text-muted">
             {isSelf
               ? "Your current password stops working at once, and your other devices are signed out."
-              : "Their current password stops working at once, and they are signed out on every device."}
+              : "Their current password stops working at once, and they are signed out on every device. " +
+                "The new one works for one sign-in; then they choose their own."}
           </p>
         )}
         {error && (

@@ -23,6 +23,17 @@ export const ROLE_HOME: Record<Role, string> = {
   admin: "/admin",
 };
 
+/** Where the account screen is: a temporary password is changed there before anything else. */
+export const ACCOUNT_PAGE = "/account";
+
+export const PASSWORD_CHANGE_FIRST =
+  "Choose your own password first: the one you signed in with was set by an admin for one use. " +
+  `Open Account (${ACCOUNT_PAGE}) to change it.`;
+
+/** Where a person lands after signing in: their role's home, or the account screen while a change is owed. */
+export const homeFor = (user: { role: Role; mustChangePassword?: boolean }) =>
+  user.mustChangePassword ? ACCOUNT_PAGE : ROLE_HOME[user.role];
+
 async function actorFrom(session: SessionData | null): Promise<Actor | null> {
   if (!session) return null;
   const [user, live] = await Promise.all([
@@ -30,8 +41,8 @@ async function actorFrom(session: SessionData | null): Promise<Actor | null> {
     isSessionLive(session.sessionId, session.userId),
   ]);
   if (!user || !live) return null;
-  const { id: userId, shopId, role, name, email } = user;
-  return { userId, shopId, role, name, email, sessionId: session.sessionId };
+  const { id: userId, shopId, role, name, email, mustChangePassword } = user;
+  return { userId, shopId, role, name, email, sessionId: session.sessionId, mustChangePassword };
 }
 
 export async function actorFromRequest(req: Request): Promise<Actor | null> {
@@ -44,9 +55,18 @@ export function assertRole(actor: Actor, roles: readonly Role[] | "any"): void {
   }
 }
 
-export async function requireActor(req: Request, roles: readonly Role[] | "any" = "any"): Promise<Actor> {
+/**
+ * The signed-in actor with one of `roles`. Someone who owes a password change is refused (403, with
+ * words) unless the route is one they need for it (`whilePasswordMustChange`).
+ */
+export async function requireActor(
+  req: Request,
+  roles: readonly Role[] | "any" = "any",
+  opts: { whilePasswordMustChange?: boolean } = {},
+): Promise<Actor> {
   const actor = await actorFromRequest(req);
   if (!actor) throw new AppError("unauthorized", "Sign in first");
+  if (actor.mustChangePassword && !opts.whilePasswordMustChange) throw new AppError("forbidden", PASSWORD_CHANGE_FIRST);
   assertRole(actor, roles);
   return actor;
 }
@@ -73,10 +93,10 @@ export function asPageError(err: unknown): unknown {
  */
 export async function requirePageActor(roles: readonly Role[] | "any" = "any"): Promise<Actor> {
   const actor = await currentPageActor();
-  if (!actor) {
-    const from = (await headers()).get(PAGE_PATH_HEADER);
-    redirect(from ? `/sign-in?next=${encodeURIComponent(from)}` : "/sign-in");
-  }
+  const from = (await headers()).get(PAGE_PATH_HEADER);
+  if (!actor) redirect(from ? `/sign-in?next=${encodeURIComponent(from)}` : "/sign-in");
+  const onAccountPage = from === ACCOUNT_PAGE || from?.startsWith(`${ACCOUNT_PAGE}?`);
+  if (actor.mustChangePassword && !onAccountPage) redirect(ACCOUNT_PAGE);
   if (roles !== "any" && !roles.includes(actor.role)) redirect(ROLE_HOME[actor.role]);
   return actor;
 }

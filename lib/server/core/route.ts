@@ -19,11 +19,16 @@ function toResponse(result: unknown): Response {
   return Response.json(result);
 }
 
-export function authed<P = Record<string, string>>(roles: readonly Role[] | "any", fn: Handler<P>) {
+/** `opts.whilePasswordMustChange`: the route stays open to someone who owes a password change. */
+export function authed<P = Record<string, string>>(
+  roles: readonly Role[] | "any",
+  fn: Handler<P>,
+  opts: { whilePasswordMustChange?: boolean } = {},
+) {
   return async (req: Request, ctx?: RouteContext<P>): Promise<Response> => {
     try {
       requireOwnOrigin(req);
-      const actor = await requireActor(req, roles);
+      const actor = await requireActor(req, roles, opts);
       const params = ((await ctx?.params) ?? {}) as P;
       return toResponse(await fn({ req, actor, params }));
     } catch (err) {

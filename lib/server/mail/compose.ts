@@ -1,6 +1,7 @@
 import "server-only";
 import { checkCustomerToken, createCustomerToken, customerLinkUrl } from "@/lib/server/release/customer-link";
 import { textToHtml, type OutgoingMail } from "@/lib/server/mail/send";
+import { composeAccountMail, isAccountMail } from "@/lib/server/accounts/link-mail";
 import type { OutboxRow } from "@/lib/server/mail/repo";
 import { day } from "@/lib/server/record/format";
 import { buildRecordPdf } from "@/lib/server/record/pdf";
@@ -48,12 +49,15 @@ async function composeBuildRecord(row: OutboxRow): Promise<OutgoingMail> {
 }
 
 export async function composeMail(row: OutboxRow): Promise<OutgoingMail> {
+  const kind = row.kind;
   const base =
-    row.kind === "build_record"
+    kind === "build_record"
       ? await composeBuildRecord(row)
-      : row.kind === SHOP_MAIL_KIND
+      : kind === SHOP_MAIL_KIND
         ? await composeShopVerification(row)
-        : composeWritten(row);
+        : isAccountMail(kind)
+          ? await composeAccountMail({ ...row, kind })
+          : composeWritten(row);
   return {
     ...base,
     headers: {

@@ -1,8 +1,9 @@
 import "server-only";
-import { env } from "@/lib/server/core/env";
+import { env, isBuildPhase } from "@/lib/server/core/env";
 import { sendMail, type OutgoingMail } from "@/lib/server/mail/send";
 import { composeMail } from "@/lib/server/mail/compose";
-import { claimDue, markFailed, markSent } from "@/lib/server/mail/repo";
+import { claimDue, markFailed, markSent, unsentIds } from "@/lib/server/mail/repo";
+import type { MailKind } from "@/lib/schemas/mail";
 
 // Delivers due outbox messages. A failure (mail server down, a record that cannot be rendered)
 // is written on the row with the next try time, doubling from MAIL_RETRY_BASE_SECONDS up to six
@@ -52,4 +53,17 @@ export async function deliverPendingMail(opts: DeliverOptions = {}): Promise<Del
     }
   }
   return report;
+}
+
+/**
+ * Sends what is due now, in the background, without holding up the request: someone waiting for a
+ * link should not wait for the notifier's next pass. Failures stay on their rows for the retries.
+ */
+export function deliverSoon(shopIds: number[], kinds: MailKind[]): void {
+  if (isBuildPhase() || !shopIds.length) return;
+  const run = async () => {
+    const only = await unsentIds(shopIds, kinds);
+    if (only.length) await deliverPendingMail({ only, limit: 5, budgetMs: 10_000 });
+  };
+  setTimeout(() => void run().catch((err) => console.error("[tenthwise] mail delivery", err)), 0);
 }

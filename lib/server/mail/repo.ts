@@ -117,6 +117,13 @@ export async function queuedWithPrefix(prefix: string): Promise<boolean> {
  * Claims due messages for this worker: each claim pushes next_attempt_at past a lease in one
  * conditional UPDATE, so two workers (or two app instances) never send the same message at once.
  */
+/** Ids of the shop's unsent messages of these kinds (a link someone is waiting for). */
+export async function unsentIds(shopIds: number[], kinds: MailKind[]): Promise<number[]> {
+  const { MailOutbox } = models();
+  const rows = await MailOutbox.findAll({ where: { shopId: shopIds, kind: kinds, sentAt: null }, attributes: ["id"] });
+  return rows.map((r) => r.id);
+}
+
 export async function claimDue(now: Date, limit: number, only?: number[], leaseSeconds = 300): Promise<OutboxRow[]> {
   const { MailOutbox } = models();
   const due = await MailOutbox.findAll({

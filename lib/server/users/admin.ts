@@ -1,10 +1,11 @@
 import "server-only";
-import bcrypt from "bcryptjs";
 import { randomInt } from "node:crypto";
 import type { Transaction } from "sequelize";
 import type { AdminUser, InviteUserInput, UpdateUserInput } from "@/lib/schemas/user";
 import type { Actor } from "@/lib/schemas/session";
+import { enqueueAccountMail } from "@/lib/server/accounts/link-mail";
 import { recordAudit } from "@/lib/server/log/repo";
+import { hashPassword, unusableHash } from "@/lib/server/passwords/hash";
 import { endUserSessionRows } from "@/lib/server/sessions/repo";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
@@ -20,8 +21,9 @@ import {
   type AccountRow,
 } from "@/lib/server/users/repo";
 
-// The admin's account work: invite, change role, deactivate/reactivate, reset a password (the last
-// three end the person's open sessions).
+// The admin's account work: invite (an e-mailed link where the person chooses their password),
+// change role, deactivate/reactivate, reset a password (the last three end the person's open
+// sessions; a reset password is temporary and must be changed at the next sign-in).
 // Rules a shop expects: nobody changes their own role or switches their own account off, and
 // the shop always keeps one active admin. Passwords and hashes never reach the audit trail.
 
@@ -53,13 +55,12 @@ export async function listShopUsers(shopId: number): Promise<AdminUser[]> {
   return (await listAccounts(shopId)).map(toAdminUser);
 }
 
-async function hashOf(password: string): Promise<string> {
-  return bcrypt.hash(password, 10);
-}
-
+/**
+ * Creates the account with a password nobody knows and queues the invitation in the same
+ * transaction; the person chooses their password from the link in it.
+ */
 export async function inviteUser(actor: Actor, input: InviteUserInput) {
-  const password = temporaryPassword();
-  const passwordHash = await hashOf(password);
+  const passwordHash = await unusableHash();
   return getSequelize().transaction(async (t) => {
     const taken = await findAccountByEmail(t, actor.shopId, input.email);
     if (taken) {
@@ -87,7 +88,32 @@ export async function inviteUser(actor: Actor, input: InviteUserInput) {
       entityId: user.id,
       after: auditView(user),
     });
-    return { user: toAdminUser(user), temporaryPassword: password };
+    await enqueueAccountMail(t, "invitation", { userId: user.id, shopId: actor.shopId });
+    return { user: toAdminUser(user), invitationSentTo: user.email };
+  });
+}
+
+/** Sends the invitation again, with a new link (the earlier one stops working); only before the first sign-in. */
+export async function resendInvitation(actor: Actor, userId: number) {
+  return getSequelize().transaction(async (t) => {
+    const user = await lockedUser(actor, userId, t);
+    if (!user.active) throw new AppError("conflict", `${user.name}'s account is deactivated; reactivate it first`);
+    if (user.lastSignInAt)
+      throw new AppError(
+        "conflict",
+        `${user.name} has already signed in. If they forgot their password, they can ask for a reset link ` +
+          "on the sign-in screen, or you can reset it here.",
+      );
+    await enqueueAccountMail(t, "invitation", { userId: user.id, shopId: actor.shopId });
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: "user.invitation_resent",
+      entityType: "user",
+      entityId: user.id,
+      after: auditView(user),
+    });
+    return { user: toAdminUser(user), invitationSentTo: user.email };
   });
 }
 
@@ -155,10 +181,13 @@ export async function updateUser(actor: Actor, userId: number, change: UpdateUse
   });
 }
 
-/** A new one-time password; also lifts a sign-in lock so the person can get in with it. */
+/**
+ * A new temporary password, shown once to the admin; the person must choose their own at the next
+ * sign-in. Also lifts a sign-in lock so they can get in with it.
+ */
 export async function resetPassword(actor: Actor, userId: number) {
   const password = temporaryPassword();
-  const passwordHash = await hashOf(password);
+  const passwordHash = await hashPassword(password);
   return getSequelize().transaction(async (t) => {
     const user = await lockedUser(actor, userId, t);
     if (!user.active)
@@ -166,7 +195,9 @@ export async function resetPassword(actor: Actor, userId: number) {
         "conflict",
         `${user.name}'s account is deactivated; reactivate it before resetting the password`,
       );
-    await setPassword(t, user.id, passwordHash);
+    // Someone else's temporary password was read out or copied: they choose their own at once. An
+    // admin resetting their own is the only one who saw it, and may change it on the account screen.
+    await setPassword(t, user.id, passwordHash, { mustChange: user.id !== actor.userId });
     await liftSignInLocks(user.email, t);
     // Whoever knew the old password may be signed in with it: their sessions end (an admin resetting
     // their own keeps the one they are using).

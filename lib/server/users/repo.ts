@@ -7,12 +7,29 @@ import type { ShopContact, ShopRecord } from "@/lib/schemas/user";
 
 // Accounts and the shop itself, as plain objects (the sign-in throttle's counters: lib/server/throttle).
 
-export type UserRecord = { id: number; shopId: number; name: string; email: string; role: Role; active: boolean };
+export type UserRecord = {
+  id: number;
+  shopId: number;
+  name: string;
+  email: string;
+  role: Role;
+  active: boolean;
+  /** A temporary password from an admin: they must choose their own before any other work. */
+  mustChangePassword: boolean;
+};
 /** An account as the admin's pages show it. */
 export type AccountRow = UserRecord & { lastSignInAt: Date | null; createdAt: Date };
 
 function reshape(u: User): UserRecord {
-  return { id: u.id, shopId: u.shopId, name: u.name, email: u.email, role: u.role as Role, active: u.active };
+  return {
+    id: u.id,
+    shopId: u.shopId,
+    name: u.name,
+    email: u.email,
+    role: u.role as Role,
+    active: u.active,
+    mustChangePassword: u.mustChangePassword,
+  };
 }
 
 const account = (u: User): AccountRow => ({
@@ -119,9 +136,17 @@ export async function updateAccount(t: Transaction, id: number, change: { role?:
 }
 
 /** A new password also clears the account's own failure count and lock. */
-export async function setPassword(t: Transaction, id: number, passwordHash: string): Promise<void> {
+export async function setPassword(
+  t: Transaction,
+  id: number,
+  passwordHash: string,
+  opts: { mustChange: boolean },
+): Promise<void> {
   const { User } = models();
-  await User.update({ passwordHash, failedAttempts: 0, lockedUntil: null }, { where: { id }, transaction: t });
+  await User.update(
+    { passwordHash, failedAttempts: 0, lockedUntil: null, mustChangePassword: opts.mustChange },
+    { where: { id }, transaction: t },
+  );
 }
 
 export async function findShop(id: number): Promise<ShopRecord | null> {

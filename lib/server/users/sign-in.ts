@@ -2,6 +2,7 @@ import "server-only";
 import bcrypt from "bcryptjs";
 import type { Transaction } from "sequelize";
 import { AppError } from "@/lib/server/core/errors";
+import { dummyHash } from "@/lib/server/passwords/hash";
 import { clearLimits, clearLimitsStartingWith, countOne, tooManyAttempts } from "@/lib/server/throttle/throttle";
 import { findSignInCandidates, markSignedIn, type UserRecord } from "@/lib/server/users/repo";
 import { accountKeys, named, readSignInCounts, shutOutUntil, signInLimits } from "@/lib/server/users/sign-in-limits";
@@ -10,15 +11,14 @@ import { assertShopOpen } from "@/lib/server/shops/signup";
 // Wrong password and unknown user get the same words, the same work (a bcrypt compare) and the same
 // counting, so no answer tells whether an e-mail has an account. The limits: sign-in-limits.ts.
 export const SIGN_IN_REFUSED = "That e-mail and password do not match an active account";
-// A real hash of a random string, compared when no user matches so timing does not reveal it.
-const DUMMY_HASH = "$2b$10$bvKUzmgPTBI2tlqKXg4njuJXa2RrBAtLFCawRkjpRVxnDL7r4TmvW";
 
 const waitWords = (minutes: number) =>
   `Too many failed sign-ins from here. Try again in ${minutes} min, or ask your shop admin to reset your password.`;
 
 async function matching(email: string, password: string): Promise<UserRecord | null> {
   const candidates = await findSignInCandidates(email);
-  if (!candidates.length) await bcrypt.compare(password, DUMMY_HASH);
+  // A real hash at the stored cost, compared when no user matches so timing does not reveal it.
+  if (!candidates.length) await bcrypt.compare(password, await dummyHash());
   for (const c of candidates) if (await bcrypt.compare(password, c.passwordHash)) return c;
   return null;
 }

@@ -8,6 +8,8 @@ const KIND_WORDS: Record<MailKind, string> = {
   flag_digest: "New flags, to a lead",
   ready_for_release: "Ready for release, to an inspector",
   shop_verification: "E-mail confirmation for a new shop",
+  invitation: "Invitation to set a password",
+  password_reset: "Password reset link",
 };
 
 const at = (d: Date) => `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
