@@ -10,11 +10,11 @@ import { POST as signIn } from "@/app/api/session/route";
 import { WRONG_CURRENT_PASSWORD } from "@/lib/server/accounts/passwords";
 import { PASSWORD_CHANGE_FIRST } from "@/lib/server/core/access";
 import { createShop, TEST_PASSWORD } from "../support/factories";
-import { asUser, call, cookieFor } from "../support/requests";
+import { asUser, call, cookieFor, pageRequest } from "../support/requests";
 
 const NEW = "rod bolt stretch gauge";
 const withCookie = (cookie: string, method = "GET", body?: unknown) =>
-  new Request("http://localhost/api/x", {
+  pageRequest("/api/x", {
     method,
     headers: body ? { cookie, "content-type": "application/json" } : { cookie },
     body: body ? JSON.stringify(body) : undefined,

@@ -10,12 +10,12 @@ import { MailOutbox } from "@/models";
 import { createShop, TEST_PASSWORD } from "../support/factories";
 import { linkIn, waitForMails } from "../support/mailbox";
 import { deliverFor } from "../support/record-fixtures";
-import { asUser, call, cookieFor } from "../support/requests";
+import { asUser, call, cookieFor, pageRequest } from "../support/requests";
 
 const ask = async (email: string, ip: string) =>
   call(forgot, await asUser(null, "POST", "/api/password/forgot", { email }, { "x-forwarded-for": ip }));
 
-const meWith = async (cookie: string) => call(me, new Request("http://localhost/api/me", { headers: { cookie } }));
+const meWith = async (cookie: string) => call(me, pageRequest("/api/me", { headers: { cookie } }));
 
 describe("forgot password", () => {
   it("answers an unknown address exactly as a known one, and mails only the real account", async () => {
