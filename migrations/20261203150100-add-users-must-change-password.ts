@@ -19,10 +19,9 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
 
 export async function down({ context: qi }: MigrationParams): Promise<void> {
   // The older list has no word for these; both were a sign-out.
-  await qi.bulkUpdate(
-    "user_sessions",
-    { ended_reason: "signed_out" },
-    { ended_reason: ["password_changed", "signed_out_everywhere"] },
+  await qi.sequelize.query(
+    "UPDATE user_sessions SET ended_reason = 'signed_out' " +
+      "WHERE ended_reason IN ('password_changed', 'signed_out_everywhere')",
   );
   await qi.changeColumn("user_sessions", "ended_reason", enumOf(BEFORE, undefined, true));
   await qi.removeColumn("users", "must_change_password");
