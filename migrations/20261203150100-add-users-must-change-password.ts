@@ -24,5 +24,6 @@ export async function down({ context: qi }: MigrationParams): Promise<void> {
       "WHERE ended_reason IN ('password_changed', 'signed_out_everywhere')",
   );
   await qi.changeColumn("user_sessions", "ended_reason", enumOf(BEFORE, undefined, true));
-  await qi.removeColumn("users", "must_change_password");
+  // Plain SQL, as in 20261202000100 (QueryInterface.removeColumn trips over mariadb 3.x).
+  await qi.sequelize.query("ALTER TABLE users DROP COLUMN must_change_password");
 }
