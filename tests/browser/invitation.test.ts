@@ -52,7 +52,14 @@ describe("an invitation by e-mail", () => {
     await field.fill("too short");
     await expect.poll(() => page.getByText("(9 so far)").isVisible()).toBe(true);
     await page.getByRole("button", { name: "Save my password" }).click();
-    await expect.poll(() => page.getByText(/Use at least 12 characters/).first().isVisible()).toBe(true);
+    await expect
+      .poll(() =>
+        page
+          .getByText(/Use at least 12 characters/)
+          .first()
+          .isVisible(),
+      )
+      .toBe(true);
     await field.fill("qwerty123456"); // on the @zxcvbn-ts/language-common list: the server's words show
     await page.getByRole("button", { name: "Save my password" }).click();
     await expect.poll(() => page.getByText(/list of common passwords/).isVisible(), WAIT).toBe(true);
