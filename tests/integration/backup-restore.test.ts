@@ -29,7 +29,8 @@ function dbFromUrl(url: string): DbConfig {
 const RESTORE_URL = process.env.TW_RESTORE_DATABASE_URL;
 if (!RESTORE_URL) throw new Error("TW_RESTORE_DATABASE_URL must point at an empty test database (npm test sets it)");
 const target = dbFromUrl(RESTORE_URL);
-const source = () => databaseConfig();
+// Backups are taken and restored as the schema owner (the app's account may not read the triggers).
+const source = () => databaseConfig("owner");
 const knownMigrations = migrations.map((m) => m.name);
 
 async function query<T>(db: DbConfig, sql: string, values: unknown[] = []): Promise<T[]> {
