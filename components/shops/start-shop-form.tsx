@@ -9,6 +9,7 @@ import { TextField } from "@/components/ui/text-field";
 import { api, ApiError } from "@/lib/client/api";
 import { UNIT_SYSTEM_WORDS } from "@/lib/domain";
 import { UNIT_SYSTEMS } from "@/lib/schemas/enums";
+import { PASSWORD_MIN_LENGTH } from "@/lib/schemas/password";
 import { shopSignUpSchema, type ShopSignUpInput, type ShopSignUpValues } from "@/lib/schemas/shop";
 import { ResendLink } from "./resend-link";
 
@@ -87,7 +88,7 @@ export function StartShopForm() {
         label="Password"
         type="password"
         autoComplete="new-password"
-        hint="At least 12 characters; a few unrelated words are easy to remember and hard to guess"
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters; a few unrelated words are easy to remember and hard to guess`}
         error={e.password?.message}
         {...form.register("password")}
       />

@@ -2,6 +2,7 @@
 // the same fields without a password (its admin sets one through a one-time link).
 import { z } from "zod";
 import { UNIT_SYSTEMS } from "@/lib/schemas/enums";
+import { passwordLengthProblem } from "@/lib/schemas/password";
 
 const email = z
   .string({ error: "Enter an e-mail address" })
@@ -27,9 +28,12 @@ export const newShopSchema = z.strictObject({
 });
 export type NewShopInput = z.output<typeof newShopSchema>;
 
-/** POST /api/shops: the public sign-up (the password's rules are checked on the server, words included). */
+/** POST /api/shops: the public sign-up (the common-password check runs on the server, words included). */
 export const shopSignUpSchema = newShopSchema.extend({
-  password: z.string({ error: "Choose a password" }).min(1, "Choose a password").max(200, "Keep it to 200 characters"),
+  password: z.string({ error: "Choose a password" }).superRefine((p, ctx) => {
+    const problem = passwordLengthProblem(p);
+    if (problem) ctx.addIssue({ code: "custom", message: problem });
+  }),
 });
 export type ShopSignUpValues = z.input<typeof shopSignUpSchema>;
 export type ShopSignUpInput = z.output<typeof shopSignUpSchema>;

@@ -1,9 +1,9 @@
 import "server-only";
-import bcrypt from "bcryptjs";
-import { randomBytes } from "node:crypto";
 import { parseArgs } from "node:util";
 import { newShopSchema, type NewShopInput } from "@/lib/schemas/shop";
+import { LINK_PAGES } from "@/lib/server/accounts/link-mail";
 import { AppError } from "@/lib/server/core/errors";
+import { unusableHash } from "@/lib/server/passwords/hash";
 import { issueToken, tokenLink } from "@/lib/server/tokens/service";
 import { createShop } from "./create-shop";
 
@@ -14,9 +14,6 @@ import { createShop } from "./create-shop";
 export const SHOP_CREATE_USAGE =
   'Usage: npm run shop:create -- --name "Shop name" --admin-email admin@shop.example ' +
   '[--admin-name "Their name"] [--units in|mm]';
-
-/** The page where a set_password link lands (built by the accounts feature). */
-const SET_PASSWORD_PAGE = "/set-password";
 
 const FLAG_OF: Record<string, string> = {
   shopName: "--name",
@@ -60,7 +57,7 @@ export type CommandResult = { shopId: number; adminId: number; link: string; exp
 
 export async function createShopFromCommand(input: NewShopInput): Promise<CommandResult> {
   // Nobody knows this password: the admin can sign in only after choosing one through the link.
-  const passwordHash = await bcrypt.hash(randomBytes(32).toString("base64url"), 12);
+  const passwordHash = await unusableHash();
   let created;
   try {
     created = await createShop({ ...input, passwordHash, activatedAt: new Date(), via: "command" });
@@ -76,5 +73,5 @@ export async function createShopFromCommand(input: NewShopInput): Promise<Comman
     userId: created.adminId,
     shopId: created.shopId,
   });
-  return { shopId: created.shopId, adminId: created.adminId, link: tokenLink(SET_PASSWORD_PAGE, token), expiresAt };
+  return { shopId: created.shopId, adminId: created.adminId, link: tokenLink(LINK_PAGES.invitation, token), expiresAt };
 }

@@ -1,11 +1,12 @@
 import "server-only";
-import bcrypt from "bcryptjs";
-import type { NewShopInput, ShopSignUpInput } from "@/lib/schemas/shop";
+import type { ShopSignUpInput } from "@/lib/schemas/shop";
 import { getSequelize } from "@/lib/server/core/db";
 import { env } from "@/lib/server/core/env";
 import { AppError } from "@/lib/server/core/errors";
 import { recordAudit } from "@/lib/server/log/repo";
 import { deliverPendingMail } from "@/lib/server/mail/outbox-worker";
+import { hashPassword } from "@/lib/server/passwords/hash";
+import { assertPasswordAllowed } from "@/lib/server/passwords/policy";
 import { consumeToken } from "@/lib/server/tokens/service";
 import { createShop } from "./create-shop";
 import { activateShop, findPendingAdmin, findShop, outboxIdByKey } from "./repo";
@@ -29,22 +30,10 @@ async function sendNow(dedupeKey: string): Promise<void> {
   if (id) await deliverPendingMail({ only: [id], budgetMs: 10_000 }).catch(() => undefined);
 }
 
-const MIN_PASSWORD = 12;
-
-function assertPassword(password: string, input: NewShopInput) {
-  const problem =
-    password.length < MIN_PASSWORD
-      ? `Use at least ${MIN_PASSWORD} characters; a few words you will remember make a good password`
-      : [input.email, input.adminName, input.shopName].some((w) => w.toLowerCase() === password.toLowerCase())
-        ? "Do not use your own name, e-mail or the shop's name as your password"
-        : null;
-  if (problem) throw new AppError("invalid", problem, { password: [problem] });
-}
-
 export async function startShop(input: ShopSignUpInput): Promise<{ email: string }> {
   assertSignUpOpen();
-  assertPassword(input.password, input);
-  const passwordHash = await bcrypt.hash(input.password, 12);
+  assertPasswordAllowed(input.password, { email: input.email, name: input.adminName }, "password");
+  const passwordHash = await hashPassword(input.password);
   const { shopId, adminId } = await createShop({ ...input, passwordHash, activatedAt: null, via: "sign_up" });
   const key = await enqueueShopVerification(null, {
     userId: adminId,
