@@ -24,7 +24,8 @@ export function contentSecurityPolicy({ nonce, dev, https }: Omit<SecurityOption
     "default-src 'self'",
     // React rebuilds server error stacks with eval in development only.
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${dev ? " 'unsafe-eval'" : ""}`,
-    `style-src 'self' 'nonce-${nonce}'${dev ? " 'unsafe-inline'" : ""}`,
+    // The development overlay injects styles; a browser ignores 'unsafe-inline' next to a nonce.
+    dev ? "style-src 'self' 'unsafe-inline'" : `style-src 'self' 'nonce-${nonce}'`,
     "img-src 'self' blob: data:",
     "font-src 'self'",
     "connect-src 'self'",

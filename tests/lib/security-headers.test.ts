@@ -13,7 +13,8 @@ describe("the Content-Security-Policy", () => {
 
   it("allows eval and inline styles in development only (React's error stacks, the dev overlay)", () => {
     expect(directive(policy({ dev: true }), "script-src")).toContain("'unsafe-eval'");
-    expect(directive(policy({ dev: true }), "style-src")).toContain("'unsafe-inline'");
+    expect(directive(policy({ dev: true }), "style-src")).toBe("style-src 'self' 'unsafe-inline'");
+    expect(directive(policy(), "style-src")).toBe("style-src 'self' 'nonce-abc'");
   });
 
   it("lets nothing frame a page, keeps workers, photos and previews working", () => {
