@@ -66,9 +66,13 @@ function refuse(res: Response, json: Record<string, unknown> | null, what: strin
   if (res.status >= 500)
     throw new TransientError(`The server had a problem (${res.status}); trying again shortly`, "server_error", wait);
   if (res.status === 401) throw new ActionError(401, "Signed out: sign in again so the tablet can send its readings");
-  if (res.status === 403)
-    throw new ActionError(403, "This account cannot send bench readings; sign in as a machinist or lead");
   const err = json?.error as { message?: string } | undefined;
+  // The server's own words when it gave them (a password change owed); the readings stay queued.
+  if (res.status === 403)
+    throw new ActionError(
+      403,
+      err?.message ?? "This account cannot send bench readings; sign in as a machinist or lead",
+    );
   throw new ActionError(res.status, `${what}: ${err?.message ?? `the server answered ${res.status}`}`);
 }
 
