@@ -1,6 +1,7 @@
 import { requirePageActor } from "@/lib/server/core/access";
 import { ROLE_WORDS } from "@/lib/nav";
 import { findShop, listUsers } from "@/lib/server/users/repo";
+import { ShopArchive } from "@/components/admin/shop-archive";
 
 export const metadata = { title: "Shop" };
 
@@ -27,6 +28,7 @@ export default async function AdminHome() {
           ))}
         </ul>
       </section>
+      <ShopArchive />
     </main>
   );
 }
