@@ -23,6 +23,7 @@ import * as addLimitsCommonPractice from "./20261203140000-add-limits-common-pra
 import * as addShopsActivatedAt from "./20261203140010-add-shops-activated-at";
 import * as createLinkTokens from "./20261203150000-create-link-tokens";
 import * as addUsersMustChangePassword from "./20261203150100-add-users-must-change-password";
+import * as addReadingsArchiveIndex from "./20261203170000-add-readings-archive-index";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -54,6 +55,7 @@ export const migrations: Migration[] = [
   step("20261203140010-add-shops-activated-at", addShopsActivatedAt),
   step("20261203150000-create-link-tokens", createLinkTokens),
   step("20261203150100-add-users-must-change-password", addUsersMustChangePassword),
+  step("20261203170000-add-readings-archive-index", addReadingsArchiveIndex),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */

@@ -70,7 +70,7 @@ const READINGS: ArchiveFile = {
   name: "readings.csv",
   from: "readings x JOIN jobs j ON j.id = x.job_id LEFT JOIN instruments g ON g.id = x.instrument_id",
   shopColumn: "x.shop_id",
-  key: ["x.job_id", "x.taken_at", "x.id"],
+  key: ["x.job_id", "x.taken_at", "x.id"], // index readings_shop_job_taken_id
   columns: [
     col("reading id", "x.id"),
     col("job id", "x.job_id", "number"),
