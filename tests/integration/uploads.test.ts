@@ -55,7 +55,8 @@ describe("offline photos", () => {
       unavailable: false,
     });
     expect(await db.photos.get(photo.id)).toMatchObject({ state: "uploaded", blob: null });
-    const stored = await Attachment.findByPk(photo.id);
+    // The tablet's photo id is the upload's clientId; the server gives the stored file its own id.
+    const stored = await Attachment.findOne({ where: { shopId: s.shop.id, clientId: photo.id } });
     expect(stored).toMatchObject({
       shopId: s.shop.id,
       ownerType: "job",
@@ -63,8 +64,8 @@ describe("offline photos", () => {
       contentType: "image/jpeg",
       sizeBytes: bytes.length,
     });
-    const res = await download(await asUser(s.users.lead, "GET", `/api/attachments/${photo.id}`), {
-      params: Promise.resolve({ id: photo.id }),
+    const res = await download(await asUser(s.users.lead, "GET", `/api/attachments/${stored!.id}`), {
+      params: Promise.resolve({ id: stored!.id }),
     });
     expect(Buffer.from(await res.arrayBuffer()).equals(bytes)).toBe(true);
 
@@ -93,7 +94,7 @@ describe("offline photos", () => {
       unavailable: false,
     });
     expect(await Attachment.count({ where: { shopId: s.shop.id } })).toBe(2);
-    expect(await Attachment.count({ where: { id: second.id } })).toBe(1);
+    expect(await Attachment.count({ where: { clientId: second.id } })).toBe(1);
     db.close();
   });
 });
