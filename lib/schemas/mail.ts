@@ -7,6 +7,7 @@ export const MAIL_KINDS = [
   "flag_digest",
   "ready_for_release",
   "shop_verification",
+  "shop_address_taken",
   "invitation",
   "password_reset",
 ] as const;

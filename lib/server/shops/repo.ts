@@ -50,7 +50,13 @@ export async function shopNameTaken(name: string, slug: string): Promise<boolean
 }
 
 export async function emailHasAccount(email: string): Promise<boolean> {
-  return (await models().User.count({ where: { email: email.toLowerCase() } })) > 0;
+  return (await accountOf(email)) !== null;
+}
+
+/** The account an address already has (in any shop), or null. */
+export async function accountOf(email: string): Promise<{ userId: number; shopId: number } | null> {
+  const u = await models().User.findOne({ where: { email: email.toLowerCase() }, attributes: ["id", "shopId"] });
+  return u ? { userId: u.id, shopId: u.shopId } : null;
 }
 
 export type ShopState = { id: number; name: string; activatedAt: Date | null };

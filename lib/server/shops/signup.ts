@@ -9,8 +9,8 @@ import { hashPassword } from "@/lib/server/passwords/hash";
 import { assertPasswordAllowed } from "@/lib/server/passwords/policy";
 import { consumeToken } from "@/lib/server/tokens/service";
 import { createShop } from "./create-shop";
-import { activateShop, findPendingAdmin, findShop, outboxIdByKey } from "./repo";
-import { enqueueShopVerification } from "./verify-mail";
+import { accountOf, activateShop, findPendingAdmin, findShop, outboxIdByKey } from "./repo";
+import { enqueueAddressTaken, enqueueShopVerification } from "./verify-mail";
 
 // The public way to start a shop: the shop, its first admin and its starter sheets are made at
 // once, but the shop stays closed (nobody signs in) until the admin opens the e-mailed link.
@@ -34,6 +34,12 @@ export async function startShop(input: ShopSignUpInput): Promise<{ email: string
   assertSignUpOpen();
   assertPasswordAllowed(input.password, { email: input.email, name: input.adminName }, "password");
   const passwordHash = await hashPassword(input.password);
+  // An address that already has an account gets the same answer as a new one; its owner is told by mail.
+  const existing = await accountOf(input.email);
+  if (existing) {
+    await sendNow(await enqueueAddressTaken({ shopId: existing.shopId, email: input.email, shopName: input.shopName }));
+    return { email: input.email };
+  }
   const { shopId, adminId } = await createShop({ ...input, passwordHash, activatedAt: null, via: "sign_up" });
   const key = await enqueueShopVerification(null, {
     userId: adminId,

@@ -49,3 +49,31 @@ export async function composeShopVerification(row: OutboxRow): Promise<OutgoingM
   ].join("\n\n");
   return { to: row.toAddress, subject: row.subject, text, html: textToHtml(text) };
 }
+
+export const TAKEN_MAIL_KIND = "shop_address_taken";
+
+/**
+ * Someone asked to start a shop with an address that already has an account. The page answers as
+ * it would for a new shop (so it cannot be used to find who has an account); the address's owner
+ * learns of it here instead.
+ */
+export async function enqueueAddressTaken(who: { shopId: number; email: string; shopName: string }) {
+  const dedupeKey = `${TAKEN_MAIL_KIND}:${randomUUID()}`;
+  const text = [
+    "Hello,",
+    `Someone asked to start a shop named "${who.shopName}" in Tenthwise with this address as its first admin. ` +
+      "This address already has a Tenthwise account, so no shop was made.",
+    'If it was you: sign in with this address as usual (or use "Forgot your password?" on the sign-in page), ' +
+      "or start the new shop with another address.",
+    "If it was not you, ignore this message: nothing was changed.",
+  ].join("\n\n");
+  await enqueueMail(null, {
+    shopId: who.shopId,
+    kind: TAKEN_MAIL_KIND,
+    to: who.email,
+    dedupeKey,
+    subject: "Someone tried to start a Tenthwise shop with your address",
+    payload: { text },
+  });
+  return dedupeKey;
+}

@@ -8,6 +8,7 @@ const KIND_WORDS: Record<MailKind, string> = {
   flag_digest: "New flags, to a lead",
   ready_for_release: "Ready for release, to an inspector",
   shop_verification: "E-mail confirmation for a new shop",
+  shop_address_taken: "New shop refused: address already has an account",
   invitation: "Invitation to set a password",
   password_reset: "Password reset link",
 };
