@@ -60,17 +60,11 @@
 // GET /api/bench/jobs  (machinist, lead) → { jobs: BenchJobSummary[] } open jobs (intake, measuring, review)
 // GET /api/bench/jobs/:jobId  (machinist, lead) → JobPack, everything the tablet stores to work offline.
 import { z } from "zod";
-import {
-  ENTRY_MODES,
-  LUBRICANT_LABELS,
-  MEASURE_UNITS,
-  READING_PRECISION,
-  parseStationId,
-  storedFigureProblem,
-} from "@/lib/domain";
+import { ENTRY_MODES, LUBRICANT_LABELS, MEASURE_UNITS, READING_PRECISION, parseStationId } from "@/lib/domain";
 import type { Lubricant, Verdict } from "@/lib/domain";
 import type { FieldErrors } from "./errors";
 import { SKIP_REASON_MAX, skipReasonTooLong } from "./text-limits";
+import { keptBy } from "./stored-figure";
 import { storedText } from "./stored-text";
 
 export { TAKEN_BY_HEADER } from "./sync-headers";
@@ -80,11 +74,8 @@ export const MAX_BATCH = 500;
 export const SETTLE_MS = 15_000;
 export const LUBRICANTS = Object.keys(LUBRICANT_LABELS) as [Lubricant, ...Lubricant[]];
 
-/** A figure refused when its column cannot keep it exactly (lib/domain/stored-figures.ts). */
-const kept = (field: keyof typeof READING_PRECISION, what: string) => (x: number, ctx: z.RefinementCtx) => {
-  const problem = storedFigureProblem(x, READING_PRECISION[field], what);
-  if (problem) ctx.addIssue({ code: "custom", message: problem });
-};
+/** A figure refused when its readings column cannot keep it exactly (lib/domain/stored-figures.ts). */
+const kept = (field: keyof typeof READING_PRECISION, what: string) => keptBy(READING_PRECISION[field], what);
 
 const temperature = (field: "partTempC" | "gaugeTempC", what: string) =>
   z
