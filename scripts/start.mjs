@@ -24,6 +24,7 @@ async function main() {
     dbPort: DB_PORT,
     smtpPort: Number(process.env.TW_SMTP_PORT ?? 2525),
     s3Port: Number(process.env.TW_S3_PORT ?? 4569),
+    mailViewPort: Number(process.env.TW_MAIL_VIEW_PORT ?? 2580),
     secrets,
   });
   let server;
@@ -78,6 +79,8 @@ async function main() {
       `\n  Tenthwise is at http://localhost:${PORT}\n\n  Demo sign-ins (demo only), password "${demo.password}":`,
     );
     for (const a of demo.accounts) console.log(`    ${a.role.padEnd(10)} ${a.email}`);
+    if (services.mailViewUrl)
+      console.log(`\n  Local mail (what the fake mail server received): ${services.mailViewUrl}`);
     console.log("\n  Ctrl-C stops the app, MariaDB and the local fakes.\n");
   } catch (err) {
     console.error(`[tenthwise] ${err.message}`);

@@ -3,13 +3,25 @@
 import { attachMariaDb, startMariaDb } from "./mariadb.mjs";
 import { accountStatements, accountsEnv, OWNER_USER } from "./db-accounts.mjs";
 import { attachFakeS3, startFakeS3, startFakeSmtp } from "./fakes.mjs";
+import { startMailView } from "./mail-view.mjs";
 import { portIsFree } from "./ports.mjs";
 
 // With `reuse` (backup and restore), a local service already answering on its port (npm start's)
 // is used as it is, and the mail fake is not started at all.
-export async function startServices({ mode, dataRoot, dbPort, smtpPort, s3Port, secrets, reuse = false }) {
+// With `mailViewPort` (npm start), the fake's messages are shown on a local web page too.
+export async function startServices({
+  mode,
+  dataRoot,
+  dbPort,
+  smtpPort,
+  s3Port,
+  secrets,
+  reuse = false,
+  mailViewPort,
+}) {
   const stops = [];
   const env = {};
+  let mailViewUrl = null;
   const throwaway = mode === "test";
   try {
     if (!process.env.DATABASE_URL && !process.env.DB_HOST) {
@@ -43,6 +55,11 @@ export async function startServices({ mode, dataRoot, dbPort, smtpPort, s3Port, 
       const smtp = await startFakeSmtp({ port: smtpPort, mailDir: `${dataRoot}/mail` });
       stops.push(smtp.stop);
       Object.assign(env, { SMTP_HOST: "127.0.0.1", SMTP_PORT: String(smtpPort), MAIL_DIR: smtp.mailDir });
+      if (mailViewPort) {
+        const view = await startMailView({ port: mailViewPort, mailDir: smtp.mailDir });
+        stops.push(view.stop);
+        mailViewUrl = view.url;
+      }
     }
     if (!process.env.S3_ENDPOINT) {
       const startS3 = reuse && !(await portIsFree(s3Port)) ? attachFakeS3 : startFakeS3;
@@ -65,5 +82,5 @@ export async function startServices({ mode, dataRoot, dbPort, smtpPort, s3Port, 
     stopped = true;
     for (const stop of stops.reverse()) await stop().catch((e) => console.error("[tenthwise] stop failed:", e.message));
   }
-  return { env, stop: stopAll };
+  return { env, mailViewUrl, stop: stopAll };
 }

@@ -1,0 +1,4 @@
+export function startMailView(o: {
+  port: number;
+  mailDir: string;
+}): Promise<{ url: string; stop: () => Promise<void> }>;
