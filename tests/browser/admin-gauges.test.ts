@@ -2,9 +2,18 @@
 // certificate, and a new reading taken with it (sent by the machinist through POST /api/sync) is
 // flagged gauge_past_due in the lead's queue. Invented serials and figures.
 import { randomUUID } from "node:crypto";
-import { request, type APIRequestContext, type Browser, type Page } from "playwright-core";
+import { type APIRequestContext, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, demo, demoEmail, launchBrowser, newTabletPage, screenshot, signInAs } from "../support/browser";
+import {
+  apiContext,
+  BASE_URL,
+  demo,
+  demoEmail,
+  launchBrowser,
+  newTabletPage,
+  screenshot,
+  signInAs,
+} from "../support/browser";
 
 // Data arrives through TanStack Query after hydration; give the server time on a cold start.
 const WAIT = { timeout: 15_000 };
@@ -18,7 +27,7 @@ let admin: Page;
 const apis: APIRequestContext[] = [];
 
 async function apiAs(role: string) {
-  const ctx = await request.newContext({ baseURL: BASE_URL });
+  const ctx = await apiContext();
   apis.push(ctx);
   expect((await ctx.post("/api/session", { data: { email: email(role), password: demo.password } })).status()).toBe(
     200,

@@ -1,9 +1,9 @@
 // Bore, journal and deck maps of demo job KF-2611 in Chromium, for the lead and the inspector,
 // on screen and as printed. The machinist (rosa) first sends invented readings through POST /api/sync.
 import { randomUUID } from "node:crypto";
-import { request, type APIRequestContext, type Browser } from "playwright-core";
+import { type APIRequestContext, type Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, demo, demoEmail, launchBrowser, screenshot, signInAs } from "../support/browser";
+import { apiContext, BASE_URL, demo, demoEmail, launchBrowser, screenshot, signInAs } from "../support/browser";
 
 const email = demoEmail;
 
@@ -40,7 +40,7 @@ let jobId: number;
 const apis: APIRequestContext[] = [];
 
 beforeAll(async () => {
-  const rosa = await request.newContext({ baseURL: BASE_URL });
+  const rosa = await apiContext();
   apis.push(rosa);
   expect(
     (await rosa.post("/api/session", { data: { email: email("machinist"), password: demo.password } })).status(),

@@ -3,9 +3,9 @@
 // one flag of each kind; "measure again" then reaches the tablet through the job pack; a new
 // in-spec reading closes that flag and its decision history stays. Figures are invented.
 import { randomUUID } from "node:crypto";
-import { request, type APIRequestContext, type Browser, type Page } from "playwright-core";
+import { type APIRequestContext, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, demo, demoEmail, launchBrowser, newTabletPage, screenshot, signInAs } from "../support/browser";
+import { apiContext, demo, demoEmail, launchBrowser, newTabletPage, screenshot, signInAs } from "../support/browser";
 
 // Data arrives through TanStack Query after hydration; give the server time on a cold start.
 const WAIT = { timeout: 15_000 };
@@ -22,7 +22,7 @@ const gaugeFor = (stationId: string) =>
 const apis: APIRequestContext[] = [];
 
 async function apiAs(role: string) {
-  const ctx = await request.newContext({ baseURL: BASE_URL });
+  const ctx = await apiContext();
   apis.push(ctx);
   expect((await ctx.post("/api/session", { data: { email: email(role), password: demo.password } })).status()).toBe(
     200,

@@ -3,9 +3,9 @@
 // verify the record, see verification fail after a row is changed in MariaDB, read the audit.
 import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
-import { request, type APIRequestContext, type Browser, type Page } from "playwright-core";
+import { type APIRequestContext, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BASE_URL, launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
+import { apiContext, launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
 import { prepareInspectorJob } from "./inspector-fixtures";
 import { asOwner } from "../support/owner-db";
 
@@ -38,7 +38,7 @@ let job: Awaited<ReturnType<typeof prepareInspectorJob>>;
 const apis: APIRequestContext[] = [];
 
 async function apiAs(role: string) {
-  const ctx = await request.newContext({ baseURL: BASE_URL });
+  const ctx = await apiContext();
   apis.push(ctx);
   const res = await ctx.post("/api/session", { data: { email: account(role).email, password: demo.password } });
   expect(res.status()).toBe(200);

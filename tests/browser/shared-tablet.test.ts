@@ -16,9 +16,11 @@ import {
   signIn,
   signInAs,
 } from "../support/browser";
+import { linkIn, waitForMails } from "../support/mailbox";
 
 const ROSA = demoEmail("machinist");
 const IVO = { name: "Ivo Marchetti", email: `ivo-${randomUUID().slice(0, 6)}@kestrelflats.example` };
+const IVO_PASSWORD = "feeler gauge on the top ring";
 // Demo V8 (KF-2611) piston skirts, 4.0285 in nominal (scripts/seed/demo-specs.ts, invented demo data):
 // a section no other browser test logs, so the order the files run in does not matter.
 const SKIRTS = ["skirt/1", "skirt/2", "skirt/3"];
@@ -78,7 +80,14 @@ describe("a shared tablet", () => {
     await signInAs(office, demoEmail("admin"));
     const invited = await sendJson(office.context().request, "POST", "/api/users", { ...IVO, role: "machinist" });
     expect(invited.status()).toBe(201);
-    const ivo = (await invited.json()) as { user: { id: number }; temporaryPassword: string };
+    const ivo = (await invited.json()) as { user: { id: number } };
+    // Ivo chooses his password from the e-mailed invitation, as a new machinist would.
+    const [invitation] = await waitForMails(IVO.email, 1);
+    const chosen = await sendJson(office.context().request, "POST", "/api/password/set", {
+      token: linkIn(invitation, "/set-password").token,
+      password: IVO_PASSWORD,
+    });
+    expect(chosen.status()).toBe(200);
 
     context = (await launchProfile()).context;
     const page = context.pages()[0] ?? (await context.newPage());
@@ -122,7 +131,7 @@ describe("a shared tablet", () => {
     await context.setOffline(false);
     await expect.poll(() => meStatus(rosaCookie), WAIT).toBe(401);
     // Ivo signs in on the same tablet and saves one reading of his own.
-    await signInOnLockScreen(page, IVO.email, ivo.temporaryPassword);
+    await signInOnLockScreen(page, IVO.email, IVO_PASSWORD);
     await expect.poll(() => page.getByTestId("whoami").textContent(), WAIT).toContain(IVO.name);
     await page.goto(`/bench/job?id=${jobId}`);
     await page.getByTestId("job-screen").waitFor();

@@ -1,5 +1,12 @@
 // Headless Debian Chromium through playwright-core, with the flags this machine needs.
-import { chromium, type APIRequestContext, type Browser, type BrowserContext, type Page } from "playwright-core";
+import {
+  chromium,
+  request,
+  type APIRequestContext,
+  type Browser,
+  type BrowserContext,
+  type Page,
+} from "playwright-core";
 import { readFileSync } from "node:fs";
 import { mkdtempSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -62,6 +69,14 @@ export const demo = JSON.parse(readFileSync("scripts/demo-accounts.json", "utf8"
   accounts: { role: string; name: string; email: string }[];
 };
 export const demoEmail = (role: string) => demo.accounts.find((a) => a.role === role)!.email;
+
+/**
+ * A client of the API outside any page (a second person, a script), sending on every request the
+ * Origin a browser puts on a page's own POST, since the server refuses changes naming no page of its own.
+ */
+export function apiContext(): Promise<APIRequestContext> {
+  return request.newContext({ baseURL: BASE_URL, extraHTTPHeaders: { origin: new URL(BASE_URL).origin } });
+}
 
 /**
  * A change sent straight to the API (not from a page), with the Origin a browser puts on a page's
