@@ -26,6 +26,8 @@ export function SignOutEverywhere() {
       ]);
       await signOutHere(getBenchDb());
     } finally {
+      // A full load, as the header's sign-out does: nothing of the person who left stays in memory.
+      // eslint-disable-next-line @next/next/no-location-assign-relative-destination
       window.location.assign("/sign-in");
     }
   }
