@@ -11,7 +11,7 @@ import { notFound } from "@/lib/server/core/errors";
 import { checkRelease } from "@/lib/server/release/hash-verify";
 import { listReleases, loadJobRecord, userNames, type JobRecord, type ReleaseRow } from "@/lib/server/release/repo";
 import { when, withUnit } from "@/lib/server/record/format";
-import { recordPhotos } from "@/lib/server/record/photos";
+import { recordPhotos, type RecordPhotos } from "@/lib/server/record/photos";
 import { planOf } from "@/lib/server/record/plan";
 import { derivedLines, readingSections, tallyOf } from "@/lib/server/record/readings";
 import { loadRecordParties, type RecordParties } from "@/lib/server/record/repo";
@@ -102,29 +102,25 @@ function pickRelease(releases: ReleaseRow[], releaseId?: number): ReleaseRow | n
 
 const contact = (...xs: (string | null | undefined)[]) => xs.filter((x): x is string => !!x && x.trim() !== "");
 
-export async function loadBuildRecord(
-  shopId: number,
-  jobId: number,
-  opts: { releaseId?: number } = {},
-): Promise<BuildRecord> {
-  const record = await loadJobRecord(shopId, jobId);
+/** What a build record is made of, once loaded: the one pure step from rows to printed words. */
+export type RecordInputs = {
+  record: JobRecord;
+  parties: RecordParties;
+  releases: ReleaseRow[];
+  names: Map<number, string>;
+  photos: RecordPhotos;
+  releaseId?: number;
+  now?: Date;
+};
+
+export function assembleBuildRecord(i: RecordInputs): BuildRecord {
+  const { record, parties, releases, names } = i;
   const { job } = record;
-  const [parties, releases] = await Promise.all([
-    loadRecordParties(shopId, job.customerId, job.engineId),
-    listReleases(jobId),
-  ]);
-  const chosen = pickRelease(releases, opts.releaseId);
-  const names = await userNames(shopId, [
-    ...record.readings.map((r) => r.takenBy),
-    ...record.dispositions.map((d) => d.userId),
-    ...record.flags.map((f) => f.disposedBy),
-    ...releases.flatMap((r) => [r.inspectorId, r.voidedBy]),
-  ]);
-  const { photos, byReading } = await recordPhotos(shopId, jobId, [...currentReadings(record.readings).values()]);
-  const { sections, torque, current } = readingSections(record, { names, photosByReading: byReading });
+  const chosen = pickRelease(releases, i.releaseId);
+  const { sections, torque, current } = readingSections(record, { names, photosByReading: i.photos.byReading });
   const earlier = releases.filter((r) => chosen && r.id !== chosen.id && r.signedAt <= chosen.signedAt);
   return {
-    generatedAt: when(new Date()),
+    generatedAt: when(i.now ?? new Date()),
     pageSize: parties.shop.unitSystem === "mm" ? "A4" : "LETTER",
     shop: { name: parties.shop.name, contact: contact(parties.shop.address, parties.shop.phone, parties.shop.email) },
     customer: { name: parties.customer.name, contact: contact(parties.customer.phone, parties.customer.email) },
@@ -143,11 +139,33 @@ export async function loadBuildRecord(
     derived: derivedLines(record, current),
     flags: flagLines(record, names),
     gauges: gaugeLines(record, current),
-    photos,
+    photos: i.photos.photos,
     tally: tallyOf(current),
     release: chosen ? stamp(chosen, record, names) : null,
     earlierReleases: earlier.map((r) => stamp(r, record, names)),
     safety: SAFETY_NOTICE,
     commonPractice: commonPracticeLines(record.spec),
   };
+}
+
+export async function loadBuildRecord(
+  shopId: number,
+  jobId: number,
+  opts: { releaseId?: number; now?: Date } = {},
+): Promise<BuildRecord> {
+  const record = await loadJobRecord(shopId, jobId);
+  const { job } = record;
+  const [parties, releases] = await Promise.all([
+    loadRecordParties(shopId, job.customerId, job.engineId),
+    listReleases(jobId),
+  ]);
+  pickRelease(releases, opts.releaseId); // an unknown release is a 404 before the photos are fetched
+  const names = await userNames(shopId, [
+    ...record.readings.map((r) => r.takenBy),
+    ...record.dispositions.map((d) => d.userId),
+    ...record.flags.map((f) => f.disposedBy),
+    ...releases.flatMap((r) => [r.inspectorId, r.voidedBy]),
+  ]);
+  const photos = await recordPhotos(shopId, jobId, [...currentReadings(record.readings).values()]);
+  return assembleBuildRecord({ record, parties, releases, names, photos, ...opts });
 }

@@ -1,0 +1,288 @@
+// BENCHMARK DATA ONLY: a fully measured, released small-block V8 for `npm run bench:record`, built
+// in memory and turned into a BuildRecord by the same assembly the server uses (assembleBuildRecord):
+// every station of the V8's route (figures from scripts/bench/sync-readings.ts), verdicts from the
+// core's evaluateReading against the demo street spec, a flag with an "accept" decision for each
+// reading out of spec, the demo inch gauges, a build plan, ten photos through the upload's
+// thumbnail step, and a release whose fingerprint is the release hash of that record.
+import { randomUUID } from "node:crypto";
+import sharp from "sharp";
+import { benchRoute, currentReadings, evaluateReading, parseStationId } from "@/lib/domain";
+import { toSpecLimit } from "@/lib/server/jobs/context";
+import { assembleBuildRecord } from "@/lib/server/record/data";
+import type { RecordParties } from "@/lib/server/record/repo";
+import { buildSnapshot, gaugeRecord } from "@/lib/server/release/hash-snapshot";
+import { CANONICAL_VERSION, releaseHash } from "@/lib/server/release/hash";
+import type { InstrumentRow, JobRecord, LimitRow, ReleaseRow } from "@/lib/server/release/repo";
+import { instrumentInfo, storedEvaluation, toRaw } from "@/lib/server/sync/ingest-evaluate";
+import { makeThumbnail } from "@/lib/server/uploads/content";
+import type { StoredReading } from "@/lib/schemas/readings";
+import type { BuildRecord, PhotoLine } from "@/lib/schemas/record";
+import { DEMO_GAUGES } from "../seed/demo-gauges";
+import { STREET_V8_INCH } from "../seed/demo-specs";
+import { benchReadings, V8 } from "./sync-readings";
+
+const SHOP_ID = 1;
+const JOB_ID = 1;
+const MACHINIST = 2;
+const INSPECTOR = 3;
+const T0 = Date.UTC(2026, 10, 30, 8, 0);
+
+const PLAN = {
+  format: "tenthwise.build-plan",
+  version: 1,
+  lengthUnit: "in",
+  volumeUnit: "cc",
+  bore: 4.03,
+  stroke: 3.48,
+  rodLength: 5.7,
+  compressionHeight: 1.56,
+  pistonTop: "dish",
+  pistonVolumeCc: 5,
+  chamberCc: 64,
+  gasketBore: 4.1,
+  gasketThickness: 0.039,
+  deckHeight: 9.025,
+  intakeLobeLift: 0.3,
+  exhaustLobeLift: 0.31,
+  rockerRatio: 1.5,
+  intakeLash: 0.016,
+  exhaustLash: 0.018,
+  notes: "Benchmark plan",
+};
+
+const PARTIES: RecordParties = {
+  shop: { name: "Bench shop (benchmark data)", address: "1 Test Road", phone: null, email: null, unitSystem: "in" },
+  customer: { name: "Bench customer", email: "customer@bench.example", phone: null },
+  engine: {
+    description: "Benchmark small-block V8",
+    layout: "v",
+    cylinders: 8,
+    mains: 5,
+    unitSystem: "in",
+    nominalBore: 4.03,
+    nominalStroke: 3.48,
+    blockMaterial: "greyCastIron",
+    headMaterial: null,
+    pistonMaterial: null,
+    blockSerial: "BENCH-1",
+    crankSerial: null,
+    headSerials: null,
+    fuel: null,
+  },
+};
+
+function instruments(): InstrumentRow[] {
+  const when = new Date(T0);
+  return DEMO_GAUGES.filter((g) => g.unit === "in" || g.unit === "lbf_ft").map((g, i) => ({
+    ...g,
+    id: i + 1,
+    shopId: SHOP_ID,
+    coverageK: 2,
+    dialPlusMeansSmaller: true,
+    active: true,
+    certificateAttachmentId: null,
+    createdAt: when,
+    updatedAt: when,
+  }));
+}
+
+function limits(): LimitRow[] {
+  return STREET_V8_INCH.map((l, i) => ({
+    id: i + 1,
+    jobId: JOB_ID,
+    min: null,
+    max: null,
+    nominal: null,
+    tolPlus: null,
+    tolMinus: null,
+    perInchMin: null,
+    perInchMax: null,
+    isoClass: null,
+    gaugeKind: null,
+    label: null,
+    ...l,
+    sortOrder: i,
+    commonPractice: false,
+    createdAt: new Date(T0),
+    updatedAt: new Date(T0),
+  }));
+}
+
+/** A gauge of the right unit whose range holds the figure, as the tablet would offer. */
+function gaugeFor(gauges: InstrumentRow[], unit: string, value: number): InstrumentRow | undefined {
+  return gauges.find((g) => g.unit === unit && (g.rangeMin ?? 0) <= value && value <= (g.rangeMax ?? Infinity));
+}
+
+function readings(record: Omit<JobRecord, "readings" | "flags" | "dispositions">): StoredReading[] {
+  const pushed = benchReadings([JOB_ID], benchRoute(V8).total, new Date(T0).toISOString());
+  return pushed.map((p, i) => {
+    const takenAt = new Date(T0 + i * 40_000);
+    const g = gaugeFor(record.instruments, p.unit, p.value as number);
+    const row = {
+      id: p.id,
+      stationId: p.stationId,
+      value: p.value as number,
+      unit: p.unit,
+      partTempC: null,
+      gaugeTempC: null,
+      lubricant: p.lubricant ?? null,
+      instrumentId: g?.id ?? null,
+      takenAt,
+    };
+    const ev = evaluateReading(toRaw(row, g ? instrumentInfo(g) : undefined), record.shape, record.spec);
+    const { unit: _u, ...verdict } = storedEvaluation(ev, p.unit, false);
+    return {
+      ...row,
+      ...verdict,
+      shopId: SHOP_ID,
+      jobId: JOB_ID,
+      characteristic: parseStationId(p.stationId).characteristic ?? "",
+      valueCanonical: null,
+      entryMode: "direct" as const,
+      dialSetting: null,
+      dialDeviation: null,
+      skipped: false,
+      skipReason: null,
+      note: i % 37 === 5 ? "Checked twice; same figure." : null,
+      takenBy: MACHINIST,
+      receivedAt: takenAt,
+      deviceId: "bench-tablet",
+      supersedes: null,
+    };
+  });
+}
+
+/** An accepted flag per reading out of spec, with the decision's words. */
+function flagsOf(rows: StoredReading[]): Pick<JobRecord, "flags" | "dispositions"> {
+  const out = rows.filter((r) => r.verdict === "out_of_spec");
+  const at = new Date(T0 + 4 * 3600_000);
+  const reason = "Customer agreed after measuring again; within the part maker's extended range (benchmark data)";
+  const flags = out.map((r, i) => ({
+    id: i + 1,
+    shopId: SHOP_ID,
+    jobId: JOB_ID,
+    readingId: r.id,
+    derivedKey: null,
+    stationId: r.stationId,
+    characteristic: r.characteristic,
+    value: r.value as number,
+    unit: r.unit,
+    limitMin: r.limitMin,
+    limitMax: r.limitMax,
+    deviation: r.deviation,
+    verdict: "out_of_spec" as const,
+    reason: "out_of_spec" as const,
+    state: "disposed" as const,
+    disposition: "accept" as const,
+    operation: null,
+    dispositionReason: reason,
+    disposedBy: INSPECTOR,
+    disposedAt: at,
+    closedAt: null,
+    closedByReadingId: null,
+    createdAt: r.takenAt,
+    updatedAt: at,
+  }));
+  const dispositions = flags.map((f, i) => ({
+    id: i + 1,
+    flagId: f.id,
+    disposition: "accept" as const,
+    operation: null,
+    reason,
+    userId: INSPECTOR,
+    createdAt: at,
+  }));
+  return { flags, dispositions };
+}
+
+/** Ten 3000×2250 phone-sized pictures, reduced by the upload's own thumbnail step. */
+async function photos(current: StoredReading[]): Promise<{ photos: PhotoLine[]; byReading: Map<string, string[]> }> {
+  const byReading = new Map<string, string[]>();
+  const lines = await Promise.all(
+    Array.from({ length: 10 }, async (_, i) => {
+      const big = await sharp({
+        create: {
+          width: 3000,
+          height: 2250,
+          channels: 3,
+          background: "#808080",
+          noise: { type: "gaussian", mean: 90 + i * 10, sigma: 40 },
+        },
+      })
+        .jpeg({ quality: 90 })
+        .toBuffer();
+      const thumb = await makeThumbnail(big, "image/jpeg", `photo-${i + 1}.jpg`);
+      const reading = current[i * 17];
+      const n = `Photo ${i + 1}`;
+      byReading.set(reading.id, [n]);
+      return { id: randomUUID(), caption: `${n}: ${reading.stationId}`, thumb, note: `photo-${i + 1}.jpg` };
+    }),
+  );
+  return { photos: lines, byReading };
+}
+
+export type RecordFixture = { build(now?: Date): BuildRecord; stations: number; photos: number };
+
+/** The fixture, built once; build() assembles a fresh BuildRecord (as each download does). */
+export async function fullV8Record(): Promise<RecordFixture> {
+  const lim = limits();
+  const base = {
+    job: {
+      id: JOB_ID,
+      shopId: SHOP_ID,
+      customerId: 1,
+      engineId: 1,
+      templateId: null,
+      code: "BENCH-V8",
+      title: "Benchmark V8, every station measured",
+      unitSystem: "in" as const,
+      status: "released" as const,
+      dueDate: null,
+      notes: null,
+      buildPlan: PLAN,
+      finishedBore: 4.03,
+      finishedMainJournal: 2.449,
+      finishedRodJournal: 2.099,
+      specRevision: 1,
+      lockedAt: new Date(T0 + 5 * 3600_000),
+      createdAt: new Date(T0),
+      updatedAt: new Date(T0),
+    },
+    customerName: PARTIES.customer.name,
+    engineDescription: PARTIES.engine.description,
+    shape: { ...V8, nominalSizes: { bore: 4.03, mainJournal: 2.449, rodJournal: 2.099 } },
+    spec: lim.map(toSpecLimit),
+    limits: lim,
+    instruments: instruments(),
+  };
+  const rows = readings(base);
+  const record: JobRecord = { ...base, readings: rows, ...flagsOf(rows) };
+  const signedAt = new Date(T0 + 5 * 3600_000);
+  const sig = { inspectorId: INSPECTOR, signedName: "Bench Inspector", signedAt };
+  const hash = releaseHash(buildSnapshot(record, sig, record.instruments.map(gaugeRecord)));
+  const release: ReleaseRow = {
+    id: 1,
+    shopId: SHOP_ID,
+    jobId: JOB_ID,
+    ...sig,
+    checklist: {},
+    hash,
+    canonicalVersion: CANONICAL_VERSION,
+    voidedAt: null,
+    voidedBy: null,
+    voidReason: null,
+    createdAt: signedAt,
+    updatedAt: signedAt,
+  };
+  const names = new Map([
+    [MACHINIST, "Bench Machinist"],
+    [INSPECTOR, "Bench Inspector"],
+  ]);
+  const pics = await photos([...currentReadings(rows).values()]);
+  return {
+    build: (now?: Date) =>
+      assembleBuildRecord({ record, parties: PARTIES, releases: [release], names, photos: pics, now }),
+    stations: rows.length,
+    photos: pics.photos.length,
+  };
+}
