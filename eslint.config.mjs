@@ -33,6 +33,14 @@ const DOMAIN_ONLY = [
   },
 ];
 
+// A feature folder inside the core (lib/domain/bearings/) may also reach the core's own files one level up.
+const DOMAIN_FEATURE_ONLY = [
+  {
+    regex: "^(?!\\./|\\.\\./(?!\\.\\.)|decimal\\.js-light$)",
+    message: "lib/domain is the pure core: a feature folder imports only the core's files (and decimal.js-light).",
+  },
+];
+
 export default tseslint.config(
   {
     ignores: [
@@ -85,6 +93,10 @@ export default tseslint.config(
   {
     files: ["lib/domain/**/*.ts"],
     rules: { "no-restricted-imports": ["error", { patterns: DOMAIN_ONLY }] },
+  },
+  {
+    files: ["lib/domain/*/**/*.ts"],
+    rules: { "no-restricted-imports": ["error", { patterns: DOMAIN_FEATURE_ONLY }] },
   },
   {
     files: [

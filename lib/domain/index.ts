@@ -33,3 +33,4 @@ export * from "./gauge-pick";
 export * from "./reading-input";
 export * from "./reach";
 export * from "./words";
+export * from "./bearings";
