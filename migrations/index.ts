@@ -24,6 +24,7 @@ import * as addShopsActivatedAt from "./20261203140010-add-shops-activated-at";
 import * as createLinkTokens from "./20261203150000-create-link-tokens";
 import * as addUsersMustChangePassword from "./20261203150100-add-users-must-change-password";
 import * as addReadingsArchiveIndex from "./20261203170000-add-readings-archive-index";
+import * as createJobProgress from "./20261204050000-create-job-progress";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -56,6 +57,7 @@ export const migrations: Migration[] = [
   step("20261203150000-create-link-tokens", createLinkTokens),
   step("20261203150100-add-users-must-change-password", addUsersMustChangePassword),
   step("20261203170000-add-readings-archive-index", addReadingsArchiveIndex),
+  step("20261204050000-create-job-progress", createJobProgress),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */
@@ -80,4 +82,5 @@ export const MIGRATED_TABLES = [
   "mail_outbox",
   "user_sessions",
   "link_tokens",
+  "job_progress",
 ] as const;

@@ -1,8 +1,9 @@
 "use client";
 
-import { useQuery } from "@tanstack/react-query";
+import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/client/api";
 import type { BuildPlanView } from "@/lib/schemas/build-plan";
+import type { BoardPage } from "@/lib/schemas/job-board";
 import type { BoardJob, CustomerRecord, JobDetail, JobLimitsView } from "@/lib/schemas/job";
 import type { TemplateRecord, TemplateSummary } from "@/lib/schemas/spec";
 
@@ -20,8 +21,13 @@ export const keys = {
 
 export type { BoardJob, BuildPlanView, CustomerRecord, JobDetail, JobLimitsView, TemplateRecord, TemplateSummary };
 
-export const useJobBoard = () =>
-  useQuery({ queryKey: keys.jobs, queryFn: () => api<{ jobs: BoardJob[] }>("/api/jobs").then((r) => r.jobs) });
+/** One page of the board (`params`: the board's query string); the last page stays shown while the next loads. */
+export const useJobBoard = (params: string) =>
+  useQuery({
+    queryKey: [...keys.jobs, params],
+    queryFn: () => api<BoardPage>(`/api/jobs?${params}`),
+    placeholderData: keepPreviousData,
+  });
 export const useJob = (id: number) =>
   useQuery({ queryKey: keys.job(id), queryFn: () => api<JobDetail>(`/api/jobs/${id}`) });
 export const useCustomers = () =>

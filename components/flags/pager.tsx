@@ -9,6 +9,7 @@ export function Pager({
   total,
   onPage,
   onPageSize,
+  what = "flags",
 }: {
   page: number;
   pageCount: number;
@@ -16,6 +17,8 @@ export function Pager({
   total: number;
   onPage: (p: number) => void;
   onPageSize: (s: number) => void;
+  /** What is counted, for "No flags" when there is none. */
+  what?: string;
 }) {
   const from = (page - 1) * pageSize + 1;
   const to = Math.min(total, page * pageSize);
@@ -25,7 +28,7 @@ export function Pager({
         Previous
       </Button>
       <span className="tabular text-sm" data-testid="page-info">
-        {total === 0 ? "No flags" : `${from}–${to} of ${total}`} · page {page} of {pageCount}
+        {total === 0 ? `No ${what}` : `${from}–${to} of ${total}`} · page {page} of {pageCount}
       </span>
       <Button tone="quiet" disabled={page >= pageCount} onClick={() => onPage(page + 1)}>
         Next

@@ -21,7 +21,9 @@ beforeAll(async () => {
   bench = (await newTabletPage(browser)).page;
   await signInAs(lead, demoEmail("lead"));
   await signInAs(bench, demoEmail("machinist"));
-  const { jobs } = (await (await lead.request.get("/api/jobs")).json()) as { jobs: { id: number; code: string }[] };
+  const { jobs } = (await (await lead.request.get("/api/jobs?status=all&pageSize=100")).json()) as {
+    jobs: { id: number; code: string }[];
+  };
   for (const code of CODES) ids.set(code, jobs.find((j) => j.code === code)!.id);
   // The tablet downloads every listed job in the background; wait until all are on it.
   await bench.goto("/bench");

@@ -4,7 +4,7 @@ import type { BenchJobSummary, JobPack } from "@/lib/schemas/sync";
 import type { Actor } from "@/lib/schemas/session";
 import { toBenchFlag } from "@/lib/server/bench/flag-view";
 import { flagsOfJobs, jobWithNames, namesOf, openBenchJobs, openFlagCounts, toHeader } from "@/lib/server/bench/repo";
-import { progressOfJobs } from "@/lib/server/jobs/readings";
+import { progressOf } from "@/lib/server/board/progress";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import { readingsOfJobs, shopInstruments, toServerReading } from "@/lib/server/readings/repo";
@@ -26,10 +26,14 @@ function routeOf(shape: Parameters<typeof benchRoute>[0], code: string) {
 
 export async function listBenchJobs(actor: Actor): Promise<BenchJobSummary[]> {
   const jobs = await openBenchJobs(actor.shopId);
-  // Required-station progress as the desk board counts it (lib/domain/progress.ts); an engine
-  // that cannot be laid out shows 0 of 0 and its pack explains what is wrong.
+  // Required-station progress as the desk board counts it (lib/domain/progress.ts), from the kept
+  // counts (lib/server/board/progress.ts); an engine that cannot be laid out shows 0 of 0 and its
+  // pack explains what is wrong.
   const [progress, flags] = await Promise.all([
-    progressOfJobs(actor.shopId, jobs),
+    progressOf(
+      actor.shopId,
+      jobs.map((j) => j.id),
+    ),
     openFlagCounts(jobs.map((j) => j.id)),
   ]);
   return jobs.map((j) => ({

@@ -30,9 +30,10 @@ export function toHeader(j: JobRow): BenchJobHeader {
 
 export const namesOf = (j: JobWithNames) => ({ customer: j.customer?.name ?? "", engine: j.engine?.description ?? "" });
 
+// The job list and a pack show only these of the customer and the engine.
 const include = () => [
-  { model: models().Customer, as: "customer" },
-  { model: models().Engine, as: "engine" },
+  { model: models().Customer, as: "customer", attributes: ["name"] },
+  { model: models().Engine, as: "engine", attributes: ["description"] },
 ];
 const plainJob = (j: { get(o: { plain: true }): object }) => j.get({ plain: true }) as JobWithNames;
 

@@ -48,6 +48,8 @@ export const APP_TABLE_RIGHTS: Record<MigratedTable, readonly TableRight[]> = {
   user_sessions: ["SELECT", "INSERT", "UPDATE", "DELETE"],
   // One-time links are marked used or replaced, never deleted (their hashes stay as the record).
   link_tokens: ["SELECT", "INSERT", "UPDATE"],
+  // Kept progress counts (a cache the triggers mark stale): counted again and stored by the board.
+  job_progress: ["SELECT", "INSERT", "UPDATE"],
 };
 
 /** A MariaDB account: 'user'@'host'. */

@@ -62,9 +62,6 @@ export async function listJobs(shopId: number, statuses?: readonly JobStatus[]):
   return (await jobsWithNames(shopId, statuses)).map(summaryOf);
 }
 
-/** The board's rows: every job with its customer's name and its engine. */
-export const listJobsWithParties = (shopId: number) => jobsWithNames(shopId);
-
 /** A job of this shop, or a 404 that never reveals whether another shop has it. */
 export async function getJobOrThrow(shopId: number, jobId: number, t?: Transaction): Promise<JobRow> {
   const job = await models().Job.findOne({ where: { id: jobId, shopId }, transaction: t });
