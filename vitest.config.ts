@@ -3,6 +3,20 @@ import { fileURLToPath } from "node:url";
 
 const root = fileURLToPath(new URL(".", import.meta.url));
 
+// Tests across Galera nodes and app instances: only with the cluster that `npm run test:cluster`
+// starts (it sets CLUSTER), so `npm test` and a bare `vitest run` leave them out.
+const cluster = {
+  extends: true as const,
+  test: {
+    name: "cluster",
+    include: ["tests/cluster/**/*.test.ts"],
+    fileParallelism: false,
+    testTimeout: 180_000,
+    hookTimeout: 180_000,
+    expect: { poll: { timeout: 30_000 } },
+  },
+};
+
 export default defineConfig({
   resolve: {
     alias: [
@@ -50,6 +64,7 @@ export default defineConfig({
           expect: { poll: { timeout: 10_000 } },
         },
       },
+      ...(process.env.CLUSTER ? [cluster] : []),
     ],
   },
 });

@@ -9,6 +9,7 @@ import { portIsFree } from "./ports.mjs";
 // With `reuse` (backup and restore), a local service already answering on its port (npm start's)
 // is used as it is, and the mail fake is not started at all.
 // With `mailViewPort` (npm start), the fake's messages are shown on a local web page too.
+// With `withDatabase: false` (the cluster scripts, which run their own Galera nodes), only the fakes.
 export async function startServices({
   mode,
   dataRoot,
@@ -18,13 +19,14 @@ export async function startServices({
   secrets,
   reuse = false,
   mailViewPort,
+  withDatabase = true,
 }) {
   const stops = [];
   const env = {};
   let mailViewUrl = null;
   const throwaway = mode === "test";
   try {
-    if (!process.env.DATABASE_URL && !process.env.DB_HOST) {
+    if (withDatabase && !process.env.DATABASE_URL && !process.env.DB_HOST) {
       const database = throwaway ? "tenthwise_test" : "tenthwise";
       // Tests get a second, empty database so the migrations test can run every down and up
       // without touching the seeded one the app and other tests use, and a third, empty one

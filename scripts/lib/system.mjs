@@ -6,6 +6,11 @@ import { existsSync } from "node:fs";
 const PACKAGES = {
   mariadbd: { pkg: "mariadb-server", paths: ["/usr/sbin/mariadbd", "/usr/bin/mariadbd"] },
   chromium: { pkg: "chromium", paths: ["/usr/bin/chromium"] },
+  // The cluster (npm run cluster, npm run test:cluster): Galera's provider library, rsync for
+  // state transfer, and HAProxy in front of the app instances.
+  galera: { pkg: "galera-4", paths: ["/usr/lib/galera/libgalera_smm.so"] },
+  rsync: { pkg: "rsync", paths: ["/usr/bin/rsync"] },
+  haproxy: { pkg: "haproxy", paths: ["/usr/sbin/haproxy"] },
 };
 
 export function findBinary(name) {
@@ -32,4 +37,6 @@ export function ensureSystemPackages(names) {
   execFileSync("apt-get", ["install", "-y", "-qq", ...pkgs], { stdio: "inherit", env });
   // Debian starts its own mariadb service after install; we run our own private server instead.
   if (pkgs.includes("mariadb-server")) spawnSync("sh", ["-c", "service mariadb stop >/dev/null 2>&1 || true"]);
+  // The same for HAProxy's service: ours runs with its own configuration on its own port.
+  if (pkgs.includes("haproxy")) spawnSync("sh", ["-c", "service haproxy stop >/dev/null 2>&1 || true"]);
 }
