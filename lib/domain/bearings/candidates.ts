@@ -91,7 +91,7 @@ export function prepare(input: SelectionInput): Prepared {
     const unit = raw.unit;
     if (!ladders.has(unit)) ladders.set(unit, ladderSets(input.sets, unit));
     const base = { journal, unit, window: exactWindow(raw, unit, journal.role) };
-    const pairs = allowedPairs(ladders.get(unit)!, journal.role);
+    const pairs = allowedPairs(ladders.get(unit)!, journal.role, unit);
     const candidates = pairs.map((p) => candidate(journal, p, base, input));
     // Stable sort: equal costs keep the sets' order, so the answer never depends on a journal's name.
     candidates.sort((a, b) => compareCost(a.cost, b.cost));

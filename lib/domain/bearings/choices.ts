@@ -4,17 +4,24 @@ import { prepare, type Candidate } from "./candidates";
 import { buildSelection } from "./outcome";
 import type { ChoiceProblem, HandChoice, Selection, SelectionInput } from "./types";
 import type { JournalContext } from "./candidates";
+import { pairRefusal, type LadderSet, type PairRefusal } from "./pairs";
 import { shellSetWords } from "./words";
 
-function refusal(ctx: JournalContext, hand: HandChoice, input: SelectionInput): string {
-  const upper = input.sets.find((s) => s.id === hand.upperSetId);
-  const lower = input.sets.find((s) => s.id === hand.lowerSetId);
-  const role = ctx.journal.role;
+const REFUSAL_WORDS: Readonly<Record<PairRefusal, string>> = {
+  role: "needs shells entered for its kind of journal (main, thrust main or rod)",
+  series: "mixes two series; halves mix only within one maker's series",
+  undersize: "mixes two undersizes; both halves must suit the journal's size",
+  steps: "puts halves more than one step apart; pick neighbouring sizes",
+  walls: "mixes halves whose walls differ by more than 0.0005 in (0.013 mm); pick neighbouring sizes",
+  placement: "puts the thicker half on the wrong side; it goes on the rod side of a rod and in the cap of a main",
+};
+
+function refusal(ctx: JournalContext, hand: HandChoice, ladder: readonly LadderSet[]): string {
+  const upper = ladder.find((l) => l.set.id === hand.upperSetId);
+  const lower = ladder.find((l) => l.set.id === hand.lowerSetId);
   if (!upper || !lower) return "names a shell set that is not on this job's shelf; pick one of the sets listed";
-  if (upper.role !== role || lower.role !== role)
-    return `needs ${role} shells; pick a set entered for ${role} journals`;
-  if (upper.series !== lower.series) return "mixes two series; halves mix only within one maker's series";
-  return "puts halves more than one step apart (or of different undersizes); pick neighbouring sizes";
+  const why = pairRefusal(upper, lower, ctx.journal.role, ctx.unit);
+  return why ? REFUSAL_WORDS[why] : "cannot take these halves";
 }
 
 /**
@@ -34,7 +41,10 @@ export function evaluateChoices(
     const found = ctx.candidates.find(
       (c) => c.pair.upper.set.id === h.upperSetId && c.pair.lower.set.id === h.lowerSetId,
     );
-    if (!found) problems.push({ key: ctx.journal.key, message: `${ctx.journal.key} ${refusal(ctx, h, input)}` });
+    if (!found) {
+      const why = refusal(ctx, h, prepared.ladders.get(ctx.unit) ?? []);
+      problems.push({ key: ctx.journal.key, message: `${ctx.journal.key} ${why}` });
+    }
     return found;
   });
   for (const h of hand) {

@@ -59,7 +59,9 @@ export function factoryGrades(journals: readonly BearingJournal[], table: GradeT
       if (!found) {
         return {
           key: j.key,
-          problem: `${j.key}: the table has no grade for housing ${j.housingCode} × journal ${j.journalCode}; check the codes`,
+          problem:
+            `${j.key}: the table has no grade for housing ${j.housingCode} × journal ${j.journalCode}; ` +
+            "check the codes",
         };
       }
       return { key: j.key, ...found };

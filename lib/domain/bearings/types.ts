@@ -147,7 +147,10 @@ export interface BearingAdvice {
   /** The nearest predicted clearance and how far it misses the window (positive: loose; negative: tight). */
   nearest?: number;
   miss?: number;
-  /** order_thicker / order_thinner: the set (stated as makers do, full-set clearance change) that reaches the target. */
+  /**
+   * order_thicker / order_thinner: how much thicker or thinner than the chosen halves a set must be to
+   * reach the target, stated as makers state sets (the full set's change in clearance).
+   */
   amount?: number;
   /** more_stock: the set whose halves ran out. */
   setId?: string;

@@ -17,7 +17,10 @@ export function lengthWords(x: number, unit: LengthUnit): string {
   return `${roundToResolution(x, unit).toFixed(places)} ${UNIT_WORDS[unit]}`;
 }
 
-/** A set's size: "standard", "0.001 in thicker", "0.001 in thinner (extra clearance)", "0.25 mm undersize", "grade 2". */
+/**
+ * A set's size: "standard", "0.001 in thicker", "0.001 in thinner (extra clearance)", "0.25 mm undersize",
+ * "grade 2".
+ */
 export function shellStepWords(step: ShellStep, unit: LengthUnit): string {
   const amount = step.amount !== undefined ? `${step.amount} ${UNIT_WORDS[unit]}` : "";
   switch (step.kind) {
@@ -54,17 +57,19 @@ export function bearingAdviceWords(
   const nearest = advice.nearest !== undefined ? `the nearest the shelf allows is ${at(advice.nearest)}, ` : "";
   const side = (advice.miss ?? 0) > 0 ? "loose" : "tight";
   const misses = advice.miss !== undefined ? `${at(advice.miss)} ${side} of the window` : "";
+  const amount = at(advice.amount);
   switch (advice.kind) {
     case "no_shells":
       return `${advice.key}: no shells on the shelf fit this journal; enter the sets for it`;
     case "more_stock": {
       const set = sets.find((s) => s.id === advice.setId);
-      return `${advice.key}: the window is reachable, but the halves ran out; add halves of ${set ? shellSetWords(set) : "the set used up"}`;
+      const which = set ? shellSetWords(set) : "the set used up";
+      return `${advice.key}: the window is reachable, but the halves ran out; add halves of ${which}`;
     }
     case "order_thicker":
-      return `${advice.key}: ${nearest}${misses}. Order a set about ${at(advice.amount)} thicker than the halves chosen`;
+      return `${advice.key}: ${nearest}${misses}. Order a set about ${amount} thicker than the halves chosen`;
     case "order_thinner":
-      return `${advice.key}: ${nearest}${misses}. Order an extra-clearance set about ${at(advice.amount)} thinner than the halves chosen`;
+      return `${advice.key}: ${nearest}${misses}. Order an extra-clearance set about ${amount} thinner`;
     case "grind_undersize":
       return (
         `${advice.key}: ${nearest}${misses}, beyond what a clearance-adjusting set can make up. ` +
