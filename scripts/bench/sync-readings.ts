@@ -41,12 +41,12 @@ const FIGURES: [pattern: RegExp, centre: number, spread: number][] = [
 ];
 
 /** A deterministic pseudo-random sequence, so every run measures the same figures. */
-function lcg(seed: number) {
+export function lcg(seed: number) {
   let x = seed >>> 0;
   return () => (x = (Math.imul(x, 1664525) + 1013904223) >>> 0) / 2 ** 32;
 }
 
-function valueFor(stationId: string, rnd: () => number): number {
+export function valueFor(stationId: string, rnd: () => number): number {
   const [, centre, spread] = FIGURES.find(([p]) => p.test(stationId))!;
   const loaded = stationId.endsWith("/loaded") ? 0.0058 : 0; // stretch of a torqued rod bolt
   const decimals = stationId.startsWith("torque/") ? 0 : 4;

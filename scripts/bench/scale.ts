@@ -1,0 +1,53 @@
+// `npm run bench:scale`: a million readings behind every office screen (issue 15). Starts a
+// throwaway MariaDB and the fakes (scripts/lib/services.mjs), migrates, loads the history with
+// the bulk loader (scripts/bench/scale/load.ts), then measures (scripts/bench/scale/run.ts).
+// Every figure is printed with the load average: a busy machine's figures are not final.
+import { execFileSync, spawnSync } from "node:child_process";
+import { randomBytes } from "node:crypto";
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+
+type Lib = {
+  startServices(o: Record<string, unknown>): Promise<{ env: Record<string, string>; stop(): Promise<void> }>;
+  freePort(): Promise<number>;
+};
+const lib = (name: string) => `./lib/${name}.mjs`.replace("./lib", "../lib");
+
+async function main() {
+  const { startServices } = (await import(lib("services"))) as Lib;
+  const { freePort } = (await import(lib("ports"))) as Lib;
+  const dataRoot = mkdtempSync(join(tmpdir(), "tenthwise-scale-"));
+  const secrets = {
+    SESSION_SECRET: randomBytes(32).toString("hex"),
+    LINK_SECRET: randomBytes(32).toString("hex"),
+    DB_APP_PASSWORD: randomBytes(12).toString("hex"),
+    DB_OWNER_PASSWORD: randomBytes(12).toString("hex"),
+  };
+  const [dbPort, smtpPort, s3Port] = [await freePort(), await freePort(), await freePort()];
+  const services = await startServices({ mode: "test", dataRoot, dbPort, smtpPort, s3Port, secrets });
+  let status: number;
+  try {
+    const env = { ...process.env, ...services.env, ...secrets, NOTIFY_INTERVAL_SECONDS: "0" };
+    execFileSync("node", ["node_modules/tsx/dist/cli.mjs", "--conditions=react-server", "scripts/db-setup.ts"], {
+      stdio: "inherit",
+      env,
+    });
+    // Server modules import the "server-only" marker; the child maps it to a stub (tsconfig.sync.json).
+    const child = spawnSync(
+      process.execPath,
+      ["node_modules/tsx/dist/cli.mjs", "--tsconfig", "scripts/bench/tsconfig.sync.json", "scripts/bench/scale/run.ts"],
+      { stdio: "inherit", env: { ...env, NODE_ENV: "production", TW_DATA_ROOT: dataRoot } },
+    );
+    status = child.status ?? 1;
+  } finally {
+    await services.stop();
+    rmSync(dataRoot, { recursive: true, force: true });
+  }
+  process.exit(status);
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});

@@ -1,0 +1,116 @@
+// The kinds of job a busy shop's history holds (benchmark data only, invented figures): each
+// variant is one job's life on the bench, sent through the real ingest once (templates.ts) and
+// copied to many jobs by the bulk loader (load.ts). Figures come from scripts/bench/sync-readings.ts.
+import { randomUUID } from "node:crypto";
+import { benchRoute } from "@/lib/domain";
+import type { JobStatus } from "@/lib/domain";
+import type { PushReadingInput } from "@/lib/schemas/sync";
+import { V8, lcg, valueFor } from "../sync-readings";
+
+export type Variant = {
+  id: number;
+  /** The status the job ends in; the readings are taken while it is "measuring". */
+  status: JobStatus;
+  /** Share of the route measured in the first pass (0 for a job still at intake). */
+  fill: number;
+  /** The machined sections measured again after machining (finished sizes). */
+  secondPass: boolean;
+  /** Share of the open flags the lead decides after the first pass; the rest wait. */
+  decideShare: number;
+  /** Whether the lead accepts whatever is still open at the end (a job ready for release). */
+  settle: boolean;
+  seed: number;
+};
+
+// Sections a shop machines and measures again to the finished size.
+const MACHINED = /^(bore|main|rod|deck)\//;
+const STEP_MS = 20_000; // a reading every 20 s on the bench
+
+const variant = (id: number, status: JobStatus, fill: number, more: Partial<Variant> = {}): Variant => ({
+  id,
+  status,
+  fill,
+  secondPass: false,
+  decideShare: 0,
+  settle: false,
+  seed: 7919 * (id + 1),
+  ...more,
+});
+
+/** Finished jobs (closed, in review) have both passes and every flag decided; work in hand is partial. */
+export const VARIANTS: Variant[] = [
+  ...Array.from({ length: 10 }, (_, i) => variant(i, "closed", 1, { secondPass: true, decideShare: 1, settle: true })),
+  ...Array.from({ length: 3 }, (_, i) => variant(10 + i, "review", 1, { secondPass: true, decideShare: 0.6 })),
+  ...[0.15, 0.35, 0.55, 0.8, 1].map((fill, i) => variant(13 + i, "measuring", fill, { decideShare: 0.5 })),
+  variant(18, "intake", 0),
+];
+
+/** The status of the k-th job (oldest first) of a shop of n jobs: old work is closed, new work in hand. */
+export function statusAt(k: number, n: number): JobStatus {
+  const age = 1 - k / n; // 1 = oldest
+  if (age > 0.2) return "closed";
+  if (age > 0.12) return "review";
+  if (age > 0.03) return "measuring";
+  return "intake";
+}
+
+const ROUTE = benchRoute(V8).sections.flatMap((s) => s.stations);
+
+/**
+ * bench:sync's figures, with rod bolts 2.1 in long (its 6 in bolts are past the demo stretch
+ * gauge's 0.5–6 in range, and every reading here names a gauge that holds it).
+ */
+export function figureFor(stationId: string, rnd: () => number): number {
+  const v = valueFor(stationId, rnd);
+  if (stationId.startsWith("bolt/")) return Number((v - 3.9).toFixed(4));
+  // An oil ring's wide gap stays within the demo feeler set (to 0.04 in).
+  if (/^ring-gap\/.*\/oil$/.test(stationId)) return Math.min(v, 0.039);
+  return v;
+}
+
+/** The gauge a reading names (of the job's shop, suited to the station and value). */
+export type GaugePick = (stationId: string, value: number, unit: string) => number;
+
+function input(
+  jobId: number,
+  stationId: string,
+  unit: string,
+  value: number,
+  torque: boolean,
+  at: number,
+  gauge: GaugePick,
+) {
+  return {
+    id: randomUUID(),
+    jobId,
+    stationId,
+    value,
+    unit: unit as PushReadingInput["unit"],
+    entryMode: "direct" as const,
+    instrumentId: gauge(stationId, value, unit),
+    takenAt: new Date(at).toISOString(),
+    ...(torque ? { lubricant: "engine-oil" as const } : {}),
+  };
+}
+
+/**
+ * The readings of a variant for a job, in bench order, taken every 20 s ending at `endAt`: the
+ * first pass over `fill` of the route, then (secondPass) the machined sections again.
+ */
+export function passes(
+  v: Variant,
+  jobId: number,
+  endAt: number,
+  gauge: GaugePick,
+): { first: PushReadingInput[]; second: PushReadingInput[] } {
+  const rnd = lcg(v.seed);
+  const firstStations = ROUTE.slice(0, Math.round(v.fill * ROUTE.length));
+  const secondStations = v.secondPass ? ROUTE.filter((s) => MACHINED.test(s.id)) : [];
+  let at = endAt - (firstStations.length + secondStations.length + 1) * STEP_MS;
+  const take = (st: (typeof ROUTE)[number]) =>
+    input(jobId, st.id, st.unit, figureFor(st.id, rnd), st.torque, (at += STEP_MS), gauge);
+  return { first: firstStations.map(take), second: secondStations.map(take) };
+}
+
+/** Whether a station is machined (its flag asks to machine again) or only measured again. */
+export const isMachined = (stationId: string) => MACHINED.test(stationId);
