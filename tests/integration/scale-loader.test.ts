@@ -1,0 +1,124 @@
+// The bulk loader of bench:scale (scripts/bench/scale/load.ts) copies rows instead of sending
+// every reading through the ingest. This shows a copied job, in another shop, holds exactly the
+// rows the real ingest and the lead's decisions write for the same readings: the same columns,
+// figures, verdicts, flags, decisions, audit events and change-feed rows, apart from ids and times.
+// Benchmark data only (scripts/bench/scale/variants.ts, invented figures).
+import { afterAll, describe, expect, it } from "vitest";
+import mariadb, { type Connection } from "mariadb";
+import { loadScale, ownerUrl } from "../../scripts/bench/scale/load";
+import { createV8Job, gaugeFor } from "../../scripts/bench/scale/fixture";
+import { runVariant } from "../../scripts/bench/scale/templates";
+import { VARIANTS } from "../../scripts/bench/scale/variants";
+
+type Row = Record<string, unknown>;
+const TIMES = ["created_at", "updated_at", "received_at", "taken_at", "disposed_at", "closed_at", "locked_at"];
+const ISO = /^\d{4}-\d\d-\d\dT[\d:.]+Z$/;
+
+let conn: Connection;
+afterAll(async () => conn?.end());
+
+/** Every row of one job, with ids replaced by their place (R3, F1, …) and times left out. */
+async function picture(jobId: number) {
+  const q = (sql: string, args: unknown[]) => conn.query(sql, args) as Promise<Row[]>;
+  const [job] = await q("SELECT * FROM jobs WHERE id = ?", [jobId]);
+  const readings = await q("SELECT * FROM readings WHERE job_id = ? ORDER BY taken_at", [jobId]);
+  const flags = await q("SELECT * FROM flags WHERE job_id = ? ORDER BY id", [jobId]);
+  const decisions = flags.length
+    ? await q("SELECT * FROM flag_dispositions WHERE flag_id IN (?) ORDER BY id", [flags.map((f) => f.id)])
+    : [];
+  const users = await q("SELECT id, role, email FROM users WHERE shop_id = ?", [job.shop_id]);
+  const gauges = await q("SELECT id, serial FROM instruments WHERE shop_id = ?", [job.shop_id]);
+  const ids = new Map<string, string>([[`job:${jobId}`, "JOB"]]);
+  readings.forEach((r, i) => ids.set(`reading:${r.id}`, `R${i}`));
+  flags.forEach((f, i) => ids.set(`flag:${f.id}`, `F${i}`));
+  decisions.forEach((d, i) => ids.set(`disposition:${d.id}`, `D${i}`));
+  // A person by role and number (machinist2@…), a gauge by its serial: the same in every bench shop.
+  users.forEach((u) => ids.set(`user:${u.id}`, String(u.email).split("@")[0]));
+  gauges.forEach((g) => ids.set(`gauge:${g.id}`, String(g.serial)));
+  const name = (kind: string, v: unknown) => (v == null ? v : (ids.get(`${kind}:${v}`) ?? `unknown ${kind} ${v}`));
+  const json = (v: unknown, key = ""): unknown => {
+    if (typeof v === "string") return ISO.test(v) ? "time" : (ids.get(`reading:${v}`) ?? v);
+    if (typeof v === "number" && /^(jobId|flagId|dispositionId|userId|disposedBy|takenBy)$/.test(key)) {
+      const kind = { jobId: "job", flagId: "flag", dispositionId: "disposition" }[key] ?? "user";
+      return name(kind, v);
+    }
+    if (Array.isArray(v)) return v.map((x) => json(x));
+    if (v && typeof v === "object") return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, json(x, k)]));
+    return v;
+  };
+  const plain = (r: Row, named: Record<string, string>): Row =>
+    Object.fromEntries(
+      Object.entries(r)
+        .filter(([k]) => !TIMES.includes(k) && k !== "shop_id")
+        .map(([k, v]) => [k, named[k] ? name(named[k], v) : v]),
+    );
+  const entity = (type: unknown) => ({ job: "job", job_limits: "job", flag: "flag", reading: "reading" })[String(type)];
+  // Audit events of this job: on the job, its flags, its readings.
+  const audits = (await q("SELECT * FROM audit_events WHERE shop_id = ? ORDER BY id", [job.shop_id])).filter((a) =>
+    ids.has(`${entity(a.entity_type)}:${a.entity_id}`),
+  );
+  const changes = await q("SELECT * FROM sync_changes WHERE job_id = ? ORDER BY id", [jobId]);
+  return {
+    job: { status: job.status, locked: job.locked_at !== null, unit: job.unit_system, bore: job.finished_bore },
+    limits: (await q("SELECT * FROM job_limits WHERE job_id = ? ORDER BY sort_order", [jobId])).map((l) =>
+      plain({ ...l, id: null }, { job_id: "job" }),
+    ),
+    readings: readings.map((r) =>
+      plain(r, { id: "reading", supersedes: "reading", job_id: "job", taken_by: "user", instrument_id: "gauge" }),
+    ),
+    flags: flags.map((f) =>
+      plain(f, {
+        id: "flag",
+        job_id: "job",
+        reading_id: "reading",
+        closed_by_reading_id: "reading",
+        disposed_by: "user",
+      }),
+    ),
+    decisions: decisions.map((d) => plain(d, { id: "disposition", flag_id: "flag", user_id: "user" })),
+    audits: audits.map((a) => ({
+      ...plain({ ...a, id: null }, { user_id: "user" }),
+      entity_id: name(entity(a.entity_type)!, a.entity_id),
+      before: json(typeof a.before === "string" ? JSON.parse(a.before) : a.before),
+      after: json(typeof a.after === "string" ? JSON.parse(a.after) : a.after),
+    })),
+    changes: changes.map((c) => ({
+      ...plain({ ...c, id: null }, { job_id: "job" }),
+      entity_id: name(entity(c.entity)!, c.entity_id),
+    })),
+  };
+}
+
+describe("bench:scale's bulk loader", () => {
+  it("writes for a copied job exactly the rows the ingest writes for the same readings", async () => {
+    // A finished job: both passes, flags decided every way (machine again, measure again, accept).
+    const variant = VARIANTS.find((v) => v.status === "closed" && v.secondPass && v.settle)!;
+    const loaded = await loadScale({ shops: 2, readings: 700, variants: [variant] });
+    conn = await mariadb.createConnection(ownerUrl());
+    const other = loaded.shops[1];
+    const [copy] = await conn.query("SELECT id FROM jobs WHERE shop_id = ? AND code LIKE 'B-%' ORDER BY id", [
+      other.id,
+    ]);
+    expect(copy).toBeDefined();
+
+    // The same readings (same figures, gauges and decisions; fresh ids) sent through the ingest.
+    const direct = await createV8Job(other, "DIRECT-1");
+    const actors = {
+      machinist: other.people.find((p) => p.role === "machinist")!,
+      lead: other.people.find((p) => p.role === "lead")!,
+      gauge: (stationId: string, value: number, unit: string) => gaugeFor(other, stationId, value, unit),
+    };
+    await runVariant(conn, actors, direct, variant, Date.now() - 3_600_000);
+
+    const copied = await picture(Number(copy.id));
+    const ingested = await picture(direct);
+    expect(copied.readings.length).toBeGreaterThan(300);
+    expect(copied.flags.length).toBeGreaterThan(3);
+    expect(copied.decisions.length).toBeGreaterThan(3);
+    expect(new Set(copied.readings.map((r) => r.verdict))).toContain("out_of_spec");
+    expect(copied.audits.map((a) => (a as Row).action)).toContain("readings.sync");
+    expect(copied.changes.length).toBeGreaterThanOrEqual(copied.readings.length);
+    expect(JSON.stringify(copied)).not.toContain("unknown");
+    expect(copied).toEqual(ingested);
+  }, 300_000);
+});
