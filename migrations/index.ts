@@ -25,6 +25,7 @@ import * as createLinkTokens from "./20261203150000-create-link-tokens";
 import * as addUsersMustChangePassword from "./20261203150100-add-users-must-change-password";
 import * as addReadingsArchiveIndex from "./20261203170000-add-readings-archive-index";
 import * as createJobProgress from "./20261204050000-create-job-progress";
+import * as createBearingTables from "./20261204080000-create-bearing-tables";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -58,6 +59,7 @@ export const migrations: Migration[] = [
   step("20261203150100-add-users-must-change-password", addUsersMustChangePassword),
   step("20261203170000-add-readings-archive-index", addReadingsArchiveIndex),
   step("20261204050000-create-job-progress", createJobProgress),
+  step("20261204080000-create-bearing-tables", createBearingTables),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */
@@ -83,4 +85,7 @@ export const MIGRATED_TABLES = [
   "user_sessions",
   "link_tokens",
   "job_progress",
+  "bearing_shells",
+  "bearing_points",
+  "bearing_grade_tables",
 ] as const;

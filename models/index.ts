@@ -19,6 +19,9 @@ import { associate } from "./associations";
 import { Attachment, initAttachment } from "./attachment";
 import { AuditEvent, initAuditEvent } from "./audit-event";
 import { AuthThrottle, initAuthThrottle } from "./auth-throttle";
+import { BearingGradeTable, initBearingGradeTable } from "./bearing-grade-table";
+import { BearingPoint, initBearingPoint } from "./bearing-point";
+import { BearingShell, initBearingShell } from "./bearing-shell";
 import { Customer, initCustomer } from "./customer";
 import { Engine, initEngine } from "./engine";
 import { Flag, initFlag } from "./flag";
@@ -41,6 +44,9 @@ export {
   Attachment,
   AuditEvent,
   AuthThrottle,
+  BearingGradeTable,
+  BearingPoint,
+  BearingShell,
   Customer,
   Engine,
   Flag,
@@ -82,6 +88,9 @@ const INITIALISERS = [
   initMailOutbox,
   initUserSession,
   initLinkToken,
+  initBearingShell,
+  initBearingPoint,
+  initBearingGradeTable,
 ];
 
 let boundTo: Sequelize | null = null;

@@ -34,3 +34,4 @@ export * from "./reading-input";
 export * from "./reach";
 export * from "./words";
 export * from "./bearings";
+export * from "./bearing-points";

@@ -50,6 +50,10 @@ export const APP_TABLE_RIGHTS: Record<MigratedTable, readonly TableRight[]> = {
   link_tokens: ["SELECT", "INSERT", "UPDATE"],
   // Kept progress counts (a cache the triggers mark stale): counted again and stored by the board.
   job_progress: ["SELECT", "INSERT", "UPDATE"],
+  // A job's shells are entered, corrected and taken off the shelf list; a point's choice is replaced.
+  bearing_shells: ["SELECT", "INSERT", "UPDATE", "DELETE"],
+  bearing_points: ["SELECT", "INSERT", "UPDATE", "DELETE"],
+  bearing_grade_tables: ["SELECT", "INSERT", "UPDATE", "DELETE"],
 };
 
 /** A MariaDB account: 'user'@'host'. */
