@@ -164,6 +164,15 @@ function Links({ d, canEdit }: { d: JobDetail; canEdit: boolean }) {
       {canEdit && (
         <Link
           className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel"
+          href={`/desk/jobs/${id}/bearings`}
+        >
+          <span className="text-lg font-semibold">Bearing shells</span>
+          <span className="text-sm text-muted">Shells on the shelf, halves per journal, pick list</span>
+        </Link>
+      )}
+      {canEdit && (
+        <Link
+          className="flex flex-col rounded-tool border-2 border-rule bg-panel p-4 hover:border-steel"
           href={`/desk/jobs/${id}/limits`}
         >
           <span className="text-lg font-semibold">Limits</span>

@@ -2,6 +2,7 @@
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/client/api";
+import type { BearingsView } from "@/lib/schemas/bearings";
 import type { BuildPlanView } from "@/lib/schemas/build-plan";
 import type { BoardPage } from "@/lib/schemas/job-board";
 import type { BoardJob, CustomerRecord, JobDetail, JobLimitsView } from "@/lib/schemas/job";
@@ -49,3 +50,7 @@ export const useJobLimits = (id: number) =>
   useQuery({ queryKey: keys.limits(id), queryFn: () => api<JobLimitsView>(`/api/jobs/${id}/limits`) });
 export const useBuildPlan = (id: number) =>
   useQuery({ queryKey: keys.plan(id), queryFn: () => api<BuildPlanView>(`/api/jobs/${id}/build-plan`) });
+
+export const bearingsKey = (id: number) => ["bearings", id] as const;
+export const useBearings = (id: number) =>
+  useQuery({ queryKey: bearingsKey(id), queryFn: () => api<BearingsView>(`/api/jobs/${id}/bearings`) });

@@ -1,7 +1,7 @@
 // Requests and answers of bearing shell selection. Figures are in the job's length unit (in or mm);
 // the server refuses a shell or a housing bore in the other unit rather than convert it silently.
 import { z } from "zod";
-import type { LengthUnit, Verdict } from "@/lib/domain/enums";
+import type { JobStatus, LengthUnit, Verdict } from "@/lib/domain/enums";
 import { storedText } from "./stored-text";
 import { keptBy } from "./stored-figure";
 import {
@@ -143,7 +143,7 @@ export type PointView = {
 };
 
 export type BearingsView = {
-  job: { id: number; code: string; title: string; unit: LengthUnit; locked: boolean };
+  job: { id: number; code: string; title: string; unit: LengthUnit; locked: boolean; status: JobStatus };
   shells: ShellView[];
   points: PointView[];
   gauges: { id: number; label: string }[];
@@ -155,12 +155,21 @@ export type PointProposal = {
   upperShellId: number | null;
   lowerShellId: number | null;
   predicted: Clearance | null;
-  /** The saved choice it replaces. */
-  before: { upperShellId: number | null; lowerShellId: number | null; predicted: Clearance | null };
+  /** Upper and lower halves from different sets. */
+  mixed: boolean;
+};
+export type StockLeft = {
+  shellId: number;
+  used: { upper: number; lower: number };
+  left: { upper: number; lower: number };
 };
 export type SelectionAnswer = {
   points: PointProposal[];
-  /** Words from the core when no choice reaches a window: which point, the nearest, what to do. */
+  /** Words for points the stock cannot bring into the window (nearest, what to do), and what points still need. */
   advice: string[];
-  stock: { shellId: number; used: { upper: number; lower: number }; left: { upper: number; lower: number } }[];
+  stock: StockLeft[];
+  /** Points whose halves or predicted clearance differ from the saved choice, in words. */
+  moved: string[];
+  /** A hand choice the rules refuse (mixed series, steps too far apart, more halves than on hand). */
+  problems: string[];
 };

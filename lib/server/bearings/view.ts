@@ -81,7 +81,14 @@ export async function getBearingsView(shopId: number, jobId: number): Promise<Be
     };
   });
   return {
-    job: { id: ctx.job.id, code: ctx.job.code, title: ctx.job.title, unit, locked: isJobLocked(ctx.job) },
+    job: {
+      id: ctx.job.id,
+      code: ctx.job.code,
+      title: ctx.job.title,
+      unit,
+      locked: isJobLocked(ctx.job),
+      status: ctx.job.status,
+    },
     shells: shells.map((s) => shellView(s, saved)),
     points,
     gauges: gauges.filter((g) => g.active !== false).map((g) => ({ id: g.id, label: `${g.label} (${g.kind})` })),
