@@ -34,6 +34,16 @@ const refused = [
     'import { Job } from "@/models";\nJob.init();\n',
   ],
   ["a route importing models", "app/api/x/route.ts", 'import { Job } from "@/models";\nJob.init();\n'],
+  [
+    "a core feature folder importing server code",
+    "lib/domain/bearings/x.ts",
+    'import { env } from "@/lib/server/core/env";\nenv();\n',
+  ],
+  [
+    "a core feature folder reaching out of the core",
+    "lib/domain/bearings/x.ts",
+    'import { r } from "../../server/jobs/repo";\nr();\n',
+  ],
 ] as const;
 
 describe("import boundaries", () => {
@@ -45,5 +55,7 @@ describe("import boundaries", () => {
   it("lets a feature's repo import models and the core import its own files", async () => {
     expect(await problems("lib/server/jobs/repo.ts", 'import { Job } from "@/models";\nJob.init();\n')).toEqual([]);
     expect(await problems("lib/domain/x.ts", 'import { toMm } from "./units";\ntoMm(1, "in");\n')).toEqual([]);
+    const upOne = 'import { toMm } from "../units";\ntoMm(1, "in");\n';
+    expect(await problems("lib/domain/bearings/x.ts", upOne)).toEqual([]);
   });
 });
