@@ -14,6 +14,7 @@ import { patchJobPrefs, type JobPrefs } from "@/lib/offline/meta";
 import { derivedFor } from "@/lib/offline/preview";
 import { nextOpenStation, OPEN_STATES, routeProgress, stationViews } from "@/lib/offline/route-status";
 import { useBench } from "./bench-context";
+import { BearingHalves } from "./bearing-halves";
 import { DerivedPanel } from "./derived-panel";
 import { EntryPanel } from "./entry-panel";
 import { LastEntryCard } from "./last-entry";
@@ -181,6 +182,7 @@ export const JobScreen = memo(function JobScreen({
           />
           {station.torque && <LubricantPicker value={prefs.lubricant} onPick={pickLubricant} />}
           {station.section === "bolt" && <FastenerCaution />}
+          <BearingHalves stationId={station.id} bearings={pack.bearings} derived={shownDerived} />
         </div>
         <div className="[grid-area:last]">
           <LastEntryCard store={entry.store} onAgain={again} />

@@ -82,6 +82,18 @@ export type BenchInstrument = {
   active: boolean;
 };
 
+/** The halves the lead chose for one bearing point, as the tablet shows them at its installed-bore stations. */
+export type BenchBearing = {
+  /** "main/3" or "rod/5" (lib/domain/bearing-points.ts). */
+  point: string;
+  upper: { shellId: number; words: string; place: string };
+  lower: { shellId: number; words: string; place: string };
+  /** Predicted installed clearance and its U (k = 2), in `unit`. */
+  predicted: number | null;
+  uncertainty: number | null;
+  unit: UnitSystem;
+};
+
 export type JobPack = {
   job: BenchJobHeader & { customer: string; engine: string };
   shape: EngineShape;
@@ -92,6 +104,8 @@ export type JobPack = {
   readings: ServerReading[];
   /** Flags that are not closed, with their latest disposition. */
   flags: BenchFlag[];
+  /** The saved bearing choice (absent in a pack stored before bearings travelled). */
+  bearings?: BenchBearing[];
   cursor: string;
 };
 

@@ -6,6 +6,7 @@ import { toBenchFlag } from "@/lib/server/bench/flag-view";
 import { flagsOfJobs, jobWithNames, namesOf, openBenchJobs, openFlagCounts, toHeader } from "@/lib/server/bench/repo";
 import { progressOf } from "@/lib/server/board/progress";
 import { loadJobContext } from "@/lib/server/jobs/repo";
+import { chosenBearings } from "@/lib/server/bearings/bench";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import { readingsOfJobs, shopInstruments, toServerReading } from "@/lib/server/readings/repo";
 import { derivedInputs } from "@/lib/server/sync/feed";
@@ -51,11 +52,12 @@ export async function jobPack(actor: Actor, jobId: number): Promise<JobPack> {
   if (!named) throw notFound("Job");
   const ctx = await loadJobContext(actor.shopId, jobId);
   const route = routeOf(ctx.shape, ctx.job.code);
-  const [instruments, readings, flags, inputs] = await Promise.all([
+  const [instruments, readings, flags, inputs, bearings] = await Promise.all([
     shopInstruments(actor.shopId),
     readingsOfJobs([jobId]),
     flagsOfJobs([jobId], { unclosedOnly: true }),
     derivedInputs(actor.shopId, [jobId]),
+    chosenBearings(actor.shopId, jobId),
   ]);
   const corrections = correctedBy(readings);
   return {
@@ -66,6 +68,7 @@ export async function jobPack(actor: Actor, jobId: number): Promise<JobPack> {
     instruments: instruments.map(({ shopId: _s, ...i }) => i),
     readings: readings.map((r) => toServerReading(r, corrections.get(r.id) ?? null)),
     flags: flags.map((f) => toBenchFlag(f, inputs.get(jobId) ?? new Map())),
+    bearings,
     cursor,
   };
 }
