@@ -24,6 +24,7 @@ import * as addShopsActivatedAt from "./20261203140010-add-shops-activated-at";
 import * as createLinkTokens from "./20261203150000-create-link-tokens";
 import * as addUsersMustChangePassword from "./20261203150100-add-users-must-change-password";
 import * as addReadingsArchiveIndex from "./20261203170000-add-readings-archive-index";
+import * as addSyncChangesSeq from "./20261204020000-add-sync-changes-seq";
 import * as createJobProgress from "./20261204050000-create-job-progress";
 import * as createBearingTables from "./20261204080000-create-bearing-tables";
 
@@ -58,6 +59,7 @@ export const migrations: Migration[] = [
   step("20261203150000-create-link-tokens", createLinkTokens),
   step("20261203150100-add-users-must-change-password", addUsersMustChangePassword),
   step("20261203170000-add-readings-archive-index", addReadingsArchiveIndex),
+  step("20261204020000-add-sync-changes-seq", addSyncChangesSeq),
   step("20261204050000-create-job-progress", createJobProgress),
   step("20261204080000-create-bearing-tables", createBearingTables),
 ];
@@ -81,6 +83,7 @@ export const MIGRATED_TABLES = [
   "releases",
   "audit_events",
   "sync_changes",
+  "sync_sequences",
   "mail_outbox",
   "user_sessions",
   "link_tokens",

@@ -38,8 +38,8 @@
 //       (value, dialSetting, dialDeviation 6; partTempC, gaugeTempC 2) or reach 10^8 (temperatures: the
 //       -30..150 °C range), in every entry mode (READING_PRECISION in lib/domain/stored-figures.ts);
 //     takenAt: to the millisecond, between the years 1970 and 9000.
-//   `cursor` in push replies is informational (the newest change-feed id of the batch's jobs after the
-//   write); never replace your pull cursor with it, or you may skip other devices' changes.
+//   `cursor` in push replies is informational (the shop's newest change number after the write); never
+//   replace your pull cursor with it, or you may skip other devices' changes.
 //   Each result also carries `index` (its position in the batch); `id` is null only when the item had no
 //   usable id string. A repeated id in one batch with the same figures is stored once (both accepted).
 //   Dial mode: `value` is the diameter the tablet computed (dialDiameter in lib/domain) from dialSetting
@@ -51,10 +51,10 @@
 //   job's specRevision moved, and (on every call) the header of each job asked for (status, locked,
 //   lockReason, specRevision), so a release reaches the tablet even without a change. Every entry is the entity's CURRENT
 //   state, so applying one twice is harmless. Unknown ids and other shops' ids come back in `missing`.
-//   Cursor: the id of the last change-feed row that is settled. A row is settled once it is older than
-//   SETTLE_MS; changes newer than that are sent too but the cursor stops before them, so the next call
-//   sends them again (dedupe by id). This is how a change whose transaction commits out of order (a lower
-//   id committing after a higher one) is never skipped. `more: true` → call again at once with the cursor.
+//   Cursor: the shop's change number of the last row sent. Numbers follow commit order on every
+//   database node, so "after the cursor" never skips a change that commits late nor repeats one.
+//   `more: true` → call again at once with the cursor. A cursor from before (a change-feed id) is still
+//   accepted: it means the same point.
 //   When you add a job pack to the device, set the device cursor to min(yours, pack.cursor).
 //
 // GET /api/bench/jobs  (machinist, lead) → { jobs: BenchJobSummary[] } open jobs (intake, measuring, review)
@@ -70,8 +70,6 @@ import { storedText } from "./stored-text";
 export { TAKEN_BY_HEADER } from "./sync-headers";
 export type * from "./sync-pack";
 export const MAX_BATCH = 500;
-/** Feed rows younger than this are re-sent on the next pull (see the cursor above). */
-export const SETTLE_MS = 15_000;
 export const LUBRICANTS = Object.keys(LUBRICANT_LABELS) as [Lubricant, ...Lubricant[]];
 
 /** A figure refused when its readings column cannot keep it exactly (lib/domain/stored-figures.ts). */

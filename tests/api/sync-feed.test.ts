@@ -1,7 +1,8 @@
-// GET /api/sync?since=CURSOR&jobs=…: two tablets converge; the cursor never skips a late commit.
+// GET /api/sync?since=CURSOR&jobs=…: two tablets converge; the cursor never skips a late commit nor repeats one.
 import { beforeAll, describe, expect, it } from "vitest";
 import { getSequelize } from "@/lib/server/core/db";
-import { recordChange } from "@/lib/server/sync/repo";
+import { QueryTypes } from "sequelize";
+import { CHANGE_PAGE, recordChange, recordChanges } from "@/lib/server/sync/repo";
 import { Flag, FlagDisposition, Job } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { later, pull, push, reading } from "./sync-fixtures";
@@ -13,11 +14,6 @@ beforeAll(async () => {
   s = await createShop();
   other = await createShop();
 });
-
-/** Makes every change row of the job older than the settle window, as if 20 s had passed. */
-async function settle(jobId: number) {
-  await asOwner("UPDATE sync_changes SET created_at = created_at - INTERVAL 20 SECOND WHERE job_id = ?", [jobId]);
-}
 
 type Feed = { cursor: string; readings: { id: string }[]; flags: { id: number }[]; jobs: { id: number }[] };
 /** A tablet's local copy: upsert by id, as the client does. */
@@ -35,7 +31,7 @@ describe("GET /api/sync", () => {
     expect((await pull(s.users.machinist, `since=abc&jobs=${s.job.id}`)).body.error.fields.since).toBeDefined();
   });
 
-  it("two devices converge; the cursor only moves over settled changes, so nothing is skipped", async () => {
+  it("two devices converge; the cursor is the last change sent, so nothing is sent twice", async () => {
     const tabA = new Map<string, unknown>();
     const tabB = new Map<string, unknown>();
     const fromA = [reading(s.job.id, "bore/1/top/A", 4.0301), reading(s.job.id, "bore/1/top/B", 4.0302)];
@@ -46,13 +42,10 @@ describe("GET /api/sync", () => {
     expect(fresh.status).toBe(200);
     expect(fresh.body.readings.map((r: { id: string }) => r.id).sort()).toEqual(fromA.map((r) => r.id).sort());
     expect(fresh.body.readings[0]).toMatchObject({ jobId: s.job.id, deviceId: "tab-A", verdict: "in_spec" });
-    expect(fresh.body.cursor).toBe("0"); // all rows younger than the settle window: sent, but not passed
+    expect(Number(fresh.body.cursor)).toBeGreaterThan(0);
     apply(tabB, fresh.body);
-
-    await settle(s.job.id);
-    const settled = await pull(s.users.lead, `since=0&jobs=${s.job.id}`);
-    expect(Number(settled.body.cursor)).toBeGreaterThan(0);
-    const cursorB = settled.body.cursor;
+    const cursorB = fresh.body.cursor;
+    expect((await pull(s.users.lead, `since=${cursorB}&jobs=${s.job.id}`)).body.readings).toEqual([]);
 
     const fromB = [reading(s.job.id, "bore/2/top/A", 4.0299, { takenAt: later(3) })];
     await push(s.users.lead, fromB, "tab-B");
@@ -63,37 +56,55 @@ describe("GET /api/sync", () => {
     expect([...tabA.keys()].sort()).toEqual([...tabB.keys()].sort());
   });
 
-  it("a change committed after a later-numbered one is still delivered (the cursor waits for it)", async () => {
+  it("numbers changes in commit order: a later writer waits, and the feed never shows it before the earlier", async () => {
     const sequelize = getSequelize();
     const [r1, r2] = [reading(s.job.id, "deck/left/front", 9.025), reading(s.job.id, "deck/left/rear", 9.026)];
     await push(s.users.machinist, [r1, r2]);
-    await settle(s.job.id);
     const start = (await pull(s.users.machinist, `since=0&jobs=${s.job.id}`)).body.cursor;
-    const slow = await sequelize.transaction(); // takes its id first, commits last
+    const slow = await sequelize.transaction(); // numbers its change first, commits last
     await recordChange(slow, { shopId: s.shop.id, jobId: s.job.id, entity: "reading", entityId: r1.id });
-    await sequelize.transaction((t) =>
-      recordChange(t, { shopId: s.shop.id, jobId: s.job.id, entity: "reading", entityId: r2.id }),
-    );
-    const [{ hi }] = await sequelize.query<{ hi: number }>("SELECT MAX(id) AS hi FROM sync_changes WHERE job_id = ?", {
-      replacements: [s.job.id],
-      type: "SELECT" as never,
-    });
+    let fastDone = false;
+    const fast = sequelize
+      .transaction((t) => recordChange(t, { shopId: s.shop.id, jobId: s.job.id, entity: "reading", entityId: r2.id }))
+      .then(() => (fastDone = true));
+    await new Promise((r) => setTimeout(r, 300));
+    expect(fastDone).toBe(false); // held on the shop's sequence until the earlier number commits
 
     const mid = await pull(s.users.machinist, `since=${start}&jobs=${s.job.id}`);
-    expect(mid.body.readings.map((r: { id: string }) => r.id)).toEqual([r2.id]);
-    expect(mid.body.cursor).toBe(start); // r2's row is fresh, so the cursor does not pass it
+    expect(mid.body.readings).toEqual([]);
+    expect(mid.body.cursor).toBe(start);
     await slow.commit();
+    await fast;
 
     const next = await pull(s.users.machinist, `since=${mid.body.cursor}&jobs=${s.job.id}`);
     expect(next.body.readings.map((r: { id: string }) => r.id).sort()).toEqual([r1.id, r2.id].sort());
-    // What a naive "highest id seen" cursor would have lost:
-    const naive = await pull(s.users.machinist, `since=${hi}&jobs=${s.job.id}`);
-    expect(naive.body.readings).toEqual([]);
+    expect(Number(next.body.cursor)).toBe(Number(start) + 2);
+    const rows = await sequelize.query<{ entityId: string; seq: number }>(
+      "SELECT entity_id AS entityId, seq FROM sync_changes WHERE shop_id = ? AND seq > ? ORDER BY seq",
+      { replacements: [s.shop.id, start], type: QueryTypes.SELECT },
+    );
+    expect(rows.map((r) => r.entityId)).toEqual([r1.id, r2.id]); // commit order, whatever the ids
+    expect((await pull(s.users.machinist, `since=${next.body.cursor}&jobs=${s.job.id}`)).body.readings).toEqual([]);
+  });
+
+  it("pages through more changes than one reply holds, each change once", async () => {
+    const start = (await pull(s.users.machinist, `since=0&jobs=${other.job.id}`)).body.cursor;
+    const many = Array.from({ length: CHANGE_PAGE + 5 }, (_, i) => ({
+      shopId: other.shop.id,
+      jobId: other.job.id,
+      entity: "job" as const,
+      entityId: String(i),
+    }));
+    await getSequelize().transaction((t) => recordChanges(t, many));
+    const first = await pull(other.users.machinist, `since=${start}&jobs=${other.job.id}`);
+    expect(first.body.more).toBe(true);
+    const second = await pull(other.users.machinist, `since=${first.body.cursor}&jobs=${other.job.id}`);
+    expect(second.body.more).toBe(false);
+    expect(Number(second.body.cursor) - Number(start)).toBe(CHANGE_PAGE + 5);
   });
 
   it("sends flags with their latest disposition, new limits, and the job's lock", async () => {
     await push(s.users.machinist, [reading(s.job.id, "bore/3/top/A", 4.0312)]);
-    await settle(s.job.id);
     const cursor = (await pull(s.users.machinist, `since=0&jobs=${s.job.id}`)).body.cursor;
     const sequelize = getSequelize();
     const flag = await Flag.findOne({ where: { jobId: s.job.id, stationId: "bore/3/top/A" } });

@@ -10,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { migrator } from "@/lib/server/core/migrate";
 import { APPEND_ONLY_MESSAGE } from "../../migrations/20261201001000-create-audit-events";
 import { CONTEXT_TRIGGERS } from "../../migrations/20261202000200-add-jobs-context-revision";
+import { SEQUENCE_TRIGGERS } from "../../migrations/20261204020000-add-sync-changes-seq";
 import { MIGRATED_TABLES, migrations } from "../../migrations/index";
 
 // npm test provides an empty scratch database for this file, so dropping every table never
@@ -129,7 +130,7 @@ describe("migrations", () => {
     expect(await triggerNames()).toEqual([]);
   });
 
-  it("all up creates every table, in utf8mb4, with the audit and context-revision triggers", async () => {
+  it("all up creates every table, in utf8mb4, with the audit, context-revision and change-sequence triggers", async () => {
     await umzug.up();
     expect(await umzug.pending()).toEqual([]);
     expect(await tableNames()).toEqual([...MIGRATED_TABLES].sort());
@@ -138,7 +139,7 @@ describe("migrations", () => {
     );
     for (const c of collations) expect(c.collation, c.name).toMatch(/^utf8mb4_/);
     expect(await triggerNames()).toEqual(
-      ["audit_events_no_delete", "audit_events_no_update", ...CONTEXT_TRIGGERS].sort(),
+      ["audit_events_no_delete", "audit_events_no_update", ...CONTEXT_TRIGGERS, ...SEQUENCE_TRIGGERS].sort(),
     );
   });
 

@@ -10,7 +10,7 @@ import { chosenBearings } from "@/lib/server/bearings/bench";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import { readingsOfJobs, shopInstruments, toServerReading } from "@/lib/server/readings/repo";
 import { derivedInputs } from "@/lib/server/sync/feed";
-import { settledCursor } from "@/lib/server/sync/repo";
+import { currentCursor } from "@/lib/server/sync/repo";
 
 // What the tablet stores to work a job offline (GET /api/bench/jobs/:id), and the list it picks from.
 
@@ -46,8 +46,8 @@ export async function listBenchJobs(actor: Actor): Promise<BenchJobSummary[]> {
 }
 
 export async function jobPack(actor: Actor, jobId: number): Promise<JobPack> {
-  // The cursor first: anything that settles after it is sent again by the feed.
-  const cursor = await settledCursor(actor.shopId);
+  // The cursor first: anything committed after it is numbered after it, and the feed sends it.
+  const cursor = await currentCursor(actor.shopId);
   const named = await jobWithNames(actor.shopId, jobId);
   if (!named) throw notFound("Job");
   const ctx = await loadJobContext(actor.shopId, jobId);

@@ -44,6 +44,8 @@ export const APP_TABLE_RIGHTS: Record<MigratedTable, readonly TableRight[]> = {
   releases: ["SELECT", "INSERT", updateOf("voided_at", "voided_by", "void_reason", "updated_at")],
   audit_events: ["SELECT", "INSERT"],
   sync_changes: ["SELECT", "INSERT"],
+  // Numbered by a trigger (it runs with the owner's rights); the app only reads where a shop is.
+  sync_sequences: ["SELECT"],
   mail_outbox: ["SELECT", "INSERT", "UPDATE"],
   user_sessions: ["SELECT", "INSERT", "UPDATE", "DELETE"],
   // One-time links are marked used or replaced, never deleted (their hashes stay as the record).

@@ -5,12 +5,12 @@ import { DISPOSITION_WORDS, type DispositionInput, type FlagListItem } from "@/l
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
 import { recordChange } from "@/lib/server/sync/repo";
-import { getSequelize } from "@/lib/server/core/db";
 import { AppError, notFound } from "@/lib/server/core/errors";
 import { toListItem } from "@/lib/server/flags/list";
 import { decisionTarget, getFlagOrThrow, recordDecision, type StoredFlag } from "@/lib/server/flags/repo";
 import type { JobRow } from "@/lib/server/jobs/repo";
 import { lockJobs } from "@/lib/server/readings/repo";
+import { retriedTransaction } from "@/lib/server/core/cluster";
 
 // The lead's decision on a flag: measure again, machine again (with the operation) or accept
 // (with a written reason). Each decision appends a FlagDisposition row (the history) and sets the
@@ -93,8 +93,7 @@ export async function disposeFlag(
   flagId: number,
   input: DispositionInput,
 ): Promise<{ flag: FlagListItem; dispositionId: number }> {
-  const sequelize = getSequelize();
   const found = await getFlagOrThrow(actor.shopId, flagId);
-  const dispositionId = await sequelize.transaction((t) => decide(t, actor, flagId, found.jobId, input));
+  const dispositionId = await retriedTransaction((t) => decide(t, actor, flagId, found.jobId, input));
   return { flag: toListItem(await getFlagOrThrow(actor.shopId, flagId)), dispositionId };
 }

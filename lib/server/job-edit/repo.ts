@@ -13,6 +13,7 @@ import { assertJobEditable } from "@/lib/server/jobs/editable";
 import { rejudgeOnSizeChange, sizeColumns, sizesOf } from "@/lib/server/job-edit/sizes";
 import { assertConfirmed, countConsequences, previewChange } from "@/lib/server/jobs/consequences";
 import { loadJobContext } from "@/lib/server/jobs/repo";
+import { retriedTransaction } from "@/lib/server/core/cluster";
 
 // Creating and editing jobs and customers from the desk: the feature's only door to the
 // database. Every write is one transaction with its audit event; a job's status change also goes
@@ -127,7 +128,7 @@ async function snapshotLimits(t: Transaction, templateId: number, jobId: number)
 
 export async function createJob(actor: Actor, v: JobValues): Promise<{ id: number }> {
   const { Engine, Job, SpecTemplate } = models();
-  return getSequelize().transaction(async (t) => {
+  return retriedTransaction(async (t) => {
     const template = await SpecTemplate.findOne({
       where: { id: v.templateId, shopId: actor.shopId, archived: false },
       transaction: t,
@@ -182,7 +183,7 @@ export function previewJobEdit(actor: Actor, jobId: number, v: JobEditValues): P
 
 /** Saves the edit; one that opens more than a handful of flags needs that number confirmed (409 otherwise). */
 export async function updateJob(actor: Actor, jobId: number, v: JobEditValues): Promise<{ id: number }> {
-  return getSequelize().transaction(async (t) => {
+  return retriedTransaction(async (t) => {
     assertConfirmed(await applyJobEdit(t, actor, jobId, v), v.confirmedFlagsOpened);
     return { id: jobId };
   });

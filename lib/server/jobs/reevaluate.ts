@@ -7,7 +7,6 @@ import { commonPracticeMarks } from "@/lib/schemas/common-practice";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
 import { recordChange } from "@/lib/server/sync/repo";
-import { getSequelize } from "@/lib/server/core/db";
 import { AppError } from "@/lib/server/core/errors";
 import { reconcileJob } from "@/lib/server/reconcile/reconcile";
 import { assertJobEditable } from "@/lib/server/jobs/editable";
@@ -15,6 +14,7 @@ import type { JobContext } from "@/lib/server/jobs/context";
 import { assertConfirmed, countConsequences, previewChange } from "@/lib/server/jobs/consequences";
 import { loadJobContext, lockJobOrThrow, replaceJobLimitRows } from "@/lib/server/jobs/repo";
 import { limitRow } from "@/lib/server/specs/repo";
+import { retriedTransaction } from "@/lib/server/core/cluster";
 
 // A job's own limit snapshot: read it, or replace it and re-evaluate the job's readings and
 // flags against the new limits, all in one transaction (reconcile/reconcile.ts does the judging).
@@ -108,7 +108,7 @@ export function previewJobLimits(actor: Actor, jobId: number, v: JobLimitsValues
 }
 
 export async function replaceJobLimits(actor: Actor, jobId: number, v: JobLimitsValues): Promise<LimitsSaved> {
-  const applied = await getSequelize().transaction(async (t) => {
+  const applied = await retriedTransaction(async (t) => {
     const a = await applyLimits(t, actor, jobId, v);
     assertConfirmed(a.consequences, v.confirmedFlagsOpened);
     return a;

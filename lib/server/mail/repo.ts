@@ -5,6 +5,7 @@ import type { JsonObject } from "@/lib/schemas/json";
 import type { MailKind, OutboxMessage } from "@/lib/schemas/mail";
 import { models } from "@/lib/server/core/db";
 import { env } from "@/lib/server/core/env";
+import { isConflict } from "@/lib/server/core/cluster";
 
 // The mail outbox's rows: queued in the caller's transaction, claimed and marked by the worker,
 // listed and retried by the admin. Plain objects out.
@@ -113,10 +114,6 @@ export async function queuedWithPrefix(prefix: string): Promise<boolean> {
   return (await MailOutbox.count({ where: { dedupeKey: { [Op.startsWith]: prefix } } })) > 0;
 }
 
-/**
- * Claims due messages for this worker: each claim pushes next_attempt_at past a lease in one
- * conditional UPDATE, so two workers (or two app instances) never send the same message at once.
- */
 /** Ids of the shop's unsent messages of these kinds (a link someone is waiting for). */
 export async function unsentIds(shopIds: number[], kinds: MailKind[]): Promise<number[]> {
   const { MailOutbox } = models();
@@ -124,6 +121,14 @@ export async function unsentIds(shopIds: number[], kinds: MailKind[]): Promise<n
   return rows.map((r) => r.id);
 }
 
+/**
+ * Claims due messages for this worker: each claim pushes next_attempt_at past a lease in one
+ * committed conditional UPDATE (still unsent, still due, as many attempts as we read), so two
+ * workers never send the same message. On one database the second UPDATE waits for the first and
+ * then matches nothing. On a Galera cluster a worker on another node may still read the message as
+ * due and its UPDATE matches locally, but both write the same row, so certification fails the later
+ * commit (1213; the server may retry the statement once, which then matches nothing): a lost claim.
+ */
 export async function claimDue(now: Date, limit: number, only?: number[], leaseSeconds = 300): Promise<OutboxRow[]> {
   const { MailOutbox } = models();
   const due = await MailOutbox.findAll({
@@ -142,10 +147,14 @@ export async function claimDue(now: Date, limit: number, only?: number[], leaseS
   const lease = new Date(now.getTime() + leaseSeconds * 1000);
   const claimed: OutboxRow[] = [];
   for (const m of due) {
-    const [n] = await MailOutbox.update(
+    const claim = MailOutbox.update(
       { nextAttemptAt: lease },
-      { where: { id: m.id, sentAt: null, nextAttemptAt: { [Op.lte]: now } } },
+      { where: { id: m.id, sentAt: null, attempts: m.attempts, nextAttemptAt: { [Op.lte]: now } } },
     );
+    const [n] = await claim.catch((err: unknown) => {
+      if (isConflict(err)) return [0];
+      throw err;
+    });
     if (n === 1) claimed.push(reshape(m));
   }
   return claimed;

@@ -1,5 +1,6 @@
 import "server-only";
 import { getSequelize } from "@/lib/server/core/db";
+import { retriedTransaction, withConflictRetry } from "@/lib/server/core/cluster";
 import { env } from "@/lib/server/core/env";
 import { enqueueReleaseMail } from "@/lib/server/mail/outbox";
 import { enqueueMail, queuedWithPrefix } from "@/lib/server/mail/repo";
@@ -7,8 +8,8 @@ import { deliverPendingMail, type DeliveryReport } from "@/lib/server/mail/outbo
 import { digestMessage, readyMessage } from "@/lib/server/notify/messages";
 import {
   changedOpenJobs,
-  flagsAfter,
-  lastDigest,
+  flagsSince,
+  pastDigests,
   openJobsAfter,
   recipients,
   releaseCount,
@@ -48,39 +49,39 @@ export type NotifierReport = {
 async function catchUpReleases(now: Date): Promise<number> {
   let n = 0;
   for (const r of await releasesWithoutMail(new Date(now.getTime() - 14 * DAY))) {
-    if (
-      await getSequelize().transaction((t) =>
-        enqueueReleaseMail(t, { shopId: r.shopId, jobId: r.jobId, releaseId: r.id }),
-      )
-    )
+    if (await retriedTransaction((t) => enqueueReleaseMail(t, { shopId: r.shopId, jobId: r.jobId, releaseId: r.id })))
       n += 1;
   }
   return n;
 }
 
+// A digest lists the flags raised since the last one that no digest listed yet, so a flag whose row
+// commits late (on a cluster, one with a lower id from another node) is still told once. Each digest
+// is the next round of its shop; two notifiers that read the same last round queue the same keys, so
+// only one of them queues (one database: the unique key; a cluster: the later commit fails its
+// certification and the run starts over, reading the round the other queued). The window reaches an
+// hour before the last digest, far beyond the moment a flag's row waits to reach every node.
+const DIGEST_OVERLAP_MS = 3_600_000;
+
 async function digestFor(shopId: number, now: Date): Promise<number> {
-  const last = await lastDigest(shopId);
-  const flags = await flagsAfter(shopId, last ? { id: last.maxFlagId } : { since: new Date(now.getTime() - DAY) });
+  const [last] = await pastDigests(shopId);
+  const since = last ? new Date(last.at.getTime() - DIGEST_OVERLAP_MS) : new Date(now.getTime() - DAY);
+  const told = last ? (await pastDigests(shopId, new Date(since.getTime() - DAY))).flatMap((d) => d.flagIds) : [];
+  const flags = await flagsSince(shopId, since, told);
   if (flags.length === 0) return 0;
   const leads = await recipients(shopId, "lead");
-  const maxFlagId = Math.max(...flags.map((f) => f.id));
+  const round = (last?.round ?? 0) + 1;
   const { subject, text } = digestMessage(await shopName(shopId), flags, last?.at ?? null);
-  let n = 0;
-  for (const lead of leads) {
-    const payload = { text, maxFlagId, flagIds: flags.map((f) => f.id) };
-    if (
-      await enqueueMail(null, {
-        shopId,
-        kind: "flag_digest",
-        to: lead.email,
-        subject,
-        payload,
-        dedupeKey: `flag_digest:${shopId}:${maxFlagId}:${lead.id}`,
-      })
-    )
-      n += 1;
-  }
-  return n;
+  const payload = { text, round, maxFlagId: Math.max(...flags.map((f) => f.id)), flagIds: flags.map((f) => f.id) };
+  // All the leads' copies in one transaction: a round is queued whole or not at all.
+  return getSequelize().transaction(async (t) => {
+    let n = 0;
+    for (const lead of leads) {
+      const mail = { shopId, kind: "flag_digest" as const, to: lead.email, subject, payload };
+      if (await enqueueMail(t, { ...mail, dedupeKey: `flag_digest:${shopId}:round${round}:${lead.id}` })) n += 1;
+    }
+    return n;
+  });
 }
 
 async function readyFor(job: OpenJob): Promise<number> {
@@ -156,7 +157,7 @@ export async function runNotifierOnce(opts: { now?: Date } = {}): Promise<Notifi
     () => shopsWithFlagsSince(new Date(now.getTime() - 7 * DAY)),
     [] as number[],
   )) {
-    digests += await step(`flag digest for shop ${shopId}`, () => digestFor(shopId, now), 0);
+    digests += await step(`flag digest for shop ${shopId}`, () => withConflictRetry(() => digestFor(shopId, now)), 0);
   }
   const ready = await readyPass(now, step);
   // Delivery's clock is read after queuing, so what this run queued is already due.

@@ -1,6 +1,8 @@
 import "server-only";
 import { Op, QueryTypes } from "sequelize";
 import { getSequelize, models } from "@/lib/server/core/db";
+import { causalRows } from "@/lib/server/core/cluster";
+import { utcDate } from "@/lib/server/core/sql-driver";
 import type { Role } from "@/lib/schemas/enums";
 import { releaseMailKeySql } from "@/lib/server/mail/outbox";
 
@@ -41,13 +43,29 @@ export async function shopsWithFlagsSince(since: Date): Promise<number[]> {
   return rows.map((r) => Number(r.shop_id));
 }
 
-/** The highest flag id the shop's last digest covered, and when it was queued; null before the first. */
-export async function lastDigest(shopId: number): Promise<{ maxFlagId: number; at: Date } | null> {
-  const { MailOutbox } = models();
-  const row = await MailOutbox.findOne({ where: { shopId, kind: "flag_digest" }, order: [["id", "DESC"]] });
-  if (!row) return null;
-  const payload = typeof row.payload === "string" ? JSON.parse(row.payload) : row.payload;
-  return { maxFlagId: Number(payload.maxFlagId ?? 0), at: row.createdAt };
+/** A digest queued before: its round, when, and which flags it listed. */
+export type PastDigest = { round: number; at: Date; flagIds: number[] };
+
+const digestOf = (row: { payload: unknown; createdAt: Date }): PastDigest => {
+  const p = (typeof row.payload === "string" ? JSON.parse(row.payload) : row.payload) as Record<string, unknown>;
+  const ids = Array.isArray(p.flagIds) ? p.flagIds.map(Number) : [];
+  return { round: Number(p.round ?? 0), at: row.createdAt, flagIds: ids };
+};
+
+/**
+ * The shop's digests from its latest round back to `from` (the latest only when `from` is absent),
+ * latest first; empty before the first. By round, not by row id: on a cluster a later row can carry
+ * a lower id. A causal read (core/cluster.ts), so a digest queued through another node is seen.
+ */
+export async function pastDigests(shopId: number, from?: Date): Promise<PastDigest[]> {
+  const rows = await causalRows<{ payload: unknown; createdAt: unknown }>(
+    null,
+    `SELECT payload, created_at AS createdAt FROM mail_outbox
+      WHERE shop_id = ? AND kind = 'flag_digest' ${from ? "AND created_at >= ?" : ""}
+      ORDER BY COALESCE(CAST(JSON_VALUE(payload, '$.round') AS UNSIGNED), 0) DESC, id DESC ${from ? "" : "LIMIT 1"}`,
+    from ? [shopId, from] : [shopId],
+  );
+  return rows.map((r) => digestOf({ payload: r.payload, createdAt: utcDate(r.createdAt)! }));
 }
 
 export type DigestFlag = {
@@ -64,14 +82,10 @@ export type DigestFlag = {
   state: string;
 };
 
-export async function flagsAfter(
-  shopId: number,
-  after: { id?: number; since?: Date },
-  limit = 200,
-): Promise<DigestFlag[]> {
+/** The shop's flags raised since `since` that are not among `except` (listed by an earlier digest). */
+export async function flagsSince(shopId: number, since: Date, except: number[], limit = 200): Promise<DigestFlag[]> {
   const { Flag, Job } = models();
-  const where =
-    after.id !== undefined ? { shopId, id: { [Op.gt]: after.id } } : { shopId, createdAt: { [Op.gte]: after.since! } };
+  const where = { shopId, createdAt: { [Op.gte]: since }, ...(except.length ? { id: { [Op.notIn]: except } } : {}) };
   const flags = await Flag.findAll({ where, order: [["id", "ASC"]], limit });
   const jobs = await Job.findAll({
     where: { id: [...new Set(flags.map((f) => f.jobId))], shopId },

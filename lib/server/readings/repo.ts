@@ -5,6 +5,7 @@ import { correctedBy } from "@/lib/domain";
 import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
 import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize, models } from "@/lib/server/core/db";
+import { causalRows } from "@/lib/server/core/cluster";
 import { sqlRows, sqlWrite, utcDate } from "@/lib/server/core/sql-driver";
 import { insertMany } from "@/lib/server/core/sql-insert";
 import { instrumentInfo, orNull, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
@@ -57,11 +58,14 @@ export async function lockJobs(t: Transaction, shopId: number, jobIds: number[])
 
 /**
  * lockJobs, returning each locked job's context_revision (as text: it is a 64-bit token). Read
- * under the row lock, so it is the latest committed token and cannot change until we commit.
+ * under the row lock, so it is the latest committed token and cannot change until we commit. On a
+ * cluster the lock holds on this node only, so the read is causal (core/cluster.ts): it first waits
+ * for every commit made through another node (a limits edit a moment ago), and this transaction's
+ * later reads see them too.
  */
 export async function lockJobRevisions(t: Transaction, shopId: number, jobIds: number[]): Promise<Map<number, string>> {
   if (jobIds.length === 0) return new Map();
-  const rows = await sqlRows<{ id: number; revision: string }>(
+  const rows = await causalRows<{ id: number; revision: string }>(
     t,
     "SELECT id, CAST(context_revision AS CHAR) AS revision FROM jobs WHERE shop_id = ? AND id IN (?) ORDER BY id FOR UPDATE",
     [shopId, [...new Set(jobIds)].sort((a, b) => a - b)],

@@ -1,6 +1,6 @@
 import "server-only";
 import { deriveReadings } from "@/lib/domain";
-import { SETTLE_MS, type SyncFeed } from "@/lib/schemas/sync";
+import type { SyncFeed } from "@/lib/schemas/sync";
 import { toBenchFlag } from "@/lib/server/bench/flag-view";
 import { flagsOfJobs, jobHeaders } from "@/lib/server/bench/repo";
 import { loadJobContext } from "@/lib/server/jobs/repo";
@@ -9,22 +9,12 @@ import { CHANGE_PAGE, changesSince, ownedJobIds, type ChangeRow } from "@/lib/se
 
 // GET /api/sync: the change feed (sync_changes) turned into the current state of what changed.
 //
-// The cursor is a sync_changes id. Ids are handed out when a row is inserted, but rows become
-// visible when their transaction commits, so a lower id can appear after a higher one. The cursor
-// therefore only moves over rows older than SETTLE_MS (no sync transaction stays open that long
-// after writing its change rows); newer rows are sent as well but sent again next time, and the
-// tablet upserts by id. A change is never skipped, at the cost of a small overlap.
-
-/** Moves over the settled prefix of the rows only (see the top of this file). */
-function advance(since: string, rows: ChangeRow[]): string {
-  const horizon = Date.now() - SETTLE_MS;
-  let cursor = since;
-  for (const r of rows) {
-    if (new Date(r.createdAt).getTime() >= horizon) break;
-    cursor = String(r.id);
-  }
-  return cursor;
-}
+// The cursor is the shop's change sequence number (seq) of the last row sent. Numbers follow commit
+// order and every database node shows a gap-free prefix of them (migrations/20261204020000), so
+// "rows numbered after the cursor" never skips a change that commits late, on this node or through
+// another, and never sends one twice: no settle window, whatever the replication lag. A node that
+// lags only answers with fewer rows; the next call brings the rest.
+// Cursors handed out before (sync_changes ids) are seq numbers too: old rows kept seq = id.
 
 /** Derived key → input stations, per job, so a derived flag can mark what to measure again. */
 export async function derivedInputs(shopId: number, jobIds: number[]): Promise<Map<number, Map<string, string[]>>> {
@@ -69,8 +59,8 @@ export async function syncFeed(shopId: number, since: string, jobIds: number[]):
   const missing = jobIds.filter((id) => !owned.includes(id));
   if (owned.length === 0) return { cursor: since, more: false, jobs: [], limits: [], readings: [], flags: [], missing };
   const rows = await changesSince(owned, since);
-  const cursor = advance(since, rows);
+  const cursor = rows.length ? String(rows.at(-1)!.seq) : since;
   // Read after the change rows, so the state is at least as new as every row listed.
   const [jobs, state] = await Promise.all([jobHeaders(shopId, owned), changedState(shopId, owned, rows)]);
-  return { cursor, more: rows.length === CHANGE_PAGE && cursor !== since, jobs, ...state, missing };
+  return { cursor, more: rows.length === CHANGE_PAGE, jobs, ...state, missing };
 }

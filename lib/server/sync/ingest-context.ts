@@ -14,7 +14,13 @@ import { loadJobContext } from "@/lib/server/jobs/repo";
 // same transaction, equals the one it was loaded under. The database changes that token on every
 // change of the job row, its engine or its limits (triggers: migrations/20261202000200), and no
 // such change can commit while we hold the lock; so a cached context is always the one the
-// database would give now, and stale limits never judge a reading.
+// database would give now, and stale limits never judge a reading. On a Galera cluster the lock
+// holds on this node only and an edit may have committed through another node a moment ago: the
+// token is therefore read causally (lockJobRevisions, core/cluster.ts), after this node has applied
+// every commit the cluster had made, so an edit through any instance is seen by the next batch.
+// An edit committing through another node while the batch runs cannot slip past it either: both
+// end by numbering their changes in the shop's change sequence (sync/repo.ts), so one of them fails
+// at commit (1213) and runs again, after the other, as on one database.
 
 type Entry = { shopId: number; revision: string; job: BatchJob };
 

@@ -1,26 +1,23 @@
 import "server-only";
+import { isConflict, withConflictRetry } from "@/lib/server/core/cluster";
 
-// Deadlocks and lock-wait timeouts are normal under load in InnoDB: the answer is to run the
-// whole transaction again. A duplicate key on a reading id means another batch stored that id
-// between our check and our insert; running again turns it into a replay or a conflict.
-const RETRYABLE = new Set([1213 /* ER_LOCK_DEADLOCK */, 1205 /* ER_LOCK_WAIT_TIMEOUT */, 1062 /* ER_DUP_ENTRY */]);
-const ATTEMPTS = 6;
+// A batch is one transaction; when it ends in a conflict it runs again from the start and so ends
+// all or nothing, exactly as on one node. Conflicts: InnoDB deadlocks and lock-wait timeouts, and
+// on Galera another node's commit to the same rows (the job's readings, flags, the shop's change
+// sequence), which fails our COMMIT with 1213 (core/cluster.ts). A duplicate key on a reading id
+// means another batch stored that id between our check and our insert; running again turns it into
+// a replay or a conflict. Attempts are generous: on a cluster every batch of a shop ends by bumping
+// the shop's change sequence (sync/repo.ts), so batches through two nodes at once collide often.
+const ER_DUP_ENTRY = 1062;
+const ATTEMPTS = 12;
 
 function errnoOf(err: unknown): number | undefined {
   const e = err as { parent?: { errno?: number }; original?: { errno?: number }; errno?: number } | null;
   return e?.parent?.errno ?? e?.original?.errno ?? e?.errno;
 }
 
-export const isRetryable = (err: unknown) => RETRYABLE.has(errnoOf(err) ?? -1);
+export const isRetryable = (err: unknown) => isConflict(err) || errnoOf(err) === ER_DUP_ENTRY;
 
-export async function withDeadlockRetry<T>(fn: () => Promise<T>): Promise<T> {
-  for (let attempt = 1; ; attempt++) {
-    try {
-      return await fn();
-    } catch (err) {
-      if (!isRetryable(err) || attempt >= ATTEMPTS) throw err;
-      // Jittered backoff, so the transactions that collided do not collide again.
-      await new Promise((r) => setTimeout(r, Math.random() * 20 * attempt));
-    }
-  }
+export function withDeadlockRetry<T>(fn: () => Promise<T>): Promise<T> {
+  return withConflictRetry(fn, { attempts: ATTEMPTS, retryable: isRetryable });
 }
