@@ -142,11 +142,13 @@ export async function claimDue(now: Date, limit: number, only?: number[], leaseS
       ["nextAttemptAt", "ASC"],
       ["id", "ASC"],
     ],
-    limit,
+    // More than asked for: a claim another worker wins is passed over for the next message.
+    limit: limit * 4,
   });
   const lease = new Date(now.getTime() + leaseSeconds * 1000);
   const claimed: OutboxRow[] = [];
   for (const m of due) {
+    if (claimed.length >= limit) break;
     const claim = MailOutbox.update(
       { nextAttemptAt: lease },
       { where: { id: m.id, sentAt: null, attempts: m.attempts, nextAttemptAt: { [Op.lte]: now } } },
