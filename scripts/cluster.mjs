@@ -22,12 +22,19 @@ function printWhatRuns(stack) {
     "",
     "  Database nodes (MariaDB Galera):",
     ...info.nodes.map((n) => `    ${n.name}  127.0.0.1:${n.port}  pid ${n.pid}  socket ${n.socket}`),
-    "  App instances (next start, each on its own node):",
-    ...info.apps.map((a) => `    ${a.name}  ${a.url}  pid ${a.pid}  → ${info.nodes[a.node].name}`),
+    info.dbProxy
+      ? `  The instances connect through HAProxy (TCP) 127.0.0.1:${info.dbProxy.port} to one Synced node, the writer:` +
+        ` ${info.nodes[0].name}, then ${info.nodes[1].name} when it fails.`
+      : "  Each instance connects to its own node.",
+    "  App instances (next start):",
+    ...info.apps.map(
+      (a) => `    ${a.name}  ${a.url}  pid ${a.pid}${a.node === null ? "" : `  → ${info.nodes[a.node].name}`}`,
+    ),
     "",
-    "  Try a failover: `kill -9 <pid>` of a node or an instance. A killed node's instance answers 503 on",
-    "  /api/health and HAProxy sends everyone to the other; this script starts whatever was killed again",
-    "  after 10 s (a node rejoins by state transfer).",
+    "  Try a failover: `kill -9 <pid>` of a node or an instance. A killed writer's connections move to the",
+    "  next node in about two seconds; a killed instance leaves HAProxy's rotation (it checks /api/health",
+    "  every second). This script starts whatever was killed again after 10 s (a node rejoins by state",
+    "  transfer, and the first node takes the writes back once it is Synced).",
     "",
     `  Demo sign-ins (demo only), password "${demo.password}":`,
     ...demo.accounts.map((a) => `    ${a.role.padEnd(10)} ${a.email}`),

@@ -2,6 +2,7 @@
 // with GET /api/health (a 503 there, e.g. its database node is not synced, takes it out of the
 // rotation), and X-Forwarded-For added so the app sees the client's address (TRUSTED_PROXIES).
 import { spawn } from "node:child_process";
+import { connect } from "node:net";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { findBinary } from "./system.mjs";
@@ -45,22 +46,20 @@ export function haproxyConfig({ host, port, apps, statsPort }) {
   ].join("\n");
 }
 
-export async function startHaproxy({ port, apps, host = "127.0.0.1", dir }) {
+// Runs HAProxy in the foreground (-db) on a configuration written to `dir/file`, so the pid kept is
+// HAProxy's own and a kill stops it.
+function runHaproxy(dir, file, text) {
   const bin = findBinary("haproxy");
   if (!bin) throw new Error("haproxy not found: apt-get install haproxy");
   dir = resolve(dir);
   mkdirSync(dir, { recursive: true });
-  const cfg = join(dir, "haproxy.cfg");
-  const statsPort = await freePort();
-  writeFileSync(cfg, haproxyConfig({ host, port, apps, statsPort }));
-  // -db: stay in the foreground, so the pid we keep is HAProxy's and a kill stops it.
-  const child = spawn(bin, ["-db", "-f", cfg], { stdio: ["ignore", "ignore", "inherit"] });
+  const config = join(dir, file);
+  writeFileSync(config, text);
+  const child = spawn(bin, ["-db", "-f", config], { stdio: ["ignore", "ignore", "inherit"] });
   let exited = false;
   child.on("exit", () => {
     exited = true;
   });
-  const shown = host === "0.0.0.0" ? "127.0.0.1" : host;
-  const url = `http://${shown}:${port}`;
   async function stop() {
     if (exited) return;
     child.kill("SIGTERM");
@@ -73,9 +72,22 @@ export async function startHaproxy({ port, apps, host = "127.0.0.1", dir }) {
     });
     if (!exited) child.kill("SIGKILL");
   }
+  return { pid: child.pid, config, exited: () => exited, stop };
+}
+
+export async function startHaproxy({ port, apps, host = "127.0.0.1", dir }) {
+  const statsPort = await freePort();
+  const {
+    pid,
+    config: cfg,
+    exited,
+    stop,
+  } = runHaproxy(dir, "haproxy.cfg", haproxyConfig({ host, port, apps, statsPort }));
+  const shown = host === "0.0.0.0" ? "127.0.0.1" : host;
+  const url = `http://${shown}:${port}`;
   try {
     await waitForHttp(`${url}/api/health`, 30_000, (r) => {
-      if (exited) throw new Error(`HAProxy exited; check ${cfg}`);
+      if (exited()) throw new Error(`HAProxy exited; check ${cfg}`);
       return r.status === 200;
     });
   } catch (err) {
@@ -103,5 +115,61 @@ export async function startHaproxy({ port, apps, host = "127.0.0.1", dir }) {
       await new Promise((r) => setTimeout(r, 250));
     }
   }
-  return { url, statsUrl, pid: child.pid, config: cfg, serversUp, waitServerUp, stop };
+  return { url, statsUrl, pid, config: cfg, serversUp, waitServerUp, stop };
+}
+
+/**
+ * The database side (TCP): every connection to one Synced node at a time, the writer; the next node
+ * takes over when it fails its check, and when the first is Synced again the connections move back
+ * at once (never two writers for long). `checks[i].port`: node i's readiness responder
+ * (node-check.mjs). The last node is left out while another is healthy: it is the rejoining nodes'
+ * donor (galera.mjs), blocked while it serves a copy.
+ */
+export function dbProxyConfig({ port, nodes, checks }) {
+  return [
+    "global",
+    "  maxconn 2000",
+    "defaults",
+    "  mode tcp",
+    "  timeout connect 2s",
+    "  timeout client 1h",
+    "  timeout server 1h",
+    "  timeout check 3s",
+    "listen galera",
+    `  bind 127.0.0.1:${port}`,
+    "  option httpchk GET /",
+    "  http-check expect status 200",
+    "  default-server inter 1s fall 2 rise 3 on-marked-down shutdown-sessions",
+    ...nodes.map((n, i) => {
+      const role = i === 0 ? " on-marked-up shutdown-backup-sessions" : " backup";
+      return `  server ${n.name} 127.0.0.1:${n.port} check port ${checks[i].port}${role}`;
+    }),
+    "",
+  ].join("\n");
+}
+
+export async function startDbProxy({ nodes, checks, dir }) {
+  const port = await freePort();
+  const { pid, config, exited, stop } = runHaproxy(dir, "haproxy-db.cfg", dbProxyConfig({ port, nodes, checks }));
+  const until = Date.now() + 15_000;
+  while (!(await portIsOpen(port))) {
+    if (exited()) throw new Error(`HAProxy (database) exited; check ${config}`);
+    if (Date.now() > until) {
+      await stop();
+      throw new Error(`HAProxy (database) did not listen in 15 s; check ${config}`);
+    }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  return { port, pid, config, stop };
+}
+
+function portIsOpen(port) {
+  return new Promise((resolve) => {
+    const socket = connect(port, "127.0.0.1");
+    socket.once("connect", () => {
+      socket.destroy();
+      resolve(true);
+    });
+    socket.once("error", () => resolve(false));
+  });
 }

@@ -1,7 +1,8 @@
 // The cluster that `npm run test:cluster` started (scripts/test-cluster.mjs): addresses, accounts,
 // and a way to kill or restart a database node or an app instance (its control server does it).
 export type ClusterNode = { name: string; port: number; socket: string; pid: number };
-export type ClusterApp = { name: string; url: string; port: number; pid: number; node: number };
+/** `node`: the node this instance uses with per-node writes; null when all go through the database proxy. */
+export type ClusterApp = { name: string; url: string; port: number; pid: number; node: number | null };
 type Account = { user: string; password: string; database: string };
 export type ClusterInfo = {
   nodes: ClusterNode[];
@@ -9,6 +10,9 @@ export type ClusterInfo = {
   proxy: string;
   /** HAProxy's status page (append ";csv" for CSV). */
   proxyStats: string;
+  /** "one-node": every connection through HAProxy (TCP, dbProxy.port) to one Synced node; "per-node". */
+  writes: "one-node" | "per-node";
+  dbProxy: { port: number } | null;
   db: Account;
   owner: Account;
   control: string;
