@@ -2,6 +2,7 @@ import "server-only";
 import { randomBytes } from "node:crypto";
 import { Op, type Transaction } from "sequelize";
 import { models } from "@/lib/server/core/db";
+import { causalRows } from "@/lib/server/core/cluster";
 import type { SessionEndReason } from "@/lib/schemas/enums";
 
 // The user_sessions rows: one per sign-in, ended on the server so a cookie left on a shared tablet
@@ -14,11 +15,20 @@ export async function createSessionRow(userId: number, shopId: number): Promise<
   return id;
 }
 
-/** Whether this sign-in of this person still counts. */
+/**
+ * Whether this sign-in of this person still counts. A session not found is looked for once more
+ * with a causal read (core/cluster.ts): on a cluster the sign-in may have been written through
+ * another instance's node a moment ago, and a person just signed in must not be sent back to sign in.
+ */
 export async function isSessionLive(id: string, userId: number): Promise<boolean> {
   const { UserSession } = models();
-  const row = await UserSession.findOne({ where: { id, userId, endedAt: null }, attributes: ["id"] });
-  return row !== null;
+  if (await UserSession.findOne({ where: { id, userId, endedAt: null }, attributes: ["id"] })) return true;
+  const rows = await causalRows<{ id: string }>(
+    null,
+    "SELECT id FROM user_sessions WHERE id = ? AND user_id = ? AND ended_at IS NULL",
+    [id, userId],
+  );
+  return rows.length > 0;
 }
 
 /** Ends one session, whoever it belongs to; answers whether it was still live. */
