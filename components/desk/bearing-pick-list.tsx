@@ -1,6 +1,6 @@
 import { halfPlaceWords } from "@/lib/domain";
 import type { BearingsView, PointView } from "@/lib/schemas/bearings";
-import { clearanceWords, setName } from "./bearing-words";
+import { clearanceWords, setName } from "@/lib/schemas/bearing-words";
 
 // The pick list the lead prints and takes to the shelf: for each point, which set each half comes
 // from and where it goes. Printing shows this list alone (the rest of the page is print:hidden).

@@ -3,7 +3,7 @@
 import { VerdictBadge } from "@/components/ui/verdict-badge";
 import { BEARING_ROLE_WORDS, lengthWords, type LengthUnit } from "@/lib/domain";
 import type { BearingsView, PointProposal, PointView } from "@/lib/schemas/bearings";
-import { clearanceWords, differenceWords, setName } from "./bearing-words";
+import { clearanceWords, differenceWords, setName } from "@/lib/schemas/bearing-words";
 
 // One bearing point in a row: what was measured, its housing bore (typed here), its window, the
 // halves chosen (by the selection or by hand), the predicted clearance, and the measured one.

@@ -7,7 +7,7 @@ import { WALL_SOURCE_WORDS } from "@/lib/schemas/bearing-enums";
 import type { BearingsView, ShellView, StockLeft } from "@/lib/schemas/bearings";
 import { ServerError } from "./fields";
 import { bearingsKey } from "./queries";
-import { setName } from "./bearing-words";
+import { setName } from "@/lib/schemas/bearing-words";
 
 // The shelf: each set with its wall, halves on hand, used by the choice on screen and left.
 

@@ -103,6 +103,8 @@ export type BuildRecord = {
     specRevision: number;
   };
   engine: Line[];
+  /** The bearing halves chosen per point, predicted against measured (absent where none were chosen). */
+  bearings?: BearingRecordLine[];
   plan: { entered: Line[]; figures: Line[]; problems: string[]; notes: string | null } | null;
   sections: ReadingSection[];
   derived: DerivedLine[];
@@ -117,4 +119,14 @@ export type BuildRecord = {
   safety: string[];
   /** The job's limits still at a starter sheet's typical figures, in words (COMMON_PRACTICE_WORDS). */
   commonPractice: string[];
+};
+
+/** One bearing point of the build record: its halves, predicted and measured installed clearance. */
+export type BearingRecordLine = {
+  point: string;
+  upper: string;
+  lower: string;
+  predicted: string;
+  measured: string;
+  difference: string;
 };

@@ -75,19 +75,19 @@ describe("bearing selection on a job", () => {
     const choice = {
       points: [
         { point: "main/1", upperShellId: std, lowerShellId: std },
-        { point: "main/2", upperShellId: std, lowerShellId: thin, byHand: true },
+        { point: "main/2", upperShellId: thin, lowerShellId: std, byHand: true },
       ],
     };
     const preview = (await send(PREVIEW, a.users.lead, "POST", "/choice/preview", choice)).body as SelectionAnswer;
     expect(preview.problems).toEqual([]);
-    // One half thinner: 2.5754 − 0.0622 − 0.0617 − 2.4500 = 0.0015 in, on the window's lower edge.
+    // One half thinner (the thicker half in the cap of a main, common practice): 2.5754 − 0.0622 − 0.0617 − 2.4500 = 0.0015 in, on the window's lower edge.
     expect(preview.points.find((p) => p.point === "main/2")!.predicted!.value).toBe(0.0015);
     expect(preview.moved.length).toBe(2); // nothing was saved yet, so both points move
     const saved = await send(SAVE, a.users.lead, "PUT", "/choice", choice);
     expect(saved.status).toBe(200);
     const view = (await send(GET, a.users.lead, "GET", "")).body as BearingsView;
     expect(view.points.find((p) => p.point === "main/2")).toMatchObject({ byHand: true, predicted: { value: 0.0015 } });
-    expect(view.shells.find((s) => s.id === thin)!.used).toEqual({ upper: 0, lower: 1 });
+    expect(view.shells.find((s) => s.id === thin)!.used).toEqual({ upper: 1, lower: 0 });
     const again = (await send(PREVIEW, a.users.lead, "POST", "/choice/preview", choice)).body as SelectionAnswer;
     expect(again.moved).toEqual([]);
     const events = await AuditEvent.findAll({ where: { shopId: a.shop.id, action: "bearings.choice" } });

@@ -16,7 +16,8 @@ import { planOf } from "@/lib/server/record/plan";
 import { derivedLines, readingSections, tallyOf } from "@/lib/server/record/readings";
 import { loadRecordParties, type RecordParties } from "@/lib/server/record/repo";
 import { flagLines, gaugeLines } from "@/lib/server/record/review";
-import type { BuildRecord, Line, ReleaseStamp } from "@/lib/schemas/record";
+import type { BearingRecordLine, BuildRecord, Line, ReleaseStamp } from "@/lib/schemas/record";
+import { bearingRecordLines } from "@/lib/server/bearings/record";
 
 // Assembles the build record of one job: everything the PDF and the customer's page print. The
 // job's record is loaded once and threaded through: the sections, the photos and the check of
@@ -109,6 +110,8 @@ export type RecordInputs = {
   releases: ReleaseRow[];
   names: Map<number, string>;
   photos: RecordPhotos;
+  /** The bearing section's lines (lib/server/bearings/record.ts). */
+  bearings?: BearingRecordLine[];
   releaseId?: number;
   now?: Date;
 };
@@ -134,6 +137,7 @@ export function assembleBuildRecord(i: RecordInputs): BuildRecord {
     },
     engine: engineLines(parties.engine),
     plan: planOf(job.buildPlan, parties.engine.cylinders),
+    bearings: i.bearings ?? [],
     sections,
     torque,
     derived: derivedLines(record, current),
@@ -166,6 +170,9 @@ export async function loadBuildRecord(
     ...record.flags.map((f) => f.disposedBy),
     ...releases.flatMap((r) => [r.inspectorId, r.voidedBy]),
   ]);
-  const photos = await recordPhotos(shopId, jobId, [...currentReadings(record.readings).values()]);
-  return assembleBuildRecord({ record, parties, releases, names, photos, ...opts });
+  const [photos, bearings] = await Promise.all([
+    recordPhotos(shopId, jobId, [...currentReadings(record.readings).values()]),
+    bearingRecordLines(shopId, jobId),
+  ]);
+  return assembleBuildRecord({ record, parties, releases, names, photos, bearings, ...opts });
 }

@@ -10,6 +10,7 @@ import {
   ReviewSections,
   TorqueSection,
 } from "@/lib/server/record/pdf-sections";
+import { BearingSection } from "@/lib/server/record/pdf-bearings";
 import { footerTop, s, VERDICT_COLOUR } from "@/lib/server/record/pdf-styles";
 import type { BuildRecord, ReleaseStamp } from "@/lib/schemas/record";
 
@@ -177,6 +178,7 @@ export function RecordDocument({ record }: { record: BuildRecord }) {
         ) : null}
         <Cover record={record} />
         <PlanSection plan={record.plan} />
+        <BearingSection lines={record.bearings} />
         <ReadingsSection record={record} />
         <TorqueSection rows={record.torque} />
         <ReviewSections record={record} />

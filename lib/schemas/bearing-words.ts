@@ -1,5 +1,5 @@
 import { lengthWords, shellSetWords, type LengthUnit } from "@/lib/domain";
-import type { Clearance, ShellView } from "@/lib/schemas/bearings";
+import type { Clearance, ShellView } from "./bearings";
 
 // Small word helpers of the bearing screens, on top of the core's words.
 
