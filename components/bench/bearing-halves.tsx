@@ -42,9 +42,9 @@ export const BearingHalves = memo(function BearingHalves({
     >
       <h3 className="text-sm font-semibold uppercase tracking-wide text-muted">Halves chosen for this bearing</h3>
       <dl className="grid grid-cols-[auto_minmax(0,1fr)] gap-x-3 gap-y-1">
-        <dt className="font-semibold">Upper, {chosen.upper.place}</dt>
+        <dt className="font-semibold">{chosen.upper.place}</dt>
         <dd>{chosen.upper.words}</dd>
-        <dt className="font-semibold">Lower, {chosen.lower.place}</dt>
+        <dt className="font-semibold">{chosen.lower.place}</dt>
         <dd>{chosen.lower.words}</dd>
       </dl>
       <div className="grid grid-cols-3 gap-2 text-center" data-testid="bearing-compare">

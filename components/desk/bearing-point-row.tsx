@@ -128,7 +128,9 @@ export function BearingPointRow(props: {
       </div>
       <div className={cell}>
         <span className={label}>Predicted clearance</span>
-        <span className="font-mono tabular">{clearanceWords(predicted, unit)}</span>
+        <span className="font-mono tabular" data-testid="predicted">
+          {clearanceWords(predicted, unit)}
+        </span>
         {predicted?.verdict && <VerdictBadge verdict={predicted.verdict} size="sm" />}
         <span className={label}>Measured installed</span>
         <span className="font-mono tabular">{clearanceWords(measured, unit)}</span>

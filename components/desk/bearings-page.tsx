@@ -42,7 +42,7 @@ export function BearingsPage({ jobId }: { jobId: number }) {
   const q = useBearings(jobId);
   if (q.isPending) return <Loading what="the bearings" />;
   if (q.isError) return <LoadFailed what="the bearings" error={q.error} retry={() => void q.refetch()} />;
-  return <Loaded key={q.dataUpdatedAt} view={q.data} />;
+  return <Loaded view={q.data} />;
 }
 
 function Loaded({ view }: { view: BearingsView }) {
