@@ -87,7 +87,7 @@ export function prepare(input: SelectionInput): Prepared {
   if (ids.size !== input.sets.length) throw new Error("Two shell sets share an id; each set needs its own");
   const ladders = new Map<LengthUnit, LadderSet[]>();
   const contexts = input.journals.map((journal) => {
-    const raw = windowFor(input.windows, journal.role);
+    const raw = journal.window ?? windowFor(input.windows, journal.role);
     const unit = raw.unit;
     if (!ladders.has(unit)) ladders.set(unit, ladderSets(input.sets, unit));
     const base = { journal, unit, window: exactWindow(raw, unit, journal.role) };

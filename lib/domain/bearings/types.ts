@@ -74,6 +74,8 @@ export interface BearingJournal {
   /** Factory codes stamped on the block or rod and on the crank, when a grade table is used. */
   housingCode?: string;
   journalCode?: string;
+  /** This journal's own window, when its limits differ from its role's (a per-inch rule, one odd journal). */
+  window?: ClearanceWindow;
   unit: LengthUnit;
 }
 
@@ -88,7 +90,7 @@ export interface ClearanceWindow {
 export interface SelectionInput {
   journals: BearingJournal[];
   sets: ShellSet[];
-  /** Windows per role; a thrust journal without its own takes the main window. */
+  /** Windows per role (a journal's own `window` comes first); a thrust journal without one takes the main window. */
   windows: { main?: ClearanceWindow; rod?: ClearanceWindow; thrust?: ClearanceWindow };
   /** Default "largest": the tightest clearance, as the bore is measured at its tight (vertical) axis. */
   journalFigure?: JournalFigure;

@@ -61,6 +61,9 @@ describe("selectShells, inch rods (common practice arithmetic)", () => {
     expect(s.results[0]).toMatchObject({ clearance: 0.0025, mixed: false });
   });
 
+  // Largest by default: a published fitting procedure measures the journal for its maximum diameter
+  // before picking inserts (Dodge Durango 5.7L service information, Crankshaft Main Bearing, Main
+  // Bearing Selection: "Determine the maximum diameter of the journal").
   it("uses the largest journal diameter by default, the smallest when asked", () => {
     const j = [journal("rod 1", [2.0986, 2.0988, 2.0987], BORE)];
     expect(selectShells({ ...input, journals: j }).results[0]).toMatchObject({
@@ -84,6 +87,31 @@ describe("selectShells, inch rods (common practice arithmetic)", () => {
     expect(s.results.map((r) => r.upper?.setId)).toEqual(["plus", "std"]);
     expect(s.results[1]).toMatchObject({ clearance: 0.0028, inWindow: false });
     expect(s.advice).toEqual([{ key: "rod 2", unit: "in", kind: "more_stock", setId: "plus" }]);
+  });
+});
+
+describe("selectShells, undersize and measured shells (common practice arithmetic)", () => {
+  it("fits a journal ground 0.010 in under with the undersize set, whose walls are 0.005 in thicker", () => {
+    const sets = [...rodShelf(), shellSet("us10", { kind: "undersize", amount: 0.01 }, 2)];
+    // 2.25 − 2 × 0.0795 − 2.0888 = 0.0022; a standard half would be 0.005 in thinner and never mixes.
+    const s = selectShells({ journals: [journal("rod 1", 2.0888, BORE)], sets, windows: rodWindow });
+    expect(s.results[0]).toMatchObject({ clearance: 0.0022, mixed: false, upper: { setId: "us10", wall: 0.0795 } });
+  });
+
+  it("takes each half's measured wall and the ball micrometer's U", () => {
+    const measured = shellSet("std", { kind: "standard" }, 2);
+    measured.wall = { source: "measured", upper: 0.0746, lower: 0.0744, gaugeU: 0.0001 };
+    const j = journal("rod 1", 2.0988, BORE, { journalU: 0.0001, housingU: 0.0001 });
+    const r = selectShells({ journals: [j], sets: [measured], windows: rodWindow }).results[0];
+    // 2.25 − 0.0746 − 0.0744 − 2.0988 = 0.0022; four inputs of u = 0.00005 → U = 2 · 0.0001 = 0.0002.
+    expect(r).toMatchObject({ clearance: 0.0022, upper: { wall: 0.0746 }, lower: { wall: 0.0744 } });
+    expect(r.uncertainty).toBeCloseTo(0.0002, 12);
+  });
+
+  it("judges a journal against its own window when it has one", () => {
+    const own = journal("rod 1", 2.0988, BORE, { window: window(0.0024, 0.003, 0.0027) });
+    const s = selectShells({ journals: [own, journal("rod 2", 2.0988, BORE)], sets: rodShelf(), windows: rodWindow });
+    expect(s.results.map((r) => r.clearance)).toEqual([0.0027, 0.0022]);
   });
 });
 
