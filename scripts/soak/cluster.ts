@@ -47,14 +47,14 @@ function chaos(stack: Stack, progress: () => number, total: number, running: () 
     await cluster!.kill(1);
     await sleep(3_000);
     note("restarting n2");
-    await cluster!.restart(1);
-    note("n2 rejoined (Synced)");
+    await stack.restartNode!(1);
+    note("n2 rejoined (Synced) and its instance back in HAProxy");
     await at(0.55);
     note("SIGKILL app instance 1");
     await apps.kill(0);
     await sleep(2_000);
-    await apps.restart(0);
-    note("app instance 1 restarted");
+    await stack.restartApp!(0);
+    note("app instance 1 restarted and back in HAProxy");
   })();
   return { events, done };
 }

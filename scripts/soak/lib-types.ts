@@ -31,7 +31,15 @@ export interface Lib {
     mode: "test" | "start";
     extraEnv: Env;
     log(line: string): void;
-  }): Promise<{ galera: Cluster; apps: Apps; proxy: { url: string }; env: Env; stop(): Promise<void> }>;
+  }): Promise<{
+    galera: Cluster;
+    apps: Apps;
+    proxy: { url: string };
+    env: Env;
+    restartNode(i: number): Promise<void>;
+    restartApp(i: number): Promise<void>;
+    stop(): Promise<void>;
+  }>;
   withoutOwnerAccount(env: Env): Env;
   freePort(): Promise<number>;
   ensureBuild(o: { perVersion: boolean }): string;

@@ -30,6 +30,9 @@ export interface Stack {
   mailDir: string;
   apps: Apps;
   cluster?: Cluster;
+  /** Cluster only: restart a node or an instance and wait until HAProxy sends it requests again. */
+  restartNode?(i: number): Promise<void>;
+  restartApp?(i: number): Promise<void>;
   /** Process ids of the database servers (for the CPU each used). */
   dbPids(): number[];
   stop(): Promise<void>;
@@ -205,6 +208,8 @@ export async function clusterStack(o: StackOptions, distDir: string): Promise<St
       mailDir: env.MAIL_DIR!,
       apps,
       cluster: galera,
+      restartNode: started.restartNode,
+      restartApp: started.restartApp,
       dbPids: () => galera.nodes.map((n) => n.pid ?? 0).filter(Boolean),
       stop,
     };
