@@ -1,5 +1,6 @@
 import "server-only";
 import { progressOfJobs, type Progress } from "@/lib/server/jobs/readings";
+import { isRetryable } from "@/lib/server/sync/ingest-retry";
 import {
   jobsWithEngines,
   keptProgress,
@@ -24,13 +25,17 @@ export async function countProgress(shopId: number, jobIds: number[]): Promise<M
     const tokens = await progressTokens(shopId, ids);
     const jobs = await jobsWithEngines(shopId, ids);
     const counted = await progressOfJobs(shopId, jobs);
-    await storeProgress(
-      tokens.map((t) => {
-        const p = counted.get(Number(t.jobId)) ?? null;
-        out.set(Number(t.jobId), p);
-        return { ...t, jobId: Number(t.jobId), required: p?.required ?? null, done: p?.done ?? null };
-      }),
-    );
+    const rows = tokens.map((t) => {
+      const p = counted.get(Number(t.jobId)) ?? null;
+      out.set(Number(t.jobId), p);
+      return { ...t, jobId: Number(t.jobId), required: p?.required ?? null, done: p?.done ?? null };
+    });
+    // Keeping the counts is a convenience: when it collides with a sync writing the same rows (a
+    // deadlock, or a certification conflict on a cluster) the counts still answer this request and
+    // stay stale, to be counted again by the next.
+    await storeProgress(rows).catch((err: unknown) => {
+      if (!isRetryable(err)) throw err;
+    });
   }
   return out;
 }

@@ -182,10 +182,22 @@ export type FlagDecisionRow = Pick<
   "id" | "readingId" | "derivedKey" | "state" | "disposition" | "operation"
 >;
 
-/** Every flag of a job with its latest decision, oldest first (the readings CSV's decision column). */
-export async function jobFlagDecisions(shopId: number, jobId: number): Promise<FlagDecisionRow[]> {
+/**
+ * Flags of a job with their latest decision, oldest first (the readings CSV's decision column): of
+ * these readings, or with `readingIds` null, of the job's computed values.
+ */
+export async function jobFlagDecisions(
+  shopId: number,
+  jobId: number,
+  readingIds: string[] | null,
+): Promise<FlagDecisionRow[]> {
+  if (readingIds?.length === 0) return [];
   const rows = await models().Flag.findAll({
-    where: { shopId, jobId },
+    where: {
+      shopId,
+      jobId,
+      ...(readingIds ? { readingId: { [Op.in]: readingIds } } : { derivedKey: { [Op.ne]: null } }),
+    },
     attributes: ["id", "readingId", "derivedKey", "state", "disposition", "operation"],
     order: [["id", "ASC"]],
   });

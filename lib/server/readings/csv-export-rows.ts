@@ -1,11 +1,9 @@
 import "server-only";
 import {
-  benchRoute,
   cleanDecimal,
   convertLength,
   convertTorque,
   characteristicWords,
-  currentReadings,
   deriveReadings,
   LUBRICANT_LABELS,
   roundToResolution,
@@ -15,19 +13,20 @@ import {
   type LengthUnit,
   type Lubricant,
   type MeasureUnit,
+  type RawReading,
   type TorqueUnit,
 } from "@/lib/domain";
 import type { Disposition } from "@/lib/schemas/enums";
 import { DISPOSITION_WORDS } from "@/lib/schemas/flag";
-import { jobFlagDecisions, type FlagDecisionRow } from "@/lib/server/flags/repo";
-import { loadJobContext } from "@/lib/server/jobs/repo";
-import { loadJobReadings, type JobReadings } from "@/lib/server/jobs/readings";
+import type { FlagDecisionRow } from "@/lib/server/flags/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
-import { toCsv, type Cell } from "@/lib/server/readings/csv-export";
+import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
+import type { JobContext } from "@/lib/server/jobs/context";
+import type { Cell } from "@/lib/server/readings/csv-export";
 
-// GET /api/jobs/[jobId]/readings.csv: one row per current reading (each station's current
-// reading by the core's rule, a skip included) and per derived value that has a value, in bench
-// order. With history, every other reading is listed before the current one of its station and
+// The rows of GET /api/jobs/[jobId]/readings.csv (written by csv-export-stream.ts): one row per
+// current reading (each station's current reading by the core's rule, a skip included) and per
+// derived value that has a value, in bench order. With history, every other reading is listed before the current one of its station and
 // marked superseded? "yes" (corrected, measured again, or a skip). Values, limits and deviations
 // are in the job's units (the header says which: lengths in in or mm, torque in lbf·ft or N·m)
 // and the unit column names the row's own unit.
@@ -35,10 +34,12 @@ import { toCsv, type Cell } from "@/lib/server/readings/csv-export";
 // the unit's display resolution (the core's roundToResolution), so a limit computed from a size
 // (ring gap per inch of bore) reads 0.0018, not 0.001836765. The format is documented in csv-export.ts.
 
-type Units = { length: LengthUnit; torque: TorqueUnit };
-type Decisions = { byReading: Map<string, FlagDecisionRow>; byDerived: Map<string, FlagDecisionRow> };
+export type Units = { length: LengthUnit; torque: TorqueUnit };
 
 const isTorqueUnit = (u: MeasureUnit) => u === "lbf_ft" || u === "nm";
+
+export const unitsOf = (unitSystem: string): Units =>
+  unitSystem === "mm" ? { length: "mm", torque: "nm" } : { length: "in", torque: "lbf_ft" };
 
 function converter(units: Units) {
   return (x: number | null | undefined, from: MeasureUnit): number | null => {
@@ -67,25 +68,26 @@ function decisionWords(f: FlagDecisionRow | undefined): string {
   return f.state === "closed" ? "Flag closed, no decision" : "Flagged, no decision yet";
 }
 
-function decisionsOf(flags: FlagDecisionRow[]): Decisions {
-  const byReading = new Map<string, FlagDecisionRow>();
-  const byDerived = new Map<string, FlagDecisionRow>();
-  // Oldest first, so a computed value's latest flag wins.
-  for (const f of flags) {
-    if (f.readingId) byReading.set(f.readingId, f);
-    else if (f.derivedKey) byDerived.set(f.derivedKey, f);
-  }
-  return { byReading, byDerived };
+/** Each reading's or computed value's latest flag (flags come oldest first, so the latest wins). */
+export function decisionsBy(flags: FlagDecisionRow[], key: "readingId" | "derivedKey"): Map<string, FlagDecisionRow> {
+  const out = new Map<string, FlagDecisionRow>();
+  for (const f of flags) if (f[key]) out.set(f[key]!, f);
+  return out;
 }
 
-type RowContext = { current: Set<string>; data: JobReadings; decisions: Decisions };
+export type RowContext = {
+  current: Set<string>;
+  instruments: Map<number, InstrumentInfo>;
+  takers: Map<number, string>;
+  decisions: Map<string, FlagDecisionRow>;
+};
 
-function readingRow(r: StoredReading, units: Units, ctx: RowContext): Cell[] {
+export function readingRow(r: StoredReading, units: Units, ctx: RowContext): Cell[] {
   const to = converter(units);
   const limit = limitOf(units);
   const unit = r.unit as MeasureUnit;
   const rowUnit = isTorqueUnit(unit) ? units.torque : units.length;
-  const gauge = r.instrumentId ? ctx.data.instruments.get(r.instrumentId)?.serial : null;
+  const gauge = r.instrumentId ? ctx.instruments.get(r.instrumentId)?.serial : null;
   return [
     "reading",
     r.stationId,
@@ -98,34 +100,26 @@ function readingRow(r: StoredReading, units: Units, ctx: RowContext): Cell[] {
     r.skipped ? "Skipped" : r.verdict ? VERDICT_WORDS[r.verdict] : "",
     to(r.deviation, unit),
     gauge,
-    ctx.data.takers.get(r.takenBy) ?? "",
+    ctx.takers.get(r.takenBy) ?? "",
     r.takenAt.toISOString(),
     ctx.current.has(r.id) ? "no" : "yes",
     r.lubricant ? (LUBRICANT_LABELS[r.lubricant as Lubricant] ?? r.lubricant) : "",
     r.skipped ? (r.skipReason ?? "") : "",
-    decisionWords(ctx.decisions.byReading.get(r.id)),
+    decisionWords(ctx.decisions.get(r.id)),
   ];
 }
 
-export async function readingsCsv(shopId: number, jobId: number, opts: { history?: boolean } = {}) {
-  const ctx = await loadJobContext(shopId, jobId);
-  const [data, flags] = await Promise.all([loadJobReadings(shopId, jobId), jobFlagDecisions(shopId, jobId)]);
-  const decisions = decisionsOf(flags);
-  // Each station's current reading, a skip included (a skip is a reading: its row carries the reason).
-  const current = new Set([...currentReadings(data.all).values()].map((r) => r.id));
-  const units: Units =
-    ctx.job.unitSystem === "mm" ? { length: "mm", torque: "nm" } : { length: "in", torque: "lbf_ft" };
+/** Rows of the computed values that have a value (none when the engine cannot be laid out). */
+export function derivedRows(
+  job: Pick<JobContext, "shape" | "spec">,
+  raws: RawReading[],
+  units: Units,
+  decisions: Map<string, FlagDecisionRow>,
+): Cell[][] {
   const to = converter(units);
   const limit = limitOf(units);
-  let order = new Map<string, number>();
-  let derivedRows: Cell[][] = [];
   try {
-    order = new Map(
-      benchRoute(ctx.shape)
-        .sections.flatMap((s) => s.stations)
-        .map((s, i) => [s.id, i]),
-    );
-    derivedRows = deriveReadings(data.raws, ctx.shape, ctx.spec)
+    return deriveReadings(raws, job.shape, job.spec)
       .filter((d) => typeof d.value === "number")
       .map((d) => [
         "derived",
@@ -144,18 +138,16 @@ export async function readingsCsv(shopId: number, jobId: number, opts: { history
         "",
         "",
         "",
-        decisionWords(decisions.byDerived.get(d.key)),
+        decisionWords(decisions.get(d.key)),
       ]);
   } catch {
-    // An engine the core cannot lay out: readings still export, in the order they were taken.
+    return []; // An engine the core cannot lay out: readings still export.
   }
-  const rank = (id: string) => order.get(id) ?? Number.MAX_SAFE_INTEGER;
-  // data.all is in taken order, and the sort is stable: earlier readings of a station come first.
-  const picked = data.all
-    .filter((r) => current.has(r.id) || opts.history)
-    .sort((a, b) => rank(a.stationId) - rank(b.stationId));
+}
+
+export function csvHeader(units: Units): string[] {
   const u = `${UNIT_WORDS[units.length]} | ${UNIT_WORDS[units.torque]}`;
-  const header = [
+  return [
     "row",
     "station",
     "station (words)",
@@ -174,8 +166,4 @@ export async function readingsCsv(shopId: number, jobId: number, opts: { history
     "skip reason",
     "decision",
   ];
-  return {
-    csv: toCsv(header, [...picked.map((r) => readingRow(r, units, { current, data, decisions })), ...derivedRows]),
-    code: ctx.job.code,
-  };
 }

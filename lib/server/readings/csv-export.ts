@@ -44,8 +44,10 @@ export function csvField(cell: Cell): string {
   return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
+/** One record and its CRLF. */
+export const csvLine = (cells: Cell[]): string => `${cells.map(csvField).join(",")}\r\n`;
+
 /** The whole file: BOM, header, rows, CRLF after every record. */
 export function toCsv(header: string[], rows: Cell[][]): string {
-  const lines = [header, ...rows].map((r) => r.map(csvField).join(","));
-  return `${BOM}${lines.join("\r\n")}\r\n`;
+  return `${BOM}${[header, ...rows].map(csvLine).join("")}`;
 }

@@ -6,7 +6,7 @@ import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading }
 import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { causalRows } from "@/lib/server/core/cluster";
-import { sqlRows, sqlWrite, utcDate } from "@/lib/server/core/sql-driver";
+import { sqlRows, sqlWrite, utcDate, utcText } from "@/lib/server/core/sql-driver";
 import { insertMany } from "@/lib/server/core/sql-insert";
 import { instrumentInfo, orNull, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 
@@ -38,9 +38,9 @@ async function selectReadings(
   where: string,
   replacements: unknown[],
   t?: Transaction,
-  lock = "",
+  tail = "", // a lock or a LIMIT after the order
 ): Promise<StoredReading[]> {
-  const sql = `SELECT ${COLUMNS} FROM readings WHERE ${where} ${ORDER}${lock}`;
+  const sql = `SELECT ${COLUMNS} FROM readings WHERE ${where} ${ORDER}${tail}`;
   const rows = t
     ? await sqlRows(t, sql, replacements)
     : await getSequelize().query<Record<string, unknown>>(sql, { replacements, type: QueryTypes.SELECT });
@@ -88,6 +88,49 @@ export async function findReadings(t: Transaction | undefined, ids: string[]): P
  */
 export async function jobReadings(t: Transaction | undefined, jobId: number, locking = true): Promise<StoredReading[]> {
   return selectReadings("job_id = ?", [jobId], t, t && locking ? " LOCK IN SHARE MODE" : "");
+}
+
+/**
+ * Each station's current reading of a job, one per station: lib/domain current-reading.ts's rule in
+ * SQL (no reading of the job supersedes it; of the rest the latest taken, then the larger id), so
+ * the job's history is never read into memory.
+ */
+export async function currentJobReadings(jobId: number): Promise<StoredReading[]> {
+  // The derived table is named `readings`, so the shared column list and order apply to it.
+  const sql = `SELECT ${COLUMNS} FROM (SELECT r.*, ROW_NUMBER() OVER (PARTITION BY r.station_id
+      ORDER BY r.taken_at DESC, r.id DESC) AS n FROM readings r WHERE r.job_id = ? AND NOT EXISTS
+      (SELECT 1 FROM readings s WHERE s.supersedes = r.id AND s.job_id = r.job_id)) readings WHERE n = 1 ${ORDER}`;
+  const rows = await getSequelize().query<Record<string, unknown>>(sql, {
+    replacements: [jobId],
+    type: QueryTypes.SELECT,
+  });
+  return rows.map(fromRow);
+}
+
+/** The stations of a job that have any reading. */
+export async function stationsWithReadings(jobId: number): Promise<string[]> {
+  const rows = await getSequelize().query<{ stationId: string }>(
+    "SELECT DISTINCT station_id AS stationId FROM readings WHERE job_id = ?",
+    { replacements: [jobId], type: QueryTypes.SELECT },
+  );
+  return rows.map((r) => r.stationId);
+}
+
+/** A page of a job's readings at these stations, oldest first (jobReadings' order), after `from`. */
+export async function jobReadingPage(
+  jobId: number,
+  stations: string[],
+  from: StoredReading | null,
+  limit: number,
+): Promise<StoredReading[]> {
+  if (!from) return selectReadings("job_id = ? AND station_id IN (?)", [jobId, stations], undefined, ` LIMIT ${limit}`);
+  const [taken, received] = [utcText(from.takenAt), utcText(from.receivedAt)];
+  return selectReadings(
+    `job_id = ? AND station_id IN (?) AND (taken_at > ? OR (taken_at = ? AND (received_at > ? OR (received_at = ? AND id > ?))))`,
+    [jobId, stations, taken, taken, received, received, from.id],
+    undefined,
+    ` LIMIT ${limit}`,
+  );
 }
 
 const GAUGE_COLUMNS = `g.id AS gId, g.shop_id AS gShopId, g.kind AS gKind, g.label AS gLabel, g.serial AS gSerial,
