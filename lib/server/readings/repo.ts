@@ -126,7 +126,8 @@ export async function jobReadingPage(
   if (!from) return selectReadings("job_id = ? AND station_id IN (?)", [jobId, stations], undefined, ` LIMIT ${limit}`);
   const [taken, received] = [utcText(from.takenAt), utcText(from.receivedAt)];
   return selectReadings(
-    `job_id = ? AND station_id IN (?) AND (taken_at > ? OR (taken_at = ? AND (received_at > ? OR (received_at = ? AND id > ?))))`,
+    `job_id = ? AND station_id IN (?)
+      AND (taken_at > ? OR (taken_at = ? AND (received_at > ? OR (received_at = ? AND id > ?))))`,
     [jobId, stations, taken, taken, received, received, from.id],
     undefined,
     ` LIMIT ${limit}`,
