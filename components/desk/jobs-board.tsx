@@ -148,7 +148,7 @@ export function JobsBoard({ canCreate }: { canCreate: boolean }) {
             />
             {data.jobs.length === 0 && (
               <p className="p-4 text-muted">
-                Page {q.page} is past the last page.{" "}
+                Page {data.page} is past the last page.{" "}
                 <button
                   type="button"
                   className="min-h-11 font-semibold text-steel underline"
@@ -159,10 +159,11 @@ export function JobsBoard({ canCreate }: { canCreate: boolean }) {
               </p>
             )}
           </div>
+          {/* The figures of the page on screen (the last one, while the next loads). */}
           <Pager
-            page={q.page}
+            page={data.page}
             pageCount={data.pageCount}
-            pageSize={q.pageSize}
+            pageSize={data.pageSize}
             total={data.total}
             what="jobs"
             onPage={(p) => set({ page: p })}
