@@ -8,7 +8,7 @@ import { randomBytes } from "node:crypto";
 import { chmodSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { promisify } from "node:util";
+import { inspect, promisify } from "node:util";
 import mariadb, { type Pool } from "mariadb";
 import { lib, type Apps, type Cluster, type Env } from "./lib-types";
 
@@ -65,6 +65,10 @@ export function stopAllOnExit(): void {
   process.on("SIGTERM", () => void exitAfterStopping(143));
   process.on("uncaughtException", (err) => {
     console.error(err);
+    void exitAfterStopping(1);
+  });
+  process.on("unhandledRejection", (reason) => {
+    console.error("unhandled rejection:", inspect(reason, { depth: 4 }));
     void exitAfterStopping(1);
   });
 }
