@@ -1,0 +1,210 @@
+// The office queries bench:scale times: each screen's server function (what its API route calls)
+// and, beside it, the raw SQL a hand-tuned query on the same indexes runs to fetch the same rows.
+import type { Connection } from "mariadb";
+import type { Actor } from "@/lib/schemas/session";
+import { FLAG_SORTS, flagListQuerySchema, type FlagListQuery } from "@/lib/schemas/flag";
+import { boardQuerySchema } from "@/lib/schemas/job-board";
+import { auditQuerySchema } from "@/lib/schemas/audit";
+import { listFlags } from "@/lib/server/flags/list";
+import { listJobBoard } from "@/lib/server/board/board";
+import { listBenchJobs } from "@/lib/server/bench/pack";
+import { getJobDetail } from "@/lib/server/jobs/detail";
+import { jobMaps } from "@/lib/server/readings/maps";
+import { queryAudit } from "@/lib/server/log/query";
+import { syncFeed } from "@/lib/server/sync/feed";
+import { readingsCsv } from "@/lib/server/readings/csv-export-rows";
+import type { Case } from "./timing";
+
+export type Subject = { shopId: number; machinist: Actor; jobId: number; heldJobs: number[] };
+
+const STATES: Record<FlagListQuery["state"], string> = {
+  open: "f.state = 'open'",
+  disposed: "f.state = 'disposed'",
+  active: "f.state IN ('open', 'disposed')",
+  closed: "f.state = 'closed'",
+  all: "1",
+};
+const FLAG_ORDER: Record<FlagListQuery["sort"], (d: string, flip: string) => string> = {
+  age: (_d, flip) => `COALESCE(r.taken_at, f.created_at) ${flip}`,
+  job: (d) => `j.code ${d}, f.station_id ASC`,
+  station: (d) => `f.station_id ${d}`,
+  value: (d) => `f.value ${d}`,
+  deviation: (d) => `f.deviation ${d}`,
+  verdict: (d) => `f.verdict ${d}, f.created_at ASC`,
+  reason: (d) => `f.reason ${d}, f.created_at ASC`,
+  state: (d) => `f.state ${d}, f.created_at ASC`,
+};
+
+function rawFlagPage(shopId: number, q: FlagListQuery) {
+  const d = q.dir === "asc" ? "ASC" : "DESC";
+  const flip = d === "ASC" ? "DESC" : "ASC";
+  const where = [`f.shop_id = ${shopId}`, STATES[q.state]];
+  if (q.job) where.push(`f.job_id = ${q.job}`);
+  if (q.verdict) where.push(`f.verdict = '${q.verdict}'`);
+  if (q.reason) where.push(`f.reason = '${q.reason}'`);
+  const w = where.join(" AND ");
+  return async (c: Connection) =>
+    Promise.all([
+      c.query(`SELECT COUNT(*) AS n FROM flags f WHERE ${w}`),
+      c.query(
+        `SELECT f.*, j.code, j.title, j.status, j.unit_system, j.locked_at, u.name AS disposer,
+           r.taken_at, r.instrument_id, r.taken_by, i.label, i.serial, i.calibration_due, t.name AS taker
+         FROM flags f JOIN jobs j ON j.id = f.job_id LEFT JOIN users u ON u.id = f.disposed_by
+           LEFT JOIN readings r ON r.id = f.reading_id LEFT JOIN instruments i ON i.id = r.instrument_id
+           LEFT JOIN users t ON t.id = r.taken_by
+         WHERE ${w} ORDER BY ${FLAG_ORDER[q.sort](d, flip)}, f.id ASC LIMIT ${q.pageSize} OFFSET 0`,
+      ),
+    ]);
+}
+
+function flagCases(s: Subject): Case[] {
+  const variants: [string, Record<string, string>][] = [
+    ["default (active, oldest first)", {}],
+    ...FLAG_SORTS.filter((x) => x !== "age").map((sort): [string, Record<string, string>] => [
+      `sort ${sort}`,
+      { sort },
+    ]),
+    ...(["open", "disposed", "closed", "all"] as const).map((state): [string, Record<string, string>] => [
+      `state ${state}`,
+      { state },
+    ]),
+    ["verdict out_of_spec", { verdict: "out_of_spec" }],
+    ["verdict marginal", { verdict: "marginal" }],
+    ["reason marginal", { reason: "marginal" }],
+    ["reason gauge_past_due", { reason: "gauge_past_due" }],
+    ["one job, all states", { job: String(s.jobId), state: "all" }],
+  ];
+  return variants.map(([label, params]) => {
+    const q = flagListQuerySchema.parse(params);
+    return { name: `flag queue: ${label}`, app: () => listFlags(s.shopId, q), raw: rawFlagPage(s.shopId, q) };
+  });
+}
+
+const jobRows = (c: Connection, jobId: number) =>
+  Promise.all([
+    c.query(
+      `SELECT j.*, e.description, e.cylinders, e.layout, e.mains, e.nominal_bore, e.nominal_stroke, cu.name AS customer
+         FROM jobs j JOIN engines e ON e.id = j.engine_id
+         JOIN customers cu ON cu.id = j.customer_id WHERE j.id = ?`,
+      [jobId],
+    ),
+    c.query("SELECT * FROM job_limits WHERE job_id = ? ORDER BY sort_order", [jobId]),
+    c.query("SELECT * FROM readings WHERE job_id = ?", [jobId]),
+  ]);
+
+export function cases(s: Subject): Case[] {
+  const board = boardQuerySchema.parse({});
+  const audit = auditQuerySchema.parse({});
+  const auditJob = auditQuerySchema.parse({ job: String(s.jobId) });
+  const active = "'intake', 'measuring', 'review', 'released'";
+  return [
+    ...flagCases(s),
+    {
+      name: "jobs board: first page (active, by due date)",
+      app: () => listJobBoard(s.shopId, board),
+      raw: (c) =>
+        Promise.all([
+          c.query(`SELECT COUNT(*) AS n FROM jobs j WHERE j.shop_id = ? AND j.status IN (${active})`, [s.shopId]),
+          c.query(
+            `SELECT j.id, j.code, j.title, j.status, j.due_date, cu.name, e.description, p.*
+               FROM jobs j JOIN customers cu ON cu.id = j.customer_id LEFT JOIN engines e ON e.id = j.engine_id
+               LEFT JOIN job_progress p ON p.job_id = j.id
+              WHERE j.shop_id = ? AND j.status IN (${active})
+              ORDER BY j.due_date IS NULL, j.due_date, j.id LIMIT 25`,
+            [s.shopId],
+          ),
+        ]),
+    },
+    {
+      name: "bench job list (machinist)",
+      app: () => listBenchJobs(s.machinist),
+      raw: async (c) => {
+        const jobs: { id: number }[] = await c.query(
+          `SELECT j.*, e.description, e.cylinders, e.layout, e.mains, e.nominal_bore, e.nominal_stroke, cu.name AS customer
+         FROM jobs j JOIN engines e ON e.id = j.engine_id
+             JOIN customers cu ON cu.id = j.customer_id
+            WHERE j.shop_id = ? AND j.status IN ('intake', 'measuring', 'review') AND j.locked_at IS NULL
+            ORDER BY j.due_date, j.id`,
+          [s.shopId],
+        );
+        const ids = jobs.length ? jobs.map((j) => j.id) : [0];
+        return Promise.all([
+          c.query("SELECT * FROM job_progress WHERE job_id IN (?)", [ids]),
+          c.query("SELECT job_id, COUNT(*) AS n FROM flags WHERE job_id IN (?) AND state <> 'closed' GROUP BY job_id", [
+            ids,
+          ]),
+        ]);
+      },
+    },
+    {
+      name: "job page (a finished V8)",
+      app: () => getJobDetail(s.shopId, s.jobId),
+      raw: (c) =>
+        Promise.all([
+          jobRows(c, s.jobId),
+          c.query("SELECT state, COUNT(*) AS n FROM flags WHERE job_id = ? GROUP BY state", [s.jobId]),
+          c.query("SELECT * FROM releases WHERE job_id = ? AND voided_at IS NULL", [s.jobId]),
+        ]),
+    },
+    {
+      name: "maps of a job",
+      app: () => jobMaps(s.shopId, s.jobId),
+      raw: (c) =>
+        Promise.all([jobRows(c, s.jobId), c.query("SELECT * FROM instruments WHERE shop_id = ?", [s.shopId])]),
+    },
+    {
+      name: "audit trail: first page",
+      app: () => queryAudit(s.shopId, audit),
+      raw: (c) =>
+        Promise.all([
+          c.query("SELECT COUNT(*) AS n FROM audit_events WHERE shop_id = ?", [s.shopId]),
+          c.query("SELECT * FROM audit_events WHERE shop_id = ? ORDER BY id DESC LIMIT 25", [s.shopId]),
+        ]),
+    },
+    {
+      name: "audit trail: one job",
+      app: () => queryAudit(s.shopId, auditJob),
+      raw: (c) =>
+        c.query(
+          `SELECT * FROM audit_events WHERE shop_id = ? AND (
+             (entity_type = 'job' AND entity_id = ?)
+             OR (entity_type = 'flag' AND entity_id IN (SELECT CAST(id AS CHAR) FROM flags WHERE job_id = ?))
+             OR (entity_type = 'reading' AND entity_id IN (SELECT id FROM readings WHERE job_id = ?)))
+           ORDER BY id DESC LIMIT 25`,
+          [s.shopId, String(s.jobId), s.jobId, s.jobId],
+        ),
+    },
+    {
+      name: "sync feed: catch-up of 5 held jobs",
+      app: () => syncFeed(s.shopId, "0", s.heldJobs),
+      raw: async (c) => {
+        const rows: { entity: string; entity_id: string }[] = await c.query(
+          `SELECT id, job_id, entity, entity_id, created_at FROM sync_changes
+            WHERE job_id IN (?) AND id > 0 ORDER BY id LIMIT 1000`,
+          [s.heldJobs],
+        );
+        const of = (e: string) => rows.filter((r) => r.entity === e).map((r) => r.entity_id);
+        return Promise.all([
+          c.query("SELECT * FROM jobs WHERE id IN (?)", [s.heldJobs]),
+          c.query("SELECT * FROM job_limits WHERE job_id IN (?)", [s.heldJobs]),
+          c.query("SELECT * FROM readings WHERE id IN (?)", [of("reading").concat("-")]),
+          c.query("SELECT * FROM flags WHERE id IN (?)", [of("flag").concat("0")]),
+        ]);
+      },
+    },
+    {
+      name: "CSV export of a job",
+      app: () => readingsCsv(s.shopId, s.jobId),
+      raw: (c) =>
+        Promise.all([
+          jobRows(c, s.jobId),
+          c.query(
+            `SELECT f.*, d.disposition AS d_kind, d.operation AS d_operation, d.reason AS d_reason,
+               d.user_id AS d_user, d.created_at AS d_at FROM flags f LEFT JOIN flag_dispositions d ON d.flag_id = f.id
+              WHERE f.job_id = ? ORDER BY f.id, d.id`,
+            [s.jobId],
+          ),
+        ]),
+    },
+  ];
+}
