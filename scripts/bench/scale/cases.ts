@@ -12,7 +12,7 @@ import { getJobDetail } from "@/lib/server/jobs/detail";
 import { jobMaps } from "@/lib/server/readings/maps";
 import { queryAudit } from "@/lib/server/log/query";
 import { syncFeed } from "@/lib/server/sync/feed";
-import { readingsCsv } from "@/lib/server/readings/csv-export-rows";
+import { readingsCsv } from "@/lib/server/readings/csv-export-stream";
 import type { Case } from "./timing";
 
 export type Subject = { shopId: number; machinist: Actor; jobId: number; heldJobs: number[] };
@@ -194,7 +194,13 @@ export function cases(s: Subject): Case[] {
     },
     {
       name: "CSV export of a job",
-      app: () => readingsCsv(s.shopId, s.jobId),
+      // The whole file, as the download writes it.
+      app: async () => {
+        const { lines } = await readingsCsv(s.shopId, s.jobId);
+        let bytes = 0;
+        for await (const l of lines()) bytes += l.length;
+        return bytes;
+      },
       raw: (c) =>
         Promise.all([
           jobRows(c, s.jobId),
