@@ -62,8 +62,9 @@ describe("bearing shells for the demo V8", () => {
     const housings: Record<string, string> = { "main/1": "2.5752", "main/2": "2.5760" };
     for (const m of [3, 4, 5]) housings[`main/${m}`] = "2.5757";
     for (const [point, bore] of Object.entries(housings)) await lead.locator(`[id="housing-${point}"]`).fill(bore);
+    const saved = lead.waitForResponse((r) => r.url().endsWith("/bearings/housings") && r.request().method() === "PUT");
     await lead.getByRole("button", { name: "Save housing bores" }).click();
-    await expect.poll(() => lead.locator('[id="housing-main/1"]').inputValue(), { timeout: 15_000 }).toBe("2.5752");
+    expect((await saved).status()).toBe(200);
     await lead.getByRole("button", { name: "Run the selection" }).click();
     await lead.getByText("What moves against the saved choice").waitFor({ timeout: 30_000 });
     // Main 1 gets one thinner half (0.0022 in), main 2 one thicker half (0.0020 in): both inside.
@@ -72,7 +73,9 @@ describe("bearing shells for the demo V8", () => {
     await expect.poll(() => row("Main 2").getByTestId("predicted").textContent()).toMatch(/^0\.0020 in/);
     expect(await row("Main 1").getByLabel("Main 1 upper half").inputValue()).not.toBe("");
     expect(await row("Main 2").locator("[data-verdict]").first().getAttribute("data-verdict")).toBe("in_spec");
+    const chosen = lead.waitForResponse((r) => r.url().endsWith("/bearings/choice") && r.request().method() === "PUT");
     await lead.getByRole("button", { name: "Save this choice" }).click();
+    expect((await chosen).status()).toBe(200);
     await lead.getByText("The choice is saved on the job").waitFor({ timeout: 30_000 });
     const pick = lead.locator('[data-print="pick-list"]');
     await expect.poll(() => pick.locator("tbody tr").count()).toBe(10);
