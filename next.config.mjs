@@ -4,7 +4,7 @@ const nextConfig = {
   // running test server is never rebuilt underneath.
   distDir: process.env.TW_DIST_DIR || ".next",
   // These packages load drivers and migrations dynamically; bundling them breaks (sequelize then looks for pg-hstore).
-  serverExternalPackages: ["sequelize", "mariadb", "umzug", "sharp", "@react-pdf/renderer", "nodemailer", "archiver"],
+  serverExternalPackages: ["sequelize", "mariadb", "umzug", "sharp", "pdfkit", "nodemailer", "archiver"],
   poweredByHeader: false,
   // For profiling the bench in a browser (DEVELOPERS.md, "Profiling"): maps minified frames to source.
   productionBrowserSourceMaps: process.env.TW_SOURCE_MAPS === "1",

@@ -26,6 +26,7 @@ import * as addUsersMustChangePassword from "./20261203150100-add-users-must-cha
 import * as addReadingsArchiveIndex from "./20261203170000-add-readings-archive-index";
 import * as addSyncChangesSeq from "./20261204020000-add-sync-changes-seq";
 import * as createJobProgress from "./20261204050000-create-job-progress";
+import * as addReleasesRecordFile from "./20261204060000-add-releases-record-file";
 import * as createBearingTables from "./20261204080000-create-bearing-tables";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
@@ -61,6 +62,7 @@ export const migrations: Migration[] = [
   step("20261203170000-add-readings-archive-index", addReadingsArchiveIndex),
   step("20261204020000-add-sync-changes-seq", addSyncChangesSeq),
   step("20261204050000-create-job-progress", createJobProgress),
+  step("20261204060000-add-releases-record-file", addReleasesRecordFile),
   step("20261204080000-create-bearing-tables", createBearingTables),
 ];
 

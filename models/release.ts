@@ -29,6 +29,11 @@ export class Release extends Model<InferAttributes<Release>, InferCreationAttrib
   declare voidedAt: CreationOptional<Date | null>;
   declare voidedBy: CreationOptional<number | null>;
   declare voidReason: CreationOptional<string | null>;
+  /** The build record rendered once for this release, in object storage, and its SHA-256 (hex). */
+  declare recordKey: CreationOptional<string | null>;
+  declare recordSha256: CreationOptional<string | null>;
+  declare recordBytes: CreationOptional<number | null>;
+  declare recordStoredAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -52,6 +57,10 @@ export function initRelease(sequelize: Sequelize): void {
       voidedAt: datetime(true),
       voidedBy: ref(true),
       voidReason: text(),
+      recordKey: str(255, true),
+      recordSha256: { type: DataTypes.CHAR(64), allowNull: true },
+      recordBytes: { type: DataTypes.INTEGER, allowNull: true },
+      recordStoredAt: datetime(true),
       ...stamps(),
     },
     modelOptions(sequelize, "releases", "both"),

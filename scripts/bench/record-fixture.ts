@@ -6,70 +6,27 @@
 // thumbnail step, and a release whose fingerprint is the release hash of that record.
 import { randomUUID } from "node:crypto";
 import sharp from "sharp";
-import { benchRoute, currentReadings, evaluateReading, parseStationId } from "@/lib/domain";
+import { benchRoute, currentReadings, evaluateReading, parseStationId, stationWords } from "@/lib/domain";
 import { toSpecLimit } from "@/lib/server/jobs/context";
 import { assembleBuildRecord } from "@/lib/server/record/data";
-import type { RecordParties } from "@/lib/server/record/repo";
 import { buildSnapshot, gaugeRecord } from "@/lib/server/release/hash-snapshot";
-import { CANONICAL_VERSION, releaseHash } from "@/lib/server/release/hash";
+import { CANONICAL_VERSION, itemDigests, releaseHash } from "@/lib/server/release/hash";
 import type { InstrumentRow, JobRecord, LimitRow, ReleaseRow } from "@/lib/server/release/repo";
 import { instrumentInfo, storedEvaluation, toRaw } from "@/lib/server/sync/ingest-evaluate";
 import { makeThumbnail } from "@/lib/server/uploads/content";
+import type { JsonValue } from "@/lib/schemas/json";
 import type { StoredReading } from "@/lib/schemas/readings";
 import type { BuildRecord, PhotoLine } from "@/lib/schemas/record";
 import { DEMO_GAUGES } from "../seed/demo-gauges";
 import { STREET_V8_INCH } from "../seed/demo-specs";
 import { benchReadings, V8 } from "./sync-readings";
+import { BENCH_PARTIES as PARTIES, BENCH_PLAN as PLAN } from "./record-fixture-parties";
 
 const SHOP_ID = 1;
 const JOB_ID = 1;
 const MACHINIST = 2;
 const INSPECTOR = 3;
 const T0 = Date.UTC(2026, 10, 30, 8, 0);
-
-const PLAN = {
-  format: "tenthwise.build-plan",
-  version: 1,
-  lengthUnit: "in",
-  volumeUnit: "cc",
-  bore: 4.03,
-  stroke: 3.48,
-  rodLength: 5.7,
-  compressionHeight: 1.56,
-  pistonTop: "dish",
-  pistonVolumeCc: 5,
-  chamberCc: 64,
-  gasketBore: 4.1,
-  gasketThickness: 0.039,
-  deckHeight: 9.025,
-  intakeLobeLift: 0.3,
-  exhaustLobeLift: 0.31,
-  rockerRatio: 1.5,
-  intakeLash: 0.016,
-  exhaustLash: 0.018,
-  notes: "Benchmark plan",
-};
-
-const PARTIES: RecordParties = {
-  shop: { name: "Bench shop (benchmark data)", address: "1 Test Road", phone: null, email: null, unitSystem: "in" },
-  customer: { name: "Bench customer", email: "customer@bench.example", phone: null },
-  engine: {
-    description: "Benchmark small-block V8",
-    layout: "v",
-    cylinders: 8,
-    mains: 5,
-    unitSystem: "in",
-    nominalBore: 4.03,
-    nominalStroke: 3.48,
-    blockMaterial: "greyCastIron",
-    headMaterial: null,
-    pistonMaterial: null,
-    blockSerial: "BENCH-1",
-    crankSerial: null,
-    headSerials: null,
-    fuel: null,
-  },
-};
 
 function instruments(): InstrumentRow[] {
   const when = new Date(T0);
@@ -215,7 +172,12 @@ async function photos(current: StoredReading[]): Promise<{ photos: PhotoLine[]; 
       const reading = current[i * 17];
       const n = `Photo ${i + 1}`;
       byReading.set(reading.id, [n]);
-      return { id: randomUUID(), caption: `${n}: ${reading.stationId}`, thumb, note: `photo-${i + 1}.jpg` };
+      return {
+        id: randomUUID(),
+        caption: `${n}: ${stationWords(reading.stationId)}`,
+        thumb,
+        note: `photo-${i + 1}.jpg`,
+      };
     }),
   );
   return { photos: lines, byReading };
@@ -250,7 +212,7 @@ export async function fullV8Record(): Promise<RecordFixture> {
     },
     customerName: PARTIES.customer.name,
     engineDescription: PARTIES.engine.description,
-    shape: { ...V8, nominalSizes: { bore: 4.03, mainJournal: 2.449, rodJournal: 2.099 } },
+    shape: { ...V8, finishedSizes: { bore: 4.03, mainJournal: 2.449, rodJournal: 2.099 } },
     spec: lim.map(toSpecLimit),
     limits: lim,
     instruments: instruments(),
@@ -259,18 +221,24 @@ export async function fullV8Record(): Promise<RecordFixture> {
   const record: JobRecord = { ...base, readings: rows, ...flagsOf(rows) };
   const signedAt = new Date(T0 + 5 * 3600_000);
   const sig = { inspectorId: INSPECTOR, signedName: "Bench Inspector", signedAt };
-  const hash = releaseHash(buildSnapshot(record, sig, record.instruments.map(gaugeRecord)));
+  const gauges = record.instruments.map(gaugeRecord);
+  const snapshot = buildSnapshot(record, sig, gauges);
+  const hash = releaseHash(snapshot);
   const release: ReleaseRow = {
     id: 1,
     shopId: SHOP_ID,
     jobId: JOB_ID,
     ...sig,
-    checklist: {},
+    checklist: { version: CANONICAL_VERSION, checks: [], gauges, digests: itemDigests(snapshot) } as JsonValue,
     hash,
     canonicalVersion: CANONICAL_VERSION,
     voidedAt: null,
     voidedBy: null,
     voidReason: null,
+    recordKey: null,
+    recordSha256: null,
+    recordBytes: null,
+    recordStoredAt: null,
     createdAt: signedAt,
     updatedAt: signedAt,
   };

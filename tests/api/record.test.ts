@@ -161,8 +161,7 @@ describe("GET /api/record/[jobId]/pdf", () => {
   });
 
   it("renders a long record (a V8's full route and more) with its header and page number on every page", async () => {
-    // react-pdf 4 drifts fixed footers placed from the bottom on long documents until pdfkit
-    // throws "unsupported number" (diegomura/react-pdf#3416); the record places them from the top.
+    // Header, footer and page number are drawn on every page once the page count is known.
     const row = (i: number): ReadingLine => ({
       stationId: `bore/${i}`,
       station: `Station ${i}`,
@@ -207,7 +206,8 @@ describe("GET /api/record/[jobId]/pdf", () => {
       commonPractice: [],
     };
     const { text, pages } = await pdfText(await renderRecordPdf(record));
-    expect(pages).toBeGreaterThan(12);
+    // About 28 two-line rows fit an A4 page: 320 rows run past ten pages.
+    expect(pages).toBeGreaterThan(10);
     for (let p = 1; p <= pages; p++) expect(text).toContain(`Page ${p} of ${pages}`);
     expect(text.match(/Tenthwise build record · L-1 · DRAFT/g)?.length).toBe(pages);
     expect(text).toContain("Station 319");

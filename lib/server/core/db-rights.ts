@@ -41,7 +41,20 @@ export const APP_TABLE_RIGHTS: Record<MigratedTable, readonly TableRight[]> = {
   flags: ["SELECT", "INSERT", "UPDATE"],
   flag_dispositions: ["SELECT", "INSERT"],
   // Reopening marks the release void; what was signed never changes and is never deleted.
-  releases: ["SELECT", "INSERT", updateOf("voided_at", "voided_by", "void_reason", "updated_at")],
+  releases: [
+    "SELECT",
+    "INSERT",
+    updateOf(
+      "voided_at",
+      "voided_by",
+      "void_reason",
+      "record_key",
+      "record_sha256",
+      "record_bytes",
+      "record_stored_at",
+      "updated_at",
+    ),
+  ],
   audit_events: ["SELECT", "INSERT"],
   sync_changes: ["SELECT", "INSERT"],
   // Numbered by a trigger (it runs with the owner's rights); the app only reads where a shop is.

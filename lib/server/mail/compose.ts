@@ -4,13 +4,15 @@ import { textToHtml, type OutgoingMail } from "@/lib/server/mail/send";
 import { composeAccountMail, isAccountMail } from "@/lib/server/accounts/link-mail";
 import type { OutboxRow } from "@/lib/server/mail/repo";
 import { day } from "@/lib/server/record/format";
-import { buildRecordPdf } from "@/lib/server/record/pdf";
+import { loadBuildRecord } from "@/lib/server/record/data";
+import { recordFile } from "@/lib/server/record/stored";
 import type { BuildRecord } from "@/lib/schemas/record";
 import { composeShopVerification, SHOP_MAIL_KIND } from "@/lib/server/shops/verify-mail";
 
-// Turns an outbox row into the message that goes out. The build record is rendered when it is
-// sent (not inside the release transaction), and its customer link is made then, so the link's
-// lifetime starts when the customer receives it. Digests and "ready" notes are written when queued.
+// Turns an outbox row into the message that goes out. The build record attached is the file kept
+// for the release (lib/server/record/stored.ts), and its customer link is made when it is sent,
+// so the link's lifetime starts when the customer receives it. Digests and "ready" notes are
+// written when queued.
 
 function recordText(record: BuildRecord, link: string, expires: Date): string {
   const r = record.release!;
@@ -33,7 +35,11 @@ function recordText(record: BuildRecord, link: string, expires: Date): string {
 async function composeBuildRecord(row: OutboxRow): Promise<OutgoingMail> {
   const jobId = Number(row.payload.jobId);
   const releaseId = Number(row.payload.releaseId);
-  const { record, pdf, fileName } = await buildRecordPdf(row.shopId, jobId, { releaseId });
+  // The words come from the record now; the attachment is the file kept for the release.
+  const [record, { pdf, fileName }] = await Promise.all([
+    loadBuildRecord(row.shopId, jobId, { releaseId }),
+    recordFile(row.shopId, jobId, { releaseId }),
+  ]);
   const token = createCustomerToken(releaseId);
   const check = checkCustomerToken(token);
   const expires = check.ok ? check.expiresAt : new Date();

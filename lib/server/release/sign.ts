@@ -24,6 +24,7 @@ import {
   type ReleaseRow,
 } from "@/lib/server/release/repo";
 import { checkSigner } from "@/lib/server/release/signer";
+import { storeAfterSigning } from "@/lib/server/record/stored";
 
 // The inspector's e-signature (typed full name + password again) and the lead's reopen. Both run
 // in one transaction with the job row locked, and both are audited and fed to the tablets; the
@@ -113,6 +114,8 @@ export async function signRelease(actor: Actor, jobId: number, input: SignInput)
     await recordChange(t, { shopId: actor.shopId, jobId, entity: "job", entityId: jobId });
     return release;
   });
+  // After the commit, so the signature never waits on (or is lost with) object storage.
+  await storeAfterSigning(actor.shopId, jobId, row.id);
   return toReleaseRecord(row, await userNames(actor.shopId, [row.inspectorId]));
 }
 

@@ -1,18 +1,20 @@
 import "server-only";
-import { renderToBuffer } from "@react-pdf/renderer";
 import { loadBuildRecord } from "@/lib/server/record/data";
-import { RecordDocument } from "@/lib/server/record/document";
+import { drawRecord } from "@/lib/server/record/document";
 import type { BuildRecord } from "@/lib/schemas/record";
 
 // The build record rendered to PDF bytes on the server, and the Response that carries it.
 export async function renderRecordPdf(record: BuildRecord): Promise<Buffer> {
-  return renderToBuffer(<RecordDocument record={record} />);
+  return drawRecord(record);
+}
+
+export function fileNameFor(jobCode: string, state: "draft" | "void" | "standing"): string {
+  const code = jobCode.replace(/[^A-Za-z0-9._-]+/g, "-");
+  return `build-record-${code}${state === "standing" ? "" : `-${state}`}.pdf`;
 }
 
 export function recordFileName(record: Pick<BuildRecord, "job" | "release">): string {
-  const code = record.job.code.replace(/[^A-Za-z0-9._-]+/g, "-");
-  const state = !record.release ? "-draft" : record.release.status === "void" ? "-void" : "";
-  return `build-record-${code}${state}.pdf`;
+  return fileNameFor(record.job.code, record.release?.status ?? "draft");
 }
 
 export async function buildRecordPdf(shopId: number, jobId: number, opts: { releaseId?: number } = {}) {
