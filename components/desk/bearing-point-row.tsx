@@ -11,6 +11,10 @@ import { clearanceWords, differenceWords, setName } from "@/lib/schemas/bearing-
 export type HousingDraft = { housingBore: string; housingGaugeId: string; thrust: boolean };
 
 const cell = "flex flex-col gap-1";
+const ROW = [
+  "grid gap-3 rounded-tool border-2 border-rule bg-panel p-3",
+  "sm:grid-cols-2 lg:grid-cols-[9rem_1fr_1fr_1.4fr_1fr]",
+].join(" ");
 const label = "text-xs font-semibold uppercase tracking-wide text-muted";
 const input = "min-h-11 w-full rounded-tool border-2 border-rule bg-paper px-2 font-mono tabular focus:border-steel";
 
@@ -50,10 +54,7 @@ export function BearingPointRow(props: {
     </select>
   );
   return (
-    <li
-      aria-label={p.label}
-      className="grid gap-3 rounded-tool border-2 border-rule bg-panel p-3 sm:grid-cols-2 lg:grid-cols-[9rem_1fr_1fr_1.4fr_1fr]"
-    >
+    <li aria-label={p.label} className={ROW}>
       <div className={cell}>
         <span className="text-lg font-semibold">{p.label}</span>
         <span className="text-sm text-muted">{BEARING_ROLE_WORDS[role]} shells</span>

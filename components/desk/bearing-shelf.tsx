@@ -9,6 +9,8 @@ import { ServerError } from "./fields";
 import { bearingsKey } from "./queries";
 import { setName } from "@/lib/schemas/bearing-words";
 
+const REMOVE = "no-print min-h-11 rounded-tool border-2 border-rule px-3 text-sm font-semibold hover:border-fail";
+
 // The shelf: each set with its wall, halves on hand, used by the choice on screen and left.
 
 function wallWords(s: ShellView): string {
@@ -49,13 +51,13 @@ export function BearingShelf({ view, stock }: { view: BearingsView; stock?: Stoc
               </span>
               <span className="text-sm">Wall {wallWords(s)}</span>
               <span className={`font-mono text-sm tabular ${short ? "font-bold text-fail" : ""}`}>
-                upper {used.upper} of {s.halvesUpper} used, {left.upper} left · lower {used.lower} of {s.halvesLower}{" "}
-                used, {left.lower} left
+                {`upper ${used.upper} of ${s.halvesUpper} used, ${left.upper} left · `}
+                {`lower ${used.lower} of ${s.halvesLower} used, ${left.lower} left`}
               </span>
               {!view.job.locked && (
                 <button
                   type="button"
-                  className="no-print min-h-11 rounded-tool border-2 border-rule px-3 text-sm font-semibold hover:border-fail"
+                  className={REMOVE}
                   onClick={() => remove.mutate(s.id)}
                   disabled={remove.isPending}
                 >

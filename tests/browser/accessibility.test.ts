@@ -93,6 +93,8 @@ describe("accessibility audit (axe-core, WCAG 2.2 AA), bright and dim", () => {
         `/desk/jobs/${job}/limits`,
         `/desk/jobs/${job}/plan`,
         `/desk/jobs/${job}/maps`,
+        `/desk/jobs/${job}/bearings`,
+        "/desk/bearing-grades",
         "/desk/specs",
         `/desk/specs/${spec}`,
         "/desk/specs/new",
