@@ -26,8 +26,9 @@ import type { Cell } from "@/lib/server/readings/csv-export";
 
 // The rows of GET /api/jobs/[jobId]/readings.csv (written by csv-export-stream.ts): one row per
 // current reading (each station's current reading by the core's rule, a skip included) and per
-// derived value that has a value, in bench order. With history, every other reading is listed before the current one of its station and
-// marked superseded? "yes" (corrected, measured again, or a skip). Values, limits and deviations
+// derived value that has a value, in bench order. With history, every other reading is listed
+// before the current one of its station and marked superseded? "yes" (corrected, measured again,
+// or a skip). Values, limits and deviations
 // are in the job's units (the header says which: lengths in in or mm, torque in lbf·ft or N·m)
 // and the unit column names the row's own unit.
 // Verdicts, limits and deviations of readings are the server's stored ones; limits are written to
