@@ -21,6 +21,8 @@ const TRIGGERS: [name: string, sql: string][] = [
   ["readings_progress_delete", `AFTER DELETE ON readings FOR EACH ROW ${bump("OLD")}`],
 ];
 
+export const PROGRESS_TRIGGERS = TRIGGERS.map(([name]) => name);
+
 const token = (allowNull: boolean) => ({ type: DataTypes.BIGINT.UNSIGNED, allowNull });
 const count = () => ({ type: DataTypes.INTEGER, allowNull: true });
 

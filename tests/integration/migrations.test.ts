@@ -11,6 +11,7 @@ import { migrator } from "@/lib/server/core/migrate";
 import { APPEND_ONLY_MESSAGE } from "../../migrations/20261201001000-create-audit-events";
 import { CONTEXT_TRIGGERS } from "../../migrations/20261202000200-add-jobs-context-revision";
 import { SEQUENCE_TRIGGERS } from "../../migrations/20261204020000-add-sync-changes-seq";
+import { PROGRESS_TRIGGERS } from "../../migrations/20261204050000-create-job-progress";
 import { MIGRATED_TABLES, migrations } from "../../migrations/index";
 
 // npm test provides an empty scratch database for this file, so dropping every table never
@@ -139,7 +140,13 @@ describe("migrations", () => {
     );
     for (const c of collations) expect(c.collation, c.name).toMatch(/^utf8mb4_/);
     expect(await triggerNames()).toEqual(
-      ["audit_events_no_delete", "audit_events_no_update", ...CONTEXT_TRIGGERS, ...SEQUENCE_TRIGGERS].sort(),
+      [
+        "audit_events_no_delete",
+        "audit_events_no_update",
+        ...CONTEXT_TRIGGERS,
+        ...SEQUENCE_TRIGGERS,
+        ...PROGRESS_TRIGGERS,
+      ].sort(),
     );
   });
 
