@@ -10,6 +10,7 @@ import { forJobs, jobCodes, pushAllPlain, shopGauges, tabletPlan } from "./plan"
 import { clusterStack, exitAfterStopping, oneNodeStack, stopAllOnExit, type Stack, type StackOptions } from "./stack";
 import { lib } from "./lib-types";
 import { runTablet, signIn, type TabletResult } from "./tablet";
+import type { BenchInstrument } from "@/lib/schemas/sync";
 
 const TABLETS = Number(process.env.TW_SOAK_TABLETS ?? 5);
 const PER_TABLET = Number(process.env.TW_SOAK_READINGS ?? 2_000);
@@ -81,12 +82,14 @@ async function clusterRun(opts: StackOptions, dist: string) {
     );
     const random = seededRandom(SEED ^ 0x5eed);
     const t0 = performance.now();
+    let clusterGauges: BenchInstrument[] = [];
     const results: TabletResult[] = await Promise.all(
       codes.map(async (mine, t) => {
         // Each tablet signs in and opens its jobs before the shift, on good Wi-Fi (HAProxy directly).
         const session = await signIn(stack.url, stack.origin, DEMO.email, DEMO.password);
         const jobIds = mine.map((c) => stack.jobs[c]);
         const gauges = await shopGauges(stack.url, session.cookie, jobIds[0]);
+        clusterGauges = gauges;
         return runTablet({
           name: `tablet-${t + 1}`,
           base: proxy.url,
@@ -123,7 +126,7 @@ async function clusterRun(opts: StackOptions, dist: string) {
     const flags = await flagsOf(stack.nodes[0], stack.jobs);
     const chaosOk = trouble.events.length === 5 && !trouble.events.some((e) => e.includes("AFTER"));
     findings.push({ what: "faults mid-run", ok: chaosOk, detail: trouble.events.join("; ") });
-    return { findings, flags, payloads: results.map((r) => r.payloads), jobs: stack.jobs };
+    return { findings, flags, payloads: results.map((r) => r.payloads), jobs: stack.jobs, gauges: clusterGauges };
   } finally {
     await stack.stop();
   }
@@ -133,7 +136,8 @@ async function oneNodeFlags(opts: StackOptions, dist: string, run: Awaited<Retur
   const stack = await oneNodeStack({ ...opts, notifySeconds: 0, label: "soak-one" }, dist);
   try {
     const session = await signIn(stack.url, stack.origin, DEMO.email, DEMO.password);
-    const perTablet = run.payloads.map((p) => forJobs(p, run.jobs, stack.jobs));
+    const gauges = await shopGauges(stack.url, session.cookie, Object.values(stack.jobs)[0]);
+    const perTablet = run.payloads.map((p) => forJobs(p, run, { jobs: stack.jobs, gauges }));
     await pushAllPlain(stack.url, stack.origin, session.cookie, perTablet);
     return await flagsOf(stack.nodes[0], stack.jobs);
   } finally {

@@ -50,14 +50,23 @@ export function tabletPlan(jobIds: number[], count: number, gauges: BenchInstrum
   throw new Error(`${jobIds.length} jobs hold only ${plan.length} readings the shop's gauges can take`);
 }
 
-/** The same readings (ids and all) for another set-up's jobs, matched by job code. */
+/**
+ * The same readings (ids and all) for another set-up's jobs and gauges, matched by job code and by
+ * gauge serial (a Galera cluster numbers rows differently from one node).
+ */
 export function forJobs(
   payloads: PushReadingInput[],
-  from: Record<string, number>,
-  to: Record<string, number>,
+  from: { jobs: Record<string, number>; gauges: BenchInstrument[] },
+  to: { jobs: Record<string, number>; gauges: BenchInstrument[] },
 ): PushReadingInput[] {
-  const codeOf = new Map(Object.entries(from).map(([code, id]) => [id, code]));
-  return payloads.map((p) => ({ ...p, jobId: to[codeOf.get(p.jobId)!] }));
+  const codeOf = new Map(Object.entries(from.jobs).map(([code, id]) => [id, code]));
+  const serialOf = new Map(from.gauges.map((g) => [g.id, g.serial]));
+  const gaugeBySerial = new Map(to.gauges.map((g) => [g.serial, g.id]));
+  return payloads.map((p) => ({
+    ...p,
+    jobId: to.jobs[codeOf.get(p.jobId)!],
+    ...(p.instrumentId ? { instrumentId: gaugeBySerial.get(serialOf.get(p.instrumentId)!) } : {}),
+  }));
 }
 
 /** Readings as a tablet sends them: its own ids, the time taken. */
