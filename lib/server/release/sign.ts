@@ -4,7 +4,7 @@ import type { ReleaseRecord, ReopenInput, SignInput } from "@/lib/schemas/releas
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
 import { recordChange } from "@/lib/server/sync/repo";
-import { getSequelize } from "@/lib/server/core/db";
+import { retriedTransaction } from "@/lib/server/core/cluster";
 import { AppError } from "@/lib/server/core/errors";
 import { getJobOrThrow } from "@/lib/server/jobs/repo";
 import { enqueueReleaseMail } from "@/lib/server/mail/outbox";
@@ -50,7 +50,7 @@ export function toReleaseRecord(r: ReleaseRow, names: Map<number, string>): Rele
 export async function signRelease(actor: Actor, jobId: number, input: SignInput): Promise<ReleaseRecord> {
   await getJobOrThrow(actor.shopId, jobId); // 404 for another shop's job before anything else
   const signedName = await checkSigner(actor, input);
-  const row = await getSequelize().transaction(async (t) => {
+  const row = await retriedTransaction(async (t) => {
     const record = await loadJobRecord(actor.shopId, jobId, t, true);
     const { job } = record;
     if (isJobLocked(job) || (await activeRelease(jobId, t))) {
@@ -121,7 +121,7 @@ export async function signRelease(actor: Actor, jobId: number, input: SignInput)
 
 /** The lead reopens a released job: the release is voided (kept, marked VOID) and the job unlocked. */
 export async function reopenRelease(actor: Actor, jobId: number, input: ReopenInput): Promise<ReleaseRecord> {
-  const row = await getSequelize().transaction(async (t) => {
+  const row = await retriedTransaction(async (t) => {
     const job = await lockJob(t, actor.shopId, jobId);
     const release = await activeRelease(jobId, t);
     const refusal = reopenRefusal(actor.role, { ...job, hasStandingRelease: !!release });
