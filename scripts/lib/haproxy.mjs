@@ -25,7 +25,6 @@ export function haproxyConfig({ host, port, apps, statsPort }) {
     "  timeout client 120s",
     "  timeout server 120s",
     "  timeout http-request 30s",
-    "  timeout check 3s",
     // HAProxy's own status page (which instances are in the rotation), on loopback only.
     "frontend stats",
     `  bind 127.0.0.1:${statsPort}`,
@@ -39,7 +38,11 @@ export function haproxyConfig({ host, port, apps, statsPort }) {
     "  balance roundrobin",
     "  option httpchk GET /api/health",
     "  http-check expect status 200",
-    // Checked every second; out after two failures, back after two successes.
+    // Checked every second; out after two failures, back after two successes. A killed instance
+    // refuses the connection and is out within two seconds; a busy one (a shift-end burst keeps its
+    // one thread on sync batches) may take seconds to answer and is not dead, so the answer may take
+    // up to 10 s before the check counts as failed, never leaving every instance out at once.
+    "  timeout check 10s",
     "  default-server inter 1s fall 2 rise 2",
     ...apps.map((a, i) => `  server ${a.name ?? `app${i + 1}`} 127.0.0.1:${a.port} check`),
     "",
