@@ -42,14 +42,15 @@ function chaos(stack: Stack, progress: () => number, total: number, running: () 
   const done = (async () => {
     const { cluster, apps } = stack;
     await at(0.2);
-    // Node 2 serves app instance 2 (instance i on node i mod 3): its requests fail until HAProxy's
-    // health check takes it out, and the tablets' resends go to instance 1.
-    note("SIGKILL database node n2");
-    await cluster!.kill(1);
+    // Node n1 is the writer (every instance's connections go to it through the database HAProxy):
+    // killing it is the hard case. Open transactions die with it, HAProxy moves the connections to
+    // n2, the tablets resend what was not acknowledged, and when n1 is Synced again they move back.
+    note("SIGKILL database node n1 (the writer)");
+    await cluster!.kill(0);
     await sleep(3_000);
-    note("restarting n2");
-    await stack.restartNode!(1);
-    note("n2 rejoined (Synced) and its instance back in HAProxy");
+    note("restarting n1");
+    await stack.restartNode!(0);
+    note("n1 rejoined (Synced) and back as the writer");
     await at(0.55);
     note("SIGKILL app instance 1");
     await apps.kill(0);
