@@ -4,6 +4,7 @@ import { z } from "zod";
 import type { JobStatus, LengthUnit, Verdict } from "@/lib/domain/enums";
 import { storedText } from "./stored-text";
 import { keptBy } from "./stored-figure";
+import { PLAUSIBLE_WALL } from "./bearing-grades";
 import {
   BEARING_ROLES,
   SHELL_STEP_KINDS,
@@ -73,6 +74,23 @@ export const shellInputSchema = z
     }
   });
 export type ShellInput = z.infer<typeof shellInputSchema>;
+
+const WALL_FIELDS = ["wall", "wallMin", "wallMax", "wallUpper", "wallLower"] as const;
+
+/**
+ * Walls a shell of the job's unit cannot have (a figure typed in the other unit, or a slipped
+ * decimal point), field by field, in words; the same bounds as a grade table's walls.
+ */
+export function implausibleWalls(input: ShellInput, unit: LengthUnit): Record<string, string[]> {
+  const { min, max } = PLAUSIBLE_WALL[unit];
+  const out: Record<string, string[]> = {};
+  for (const field of WALL_FIELDS) {
+    const v = input[field];
+    if (v != null && (v < min || v > max))
+      out[field] = [`A shell wall is between ${min} and ${max} ${unit}; check ${v} (the job is in ${unit})`];
+  }
+  return out;
+}
 
 /** A point is a main bearing ("main/3") or a rod's big end ("rod/5"). */
 export const bearingPointId = z.string().regex(/^(main|rod)\/[1-9]\d{0,1}$/, "A point is main/<n> or rod/<n>");

@@ -76,6 +76,13 @@ describe("/api/jobs/[jobId]/bearings", () => {
       [standard({ wallSource: "measured", wall: null, wallUpper: 0.0621 }), "wallLower"],
       [standard({ halvesUpper: -1 }), "halvesUpper"],
       [standard({ wall: 0.00000001 }), "wall"],
+      // A wall in mm typed into an inch job, and a slipped decimal point: a shell wall of an
+      // engine bearing is a few hundredths of an inch (from memory: about 0.06 in / 1.5 mm).
+      [standard({ wall: 1.5 }), "wall"],
+      [
+        standard({ wallSource: "measured", wall: null, wallUpper: 0.0062, wallLower: 0.0621, wallGaugeId: 1 }),
+        "wallUpper",
+      ],
     ];
     for (const [body, field] of cases) {
       const res = await post(a.users.lead, a.job.id, body);

@@ -1,6 +1,6 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import type { ShellInput } from "@/lib/schemas/bearings";
+import { implausibleWalls, type ShellInput } from "@/lib/schemas/bearings";
 import type { Actor } from "@/lib/schemas/session";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError } from "@/lib/server/core/errors";
@@ -56,9 +56,15 @@ async function editableJob(t: Transaction, actor: Actor, jobId: number) {
   return job;
 }
 
+function checkWalls(input: ShellInput, unit: "in" | "mm") {
+  const fields = implausibleWalls(input, unit);
+  if (Object.keys(fields).length) throw new AppError("invalid", "Some fields need fixing", fields);
+}
+
 export async function addShell(actor: Actor, jobId: number, input: ShellInput): Promise<number> {
   return getSequelize().transaction(async (t) => {
     const job = await editableJob(t, actor, jobId);
+    checkWalls(input, job.unitSystem);
     await checkGauge(t, actor.shopId, input.wallGaugeId);
     const row = await insertShell(t, actor.shopId, jobId, fieldsOf(input, job.unitSystem));
     await recordAudit(t, {
@@ -77,6 +83,7 @@ export async function editShell(actor: Actor, jobId: number, shellId: number, in
   await getSequelize().transaction(async (t) => {
     const job = await editableJob(t, actor, jobId);
     const before = await getShellOrThrow(t, actor.shopId, jobId, shellId);
+    checkWalls(input, job.unitSystem);
     await checkGauge(t, actor.shopId, input.wallGaugeId);
     const fields = fieldsOf(input, job.unitSystem);
     await updateShell(t, shellId, fields);
