@@ -2,8 +2,8 @@
 // every station of a small-block V8's route with a plausible value near the demo spec sheet's
 // nominal (lib/../scripts/seed/demo-specs.ts STREET_V8_INCH), a few percent of them out of spec.
 import { randomUUID } from "node:crypto";
-import type { EngineShape } from "@/lib/domain";
-import { benchRoute } from "@/lib/domain";
+import type { EngineShape, RangedGauge } from "@/lib/domain";
+import { benchRoute, gaugesHolding } from "@/lib/domain";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 
 export const V8: EngineShape = {
@@ -54,22 +54,34 @@ export function valueFor(stationId: string, rnd: () => number): number {
   return Number((centre + loaded + stray + (rnd() * 2 - 1) * spread).toFixed(decimals));
 }
 
-/** One full route per job, in bench order; `count` readings in all. */
-export function benchReadings(jobIds: number[], count: number, takenAt: string): PushReadingInput[] {
+/**
+ * One full route per job, in bench order; `count` readings in all. With `gauges`, each reading
+ * names the first that can take it (as the ingest asks) and a station none can take is passed over.
+ */
+export function benchReadings(
+  jobIds: number[],
+  count: number,
+  takenAt: string,
+  gauges?: readonly (RangedGauge & { id: number })[],
+): PushReadingInput[] {
   const rnd = lcg(2611);
   const stations = benchRoute(V8).sections.flatMap((s) => s.stations);
   const out: PushReadingInput[] = [];
   for (const jobId of jobIds) {
     for (const st of stations) {
       if (out.length === count) return out;
+      const value = valueFor(st.id, rnd);
+      const gauge = gauges && gaugesHolding({ stationId: st.id, value, unit: st.unit }, gauges)[0];
+      if (gauges && !gauge) continue;
       out.push({
         id: randomUUID(),
         jobId,
         stationId: st.id,
-        value: valueFor(st.id, rnd),
+        value,
         unit: st.unit,
         entryMode: "direct",
         takenAt,
+        ...(gauge ? { instrumentId: gauge.id } : {}),
         ...(st.torque ? { lubricant: "engine-oil" as const } : {}),
       });
     }
