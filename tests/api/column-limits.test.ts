@@ -10,6 +10,8 @@ import { POST as NEW_GAUGE } from "@/app/api/instruments/route";
 import { POST as NEW_SHEET } from "@/app/api/specs/route";
 import { POST as DISPOSE } from "@/app/api/flags/[flagId]/disposition/route";
 import { POST as SYNC } from "@/app/api/sync/route";
+import { POST as NEW_SHELLS } from "@/app/api/jobs/[jobId]/bearings/shells/route";
+import { PUT as HOUSINGS } from "@/app/api/jobs/[jobId]/bearings/housings/route";
 import { Flag } from "@/models";
 import { createShop, type TestShop, type TestUser } from "../support/factories";
 import { asUser, call } from "../support/requests";
@@ -95,6 +97,7 @@ const sheet = () => ({
 
 type Route = {
   handler: unknown;
+  method?: "POST" | "PUT";
   url: string;
   body: () => Record<string, unknown>;
   params?: () => Record<string, string>;
@@ -105,11 +108,39 @@ const decision = (body: Record<string, unknown>): Route => ({
   body: () => ({ ...body }),
   params: () => ({ flagId: String(flagId) }),
 });
+// A set of standard main shells with the maker's nominal wall, in the test job's inches.
+const shells = () => ({
+  series: "House brand mains",
+  role: "main",
+  step: "standard",
+  grade: null,
+  wallSource: "nominal",
+  wall: 0.0905,
+  halvesUpper: 5,
+  halvesLower: 5,
+});
+const housings = () => ({
+  points: [{ point: "main/1", housingBore: 2.6405, housingGaugeId: null, housingCode: "A", journalCode: "1" }],
+});
+const onJob = () => ({ jobId: String(a.job.id) });
 const ROUTES: Record<string, Route> = {
   "POST /api/jobs": { handler: NEW_JOB, url: "/api/jobs", body: job },
   "POST /api/customers": { handler: NEW_CUSTOMER, url: "/api/customers", body: customer },
   "POST /api/instruments": { handler: NEW_GAUGE, url: "/api/instruments", body: gauge },
   "POST /api/specs": { handler: NEW_SHEET, url: "/api/specs", body: sheet },
+  "POST /api/jobs/:id/bearings/shells": {
+    handler: NEW_SHELLS,
+    url: "/api/jobs/0/bearings/shells",
+    body: shells,
+    params: onJob,
+  },
+  "PUT /api/jobs/:id/bearings/housings": {
+    handler: HOUSINGS,
+    method: "PUT",
+    url: "/api/jobs/0/bearings/housings",
+    body: housings,
+    params: onJob,
+  },
   "POST /api/flags/:id/disposition (accept)": decision({ kind: "accept", reason: "Within the maker's service limit" }),
   "POST /api/flags/:id/disposition (machine again)": decision({ kind: "machine_again", operation: "hone" }),
   "POST /api/flags/:id/disposition (measure again)": decision({ kind: "measure_again", note: "" }),
@@ -166,6 +197,12 @@ const PAST: [string, string, unknown, string][] = [
   ["POST /api/specs", "limits.0.label", long(121), "spec_limits.label VARCHAR(120)"],
   ["POST /api/specs", "limits.0.nominal", 4.0300001, "spec_limits.nominal DECIMAL(14,6): 6 places"],
   ["POST /api/specs", "limits.0.tolPlus", 0.00040001, "spec_limits.tol_plus DECIMAL(14,6): 6 places"],
+  ["POST /api/jobs/:id/bearings/shells", "series", long(81), "bearing_shells.series VARCHAR(80)"],
+  ["POST /api/jobs/:id/bearings/shells", "grade", long(25), "bearing_shells.grade VARCHAR(24)"],
+  ["POST /api/jobs/:id/bearings/shells", "wall", 0.0905001, "bearing_shells.wall DECIMAL(10,6): 6 places"],
+  ["POST /api/jobs/:id/bearings/shells", "halvesUpper", 100_000, "bearing_shells.halves_upper INT (count)"],
+  ["PUT /api/jobs/:id/bearings/housings", "points.0.housingBore", 2.6405001, "bearing_points.housing_bore: 6 places"],
+  ["PUT /api/jobs/:id/bearings/housings", "points.0.housingCode", long(17), "bearing_points.housing_code VARCHAR(16)"],
   ["POST /api/flags/:id/disposition (accept)", "reason", PAST_TEXT, "flag_dispositions.reason TEXT"],
   [
     "POST /api/flags/:id/disposition (machine again)",
@@ -181,7 +218,7 @@ describe("fields past their column are refused by the schema, naming the field",
   it.each(PAST)("%s %s (%#)", async (route, path, value, column) => {
     const r = ROUTES[route];
     const by = (BY[route] ?? ((s: TestShop) => s.users.lead))(a);
-    const req = await asUser(by, "POST", r.url, withValue(r.body(), path, value));
+    const req = await asUser(by, r.method ?? "POST", r.url, withValue(r.body(), path, value));
     const res = await call(r.handler as never, req, r.params?.());
     expect({ column, status: res.status }).toEqual({ column, status: 422 });
     expect(Object.keys(res.body.error.fields ?? {})).toContain(path);
@@ -193,7 +230,7 @@ describe("fields past their column are refused by the schema, naming the field",
   );
   it.each(BASES)("%s takes the unchanged body (the table's base is valid)", async (route, r) => {
     const by = (BY[route] ?? ((s: TestShop) => s.users.lead))(a);
-    const res = await call(r.handler as never, await asUser(by, "POST", r.url, r.body()), r.params?.());
+    const res = await call(r.handler as never, await asUser(by, r.method ?? "POST", r.url, r.body()), r.params?.());
     const ok = res.status === 200 || res.status === 201;
     expect({ route, ok, body: ok ? null : res.body }).toEqual({ route, ok: true, body: null });
   });
