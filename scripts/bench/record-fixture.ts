@@ -16,7 +16,7 @@ import { instrumentInfo, storedEvaluation, toRaw } from "@/lib/server/sync/inges
 import { makeThumbnail } from "@/lib/server/uploads/content";
 import type { JsonValue } from "@/lib/schemas/json";
 import type { StoredReading } from "@/lib/schemas/readings";
-import type { BuildRecord, PhotoLine } from "@/lib/schemas/record";
+import type { BearingRecordLine, BuildRecord, PhotoLine } from "@/lib/schemas/record";
 import { DEMO_GAUGES } from "../seed/demo-gauges";
 import { STREET_V8_INCH } from "../seed/demo-specs";
 import { benchReadings, V8 } from "./sync-readings";
@@ -183,6 +183,29 @@ async function photos(current: StoredReading[]): Promise<{ photos: PhotoLine[]; 
   return { photos: lines, byReading };
 }
 
+// The bearing section of a V8: five mains and eight rods, halves chosen by the selection, the
+// clearance predicted beside the one measured once installed (invented bench figures).
+const shellPair = (set: string, role: "main" | "rod") =>
+  role === "main"
+    ? { upper: `${set}, upper (block side)`, lower: `${set}, lower (cap side)` }
+    : { upper: `${set}, upper (rod side)`, lower: `${set}, lower (cap side)` };
+const bearings: BearingRecordLine[] = [
+  ...[22, 21, 23, 22, 24].map((c, i) => ({
+    point: `Main ${i + 1}${i === 2 ? " (thrust)" : ""}`,
+    ...shellPair(i === 2 ? "Bench thrust, standard" : "Bench mains, standard", "main"),
+    predicted: `0.00${c} in ± 0.0003 in, in spec`,
+    measured: `0.00${c + (i % 2)} in`,
+    difference: i % 2 ? "+0.0001 in" : "0.0000 in",
+  })),
+  ...[20, 21, 19, 20, 22, 20, 21, 20].map((c, i) => ({
+    point: `Rod ${i + 1}`,
+    ...shellPair(i === 2 ? "Bench rods, 0.001 in thicker" : "Bench rods, standard", "rod"),
+    predicted: `0.00${c} in ± 0.0003 in, in spec`,
+    measured: `0.00${c} in`,
+    difference: "0.0000 in",
+  })),
+];
+
 export type RecordFixture = { build(now?: Date): BuildRecord; stations: number; photos: number };
 
 /** The fixture, built once; build() assembles a fresh BuildRecord (as each download does). */
@@ -249,7 +272,7 @@ export async function fullV8Record(): Promise<RecordFixture> {
   const pics = await photos([...currentReadings(rows).values()]);
   return {
     build: (now?: Date) =>
-      assembleBuildRecord({ record, parties: PARTIES, releases: [release], names, photos: pics, now }),
+      assembleBuildRecord({ record, parties: PARTIES, releases: [release], names, photos: pics, bearings, now }),
     stations: rows.length,
     photos: pics.photos.length,
   };
