@@ -8,7 +8,14 @@ import { clearanceWords, differenceWords, setName } from "@/lib/schemas/bearing-
 // One bearing point in a row: what was measured, its housing bore (typed here), its window, the
 // halves chosen (by the selection or by hand), the predicted clearance, and the measured one.
 
-export type HousingDraft = { housingBore: string; housingGaugeId: string; thrust: boolean };
+export type HousingDraft = {
+  housingBore: string;
+  housingGaugeId: string;
+  thrust: boolean;
+  /** The maker's grade marks stamped on the block or cap and on the crank, as read (a grade table's codes). */
+  housingCode: string;
+  journalCode: string;
+};
 
 const cell = "flex flex-col gap-1";
 const ROW = [
@@ -20,6 +27,33 @@ const input = "min-h-11 w-full rounded-tool border-2 border-rule bg-paper px-2 f
 
 function Figure({ value, unit }: { value: number | null | undefined; unit: LengthUnit }) {
   return <span className="font-mono tabular">{value == null ? "—" : lengthWords(value, unit)}</span>;
+}
+
+/** A grade mark as stamped (a number, a letter or a colour), kept to the column's 16 characters. */
+function Mark(props: {
+  what: string;
+  point: PointView;
+  value: string;
+  disabled: boolean;
+  onChange: (v: string) => void;
+}) {
+  const id = `${props.what.split(" ")[0].toLowerCase()}-mark-${props.point.point}`;
+  return (
+    <span className={cell}>
+      <label className={label} htmlFor={id}>
+        {props.what}
+      </label>
+      <input
+        id={id}
+        className={input}
+        maxLength={16}
+        autoComplete="off"
+        disabled={props.disabled}
+        value={props.value}
+        onChange={(e) => props.onChange(e.target.value)}
+      />
+    </span>
+  );
 }
 
 export function BearingPointRow(props: {
@@ -119,6 +153,22 @@ export function BearingPointRow(props: {
             </option>
           ))}
         </select>
+        <div className="grid grid-cols-2 gap-2">
+          <Mark
+            what="Housing mark"
+            value={draft.housingCode}
+            disabled={locked}
+            point={p}
+            onChange={(v) => onDraft({ ...draft, housingCode: v })}
+          />
+          <Mark
+            what="Journal mark"
+            value={draft.journalCode}
+            disabled={locked}
+            point={p}
+            onChange={(v) => onDraft({ ...draft, journalCode: v })}
+          />
+        </div>
       </div>
       <div className={cell}>
         <span className={label}>Upper half ({role === "rod" ? "rod side" : "block side"})</span>

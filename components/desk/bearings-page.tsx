@@ -26,6 +26,8 @@ const draftsOf = (v: BearingsView): Record<string, HousingDraft> =>
         housingBore: p.housingBore?.toString() ?? "",
         housingGaugeId: p.housingGaugeId?.toString() ?? "",
         thrust: p.thrust,
+        housingCode: p.housingCode ?? "",
+        journalCode: p.journalCode ?? "",
       },
     ]),
   );
@@ -76,6 +78,8 @@ function Loaded({ view }: { view: BearingsView }) {
               housingBore: bore === "" ? null : Number(bore),
               housingGaugeId: d.housingGaugeId ? Number(d.housingGaugeId) : null,
               thrust: d.thrust,
+              housingCode: d.housingCode.trim() || null,
+              journalCode: d.journalCode.trim() || null,
             };
           }),
         },
