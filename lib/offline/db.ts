@@ -8,6 +8,7 @@ import type { EntryMode, Lubricant, MeasureUnit, Verdict } from "@/lib/domain";
 import type { AttachmentOwnerType } from "@/lib/schemas/enums";
 import type { FieldErrors } from "@/lib/schemas/errors";
 import type { JobPack, RejectCode } from "@/lib/schemas/sync";
+import type { StudyDraft } from "./study-draft-shape";
 
 export type SyncState = "pending" | "synced" | "rejected";
 
@@ -90,12 +91,23 @@ export interface MetaRow {
   value: unknown;
 }
 
+/** A gauge study in progress, one per person and kind (lib/offline/study-drafts.ts). */
+export interface StudyDraftRow {
+  /** `${userId}:${kind}`. */
+  id: string;
+  userId: number;
+  draft: StudyDraft;
+  startedAt: string;
+  updatedAt: string;
+}
+
 export class BenchDb extends Dexie {
   jobs!: EntityTable<JobRow, "jobId">;
   readings!: EntityTable<LocalReading, "id">;
   outbox!: EntityTable<OutboxRow, "readingId">;
   photos!: EntityTable<PhotoRow, "id">;
   meta!: EntityTable<MetaRow, "key">;
+  studyDrafts!: EntityTable<StudyDraftRow, "id">;
 
   constructor(name = "tenthwise-bench") {
     // No optimistic live-query cache: it re-evaluates every watched query inside each write,
@@ -116,6 +128,8 @@ export class BenchDb extends Dexie {
       outbox: "readingId, takenBy",
       photos: "id, jobId, state",
     });
+    // Gauge studies in progress, kept per person so a shared tablet's sign-out keeps each one's run.
+    this.version(3).stores({ studyDrafts: "id, userId" });
   }
 }
 
