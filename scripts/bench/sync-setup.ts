@@ -9,12 +9,11 @@ import { appOrigin } from "@/lib/server/core/origin";
 import { SESSION_COOKIE } from "@/lib/server/core/session";
 import { openSession } from "@/lib/server/sessions/lifecycle";
 import { setSqlTrace } from "@/lib/server/core/sql-driver";
-import { Customer, Engine, Instrument, Job, JobLimit, Shop, User } from "@/models";
-import type { RangedGauge } from "@/lib/domain";
+import { Customer, Engine, Job, JobLimit, Shop, User } from "@/models";
 import { READING_COLUMNS } from "@/lib/schemas/readings";
 import type { PushReadingInput } from "@/lib/schemas/sync";
 import { STREET_V8_INCH } from "../seed/demo-specs";
-import { DEMO_GAUGES } from "../seed/demo-gauges";
+import { createDemoGauges } from "./bench-gauges";
 
 const COLUMNS = [...Object.values(READING_COLUMNS), "created_at", "updated_at"];
 type Row = Record<string, unknown>;
@@ -64,15 +63,7 @@ async function fixture(jobs: number) {
     await JobLimit.bulkCreate(STREET_V8_INCH.map((l, k) => ({ ...l, jobId: job.id, sortOrder: k })) as never[]);
     jobIds.push(job.id);
   }
-  // The demo's gauges: every reading names one whose kind and range suit it, as the ingest asks.
-  // All in calibration here (the demo keeps one past due to show its flag; the bench measures the
-  // ordinary path, not a flag on every reading of that gauge).
-  const gauges: (RangedGauge & { id: number })[] = [];
-  for (const { key, ...g } of DEMO_GAUGES) {
-    const made = await Instrument.create({ shopId: shop.id, ...g, calibrationDue: "2099-12-31" } as never);
-    gauges.push({ ...g, id: made.get("id") as number, active: true } as RangedGauge & { id: number });
-    void key;
-  }
+  const gauges = await createDemoGauges(shop.id);
   const cookie = `${SESSION_COOKIE}=${(await openSession({ id: user.id, shopId: shop.id, role: "machinist", name: user.name })).cookie}`;
   return { jobIds, cookie, gauges };
 }

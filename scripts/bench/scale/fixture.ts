@@ -1,14 +1,14 @@
 // The shops of the scaled history (benchmark data only, invented names): each with its people
 // (one per office role and three machinists), forty customers, and the V8 jobs' engine and
 // limits made the way sync-setup.ts makes them (the demo street spec sheet, copied per job), and
-// the demo's gauges (every reading names one whose kind and range suit it, as the ingest asks).
+// the demo's gauges, all in calibration (every reading names one whose kind and range suit it).
 import bcrypt from "bcryptjs";
-import { Customer, Engine, Instrument, Job, JobLimit, Shop, User } from "@/models";
-import { gaugesHolding, type RangedGauge } from "@/lib/domain";
+import { Customer, Engine, Job, JobLimit, Shop, User } from "@/models";
+import { gaugesHolding } from "@/lib/domain";
 import type { Actor } from "@/lib/schemas/session";
 import type { Role } from "@/lib/schemas/enums";
 import { STREET_V8_INCH } from "../../seed/demo-specs";
-import { DEMO_GAUGES } from "../../seed/demo-gauges";
+import { createDemoGauges, type BenchGauge } from "../bench-gauges";
 
 /** Every bench person's password (the HTTP part of bench:scale signs in with it). */
 export const BENCH_PASSWORD = "bench-scale-pass-2026";
@@ -16,7 +16,6 @@ const HASH = bcrypt.hashSync(BENCH_PASSWORD, 8);
 const ROLES: Role[] = ["machinist", "machinist", "machinist", "lead", "inspector", "admin"];
 const CUSTOMERS = 40;
 
-export type BenchGauge = RangedGauge & { id: number };
 export type BenchShop = { id: number; people: Actor[]; customerIds: number[]; gauges: BenchGauge[] };
 
 export const benchEmail = (shop: number, role: Role, n = 0) => `${role}${n || ""}@shop-${shop}.bench.example`;
@@ -41,12 +40,7 @@ export async function createShops(count: number, from = 1): Promise<BenchShop[]>
     const customers = await Customer.bulkCreate(
       Array.from({ length: CUSTOMERS }, (_, i) => ({ shopId: shop.id, name: `Customer ${i + 1} of shop ${s}` })),
     );
-    const gauges: BenchGauge[] = [];
-    for (const { key, ...g } of DEMO_GAUGES) {
-      const made = await Instrument.create({ shopId: shop.id, ...g } as never);
-      gauges.push({ ...g, id: made.get("id") as number, active: true } as BenchGauge);
-      void key;
-    }
+    const gauges = await createDemoGauges(shop.id);
     shops.push({ id: shop.id, people, customerIds: customers.map((c) => c.id), gauges });
   }
   return shops;

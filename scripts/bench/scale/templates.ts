@@ -8,8 +8,8 @@ import type { Actor } from "@/lib/schemas/session";
 import type { DispositionInput } from "@/lib/schemas/flag";
 import { ingestBatch } from "@/lib/server/sync/ingest";
 import { disposeFlag } from "@/lib/server/flags/disposition";
-import { lcg } from "../sync-readings";
-import { figureFor, isMachined, passes, type GaugePick, type Variant } from "./variants";
+import { lcg, valueFor } from "../sync-readings";
+import { isMachined, passes, type GaugePick, type Variant } from "./variants";
 
 const BATCH = 100;
 export const BENCH_DEVICE = "bench-tablet-1";
@@ -65,7 +65,7 @@ export async function runVariant(conn: Connection, actors: ShopActors, jobId: nu
     const retaken = first.filter((r) => again.includes(r.stationId));
     const remeasured = retaken.map((earlier, i) => {
       const stationId = earlier.stationId;
-      const value = figureFor(stationId, rnd);
+      const value = valueFor(stationId, rnd);
       return {
         ...earlier,
         id: crypto.randomUUID(),

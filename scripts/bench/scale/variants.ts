@@ -56,18 +56,6 @@ export function statusAt(k: number, n: number): JobStatus {
 
 const ROUTE = benchRoute(V8).sections.flatMap((s) => s.stations);
 
-/**
- * bench:sync's figures, with rod bolts 2.1 in long (its 6 in bolts are past the demo stretch
- * gauge's 0.5–6 in range, and every reading here names a gauge that holds it).
- */
-export function figureFor(stationId: string, rnd: () => number): number {
-  const v = valueFor(stationId, rnd);
-  if (stationId.startsWith("bolt/")) return Number((v - 3.9).toFixed(4));
-  // An oil ring's wide gap stays within the demo feeler set (to 0.04 in).
-  if (/^ring-gap\/.*\/oil$/.test(stationId)) return Math.min(v, 0.039);
-  return v;
-}
-
 /** The gauge a reading names (of the job's shop, suited to the station and value). */
 export type GaugePick = (stationId: string, value: number, unit: string) => number;
 
@@ -108,7 +96,7 @@ export function passes(
   const secondStations = v.secondPass ? ROUTE.filter((s) => MACHINED.test(s.id)) : [];
   let at = endAt - (firstStations.length + secondStations.length + 1) * STEP_MS;
   const take = (st: (typeof ROUTE)[number]) =>
-    input(jobId, st.id, st.unit, figureFor(st.id, rnd), st.torque, (at += STEP_MS), gauge);
+    input(jobId, st.id, st.unit, valueFor(st.id, rnd), st.torque, (at += STEP_MS), gauge);
   return { first: firstStations.map(take), second: secondStations.map(take) };
 }
 
