@@ -34,10 +34,13 @@ const DOMAIN_ONLY = [
 ];
 
 // A feature folder inside the core (lib/domain/bearings/) may also reach the core's own files one level up.
+// Gauge studies (lib/domain/gauge-studies/) also take Student's t and F distributions from @stdlib (pure, typed).
 const DOMAIN_FEATURE_ONLY = [
   {
-    regex: "^(?!\\./|\\.\\./(?!\\.\\.)|decimal\\.js-light$)",
-    message: "lib/domain is the pure core: a feature folder imports only the core's files (and decimal.js-light).",
+    regex: "^(?!\\./|\\.\\./(?!\\.\\.)|decimal\\.js-light$|@stdlib/stats-base-dists-(t|f)-cdf$)",
+    message:
+      "lib/domain is the pure core: a feature folder imports only the core's files " +
+      "(and decimal.js-light, @stdlib's t and F distributions).",
   },
 ];
 

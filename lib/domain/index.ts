@@ -35,3 +35,4 @@ export * from "./reach";
 export * from "./words";
 export * from "./bearings";
 export * from "./bearing-points";
+export * from "./gauge-studies";

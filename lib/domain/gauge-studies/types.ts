@@ -43,8 +43,9 @@ export interface Type1Input {
 export interface CharacteristicCapability {
   characteristic: string;
   tolerance: number;
-  cg: number;
-  cgk: number;
+  /** Null when the readings showed no spread (every one the same): nothing to divide by. */
+  cg: number | null;
+  cgk: number | null;
   resolutionPct: number;
   resolutionOk: boolean;
   pass: boolean;
@@ -56,11 +57,13 @@ export interface Type1Result {
   mean: number;
   sd: number;
   bias: number;
-  /** Student's t of the bias (n − 1 degrees of freedom) and its two-sided p-value. */
-  t: number;
-  pValue: number;
-  /** True when the bias differs from zero at the 5 % level. */
+  /** Student's t of the bias (n − 1 degrees of freedom) and its two-sided p-value; null when s = 0. */
+  t: number | null;
+  pValue: number | null;
+  /** True when the bias differs from zero at the 5 % level (with s = 0: when there is any bias). */
   biasSignificant: boolean;
+  /** Words about the run as a whole (no spread seen, a significant bias), for the screen. */
+  notes: string[];
   perCharacteristic: CharacteristicCapability[];
 }
 

@@ -1,0 +1,11 @@
+// jstat ships no types; the tests use it only to cross-check the core's statistics.
+declare module "jstat" {
+  interface JStat {
+    tscore(value: number, data: readonly number[]): number;
+    ttest(value: number, data: readonly number[], sides: 1 | 2): number;
+    centralF: { cdf(x: number, df1: number, df2: number): number };
+    studentt: { cdf(x: number, df: number): number };
+  }
+  const jStat: JStat;
+  export default jStat;
+}
