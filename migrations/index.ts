@@ -28,6 +28,7 @@ import * as addSyncChangesSeq from "./20261204020000-add-sync-changes-seq";
 import * as createJobProgress from "./20261204050000-create-job-progress";
 import * as addReleasesRecordFile from "./20261204060000-add-releases-record-file";
 import * as createBearingTables from "./20261204080000-create-bearing-tables";
+import * as createGaugeStudies from "./20261205030000-create-gauge-studies";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
 export type Migration = { name: string; up: Step; down: Step };
@@ -64,6 +65,7 @@ export const migrations: Migration[] = [
   step("20261204050000-create-job-progress", createJobProgress),
   step("20261204060000-add-releases-record-file", addReleasesRecordFile),
   step("20261204080000-create-bearing-tables", createBearingTables),
+  step("20261205030000-create-gauge-studies", createGaugeStudies),
 ];
 
 /** Every table the migrations create, for tests and tooling that check the schema. */
@@ -93,4 +95,5 @@ export const MIGRATED_TABLES = [
   "bearing_shells",
   "bearing_points",
   "bearing_grade_tables",
+  "gauge_studies",
 ] as const;

@@ -8,6 +8,7 @@ import { Customer } from "./customer";
 import { Engine } from "./engine";
 import { Flag } from "./flag";
 import { FlagDisposition } from "./flag-disposition";
+import { GaugeStudy } from "./gauge-study";
 import { Instrument } from "./instrument";
 import { Job } from "./job";
 import { JobLimit } from "./job-limit";
@@ -70,6 +71,8 @@ function associateReadings(): void {
   Reading.hasMany(Reading, { ...off, as: "corrections", foreignKey: "supersedes" });
   Instrument.belongsTo(Attachment, { ...off, as: "certificate", foreignKey: "certificateAttachmentId" });
   Attachment.belongsTo(User, { ...off, as: "uploader", foreignKey: "uploadedBy" });
+  GaugeStudy.belongsTo(Instrument, { ...off, as: "instrument", foreignKey: "instrumentId" });
+  GaugeStudy.belongsTo(User, { ...off, as: "performer", foreignKey: "performedBy" });
 }
 
 function associateFlags(): void {

@@ -25,6 +25,7 @@ import { BearingShell, initBearingShell } from "./bearing-shell";
 import { Customer, initCustomer } from "./customer";
 import { Engine, initEngine } from "./engine";
 import { Flag, initFlag } from "./flag";
+import { GaugeStudy, initGaugeStudy } from "./gauge-study";
 import { FlagDisposition, initFlagDisposition } from "./flag-disposition";
 import { Instrument, initInstrument } from "./instrument";
 import { Job, initJob } from "./job";
@@ -51,6 +52,7 @@ export {
   Engine,
   Flag,
   FlagDisposition,
+  GaugeStudy,
   Instrument,
   Job,
   JobLimit,
@@ -91,6 +93,7 @@ const INITIALISERS = [
   initBearingShell,
   initBearingPoint,
   initBearingGradeTable,
+  initGaugeStudy,
 ];
 
 let boundTo: Sequelize | null = null;

@@ -32,6 +32,10 @@ export class Instrument extends Model<InferAttributes<Instrument>, InferCreation
   /** Dial bore gauge sign convention: true when a plus reading means a smaller bore. */
   declare dialPlusMeansSmaller: CreationOptional<boolean>;
   declare active: CreationOptional<boolean>;
+  /** The setting master a repeatability study measures: its name, size and expanded U (k = 2), in `unit`. */
+  declare masterLabel: CreationOptional<string | null>;
+  declare masterSize: CreationOptional<number | null>;
+  declare masterU: CreationOptional<number | null>;
   declare certificateAttachmentId: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -57,6 +61,9 @@ export function initInstrument(sequelize: Sequelize): void {
       calibrationDue: dateOnly(),
       dialPlusMeansSmaller: bool(true),
       active: bool(true),
+      masterLabel: str(120, true),
+      masterSize: decimal("masterSize", 12, 6),
+      masterU: { ...decimal("masterU", 12, 6), field: "master_u" },
       certificateAttachmentId: ref(true, DataTypes.CHAR(36)),
       ...stamps(),
     },

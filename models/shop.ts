@@ -6,7 +6,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from "sequelize";
-import { datetime, enumOf, intId, modelOptions, stamps, str, text } from "./columns";
+import { datetime, decimal, enumOf, int, intId, modelOptions, stamps, str, text } from "./columns";
 import type { User } from "./user";
 import { GUARD_BAND_POLICIES, UNIT_SYSTEMS, type GuardBandPolicy, type UnitSystem } from "@/lib/schemas/enums";
 
@@ -25,6 +25,12 @@ export class Shop extends Model<InferAttributes<Shop>, InferCreationAttributes<S
    * shop made any other way (the command, the demo, tests) is open from the start.
    */
   declare activatedAt: CreationOptional<Date | null>;
+  /** Gauge study thresholds (defaults: common practice), applied to studies saved after a change. */
+  declare studyMinCg: CreationOptional<number>;
+  declare studyMinCgk: CreationOptional<number>;
+  declare studyMaxResolutionPct: CreationOptional<number>;
+  declare studyMaxGrrPct: CreationOptional<number>;
+  declare studyValidMonths: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -43,6 +49,11 @@ export function initShop(sequelize: Sequelize): void {
       phone: str(40, true),
       address: text(),
       activatedAt: datetime(true, true),
+      studyMinCg: { ...decimal("studyMinCg", 4, 2, false), defaultValue: 1.33 },
+      studyMinCgk: { ...decimal("studyMinCgk", 4, 2, false), defaultValue: 1.33 },
+      studyMaxResolutionPct: { ...decimal("studyMaxResolutionPct", 5, 2, false), defaultValue: 5 },
+      studyMaxGrrPct: { ...decimal("studyMaxGrrPct", 5, 2, false), defaultValue: 30 },
+      studyValidMonths: int(12),
       ...stamps(),
     },
     modelOptions(sequelize, "shops", "both"),

@@ -56,3 +56,7 @@ export type AttachmentOwnerType = (typeof ATTACHMENT_OWNER_TYPES)[number];
 
 export const SYNC_ENTITIES = ["reading", "flag", "job_limits", "job"] as const;
 export type SyncEntity = (typeof SYNC_ENTITIES)[number];
+
+/** A gauge study's kind: a repeatability study on a reference ("type 1"), or an R&R study across people. */
+export const STUDY_KINDS = ["type1", "grr"] as const;
+export type StudyKind = (typeof STUDY_KINDS)[number];

@@ -30,7 +30,7 @@ const T0 = Date.UTC(2026, 10, 30, 8, 0);
 
 function instruments(): InstrumentRow[] {
   const when = new Date(T0);
-  return DEMO_GAUGES.filter((g) => g.unit === "in" || g.unit === "lbf_ft").map((g, i) => ({
+  return DEMO_GAUGES.filter((g) => g.unit === "in" || g.unit === "lbf_ft").map(({ master, ...g }, i) => ({
     ...g,
     id: i + 1,
     shopId: SHOP_ID,
@@ -38,6 +38,9 @@ function instruments(): InstrumentRow[] {
     dialPlusMeansSmaller: true,
     active: true,
     certificateAttachmentId: null,
+    masterLabel: master?.label ?? null,
+    masterSize: master?.size ?? null,
+    masterU: master?.expandedU ?? null,
     createdAt: when,
     updatedAt: when,
   }));

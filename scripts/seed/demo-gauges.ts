@@ -16,6 +16,8 @@ type DemoGauge = {
   rangeMax: number;
   calibratedOn: string;
   calibrationDue: string;
+  /** The setting master a repeatability study of this gauge measures (invented figures, U at k = 2). */
+  master?: { label: string; size: number; expandedU: number };
 };
 
 const year = (from: string) => ({
@@ -66,6 +68,10 @@ export const DEMO_GAUGES: DemoGauge[] = [
     rangeMax: 6,
     calibratedOn: "2026-03-02",
     calibrationDue: "2026-12-15",
+    // Its setting ring, which a repeatability study measures. KF-2611's bores read 4.0302 in, 0.0002 in
+    // inside the upper limit: a study whose repeatability is worse than the certificate's U widens the
+    // guard band past them, so they turn marginal.
+    master: { label: "Setting ring 4.0300 in, KF-SR-40", size: 4.03, expandedU: 0.00005 },
   },
   {
     key: "boreMm",
@@ -166,3 +172,13 @@ export const DEMO_GAUGES: DemoGauge[] = [
     ...year("2026-02-10"),
   },
 ];
+
+/** A demo gauge as the instruments table keeps it (the setting master in its own columns). */
+export function demoGaugeRow({ key: _key, master, ...g }: DemoGauge) {
+  return {
+    ...g,
+    masterLabel: master?.label ?? null,
+    masterSize: master?.size ?? null,
+    masterU: master?.expandedU ?? null,
+  };
+}

@@ -5,7 +5,7 @@ import { readFileSync } from "node:fs";
 import type { Role, UnitSystem } from "@/lib/schemas/enums";
 import { models } from "@/lib/server/core/db";
 import { BCRYPT_COST } from "@/lib/server/passwords/hash";
-import { DEMO_GAUGES } from "./demo-gauges";
+import { DEMO_GAUGES, demoGaugeRow } from "./demo-gauges";
 import { seedDemoReadings } from "./demo-readings";
 import { DEMO_SIZES, STREET_V8_INCH, TRACTOR_DIESEL_MM, VINTAGE_SIX_INCH } from "./demo-specs";
 
@@ -197,7 +197,8 @@ export async function seedDemo(): Promise<DemoContext> {
   };
 
   const instruments: Record<string, number> = {};
-  for (const { key, ...g } of DEMO_GAUGES) instruments[key] = (await Instrument.create({ shopId: shop.id, ...g })).id;
+  for (const g of DEMO_GAUGES)
+    instruments[g.key] = (await Instrument.create({ shopId: shop.id, ...demoGaugeRow(g) })).id;
 
   return seedDemoReadings({ shopId: shop.id, users, jobs, instruments });
 }

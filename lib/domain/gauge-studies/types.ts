@@ -129,6 +129,10 @@ export interface GaugeStudySummary {
   repeatSd: number;
   /** Bias against the reference (type 1 only; 0 for an R&R study). */
   bias: number;
+  /** σ_GRR of an R&R study (repeatability and reproducibility together); absent on a type 1 study. */
+  grrSd?: number;
+  /** The thresholds the study was judged by when it was saved (a later change applies to later studies). */
+  thresholds?: StudyThresholds;
 }
 
 /** One line of a gauge's uncertainty budget (JCGM 100 style): a standard uncertainty and where it came from. */

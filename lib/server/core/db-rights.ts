@@ -69,6 +69,8 @@ export const APP_TABLE_RIGHTS: Record<MigratedTable, readonly TableRight[]> = {
   bearing_shells: ["SELECT", "INSERT", "UPDATE", "DELETE"],
   bearing_points: ["SELECT", "INSERT", "UPDATE", "DELETE"],
   bearing_grade_tables: ["SELECT", "INSERT", "UPDATE", "DELETE"],
+  // A gauge study is a record of what was measured: kept as taken, never changed or deleted.
+  gauge_studies: ["SELECT", "INSERT"],
 };
 
 /** A MariaDB account: 'user'@'host'. */
