@@ -135,10 +135,23 @@ function prepare(reading: RawReading, engine: EngineShape): Prepared {
   };
 }
 
-// Keyed by the shape's JSON, not the object, so an edited engine never meets a stale route.
+// Keyed by the fields the route's station ids are made of (bench-route.ts STATION_IDS), not the
+// object, so an edited engine never meets a stale route; not its sizes and materials, which
+// made the key long enough to cost more than the lookup (bench:sync).
 const routeCache = new Map<string, Set<string>>();
 function routeIds(engine: EngineShape): Set<string> {
-  const key = JSON.stringify(engine);
+  const e = engine;
+  const key = JSON.stringify([
+    e.cylinders,
+    e.layout,
+    e.mains,
+    e.valvesPerCylinder,
+    e.boltsPerRod,
+    e.ringsPerPiston,
+    e.rodJournals,
+    e.rodJournalMap,
+    e.torqueGroups,
+  ]);
   let ids = routeCache.get(key);
   if (!ids) {
     if (routeCache.size > 50) routeCache.clear();

@@ -16,6 +16,7 @@ import {
   releasesWithoutMail,
   shopName,
   shopsWithFlagsSince,
+  type FeedCursors,
   type OpenJob,
 } from "@/lib/server/notify/repo";
 import { releaseChecklist } from "@/lib/server/release/checklist";
@@ -35,7 +36,7 @@ const ROUND_ROBIN_PER_PASS = 20;
 // Checklists are computed for at most this long per pass; the rest wait for the next pass.
 const CHECK_BUDGET_MS = 10_000;
 
-type PassState = { syncId: number | null; lastPassAt: Date | null; robin: number; backlog: OpenJob[] };
+type PassState = { feed: FeedCursors | null; lastPassAt: Date | null; robin: number; backlog: OpenJob[] };
 const memory = globalThis as unknown as { __tenthwiseNotifierState?: PassState };
 
 export type NotifierReport = {
@@ -107,7 +108,7 @@ async function readyFor(job: OpenJob): Promise<number> {
   return n;
 }
 
-const passState = () => (memory.__tenthwiseNotifierState ??= { syncId: null, lastPassAt: null, robin: 0, backlog: [] });
+const passState = () => (memory.__tenthwiseNotifierState ??= { feed: null, lastPassAt: null, robin: 0, backlog: [] });
 
 /**
  * Open jobs whose checklist may have turned complete: just changed first, then last pass's
@@ -117,9 +118,9 @@ async function jobsToCheck(startedAt: Date): Promise<OpenJob[]> {
   const st = passState();
   // A few seconds of overlap: a change committed while the last pass ran is not missed.
   const at = new Date((st.lastPassAt ?? new Date(startedAt.getTime() - DAY)).getTime() - 5000);
-  const changed = await changedOpenJobs({ syncId: st.syncId, at });
+  const changed = await changedOpenJobs({ feed: st.feed ?? null, at });
   const round = await openJobsAfter(st.robin, ROUND_ROBIN_PER_PASS);
-  Object.assign(st, { syncId: changed.syncId, lastPassAt: startedAt, robin: round.at(-1)?.id ?? 0 });
+  Object.assign(st, { feed: changed.feed, lastPassAt: startedAt, robin: round.at(-1)?.id ?? 0 });
   const byId = new Map([...changed.jobs, ...st.backlog, ...round].map((j) => [j.id, j]));
   return [...byId.values()];
 }

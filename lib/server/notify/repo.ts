@@ -124,27 +124,51 @@ const toOpenJob = (j: {
   specRevision: Number(j.spec_revision),
 });
 
+/** How far the notifier has read each shop's change feed: shop id → the last seq it read. */
+export type FeedCursors = ReadonlyMap<number, number>;
+
 /**
- * Open jobs (not released, closed or locked) touched since the cursor: a change in the sync feed
- * (readings, flags, limits) after `syncId`, or an edit of the job row (plan, status) since `at`.
- * With no cursor yet, feed changes since `at` count. Also returns the feed's newest id.
+ * Each shop's changes numbered after its cursor and up to its counter as read here: a counter
+ * value is seen only once every change numbered up to it has committed (migrations/20261204020000),
+ * so the ranges neither skip nor repeat a change. A shop with no cursor is new since: all of it.
+ */
+function feedRanges(counters: FeedCursors, cursors: FeedCursors) {
+  return [...counters].flatMap(([shopId, to]) => {
+    const from = cursors.get(shopId) ?? 0;
+    return to > from ? [{ shopId, from, to }] : [];
+  });
+}
+
+/**
+ * Open jobs (not released, closed or locked) touched since the cursors: a change in a shop's sync
+ * feed (readings, flags, limits) after its cursor, or an edit of the job row (plan, status) since
+ * `at`. With no cursors yet (the first pass), feed changes since `at` count. Also returns the
+ * cursors to pass next time.
  */
 export async function changedOpenJobs(since: {
-  syncId: number | null;
+  feed: FeedCursors | null;
   at: Date;
-}): Promise<{ jobs: OpenJob[]; syncId: number }> {
+}): Promise<{ jobs: OpenJob[]; feed: FeedCursors }> {
   const sequelize = getSequelize();
-  const [top] = await sequelize.query<{ m: number | null }>("SELECT MAX(id) AS m FROM sync_changes", {
-    type: QueryTypes.SELECT,
-  });
-  const feed = since.syncId === null ? "created_at >= :at" : "id > :syncId";
+  const counters = await sequelize.query<{ shop_id: number; seq: number | string }>(
+    "SELECT shop_id, seq FROM sync_sequences",
+    { type: QueryTypes.SELECT },
+  );
+  const feed = new Map(counters.map((c) => [Number(c.shop_id), Number(c.seq)]));
+  const ranges = since.feed ? feedRanges(feed, since.feed) : [];
+  const replacements: Record<string, unknown> = { at: since.at };
+  ranges.forEach((r, i) => Object.assign(replacements, { [`s${i}`]: r.shopId, [`f${i}`]: r.from, [`t${i}`]: r.to }));
+  const inFeed = since.feed
+    ? ranges.map((_, i) => `(shop_id = :s${i} AND seq > :f${i} AND seq <= :t${i})`).join(" OR ")
+    : "created_at >= :at";
+  const fromFeed = inFeed ? ` OR j.id IN (SELECT job_id FROM sync_changes WHERE ${inFeed})` : "";
   const rows = await sequelize.query<Parameters<typeof toOpenJob>[0]>(
     `SELECT j.id, j.shop_id, j.code, j.title, j.spec_revision FROM jobs j
-      WHERE ${OPEN} AND (j.updated_at >= :at OR j.id IN (SELECT job_id FROM sync_changes WHERE ${feed}))
+      WHERE ${OPEN} AND (j.updated_at >= :at${fromFeed})
       ORDER BY j.id DESC LIMIT 500`,
-    { replacements: { at: since.at, syncId: since.syncId ?? 0 }, type: QueryTypes.SELECT },
+    { replacements, type: QueryTypes.SELECT },
   );
-  return { jobs: rows.map(toOpenJob), syncId: Number(top?.m ?? 0) };
+  return { jobs: rows.map(toOpenJob), feed };
 }
 
 /** The next `limit` open jobs after `afterId`, wrapping round to the lowest id. */

@@ -143,7 +143,8 @@ function evaluationOf(c: { row: StoredReading }, final: ReadingEvaluation | unde
 }
 
 /**
- * Inserts, reconciles each job once, and logs it all; returns final evaluations and the cursor.
+ * Inserts, reconciles each job once, and writes the audit events; returns final evaluations and
+ * the change-feed rows, which the caller writes last (recordChanges says why).
  * The insert and every job's reconciliation reads are issued together (one round trip): the
  * server runs them in order, so the reads see the new rows. Only reads ever follow a write in a
  * pipeline: after a deadlock, a queued write would run outside the rolled-back transaction.
@@ -181,7 +182,7 @@ async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: Stor
   log.audits.unshift(...syncAudits(actor, bc.deviceId, fresh, finals));
   // One after the other: a write never waits in a pipeline behind another (reconcile/reconcile.ts says why).
   await recordAudits(t, log.audits);
-  return { finals, cursor: await recordChanges(t, log.changes) };
+  return { finals, changes: log.changes };
 }
 
 function results(
@@ -270,11 +271,15 @@ export async function ingestBatch(
       const checked = checkAll(parsed, bc);
       const bad = checked.some((c) => !c || c.kind === "rejected");
       const fresh = bad ? [] : checked.flatMap((c) => (c?.kind === "new" ? [c.row] : []));
-      const { finals, cursor } = fresh.length
-        ? await write(t, actor, bc, fresh)
-        : { finals: new Map<string, ReadingEvaluation>(), cursor: await lastChangeId(t, [...bc.jobs.keys()]) };
-      const res = results(parsed, checked, finals, bad);
-      return bad ? refusal(res, cursor) : { status: 200 as const, body: { results: res, cursor } };
+      if (!fresh.length) {
+        const res = results(parsed, checked, new Map(), bad);
+        const cursor = await lastChangeId(t, [...bc.jobs.keys()]);
+        return bad ? refusal(res, cursor) : { status: 200 as const, body: { results: res, cursor } };
+      }
+      const { finals, changes } = await write(t, actor, bc, fresh);
+      const res = results(parsed, checked, finals, false);
+      // The shop's feed counter is locked from here to the commit: nothing else is left to do in between.
+      return { status: 200 as const, body: { results: res, cursor: await recordChanges(t, changes) } };
     }),
   );
 }

@@ -3,7 +3,7 @@ import { QueryTypes, type Transaction } from "sequelize";
 import type { SyncEntity } from "@/lib/schemas/enums";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { insertMany } from "@/lib/server/core/sql-insert";
-import { sqlRows } from "@/lib/server/core/sql-driver";
+import { settleAll, sqlRows } from "@/lib/server/core/sql-driver";
 
 // The change feed's one door to the database (sync_changes): one row per changed reading, flag,
 // job limit set or job, written in the transaction of the change, and read back by the feed
@@ -29,21 +29,24 @@ export async function recordChange(t: Transaction | null, c: ChangeInput): Promi
 /**
  * recordChange for many rows in one multi-row INSERT inside the caller's transaction (a batch of
  * 100 readings would otherwise cost 100 round trips, bench:sync). The trigger numbers them from
- * the shop's sequence and holds its row until commit, so callers write changes last. Returns the
- * shop's sequence after them ("0" when none), the push reply's cursor.
+ * the shop's sequence and holds its row until commit, so every writer of the shop's feed waits
+ * from this INSERT to our commit: callers write changes last and commit straight after. The
+ * sequence is read in the same round trip (a read may wait behind a write in a pipeline,
+ * sql-driver.ts). Returns the shop's sequence after them ("0" when none), the push reply's cursor.
  */
 export async function recordChanges(t: Transaction, changes: ChangeInput[]): Promise<string> {
   if (changes.length === 0) return "0";
   const now = new Date();
-  await insertMany(
+  const inserting = insertMany(
     t,
     "sync_changes",
     ["shop_id", "job_id", "entity", "entity_id", "device_id", "created_at"],
     changes.map((c) => [c.shopId, c.jobId, c.entity, String(c.entityId), c.deviceId ?? null, now]),
   );
-  const [row] = await sqlRows<{ seq: number }>(t, "SELECT seq FROM sync_sequences WHERE shop_id = ?", [
+  const sequence = sqlRows<{ seq: number }>(t, "SELECT seq FROM sync_sequences WHERE shop_id = ?", [
     changes.at(-1)!.shopId,
   ]);
+  const [, [row]] = await settleAll([inserting, sequence]);
   return String(row?.seq ?? 0);
 }
 
