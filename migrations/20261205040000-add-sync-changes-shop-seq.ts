@@ -7,6 +7,11 @@ import { QueryTypes } from "sequelize";
 import type { MigrationParams } from "./column-helpers";
 
 const NAME = "sync_changes_shop_seq";
+// Made by 20261201001100 and 20261204020000; either one serves the job_id foreign key alone.
+const JOB_INDEXES: [string, string[]][] = [
+  ["sync_changes_job_id", ["job_id", "id"]],
+  ["sync_changes_job_seq", ["job_id", "seq"]],
+];
 
 /** The names of the indexes on sync_changes made of shop_id alone. */
 async function shopOnlyIndexes(qi: MigrationParams["context"]): Promise<string[]> {
@@ -25,7 +30,12 @@ export async function up({ context: qi }: MigrationParams): Promise<void> {
 }
 
 export async function down({ context: qi }: MigrationParams): Promise<void> {
-  // The foreign key needs an index on shop_id first: the plain one again, then ours can go.
+  // The foreign key needs an index on shop_id first: the plain one again, then ours can go. The
+  // job indexes are made again after it, so the table is as it was, its indexes in their order.
   await qi.addIndex("sync_changes", ["shop_id"], { name: "shop_id" });
+  for (const [name, columns] of JOB_INDEXES) {
+    await qi.removeIndex("sync_changes", name);
+    await qi.addIndex("sync_changes", columns, { name });
+  }
   await qi.removeIndex("sync_changes", NAME);
 }

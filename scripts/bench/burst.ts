@@ -105,7 +105,13 @@ function print(rows: { m: Measured; instances: number }[]) {
         `p99 ${percentile(m.latencies, 99).toFixed(0).padStart(5)} ms  ${String(rate).padStart(6)} readings/s  ` +
         `${m.acknowledged}/${m.readings} acknowledged; load average ${m.load.toFixed(1)} on ${cpus().length} cores`,
     );
-    if (instances > 0) console.log(`      limited by ${limitOf(m, instances)}`);
+    if (instances > 0) {
+      // CPU time a batch moves far less with the machine's load than wall time: the figure to compare runs by.
+      const cpu = (m.appCpuMs / m.batches).toFixed(1);
+      const locks = `${m.db.Innodb_row_lock_waits ?? 0} row-lock waits (${m.db.Innodb_row_lock_time ?? 0} ms)`;
+      console.log(`      app CPU ${cpu} ms a batch (${instances} instance(s)); ${locks}`);
+      console.log(`      limited by ${limitOf(m, instances)}`);
+    }
   }
 }
 
