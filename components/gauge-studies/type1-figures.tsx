@@ -10,7 +10,7 @@ const index = (x: number | null) => (x === null ? "—" : x.toFixed(2));
 const pFigure = (p: number | null) => (p === null ? "—" : p < 0.0001 ? "< 0.0001" : p.toFixed(4));
 
 export function Type1Figures({ result, unit }: { result: Type1Result; unit: string }) {
-  const notes = (result as Type1Result & { notes?: string[] }).notes ?? [];
+  const notes = result.notes;
   return (
     <div className="flex flex-col gap-3" data-testid="type1-figures">
       <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm sm:grid-cols-[auto_1fr_auto_1fr]">

@@ -99,6 +99,7 @@ const type1: Type1Result = {
   t: 0.91,
   pValue: 0.372,
   biasSignificant: false,
+  notes: [],
   perCharacteristic: [
     {
       characteristic: "bore_diameter",
@@ -121,7 +122,7 @@ const type1: Type1Result = {
       reasons: [],
     },
   ],
-} as Type1Result;
+};
 
 describe("Type1Figures", () => {
   it("shows the run's figures and a verdict in words per characteristic", () => {
