@@ -4,3 +4,4 @@ export { DEFAULT_STUDY_THRESHOLDS, studyDueOn, studyStatus, type StudyStatus } f
 export { checkGrrDesign, checkStudyFigures, checkType1Readings, GRR_DESIGN, TYPE1_READINGS } from "./checks";
 export { capabilityFor, meanAndSd, type1Study } from "./type1";
 export { gaugeBudget, type GaugeBudgetInput } from "./budget";
+export { grrAnova, POOL_INTERACTION_ABOVE_P } from "./grr";

@@ -81,6 +81,8 @@ export interface GrrInput {
   tolerance?: number;
   /** Spread taken as the study variation: 6 standard deviations (common practice; some use 5.15). */
   spreadSigmas?: number;
+  /** True: never pool the interaction into repeatability (the full table, as reference manuals print it). */
+  keepInteraction?: boolean;
 }
 
 export interface AnovaRow {
