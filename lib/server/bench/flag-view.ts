@@ -1,4 +1,5 @@
 import "server-only";
+import { derivedInputs, type EngineShape } from "@/lib/domain";
 import type { BenchFlag } from "@/lib/schemas/sync";
 import type { FlagRow } from "@/lib/server/reconcile/repo";
 
@@ -6,9 +7,24 @@ import type { FlagRow } from "@/lib/server/reconcile/repo";
 
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 
-/** `inputs` maps a derived key to the stations it is computed from (deriveReadings' recipe). */
-export function toBenchFlag(f: FlagRow, inputs: Map<string, string[]>): BenchFlag {
-  const stations = f.derivedKey ? (inputs.get(f.derivedKey) ?? [f.stationId]) : [f.stationId];
+export type RecipeInputs = ReadonlyMap<string, readonly string[]>;
+
+/**
+ * Derived key → the stations it is computed from (the core's recipes, which follow the engine's
+ * shape alone), so a derived flag can mark what to measure again. An engine the core refuses has
+ * no derived values; its flags mark their own station.
+ */
+export function recipeInputs(shape: EngineShape): RecipeInputs {
+  try {
+    return derivedInputs(shape);
+  } catch {
+    return new Map();
+  }
+}
+
+/** `inputs` maps a derived key to the stations it is computed from (recipeInputs). */
+export function toBenchFlag(f: FlagRow, inputs: RecipeInputs): BenchFlag {
+  const stations = [...((f.derivedKey && inputs.get(f.derivedKey)) || [f.stationId])];
   return {
     id: f.id,
     jobId: f.jobId,

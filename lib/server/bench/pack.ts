@@ -2,14 +2,14 @@ import "server-only";
 import { benchRoute, correctedBy } from "@/lib/domain";
 import type { BenchJobSummary, JobPack } from "@/lib/schemas/sync";
 import type { Actor } from "@/lib/schemas/session";
-import { toBenchFlag } from "@/lib/server/bench/flag-view";
+import { recipeInputs, toBenchFlag } from "@/lib/server/bench/flag-view";
 import { flagsOfJobs, jobWithNames, namesOf, openBenchJobs, openFlagCounts, toHeader } from "@/lib/server/bench/repo";
 import { progressOf } from "@/lib/server/board/progress";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { chosenBearings } from "@/lib/server/bearings/bench";
 import { AppError, notFound } from "@/lib/server/core/errors";
-import { readingsOfJobs, shopInstruments, toServerReading } from "@/lib/server/readings/repo";
-import { derivedInputs } from "@/lib/server/sync/feed";
+import { readingsOfJobs, shopInstruments } from "@/lib/server/readings/repo";
+import { toServerReading } from "@/lib/server/readings/server-reading";
 import { currentCursor } from "@/lib/server/sync/repo";
 
 // What the tablet stores to work a job offline (GET /api/bench/jobs/:id), and the list it picks from.
@@ -52,11 +52,10 @@ export async function jobPack(actor: Actor, jobId: number): Promise<JobPack> {
   if (!named) throw notFound("Job");
   const ctx = await loadJobContext(actor.shopId, jobId);
   const route = routeOf(ctx.shape, ctx.job.code);
-  const [instruments, readings, flags, inputs, bearings] = await Promise.all([
+  const [instruments, readings, flags, bearings] = await Promise.all([
     shopInstruments(actor.shopId),
     readingsOfJobs([jobId]),
     flagsOfJobs([jobId], { unclosedOnly: true }),
-    derivedInputs(actor.shopId, [jobId]),
     chosenBearings(actor.shopId, jobId),
   ]);
   const corrections = correctedBy(readings);
@@ -67,7 +66,7 @@ export async function jobPack(actor: Actor, jobId: number): Promise<JobPack> {
     route,
     instruments: instruments.map(({ shopId: _s, ...i }) => i),
     readings: readings.map((r) => toServerReading(r, corrections.get(r.id) ?? null)),
-    flags: flags.map((f) => toBenchFlag(f, inputs.get(jobId) ?? new Map())),
+    flags: flags.map((f) => toBenchFlag(f, recipeInputs(ctx.shape))),
     bearings,
     cursor,
   };

@@ -2,7 +2,7 @@ import "server-only";
 import { Op, QueryTypes } from "sequelize";
 import { OPEN_JOB_STATUSES, isJobLocked, jobLockReason } from "@/lib/domain";
 import type { BenchJobHeader } from "@/lib/schemas/sync";
-import type { Flag } from "@/models";
+import { decimalToNumber } from "@/models";
 import { getSequelize, models } from "@/lib/server/core/db";
 import type { FlagRow } from "@/lib/server/reconcile/repo";
 import type { EngineRow, JobRow } from "@/lib/server/jobs/repo";
@@ -75,19 +75,36 @@ export async function openFlagCounts(jobIds: number[]): Promise<Map<number, numb
   return out;
 }
 
-/** Flags of these jobs (ids the caller has checked are the shop's), oldest first. */
+const FLAG_COLUMNS = `id, shop_id AS shopId, job_id AS jobId, reading_id AS readingId, derived_key AS derivedKey,
+  station_id AS stationId, characteristic, value, unit, limit_min AS limitMin, limit_max AS limitMax, deviation,
+  verdict, reason, state, disposition, operation, disposition_reason AS dispositionReason, disposed_at AS disposedAt,
+  closed_at AS closedAt, closed_by_reading_id AS closedByReadingId, created_at AS createdAt`;
+
+/**
+ * Flags of these jobs (ids the caller has checked are the shop's), oldest first. Plain rows, not
+ * model instances: a feed page carries hundreds and instances cost more than the query (bench:scale).
+ */
 export async function flagsOfJobs(
   jobIds: number[],
   opts: { ids?: number[]; unclosedOnly?: boolean } = {},
 ): Promise<FlagRow[]> {
   if (jobIds.length === 0 || opts.ids?.length === 0) return [];
-  const rows = await models().Flag.findAll({
-    where: {
-      jobId: { [Op.in]: jobIds },
-      ...(opts.ids ? { id: { [Op.in]: opts.ids } } : {}),
-      ...(opts.unclosedOnly ? { state: { [Op.ne]: "closed" } } : {}),
-    },
-    order: [["id", "ASC"]],
-  });
-  return rows.map((f: Flag) => f.get({ plain: true }) as unknown as FlagRow);
+  const where = [
+    "job_id IN (?)",
+    ...(opts.ids ? ["id IN (?)"] : []),
+    ...(opts.unclosedOnly ? ["state <> 'closed'"] : []),
+  ];
+  const rows = await getSequelize().query<FlagRow>(
+    `SELECT ${FLAG_COLUMNS} FROM flags WHERE ${where.join(" AND ")} ORDER BY id`,
+    { replacements: opts.ids ? [jobIds, opts.ids] : [jobIds], type: QueryTypes.SELECT },
+  );
+  for (const f of rows) {
+    f.jobId = Number(f.jobId);
+    f.shopId = Number(f.shopId);
+    f.value = decimalToNumber(f.value)!;
+    f.limitMin = decimalToNumber(f.limitMin);
+    f.limitMax = decimalToNumber(f.limitMax);
+    f.deviation = decimalToNumber(f.deviation);
+  }
+  return rows;
 }

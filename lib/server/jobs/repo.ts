@@ -107,6 +107,21 @@ export async function loadJobContext(shopId: number, jobId: number, t?: Transact
   };
 }
 
+/** The shop's jobs among `ids` with their engines, by id (other shops' ids are simply absent). */
+export async function jobsWithEngines(shopId: number, ids: number[]): Promise<{ job: JobRow; engine: EngineRow }[]> {
+  if (ids.length === 0) return [];
+  const { Engine, Job } = models();
+  const rows = await Job.findAll({
+    where: { shopId, id: { [Op.in]: ids } },
+    include: [{ model: Engine, as: "engine" }],
+    order: [["id", "ASC"]],
+  });
+  return rows.map((j) => {
+    const { engine, ...job } = plain<JobRow & { engine: EngineRow }>(j);
+    return { job, engine };
+  });
+}
+
 /** Each job's own limits in spec order (jobs of the caller's shop only). */
 export async function jobSpecs(jobIds: number[]): Promise<Map<number, SpecLimit[]>> {
   const specs = new Map<number, SpecLimit[]>(jobIds.map((id) => [id, []]));

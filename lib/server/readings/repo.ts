@@ -3,7 +3,6 @@ import { Op, QueryTypes, type Transaction } from "sequelize";
 import { decimalToNumber } from "@/models";
 import { correctedBy } from "@/lib/domain";
 import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
-import type { ServerReading } from "@/lib/schemas/sync";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { causalRows } from "@/lib/server/core/cluster";
 import { sqlRows, sqlWrite, utcDate, utcText } from "@/lib/server/core/sql-driver";
@@ -263,19 +262,19 @@ export async function readingsOfJobs(jobIds: number[], ids?: string[]): Promise<
   return ids ? selectReadings("job_id IN (?) AND id IN (?)", [jobIds, ids]) : selectReadings("job_id IN (?)", [jobIds]);
 }
 
-/** For each id, the reading that corrects it (lib/domain's correctedBy picks one when several do). */
-export async function correctionsOf(ids: string[]): Promise<Map<string, string>> {
-  if (ids.length === 0) return new Map();
+/**
+ * For each id, the reading that corrects it (lib/domain's correctedBy picks one when several do).
+ * A correction is always of its own job (the ingest refuses one across jobs), so the corrections
+ * are read per job, through (job_id, supersedes): an IN list of ids on supersedes alone is planned
+ * as a scan of every reading once it is long (see migrations/20261205020000).
+ */
+export async function correctionsOf(jobIds: number[], ids: string[]): Promise<Map<string, string>> {
+  if (jobIds.length === 0 || ids.length === 0) return new Map();
   const rows = await getSequelize().query<{ id: string; stationId: string; supersedes: string; takenAt: Date }>(
-    "SELECT id, station_id AS stationId, supersedes, taken_at AS takenAt FROM readings WHERE supersedes IN (?)",
-    { replacements: [ids], type: QueryTypes.SELECT },
+    `SELECT id, station_id AS stationId, supersedes, taken_at AS takenAt FROM readings
+      WHERE job_id IN (?) AND supersedes IS NOT NULL`,
+    { replacements: [jobIds], type: QueryTypes.SELECT },
   );
-  return correctedBy(rows);
-}
-
-const iso = (d: Date | string) => (d instanceof Date ? d : new Date(d)).toISOString();
-
-export function toServerReading(r: StoredReading, supersededBy: string | null): ServerReading {
-  const { shopId: _shop, takenAt, receivedAt, ...fields } = r;
-  return { ...fields, supersededBy, takenAt: iso(takenAt), receivedAt: iso(receivedAt) };
+  const wanted = new Set(ids);
+  return correctedBy(rows.filter((r) => wanted.has(r.supersedes)));
 }

@@ -1,11 +1,12 @@
 import "server-only";
-import { deriveReadings } from "@/lib/domain";
 import type { SyncFeed } from "@/lib/schemas/sync";
-import { toBenchFlag } from "@/lib/server/bench/flag-view";
-import { flagsOfJobs, jobHeaders } from "@/lib/server/bench/repo";
-import { loadJobContext } from "@/lib/server/jobs/repo";
-import { correctionsOf, readingsOfJobs, toServerReading } from "@/lib/server/readings/repo";
-import { CHANGE_PAGE, changesSince, ownedJobIds, type ChangeRow } from "@/lib/server/sync/repo";
+import { recipeInputs, toBenchFlag } from "@/lib/server/bench/flag-view";
+import { flagsOfJobs, toHeader } from "@/lib/server/bench/repo";
+import { toEngineShape } from "@/lib/server/jobs/context";
+import { jobSpecs, jobsWithEngines } from "@/lib/server/jobs/repo";
+import { correctionsOf, readingsOfJobs } from "@/lib/server/readings/repo";
+import { toServerReading } from "@/lib/server/readings/server-reading";
+import { CHANGE_PAGE, changesSince, type ChangeRow } from "@/lib/server/sync/repo";
 
 // GET /api/sync: the change feed (sync_changes) turned into the current state of what changed.
 //
@@ -15,52 +16,44 @@ import { CHANGE_PAGE, changesSince, ownedJobIds, type ChangeRow } from "@/lib/se
 // another, and never sends one twice: no settle window, whatever the replication lag. A node that
 // lags only answers with fewer rows; the next call brings the rest.
 // Cursors handed out before (sync_changes ids) are seq numbers too: old rows kept seq = id.
+//
+// One round trip for the change rows (only the shop's jobs: another shop's ids find none), then one
+// of queries side by side for the state they name: every id read there comes from a change row of
+// the shop. The derived flags' input stations come from the core's recipes of the engine's shape.
 
-/** Derived key → input stations, per job, so a derived flag can mark what to measure again. */
-export async function derivedInputs(shopId: number, jobIds: number[]): Promise<Map<number, Map<string, string[]>>> {
-  const out = new Map<number, Map<string, string[]>>();
-  for (const jobId of jobIds) {
-    const ctx = await loadJobContext(shopId, jobId);
-    out.set(jobId, new Map());
-    try {
-      for (const d of deriveReadings([], ctx.shape, ctx.spec)) out.get(jobId)!.set(d.key, d.inputs);
-    } catch {
-      // An engine the core refuses has no derived values; its flags mark their own station.
-    }
-  }
-  return out;
-}
-
-async function changedState(shopId: number, jobIds: number[], rows: ChangeRow[]) {
+async function changedState(jobIds: number[], rows: ChangeRow[]) {
   const ids = (entity: string) => [...new Set(rows.filter((r) => r.entity === entity).map((r) => r.entityId))];
   const readingIds = ids("reading");
-  const flagIds = ids("flag").map(Number);
   const limitJobs = [...new Set(rows.filter((r) => r.entity === "job_limits").map((r) => Number(r.jobId)))];
-  const [readings, corrections, flags] = await Promise.all([
+  const [readings, corrections, flags, specs] = await Promise.all([
     readingsOfJobs(jobIds, readingIds),
-    correctionsOf(readingIds),
-    flagsOfJobs(jobIds, { ids: flagIds }),
+    correctionsOf(jobIds, readingIds),
+    flagsOfJobs(jobIds, { ids: ids("flag").map(Number) }),
+    jobSpecs(limitJobs),
   ]);
-  const inputs = await derivedInputs(shopId, [...new Set(flags.filter((f) => f.derivedKey).map((f) => f.jobId))]);
-  const limits = [];
-  for (const jobId of limitJobs) {
-    const ctx = await loadJobContext(shopId, jobId);
-    limits.push({ jobId, specRevision: ctx.job.specRevision, spec: ctx.spec });
-  }
-  return {
-    readings: readings.map((r) => toServerReading(r, corrections.get(r.id) ?? null)),
-    flags: flags.map((f) => toBenchFlag(f, inputs.get(f.jobId) ?? new Map())),
-    limits,
-  };
+  return { readings, corrections, flags, specs };
 }
 
 export async function syncFeed(shopId: number, since: string, jobIds: number[]): Promise<SyncFeed> {
-  const owned = await ownedJobIds(shopId, jobIds);
-  const missing = jobIds.filter((id) => !owned.includes(id));
-  if (owned.length === 0) return { cursor: since, more: false, jobs: [], limits: [], readings: [], flags: [], missing };
-  const rows = await changesSince(owned, since);
+  const rows = await changesSince(shopId, jobIds, since);
   const cursor = rows.length ? String(rows.at(-1)!.seq) : since;
   // Read after the change rows, so the state is at least as new as every row listed.
-  const [jobs, state] = await Promise.all([jobHeaders(shopId, owned), changedState(shopId, owned, rows)]);
-  return { cursor, more: rows.length === CHANGE_PAGE, jobs, ...state, missing };
+  const [owned, state] = await Promise.all([jobsWithEngines(shopId, jobIds), changedState(jobIds, rows)]);
+  const byId = new Map(owned.map((o) => [o.job.id, o]));
+  const inputsOf = (jobId: number) => {
+    const o = byId.get(jobId);
+    return o?.engine ? recipeInputs(toEngineShape(o.engine, o.job)) : new Map();
+  };
+  return {
+    cursor,
+    more: rows.length === CHANGE_PAGE,
+    jobs: owned.map((o) => toHeader(o.job)),
+    limits: [...state.specs].flatMap(([jobId, spec]) => {
+      const o = byId.get(jobId);
+      return o ? [{ jobId, specRevision: o.job.specRevision, spec }] : [];
+    }),
+    readings: state.readings.map((r) => toServerReading(r, state.corrections.get(r.id) ?? null)),
+    flags: state.flags.map((f) => toBenchFlag(f, f.derivedKey ? inputsOf(f.jobId) : new Map())),
+    missing: jobIds.filter((id) => !byId.has(id)),
+  };
 }

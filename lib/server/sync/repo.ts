@@ -82,20 +82,15 @@ export async function currentCursor(shopId: number): Promise<string> {
   return String(row?.seq ?? 0);
 }
 
-/** Which of these job ids are the shop's. */
-export async function ownedJobIds(shopId: number, ids: number[]): Promise<number[]> {
-  const rows = await getSequelize().query<{ id: number }>(
-    "SELECT id FROM jobs WHERE shop_id = ? AND id IN (?) ORDER BY id",
-    { replacements: [shopId, ids], type: QueryTypes.SELECT },
-  );
-  return rows.map((r) => Number(r.id));
-}
-
-/** The next page of changes of these jobs numbered after `since` (at most CHANGE_PAGE rows). */
-export async function changesSince(jobIds: number[], since: string): Promise<ChangeRow[]> {
+/**
+ * The next page of changes of these jobs of the shop numbered after `since` (at most CHANGE_PAGE
+ * rows); another shop's job ids find nothing.
+ */
+export async function changesSince(shopId: number, jobIds: number[], since: string): Promise<ChangeRow[]> {
+  if (jobIds.length === 0) return [];
   return getSequelize().query<ChangeRow>(
     `SELECT seq, job_id AS jobId, entity, entity_id AS entityId
-       FROM sync_changes WHERE job_id IN (?) AND seq > ? ORDER BY seq LIMIT ${CHANGE_PAGE}`,
-    { replacements: [jobIds, since], type: QueryTypes.SELECT },
+       FROM sync_changes WHERE job_id IN (?) AND shop_id = ? AND seq > ? ORDER BY seq LIMIT ${CHANGE_PAGE}`,
+    { replacements: [jobIds, shopId, since], type: QueryTypes.SELECT },
   );
 }

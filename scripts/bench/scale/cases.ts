@@ -178,17 +178,34 @@ export function cases(s: Subject): Case[] {
       name: "sync feed: catch-up of 5 held jobs",
       app: () => syncFeed(s.shopId, "0", s.heldJobs),
       raw: async (c) => {
-        const rows: { entity: string; entity_id: string }[] = await c.query(
-          `SELECT id, job_id, entity, entity_id, created_at FROM sync_changes
-            WHERE job_id IN (?) AND id > 0 ORDER BY id LIMIT 1000`,
-          [s.heldJobs],
+        const rows: { job_id: number; entity: string; entity_id: string }[] = await c.query(
+          `SELECT seq, job_id, entity, entity_id FROM sync_changes
+            WHERE job_id IN (?) AND shop_id = ? AND seq > 0 ORDER BY seq LIMIT 1000`,
+          [s.heldJobs, s.shopId],
         );
         const of = (e: string) => rows.filter((r) => r.entity === e).map((r) => r.entity_id);
+        const limitJobs = rows.filter((r) => r.entity === "job_limits").map((r) => r.job_id);
         return Promise.all([
-          c.query("SELECT * FROM jobs WHERE id IN (?)", [s.heldJobs]),
-          c.query("SELECT * FROM job_limits WHERE job_id IN (?)", [s.heldJobs]),
-          c.query("SELECT * FROM readings WHERE id IN (?)", [of("reading").concat("-")]),
-          c.query("SELECT * FROM flags WHERE id IN (?)", [of("flag").concat("0")]),
+          c.query(
+            {
+              sql: "SELECT * FROM jobs j JOIN engines e ON e.id = j.engine_id WHERE j.shop_id = ? AND j.id IN (?)",
+              nestTables: true,
+            },
+            [s.shopId, s.heldJobs],
+          ),
+          c.query("SELECT * FROM job_limits WHERE job_id IN (?) ORDER BY job_id, sort_order, id", [
+            limitJobs.concat(0),
+          ]),
+          c.query("SELECT * FROM readings WHERE job_id IN (?) AND id IN (?)", [s.heldJobs, of("reading").concat("-")]),
+          // A reading's corrections (always of its own job).
+          c.query(
+            "SELECT id, station_id, supersedes, taken_at FROM readings WHERE job_id IN (?) AND supersedes IS NOT NULL",
+            [s.heldJobs],
+          ),
+          c.query("SELECT * FROM flags WHERE job_id IN (?) AND id IN (?) ORDER BY id", [
+            s.heldJobs,
+            of("flag").concat("0"),
+          ]),
         ]);
       },
     },
