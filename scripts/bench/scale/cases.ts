@@ -179,7 +179,7 @@ export function cases(s: Subject): Case[] {
       app: () => syncFeed(s.shopId, "0", s.heldJobs),
       raw: async (c) => {
         const rows: { job_id: number; entity: string; entity_id: string }[] = await c.query(
-          `SELECT seq, job_id, entity, entity_id FROM sync_changes
+          `SELECT seq, job_id, entity, entity_id FROM sync_changes FORCE INDEX (sync_changes_job_seq)
             WHERE job_id IN (?) AND shop_id = ? AND seq > 0 ORDER BY seq LIMIT 1000`,
           [s.heldJobs, s.shopId],
         );
