@@ -15,7 +15,7 @@ const distDir = process.env.TW_DIST_DIR || ".next";
 // follows its source so a changed manifest is fetched again.
 const manifestRevision = createHash("sha256").update(readFileSync("app/manifest.ts")).digest("hex").slice(0, 16);
 const buildId = readFileSync(`${distDir}/BUILD_ID`, "utf8").trim();
-const BENCH_SHELLS = ["/bench", "/bench/job"];
+const BENCH_SHELLS = ["/bench", "/bench/job", "/bench/studies"];
 
 export default serwist({
   swSrc: "app/sw.ts",

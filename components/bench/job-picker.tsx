@@ -83,7 +83,16 @@ export function JobPicker() {
 
   return (
     <main className="mx-auto flex max-w-5xl flex-col gap-5 px-4 py-6">
-      <h1 className="text-3xl font-semibold">Jobs on the bench</h1>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1 className="text-3xl font-semibold">Jobs on the bench</h1>
+        {/* A plain link, like the jobs': the studies' shell is precached and opens offline. */}
+        <a
+          href="/bench/studies"
+          className="inline-flex min-h-12 items-center rounded-tool border-2 border-rule bg-panel px-4 font-semibold"
+        >
+          Gauge studies
+        </a>
+      </div>
       {offline && (
         <Notice title="Offline">
           Showing the jobs already on this tablet. Readings you take are kept here and sent when the network is back.

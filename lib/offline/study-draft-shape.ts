@@ -5,12 +5,15 @@ import type { GrrMeasurement, StudyReference } from "@/lib/domain/gauge-studies/
 /** The gauge as the run names it (kept with the draft, so the run opens offline). */
 export interface DraftGauge {
   id: number;
+  /** The registered kind: a dial bore gauge is read as a dial reading from the reference it was set on. */
+  kind: string;
   label: string;
   serial: string;
   unit: string;
   resolution: number;
   rangeMin?: number | null;
   rangeMax?: number | null;
+  dialPlusMeansSmaller: boolean;
 }
 
 /** A repeatability run: one person reads one reference again and again. */

@@ -1,6 +1,6 @@
 // From what was typed in a gauge study (keypad, keyboard or the gauge's own keystrokes) to a figure
 // the run keeps, or words saying what to fix. The typed text stays on screen after a refusal.
-import { rangeHolds, unitWords } from "@/lib/domain";
+import { dialDiameter, isDialBoreGauge, rangeHolds, unitWords } from "@/lib/domain";
 import type { StudyReference } from "@/lib/domain/gauge-studies/types";
 import { parseEntry, type Parsed } from "./entry";
 import type { DraftGauge } from "./study-draft-shape";
@@ -25,9 +25,25 @@ export function parseGaugeFigure(text: string, gauge: DraftGauge, what = "the re
   return parsed;
 }
 
-/** A reading of the study's reference: as above, and near the reference's size. */
+/** A dial bore gauge is set on the reference, so each reading is typed as the dial shows it. */
+function fromDial(text: string, gauge: DraftGauge, reference: StudyReference): Parsed {
+  const dial = parseEntry(text, "the dial reading");
+  if ("error" in dial) return dial;
+  try {
+    const value = dialDiameter({
+      setting: reference.value,
+      deviation: dial.value,
+      plusMeansSmaller: gauge.dialPlusMeansSmaller,
+    });
+    return parseGaugeFigure(String(value), gauge);
+  } catch (err) {
+    return { error: err instanceof Error ? err.message : String(err) };
+  }
+}
+
+/** A reading of the study's reference (a dial gauge's: the diameter its dial reading stands for), near its size. */
 export function parseReferenceReading(text: string, gauge: DraftGauge, reference: StudyReference): Parsed {
-  const parsed = parseGaugeFigure(text, gauge);
+  const parsed = isDialBoreGauge(gauge) ? fromDial(text, gauge, reference) : parseGaugeFigure(text, gauge);
   if ("error" in parsed) return parsed;
   const steps = Math.abs(parsed.value - reference.value) / gauge.resolution;
   if (steps > STEPS_FROM_REFERENCE)

@@ -18,7 +18,15 @@ import {
 } from "@/lib/offline/study-drafts";
 import type { DraftGauge } from "@/lib/offline/study-draft-shape";
 
-const GAUGE: DraftGauge = { id: 3, label: "Bore gauge", serial: "BG-1", unit: "in", resolution: 0.0001 };
+const GAUGE: DraftGauge = {
+  id: 3,
+  kind: "bore_gauge_digital",
+  label: "Bore gauge",
+  serial: "BG-1",
+  unit: "in",
+  resolution: 0.0001,
+  dialPlusMeansSmaller: true,
+};
 const REF = { value: 4.03, expandedU: 0.00005, coverageK: 2 };
 let n = 0;
 const fresh = () => new BenchDb(`study-drafts-${process.pid}-${++n}`);

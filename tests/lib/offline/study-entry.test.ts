@@ -5,6 +5,8 @@ import type { DraftGauge } from "@/lib/offline/study-draft-shape";
 
 const GAUGE: DraftGauge = {
   id: 3,
+  kind: "bore_gauge_digital",
+  dialPlusMeansSmaller: true,
   label: "Bore gauge",
   serial: "BG-1",
   unit: "in",
@@ -25,6 +27,13 @@ describe("study entry", () => {
     expect(parseReferenceReading("40302", GAUGE, REF)).toEqual({ error: expect.stringContaining("(3–6 in)") });
     expect(parseGaugeFigure("4.0.3", GAUGE)).toEqual({ error: expect.stringContaining("is not a number") });
     expect(parseGaugeFigure("", GAUGE)).toEqual({ error: "Type the reading first" });
+  });
+
+  it("reads a dial bore gauge's dial as set on the reference (plus means smaller on this one)", () => {
+    const dial = { ...GAUGE, kind: "bore_gauge_dial" };
+    expect(parseReferenceReading("+0.0003", dial, REF)).toEqual({ value: 4.0297 });
+    expect(parseReferenceReading("-0.0002", { ...dial, dialPlusMeansSmaller: false }, REF)).toEqual({ value: 4.0298 });
+    expect(parseReferenceReading("0.5", dial, REF)).toEqual({ error: expect.stringContaining("5000 steps") });
   });
 
   it("reads the reference from its certificate and names each field to fix", () => {
