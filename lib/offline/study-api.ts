@@ -2,7 +2,7 @@
 // preview and save of a finished run. A run never leaves the tablet's database until the server
 // answered that it saved it.
 import { api, ApiError } from "@/lib/client/api";
-import type { BenchInstrument } from "@/lib/schemas/sync";
+import type { BenchGaugesReply, StudyGauge } from "@/lib/schemas/bench-gauges";
 import type { BenchDb } from "./db";
 import { getMeta, setMeta } from "./meta";
 import type { StudyDraft } from "./study-draft-shape";
@@ -10,18 +10,18 @@ import type { StudyDraft } from "./study-draft-shape";
 const GAUGES_KEY = "studyGauges";
 
 /** The shop's gauges: from the server when it answers (kept), else the last list or the job packs'. */
-export async function studyGauges(db: BenchDb): Promise<{ gauges: BenchInstrument[]; offline: boolean }> {
+export async function studyGauges(db: BenchDb): Promise<{ gauges: StudyGauge[]; offline: boolean }> {
   try {
-    const { instruments } = await api<{ instruments: BenchInstrument[] }>("/api/bench/gauges", { cache: "no-store" });
+    const { instruments } = await api<BenchGaugesReply>("/api/bench/gauges", { cache: "no-store" });
     await setMeta(db, GAUGES_KEY, instruments);
     return { gauges: instruments, offline: false };
   } catch (err) {
     if (err instanceof ApiError && err.status < 500 && err.status !== 429) throw err;
-    const kept = await getMeta<BenchInstrument[]>(db, GAUGES_KEY);
+    const kept = await getMeta<StudyGauge[]>(db, GAUGES_KEY);
     if (kept) return { gauges: kept, offline: true };
     const packs = await db.jobs.toArray();
     const fromPack = packs.sort((a, b) => b.refreshedAt.localeCompare(a.refreshedAt))[0]?.pack.instruments ?? [];
-    return { gauges: fromPack.filter((g) => g.active), offline: true };
+    return { gauges: fromPack.filter((g) => g.active).map((g) => ({ ...g, master: null })), offline: true };
   }
 }
 

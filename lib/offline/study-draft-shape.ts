@@ -1,6 +1,7 @@
 // What a gauge study in progress keeps on the tablet: enough to carry on after a reload, a lost
 // network or someone else's turn on a shared tablet, and to send the study once it is complete.
 import type { GrrMeasurement, StudyReference } from "@/lib/domain/gauge-studies/types";
+import type { SettingMaster } from "@/lib/schemas/bench-gauges";
 
 /** The gauge as the run names it (kept with the draft, so the run opens offline). */
 export interface DraftGauge {
@@ -14,6 +15,8 @@ export interface DraftGauge {
   rangeMin?: number | null;
   rangeMax?: number | null;
   dialPlusMeansSmaller: boolean;
+  /** The setting master on file with the gauge, offered as the reference. */
+  master?: SettingMaster | null;
 }
 
 /** A repeatability run: one person reads one reference again and again. */

@@ -14,10 +14,15 @@ beforeAll(async () => {
   s = await createShop();
   other = await createShop();
   await Instrument.update({ active: false }, { where: { id: s.gauges.feeler } });
+  // An invented setting ring on the shop's bore gauge.
+  await Instrument.update(
+    { masterLabel: "Ring 4.0300", masterSize: 4.03, masterU: 0.00005 },
+    { where: { id: s.instrument.id } },
+  );
 });
 
 describe("GET /api/bench/gauges", () => {
-  it("lists this shop's active gauges as a job pack carries them, none of another shop's", async () => {
+  it("lists this shop's active gauges as a job pack carries them with their setting masters, none of another shop's", async () => {
     const res = await list(s.users.machinist);
     expect(res.status).toBe(200);
     const ids = res.body.instruments.map((g: { id: number }) => g.id);
@@ -28,6 +33,8 @@ describe("GET /api/bench/gauges", () => {
     const bore = res.body.instruments.find((g: { id: number }) => g.id === s.instrument.id);
     expect(bore).toMatchObject({ label: "Test bore gauge", unit: "in", resolution: 0.0001, rangeMin: 2, rangeMax: 6 });
     expect(bore).not.toHaveProperty("shopId");
+    expect(bore.master).toEqual({ label: "Ring 4.0300", size: 4.03, u: 0.00005 });
+    expect(res.body.instruments.find((g: { id: number }) => g.id === s.gauges.mic).master).toBeNull();
   });
 
   it("answers a lead too; 401 signed out, 403 for inspector and admin", async () => {

@@ -7,14 +7,14 @@ import { gaugeRangeWords, instrumentKindWords, unitWords } from "@/lib/domain";
 import type { StudyDraftRow } from "@/lib/offline/db";
 import { startDraft } from "@/lib/offline/study-drafts";
 import type { DraftGauge, StudyKind } from "@/lib/offline/study-draft-shape";
-import type { BenchInstrument } from "@/lib/schemas/sync";
+import type { StudyGauge } from "@/lib/schemas/bench-gauges";
 import { useBench } from "@/components/bench/bench-context";
 import { STUDY_KIND_HINTS, STUDY_KIND_WORDS } from "./words";
 
 const KINDS: StudyKind[] = ["type1", "grr"];
 const PRESSED = "aria-pressed:border-steel aria-pressed:bg-steel aria-pressed:text-steel-ink";
 
-export function draftGauge(g: BenchInstrument): DraftGauge {
+export function draftGauge(g: StudyGauge): DraftGauge {
   return {
     id: g.id,
     kind: g.kind,
@@ -25,11 +25,12 @@ export function draftGauge(g: BenchInstrument): DraftGauge {
     rangeMin: g.rangeMin ?? null,
     rangeMax: g.rangeMax ?? null,
     dialPlusMeansSmaller: g.dialPlusMeansSmaller,
+    master: g.master,
   };
 }
 
 interface Props {
-  gauges: BenchInstrument[];
+  gauges: StudyGauge[];
   offline: boolean;
   drafts: StudyDraftRow[];
   onStarted: (kind: StudyKind) => void;
@@ -39,9 +40,9 @@ interface Props {
 export function GaugeChoice({ gauges, offline, drafts, onStarted }: Props) {
   const { db, actor } = useBench();
   const [kind, setKind] = useState<StudyKind>("type1");
-  const [replacing, setReplacing] = useState<BenchInstrument>();
+  const [replacing, setReplacing] = useState<StudyGauge>();
   const kept = drafts.find((d) => d.draft.kind === kind)?.draft;
-  const start = async (g: BenchInstrument) => {
+  const start = async (g: StudyGauge) => {
     const gauge = draftGauge(g);
     await startDraft(
       db,

@@ -7,13 +7,14 @@ import { unitWords } from "@/lib/domain";
 import type { StudyReference } from "@/lib/domain/gauge-studies/types";
 import { parseReference, type ReferenceFields, type ReferenceProblems } from "@/lib/offline/study-entry";
 import type { DraftGauge } from "@/lib/offline/study-draft-shape";
+import type { SettingMaster } from "@/lib/schemas/bench-gauges";
 
 // The reference a repeatability run reads: a setting master or gauge block, its size and expanded U
 // as its certificate states them (in the gauge's unit). What was typed stays after a refusal.
 interface Props {
   gauge: DraftGauge;
   /** The gauge's setting master on file, when the admin registered one. */
-  master?: { label?: string | null; size: number; u: number } | null;
+  master?: SettingMaster | null;
   onDone: (reference: StudyReference) => Promise<void>;
 }
 

@@ -5,7 +5,7 @@ import { useEffect, useState } from "react";
 import { Notice } from "@/components/ui/notice";
 import { useDexieQuery } from "@/hooks/use-dexie-query";
 import { draftsOf } from "@/lib/offline/study-drafts";
-import type { BenchInstrument } from "@/lib/schemas/sync";
+import type { StudyGauge } from "@/lib/schemas/bench-gauges";
 import { useBench } from "@/components/bench/bench-context";
 import type { GaugeStudyRecord } from "@/lib/schemas/gauge-studies";
 import { DraftList } from "./draft-list";
@@ -20,7 +20,7 @@ export function StudiesHome() {
   const { db, actor } = useBench();
   const run = useSearchParams().get("run");
   const [drafts, draftError] = useDexieQuery(db, ["studyDrafts"], () => draftsOf(db, actor.userId), [actor], null);
-  const [gauges, setGauges] = useState<{ gauges: BenchInstrument[]; offline: boolean } | { error: string }>();
+  const [gauges, setGauges] = useState<{ gauges: StudyGauge[]; offline: boolean } | { error: string }>();
 
   useEffect(() => {
     let stop = false;

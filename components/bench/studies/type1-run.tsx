@@ -71,7 +71,7 @@ export function Type1Run({ draft, onClose, onSaved }: Props) {
     <main className="mx-auto flex max-w-7xl flex-col gap-4 px-4 py-4">
       <StudyTitle kind="type1" gauge={gauge} onClose={onClose} />
       {!reference ? (
-        <ReferenceForm gauge={gauge} onDone={setReference} />
+        <ReferenceForm gauge={gauge} master={gauge.master} onDone={setReference} />
       ) : (
         <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
           <StudyPad

@@ -1,6 +1,7 @@
 import "server-only";
 import { Op, QueryTypes } from "sequelize";
 import { OPEN_JOB_STATUSES, isJobLocked, jobLockReason } from "@/lib/domain";
+import type { SettingMaster } from "@/lib/schemas/bench-gauges";
 import type { BenchJobHeader } from "@/lib/schemas/sync";
 import { decimalToNumber } from "@/models";
 import { getSequelize, models } from "@/lib/server/core/db";
@@ -107,4 +108,15 @@ export async function flagsOfJobs(
     f.deviation = decimalToNumber(f.deviation);
   }
   return rows;
+}
+
+/** The setting master registered with each of the shop's gauges that has one (for a study on the tablet). */
+export async function settingMasters(shopId: number): Promise<Map<number, SettingMaster>> {
+  const rows = await models().Instrument.findAll({
+    where: { shopId, masterSize: { [Op.ne]: null } },
+    attributes: ["id", "masterLabel", "masterSize", "masterU"],
+  });
+  return new Map(
+    rows.map((g) => [g.id, { label: g.masterLabel ?? null, size: Number(g.masterSize), u: Number(g.masterU ?? 0) }]),
+  );
 }
