@@ -1,13 +1,15 @@
 // `npm run bench:scale`: a million readings behind every office screen (issue 15). Starts a
 // throwaway MariaDB and the fakes (scripts/lib/services.mjs), migrates, loads the history with
-// the bulk loader (scripts/bench/scale/load.ts), then measures (scripts/bench/scale/run.ts), and
-// prints the build record's time (npm run bench:record).
+// the bulk loader (scripts/bench/scale/load.ts), then measures (scripts/bench/scale/run.ts), then
+// the production server's peak memory over HTTP (scripts/bench/scale/memory.ts), and prints the
+// build record's time (npm run bench:record).
 // Every figure is printed with the load average: a busy machine's figures are not final.
 import { execFileSync, spawnSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
+import { measureServerMemory } from "./scale/memory";
 
 type Lib = {
   startServices(o: Record<string, unknown>): Promise<{ env: Record<string, string>; stop(): Promise<void> }>;
@@ -41,6 +43,7 @@ async function main() {
       { stdio: "inherit", env: { ...env, NODE_ENV: "production", TW_DATA_ROOT: dataRoot } },
     );
     status = child.status ?? 1;
+    if (status === 0 && !(await measureServerMemory(env, join(dataRoot, "scale-subject.json")))) status = 1;
     // The build record's time is helper bench:record's (no database; an in-memory full V8).
     console.log("bench:scale  the build record (npm run bench:record, 5 renders):");
     const record = spawnSync(process.execPath, ["node_modules/tsx/dist/cli.mjs", "scripts/bench/record.ts"], {

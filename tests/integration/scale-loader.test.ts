@@ -6,12 +6,17 @@
 import { afterAll, describe, expect, it } from "vitest";
 import mariadb, { type Connection } from "mariadb";
 import { loadScale, ownerUrl } from "../../scripts/bench/scale/load";
-import { createV8Job, gaugeFor } from "../../scripts/bench/scale/fixture";
+import { actorsOf, createV8Job } from "../../scripts/bench/scale/fixture";
 import { runVariant } from "../../scripts/bench/scale/templates";
 import { VARIANTS } from "../../scripts/bench/scale/variants";
+import { verifyRelease } from "@/lib/server/release/hash-verify";
+import { recordFile } from "@/lib/server/record/stored";
 
 type Row = Record<string, unknown>;
-const TIMES = ["created_at", "updated_at", "received_at", "taken_at", "disposed_at", "closed_at", "locked_at"];
+const TIMES = [
+  ...["created_at", "updated_at", "received_at", "taken_at", "disposed_at", "closed_at", "locked_at"],
+  ...["signed_at", "voided_at", "record_stored_at"],
+];
 const ISO = /^\d{4}-\d\d-\d\dT[\d:.]+Z$/;
 
 let conn: Connection;
@@ -23,6 +28,7 @@ async function picture(jobId: number) {
   const [job] = await q("SELECT * FROM jobs WHERE id = ?", [jobId]);
   const readings = await q("SELECT * FROM readings WHERE job_id = ? ORDER BY taken_at", [jobId]);
   const flags = await q("SELECT * FROM flags WHERE job_id = ? ORDER BY id", [jobId]);
+  const releases = await q("SELECT * FROM releases WHERE job_id = ? ORDER BY id", [jobId]);
   const decisions = flags.length
     ? await q("SELECT * FROM flag_dispositions WHERE flag_id IN (?) ORDER BY id", [flags.map((f) => f.id)])
     : [];
@@ -32,17 +38,22 @@ async function picture(jobId: number) {
   readings.forEach((r, i) => ids.set(`reading:${r.id}`, `R${i}`));
   flags.forEach((f, i) => ids.set(`flag:${f.id}`, `F${i}`));
   decisions.forEach((d, i) => ids.set(`disposition:${d.id}`, `D${i}`));
+  releases.forEach((r, i) => ids.set(`release:${r.id}`, `S${i}`));
   // A person by role and number (machinist2@…), a gauge by its serial: the same in every bench shop.
   users.forEach((u) => ids.set(`user:${u.id}`, String(u.email).split("@")[0]));
   gauges.forEach((g) => ids.set(`gauge:${g.id}`, String(g.serial)));
   const name = (kind: string, v: unknown) => (v == null ? v : (ids.get(`${kind}:${v}`) ?? `unknown ${kind} ${v}`));
   const json = (v: unknown, key = ""): unknown => {
+    // A release's hash is over the job's own rows (ids, times): checked below against its release.
+    if (key === "hash") return "hash";
+    if (key === "jobCode") return v === job.code ? "the job's code" : `another code ${String(v)}`;
     if (typeof v === "string") return ISO.test(v) ? "time" : (ids.get(`reading:${v}`) ?? v);
     if (typeof v === "number" && /^(jobId|flagId|dispositionId|userId|disposedBy|takenBy)$/.test(key)) {
       const kind = { jobId: "job", flagId: "flag", dispositionId: "disposition" }[key] ?? "user";
       return name(kind, v);
     }
     if (Array.isArray(v)) return v.map((x) => json(x));
+    if (key === "digests") return "digests";
     if (v && typeof v === "object") return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, json(x, k)]));
     return v;
   };
@@ -52,7 +63,8 @@ async function picture(jobId: number) {
         .filter(([k]) => !TIMES.includes(k) && k !== "shop_id")
         .map(([k, v]) => [k, named[k] ? name(named[k], v) : v]),
     );
-  const entity = (type: unknown) => ({ job: "job", job_limits: "job", flag: "flag", reading: "reading" })[String(type)];
+  const entity = (type: unknown) =>
+    ({ job: "job", job_limits: "job", flag: "flag", reading: "reading", release: "release" })[String(type)];
   // Audit events of this job: on the job, its flags, its readings.
   const audits = (await q("SELECT * FROM audit_events WHERE shop_id = ? ORDER BY id", [job.shop_id])).filter((a) =>
     ids.has(`${entity(a.entity_type)}:${a.entity_id}`),
@@ -76,6 +88,15 @@ async function picture(jobId: number) {
       }),
     ),
     decisions: decisions.map((d) => plain(d, { id: "disposition", flag_id: "flag", user_id: "user" })),
+    releases: releases.map((r) => ({
+      ...plain(r, { id: "release", job_id: "job", inspector_id: "user", voided_by: "user" }),
+      // Each is checked on its own below: the copy's own hash, its record kept by its first reader.
+      hash: "hash",
+      record_key: null,
+      record_sha256: null,
+      record_bytes: null,
+      checklist: json(typeof r.checklist === "string" ? JSON.parse(r.checklist) : r.checklist),
+    })),
     audits: audits.map((a) => ({
       ...plain({ ...a, id: null }, { user_id: "user" }),
       entity_id: name(entity(a.entity_type)!, a.entity_id),
@@ -91,7 +112,8 @@ async function picture(jobId: number) {
 
 describe("bench:scale's bulk loader", () => {
   it("writes for a copied job exactly the rows the ingest writes for the same readings", async () => {
-    // A finished job: both passes, flags decided every way (machine again, measure again, accept).
+    // A finished, signed job: both passes, flags decided every way (machine again, measure again,
+    // accept), the inspector's release.
     const variant = VARIANTS.find((v) => v.status === "closed" && v.secondPass && v.settle)!;
     const loaded = await loadScale({ shops: 2, readings: 700, variants: [variant] });
     conn = await mariadb.createConnection(ownerUrl());
@@ -103,12 +125,7 @@ describe("bench:scale's bulk loader", () => {
 
     // The same readings (same figures, gauges and decisions; fresh ids) sent through the ingest.
     const direct = await createV8Job(other, "DIRECT-1");
-    const actors = {
-      machinist: other.people.find((p) => p.role === "machinist")!,
-      lead: other.people.find((p) => p.role === "lead")!,
-      gauge: (stationId: string, value: number, unit: string) => gaugeFor(other, stationId, value, unit),
-    };
-    await runVariant(conn, actors, direct, variant, Date.now() - 3_600_000);
+    await runVariant(conn, actorsOf(other), direct, variant, Date.now() - 3_600_000);
 
     const copied = await picture(Number(copy.id));
     const ingested = await picture(direct);
@@ -121,5 +138,21 @@ describe("bench:scale's bulk loader", () => {
     const text = JSON.stringify(copied, (_k, v) => (typeof v === "bigint" ? String(v) : v));
     expect(text).not.toContain("unknown");
     expect(copied).toEqual(ingested);
+
+    // The copy is signed: its own hash verifies, the sign event names it, and its record is served.
+    expect(copied.releases).toHaveLength(1);
+    for (const jobId of [Number(copy.id), direct])
+      expect((await verifyRelease(other.id, jobId)).status, `job ${jobId}`).toBe("match");
+    const [signed] = await conn.query(
+      `SELECT r.hash, JSON_VALUE(a.after, '$.hash') AS told FROM releases r JOIN audit_events a
+         ON a.entity_type = 'release' AND a.entity_id = r.id AND a.action = 'release.sign' WHERE r.job_id = ?`,
+      [copy.id],
+    );
+    expect(signed.told).toBe(signed.hash);
+    const file = await recordFile(other.id, Number(copy.id));
+    expect(file.kept).toBe(true);
+    expect(file.pdf.subarray(0, 5).toString()).toBe("%PDF-");
+    const [kept] = await conn.query("SELECT record_sha256 AS sha FROM releases WHERE job_id = ?", [copy.id]);
+    expect(kept.sha).toBe(file.sha256);
   }, 300_000);
 });

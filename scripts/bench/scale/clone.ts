@@ -13,6 +13,7 @@ export const TABLES = [
   "readings",
   "flags",
   "flag_dispositions",
+  "releases",
   "audit_events",
   "sync_changes",
 ] as const;
@@ -29,6 +30,8 @@ export type Target = {
   title: string;
   users: Map<number, number>;
   gauges: Map<number, number>;
+  /** The name the copy's inspector signs with (a release's typed signature). */
+  signerName: string;
   endAt: number;
 };
 
@@ -55,6 +58,7 @@ export async function readTemplate(
       ? await q("SELECT * FROM flag_dispositions WHERE flag_id IN (?) ORDER BY id", [flags.map((f) => f.id)])
       : [],
     audit_events: await q("SELECT * FROM audit_events WHERE id > ? AND id <= ? ORDER BY id", audit),
+    releases: await q("SELECT * FROM releases WHERE job_id = ? ORDER BY id", [jobId]),
     sync_changes: await q("SELECT * FROM sync_changes WHERE job_id = ? ORDER BY id", [jobId]),
   };
   return { jobId, shopId: Number(job.shop_id), endAt, rows };
@@ -62,8 +66,9 @@ export async function readTemplate(
 
 const USER_COLUMNS = ["taken_by", "disposed_by", "user_id", "voided_by", "inspector_id"];
 // Keys inside audit JSON naming a row by its number.
-const JSON_KEYS: Record<string, "job" | "flag" | "disposition" | "user"> = {
+const JSON_KEYS: Record<string, "job" | "flag" | "disposition" | "release" | "user"> = {
   jobId: "job",
+  releaseId: "release",
   flagId: "flag",
   dispositionId: "disposition",
   userId: "user",
@@ -76,12 +81,16 @@ type Maps = {
   job: Map<number, number>;
   flag: Map<number, number>;
   disposition: Map<number, number>;
+  release: Map<number, number>;
   user: Map<number, number>;
+  /** Words naming the copy: its code, its signer. */
+  words: Record<string, string>;
   reading: Map<string, string>;
   offset: number;
 };
 
 function mapJson(value: unknown, m: Maps, key = ""): unknown {
+  if (typeof value === "string" && key in m.words) return m.words[key];
   if (typeof value === "string") {
     if (m.reading.has(value)) return m.reading.get(value);
     if (ISO.test(value)) return new Date(Date.parse(value) + m.offset).toISOString();
@@ -109,7 +118,9 @@ export function cloneJob(t: Template, target: Target, ids: Ids): Rows {
     job: new Map([[t.jobId, jobId]]),
     flag: new Map(r.flags.map((f) => [Number(f.id), ids.flags++])),
     disposition: new Map(r.flag_dispositions.map((d) => [Number(d.id), ids.flag_dispositions++])),
+    release: new Map(r.releases.map((x) => [Number(x.id), ids.releases++])),
     user: target.users,
+    words: { jobCode: target.code, typedSignature: target.signerName },
     reading: new Map(r.readings.map((x) => [String(x.id), randomUUID()])),
     offset: target.endAt - t.endAt,
   };
@@ -127,6 +138,7 @@ export function cloneJob(t: Template, target: Target, ids: Ids): Rows {
   const entityId = (type: unknown, id: unknown) => {
     if (type === "job" || type === "job_limits") return String(m.job.get(Number(id)) ?? id);
     if (type === "flag") return String(m.flag.get(Number(id)) ?? id);
+    if (type === "release") return String(m.release.get(Number(id)) ?? id);
     if (type === "reading") return m.reading.get(String(id)) ?? id;
     return id;
   };
@@ -156,6 +168,17 @@ export function cloneJob(t: Template, target: Target, ids: Ids): Rows {
       ...common(d),
       id: m.disposition.get(Number(d.id)),
       flag_id: m.flag.get(Number(d.flag_id)),
+    })),
+    // The hash and its per-item digests are the template's until sealReleases() takes the copy's
+    // own; its record file is rendered and kept by the first reader, as after a storage outage.
+    releases: r.releases.map((x) => ({
+      ...common(x),
+      id: m.release.get(Number(x.id)),
+      signed_name: target.signerName,
+      record_key: null,
+      record_sha256: null,
+      record_bytes: null,
+      record_stored_at: null,
     })),
     audit_events: r.audit_events.map((a) => ({
       ...common(a),

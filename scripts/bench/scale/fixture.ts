@@ -9,9 +9,9 @@ import type { Actor } from "@/lib/schemas/session";
 import type { Role } from "@/lib/schemas/enums";
 import { STREET_V8_INCH } from "../../seed/demo-specs";
 import { createDemoGauges, type BenchGauge } from "../bench-gauges";
+import { BENCH_PLAN } from "../record-fixture-parties";
+import { BENCH_PASSWORD } from "./password";
 
-/** Every bench person's password (the HTTP part of bench:scale signs in with it). */
-export const BENCH_PASSWORD = "bench-scale-pass-2026";
 const HASH = bcrypt.hashSync(BENCH_PASSWORD, 8);
 const ROLES: Role[] = ["machinist", "machinist", "machinist", "lead", "inspector", "admin"];
 const CUSTOMERS = 40;
@@ -46,7 +46,7 @@ export async function createShops(count: number, from = 1): Promise<BenchShop[]>
   return shops;
 }
 
-/** A V8 job in "measuring" with its own copy of the street spec sheet's limits. */
+/** A V8 job in "measuring" with its own copy of the street spec sheet's limits and bench:record's build plan. */
 export async function createV8Job(shop: BenchShop, code: string): Promise<number> {
   const customerId = shop.customerIds[0];
   const engine = await Engine.create({
@@ -72,6 +72,7 @@ export async function createV8Job(shop: BenchShop, code: string): Promise<number
     finishedBore: 4.03,
     finishedMainJournal: 2.449,
     finishedRodJournal: 2.099,
+    buildPlan: BENCH_PLAN,
   });
   await JobLimit.bulkCreate(STREET_V8_INCH.map((l, k) => ({ ...l, jobId: job.id, sortOrder: k })) as never[]);
   return job.id;
@@ -92,4 +93,15 @@ export function gaugeFor(shop: BenchShop, stationId: string, value: number, unit
 /** Each template gauge's counterpart in another shop (the same demo gauge). */
 export function gaugeMap(from: BenchShop, to: BenchShop): Map<number, number> {
   return new Map(from.gauges.map((g, i) => [g.id, to.gauges[i].id]));
+}
+
+/** The shop's people who live a template job: its first machinist, its lead and its inspector. */
+export function actorsOf(shop: BenchShop) {
+  const one = (role: Role) => shop.people.find((p) => p.role === role)!;
+  return {
+    machinist: one("machinist"),
+    lead: one("lead"),
+    inspector: one("inspector"),
+    gauge: (stationId: string, value: number, unit: string) => gaugeFor(shop, stationId, value, unit),
+  };
 }

@@ -8,8 +8,9 @@
 import mariadb, { type Connection } from "mariadb";
 import { loadavg } from "node:os";
 import { getSequelize } from "@/lib/server/core/db";
-import { TABLES, cloneJob, readTemplate, type Ids, type Template } from "./clone";
-import { createShops, createV8Job, gaugeFor, gaugeMap, peopleMap, type BenchShop } from "./fixture";
+import { TABLES, cloneJob, readTemplate, type Ids, type Row, type Template } from "./clone";
+import { actorsOf, createShops, createV8Job, gaugeMap, peopleMap, type BenchShop } from "./fixture";
+import { isSignEvent, sealReleases } from "./seal";
 import { runVariant } from "./templates";
 import { VARIANTS, statusAt, type Variant } from "./variants";
 import { BulkWriter } from "./writer";
@@ -57,12 +58,7 @@ async function makeTemplates(conn: Connection, shops: BenchShop[], variants: Var
     const shop = shops[v.id % shops.length];
     const jobId = await createV8Job(shop, `T-${v.id + 1}`);
     const before = await maxId(conn, "audit_events");
-    const actors = {
-      machinist: shop.people.find((p) => p.role === "machinist")!,
-      lead: shop.people.find((p) => p.role === "lead")!,
-      gauge: (stationId: string, value: number, unit: string) => gaugeFor(shop, stationId, value, unit),
-    };
-    await runVariant(conn, actors, jobId, v, endAt);
+    await runVariant(conn, actorsOf(shop), jobId, v, endAt);
     const t = await readTemplate(conn, jobId, endAt, [before, await maxId(conn, "audit_events")]);
     templates.set(v.id, { ...t, shop });
     log(`  template ${v.id + 1}/${variants.length} (${v.status}, ${t.rows.readings.length} readings) [${load()}]`);
@@ -122,6 +118,7 @@ export async function loadScale(opts: LoadOptions = {}): Promise<LoadSummary> {
     const now = Date.now();
     let readings = [...templates.values()].reduce((n, t) => n + t.rows.readings.length, 0);
     let reported = 0;
+    const [releases, signEvents]: Row[][] = [[], []];
     for (const [i, s] of slots.entries()) {
       const ageDays = ((s.n - s.k) / s.n) * HISTORY_DAYS;
       const rows = cloneJob(
@@ -133,20 +130,30 @@ export async function loadScale(opts: LoadOptions = {}): Promise<LoadSummary> {
           title: `Street V8 rebuild ${s.k + 1} of shop ${s.index + 1}`,
           users: peopleMap(s.template.shop, s.shop),
           gauges: gaugeMap(s.template.shop, s.shop),
+          signerName: s.shop.people.find((p) => p.role === "inspector")!.name,
           endAt: now - Math.max(ageDays * DAY, 2 * 3_600_000),
         },
         ids,
       );
+      // A copied release's sign event names its hash, taken once its rows are in (seal.ts).
+      signEvents.push(...rows.audit_events.filter(isSignEvent));
+      rows.audit_events = rows.audit_events.filter((a) => !isSignEvent(a));
+      releases.push(...rows.releases);
       for (const t of TABLES) await writer.add(t, rows[t]);
       readings += rows.readings.length;
       if (i + 1 === slots.length || (i + 1) / slots.length >= reported + 0.1) {
         reported = Math.floor(((i + 1) / slots.length) * 10) / 10;
-        log(
-          `  ${i + 1} jobs, ${readings.toLocaleString("en-US")} readings (${((performance.now() - t0) / 1000).toFixed(0)} s) [${load()}]`,
-        );
+        const seconds = ((performance.now() - t0) / 1000).toFixed(0);
+        log(`  ${i + 1} jobs, ${readings.toLocaleString("en-US")} readings (${seconds} s) [${load()}]`);
       }
     }
     await writer.finish(TABLES);
+    const sealing = performance.now();
+    await sealReleases(conn, releases, signEvents, writer);
+    log(
+      `  ${releases.length} copied releases sealed with their own hash in ` +
+        `${((performance.now() - sealing) / 1000).toFixed(0)} s [${load()}]`,
+    );
     await conn.query("SET SESSION foreign_key_checks = 1, unique_checks = 1");
     return {
       shops,

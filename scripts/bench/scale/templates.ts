@@ -1,6 +1,7 @@
 // One job's life through the real server code (benchmark data only): the machinist's readings go
 // through the ingest of POST /api/sync in batches of 100, the lead decides flags through the
-// disposition service, the machined sections are measured again, and the job ends in its status.
+// disposition service, the machined sections are measured again, the inspector signs a finished
+// job's release (the real signature, hash and stored record), and the job ends in its status.
 // The rows this writes are what load.ts copies; tests/integration/scale-loader.test.ts compares.
 import type { Connection } from "mariadb";
 import type { PushReadingInput } from "@/lib/schemas/sync";
@@ -8,14 +9,16 @@ import type { Actor } from "@/lib/schemas/session";
 import type { DispositionInput } from "@/lib/schemas/flag";
 import { ingestBatch } from "@/lib/server/sync/ingest";
 import { disposeFlag } from "@/lib/server/flags/disposition";
+import { signRelease } from "@/lib/server/release/sign";
 import { lcg, valueFor } from "../sync-readings";
-import { isMachined, passes, type GaugePick, type Variant } from "./variants";
+import { BENCH_PASSWORD } from "./password";
+import { isMachined, isSigned, passes, type GaugePick, type Variant } from "./variants";
 
 const BATCH = 100;
 export const BENCH_DEVICE = "bench-tablet-1";
 const ACCEPT_REASON = "Within the engine maker's service limit for this build (benchmark data)";
 
-export type ShopActors = { machinist: Actor; lead: Actor; gauge: GaugePick };
+export type ShopActors = { machinist: Actor; lead: Actor; inspector: Actor; gauge: GaugePick };
 
 async function send(actor: Actor, readings: PushReadingInput[]) {
   for (let i = 0; i < readings.length; i += BATCH) {
@@ -79,12 +82,15 @@ export async function runVariant(conn: Connection, actors: ShopActors, jobId: nu
   if (v.settle)
     for (const f of await undecided(conn, jobId))
       await disposeFlag(actors.lead, f.id, { kind: "accept", reason: ACCEPT_REASON });
-  if (v.status !== "measuring") {
-    // The status a job ends in (the desk's status change); a closed job stays locked.
-    await conn.query("UPDATE jobs SET status = ?, locked_at = ? WHERE id = ?", [
-      v.status,
-      v.status === "closed" ? new Date(endAt) : null,
-      jobId,
-    ]);
+  if (isSigned(v)) {
+    // The inspector's e-signature (name and password again): the release, its hash, the stored record.
+    const { inspector } = actors;
+    await signRelease(inspector, jobId, { fullName: inspector.name, password: BENCH_PASSWORD }).catch((err) => {
+      const told = JSON.stringify((err as { fields?: unknown }).fields ?? {});
+      throw new Error(`The bench's signature was refused: ${String(err)} ${told.slice(0, 1500)}`);
+    });
   }
+  // The status a job ends in (the desk's status change); a signed job keeps the lock of its release.
+  if (v.status !== "measuring" && v.status !== "released")
+    await conn.query("UPDATE jobs SET status = ? WHERE id = ?", [v.status, jobId]);
 }

@@ -37,20 +37,32 @@ const variant = (id: number, status: JobStatus, fill: number, more: Partial<Vari
   ...more,
 });
 
-/** Finished jobs (closed, in review) have both passes and every flag decided; work in hand is partial. */
+/**
+ * Finished jobs (released, closed, in review) have every flag decided; released and closed ones
+ * are signed by the inspector. Four closed jobs in ten had their bores, journals and deck machined
+ * and measured again (second pass); the rest were measured once. Work in hand is partly measured.
+ */
 export const VARIANTS: Variant[] = [
-  ...Array.from({ length: 10 }, (_, i) => variant(i, "closed", 1, { secondPass: true, decideShare: 1, settle: true })),
+  ...Array.from({ length: 10 }, (_, i) => variant(i, "closed", 1, { secondPass: i < 4, decideShare: 1, settle: true })),
   ...Array.from({ length: 3 }, (_, i) => variant(10 + i, "review", 1, { secondPass: true, decideShare: 0.6 })),
   ...[0.15, 0.35, 0.55, 0.8, 1].map((fill, i) => variant(13 + i, "measuring", fill, { decideShare: 0.5 })),
   variant(18, "intake", 0),
+  ...[true, false].map((secondPass, i) => variant(19 + i, "released", 1, { secondPass, decideShare: 1, settle: true })),
 ];
 
-/** The status of the k-th job (oldest first) of a shop of n jobs: old work is closed, new work in hand. */
+/** Whether a variant's job is signed (released, then perhaps closed). */
+export const isSigned = (v: Variant) => v.status === "released" || v.status === "closed";
+
+/**
+ * The status of the k-th job (oldest first) of a shop of n jobs: old work is closed, the last few
+ * signed jobs wait to be collected (released), new work is in hand.
+ */
 export function statusAt(k: number, n: number): JobStatus {
   const age = 1 - k / n; // 1 = oldest
-  if (age > 0.2) return "closed";
-  if (age > 0.12) return "review";
-  if (age > 0.03) return "measuring";
+  if (age > 0.16) return "closed";
+  if (age > 0.12) return "released";
+  if (age > 0.08) return "review";
+  if (age > 0.02) return "measuring";
   return "intake";
 }
 
