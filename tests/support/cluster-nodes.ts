@@ -24,7 +24,8 @@ export function serverCodeOnNode(i: number): void {
 
 const connections = new Map<number, Sequelize>();
 
-function nodeDb(i: number): Sequelize {
+/** A Sequelize of its own on node i (the app account), for plain SQL and held transactions there. */
+export function nodeDb(i: number): Sequelize {
   let db = connections.get(i);
   if (!db)
     connections.set(i, (db = new Sequelize(nodeUrl(i), { dialect: "mariadb", logging: false, timezone: "+00:00" })));
