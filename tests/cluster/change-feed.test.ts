@@ -115,7 +115,7 @@ describe("change feed across nodes", () => {
     const received: string[] = [];
     const read = async () => {
       await everyNodeCaughtUp();
-      const rows = await changesSince([job], cursor); // the feed's own query, on the third node
+      const rows = await changesSince(s.shop.id, [job], cursor); // the feed's own query, on the third node
       received.push(...rows.map((r) => r.entityId));
       if (rows.length) cursor = String(rows.at(-1)!.seq);
     };
