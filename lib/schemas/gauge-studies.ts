@@ -7,7 +7,9 @@ import type {
   StudyThresholds,
   Type1Result,
 } from "@/lib/domain/gauge-studies/types";
+import type { Consequences } from "@/lib/domain/consequences";
 import type { StudyKind } from "./enums";
+import type { ChangePreview } from "./job-views";
 import { GAUGE_FIGURE_PRECISION, LIMIT_PRECISION, keptBy } from "./stored-figure";
 import { storedText } from "./stored-text";
 
@@ -78,6 +80,8 @@ export const type1StudyInput = z.object({
   }),
   /** Extra characteristics to judge besides those the gauge is used for on open jobs. */
   characteristics: z.array(characteristic).max(20, "Judge at most 20 characteristics at once").default([]),
+  /** A save that opens many flags is held back until this equals the number it opens (the preview says it). */
+  confirmedFlagsOpened: z.number().int().min(0).nullish(),
 });
 
 const measurement = z.object({
@@ -104,12 +108,19 @@ export const grrStudyInput = z.object({
   tolerance: figure("The tolerance").positive("The tolerance T must be above zero").optional(),
 });
 
-export const studyInput = z.discriminatedUnion("kind", [type1StudyInput, grrStudyInput], {
-  error: "Say which study this is: kind type1 (repeatability) or grr (R&R)",
-});
+// R&R studies are taken once the core's ANOVA is in; until then the routes take repeatability studies.
+export const studyInput = type1StudyInput;
 export type StudyInput = z.output<typeof studyInput>;
 export type Type1StudyInput = z.output<typeof type1StudyInput>;
 export type GrrStudyInput = z.output<typeof grrStudyInput>;
+
+/** What saving a study does to the open jobs the gauge was used on, in all and per job. */
+export type StudyConsequences = ChangePreview & {
+  jobs: { jobId: number; code: string; consequences: Consequences; words: string }[];
+};
+/** The preview: the study as it would be kept (no id yet) and its consequences. */
+export type StudyPreview = StudyConsequences & { study: Omit<GaugeStudyRecord, "id"> & { id: null } };
+export type StudySaved = StudyConsequences & { study: GaugeStudyRecord };
 
 /** The shop's study thresholds as the admin edits them. */
 export const studySettingsSchema = z.object({

@@ -1,7 +1,7 @@
 // What the tablet holds of the server's data: the job pack (GET /api/bench/jobs/:jobId), the sync
 // feed (GET /api/sync) and their parts. The routes are described in lib/schemas/sync.ts, which
 // re-exports these types.
-import type { BenchRoute, EngineShape, JobStatus, SpecLimit, Verdict } from "@/lib/domain";
+import type { BenchRoute, EngineShape, GaugeStudySummary, JobStatus, SpecLimit, Verdict } from "@/lib/domain";
 import type { Disposition, FlagReason, FlagState, UnitSystem } from "./enums";
 import type { StoredReading } from "./readings";
 
@@ -80,6 +80,11 @@ export type BenchInstrument = {
   calibrationDue: string | null;
   dialPlusMeansSmaller: boolean;
   active: boolean;
+  /**
+   * The gauge's latest capability study (its repeatability joins the verdict's uncertainty, its
+   * due date and pass marks decide the gauge's flags); null or absent: none on file.
+   */
+  study?: GaugeStudySummary | null;
 };
 
 /** The halves the lead chose for one bearing point, as the tablet shows them at its installed-bore stations. */

@@ -1,5 +1,5 @@
 import "server-only";
-import { Op, type Transaction } from "sequelize";
+import { Op, QueryTypes, type Transaction } from "sequelize";
 import type { GaugeStudy, Shop, User } from "@/models";
 import type {
   GaugeStudySummary,
@@ -11,7 +11,8 @@ import type {
 import type { GaugeStudyRecord, StudySettings } from "@/lib/schemas/gauge-studies";
 import type { JsonObject, JsonValue } from "@/lib/schemas/json";
 import type { StudyKind } from "@/lib/schemas/enums";
-import { models } from "@/lib/server/core/db";
+import { OPEN_JOB_STATUSES } from "@/lib/domain/job-lock";
+import { getSequelize, models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 
 // Gauge studies: the feature's one door to the database, plain objects out. A study is kept as
@@ -186,4 +187,69 @@ export async function saveStudySettings(
     { transaction: t },
   );
   return { before, after: settingsOf(shop) };
+}
+
+/** What a study needs of its gauge: unit, step and setting master (404 for another shop's). */
+export type StudyGauge = {
+  id: number;
+  label: string;
+  serial: string;
+  unit: string;
+  resolution: number;
+  active: boolean;
+  master: { label: string | null; size: number; expandedU: number } | null;
+};
+
+export async function studyGaugeOrThrow(shopId: number, id: number, t?: Transaction): Promise<StudyGauge> {
+  const g = await models().Instrument.findOne({ where: { id, shopId }, transaction: t });
+  if (!g) throw notFound("Gauge");
+  return {
+    id: g.id,
+    label: g.label,
+    serial: g.serial,
+    unit: g.unit,
+    resolution: g.resolution,
+    active: g.active,
+    master:
+      g.masterSize !== null && g.masterSize !== undefined
+        ? { label: g.masterLabel ?? null, size: g.masterSize, expandedU: g.masterU ?? 0 }
+        : null,
+  };
+}
+
+// Jobs that still take readings: an open status and not locked (lib/domain/job-lock.ts says the same).
+const OPEN_JOB = "j.status IN (:open) AND j.locked_at IS NULL";
+
+/** The open jobs with readings taken with this gauge, by code. */
+export async function openJobsUsingGauge(
+  t: Transaction,
+  shopId: number,
+  instrumentId: number,
+): Promise<{ id: number; code: string }[]> {
+  const rows = await getSequelize().query<{ id: number; code: string }>(
+    `SELECT DISTINCT j.id, j.code FROM readings r JOIN jobs j ON j.id = r.job_id
+      WHERE r.shop_id = :shopId AND r.instrument_id = :instrumentId AND ${OPEN_JOB} ORDER BY j.code, j.id`,
+    { replacements: { shopId, instrumentId, open: [...OPEN_JOB_STATUSES] }, type: QueryTypes.SELECT, transaction: t },
+  );
+  return rows.map((r) => ({ id: Number(r.id), code: String(r.code) }));
+}
+
+/**
+ * The tightest tolerance T (upper − lower limit, in the reading's unit) of each characteristic this
+ * gauge has judged on open jobs: the tolerances a study of it must answer for.
+ */
+export async function gaugeTolerances(
+  t: Transaction,
+  shopId: number,
+  instrumentId: number,
+): Promise<{ characteristic: string; unit: string; tolerance: number }[]> {
+  const rows = await getSequelize().query<{ characteristic: string; unit: string; tolerance: unknown }>(
+    `SELECT r.characteristic, r.unit_entered AS unit, MIN(r.limit_max - r.limit_min) AS tolerance
+      FROM readings r JOIN jobs j ON j.id = r.job_id
+      WHERE r.shop_id = :shopId AND r.instrument_id = :instrumentId AND ${OPEN_JOB}
+        AND r.limit_min IS NOT NULL AND r.limit_max IS NOT NULL AND r.limit_max > r.limit_min
+      GROUP BY r.characteristic, r.unit_entered ORDER BY r.characteristic, r.unit_entered`,
+    { replacements: { shopId, instrumentId, open: [...OPEN_JOB_STATUSES] }, type: QueryTypes.SELECT, transaction: t },
+  );
+  return rows.map((r) => ({ characteristic: r.characteristic, unit: r.unit, tolerance: Number(r.tolerance) }));
 }

@@ -1,13 +1,14 @@
 import "server-only";
-import { Op, QueryTypes, type Transaction } from "sequelize";
+import { QueryTypes, type Transaction } from "sequelize";
 import { decimalToNumber } from "@/models";
 import { correctedBy } from "@/lib/domain";
 import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
-import { getSequelize, models } from "@/lib/server/core/db";
+import { getSequelize } from "@/lib/server/core/db";
 import { causalRows } from "@/lib/server/core/cluster";
 import { sqlRows, sqlWrite, utcDate, utcText } from "@/lib/server/core/sql-driver";
 import { insertMany } from "@/lib/server/core/sql-insert";
-import { instrumentInfo, orNull, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
+import { orNull, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
+import { latestStudySql, studyFromSql } from "@/lib/server/gauge-studies/summary-sql";
 
 // Readings and the gauges they were taken with. Plain objects out; every query scoped by shop or
 // by a job the caller has already checked belongs to the shop.
@@ -136,7 +137,8 @@ export async function jobReadingPage(
 const GAUGE_COLUMNS = `g.id AS gId, g.shop_id AS gShopId, g.kind AS gKind, g.label AS gLabel, g.serial AS gSerial,
   g.unit AS gUnit, g.resolution AS gResolution, g.expanded_u AS gExpandedU, g.coverage_k AS gCoverageK,
   g.range_min AS gRangeMin, g.range_max AS gRangeMax,
-  g.calibration_due AS gCalibrationDue, g.dial_plus_means_smaller AS gDial, g.active AS gActive`;
+  g.calibration_due AS gCalibrationDue, g.dial_plus_means_smaller AS gDial, g.active AS gActive,
+  ${latestStudySql("g")} AS gStudy`;
 const JOINED_COLUMNS = selectList("r.");
 
 function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
@@ -161,6 +163,7 @@ function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
           : String(due).slice(0, 10),
     dialPlusMeansSmaller: !!row.gDial,
     active: !!row.gActive,
+    study: studyFromSql(row.gStudy),
   };
 }
 
@@ -215,6 +218,14 @@ export async function updateEvaluation(
   await sqlWrite(t, UPDATE_EVALUATION, [...EVALUATION_FIELDS.map((k) => e[k]), new Date(), id]);
 }
 
+/** Gauges outside a transaction, with their latest study, by the same columns as the hot path. */
+function gaugeRows(where: string, replacements: unknown[]): Promise<Record<string, unknown>[]> {
+  return getSequelize().query<Record<string, unknown>>(`SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE ${where}`, {
+    replacements,
+    type: QueryTypes.SELECT,
+  });
+}
+
 /** The shop's gauges with these ids (other shops' ids are simply absent). */
 export async function findInstruments(
   t: Transaction | undefined,
@@ -229,8 +240,8 @@ export async function findInstruments(
     ]);
     return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
   }
-  const rows = await models().Instrument.findAll({ where: { shopId, id: { [Op.in]: [...new Set(ids)] } } });
-  return new Map(rows.map((i) => [i.id, instrumentInfo(i)]));
+  const rows = await gaugeRows("g.shop_id = ? AND g.id IN (?)", [shopId, [...new Set(ids)]]);
+  return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
 }
 
 /**
@@ -245,15 +256,8 @@ export async function batchInstruments(t: Transaction, shopId: number): Promise<
 }
 
 export async function shopInstruments(shopId: number): Promise<InstrumentInfo[]> {
-  const rows = await models().Instrument.findAll({
-    where: { shopId },
-    order: [
-      ["kind", "ASC"],
-      ["label", "ASC"],
-      ["id", "ASC"],
-    ],
-  });
-  return rows.map(instrumentInfo);
+  const rows = await gaugeRows("g.shop_id = ? ORDER BY g.kind, g.label, g.id", [shopId]);
+  return rows.map(gaugeOf);
 }
 
 /** Readings with these ids within the given jobs (the feed's and the pack's view). */

@@ -20,6 +20,7 @@ type StoredInstrument = Pick<InstrumentInfo, "id" | "shopId" | "kind" | "label" 
   calibrationDue?: string | null;
   dialPlusMeansSmaller?: unknown;
   active?: unknown;
+  study?: BenchInstrument["study"];
 };
 
 /** A DECIMAL column that may be empty, as a number or null. */
@@ -42,6 +43,7 @@ export function instrumentInfo(i: StoredInstrument): InstrumentInfo {
     calibrationDue: i.calibrationDue ?? null,
     dialPlusMeansSmaller: !!i.dialPlusMeansSmaller,
     active: !!i.active,
+    study: i.study ?? null,
   };
 }
 
