@@ -5,3 +5,4 @@ export { checkGrrDesign, checkStudyFigures, checkType1Readings, GRR_DESIGN, TYPE
 export { capabilityFor, meanAndSd, type1Study } from "./type1";
 export { gaugeBudget, type GaugeBudgetInput } from "./budget";
 export { grrAnova, POOL_INTERACTION_ABOVE_P } from "./grr";
+export { studyProblem, type StudyProblem, type StudyProblemKind, type StudyUse } from "./study-problem";
