@@ -4,7 +4,7 @@
 // the production server's peak memory over HTTP (scripts/bench/scale/memory.ts), and prints the
 // build record's time (npm run bench:record).
 // Every figure is printed with the load average: a busy machine's figures are not final.
-import { execFileSync, spawnSync } from "node:child_process";
+import { execFileSync, spawn, spawnSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -16,6 +16,15 @@ type Lib = {
   freePort(): Promise<number>;
 };
 const lib = (name: string) => `./lib/${name}.mjs`.replace("./lib", "../lib");
+
+/** Runs a node child to its end while this process keeps serving the fakes; its exit status. */
+function run(args: string[], env: NodeJS.ProcessEnv): Promise<number> {
+  const child = spawn(process.execPath, args, { stdio: "inherit", env });
+  return new Promise((resolve, reject) => {
+    child.on("error", reject);
+    child.on("exit", (code) => resolve(code ?? 1));
+  });
+}
 
 async function main() {
   const { startServices } = (await import(lib("services"))) as Lib;
@@ -37,12 +46,12 @@ async function main() {
       env,
     });
     // Server modules import the "server-only" marker; the child maps it to a stub (tsconfig.sync.json).
-    const child = spawnSync(
-      process.execPath,
+    // Spawned without blocking: the fake S3 and SMTP run in this process and must answer the child
+    // (the templates' signatures store their records).
+    status = await run(
       ["node_modules/tsx/dist/cli.mjs", "--tsconfig", "scripts/bench/tsconfig.sync.json", "scripts/bench/scale/run.ts"],
-      { stdio: "inherit", env: { ...env, NODE_ENV: "production", TW_DATA_ROOT: dataRoot } },
+      { ...env, NODE_ENV: "production", TW_DATA_ROOT: dataRoot },
     );
-    status = child.status ?? 1;
     if (status === 0 && !(await measureServerMemory(env, join(dataRoot, "scale-subject.json")))) status = 1;
     // The build record's time is helper bench:record's (no database; an in-memory full V8).
     console.log("bench:scale  the build record (npm run bench:record, 5 renders):");
