@@ -129,10 +129,10 @@ describe("accessibility audit (axe-core, WCAG 2.2 AA), bright and dim", () => {
     expect(await audit("admin", paths)).toEqual([]);
   });
 
-  it("the machinist's bench: job list and job screen", { timeout: LONG }, async () => {
+  it("the machinist's bench: job list, job screen and gauge studies", { timeout: LONG }, async () => {
     const paths = async (page: Page) => {
       const jobs = (await get<{ jobs: { id: number }[] }>(page, "/api/bench/jobs")).jobs;
-      return ["/bench", `/bench/job?id=${jobs[0].id}`];
+      return ["/bench", `/bench/job?id=${jobs[0].id}`, "/bench/studies"];
     };
     expect(await audit("machinist", paths)).toEqual([]);
   });

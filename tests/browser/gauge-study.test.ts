@@ -3,6 +3,7 @@
 // readings as keystrokes (a spread worse than the gauge's certificate), sees the result with Cg
 // and Cgk and what saving changes, saves it, and the job's marginal bore reading (4.0302 in, just
 // inside its upper limit) changes verdict because the gauge's uncertainty now counts the study.
+import AxeBuilder from "@axe-core/playwright";
 import type { Page } from "playwright-core";
 import { afterAll, describe, expect, it } from "vitest";
 import { demo, launchBrowser, newTabletPage, screenshot, signIn } from "../support/browser";
@@ -42,6 +43,15 @@ const DIAL = [
 ];
 
 type Reading = { id: string; stationId: string; value: number | null; verdict: string | null; instrumentId?: number };
+/** Serious and critical WCAG 2.2 AA findings on screen (a run's screens need a run, so they are checked here). */
+async function axeFindings(page: Page): Promise<string[]> {
+  const tags = ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa"];
+  const result = await new AxeBuilder({ page }).withTags(tags).analyze();
+  return result.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .flatMap((v) => v.nodes.map((n) => `${v.id}: ${n.target.join(" ")} — ${n.failureSummary}`));
+}
+
 const jobReadings = (page: Page, jobId: string): Promise<Reading[]> =>
   page.evaluate(async (id) => (await (await fetch(`/api/bench/jobs/${id}`)).json()).readings, jobId);
 
@@ -70,12 +80,14 @@ describe("a gauge study on the tablet", () => {
       await expect.poll(() => page.getByTestId("study-count").textContent()).toMatch(new RegExp(`^${i + 1} of 25`));
     }
     await screenshot(page, "gauge-study-entry-1024x768");
+    expect(await axeFindings(page)).toEqual([]);
     await page.getByRole("button", { name: "Work out the result" }).click();
     await page.getByTestId("study-characteristics").waitFor({ timeout: 30_000 });
     const words = await page.getByTestId("study-consequences").textContent();
     expect(words).toMatch(/changes \d+ verdicts?/);
     expect(await page.getByTestId("study-characteristics").textContent()).toMatch(/Bore/i);
     await screenshot(page, "gauge-study-result-1024x768");
+    expect(await axeFindings(page)).toEqual([]);
     await page.setViewportSize({ width: 800, height: 1280 });
     await screenshot(page, "gauge-study-result-800x1280");
     await page.setViewportSize({ width: 1024, height: 768 });
