@@ -4,10 +4,6 @@ import { gaugeFigure } from "./figures";
 import { StudyPass } from "./study-pass";
 
 const index = (x: number | null) => (x === null ? "—" : x.toFixed(2));
-const nameOf = (c: string) => {
-  const words = characteristicWords(c);
-  return words && words !== c ? words : c.replace(/_/g, " ");
-};
 
 /** Mean, s, bias and its t-test, then Cg, Cgk and resolution per characteristic with pass or fail. */
 export function Type1Figures({ result, resolution, unit }: { result: Type1Result; resolution: number; unit: string }) {
@@ -55,7 +51,7 @@ export function Type1Figures({ result, resolution, unit }: { result: Type1Result
           <tbody>
             {result.perCharacteristic.map((c) => (
               <tr key={`${c.characteristic}-${c.tolerance}`} className="border-t border-rule align-top">
-                <td className="py-2 pr-2">{nameOf(c.characteristic)}</td>
+                <td className="py-2 pr-2">{characteristicWords(c.characteristic)}</td>
                 <td className="py-2 pr-2 font-mono tabular">{gaugeFigure(c.tolerance, resolution)}</td>
                 <td className="py-2 pr-2 font-mono tabular">{index(c.cg)}</td>
                 <td className="py-2 pr-2 font-mono tabular">{index(c.cgk)}</td>
