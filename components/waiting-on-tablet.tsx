@@ -11,9 +11,14 @@ type Seen = { notice: SignOutNotice | null; people: WaitingPerson[] };
 
 const count = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;
 
-function what(p: { readings: number; photos: number }): string {
-  const parts = [p.readings ? count(p.readings, "reading") : "", p.photos ? count(p.photos, "photo") : ""];
-  return parts.filter(Boolean).join(" and ");
+function what(p: { readings: number; photos: number; studies?: number }): string {
+  const parts = [
+    p.readings ? count(p.readings, "reading") : "",
+    p.photos ? count(p.photos, "photo") : "",
+    // A notice kept by a version before studies has none.
+    p.studies ? `${p.studies} gauge ${p.studies === 1 ? "study" : "studies"} in progress` : "",
+  ].filter(Boolean);
+  return parts.length > 1 ? `${parts.slice(0, -1).join(", ")} and ${parts.at(-1)}` : (parts[0] ?? "");
 }
 
 async function reportNow(): Promise<void> {
@@ -59,9 +64,9 @@ export function WaitingOnTablet() {
       {notice && (
         <div data-testid="signed-out-notice" data-waiting={notice.readings}>
           <Notice title={`${notice.name} signed out; the bench is locked`}>
-            {notice.readings + notice.photos > 0
+            {notice.readings + notice.photos + (notice.studies ?? 0) > 0
               ? `${what(notice)} by ${notice.name} wait on this tablet. ` +
-                `They are sent when ${notice.name} next signs in here, and never under anyone else's sign-in.`
+                `They wait for ${notice.name}'s next sign-in here, and are never sent or shown under anyone else's.`
               : `Nothing of ${notice.name}'s was waiting to be sent.`}
           </Notice>
         </div>
@@ -74,7 +79,7 @@ export function WaitingOnTablet() {
           <ul className="flex flex-col gap-1">
             {people.map((p) => (
               <li key={p.userId} data-user={p.userId} data-readings={p.readings}>
-                {p.name}: {what(p)}, sent when they sign in here
+                {p.name}: {what(p)}, waiting for them to sign in here
               </li>
             ))}
           </ul>

@@ -12,6 +12,8 @@ export interface SignOutNotice {
   name: string;
   readings: number;
   photos: number;
+  /** Gauge studies in progress (lib/offline/study-drafts.ts), kept for their person's next sign-in. */
+  studies: number;
   at: string;
 }
 
@@ -21,6 +23,7 @@ export interface WaitingPerson {
   name: string;
   readings: number;
   photos: number;
+  studies: number;
 }
 
 const ENDED = "endedSessions";
@@ -39,14 +42,15 @@ export async function rememberActor(db: BenchDb, actor: DeviceActor): Promise<vo
 
 /** Locks the tablet for the person signed in now; null when nobody was. Never needs the network. */
 export async function lockDevice(db: BenchDb, now = new Date()): Promise<SignOutNotice | null> {
-  return db.transaction("rw", db.meta, db.outbox, db.photos, async () => {
+  return db.transaction("rw", [db.meta, db.outbox, db.photos, db.studyDrafts], async () => {
     const actor = await getMeta<DeviceActor>(db, "actor");
     await db.meta.delete("actor");
     if (!actor) return null;
     if (actor.sessionId) await setMeta(db, ENDED, [...(await endedSessions(db)), actor.sessionId]);
     const readings = await db.outbox.where("takenBy").equals(actor.userId).count();
     const photos = await db.photos.filter((p) => p.state === "pending" && p.takenBy === actor.userId).count();
-    const notice = { name: actor.name, readings, photos, at: now.toISOString() };
+    const studies = await db.studyDrafts.where("userId").equals(actor.userId).count();
+    const notice = { name: actor.name, readings, photos, studies, at: now.toISOString() };
     await setMeta(db, NOTICE, notice);
     return notice;
   });
@@ -90,19 +94,27 @@ export async function reportEndedSessions(db: BenchDb, fetchFn: Fetch = fetch, t
   return true;
 }
 
-/** Everyone whose readings or photos still wait on this tablet, most waiting first. */
+/** Everyone whose readings, photos or gauge studies still wait on this tablet, most waiting first. */
 export async function waitingByPerson(db: BenchDb): Promise<WaitingPerson[]> {
-  return db.transaction("r", db.meta, db.outbox, db.photos, async () => {
+  return db.transaction("r", [db.meta, db.outbox, db.photos, db.studyDrafts], async () => {
     const names = (await getMeta<Record<string, string>>(db, PEOPLE)) ?? {};
     const people = new Map<number, WaitingPerson>();
     const person = (userId: number) => {
-      const known = people.get(userId) ?? { userId, name: names[userId] ?? "Someone", readings: 0, photos: 0 };
+      const known = people.get(userId) ?? {
+        userId,
+        name: names[userId] ?? "Someone",
+        readings: 0,
+        photos: 0,
+        studies: 0,
+      };
       people.set(userId, known);
       return known;
     };
     await db.outbox.each((row) => void person(row.takenBy).readings++);
     await db.photos.filter((p) => p.state === "pending").each((p) => void person(p.takenBy).photos++);
-    return [...people.values()].sort((a, b) => b.readings + b.photos - (a.readings + a.photos));
+    await db.studyDrafts.each((s) => void person(s.userId).studies++);
+    const waiting = (p: WaitingPerson) => p.readings + p.photos + p.studies;
+    return [...people.values()].sort((a, b) => waiting(b) - waiting(a));
   });
 }
 

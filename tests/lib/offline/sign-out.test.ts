@@ -59,11 +59,16 @@ describe("signing out on a shared tablet", () => {
     const db = await rosaWithTwoWaiting();
     await signOutHere(db, offline, 50);
     expect(await getMeta(db, "actor")).toBeUndefined();
-    expect(await getMeta<SignOutNotice>(db, NOTICE)).toMatchObject({ name: "Rosa", readings: 2, photos: 0 });
+    expect(await getMeta<SignOutNotice>(db, NOTICE)).toMatchObject({
+      name: "Rosa",
+      readings: 2,
+      photos: 0,
+      studies: 0,
+    });
     expect((await db.outbox.toArray()).map((r) => r.takenBy)).toEqual([7, 7]);
     expect(await db.readings.count()).toBe(2);
     expect(await endedSessions(db)).toEqual([ROSA.sessionId]);
-    expect(await waitingByPerson(db)).toEqual([{ userId: 7, name: "Rosa", readings: 2, photos: 0 }]);
+    expect(await waitingByPerson(db)).toEqual([{ userId: 7, name: "Rosa", readings: 2, photos: 0, studies: 0 }]);
   });
 
   it("with nobody signed in on the tablet there is nothing to lock or report", async () => {
@@ -110,7 +115,7 @@ describe("signing out on a shared tablet", () => {
     expect(pushedAs).toEqual(["9"]);
     expect([...server.stored.values()].map((s) => s.sent.stationId)).toEqual(["bore/2/top/A"]);
     expect((await db.outbox.toArray()).map((r) => r.takenBy)).toEqual([7, 7]);
-    expect(await waitingByPerson(db)).toEqual([{ userId: 7, name: "Rosa", readings: 2, photos: 0 }]);
+    expect(await waitingByPerson(db)).toEqual([{ userId: 7, name: "Rosa", readings: 2, photos: 0, studies: 0 }]);
 
     await signOutHere(db, offline, 50);
     await rememberActor(db, { ...ROSA, sessionId: "c".repeat(32) });
@@ -128,8 +133,8 @@ describe("signing out on a shared tablet", () => {
     await recordReading(db, bore("bore/2/top/A", 4.0303), { deviceId: "tab-test", takenBy: DEV.userId });
     await setMeta(db, "people", { 7: "Rosa" }); // Dev's name forgotten (an old tablet): still counted
     expect(await waitingByPerson(db)).toEqual([
-      { userId: 7, name: "Rosa", readings: 2, photos: 0 },
-      { userId: 9, name: "Someone", readings: 1, photos: 0 },
+      { userId: 7, name: "Rosa", readings: 2, photos: 0, studies: 0 },
+      { userId: 9, name: "Someone", readings: 1, photos: 0, studies: 0 },
     ]);
   });
 });

@@ -3,7 +3,7 @@
 import "fake-indexeddb/auto";
 import { describe, expect, it } from "vitest";
 import { BenchDb } from "@/lib/offline/db";
-import { lockDevice } from "@/lib/offline/sign-out";
+import { lockDevice, waitingByPerson } from "@/lib/offline/sign-out";
 import { setMeta } from "@/lib/offline/meta";
 import {
   addGrrValue,
@@ -64,7 +64,11 @@ describe("study drafts", () => {
     await setMeta(db, "actor", { userId: 7, shopId: 1, name: "Rosa", email: "r@x.example", role: "machinist" });
     await startDraft(db, 7, { kind: "type1", gauge: GAUGE, reference: REF, readings: [4.0301] });
     await startDraft(db, 9, { kind: "type1", gauge: GAUGE, reference: REF, readings: [4.0299, 4.0298] });
-    await lockDevice(db);
+    expect(await lockDevice(db)).toMatchObject({ name: "Rosa", readings: 0, photos: 0, studies: 1 });
+    expect(await waitingByPerson(db)).toEqual([
+      { userId: 7, name: "Someone", readings: 0, photos: 0, studies: 1 },
+      { userId: 9, name: "Someone", readings: 0, photos: 0, studies: 1 },
+    ]);
     expect((await draftsOf(db, 7)).map((r) => r.draft)).toEqual([expect.objectContaining({ readings: [4.0301] })]);
     expect((await draftOf(db, 9, "type1"))?.readings).toEqual([4.0299, 4.0298]);
     await discardDraft(db, 7, "type1");
