@@ -28,6 +28,8 @@ import * as addSyncChangesSeq from "./20261204020000-add-sync-changes-seq";
 import * as createJobProgress from "./20261204050000-create-job-progress";
 import * as addReleasesRecordFile from "./20261204060000-add-releases-record-file";
 import * as createBearingTables from "./20261204080000-create-bearing-tables";
+import * as addFlagsQueueKeys from "./20261205010000-add-flags-queue-keys";
+import * as addAuditEventsJob from "./20261205011000-add-audit-events-job";
 import * as addReadingsJobSupersedesIndex from "./20261205020000-add-readings-job-supersedes-index";
 import * as createGaugeStudies from "./20261205030000-create-gauge-studies";
 import * as addSyncChangesShopSeq from "./20261205040000-add-sync-changes-shop-seq";
@@ -67,6 +69,8 @@ export const migrations: Migration[] = [
   step("20261204050000-create-job-progress", createJobProgress),
   step("20261204060000-add-releases-record-file", addReleasesRecordFile),
   step("20261204080000-create-bearing-tables", createBearingTables),
+  step("20261205010000-add-flags-queue-keys", addFlagsQueueKeys),
+  step("20261205011000-add-audit-events-job", addAuditEventsJob),
   step("20261205020000-add-readings-job-supersedes-index", addReadingsJobSupersedesIndex),
   step("20261205030000-create-gauge-studies", createGaugeStudies),
   step("20261205040000-add-sync-changes-shop-seq", addSyncChangesShopSeq),

@@ -51,6 +51,10 @@ export class Flag extends Model<InferAttributes<Flag>, InferCreationAttributes<F
   declare disposedAt: CreationOptional<Date | null>;
   declare closedAt: CreationOptional<Date | null>;
   declare closedByReadingId: CreationOptional<string | null>;
+  /** When the value was judged: its reading's time, or the flag's own for a computed value (a trigger sets it). */
+  declare judgedAt: CreationOptional<Date | null>;
+  /** The job's code, kept by triggers for the queue's job sort. */
+  declare jobCode: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -87,6 +91,8 @@ export function initFlag(sequelize: Sequelize): void {
       disposedAt: datetime(true),
       closedAt: datetime(true),
       closedByReadingId: uuidRef(),
+      judgedAt: datetime(true),
+      jobCode: str(24, true),
       ...stamps(),
     },
     modelOptions(sequelize, "flags", "both"),

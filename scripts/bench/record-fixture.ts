@@ -140,6 +140,8 @@ function flagsOf(rows: StoredReading[]): Pick<JobRecord, "flags" | "dispositions
     disposedAt: at,
     closedAt: null,
     closedByReadingId: null,
+    judgedAt: r.takenAt,
+    jobCode: "BENCH-V8",
     createdAt: r.takenAt,
     updatedAt: at,
   }));

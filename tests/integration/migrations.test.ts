@@ -12,6 +12,7 @@ import { APPEND_ONLY_MESSAGE } from "../../migrations/20261201001000-create-audi
 import { CONTEXT_TRIGGERS } from "../../migrations/20261202000200-add-jobs-context-revision";
 import { SEQUENCE_TRIGGERS } from "../../migrations/20261204020000-add-sync-changes-seq";
 import { PROGRESS_TRIGGERS } from "../../migrations/20261204050000-create-job-progress";
+import { FLAG_KEY_TRIGGERS } from "../../migrations/20261205010000-add-flags-queue-keys";
 import { MIGRATED_TABLES, migrations } from "../../migrations/index";
 
 // npm test provides an empty scratch database for this file, so dropping every table never
@@ -146,6 +147,8 @@ describe("migrations", () => {
         ...CONTEXT_TRIGGERS,
         ...SEQUENCE_TRIGGERS,
         ...PROGRESS_TRIGGERS,
+        ...FLAG_KEY_TRIGGERS,
+        "audit_events_job",
       ].sort(),
     );
   });

@@ -14,7 +14,7 @@ import { recordFile } from "@/lib/server/record/stored";
 
 type Row = Record<string, unknown>;
 const TIMES = [
-  ...["created_at", "updated_at", "received_at", "taken_at", "disposed_at", "closed_at", "locked_at"],
+  ...["created_at", "updated_at", "received_at", "taken_at", "disposed_at", "closed_at", "locked_at", "judged_at"],
   ...["signed_at", "voided_at", "record_stored_at"],
 ];
 const ISO = /^\d{4}-\d\d-\d\dT[\d:.]+Z$/;
@@ -70,6 +70,12 @@ async function picture(jobId: number) {
     ids.has(`${entity(a.entity_type)}:${a.entity_id}`),
   );
   const changes = await q("SELECT * FROM sync_changes WHERE job_id = ? ORDER BY id", [jobId]);
+  const takenAt = new Map(readings.map((r) => [r.id, (r.taken_at as Date).getTime()]));
+  const judgedAt = (f: Row) => {
+    const at = (f.judged_at as Date).getTime();
+    if (f.reading_id != null) return at === takenAt.get(f.reading_id) ? "its reading's time" : "another time";
+    return at === (f.created_at as Date).getTime() ? "its own time" : "another time";
+  };
   return {
     job: { status: job.status, locked: job.locked_at !== null, unit: job.unit_system, bore: job.finished_bore },
     limits: (await q("SELECT * FROM job_limits WHERE job_id = ? ORDER BY sort_order", [jobId])).map((l) =>
@@ -78,15 +84,17 @@ async function picture(jobId: number) {
     readings: readings.map((r) =>
       plain(r, { id: "reading", supersedes: "reading", job_id: "job", taken_by: "user", instrument_id: "gauge" }),
     ),
-    flags: flags.map((f) =>
-      plain(f, {
+    flags: flags.map((f) => ({
+      ...plain(f, {
         id: "flag",
         job_id: "job",
         reading_id: "reading",
         closed_by_reading_id: "reading",
         disposed_by: "user",
       }),
-    ),
+      job_code: f.job_code === job.code ? "the job's code" : f.job_code,
+      judged_at: judgedAt(f),
+    })),
     decisions: decisions.map((d) => plain(d, { id: "disposition", flag_id: "flag", user_id: "user" })),
     releases: releases.map((r) => ({
       ...plain(r, { id: "release", job_id: "job", inspector_id: "user", voided_by: "user" }),
@@ -98,7 +106,7 @@ async function picture(jobId: number) {
       checklist: json(typeof r.checklist === "string" ? JSON.parse(r.checklist) : r.checklist),
     })),
     audits: audits.map((a) => ({
-      ...plain({ ...a, id: null }, { user_id: "user" }),
+      ...plain({ ...a, id: null }, { user_id: "user", job_id: "job" }),
       entity_id: name(entity(a.entity_type)!, a.entity_id),
       before: json(typeof a.before === "string" ? JSON.parse(a.before) : a.before),
       after: json(typeof a.after === "string" ? JSON.parse(a.after) : a.after),

@@ -39,7 +39,7 @@ export function toListItem(f: LoadedFlag): FlagListItem {
     takenBy: f.reading?.taker?.name ?? null,
     takenAt: iso(f.reading?.takenAt),
     createdAt: iso(f.createdAt) as string,
-    judgedAt: iso(f.reading?.takenAt ?? f.createdAt) as string,
+    judgedAt: iso(f.judgedAt ?? f.createdAt) as string,
   };
 }
 

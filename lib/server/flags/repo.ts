@@ -1,8 +1,16 @@
 import "server-only";
-import { Op, literal, type InferAttributes, type Order, type Transaction, type WhereOptions } from "sequelize";
+import { Op, type InferAttributes, type Order, type Transaction, type WhereOptions } from "sequelize";
 import type { Disposition } from "@/lib/schemas/enums";
 import type { FlagListQuery } from "@/lib/schemas/flag";
-import type { Flag, FlagDisposition, Instrument, Job, Reading, User } from "@/models";
+import {
+  decimalToNumber,
+  type Flag,
+  type FlagDisposition,
+  type Instrument,
+  type Job,
+  type Reading,
+  type User,
+} from "@/models";
 import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 
@@ -62,37 +70,49 @@ function whereOf(shopId: number, q: FlagListQuery): WhereOptions {
   };
 }
 
-function orderOf(q: FlagListQuery): Order {
-  const dir = q.dir === "asc" ? "ASC" : "DESC";
-  // Age counts from the judged reading's time (the flag's own time for a computed value, which has
-  // no one reading), as toListItem's judgedAt; it grows as that time falls.
-  const flip = dir === "ASC" ? "DESC" : "ASC";
-  // The query aliases the flags table by the model's name, which the production build minifies: ask for it.
-  const judgedAt = literal(`COALESCE(\`reading\`.\`taken_at\`, \`${models().Flag.name}\`.\`created_at\`)`);
-  const by: Record<FlagListQuery["sort"], Order> = {
-    age: [[judgedAt, flip]],
-    job: [
-      [{ model: models().Job, as: "job" }, "code", dir],
+// Each sort is walked along its own index (migration 20261205010000), forwards for one direction
+// and backwards for the other, tie-breakers included, so a page reads only its own rows. ENUMs sort
+// by their position (marginal < out_of_spec, open < disposed < closed): an enum sort's forward walk
+// is "worst first, oldest first". Age grows as the judged time falls: its forward walk is oldest first.
+const SORT_INDEX: Record<FlagListQuery["sort"], { forward: FlagListQuery["dir"]; keys: [string, "ASC" | "DESC"][] }> = {
+  age: { forward: "desc", keys: [["judgedAt", "ASC"]] },
+  job: {
+    forward: "asc",
+    keys: [
+      ["jobCode", "ASC"],
       ["stationId", "ASC"],
     ],
-    station: [["stationId", dir]],
-    value: [["value", dir]],
-    deviation: [["deviation", dir]],
-    // ENUMs sort by their position: in_spec < marginal < out_of_spec, open < disposed < closed.
-    verdict: [
-      ["verdict", dir],
-      ["createdAt", "ASC"],
+  },
+  station: { forward: "asc", keys: [["stationId", "ASC"]] },
+  value: { forward: "asc", keys: [["value", "ASC"]] },
+  deviation: { forward: "asc", keys: [["deviation", "ASC"]] },
+  verdict: {
+    forward: "desc",
+    keys: [
+      ["verdict", "DESC"],
+      ["judgedAt", "ASC"],
     ],
-    reason: [
-      ["reason", dir],
-      ["createdAt", "ASC"],
+  },
+  reason: {
+    forward: "desc",
+    keys: [
+      ["reason", "DESC"],
+      ["judgedAt", "ASC"],
     ],
-    state: [
-      ["state", dir],
-      ["createdAt", "ASC"],
+  },
+  state: {
+    forward: "desc",
+    keys: [
+      ["state", "DESC"],
+      ["judgedAt", "ASC"],
     ],
-  };
-  return [...(by[q.sort] as unknown[]), ["id", "ASC"]] as Order;
+  },
+};
+
+function orderOf(q: FlagListQuery): Order {
+  const { forward, keys } = SORT_INDEX[q.sort];
+  const turn = (d: "ASC" | "DESC") => (q.dir === forward ? d : d === "ASC" ? "DESC" : "ASC");
+  return [...keys, ["id", "ASC"] as const].map(([k, d]) => [k, turn(d)]) as Order;
 }
 
 /** One page of the shop's flags matching `q`, and how many match in all. */
@@ -107,9 +127,30 @@ export async function flagPage(shopId: number, q: FlagListQuery): Promise<{ tota
       order: orderOf(q),
       limit: q.pageSize,
       offset: (q.page - 1) * q.pageSize,
+      // Plain nested rows: building model instances for each include cost most of a page's CPU.
+      raw: true,
+      nest: true,
     }),
   ]);
-  return { total, rows: rows.map((r) => plain<LoadedFlag>(r)) };
+  return { total, rows: rows.map((r) => fromRaw(r as unknown as Nested)) };
+}
+
+type Row = Record<string, unknown> & { id: unknown };
+type Nested = Row & { job: Row; disposer: Row; reading: Row & { instrument: Row; taker: Row } };
+const FLAG_DECIMALS = ["value", "limitMin", "limitMax", "deviation"] as const;
+// A left join that found no row comes back from `nest` as an object of nulls.
+const found = <T extends Row>(o: T): T | null => (o.id == null ? null : o);
+
+function fromRaw(row: Nested): LoadedFlag {
+  const reading = found(row.reading);
+  const out: Record<string, unknown> = {
+    ...row,
+    job: found(row.job),
+    disposer: found(row.disposer),
+    reading: reading && { ...reading, instrument: found(reading.instrument), taker: found(reading.taker) },
+  };
+  for (const k of FLAG_DECIMALS) out[k] = decimalToNumber(row[k]);
+  return out as unknown as LoadedFlag;
 }
 
 /** A flag of this shop with its job, gauge, taker and disposer; 404 for any other shop's. */

@@ -63,23 +63,10 @@ export async function recordAudits(t: Transaction, events: AuditInput[]): Promis
 }
 
 // Reads of the append-only audit trail, filtered and paged in the database. Events carry an
-// entity, not a job, so each event's job is worked out in SQL: the job itself, the job of a
-// reading / flag / release / attachment, else a jobId written in the event's after or before.
-
-const JOB_OF_EVENT = `CAST(CASE e.entity_type
-  WHEN 'job' THEN e.entity_id
-  WHEN 'job_limits' THEN e.entity_id
-  WHEN 'reading' THEN (SELECT r.job_id FROM readings r WHERE r.id = e.entity_id AND r.shop_id = e.shop_id)
-  WHEN 'flag' THEN (SELECT f.job_id FROM flags f WHERE f.id = CAST(e.entity_id AS UNSIGNED) AND f.shop_id = e.shop_id)
-  WHEN 'release' THEN (SELECT rl.job_id FROM releases rl
-    WHERE rl.id = CAST(e.entity_id AS UNSIGNED) AND rl.shop_id = e.shop_id)
-  WHEN 'attachment' THEN CASE JSON_VALUE(e.after, '$.ownerType')
-    WHEN 'job' THEN JSON_VALUE(e.after, '$.ownerId')
-    WHEN 'reading' THEN (SELECT r2.job_id FROM readings r2
-      WHERE r2.id = JSON_VALUE(e.after, '$.ownerId') AND r2.shop_id = e.shop_id)
-    END
-  ELSE COALESCE(JSON_VALUE(e.after, '$.jobId'), JSON_VALUE(e.before, '$.jobId'))
-END AS UNSIGNED)`;
+// entity, not a job: each event's job is worked out once, as it is written, by a trigger
+// (migration 20261205011000), so a filter by job and the job column read a column. A page's ids
+// are found inside one index (shop_id, <filter>, id), newest first, and only its rows are read:
+// ordered by the primary key instead, the whole table newer than the shop's events would be walked.
 
 // Milliseconds, in UTC (the connection's time zone is +00:00), as ISO 8601.
 const AT = `CONCAT(DATE_FORMAT(e.created_at, '%Y-%m-%dT%H:%i:%s.'),
@@ -124,25 +111,32 @@ function where(shopId: number, q: AuditQuery) {
     parts.push("e.created_at < DATE_ADD(:to, INTERVAL 1 DAY)");
     r.to = q.to;
   }
-  const inner = `SELECT e.id, e.user_id, e.action, e.entity_type, e.entity_id, e.before, e.after,
-      ${AT} AS at, ${JOB_OF_EVENT} AS job_id
-    FROM audit_events e WHERE ${parts.join(" AND ")}`;
-  if (q.job) r.job = q.job;
-  return { sql: `FROM (${inner}) x${q.job ? " WHERE x.job_id = :job" : ""}`, replacements: r };
+  if (q.job) {
+    parts.push("e.job_id = :job");
+    r.job = q.job;
+  }
+  return { sql: `FROM audit_events e WHERE ${parts.join(" AND ")}`, replacements: r };
 }
 
 /** One page of the shop's events matching `q`, newest first, and how many match in all. */
 export async function auditRows(shopId: number, q: AuditQuery): Promise<{ total: number; rows: AuditRow[] }> {
   const sequelize = getSequelize();
   const { sql, replacements } = where(shopId, q);
-  const [{ n }] = await sequelize.query<{ n: number | string | bigint }>(`SELECT COUNT(*) AS n ${sql}`, {
-    type: QueryTypes.SELECT,
-    replacements,
-  });
-  const rows = await sequelize.query<AuditRow>(`SELECT x.* ${sql} ORDER BY x.id DESC LIMIT :limit OFFSET :offset`, {
-    type: QueryTypes.SELECT,
-    replacements: { ...replacements, limit: q.pageSize, offset: (q.page - 1) * q.pageSize },
-  });
+  const columns = `e.id, e.user_id, e.action, e.entity_type, e.entity_id, e.before, e.after, ${AT} AS at, e.job_id`;
+  const [[{ n }], rows] = await Promise.all([
+    sequelize.query<{ n: number | string | bigint }>(`SELECT COUNT(*) AS n ${sql}`, {
+      type: QueryTypes.SELECT,
+      replacements,
+    }),
+    sequelize.query<AuditRow>(
+      `SELECT ${columns} FROM (SELECT e.id ${sql} ORDER BY e.id DESC LIMIT :limit OFFSET :offset) page
+        JOIN audit_events e ON e.id = page.id ORDER BY e.id DESC`,
+      {
+        type: QueryTypes.SELECT,
+        replacements: { ...replacements, limit: q.pageSize, offset: (q.page - 1) * q.pageSize },
+      },
+    ),
+  ]);
   return { total: Number(n), rows };
 }
 

@@ -24,20 +24,27 @@ const STATES: Record<FlagListQuery["state"], string> = {
   closed: "f.state = 'closed'",
   all: "1",
 };
-const FLAG_ORDER: Record<FlagListQuery["sort"], (d: string, flip: string) => string> = {
-  age: (_d, flip) => `COALESCE(r.taken_at, f.created_at) ${flip}`,
-  job: (d) => `j.code ${d}, f.station_id ASC`,
-  station: (d) => `f.station_id ${d}`,
-  value: (d) => `f.value ${d}`,
-  deviation: (d) => `f.deviation ${d}`,
-  verdict: (d) => `f.verdict ${d}, f.created_at ASC`,
-  reason: (d) => `f.reason ${d}, f.created_at ASC`,
-  state: (d) => `f.state ${d}, f.created_at ASC`,
+// Each sort's keys in the order of its index (migration 20261205010000), and the direction that
+// walks it forwards; the other direction walks it backwards, every key turned.
+const FLAG_KEYS: Record<FlagListQuery["sort"], { forward: FlagListQuery["dir"]; keys: string[] }> = {
+  age: { forward: "desc", keys: ["f.judged_at ASC"] },
+  job: { forward: "asc", keys: ["f.job_code ASC", "f.station_id ASC"] },
+  station: { forward: "asc", keys: ["f.station_id ASC"] },
+  value: { forward: "asc", keys: ["f.value ASC"] },
+  deviation: { forward: "asc", keys: ["f.deviation ASC"] },
+  verdict: { forward: "desc", keys: ["f.verdict DESC", "f.judged_at ASC"] },
+  reason: { forward: "desc", keys: ["f.reason DESC", "f.judged_at ASC"] },
+  state: { forward: "desc", keys: ["f.state DESC", "f.judged_at ASC"] },
 };
+const turn = (key: string) => (key.endsWith(" ASC") ? key.replace(/ ASC$/, " DESC") : key.replace(/ DESC$/, " ASC"));
+
+function flagOrder(q: FlagListQuery): string {
+  const { forward, keys } = FLAG_KEYS[q.sort];
+  const all = [...keys, "f.id ASC"];
+  return (q.dir === forward ? all : all.map(turn)).join(", ");
+}
 
 function rawFlagPage(shopId: number, q: FlagListQuery) {
-  const d = q.dir === "asc" ? "ASC" : "DESC";
-  const flip = d === "ASC" ? "DESC" : "ASC";
   const where = [`f.shop_id = ${shopId}`, STATES[q.state]];
   if (q.job) where.push(`f.job_id = ${q.job}`);
   if (q.verdict) where.push(`f.verdict = '${q.verdict}'`);
@@ -49,10 +56,10 @@ function rawFlagPage(shopId: number, q: FlagListQuery) {
       c.query(
         `SELECT f.*, j.code, j.title, j.status, j.unit_system, j.locked_at, u.name AS disposer,
            r.taken_at, r.instrument_id, r.taken_by, i.label, i.serial, i.calibration_due, t.name AS taker
-         FROM flags f JOIN jobs j ON j.id = f.job_id LEFT JOIN users u ON u.id = f.disposed_by
+         FROM flags f LEFT JOIN jobs j ON j.id = f.job_id LEFT JOIN users u ON u.id = f.disposed_by
            LEFT JOIN readings r ON r.id = f.reading_id LEFT JOIN instruments i ON i.id = r.instrument_id
            LEFT JOIN users t ON t.id = r.taken_by
-         WHERE ${w} ORDER BY ${FLAG_ORDER[q.sort](d, flip)}, f.id ASC LIMIT ${q.pageSize} OFFSET 0`,
+         WHERE ${w} ORDER BY ${flagOrder(q)} LIMIT ${q.pageSize} OFFSET 0`,
       ),
     ]);
 }
@@ -79,6 +86,18 @@ function flagCases(s: Subject): Case[] {
     return { name: `flag queue: ${label}`, app: () => listFlags(s.shopId, q), raw: rawFlagPage(s.shopId, q) };
   });
 }
+
+// The page's ids inside the filter's index (shop_id, <filter>, id), newest first, then their rows.
+const rawAuditPage = (where: string, args: unknown[]) => (c: Connection) =>
+  Promise.all([
+    c.query(`SELECT COUNT(*) AS n FROM audit_events e WHERE ${where}`, args),
+    c.query(
+      `SELECT e.*, j.code, u.name FROM (SELECT e.id FROM audit_events e WHERE ${where} ORDER BY e.id DESC LIMIT 25) page
+         JOIN audit_events e ON e.id = page.id LEFT JOIN jobs j ON j.id = e.job_id LEFT JOIN users u ON u.id = e.user_id
+        ORDER BY e.id DESC`,
+      args,
+    ),
+  ]);
 
 const jobRows = (c: Connection, jobId: number) =>
   Promise.all([
@@ -155,24 +174,12 @@ export function cases(s: Subject): Case[] {
     {
       name: "audit trail: first page",
       app: () => queryAudit(s.shopId, audit),
-      raw: (c) =>
-        Promise.all([
-          c.query("SELECT COUNT(*) AS n FROM audit_events WHERE shop_id = ?", [s.shopId]),
-          c.query("SELECT * FROM audit_events WHERE shop_id = ? ORDER BY id DESC LIMIT 25", [s.shopId]),
-        ]),
+      raw: rawAuditPage("e.shop_id = ?", [s.shopId]),
     },
     {
       name: "audit trail: one job",
       app: () => queryAudit(s.shopId, auditJob),
-      raw: (c) =>
-        c.query(
-          `SELECT * FROM audit_events WHERE shop_id = ? AND (
-             (entity_type = 'job' AND entity_id = ?)
-             OR (entity_type = 'flag' AND entity_id IN (SELECT CAST(id AS CHAR) FROM flags WHERE job_id = ?))
-             OR (entity_type = 'reading' AND entity_id IN (SELECT id FROM readings WHERE job_id = ?)))
-           ORDER BY id DESC LIMIT 25`,
-          [s.shopId, String(s.jobId), s.jobId, s.jobId],
-        ),
+      raw: rawAuditPage("e.shop_id = ? AND e.job_id = ?", [s.shopId, s.jobId]),
     },
     {
       name: "sync feed: catch-up of 5 held jobs",

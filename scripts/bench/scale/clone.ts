@@ -161,6 +161,7 @@ export function cloneJob(t: Template, target: Target, ids: Ids): Rows {
     flags: r.flags.map((f) => ({
       ...common(f),
       id: m.flag.get(Number(f.id)),
+      job_code: target.code,
       reading_id: reading(f.reading_id),
       closed_by_reading_id: reading(f.closed_by_reading_id),
     })),
@@ -183,6 +184,7 @@ export function cloneJob(t: Template, target: Target, ids: Ids): Rows {
     audit_events: r.audit_events.map((a) => ({
       ...common(a),
       id: ids.audit_events++,
+      job_id: a.job_id == null ? null : jobId,
       entity_id: entityId(a.entity_type, a.entity_id),
       before: json(a.before, m),
       after: json(a.after, m),

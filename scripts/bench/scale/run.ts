@@ -29,6 +29,15 @@ function line(t: Timed): string {
   );
 }
 
+// EXPLAIN's verdict of each side: the indexes of the big tables it uses, or what it scans or sorts.
+function planLine(t: Timed): string {
+  const side = (p: Timed["plans"]["app"]) =>
+    p.findings.length
+      ? `${p.findings.length} scan/filesort: ${p.findings.map((x) => x.split(" in: ")[0]).join("; ")}`
+      : `index only: ${p.indexes.join(", ") || "no big table"}`;
+  return `      EXPLAIN app ${side(t.plans.app)} | raw ${side(t.plans.raw)}`;
+}
+
 async function subject(summary: Awaited<ReturnType<typeof loadScale>>): Promise<Subject & { leadEmail: string }> {
   const shop = summary.shops[1] ?? summary.shops[0];
   const conn = await mariadb.createConnection(ownerUrl());
@@ -84,7 +93,9 @@ async function main() {
     const out = line(t);
     if (out.includes("MISS")) missed++;
     console.log(out);
+    console.log(planLine(t));
     findings.push(...t.findings.map((x) => `  ${t.name}: ${x}`));
+    findings.push(...t.plans.raw.findings.map((x) => `  ${t.name} (raw): ${x}`));
   }
   console.log(
     findings.length

@@ -5,7 +5,16 @@ import type { Connection } from "mariadb";
 import { getSequelize } from "@/lib/server/core/db";
 
 export type Case = { name: string; app: () => Promise<unknown>; raw: (c: Connection) => Promise<unknown> };
-export type Timed = { name: string; app: number[]; raw: number[]; cold: number; findings: string[] };
+/** What EXPLAIN shows of one side's statements: what is wrong, and the indexes of big tables used. */
+export type Plan = { findings: string[]; indexes: string[] };
+export type Timed = {
+  name: string;
+  app: number[];
+  raw: number[];
+  cold: number;
+  findings: string[];
+  plans: Record<"app" | "raw", Plan>;
+};
 
 /** Nearest-rank percentile (p in 0..100). */
 export function percentile(values: number[], p: number): number {
@@ -33,38 +42,75 @@ export async function capture(fn: () => Promise<unknown>): Promise<string[]> {
   return seen.filter((s) => /^\s*SELECT/i.test(s));
 }
 
-type PlanRow = { table: string | null; type: string | null; rows: number | string | null; Extra: string | null };
-// The tables that grow with the history: a scan or sort of all of one is what must not happen.
-const BIG = /^(readings|flags|flag_dispositions|audit_events|sync_changes|jobs|engines|job_limits|job_progress)$/;
+type PlanRow = {
+  table: string | null;
+  type: string | null;
+  key: string | null;
+  rows: number | string | null;
+  Extra: string | null;
+};
+// EXPLAIN names a table by its alias, so every table is judged by its rows: a scan of more than a
+// few thousand, or a filesort of more than a page's worth of thousands, is what must not happen.
+const SCAN_ROWS = 2000;
+const SORT_ROWS = 20000;
 
-/** What EXPLAIN shows wrong with a statement: a full scan, or a filesort over many rows, of a big table. */
-export async function explain(conn: Connection, sql: string): Promise<string[]> {
-  const plan: PlanRow[] = await conn.query(`EXPLAIN ${sql}`);
-  const out: string[] = [];
+/** What EXPLAIN shows of a statement: a full scan, or a filesort over many rows, of a big table; the indexes used. */
+export async function explain(conn: Connection, sql: string, args?: unknown): Promise<Plan> {
+  const plan: PlanRow[] = await conn.query(`EXPLAIN ${sql}`, args);
+  const out: Plan = { findings: [], indexes: [] };
   for (const p of plan) {
     const rows = Number(p.rows ?? 0);
-    if (!p.table || !BIG.test(p.table.replace(/`/g, ""))) continue;
-    if (p.type === "ALL" && rows > 2000) out.push(`full scan of ${p.table} (~${rows} rows)`);
-    else if (p.Extra?.includes("filesort") && rows > 20000) out.push(`filesort over ${p.table} (~${rows} rows)`);
+    const table = p.table?.replace(/`/g, "") ?? "";
+    if (p.key) out.indexes.push(p.key);
+    if (p.type === "ALL" && rows > SCAN_ROWS) out.findings.push(`full scan of ${table} (~${rows} rows)`);
+    else if (p.Extra?.includes("filesort") && rows > SORT_ROWS)
+      out.findings.push(`filesort over ${table} (~${rows} rows)`);
   }
   return out;
+}
+
+/** The SELECTs the raw side sends (through a connection that notes them), with their arguments. */
+async function rawStatements(conn: Connection, c: Case): Promise<[string, unknown][]> {
+  const seen: [string, unknown][] = [];
+  const noting = new Proxy(conn, {
+    get: (target, key) =>
+      key === "query"
+        ? (sql: string, args?: unknown) => (seen.push([sql, args]), target.query(sql, args))
+        : Reflect.get(target, key),
+  });
+  await c.raw(noting);
+  return seen.filter(([s]) => /^\s*SELECT/i.test(s));
+}
+
+async function planOf(conn: Connection, statements: [string, unknown][]): Promise<Plan> {
+  const all: Plan = { findings: [], indexes: [] };
+  for (const [sql, args] of statements) {
+    const p = await explain(conn, sql, args).catch((e: Error) => ({
+      findings: [`EXPLAIN failed: ${e.message.slice(0, 80)}`],
+      indexes: [],
+    }));
+    all.findings.push(...p.findings.map((f) => `${f} in: ${sql.replace(/\s+/g, " ").slice(0, 110)}…`));
+    all.indexes.push(...p.indexes);
+  }
+  return { findings: all.findings, indexes: [...new Set(all.indexes)] };
 }
 
 /** Times a case: a cold first call, warm-up, then `n` runs of the server function and the raw SQL in turn. */
 export async function timeCase(conn: Connection, c: Case, n: number): Promise<Timed> {
   const cold = await ms(c.app);
   const statements = await capture(c.app);
-  await c.raw(conn);
-  const app: number[] = [];
   const raw: number[] = [];
+  const plans = {
+    app: await planOf(
+      conn,
+      statements.map((s) => [s, undefined]),
+    ),
+    raw: await planOf(conn, await rawStatements(conn, c)),
+  };
+  const app: number[] = [];
   for (let i = 0; i < n; i++) {
     app.push(await ms(c.app));
     raw.push(await ms(() => c.raw(conn)));
   }
-  const findings: string[] = [];
-  for (const s of statements) {
-    for (const f of await explain(conn, s).catch((e: Error) => [`EXPLAIN failed: ${e.message.slice(0, 80)}`]))
-      findings.push(`${f} in: ${s.replace(/\s+/g, " ").slice(0, 110)}…`);
-  }
-  return { name: c.name, app, raw, cold, findings };
+  return { name: c.name, app, raw, cold, findings: plans.app.findings, plans };
 }
