@@ -2,8 +2,7 @@
 
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { consequenceWords, isWideChange } from "@/lib/domain";
-import type { StudyPreview } from "./use-study-preview";
+import type { StudyPreview } from "@/lib/schemas/gauge-studies";
 
 // What saving the study does before it is saved: the readings of open jobs taken with this gauge
 // are judged again with its new uncertainty, counted by the server running the very save.
@@ -15,18 +14,26 @@ interface Props {
 }
 
 export function SavePanel({ preview, saving, error, onSave }: Props) {
-  const { consequences } = preview;
-  const words = consequenceWords(consequences);
+  const { consequences, jobs, wide, words } = preview;
   return (
     <section className="flex flex-col gap-2 rounded-tool border-2 border-steel bg-panel p-3" aria-label="Saving">
       <p className="text-lg font-semibold" data-testid="study-consequences">
         Saving this study {words} on open jobs measured with this gauge.
       </p>
+      {jobs.length > 0 && (
+        <ul className="flex flex-col gap-0.5 text-base" aria-label="Per job">
+          {jobs.map((j) => (
+            <li key={j.jobId}>
+              <span className="font-mono font-semibold">{j.code}</span>: {j.words}
+            </li>
+          ))}
+        </ul>
+      )}
       <p className="text-sm text-muted">
         From then on this gauge&apos;s uncertainty counts the study&apos;s repeatability, so readings near a limit may
         change verdict.
       </p>
-      {isWideChange(consequences) && (
+      {wide && (
         <Notice tone="caution" title="A wide change">
           It opens {consequences.flagsOpened} flags the lead will see on the desk. Save only if the study was run as it
           should be.

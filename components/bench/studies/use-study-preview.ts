@@ -1,14 +1,11 @@
 "use client";
 
 import { useCallback, useEffect, useRef, useState } from "react";
-import type { Consequences } from "@/lib/domain";
-import type { GaugeStudyRecord } from "@/lib/schemas/gauge-studies";
+import type { GaugeStudyRecord, StudyPreview, StudySaved } from "@/lib/schemas/gauge-studies";
 import { failureWords, postStudy, studyBody } from "@/lib/offline/study-api";
 import { discardDraft } from "@/lib/offline/study-drafts";
 import type { StudyDraft } from "@/lib/offline/study-draft-shape";
 import { useBench } from "@/components/bench/bench-context";
-
-export type StudyPreview = { study: GaugeStudyRecord; consequences: Consequences };
 
 type State =
   | { kind: "asking" }
@@ -43,7 +40,7 @@ export function useStudyPreview(draft: StudyDraft, onSaved: (study: GaugeStudyRe
     setSaveError(undefined);
     setState({ kind: "saving", preview });
     try {
-      const { study } = await postStudy<{ study: GaugeStudyRecord }>(draft.gauge.id, draft, false, {
+      const { study } = await postStudy<StudySaved>(draft.gauge.id, draft, false, {
         confirmedFlagsOpened: preview.consequences.flagsOpened,
       });
       // The screen learns first (the run's screen closes once its kept copy is gone).

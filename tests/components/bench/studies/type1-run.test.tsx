@@ -13,6 +13,7 @@ import type { EngineHandle } from "@/lib/offline/engine-handle";
 import { draftOf, startDraft } from "@/lib/offline/study-drafts";
 import { type1Study, DEFAULT_STUDY_THRESHOLDS } from "@/lib/domain/gauge-studies";
 import type { BenchInstrument } from "@/lib/schemas/sync";
+import { consequenceWords } from "@/lib/domain";
 
 vi.mock("next/navigation", () => ({ useSearchParams: () => new URLSearchParams(window.location.search) }));
 configure({ asyncUtilTimeout: 8000 });
@@ -67,11 +68,14 @@ async function mount(kept: number[] = []) {
     dueOn: "2027-12-03",
   };
   const consequences = { flagsOpened: 1, flagsClosed: 0, verdictsChanged: 1, requiredStations: 1 };
+  const words = consequenceWords(consequences);
+  const preview = { consequences, words, wide: false, jobs: [{ jobId: 12, code: "KF-2611", consequences, words }] };
   const server = vi.fn(async (url: RequestInfo | URL, init?: RequestInit) => {
     const path = String(url);
     if (path === "/api/bench/gauges") return Response.json({ instruments: [GAUGE] });
-    if (path === "/api/gauges/3/studies/preview") return Response.json({ study, consequences });
-    if (path === "/api/gauges/3/studies" && init?.method === "POST") return Response.json({ study }, { status: 201 });
+    if (path === "/api/gauges/3/studies/preview") return Response.json({ ...preview, study });
+    if (path === "/api/gauges/3/studies" && init?.method === "POST")
+      return Response.json({ ...preview, study }, { status: 201 });
     return Response.json({ error: { code: "not_found", message: "Not found" } }, { status: 404 });
   });
   vi.stubGlobal("fetch", server);
@@ -88,7 +92,7 @@ async function mount(kept: number[] = []) {
     </BenchProvider>,
   );
   const input = (await screen.findByTestId("entry")) as HTMLInputElement;
-  return { db, input, server };
+  return { db, input, server, words };
 }
 
 async function type(input: HTMLInputElement, text: string) {
@@ -113,7 +117,7 @@ describe("a repeatability run on the tablet", () => {
 
   it("shows the result and what saving changes, and clears the run only once the server saved it", async () => {
     // 24 kept from before a reload; the 25th typed.
-    const { db, input, server } = await mount(readings.slice(0, 24));
+    const { db, input, server, words } = await mount(readings.slice(0, 24));
     await waitFor(() => expect(screen.getByTestId("study-count").textContent).toMatch(/^24 of 25/));
     await type(input, readings[24].toFixed(4));
     await waitFor(() => expect(screen.getByTestId("study-count").textContent).toMatch(/^25 of 25/));
@@ -127,7 +131,8 @@ describe("a repeatability run on the tablet", () => {
       thresholds: DEFAULT_STUDY_THRESHOLDS,
     });
     expect(screen.getByTestId("study-sd").textContent).toContain(sd.toFixed(6));
-    await screen.findByText(/changes 1 verdict/);
+    expect((await screen.findByTestId("study-consequences")).textContent).toMatch(/opens 1 flag, changes 1 verdict/);
+    expect(screen.getByRole("list", { name: "Per job" }).textContent).toBe(`KF-2611: ${words}`);
     expect(screen.getByTestId("study-characteristics").textContent).toMatch(/Fails|Passes/);
     fireEvent.click(screen.getByRole("button", { name: "Save the study" }));
     await screen.findByTestId("study-saved");
