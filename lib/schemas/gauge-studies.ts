@@ -106,10 +106,12 @@ export const grrStudyInput = z.object({
     .max(3, "An R&R study needs 2 or 3 appraisers"),
   measurements: z.array(measurement).max(90, "At most 3 appraisers × 10 parts × 3 trials = 90 readings"),
   tolerance: figure("The tolerance").positive("The tolerance T must be above zero").optional(),
+  confirmedFlagsOpened: z.number().int().min(0).nullish(),
 });
 
-// R&R studies are taken once the core's ANOVA is in; until then the routes take repeatability studies.
-export const studyInput = type1StudyInput;
+export const studyInput = z.discriminatedUnion("kind", [type1StudyInput, grrStudyInput], {
+  error: "Say which study this is: kind type1 (repeatability) or grr (R&R)",
+});
 export type StudyInput = z.output<typeof studyInput>;
 export type Type1StudyInput = z.output<typeof type1StudyInput>;
 export type GrrStudyInput = z.output<typeof grrStudyInput>;

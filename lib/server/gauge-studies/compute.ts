@@ -1,13 +1,15 @@
 import "server-only";
 import {
+  checkGrrDesign,
   checkType1Readings,
+  grrAnova,
   convertMeasure,
   studyDueOn,
   type1Study,
   type StudyCharacteristic,
   type StudyThresholds,
 } from "@/lib/domain";
-import type { Type1StudyInput } from "@/lib/schemas/gauge-studies";
+import type { GrrStudyInput, Type1StudyInput } from "@/lib/schemas/gauge-studies";
 import { AppError } from "@/lib/server/core/errors";
 import type { NewStudyRow, StudyGauge } from "./repo";
 
@@ -38,21 +40,28 @@ export function studyCharacteristics(
 
 const todayUtc = () => new Date().toISOString().slice(0, 10);
 
+type Row = Omit<NewStudyRow, "instrumentId" | "performedBy">;
+
+function studyDay(performedOn: string | undefined): string {
+  const day = performedOn ?? todayUtc();
+  if (day > todayUtc()) {
+    throw new AppError("invalid", "A study cannot be dated after today", {
+      performedOn: ["Enter the day the readings were taken"],
+    });
+  }
+  return day;
+}
+
 /** The row a type 1 study keeps; 422 with the core's words when the readings will not do. */
 export function type1Row(
   gauge: StudyGauge,
   input: Type1StudyInput,
   characteristics: StudyCharacteristic[],
   thresholds: StudyThresholds,
-): Omit<NewStudyRow, "instrumentId" | "performedBy"> {
+): Row {
   const problems = checkType1Readings(input.readings);
   if (problems.length) throw new AppError("invalid", problems.join(" "), { readings: problems });
-  const performedOn = input.performedOn ?? todayUtc();
-  if (performedOn > todayUtc()) {
-    throw new AppError("invalid", "A study cannot be dated after today", {
-      performedOn: ["Enter the day the readings were taken"],
-    });
-  }
+  const performedOn = studyDay(input.performedOn);
   const result = type1Study({
     readings: input.readings,
     reference: input.reference,
@@ -75,6 +84,41 @@ export function type1Row(
     bias: result.bias,
     grrSd: null,
     passed: result.perCharacteristic.every((c) => c.pass),
+    thresholds,
+    result,
+  };
+}
+
+/**
+ * The row an R&R study keeps. It passes when its %GRR (against the tolerance when one was given,
+ * else against the study's own variation) is within the shop's mark.
+ */
+export function grrRow(gauge: StudyGauge, input: GrrStudyInput, thresholds: StudyThresholds): Row {
+  const problems = checkGrrDesign(input.measurements);
+  const appraisersUsed = new Set(input.measurements.map((m) => m.appraiser));
+  if ([...appraisersUsed].some((a) => a > input.appraisers.length)) {
+    problems.push(`Name every appraiser: ${input.appraisers.length} named, readings name ${appraisersUsed.size}.`);
+  }
+  if (problems.length) throw new AppError("invalid", problems.join(" "), { measurements: problems });
+  const performedOn = studyDay(input.performedOn);
+  const result = grrAnova({ measurements: input.measurements, tolerance: input.tolerance });
+  const pct = result.pctTolerance ?? result.pctStudyVariation;
+  const values = input.measurements.map((m) => m.value);
+  return {
+    kind: "grr",
+    performedOn,
+    dueOn: studyDueOn(performedOn, thresholds.validMonths),
+    unit: gauge.unit,
+    resolution: gauge.resolution,
+    reference: null,
+    tolerance: input.tolerance ?? null,
+    measurements: input.measurements.map((m) => ({ ...m })),
+    appraisers: [...input.appraisers],
+    mean: values.reduce((a, b) => a + b, 0) / values.length,
+    repeatSd: result.sd.repeatability,
+    bias: 0,
+    grrSd: result.sd.grr,
+    passed: pct <= thresholds.maxGrrPct,
     thresholds,
     result,
   };

@@ -10,7 +10,7 @@ import { assertConfirmed, countConsequences } from "@/lib/server/jobs/consequenc
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { recordAudit } from "@/lib/server/log/repo";
 import { reconcileJob } from "@/lib/server/reconcile/reconcile";
-import { studyCharacteristics, type1Row } from "./compute";
+import { grrRow, studyCharacteristics, type1Row } from "./compute";
 import {
   gaugeTolerances,
   getStudySettings,
@@ -42,9 +42,11 @@ async function rowFor(t: Transaction, actor: Actor, instrumentId: number, input:
     throw new AppError("conflict", `${gauge.label} is retired; reactivate it on the gauges page before studying it`);
   }
   const thresholds = await getStudySettings(actor.shopId, t);
+  const who = { instrumentId, performedBy: actor.userId };
+  if (input.kind === "grr") return { ...grrRow(gauge, input, thresholds), ...who };
   const used = await gaugeTolerances(t, actor.shopId, instrumentId);
   const characteristics = studyCharacteristics(gauge, used, input.characteristics);
-  return { ...type1Row(gauge, input, characteristics, thresholds), instrumentId, performedBy: actor.userId };
+  return { ...type1Row(gauge, input, characteristics, thresholds), ...who };
 }
 
 /** Judges again each open job the gauge was used on; returns each job's consequences. */
