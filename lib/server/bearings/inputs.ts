@@ -20,8 +20,8 @@ import { journalFigures, pointWindow, windowTarget } from "@/lib/server/bearings
 // SelectionInput. A point is left out, with words saying what it still needs, until its journal
 // and housing are measured; journals are keyed by their label ("Main 3"), the words advice uses.
 
-const uOf = (g: InstrumentInfo | undefined, unit: LengthUnit) =>
-  (g && gaugeUncertainty({ unit: g.unit, expandedU: g.expandedU, coverageK: g.coverageK ?? 2 }, unit)) ?? 0;
+// The gauge's whole budget (certificate, resolution, its study), the same U its readings' verdicts use.
+const uOf = (g: InstrumentInfo | undefined, unit: LengthUnit) => (g && gaugeUncertainty(g, unit)) ?? 0;
 
 export function shellSetOf(s: ShellRow, gauges: Map<number, InstrumentInfo>): ShellSet {
   const step: ShellSet["step"] = { kind: s.step };
