@@ -85,26 +85,30 @@ describe("gauge past its calibration due date", () => {
 });
 
 describe("the gauge's U feeds the marginal band", () => {
-  // Limits 4.0295–4.0305 in. 4.03045 in is inside; with U = 0.0001 in it is within U of the
-  // maximum (4.0305 − 0.0001 = 4.0304 < 4.03045), so marginal; with U = 0 it is in spec.
-  it("U = 0.0001 in → marginal, flagged", async () => {
+  // Limits 4.0295–4.0305 in. The guard band is the gauge's U at k = 2 from its budget: certificate
+  // U/k and resolution δ/√12 in quadrature (JCGM 100:2008 eq. (10), F.2.2.1), U = 2·uc.
+  it("U = 0.0001 in, step 0.0001 in → U = 0.000115 in: 4.03045 is within U of the maximum, flagged", async () => {
+    // 2·√(0.00005² + (0.0001/√12)²) = 0.0001155; 4.0305 − 0.0001155 = 4.0303845 < 4.03045 → marginal
     const g = await register({ expandedU: 0.0001 });
     const { reading, flag } = await read("bore/4/top/A", 4.03045, g);
     expect(reading.verdict).toBe("marginal");
     expect(flag?.reason).toBe("marginal");
   });
 
-  it("U = 0 → in spec, no flag", async () => {
+  it("U = 0 on the certificate still leaves the step's δ/√12: U = 0.0000577 in", async () => {
+    // 2·0.0001/√12 = 0.0000577; 4.0305 − 0.0000577 = 4.0304423: 4.03045 is above it, 4.0304 below
     const g = await register({ expandedU: 0 });
-    const { reading, flag } = await read("bore/5/top/A", 4.03045, g);
+    expect((await read("bore/5/top/A", 4.03045, g)).reading.verdict).toBe("marginal");
+    const { reading, flag } = await read("bore/5/mid/A", 4.0304, g);
     expect(reading.verdict).toBe("in_spec");
     expect(flag).toBeNull();
   });
 
-  it("a metric gauge's U is converted: 0.0025 mm = 0.0000984 in (25.4 mm per in, NIST SP 811 B.8)", async () => {
-    // 4.0305 − 0.0000984 = 4.0304016 < 4.03045 → marginal; 4.0304 is below it → in spec.
+  it("a metric gauge's U is converted: 0.0025658 mm = 0.000101 in (25.4 mm per in, NIST SP 811 B.8)", async () => {
+    // 2·√(0.00125² + (0.001/√12)²) = 0.0025658 mm; 4.0305 − 0.000101 = 4.030399: 4.0304 is above it,
+    // 4.0303 below.
     const g = await register({ unit: "mm", resolution: 0.001, expandedU: 0.0025 });
-    expect((await read("bore/6/top/A", 4.03045, g)).reading.verdict).toBe("marginal");
-    expect((await read("bore/7/top/A", 4.0304, g)).reading.verdict).toBe("in_spec");
+    expect((await read("bore/6/top/A", 4.0304, g)).reading.verdict).toBe("marginal");
+    expect((await read("bore/7/top/A", 4.0303, g)).reading.verdict).toBe("in_spec");
   });
 });

@@ -43,8 +43,8 @@ describe("the gauge's budget in the guard band", () => {
     expect(gaugeUncertainty(bore, "in")).toBeCloseTo(0.000197315, 9);
     // Resolution alone: √(0.00005² + 0.0000288675²) · 2 = 0.000115470
     expect(gaugeUncertainty({ ...mic, resolution: 0.0001 }, "in")).toBeCloseTo(0.00011547, 9);
-    // In the reading's unit (NIST SP 811, B.8: 1 in = 25.4 mm)
-    expect(gaugeUncertainty(bore, "mm")).toBeCloseTo(0.000197315 * 25.4, 8);
+    // In the reading's unit (NIST SP 811, B.8: 1 in = 25.4 mm): 0.000197315 in = 0.0050118 mm
+    expect(gaugeUncertainty(bore, "mm")).toBeCloseTo(0.005011809, 9);
   });
   it("leaves out a step or a study figure that is not a number of zero or more", () => {
     expect(gaugeUncertainty({ ...mic, resolution: Number.NaN, study: { repeatSd: -1 } }, "in")).toBe(0.0001);
