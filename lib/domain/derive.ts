@@ -398,6 +398,8 @@ export interface DeriveOptions {
    * stations a sync upload touched): the same values as a full pass would give, without the rest.
    */
   touching?: (stationId: string) => boolean;
+  /** Only values of these characteristics (the maps draw taper and out-of-round alone). */
+  characteristics?: readonly DerivedCharacteristic[];
 }
 
 /**
@@ -413,9 +415,11 @@ export function deriveReadings(
 ): DerivedValue[] {
   checkEngineShape(engine);
   if (!Array.isArray(readings)) throw new Error("deriveReadings needs the job's readings as a list");
-  const { touching } = options;
-  const wanted = touching ? recipes(engine).filter((r) => r.inputs.some(touching)) : recipes(engine);
-  const needed = touching ? new Set(wanted.flatMap((r) => r.inputs)) : undefined;
+  const { touching, characteristics: only } = options;
+  const wanted = recipes(engine).filter(
+    (r) => (!touching || r.inputs.some(touching)) && (!only || only.includes(r.characteristic)),
+  );
+  const needed = touching || only ? new Set(wanted.flatMap((r) => r.inputs)) : undefined;
   const { ok, bad } = prepareAll(needed ? readings.filter((r) => needed.has(r?.stationId)) : readings, engine);
   return wanted.map((r) => derive(r, engine, spec, ok, bad));
 }

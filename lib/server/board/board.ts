@@ -2,8 +2,8 @@ import "server-only";
 import { JOB_STATUSES, OPEN_JOB_STATUSES } from "@/lib/domain";
 import type { BoardPage, BoardQuery } from "@/lib/schemas/job-board";
 import { countProgress, refreshProgress } from "@/lib/server/board/progress";
-import { boardRows, shopJobCount } from "@/lib/server/board/repo";
-import { flagCountsByJob } from "@/lib/server/jobs/repo";
+import type { Progress } from "@/lib/server/jobs/readings";
+import { boardRows } from "@/lib/server/board/repo";
 
 // The jobs board (GET /api/jobs): one page of the shop's jobs, filtered, searched, sorted and paged
 // in SQL, with required-station progress as lib/domain/progress.ts counts it (kept per job, see
@@ -21,16 +21,9 @@ export async function listJobBoard(shopId: number, q: BoardQuery): Promise<Board
   // Sorting by progress ranks every matching job, so every count must be fresh first; any other
   // sort needs only the page's own.
   if (q.sort === "progress" && q.status !== "closed") await refreshProgress(shopId, countedStatuses(q));
-  const [{ rows, total }, shopJobs] = await Promise.all([boardRows(shopId, q), shopJobCount(shopId)]);
+  const { rows, total, shopJobs } = await boardRows(shopId, q);
   const stale = rows.filter((r) => !r.fresh && r.status !== "closed").map((r) => r.id);
-  const [recounted, flags] = await Promise.all([
-    countProgress(shopId, stale),
-    flagCountsByJob(
-      shopId,
-      rows.map((r) => r.id),
-      ["open", "disposed"],
-    ),
-  ]);
+  const recounted = stale.length ? await countProgress(shopId, stale) : new Map<number, Progress | null>();
   const progressOf = (r: (typeof rows)[number]) => {
     if (r.status === "closed") return null;
     if (recounted.has(r.id)) return recounted.get(r.id) ?? null;
@@ -47,7 +40,7 @@ export async function listJobBoard(shopId: number, q: BoardQuery): Promise<Board
       customer: r.customer,
       engine: r.engine ?? "",
       progress: progressOf(r),
-      flags: { open: flags.get(r.id)!.open, disposed: flags.get(r.id)!.disposed },
+      flags: { open: r.openFlags, disposed: r.disposedFlags },
       updatedAt: new Date(r.updatedAt).toISOString(),
     })),
     total,

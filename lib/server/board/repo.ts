@@ -23,6 +23,8 @@ export type BoardRow = {
   done: number | null;
   /** The kept count was taken at the job's present revisions. */
   fresh: number;
+  openFlags: number;
+  disposedFlags: number;
 };
 
 const select = <T extends object>(sql: string, replacements: unknown[]) =>
@@ -68,27 +70,41 @@ function whereOf(shopId: number, q: BoardQuery): { sql: string; params: unknown[
 
 const FROM = `jobs j JOIN customers c ON c.id = j.customer_id LEFT JOIN engines e ON e.id = j.engine_id`;
 
-/** One page of the board's rows and how many jobs match in all. */
-export async function boardRows(shopId: number, q: BoardQuery): Promise<{ rows: BoardRow[]; total: number }> {
+/**
+ * One page of the board's rows with their open and awaiting-re-check flags, how many jobs match in
+ * all and how many the shop has: two statements side by side, one round trip.
+ */
+export async function boardRows(
+  shopId: number,
+  q: BoardQuery,
+): Promise<{ rows: BoardRow[]; total: number; shopJobs: number }> {
   const where = whereOf(shopId, q);
   const dir = q.dir === "desc" ? "DESC" : "ASC";
   const [rows, [count]] = await Promise.all([
     select<BoardRow>(
       `SELECT j.id, j.code, j.title, j.status, j.unit_system AS unitSystem, j.due_date AS dueDate,
          j.updated_at AS updatedAt, c.name AS customer, e.description AS engine,
-         p.required_stations AS required, p.required_done AS done, COALESCE(${FRESH}, 0) AS fresh
+         p.required_stations AS required, p.required_done AS done, COALESCE(${FRESH}, 0) AS fresh,
+         ${OPEN_FLAGS} AS openFlags, ${DISPOSED_FLAGS} AS disposedFlags
        FROM ${FROM} LEFT JOIN job_progress p ON p.job_id = j.id
        WHERE ${where.sql} ORDER BY ${ORDER[q.sort](dir)}, j.id ${dir} LIMIT ? OFFSET ?`,
       [...where.params, q.pageSize, (q.page - 1) * q.pageSize],
     ),
-    select<{ n: number }>(`SELECT COUNT(*) AS n FROM ${FROM} WHERE ${where.sql}`, where.params),
+    select<{ n: number; shopJobs: number }>(
+      `SELECT COUNT(*) AS n, (SELECT COUNT(*) FROM jobs WHERE shop_id = ?) AS shopJobs FROM ${FROM} WHERE ${where.sql}`,
+      [shopId, ...where.params],
+    ),
   ]);
-  return { rows: rows.map((r) => ({ ...r, fresh: Number(r.fresh) })), total: Number(count.n) };
-}
-
-export async function shopJobCount(shopId: number): Promise<number> {
-  const [row] = await select<{ n: number }>("SELECT COUNT(*) AS n FROM jobs WHERE shop_id = ?", [shopId]);
-  return Number(row.n);
+  return {
+    rows: rows.map((r) => ({
+      ...r,
+      fresh: Number(r.fresh),
+      openFlags: Number(r.openFlags),
+      disposedFlags: Number(r.disposedFlags),
+    })),
+    total: Number(count.n),
+    shopJobs: Number(count.shopJobs),
+  };
 }
 
 /** Jobs of the shop that are not closed and whose kept progress is missing or stale. */

@@ -64,7 +64,7 @@ export async function getJobDetail(shopId: number, jobId: number): Promise<JobDe
   const [customer, template, readings, flags, standing] = await Promise.all([
     findCustomer(job.customerId),
     templateName(job.templateId),
-    loadJobReadings(shopId, jobId),
+    loadJobReadings(shopId, jobId, { takers: false }),
     flagCountsByJob(shopId, [jobId]),
     activeRelease(jobId),
   ]);

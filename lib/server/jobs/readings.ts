@@ -54,7 +54,8 @@ export type JobReadings = {
   takers: Map<number, string>;
 };
 
-export async function loadJobReadings(shopId: number, jobId: number): Promise<JobReadings> {
+/** `takers: false` when the caller shows no names (the job page): the shop's people are not read. */
+export async function loadJobReadings(shopId: number, jobId: number, { takers = true } = {}): Promise<JobReadings> {
   const all = await jobReadings(undefined, jobId);
   const current = currentValues(all);
   const [instruments, users] = await Promise.all([
@@ -63,7 +64,7 @@ export async function loadJobReadings(shopId: number, jobId: number): Promise<Jo
       shopId,
       all.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
     ),
-    listUsers(shopId),
+    takers ? listUsers(shopId) : [],
   ]);
   const raws = current.map((r) => toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined));
   return { all, current, raws, instruments, takers: new Map(users.map((u) => [u.id, u.name])) };

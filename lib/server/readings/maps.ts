@@ -30,6 +30,14 @@ import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
 // expressed in the job's length unit so one chart has one scale.
 
 type Judge = (stationId: string) => MapPoint;
+const PROFILE_VALUES = [
+  "bore_taper",
+  "bore_out_of_round",
+  "main_journal_taper",
+  "main_journal_out_of_round",
+  "rod_journal_taper",
+  "rod_journal_out_of_round",
+] as const;
 /** The limit at a station not read yet (findLimit/resolveLimit), so the chart still shows its lines. */
 function limitOnly(stationId: string, shape: EngineShape, spec: SpecLimit[]) {
   const p = parseStationId(stationId);
@@ -116,7 +124,7 @@ export async function jobMaps(shopId: number, jobId: number): Promise<JobMaps> {
   const unit = lengthUnitOf(ctx.shape);
   let derived: DerivedValue[];
   try {
-    derived = deriveReadings([...raws.values()], ctx.shape, ctx.spec);
+    derived = deriveReadings([...raws.values()], ctx.shape, ctx.spec, { characteristics: PROFILE_VALUES });
   } catch {
     derived = []; // an engine shape the core refuses: the maps show no taper or out-of-round
   }

@@ -123,9 +123,15 @@ export function cases(s: Subject): Case[] {
       app: () => listJobBoard(s.shopId, board),
       raw: (c) =>
         Promise.all([
-          c.query(`SELECT COUNT(*) AS n FROM jobs j WHERE j.shop_id = ? AND j.status IN (${active})`, [s.shopId]),
           c.query(
-            `SELECT j.id, j.code, j.title, j.status, j.due_date, cu.name, e.description, p.*
+            `SELECT COUNT(*) AS n, (SELECT COUNT(*) FROM jobs WHERE shop_id = ?) AS shop_jobs
+               FROM jobs j WHERE j.shop_id = ? AND j.status IN (${active})`,
+            [s.shopId, s.shopId],
+          ),
+          c.query(
+            `SELECT j.id, j.code, j.title, j.status, j.due_date, cu.name, e.description, p.*,
+                 (SELECT COUNT(*) FROM flags f WHERE f.job_id = j.id AND f.state = 'open') AS open_flags,
+                 (SELECT COUNT(*) FROM flags f WHERE f.job_id = j.id AND f.state = 'disposed') AS disposed_flags
                FROM jobs j JOIN customers cu ON cu.id = j.customer_id LEFT JOIN engines e ON e.id = j.engine_id
                LEFT JOIN job_progress p ON p.job_id = j.id
               WHERE j.shop_id = ? AND j.status IN (${active})

@@ -267,6 +267,19 @@ describe("missing and superseded inputs", () => {
       expect(some).toEqual(full.filter((d) => d.inputs.some(touching)));
     }
   });
+  it("with `characteristics`, gives exactly the values a full pass gives of those characteristics", () => {
+    // Invented figures (not reference values), one per station; a spec with a limit on one of each kind.
+    const stations = [...new Set(deriveReadings([], v8, []).flatMap((d) => d.inputs))];
+    const readings = stations.map((id, i) =>
+      at(id, id.startsWith("bolt/") ? 2 + (id.endsWith("loaded") ? 0.006 : 0) : 4.03 + (i % 5) * 0.0001),
+    );
+    const spec = [limit({ characteristic: "bore_taper", max: 0.0005 })];
+    const full = deriveReadings(readings, v8, spec);
+    const only = ["bore_taper", "rod_journal_out_of_round"] as const;
+    const some = deriveReadings(readings, v8, spec, { characteristics: only });
+    expect(some).toHaveLength(8 + 4);
+    expect(some).toEqual(full.filter((d) => (only as readonly string[]).includes(d.characteristic)));
+  });
   it("uses the latest reading of a station, by takenAt, whatever the list order", () => {
     const readings = [
       at("bolt/1/1/loaded", 2.0062, { takenAt: "2026-03-02T10:05:00Z" }),
