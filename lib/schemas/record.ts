@@ -69,6 +69,9 @@ export type GaugeLine = {
   uncertainty: string;
   calibration: string;
   pastDue: boolean;
+  /** The gauge's latest study in words (kind, date, spread, due) and whether it stood behind every reading. */
+  study: string;
+  studyProblem: boolean;
 };
 
 export type PhotoLine = { id: string; caption: string; thumb: Buffer | null; note: string };

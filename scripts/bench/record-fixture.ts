@@ -244,6 +244,7 @@ export async function fullV8Record(): Promise<RecordFixture> {
     spec: lim.map(toSpecLimit),
     limits: lim,
     instruments: instruments(),
+    studies: new Map(),
   };
   const rows = readings(base);
   const record: JobRecord = { ...base, readings: rows, ...flagsOf(rows) };

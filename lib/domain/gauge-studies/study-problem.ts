@@ -5,6 +5,7 @@
 // (the job's limits, in the gauge's unit) says the gauge is not good enough for it.
 import { DEFAULT_STUDY_THRESHOLDS } from "./thresholds";
 import { capabilityFor } from "./type1";
+import { unitWords } from "../words";
 import type { GaugeStudySummary } from "./types";
 import { measureFigure, percentFigure } from "./words";
 
@@ -22,6 +23,8 @@ export interface StudyUse {
   tolerance: number | null;
   /** The day (YYYY-MM-DD, UTC) the reading was taken. */
   takenOn: string;
+  /** The gauge's unit, to name beside the tolerance in the words. */
+  unit?: string;
 }
 
 const KIND_WORDS = { type1: "repeatability study", grr: "R&R study" } as const;
@@ -33,6 +36,7 @@ export function studyProblem(study: GaugeStudySummary | null | undefined, use: S
     return { kind: "overdue", words: `was past its ${name}'s due date (${study.dueOn})` };
   }
   const T = use.tolerance;
+  const tWords = (t: number) => `${measureFigure(t)}${use.unit ? ` ${unitWords(use.unit)}` : ""}`;
   // Capability needs a two-sided tolerance; a one-sided limit has no T to hold the spread against.
   if (T === null || !(T > 0) || !Number.isFinite(T)) return null;
   const marks = study.thresholds ?? DEFAULT_STUDY_THRESHOLDS;
@@ -44,7 +48,7 @@ export function studyProblem(study: GaugeStudySummary | null | undefined, use: S
     return {
       kind: "failed",
       words:
-        `fails its ${name} for a tolerance of ${measureFigure(T)}: %GRR ${percentFigure(pct)} of T, ` +
+        `fails its ${name} for a tolerance of ${tWords(T)}: %GRR ${percentFigure(pct)} of T, ` +
         `at most ${percentFigure(marks.maxGrrPct)} will do`,
     };
   }
@@ -52,6 +56,6 @@ export function studyProblem(study: GaugeStudySummary | null | undefined, use: S
   if (capability.pass) return null;
   return {
     kind: "failed",
-    words: `fails its ${name} for a tolerance of ${measureFigure(T)}: ${capability.reasons[0].replace(/\.$/, "")}`,
+    words: `fails its ${name} for a tolerance of ${tWords(T)}: ${capability.reasons[0].replace(/\.$/, "")}`,
   };
 }

@@ -74,13 +74,18 @@ const FLAG_COLUMNS: Column<FlagLine>[] = [
 ];
 
 const GAUGE_COLUMNS: Column<GaugeLine>[] = [
-  { title: "Gauge", width: 30, cell: (g) => [{ text: g.label, size: T }] },
-  { title: "Serial", width: 14, cell: (g) => [{ text: g.serial, size: T }] },
-  { title: "Uncertainty", width: 28, cell: (g) => [{ text: g.uncertainty, size: T }] },
+  { title: "Gauge", width: 18, cell: (g) => [{ text: g.label, size: T }] },
+  { title: "Serial", width: 11, cell: (g) => [{ text: g.serial, size: T }] },
+  { title: "Uncertainty", width: 21, cell: (g) => [{ text: g.uncertainty, size: T }] },
   {
     title: "Calibration",
-    width: 28,
+    width: 20,
     cell: (g) => (g.pastDue ? bold(`${g.calibration}: PAST DUE when used`) : [{ text: g.calibration, size: T }]),
+  },
+  {
+    title: "Latest study",
+    width: 30,
+    cell: (g) => (g.studyProblem ? bold(g.study) : [{ text: g.study, size: T }]),
   },
 ];
 

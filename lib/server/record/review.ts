@@ -1,12 +1,14 @@
 import "server-only";
 import { characteristicWords, instrumentKindWords, stationWords } from "@/lib/domain";
+import type { GaugeStudySummary } from "@/lib/domain";
+import { readingStudyProblem } from "@/lib/server/release/checklist-gauges";
 import type { DispositionRow, InstrumentRow, JobRecord } from "@/lib/server/release/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { day, limitsText, when, withUnit } from "@/lib/server/record/format";
 import type { DecisionLine, FlagLine, GaugeLine } from "@/lib/schemas/record";
 
 // The reviewed part of the record: every flag with each decision about it (who, when, why), and
-// the gauges the readings were taken with, with their calibration.
+// the gauges the readings were taken with, with their calibration and their latest study.
 
 const REASON_WORDS: Record<string, string> = {
   out_of_spec: "outside its limits",
@@ -76,6 +78,26 @@ function uncertaintyWords(g: InstrumentRow): string {
   return `U = ${withUnit(g.expandedU, g.unit)} (k = ${k}), reads to ${withUnit(g.resolution, g.unit)}`;
 }
 
+const STUDY_WORDS = { type1: "Repeatability study", grr: "R&R study" } as const;
+
+/**
+ * A gauge's latest study as the record prints it: kind, date, the spread it found, due date, and
+ * whether it stood behind every reading taken with the gauge (the release checklist's own rule).
+ */
+function studyLine(g: InstrumentRow, study: GaugeStudySummary | undefined, readings: StoredReading[]) {
+  if (!study) return { study: "No study on file: the certificate's U alone", studyProblem: false };
+  const sd = study.kind === "grr" ? (study.grrSd ?? study.repeatSd) : study.repeatSd;
+  const base =
+    `${STUDY_WORDS[study.kind]} of ${study.performedOn} (${study.kind === "grr" ? "GRR" : "s"} = ` +
+    `${withUnit(sd, g.unit)}), due ${study.dueOn}`;
+  const problems = [
+    ...new Set(readings.map((r) => readingStudyProblem(r, g, study)?.words).filter((w): w is string => !!w)),
+  ];
+  if (problems.length === 0) return { study: `${base}: stands for every reading`, studyProblem: false };
+  const more = problems.length > 1 ? ` (and ${problems.length - 1} more)` : "";
+  return { study: `${base}. The gauge ${problems[0]}${more}`, studyProblem: true };
+}
+
 /** Gauges used for current readings; past due when any of them was taken after the due date. */
 export function gaugeLines(record: JobRecord, current: StoredReading[]): GaugeLine[] {
   const used = new Map<number, StoredReading[]>();
@@ -83,8 +105,9 @@ export function gaugeLines(record: JobRecord, current: StoredReading[]): GaugeLi
   return record.instruments
     .filter((g) => used.has(g.id))
     .map((g) => {
+      const readings = used.get(g.id) ?? [];
       const due = g.calibrationDue ?? null;
-      const pastDue = !!due && (used.get(g.id) ?? []).some((r) => day(r.takenAt) > due);
+      const pastDue = !!due && readings.some((r) => day(r.takenAt) > due);
       const calibration =
         g.calibratedOn || due
           ? `calibrated ${g.calibratedOn ?? "(date not recorded)"}, due ${due ?? "(not set)"}`
@@ -96,6 +119,11 @@ export function gaugeLines(record: JobRecord, current: StoredReading[]): GaugeLi
         uncertainty: uncertaintyWords(g),
         calibration,
         pastDue,
+        ...studyLine(
+          g,
+          record.studies.get(g.id),
+          readings.filter((r) => !r.skipped),
+        ),
       };
     });
 }

@@ -1,11 +1,12 @@
 import "server-only";
 import type { InferAttributes, Transaction } from "sequelize";
-import type { EngineShape, SpecLimit } from "@/lib/domain";
+import type { EngineShape, GaugeStudySummary, SpecLimit } from "@/lib/domain";
 import type { Flag, FlagDisposition, Instrument, Job, JobLimit, Release } from "@/models";
 import type { JsonValue } from "@/lib/schemas/json";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
+import { latestSummaries } from "@/lib/server/gauge-studies/repo";
 import { toEngineShape, toSpecLimit } from "@/lib/server/jobs/context";
 
 // Everything the release checklist, the release hash and the release page read about one job,
@@ -29,6 +30,8 @@ export type JobRecord = {
   dispositions: DispositionRow[];
   /** The instruments any reading of the job was taken with. */
   instruments: InstrumentRow[];
+  /** Each of those instruments' latest capability study (absent: none on file). */
+  studies: Map<number, GaugeStudySummary>;
 };
 
 const plain = <T>(rows: { get(o: { plain: true }): unknown }[]) => rows.map((r) => r.get({ plain: true }) as T);
@@ -70,13 +73,14 @@ export async function loadJobRecord(shopId: number, jobId: number, t?: Transacti
   if (!engine) throw notFound("Engine");
   const flagIds = flags.map((f) => f.id);
   const instrumentIds = [...new Set(readings.map((r) => r.instrumentId).filter((id): id is number => id !== null))];
-  const [dispositions, instruments] = await Promise.all([
+  const [dispositions, instruments, studies] = await Promise.all([
     flagIds.length
       ? FlagDisposition.findAll({ where: { flagId: flagIds }, order: [["id", "ASC"]], transaction: t })
       : [],
     instrumentIds.length
       ? Instrument.findAll({ where: { id: instrumentIds, shopId }, order: [["id", "ASC"]], transaction: t })
       : [],
+    latestSummaries(shopId, instrumentIds, t),
   ]);
   return {
     job: job.get({ plain: true }) as JobRow,
@@ -89,6 +93,7 @@ export async function loadJobRecord(shopId: number, jobId: number, t?: Transacti
     flags: plain<FlagRow>(flags),
     dispositions: plain<DispositionRow>(dispositions),
     instruments: plain<InstrumentRow>(instruments),
+    studies,
   };
 }
 

@@ -29,6 +29,7 @@ describe("studyProblem", () => {
       /^fails its repeatability study of 2026-06-01 for a tolerance of 0\.002: Cg 0\.67 is below 1\.33/,
     );
     expect(p?.words).not.toMatch(/\.$/);
+    expect(studyProblem(type1, { ...use(0.002), unit: "in" })?.words).toMatch(/for a tolerance of 0\.002 in: Cg/);
   });
 
   it("counts the bias: T = 0.01, s = 0.0001, bias 0.0007 gives Cgk = (0.001 − 0.0007)/0.0003 = 1.00", () => {
