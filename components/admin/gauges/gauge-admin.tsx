@@ -5,9 +5,12 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { api } from "@/lib/client/api";
+import type { LatestStudyLine } from "@/lib/schemas/gauge-study-overview";
 import { DUE_SOON_DAYS, type InstrumentRecord } from "@/lib/schemas/instrument";
 import { GaugeForm } from "./gauge-form";
 import { GaugeRow } from "./gauge-row";
+import { StudiesToDo } from "./studies-to-do";
+import { StudySettingsForm } from "./study-settings-form";
 
 type Editing = { mode: "new" } | { mode: "edit"; gauge: InstrumentRecord } | null;
 
@@ -18,6 +21,11 @@ export function GaugeAdmin({ canEdit }: { canEdit: boolean }) {
     queryKey: ["instruments", showAll ? "all" : "active"],
     queryFn: () => api<{ instruments: InstrumentRecord[] }>(`/api/instruments${showAll ? "?include=all" : ""}`),
   });
+  const studies = useQuery({
+    queryKey: ["gauge-studies", "latest"],
+    queryFn: () => api<{ studies: LatestStudyLine[] }>("/api/gauge-studies/latest"),
+  });
+  const latest = new Map((studies.data?.studies ?? []).map((l) => [l.instrumentId, l]));
   const list = gauges.data?.instruments ?? [];
   const pastDue = list.filter((g) => g.active && g.status === "past_due").length;
   return (
@@ -43,6 +51,7 @@ export function GaugeAdmin({ canEdit }: { canEdit: boolean }) {
           dates and certificate.
         </Notice>
       )}
+      <StudiesToDo gauges={list.filter((g) => g.active)} latest={latest} />
       <label className="no-print flex min-h-11 items-center gap-2 text-sm">
         <input type="checkbox" checked={showAll} onChange={(e) => setShowAll(e.target.checked)} className="h-5 w-5" />
         Show deactivated gauges too
@@ -76,6 +85,7 @@ export function GaugeAdmin({ canEdit }: { canEdit: boolean }) {
                 <GaugeRow
                   key={g.id}
                   gauge={g}
+                  study={latest.get(g.id)}
                   canEdit={canEdit}
                   onEdit={() => setEditing({ mode: "edit", gauge: g })}
                 />
@@ -86,8 +96,10 @@ export function GaugeAdmin({ canEdit }: { canEdit: boolean }) {
       </section>
       <p className="text-sm text-muted">
         Status: in calibration; due within {DUE_SOON_DAYS} days (the tablet warns too); past due from the day after the
-        due date. U (k = 2) widens the marginal band of every verdict taken with the gauge.
+        due date. U (k = 2) widens the marginal band of every verdict taken with the gauge; with a study, the
+        gauge&apos;s page shows how its repeatability and step join the certificate&apos;s U.
       </p>
+      <StudySettingsForm canEdit={canEdit} />
     </div>
   );
 }

@@ -1,21 +1,26 @@
 "use client";
 
 import { useMutation, useQueryClient } from "@tanstack/react-query";
+import Link from "next/link";
 import { useState } from "react";
 import { StatusTag } from "@/components/admin/status-tag";
 import { Button } from "@/components/ui/button";
 import { api, ApiError } from "@/lib/client/api";
 import { gaugeRangeWords, instrumentKindWords, unitWords } from "@/lib/domain";
+import type { LatestStudyLine } from "@/lib/schemas/gauge-study-overview";
 import type { InstrumentRecord } from "@/lib/schemas/instrument";
 import { CalibrationTag } from "./calibration-tag";
+import { StudyTag, studyState } from "./study-tag";
 import { CertificateCell } from "./certificate-upload";
 
 export function GaugeRow({
   gauge,
+  study,
   canEdit,
   onEdit,
 }: {
   gauge: InstrumentRecord;
+  study: LatestStudyLine | undefined;
   canEdit: boolean;
   onEdit: () => void;
 }) {
@@ -39,7 +44,12 @@ export function GaugeRow({
       data-testid={`gauge-${gauge.serial}`}
     >
       <td className="p-3">
-        <div className="font-semibold text-ink">{gauge.label}</div>
+        <Link
+          href={`/admin/gauges/${gauge.id}`}
+          className="inline-flex min-h-11 items-center font-semibold text-steel underline"
+        >
+          {gauge.label}
+        </Link>
         <div className="text-sm">
           {kind} · serial <span className="font-mono">{gauge.serial}</span>
         </div>
@@ -65,10 +75,14 @@ export function GaugeRow({
       <td className="whitespace-nowrap p-3 text-sm tabular">
         <div>Calibrated {gauge.calibratedOn}</div>
         <div className="font-semibold text-ink">Due {gauge.calibrationDue}</div>
+        <div className="mt-1">{study ? `Study due ${study.summary.dueOn}` : "No study"}</div>
       </td>
       <td className="p-3">
         {gauge.active ? (
-          <CalibrationTag status={gauge.status} daysLeft={gauge.daysLeft} />
+          <span className="flex flex-col items-start gap-2">
+            <CalibrationTag status={gauge.status} daysLeft={gauge.daysLeft} />
+            <StudyTag state={studyState(study, new Date().toISOString().slice(0, 10))} />
+          </span>
         ) : (
           <StatusTag tone="off">Deactivated</StatusTag>
         )}

@@ -1,0 +1,15 @@
+import { GaugeStudiesPage } from "@/components/admin/gauges/gauge-studies-page";
+import { requirePageActor } from "@/lib/server/core/access";
+
+export const metadata = { title: "Gauge and its studies" };
+
+// One gauge: its calibration, its uncertainty budget and its studies (admin, lead and inspector read).
+export default async function GaugePage({ params }: { params: Promise<{ gaugeId: string }> }) {
+  await requirePageActor(["admin", "lead", "inspector"]);
+  const { gaugeId } = await params;
+  return (
+    <main className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6">
+      <GaugeStudiesPage gaugeId={Number(gaugeId)} />
+    </main>
+  );
+}
