@@ -6,12 +6,14 @@ import { Op } from "sequelize";
 import { describe, expect, it } from "vitest";
 import { DEFAULT_STUDY_THRESHOLDS } from "@/lib/domain";
 import { getSequelize } from "@/lib/server/core/db";
+import { GET as latestRoute } from "@/app/api/gauge-studies/latest/route";
 import { loadBuildRecord } from "@/lib/server/record/data";
 import { renderRecordPdf } from "@/lib/server/record/pdf";
 import { releaseChecklist } from "@/lib/server/release/checklist";
 import { GaugeStudy, Instrument, Reading } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 import { pdfText } from "../support/pdf-text";
+import { asUser, call } from "../support/requests";
 import { completeJob } from "./release-fixtures";
 
 /** A filled-in job whose 48 bore readings were judged against 4.0295–4.0305 in (T = 0.001 in). */
@@ -109,5 +111,31 @@ describe("build record: gauge studies", () => {
     const { text } = await pdfText(await renderRecordPdf(record));
     expect(text).toContain("Latest study");
     expect(text).toContain("Repeatability study of 2026-06-01");
+  });
+});
+
+describe("GET /api/gauge-studies/latest", () => {
+  it("gives each gauge's latest study of the actor's shop to the admin, lead and inspector only", async () => {
+    const s = await jobWithBores();
+    await addStudy(s, { performedOn: "2025-11-01", dueOn: "2026-11-01", repeatSd: 0.0002 });
+    await addStudy(s, { performedOn: "2026-06-01", dueOn: "2027-06-01", repeatSd: 0.0001 });
+    const other = await createShop();
+    for (const who of [s.users.admin, s.users.lead, s.users.inspector]) {
+      const res = await call(latestRoute, await asUser(who, "GET", "/api/gauge-studies/latest"));
+      expect(res.status).toBe(200);
+      expect(res.body.studies).toEqual([
+        {
+          instrumentId: s.gauges.bore,
+          passed: true,
+          summary: expect.objectContaining({ kind: "type1", performedOn: "2026-06-01", dueOn: "2027-06-01" }),
+        },
+      ]);
+    }
+    const theirs = await call(latestRoute, await asUser(other.users.admin, "GET", "/api/gauge-studies/latest"));
+    expect(theirs.body.studies).toEqual([]);
+    expect((await call(latestRoute, await asUser(s.users.machinist, "GET", "/api/gauge-studies/latest"))).status).toBe(
+      403,
+    );
+    expect((await call(latestRoute, await asUser(null, "GET", "/api/gauge-studies/latest"))).status).toBe(401);
   });
 });

@@ -4,6 +4,7 @@ import { afterEach, describe, expect, it } from "vitest";
 import { AnovaTable } from "@/components/gauge-studies/anova-table";
 import { BudgetTable, uncertaintyText } from "@/components/gauge-studies/budget-table";
 import { Type1Figures } from "@/components/gauge-studies/type1-figures";
+import { gaugeBudget } from "@/lib/domain";
 import type { GaugeBudget, GrrResult, Type1Result } from "@/lib/domain/gauge-studies/types";
 
 afterEach(cleanup);
@@ -41,6 +42,12 @@ describe("BudgetTable", () => {
     expect(line("resolution")).toMatch(/√12.*0\.000029 in.*3 %/);
     expect(line("uc")).toMatch(/0\.00016 in/);
     expect(line("U")).toMatch(/0\.00032 in/);
+  });
+
+  it("agrees with the core's budget for the same gauge (the hand-worked figures above)", () => {
+    const core = gaugeBudget({ expandedU: 0.0002, coverageK: 2, resolution: 0.0001, study: { repeatSd: 0.00012 } });
+    expect(core.uc).toBeCloseTo(uc, 12);
+    expect(core.lines.map((l) => l.standardU)).toEqual(budget.lines.map((l) => expect.closeTo(l.standardU, 12)));
   });
 
   it("says the certificate stands alone when the gauge has no study", () => {
