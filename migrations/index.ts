@@ -32,6 +32,7 @@ import * as addFlagsQueueKeys from "./20261205010000-add-flags-queue-keys";
 import * as addAuditEventsJob from "./20261205011000-add-audit-events-job";
 import * as addReadingsJobSupersedesIndex from "./20261205020000-add-readings-job-supersedes-index";
 import * as createGaugeStudies from "./20261205030000-create-gauge-studies";
+import * as addFlagsStudyReasons from "./20261205031000-add-flags-study-reasons";
 import * as addSyncChangesShopSeq from "./20261205040000-add-sync-changes-shop-seq";
 
 type Step = (p: { context: QueryInterface }) => Promise<void>;
@@ -73,6 +74,7 @@ export const migrations: Migration[] = [
   step("20261205011000-add-audit-events-job", addAuditEventsJob),
   step("20261205020000-add-readings-job-supersedes-index", addReadingsJobSupersedesIndex),
   step("20261205030000-create-gauge-studies", createGaugeStudies),
+  step("20261205031000-add-flags-study-reasons", addFlagsStudyReasons),
   step("20261205040000-add-sync-changes-shop-seq", addSyncChangesShopSeq),
 ];
 

@@ -9,6 +9,9 @@ function ReasonShape({ reason }: { reason: FlagReason }) {
         <path d="M2 2 10 10M10 2 2 10" stroke="currentColor" strokeWidth="2.2" strokeLinecap="round" />
       )}
       {reason === "marginal" && <path d="M6 1 11 6 6 11 1 6Z" fill="none" stroke="currentColor" strokeWidth="1.8" />}
+      {(reason === "gauge_study_failed" || reason === "gauge_study_due") && (
+        <path d="M1.5 9.5h9M3 9.5V7M6 9.5V4M9 9.5V2" fill="none" stroke="currentColor" strokeWidth="1.6" />
+      )}
       {reason === "gauge_past_due" && (
         <>
           <circle cx="6" cy="6" r="4.8" fill="none" stroke="currentColor" strokeWidth="1.6" />

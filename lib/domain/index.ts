@@ -36,3 +36,4 @@ export * from "./words";
 export * from "./bearings";
 export * from "./bearing-points";
 export * from "./gauge-studies";
+export * from "./gauge-study-concern";

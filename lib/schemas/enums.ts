@@ -42,7 +42,13 @@ export type LinkPurpose = (typeof LINK_PURPOSES)[number];
 export const FUELS = ["gasoline", "diesel", "other"] as const;
 export type Fuel = (typeof FUELS)[number];
 
-export const FLAG_REASONS = ["out_of_spec", "marginal", "gauge_past_due"] as const;
+export const FLAG_REASONS = [
+  "out_of_spec",
+  "marginal",
+  "gauge_past_due",
+  "gauge_study_failed",
+  "gauge_study_due",
+] as const;
 export type FlagReason = (typeof FLAG_REASONS)[number];
 
 export const FLAG_STATES = ["open", "disposed", "closed"] as const;

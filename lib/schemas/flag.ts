@@ -59,6 +59,8 @@ export const REASON_TAG_WORDS: Record<FlagReason, string> = {
   out_of_spec: VERDICT_WORDS.out_of_spec,
   marginal: VERDICT_WORDS.marginal,
   gauge_past_due: "Gauge past calibration due",
+  gauge_study_failed: "Gauge failed its study for this tolerance",
+  gauge_study_due: "Gauge study past due",
 };
 
 /** Why a flag was raised, with what marginal means (filters, a tag's tooltip). */
@@ -118,7 +120,7 @@ export const flagListQuerySchema = z.object({
   ),
   reason: z.preprocess(
     blank,
-    z.enum(FLAG_REASONS, { error: "reason must be out_of_spec, marginal or gauge_past_due" }).optional(),
+    z.enum(FLAG_REASONS, { error: `reason must be one of ${FLAG_REASONS.join(", ")}` }).optional(),
   ),
 });
 export type FlagListQuery = z.output<typeof flagListQuerySchema>;

@@ -11,6 +11,8 @@ const REASON = {
   out_of_spec: "outside its limits",
   marginal: "within the gauge's uncertainty of a limit",
   gauge_past_due: "gauge past calibration due",
+  gauge_study_failed: "gauge failed its study for this tolerance",
+  gauge_study_due: "gauge study past due",
 } as Record<string, string>;
 const STATE = {
   open: "waiting for a decision",

@@ -16,10 +16,11 @@ export type FlagPlan = {
   close: { flag: UnclosedFlag; closedByReadingId: string | null }[];
 };
 
-/** Flag reason for a raw reading: out_of_spec, then gauge_past_due, then marginal. */
+/** Flag reason for a raw reading: out_of_spec, then the gauge (past due, study failed or due), then marginal. */
 function rawReason(e: ReadingEvaluation): NewFlag["reason"] | null {
   if (e.verdict === "out_of_spec") return "out_of_spec";
   if (e.verdictNote === "gauge_past_due") return "gauge_past_due";
+  if (e.verdictNote === "gauge_study_failed" || e.verdictNote === "gauge_study_due") return e.verdictNote;
   return e.verdict === "marginal" ? "marginal" : null;
 }
 

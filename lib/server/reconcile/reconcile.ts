@@ -8,7 +8,14 @@ import { recordAudits } from "@/lib/server/log/repo";
 import { recordChanges, type ChangeInput } from "@/lib/server/sync/repo";
 import { newestInput, planFlags, wantedDerived, wantedRaw, type Closer } from "@/lib/server/reconcile/plan";
 import { derivedScope, ingestStations, toJudge } from "@/lib/server/reconcile/scope";
-import { gaugePastDue, round6, sameEvaluation, storedEvaluation, toRaw } from "@/lib/server/sync/ingest-evaluate";
+import {
+  gaugePastDue,
+  round6,
+  sameEvaluation,
+  storedEvaluation,
+  toRaw,
+  type InstrumentInfo,
+} from "@/lib/server/sync/ingest-evaluate";
 import type { JobContext } from "@/lib/server/jobs/context";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { jobReadingsWithGauges, lockJobs, updateEvaluation } from "@/lib/server/readings/repo";
@@ -83,11 +90,13 @@ function evaluateCurrent(
   raws: RawReading[],
   past: boolean[],
   judge: (r: StoredReading) => boolean,
+  gaugeOf: (r: StoredReading) => InstrumentInfo | undefined,
 ) {
   return current.map((r, i) => {
     if (!judge(r)) return storedOf(r);
     try {
-      return storedEvaluation(evaluateReading(raws[i], ctx.shape, ctx.spec, raws), r.unit, past[i]);
+      const ev = evaluateReading(raws[i], ctx.shape, ctx.spec, raws);
+      return storedEvaluation(ev, r.unit, past[i], { inst: gaugeOf(r), takenAt: r.takenAt });
     } catch {
       // A station the engine no longer has (an edited engine): no verdict, nothing to flag.
       return storedEvaluation(null, r.unit, past[i]);
@@ -220,7 +229,7 @@ export async function reconcileJob(
   // Past due is a fact of the moment of measurement: once stored, a later recalibration of the
   // gauge (a new due date) must not clear it.
   const past = current.map((r) => r.verdictNote === "gauge_past_due" || gaugePastDue(inst(r), r.takenAt));
-  const evals = evaluateCurrent(ctx, current, raws, past, toJudge(ctx, o.fresh));
+  const evals = evaluateCurrent(ctx, current, raws, past, toJudge(ctx, o.fresh), inst);
   const log: ReconcileLog = o.log ?? { audits: [], changes: [] };
   const { changed: reevaluated, verdictMoved } = await storeEvaluations(t, o, current, evals, log);
 

@@ -14,6 +14,8 @@ const REASON_WORDS: Record<string, string> = {
   out_of_spec: "outside its limits",
   marginal: "within the gauge's uncertainty of a limit",
   gauge_past_due: "taken with a gauge past its calibration due date",
+  gauge_study_failed: "taken with a gauge whose latest study fails for this tolerance",
+  gauge_study_due: "taken with a gauge whose study was past its due date",
 };
 
 const STATE_WORDS: Record<string, string> = {

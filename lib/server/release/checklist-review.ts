@@ -11,6 +11,8 @@ const REASON_WORDS = {
   out_of_spec: verdictInText("out_of_spec"),
   marginal: "marginal (inside the limits by less than the gauge's uncertainty)",
   gauge_past_due: "taken with a gauge past its calibration due date",
+  gauge_study_failed: "taken with a gauge whose latest study fails for this tolerance",
+  gauge_study_due: "taken with a gauge whose study was past its due date",
 } as const;
 
 const flagLink = (id: number): ChecklistLink => ({ label: `Open flag #${id}`, href: `/desk/flags/${id}` });

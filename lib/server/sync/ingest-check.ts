@@ -234,7 +234,8 @@ export function checkItem(item: PushReading, bc: BatchContext): Checked {
   if (Object.keys(errors).length === 0 && !row.skipped) {
     try {
       const pastDue = gaugePastDue(inst, row.takenAt);
-      evaluation = storedEvaluation(evaluateReading(toRaw(row, inst), job.shape, job.spec), item.unit, pastDue);
+      const ev = evaluateReading(toRaw(row, inst), job.shape, job.spec);
+      evaluation = storedEvaluation(ev, item.unit, pastDue, { inst, takenAt: row.takenAt });
     } catch (err) {
       add("value", (err as Error).message);
     }

@@ -1,5 +1,12 @@
 import "server-only";
-import { convertMeasure, coreReading, quantityOfUnit, type Evaluation, type RawReading } from "@/lib/domain";
+import {
+  convertMeasure,
+  coreReading,
+  gaugeStudyConcern,
+  quantityOfUnit,
+  type Evaluation,
+  type RawReading,
+} from "@/lib/domain";
 import type { StoredReading } from "@/lib/schemas/readings";
 import type { BenchInstrument, ReadingEvaluation } from "@/lib/schemas/sync";
 
@@ -71,13 +78,37 @@ export function gaugePastDue(inst: InstrumentInfo | undefined, takenAt: Date): b
 export const toRaw = (r: ReadingFacts, inst?: InstrumentInfo): RawReading =>
   coreReading({ ...r, value: r.value as number }, inst);
 
-/** The core's Evaluation as the readings table stores it: limits and deviation in the unit entered. */
-export function storedEvaluation(ev: Evaluation | null, unitEntered: string, pastDue: boolean): ReadingEvaluation {
+/** The limits' width T (upper − lower) in the gauge's unit; undefined for a one-sided limit. */
+function toleranceIn(ev: Evaluation | null, unit: string): number | undefined {
+  const l = ev?.limits;
+  if (!l || typeof l.min !== "number" || typeof l.max !== "number") return undefined;
+  return convertMeasure(l.max - l.min, l.unit ?? ev.unit, unit);
+}
+
+/** What is said about the gauge: past its calibration due date first, then its latest study. */
+function gaugeNote(ev: Evaluation | null, pastDue: boolean, gauge?: { inst?: InstrumentInfo; takenAt: Date }) {
+  if (pastDue) return "gauge_past_due";
+  const inst = gauge?.inst;
+  if (!gauge || !inst?.study || !ev) return null;
+  const takenOn = gauge.takenAt.toISOString().slice(0, 10);
+  return gaugeStudyConcern(inst.study, inst.resolution, toleranceIn(ev, inst.unit), takenOn);
+}
+
+/**
+ * The core's Evaluation as the readings table stores it: limits and deviation in the unit entered,
+ * and the note about the gauge (`gauge` names it and when the reading was taken).
+ */
+export function storedEvaluation(
+  ev: Evaluation | null,
+  unitEntered: string,
+  pastDue: boolean,
+  gauge?: { inst?: InstrumentInfo; takenAt: Date },
+): ReadingEvaluation {
   const from = ev?.limits?.unit ?? ev?.unit ?? unitEntered;
   const conv = (x: number | undefined) => (x === undefined ? null : round6(convertMeasure(x, from, unitEntered)));
   return {
     verdict: ev?.verdict ?? null,
-    verdictNote: pastDue ? "gauge_past_due" : null,
+    verdictNote: gaugeNote(ev, pastDue, gauge),
     unit: unitEntered,
     limitMin: conv(ev?.limits?.min),
     limitMax: conv(ev?.limits?.max),
