@@ -18,6 +18,9 @@ import { useStudyPreview } from "./use-study-preview";
 // The result of a repeatability run. On the tablet at once (the core's spread, bias and t-test,
 // which need no tolerance); the server's answer adds Cg and Cgk for each tolerance the gauge judges
 // on the shop's jobs and what saving would change, and only the server saves it.
+// Fits the half of a 1024 px landscape tablet beside the figures (the charts draw at a fixed width).
+const CHART_WIDTH = 440;
+
 interface Props {
   draft: Type1Draft & { reference: StudyReference };
   onBack: () => void;
@@ -81,6 +84,7 @@ export function Type1Outcome({ draft, onBack, onClose, onSaved }: Props) {
             unit={gauge.unit}
             characteristics={result.perCharacteristic}
             mean={result.mean}
+            width={CHART_WIDTH}
           />
           <StudyHistogram
             readings={readings}
@@ -89,6 +93,7 @@ export function Type1Outcome({ draft, onBack, onClose, onSaved }: Props) {
             unit={gauge.unit}
             mean={result.mean}
             sd={result.sd}
+            width={CHART_WIDTH}
           />
         </div>
       </div>
