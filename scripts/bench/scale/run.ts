@@ -34,7 +34,7 @@ function planLine(t: Timed): string {
   const side = (p: Timed["plans"]["app"]) =>
     p.findings.length
       ? `${p.findings.length} scan/filesort: ${p.findings.map((x) => x.split(" in: ")[0]).join("; ")}`
-      : `index only: ${p.indexes.join(", ") || "no big table"}`;
+      : `no scan or filesort; indexes ${p.indexes.join(", ") || "none needed"}`;
   return `      EXPLAIN app ${side(t.plans.app)} | raw ${side(t.plans.raw)}`;
 }
 
