@@ -2,7 +2,7 @@
 // (Cg = 0.2·T/(6·s), Cgk = (0.1·T − |bias|)/(3·s), resolution ≤ 5 % of T, %GRR = 100·6·σ_GRR/T,
 // marks 1.33 / 5 % / 30 %: common practice); the figures are invented.
 import { describe, expect, it } from "vitest";
-import { gaugeStudyConcern, studyFailureReasons, type GaugeStudySummary } from "@/lib/domain";
+import { gaugeStudyConcern, studyProblem, type GaugeStudySummary } from "@/lib/domain";
 
 const type1 = (repeatSd: number, bias = 0, dueOn = "2027-06-01"): GaugeStudySummary => ({
   kind: "type1",
@@ -24,7 +24,8 @@ describe("gaugeStudyConcern", () => {
 
   it("fails when the spread is too wide for T (Cg = 0.0002/(6·0.00003) = 1.11 < 1.33)", () => {
     expect(gaugeStudyConcern(type1(0.00003), 0.00001, 0.001, "2026-12-01")).toBe("gauge_study_failed");
-    expect(studyFailureReasons(type1(0.00003), 0.00001, 0.001).join(" ")).toMatch(/Cg 1\.1/);
+    const use = { resolution: 0.00001, tolerance: 0.001, takenOn: "2026-12-01" };
+    expect(studyProblem(type1(0.00003), use)?.words).toMatch(/Cg 1\.1/);
   });
 
   it("the same study passes a wider tolerance: the concern is per T", () => {
