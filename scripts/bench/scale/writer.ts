@@ -8,7 +8,14 @@ import type { Row } from "./clone";
 const CHUNK_BYTES = 4 * 1024 * 1024;
 const IN_FLIGHT = 3;
 
-const size = (v: unknown) => (typeof v === "string" ? v.length + 3 : 12);
+// A value's share of the statement; an object (a release's checklist, an event's JSON) is sent as
+// its JSON text, so counting it as a number let a chunk of releases outgrow max_allowed_packet.
+function size(v: unknown): number {
+  if (typeof v === "string") return Buffer.byteLength(v) + 3;
+  if (Buffer.isBuffer(v)) return 2 * v.length + 3;
+  if (v instanceof Date || v === null || typeof v !== "object") return 28;
+  return Buffer.byteLength(JSON.stringify(v)) + 3;
+}
 
 export class BulkWriter {
   private buffers = new Map<string, { columns: string[]; rows: unknown[][]; bytes: number }>();
