@@ -34,13 +34,14 @@ const DOMAIN_ONLY = [
 ];
 
 // A feature folder inside the core (lib/domain/bearings/) may also reach the core's own files one level up.
-// Gauge studies (lib/domain/gauge-studies/) also take Student's t and F distributions from @stdlib (pure, typed).
+// Gauge studies (lib/domain/gauge-studies/) also take Student's t and F distributions from jstat (pure; @stdlib's
+// compile polynomials with new Function at load, which the pages' Content-Security-Policy refuses).
 const DOMAIN_FEATURE_ONLY = [
   {
-    regex: "^(?!\\./|\\.\\./(?!\\.\\.)|decimal\\.js-light$|@stdlib/stats-base-dists-(t|f)-cdf$)",
+    regex: "^(?!\\./|\\.\\./(?!\\.\\.)|decimal\\.js-light$|jstat$)",
     message:
       "lib/domain is the pure core: a feature folder imports only the core's files " +
-      "(and decimal.js-light, @stdlib's t and F distributions).",
+      "(and decimal.js-light, jstat's t and F distributions).",
   },
 ];
 

@@ -3,7 +3,7 @@
 // interaction's mean square, the interaction against repeatability's; an interaction that is not
 // significant (p > 0.25, common practice) is pooled into repeatability. Variance components from the
 // expected mean squares of the random-effects model, a negative estimate taken as 0.
-import fCdf from "@stdlib/stats-base-dists-f-cdf";
+import jStat from "jstat";
 import { checkGrrDesign } from "./checks";
 import type { AnovaRow, GrrComponents, GrrInput, GrrMeasurement, GrrResult } from "./types";
 
@@ -67,7 +67,7 @@ function sumsOfSquares(measurements: readonly GrrMeasurement[]): Sums {
 function fTest(ms: number, df: number, msDenominator: number, dfDenominator: number) {
   if (!(msDenominator > 0)) return { f: null, p: null };
   const f = ms / msDenominator;
-  return { f, p: Math.max(0, 1 - fCdf(f, df, dfDenominator)) };
+  return { f, p: Math.max(0, 1 - jStat.centralF.cdf(f, df, dfDenominator)) };
 }
 
 function row(source: AnovaRow["source"], df: number, ss: number, test?: { f: number | null; p: number | null }) {

@@ -1,7 +1,7 @@
 // The repeatability ("type 1") study: one gauge, one reference, 25 to 50 readings. Its spread and
 // bias against the tolerance T of each characteristic the gauge judges, as Cg = 0.2·T/(6·s) and
 // Cgk = (0.1·T − |bias|)/(3·s) (common practice: 20 % of T for the gauge's 6·s spread).
-import tCdf from "@stdlib/stats-base-dists-t-cdf";
+import jStat from "jstat";
 import { checkStudyFigures, checkType1Readings } from "./checks";
 import type { CharacteristicCapability, StudyThresholds, Type1Input, Type1Result } from "./types";
 import { indexFigure, measureFigure, percentFigure } from "./words";
@@ -77,7 +77,7 @@ export function capabilityFor(
 
 /** Two-sided p-value of Student's t with `df` degrees of freedom. */
 function twoSidedP(t: number, df: number): number {
-  return Math.min(1, 2 * tCdf(-Math.abs(t), df));
+  return Math.min(1, 2 * jStat.studentt.cdf(-Math.abs(t), df));
 }
 
 /** The repeatability study's figures and its verdict per characteristic. Throws the input's problems in words. */

@@ -1,4 +1,4 @@
-import jStat from "jstat";
+import fCdf from "@stdlib/stats-base-dists-f-cdf";
 import * as ss from "simple-statistics";
 import { describe, expect, it } from "vitest";
 import { checkGrrDesign, grrAnova, type GrrMeasurement } from "../../../../lib/domain";
@@ -40,10 +40,10 @@ describe("grrAnova", () => {
   });
 
   it("pools the AIAG example's interaction (F = 0.434, p = 0.974 > 0.25, common practice)", () => {
-    // p = 0.974 of the interaction as published for this data (from memory), and by jstat
+    // p = 0.974 of the interaction as published for this data (from memory), and by @stdlib's F distribution
     const full = grrAnova({ measurements: aiag, keepInteraction: true });
     expect(rowOf(full, "interaction").p).toBeCloseTo(0.974, 3);
-    expect(rowOf(full, "interaction").p).toBeCloseTo(1 - jStat.centralF.cdf(rowOf(full, "interaction").f!, 18, 60), 7);
+    expect(rowOf(full, "interaction").p).toBeCloseTo(1 - fCdf(rowOf(full, "interaction").f!, 18, 60), 7);
     const r = grrAnova({ measurements: aiag });
     expect(r.interactionPooled).toBe(true);
     expect(r.anova.map((x) => x.source)).toEqual(["part", "appraiser", "repeatability", "total"]);
@@ -98,14 +98,14 @@ describe("grrAnova", () => {
     expect(rowOf(r, "repeatability").ss).toBeCloseTo(within, 10);
     expect(rowOf(r, "total").ss).toBeCloseTo(total, 10);
     expect(rowOf(r, "interaction").ss).toBeCloseTo(total - groupSs("part") - groupSs("appraiser") - within, 10);
-    // jstat's F distribution: parts and appraisers against interaction, interaction against repeatability
+    // @stdlib's F distribution: parts and appraisers against interaction, interaction against repeatability
     const ms = (s: string) => rowOf(r, s).ms;
     expect(rowOf(r, "part").f).toBeCloseTo(ms("part") / ms("interaction"), 10);
-    expect(rowOf(r, "part").p).toBeCloseTo(1 - jStat.centralF.cdf(ms("part") / ms("interaction"), 9, 18), 7);
-    expect(rowOf(r, "appraiser").p).toBeCloseTo(1 - jStat.centralF.cdf(ms("appraiser") / ms("interaction"), 2, 18), 7);
+    expect(rowOf(r, "part").p).toBeCloseTo(1 - fCdf(ms("part") / ms("interaction"), 9, 18), 7);
+    expect(rowOf(r, "appraiser").p).toBeCloseTo(1 - fCdf(ms("appraiser") / ms("interaction"), 2, 18), 7);
     const fInteraction = ms("interaction") / ms("repeatability");
     expect(rowOf(r, "interaction").f).toBeCloseTo(fInteraction, 10);
-    expect(rowOf(r, "interaction").p).toBeCloseTo(1 - jStat.centralF.cdf(fInteraction, 18, 60), 7);
+    expect(rowOf(r, "interaction").p).toBeCloseTo(1 - fCdf(fInteraction, 18, 60), 7);
     expect(rowOf(r, "interaction").p).toBeLessThan(0.25);
     // Expected mean squares of the random-effects model
     expect(r.sd.interaction ** 2).toBeCloseTo((ms("interaction") - ms("repeatability")) / 3, 12);

@@ -1,4 +1,5 @@
-// jstat ships no types; the tests use it only to cross-check the core's statistics.
+// jstat ships no types: the parts the gauge-study core uses (its t and F distributions; no eval,
+// so the pages' Content-Security-Policy holds) and the tests' cross-checks use.
 declare module "jstat" {
   interface JStat {
     tscore(value: number, data: readonly number[]): number;
