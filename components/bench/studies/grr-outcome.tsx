@@ -2,10 +2,9 @@
 
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { unitWords } from "@/lib/domain";
+import { AnovaTable } from "@/components/gauge-studies/anova-table";
 import type { GrrDesign, GrrDraft } from "@/lib/offline/study-draft-shape";
 import type { GaugeStudyRecord } from "@/lib/schemas/gauge-studies";
-import { GrrFigures } from "./grr-figures";
 import { SavePanel } from "./save-panel";
 import { StudyPass } from "./study-pass";
 import { StudyTitle } from "./study-title";
@@ -42,7 +41,7 @@ export function GrrOutcome({ draft, onBack, onClose, onSaved }: Props) {
             pass={preview.study.passed}
             what={`against the shop's largest %GRR (${preview.study.thresholds.maxGrrPct} %)`}
           />
-          <GrrFigures result={result} unit={unitWords(draft.gauge.unit)} />
+          <AnovaTable result={result} unit={draft.gauge.unit} />
           <SavePanel
             preview={preview}
             saving={state.kind === "saving"}
