@@ -15,7 +15,7 @@ import type { Transaction } from "sequelize";
 // Dates travel as UTC text both ways ('YYYY-MM-DD HH:MM:SS.mmm'): the driver would format and
 // parse them in the Node process's local time zone, while the session runs at +00:00.
 
-type DriverConnection = {
+export type DriverConnection = {
   query(opts: Record<string, unknown> & { sql: string }, values?: unknown[]): Promise<unknown>;
 };
 export type WriteResult = { affectedRows: number; insertId: number };
@@ -47,17 +47,24 @@ export function utcDate(v: unknown): Date | null {
   return new Date(s.length <= 10 ? `${s}T00:00:00Z` : `${s.replace(" ", "T")}Z`);
 }
 
-/** A listener for every statement run here and its wall time in ms (bench:sync's TW_BENCH_TRACE). */
-type Trace = (sql: string, ms: number) => void;
+/**
+ * A listener for every statement run here (in a transaction or through sql-read.ts), its wall time
+ * in ms and its values (bench:sync's TW_BENCH_TRACE; bench:scale EXPLAINs the reads it sees).
+ */
+type Trace = (sql: string, ms: number, values: unknown[]) => void;
 let trace: Trace | null = null;
 export const setSqlTrace = (fn: Trace | null) => void (trace = fn);
 
-async function run(t: Transaction, sql: string, values: unknown[]): Promise<unknown> {
+/** One statement on a driver connection, with this file's options (sql-read.ts runs its reads here too). */
+export async function queryOn(c: DriverConnection, sql: string, values: unknown[]): Promise<unknown> {
   const started = trace ? performance.now() : 0;
-  const out = await driverOf(t).query({ sql, ...OPTIONS }, values.map(param));
-  trace?.(sql, performance.now() - started);
+  const params = values.map(param);
+  const out = await c.query({ sql, ...OPTIONS }, params);
+  trace?.(sql, performance.now() - started, params);
   return out;
 }
+
+const run = (t: Transaction, sql: string, values: unknown[]) => queryOn(driverOf(t), sql, values);
 
 const param = (v: unknown) => (v === undefined ? null : v instanceof Date ? utcText(v) : v);
 

@@ -1,8 +1,9 @@
 // Timing and plan checks of bench:scale: each office query's server function beside the raw SQL
 // a hand-tuned query on the same indexes runs, interleaved in the same run, and EXPLAIN of every
-// SELECT the server function issued (captured from Sequelize's log).
+// SELECT the server function issued (captured from Sequelize's log and the driver path's trace).
 import type { Connection } from "mariadb";
 import { getSequelize } from "@/lib/server/core/db";
+import { setSqlTrace } from "@/lib/server/core/sql-driver";
 
 export type Case = { name: string; app: () => Promise<unknown>; raw: (c: Connection) => Promise<unknown> };
 /** What EXPLAIN shows of one side's statements: what is wrong, and the indexes of big tables used. */
@@ -28,18 +29,24 @@ async function ms(fn: () => Promise<unknown>): Promise<number> {
   return performance.now() - t0;
 }
 
-/** Runs fn with Sequelize's log captured; answers the SELECT statements it issued. */
-export async function capture(fn: () => Promise<unknown>): Promise<string[]> {
+/**
+ * Runs fn with Sequelize's log and the driver path's trace (sql-driver.ts) captured; answers the
+ * SELECT statements it issued, with their values (the driver's; Sequelize's come inlined).
+ */
+export async function capture(fn: () => Promise<unknown>): Promise<[string, unknown][]> {
   const options = (getSequelize() as unknown as { options: { logging?: unknown } }).options;
   const before = options.logging;
-  const seen: string[] = [];
-  options.logging = (sql: string) => seen.push(sql.replace(/^Executing \([^)]*\): /, "").replace(/;\s*$/, ""));
+  const seen: [string, unknown][] = [];
+  options.logging = (sql: string) =>
+    seen.push([sql.replace(/^Executing \([^)]*\): /, "").replace(/;\s*$/, ""), undefined]);
+  setSqlTrace((sql, _ms, values) => seen.push([sql, values]));
   try {
     await fn();
   } finally {
     options.logging = before;
+    setSqlTrace(null);
   }
-  return seen.filter((s) => /^\s*SELECT/i.test(s));
+  return seen.filter(([s]) => /^\s*SELECT/i.test(s));
 }
 
 type PlanRow = {
@@ -101,10 +108,7 @@ export async function timeCase(conn: Connection, c: Case, n: number): Promise<Ti
   const statements = await capture(c.app);
   const raw: number[] = [];
   const plans = {
-    app: await planOf(
-      conn,
-      statements.map((s) => [s, undefined]),
-    ),
+    app: await planOf(conn, statements),
     raw: await planOf(conn, await rawStatements(conn, c)),
   };
   const app: number[] = [];
