@@ -7,6 +7,7 @@ import {
   quantityOfUnit,
   type MeasureUnit,
 } from "@/lib/domain";
+import type { SettingMasterRecord } from "./setting-master";
 import { storedText } from "./stored-text";
 import { GAUGE_FIGURE_PRECISION, keptBy } from "./stored-figure";
 
@@ -176,6 +177,8 @@ export type InstrumentRecord = Fields & {
   coverageK: number;
   active: boolean;
   certificate: { id: string; name: string; url: string } | null;
+  /** The setting master a repeatability study offers as its reference (lib/schemas/setting-master.ts). */
+  master: SettingMasterRecord | null;
   status: CalibrationStatus;
   daysLeft: number;
 };

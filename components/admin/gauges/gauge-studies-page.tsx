@@ -10,6 +10,7 @@ import { api } from "@/lib/client/api";
 import { gaugeBudget, instrumentKindWords } from "@/lib/domain";
 import type { GaugeStudyRecord } from "@/lib/schemas/gauge-studies";
 import type { InstrumentRecord } from "@/lib/schemas/instrument";
+import { SettingMasterForm } from "./setting-master-form";
 import { StudyCard } from "./study-card";
 
 // A gauge's own page: calibration and study dates side by side, the uncertainty budget its verdicts
@@ -36,7 +37,7 @@ function Dates({ gauge, latest }: { gauge: InstrumentRecord; latest: GaugeStudyR
   );
 }
 
-export function GaugeStudiesPage({ gaugeId }: { gaugeId: number }) {
+export function GaugeStudiesPage({ gaugeId, canEdit }: { gaugeId: number; canEdit: boolean }) {
   const gauge = useQuery({
     queryKey: ["instrument", gaugeId],
     queryFn: () => api<{ instrument: InstrumentRecord }>(`/api/instruments/${gaugeId}`),
@@ -83,6 +84,7 @@ export function GaugeStudiesPage({ gaugeId }: { gaugeId: number }) {
           study={latest?.summary ?? null}
         />
       </section>
+      <SettingMasterForm key={g.id} gauge={g} canEdit={canEdit} />
       <section aria-labelledby="studies-h" className="flex flex-col gap-3">
         <h2 id="studies-h" className="text-xl font-semibold">
           Studies ({list.length})

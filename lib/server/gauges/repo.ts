@@ -15,10 +15,17 @@ import type { Actor } from "@/lib/schemas/session";
 import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { AppError, invalid, notFound } from "@/lib/server/core/errors";
+import { masterProblems, type SettingMasterInput, type SettingMasterRecord } from "@/lib/schemas/setting-master";
 
 // The shop's gauges: the feature's one door to the database, plain objects out.
 // U is stored at k = 2 (coverageK stays 2: the form asks for U at k = 2).
 const todayUtc = () => new Date().toISOString().slice(0, 10);
+
+/** The setting master on file, or null (a master is on file when its size is). */
+function masterOf(g: Instrument): SettingMasterRecord | null {
+  if (g.masterSize === null || g.masterSize === undefined) return null;
+  return { label: g.masterLabel ?? null, size: Number(g.masterSize), expandedU: Number(g.masterU ?? 0) };
+}
 
 function reshape(g: Instrument, today = todayUtc()): InstrumentRecord {
   const cert = (g as Instrument & { certificate?: Attachment | null }).certificate;
@@ -39,6 +46,7 @@ function reshape(g: Instrument, today = todayUtc()): InstrumentRecord {
     dialPlusMeansSmaller: g.dialPlusMeansSmaller,
     active: g.active,
     certificate: cert ? { id: cert.id, name: cert.originalName, url: `/api/attachments/${cert.id}` } : null,
+    master: masterOf(g),
     ...calibrationStatus(due, today),
   };
 }
@@ -162,4 +170,50 @@ export async function updateInstrument(actor: Actor, id: number, patch: Instrume
       return reshape(g);
     }),
   );
+}
+
+/**
+ * Sets, changes (a master) or removes (null) the gauge's setting master, checked against the gauge's
+ * range and step, audited with what it was before. Verdicts never read the master, so nothing is re-judged.
+ */
+export async function setSettingMaster(
+  actor: Actor,
+  id: number,
+  master: SettingMasterInput | null,
+): Promise<InstrumentRecord> {
+  return getSequelize().transaction(async (t) => {
+    const g = await findOrThrow(actor.shopId, id, t);
+    if (master) {
+      const gauge = {
+        unit: g.unit as InstrumentUnit,
+        resolution: g.resolution,
+        rangeMin: g.rangeMin,
+        rangeMax: g.rangeMax,
+      };
+      const problems = Object.entries(masterProblems(master, gauge));
+      if (problems.length > 0)
+        throw new AppError(
+          "invalid",
+          "The setting master does not fit this gauge",
+          Object.fromEntries(problems.map(([field, words]) => [field, [words]])),
+        );
+    }
+    const before = masterOf(g);
+    const next = {
+      masterLabel: master?.label ?? null,
+      masterSize: master?.size ?? null,
+      masterU: master?.expandedU ?? null,
+    };
+    await g.update(next, { transaction: t });
+    await recordAudit(t, {
+      shopId: actor.shopId,
+      userId: actor.userId,
+      action: master ? "instrument.master_set" : "instrument.master_removed",
+      entityType: "instrument",
+      entityId: g.id,
+      before: { master: before },
+      after: { master: masterOf(g) },
+    });
+    return reshape(g);
+  });
 }

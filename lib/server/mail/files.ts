@@ -8,6 +8,8 @@ import type { MailFile } from "@/lib/schemas/mail";
 // The development mailbox: the .eml files the local fake SMTP server saved in MAIL_DIR, read
 // with mailparser, for the admin mail page. Only messages Tenthwise sent for this shop (the
 // X-Tenthwise-Shop header) are shown, so one shop's admin never reads another shop's mail.
+// MAIL_DIR is chosen at run time and lies outside the app, so its reads are marked for Turbopack to
+// leave untraced (turbopackIgnore): tracing them would copy the whole project into the server output.
 const FILE_NAME = /^[A-Za-z0-9._-]+\.eml$/;
 const SCAN_LIMIT = 300;
 
@@ -20,7 +22,7 @@ type Parsed = Awaited<ReturnType<typeof import("mailparser").simpleParser>>;
 async function parseFile(dir: string, file: string): Promise<Parsed> {
   // mailparser is loaded only when the development mailbox is used.
   const { simpleParser } = await import("mailparser");
-  return simpleParser(await readFile(join(dir, file)));
+  return simpleParser(await readFile(/*turbopackIgnore: true*/ join(dir, file)));
 }
 
 const header = (m: Parsed, name: string) => {
@@ -50,7 +52,7 @@ function toFile(file: string, m: Parsed): MailFile {
 export async function listMailFiles(shopId: number, limit = 50): Promise<MailFile[] | null> {
   const dir = mailDir();
   if (!dir) return null;
-  const names = (await readdir(dir).catch(() => [] as string[]))
+  const names = (await readdir(/*turbopackIgnore: true*/ dir).catch(() => [] as string[]))
     .filter((n) => FILE_NAME.test(n))
     .sort()
     .reverse()
