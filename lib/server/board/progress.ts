@@ -1,13 +1,8 @@
 import "server-only";
 import { progressOfJobs, type Progress } from "@/lib/server/jobs/readings";
 import { isRetryable } from "@/lib/server/sync/ingest-retry";
-import {
-  jobsWithEngines,
-  keptProgress,
-  progressTokens,
-  staleProgressJobs,
-  storeProgress,
-} from "@/lib/server/board/repo";
+import { jobsWithEngines } from "@/lib/server/jobs/repo";
+import { keptProgress, progressTokens, staleProgressJobs, storeProgress } from "@/lib/server/board/repo";
 
 // Kept progress counts (table job_progress): counted by lib/domain/progress.ts, through the same
 // function the job page uses, and stored with the revision tokens they were counted at. Only stale
@@ -24,7 +19,10 @@ export async function countProgress(shopId: number, jobIds: number[]): Promise<M
     // The tokens first: a reading that lands after this moves the token, and the count stays stale.
     const tokens = await progressTokens(shopId, ids);
     const jobs = await jobsWithEngines(shopId, ids);
-    const counted = await progressOfJobs(shopId, jobs);
+    const counted = await progressOfJobs(
+      shopId,
+      jobs.map(({ job, engine }) => ({ ...job, engine })),
+    );
     const rows = tokens.map((t) => {
       const p = counted.get(Number(t.jobId)) ?? null;
       out.set(Number(t.jobId), p);

@@ -1,9 +1,8 @@
 import "server-only";
-import { Op, QueryTypes } from "sequelize";
+import { QueryTypes } from "sequelize";
 import { JOB_STATUSES, OPEN_JOB_STATUSES } from "@/lib/domain";
 import type { BoardQuery } from "@/lib/schemas/job-board";
-import { getSequelize, models } from "@/lib/server/core/db";
-import type { EngineRow, JobRow } from "@/lib/server/jobs/repo";
+import { getSequelize } from "@/lib/server/core/db";
 
 // The board feature's door to the database: a page of the shop's jobs filtered and sorted in SQL,
 // and the kept progress counts (table job_progress, see its migration) with their freshness.
@@ -128,16 +127,6 @@ export async function progressTokens(shopId: number, jobIds: number[]): Promise<
      FROM jobs j LEFT JOIN job_progress p ON p.job_id = j.id WHERE j.shop_id = ? AND j.id IN (?)`,
     [shopId, jobIds],
   );
-}
-
-/** These jobs of the shop with their engines, as the progress rule needs them. */
-export async function jobsWithEngines(shopId: number, jobIds: number[]) {
-  if (!jobIds.length) return [];
-  const rows = await models().Job.findAll({
-    where: { shopId, id: { [Op.in]: jobIds } },
-    include: [{ model: models().Engine, as: "engine" }],
-  });
-  return rows.map((r) => r.get({ plain: true }) as JobRow & { engine: EngineRow | null });
 }
 
 export type CountedProgress = ProgressTokens & { required: number | null; done: number | null };

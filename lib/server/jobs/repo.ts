@@ -8,6 +8,9 @@ import type { StoredReading } from "@/lib/schemas/readings";
 import type { Customer, Engine, Job, JobLimit } from "@/models";
 import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
+import { modelColumns, type ModelColumns } from "@/lib/server/core/sql-columns";
+import { settleAll } from "@/lib/server/core/sql-driver";
+import { readRows, withReads } from "@/lib/server/core/sql-read";
 import { toEngineShape, toSpecLimit, type JobContext } from "@/lib/server/jobs/context";
 
 // The jobs feature's only door to the database: jobs, their engines, their own limit snapshots
@@ -107,19 +110,57 @@ export async function loadJobContext(shopId: number, jobId: number, t?: Transact
   };
 }
 
-/** The shop's jobs among `ids` with their engines, by id (other shops' ids are simply absent). */
+// jobs and engines read through the driver (sql-read.ts) as Sequelize's plain rows would be.
+type Columns = { job: ModelColumns<JobRow>; engine: ModelColumns<EngineRow>; limit: ModelColumns<JobLimitRow> };
+let columns: Columns | null = null;
+function jobEngineColumns(): Columns {
+  columns ??= {
+    job: modelColumns<JobRow>(models().Job.getAttributes(), "j"),
+    engine: modelColumns<EngineRow>(models().Engine.getAttributes(), "e", "engine_"),
+    limit: modelColumns<JobLimitRow>(models().JobLimit.getAttributes(), "l"),
+  };
+  return columns;
+}
+
+/**
+ * loadJobContext outside a transaction through the driver (the readings CSV): the same context,
+ * without building model instances; the two statements are pipelined on one connection.
+ */
+export async function readJobContext(shopId: number, jobId: number): Promise<JobContext> {
+  const { job, engine, limit } = jobEngineColumns();
+  const [rows, limits] = await withReads((read) =>
+    settleAll([
+      read(
+        `SELECT ${job.list}, ${engine.list} FROM jobs j JOIN engines e ON e.id = j.engine_id
+          WHERE j.id = ? AND j.shop_id = ?`,
+        [jobId, shopId],
+      ),
+      read(`SELECT ${limit.list} FROM job_limits l WHERE l.job_id = ? ORDER BY l.sort_order, l.id`, [jobId]),
+    ]),
+  );
+  if (!rows.length) throw notFound("Job");
+  const [jobRow, engineRow] = [job.read(rows[0]), engine.read(rows[0])];
+  return {
+    job: jobRow,
+    engine: engineRow,
+    shape: toEngineShape(engineRow, jobRow),
+    spec: limits.map((l) => toSpecLimit(limit.read(l))),
+  };
+}
+
+/**
+ * The shop's jobs among `ids` with their engines, by id (other shops' ids are simply absent): the
+ * sync feed's headers and the kept progress counts (board/progress.ts) read them here.
+ */
 export async function jobsWithEngines(shopId: number, ids: number[]): Promise<{ job: JobRow; engine: EngineRow }[]> {
   if (ids.length === 0) return [];
-  const { Engine, Job } = models();
-  const rows = await Job.findAll({
-    where: { shopId, id: { [Op.in]: ids } },
-    include: [{ model: Engine, as: "engine" }],
-    order: [["id", "ASC"]],
-  });
-  return rows.map((j) => {
-    const { engine, ...job } = plain<JobRow & { engine: EngineRow }>(j);
-    return { job, engine };
-  });
+  const { job, engine } = jobEngineColumns();
+  const rows = await readRows(
+    `SELECT ${job.list}, ${engine.list} FROM jobs j JOIN engines e ON e.id = j.engine_id
+      WHERE j.shop_id = ? AND j.id IN (?) ORDER BY j.id`,
+    [shopId, ids],
+  );
+  return rows.map((r) => ({ job: job.read(r), engine: engine.read(r) }));
 }
 
 /** Each job's own limits in spec order (jobs of the caller's shop only). */

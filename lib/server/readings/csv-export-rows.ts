@@ -18,7 +18,7 @@ import {
 } from "@/lib/domain";
 import type { Disposition } from "@/lib/schemas/enums";
 import { DISPOSITION_WORDS } from "@/lib/schemas/flag";
-import type { FlagDecisionRow } from "@/lib/server/flags/repo";
+import type { FlagDecisionRow } from "@/lib/server/readings/csv-repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import type { JobContext } from "@/lib/server/jobs/context";
@@ -36,6 +36,19 @@ import type { Cell } from "@/lib/server/readings/csv-export";
 // (ring gap per inch of bore) reads 0.0018, not 0.001836765. The format is documented in csv-export.ts.
 
 export type Units = { length: LengthUnit; torque: TorqueUnit };
+
+// A station's words depend on its id alone, and an export names each station on many rows: each is
+// worded once (a bounded cache: a job has a few hundred stations).
+const WORDS = new Map<string, string>();
+function wordsOf(stationId: string): string {
+  let words = WORDS.get(stationId);
+  if (words === undefined) {
+    if (WORDS.size >= 10_000) WORDS.clear();
+    words = stationWords(stationId);
+    WORDS.set(stationId, words);
+  }
+  return words;
+}
 
 const isTorqueUnit = (u: MeasureUnit) => u === "lbf_ft" || u === "nm";
 
@@ -92,7 +105,7 @@ export function readingRow(r: StoredReading, units: Units, ctx: RowContext): Cel
   return [
     "reading",
     r.stationId,
-    stationWords(r.stationId),
+    wordsOf(r.stationId),
     characteristicWords(r.characteristic),
     r.skipped ? null : to(r.value, unit),
     UNIT_WORDS[rowUnit],
@@ -125,7 +138,7 @@ export function derivedRows(
       .map((d) => [
         "derived",
         d.stationId,
-        stationWords(d.stationId),
+        wordsOf(d.stationId),
         characteristicWords(d.characteristic),
         to(d.value, d.unit),
         UNIT_WORDS[units.length],

@@ -1,8 +1,7 @@
 import "server-only";
 import { benchRoute, currentValues } from "@/lib/domain";
 import type { StoredReading } from "@/lib/schemas/readings";
-import { jobFlagDecisions } from "@/lib/server/flags/repo";
-import { loadJobContext } from "@/lib/server/jobs/repo";
+import { readJobContext } from "@/lib/server/jobs/repo";
 import { BOM, csvLine } from "@/lib/server/readings/csv-export";
 import {
   csvHeader,
@@ -13,15 +12,17 @@ import {
   type RowContext,
   type Units,
 } from "@/lib/server/readings/csv-export-rows";
-import { currentJobReadings, findInstruments, jobReadingPage, stationsWithReadings } from "@/lib/server/readings/repo";
+import { flagDecisions, stationsWithReadings } from "@/lib/server/readings/csv-repo";
+import { currentJobReadings, findInstruments, jobReadingPage } from "@/lib/server/readings/repo";
 import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { toRaw } from "@/lib/server/sync/ingest-evaluate";
-import { listUsers } from "@/lib/server/users/repo";
+import { peopleNames } from "@/lib/server/users/repo";
 
 // The readings CSV written while it is downloaded, in constant memory whatever the job's size: the
 // current readings (one per station) come from one query; with history, the rest are read a page
 // at a time per station in bench order (stations off the route last, together, in taken order),
-// each page with its own flags and gauges, and handed on before the next is read.
+// each page with its own flags and gauges, and handed on before the next is read. Every read goes
+// through the driver (sql-read.ts), side by side where one does not need another's answer.
 
 export const CSV_PAGE_ROWS = 500;
 
@@ -46,14 +47,18 @@ async function rowsOf(shopId: number, jobId: number, page: StoredReading[], shar
   );
   const [gauges, flags] = await Promise.all([
     findInstruments(undefined, shopId, gaugeIds),
-    jobFlagDecisions(
+    flagDecisions(
       shopId,
       jobId,
       page.map((r) => r.id),
     ),
   ]);
   for (const [id, g] of gauges) shared.instruments.set(id, g);
-  const ctx: RowContext = { ...shared, decisions: decisionsBy(flags, "readingId") };
+  return pageRows(page, shared, decisionsBy(flags, "readingId"));
+}
+
+function pageRows(page: StoredReading[], shared: Shared, decisions: RowContext["decisions"]): string {
+  const ctx: RowContext = { ...shared, decisions };
   return page.map((r) => csvLine(readingRow(r, shared.units, ctx))).join("");
 }
 
@@ -74,7 +79,12 @@ async function* historyRows(shopId: number, jobId: number, route: string[], shar
  * first (404 before anything is sent), then `lines` yields the file a piece at a time.
  */
 export async function readingsCsv(shopId: number, jobId: number, opts: { history?: boolean } = {}) {
-  const ctx = await loadJobContext(shopId, jobId);
+  // The job (a 404 before anything is sent), its current readings and the shop's people at once.
+  const [ctx, currents, takers] = await Promise.all([
+    readJobContext(shopId, jobId),
+    currentJobReadings(jobId),
+    peopleNames(shopId),
+  ]);
   const units = unitsOf(ctx.job.unitSystem);
   let route: string[] = [];
   try {
@@ -83,35 +93,32 @@ export async function readingsCsv(shopId: number, jobId: number, opts: { history
     // An engine the core cannot lay out: readings still export, in the order they were taken.
   }
   async function* lines(): AsyncGenerator<string> {
-    const [currents, users] = await Promise.all([currentJobReadings(jobId), listUsers(shopId)]);
-    const values = currentValues(currents);
-    const instruments = await findInstruments(
-      undefined,
-      shopId,
-      currents.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
-    );
-    const shared: Shared = {
-      units,
-      current: new Set(currents.map((r) => r.id)),
-      instruments,
-      takers: new Map(users.map((u) => [u.id, u.name])),
-    };
+    // The current readings' gauges, and in one statement the flags of the computed values and
+    // (without history, where each page reads its own) of the current readings.
+    const [instruments, flags] = await Promise.all([
+      findInstruments(
+        undefined,
+        shopId,
+        currents.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
+      ),
+      flagDecisions(shopId, jobId, opts.history ? [] : currents.map((r) => r.id), true),
+    ]);
+    const shared: Shared = { units, current: new Set(currents.map((r) => r.id)), instruments, takers };
     yield `${BOM}${csvLine(csvHeader(units))}`;
     if (opts.history) yield* historyRows(shopId, jobId, route, shared);
     else {
       const rank = new Map(route.map((id, i) => [id, i]));
       const at = (r: StoredReading) => rank.get(r.stationId) ?? Number.MAX_SAFE_INTEGER;
       // Sorted stably from the taken order: one reading per station, a route's length at most.
-      yield await rowsOf(
-        shopId,
-        jobId,
+      yield pageRows(
         [...currents].sort((a, b) => at(a) - at(b)),
         shared,
+        decisionsBy(flags, "readingId"),
       );
     }
+    const values = currentValues(currents);
     const raws = values.map((r) => toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined));
-    const derivedFlags = decisionsBy(await jobFlagDecisions(shopId, jobId, null), "derivedKey");
-    yield derivedRows(ctx, raws, units, derivedFlags).map(csvLine).join("");
+    yield derivedRows(ctx, raws, units, decisionsBy(flags, "derivedKey")).map(csvLine).join("");
   }
   return { code: ctx.job.code, lines };
 }

@@ -40,7 +40,9 @@ function textCell(s: string): string {
 }
 
 export function csvField(cell: Cell): string {
-  const s = typeof cell === "number" ? plainNumber(cell) : cell === null || cell === undefined ? "" : textCell(cell);
+  // A number's text is digits, a point and a sign: never quoted, never a formula.
+  if (typeof cell === "number") return plainNumber(cell);
+  const s = cell === null || cell === undefined ? "" : textCell(cell);
   return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 

@@ -1,11 +1,11 @@
 import "server-only";
-import { QueryTypes, type Transaction } from "sequelize";
+import type { Transaction } from "sequelize";
 import { decimalToNumber } from "@/models";
 import { correctedBy } from "@/lib/domain";
 import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
-import { getSequelize } from "@/lib/server/core/db";
 import { causalRows } from "@/lib/server/core/cluster";
 import { sqlRows, sqlWrite, utcDate, utcText } from "@/lib/server/core/sql-driver";
+import { readRows } from "@/lib/server/core/sql-read";
 import { insertMany } from "@/lib/server/core/sql-insert";
 import { orNull, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { latestStudySql, studyFromSql } from "@/lib/server/gauge-studies/summary-sql";
@@ -33,7 +33,10 @@ function fromRow(row: Record<string, unknown>): StoredReading {
   return r;
 }
 
-/** Inside a transaction on its own driver connection (the sync hot path), else through Sequelize. */
+/**
+ * Inside a transaction on its own driver connection (the sync hot path), else on a pooled one
+ * (sql-read.ts: the office's reads, the feed and the CSV).
+ */
 async function selectReadings(
   where: string,
   replacements: unknown[],
@@ -41,9 +44,7 @@ async function selectReadings(
   tail = "", // a lock or a LIMIT after the order
 ): Promise<StoredReading[]> {
   const sql = `SELECT ${COLUMNS} FROM readings WHERE ${where} ${ORDER}${tail}`;
-  const rows = t
-    ? await sqlRows(t, sql, replacements)
-    : await getSequelize().query<Record<string, unknown>>(sql, { replacements, type: QueryTypes.SELECT });
+  const rows = t ? await sqlRows(t, sql, replacements) : await readRows(sql, replacements);
   return rows.map(fromRow);
 }
 
@@ -100,20 +101,7 @@ export async function currentJobReadings(jobId: number): Promise<StoredReading[]
   const sql = `SELECT ${COLUMNS} FROM (SELECT r.*, ROW_NUMBER() OVER (PARTITION BY r.station_id
       ORDER BY r.taken_at DESC, r.id DESC) AS n FROM readings r WHERE r.job_id = ? AND NOT EXISTS
       (SELECT 1 FROM readings s WHERE s.supersedes = r.id AND s.job_id = r.job_id)) readings WHERE n = 1 ${ORDER}`;
-  const rows = await getSequelize().query<Record<string, unknown>>(sql, {
-    replacements: [jobId],
-    type: QueryTypes.SELECT,
-  });
-  return rows.map(fromRow);
-}
-
-/** The stations of a job that have any reading. */
-export async function stationsWithReadings(jobId: number): Promise<string[]> {
-  const rows = await getSequelize().query<{ stationId: string }>(
-    "SELECT DISTINCT station_id AS stationId FROM readings WHERE job_id = ?",
-    { replacements: [jobId], type: QueryTypes.SELECT },
-  );
-  return rows.map((r) => r.stationId);
+  return (await readRows(sql, [jobId])).map(fromRow);
 }
 
 /** A page of a job's readings at these stations, oldest first (jobReadings' order), after `from`. */
@@ -220,10 +208,7 @@ export async function updateEvaluation(
 
 /** Gauges outside a transaction, with their latest study, by the same columns as the hot path. */
 function gaugeRows(where: string, replacements: unknown[]): Promise<Record<string, unknown>[]> {
-  return getSequelize().query<Record<string, unknown>>(`SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE ${where}`, {
-    replacements,
-    type: QueryTypes.SELECT,
-  });
+  return readRows(`SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE ${where}`, replacements);
 }
 
 /** The shop's gauges with these ids (other shops' ids are simply absent). */
@@ -274,11 +259,13 @@ export async function readingsOfJobs(jobIds: number[], ids?: string[]): Promise<
  */
 export async function correctionsOf(jobIds: number[], ids: string[]): Promise<Map<string, string>> {
   if (jobIds.length === 0 || ids.length === 0) return new Map();
-  const rows = await getSequelize().query<{ id: string; stationId: string; supersedes: string; takenAt: Date }>(
+  const rows = await readRows<{ id: string; stationId: string; supersedes: string; takenAt: unknown }>(
     `SELECT id, station_id AS stationId, supersedes, taken_at AS takenAt FROM readings
       WHERE job_id IN (?) AND supersedes IS NOT NULL`,
-    { replacements: [jobIds], type: QueryTypes.SELECT },
+    [jobIds],
   );
   const wanted = new Set(ids);
-  return correctedBy(rows.filter((r) => wanted.has(r.supersedes)));
+  return correctedBy(
+    rows.filter((r) => wanted.has(r.supersedes)).map((r) => ({ ...r, takenAt: utcDate(r.takenAt) as Date })),
+  );
 }

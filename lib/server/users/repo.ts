@@ -2,6 +2,7 @@ import "server-only";
 import { Op, type Transaction } from "sequelize";
 import type { User } from "@/models";
 import { models } from "@/lib/server/core/db";
+import { readRows } from "@/lib/server/core/sql-read";
 import type { Role } from "@/lib/schemas/enums";
 import type { ShopContact, ShopRecord } from "@/lib/schemas/user";
 
@@ -73,6 +74,12 @@ export async function listUsers(shopId: number, opts: { activeOnly?: boolean } =
     order: [["name", "ASC"]],
   });
   return users.map(reshape);
+}
+
+/** Each of the shop's people's name by id (the readings CSV's "taken by"), read through the driver. */
+export async function peopleNames(shopId: number): Promise<Map<number, string>> {
+  const rows = await readRows<{ id: number; name: string }>("SELECT id, name FROM users WHERE shop_id = ?", [shopId]);
+  return new Map(rows.map((r) => [Number(r.id), r.name]));
 }
 
 export async function countActiveAdmins(shopId: number, exceptId?: number) {
