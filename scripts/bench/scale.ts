@@ -9,6 +9,7 @@ import { randomBytes } from "node:crypto";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
+import { keepWanted, serveUntilStopped } from "./scale/keep";
 import { measureServerMemory } from "./scale/memory";
 
 type Lib = {
@@ -60,6 +61,8 @@ async function main() {
       env: { ...process.env, TW_BENCH_RUNS: "5" },
     });
     status ||= record.status ?? 1;
+    // TW_SCALE_KEEP=1: a person opens the screens on the scaled database (even when a figure missed).
+    if (keepWanted()) await serveUntilStopped(env, join(dataRoot, "scale-subject.json"));
   } finally {
     await services.stop();
     rmSync(dataRoot, { recursive: true, force: true });

@@ -3,6 +3,7 @@
 // rows the real ingest and the lead's decisions write for the same readings: the same columns,
 // figures, verdicts, flags, decisions, audit events and change-feed rows, apart from ids and times.
 // Benchmark data only (scripts/bench/scale/variants.ts, invented figures).
+import { createHash } from "node:crypto";
 import { afterAll, describe, expect, it } from "vitest";
 import mariadb, { type Connection } from "mariadb";
 import { loadScale, ownerUrl } from "../../scripts/bench/scale/load";
@@ -98,7 +99,7 @@ async function picture(jobId: number) {
     decisions: decisions.map((d) => plain(d, { id: "disposition", flag_id: "flag", user_id: "user" })),
     releases: releases.map((r) => ({
       ...plain(r, { id: "release", job_id: "job", inspector_id: "user", voided_by: "user" }),
-      // Each is checked on its own below: the copy's own hash, its record kept by its first reader.
+      // Each is checked on its own below: the copy's own hash, its own record stored when sealed.
       hash: "hash",
       record_key: null,
       record_sha256: null,
@@ -157,10 +158,17 @@ describe("bench:scale's bulk loader", () => {
       [copy.id],
     );
     expect(signed.told).toBe(signed.hash);
+    // Its own record was stored when it was sealed, as at a signature, and is handed out as those bytes.
+    const keptSql = "SELECT record_key AS k, record_sha256 AS sha, record_bytes AS n FROM releases WHERE job_id = ?";
+    const [stored] = await conn.query(keptSql, [copy.id]);
+    const key = new RegExp(`^${other.id}/records/release-\\d+-${String(stored.sha).slice(0, 16)}\\.pdf$`);
+    expect(stored.k).toMatch(key);
     const file = await recordFile(other.id, Number(copy.id));
     expect(file.kept).toBe(true);
     expect(file.pdf.subarray(0, 5).toString()).toBe("%PDF-");
-    const [kept] = await conn.query("SELECT record_sha256 AS sha FROM releases WHERE job_id = ?", [copy.id]);
-    expect(kept.sha).toBe(file.sha256);
+    expect(file.sha256).toBe(createHash("sha256").update(file.pdf).digest("hex"));
+    expect([file.sha256, file.pdf.length]).toEqual([stored.sha, Number(stored.n)]);
+    const [after] = await conn.query(keptSql, [copy.id]);
+    expect(after.k).toBe(stored.k); // served from storage, not drawn and stored again
   }, 300_000);
 });

@@ -171,7 +171,7 @@ export function cloneJob(t: Template, target: Target, ids: Ids): Rows {
       flag_id: m.flag.get(Number(d.flag_id)),
     })),
     // The hash and its per-item digests are the template's until sealReleases() takes the copy's
-    // own; its record file is rendered and kept by the first reader, as after a storage outage.
+    // own and stores the copy's own record file (seal-worker.ts).
     releases: r.releases.map((x) => ({
       ...common(x),
       id: m.release.get(Number(x.id)),

@@ -13,7 +13,10 @@ import { actorsOf, createShops, createV8Job, gaugeMap, peopleMap, type BenchShop
 import { isSignEvent, sealReleases } from "./seal";
 import { runVariant } from "./templates";
 import { VARIANTS, statusAt, type Variant } from "./variants";
+import { ownerUrl } from "./owner";
 import { BulkWriter } from "./writer";
+
+export { ownerUrl };
 
 export type LoadOptions = {
   /** Readings to reach in all (templates included); the job count follows. */
@@ -34,16 +37,6 @@ export type LoadSummary = {
 const DAY = 86_400_000;
 const HISTORY_DAYS = 3 * 365; // the oldest job was measured three years ago
 const load = () => `load ${loadavg()[0].toFixed(1)}`;
-
-/** The schema owner's address when the environment names one (npm test, bench:scale), else the app's. */
-export function ownerUrl(): string {
-  const u = new URL(process.env.DATABASE_URL!);
-  if (process.env.DB_OWNER_USER) {
-    u.username = encodeURIComponent(process.env.DB_OWNER_USER);
-    u.password = encodeURIComponent(process.env.DB_OWNER_PASSWORD ?? "");
-  }
-  return u.toString();
-}
 
 async function maxId(conn: Connection, table: string): Promise<number> {
   const [row] = await conn.query(`SELECT COALESCE(MAX(id), 0) AS id FROM ${table}`);
@@ -112,13 +105,14 @@ export async function loadScale(opts: LoadOptions = {}): Promise<LoadSummary> {
     const slots = plan(shops, variants, templates, opts.readings ?? 1_000_000);
     log(`  copying to ${slots.length} jobs (${slots[0]?.n ?? 0} per shop) [${load()}]`);
     const ids = await nextIds(conn);
+    const firstCopiedRelease = ids.releases;
     // Copies of rows the server wrote and checked: the keys they point to exist by construction.
     await conn.query("SET SESSION foreign_key_checks = 0, unique_checks = 0");
     const writer = new BulkWriter(conn);
     const now = Date.now();
     let readings = [...templates.values()].reduce((n, t) => n + t.rows.readings.length, 0);
     let reported = 0;
-    const [releases, signEvents]: Row[][] = [[], []];
+    const signEvents: Row[] = [];
     for (const [i, s] of slots.entries()) {
       const ageDays = ((s.n - s.k) / s.n) * HISTORY_DAYS;
       const rows = cloneJob(
@@ -138,7 +132,6 @@ export async function loadScale(opts: LoadOptions = {}): Promise<LoadSummary> {
       // A copied release's sign event names its hash, taken once its rows are in (seal.ts).
       signEvents.push(...rows.audit_events.filter(isSignEvent));
       rows.audit_events = rows.audit_events.filter((a) => !isSignEvent(a));
-      releases.push(...rows.releases);
       for (const t of TABLES) await writer.add(t, rows[t]);
       readings += rows.readings.length;
       if (i + 1 === slots.length || (i + 1) / slots.length >= reported + 0.1) {
@@ -148,14 +141,11 @@ export async function loadScale(opts: LoadOptions = {}): Promise<LoadSummary> {
       }
     }
     await writer.finish(TABLES);
-    const [sealing, cpu] = [performance.now(), process.cpuUsage()];
-    await sealReleases(conn, releases, signEvents, writer);
-    const used = process.cpuUsage(cpu);
-    const cpuMs = (used.user + used.system) / 1000;
+    const sealing = performance.now();
+    const sealed = await sealReleases(conn, firstCopiedRelease, signEvents, writer);
     log(
-      `  ${releases.length} copied releases sealed with their own hash in ` +
-        `${((performance.now() - sealing) / 1000).toFixed(0)} s, ` +
-        `${(cpuMs / Math.max(releases.length, 1)).toFixed(0)} ms of CPU each [${load()}]`,
+      `  ${sealed.releases} copied releases sealed with their own hash and stored record (PDF, SHA-256) in ` +
+        `${((performance.now() - sealing) / 1000).toFixed(0)} s by ${sealed.processes} processes [${load()}]`,
     );
     await conn.query("SET SESSION foreign_key_checks = 1, unique_checks = 1");
     return {

@@ -133,7 +133,8 @@ function paths(s: MemorySubject): { lead: string[]; machinist: string[] } {
   };
 }
 
-async function startServer(env: NodeJS.ProcessEnv) {
+/** `next start` on the production build (built first when the sources changed) against `env`'s database. */
+export async function startServer(env: NodeJS.ProcessEnv) {
   const { ensureBuild } = await lib("build");
   const { freePort } = await lib("ports");
   const { waitForHttp } = await lib("app-instances");
