@@ -1,139 +1,31 @@
 // Values computed from raw readings, and the check of a single reading: the one place the
 // tablet (offline preview) and the server (authoritative verdicts, flags) both call.
+// Readings are made ready in derive-prepare.ts (latest per station, 20 °C); what each value is
+// computed from is in derive-recipes.ts.
 //
-// Choices, each made once here:
-// - A station with several readings uses the latest (later takenAt; without times, the later in
-//   the list): corrections supersede, they never average.
-// - Lengths with a part temperature are brought to 20 °C (ISO 1) with the alpha of the part's
-//   material (the reading's own, else the engine's), before any difference is taken.
-// - Piston-to-wall uses the bore at mid depth on the thrust axis (A), against the skirt at the
-//   piston maker's gauge point. Common practice, from memory: the skirt is gauged square to the
-//   pin and bears on the thrust side in the bore's working zone, which mid depth stands for.
-// - Oil clearance pairs each installed bearing bore with the journal at the same position and
-//   axis (rods with their own crankpin, rodJournalOf).
-// - U of a derived value: the two largest input U (k = 2) are combined as the difference of two
-//   readings (clearanceUncertainty, no shared part assumed); inputs without U count as 0.
-import { benchRoute, checkEngineShape, lengthUnitOf, rodJournalCount, rodJournalOf } from "./bench-route";
-import { boltStretch, oilClearance, pistonToWall } from "./clearances";
-import { boreGeometry, journalGeometry } from "./geometry";
+// U of a derived value: the two largest input U (k = 2) are combined as the difference of two
+// readings (clearanceUncertainty, no shared part assumed); inputs without U count as 0.
+import { benchRoute, checkEngineShape, lengthUnitOf } from "./bench-route";
+import {
+  boreMean,
+  joinNotes,
+  limitInputs,
+  prepare,
+  prepareAll,
+  uInEngineUnit,
+  valueInEngineUnit,
+  type Prepared,
+} from "./derive-prepare";
+import { recipes, type PassMemo, type Recipe } from "./derive-recipes";
 import { limitContextFor } from "./job-sizes";
 import { judge, limitsFor } from "./limits";
-import {
-  AXES,
-  BORE_DEPTHS,
-  CHARACTERISTICS,
-  JOURNAL_POSITIONS,
-  LUBRICANT_LABELS,
-  describeStation,
-  parseStationId,
-} from "./stations";
-import { LENGTH_UNITS, TORQUE_UNITS, type LengthUnit, type MeasureUnit } from "./enums";
-import { correctTo20C, EXPANSION_COEFFICIENTS } from "./thermal";
-import { stationWords, unitWords } from "./words";
-import type {
-  CharacteristicId,
-  DerivedCharacteristic,
-  DerivedValue,
-  EngineShape,
-  Evaluation,
-  RawCharacteristic,
-  RawReading,
-  SpecLimit,
-  ThermalCorrection,
-} from "./types";
+import type { LengthUnit } from "./enums";
+import type { DerivedCharacteristic, DerivedValue, EngineShape, Evaluation, RawReading, SpecLimit } from "./types";
 import { clearanceUncertainty } from "./uncertainty";
-import { cleanDecimal, convertLength } from "./units";
+import { cleanDecimal } from "./units";
 
-/** A reading checked and brought to 20 °C where it can be. */
-interface Prepared {
-  characteristic: RawCharacteristic;
-  value: number;
-  unit: MeasureUnit;
-  uncertainty?: number;
-  correction?: ThermalCorrection;
-  note?: string;
-}
-
-// Gaps may be zero (a tight rod); every diameter, length and torque must be above zero.
-const MAY_BE_ZERO = new Set<CharacteristicId>(["ring_end_gap", "rod_side_clearance", "crank_end_play", "valve_lash"]);
-
-function checkReading(reading: RawReading, characteristic: RawCharacteristic): void {
-  // In words (the tablet shows these): the station as a person names it, units as written.
-  const id = stationWords(reading.stationId);
-  const { kind, label } = CHARACTERISTICS[characteristic];
-  const units: readonly string[] = kind === "length" ? LENGTH_UNITS : TORQUE_UNITS;
-  if (!units.includes(reading.unit))
-    throw new Error(
-      `${id} takes a ${kind} in ${units.map(unitWords).join(" or ")}; got unit '${String(reading.unit)}'`,
-    );
-  if (typeof reading.value !== "number" || !Number.isFinite(reading.value))
-    throw new Error(`${id}: the value must be a number; re-enter it`);
-  const zeroOk = MAY_BE_ZERO.has(characteristic);
-  if (zeroOk ? reading.value < 0 : reading.value <= 0) {
-    throw new Error(
-      `${id}: ${reading.value} cannot be right; a ${label.split(",")[0].toLowerCase()} is ${zeroOk ? "zero or more" : "above zero"}`,
-    );
-  }
-  const u = reading.uncertainty;
-  if (u !== undefined && (typeof u !== "number" || !Number.isFinite(u) || u < 0)) {
-    throw new Error(`${id}: uncertainty U must be zero or more; got ${String(u)}`);
-  }
-  if (kind === "torque" && !(reading.lubricant && reading.lubricant in LUBRICANT_LABELS)) {
-    const words = Object.values(LUBRICANT_LABELS).map((l) => l.toLowerCase());
-    throw new Error(`${id}: say which lubricant was used (${words.join(", ")})`);
-  }
-}
-
-function correction(
-  reading: RawReading,
-  characteristic: RawCharacteristic,
-  engine: EngineShape,
-): Pick<Prepared, "correction" | "note"> {
-  const part = CHARACTERISTICS[characteristic].part;
-  const t = reading.temperatureC;
-  if (t === undefined || !part) return {};
-  const material = reading.material ?? engine.materials?.[part];
-  if (!material)
-    return { note: `Measured at ${t} °C, but no ${part} material is set, so it is not corrected to 20 °C` };
-  const coefficient = EXPANSION_COEFFICIENTS[material];
-  if (!coefficient) throw new Error(`${reading.stationId}: unknown material '${String(material)}'`);
-  const g = reading.gaugeTemperatureC;
-  const corrected = cleanDecimal(
-    correctTo20C({
-      length: reading.value,
-      partTempC: t,
-      alphaPart: coefficient.alpha,
-      ...(g !== undefined ? { gaugeTempC: g } : {}),
-    }),
-  );
-  return {
-    correction: {
-      stationId: reading.stationId,
-      measured: reading.value,
-      corrected,
-      partTempC: t,
-      alphaPart: coefficient.alpha,
-      material,
-      ...(g !== undefined ? { gaugeTempC: g } : {}),
-    },
-  };
-}
-
-function prepare(reading: RawReading, engine: EngineShape): Prepared {
-  if (reading === null || typeof reading !== "object") throw new Error("A reading needs { stationId, value, unit }");
-  const { characteristic } = parseStationId(reading.stationId);
-  if (!characteristic)
-    throw new Error(`${reading.stationId} names a part; readings are taken at stations such as 'bore/1/top/A'`);
-  checkReading(reading, characteristic);
-  const fix = correction(reading, characteristic, engine);
-  return {
-    characteristic,
-    unit: reading.unit,
-    ...fix,
-    value: fix.correction ? fix.correction.corrected : reading.value,
-    ...(reading.uncertainty !== undefined ? { uncertainty: reading.uncertainty } : {}),
-  };
-}
+export { limitInputs } from "./derive-prepare";
+export { derivedInputs } from "./derive-recipes";
 
 // Keyed by the fields the route's station ids are made of (bench-route.ts STATION_IDS), not the
 // object, so an edited engine never meets a stale route; not its sizes and materials, which
@@ -159,57 +51,6 @@ function routeIds(engine: EngineShape): Set<string> {
     routeCache.set(key, ids);
   }
   return ids;
-}
-
-function latestByStation(readings: RawReading[]): Map<string, RawReading> {
-  const latest = new Map<string, RawReading>();
-  for (const r of readings) {
-    const prev = latest.get(r.stationId);
-    const older = prev?.takenAt && r.takenAt && Date.parse(r.takenAt) < Date.parse(prev.takenAt);
-    if (!older) latest.set(r.stationId, r);
-  }
-  return latest;
-}
-
-const joinNotes = (...notes: (string | undefined)[]): string | undefined =>
-  notes.filter(Boolean).join("; ") || undefined;
-
-/**
- * Stations whose readings the limit at `stationId` reads: a ring gap's limit may scale with its
- * cylinder's bore (per inch of diameter), taken as the mean of that bore's readings.
- */
-export function limitInputs(stationId: string): string[] {
-  const station = parseStationId(stationId);
-  if (station.characteristic !== "ring_end_gap") return [];
-  return BORE_DEPTHS.flatMap((d) => AXES.map((a) => `bore/${station.cylinder}/${d}/${a}`));
-}
-
-function boreMean(stations: string[], readings: Map<string, Prepared>, engine: EngineShape): number | undefined {
-  const values = stations
-    .map((id) => readings.get(id))
-    .filter((p): p is Prepared => p !== undefined)
-    .map((p) => toEngineUnit(p, engine));
-  return values.length ? cleanDecimal(values.reduce((s, v) => s + v, 0) / values.length) : undefined;
-}
-
-function toEngineUnit(p: Prepared, engine: EngineShape, x = p.value): number {
-  return cleanDecimal(convertLength(x, p.unit as LengthUnit, lengthUnitOf(engine)));
-}
-
-function prepareAll(
-  readings: RawReading[],
-  engine: EngineShape,
-): { ok: Map<string, Prepared>; bad: Map<string, string> } {
-  const ok = new Map<string, Prepared>();
-  const bad = new Map<string, string>();
-  for (const [id, r] of latestByStation(readings)) {
-    try {
-      ok.set(id, prepare(r, engine));
-    } catch (err) {
-      bad.set(id, err instanceof Error ? err.message : String(err));
-    }
-  }
-  return { ok, bad };
 }
 
 /**
@@ -241,112 +82,39 @@ export function evaluateReading(
   return { ...base, ...(p.correction ? { correction: p.correction } : {}), ...(note ? { note } : {}) };
 }
 
-interface Recipe {
-  characteristic: DerivedCharacteristic;
-  stationId: string;
-  inputs: string[];
-  compute: (v: number[]) => number;
-  /** Index of the input whose diameter a per-inch rule scales with; default: mean of all inputs. */
-  diameterInput?: number;
-}
-
-function geometryRecipes(prefix: "bore" | "main" | "rod", n: number, inputs: string[], half: number): Recipe[] {
-  const shape = (v: number[]) =>
-    (prefix === "bore" ? boreGeometry : journalGeometry)({ axisA: v.slice(0, half), axisB: v.slice(half) });
-  const names =
-    prefix === "bore"
-      ? (["bore_taper", "bore_out_of_round"] as const)
-      : prefix === "main"
-        ? (["main_journal_taper", "main_journal_out_of_round"] as const)
-        : (["rod_journal_taper", "rod_journal_out_of_round"] as const);
-  return [
-    { characteristic: names[0], stationId: `${prefix}/${n}`, inputs, compute: (v) => shape(v).taper },
-    { characteristic: names[1], stationId: `${prefix}/${n}`, inputs, compute: (v) => shape(v).outOfRound },
-  ];
-}
-
-const range = (n: number): number[] => Array.from({ length: n }, (_, i) => i + 1);
-const byAxis = (head: string, spots: readonly string[]): string[] =>
-  AXES.flatMap((a) => spots.map((s) => `${head}/${s}/${a}`));
-const points = JOURNAL_POSITIONS.flatMap((p) => AXES.map((a) => `${p}/${a}`));
-
-function recipes(engine: EngineShape): Recipe[] {
-  const out: Recipe[] = [];
-  for (const c of range(engine.cylinders)) {
-    out.push(...geometryRecipes("bore", c, byAxis(`bore/${c}`, BORE_DEPTHS), BORE_DEPTHS.length));
-    out.push({
-      characteristic: "piston_to_wall",
-      stationId: `bore/${c}`,
-      inputs: [`bore/${c}/mid/A`, `skirt/${c}`],
-      compute: (v) => pistonToWall(v[0], v[1]),
-      diameterInput: 0,
-    });
-  }
-  for (const m of range(engine.mains))
-    out.push(...geometryRecipes("main", m, byAxis(`main/${m}`, JOURNAL_POSITIONS), JOURNAL_POSITIONS.length));
-  for (const j of range(rodJournalCount(engine)))
-    out.push(...geometryRecipes("rod", j, byAxis(`rod/${j}`, JOURNAL_POSITIONS), JOURNAL_POSITIONS.length));
-  for (const m of range(engine.mains)) {
-    for (const pt of points)
-      out.push({
-        characteristic: "main_oil_clearance",
-        stationId: `main-brg/${m}/${pt}`,
-        inputs: [`main-brg/${m}/${pt}`, `main/${m}/${pt}`],
-        compute: (v) => oilClearance(v[0], v[1]),
-        diameterInput: 1,
-      });
-  }
-  for (const r of range(engine.cylinders)) {
-    const pin = rodJournalOf(engine, r);
-    for (const pt of points)
-      out.push({
-        characteristic: "rod_oil_clearance",
-        stationId: `rod-brg/${r}/${pt}`,
-        inputs: [`rod-brg/${r}/${pt}`, `rod/${pin}/${pt}`],
-        compute: (v) => oilClearance(v[0], v[1]),
-        diameterInput: 1,
-      });
-    for (const b of range(engine.boltsPerRod ?? 2)) {
-      out.push({
-        characteristic: "rod_bolt_stretch",
-        stationId: `bolt/${r}/${b}`,
-        inputs: [`bolt/${r}/${b}/free`, `bolt/${r}/${b}/loaded`],
-        compute: (v) => boltStretch(v[0], v[1]),
-      });
-    }
-  }
-  return out;
-}
-
 function combinedU(inputs: Prepared[], engine: EngineShape): number | undefined {
-  const us = inputs.filter((p) => p.uncertainty !== undefined).map((p) => toEngineUnit(p, engine, p.uncertainty));
+  const us: number[] = [];
+  for (const p of inputs) {
+    const u = uInEngineUnit(p, engine);
+    if (u !== undefined) us.push(u);
+  }
   if (us.length === 0) return undefined;
   const [a = 0, b = 0] = us.sort((x, y) => y - x);
   return cleanDecimal(2 * clearanceUncertainty({ uBore: a / 2, uJournal: b / 2 }));
 }
 
-function derive(
-  recipe: Recipe,
-  engine: EngineShape,
-  spec: SpecLimit[],
-  ok: Map<string, Prepared>,
-  bad: Map<string, string>,
-): DerivedValue {
+interface Pass {
+  engine: EngineShape;
+  spec: SpecLimit[];
+  unit: LengthUnit;
+  ok: Map<string, Prepared>;
+  bad: Map<string, string>;
+  memo: PassMemo;
+}
+
+function derive(recipe: Recipe, pass: Pass): DerivedValue {
   const { characteristic, stationId, inputs } = recipe;
-  const unit = lengthUnitOf(engine);
-  const missing = inputs.filter((id) => !ok.has(id));
-  const head = {
-    key: derivedKey(characteristic, stationId),
-    characteristic,
-    stationId,
-    label: `${CHARACTERISTICS[characteristic].label} · ${describeStation(stationId)}`,
-    unit,
-    inputs,
-    missing,
-  };
-  const unusable = joinNotes(...missing.filter((id) => bad.has(id)).map((id) => `not usable: ${bad.get(id)}`));
-  const got = inputs.map((id) => ok.get(id)).filter((p): p is Prepared => p !== undefined);
-  const values = got.map((p) => toEngineUnit(p, engine));
+  const { engine, spec, unit, ok, bad } = pass;
+  const got: Prepared[] = [];
+  const missing: string[] = [];
+  for (const id of inputs) {
+    const p = ok.get(id);
+    if (p) got.push(p);
+    else missing.push(id);
+  }
+  // The recipe (its inputs too) is shared by every pass: the caller gets its own list.
+  const head = { key: recipe.key, characteristic, stationId, label: recipe.label, unit, inputs: [...inputs], missing };
+  const values = got.map((p) => valueInEngineUnit(p, engine));
   const measured = missing.length
     ? undefined
     : recipe.diameterInput !== undefined
@@ -354,10 +122,11 @@ function derive(
       : cleanDecimal(values.reduce((s, v) => s + v, 0) / values.length);
   const found = limitsFor(spec, characteristic, stationId, limitContextFor(characteristic, engine, measured));
   if (missing.length) {
+    const unusable = joinNotes(...missing.filter((id) => bad.has(id)).map((id) => `not usable: ${bad.get(id)}`));
     const note = joinNotes(unusable, found.note);
     return { ...head, ...(found.limits ? { limits: found.limits } : {}), ...(note ? { note } : {}) };
   }
-  const value = recipe.compute(values);
+  const value = recipe.compute(values, pass.memo);
   const U = combinedU(got, engine);
   const corrections = got.flatMap((p) => (p.correction ? [p.correction] : []));
   // judge reports the value in the limit's unit (a length unit, or the engine's when it cannot convert).
@@ -372,24 +141,6 @@ function derive(
     ...(corrections.length ? { corrections } : {}),
     ...(note ? { note } : {}),
   };
-}
-
-const derivedKey = (characteristic: DerivedCharacteristic, stationId: string) => `${characteristic}@${stationId}`;
-
-// Recipes depend only on the engine's shape; keyed by its JSON, like the route above.
-const inputsCache = new Map<string, ReadonlyMap<string, readonly string[]>>();
-
-/** Each derived value's key (`${characteristic}@${stationId}`) with the stations it is computed from. */
-export function derivedInputs(engine: EngineShape): ReadonlyMap<string, readonly string[]> {
-  const key = JSON.stringify(engine);
-  let inputs = inputsCache.get(key);
-  if (!inputs) {
-    checkEngineShape(engine);
-    if (inputsCache.size > 50) inputsCache.clear();
-    inputs = new Map(recipes(engine).map((r) => [derivedKey(r.characteristic, r.stationId), r.inputs]));
-    inputsCache.set(key, inputs);
-  }
-  return inputs;
 }
 
 export interface DeriveOptions {
@@ -416,10 +167,13 @@ export function deriveReadings(
   checkEngineShape(engine);
   if (!Array.isArray(readings)) throw new Error("deriveReadings needs the job's readings as a list");
   const { touching, characteristics: only } = options;
-  const wanted = recipes(engine).filter(
-    (r) => (!touching || r.inputs.some(touching)) && (!only || only.includes(r.characteristic)),
-  );
+  const all = recipes(engine);
+  const wanted =
+    touching || only
+      ? all.filter((r) => (!touching || r.inputs.some(touching)) && (!only || only.includes(r.characteristic)))
+      : all;
   const needed = touching || only ? new Set(wanted.flatMap((r) => r.inputs)) : undefined;
   const { ok, bad } = prepareAll(needed ? readings.filter((r) => needed.has(r?.stationId)) : readings, engine);
-  return wanted.map((r) => derive(r, engine, spec, ok, bad));
+  const pass: Pass = { engine, spec, unit: lengthUnitOf(engine), ok, bad, memo: new Map() };
+  return wanted.map((r) => derive(r, pass));
 }
