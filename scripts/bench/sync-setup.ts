@@ -144,10 +144,12 @@ export async function setUp(jobs: number) {
     );
   }
 
+  const globalStatus = async (name: string) => Number((await conn.query("SHOW GLOBAL STATUS LIKE ?", [name]))[0].Value);
   const countIn = async (sql: string, ids: number[]) => Number((await conn.query(sql, [ids]))[0].n);
   return {
     printTrace: trace.print,
-    questions: async () => Number((await conn.query("SHOW GLOBAL STATUS LIKE 'Questions'"))[0].Value),
+    questions: () => globalStatus("Questions"),
+    globalStatus,
     jobIds,
     gauges,
     pushAll,

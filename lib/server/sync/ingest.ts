@@ -12,7 +12,7 @@ import {
 import type { FieldErrors } from "@/lib/schemas/errors";
 import type { Actor } from "@/lib/schemas/session";
 import { recordAudits } from "@/lib/server/log/repo";
-import { recordChanges } from "@/lib/server/sync/repo";
+import { recordChangesAndCommit } from "@/lib/server/sync/repo";
 import { syncAudits } from "@/lib/server/sync/ingest-audit";
 import { getSequelize } from "@/lib/server/core/db";
 import { AppError, fieldErrors } from "@/lib/server/core/errors";
@@ -278,8 +278,8 @@ export async function ingestBatch(
       }
       const { finals, changes } = await write(t, actor, bc, fresh);
       const res = results(parsed, checked, finals, false);
-      // The shop's feed counter is locked from here to the commit: nothing else is left to do in between.
-      return { status: 200 as const, body: { results: res, cursor: await recordChanges(t, changes) } };
+      // The shop's feed counter is locked from here to the commit, which this same statement makes.
+      return { status: 200 as const, body: { results: res, cursor: await recordChangesAndCommit(t, changes) } };
     }),
   );
 }
