@@ -217,8 +217,22 @@ function fieldValue(id: string, [name, rule]: FieldRule, raw: string | undefined
   return rule === "number" ? Number(raw) : raw;
 }
 
+// A server judges thousands of readings of the same few hundred stations: each id is parsed once.
+// The parts are frozen, as every caller shares them.
+const parsedIds = new Map<string, ParsedStation>();
+
 /** Takes a station id apart (grammar at the top of this file); throws naming the wrong segment. */
 export function parseStationId(id: string): ParsedStation {
+  let parsed = parsedIds.get(id);
+  if (parsed === undefined) {
+    parsed = Object.freeze(parseAnew(id));
+    if (parsedIds.size > 5000) parsedIds.clear();
+    parsedIds.set(id, parsed);
+  }
+  return parsed;
+}
+
+function parseAnew(id: string): ParsedStation {
   if (typeof id !== "string" || id === "") throw new Error("A station id is needed, e.g. 'bore/1/top/A'");
   const [head, ...rest] = id.split("/");
   const grammar = (GRAMMAR as Record<string, (typeof GRAMMAR)[SectionId]>)[head];

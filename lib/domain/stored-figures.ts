@@ -22,12 +22,21 @@ export function decimalPlaces(x: number): number {
   return new Decimal(x).decimalPlaces();
 }
 
+// Every figure of every reading is checked against its column's limit: worked out once per column.
+const limits = new Map<string, number>();
+
 /** The largest figure the column holds, e.g. 99999999.999999 for DECIMAL(14,6). */
 export function columnLimit(p: ColumnPrecision): number {
-  return new Decimal(10)
-    .pow(p.digits - p.places)
-    .minus(new Decimal(10).pow(-p.places))
-    .toNumber();
+  const key = `${p.digits},${p.places}`;
+  let limit = limits.get(key);
+  if (limit === undefined) {
+    limit = new Decimal(10)
+      .pow(p.digits - p.places)
+      .minus(new Decimal(10).pow(-p.places))
+      .toNumber();
+    limits.set(key, limit);
+  }
+  return limit;
 }
 
 /**

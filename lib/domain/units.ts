@@ -164,8 +164,11 @@ function requireUnit(unit: string, allowed: readonly string[], name: string): vo
 
 /** The quantity a unit measures, or undefined for a unit the core does not know. */
 export function quantityOfUnit(unit: string): QuantityKind | undefined {
-  const of = (units: readonly string[]) => units.includes(unit);
-  return of(LENGTH_UNITS) ? "length" : of(TORQUE_UNITS) ? "torque" : undefined;
+  return (LENGTH_UNITS as readonly string[]).includes(unit)
+    ? "length"
+    : (TORQUE_UNITS as readonly string[]).includes(unit)
+      ? "torque"
+      : undefined;
 }
 
 /** `value` in `from` expressed in `to`; undefined when one is a length and the other a torque (or unknown). */
