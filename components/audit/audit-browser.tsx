@@ -13,6 +13,14 @@ import { AuditFilters, FILTER_KEYS, type Filters } from "./audit-filters";
 // The audit trail for the lead and the inspector: filtered and paged on the server, newest first.
 const PAGE_SIZE = 25;
 const stamp = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 19)}`;
+const count = (n: number) => n.toLocaleString("en-US");
+
+// A long trail is counted only a few thousand events past the page (the server says `more`): then
+// the pages and events are "at least", and say so.
+function pagesInWords(p: AuditPage): string {
+  if (!p.more) return `Page ${p.page} of ${count(p.pages)} · ${count(p.total)} event${p.total === 1 ? "" : "s"}`;
+  return `Page ${p.page} of more than ${count(p.pages)} · more than ${count(p.total)} events (not all counted)`;
+}
 
 function useFilters() {
   const params = useSearchParams();
@@ -108,7 +116,7 @@ export function AuditBrowser() {
               ← Newer
             </Button>
             <span className="text-sm" data-testid="audit-pages">
-              Page {events.data.page} of {events.data.pages} · {events.data.total} events
+              {pagesInWords(events.data)}
             </span>
             <Button tone="quiet" disabled={page >= events.data.pages} onClick={() => go(filters, page + 1)}>
               Older →

@@ -69,7 +69,16 @@ export type AuditEventView = {
   truncated: boolean;
 };
 
-export type AuditPage = { events: AuditEventView[]; page: number; pageSize: number; total: number; pages: number };
+export type AuditPage = {
+  events: AuditEventView[];
+  page: number;
+  pageSize: number;
+  /** How many events match; with `more`, at least this many (counting stops a few thousand past the page). */
+  total: number;
+  more: boolean;
+  /** Pages of `total`; with `more`, at least this many. */
+  pages: number;
+};
 
 export type AuditFacets = {
   actions: string[];

@@ -1,18 +1,13 @@
 import "server-only";
-import { Op, type InferAttributes, type Order, type Transaction, type WhereOptions } from "sequelize";
+import { Op, type InferAttributes, type Transaction } from "sequelize";
 import type { Disposition } from "@/lib/schemas/enums";
 import type { FlagListQuery } from "@/lib/schemas/flag";
-import {
-  decimalToNumber,
-  type Flag,
-  type FlagDisposition,
-  type Instrument,
-  type Job,
-  type Reading,
-  type User,
-} from "@/models";
+import { type Flag, type FlagDisposition, type Instrument, type Job, type Reading, type User } from "@/models";
 import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
+import { settleAll } from "@/lib/server/core/sql-driver";
+import { fromSql } from "@/lib/server/flags/flag-row";
+import { readRows, withReads } from "@/lib/server/core/sql-read";
 
 // The lead's flags: the feature's one door to the database. The queue is filtered, sorted and
 // paginated in the database; a decision appends its history row and sets the flag's latest one.
@@ -34,123 +29,98 @@ export type LoadedFlag = StoredFlag & {
 
 const plain = <T>(row: { get(o: { plain: true }): object }) => row.get({ plain: true }) as T;
 
-const flagIncludes = () => {
-  const { Instrument, Job, Reading, User } = models();
-  return [
-    { model: Job, as: "job", attributes: ["id", "code", "title", "status", "unitSystem", "lockedAt"] },
-    { model: User, as: "disposer", attributes: ["id", "name"] },
-    {
-      model: Reading,
-      as: "reading",
-      attributes: ["id", "takenAt", "instrumentId", "takenBy"],
-      include: [
-        { model: Instrument, as: "instrument", attributes: ["id", "label", "serial", "calibrationDue"] },
-        { model: User, as: "taker", attributes: ["id", "name"] },
-      ],
-    },
-  ];
+const STATES: Record<FlagListQuery["state"], string> = {
+  open: "f.state = 'open'",
+  disposed: "f.state = 'disposed'",
+  active: "f.state IN ('open', 'disposed')",
+  closed: "f.state = 'closed'",
+  all: "TRUE",
 };
 
-const STATES: Record<FlagListQuery["state"], string[] | null> = {
-  open: ["open"],
-  disposed: ["disposed"],
-  active: ["open", "disposed"],
-  closed: ["closed"],
-  all: null,
-};
-
-function whereOf(shopId: number, q: FlagListQuery): WhereOptions {
-  const states = STATES[q.state];
-  return {
-    shopId,
-    ...(states ? { state: { [Op.in]: states } } : {}),
-    ...(q.job ? { jobId: q.job } : {}),
-    ...(q.verdict ? { verdict: q.verdict } : {}),
-    ...(q.reason ? { reason: q.reason } : {}),
-  };
+function whereOf(shopId: number, q: FlagListQuery): { sql: string; values: unknown[] } {
+  const parts = ["f.shop_id = ?", STATES[q.state]];
+  const values: unknown[] = [shopId];
+  const add = (sql: string, v: unknown) => (parts.push(sql), values.push(v));
+  if (q.job) add("f.job_id = ?", q.job);
+  if (q.verdict) add("f.verdict = ?", q.verdict);
+  if (q.reason) add("f.reason = ?", q.reason);
+  return { sql: parts.join(" AND "), values };
 }
 
 // Each sort is walked along its own index (migration 20261205010000), forwards for one direction
 // and backwards for the other, tie-breakers included, so a page reads only its own rows. ENUMs sort
 // by their position (marginal < out_of_spec, open < disposed < closed): an enum sort's forward walk
 // is "worst first, oldest first". Age grows as the judged time falls: its forward walk is oldest first.
-const SORT_INDEX: Record<FlagListQuery["sort"], { forward: FlagListQuery["dir"]; keys: [string, "ASC" | "DESC"][] }> = {
-  age: { forward: "desc", keys: [["judgedAt", "ASC"]] },
+type Key = [column: string, dir: "ASC" | "DESC"];
+const SORT_INDEX: Record<FlagListQuery["sort"], { forward: FlagListQuery["dir"]; keys: Key[] }> = {
+  age: { forward: "desc", keys: [["f.judged_at", "ASC"]] },
   job: {
     forward: "asc",
     keys: [
-      ["jobCode", "ASC"],
-      ["stationId", "ASC"],
+      ["f.job_code", "ASC"],
+      ["f.station_id", "ASC"],
     ],
   },
-  station: { forward: "asc", keys: [["stationId", "ASC"]] },
-  value: { forward: "asc", keys: [["value", "ASC"]] },
-  deviation: { forward: "asc", keys: [["deviation", "ASC"]] },
+  station: { forward: "asc", keys: [["f.station_id", "ASC"]] },
+  value: { forward: "asc", keys: [["f.value", "ASC"]] },
+  deviation: { forward: "asc", keys: [["f.deviation", "ASC"]] },
   verdict: {
     forward: "desc",
     keys: [
-      ["verdict", "DESC"],
-      ["judgedAt", "ASC"],
+      ["f.verdict", "DESC"],
+      ["f.judged_at", "ASC"],
     ],
   },
   reason: {
     forward: "desc",
     keys: [
-      ["reason", "DESC"],
-      ["judgedAt", "ASC"],
+      ["f.reason", "DESC"],
+      ["f.judged_at", "ASC"],
     ],
   },
   state: {
     forward: "desc",
     keys: [
-      ["state", "DESC"],
-      ["judgedAt", "ASC"],
+      ["f.state", "DESC"],
+      ["f.judged_at", "ASC"],
     ],
   },
 };
 
-function orderOf(q: FlagListQuery): Order {
+function orderOf(q: FlagListQuery): string {
   const { forward, keys } = SORT_INDEX[q.sort];
   const turn = (d: "ASC" | "DESC") => (q.dir === forward ? d : d === "ASC" ? "DESC" : "ASC");
-  return [...keys, ["id", "ASC"] as const].map(([k, d]) => [k, turn(d)]) as Order;
+  return [...keys, ["f.id", "ASC"] as Key].map(([k, d]) => `${k} ${turn(d)}`).join(", ");
 }
 
-/** One page of the shop's flags matching `q`, and how many match in all. */
+// A flag with its job, its reading's gauge and taker and who decided it last, read straight on the
+// driver (core/sql-read.ts): plain rows, mapped to LoadedFlag below.
+const FLAG_SELECT = `SELECT f.id, f.shop_id, f.job_id, f.reading_id, f.derived_key, f.station_id, f.characteristic,
+    f.value, f.unit, f.limit_min, f.limit_max, f.deviation, f.verdict, f.reason, f.state, f.disposition,
+    f.operation, f.disposition_reason, f.disposed_by, f.disposed_at, f.closed_at, f.closed_by_reading_id,
+    f.judged_at, f.job_code, f.created_at, f.updated_at,
+    j.id AS j_id, j.code AS j_code, j.title AS j_title, j.status AS j_status, j.unit_system AS j_unit_system,
+    j.locked_at AS j_locked_at, d.name AS d_name, r.id AS r_id, r.taken_at AS r_taken_at,
+    r.instrument_id AS r_instrument_id, r.taken_by AS r_taken_by, i.id AS i_id, i.label AS i_label,
+    i.serial AS i_serial, i.calibration_due AS i_calibration_due, t.id AS t_id, t.name AS t_name
+  FROM flags f LEFT JOIN jobs j ON j.id = f.job_id LEFT JOIN users d ON d.id = f.disposed_by
+    LEFT JOIN readings r ON r.id = f.reading_id LEFT JOIN instruments i ON i.id = r.instrument_id
+    LEFT JOIN users t ON t.id = r.taken_by`;
+
+/** One page of the shop's flags matching `q`, and how many match in all (both read in one go). */
 export async function flagPage(shopId: number, q: FlagListQuery): Promise<{ total: number; rows: LoadedFlag[] }> {
-  const { Flag } = models();
   const where = whereOf(shopId, q);
-  const [total, rows] = await Promise.all([
-    Flag.count({ where }),
-    Flag.findAll({
-      where,
-      include: flagIncludes(),
-      order: orderOf(q),
-      limit: q.pageSize,
-      offset: (q.page - 1) * q.pageSize,
-      // Plain nested rows: building model instances for each include cost most of a page's CPU.
-      raw: true,
-      nest: true,
-    }),
-  ]);
-  return { total, rows: rows.map((r) => fromRaw(r as unknown as Nested)) };
-}
-
-type Row = Record<string, unknown> & { id: unknown };
-type Nested = Row & { job: Row; disposer: Row; reading: Row & { instrument: Row; taker: Row } };
-const FLAG_DECIMALS = ["value", "limitMin", "limitMax", "deviation"] as const;
-// A left join that found no row comes back from `nest` as an object of nulls.
-const found = <T extends Row>(o: T): T | null => (o.id == null ? null : o);
-
-function fromRaw(row: Nested): LoadedFlag {
-  const reading = found(row.reading);
-  const out: Record<string, unknown> = {
-    ...row,
-    job: found(row.job),
-    disposer: found(row.disposer),
-    reading: reading && { ...reading, instrument: found(reading.instrument), taker: found(reading.taker) },
-  };
-  for (const k of FLAG_DECIMALS) out[k] = decimalToNumber(row[k]);
-  return out as unknown as LoadedFlag;
+  const [[count], rows] = await withReads((read) =>
+    settleAll([
+      read<{ n: number }>(`SELECT COUNT(*) AS n FROM flags f WHERE ${where.sql}`, where.values),
+      read(`${FLAG_SELECT} WHERE ${where.sql} ORDER BY ${orderOf(q)} LIMIT ? OFFSET ?`, [
+        ...where.values,
+        q.pageSize,
+        (q.page - 1) * q.pageSize,
+      ]),
+    ]),
+  );
+  return { total: Number(count?.n ?? 0), rows: rows.map(fromSql) };
 }
 
 /** A flag of this shop with its job, gauge, taker and disposer; 404 for any other shop's. */
@@ -158,8 +128,8 @@ export async function getFlagOrThrow(
   shopId: number,
   flagId: number,
 ): Promise<LoadedFlag & { job: NonNullable<LoadedFlag["job"]> }> {
-  const f = await models().Flag.findOne({ where: { id: flagId, shopId }, include: flagIncludes() });
-  const loaded = f ? plain<LoadedFlag>(f) : null;
+  const [row] = await readRows(`${FLAG_SELECT} WHERE f.id = ? AND f.shop_id = ?`, [flagId, shopId]);
+  const loaded = row ? fromSql(row) : null;
   if (!loaded?.job) throw notFound("Flag");
   return loaded as LoadedFlag & { job: NonNullable<LoadedFlag["job"]> };
 }

@@ -3,6 +3,8 @@ import { QueryTypes, type Transaction } from "sequelize";
 import type { AuditQuery } from "@/lib/schemas/audit";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { insertMany } from "@/lib/server/core/sql-insert";
+import { settleAll } from "@/lib/server/core/sql-driver";
+import { withReads } from "@/lib/server/core/sql-read";
 
 // The audit trail's one door to the database: writing events (one, or many in one INSERT) and
 // reading them back filtered and paged. Plain objects out.
@@ -62,92 +64,83 @@ export async function recordAudits(t: Transaction, events: AuditInput[]): Promis
   );
 }
 
-// Reads of the append-only audit trail, filtered and paged in the database. Events carry an
+// Reads of the append-only audit trail, filtered and paged in the database, straight on the driver
+// (core/sql-read.ts): the count and the page go together on one connection. Events carry an
 // entity, not a job: each event's job is worked out once, as it is written, by a trigger
 // (migration 20261205011000), so a filter by job and the job column read a column. A page's ids
 // are found inside one index (shop_id, <filter>, id), newest first, and only its rows are read:
 // ordered by the primary key instead, the whole table newer than the shop's events would be walked.
+//
+// A date range alone walks (shop_id, created_at) backwards instead, newest first by time: ordered
+// by id, every event of the range would be read and sorted before the page could be cut from it.
+//
+// The count stops COUNT_AHEAD events past the page's first row: counting a long-lived shop's whole
+// trail on every page would cost more than the page. The screen then says "more than".
+export const COUNT_AHEAD = 5000;
 
 // Milliseconds, in UTC (the connection's time zone is +00:00), as ISO 8601.
 const AT = `CONCAT(DATE_FORMAT(e.created_at, '%Y-%m-%dT%H:%i:%s.'),
   LPAD(FLOOR(MICROSECOND(e.created_at) / 1000), 3, '0'), 'Z')`;
 
 export type AuditRow = {
-  id: number | string | bigint;
+  id: number;
   user_id: number | null;
+  user_name: string | null;
   action: string;
   entity_type: string;
   entity_id: string;
   before: unknown;
   after: unknown;
   at: string;
-  job_id: number | string | null;
+  /** The event's job when it is a job of this shop. */
+  job_id: number | null;
+  job_code: string | null;
 };
 
 function where(shopId: number, q: AuditQuery) {
-  const parts = ["e.shop_id = :shop"];
-  const r: Record<string, unknown> = { shop: shopId };
-  if (q.user) {
-    parts.push("e.user_id = :user");
-    r.user = q.user;
-  }
-  if (q.action) {
-    parts.push("e.action = :action");
-    r.action = q.action;
-  }
-  if (q.entity) {
-    parts.push("e.entity_type = :entity");
-    r.entity = q.entity;
-  }
-  if (q.entityId) {
-    parts.push("e.entity_id = :entityId");
-    r.entityId = q.entityId;
-  }
-  if (q.from) {
-    parts.push("e.created_at >= :from");
-    r.from = `${q.from} 00:00:00.000`;
-  }
-  if (q.to) {
-    parts.push("e.created_at < DATE_ADD(:to, INTERVAL 1 DAY)");
-    r.to = q.to;
-  }
-  if (q.job) {
-    parts.push("e.job_id = :job");
-    r.job = q.job;
-  }
-  return { sql: `FROM audit_events e WHERE ${parts.join(" AND ")}`, replacements: r };
+  const parts = ["e.shop_id = ?"];
+  const values: unknown[] = [shopId];
+  const add = (sql: string, v: unknown) => (parts.push(sql), values.push(v));
+  if (q.user) add("e.user_id = ?", q.user);
+  if (q.action) add("e.action = ?", q.action);
+  if (q.entity) add("e.entity_type = ?", q.entity);
+  if (q.entityId) add("e.entity_id = ?", q.entityId);
+  if (q.from) add("e.created_at >= ?", `${q.from} 00:00:00.000`);
+  if (q.to) add("e.created_at < DATE_ADD(?, INTERVAL 1 DAY)", q.to);
+  if (q.job) add("e.job_id = ?", q.job);
+  const byTime = (q.from || q.to) && !q.user && !q.action && !q.entity && !q.entityId && !q.job;
+  const order = byTime ? "e.created_at DESC, e.id DESC" : "e.id DESC";
+  return { sql: `FROM audit_events e WHERE ${parts.join(" AND ")}`, values, order };
 }
 
-/** One page of the shop's events matching `q`, newest first, and how many match in all. */
-export async function auditRows(shopId: number, q: AuditQuery): Promise<{ total: number; rows: AuditRow[] }> {
-  const sequelize = getSequelize();
-  const { sql, replacements } = where(shopId, q);
-  const columns = `e.id, e.user_id, e.action, e.entity_type, e.entity_id, e.before, e.after, ${AT} AS at, e.job_id`;
-  const [[{ n }], rows] = await Promise.all([
-    sequelize.query<{ n: number | string | bigint }>(`SELECT COUNT(*) AS n ${sql}`, {
-      type: QueryTypes.SELECT,
-      replacements,
-    }),
-    sequelize.query<AuditRow>(
-      `SELECT ${columns} FROM (SELECT e.id ${sql} ORDER BY e.id DESC LIMIT :limit OFFSET :offset) page
-        JOIN audit_events e ON e.id = page.id ORDER BY e.id DESC`,
-      {
-        type: QueryTypes.SELECT,
-        replacements: { ...replacements, limit: q.pageSize, offset: (q.page - 1) * q.pageSize },
-      },
-    ),
-  ]);
-  return { total: Number(n), rows };
-}
-
-/** Names of these users and codes of these jobs, of this shop only. */
-export async function namesAndCodes(shopId: number, userIds: number[], jobIds: number[]) {
-  const { Job, User } = models();
-  const [users, jobs] = await Promise.all([
-    userIds.length ? User.findAll({ where: { id: userIds, shopId }, attributes: ["id", "name"] }) : [],
-    jobIds.length ? Job.findAll({ where: { id: jobIds, shopId }, attributes: ["id", "code"] }) : [],
-  ]);
-  return { users: new Map(users.map((u) => [u.id, u.name])), jobs: new Map(jobs.map((j) => [j.id, j.code])) };
+/**
+ * One page of the shop's events matching `q`, newest first, with each one's user name and job
+ * code, and how many match: exact, or at least `total` when `more` (the count stopped there).
+ */
+export async function auditRows(
+  shopId: number,
+  q: AuditQuery,
+): Promise<{ total: number; more: boolean; rows: AuditRow[] }> {
+  const { sql, values, order } = where(shopId, q);
+  const offset = (q.page - 1) * q.pageSize;
+  const cap = offset + COUNT_AHEAD;
+  const [[count], rows] = await withReads((read) =>
+    settleAll([
+      read<{ n: number }>(`SELECT COUNT(*) AS n FROM (SELECT 1 ${sql} LIMIT ?) counted`, [...values, cap + 1]),
+      read<AuditRow>(
+        `SELECT e.id, e.user_id, u.name AS user_name, e.action, e.entity_type, e.entity_id, e.before, e.after,
+           ${AT} AS at, j.id AS job_id, j.code AS job_code
+         FROM (SELECT e.id ${sql} ORDER BY ${order} LIMIT ? OFFSET ?) page
+           JOIN audit_events e ON e.id = page.id
+           LEFT JOIN users u ON u.id = e.user_id AND u.shop_id = e.shop_id
+           LEFT JOIN jobs j ON j.id = e.job_id AND j.shop_id = e.shop_id
+         ORDER BY ${order}`,
+        [...values, q.pageSize, offset],
+      ),
+    ]),
+  );
+  const n = Number(count?.n ?? 0);
+  return { total: Math.min(n, cap), more: n > cap, rows };
 }
 
 /** The values the audit filters can take in this shop. */

@@ -11,11 +11,19 @@ import { listBenchJobs } from "@/lib/server/bench/pack";
 import { getJobDetail } from "@/lib/server/jobs/detail";
 import { jobMaps } from "@/lib/server/readings/maps";
 import { queryAudit } from "@/lib/server/log/query";
+import { COUNT_AHEAD } from "@/lib/server/log/repo";
 import { syncFeed } from "@/lib/server/sync/feed";
 import { readingsCsv } from "@/lib/server/readings/csv-export-stream";
 import type { Case } from "./timing";
 
-export type Subject = { shopId: number; machinist: Actor; jobId: number; heldJobs: number[] };
+export type Subject = {
+  shopId: number;
+  machinist: Actor;
+  jobId: number;
+  heldJobs: number[];
+  /** The middle half of the shop's audit trail in UTC days, [from, to]. */
+  auditDays: [string, string];
+};
 
 const STATES: Record<FlagListQuery["state"], string> = {
   open: "f.state = 'open'",
@@ -87,17 +95,23 @@ function flagCases(s: Subject): Case[] {
   });
 }
 
-// The page's ids inside the filter's index (shop_id, <filter>, id), newest first, then their rows.
-const rawAuditPage = (where: string, args: unknown[]) => (c: Connection) =>
-  Promise.all([
-    c.query(`SELECT COUNT(*) AS n FROM audit_events e WHERE ${where}`, args),
-    c.query(
-      `SELECT e.*, j.code, u.name FROM (SELECT e.id FROM audit_events e WHERE ${where} ORDER BY e.id DESC LIMIT 25) page
-         JOIN audit_events e ON e.id = page.id LEFT JOIN jobs j ON j.id = e.job_id LEFT JOIN users u ON u.id = e.user_id
-        ORDER BY e.id DESC`,
-      args,
-    ),
-  ]);
+// The page's ids inside the filter's index (shop_id, <filter>, id), newest first, then their rows;
+// a date range alone walks (shop_id, created_at). The count stops COUNT_AHEAD past the page, as the screen's.
+const rawAuditPage =
+  (where: string, args: unknown[], order = "e.id DESC") =>
+  (c: Connection) =>
+    Promise.all([
+      c.query(`SELECT COUNT(*) AS n FROM (SELECT 1 FROM audit_events e WHERE ${where} LIMIT ?) counted`, [
+        ...args,
+        COUNT_AHEAD + 1,
+      ]),
+      c.query(
+        `SELECT e.*, j.code, u.name FROM (SELECT e.id FROM audit_events e WHERE ${where} ORDER BY ${order} LIMIT 25) page
+         JOIN audit_events e ON e.id = page.id LEFT JOIN jobs j ON j.id = e.job_id AND j.shop_id = e.shop_id
+         LEFT JOIN users u ON u.id = e.user_id AND u.shop_id = e.shop_id ORDER BY ${order}`,
+        args,
+      ),
+    ]);
 
 const jobRows = (c: Connection, jobId: number) =>
   Promise.all([
@@ -115,6 +129,8 @@ export function cases(s: Subject): Case[] {
   const board = boardQuerySchema.parse({});
   const audit = auditQuerySchema.parse({});
   const auditJob = auditQuerySchema.parse({ job: String(s.jobId) });
+  const [from, to] = s.auditDays;
+  const auditDays = auditQuerySchema.parse({ from, to });
   const active = "'intake', 'measuring', 'review', 'released'";
   return [
     ...flagCases(s),
@@ -186,6 +202,15 @@ export function cases(s: Subject): Case[] {
       name: "audit trail: one job",
       app: () => queryAudit(s.shopId, auditJob),
       raw: rawAuditPage("e.shop_id = ? AND e.job_id = ?", [s.shopId, s.jobId]),
+    },
+    {
+      name: "audit trail: date range (middle half)",
+      app: () => queryAudit(s.shopId, auditDays),
+      raw: rawAuditPage(
+        "e.shop_id = ? AND e.created_at >= ? AND e.created_at < DATE_ADD(?, INTERVAL 1 DAY)",
+        [s.shopId, `${from} 00:00:00.000`, to],
+        "e.created_at DESC, e.id DESC",
+      ),
     },
     {
       name: "sync feed: catch-up of 5 held jobs",

@@ -13,6 +13,8 @@ export type Timed = {
   app: number[];
   raw: number[];
   cold: number;
+  /** This process's CPU time per call (user + system, ms), averaged: what a busy machine does not change. */
+  cpu: Record<"app" | "raw", number>;
   findings: string[];
   plans: Record<"app" | "raw", Plan>;
 };
@@ -23,10 +25,14 @@ export function percentile(values: number[], p: number): number {
   return s[Math.min(s.length - 1, Math.max(0, Math.ceil((p / 100) * s.length) - 1))];
 }
 
-async function ms(fn: () => Promise<unknown>): Promise<number> {
+async function ms(fn: () => Promise<unknown>, cpu?: { total: number }): Promise<number> {
+  const c0 = process.cpuUsage();
   const t0 = performance.now();
   await fn();
-  return performance.now() - t0;
+  const took = performance.now() - t0;
+  const c = process.cpuUsage(c0);
+  if (cpu) cpu.total += (c.user + c.system) / 1000;
+  return took;
 }
 
 /**
@@ -112,9 +118,11 @@ export async function timeCase(conn: Connection, c: Case, n: number): Promise<Ti
     raw: await planOf(conn, await rawStatements(conn, c)),
   };
   const app: number[] = [];
+  const cpu = { app: { total: 0 }, raw: { total: 0 } };
   for (let i = 0; i < n; i++) {
-    app.push(await ms(c.app));
-    raw.push(await ms(() => c.raw(conn)));
+    app.push(await ms(c.app, cpu.app));
+    raw.push(await ms(() => c.raw(conn), cpu.raw));
   }
-  return { name: c.name, app, raw, cold, findings: plans.app.findings, plans };
+  const perCall = { app: cpu.app.total / n, raw: cpu.raw.total / n };
+  return { name: c.name, app, raw, cold, cpu: perCall, findings: plans.app.findings, plans };
 }
