@@ -18,14 +18,17 @@ export async function serveUntilStopped(env: NodeJS.ProcessEnv, subjectFile: str
   console.log(
     [
       `bench:scale  kept: the scaled database served at ${server.base} [load ${loadavg()[0].toFixed(1)}]`,
-      `  sign in as lead@${shop} (flag queue, jobs board, job ${s.jobId}), inspector@${shop}, admin@${shop}`,
+      `  sign in as lead@${shop} (flag queue, jobs board, audit trail; ${server.base}/desk/jobs/${s.jobId}),`,
+      `  inspector@${shop}, admin@${shop}`,
       `  or machinist1@${shop}; every bench person's password is ${BENCH_PASSWORD} (benchmark data only).`,
       `  Every shop-N.bench.example (N = 1 to 20) has the same people. Ctrl-C stops the app and the database.`,
     ].join("\n"),
   );
+  // Kept listening: tsx passes the terminal's SIGINT on a second time, and Node's default for it
+  // would end this process before the services are stopped and their data removed.
   await new Promise<void>((resolve) => {
-    process.once("SIGINT", resolve);
-    process.once("SIGTERM", resolve);
+    process.on("SIGINT", () => resolve());
+    process.on("SIGTERM", () => resolve());
   });
   console.log("bench:scale  stopping the app and the scaled database");
   await server.stop();
