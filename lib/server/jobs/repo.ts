@@ -9,8 +9,8 @@ import type { Customer, Engine, Job, JobLimit } from "@/models";
 import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 import { modelColumns, type ModelColumns } from "@/lib/server/core/sql-columns";
-import { settleAll } from "@/lib/server/core/sql-driver";
-import { readRows, withReads } from "@/lib/server/core/sql-read";
+import { settleAll, sqlRows } from "@/lib/server/core/sql-driver";
+import { readRows, withReads, type Read } from "@/lib/server/core/sql-read";
 import { toEngineShape, toSpecLimit, type JobContext } from "@/lib/server/jobs/context";
 
 // The jobs feature's only door to the database: jobs, their engines, their own limit snapshots
@@ -85,19 +85,24 @@ export async function getEngineOrThrow(engineId: number, t?: Transaction): Promi
   return plain<EngineRow>(engine);
 }
 
-/** A job of this shop with its engine shape and its own limit snapshot; 404 for any other shop. */
+/**
+ * A job of this shop with its engine shape and its own limit snapshot; 404 for any other shop. In a
+ * transaction it reads through the driver on the transaction's connection (the sync ingest loads
+ * one for every job it has not seen: model instances cost more than the queries), both statements
+ * pipelined behind whatever the caller issued before (a job lock).
+ */
 export async function loadJobContext(shopId: number, jobId: number, t?: Transaction): Promise<JobContext> {
+  if (t) return jobContextVia((sql, values) => sqlRows(t, sql, values), shopId, jobId);
   const { Engine, Job, JobLimit } = models();
-  // All three at once (inside a transaction they share its connection and go out in one round
-  // trip); the engine is found through this shop's job, so nothing of another shop is read.
-  // (Op.eq is needed: a bare literal as a where value becomes the whole condition.)
+  // All three at once; the engine is found through this shop's job, so nothing of another shop is
+  // read. (Op.eq is needed: a bare literal as a where value becomes the whole condition.)
   const engineOfJob = literal(
     `(SELECT engine_id FROM jobs WHERE id = ${Number(jobId)} AND shop_id = ${Number(shopId)})`,
   );
   const [job, engine, limits] = await Promise.all([
-    Job.findOne({ where: { id: jobId, shopId }, transaction: t }),
-    Engine.findOne({ where: { id: { [Op.eq]: engineOfJob } }, transaction: t }),
-    JobLimit.findAll({ where: { jobId }, order: LIMIT_ORDER, transaction: t }),
+    Job.findOne({ where: { id: jobId, shopId } }),
+    Engine.findOne({ where: { id: { [Op.eq]: engineOfJob } } }),
+    JobLimit.findAll({ where: { jobId }, order: LIMIT_ORDER }),
   ]);
   if (!job) throw notFound("Job");
   if (!engine) throw notFound("Engine");
@@ -127,17 +132,20 @@ function jobEngineColumns(): Columns {
  * without building model instances; the two statements are pipelined on one connection.
  */
 export async function readJobContext(shopId: number, jobId: number): Promise<JobContext> {
+  return withReads((read) => jobContextVia(read, shopId, jobId));
+}
+
+/** The job context's two statements, issued together through `read`. */
+async function jobContextVia(read: Read, shopId: number, jobId: number): Promise<JobContext> {
   const { job, engine, limit } = jobEngineColumns();
-  const [rows, limits] = await withReads((read) =>
-    settleAll([
-      read(
-        `SELECT ${job.list}, ${engine.list} FROM jobs j JOIN engines e ON e.id = j.engine_id
-          WHERE j.id = ? AND j.shop_id = ?`,
-        [jobId, shopId],
-      ),
-      read(`SELECT ${limit.list} FROM job_limits l WHERE l.job_id = ? ORDER BY l.sort_order, l.id`, [jobId]),
-    ]),
-  );
+  const [rows, limits] = await settleAll([
+    read(
+      `SELECT ${job.list}, ${engine.list} FROM jobs j JOIN engines e ON e.id = j.engine_id
+        WHERE j.id = ? AND j.shop_id = ?`,
+      [jobId, shopId],
+    ),
+    read(`SELECT ${limit.list} FROM job_limits l WHERE l.job_id = ? ORDER BY l.sort_order, l.id`, [jobId]),
+  ]);
   if (!rows.length) throw notFound("Job");
   const [jobRow, engineRow] = [job.read(rows[0]), engine.read(rows[0])];
   return {
