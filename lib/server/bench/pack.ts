@@ -3,7 +3,7 @@ import { benchRoute, correctedBy } from "@/lib/domain";
 import type { BenchJobSummary, JobPack } from "@/lib/schemas/sync";
 import type { Actor } from "@/lib/schemas/session";
 import { recipeInputs, toBenchFlag } from "@/lib/server/bench/flag-view";
-import { flagsOfJobs, jobWithNames, namesOf, openBenchJobs, openFlagCounts, toHeader } from "@/lib/server/bench/repo";
+import { flagsOfJobs, jobWithNames, namesOf, openBenchJobs, toHeader } from "@/lib/server/bench/repo";
 import { progressOf } from "@/lib/server/board/progress";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { chosenBearings } from "@/lib/server/bearings/bench";
@@ -30,18 +30,15 @@ export async function listBenchJobs(actor: Actor): Promise<BenchJobSummary[]> {
   // Required-station progress as the desk board counts it (lib/domain/progress.ts), from the kept
   // counts (lib/server/board/progress.ts); an engine that cannot be laid out shows 0 of 0 and its
   // pack explains what is wrong.
-  const [progress, flags] = await Promise.all([
-    progressOf(
-      actor.shopId,
-      jobs.map((j) => j.id),
-    ),
-    openFlagCounts(jobs.map((j) => j.id)),
-  ]);
+  const progress = await progressOf(
+    actor.shopId,
+    jobs.map((j) => j.id),
+  );
   return jobs.map((j) => ({
     ...toHeader(j),
     ...namesOf(j),
     progress: progress.get(j.id) ?? null,
-    openFlags: flags.get(j.id) ?? 0,
+    openFlags: j.openFlags,
   }));
 }
 

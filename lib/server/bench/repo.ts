@@ -1,17 +1,21 @@
 import "server-only";
-import { Op, QueryTypes } from "sequelize";
+import { Op } from "sequelize";
 import { OPEN_JOB_STATUSES, isJobLocked, jobLockReason } from "@/lib/domain";
 import type { SettingMaster } from "@/lib/schemas/bench-gauges";
 import type { BenchJobHeader } from "@/lib/schemas/sync";
-import { decimalToNumber } from "@/models";
-import { getSequelize, models } from "@/lib/server/core/db";
+import { models } from "@/lib/server/core/db";
+import { utcDate } from "@/lib/server/core/sql-driver";
+import { modelColumns, type ModelColumns } from "@/lib/server/core/sql-columns";
+import { readRows } from "@/lib/server/core/sql-read";
 import type { FlagRow } from "@/lib/server/reconcile/repo";
 import type { EngineRow, JobRow } from "@/lib/server/jobs/repo";
 
 // The bench feature's door to the database: jobs as the tablet sees them (header with status and
 // lock, customer and engine names) with their open flag counts, and their flags. Plain objects out.
 
-type JobWithNames = JobRow & { customer?: { name: string }; engine?: EngineRow };
+type JobWithNames = JobRow & { customer?: { name: string }; engine?: Pick<EngineRow, "description"> };
+/** A job the tablet may pick, with the flags on it not closed yet. */
+export type BenchJobRow = JobWithNames & { openFlags: number };
 
 export function toHeader(j: JobRow): BenchJobHeader {
   const lockReason = jobLockReason(j);
@@ -31,30 +35,41 @@ export function toHeader(j: JobRow): BenchJobHeader {
 
 export const namesOf = (j: JobWithNames) => ({ customer: j.customer?.name ?? "", engine: j.engine?.description ?? "" });
 
-// The job list and a pack show only these of the customer and the engine.
-const include = () => [
-  { model: models().Customer, as: "customer", attributes: ["name"] },
-  { model: models().Engine, as: "engine", attributes: ["description"] },
-];
-const plainJob = (j: { get(o: { plain: true }): object }) => j.get({ plain: true }) as JobWithNames;
+// The job list and a pack show only these of the customer and the engine. Read through the driver
+// (sql-read.ts): building model instances cost more than the query (bench:scale).
+let jobColumns: ModelColumns<JobRow> | null = null;
+function namedJobs(where: string, extra = "") {
+  jobColumns ??= modelColumns<JobRow>(models().Job.getAttributes(), "j");
+  const columns = jobColumns;
+  return {
+    sql: `SELECT ${columns.list}, c.name AS customerName, e.description AS engineDescription${extra}
+      FROM jobs j JOIN customers c ON c.id = j.customer_id JOIN engines e ON e.id = j.engine_id WHERE ${where}`,
+    read: (r: Record<string, unknown>): JobWithNames => ({
+      ...columns.read(r),
+      customer: { name: String(r.customerName) },
+      engine: { description: String(r.engineDescription) },
+    }),
+  };
+}
 
-/** Jobs that take readings (jobLock: an open status, no lock), soonest due first, with the engine row. */
-export async function openBenchJobs(shopId: number): Promise<JobWithNames[]> {
+/**
+ * Jobs that take readings (jobLock: an open status, no lock), soonest due first, each with its flags
+ * not closed counted in the same statement.
+ */
+export async function openBenchJobs(shopId: number): Promise<BenchJobRow[]> {
   // The query narrows by jobLock's clauses; the filter keeps jobLock the one judge.
-  const jobs = await models().Job.findAll({
-    where: { shopId, status: { [Op.in]: [...OPEN_JOB_STATUSES] }, lockedAt: null },
-    include: include(),
-    order: [
-      ["dueDate", "ASC"],
-      ["id", "ASC"],
-    ],
-  });
-  return jobs.map(plainJob).filter((j) => !isJobLocked(j));
+  const { sql, read } = namedJobs(
+    "j.shop_id = ? AND j.status IN (?) AND j.locked_at IS NULL ORDER BY j.due_date, j.id",
+    ", (SELECT COUNT(*) FROM flags f WHERE f.job_id = j.id AND f.state <> 'closed') AS openFlags",
+  );
+  const rows = await readRows(sql, [shopId, [...OPEN_JOB_STATUSES]]);
+  return rows.map((r) => ({ ...read(r), openFlags: Number(r.openFlags) })).filter((j) => !isJobLocked(j));
 }
 
 export async function jobWithNames(shopId: number, jobId: number): Promise<JobWithNames | null> {
-  const job = await models().Job.findOne({ where: { id: jobId, shopId }, include: include() });
-  return job ? plainJob(job) : null;
+  const { sql, read } = namedJobs("j.id = ? AND j.shop_id = ?");
+  const [row] = await readRows(sql, [jobId, shopId]);
+  return row ? read(row) : null;
 }
 
 /** Headers of the shop's jobs among `ids` (other shops' ids are simply absent). */
@@ -62,18 +77,6 @@ export async function jobHeaders(shopId: number, ids: number[]): Promise<BenchJo
   if (ids.length === 0) return [];
   const rows = await models().Job.findAll({ where: { shopId, id: { [Op.in]: ids } }, order: [["id", "ASC"]] });
   return rows.map((j) => toHeader(j.get({ plain: true })));
-}
-
-/** Per job, its flags not closed. */
-export async function openFlagCounts(jobIds: number[]): Promise<Map<number, number>> {
-  const out = new Map(jobIds.map((id) => [id, 0]));
-  if (jobIds.length === 0) return out;
-  const rows = await getSequelize().query<{ jobId: number; n: number }>(
-    "SELECT job_id AS jobId, COUNT(*) AS n FROM flags WHERE job_id IN (?) AND state <> 'closed' GROUP BY job_id",
-    { replacements: [jobIds], type: QueryTypes.SELECT },
-  );
-  for (const r of rows) out.set(Number(r.jobId), Number(r.n));
-  return out;
 }
 
 const FLAG_COLUMNS = `id, shop_id AS shopId, job_id AS jobId, reading_id AS readingId, derived_key AS derivedKey,
@@ -95,17 +98,15 @@ export async function flagsOfJobs(
     ...(opts.ids ? ["id IN (?)"] : []),
     ...(opts.unclosedOnly ? ["state <> 'closed'"] : []),
   ];
-  const rows = await getSequelize().query<FlagRow>(
+  const rows = await readRows<FlagRow>(
     `SELECT ${FLAG_COLUMNS} FROM flags WHERE ${where.join(" AND ")} ORDER BY id`,
-    { replacements: opts.ids ? [jobIds, opts.ids] : [jobIds], type: QueryTypes.SELECT },
+    opts.ids ? [jobIds, opts.ids] : [jobIds],
   );
+  // DECIMAL and BIGINT arrive as numbers; DATETIME as UTC text.
   for (const f of rows) {
-    f.jobId = Number(f.jobId);
-    f.shopId = Number(f.shopId);
-    f.value = decimalToNumber(f.value)!;
-    f.limitMin = decimalToNumber(f.limitMin);
-    f.limitMax = decimalToNumber(f.limitMax);
-    f.deviation = decimalToNumber(f.deviation);
+    f.disposedAt = utcDate(f.disposedAt);
+    f.closedAt = utcDate(f.closedAt);
+    f.createdAt = utcDate(f.createdAt) as Date;
   }
   return rows;
 }

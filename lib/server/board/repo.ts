@@ -3,6 +3,7 @@ import { QueryTypes } from "sequelize";
 import { JOB_STATUSES, OPEN_JOB_STATUSES } from "@/lib/domain";
 import type { BoardQuery } from "@/lib/schemas/job-board";
 import { getSequelize } from "@/lib/server/core/db";
+import { readRows } from "@/lib/server/core/sql-read";
 
 // The board feature's door to the database: a page of the shop's jobs filtered and sorted in SQL,
 // and the kept progress counts (table job_progress, see its migration) with their freshness.
@@ -155,7 +156,7 @@ export type KeptProgress = { jobId: number; required: number | null; done: numbe
 /** The kept counts of these jobs of the shop and whether each is fresh (a job never counted: absent). */
 export async function keptProgress(shopId: number, jobIds: number[]): Promise<KeptProgress[]> {
   if (!jobIds.length) return [];
-  const rows = await select<KeptProgress>(
+  const rows = await readRows<KeptProgress>(
     `SELECT j.id AS jobId, p.required_stations AS required, p.required_done AS done, COALESCE(${FRESH}, 0) AS fresh
      FROM jobs j JOIN job_progress p ON p.job_id = j.id WHERE j.shop_id = ? AND j.id IN (?)`,
     [shopId, jobIds],

@@ -171,12 +171,19 @@ export async function jobsWithEngines(shopId: number, ids: number[]): Promise<{ 
   return rows.map((r) => ({ job: job.read(r), engine: engine.read(r) }));
 }
 
-/** Each job's own limits in spec order (jobs of the caller's shop only). */
+/** Each job's own limits in spec order (jobs of the caller's shop only), through the driver. */
 export async function jobSpecs(jobIds: number[]): Promise<Map<number, SpecLimit[]>> {
   const specs = new Map<number, SpecLimit[]>(jobIds.map((id) => [id, []]));
   if (!jobIds.length) return specs;
-  const limits = await models().JobLimit.findAll({ where: { jobId: { [Op.in]: jobIds } }, order: LIMIT_ORDER });
-  for (const l of limits) specs.get(l.jobId)!.push(toSpecLimit(l));
+  const { limit } = jobEngineColumns();
+  const rows = await readRows(
+    `SELECT ${limit.list} FROM job_limits l WHERE l.job_id IN (?) ORDER BY l.sort_order, l.id`,
+    [jobIds],
+  );
+  for (const row of rows) {
+    const l = limit.read(row);
+    specs.get(l.jobId)!.push(toSpecLimit(l));
+  }
   return specs;
 }
 

@@ -4,6 +4,7 @@ import type { SyncEntity } from "@/lib/schemas/enums";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { insertMany, insertSql } from "@/lib/server/core/sql-insert";
 import { settleAll, sqlRows, sqlWrite } from "@/lib/server/core/sql-driver";
+import { readRows } from "@/lib/server/core/sql-read";
 
 // The change feed's one door to the database (sync_changes): one row per changed reading, flag,
 // job limit set or job, written in the transaction of the change, and read back by the feed
@@ -114,10 +115,10 @@ export async function currentCursor(shopId: number): Promise<string> {
  */
 export async function changesSince(shopId: number, jobIds: number[], since: string): Promise<ChangeRow[]> {
   if (jobIds.length === 0) return [];
-  return getSequelize().query<ChangeRow>(
+  return readRows<ChangeRow>(
     `SELECT seq, job_id AS jobId, entity, entity_id AS entityId
        FROM sync_changes FORCE INDEX (sync_changes_job_seq)
       WHERE job_id IN (?) AND shop_id = ? AND seq > ? ORDER BY seq LIMIT ${CHANGE_PAGE}`,
-    { replacements: [jobIds, shopId, since], type: QueryTypes.SELECT },
+    [jobIds, shopId, since],
   );
 }
