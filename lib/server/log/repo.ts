@@ -1,7 +1,7 @@
 import "server-only";
-import { QueryTypes, type Transaction } from "sequelize";
+import type { Transaction } from "sequelize";
 import type { AuditQuery } from "@/lib/schemas/audit";
-import { getSequelize, models } from "@/lib/server/core/db";
+import { models } from "@/lib/server/core/db";
 import { insertMany } from "@/lib/server/core/sql-insert";
 import { settleAll } from "@/lib/server/core/sql-driver";
 import { withReads } from "@/lib/server/core/sql-read";
@@ -143,21 +143,21 @@ export async function auditRows(
   return { total: Math.min(n, cap), more: n > cap, rows };
 }
 
-/** The values the audit filters can take in this shop. */
+/** The values the audit filters can take in this shop (read together on one connection). */
 export async function auditFacetRows(shopId: number) {
-  const { Job, User } = models();
-  const sequelize = getSequelize();
   const distinct = (col: "action" | "entity_type") =>
-    sequelize.query<{ v: string }>(`SELECT DISTINCT ${col} AS v FROM audit_events WHERE shop_id = :shop ORDER BY v`, {
-      type: QueryTypes.SELECT,
-      replacements: { shop: shopId },
-    });
-  const [actions, entities, users, jobs] = await Promise.all([
-    distinct("action"),
-    distinct("entity_type"),
-    User.findAll({ where: { shopId }, attributes: ["id", "name"], order: [["name", "ASC"]] }),
-    Job.findAll({ where: { shopId }, attributes: ["id", "code", "title"], order: [["code", "ASC"]] }),
-  ]);
+    `SELECT DISTINCT ${col} AS v FROM audit_events WHERE shop_id = ? ORDER BY v`;
+  const [actions, entities, users, jobs] = await withReads((read) =>
+    settleAll([
+      read<{ v: string }>(distinct("action"), [shopId]),
+      read<{ v: string }>(distinct("entity_type"), [shopId]),
+      read<{ id: number; name: string }>("SELECT id, name FROM users WHERE shop_id = ? ORDER BY name", [shopId]),
+      read<{ id: number; code: string; title: string }>(
+        "SELECT id, code, title FROM jobs WHERE shop_id = ? ORDER BY code",
+        [shopId],
+      ),
+    ]),
+  );
   return {
     actions: actions.map((a) => a.v),
     entities: entities.map((e) => e.v),
