@@ -139,10 +139,20 @@ export const joinNotes = (...notes: (string | undefined)[]): string | undefined 
  * cylinder's bore (per inch of diameter), taken as the mean of that bore's readings.
  */
 export function limitInputs(stationId: string): string[] {
-  const station = parseStationId(stationId);
-  if (station.characteristic !== "ring_end_gap") return [];
-  return BORE_DEPTHS.flatMap((d) => AXES.map((a) => `bore/${station.cylinder}/${d}/${a}`));
+  let inputs = limitInputsOf.get(stationId);
+  if (!inputs) {
+    const station = parseStationId(stationId);
+    inputs =
+      station.characteristic === "ring_end_gap"
+        ? BORE_DEPTHS.flatMap((d) => AXES.map((a) => `bore/${station.cylinder}/${d}/${a}`))
+        : [];
+    if (limitInputsOf.size > 5000) limitInputsOf.clear();
+    limitInputsOf.set(stationId, inputs);
+  }
+  return [...inputs];
 }
+// Asked once per reading checked (the maps judge every figure): parsed once per station id.
+const limitInputsOf = new Map<string, readonly string[]>();
 
 /** The prepared value in the engine's length unit (kept on the reading: several values read it). */
 export function valueInEngineUnit(p: Prepared, engine: EngineShape): number {

@@ -9,11 +9,14 @@ import {
   requiredStationIds,
 } from "@/lib/domain";
 import type { JobDetail, SectionSummary, VerdictCounts } from "@/lib/schemas/job";
+import { settleAll } from "@/lib/server/core/sql-driver";
+import { withReads } from "@/lib/server/core/sql-read";
 import type { JobContext } from "@/lib/server/jobs/context";
-import { loadJobReadings, type JobReadings } from "@/lib/server/jobs/readings";
-import { activeRelease } from "@/lib/server/release/repo";
+import { jobReadingsFrom, type JobReadings } from "@/lib/server/jobs/readings";
+import { hasStandingReleaseOn } from "@/lib/server/release/repo";
 import { parseStoredPlan } from "@/lib/server/jobs/plan";
-import { findCustomer, flagCountsByJob, loadJobContext, templateName } from "@/lib/server/jobs/repo";
+import { jobContextOn, jobHeaderOn } from "@/lib/server/jobs/repo";
+import { jobReadingsOn } from "@/lib/server/readings/repo";
 
 // One job for its desk page: header fields, the engine as entered, and a readings summary per
 // bench section (required stations done by lib/domain's progress rule, as the bench, the board
@@ -58,16 +61,20 @@ function summarise(ctx: JobContext, readings: JobReadings) {
   }
 }
 
+// Every statement of the page goes out at once on one connection, read straight through the driver
+// (sql-read.ts): one round trip, and no model instances for a job's hundreds of readings.
 export async function getJobDetail(shopId: number, jobId: number): Promise<JobDetail> {
-  const ctx = await loadJobContext(shopId, jobId);
+  const [ctx, header, stored, standing] = await withReads((read) =>
+    settleAll([
+      jobContextOn(read, shopId, jobId),
+      jobHeaderOn(read, shopId, jobId),
+      jobReadingsOn(read, shopId, jobId),
+      hasStandingReleaseOn(read, jobId),
+    ]),
+  );
   const { job, engine } = ctx;
-  const [customer, template, readings, flags, standing] = await Promise.all([
-    findCustomer(job.customerId),
-    templateName(job.templateId),
-    loadJobReadings(shopId, jobId, { takers: false }),
-    flagCountsByJob(shopId, [jobId]),
-    activeRelease(jobId),
-  ]);
+  const { customer, templateName: template, flags } = header;
+  const readings = jobReadingsFrom(stored.readings, stored.instruments);
   return {
     job: {
       id: job.id,
@@ -121,7 +128,7 @@ export async function getJobDetail(shopId: number, jobId: number): Promise<JobDe
       headSerials: engine.headSerials ?? null,
       fuel: engine.fuel ?? null,
     },
-    flags: flags.get(jobId)!,
+    flags,
     summary: summarise(ctx, readings),
   };
 }

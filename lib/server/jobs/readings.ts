@@ -54,18 +54,23 @@ export type JobReadings = {
   takers: Map<number, string>;
 };
 
-/** `takers: false` when the caller shows no names (the job page): the shop's people are not read. */
-export async function loadJobReadings(shopId: number, jobId: number, { takers = true } = {}): Promise<JobReadings> {
-  const all = await jobReadings(undefined, jobId);
+/** A job's readings and gauges as JobReadings (current figures and the core's raw shape); no takers. */
+export function jobReadingsFrom(all: StoredReading[], instruments: Map<number, InstrumentInfo>): JobReadings {
   const current = currentValues(all);
+  const raws = current.map((r) => toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined));
+  return { all, current, raws, instruments, takers: new Map() };
+}
+
+/** With the shop's people, to name who took each reading. */
+export async function loadJobReadings(shopId: number, jobId: number): Promise<JobReadings> {
+  const all = await jobReadings(undefined, jobId);
   const [instruments, users] = await Promise.all([
     findInstruments(
       undefined,
       shopId,
       all.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
     ),
-    takers ? listUsers(shopId) : [],
+    listUsers(shopId),
   ]);
-  const raws = current.map((r) => toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined));
-  return { all, current, raws, instruments, takers: new Map(users.map((u) => [u.id, u.name])) };
+  return { ...jobReadingsFrom(all, instruments), takers: new Map(users.map((u) => [u.id, u.name])) };
 }

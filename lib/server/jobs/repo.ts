@@ -92,7 +92,7 @@ export async function getEngineOrThrow(engineId: number, t?: Transaction): Promi
  * pipelined behind whatever the caller issued before (a job lock).
  */
 export async function loadJobContext(shopId: number, jobId: number, t?: Transaction): Promise<JobContext> {
-  if (t) return jobContextVia((sql, values) => sqlRows(t, sql, values), shopId, jobId);
+  if (t) return jobContextOn((sql, values) => sqlRows(t, sql, values), shopId, jobId);
   const { Engine, Job, JobLimit } = models();
   // All three at once; the engine is found through this shop's job, so nothing of another shop is
   // read. (Op.eq is needed: a bare literal as a where value becomes the whole condition.)
@@ -132,11 +132,12 @@ function jobEngineColumns(): Columns {
  * without building model instances; the two statements are pipelined on one connection.
  */
 export async function readJobContext(shopId: number, jobId: number): Promise<JobContext> {
-  return withReads((read) => jobContextVia(read, shopId, jobId));
+  return withReads((read) => jobContextOn(read, shopId, jobId));
 }
 
-/** The job context's two statements, issued together through `read`. */
-async function jobContextVia(read: Read, shopId: number, jobId: number): Promise<JobContext> {
+/** The job context's two statements issued together through `read` (sql-read.ts or a transaction's
+ * connection), beside the caller's other reads. */
+export async function jobContextOn(read: Read, shopId: number, jobId: number): Promise<JobContext> {
   const { job, engine, limit } = jobEngineColumns();
   const [rows, limits] = await settleAll([
     read(
@@ -153,6 +154,38 @@ async function jobContextVia(read: Read, shopId: number, jobId: number): Promise
     engine: engineRow,
     shape: toEngineShape(engineRow, jobRow),
     spec: limits.map((l) => toSpecLimit(limit.read(l))),
+  };
+}
+
+/** The job page's header beside its context: customer, template name and flag counts, on `read`'s connection. */
+export async function jobHeaderOn(
+  read: Read,
+  shopId: number,
+  jobId: number,
+): Promise<{
+  customer: Pick<CustomerRow, "name" | "email" | "phone"> | null;
+  templateName: string | null;
+  flags: FlagCounts;
+}> {
+  const [parties, counts] = await settleAll([
+    read<{ name: string | null; email: string | null; phone: string | null; templateName: string | null }>(
+      `SELECT c.name, c.email, c.phone, t.name AS templateName FROM jobs j
+        LEFT JOIN customers c ON c.id = j.customer_id LEFT JOIN spec_templates t ON t.id = j.template_id
+        WHERE j.id = ? AND j.shop_id = ?`,
+      [jobId, shopId],
+    ),
+    read<{ state: FlagState; n: number }>(
+      "SELECT state, COUNT(*) AS n FROM flags WHERE shop_id = ? AND job_id = ? GROUP BY state",
+      [shopId, jobId],
+    ),
+  ]);
+  const flags: FlagCounts = { open: 0, disposed: 0, closed: 0 };
+  for (const r of counts) if (r.state in flags) flags[r.state] = Number(r.n);
+  const p = parties[0];
+  return {
+    customer: p && p.name !== null ? { name: p.name, email: p.email, phone: p.phone } : null,
+    templateName: p?.templateName ?? null,
+    flags,
   };
 }
 

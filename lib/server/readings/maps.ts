@@ -22,8 +22,10 @@ import {
 } from "@/lib/domain";
 import type { Figure, JobMaps, MapPoint, Profile } from "@/lib/schemas/readings";
 import { toRaw } from "@/lib/server/sync/ingest-evaluate";
-import { loadJobContext } from "@/lib/server/jobs/repo";
-import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
+import { settleAll } from "@/lib/server/core/sql-driver";
+import { withReads } from "@/lib/server/core/sql-read";
+import { jobContextOn } from "@/lib/server/jobs/repo";
+import { jobReadingsOn } from "@/lib/server/readings/repo";
 
 // Bore, journal and deck maps of a job: every current figure judged by the core (evaluateReading,
 // 20 °C correction and the gauge's U included), taper and out-of-round from deriveReadings, all
@@ -110,14 +112,11 @@ function profiles(
 }
 
 export async function jobMaps(shopId: number, jobId: number): Promise<JobMaps> {
-  const ctx = await loadJobContext(shopId, jobId);
-  const all = await jobReadings(undefined, jobId);
-  const current = currentValues(all);
-  const instruments = await findInstruments(
-    undefined,
-    shopId,
-    current.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
+  // The context, the readings and their gauges at once on one connection (one round trip).
+  const [ctx, { readings: all, instruments }] = await withReads((read) =>
+    settleAll([jobContextOn(read, shopId, jobId), jobReadingsOn(read, shopId, jobId)]),
   );
+  const current = currentValues(all);
   const raws = new Map(
     current.map((r) => [r.stationId, toRaw(r, r.instrumentId ? instruments.get(r.instrumentId) : undefined)]),
   );

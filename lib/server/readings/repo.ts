@@ -4,8 +4,8 @@ import { decimalToNumber } from "@/models";
 import { correctedBy } from "@/lib/domain";
 import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
 import { causalRows } from "@/lib/server/core/cluster";
-import { sqlRows, sqlWrite, utcDate, utcText } from "@/lib/server/core/sql-driver";
-import { readRows } from "@/lib/server/core/sql-read";
+import { settleAll, sqlRows, sqlWrite, utcDate, utcText } from "@/lib/server/core/sql-driver";
+import { readRows, type Read } from "@/lib/server/core/sql-read";
 import { insertMany } from "@/lib/server/core/sql-insert";
 import { orNull, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { latestStudySql, studyFromSql } from "@/lib/server/gauge-studies/summary-sql";
@@ -153,6 +153,26 @@ function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
     active: !!row.gActive,
     study: studyFromSql(row.gStudy),
   };
+}
+
+/**
+ * jobReadings and the shop's gauges they name, issued at once on `read`'s connection (sql-read.ts)
+ * beside the caller's other reads: the office's job page and maps, one round trip in all.
+ */
+export async function jobReadingsOn(
+  read: Read,
+  shopId: number,
+  jobId: number,
+): Promise<{ readings: StoredReading[]; instruments: Map<number, InstrumentInfo> }> {
+  const [rows, gauges] = await settleAll([
+    read(`SELECT ${COLUMNS} FROM readings WHERE job_id = ? ${ORDER}`, [jobId]),
+    read(
+      `SELECT ${GAUGE_COLUMNS} FROM instruments g
+        WHERE g.shop_id = ? AND g.id IN (SELECT r.instrument_id FROM readings r WHERE r.job_id = ?)`,
+      [shopId, jobId],
+    ),
+  ]);
+  return { readings: rows.map(fromRow), instruments: new Map(gauges.map((row) => [Number(row.gId), gaugeOf(row)])) };
 }
 
 /**

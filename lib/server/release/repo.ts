@@ -6,6 +6,7 @@ import type { JsonValue } from "@/lib/schemas/json";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
+import type { Read } from "@/lib/server/core/sql-read";
 import { latestSummaries } from "@/lib/server/gauge-studies/repo";
 import { toEngineShape, toSpecLimit } from "@/lib/server/jobs/context";
 
@@ -115,6 +116,11 @@ export async function activeRelease(jobId: number, t?: Transaction): Promise<Rel
   const { Release } = models();
   const row = await Release.findOne({ where: { jobId, voidedAt: null }, order: [["id", "DESC"]], transaction: t });
   return row ? (row.get({ plain: true }) as ReleaseRow) : null;
+}
+
+/** Whether a release of the job stands (activeRelease's question), on `read`'s connection beside other reads. */
+export async function hasStandingReleaseOn(read: Read, jobId: number): Promise<boolean> {
+  return (await read("SELECT id FROM releases WHERE job_id = ? AND voided_at IS NULL LIMIT 1", [jobId])).length > 0;
 }
 
 export async function findReleaseByHash(hash: string): Promise<(ReleaseRow & { jobCode: string }) | null> {
