@@ -1,7 +1,7 @@
 import "server-only";
-import { Op, col, fn, literal, type InferAttributes, type Transaction } from "sequelize";
+import { Op, literal, type InferAttributes, type Transaction } from "sequelize";
 import type { JobStatus, SpecLimit } from "@/lib/domain";
-import { FLAG_STATES, type FlagState } from "@/lib/schemas/enums";
+import type { FlagState } from "@/lib/schemas/enums";
 import type { JobSummary } from "@/lib/schemas/job";
 import type { JsonObject } from "@/lib/schemas/json";
 import type { StoredReading } from "@/lib/schemas/readings";
@@ -240,24 +240,6 @@ export async function saveJobBuildPlan(t: Transaction, jobId: number, plan: Json
   await models().Job.update({ buildPlan: plan }, { where: { id: jobId }, transaction: t });
 }
 
-/** Flags of each job by state (jobs of `shopId` only; only the `states` asked for are counted). */
-export async function flagCountsByJob(
-  shopId: number,
-  jobIds: number[],
-  states: readonly FlagState[] = FLAG_STATES,
-): Promise<Map<number, FlagCounts>> {
-  const out = new Map<number, FlagCounts>(jobIds.map((id) => [id, { open: 0, disposed: 0, closed: 0 }]));
-  if (!jobIds.length) return out;
-  const rows = (await models().Flag.findAll({
-    where: { shopId, jobId: { [Op.in]: jobIds }, state: { [Op.in]: [...states] } },
-    attributes: ["jobId", "state", [fn("COUNT", col("id")), "n"]],
-    group: ["jobId", "state"],
-    raw: true,
-  })) as unknown as { jobId: number; state: keyof FlagCounts; n: number | string }[];
-  for (const r of rows) out.get(r.jobId)![r.state] = Number(r.n);
-  return out;
-}
-
 /** The fields the current-reading rule needs, of every reading of these jobs (of `shopId`). */
 export async function readingChains(
   shopId: number,
@@ -269,14 +251,4 @@ export async function readingChains(
     attributes: ["id", "jobId", "stationId", "supersedes", "skipped", "takenAt", "receivedAt"],
   });
   return rows.map((r) => plain<StoredReading>(r));
-}
-
-export async function findCustomer(customerId: number): Promise<CustomerRow | null> {
-  const c = await models().Customer.findByPk(customerId);
-  return c ? plain<CustomerRow>(c) : null;
-}
-
-export async function templateName(templateId: number | null): Promise<string | null> {
-  if (!templateId) return null;
-  return (await models().SpecTemplate.findByPk(templateId, { attributes: ["id", "name"] }))?.name ?? null;
 }
