@@ -1,8 +1,8 @@
 import "server-only";
-import { QueryTypes } from "sequelize";
 import { JOB_STATUSES, OPEN_JOB_STATUSES } from "@/lib/domain";
 import type { BoardQuery } from "@/lib/schemas/job-board";
 import { getSequelize } from "@/lib/server/core/db";
+import { utcDate } from "@/lib/server/core/sql-driver";
 import { readRows } from "@/lib/server/core/sql-read";
 
 // The board feature's door to the database: a page of the shop's jobs filtered and sorted in SQL,
@@ -16,7 +16,7 @@ export type BoardRow = {
   status: (typeof JOB_STATUSES)[number];
   unitSystem: "in" | "mm";
   dueDate: string | null;
-  updatedAt: Date;
+  updatedAt: Date | string;
   customer: string;
   engine: string | null;
   required: number | null;
@@ -27,8 +27,8 @@ export type BoardRow = {
   disposedFlags: number;
 };
 
-const select = <T extends object>(sql: string, replacements: unknown[]) =>
-  getSequelize().query<T>(sql, { type: QueryTypes.SELECT, replacements });
+// Reads go through the driver (sql-read.ts): plain rows, no Sequelize query building or casting.
+const select = <T extends object>(sql: string, replacements: unknown[]) => readRows<T>(sql, replacements);
 
 const FRESH = `(p.counted_readings_revision = p.readings_revision AND p.counted_context_revision = j.context_revision)`;
 const OPEN_FLAGS = `(SELECT COUNT(*) FROM flags f WHERE f.job_id = j.id AND f.state = 'open')`;
@@ -98,6 +98,7 @@ export async function boardRows(
   return {
     rows: rows.map((r) => ({
       ...r,
+      updatedAt: utcDate(r.updatedAt)!,
       fresh: Number(r.fresh),
       openFlags: Number(r.openFlags),
       disposedFlags: Number(r.disposedFlags),

@@ -9,7 +9,7 @@ import type { Customer, Engine, Job, JobLimit } from "@/models";
 import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 import { modelColumns, type ModelColumns } from "@/lib/server/core/sql-columns";
-import { settleAll, sqlRows } from "@/lib/server/core/sql-driver";
+import { settleAll, sqlRows, utcDate } from "@/lib/server/core/sql-driver";
 import { readRows, withReads, type Read } from "@/lib/server/core/sql-read";
 import { toEngineShape, toSpecLimit, type JobContext } from "@/lib/server/jobs/context";
 
@@ -246,9 +246,19 @@ export async function readingChains(
   jobIds: number[],
 ): Promise<Pick<StoredReading, "id" | "jobId" | "stationId" | "supersedes" | "skipped" | "takenAt" | "receivedAt">[]> {
   if (!jobIds.length) return [];
-  const rows = await models().Reading.findAll({
-    where: { shopId, jobId: { [Op.in]: jobIds } },
-    attributes: ["id", "jobId", "stationId", "supersedes", "skipped", "takenAt", "receivedAt"],
-  });
-  return rows.map((r) => plain<StoredReading>(r));
+  // Through the driver: the board's first look counts every reading of a page of jobs.
+  const rows = await readRows<Record<string, unknown>>(
+    `SELECT id, job_id AS jobId, station_id AS stationId, supersedes, skipped, taken_at AS takenAt,
+       received_at AS receivedAt FROM readings WHERE shop_id = ? AND job_id IN (?)`,
+    [shopId, jobIds],
+  );
+  return rows.map((r) => ({
+    id: String(r.id),
+    jobId: Number(r.jobId),
+    stationId: String(r.stationId),
+    supersedes: (r.supersedes as string | null) ?? null,
+    skipped: Boolean(r.skipped),
+    takenAt: utcDate(r.takenAt)!,
+    receivedAt: utcDate(r.receivedAt)!,
+  }));
 }
