@@ -1,5 +1,5 @@
 import "server-only";
-import { Op, type InferAttributes, type Transaction } from "sequelize";
+import { type InferAttributes, type Transaction } from "sequelize";
 import type { Disposition } from "@/lib/schemas/enums";
 import type { FlagListQuery } from "@/lib/schemas/flag";
 import { type Flag, type FlagDisposition, type Instrument, type Job, type Reading, type User } from "@/models";
@@ -186,31 +186,4 @@ export async function recordDecision(
   };
   await Flag.update(patch, { where: { id: flag.id }, transaction: t });
   return { dispositionId: row.id, flag: { ...flag, ...patch } };
-}
-
-export type FlagDecisionRow = Pick<
-  StoredFlag,
-  "id" | "readingId" | "derivedKey" | "state" | "disposition" | "operation"
->;
-
-/**
- * Flags of a job with their latest decision, oldest first (the readings CSV's decision column): of
- * these readings, or with `readingIds` null, of the job's computed values.
- */
-export async function jobFlagDecisions(
-  shopId: number,
-  jobId: number,
-  readingIds: string[] | null,
-): Promise<FlagDecisionRow[]> {
-  if (readingIds?.length === 0) return [];
-  const rows = await models().Flag.findAll({
-    where: {
-      shopId,
-      jobId,
-      ...(readingIds ? { readingId: { [Op.in]: readingIds } } : { derivedKey: { [Op.ne]: null } }),
-    },
-    attributes: ["id", "readingId", "derivedKey", "state", "disposition", "operation"],
-    order: [["id", "ASC"]],
-  });
-  return rows.map((f) => plain<FlagDecisionRow>(f));
 }
