@@ -6,9 +6,9 @@ export function ShopArchive() {
         The shop&apos;s data
       </h2>
       <p className="mb-3 max-w-prose text-muted">
-        One zip file with every job, reading, flag and decision, release and audit event of this shop, as CSV files a
-        spreadsheet opens and JSON. It is yours to keep: it holds customers&apos; names and addresses, so store it as
-        carefully as the records themselves. The download is noted in the audit trail.
+        One zip file with every job, reading, flag and decision, release, gauge and gauge study and audit event of this
+        shop, as CSV files a spreadsheet opens and JSON. It is yours to keep: it holds customers&apos; names and
+        addresses, so store it as carefully as the records themselves. The download is noted in the audit trail.
       </p>
       <a
         className={

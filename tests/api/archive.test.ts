@@ -8,6 +8,7 @@ import { QueryTypes } from "sequelize";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET } from "@/app/api/admin/archive/route";
 import { POST as sign } from "@/app/api/release/[jobId]/route";
+import { POST as saveStudy } from "@/app/api/gauges/[gaugeId]/studies/route";
 import { getSequelize } from "@/lib/server/core/db";
 import { ARCHIVE_FILES, shopArchive } from "@/lib/server/archive/stream";
 import { AuditEvent } from "@/models";
@@ -54,6 +55,27 @@ function table(files: Record<string, Uint8Array>, name: string): Record<string, 
   return rows.map((r) => Object.fromEntries(header.map((h, i) => [h, r[i]])));
 }
 
+// 25 invented readings of a 4.0300 in ring in steps of the test bore gauge's 0.0001 in.
+const STUDY_READINGS = [0, 1, -1, 0, 1, 0, 0, -1, 1, 2, 0, -1, 0, 1, 0, -2, 0, 1, 0, -1, 1, 0, 0, 1, 0].map((k) =>
+  Number((4.03 + k * 0.0001).toFixed(4)),
+);
+
+/** A repeatability study of the shop's bore gauge, saved through its route. */
+async function studied(s: TestShop) {
+  const body = {
+    kind: "type1",
+    performedOn: "2026-11-20",
+    readings: STUDY_READINGS,
+    reference: { value: 4.03, expandedU: 0.00005, coverageK: 2 },
+    characteristics: [{ characteristic: "bore_diameter", tolerance: 0.002 }],
+  };
+  const id = String(s.instrument.id);
+  const res = await call(saveStudy as never, await asUser(s.users.lead, "POST", `/api/gauges/${id}/studies`, body), {
+    gaugeId: id,
+  });
+  expect(res.status, JSON.stringify(res.body)).toBe(201);
+}
+
 const column = (rows: Record<string, string>[], header: string) => rows.map((r) => r[header]).sort();
 
 beforeAll(async () => {
@@ -64,6 +86,8 @@ beforeAll(async () => {
   expect(sent.status).toBe(200);
   await released(a);
   await released(b);
+  await studied(a);
+  await studied(b);
   await addFlag(a, "bore/1/top/A", { disposition: "accept", dispositionReason: TRICKY, state: "disposed" });
   await addFlag(b, "bore/1/top/A", { disposition: "accept", dispositionReason: "other shop", state: "disposed" });
 }, 120_000);
@@ -107,6 +131,9 @@ describe("GET /api/admin/archive", () => {
       "SELECT d.id FROM flag_dispositions d JOIN flags f ON f.id = d.flag_id WHERE f.shop_id = ?",
     );
     await expectRows("releases.csv", "release id", "SELECT id FROM releases WHERE shop_id = ?");
+    await expectRows("gauges.csv", "gauge id", "SELECT id FROM instruments WHERE shop_id = ?");
+    const studies = await expectRows("gauge-studies.csv", "study id", "SELECT id FROM gauge_studies WHERE shop_id = ?");
+    expect(studies).toHaveLength(1);
     const audit = strFromU8(files["audit-events.jsonl"])
       .split("\n")
       .filter(Boolean)
@@ -129,6 +156,28 @@ describe("GET /api/admin/archive", () => {
     const signed = table(files, "releases.csv")[0];
     expect(signed["fingerprint (SHA-256)"]).toMatch(/^[0-9a-f]{64}$/);
     expect(signed["signed at (UTC)"]).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\.\d{3}Z$/);
+  });
+
+  it("keeps a gauge study as taken: its gauge, reference, raw readings, marks and result", async () => {
+    const { files } = await download(a.users.admin);
+    const [study] = table(files, "gauge-studies.csv");
+    expect(study).toMatchObject({
+      "gauge id": String(a.instrument.id),
+      kind: "type1",
+      "performed by": a.users.lead.name,
+      "performed on": "2026-11-20",
+      unit: "in",
+      resolution: "0.0001",
+      "reference value": "4.03",
+      "reference U": "0.00005",
+      "reference k": "2",
+      tolerance: "",
+    });
+    expect(JSON.parse(study["measurements (JSON)"])).toEqual(STUDY_READINGS);
+    expect(JSON.parse(study["pass marks (JSON)"])).toMatchObject({ minCg: 1.33 });
+    expect(JSON.parse(study["result (JSON)"])).toEqual(expect.any(Object));
+    const gauge = table(files, "gauges.csv").find((g) => g["gauge id"] === String(a.instrument.id))!;
+    expect(gauge).toMatchObject({ serial: expect.any(String), unit: "in", resolution: "0.0001", active: "yes" });
   });
 
   it("puts the download in the audit trail, naming the admin", async () => {

@@ -1,21 +1,12 @@
 import "server-only";
+import { col, userName, type ArchiveFile } from "./columns";
+import { GAUGES, GAUGE_STUDIES } from "./gauge-files";
 
 // What the shop archive holds, file by file: each file's columns (header, SQL, kind of value), the
 // tables it reads and the key its rows are ordered and paged by. docs/archive-format.md describes
 // the same files for the people who read them; a column added here is added there.
 
-export type Kind = "text" | "number" | "time" | "date" | "bool" | "json";
-export type Column = { header: string; sql: string; kind: Kind };
-export type ArchiveFile = {
-  name: string;
-  columns: Column[];
-  from: string;
-  shopColumn: string;
-  key: string[];
-};
-
-const col = (header: string, sql: string, kind: Kind = "text"): Column => ({ header, sql, kind });
-const userName = (alias: string) => `(SELECT u.name FROM users u WHERE u.id = ${alias})`;
+export type { ArchiveFile, Column, Kind } from "./columns";
 
 const PEOPLE: ArchiveFile = {
   name: "people.csv",
@@ -197,4 +188,4 @@ export const AUDIT: ArchiveFile = {
   ],
 };
 
-export const CSV_FILES: ArchiveFile[] = [PEOPLE, JOBS, READINGS, FLAGS, DECISIONS, RELEASES];
+export const CSV_FILES: ArchiveFile[] = [PEOPLE, JOBS, READINGS, FLAGS, DECISIONS, RELEASES, GAUGES, GAUGE_STUDIES];
