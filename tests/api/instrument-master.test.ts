@@ -3,7 +3,7 @@
 // tablet's study picker offers what was set. Figures are invented (a ring on the test bore gauge).
 import { beforeAll, describe, expect, it } from "vitest";
 import { DELETE, PUT } from "@/app/api/instruments/[instrumentId]/master/route";
-import { GET as GET_ONE } from "@/app/api/instruments/[instrumentId]/route";
+import { GET as GET_ONE, PATCH } from "@/app/api/instruments/[instrumentId]/route";
 import { GET as BENCH_GAUGES } from "@/app/api/bench/gauges/route";
 import { AuditEvent } from "@/models";
 import { createShop, type TestShop, type TestUser } from "../support/factories";
@@ -44,6 +44,7 @@ describe("PUT and DELETE /api/instruments/:id/master", () => {
     expect(gone.status).toBe(200);
     expect(gone.body.instrument.master).toBeNull();
 
+    expect((await remove(a.users.admin, id)).body.instrument.master).toBeNull(); // again: nothing to remove
     const trail = (await events(id)).filter((e) => e.action.startsWith("instrument.master"));
     expect(trail.map((e) => e.action)).toEqual([
       "instrument.master_set",
@@ -56,7 +57,7 @@ describe("PUT and DELETE /api/instruments/:id/master", () => {
     expect(trail.every((e) => e.userId === a.users.admin.id)).toBe(true);
   });
 
-  it("refuses a size outside the gauge's range and a U of ten steps or more, naming the field; nothing changes", async () => {
+  it("refuses a size outside the range and a U of ten steps or more, naming the field; nothing changes", async () => {
     const id = a.instrument.id; // 2–6 in, step 0.0001 in
     await put(a.users.admin, id, RING);
     const far = await put(a.users.admin, id, { ...RING, size: 7.5 });
@@ -71,6 +72,24 @@ describe("PUT and DELETE /api/instruments/:id/master", () => {
     const extra = await put(a.users.admin, id, { ...RING, unit: "mm" });
     expect(extra.status).toBe(422);
     expect((await readOne(a.users.admin, id)).body.instrument.master).toEqual(RING);
+  });
+
+  it("keeps the unit while a master is on file in it, saying what to do; without one the unit changes", async () => {
+    const id = a.gauges.mic;
+    const patch = async (body: unknown) =>
+      call(PATCH as never, await asUser(a.users.admin, "PATCH", `/api/instruments/${id}`, body), {
+        instrumentId: String(id),
+      });
+    const before = (await readOne(a.users.admin, id)).body.instrument;
+    const inMm = { unit: "mm", resolution: 0.001, expandedU: 0.002, rangeMin: 50, rangeMax: 75 };
+    expect(before.unit).toBe("in");
+    expect((await put(a.users.admin, id, { label: "Block 2.5 in", size: 2.5, expandedU: 0.00003 })).status).toBe(200);
+    const refused = await patch(inMm);
+    expect(refused.status).toBe(422);
+    expect(refused.body.error.fields.unit[0]).toMatch(/^Remove the setting master first/);
+    expect((await readOne(a.users.admin, id)).body.instrument.unit).toBe("in");
+    expect((await remove(a.users.admin, id)).status).toBe(200);
+    expect((await patch(inMm)).status).toBe(200);
   });
 
   it("is the admin's: 401 signed out, 403 for the other roles, 404 for another shop's gauge", async () => {

@@ -19,7 +19,7 @@ export function GrrGrid({ draft, design }: { draft: GrrDraft; design: GrrDesign 
     >
       <thead>
         <tr>
-          <th className="w-24 text-left font-semibold text-muted">Part</th>
+          <th className="w-36 text-left font-semibold text-muted lg:w-24">Part</th>
           {parts.map((p) => (
             <th key={p} className="font-semibold text-muted">
               {p}
@@ -30,7 +30,7 @@ export function GrrGrid({ draft, design }: { draft: GrrDraft; design: GrrDesign 
       <tbody>
         {design.appraisers.map((name, i) => (
           <tr key={name} className="border-t border-rule">
-            <th scope="row" className="truncate py-1 text-left font-semibold">
+            <th scope="row" className="truncate py-1 text-left font-semibold" title={name}>
               {name}
             </th>
             {parts.map((p) => {

@@ -12,6 +12,7 @@ import {
   type InstrumentUnit,
 } from "@/lib/schemas/instrument";
 import type { Actor } from "@/lib/schemas/session";
+import { unitWords } from "@/lib/domain";
 import { recordAudit } from "@/lib/server/log/repo";
 import { getSequelize, models } from "@/lib/server/core/db";
 import { AppError, invalid, notFound } from "@/lib/server/core/errors";
@@ -143,6 +144,14 @@ function merged(g: Instrument, patch: InstrumentPatch): InstrumentFields {
   return parsed.data;
 }
 
+/** A master's figures are in the gauge's unit, so the unit changes only once the master is off file. */
+function masterInOldUnit(unit: InstrumentUnit): AppError {
+  const words =
+    `Remove the setting master first (its figures are in ${unitWords(unit)}), ` +
+    "then change the unit and put it on file again";
+  return new AppError("invalid", words, { unit: [words] });
+}
+
 function actionFor(g: Instrument, patch: InstrumentPatch): string {
   if (patch.active === false && g.active) return "instrument.deactivated";
   if (patch.active === true && !g.active) return "instrument.reactivated";
@@ -155,6 +164,7 @@ export async function updateInstrument(actor: Actor, id: number, patch: Instrume
     sequelize.transaction(async (t) => {
       const g = await findOrThrow(actor.shopId, id, t);
       const next = merged(g, patch);
+      if (next.unit !== g.unit && masterOf(g)) throw masterInOldUnit(g.unit as InstrumentUnit);
       const before = auditView(g);
       const action = actionFor(g, patch);
       await g.update({ ...next, ...(patch.active !== undefined ? { active: patch.active } : {}) }, { transaction: t });
@@ -199,6 +209,7 @@ export async function setSettingMaster(
         );
     }
     const before = masterOf(g);
+    if (!master && !before) return reshape(g); // nothing on file to remove: no change, no audit line
     const next = {
       masterLabel: master?.label ?? null,
       masterSize: master?.size ?? null,
