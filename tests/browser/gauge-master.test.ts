@@ -2,13 +2,23 @@
 // demo's 3–4 in outside micrometer a gauge block (a figure outside its range is refused in words and
 // what was typed stays), and the machinist's repeatability run on it offers that block's size and U as
 // its reference. Invented figures.
+import AxeBuilder from "@axe-core/playwright";
 import { afterAll, describe, expect, it } from "vitest";
-import { type Browser } from "playwright-core";
+import { type Browser, type Page } from "playwright-core";
 import { demo, demoEmail, launchBrowser, newTabletPage, screenshot, signIn, signInAs } from "../support/browser";
 
 const WAIT = { timeout: 15_000 };
 const MIC = "Outside micrometer 3–4 in";
 let browser: Browser | undefined;
+
+/** Serious and critical WCAG 2.2 AA findings on screen. */
+async function axeFindings(page: Page): Promise<string[]> {
+  const tags = ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa"];
+  const result = await new AxeBuilder({ page }).withTags(tags).analyze();
+  return result.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .flatMap((v) => v.nodes.map((n) => `${v.id}: ${n.target.join(" ")} — ${n.failureSummary}`));
+}
 afterAll(async () => browser?.close());
 
 describe("a gauge's setting master", () => {
@@ -33,12 +43,14 @@ describe("a gauge's setting master", () => {
     await expect.poll(() => form.textContent(), WAIT).toMatch(/outside this gauge's range, 3–4 in/);
     expect(await form.getByLabel("Name as marked").inputValue()).toBe("Gauge block 3.5 in, KF-GB-35");
     await screenshot(admin, "gauge-master-refused-1024x768");
+    expect(await axeFindings(admin)).toEqual([]);
 
     await form.getByLabel("Size (in)").fill("3.5");
     await form.getByRole("button", { name: "Put this master on file" }).click();
     await expect.poll(() => admin.getByTestId("master-line").textContent(), WAIT).toMatch(/size 3.5 in/);
     expect(await form.getByRole("status").textContent()).toMatch(/Saved/);
     await screenshot(admin, "gauge-master-saved-1024x768");
+    expect(await axeFindings(admin)).toEqual([]);
     await admin.setViewportSize({ width: 800, height: 1280 });
     await screenshot(admin, "gauge-master-saved-800x1280");
 
