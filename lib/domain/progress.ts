@@ -10,9 +10,9 @@
 // - Done: the station's current reading (current-reading.ts) is a figure. A skip is not done: the
 //   release checklist refuses a skipped required station, so progress does not count it either.
 //   A reading the server refused (kept on the tablet to show why) is not done.
-import { benchRoute } from "./bench-route";
+import { benchRoute, checkEngineShape } from "./bench-route";
 import { currentReadings, type ChainedReading, type CurrentOptions } from "./current-reading";
-import { deriveReadings } from "./derive";
+import { recipes } from "./derive-recipes";
 import { findLimit } from "./limits";
 import type {
   BenchRoute,
@@ -49,17 +49,22 @@ export function requiredStations(
     need.set(id, entry);
   };
   for (const s of stations) if (findLimit(spec, s.characteristic, s.id)?.required) add(s.id);
-  for (const d of derivedRecipes(shape, spec)) {
+  for (const d of derivedRecipes(shape)) {
     if (findLimit(spec, d.characteristic as CharacteristicId, d.stationId)?.required)
       for (const id of d.inputs) add(id, d.characteristic);
   }
   return stations.filter((s) => need.has(s.id)).map((s) => need.get(s.id)!);
 }
 
-/** Every derived value's recipe (no readings needed); none when the engine cannot be laid out. */
-function derivedRecipes(shape: EngineShape, spec: SpecLimit[]) {
+/**
+ * Every derived value's recipe (what it is computed from); none when the engine cannot be laid out.
+ * The recipes alone, not a derivation pass without readings: that resolved every value's limits
+ * only for them to go unused, most of the job page's CPU (scripts/bench/job-page-cpu.ts).
+ */
+function derivedRecipes(shape: EngineShape) {
   try {
-    return deriveReadings([], shape, spec);
+    checkEngineShape(shape);
+    return recipes(shape);
   } catch {
     return [];
   }

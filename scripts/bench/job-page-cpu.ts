@@ -1,0 +1,50 @@
+// CPU of the pure core behind one job page (lib/server/jobs/detail.ts summarise), no database: a
+// fully measured V8 (scripts/bench/sync-readings.ts) against the demo street spec, the same core
+// calls the page makes, timed by process.cpuUsage over many calls. `npx tsx scripts/bench/job-page-cpu.ts [calls]`
+import { loadavg } from "node:os";
+import {
+  benchRoute,
+  currentReadings,
+  deriveReadings,
+  requiredProgress,
+  requiredStationIds,
+  type RawReading,
+  type SpecLimit,
+} from "@/lib/domain";
+import { STREET_V8_INCH } from "../seed/demo-specs";
+import { benchReadings, V8 } from "./sync-readings";
+
+const spec = STREET_V8_INCH as SpecLimit[];
+const takenAt = new Date(Date.UTC(2026, 10, 30, 8)).toISOString();
+const pushed = benchReadings([1], benchRoute(V8).total, takenAt);
+const stored = pushed.map((p, i) => ({ ...p, supersedes: null, skipped: false, receivedAt: new Date(i * 1000) }));
+const raws: RawReading[] = pushed.map((p) => ({ stationId: p.stationId, value: p.value as number, unit: p.unit }));
+
+function page() {
+  const route = benchRoute(V8);
+  const current = currentReadings(stored);
+  const progress = requiredProgress(route, requiredStationIds(V8, spec, route), current);
+  const derived = deriveReadings(raws, V8, spec);
+  return progress.required + derived.length;
+}
+
+function cpuMsPerCall(label: string, fn: () => unknown, calls: number) {
+  for (let i = 0; i < 20; i++) fn();
+  const t0 = process.cpuUsage();
+  for (let i = 0; i < calls; i++) fn();
+  const t = process.cpuUsage(t0);
+  const ms = (t.user + t.system) / 1000 / calls;
+  console.log(`${label.padEnd(22)} ${ms.toFixed(3)} ms CPU per call (${calls} calls)`);
+}
+
+const calls = Number(process.argv[2] ?? 200);
+console.log(
+  `readings ${raws.length}, load average ${loadavg()
+    .map((l) => l.toFixed(2))
+    .join(" ")}`,
+);
+cpuMsPerCall("job page core", page, calls);
+cpuMsPerCall("  requiredStationIds", () => requiredStationIds(V8, spec, benchRoute(V8)), calls);
+cpuMsPerCall("  deriveReadings", () => deriveReadings(raws, V8, spec), calls);
+cpuMsPerCall("  currentReadings", () => currentReadings(stored), calls);
+cpuMsPerCall("  benchRoute", () => benchRoute(V8), calls);
