@@ -110,7 +110,28 @@ function where(shopId: number, q: AuditQuery) {
   if (q.job) add("e.job_id = ?", q.job);
   const byTime = (q.from || q.to) && !q.user && !q.action && !q.entity && !q.entityId && !q.job;
   const order = byTime ? "e.created_at DESC, e.id DESC" : "e.id DESC";
-  return { sql: `FROM audit_events e WHERE ${parts.join(" AND ")}`, values, order };
+  const cond = parts.join(" AND ");
+  return {
+    sql: `FROM audit_events e WHERE ${cond}`,
+    page: `FROM audit_events e ${pageIndex(q, !!byTime)} WHERE ${cond}`,
+    values,
+    order,
+  };
+}
+
+// The page's index is named, not left to the optimizer: for `ORDER BY id DESC LIMIT n` with a
+// filter many of the shop's events match (none, or an entity type), MariaDB chose to walk the
+// primary key backwards past every newer event of every other shop (0.4 s at 1M readings).
+const FILTER_INDEXES: [filter: "job" | "entity" | "action" | "user", index: string][] = [
+  ["job", "audit_events_shop_job"],
+  ["entity", "audit_events_shop_entity"],
+  ["action", "audit_events_shop_action"],
+  ["user", "audit_events_shop_user"],
+];
+function pageIndex(q: AuditQuery, byTime: boolean): string {
+  const filtered = FILTER_INDEXES.find(([filter]) => q[filter]);
+  const name = byTime ? "audit_events_shop_created" : (filtered?.[1] ?? "audit_events_shop_order");
+  return `FORCE INDEX (${name})`;
 }
 
 /**
@@ -121,7 +142,7 @@ export async function auditRows(
   shopId: number,
   q: AuditQuery,
 ): Promise<{ total: number; more: boolean; rows: AuditRow[] }> {
-  const { sql, values, order } = where(shopId, q);
+  const { sql, page, values, order } = where(shopId, q);
   const offset = (q.page - 1) * q.pageSize;
   const cap = offset + COUNT_AHEAD;
   const [[count], rows] = await withReads((read) =>
@@ -130,7 +151,7 @@ export async function auditRows(
       read<AuditRow>(
         `SELECT e.id, e.user_id, u.name AS user_name, e.action, e.entity_type, e.entity_id, e.before, e.after,
            ${AT} AS at, j.id AS job_id, j.code AS job_code
-         FROM (SELECT e.id ${sql} ORDER BY ${order} LIMIT ? OFFSET ?) page
+         FROM (SELECT e.id ${page} ORDER BY ${order} LIMIT ? OFFSET ?) page
            JOIN audit_events e ON e.id = page.id
            LEFT JOIN users u ON u.id = e.user_id AND u.shop_id = e.shop_id
            LEFT JOIN jobs j ON j.id = e.job_id AND j.shop_id = e.shop_id
