@@ -1,8 +1,9 @@
-// jobsWithEngines and readJobContext read jobs, engines and job limits through the driver (core/sql-columns.ts): its rows must be
+// jobsWithEngines and loadJobContext read jobs, engines and job limits through the driver (core/sql-columns.ts): its rows must be
 // the plain rows Sequelize gives for the same records, field for field, every type included.
 import { beforeAll, describe, expect, it } from "vitest";
-import { jobsWithEngines, loadJobContext, readJobContext } from "@/lib/server/jobs/repo";
-import { Engine, Job } from "@/models";
+import { toEngineShape, toSpecLimit } from "@/lib/server/jobs/context";
+import { jobsWithEngines, loadJobContext } from "@/lib/server/jobs/repo";
+import { Engine, Job, JobLimit } from "@/models";
 import { createShop, type TestShop } from "../support/factories";
 
 let s: TestShop;
@@ -48,14 +49,28 @@ describe("jobsWithEngines", () => {
   });
 });
 
-describe("readJobContext", () => {
-  it("is loadJobContext's context, limits in spec order included", async () => {
-    const ctx = await readJobContext(s.shop.id, s.job.id);
-    expect(ctx).toStrictEqual(await loadJobContext(s.shop.id, s.job.id));
+describe("loadJobContext", () => {
+  it("is the context Sequelize's rows give, limits in spec order included", async () => {
+    const ctx = await loadJobContext(s.shop.id, s.job.id);
+    const job = (await Job.findByPk(s.job.id))!.get({ plain: true });
+    const engine = (await Engine.findByPk(s.engine.id))!.get({ plain: true });
+    const limits = await JobLimit.findAll({
+      where: { jobId: s.job.id },
+      order: [
+        ["sortOrder", "ASC"],
+        ["id", "ASC"],
+      ],
+    });
+    expect(ctx).toStrictEqual({
+      job,
+      engine,
+      shape: toEngineShape(engine, job),
+      spec: limits.map(toSpecLimit),
+    });
     expect(ctx.spec.length).toBeGreaterThan(0);
   });
 
   it("answers 404 for another shop's job", async () => {
-    await expect(readJobContext(other.shop.id, s.job.id)).rejects.toMatchObject({ code: "not_found" });
+    await expect(loadJobContext(other.shop.id, s.job.id)).rejects.toMatchObject({ code: "not_found" });
   });
 });

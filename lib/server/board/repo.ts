@@ -28,7 +28,6 @@ export type BoardRow = {
 };
 
 // Reads go through the driver (sql-read.ts): plain rows, no Sequelize query building or casting.
-const select = <T extends object>(sql: string, replacements: unknown[]) => readRows<T>(sql, replacements);
 
 const FRESH = `(p.counted_readings_revision = p.readings_revision AND p.counted_context_revision = j.context_revision)`;
 const OPEN_FLAGS = `(SELECT COUNT(*) FROM flags f WHERE f.job_id = j.id AND f.state = 'open')`;
@@ -81,7 +80,7 @@ export async function boardRows(
   const where = whereOf(shopId, q);
   const dir = q.dir === "desc" ? "DESC" : "ASC";
   const [rows, [count]] = await Promise.all([
-    select<BoardRow>(
+    readRows<BoardRow>(
       `SELECT j.id, j.code, j.title, j.status, j.unit_system AS unitSystem, j.due_date AS dueDate,
          j.updated_at AS updatedAt, c.name AS customer, e.description AS engine,
          p.required_stations AS required, p.required_done AS done, COALESCE(${FRESH}, 0) AS fresh,
@@ -90,7 +89,7 @@ export async function boardRows(
        WHERE ${where.sql} ORDER BY ${ORDER[q.sort](dir)}, j.id ${dir} LIMIT ? OFFSET ?`,
       [...where.params, q.pageSize, (q.page - 1) * q.pageSize],
     ),
-    select<{ n: number; shopJobs: number }>(
+    readRows<{ n: number; shopJobs: number }>(
       `SELECT COUNT(*) AS n, (SELECT COUNT(*) FROM jobs WHERE shop_id = ?) AS shopJobs FROM ${FROM} WHERE ${where.sql}`,
       [shopId, ...where.params],
     ),
@@ -110,7 +109,7 @@ export async function boardRows(
 
 /** Jobs of the shop that are not closed and whose kept progress is missing or stale. */
 export async function staleProgressJobs(shopId: number, statuses: readonly string[]): Promise<number[]> {
-  const rows = await select<{ id: number }>(
+  const rows = await readRows<{ id: number }>(
     `SELECT j.id FROM jobs j LEFT JOIN job_progress p ON p.job_id = j.id
      WHERE j.shop_id = ? AND j.status IN (?) AND NOT COALESCE(${FRESH}, 0)`,
     [shopId, statuses],
@@ -123,7 +122,7 @@ export type ProgressTokens = { jobId: number; context: string; readings: string 
 /** The revision tokens of these jobs (of the shop) as they stand before counting. */
 export async function progressTokens(shopId: number, jobIds: number[]): Promise<ProgressTokens[]> {
   if (!jobIds.length) return [];
-  return select<ProgressTokens>(
+  return readRows<ProgressTokens>(
     `SELECT j.id AS jobId, CAST(j.context_revision AS CHAR) AS context,
        CAST(COALESCE(p.readings_revision, 0) AS CHAR) AS readings
      FROM jobs j LEFT JOIN job_progress p ON p.job_id = j.id WHERE j.shop_id = ? AND j.id IN (?)`,

@@ -1,5 +1,5 @@
 import "server-only";
-import { Op, literal, type InferAttributes, type Transaction } from "sequelize";
+import type { InferAttributes, Transaction } from "sequelize";
 import type { JobStatus, SpecLimit } from "@/lib/domain";
 import type { FlagState } from "@/lib/schemas/enums";
 import type { JobSummary } from "@/lib/schemas/job";
@@ -25,10 +25,6 @@ export type JobWithParties = JobRow & { customerName: string; engine: EngineRow 
 export type FlagCounts = Record<FlagState, number>;
 
 const plain = <T extends object>(row: { get(o: { plain: true }): T }): T => row.get({ plain: true });
-const LIMIT_ORDER: [string, string][] = [
-  ["sortOrder", "ASC"],
-  ["id", "ASC"],
-];
 
 async function jobsWithNames(shopId: number, statuses?: readonly JobStatus[]): Promise<JobWithParties[]> {
   const { Customer, Engine, Job } = models();
@@ -86,33 +82,14 @@ export async function getEngineOrThrow(engineId: number, t?: Transaction): Promi
 }
 
 /**
- * A job of this shop with its engine shape and its own limit snapshot; 404 for any other shop. In a
- * transaction it reads through the driver on the transaction's connection (the sync ingest loads
- * one for every job it has not seen: model instances cost more than the queries), both statements
- * pipelined behind whatever the caller issued before (a job lock).
+ * A job of this shop with its engine shape and its own limit snapshot; 404 for any other shop. Read
+ * through the driver (model instances cost more than the queries): in a transaction on its own
+ * connection (the sync ingest loads one for every job it has not seen), both statements pipelined
+ * behind whatever the caller issued before (a job lock); else on a pooled one.
  */
 export async function loadJobContext(shopId: number, jobId: number, t?: Transaction): Promise<JobContext> {
   if (t) return jobContextOn((sql, values) => sqlRows(t, sql, values), shopId, jobId);
-  const { Engine, Job, JobLimit } = models();
-  // All three at once; the engine is found through this shop's job, so nothing of another shop is
-  // read. (Op.eq is needed: a bare literal as a where value becomes the whole condition.)
-  const engineOfJob = literal(
-    `(SELECT engine_id FROM jobs WHERE id = ${Number(jobId)} AND shop_id = ${Number(shopId)})`,
-  );
-  const [job, engine, limits] = await Promise.all([
-    Job.findOne({ where: { id: jobId, shopId } }),
-    Engine.findOne({ where: { id: { [Op.eq]: engineOfJob } } }),
-    JobLimit.findAll({ where: { jobId }, order: LIMIT_ORDER }),
-  ]);
-  if (!job) throw notFound("Job");
-  if (!engine) throw notFound("Engine");
-  const engineRow = plain<EngineRow>(engine);
-  return {
-    job: plain<JobRow>(job),
-    engine: engineRow,
-    shape: toEngineShape(engineRow, job),
-    spec: limits.map(toSpecLimit),
-  };
+  return withReads((read) => jobContextOn(read, shopId, jobId));
 }
 
 // jobs and engines read through the driver (sql-read.ts) as Sequelize's plain rows would be.
@@ -125,14 +102,6 @@ function jobEngineColumns(): Columns {
     limit: modelColumns<JobLimitRow>(models().JobLimit.getAttributes(), "l"),
   };
   return columns;
-}
-
-/**
- * loadJobContext outside a transaction through the driver (the readings CSV): the same context,
- * without building model instances; the two statements are pipelined on one connection.
- */
-export async function readJobContext(shopId: number, jobId: number): Promise<JobContext> {
-  return withReads((read) => jobContextOn(read, shopId, jobId));
 }
 
 /** The job context's two statements issued together through `read` (sql-read.ts or a transaction's

@@ -1,7 +1,7 @@
 import "server-only";
 import { benchRoute, currentValues } from "@/lib/domain";
 import type { StoredReading } from "@/lib/schemas/readings";
-import { readJobContext } from "@/lib/server/jobs/repo";
+import { loadJobContext } from "@/lib/server/jobs/repo";
 import { BOM, csvLine } from "@/lib/server/readings/csv-export";
 import {
   csvHeader,
@@ -81,7 +81,7 @@ async function* historyRows(shopId: number, jobId: number, route: string[], shar
 export async function readingsCsv(shopId: number, jobId: number, opts: { history?: boolean } = {}) {
   // The job (a 404 before anything is sent), its current readings and the shop's people at once.
   const [ctx, currents, takers] = await Promise.all([
-    readJobContext(shopId, jobId),
+    loadJobContext(shopId, jobId),
     currentJobReadings(jobId),
     peopleNames(shopId),
   ]);
