@@ -1,6 +1,9 @@
 // Timing and plan checks of bench:scale: each office query's server function beside the raw SQL
 // a hand-tuned query on the same indexes runs, interleaved in the same run, and EXPLAIN of every
 // SELECT the server function issued (captured from Sequelize's log and the driver path's trace).
+import { writeFileSync } from "node:fs";
+import { Session } from "node:inspector/promises";
+import { join } from "node:path";
 import type { Connection } from "mariadb";
 import { getSequelize } from "@/lib/server/core/db";
 import { setSqlTrace } from "@/lib/server/core/sql-driver";
@@ -127,5 +130,25 @@ export async function timeCase(conn: Connection, c: Case, n: number): Promise<Ti
     raw.push(await ms(() => c.raw(conn), cpu.raw));
   }
   const perCall = { app: cpu.app.total / n, raw: cpu.raw.total / n };
+  await profileApp(c, n);
   return { name: c.name, app, raw, cold, cpu: perCall, findings: plans.app.findings, plans };
+}
+
+/**
+ * TW_SCALE_PROFILE=dir: after the timed runs, `n` more calls of the server function recorded as a
+ * CPU profile, dir/<case>.cpuprofile (DevTools; `npx tsx scripts/bench/profile-top.ts file` lists
+ * the functions that took the most). Outside the timed runs, so the figures are not disturbed.
+ */
+async function profileApp(c: Case, n: number) {
+  const dir = process.env.TW_SCALE_PROFILE;
+  if (!dir) return;
+  const session = new Session();
+  session.connect();
+  await session.post("Profiler.enable");
+  await session.post("Profiler.setSamplingInterval", { interval: 100 });
+  await session.post("Profiler.start");
+  for (let i = 0; i < n; i++) await c.app();
+  const { profile } = await session.post("Profiler.stop");
+  session.disconnect();
+  writeFileSync(join(dir, `${c.name.replace(/[^a-z0-9]+/gi, "-")}.cpuprofile`), JSON.stringify(profile));
 }
