@@ -5,7 +5,7 @@
 //
 // U of a derived value: the two largest input U (k = 2) are combined as the difference of two
 // readings (clearanceUncertainty, no shared part assumed); inputs without U count as 0.
-import { benchRoute, checkEngineShape, lengthUnitOf } from "./bench-route";
+import { benchRoute, checkEngineShape, lengthUnitOf, routeKey } from "./bench-route";
 import {
   boreMean,
   joinNotes,
@@ -27,23 +27,10 @@ import { cleanDecimal } from "./units";
 export { limitInputs } from "./derive-prepare";
 export { derivedInputs } from "./derive-recipes";
 
-// Keyed by the fields the route's station ids are made of (bench-route.ts STATION_IDS), not the
-// object, so an edited engine never meets a stale route; not its sizes and materials, which
-// made the key long enough to cost more than the lookup (bench:sync).
+// The route's station ids, kept per route key (bench-route.ts): evaluateReading asks for each reading.
 const routeCache = new Map<string, Set<string>>();
 function routeIds(engine: EngineShape): Set<string> {
-  const e = engine;
-  const key = JSON.stringify([
-    e.cylinders,
-    e.layout,
-    e.mains,
-    e.valvesPerCylinder,
-    e.boltsPerRod,
-    e.ringsPerPiston,
-    e.rodJournals,
-    e.rodJournalMap,
-    e.torqueGroups,
-  ]);
+  const key = routeKey(engine);
   let ids = routeCache.get(key);
   if (!ids) {
     if (routeCache.size > 50) routeCache.clear();
