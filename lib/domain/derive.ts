@@ -111,7 +111,10 @@ function derive(recipe: Recipe, pass: Pass): DerivedValue {
   if (missing.length) {
     const unusable = joinNotes(...missing.filter((id) => bad.has(id)).map((id) => `not usable: ${bad.get(id)}`));
     const note = joinNotes(unusable, found.note);
-    return { ...head, ...(found.limits ? { limits: found.limits } : {}), ...(note ? { note } : {}) };
+    const out: DerivedValue = head;
+    if (found.limits) out.limits = found.limits;
+    if (note) out.note = note;
+    return out;
   }
   const value = recipe.compute(values, pass.memo);
   const U = combinedU(got, engine);
@@ -121,13 +124,14 @@ function derive(recipe: Recipe, pass: Pass): DerivedValue {
     ? judge(value, unit, U, found.limits)
     : { value, unit, ...(U !== undefined ? { uncertainty: U } : {}) };
   const note = joinNotes(found.note, judged.note, ...got.map((p) => p.note));
-  return {
-    ...head,
-    ...judged,
-    unit: judged.unit as LengthUnit,
-    ...(corrections.length ? { corrections } : {}),
-    ...(note ? { note } : {}),
-  };
+  // Assigned, not spread: the same keys in the same order as {...head, ...judged, unit, corrections,
+  // note}, at a fraction of the cost (spreading objects of many shapes was a fifth of a pass).
+  const out = head as DerivedValue & Record<string, unknown>;
+  for (const k in judged) out[k] = judged[k as keyof Evaluation];
+  out.unit = judged.unit as LengthUnit;
+  if (corrections.length) out.corrections = corrections;
+  if (note) out.note = note;
+  return out;
 }
 
 export interface DeriveOptions {
