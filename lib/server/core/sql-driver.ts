@@ -39,11 +39,25 @@ function driverOf(t: Transaction): DriverConnection {
 /** A Date as the DATETIME(3) text of its UTC time. */
 export const utcText = (d: Date): string => d.toISOString().slice(0, 23).replace("T", " ");
 
-/** A DATETIME column read as text (UTC) back to a Date; null stays null. */
+const digits = (s: string, from: number, to: number) => {
+  let n = 0;
+  for (let i = from; i < to; i++) n = n * 10 + s.charCodeAt(i) - 48;
+  return n;
+};
+
+/**
+ * A DATETIME column read as text (UTC) back to a Date; null stays null. The server's own
+ * "YYYY-MM-DD hh:mm:ss.fff" is read by position (a job page reads hundreds: a third of the cost
+ * of parsing the text as a date); any other text is parsed as ISO 8601.
+ */
 export function utcDate(v: unknown): Date | null {
   if (v === null || v === undefined) return null;
   if (v instanceof Date) return v;
   const s = String(v);
+  if (s.length === 23 && s[10] === " " && s[19] === "." && s[0] !== "0") {
+    const [y, mo, d] = [digits(s, 0, 4), digits(s, 5, 7), digits(s, 8, 10)];
+    return new Date(Date.UTC(y, mo - 1, d, digits(s, 11, 13), digits(s, 14, 16), digits(s, 17, 19), digits(s, 20, 23)));
+  }
   return new Date(s.length <= 10 ? `${s}T00:00:00Z` : `${s.replace(" ", "T")}Z`);
 }
 
