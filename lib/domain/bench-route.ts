@@ -4,7 +4,6 @@
 // pistons and rings, then the assembly checks (end play, side clearance), torque, and lash.
 // Sections are grouped so the tablet can show progress per section.
 import {
-  describeStation,
   deckBanks,
   parseStationId,
   ringNames,
@@ -15,6 +14,7 @@ import {
   AXES,
   JOURNAL_POSITIONS,
 } from "./stations";
+import { describeStation } from "./station-words";
 import { usualGaugeKind } from "./gauges";
 import { EXPANSION_COEFFICIENTS } from "./thermal";
 import { ENGINE_LAYOUTS, type LengthUnit, type TorqueUnit } from "./enums";

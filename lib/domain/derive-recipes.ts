@@ -9,7 +9,8 @@
 import { checkEngineShape, rodJournalCount, rodJournalOf } from "./bench-route";
 import { boltStretch, oilClearance, pistonToWall } from "./clearances";
 import { boreGeometry, journalGeometry, type GeometryResult } from "./geometry";
-import { AXES, BORE_DEPTHS, CHARACTERISTICS, JOURNAL_POSITIONS, describeStation } from "./stations";
+import { describeStation } from "./station-words";
+import { AXES, BORE_DEPTHS, CHARACTERISTICS, JOURNAL_POSITIONS } from "./stations";
 import type { DerivedCharacteristic, EngineShape } from "./types";
 
 /** Results shared by the recipes of one pass (a bore's taper and out-of-round read one geometry). */

@@ -14,6 +14,7 @@ export * from "./verdict";
 export * from "./limits";
 export * from "./job-sizes";
 export * from "./stations";
+export * from "./station-words";
 export * from "./bench-route";
 export * from "./derive";
 export * from "./dial-gauge";

@@ -2,7 +2,8 @@
 // release checklist, the build record, the CSV export and the mails all take them from here, so a
 // figure reads the same on every screen and on paper.
 import type { LengthUnit, MeasureUnit, Verdict } from "./enums";
-import { CHARACTERISTICS, describeStation } from "./stations";
+import { describeStation } from "./station-words";
+import { CHARACTERISTICS } from "./stations";
 
 /** A unit as written after a figure. */
 export const UNIT_WORDS: Readonly<Record<MeasureUnit, string>> = { in: "in", mm: "mm", lbf_ft: "lbf·ft", nm: "N·m" };

@@ -8,7 +8,8 @@ import {
   rodJournalCount,
   rodJournalOf,
 } from "../../../lib/domain/bench-route";
-import { describeStation, parseStationId } from "../../../lib/domain/stations";
+import { describeStation } from "../../../lib/domain/station-words";
+import { parseStationId } from "../../../lib/domain/stations";
 import type { EngineShape } from "../../../lib/domain/types";
 
 const v8: EngineShape = { cylinders: 8, layout: "v", mains: 5, valvesPerCylinder: 2, unitSystem: "inch" };

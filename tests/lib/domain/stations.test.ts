@@ -6,11 +6,11 @@ import {
   CHARACTERISTICS,
   JOURNAL_POSITIONS,
   SECTION_LABELS,
-  describeStation,
   parseStationId,
   ringNames,
   valveNames,
 } from "../../../lib/domain/stations";
+import { describeStation } from "../../../lib/domain/station-words";
 
 describe("parseStationId follows the grammar", () => {
   it.each([

@@ -11,13 +11,8 @@ import { boltStretch, oilClearance, pistonToWall } from "../../../../lib/domain/
 import { boreGeometry, journalGeometry } from "../../../../lib/domain/geometry";
 import { limitContextFor } from "../../../../lib/domain/job-sizes";
 import { judge, limitsFor } from "../../../../lib/domain/limits";
-import {
-  AXES,
-  BORE_DEPTHS,
-  CHARACTERISTICS,
-  JOURNAL_POSITIONS,
-  describeStation,
-} from "../../../../lib/domain/stations";
+import { AXES, BORE_DEPTHS, CHARACTERISTICS, JOURNAL_POSITIONS } from "../../../../lib/domain/stations";
+import { describeStation } from "../../../../lib/domain/station-words";
 import type { LengthUnit } from "../../../../lib/domain/enums";
 import type {
   DerivedCharacteristic,
