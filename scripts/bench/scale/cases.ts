@@ -132,6 +132,8 @@ export function cases(s: Subject): Case[] {
   const auditJob = auditQuerySchema.parse({ job: String(s.jobId) });
   const [from, to] = s.auditDays;
   const auditDays = auditQuerySchema.parse({ from, to });
+  // A date range with another filter walks the filter's index and checks each event's date.
+  const auditFlagDays = auditQuerySchema.parse({ entity: "flag", from, to });
   const active = "'intake', 'measuring', 'review', 'released'";
   return [
     ...flagCases(s),
@@ -212,6 +214,15 @@ export function cases(s: Subject): Case[] {
         "e.shop_id = ? AND e.created_at >= ? AND e.created_at < DATE_ADD(?, INTERVAL 1 DAY)",
         [s.shopId, `${from} 00:00:00.000`, to],
         "e.created_at DESC, e.id DESC",
+      ),
+    },
+    {
+      name: "audit trail: flag events in the date range",
+      app: () => queryAudit(s.shopId, auditFlagDays),
+      raw: rawAuditPage(
+        "audit_events_shop_entity",
+        "e.shop_id = ? AND e.entity_type = 'flag' AND e.created_at >= ? AND e.created_at < DATE_ADD(?, INTERVAL 1 DAY)",
+        [s.shopId, `${from} 00:00:00.000`, to],
       ),
     },
     {
