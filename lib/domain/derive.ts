@@ -29,7 +29,7 @@ export { derivedInputs } from "./derive-recipes";
 
 // The route's station ids, kept per route key (bench-route.ts): evaluateReading asks for each reading.
 const routeCache = new Map<string, Set<string>>();
-function routeIds(engine: EngineShape): Set<string> {
+export function routeIds(engine: EngineShape): Set<string> {
   const key = routeKey(engine);
   let ids = routeCache.get(key);
   if (!ids) {

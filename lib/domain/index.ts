@@ -17,6 +17,7 @@ export * from "./stations";
 export * from "./station-words";
 export * from "./bench-route";
 export * from "./derive";
+export * from "./evaluate-many";
 export * from "./dial-gauge";
 export * from "./stored-figures";
 export * from "./plausible-range";

@@ -227,7 +227,16 @@ export function limitsFor(
   stationId: string,
   context: LimitContext = {},
 ): { limits?: ResolvedLimit; note?: string } {
-  const limit = findLimit(spec, characteristic, stationId);
+  return limitOrNote(findLimit(spec, characteristic, stationId), characteristic, stationId, context);
+}
+
+/** limitsFor once the limit is found: with one, the same for every station it covers in one context. */
+export function limitOrNote(
+  limit: SpecLimit | undefined,
+  characteristic: CharacteristicId,
+  stationId: string,
+  context: LimitContext = {},
+): { limits?: ResolvedLimit; note?: string } {
   if (!limit) return { note: `The spec has no limit for ${characteristic} at ${stationId}` };
   try {
     return { limits: resolveLimit(limit, context) };

@@ -3,11 +3,19 @@
 // calls the page makes, timed by process.cpuUsage over many calls. `npx tsx scripts/bench/job-page-cpu.ts [calls]`
 import { loadavg } from "node:os";
 import {
+  AXES,
+  BORE_DEPTHS,
+  JOURNAL_POSITIONS,
   benchRoute,
   currentReadings,
+  deckBanks,
   deriveReadings,
+  evaluateReading,
+  evaluateReadings,
   requiredProgress,
   requiredStationIds,
+  rodJournalCount,
+  type DerivedCharacteristic,
   type RawReading,
   type SpecLimit,
 } from "@/lib/domain";
@@ -26,6 +34,37 @@ function page() {
   const progress = requiredProgress(route, requiredStationIds(V8, spec, route), current);
   const derived = deriveReadings(raws, V8, spec);
   return progress.required + derived.length;
+}
+
+// The maps' core (lib/server/readings/maps.ts jobMaps): taper and out-of-round, and every bore,
+// journal and deck figure judged; the figures judged one by one (as before the batch) and at once.
+const onMaps = (id: string) => /^(bore|main|rod|deck)\//.test(id);
+const mapStations = [
+  ...(["bore", "main", "rod"] as const).flatMap((part) => {
+    const count = part === "bore" ? V8.cylinders : part === "main" ? V8.mains : rodJournalCount(V8);
+    const at = part === "bore" ? BORE_DEPTHS : JOURNAL_POSITIONS;
+    return Array.from({ length: count }, (_, i) => at.flatMap((s) => AXES.map((a) => `${part}/${i + 1}/${s}/${a}`)));
+  }),
+  ...deckBanks(V8.layout).map((bank) => [`deck/${bank}/front`, `deck/${bank}/rear`]),
+].flat();
+const profileValues = (["bore", "main_journal", "rod_journal"] as const).flatMap((p) => [
+  `${p}_taper` as DerivedCharacteristic,
+  `${p}_out_of_round` as DerivedCharacteristic,
+]);
+const byStation = new Map(raws.map((r) => [r.stationId, r]));
+function mapsCore(judge: (id: string) => unknown) {
+  const derived = deriveReadings(raws, V8, spec, { characteristics: profileValues });
+  return derived.length + mapStations.filter((id) => judge(id) !== undefined).length;
+}
+function mapsOneByOne() {
+  return mapsCore((id) => {
+    const raw = byStation.get(id);
+    return raw && evaluateReading(raw, V8, spec, raws);
+  });
+}
+function mapsBatch() {
+  const judged = evaluateReadings(raws, V8, spec, { only: onMaps });
+  return mapsCore((id) => judged.get(id));
 }
 
 function cpuMsPerCall(label: string, fn: () => unknown, calls: number) {
@@ -48,3 +87,6 @@ cpuMsPerCall("  requiredStationIds", () => requiredStationIds(V8, spec, benchRou
 cpuMsPerCall("  deriveReadings", () => deriveReadings(raws, V8, spec), calls);
 cpuMsPerCall("  currentReadings", () => currentReadings(stored), calls);
 cpuMsPerCall("  benchRoute", () => benchRoute(V8), calls);
+cpuMsPerCall("maps core, one by one", mapsOneByOne, calls);
+cpuMsPerCall("maps core, batch", mapsBatch, calls);
+cpuMsPerCall("  maps judging alone", () => evaluateReadings(raws, V8, spec, { only: onMaps }), calls);

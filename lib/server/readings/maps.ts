@@ -8,7 +8,7 @@ import {
   currentValues,
   deckBanks,
   deriveReadings,
-  evaluateReading,
+  evaluateReadings,
   lengthUnitOf,
   limitContextFor,
   limitsFor,
@@ -27,7 +27,7 @@ import { withReads } from "@/lib/server/core/sql-read";
 import { jobContextOn } from "@/lib/server/jobs/repo";
 import { jobReadingsOn } from "@/lib/server/readings/repo";
 
-// Bore, journal and deck maps of a job: every current figure judged by the core (evaluateReading,
+// Bore, journal and deck maps of a job: every current figure judged by the core (evaluateReadings,
 // 20 °C correction and the gauge's U included), taper and out-of-round from deriveReadings, all
 // expressed in the job's length unit so one chart has one scale.
 
@@ -40,6 +40,9 @@ const PROFILE_VALUES = [
   "rod_journal_taper",
   "rod_journal_out_of_round",
 ] as const;
+/** The stations the maps draw (bores, journals, decks), so the other readings are not judged for nothing. */
+const onMaps = (stationId: string) => /^(bore|main|rod|deck)\//.test(stationId);
+
 /** The limit at a station not read yet (findLimit/resolveLimit), so the chart still shows its lines. */
 function limitOnly(stationId: string, shape: EngineShape, spec: SpecLimit[]) {
   const p = parseStationId(stationId);
@@ -49,27 +52,24 @@ function limitOnly(stationId: string, shape: EngineShape, spec: SpecLimit[]) {
 }
 
 function judgeWith(raws: Map<string, RawReading>, shape: EngineShape, spec: SpecLimit[], unit: LengthUnit): Judge {
-  const all = [...raws.values()];
+  const judged = evaluateReadings([...raws.values()], shape, spec, { only: onMaps });
   const inUnit = (x: number | undefined, from: string) =>
     x === undefined ? null : from === unit ? x : cleanDecimal(convertLength(x, from as LengthUnit, unit));
   return (stationId) => {
-    const raw = raws.get(stationId);
-    if (!raw) {
+    const e = judged.get(stationId);
+    if (e === undefined) {
       const l = limitOnly(stationId, shape, spec);
       return { value: null, min: inUnit(l?.min, l?.unit ?? unit), max: inUnit(l?.max, l?.unit ?? unit), verdict: null };
     }
-    try {
-      const e = evaluateReading(raw, shape, spec, all);
-      const from = e.limits?.unit ?? e.unit;
-      return {
-        value: inUnit(e.value, from),
-        min: inUnit(e.limits?.min, from),
-        max: inUnit(e.limits?.max, from),
-        verdict: e.verdict ?? null,
-      };
-    } catch {
-      return { value: null, min: null, max: null, verdict: null }; // not a figure the core can use: a gap on the map
-    }
+    // Not a figure the core can use (its words in e): a gap on the map.
+    if (typeof e === "string") return { value: null, min: null, max: null, verdict: null };
+    const from = e.limits?.unit ?? e.unit;
+    return {
+      value: inUnit(e.value, from),
+      min: inUnit(e.limits?.min, from),
+      max: inUnit(e.limits?.max, from),
+      verdict: e.verdict ?? null,
+    };
   };
 }
 
