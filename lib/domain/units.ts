@@ -4,6 +4,7 @@
 import Decimal from "decimal.js-light";
 // The unit names live once, in enums.ts.
 import { LENGTH_UNITS, TORQUE_UNITS, type LengthUnit, type MeasureUnit, type TorqueUnit } from "./enums";
+import { divideHalfUp, placesFor, placesForAll, POW10, scaledFigure } from "./scaled-figures";
 import type { QuantityKind } from "./types";
 
 /** Millimetres in one inch (exact, international inch of 1959). */
@@ -38,6 +39,10 @@ function requireFinite(value: number, name: string): void {
  */
 export function cleanDecimal(x: number): number {
   if (!Number.isFinite(x)) return x;
+  // Fast and the same: a short decimal's scaled integer over 10^k (scaled-figures.ts says why).
+  const k = placesFor(Math.abs(x));
+  const r = k < 0 ? NaN : scaledFigure(x, k);
+  if (!Number.isNaN(r)) return r / POW10[k];
   const rounded = Number(x.toPrecision(12));
   return rounded === 0 ? 0 : rounded; // never hand back -0
 }
@@ -62,8 +67,24 @@ export function roundToResolution(x: number, unit: MeasureUnit): number {
   const step = DISPLAY_RESOLUTION[unit];
   if (!step) throw new Error(`Unknown unit '${String(unit)}'; use ${Object.keys(DISPLAY_RESOLUTION).join(", ")}`);
   const places = step.includes(".") ? step.split(".")[1].length : 0;
+  const quick = quickRound(x, places);
+  if (!Number.isNaN(quick)) return quick;
   const rounded = toDecimal(x, "Figure").toDecimalPlaces(places, Decimal.ROUND_HALF_UP).toNumber();
   return rounded === 0 ? 0 : rounded;
+}
+
+/**
+ * roundToResolution by integers, or NaN for the decimal path: the figure's scaled integer r (12
+ * significant digits, as cleanDecimal takes it) divided by 10^(k − places), a half away from zero.
+ */
+function quickRound(x: number, places: number): number {
+  if (!Number.isFinite(x)) return NaN;
+  const k = placesFor(Math.abs(x));
+  if (k < places) return NaN;
+  const r = scaledFigure(x, k);
+  if (Number.isNaN(r)) return NaN;
+  const steps = divideHalfUp(Math.abs(r), POW10[k - places]);
+  return steps === 0 ? 0 : (r < 0 ? -steps : steps) / POW10[places];
 }
 
 function toDecimal(x: number, name: string): Decimal {
@@ -78,11 +99,23 @@ function toDecimal(x: number, name: string): Decimal {
  * that sits on a limit stays on it (the issue's "numbers must be right at the limit").
  */
 export function decimalDifference(a: number, b: number): number {
+  if (Number.isFinite(a) && Number.isFinite(b)) {
+    const k = placesForAll(a, b);
+    const difference = k < 0 ? NaN : (scaledFigure(a, k) - scaledFigure(b, k)) / POW10[k];
+    if (!Number.isNaN(difference)) return difference;
+  }
   return toDecimal(a, "first value").minus(toDecimal(b, "second value")).toNumber();
 }
 
 /** Exact sum of signed decimal figures (stack-ups such as deck − stroke/2 − rod − clearance). */
 export function decimalSum(terms: readonly number[]): number {
+  // Below 9,000 terms of under 1e12 the integer sum stays exact (< 2^53), as Decimal's does at 20 digits.
+  if (terms.length < 9000 && terms.every(Number.isFinite)) {
+    const k = placesForAll(...terms);
+    let sum = 0;
+    for (const t of terms) sum += k < 0 ? NaN : scaledFigure(t, k);
+    if (!Number.isNaN(sum)) return sum / POW10[k];
+  }
   return terms.reduce((sum: Decimal, t, i) => sum.plus(toDecimal(t, `term ${i + 1}`)), new Decimal(0)).toNumber();
 }
 

@@ -10,10 +10,13 @@
 // Exactness: readings are decimal figures, but binary floats are not (4.0312 − 4.0302 is
 // 0.0010000000000003 as a double). Every input is first rounded to 12 significant digits (far
 // finer than any gauge, far coarser than float noise) and compared as exact decimals (decimal.js-light).
+// That text round trip is slow, so each function first tries a fast path that gives the same answer
+// (verdict-fast.ts, scaled-figures.ts; why each is exact is written there) and falls back to it.
 import Decimal from "decimal.js-light";
 import type { MeasureUnit, Verdict } from "./enums";
 import type { ResolvedLimit } from "./types";
 import { DISPLAY_RESOLUTION } from "./units";
+import { quickDeviation, quickStepTenths, quickVerdict, quickZone } from "./verdict-fast";
 import { UNIT_WORDS } from "./words";
 
 const D = Decimal.clone({ precision: 40 });
@@ -64,6 +67,8 @@ function exactLimits(
 /** ISO 14253-1 verdict with a guard band of U. A value exactly on a limit with U = 0 is in_spec. */
 export function verdict(input: VerdictInput): Verdict {
   if (input === null || typeof input !== "object") throw new Error("verdict needs { value, min?, max?, uncertainty? }");
+  const quick = quickVerdict(input.value, input.min, input.max, input.uncertainty);
+  if (quick) return quick;
   const v = exact(input.value, "Measured value");
   const { lo, hi, u } = exactLimits(input.min, input.max, input.uncertainty);
   if ((lo && v.lt(lo)) || (hi && v.gt(hi))) return "out_of_spec";
@@ -80,6 +85,8 @@ export function conformanceZone(
   limit: { min?: number | null; max?: number | null },
   uncertainty = 0,
 ): { min?: number; max?: number; empty: boolean } {
+  const quick = quickZone(limit.min, limit.max, uncertainty);
+  if (quick) return quick;
   const { lo, hi, u } = exactLimits(limit.min, limit.max, uncertainty);
   const zoneMin = lo?.plus(u);
   const zoneMax = hi?.minus(u);
@@ -99,6 +106,8 @@ export function deviationFromNominal(
   value: number,
   limit: Pick<ResolvedLimit, "min" | "max" | "nominal">,
 ): number | undefined {
+  const quick = quickDeviation(value, limit);
+  if (quick === undefined || !Number.isNaN(quick)) return quick;
   const v = exact(value, "Measured value");
   if (limit.nominal !== undefined && limit.nominal !== null) {
     return v.minus(exact(limit.nominal, "Nominal")).toNumber();
@@ -108,12 +117,19 @@ export function deviationFromNominal(
   return v.minus(mid).toNumber();
 }
 
-const STEP: Record<MeasureUnit, { per: string; singular: string; plural: string }> = {
-  in: { per: DISPLAY_RESOLUTION.in, singular: "tenth", plural: "tenths" }, // a tenth of a thousandth of an inch
-  mm: { per: DISPLAY_RESOLUTION.mm, singular: "µm", plural: "µm" },
-  lbf_ft: { per: DISPLAY_RESOLUTION.lbf_ft, singular: UNIT_WORDS.lbf_ft, plural: UNIT_WORDS.lbf_ft },
-  nm: { per: DISPLAY_RESOLUTION.nm, singular: UNIT_WORDS.nm, plural: UNIT_WORDS.nm },
+const STEP: Record<MeasureUnit, { per: string; places: number; singular: string; plural: string }> = {
+  in: displayStep(DISPLAY_RESOLUTION.in, "tenth", "tenths"), // a tenth of a thousandth of an inch
+  mm: displayStep(DISPLAY_RESOLUTION.mm, "µm", "µm"),
+  lbf_ft: displayStep(DISPLAY_RESOLUTION.lbf_ft, UNIT_WORDS.lbf_ft, UNIT_WORDS.lbf_ft),
+  nm: displayStep(DISPLAY_RESOLUTION.nm, UNIT_WORDS.nm, UNIT_WORDS.nm),
 };
+
+/** A display step ("0.001" or "1": a power of ten) with its decimal places, for the fast path. */
+function displayStep(per: string, singular: string, plural: string) {
+  const places = per === "1" ? 0 : /^0\.0*1$/.test(per) ? per.length - 2 : NaN;
+  if (Number.isNaN(places)) throw new Error(`Display step ${per} is not a power of ten`);
+  return { per, places, singular, plural };
+}
 
 /**
  * A deviation in the words the bench uses: inch work in tenths (0.0001 in), metric work in µm,
@@ -123,9 +139,20 @@ const STEP: Record<MeasureUnit, { per: string; singular: string; plural: string 
 export function formatDeviation(dev: number, unit: MeasureUnit): string {
   const step = STEP[unit];
   if (!step) throw new Error(`Unknown unit '${String(unit)}'; use in, mm, lbf_ft or nm`);
+  const tenths = quickStepTenths(dev, step.places);
+  if (!Number.isNaN(tenths)) {
+    if (tenths === 0) return "on nominal";
+    const t = Math.abs(tenths);
+    // Written as Decimal writes a figure of one decimal below 1e21: no trailing ".0", a "0." before a lone tenth.
+    const amount = t % 10 === 0 ? String(t / 10) : `${(t - (t % 10)) / 10}.${t % 10}`;
+    return worded(amount, t === 10, tenths < 0, step);
+  }
   const steps = exact(dev, "Deviation").div(step.per).toDecimalPlaces(1, Decimal.ROUND_HALF_UP);
   if (steps.isZero()) return "on nominal";
   const amount = steps.abs();
-  const word = amount.eq(1) ? step.singular : step.plural;
-  return `${amount.toString()} ${word} ${steps.isNegative() ? "under" : "over"}`;
+  return worded(amount.toString(), amount.eq(1), steps.isNegative(), step);
+}
+
+function worded(amount: string, one: boolean, negative: boolean, step: (typeof STEP)[MeasureUnit]): string {
+  return `${amount} ${one ? step.singular : step.plural} ${negative ? "under" : "over"}`;
 }
