@@ -1,6 +1,6 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import { currentValues, evaluateReading, type RawReading } from "@/lib/domain";
+import { currentValues, evaluateReadings, type RawReading } from "@/lib/domain";
 import type { ReadingEvaluation } from "@/lib/schemas/sync";
 import type { AuditInput } from "@/lib/server/log/repo";
 import { createFlags, unclosedFlags, updateFlag, type NewFlag, type UnclosedFlag } from "@/lib/server/reconcile/repo";
@@ -92,15 +92,20 @@ function evaluateCurrent(
   judge: (r: StoredReading) => boolean,
   gaugeOf: (r: StoredReading) => InstrumentInfo | undefined,
 ) {
+  // One current reading per station (currentValues), so the batch's answers are by station.
+  const judging = new Set(current.filter(judge).map((r) => r.stationId));
+  const judged = evaluateReadings(raws, ctx.shape, ctx.spec, { only: (s) => judging.has(s) });
   return current.map((r, i) => {
     if (!judge(r)) return storedOf(r);
+    const ev = judged.get(r.stationId);
     try {
-      const ev = evaluateReading(raws[i], ctx.shape, ctx.spec, raws);
-      return storedEvaluation(ev, r.unit, past[i], { inst: gaugeOf(r), takenAt: r.takenAt });
+      if (typeof ev === "object")
+        return storedEvaluation(ev, r.unit, past[i], { inst: gaugeOf(r), takenAt: r.takenAt });
     } catch {
-      // A station the engine no longer has (an edited engine): no verdict, nothing to flag.
-      return storedEvaluation(null, r.unit, past[i]);
+      // Stored as a figure the core refuses, as below.
     }
+    // Words instead (a station the engine no longer has, an edited engine): no verdict, nothing to flag.
+    return storedEvaluation(null, r.unit, past[i]);
   });
 }
 
