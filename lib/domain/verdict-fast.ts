@@ -21,9 +21,9 @@ function side(difference: number, tolerance: number): -1 | 0 | 1 {
 
 /**
  * The verdict with plain doubles, when every comparison it makes is decided by a margin of
- * 1e-9 of the figures' total size. Each figure lies within 5e-12 of itself from its 12-digit
- * decimal and each double sum or difference is off by about 1e-16 of its operands, so a
- * difference beyond that margin has the sign the exact decimals' difference has (and is not 0).
+ * 1e-9 of the figures' total size. A figure differs from its 12-digit decimal by at most 5e-12 of
+ * its size and a double sum or difference is off by about 1e-16 of its operands, so a difference
+ * beyond that margin has the sign of the exact decimals' difference (which is then not 0 either).
  * Near a limit (on it, on limit ± U, float noise) it gives up. Sizes are kept well inside the
  * doubles' range, so nothing overflows and no subnormal loses its relative precision.
  */
