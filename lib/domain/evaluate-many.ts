@@ -16,6 +16,11 @@ export type EvaluationOrError = Evaluation | string;
 export interface EvaluateOptions {
   /** Only the stations this accepts (a reconciliation judges again only what new readings change). */
   only?: (stationId: string) => boolean;
+  /**
+   * The job's readings a ring gap takes its bore from, when they are not the readings checked (the
+   * tablet also checks a reading the server refused, which counts for no bore). Default: those.
+   */
+  context?: RawReading[];
 }
 
 type Found = { limits?: ResolvedLimit; note?: string };
@@ -103,7 +108,8 @@ const wordsOf = (err: unknown) => (err instanceof Error ? err.message : String(e
 
 /**
  * Every reading of a job checked against its spec, the others giving a ring gap its bore: by
- * station, what evaluateReading(reading, engine, spec, readings) returns, or the words it throws.
+ * station, what evaluateReading(reading, engine, spec, options.context ?? readings) returns, or the
+ * words it throws.
  * A station read twice gets its last reading in the list; an entry that is not a reading has no
  * station and is left out (it is not a reading a ring gap's bore counts either).
  */
@@ -118,7 +124,7 @@ export function evaluateReadings(
   let refused: string | undefined;
   try {
     checkEngineShape(engine);
-    judging = new JobJudging(engine, spec, readings);
+    judging = new JobJudging(engine, spec, options.context ?? readings);
   } catch (err) {
     refused = wordsOf(err);
   }

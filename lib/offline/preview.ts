@@ -5,9 +5,10 @@ import {
   coreReading,
   currentReadings,
   deriveReadings,
-  evaluateReading,
+  evaluateReadings,
   type DerivedValue,
   type Evaluation,
+  type EvaluationOrError,
   type RawReading,
   type Verdict,
 } from "@/lib/domain";
@@ -48,16 +49,29 @@ export interface Preview {
 }
 
 /** The verdict to show for a reading: the server's once synced, else the core's preview. */
-export function previewReading(r: LocalReading, pack: JobPack, raw: RawReading[]): Preview {
-  const mine = toRaw(r, pack.instruments);
-  if (!mine) return {};
-  try {
-    const evaluation = evaluateReading(mine, pack.shape, pack.spec, raw);
-    const verdict = r.state === "synced" && r.verdict ? r.verdict : evaluation.verdict;
-    return { verdict, evaluation, ...(evaluation.note ? { note: evaluation.note } : {}) };
-  } catch (err) {
-    return { note: err instanceof Error ? err.message : String(err) };
+function previewOf(r: LocalReading, judged: EvaluationOrError | undefined): Preview {
+  if (judged === undefined) return {};
+  if (typeof judged === "string") return { note: judged };
+  const verdict = r.state === "synced" && r.verdict ? r.verdict : judged.verdict;
+  return { verdict, evaluation: judged, ...(judged.note ? { note: judged.note } : {}) };
+}
+
+/**
+ * The preview of each station's current reading (currentByStation), all checked in one batch;
+ * `raw` (usableRaw) gives a ring gap its bore. A skip has no preview.
+ */
+export function previewReadings(
+  current: Map<string, LocalReading>,
+  pack: JobPack,
+  raw: RawReading[],
+): Map<string, Preview> {
+  const mine: RawReading[] = [];
+  for (const r of current.values()) {
+    const x = toRaw(r, pack.instruments);
+    if (x) mine.push(x);
   }
+  const judged = evaluateReadings(mine, pack.shape, pack.spec, { context: raw });
+  return new Map([...current].map(([id, r]) => [id, previewOf(r, judged.get(id))]));
 }
 
 /** Derived values of the job; with `touching`, only those fed by the stations it accepts (the core computes no others). */

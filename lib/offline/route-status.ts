@@ -10,7 +10,7 @@ import {
 } from "@/lib/domain";
 import type { BenchFlag, JobPack } from "@/lib/schemas/sync";
 import type { LocalReading } from "./db";
-import { currentByStation, previewReading, usableRaw } from "./preview";
+import { currentByStation, previewReadings, usableRaw } from "./preview";
 
 export type StationState =
   | "todo"
@@ -57,13 +57,13 @@ function stateOf(current: LocalReading | undefined, verdict: Verdict | undefined
 
 export function stationViews(pack: JobPack, readings: LocalReading[]): StationView[] {
   const current = currentByStation(readings);
-  const raw = usableRaw(readings, pack.instruments);
+  const previews = previewReadings(current, pack, usableRaw(readings, pack.instruments));
   const counts = new Map<string, number>();
   for (const r of readings) if (r.state !== "rejected") counts.set(r.stationId, (counts.get(r.stationId) ?? 0) + 1);
   const stations = pack.route.sections.flatMap((s) => s.stations);
   return stations.map((station, index) => {
     const cur = current.get(station.id);
-    const preview = cur ? previewReading(cur, pack, raw) : {};
+    const preview = previews.get(station.id) ?? {};
     const count = counts.get(station.id) ?? 0;
     const revisit = revisitFlag(pack.flags, station.id, cur);
     const state = revisit ? "revisit" : stateOf(cur, preview.verdict, count);
