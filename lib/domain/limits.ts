@@ -133,20 +133,29 @@ function resolveNominalTol(limit: SpecLimit, nominal = need(limit, "nominal", "n
 }
 
 // A tolerance around the size the job states, e.g. "finished bore +0.0000/+0.0005 in".
-function resolveJobSizeTol(limit: SpecLimit, context: LimitContext): ResolvedLimit {
-  const unit = lengthUnitOf(limit);
+// Why a job-size limit cannot be worked out here, or undefined when it can. Asked before resolving
+// too (limitOrNote): a job without finished sizes meets it at every bore and journal station, and
+// building an Error for each was a tenth of a job page's derivation.
+function jobSizeProblem(limit: SpecLimit, context: LimitContext): string | undefined {
   const size = JOB_SIZE_OF[limit.characteristic];
   if (!size) {
-    throw new Error(
+    return (
       `Limit '${nameOf(limit)}' follows the job's finished size, which a job states only for bores and ` +
-        "main and rod journals; use nominal ± tolerances or a clearance window here",
+      "main and rod journals; use nominal ± tolerances or a clearance window here"
     );
   }
   const stated = context.jobSize;
   if (!stated || !Number.isFinite(stated.value) || stated.value <= 0) {
-    throw new Error(`Limit '${nameOf(limit)}' follows the job's ${JOB_SIZE_WORDS[size]}; enter it on the job`);
+    return `Limit '${nameOf(limit)}' follows the job's ${JOB_SIZE_WORDS[size]}; enter it on the job`;
   }
-  return resolveNominalTol(limit, cleanDecimal(convertLength(stated.value, stated.unit, unit)));
+  return undefined;
+}
+
+function resolveJobSizeTol(limit: SpecLimit, context: LimitContext): ResolvedLimit {
+  const problem = jobSizeProblem(limit, context);
+  if (problem) throw new Error(problem);
+  const stated = context.jobSize!;
+  return resolveNominalTol(limit, cleanDecimal(convertLength(stated.value, stated.unit, lengthUnitOf(limit))));
 }
 
 function resolvePerInch(limit: SpecLimit, context: LimitContext): ResolvedLimit {
@@ -238,6 +247,8 @@ export function limitOrNote(
   context: LimitContext = {},
 ): { limits?: ResolvedLimit; note?: string } {
   if (!limit) return { note: `The spec has no limit for ${characteristic} at ${stationId}` };
+  const problem = limit.limitType === "job_size_tol" ? jobSizeProblem(limit, context) : undefined;
+  if (problem) return { note: problem };
   try {
     return { limits: resolveLimit(limit, context) };
   } catch (err) {
