@@ -10,14 +10,16 @@ import { utcDate } from "@/lib/server/core/sql-driver";
 type Attribute = { field?: string; type?: unknown };
 const kindOf = (a: Attribute) => String((a.type as { key?: string } | undefined)?.key ?? "");
 
-function convert(kind: string, v: unknown): unknown {
-  if (v === null || v === undefined) return null;
-  if (kind === "DATE") return utcDate(v);
-  if (kind === "BOOLEAN") return Boolean(Number(v));
-  if (kind === "JSON") return typeof v === "string" ? JSON.parse(v) : v;
-  if (kind === "DECIMAL" || kind === "BIGINT") return Number(v);
-  return v;
-}
+type Convert = (v: unknown) => unknown;
+const asIs: Convert = (v) => v ?? null;
+// Chosen once per column, not per value: a job's limits are a hundred rows of thirty columns.
+const CONVERTERS: Record<string, Convert> = {
+  DATE: (v) => (v === null || v === undefined ? null : utcDate(v)),
+  BOOLEAN: (v) => (v === null || v === undefined ? null : Boolean(Number(v))),
+  JSON: (v) => (v === null || v === undefined ? null : typeof v === "string" ? JSON.parse(v) : v),
+  DECIMAL: (v) => (v === null || v === undefined ? null : Number(v)),
+  BIGINT: (v) => (v === null || v === undefined ? null : Number(v)),
+};
 
 export type ModelColumns<T> = {
   /** `alias.column AS prefixattribute, …` */
@@ -31,13 +33,13 @@ export function modelColumns<T>(attributes: Record<string, Attribute>, alias: st
     name,
     key: `${prefix}${name}`,
     field: a.field ?? name,
-    kind: kindOf(a),
+    convert: CONVERTERS[kindOf(a)] ?? asIs,
   }));
   return {
     list: columns.map((c) => `${alias}.\`${c.field}\` AS \`${c.key}\``).join(", "),
     read(row) {
       const out: Record<string, unknown> = {};
-      for (const c of columns) out[c.name] = convert(c.kind, row[c.key]);
+      for (const c of columns) out[c.name] = c.convert(row[c.key]);
       return out as T;
     },
   };
