@@ -2,7 +2,9 @@ import { withUnit } from "@/components/flags/format";
 import type { AnovaRow, GrrComponents, GrrResult } from "@/lib/domain/gauge-studies/types";
 
 // An R&R study as the core worked it out: the ANOVA table (sums of squares, mean squares, F and p),
-// then the spread each source adds, as a standard deviation and as a share of the total, %GRR and ndc.
+// then the spread each source adds, as a standard deviation and as its share of the total's standard
+// deviation and of its variance, %GRR and ndc. Only variances add up (the total's variance is the sum
+// of the sources'), so only the variance column sums to 100 % over gauge R&R and part to part.
 const SOURCE_WORDS: Record<AnovaRow["source"], string> = {
   part: "Parts",
   appraiser: "Appraisers",
@@ -28,6 +30,7 @@ const pFigure = (p: number | null) => (p === null ? "—" : p < 0.0001 ? "< 0.00
 export function AnovaTable({ result, unit }: { result: GrrResult; unit: string }) {
   const { sd } = result;
   const share = (x: number) => (sd.total > 0 ? `${((100 * x) / sd.total).toFixed(1)} %` : "—");
+  const varianceShare = (x: number) => (sd.total > 0 ? `${((100 * x * x) / (sd.total * sd.total)).toFixed(1)} %` : "—");
   return (
     <div className="flex flex-col gap-3" data-testid="grr-anova">
       <p className="text-sm">
@@ -72,7 +75,8 @@ export function AnovaTable({ result, unit }: { result: GrrResult; unit: string }
             <tr>
               <th className="p-1 text-left font-semibold">Spread from</th>
               <th className="p-1 font-semibold">Standard deviation</th>
-              <th className="p-1 font-semibold">Share of total spread</th>
+              <th className="p-1 font-semibold">Of the total standard deviation</th>
+              <th className="p-1 font-semibold">Of the total variance</th>
             </tr>
           </thead>
           <tbody>
@@ -83,11 +87,15 @@ export function AnovaTable({ result, unit }: { result: GrrResult; unit: string }
                 </th>
                 <td className="p-1">{withUnit(sd[key], unit)}</td>
                 <td className="p-1">{share(sd[key])}</td>
+                <td className="p-1">{varianceShare(sd[key])}</td>
               </tr>
             ))}
           </tbody>
         </table>
       </div>
+      <p className="text-xs text-muted">
+        Standard deviations do not add up, variances do: gauge R&R and part to part make 100 % of the total variance.
+      </p>
       <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
         <dt className="text-muted">%GRR of the study variation</dt>
         <dd className="font-semibold tabular">{result.pctStudyVariation.toFixed(1)} %</dd>

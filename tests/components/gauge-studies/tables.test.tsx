@@ -92,9 +92,21 @@ describe("AnovaTable", () => {
     const parts = within(box).getByRole("rowheader", { name: "Parts" }).closest("tr");
     expect(parts?.textContent).toMatch(/^Parts9.*41\.20< 0\.0001$/);
     const rr = within(box).getByRole("rowheader", { name: "Gauge R&R" }).closest("tr");
-    expect(rr?.textContent).toBe("Gauge R&R0.0006 mm37.5 %");
+    // 0.0006 / 0.0016 of the standard deviation; its square, 0.140625, of the variance.
+    expect(rr?.textContent).toBe("Gauge R&R0.0006 mm37.5 %14.1 %");
     expect(box.textContent).toMatch(/%GRR of the tolerance18\.0 %/);
     expect(box.textContent).toMatch(/ndc\)3/);
+  });
+});
+
+describe("AnovaTable's shares", () => {
+  it("gives gauge R&R and part to part shares of the variance that add to 100 %", () => {
+    // A 3-4-5 right triangle: 0.0006² + 0.0008² = 0.001², as the total's variance is the sum of the sources'.
+    const sd = { ...grr.sd, grr: 0.0006, part: 0.0008, total: 0.001 };
+    render(<AnovaTable result={{ ...grr, sd }} unit="mm" />);
+    const row = (name: string) => screen.getByRole("rowheader", { name }).closest("tr")?.textContent;
+    expect(row("Gauge R&R")).toBe("Gauge R&R0.0006 mm60.0 %36.0 %");
+    expect(row("Part to part")).toBe("Part to part0.0008 mm80.0 %64.0 %");
   });
 });
 
