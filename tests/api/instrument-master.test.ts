@@ -92,6 +92,21 @@ describe("PUT and DELETE /api/instruments/:id/master", () => {
     expect((await patch(inMm)).status).toBe(200);
   });
 
+  it("keeps a master on file inside the gauge's range: a narrower range that leaves it out is refused", async () => {
+    const id = a.instrument.id; // 2–6 in
+    const patch = async (body: unknown) =>
+      call(PATCH as never, await asUser(a.users.admin, "PATCH", `/api/instruments/${id}`, body), {
+        instrumentId: String(id),
+      });
+    expect((await put(a.users.admin, id, RING)).status).toBe(200);
+    const refused = await patch({ rangeMin: 2, rangeMax: 4 });
+    expect(refused.status).toBe(422);
+    expect(refused.body.error.fields.rangeMax[0]).toMatch(/^The setting master on file \(Ring 4\.0300, 4\.03 in\)/);
+    expect((await readOne(a.users.admin, id)).body.instrument.rangeMax).toBe(6);
+    expect((await patch({ rangeMin: 4, rangeMax: 5 })).status).toBe(200); // still holds 4.03 in
+    expect((await patch({ rangeMin: 2, rangeMax: 6 })).status).toBe(200);
+  });
+
   it("is the admin's: 401 signed out, 403 for the other roles, 404 for another shop's gauge", async () => {
     const id = a.instrument.id;
     expect((await put(null, id, RING)).status).toBe(401);

@@ -152,6 +152,26 @@ function masterInOldUnit(unit: InstrumentUnit): AppError {
   return new AppError("invalid", words, { unit: [words] });
 }
 
+/** A new range must still hold the master on file (masterProblems' own rule), else the range fields say why. */
+function masterOutsideRange(
+  g: Instrument,
+  next: { rangeMin: number | null; rangeMax: number | null },
+): AppError | null {
+  const master = masterOf(g);
+  if (!master) return null;
+  const unit = unitWords(g.unit as InstrumentUnit);
+  const problem = masterProblems(master, {
+    ...next,
+    unit: g.unit as InstrumentUnit,
+    resolution: Number(g.resolution),
+  }).size;
+  if (!problem) return null;
+  const words =
+    `The setting master on file (${master.label ?? "unnamed"}, ${master.size} ${unit}) would fall outside ` +
+    `this range; keep ${master.size} ${unit} inside it, or change or remove the master first`;
+  return new AppError("invalid", words, { rangeMin: [words], rangeMax: [words] });
+}
+
 function actionFor(g: Instrument, patch: InstrumentPatch): string {
   if (patch.active === false && g.active) return "instrument.deactivated";
   if (patch.active === true && !g.active) return "instrument.reactivated";
@@ -165,6 +185,8 @@ export async function updateInstrument(actor: Actor, id: number, patch: Instrume
       const g = await findOrThrow(actor.shopId, id, t);
       const next = merged(g, patch);
       if (next.unit !== g.unit && masterOf(g)) throw masterInOldUnit(g.unit as InstrumentUnit);
+      const outside = masterOutsideRange(g, next);
+      if (outside) throw outside;
       const before = auditView(g);
       const action = actionFor(g, patch);
       await g.update({ ...next, ...(patch.active !== undefined ? { active: patch.active } : {}) }, { transaction: t });
