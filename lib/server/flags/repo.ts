@@ -187,3 +187,32 @@ export async function recordDecision(
   await Flag.update(patch, { where: { id: flag.id }, transaction: t });
   return { dispositionId: row.id, flag: { ...flag, ...patch } };
 }
+
+/** A flag of a job with its latest decision (the readings CSV's decision column). */
+export type FlagDecisionRow = {
+  id: number;
+  readingId: string | null;
+  derivedKey: string | null;
+  state: string;
+  disposition: string | null;
+  operation: string | null;
+};
+
+/**
+ * The job's flags, oldest first, of these readings, and with `derived`, of its computed values too:
+ * one statement (the CSV reads them with each page of readings).
+ */
+export async function flagDecisions(
+  shopId: number,
+  jobId: number,
+  readingIds: string[],
+  derived = false,
+): Promise<FlagDecisionRow[]> {
+  const of = [...(readingIds.length ? ["reading_id IN (?)"] : []), ...(derived ? ["derived_key IS NOT NULL"] : [])];
+  if (!of.length) return [];
+  return readRows<FlagDecisionRow>(
+    `SELECT id, reading_id AS readingId, derived_key AS derivedKey, state, disposition, operation FROM flags
+      WHERE shop_id = ? AND job_id = ? AND (${of.join(" OR ")}) ORDER BY id`,
+    [shopId, jobId, ...(readingIds.length ? [readingIds] : [])],
+  );
+}

@@ -18,7 +18,7 @@ import {
 } from "@/lib/domain";
 import type { Disposition } from "@/lib/schemas/enums";
 import { DISPOSITION_WORDS } from "@/lib/schemas/flag";
-import type { FlagDecisionRow } from "@/lib/server/readings/csv-repo";
+import type { FlagDecisionRow } from "@/lib/server/flags/repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import type { JobContext } from "@/lib/server/jobs/context";

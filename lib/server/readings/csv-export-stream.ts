@@ -12,7 +12,8 @@ import {
   type RowContext,
   type Units,
 } from "@/lib/server/readings/csv-export-rows";
-import { flagDecisions, stationsWithReadings } from "@/lib/server/readings/csv-repo";
+import { flagDecisions } from "@/lib/server/flags/repo";
+import { stationsWithReadings } from "@/lib/server/readings/csv-repo";
 import { currentJobReadings, findInstruments, jobReadingPage } from "@/lib/server/readings/repo";
 import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { toRaw } from "@/lib/server/sync/ingest-evaluate";
