@@ -46,7 +46,10 @@ function Shape({ tone }: { tone: StatusTone }) {
 export function StatusTag({ tone, children }: { tone: StatusTone; children: ReactNode }) {
   return (
     <span
-      className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border-2 px-2.5 py-0.5 text-sm font-semibold ${TONE[tone]}`}
+      className={
+        "inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border-2 px-2.5 py-0.5 text-sm " +
+        `font-semibold ${TONE[tone]}`
+      }
       data-tone={tone}
     >
       <Shape tone={tone} />

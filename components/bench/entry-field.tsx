@@ -55,7 +55,10 @@ export const EntryField = forwardRef<HTMLInputElement, Props>(function EntryFiel
         {label}
       </label>
       <div
-        className={`rounded-tool border-4 bg-panel px-4 pb-1 pt-1 [contain:content] focus-within:border-brass ${error ? "border-fail" : "border-steel"}`}
+        className={
+          "rounded-tool border-4 bg-panel px-4 pb-1 pt-1 [contain:content] focus-within:border-brass " +
+          (error ? "border-fail" : "border-steel")
+        }
       >
         <div className="flex items-baseline gap-3">
           <input

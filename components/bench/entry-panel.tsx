@@ -49,7 +49,8 @@ function gaugeLine(
   if (!dialOn || !group) return `Gauge: ${name}`;
   const setting = prefs.dialSettings[group];
   const sign = g?.dialPlusMeansSmaller ? "+ means smaller" : "+ means larger";
-  return `Dial mode · ${name} · set at ${setting !== undefined ? `${figure(setting, station.unit)} ${UNIT_WORDS[station.unit]}` : "—"} · ${sign}`;
+  const setAt = setting !== undefined ? `${figure(setting, station.unit)} ${UNIT_WORDS[station.unit]}` : "—";
+  return `Dial mode · ${name} · set at ${setAt} · ${sign}`;
 }
 
 const PLACEHOLDER: Record<Station["unit"], string> = { in: "0.0000", mm: "0.000", lbf_ft: "0", nm: "0" };

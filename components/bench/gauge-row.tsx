@@ -47,7 +47,10 @@ export const GaugeRow = memo(function GaugeRow({
             type="button"
             onClick={() => onDial(!dialOn)}
             aria-pressed={dialOn}
-            className="min-h-16 rounded-tool border-2 border-rule bg-panel px-4 font-semibold aria-pressed:border-steel aria-pressed:bg-steel aria-pressed:text-steel-ink"
+            className={
+              "min-h-16 rounded-tool border-2 border-rule bg-panel px-4 font-semibold " +
+              "aria-pressed:border-steel aria-pressed:bg-steel aria-pressed:text-steel-ink"
+            }
           >
             Dial mode {dialOn ? "on" : "off"}
           </button>
@@ -80,7 +83,10 @@ export const GaugeRow = memo(function GaugeRow({
                   setOpen(false);
                 }}
                 aria-pressed={g.id === chosen?.id}
-                className="min-h-16 w-full rounded-tool border-2 border-rule bg-panel px-3 text-left aria-pressed:border-steel aria-pressed:bg-steel aria-pressed:text-steel-ink"
+                className={
+                  "min-h-16 w-full rounded-tool border-2 border-rule bg-panel px-3 text-left " +
+                  "aria-pressed:border-steel aria-pressed:bg-steel aria-pressed:text-steel-ink"
+                }
               >
                 <span className="block font-semibold">{g.label}</span>
                 <span className="block text-sm">

@@ -33,8 +33,10 @@ const SkipSheet = lazy(() => import("./skip-sheet").then((m) => ({ default: m.Sk
 
 const GRID = [
   "grid grid-cols-[minmax(0,1fr)] items-start gap-4 [grid-template-areas:'where'_'last'_'entry'_'more']",
-  "lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] lg:grid-rows-[auto_auto_1fr] lg:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
-  "landscape:md:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] landscape:md:grid-rows-[auto_auto_1fr] landscape:md:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
+  "lg:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] lg:grid-rows-[auto_auto_1fr]",
+  "lg:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
+  "landscape:md:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] landscape:md:grid-rows-[auto_auto_1fr]",
+  "landscape:md:[grid-template-areas:'where_entry'_'last_entry'_'more_entry']",
 ].join(" ");
 
 export const JobScreen = memo(function JobScreen({

@@ -27,7 +27,10 @@ function Key({
       aria-label={name}
       onPointerDown={keepFocus}
       onClick={onPress}
-      className={`min-h-16 select-none rounded-tool border-2 border-rule bg-panel text-3xl font-semibold text-ink active:bg-rule ${className}`}
+      className={
+        "min-h-16 select-none rounded-tool border-2 border-rule bg-panel text-3xl font-semibold text-ink " +
+        `active:bg-rule ${className}`
+      }
     >
       {label}
     </button>
@@ -67,7 +70,10 @@ export const Keypad = memo(function Keypad({
         onPointerDown={keepFocus}
         onClick={onEnter}
         disabled={disabled}
-        className="row-span-2 min-h-16 select-none rounded-tool bg-steel text-2xl font-bold text-steel-ink active:brightness-90 disabled:opacity-50"
+        className={
+          "row-span-2 min-h-16 select-none rounded-tool bg-steel text-2xl font-bold text-steel-ink " +
+          "active:brightness-90 disabled:opacity-50"
+        }
       >
         {enterLabel}
       </button>

@@ -24,7 +24,10 @@ export const LubricantPicker = memo(function LubricantPicker({
             type="button"
             onClick={() => onPick(l)}
             aria-pressed={value === l}
-            className="min-h-16 rounded-tool border-2 border-rule bg-panel px-3 text-left font-semibold aria-pressed:border-steel aria-pressed:bg-steel aria-pressed:text-steel-ink"
+            className={
+              "min-h-16 rounded-tool border-2 border-rule bg-panel px-3 text-left font-semibold " +
+              "aria-pressed:border-steel aria-pressed:bg-steel aria-pressed:text-steel-ink"
+            }
           >
             {LUBRICANT_LABELS[l]}
           </button>

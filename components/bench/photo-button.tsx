@@ -47,7 +47,12 @@ export const PhotoButton = memo(function PhotoButton({
   }
   return (
     <div className="flex flex-col gap-1">
-      <label className="flex min-h-16 cursor-pointer items-center justify-center gap-2 rounded-tool border-2 border-rule bg-panel px-4 text-lg font-semibold">
+      <label
+        className={
+          "flex min-h-16 cursor-pointer items-center justify-center gap-2 rounded-tool border-2 border-rule bg-panel " +
+          "px-4 text-lg font-semibold"
+        }
+      >
         <svg width="22" height="22" viewBox="0 0 22 22" aria-hidden="true">
           <rect x="2" y="6" width="18" height="13" rx="2" fill="none" stroke="currentColor" strokeWidth="2" />
           <circle cx="11" cy="12.5" r="3.5" fill="none" stroke="currentColor" strokeWidth="2" />

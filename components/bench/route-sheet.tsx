@@ -56,7 +56,12 @@ export function RouteSheet({
                       aria-current={v.station.id === current ? "location" : undefined}
                       title={v.station.label}
                       data-station={v.station.id}
-                      className={`flex min-h-16 w-full flex-col items-start justify-center gap-0.5 rounded-tool border-2 px-3 py-1 text-left aria-[current=location]:outline aria-[current=location]:outline-4 aria-[current=location]:outline-steel ${STATE_TONE[v.state]}`}
+                      className={
+                        "flex min-h-16 w-full flex-col items-start justify-center gap-0.5 rounded-tool border-2 " +
+                        "px-3 py-1 text-left aria-[current=location]:outline aria-[current=location]:outline-4 " +
+                        "aria-[current=location]:outline-steel " +
+                        STATE_TONE[v.state]
+                      }
                     >
                       <span className="font-semibold text-ink">{shortName(v)}</span>
                       <span className="inline-flex items-center gap-1 text-sm font-semibold">

@@ -35,7 +35,11 @@ export const SectionStrip = memo(function SectionStrip({
             data-section={s.id}
             data-done={s.done}
             data-required={s.required}
-            className={`flex min-h-16 shrink-0 flex-col items-start justify-center rounded-tool border-2 px-3 text-left aria-[current=step]:border-steel aria-[current=step]:bg-panel ${complete ? "border-pass" : "border-rule"}`}
+            className={
+              "flex min-h-16 shrink-0 flex-col items-start justify-center rounded-tool border-2 px-3 text-left " +
+              "aria-[current=step]:border-steel aria-[current=step]:bg-panel " +
+              (complete ? "border-pass" : "border-rule")
+            }
           >
             <span className="text-sm font-semibold leading-tight">{s.label}</span>
             <span className="text-sm tabular text-muted">

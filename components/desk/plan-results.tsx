@@ -73,7 +73,10 @@ function FitVerdict({
   return (
     <span className="flex flex-col gap-1">
       <span
-        className={`inline-flex w-fit items-center gap-2 rounded-tool border-2 px-2 py-0.5 font-semibold ${fits ? "border-pass text-pass" : "border-fail text-fail"}`}
+        className={
+          "inline-flex w-fit items-center gap-2 rounded-tool border-2 px-2 py-0.5 font-semibold " +
+          (fits ? "border-pass text-pass" : "border-fail text-fail")
+        }
         data-testid="plan-fits"
       >
         <span aria-hidden="true">{fits ? "●" : "■"}</span>

@@ -105,7 +105,10 @@ export function DispositionForm({ flagId }: { flagId: number }) {
         {KINDS.map((k) => (
           <label
             key={k.kind}
-            className={`flex cursor-pointer flex-col gap-1 rounded-tool border-2 p-3 ${kind === k.kind ? "border-steel bg-paper" : "border-rule"}`}
+            className={
+              "flex cursor-pointer flex-col gap-1 rounded-tool border-2 p-3 " +
+              (kind === k.kind ? "border-steel bg-paper" : "border-rule")
+            }
           >
             <span className="flex items-center gap-2 text-lg font-semibold">
               <input type="radio" value={k.kind} className="h-5 w-5" {...form.register("kind")} />

@@ -23,7 +23,8 @@ export function LinkProblem(props: LinkProblemProps) {
         }
       >
         {props.kind === "expired"
-          ? "Links to a build record work for a limited time, so an old e-mail cannot open it for ever. The record itself is kept by the shop."
+          ? "Links to a build record work for a limited time, so an old e-mail cannot open it for ever. " +
+            "The record itself is kept by the shop."
           : "It may have been cut short when it was copied. Open it again from the e-mail, or copy the whole link."}
       </Notice>
       <section className="rounded-tool border-2 border-rule bg-panel p-4">

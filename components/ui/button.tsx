@@ -18,7 +18,10 @@ export function Button({
   return (
     <button
       {...props}
-      className={`inline-flex items-center justify-center gap-2 rounded-tool font-semibold disabled:opacity-50 disabled:cursor-not-allowed ${size} ${TONES[tone]} ${className}`}
+      className={
+        "inline-flex items-center justify-center gap-2 rounded-tool font-semibold disabled:opacity-50 " +
+        `disabled:cursor-not-allowed ${size} ${TONES[tone]} ${className}`
+      }
     />
   );
 }

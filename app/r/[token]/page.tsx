@@ -41,7 +41,10 @@ export default async function CustomerRecordPage({ params }: { params: Promise<{
         <a
           href={`/api/r/${encodeURIComponent(token)}/pdf`}
           download
-          className="inline-flex min-h-16 items-center justify-center rounded-tool bg-steel px-6 text-lg font-semibold text-steel-ink hover:brightness-110"
+          className={
+            "inline-flex min-h-16 items-center justify-center rounded-tool bg-steel px-6 text-lg font-semibold " +
+            "text-steel-ink hover:brightness-110"
+          }
         >
           Download the full record (PDF)
         </a>

@@ -54,7 +54,12 @@ export function CertificateCell({ gauge, canEdit }: { gauge: InstrumentRecord; c
         <span className="text-sm text-muted">No certificate on file</span>
       )}
       {canEdit && (
-        <label className="no-print inline-flex min-h-11 cursor-pointer items-center rounded-tool border-2 border-rule bg-panel px-3 text-sm font-semibold hover:border-muted">
+        <label
+          className={
+            "no-print inline-flex min-h-11 cursor-pointer items-center rounded-tool border-2 border-rule bg-panel " +
+            "px-3 text-sm font-semibold hover:border-muted"
+          }
+        >
           {upload.isPending ? "Uploading…" : gauge.certificate ? "Replace certificate" : "Upload certificate"}
           <input
             ref={input}
