@@ -13,7 +13,8 @@ import type { User } from "./user";
 
 /**
  * A stored photo or file. The id is the server's; clientId is the device's own id for the file,
- * unique within the shop, so an offline upload can be resent; ownerId is a job id, reading UUID or instrument id as text, depending on ownerType.
+ * unique within the shop, so an offline upload can be resent; ownerId is a job id, reading UUID or instrument id
+ * as text, depending on ownerType.
  */
 export class Attachment extends Model<InferAttributes<Attachment>, InferCreationAttributes<Attachment>> {
   declare id: string;

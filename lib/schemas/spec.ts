@@ -203,7 +203,9 @@ export const limitListSchema = z
         ctx.addIssue({
           code: "custom",
           path: [i, "stationPattern"],
-          message: `Limit ${first + 1} already covers ${CHARACTERISTICS[l.characteristic].label.toLowerCase()} at '${l.stationPattern}'; change the pattern or remove one`,
+          message:
+            `Limit ${first + 1} already covers ${CHARACTERISTICS[l.characteristic].label.toLowerCase()} ` +
+            `at '${l.stationPattern}'; change the pattern or remove one`,
         });
     });
   });

@@ -190,8 +190,10 @@ export async function jobReadingsWithGauges(
   if (stations?.length === 0) return { readings: [], instruments: new Map<number, InstrumentInfo>() };
   const rows = await sqlRows(
     t,
-    `SELECT ${JOINED_COLUMNS}, ${GAUGE_COLUMNS} FROM readings r LEFT JOIN instruments g ON g.id = r.instrument_id AND g.shop_id = ?
-      WHERE r.job_id = ?${stations ? " AND r.station_id IN (?)" : ""} ORDER BY r.taken_at, r.received_at, r.id${locking ? " LOCK IN SHARE MODE" : ""}`,
+    `SELECT ${JOINED_COLUMNS}, ${GAUGE_COLUMNS} FROM readings r
+      LEFT JOIN instruments g ON g.id = r.instrument_id AND g.shop_id = ?
+      WHERE r.job_id = ?${stations ? " AND r.station_id IN (?)" : ""}
+      ORDER BY r.taken_at, r.received_at, r.id${locking ? " LOCK IN SHARE MODE" : ""}`,
     stations ? [shopId, jobId, stations] : [shopId, jobId],
   );
   const instruments = new Map<number, InstrumentInfo>();

@@ -24,7 +24,8 @@ import { bearingRecordLines } from "@/lib/server/bearings/record";
 // each printed release all read the same rows.
 
 export const SAFETY_NOTICE = [
-  "The figures in this record are what was measured and computed at the bench. They do not replace the fastener or engine maker's instructions: the maker's torque, stretch, lubricant and clearance specifications govern.",
+  "The figures in this record are what was measured and computed at the bench. They do not replace the fastener " +
+    "or engine maker's instructions: the maker's torque, stretch, lubricant and clearance specifications govern.",
   FASTENER_CAUTION,
   "Follow local codes and licensed practice when lifting, cleaning with solvents, assembling and first running the engine.",
 ];

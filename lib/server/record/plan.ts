@@ -95,7 +95,9 @@ function figures(p: BuildPlan, cylinders: number, problems: string[]): Line[] {
           chamberCc: p.chamberCc!,
           pistonCc: pistonCcOf(p),
         });
-        const parts = `swept ${cr.sweptCc.toFixed(1)} cc; chamber ${num(p.chamberCc, "cc")}, gasket ${cr.gasketCc.toFixed(2)}, deck ${cr.deckCc.toFixed(2)}, piston ${pistonCcOf(p).toFixed(1)} cc`;
+        const parts =
+          `swept ${cr.sweptCc.toFixed(1)} cc; chamber ${num(p.chamberCc, "cc")}, gasket ${cr.gasketCc.toFixed(2)}, ` +
+          `deck ${cr.deckCc.toFixed(2)}, piston ${pistonCcOf(p).toFixed(1)} cc`;
         return [{ label: "Static compression ratio", value: `${cr.ratio.toFixed(2)}:1 (${parts})` }];
       }),
     );

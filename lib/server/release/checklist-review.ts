@@ -36,14 +36,18 @@ function flagItem(record: JobRecord, f: FlagRow): ChecklistItem | null {
     return {
       check: "flags",
       key: `flags:${f.id}`,
-      text: `Flag #${f.id}, ${what} (${reason}): the lead sent it back ${sent}; it still blocks release until a new in-spec reading closes it`,
+      text:
+        `Flag #${f.id}, ${what} (${reason}): the lead sent it back ${sent}; ` +
+        "it still blocks release until a new in-spec reading closes it",
       links: [flagLink(f.id), ...stations.slice(0, 2).map((s) => benchLink(record.job.id, s))],
     };
   }
   return {
     check: "flags",
     key: `flags:${f.id}`,
-    text: `Flag #${f.id}, ${what} (${reason}): open, waiting for the lead's decision (measure again, machine again, or accept with a reason)`,
+    text:
+      `Flag #${f.id}, ${what} (${reason}): open, waiting for the lead's decision ` +
+      "(measure again, machine again, or accept with a reason)",
     links: [flagLink(f.id)],
   };
 }
@@ -53,11 +57,15 @@ export function flagsCheck(record: JobRecord): ChecklistCheck {
   const items = record.flags.map((f) => flagItem(record, f)).filter((i): i is ChecklistItem => i !== null);
   const closed = record.flags.filter((f) => f.state === "closed").length;
   const accepted = record.flags.filter((f) => f.state === "disposed" && f.disposition === "accept").length;
+  const settled = [
+    closed ? `${plural(closed, "flag")} closed by an in-spec reading` : "",
+    accepted ? `${accepted} accepted with a reason` : "",
+  ].filter(Boolean);
   const summary =
     record.flags.length === 0
       ? "No flags on this job"
       : items.length === 0
-        ? `${[closed ? `${plural(closed, "flag")} closed by an in-spec reading` : "", accepted ? `${accepted} accepted with a reason` : ""].filter(Boolean).join(", ")}; none open`
+        ? `${settled.join(", ")}; none open`
         : `${plural(items.length, "flag")} still blocking; ${closed} closed, ${accepted} accepted`;
   return { id: "flags", title, ok: items.length === 0, summary, items };
 }

@@ -148,7 +148,9 @@ function checkDial(item: PushReading, inst: InstrumentInfo | undefined, add: (f:
     const sign = inst.dialPlusMeansSmaller ? "plus means a smaller bore" : "plus means a larger bore";
     add(
       "value",
-      `Setting ${item.dialSetting} with a dial reading of ${item.dialDeviation} gives ${expected} ${item.unit} on gauge '${inst.label}' (${sign}), not ${item.value}; check the gauge's sign setting and enter the reading again`,
+      `Setting ${item.dialSetting} with a dial reading of ${item.dialDeviation} gives ${expected} ${item.unit} ` +
+        `on gauge '${inst.label}' (${sign}), not ${item.value}; ` +
+        "check the gauge's sign setting and enter the reading again",
     );
   }
 }
@@ -176,7 +178,8 @@ function checkFigures(item: PushReading, bc: BatchContext, job: BatchJob, add: (
   if (!job.routeIds.has(item.stationId)) {
     add(
       "stationId",
-      `Station '${item.stationId}' is not on job ${job.job.code}'s engine (${job.shape.cylinders} cylinders, ${job.shape.mains} mains); pick a station from the route`,
+      `Station '${item.stationId}' is not on job ${job.job.code}'s engine ` +
+        `(${job.shape.cylinders} cylinders, ${job.shape.mains} mains); pick a station from the route`,
     );
   }
   const unitKind = quantityOfUnit(item.unit);
@@ -221,7 +224,9 @@ export function checkItem(item: PushReading, bc: BatchContext): Checked {
   if (stored) {
     const mine = stored.shopId === bc.shopId && samePayload(stored, rowOf(item, bc, stored.characteristic));
     if (mine) return { kind: "replay", stored };
-    const reason = `Reading ${item.id} is already stored with other figures; nothing was overwritten. Send a correction as a new reading that supersedes it`;
+    const reason =
+      `Reading ${item.id} is already stored with other figures; nothing was overwritten. ` +
+      "Send a correction as a new reading that supersedes it";
     return { kind: "rejected", code: "conflict", reason, errors: { id: [reason] } };
   }
   if (job.lockReason)

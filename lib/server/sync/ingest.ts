@@ -246,7 +246,8 @@ function refusal(res: PushResult[], cursor: string): IngestReply {
   const locked = rejected.every((r) => r.code === "job_locked");
   const message = locked
     ? `${rejected[0].reason} Nothing in this batch was saved; the readings stay on the tablet.`
-    : `${rejected.length} of ${res.length} readings need fixing; nothing in this batch was saved. Fix those (see each reading's errors) or send the others without them.`;
+    : `${rejected.length} of ${res.length} readings need fixing; nothing in this batch was saved. ` +
+      "Fix those (see each reading's errors) or send the others without them.";
   return {
     status: locked ? 409 : 422,
     body: { error: { code: locked ? "job_locked" : "invalid", message, fields }, results: res, cursor },
