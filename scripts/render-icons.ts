@@ -15,7 +15,11 @@ function markBody(): string {
     const r2 = i % 5 === 0 ? 9.5 : 11.2;
     const f = (n: number) => n.toFixed(3);
     const w = i % 5 === 0 ? 1.8 : 1.1;
-    return `<line x1="${f(20 + r1 * Math.cos(a))}" y1="${f(21 + r1 * Math.sin(a))}" x2="${f(20 + r2 * Math.cos(a))}" y2="${f(21 + r2 * Math.sin(a))}" stroke="#fff" stroke-width="${w}" stroke-linecap="round"/>`;
+    return (
+      `<line x1="${f(20 + r1 * Math.cos(a))}" y1="${f(21 + r1 * Math.sin(a))}" ` +
+      `x2="${f(20 + r2 * Math.cos(a))}" y2="${f(21 + r2 * Math.sin(a))}" ` +
+      `stroke="#fff" stroke-width="${w}" stroke-linecap="round"/>`
+    );
   });
   return [
     `<circle cx="20" cy="21" r="13.5" fill="none" stroke="#fff" stroke-width="2.2"/>`,
@@ -26,12 +30,19 @@ function markBody(): string {
 
 /** The everyday icon: a rounded steel tile, as in the app header. */
 export function iconSvg(): string {
-  return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 40 40"><rect x="1" y="1" width="38" height="38" rx="9" fill="${STEEL}"/>${markBody()}</svg>`;
+  return (
+    '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 40 40">' +
+    `<rect x="1" y="1" width="38" height="38" rx="9" fill="${STEEL}"/>${markBody()}</svg>`
+  );
 }
 
 /** Maskable: full-bleed steel, the mark shrunk into the 80 % safe zone the platform may crop to. */
 export function maskableSvg(): string {
-  return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 40 40"><rect width="40" height="40" fill="${STEEL}"/><g transform="translate(20 20) scale(0.72) translate(-20 -20.5)">${markBody()}</g></svg>`;
+  return (
+    '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 40 40">' +
+    `<rect width="40" height="40" fill="${STEEL}"/>` +
+    `<g transform="translate(20 20) scale(0.72) translate(-20 -20.5)">${markBody()}</g></svg>`
+  );
 }
 
 async function main() {

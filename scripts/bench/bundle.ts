@@ -75,19 +75,23 @@ async function main() {
     const emptyFirst = empty.filter((b) => !b.late);
     const ratio = total(first, "gzip") / total(emptyFirst, "gzip");
     console.log(
-      "\nbench:bundle — first-load JavaScript (scripts asked for before the page is ready), gzipped (zlib default level), Chromium, no service worker\n",
+      "\nbench:bundle — first-load JavaScript (scripts asked for before the page is ready), " +
+        "gzipped (zlib default level), Chromium, no service worker\n",
     );
     console.log(
       `bench job screen (/bench/job)   ${kb(total(first, "gzip"))} gzip  ${kb(total(first, "raw"))} raw  ${first.length} scripts`,
     );
     console.log(
-      `empty page (not-found)          ${kb(total(emptyFirst, "gzip"))} gzip  ${kb(total(emptyFirst, "raw"))} raw  ${emptyFirst.length} scripts`,
+      `empty page (not-found)          ${kb(total(emptyFirst, "gzip"))} gzip  ` +
+        `${kb(total(emptyFirst, "raw"))} raw  ${emptyFirst.length} scripts`,
     );
     console.log(
       `ratio                           ${ratio.toFixed(2)}×  target ≤ 1.5× ${ratio <= 1.5 ? "met" : "NOT met"}`,
     );
     console.log(
-      `loaded after the job screen was ready (sync engine, prefetches): ${kb(total(later, "gzip"))} gzip in ${later.length} scripts; all of it ${(total(bench, "gzip") / total(empty, "gzip")).toFixed(2)}× the empty page's\n`,
+      `loaded after the job screen was ready (sync engine, prefetches): ${kb(total(later, "gzip"))} gzip ` +
+        `in ${later.length} scripts; ` +
+        `all of it ${(total(bench, "gzip") / total(empty, "gzip")).toFixed(2)}× the empty page's\n`,
     );
     const emptyUrls = new Set(empty.map((e) => new URL(e.url).pathname));
     console.log("largest first-load scripts only the bench loads:");

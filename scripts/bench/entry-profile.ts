@@ -36,7 +36,8 @@ async function main() {
     cdp.on("Tracing.dataCollected", (d) => void events.push(...(d.value as unknown[])));
     await cdp.send("Tracing.start", {
       categories:
-        "devtools.timeline,blink.user_timing,disabled-by-default-devtools.timeline,disabled-by-default-devtools.timeline.invalidationTracking",
+        "devtools.timeline,blink.user_timing,disabled-by-default-devtools.timeline," +
+        "disabled-by-default-devtools.timeline.invalidationTracking",
       transferMode: "ReportEvents",
     });
     await cdp.send("Profiler.start");

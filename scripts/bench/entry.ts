@@ -26,11 +26,14 @@ const THROTTLE = 4;
 const PROBE = `(() => {
   const w = window; w.__tw = { samples: [] }; let cur = null;
   const seq = () => document.querySelector("[data-seq]")?.getAttribute("data-seq") ?? null;
-  document.addEventListener("keydown", (e) => { if (e.key === "Enter") { performance.mark("tw:enter"); cur = { seq0: seq() }; w.__tw.samples.push(cur); } }, true);
+  document.addEventListener("keydown", (e) => {
+    if (e.key === "Enter") { performance.mark("tw:enter"); cur = { seq0: seq() }; w.__tw.samples.push(cur); }
+  }, true);
   new MutationObserver(() => { if (cur && !cur.seen && seq() !== cur.seq0) cur.seen = true; })
     .observe(document.body, { subtree: true, childList: true, attributes: true, attributeFilter: ["data-seq"] });
-  new PerformanceObserver((list) => { for (const m of list.getEntries()) if (m.name === "tw:reading-committed" && cur) cur.committed = true; })
-    .observe({ type: "mark" });
+  new PerformanceObserver((list) => {
+    for (const m of list.getEntries()) if (m.name === "tw:reading-committed" && cur) cur.committed = true;
+  }).observe({ type: "mark" });
 })()`;
 
 // The floor: one Dexie row and one painted word per Enter, nothing else.
@@ -196,7 +199,8 @@ async function main() {
     if (process.env.TW_BENCH_VERBOSE)
       bench.forEach((b, i) =>
         console.log(
-          `entry ${i + 1}: bench ${b.painted.toFixed(1)} / ${b.committed.toFixed(1)} ms, bare ${bare[i]?.painted.toFixed(1)} / ${bare[i]?.committed.toFixed(1)} ms`,
+          `entry ${i + 1}: bench ${b.painted.toFixed(1)} / ${b.committed.toFixed(1)} ms, ` +
+            `bare ${bare[i]?.painted.toFixed(1)} / ${bare[i]?.committed.toFixed(1)} ms`,
         ),
       );
     const rows = (["painted", "committed"] as const).map((k) => {
@@ -210,13 +214,15 @@ async function main() {
       };
     });
     console.log(
-      `\nbench:entry — ${ENTRIES} entries each (after ${WARMUP} warm-up), the two pages in turn, Chromium, CPU throttled ${THROTTLE}×, offline; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores\n`,
+      `\nbench:entry — ${ENTRIES} entries each (after ${WARMUP} warm-up), the two pages in turn, Chromium, ` +
+        `CPU throttled ${THROTTLE}×, offline; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores\n`,
     );
     console.log("figure                           bench p50  bench p95   bare p50   bare p95   p95 ratio  target");
     for (const r of rows) {
       const f = (x: number) => `${x.toFixed(1).padStart(7)} ms`;
       console.log(
-        `${r.figure.padEnd(32)} ${f(r.bench.p50)} ${f(r.bench.p95)} ${f(r.bare.p50)} ${f(r.bare.p95)}   ${r.ratio.toFixed(2).padStart(6)}×  ≤ 1.25× ${r.ratio <= 1.25 ? "met" : "NOT met"}`,
+        `${r.figure.padEnd(32)} ${f(r.bench.p50)} ${f(r.bench.p95)} ${f(r.bare.p50)} ${f(r.bare.p95)}   ` +
+          `${r.ratio.toFixed(2).padStart(6)}×  ≤ 1.25× ${r.ratio <= 1.25 ? "met" : "NOT met"}`,
       );
     }
   } finally {

@@ -21,7 +21,8 @@ for (const n of p.nodes) for (const c of n.children ?? []) parent.set(c, n.id);
 const self = new Map<string, number>();
 const total = new Map<string, number>();
 const key = (n: Node) =>
-  `${n.callFrame.functionName || "(anonymous)"} ${n.callFrame.url.replace(/^.*\/(lib|app|node_modules|scripts)\//, "$1/")}:${n.callFrame.lineNumber + 1}`;
+  `${n.callFrame.functionName || "(anonymous)"} ` +
+  `${n.callFrame.url.replace(/^.*\/(lib|app|node_modules|scripts)\//, "$1/")}:${n.callFrame.lineNumber + 1}`;
 p.samples.forEach((id, i) => {
   const dt = (p.timeDeltas[i + 1] ?? 0) / 1000;
   const k = key(byId.get(id)!);

@@ -65,16 +65,20 @@ async function main() {
     ];
     const cpu = (m: typeof one) => `CPU: node ${m.node.toFixed(0)} ms, MariaDB ${m.db.toFixed(0)} ms`;
     console.log(
-      `bench:sync  ${fmt(readings.length)} readings in batches of ${BATCH} over ${oneTablet.length} V8 jobs (${await ctx.countFlags(oneTablet)} flags opened), ${queries.toFixed(1)} queries per batch; load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores`,
+      `bench:sync  ${fmt(readings.length)} readings in batches of ${BATCH} over ${oneTablet.length} V8 jobs ` +
+        `(${await ctx.countFlags(oneTablet)} flags opened), ${queries.toFixed(1)} queries per batch; ` +
+        `load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores`,
     );
     console.log(
-      `  POST /api/sync, one tablet  : ${fmt(h).padStart(7)} readings/s (${one.wall.toFixed(0)} ms; ${cpu(one)}; readings, verdicts, flags, audit and change feed)`,
+      `  POST /api/sync, one tablet  : ${fmt(h).padStart(7)} readings/s (${one.wall.toFixed(0)} ms; ${cpu(one)}; ` +
+        "readings, verdicts, flags, audit and change feed)",
     );
     console.log(
       `  POST /api/sync, four tablets: ${fmt(p).padStart(7)} readings/s (${four.wall.toFixed(0)} ms; ${cpu(four)})`,
     );
     console.log(
-      `  raw multi-row INSERT        : ${fmt(r).padStart(7)} readings/s (${bare.wall.toFixed(0)} ms; ${cpu(bare)}; the readings table only)`,
+      `  raw multi-row INSERT        : ${fmt(r).padStart(7)} readings/s (${bare.wall.toFixed(0)} ms; ${cpu(bare)}; ` +
+        "the readings table only)",
     );
     console.log(
       `  ratio handler / raw         : ${(h / r).toFixed(2)} one tablet, ${(p / r).toFixed(2)} four tablets (target ≥ 0.50)`,

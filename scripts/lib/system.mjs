@@ -27,7 +27,8 @@ export function ensureSystemPackages(names) {
   const isRoot = typeof process.getuid === "function" && process.getuid() === 0;
   if (!isRoot) {
     console.error(
-      `\nTenthwise needs these Debian packages: ${pkgs.join(" ")}\nInstall them with:\n  sudo apt-get update && sudo apt-get install -y ${pkgs.join(" ")}\n`,
+      `\nTenthwise needs these Debian packages: ${pkgs.join(" ")}\nInstall them with:\n` +
+        `  sudo apt-get update && sudo apt-get install -y ${pkgs.join(" ")}\n`,
     );
     process.exit(1);
   }

@@ -80,7 +80,8 @@ describe("bearing selection on a job", () => {
     };
     const preview = (await send(PREVIEW, a.users.lead, "POST", "/choice/preview", choice)).body as SelectionAnswer;
     expect(preview.problems).toEqual([]);
-    // One half thinner (the thicker half in the cap of a main, common practice): 2.5754 − 0.0622 − 0.0617 − 2.4500 = 0.0015 in, on the window's lower edge.
+    // One half thinner (the thicker half in the cap of a main, common practice):
+    // 2.5754 − 0.0622 − 0.0617 − 2.4500 = 0.0015 in, on the window's lower edge.
     expect(preview.points.find((p) => p.point === "main/2")!.predicted!.value).toBe(0.0015);
     expect(preview.moved.length).toBe(2); // nothing was saved yet, so both points move
     const saved = await send(SAVE, a.users.lead, "PUT", "/choice", choice);

@@ -63,7 +63,10 @@ describe("release checklist: gauge studies", () => {
     expect(check.ok).toBe(false);
     const item = check.items.find((i) => i.key === `gauges:study-failed:${s.gauges.bore}`)!;
     expect(item.text).toMatch(
-      /^Kit bore gauge \(serial KIT-BORE-[\w-]+\) fails its repeatability study of 2026-06-01 for a tolerance of 0\.001 in: Cg 0\.33 is below 1\.33/,
+      new RegExp(
+        /^Kit bore gauge \(serial KIT-BORE-[\w-]+\) fails its repeatability study of 2026-06-01 /.source +
+          /for a tolerance of 0\.001 in: Cg 0\.33 is below 1\.33/.source,
+      ),
     );
     expect(item.text).toMatch(/on 48 current readings: Cylinder \d/);
     expect(item.text).toMatch(/Measure again with a gauge capable for this tolerance/);

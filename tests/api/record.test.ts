@@ -37,67 +37,72 @@ function hasPdftoppm(): boolean {
 }
 
 describe("GET /api/record/[jobId]/pdf", () => {
-  it("prints readings with limits and verdicts, derived values, torque with lubricant, decisions, the plan, the signature and the hash", async () => {
-    const job = await createRecordJob();
-    const res = await getPdf(job.users.inspector, job.job.id);
-    expect(res.status).toBe(200);
-    expect(res.type).toBe("application/pdf");
-    expect(res.disposition).toBe(`inline; filename="build-record-${job.job.code}.pdf"`);
-    expect(res.bytes.subarray(0, 5).toString()).toBe("%PDF-");
-    const { text, pages } = await pdfText(res.bytes);
-    expect(pages).toBeGreaterThanOrEqual(2);
-    // Readings as entered, with their limits and the verdict in words.
-    expect(text).toContain("4.0301 in");
-    expect(text).toContain("4.0295 to 4.0305 in");
-    expect(text).toContain("4.0309 in");
-    expect(text).toMatch(/OUT OF SPEC/);
-    expect(text).toMatch(/IN SPEC/);
-    // Derived: main oil clearance 2.4523 − 2.4502 = 0.0021 in (test fixture arithmetic).
-    expect(text).toContain("Main bearing oil clearance");
-    expect(text).toContain("0.0021 in");
-    expect(text).toContain("Bore taper");
-    // Torque with its lubricant, and the decision on the out-of-spec bore with its reason.
-    expect(text).toContain("68 lbf·ft");
-    expect(text).toContain("Engine oil");
-    expect(text).toContain("Moly assembly paste");
-    expect(text).toContain(`Accepted as is. Reason: ${ACCEPT_REASON}`);
-    expect(text).toContain(job.users.lead.name);
-    // The plan and a figure the core computes from it: deck clearance 9.025 − 3.48/2 − 5.7 − 1.56 = 0.025 in.
-    expect(text).toContain("Deck clearance");
-    expect(text).toContain("0.0250 in (piston below the deck");
-    expect(text).toContain("Static compression ratio");
-    // The gauge, the photo, the signature, the hash and its check, and the safety notice.
-    expect(text).toContain("Test bore gauge");
-    expect(text).toContain("Photo 1: the job");
-    expect(text).toContain("RELEASED FOR ASSEMBLY");
-    expect(text).toContain(`Signed by ${job.release!.signedName}`);
-    expect(text).toContain(job.release!.hash);
-    expect(text).toContain("Matches: the record in the database now gives the same fingerprint");
-    expect(text).toContain("do not replace the fastener or engine maker's instructions");
-    expect(text).toContain("Follow local codes and licensed practice");
-    expect(text).toContain(`Page 1 of ${pages}`);
+  it(
+    "prints readings with limits and verdicts, derived values, torque with lubricant, decisions, the plan, " +
+      "the signature and the hash",
+    async () => {
+      const job = await createRecordJob();
+      const res = await getPdf(job.users.inspector, job.job.id);
+      expect(res.status).toBe(200);
+      expect(res.type).toBe("application/pdf");
+      expect(res.disposition).toBe(`inline; filename="build-record-${job.job.code}.pdf"`);
+      expect(res.bytes.subarray(0, 5).toString()).toBe("%PDF-");
+      const { text, pages } = await pdfText(res.bytes);
+      expect(pages).toBeGreaterThanOrEqual(2);
+      // Readings as entered, with their limits and the verdict in words.
+      expect(text).toContain("4.0301 in");
+      expect(text).toContain("4.0295 to 4.0305 in");
+      expect(text).toContain("4.0309 in");
+      expect(text).toMatch(/OUT OF SPEC/);
+      expect(text).toMatch(/IN SPEC/);
+      // Derived: main oil clearance 2.4523 − 2.4502 = 0.0021 in (test fixture arithmetic).
+      expect(text).toContain("Main bearing oil clearance");
+      expect(text).toContain("0.0021 in");
+      expect(text).toContain("Bore taper");
+      // Torque with its lubricant, and the decision on the out-of-spec bore with its reason.
+      expect(text).toContain("68 lbf·ft");
+      expect(text).toContain("Engine oil");
+      expect(text).toContain("Moly assembly paste");
+      expect(text).toContain(`Accepted as is. Reason: ${ACCEPT_REASON}`);
+      expect(text).toContain(job.users.lead.name);
+      // The plan and a figure the core computes from it: deck clearance 9.025 − 3.48/2 − 5.7 − 1.56 = 0.025 in.
+      expect(text).toContain("Deck clearance");
+      expect(text).toContain("0.0250 in (piston below the deck");
+      expect(text).toContain("Static compression ratio");
+      // The gauge, the photo, the signature, the hash and its check, and the safety notice.
+      expect(text).toContain("Test bore gauge");
+      expect(text).toContain("Photo 1: the job");
+      expect(text).toContain("RELEASED FOR ASSEMBLY");
+      expect(text).toContain(`Signed by ${job.release!.signedName}`);
+      expect(text).toContain(job.release!.hash);
+      expect(text).toContain("Matches: the record in the database now gives the same fingerprint");
+      expect(text).toContain("do not replace the fastener or engine maker's instructions");
+      expect(text).toContain("Follow local codes and licensed practice");
+      expect(text).toContain(`Page 1 of ${pages}`);
 
-    mkdirSync("tests/artifacts", { recursive: true });
-    writeFileSync("tests/artifacts/record.pdf", res.bytes);
-    if (hasPdftoppm()) {
-      execFileSync("pdftoppm", [
-        "-png",
-        "-r",
-        "80",
-        "-f",
-        "1",
-        "-l",
-        "2",
-        "tests/artifacts/record.pdf",
-        "tests/artifacts/record-page",
-      ]);
-      expect(existsSync("tests/artifacts/record-page-1.png")).toBe(true);
-    } else {
-      console.warn(
-        "pdftoppm is not installed (poppler-utils): the PDF was written to tests/artifacts/record.pdf but no page was rendered to PNG",
-      );
-    }
-  });
+      mkdirSync("tests/artifacts", { recursive: true });
+      writeFileSync("tests/artifacts/record.pdf", res.bytes);
+      if (hasPdftoppm()) {
+        execFileSync("pdftoppm", [
+          "-png",
+          "-r",
+          "80",
+          "-f",
+          "1",
+          "-l",
+          "2",
+          "tests/artifacts/record.pdf",
+          "tests/artifacts/record-page",
+        ]);
+        expect(existsSync("tests/artifacts/record-page-1.png")).toBe(true);
+      } else {
+        console.warn(
+          "pdftoppm is not installed (poppler-utils): the PDF was written to tests/artifacts/record.pdf " +
+            "but no page was rendered to PNG",
+        );
+      }
+    },
+  );
 
   it("marks a voided release VOID, a job never released DRAFT, and a record changed after release", async () => {
     const job = await createRecordJob();

@@ -167,7 +167,10 @@ describe("verification", () => {
       s.job.id,
     ]);
     await db.query(
-      "INSERT INTO readings (id, shop_id, job_id, station_id, characteristic, value_canonical, unit_entered, taken_by, taken_at, received_at, device_id, created_at, updated_at) VALUES (UUID(), ?, ?, 'skirt/1', 'piston_skirt_diameter', 102.3, 'in', ?, NOW(3), NOW(3), 'sql', NOW(3), NOW(3))",
+      `INSERT INTO readings (id, shop_id, job_id, station_id, characteristic, value_canonical, unit_entered,
+         taken_by, taken_at, received_at, device_id, created_at, updated_at)
+       VALUES (UUID(), ?, ?, 'skirt/1', 'piston_skirt_diameter', 102.3, 'in', ?,
+         NOW(3), NOW(3), 'sql', NOW(3), NOW(3))`,
       { replacements: [s.shop.id, s.job.id, s.users.machinist.id] },
     );
     const res = await check(s);

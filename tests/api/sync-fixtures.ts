@@ -88,7 +88,8 @@ export async function flagsOf(jobId: number) {
     closedByReadingId: string | null;
     value: string | number;
   }>(
-    "SELECT id, reading_id AS readingId, derived_key AS derivedKey, station_id AS stationId, state, reason, verdict, closed_by_reading_id AS closedByReadingId, value FROM flags WHERE job_id = ? ORDER BY id",
+    `SELECT id, reading_id AS readingId, derived_key AS derivedKey, station_id AS stationId, state, reason, verdict,
+       closed_by_reading_id AS closedByReadingId, value FROM flags WHERE job_id = ? ORDER BY id`,
     { replacements: [jobId], type: QueryTypes.SELECT },
   );
 }
@@ -108,7 +109,8 @@ type SyncedEntry = {
  */
 export async function syncedInAudit(shopId: number) {
   const rows = await getSequelize().query<{ userId: number; entityType: string; entityId: string; after: unknown }>(
-    "SELECT user_id AS userId, entity_type AS entityType, entity_id AS entityId, `after` FROM audit_events WHERE shop_id = ? AND action = 'readings.sync' ORDER BY id",
+    "SELECT user_id AS userId, entity_type AS entityType, entity_id AS entityId, `after` FROM audit_events " +
+      "WHERE shop_id = ? AND action = 'readings.sync' ORDER BY id",
     { replacements: [shopId], type: QueryTypes.SELECT },
   );
   return rows.flatMap((r) => {

@@ -170,7 +170,8 @@ describe("POST /api/sync: dial bore gauge mode", () => {
     expect(res.status).toBe(200);
     expect(
       await count(
-        "SELECT COUNT(*) AS n FROM readings WHERE id = ? AND entry_mode = 'dial' AND dial_setting = 4.03 AND dial_deviation = -0.0002 AND value_entered = 4.0302",
+        `SELECT COUNT(*) AS n FROM readings WHERE id = ? AND entry_mode = 'dial'
+           AND dial_setting = 4.03 AND dial_deviation = -0.0002 AND value_entered = 4.0302`,
         [r.id],
       ),
     ).toBe(1);

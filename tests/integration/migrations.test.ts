@@ -54,7 +54,8 @@ async function schemaSnapshot(): Promise<string> {
     parts.push(String(row["Create Table"]).replace(/ AUTO_INCREMENT=\d+/, ""));
   }
   const triggers = await select<{ name: string; timing: string; event: string; body: string }>(
-    "SELECT trigger_name AS name, action_timing AS timing, event_manipulation AS event, action_statement AS body FROM information_schema.triggers WHERE trigger_schema = DATABASE() ORDER BY trigger_name",
+    `SELECT trigger_name AS name, action_timing AS timing, event_manipulation AS event, action_statement AS body
+     FROM information_schema.triggers WHERE trigger_schema = DATABASE() ORDER BY trigger_name`,
   );
   return [...parts, JSON.stringify(triggers)].join("\n");
 }
@@ -137,7 +138,8 @@ describe("migrations", () => {
     expect(await umzug.pending()).toEqual([]);
     expect(await tableNames()).toEqual([...MIGRATED_TABLES].sort());
     const collations = await select<{ name: string; collation: string }>(
-      `SELECT table_name AS name, table_collation AS collation FROM information_schema.tables WHERE table_schema = DATABASE() AND ${IGNORED}`,
+      `SELECT table_name AS name, table_collation AS collation FROM information_schema.tables
+       WHERE table_schema = DATABASE() AND ${IGNORED}`,
     );
     for (const c of collations) expect(c.collation, c.name).toMatch(/^utf8mb4_/);
     expect(await triggerNames()).toEqual(

@@ -107,7 +107,8 @@ const rawAuditPage =
         COUNT_AHEAD + 1,
       ]),
       c.query(
-        `SELECT e.*, j.code, u.name FROM (SELECT e.id FROM audit_events e FORCE INDEX (${index}) WHERE ${where} ORDER BY ${order} LIMIT 25) page
+        `SELECT e.*, j.code, u.name FROM (SELECT e.id FROM audit_events e FORCE INDEX (${index})
+         WHERE ${where} ORDER BY ${order} LIMIT 25) page
          JOIN audit_events e ON e.id = page.id LEFT JOIN jobs j ON j.id = e.job_id AND j.shop_id = e.shop_id
          LEFT JOIN users u ON u.id = e.user_id AND u.shop_id = e.shop_id ORDER BY ${order}`,
         args,
