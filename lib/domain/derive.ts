@@ -20,7 +20,15 @@ import { recipes, type PassMemo, type Recipe } from "./derive-recipes";
 import { limitContextFor } from "./job-sizes";
 import { judge, limitsFor } from "./limits";
 import type { LengthUnit } from "./enums";
-import type { DerivedCharacteristic, DerivedValue, EngineShape, Evaluation, RawReading, SpecLimit } from "./types";
+import type {
+  DerivedCharacteristic,
+  DerivedValue,
+  EngineShape,
+  Evaluation,
+  RawReading,
+  SpecLimit,
+  ThermalCorrection,
+} from "./types";
 import { clearanceUncertainty } from "./uncertainty";
 import { cleanDecimal } from "./units";
 
@@ -118,7 +126,8 @@ function derive(recipe: Recipe, pass: Pass): DerivedValue {
   }
   const value = recipe.compute(values, pass.memo);
   const U = combinedU(got, engine);
-  const corrections = got.flatMap((p) => (p.correction ? [p.correction] : []));
+  const corrections: ThermalCorrection[] = [];
+  for (const p of got) if (p.correction) corrections.push(p.correction);
   // judge reports the value in the limit's unit (a length unit, or the engine's when it cannot convert).
   const judged: Evaluation = found.limits
     ? judge(value, unit, U, found.limits)

@@ -77,13 +77,13 @@ export function findLimit(
   characteristic: CharacteristicId,
   stationId: string,
 ): SpecLimit | undefined {
-  const have = stationId.split("/");
+  let have: string[] | undefined; // split only once a limit of the characteristic is met (most are not)
   let best: SpecLimit | undefined;
   let bestScore: [number, number] = [-1, -1];
   for (const limit of spec) {
     if (limit.characteristic !== characteristic) continue;
     const { parts, literal } = compilePattern(limit.stationPattern);
-    if (!matchParts(parts, have)) continue;
+    if (!matchParts(parts, (have ??= stationId.split("/")))) continue;
     const better = literal > bestScore[0] || (literal === bestScore[0] && parts.length > bestScore[1]);
     if (better) {
       best = limit;
