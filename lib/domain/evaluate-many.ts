@@ -30,8 +30,9 @@ class JobJudging {
   private route?: Set<string>;
   private byStation?: Map<string, RawReading[]>;
   private readonly means = new Map<string, number | undefined>();
-  private readonly contexts = new Map<string, LimitContext>();
-  private readonly resolved = new Map<SpecLimit, Map<string, Found>>();
+  private readonly contexts = new Map<CharacteristicId, Map<number | undefined, LimitContext>>();
+  private readonly resolved = new Map<SpecLimit, Map<LimitContext, Found>>();
+  private readonly specOf = new Map<CharacteristicId, SpecLimit[]>();
 
   constructor(
     private readonly engine: EngineShape,
@@ -72,22 +73,27 @@ class JobJudging {
   /** limitsFor at the station: the limit found per station, resolved once per limit and context. */
   private limitsAt(p: Prepared, stationId: string, measured: number | undefined): Found {
     const characteristic: CharacteristicId = p.characteristic;
-    const limit = findLimit(this.spec, characteristic, stationId);
-    const contextKey = `${characteristic} ${measured}`;
-    let context = this.contexts.get(contextKey);
-    if (!context) {
-      context = limitContextFor(characteristic, this.engine, measured);
-      this.contexts.set(contextKey, context);
-    }
+    const context = this.contextOf(characteristic, measured);
+    // findLimit over the characteristic's own limits, in the spec's order: the same limit wins.
+    let theirs = this.specOf.get(characteristic);
+    if (!theirs)
+      this.specOf.set(characteristic, (theirs = this.spec.filter((l) => l.characteristic === characteristic)));
+    const limit = findLimit(theirs, characteristic, stationId);
     if (!limit) return limitOrNote(undefined, characteristic, stationId, context);
     let byContext = this.resolved.get(limit);
     if (!byContext) this.resolved.set(limit, (byContext = new Map()));
-    let found = byContext.get(contextKey);
-    if (!found) {
-      found = limitOrNote(limit, characteristic, stationId, context);
-      byContext.set(contextKey, found);
-    }
+    let found = byContext.get(context);
+    if (!found) byContext.set(context, (found = limitOrNote(limit, characteristic, stationId, context)));
     return found;
+  }
+
+  /** limitContextFor, one object per characteristic and measured size (so it can key the resolved limits). */
+  private contextOf(characteristic: CharacteristicId, measured: number | undefined): LimitContext {
+    let bySize = this.contexts.get(characteristic);
+    if (!bySize) this.contexts.set(characteristic, (bySize = new Map()));
+    let context = bySize.get(measured);
+    if (!context) bySize.set(measured, (context = limitContextFor(characteristic, this.engine, measured)));
+    return context;
   }
 }
 
