@@ -102,6 +102,9 @@ describe("PUT and DELETE /api/instruments/:id/master", () => {
     const refused = await patch({ rangeMin: 2, rangeMax: 4 });
     expect(refused.status).toBe(422);
     expect(refused.body.error.fields.rangeMax[0]).toMatch(/^The setting master on file \(Ring 4\.0300, 4\.03 in\)/);
+    expect(refused.body.error.fields.rangeMin).toBeUndefined(); // the end that leaves it out, only
+    const above = await patch({ rangeMin: 4.5, rangeMax: 6 });
+    expect(Object.keys(above.body.error.fields)).toEqual(["rangeMin"]);
     expect((await readOne(a.users.admin, id)).body.instrument.rangeMax).toBe(6);
     expect((await patch({ rangeMin: 4, rangeMax: 5 })).status).toBe(200); // still holds 4.03 in
     expect((await patch({ rangeMin: 2, rangeMax: 6 })).status).toBe(200);

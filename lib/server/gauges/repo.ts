@@ -169,7 +169,8 @@ function masterOutsideRange(
   const words =
     `The setting master on file (${master.label ?? "unnamed"}, ${master.size} ${unit}) would fall outside ` +
     `this range; keep ${master.size} ${unit} inside it, or change or remove the master first`;
-  return new AppError("invalid", words, { rangeMin: [words], rangeMax: [words] });
+  const field = next.rangeMax !== null && master.size > next.rangeMax ? "rangeMax" : "rangeMin"; // the end to move
+  return new AppError("invalid", words, { [field]: [words] });
 }
 
 function actionFor(g: Instrument, patch: InstrumentPatch): string {
