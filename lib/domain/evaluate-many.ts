@@ -46,7 +46,8 @@ class JobJudging {
     this.route ??= routeIds(engine);
     if (!this.route.has(reading.stationId)) {
       throw new Error(
-        `Station '${reading.stationId}' is not on this engine's route (${engine.cylinders} cylinders, ${engine.mains} mains)`,
+        `Station '${reading.stationId}' is not on this engine's route ` +
+          `(${engine.cylinders} cylinders, ${engine.mains} mains)`,
       );
     }
     const sizeFrom = limitInputs(reading.stationId);
