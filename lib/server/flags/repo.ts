@@ -7,7 +7,7 @@ import { models } from "@/lib/server/core/db";
 import { notFound } from "@/lib/server/core/errors";
 import { settleAll } from "@/lib/server/core/sql-driver";
 import { fromSql } from "@/lib/server/flags/flag-row";
-import { readRows, withReads } from "@/lib/server/core/sql-read";
+import { readRows, withReads, type Read } from "@/lib/server/core/sql-read";
 
 // The lead's flags: the feature's one door to the database. The queue is filtered, sorted and
 // paginated in the database; a decision appends its history row and sets the flag's latest one.
@@ -199,20 +199,25 @@ export type FlagDecisionRow = {
 };
 
 /**
- * The job's flags, oldest first, of these readings, and with `derived`, of its computed values too:
- * one statement (the CSV reads them with each page of readings).
+ * The job's flags, oldest first, of these readings (or of all its readings), and with `derived`, of
+ * its computed values too: one statement (the CSV reads them with each page of readings).
  */
 export async function flagDecisions(
   shopId: number,
   jobId: number,
-  readingIds: string[],
+  readingIds: string[] | "all",
   derived = false,
+  read: Read = readRows,
 ): Promise<FlagDecisionRow[]> {
-  const of = [...(readingIds.length ? ["reading_id IN (?)"] : []), ...(derived ? ["derived_key IS NOT NULL"] : [])];
+  const some = Array.isArray(readingIds) && readingIds.length > 0;
+  const of = [
+    ...(readingIds === "all" ? ["reading_id IS NOT NULL"] : some ? ["reading_id IN (?)"] : []),
+    ...(derived ? ["derived_key IS NOT NULL"] : []),
+  ];
   if (!of.length) return [];
-  return readRows<FlagDecisionRow>(
+  return read<FlagDecisionRow>(
     `SELECT id, reading_id AS readingId, derived_key AS derivedKey, state, disposition, operation FROM flags
       WHERE shop_id = ? AND job_id = ? AND (${of.join(" OR ")}) ORDER BY id`,
-    [shopId, jobId, ...(readingIds.length ? [readingIds] : [])],
+    [shopId, jobId, ...(some ? [readingIds] : [])],
   );
 }

@@ -1,7 +1,9 @@
 import "server-only";
 import { benchRoute, currentValues } from "@/lib/domain";
 import type { StoredReading } from "@/lib/schemas/readings";
-import { loadJobContext } from "@/lib/server/jobs/repo";
+import { settleAll } from "@/lib/server/core/sql-driver";
+import { withReads } from "@/lib/server/core/sql-read";
+import { jobContextOn } from "@/lib/server/jobs/repo";
 import { BOM, csvLine } from "@/lib/server/readings/csv-export";
 import {
   csvHeader,
@@ -14,7 +16,7 @@ import {
 } from "@/lib/server/readings/csv-export-rows";
 import { flagDecisions } from "@/lib/server/flags/repo";
 import { stationsWithReadings } from "@/lib/server/readings/csv-repo";
-import { currentJobReadings, findInstruments, jobReadingPage } from "@/lib/server/readings/repo";
+import { currentJobReadings, findInstruments, jobGaugesOn, jobReadingPage } from "@/lib/server/readings/repo";
 import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { toRaw } from "@/lib/server/sync/ingest-evaluate";
 import { peopleNames } from "@/lib/server/users/repo";
@@ -80,12 +82,18 @@ async function* historyRows(shopId: number, jobId: number, route: string[], shar
  * first (404 before anything is sent), then `lines` yields the file a piece at a time.
  */
 export async function readingsCsv(shopId: number, jobId: number, opts: { history?: boolean } = {}) {
-  // The job (a 404 before anything is sent), its current readings and the shop's people at once.
-  const [ctx, currents, takers] = await Promise.all([
-    loadJobContext(shopId, jobId),
-    currentJobReadings(jobId),
-    peopleNames(shopId),
-  ]);
+  // In one round trip on one connection: the job (a 404 before anything is sent), its current
+  // readings, the shop's people, the job's gauges and the flags of its computed values and (without
+  // history, where each page reads its own) of its readings; the CSV prints those of current ones.
+  const [ctx, currents, takers, instruments, flags] = await withReads((read) =>
+    settleAll([
+      jobContextOn(read, shopId, jobId),
+      currentJobReadings(jobId, read),
+      peopleNames(shopId, read),
+      jobGaugesOn(read, shopId, jobId),
+      flagDecisions(shopId, jobId, opts.history ? [] : "all", true, read),
+    ]),
+  );
   const units = unitsOf(ctx.job.unitSystem);
   let route: string[] = [];
   try {
@@ -94,16 +102,6 @@ export async function readingsCsv(shopId: number, jobId: number, opts: { history
     // An engine the core cannot lay out: readings still export, in the order they were taken.
   }
   async function* lines(): AsyncGenerator<string> {
-    // The current readings' gauges, and in one statement the flags of the computed values and
-    // (without history, where each page reads its own) of the current readings.
-    const [instruments, flags] = await Promise.all([
-      findInstruments(
-        undefined,
-        shopId,
-        currents.flatMap((r) => (r.instrumentId ? [r.instrumentId] : [])),
-      ),
-      flagDecisions(shopId, jobId, opts.history ? [] : currents.map((r) => r.id), true),
-    ]);
     const shared: Shared = { units, current: new Set(currents.map((r) => r.id)), instruments, takers };
     yield `${BOM}${csvLine(csvHeader(units))}`;
     if (opts.history) yield* historyRows(shopId, jobId, route, shared);

@@ -96,12 +96,12 @@ export async function jobReadings(t: Transaction | undefined, jobId: number, loc
  * SQL (no reading of the job supersedes it; of the rest the latest taken, then the larger id), so
  * the job's history is never read into memory.
  */
-export async function currentJobReadings(jobId: number): Promise<StoredReading[]> {
+export async function currentJobReadings(jobId: number, read: Read = readRows): Promise<StoredReading[]> {
   // The derived table is named `readings`, so the shared column list and order apply to it.
   const sql = `SELECT ${COLUMNS} FROM (SELECT r.*, ROW_NUMBER() OVER (PARTITION BY r.station_id
       ORDER BY r.taken_at DESC, r.id DESC) AS n FROM readings r WHERE r.job_id = ? AND NOT EXISTS
       (SELECT 1 FROM readings s WHERE s.supersedes = r.id AND s.job_id = r.job_id)) readings WHERE n = 1 ${ORDER}`;
-  return (await readRows(sql, [jobId])).map(fromRow);
+  return (await read(sql, [jobId])).map(fromRow);
 }
 
 /** A page of a job's readings at these stations, oldest first (jobReadings' order), after `from`. */
@@ -164,15 +164,21 @@ export async function jobReadingsOn(
   shopId: number,
   jobId: number,
 ): Promise<{ readings: StoredReading[]; instruments: Map<number, InstrumentInfo> }> {
-  const [rows, gauges] = await settleAll([
+  const [rows, instruments] = await settleAll([
     read(`SELECT ${COLUMNS} FROM readings WHERE job_id = ? ${ORDER}`, [jobId]),
-    read(
-      `SELECT ${GAUGE_COLUMNS} FROM instruments g
-        WHERE g.shop_id = ? AND g.id IN (SELECT r.instrument_id FROM readings r WHERE r.job_id = ?)`,
-      [shopId, jobId],
-    ),
+    jobGaugesOn(read, shopId, jobId),
   ]);
-  return { readings: rows.map(fromRow), instruments: new Map(gauges.map((row) => [Number(row.gId), gaugeOf(row)])) };
+  return { readings: rows.map(fromRow), instruments };
+}
+
+/** The shop's gauges any reading of the job was taken with, through `read`. */
+export async function jobGaugesOn(read: Read, shopId: number, jobId: number): Promise<Map<number, InstrumentInfo>> {
+  const gauges = await read(
+    `SELECT ${GAUGE_COLUMNS} FROM instruments g
+      WHERE g.shop_id = ? AND g.id IN (SELECT r.instrument_id FROM readings r WHERE r.job_id = ?)`,
+    [shopId, jobId],
+  );
+  return new Map(gauges.map((row) => [Number(row.gId), gaugeOf(row)]));
 }
 
 /**

@@ -2,7 +2,7 @@ import "server-only";
 import { Op, type Transaction } from "sequelize";
 import type { User } from "@/models";
 import { models } from "@/lib/server/core/db";
-import { readRows } from "@/lib/server/core/sql-read";
+import { readRows, type Read } from "@/lib/server/core/sql-read";
 import type { Role } from "@/lib/schemas/enums";
 import type { ShopContact, ShopRecord } from "@/lib/schemas/user";
 
@@ -77,8 +77,8 @@ export async function listUsers(shopId: number, opts: { activeOnly?: boolean } =
 }
 
 /** Each of the shop's people's name by id (the readings CSV's "taken by"), read through the driver. */
-export async function peopleNames(shopId: number): Promise<Map<number, string>> {
-  const rows = await readRows<{ id: number; name: string }>("SELECT id, name FROM users WHERE shop_id = ?", [shopId]);
+export async function peopleNames(shopId: number, read: Read = readRows): Promise<Map<number, string>> {
+  const rows = await read<{ id: number; name: string }>("SELECT id, name FROM users WHERE shop_id = ?", [shopId]);
   return new Map(rows.map((r) => [Number(r.id), r.name]));
 }
 
