@@ -18,6 +18,7 @@ import { latestStudySql, studyFromSql } from "@/lib/server/gauge-studies/summary
 // names come from the map the model uses too (lib/schemas/readings.ts).
 const selectList = (table = "") => READING_FIELDS.map((k) => `${table}${READING_COLUMNS[k]} AS ${k}`).join(", ");
 const COLUMNS = selectList();
+const JOINED_COLUMNS = selectList("r.");
 const ORDER = "ORDER BY taken_at, received_at, id";
 
 function fromRow(row: Record<string, unknown>): StoredReading {
@@ -97,10 +98,12 @@ export async function jobReadings(t: Transaction | undefined, jobId: number, loc
  * the job's history is never read into memory.
  */
 export async function currentJobReadings(jobId: number, read: Read = readRows): Promise<StoredReading[]> {
-  // The derived table is named `readings`, so the shared column list and order apply to it.
-  const sql = `SELECT ${COLUMNS} FROM (SELECT r.*, ROW_NUMBER() OVER (PARTITION BY r.station_id
-      ORDER BY r.taken_at DESC, r.id DESC) AS n FROM readings r WHERE r.job_id = ? AND NOT EXISTS
-      (SELECT 1 FROM readings s WHERE s.supersedes = r.id AND s.job_id = r.job_id)) readings WHERE n = 1 ${ORDER}`;
+  // The current ids are ranked on the (job, station, taken) index alone, then only their rows are
+  // read by primary key: ranking whole rows copied every column of the job's history (twice the time).
+  const sql = `SELECT ${JOINED_COLUMNS} FROM (SELECT c.id, ROW_NUMBER() OVER (PARTITION BY c.station_id
+      ORDER BY c.taken_at DESC, c.id DESC) AS n FROM readings c WHERE c.job_id = ? AND NOT EXISTS
+      (SELECT 1 FROM readings s WHERE s.supersedes = c.id AND s.job_id = c.job_id)) ranked
+    JOIN readings r ON r.id = ranked.id WHERE ranked.n = 1 ORDER BY r.taken_at, r.received_at, r.id`;
   return (await read(sql, [jobId])).map(fromRow);
 }
 
@@ -127,7 +130,6 @@ const GAUGE_COLUMNS = `g.id AS gId, g.shop_id AS gShopId, g.kind AS gKind, g.lab
   g.range_min AS gRangeMin, g.range_max AS gRangeMax,
   g.calibration_due AS gCalibrationDue, g.dial_plus_means_smaller AS gDial, g.active AS gActive,
   ${latestStudySql("g")} AS gStudy`;
-const JOINED_COLUMNS = selectList("r.");
 
 function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
   const due = row.gCalibrationDue;
