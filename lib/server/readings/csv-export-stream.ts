@@ -16,7 +16,7 @@ import {
 } from "@/lib/server/readings/csv-export-rows";
 import { flagDecisions } from "@/lib/server/flags/repo";
 import { stationsWithReadings } from "@/lib/server/readings/csv-repo";
-import { currentJobReadings, findInstruments, jobGaugesOn, jobReadingPage } from "@/lib/server/readings/repo";
+import { currentJobReadings, findInstruments, jobReadingPage, shopGaugesOn } from "@/lib/server/readings/repo";
 import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { toRaw } from "@/lib/server/sync/ingest-evaluate";
 import { peopleNames } from "@/lib/server/users/repo";
@@ -83,14 +83,14 @@ async function* historyRows(shopId: number, jobId: number, route: string[], shar
  */
 export async function readingsCsv(shopId: number, jobId: number, opts: { history?: boolean } = {}) {
   // In one round trip on one connection: the job (a 404 before anything is sent), its current
-  // readings, the shop's people, the job's gauges and the flags of its computed values and (without
+  // readings, the shop's people and gauges, and the flags of its computed values and (without
   // history, where each page reads its own) of its readings; the CSV prints those of current ones.
   const [ctx, currents, takers, instruments, flags] = await withReads((read) =>
     settleAll([
       jobContextOn(read, shopId, jobId),
       currentJobReadings(jobId, read),
       peopleNames(shopId, read),
-      jobGaugesOn(read, shopId, jobId),
+      shopGaugesOn(read, shopId),
       flagDecisions(shopId, jobId, opts.history ? [] : "all", true, read),
     ]),
   );
