@@ -164,7 +164,7 @@ function stationOf(id: string, engine: EngineShape): Station {
  * What a route is made of: the fields STATION_IDS lays stations out from, and the unit system
  * their units come from. Not sizes or materials, which made the key cost more than the lookup.
  */
-export function routeKey(e: EngineShape): string {
+function routeKey(e: EngineShape): string {
   return JSON.stringify([
     e.cylinders,
     e.layout,

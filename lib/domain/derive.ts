@@ -5,7 +5,7 @@
 //
 // U of a derived value: the two largest input U (k = 2) are combined as the difference of two
 // readings (clearanceUncertainty, no shared part assumed); inputs without U count as 0.
-import { benchRoute, checkEngineShape, lengthUnitOf, routeKey } from "./bench-route";
+import { benchRoute, checkEngineShape, lengthUnitOf } from "./bench-route";
 import {
   boreMean,
   joinNotes,
@@ -21,6 +21,7 @@ import { limitContextFor } from "./job-sizes";
 import { judge, limitsFor } from "./limits";
 import type { LengthUnit } from "./enums";
 import type {
+  BenchRoute,
   DerivedCharacteristic,
   DerivedValue,
   EngineShape,
@@ -35,15 +36,14 @@ import { cleanDecimal } from "./units";
 export { limitInputs } from "./derive-prepare";
 export { derivedInputs } from "./derive-recipes";
 
-// The route's station ids, kept per route key (bench-route.ts): evaluateReading asks for each reading.
-const routeCache = new Map<string, Set<string>>();
+// The route's station ids, kept beside benchRoute's shared route: evaluateReading asks for each reading.
+const routeIdSets = new WeakMap<BenchRoute, Set<string>>();
 export function routeIds(engine: EngineShape): Set<string> {
-  const key = routeKey(engine);
-  let ids = routeCache.get(key);
+  const route = benchRoute(engine);
+  let ids = routeIdSets.get(route);
   if (!ids) {
-    if (routeCache.size > 50) routeCache.clear();
-    ids = new Set(benchRoute(engine).sections.flatMap((s) => s.stations.map((st) => st.id)));
-    routeCache.set(key, ids);
+    ids = new Set(route.sections.flatMap((s) => s.stations.map((st) => st.id)));
+    routeIdSets.set(route, ids);
   }
   return ids;
 }

@@ -133,9 +133,7 @@ function resolveNominalTol(limit: SpecLimit, nominal = need(limit, "nominal", "n
 }
 
 // A tolerance around the size the job states, e.g. "finished bore +0.0000/+0.0005 in".
-// Why a job-size limit cannot be worked out here, or undefined when it can. Asked before resolving
-// too (limitOrNote): a job without finished sizes meets it at every bore and journal station, and
-// building an Error for each was a tenth of a job page's derivation.
+// Why a job-size limit cannot be worked out here, or undefined when it can.
 function jobSizeProblem(limit: SpecLimit, context: LimitContext): string | undefined {
   const size = JOB_SIZE_OF[limit.characteristic];
   if (!size) {
@@ -247,8 +245,6 @@ export function limitOrNote(
   context: LimitContext = {},
 ): { limits?: ResolvedLimit; note?: string } {
   if (!limit) return { note: `The spec has no limit for ${characteristic} at ${stationId}` };
-  const problem = limit.limitType === "job_size_tol" ? jobSizeProblem(limit, context) : undefined;
-  if (problem) return { note: problem };
   try {
     return { limits: resolveLimit(limit, context) };
   } catch (err) {

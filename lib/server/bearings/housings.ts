@@ -8,7 +8,7 @@ import { assertJobEditable } from "@/lib/server/jobs/editable";
 import { toEngineShape } from "@/lib/server/jobs/context";
 import { getEngineOrThrow, lockJobOrThrow } from "@/lib/server/jobs/repo";
 import { recordAudit } from "@/lib/server/log/repo";
-import { findInstruments } from "@/lib/server/readings/repo";
+import { findInstruments } from "@/lib/server/readings/gauge-repo";
 import { listPoints, savePoint } from "@/lib/server/bearings/repo";
 
 // Each point's housing bore, measured without shells with the caps torqued, square to the parting

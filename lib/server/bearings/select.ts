@@ -15,7 +15,7 @@ import type { ChoiceInput, SelectionAnswer } from "@/lib/schemas/bearings";
 import { AppError } from "@/lib/server/core/errors";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { loadJobReadings } from "@/lib/server/jobs/readings";
-import { shopInstruments } from "@/lib/server/readings/repo";
+import { shopInstruments } from "@/lib/server/readings/gauge-repo";
 import { listPoints, listShells, type PointRow, type ShellRow } from "@/lib/server/bearings/repo";
 import { selectionInput, type PreparedInput } from "@/lib/server/bearings/inputs";
 

@@ -7,7 +7,7 @@ import { AppError } from "@/lib/server/core/errors";
 import { assertJobEditable } from "@/lib/server/jobs/editable";
 import { lockJobOrThrow } from "@/lib/server/jobs/repo";
 import { recordAudit } from "@/lib/server/log/repo";
-import { findInstruments } from "@/lib/server/readings/repo";
+import { findInstruments } from "@/lib/server/readings/gauge-repo";
 import {
   deleteShell,
   getShellOrThrow,

@@ -3,7 +3,7 @@ import { bearingPoints, isJobLocked, type LengthUnit } from "@/lib/domain";
 import type { BearingsView, PointView, ShellView } from "@/lib/schemas/bearings";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { loadJobReadings } from "@/lib/server/jobs/readings";
-import { shopInstruments } from "@/lib/server/readings/repo";
+import { shopInstruments } from "@/lib/server/readings/gauge-repo";
 import { listPoints, listShells, type PointRow, type ShellRow } from "@/lib/server/bearings/repo";
 import {
   derivedClearances,

@@ -1,7 +1,7 @@
 import "server-only";
 import type { StudyGauge } from "@/lib/schemas/bench-gauges";
 import { settingMasters } from "@/lib/server/bench/repo";
-import { shopInstruments } from "@/lib/server/readings/repo";
+import { shopInstruments } from "@/lib/server/readings/gauge-repo";
 
 /** The shop's gauges in use, as a job pack carries them, with their setting masters: what a study picks from. */
 export async function benchGauges(shopId: number): Promise<StudyGauge[]> {

@@ -8,7 +8,8 @@ import { progressOf } from "@/lib/server/board/progress";
 import { loadJobContext } from "@/lib/server/jobs/repo";
 import { chosenBearings } from "@/lib/server/bearings/bench";
 import { AppError, notFound } from "@/lib/server/core/errors";
-import { readingsOfJobs, shopInstruments } from "@/lib/server/readings/repo";
+import { readingsOfJobs } from "@/lib/server/readings/repo";
+import { shopInstruments } from "@/lib/server/readings/gauge-repo";
 import { toServerReading } from "@/lib/server/readings/server-reading";
 import { currentCursor } from "@/lib/server/sync/repo";
 

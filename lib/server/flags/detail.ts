@@ -5,7 +5,8 @@ import { toListItem } from "@/lib/server/flags/list";
 import { dispositionRows, getFlagOrThrow, userNames } from "@/lib/server/flags/repo";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { loadJobContext } from "@/lib/server/jobs/repo";
-import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
+import { jobReadings } from "@/lib/server/readings/repo";
+import { findInstruments } from "@/lib/server/readings/gauge-repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { listAttachments } from "@/lib/server/uploads/repo";
 

@@ -5,7 +5,8 @@ import type { UnitSystem } from "@/lib/schemas/enums";
 import { toRaw, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { toEngineShape } from "@/lib/server/jobs/context";
 import type { StoredReading } from "@/lib/schemas/readings";
-import { findInstruments, jobReadings } from "@/lib/server/readings/repo";
+import { jobReadings } from "@/lib/server/readings/repo";
+import { findInstruments } from "@/lib/server/readings/gauge-repo";
 import { jobSpecs, readingChains, type EngineRow } from "@/lib/server/jobs/repo";
 import { listUsers } from "@/lib/server/users/repo";
 

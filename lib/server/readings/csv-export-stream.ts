@@ -16,7 +16,8 @@ import {
 } from "@/lib/server/readings/csv-export-rows";
 import { flagDecisions } from "@/lib/server/flags/repo";
 import { stationsWithReadings } from "@/lib/server/readings/csv-repo";
-import { currentJobReadings, findInstruments, jobReadingPage, shopGaugesOn } from "@/lib/server/readings/repo";
+import { currentJobReadings, jobReadingPage } from "@/lib/server/readings/repo";
+import { findInstruments, shopGaugesOn } from "@/lib/server/readings/gauge-repo";
 import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
 import { toRaw } from "@/lib/server/sync/ingest-evaluate";
 import { peopleNames } from "@/lib/server/users/repo";

@@ -7,8 +7,8 @@ import { causalRows } from "@/lib/server/core/cluster";
 import { settleAll, sqlRows, sqlWrite, utcDate, utcText } from "@/lib/server/core/sql-driver";
 import { readRows, type Read } from "@/lib/server/core/sql-read";
 import { insertMany } from "@/lib/server/core/sql-insert";
-import { orNull, type InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
-import { latestStudySql, studyFromSql } from "@/lib/server/gauge-studies/summary-sql";
+import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
+import { GAUGE_COLUMNS, gaugeOf, shopGaugesOn } from "@/lib/server/readings/gauge-repo";
 
 // Readings and the gauges they were taken with. Plain objects out; every query scoped by shop or
 // by a job the caller has already checked belongs to the shop.
@@ -125,38 +125,6 @@ export async function jobReadingPage(
   );
 }
 
-const GAUGE_COLUMNS = `g.id AS gId, g.shop_id AS gShopId, g.kind AS gKind, g.label AS gLabel, g.serial AS gSerial,
-  g.unit AS gUnit, g.resolution AS gResolution, g.expanded_u AS gExpandedU, g.coverage_k AS gCoverageK,
-  g.range_min AS gRangeMin, g.range_max AS gRangeMax,
-  g.calibration_due AS gCalibrationDue, g.dial_plus_means_smaller AS gDial, g.active AS gActive,
-  ${latestStudySql("g")} AS gStudy`;
-
-function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
-  const due = row.gCalibrationDue;
-  return {
-    id: Number(row.gId),
-    shopId: Number(row.gShopId),
-    kind: String(row.gKind),
-    label: String(row.gLabel),
-    serial: String(row.gSerial),
-    unit: String(row.gUnit),
-    resolution: Number(row.gResolution),
-    expandedU: Number(row.gExpandedU),
-    coverageK: Number(row.gCoverageK ?? 2),
-    rangeMin: orNull(row.gRangeMin),
-    rangeMax: orNull(row.gRangeMax),
-    calibrationDue:
-      due === null || due === undefined
-        ? null
-        : due instanceof Date
-          ? due.toISOString().slice(0, 10)
-          : String(due).slice(0, 10),
-    dialPlusMeansSmaller: !!row.gDial,
-    active: !!row.gActive,
-    study: studyFromSql(row.gStudy),
-  };
-}
-
 /**
  * A job's readings, in no set order (its users pick each station's current reading by the core's
  * rule, which no order changes; sorting a job's whole rows was a third of the statement's time), and
@@ -173,15 +141,6 @@ export async function jobReadingsOn(
     shopGaugesOn(read, shopId),
   ]);
   return { readings: rows.map(fromRow), instruments };
-}
-
-/**
- * Every gauge of the shop, through `read`: a shop keeps tens, and reading them all takes a third of
- * the time of finding those a job's readings name among its readings.
- */
-export async function shopGaugesOn(read: Read, shopId: number): Promise<Map<number, InstrumentInfo>> {
-  const gauges = await read(`SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE g.shop_id = ?`, [shopId]);
-  return new Map(gauges.map((row) => [Number(row.gId), gaugeOf(row)]));
 }
 
 /**
@@ -235,45 +194,6 @@ export async function updateEvaluation(
   e: Pick<StoredReading, (typeof EVALUATION_FIELDS)[number]>,
 ): Promise<void> {
   await sqlWrite(t, UPDATE_EVALUATION, [...EVALUATION_FIELDS.map((k) => e[k]), new Date(), id]);
-}
-
-/** Gauges outside a transaction, with their latest study, by the same columns as the hot path. */
-function gaugeRows(where: string, replacements: unknown[]): Promise<Record<string, unknown>[]> {
-  return readRows(`SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE ${where}`, replacements);
-}
-
-/** The shop's gauges with these ids (other shops' ids are simply absent). */
-export async function findInstruments(
-  t: Transaction | undefined,
-  shopId: number,
-  ids: number[],
-): Promise<Map<number, InstrumentInfo>> {
-  if (ids.length === 0) return new Map();
-  if (t) {
-    const rows = await sqlRows(t, `SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE g.shop_id = ? AND g.id IN (?)`, [
-      shopId,
-      [...new Set(ids)],
-    ]);
-    return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
-  }
-  const rows = await gaugeRows("g.shop_id = ? AND g.id IN (?)", [shopId, [...new Set(ids)]]);
-  return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
-}
-
-/**
- * Every gauge of the shop, read in the batch's transaction: the readings name some, and a refusal
- * names the ones to pick instead.
- */
-export async function batchInstruments(t: Transaction, shopId: number): Promise<Map<number, InstrumentInfo>> {
-  const rows = await sqlRows(t, `SELECT ${GAUGE_COLUMNS} FROM instruments g WHERE g.shop_id = ? ORDER BY g.label`, [
-    shopId,
-  ]);
-  return new Map(rows.map((row) => [Number(row.gId), gaugeOf(row)]));
-}
-
-export async function shopInstruments(shopId: number): Promise<InstrumentInfo[]> {
-  const rows = await gaugeRows("g.shop_id = ? ORDER BY g.kind, g.label, g.id", [shopId]);
-  return rows.map(gaugeOf);
 }
 
 /** Readings with these ids within the given jobs (the feed's and the pack's view). */

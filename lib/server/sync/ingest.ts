@@ -20,7 +20,8 @@ import { readForReconcile, reconcileJob, type ReconcileLog } from "@/lib/server/
 import { checkItem, type BatchContext, type Checked } from "@/lib/server/sync/ingest-check";
 import { batchJobs, prefetchJobs } from "@/lib/server/sync/ingest-context";
 import { withDeadlockRetry } from "@/lib/server/sync/ingest-retry";
-import { batchInstruments, findReadings, insertReadings, lockJobRevisions } from "@/lib/server/readings/repo";
+import { findReadings, insertReadings, lockJobRevisions } from "@/lib/server/readings/repo";
+import { batchInstruments } from "@/lib/server/readings/gauge-repo";
 import type { StoredReading } from "@/lib/schemas/readings";
 import { settleAll } from "@/lib/server/core/sql-driver";
 import { lastChangeId } from "@/lib/server/sync/repo";
