@@ -71,14 +71,27 @@ export function currentReadings<R extends ChainedReading>(
   readings: readonly R[],
   options: CurrentOptions<R> = {},
 ): Map<string, R> {
-  const gone = supersededIds(readings, options);
-  const out = new Map<string, R>();
-  for (const r of readings) {
-    if (gone.has(r.id)) continue;
-    const had = out.get(r.stationId);
-    if (!had || takenLater(r, had)) out.set(r.stationId, r);
-  }
-  return out;
+  const pick = currentPicker<R>(supersededIds(readings, options));
+  for (const r of readings) pick.offer(r);
+  return pick.current;
+}
+
+/**
+ * currentReadings' rule for readings offered one at a time, once the ids that other readings
+ * replace are known: the server reads a job's history as a stream and holds only each station's
+ * current reading so far (a job's CSV export, in constant memory).
+ */
+export function currentPicker<R extends ChainedReading>(gone: ReadonlySet<string>) {
+  const current = new Map<string, R>();
+  return {
+    offer(r: R): void {
+      if (gone.has(r.id)) return;
+      const had = current.get(r.stationId);
+      if (!had || takenLater(r, had)) current.set(r.stationId, r);
+    },
+    /** Each station's current reading among those offered so far. */
+    current,
+  };
 }
 
 /** A reading that carries a figure: not a skip, with a value. */

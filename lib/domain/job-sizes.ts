@@ -69,11 +69,12 @@ export function limitContextFor(
   const nominal = size ? engine.nominalSizes?.[size] : undefined;
   const finished = size ? engine.finishedSizes?.[size] : undefined;
   const diameter = finished ?? measured ?? nominal;
-  return {
-    ...(diameter !== undefined ? { diameter: { value: diameter, unit } } : {}),
-    ...(nominal !== undefined ? { nominal: { value: nominal, unit } } : {}),
-    ...(finished !== undefined ? { jobSize: { value: finished, unit } } : {}),
-  };
+  // Built by assignment, in this key order: spreads of optional objects cost more than the rest.
+  const out: LimitContext = {};
+  if (diameter !== undefined) out.diameter = { value: diameter, unit };
+  if (nominal !== undefined) out.nominal = { value: nominal, unit };
+  if (finished !== undefined) out.jobSize = { value: finished, unit };
+  return out;
 }
 
 /**

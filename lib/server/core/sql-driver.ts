@@ -15,8 +15,10 @@ import type { Transaction } from "sequelize";
 // Dates travel as UTC text both ways ('YYYY-MM-DD HH:MM:SS.mmm'): the driver would format and
 // parse them in the Node process's local time zone, while the session runs at +00:00.
 
+type DriverStream = NodeJS.EventEmitter & { close(): void };
 export type DriverConnection = {
   query(opts: Record<string, unknown> & { sql: string }, values?: unknown[]): Promise<unknown>;
+  queryStream(opts: Record<string, unknown> & { sql: string }, values?: unknown[]): DriverStream;
 };
 export type WriteResult = { affectedRows: number; insertId: number };
 
@@ -76,6 +78,51 @@ export async function queryOn(c: DriverConnection, sql: string, values: unknown[
   const out = await c.query({ sql, ...OPTIONS }, params);
   trace?.(sql, performance.now() - started, params);
   return out;
+}
+
+/**
+ * A SELECT's rows handed over one at a time (a job's whole history, never held at once). The
+ * statement is issued at once, pipelined like any other; its rows wait on the connection (the
+ * driver pauses the socket) until `each` is called, so a caller can first await the answers of
+ * reads issued before it. Call `each` or `close` (which drops the rows), or the connection stays
+ * paused.
+ */
+export type RowStream<R> = {
+  /** Calls `onRow` for every row, in the order read; settles at the last row or the first error. */
+  each(onRow: (row: R) => void): Promise<void>;
+  close(): void;
+};
+
+export function streamOn<R>(c: DriverConnection, sql: string, values: unknown[]): RowStream<R> {
+  const started = trace ? performance.now() : 0;
+  const params = values.map(param);
+  const s = c.queryStream({ sql, ...OPTIONS }, params);
+  // The driver emits its errors whether or not anyone listens yet: keep the first for `each`.
+  let failure: unknown = null;
+  s.on("error", (e) => void (failure ??= e));
+  return {
+    each: (onRow) =>
+      new Promise<void>((resolve, reject) => {
+        const fail = (e: unknown) => {
+          s.close();
+          reject(e);
+        };
+        if (failure) return fail(failure);
+        s.on("error", fail);
+        s.on("data", (row: R) => {
+          try {
+            onRow(row);
+          } catch (e) {
+            fail(e);
+          }
+        });
+        s.on("end", () => {
+          trace?.(sql, performance.now() - started, params);
+          resolve();
+        });
+      }),
+    close: () => s.close(),
+  };
 }
 
 const run = (t: Transaction, sql: string, values: unknown[]) => queryOn(driverOf(t), sql, values);

@@ -1,6 +1,6 @@
 import "server-only";
 import { getSequelize } from "@/lib/server/core/db";
-import { queryOn, type DriverConnection } from "@/lib/server/core/sql-driver";
+import { queryOn, streamOn, type DriverConnection, type RowStream } from "@/lib/server/core/sql-driver";
 
 // Office reads straight on the mariadb driver, outside any transaction: a pooled connection of the
 // shared Sequelize instance, the same options as sql-driver.ts (plain row objects, DECIMAL and BIGINT
@@ -13,6 +13,8 @@ import { queryOn, type DriverConnection } from "@/lib/server/core/sql-driver";
 
 /** Runs one SELECT and gives its rows as plain objects. */
 export type Read = <R = Record<string, unknown>>(sql: string, values?: unknown[]) => Promise<R[]>;
+/** Runs one SELECT whose rows are handed over one at a time (sql-driver.ts's streamOn). */
+export type Stream = <R = Record<string, unknown>>(sql: string, values?: unknown[]) => RowStream<R>;
 
 type Pool = {
   getConnection(o: { type: "read" }): Promise<DriverConnection>;
@@ -22,15 +24,16 @@ type Pool = {
 const poolOf = () => (getSequelize() as unknown as { connectionManager: Pool }).connectionManager;
 
 /** Lends `fn` a pooled connection for its reads and gives it back once `fn` has settled. */
-export async function withReads<T>(fn: (read: Read) => Promise<T>): Promise<T> {
+export async function withReads<T>(fn: (read: Read, stream: Stream) => Promise<T>): Promise<T> {
   const pool = poolOf();
   const connection = await pool.getConnection({ type: "read" });
   const read: Read = async <R>(sql: string, values: unknown[] = []) => {
     const rows = (await queryOn(connection, sql, values)) as R[];
     return Array.isArray(rows) ? rows : [];
   };
+  const stream: Stream = <R>(sql: string, values: unknown[] = []) => streamOn<R>(connection, sql, values);
   try {
-    return await fn(read);
+    return await fn(read, stream);
   } finally {
     pool.releaseConnection(connection);
   }

@@ -74,6 +74,15 @@ function limitOf(units: Units) {
   };
 }
 
+// Each pair of units' converters, made once (an export writes hundreds of rows in one pair).
+const CONVERTERS = new Map<string, { to: ReturnType<typeof converter>; limit: ReturnType<typeof limitOf> }>();
+function convertersOf(units: Units) {
+  const key = `${units.length} ${units.torque}`;
+  let made = CONVERTERS.get(key);
+  if (!made) CONVERTERS.set(key, (made = { to: converter(units), limit: limitOf(units) }));
+  return made;
+}
+
 /** The latest decision on a flag in words: "Machine again (hone)", or where the flag stands without one. */
 function decisionWords(f: FlagDecisionRow | undefined): string {
   if (!f) return "";
@@ -97,8 +106,7 @@ export type RowContext = {
 };
 
 export function readingRow(r: StoredReading, units: Units, ctx: RowContext): Cell[] {
-  const to = converter(units);
-  const limit = limitOf(units);
+  const { to, limit } = convertersOf(units);
   const unit = r.unit as MeasureUnit;
   const rowUnit = isTorqueUnit(unit) ? units.torque : units.length;
   const gauge = r.instrumentId ? ctx.instruments.get(r.instrumentId)?.serial : null;
@@ -130,8 +138,7 @@ export function derivedRows(
   units: Units,
   decisions: Map<string, FlagDecisionRow>,
 ): Cell[][] {
-  const to = converter(units);
-  const limit = limitOf(units);
+  const { to, limit } = convertersOf(units);
   try {
     return deriveReadings(raws, job.shape, job.spec)
       .filter((d) => typeof d.value === "number")

@@ -23,7 +23,8 @@ import { toRaw } from "@/lib/server/sync/ingest-evaluate";
 import { peopleNames } from "@/lib/server/users/repo";
 
 // The readings CSV written while it is downloaded, in constant memory whatever the job's size: the
-// current readings (one per station) come from one query; with history, the rest are read a page
+// current readings (one per station) are picked as the job's rows stream past (repo.ts's
+// currentJobReadings); with history, the rest are read a page
 // at a time per station in bench order (stations off the route last, together, in taken order),
 // each page with its own flags and gauges, and handed on before the next is read. Every read goes
 // through the driver (sql-read.ts), side by side where one does not need another's answer.
@@ -86,10 +87,10 @@ export async function readingsCsv(shopId: number, jobId: number, opts: { history
   // In one round trip on one connection: the job (a 404 before anything is sent), its current
   // readings, the shop's people and gauges, and the flags of its computed values and (without
   // history, where each page reads its own) of its readings; the CSV prints those of current ones.
-  const [ctx, currents, takers, instruments, flags] = await withReads((read) =>
+  const [ctx, currents, takers, instruments, flags] = await withReads((read, stream) =>
     settleAll([
       jobContextOn(read, shopId, jobId),
-      currentJobReadings(jobId, read),
+      currentJobReadings(jobId, read, stream),
       peopleNames(shopId, read),
       shopGaugesOn(read, shopId),
       flagDecisions(shopId, jobId, opts.history ? [] : "all", true, read),

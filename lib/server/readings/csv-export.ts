@@ -29,21 +29,26 @@ export type Cell = string | number | null | undefined;
 export function plainNumber(x: number | null | undefined): string {
   if (x === null || x === undefined || !Number.isFinite(x)) return "";
   const s = String(x);
-  if (!/e/i.test(s)) return s;
+  if (!s.includes("e")) return s; // a number's text writes its exponent with a small e
   // Twelve significant digits is finer than any gauge (see lib/domain cleanDecimal).
   const fixed = Math.abs(x) < 1 ? x.toFixed(Math.min(20, 12 - Math.floor(Math.log10(Math.abs(x))))) : x.toFixed(0);
   return fixed.includes(".") ? fixed.replace(/0+$/, "").replace(/\.$/, "") : fixed;
 }
 
+// The first characters that make a spreadsheet read a cell as a formula: = + - @ tab CR.
+const FORMULA_START = new Set([61, 43, 45, 64, 9, 13]);
+const NEEDS_QUOTES = /[",\r\n]/;
+
 function textCell(s: string): string {
-  return /^[=+\-@\t\r]/.test(s) ? `'${s}` : s;
+  return FORMULA_START.has(s.charCodeAt(0)) ? `'${s}` : s;
 }
 
 export function csvField(cell: Cell): string {
   // A number's text is digits, a point and a sign: never quoted, never a formula.
   if (typeof cell === "number") return plainNumber(cell);
-  const s = cell === null || cell === undefined ? "" : textCell(cell);
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  if (cell === null || cell === undefined || cell === "") return "";
+  const s = textCell(cell);
+  return NEEDS_QUOTES.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
 /** One record and its CRLF. */

@@ -76,7 +76,9 @@ export function gaugePastDue(inst: InstrumentInfo | undefined, takenAt: Date): b
 
 /** The core's input for a stored reading (current readings always carry a value); the rule is the core's. */
 export const toRaw = (r: ReadingFacts, inst?: InstrumentInfo): RawReading =>
-  coreReading({ ...r, value: r.value as number }, inst);
+  // Passed as it is (copying a stored row's every field cost more than the step): coreReading reads
+  // the facts it needs, and a current reading's value is a number.
+  coreReading(r as ReadingFacts & { value: number }, inst);
 
 /** The limits' width T (upper − lower) in the gauge's unit; undefined for a one-sided limit. */
 function toleranceIn(ev: Evaluation | null, unit: string): number | undefined {
