@@ -29,13 +29,23 @@ export const VERDICT_WORDS: Readonly<Record<Verdict, string>> = {
 /** A verdict inside a line of text ("… · in spec · …"). */
 export const verdictInText = (verdict: Verdict): string => VERDICT_WORDS[verdict].toLowerCase();
 
+// A station's words depend on its id alone, and a job's page, export or audit page names each station
+// many times: each id is worded once (bounded: an engine has a few hundred stations).
+const STATION_WORDS = new Map<string, string>();
+
 /** Words for a station ("Cylinder 3 · top of bore · axis A (thrust)"); an id the catalogue no longer knows, as stored. */
 export function stationWords(id: string): string {
-  try {
-    return describeStation(id);
-  } catch {
-    return id;
+  let words = STATION_WORDS.get(id);
+  if (words === undefined) {
+    if (STATION_WORDS.size >= 10_000) STATION_WORDS.clear();
+    try {
+      words = describeStation(id);
+    } catch {
+      words = id;
+    }
+    STATION_WORDS.set(id, words);
   }
+  return words;
 }
 
 /** A characteristic's name; an id the catalogue no longer knows, with spaces for its underscores. */

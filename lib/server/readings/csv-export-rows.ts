@@ -37,19 +37,6 @@ import type { Cell } from "@/lib/server/readings/csv-export";
 
 export type Units = { length: LengthUnit; torque: TorqueUnit };
 
-// A station's words depend on its id alone, and an export names each station on many rows: each is
-// worded once (a bounded cache: a job has a few hundred stations).
-const WORDS = new Map<string, string>();
-function wordsOf(stationId: string): string {
-  let words = WORDS.get(stationId);
-  if (words === undefined) {
-    if (WORDS.size >= 10_000) WORDS.clear();
-    words = stationWords(stationId);
-    WORDS.set(stationId, words);
-  }
-  return words;
-}
-
 const isTorqueUnit = (u: MeasureUnit) => u === "lbf_ft" || u === "nm";
 
 export const unitsOf = (unitSystem: string): Units =>
@@ -113,7 +100,7 @@ export function readingRow(r: StoredReading, units: Units, ctx: RowContext): Cel
   return [
     "reading",
     r.stationId,
-    wordsOf(r.stationId),
+    stationWords(r.stationId),
     characteristicWords(r.characteristic),
     r.skipped ? null : to(r.value, unit),
     UNIT_WORDS[rowUnit],
@@ -145,7 +132,7 @@ export function derivedRows(
       .map((d) => [
         "derived",
         d.stationId,
-        wordsOf(d.stationId),
+        stationWords(d.stationId),
         characteristicWords(d.characteristic),
         to(d.value, d.unit),
         UNIT_WORDS[units.length],

@@ -11,7 +11,8 @@ import { loadScale, ownerUrl } from "./load";
 import { percentile, timeCase, type Timed } from "./timing";
 
 const READINGS = Number(process.env.TW_SCALE_READINGS ?? 1_000_000);
-const RUNS = Number(process.env.TW_SCALE_RUNS ?? 15);
+const RUNS = Number(process.env.TW_SCALE_RUNS ?? 30);
+const WARMUP = Number(process.env.TW_SCALE_WARMUP ?? 10);
 const GOAL_RATIO = 2;
 const GOAL_P95 = 200;
 // A raw query under 1 ms is counted as 1 ms: below that a ratio only measures the driver's fixed cost.
@@ -93,7 +94,8 @@ async function main() {
   );
   console.log(
     `  ${counts.flags} flags, ${counts.audits} audit events, ${counts.changes} change-feed rows; the measured job ` +
-      `has ${counts.jobReadings} readings. Server function vs raw SQL, ${RUNS} runs each, interleaved ` +
+      `has ${counts.jobReadings} readings. Server function vs raw SQL, ${RUNS} runs each, interleaved, ` +
+      `after ${WARMUP} untimed ` +
       `(goal: ratio ≤ ${GOAL_RATIO} and p95 ≤ ${GOAL_P95} ms):`,
   );
   const findings: string[] = [];
@@ -102,7 +104,7 @@ async function main() {
   const only = process.env.TW_SCALE_CASES?.split(",").filter(Boolean);
   const chosen = cases(s).filter((c) => !only || only.some((w) => c.name.includes(w)));
   for (const c of chosen) {
-    const t = await timeCase(conn, c, RUNS);
+    const t = await timeCase(conn, c, RUNS, WARMUP);
     const out = line(t);
     if (out.includes("MISS")) missed++;
     console.log(out);
