@@ -4,7 +4,7 @@
 import { writeFileSync } from "node:fs";
 import { cpus, loadavg } from "node:os";
 import { join } from "node:path";
-import mariadb from "mariadb";
+import mariadb, { type Connection } from "mariadb";
 import { closeSequelize } from "@/lib/server/core/db";
 import { cases, type Subject } from "./cases";
 import { loadScale, ownerUrl } from "./load";
@@ -13,6 +13,7 @@ import { percentile, timeCase, type Timed } from "./timing";
 const READINGS = Number(process.env.TW_SCALE_READINGS ?? 1_000_000);
 const RUNS = Number(process.env.TW_SCALE_RUNS ?? 30);
 const WARMUP = Number(process.env.TW_SCALE_WARMUP ?? 10);
+const SETTLE_MS = 240_000;
 const GOAL_RATIO = 2;
 const GOAL_P95 = 200;
 // A raw query under 1 ms is counted as 1 ms: below that a ratio only measures the driver's fixed cost.
@@ -74,6 +75,26 @@ async function subject(summary: Awaited<ReturnType<typeof loadScale>>): Promise<
   }
 }
 
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/**
+ * Waits, at most SETTLE_MS, until InnoDB has purged the load's undo history and the machine's
+ * 1-minute load has fallen below one busy core: figures taken while the database still purges a
+ * million inserts, or while the sealing processes' load lingers, measure those, not the queries.
+ */
+async function settle(conn: Connection): Promise<string> {
+  const started = Date.now();
+  for (;;) {
+    const [row] = await conn.query("SHOW GLOBAL STATUS LIKE 'Innodb_history_list_length'");
+    const history = Number(row?.Value ?? 0);
+    const quiet = history < 1000 && loadavg()[0] < 1.5;
+    const waited = Date.now() - started;
+    if (quiet || waited >= SETTLE_MS)
+      return `${quiet ? "settled" : "still busy"} after ${(waited / 1000).toFixed(0)} s (undo history ${history})`;
+    await sleep(2000);
+  }
+}
+
 async function main() {
   const machine = `load average ${loadavg()
     .map((l) => l.toFixed(1))
@@ -87,6 +108,7 @@ async function main() {
   const s = await subject(summary);
   writeFileSync(join(process.env.TW_DATA_ROOT ?? "/tmp", "scale-subject.json"), JSON.stringify(s));
   const conn = await mariadb.createConnection(ownerUrl());
+  console.log(`  waiting for the database and the machine to settle: ${await settle(conn)} [${load()}]`);
   const [counts] = await conn.query(
     `SELECT (SELECT COUNT(*) FROM flags) AS flags, (SELECT COUNT(*) FROM audit_events) AS audits,
             (SELECT COUNT(*) FROM sync_changes) AS changes, (SELECT COUNT(*) FROM readings WHERE job_id = ?) AS jobReadings`,
