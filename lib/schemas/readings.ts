@@ -82,19 +82,6 @@ export const READING_COLUMNS = {
 export type ReadingField = keyof typeof READING_COLUMNS;
 export const READING_FIELDS = Object.keys(READING_COLUMNS) as ReadingField[];
 
-/** The fields stored as DECIMAL: the driver may hand them back as text, the repo makes them numbers. */
-export const READING_DECIMALS = [
-  "valueCanonical",
-  "value",
-  "dialSetting",
-  "dialDeviation",
-  "partTempC",
-  "gaugeTempC",
-  "limitMin",
-  "limitMax",
-  "deviation",
-] as const satisfies readonly ReadingField[];
-
 // GET /api/jobs/:id/maps: bore, journal and deck maps of a job, every figure in the job's length unit.
 export type MapPoint = { value: number | null; min: number | null; max: number | null; verdict: Verdict | null };
 export type ProfileRow = { at: string; A: MapPoint; B: MapPoint };

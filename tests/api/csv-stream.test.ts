@@ -5,6 +5,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as CSV } from "@/app/api/jobs/[jobId]/readings.csv/route";
 import { withReads } from "@/lib/server/core/sql-read";
+import type { RowShape } from "@/lib/server/core/sql-driver";
 import { currentJobReadings, jobReadings } from "@/lib/server/readings/repo";
 import { fillReadings as fill, SKIP_REASON } from "../support/bulk-readings";
 import { createShop, type TestShop } from "../support/factories";
@@ -81,13 +82,13 @@ describe("GET /api/jobs/:id/readings.csv?history=1 on a 10,000-reading job", () 
       const currents = await withReads((read, stream) =>
         currentJobReadings(
           big.job.id,
-          async (sql, values) => {
-            const rows = await read(sql, values);
+          async (sql, values, shape) => {
+            const rows = await read(sql, values, shape);
             whole += rows.length;
             return rows as never;
           },
-          <R>(sql: string, values?: unknown[]) => {
-            const rows = stream<R>(sql, values);
+          <R>(sql: string, values?: unknown[], shape?: RowShape) => {
+            const rows = stream<R>(sql, values, shape);
             const each = (onRow: (r: R) => void) => rows.each((r) => (streamed++, onRow(r)));
             return { close: rows.close, each };
           },

@@ -32,6 +32,13 @@ const OPTIONS = {
   checkDuplicate: false,
 };
 
+// Rows as arrays of cells in the select list's order: the driver then builds no object per row,
+// which for a reading's 28 columns is a third of its CPU (a caller builds one object literal instead).
+const CELLS = { ...OPTIONS, rowsAsArray: true };
+/** How a SELECT's rows come back: objects keyed by column name (the default), or arrays of cells. */
+export type RowShape = "objects" | "cells";
+const optionsFor = (shape: RowShape) => (shape === "cells" ? CELLS : OPTIONS);
+
 function driverOf(t: Transaction): DriverConnection {
   const c = (t as unknown as { connection?: DriverConnection }).connection;
   if (!c) throw new Error("The transaction has no database connection yet");
@@ -72,10 +79,15 @@ let trace: Trace | null = null;
 export const setSqlTrace = (fn: Trace | null) => void (trace = fn);
 
 /** One statement on a driver connection, with this file's options (sql-read.ts runs its reads here too). */
-export async function queryOn(c: DriverConnection, sql: string, values: unknown[]): Promise<unknown> {
+export async function queryOn(
+  c: DriverConnection,
+  sql: string,
+  values: unknown[],
+  shape: RowShape = "objects",
+): Promise<unknown> {
   const started = trace ? performance.now() : 0;
   const params = values.map(param);
-  const out = await c.query({ sql, ...OPTIONS }, params);
+  const out = await c.query({ sql, ...optionsFor(shape) }, params);
   trace?.(sql, performance.now() - started, params);
   return out;
 }
@@ -93,10 +105,15 @@ export type RowStream<R> = {
   close(): void;
 };
 
-export function streamOn<R>(c: DriverConnection, sql: string, values: unknown[]): RowStream<R> {
+export function streamOn<R>(
+  c: DriverConnection,
+  sql: string,
+  values: unknown[],
+  shape: RowShape = "objects",
+): RowStream<R> {
   const started = trace ? performance.now() : 0;
   const params = values.map(param);
-  const s = c.queryStream({ sql, ...OPTIONS }, params);
+  const s = c.queryStream({ sql, ...optionsFor(shape) }, params);
   // The driver emits its errors whether or not anyone listens yet: keep the first for `each`.
   let failure: unknown = null;
   s.on("error", (e) => void (failure ??= e));
@@ -125,17 +142,19 @@ export function streamOn<R>(c: DriverConnection, sql: string, values: unknown[])
   };
 }
 
-const run = (t: Transaction, sql: string, values: unknown[]) => queryOn(driverOf(t), sql, values);
+const run = (t: Transaction, sql: string, values: unknown[], shape?: RowShape) =>
+  queryOn(driverOf(t), sql, values, shape);
 
 const param = (v: unknown) => (v === undefined ? null : v instanceof Date ? utcText(v) : v);
 
-/** SELECT rows as plain objects (DECIMAL and BIGINT as numbers, DATETIME as UTC text). */
+/** SELECT rows as plain objects, or arrays of cells (DECIMAL and BIGINT as numbers, DATETIME as UTC text). */
 export async function sqlRows<T = Record<string, unknown>>(
   t: Transaction,
   sql: string,
   values: unknown[] = [],
+  shape?: RowShape,
 ): Promise<T[]> {
-  const rows = (await run(t, sql, values)) as T[];
+  const rows = (await run(t, sql, values, shape)) as T[];
   return Array.isArray(rows) ? rows : [];
 }
 

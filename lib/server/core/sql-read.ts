@@ -1,6 +1,6 @@
 import "server-only";
 import { getSequelize } from "@/lib/server/core/db";
-import { queryOn, streamOn, type DriverConnection, type RowStream } from "@/lib/server/core/sql-driver";
+import { queryOn, streamOn, type DriverConnection, type RowShape, type RowStream } from "@/lib/server/core/sql-driver";
 
 // Office reads straight on the mariadb driver, outside any transaction: a pooled connection of the
 // shared Sequelize instance, the same options as sql-driver.ts (plain row objects, DECIMAL and BIGINT
@@ -11,10 +11,10 @@ import { queryOn, streamOn, type DriverConnection, type RowStream } from "@/lib/
 // Queries issued together inside `withReads` are pipelined on the one connection (the server runs
 // them in turn, without a round trip between them); await them together with settleAll.
 
-/** Runs one SELECT and gives its rows as plain objects. */
-export type Read = <R = Record<string, unknown>>(sql: string, values?: unknown[]) => Promise<R[]>;
+/** Runs one SELECT and gives its rows as plain objects (or, asked, as arrays of cells). */
+export type Read = <R = Record<string, unknown>>(sql: string, values?: unknown[], shape?: RowShape) => Promise<R[]>;
 /** Runs one SELECT whose rows are handed over one at a time (sql-driver.ts's streamOn). */
-export type Stream = <R = Record<string, unknown>>(sql: string, values?: unknown[]) => RowStream<R>;
+export type Stream = <R = Record<string, unknown>>(sql: string, values?: unknown[], shape?: RowShape) => RowStream<R>;
 
 type Pool = {
   getConnection(o: { type: "read" }): Promise<DriverConnection>;
@@ -27,11 +27,12 @@ const poolOf = () => (getSequelize() as unknown as { connectionManager: Pool }).
 export async function withReads<T>(fn: (read: Read, stream: Stream) => Promise<T>): Promise<T> {
   const pool = poolOf();
   const connection = await pool.getConnection({ type: "read" });
-  const read: Read = async <R>(sql: string, values: unknown[] = []) => {
-    const rows = (await queryOn(connection, sql, values)) as R[];
+  const read: Read = async <R>(sql: string, values: unknown[] = [], shape?: RowShape) => {
+    const rows = (await queryOn(connection, sql, values, shape)) as R[];
     return Array.isArray(rows) ? rows : [];
   };
-  const stream: Stream = <R>(sql: string, values: unknown[] = []) => streamOn<R>(connection, sql, values);
+  const stream: Stream = <R>(sql: string, values: unknown[] = [], shape?: RowShape) =>
+    streamOn<R>(connection, sql, values, shape);
   try {
     return await fn(read, stream);
   } finally {
@@ -39,6 +40,9 @@ export async function withReads<T>(fn: (read: Read, stream: Stream) => Promise<T
   }
 }
 
-/** One SELECT outside any transaction, its rows as plain objects. */
-export const readRows = <R = Record<string, unknown>>(sql: string, values: unknown[] = []): Promise<R[]> =>
-  withReads((read) => read<R>(sql, values));
+/** One SELECT outside any transaction, its rows as plain objects (or, asked, as arrays of cells). */
+export const readRows = <R = Record<string, unknown>>(
+  sql: string,
+  values: unknown[] = [],
+  shape?: RowShape,
+): Promise<R[]> => withReads((read) => read<R>(sql, values, shape));

@@ -44,8 +44,8 @@ export function gaugeOf(row: Record<string, unknown>): InstrumentInfo {
 /** A transaction's connection as a Read. */
 const onTransaction =
   (t: Transaction): Read =>
-  (sql, values) =>
-    sqlRows(t, sql, values);
+  (sql, values, shape) =>
+    sqlRows(t, sql, values, shape);
 
 /** The shop's gauges with these ids (other shops' ids are simply absent). */
 export async function findInstruments(

@@ -1,14 +1,13 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import { decimalToNumber } from "@/models";
 import { correctedBy, currentPicker } from "@/lib/domain";
-import { READING_COLUMNS, READING_DECIMALS, READING_FIELDS, type StoredReading } from "@/lib/schemas/readings";
+import { READING_COLUMNS, READING_FIELDS, type ReadingField, type StoredReading } from "@/lib/schemas/readings";
 import { causalRows } from "@/lib/server/core/cluster";
 import { settleAll, sqlRows, sqlWrite, utcDate, utcText } from "@/lib/server/core/sql-driver";
 import { readRows, withReads, type Read, type Stream } from "@/lib/server/core/sql-read";
 import { insertMany } from "@/lib/server/core/sql-insert";
 import type { InstrumentInfo } from "@/lib/server/sync/ingest-evaluate";
-import { GAUGE_COLUMNS, gaugeOf, shopGaugesOn } from "@/lib/server/readings/gauge-repo";
+import { batchInstruments, shopGaugesOn } from "@/lib/server/readings/gauge-repo";
 
 // Readings and the gauges they were taken with. Plain objects out; every query scoped by shop or
 // by a job the caller has already checked belongs to the shop.
@@ -16,22 +15,49 @@ import { GAUGE_COLUMNS, gaugeOf, shopGaugesOn } from "@/lib/server/readings/gaug
 // Raw SQL for the hot paths of ingest and reconciliation: model instances cost more than the
 // queries here (bench:sync), and these rows only ever travel as plain objects. Columns and field
 // names come from the map the model uses too (lib/schemas/readings.ts).
-const selectList = (table = "") => READING_FIELDS.map((k) => `${table}${READING_COLUMNS[k]} AS ${k}`).join(", ");
-const COLUMNS = selectList();
-const JOINED_COLUMNS = selectList("r.");
+const COLUMNS = READING_FIELDS.map((k) => READING_COLUMNS[k]).join(", ");
 const ORDER = "ORDER BY taken_at, received_at, id";
 
-function fromRow(row: Record<string, unknown>): StoredReading {
-  const r = row as unknown as StoredReading & Record<string, unknown>;
-  for (const k of READING_DECIMALS) r[k] = decimalToNumber(row[k]);
-  r.jobId = Number(row.jobId);
-  r.shopId = Number(row.shopId);
-  r.instrumentId = row.instrumentId === null ? null : Number(row.instrumentId);
-  r.skipped = !!row.skipped;
-  // Sequelize hands DATETIME back as a Date, the driver path (sql-driver.ts) as UTC text.
-  r.takenAt = utcDate(row.takenAt) as Date;
-  r.receivedAt = utcDate(row.receivedAt) as Date;
-  return r;
+// A reading's cells in READING_FIELDS' order (the select list's), by field.
+const AT = Object.fromEntries(READING_FIELDS.map((k, i) => [k, i])) as Record<ReadingField, number>;
+// DECIMAL cells come as numbers (sql-driver.ts), or as text should the driver change its mind.
+const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
+
+/**
+ * A reading from its row's cells (sql-driver.ts's "cells" shape): one object literal, so every
+ * reading has the same shape. The type checks that no field is left out.
+ */
+function fromCells(a: unknown[]): StoredReading {
+  return {
+    id: a[AT.id] as string,
+    shopId: Number(a[AT.shopId]),
+    jobId: Number(a[AT.jobId]),
+    stationId: a[AT.stationId] as string,
+    characteristic: a[AT.characteristic] as string,
+    valueCanonical: num(a[AT.valueCanonical]),
+    value: num(a[AT.value]),
+    unit: a[AT.unit] as string,
+    entryMode: a[AT.entryMode] as StoredReading["entryMode"],
+    dialSetting: num(a[AT.dialSetting]),
+    dialDeviation: num(a[AT.dialDeviation]),
+    instrumentId: num(a[AT.instrumentId]),
+    partTempC: num(a[AT.partTempC]),
+    gaugeTempC: num(a[AT.gaugeTempC]),
+    lubricant: a[AT.lubricant] as string | null,
+    skipped: !!a[AT.skipped],
+    skipReason: a[AT.skipReason] as string | null,
+    note: a[AT.note] as string | null,
+    takenBy: Number(a[AT.takenBy]),
+    takenAt: utcDate(a[AT.takenAt]) as Date,
+    receivedAt: utcDate(a[AT.receivedAt]) as Date,
+    deviceId: a[AT.deviceId] as string,
+    supersedes: a[AT.supersedes] as string | null,
+    verdict: a[AT.verdict] as StoredReading["verdict"],
+    verdictNote: a[AT.verdictNote] as string | null,
+    limitMin: num(a[AT.limitMin]),
+    limitMax: num(a[AT.limitMax]),
+    deviation: num(a[AT.deviation]),
+  };
 }
 
 /**
@@ -45,8 +71,10 @@ async function selectReadings(
   tail = "", // a lock or a LIMIT after the order
 ): Promise<StoredReading[]> {
   const sql = `SELECT ${COLUMNS} FROM readings WHERE ${where} ${ORDER}${tail}`;
-  const rows = t ? await sqlRows(t, sql, replacements) : await readRows(sql, replacements);
-  return rows.map(fromRow);
+  const rows = t
+    ? await sqlRows<unknown[]>(t, sql, replacements, "cells")
+    : await readRows<unknown[]>(sql, replacements, "cells");
+  return rows.map(fromCells);
 }
 
 /**
@@ -112,7 +140,7 @@ export async function currentJobReadings(jobId: number, read?: Read, stream?: St
     "SELECT supersedes FROM readings WHERE job_id = ? AND supersedes IS NOT NULL",
     [jobId],
   );
-  const rows = stream(`SELECT ${COLUMNS} FROM readings WHERE job_id = ?`, [jobId]);
+  const rows = stream<unknown[]>(`SELECT ${COLUMNS} FROM readings WHERE job_id = ?`, [jobId], "cells");
   let gone: Set<string>;
   try {
     gone = new Set((await replaced).map((r) => r.supersedes));
@@ -121,7 +149,7 @@ export async function currentJobReadings(jobId: number, read?: Read, stream?: St
     throw e;
   }
   const pick = currentPicker<StoredReading>(gone);
-  await rows.each((row) => pick.offer(fromRow(row)));
+  await rows.each((row) => pick.offer(fromCells(row)));
   return [...pick.current.values()].sort(byTaken);
 }
 
@@ -155,16 +183,17 @@ export async function jobReadingsOn(
   jobId: number,
 ): Promise<{ readings: StoredReading[]; instruments: Map<number, InstrumentInfo> }> {
   const [rows, instruments] = await settleAll([
-    read(`SELECT ${COLUMNS} FROM readings WHERE job_id = ?`, [jobId]),
+    read<unknown[]>(`SELECT ${COLUMNS} FROM readings WHERE job_id = ?`, [jobId], "cells"),
     shopGaugesOn(read, shopId),
   ]);
-  return { readings: rows.map(fromRow), instruments };
+  return { readings: rows.map(fromCells), instruments };
 }
 
 /**
- * jobReadings and the shop's gauges they were taken with, in one query (reconciliation's hot path);
- * with `stations`, only the readings at those stations (a station's current figure depends on its
- * own readings only: a correction is always taken at the station it corrects).
+ * jobReadings and the shop's gauges (those its readings were taken with among them), issued
+ * together on the transaction (reconciliation's hot path); with `stations`, only the readings at
+ * those stations (a station's current figure depends on its own readings only: a correction is
+ * always taken at the station it corrects).
  */
 export async function jobReadingsWithGauges(
   t: Transaction,
@@ -174,19 +203,12 @@ export async function jobReadingsWithGauges(
   stations?: readonly string[],
 ) {
   if (stations?.length === 0) return { readings: [], instruments: new Map<number, InstrumentInfo>() };
-  const rows = await sqlRows(
-    t,
-    `SELECT ${JOINED_COLUMNS}, ${GAUGE_COLUMNS} FROM readings r
-      LEFT JOIN instruments g ON g.id = r.instrument_id AND g.shop_id = ?
-      WHERE r.job_id = ?${stations ? " AND r.station_id IN (?)" : ""}
-      ORDER BY r.taken_at, r.received_at, r.id${locking ? " LOCK IN SHARE MODE" : ""}`,
-    stations ? [shopId, jobId, stations] : [shopId, jobId],
-  );
-  const instruments = new Map<number, InstrumentInfo>();
-  for (const row of rows)
-    if (row.gId !== null && row.gId !== undefined && !instruments.has(Number(row.gId)))
-      instruments.set(Number(row.gId), gaugeOf(row));
-  return { readings: rows.map(fromRow), instruments };
+  const where = stations ? "job_id = ? AND station_id IN (?)" : "job_id = ?";
+  const [readings, instruments] = await settleAll([
+    selectReadings(where, stations ? [jobId, stations] : [jobId], t, locking ? " LOCK IN SHARE MODE" : ""),
+    batchInstruments(t, shopId),
+  ]);
+  return { readings, instruments };
 }
 
 const INSERT_COLUMNS = [...READING_FIELDS.map((k) => READING_COLUMNS[k]), "created_at", "updated_at"];
