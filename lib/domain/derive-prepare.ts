@@ -31,29 +31,28 @@ const MAY_BE_ZERO = new Set<CharacteristicId>(["ring_end_gap", "rod_side_clearan
 
 function checkReading(reading: RawReading, characteristic: RawCharacteristic): void {
   // In words (the tablet shows these): the station as a person names it, units as written. Worded
-  // only when a check fails: a job's page checks hundreds of good readings.
-  const id = () => stationWords(reading.stationId);
+  // only when a check fails (no closure made per reading either): a job's page checks hundreds.
   const { kind, label } = CHARACTERISTICS[characteristic];
   const units: readonly string[] = kind === "length" ? LENGTH_UNITS : TORQUE_UNITS;
   if (!units.includes(reading.unit))
     throw new Error(
-      `${id()} takes a ${kind} in ${units.map(unitWords).join(" or ")}; got unit '${String(reading.unit)}'`,
+      `${stationWords(reading.stationId)} takes a ${kind} in ${units.map(unitWords).join(" or ")}; got unit '${String(reading.unit)}'`,
     );
   if (typeof reading.value !== "number" || !Number.isFinite(reading.value))
-    throw new Error(`${id()}: the value must be a number; re-enter it`);
+    throw new Error(`${stationWords(reading.stationId)}: the value must be a number; re-enter it`);
   const zeroOk = MAY_BE_ZERO.has(characteristic);
   if (zeroOk ? reading.value < 0 : reading.value <= 0) {
     throw new Error(
-      `${id()}: ${reading.value} cannot be right; a ${label.split(",")[0].toLowerCase()} is ${zeroOk ? "zero or more" : "above zero"}`,
+      `${stationWords(reading.stationId)}: ${reading.value} cannot be right; a ${label.split(",")[0].toLowerCase()} is ${zeroOk ? "zero or more" : "above zero"}`,
     );
   }
   const u = reading.uncertainty;
   if (u !== undefined && (typeof u !== "number" || !Number.isFinite(u) || u < 0)) {
-    throw new Error(`${id()}: uncertainty U must be zero or more; got ${String(u)}`);
+    throw new Error(`${stationWords(reading.stationId)}: uncertainty U must be zero or more; got ${String(u)}`);
   }
   if (kind === "torque" && !(reading.lubricant && reading.lubricant in LUBRICANT_LABELS)) {
     const words = Object.values(LUBRICANT_LABELS).map((l) => l.toLowerCase());
-    throw new Error(`${id()}: say which lubricant was used (${words.join(", ")})`);
+    throw new Error(`${stationWords(reading.stationId)}: say which lubricant was used (${words.join(", ")})`);
   }
 }
 

@@ -78,13 +78,20 @@ export function evaluateReading(
 }
 
 function combinedU(inputs: Prepared[], engine: EngineShape): number | undefined {
-  const us: number[] = [];
+  // The two largest U (a ≥ b), kept as the inputs pass: a value has two to eight inputs.
+  let a = 0;
+  let b = 0;
+  let any = false;
   for (const p of inputs) {
     const u = uInEngineUnit(p, engine);
-    if (u !== undefined) us.push(u);
+    if (u === undefined) continue;
+    any = true;
+    if (u > a) {
+      b = a;
+      a = u;
+    } else if (u > b) b = u;
   }
-  if (us.length === 0) return undefined;
-  const [a = 0, b = 0] = us.sort((x, y) => y - x);
+  if (!any) return undefined;
   return cleanDecimal(2 * clearanceUncertainty({ uBore: a / 2, uJournal: b / 2 }));
 }
 

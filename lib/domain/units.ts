@@ -58,15 +58,20 @@ export const DISPLAY_RESOLUTION: Readonly<Record<MeasureUnit, string>> = {
   nm: "1",
 };
 
+// Each unit's decimal places at its display resolution, counted once (an export rounds hundreds).
+const DISPLAY_PLACES: Partial<Record<string, number>> = Object.fromEntries(
+  Object.entries(DISPLAY_RESOLUTION).map(([u, step]) => [u, step.includes(".") ? step.split(".")[1].length : 0]),
+);
+
 /**
  * A figure rounded to its unit's display resolution by plain decimal rounding (to the nearest
  * step, a half away from zero), on the figure as written after cleanDecimal: a limit computed as
  * 0.00045 × 4.0817 = 0.001836765 in is shown 0.0018 in.
  */
 export function roundToResolution(x: number, unit: MeasureUnit): number {
-  const step = DISPLAY_RESOLUTION[unit];
-  if (!step) throw new Error(`Unknown unit '${String(unit)}'; use ${Object.keys(DISPLAY_RESOLUTION).join(", ")}`);
-  const places = step.includes(".") ? step.split(".")[1].length : 0;
+  const places = DISPLAY_PLACES[unit];
+  if (places === undefined)
+    throw new Error(`Unknown unit '${String(unit)}'; use ${Object.keys(DISPLAY_RESOLUTION).join(", ")}`);
   const quick = quickRound(x, places);
   if (!Number.isNaN(quick)) return quick;
   const rounded = toDecimal(x, "Figure").toDecimalPlaces(places, Decimal.ROUND_HALF_UP).toNumber();
