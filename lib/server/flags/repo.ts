@@ -199,6 +199,14 @@ export type FlagDecisionRow = {
 };
 
 /**
+ * How a job's own flags are read: through the job's index alone. Left to itself, MariaDB also
+ * builds a row filter from an index led by shop_id, which reads every flag of the shop: a
+ * job's few dozen flags then cost as much as the shop's thousands (1.5 ms at a million readings).
+ * The shop is still checked on each of the job's rows.
+ */
+export const JOB_FLAGS_INDEX = "USE INDEX (flags_job_station)";
+
+/**
  * The job's flags, oldest first, of these readings (or of all its readings), and with `derived`, of
  * its computed values too: one statement (the CSV reads them with each page of readings).
  */
@@ -216,8 +224,8 @@ export async function flagDecisions(
   ];
   if (!of.length) return [];
   return read<FlagDecisionRow>(
-    `SELECT id, reading_id AS readingId, derived_key AS derivedKey, state, disposition, operation FROM flags
-      WHERE shop_id = ? AND job_id = ? AND (${of.join(" OR ")}) ORDER BY id`,
+    `SELECT id, reading_id AS readingId, derived_key AS derivedKey, state, disposition, operation
+      FROM flags ${JOB_FLAGS_INDEX} WHERE shop_id = ? AND job_id = ? AND (${of.join(" OR ")}) ORDER BY id`,
     [shopId, jobId, ...(some ? [readingIds] : [])],
   );
 }

@@ -11,6 +11,7 @@ import { notFound } from "@/lib/server/core/errors";
 import { modelColumns, type ModelColumns } from "@/lib/server/core/sql-columns";
 import { settleAll, sqlRows, utcDate } from "@/lib/server/core/sql-driver";
 import { readRows, withReads, type Read } from "@/lib/server/core/sql-read";
+import { JOB_FLAGS_INDEX } from "@/lib/server/flags/repo";
 import { toEngineShape, toSpecLimit, type JobContext } from "@/lib/server/jobs/context";
 
 // The jobs feature's only door to the database: jobs, their engines, their own limit snapshots
@@ -144,7 +145,7 @@ export async function jobHeaderOn(
       [jobId, shopId],
     ),
     read<{ state: FlagState; n: number }>(
-      "SELECT state, COUNT(*) AS n FROM flags WHERE shop_id = ? AND job_id = ? GROUP BY state",
+      `SELECT state, COUNT(*) AS n FROM flags ${JOB_FLAGS_INDEX} WHERE shop_id = ? AND job_id = ? GROUP BY state`,
       [shopId, jobId],
     ),
   ]);
