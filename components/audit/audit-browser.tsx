@@ -2,6 +2,7 @@
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import Link from "next/link";
+import { Fragment } from "react";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { Empty, LoadFailed, Loading } from "@/components/release/query-states";
 import { Button } from "@/components/ui/button";
@@ -12,7 +13,6 @@ import { AuditFilters, FILTER_KEYS, type Filters } from "./audit-filters";
 
 // The audit trail for the lead and the inspector: filtered and paged on the server, newest first.
 const PAGE_SIZE = 25;
-const stamp = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 19)}`;
 const count = (n: number) => n.toLocaleString("en-US");
 
 // A long trail is counted only a few thousand events past the page (the server says `more`): then
@@ -36,6 +36,17 @@ function useFilters() {
   return { filters, page, go };
 }
 
+/** An action name ("flag.machine_again") that may wrap after its dots and underscores, not mid-word. */
+const breakable = (action: string) =>
+  action.split(/(?<=[._])/).map((part, i) => (
+    <Fragment key={i}>
+      {i > 0 && <wbr />}
+      {part}
+    </Fragment>
+  ));
+
+// Below desktop width the date and time, the person and the record wrap in their cells, so the
+// before → after column keeps its room on an 800-pixel tablet instead of running off the side.
 function Table({ data }: { data: AuditPage }) {
   return (
     <div className="overflow-x-auto rounded-tool border-2 border-rule bg-panel">
@@ -53,10 +64,13 @@ function Table({ data }: { data: AuditPage }) {
         <tbody>
           {data.events.map((e) => (
             <tr key={e.id} className="border-b border-rule align-top" data-event={e.id} data-action={e.action}>
-              <td className="tabular whitespace-nowrap p-2 font-mono text-xs">{stamp(e.at)}</td>
-              <td className="whitespace-nowrap p-2">{e.userName ?? <span className="text-muted">System</span>}</td>
-              <td className="p-2 font-mono text-xs font-semibold">{e.action}</td>
-              <td className="whitespace-nowrap p-2">
+              <td className="tabular p-2 font-mono text-xs">
+                <span className="whitespace-nowrap">{e.at.slice(0, 10)}</span>{" "}
+                <span className="whitespace-nowrap">{e.at.slice(11, 19)}</span>
+              </td>
+              <td className="p-2 lg:whitespace-nowrap">{e.userName ?? <span className="text-muted">System</span>}</td>
+              <td className="p-2 font-mono text-xs font-semibold">{breakable(e.action)}</td>
+              <td className="p-2 lg:whitespace-nowrap">
                 {e.entityType}{" "}
                 <span className="font-mono text-xs text-muted">
                   {e.entityId.length > 12 ? `${e.entityId.slice(0, 8)}…` : `#${e.entityId}`}
@@ -74,7 +88,7 @@ function Table({ data }: { data: AuditPage }) {
                   <span className="text-muted">—</span>
                 )}
               </td>
-              <td className="min-w-72 p-2">
+              <td className="min-w-56 p-2 lg:min-w-72">
                 <AuditChanges changes={e.changes} truncated={e.truncated} />
               </td>
             </tr>

@@ -6,7 +6,7 @@ export function AuditChanges({ changes, truncated }: { changes: AuditChange[]; t
   return (
     <ul className="flex flex-col gap-0.5">
       {changes.map((c) => (
-        <li key={c.path} className="break-words" data-kind={c.kind}>
+        <li key={c.path} className="wrap-anywhere" data-kind={c.kind}>
           <span className="text-sm text-muted" title={c.path}>
             {c.label}:
           </span>{" "}
