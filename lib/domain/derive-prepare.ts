@@ -42,8 +42,9 @@ function checkReading(reading: RawReading, characteristic: RawCharacteristic): v
     throw new Error(`${stationWords(reading.stationId)}: the value must be a number; re-enter it`);
   const zeroOk = MAY_BE_ZERO.has(characteristic);
   if (zeroOk ? reading.value < 0 : reading.value <= 0) {
+    const what = label.split(",")[0].toLowerCase();
     throw new Error(
-      `${stationWords(reading.stationId)}: ${reading.value} cannot be right; a ${label.split(",")[0].toLowerCase()} is ${zeroOk ? "zero or more" : "above zero"}`,
+      `${stationWords(reading.stationId)}: ${reading.value} cannot be right; a ${what} is ${zeroOk ? "zero or more" : "above zero"}`,
     );
   }
   const u = reading.uncertainty;

@@ -191,22 +191,23 @@ export async function jobReadingsOn(
 
 /**
  * jobReadings and the shop's gauges (those its readings were taken with among them), issued
- * together on the transaction (reconciliation's hot path); with `stations`, only the readings at
- * those stations (a station's current figure depends on its own readings only: a correction is
- * always taken at the station it corrects).
+ * together on the transaction (reconciliation's hot path), or with the gauges the caller already
+ * read in it (ingest reads them for its checks); with `stations`, only the readings at those
+ * stations (a station's current figure depends on its own readings only: a correction is always
+ * taken at the station it corrects).
  */
 export async function jobReadingsWithGauges(
   t: Transaction,
   shopId: number,
   jobId: number,
-  locking = true,
-  stations?: readonly string[],
+  opts: { locking?: boolean; stations?: readonly string[]; gauges?: Map<number, InstrumentInfo> } = {},
 ) {
+  const { locking = true, stations, gauges } = opts;
   if (stations?.length === 0) return { readings: [], instruments: new Map<number, InstrumentInfo>() };
   const where = stations ? "job_id = ? AND station_id IN (?)" : "job_id = ?";
   const [readings, instruments] = await settleAll([
     selectReadings(where, stations ? [jobId, stations] : [jobId], t, locking ? " LOCK IN SHARE MODE" : ""),
-    batchInstruments(t, shopId),
+    gauges ? Promise.resolve(gauges) : batchInstruments(t, shopId),
   ]);
   return { readings, instruments };
 }

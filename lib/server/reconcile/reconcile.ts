@@ -60,6 +60,8 @@ export type ReconcileOptions = {
   context?: JobContext;
   /** Collects audit and change rows for the caller to write with its own, instead of writing them here. */
   log?: ReconcileLog;
+  /** The shop's gauges, already read in this transaction (ingest's); else they are read with the readings. */
+  gauges?: Map<number, InstrumentInfo>;
 };
 export type ReconcileLog = { audits: AuditInput[]; changes: ChangeInput[] };
 export type ReconcileResult = {
@@ -209,7 +211,7 @@ export function readForReconcile(t: Transaction, o: ReconcileOptions, ctx: JobCo
   const locking = !o.context;
   const stations = o.fresh ? ingestStations(ctx, new Set(o.fresh.values())) : undefined;
   const inScope = stations ? new Set(stations) : undefined;
-  const reading = jobReadingsWithGauges(t, o.shopId, o.jobId, locking, stations);
+  const reading = jobReadingsWithGauges(t, o.shopId, o.jobId, { locking, stations, gauges: o.gauges });
   // Raw flags outside the scope keep whatever they are (derived ones are filtered once derived).
   const flags = unclosedFlags(t, o.jobId, locking).then((fs) =>
     inScope ? fs.filter((f) => !!f.derivedKey || inScope.has(f.stationId)) : fs,

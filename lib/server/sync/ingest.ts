@@ -170,6 +170,7 @@ async function write(t: Transaction, actor: Actor, bc: BatchContext, fresh: Stor
     cause: "sync",
     log,
     context: bc.jobs.get(jobId)!,
+    gauges: bc.instruments,
     fresh: new Map(fresh.filter((r) => r.jobId === jobId).map((r) => [r.id, r.stationId])),
   }));
   const inserting = insertReadings(t, insertOrder(fresh));
